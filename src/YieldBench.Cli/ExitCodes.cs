@@ -1,0 +1,14 @@
+namespace YieldBench.Cli;
+
+/// <summary>The command's exit codes.</summary>
+public static class ExitCodes
+{
+    /// <summary>Success.</summary>
+    public const int Success = 0;
+
+    /// <summary>The inputs had problems, which were reported.</summary>
+    public const int InputProblems = 1;
+
+    /// <summary>The command line was not understood.</summary>
+    public const int Usage = 2;
+}

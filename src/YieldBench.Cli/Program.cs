@@ -1,0 +1,3 @@
+using YieldBench.Cli;
+
+return YieldBenchApp.Run(args, CliContext.FromConsole());

@@ -1,0 +1,69 @@
+namespace YieldBench.Core.Statistics;
+
+/// <summary>
+/// Order statistics. Policy for degenerate input (pinned by tests): an empty sample gives NaN; NaN values are
+/// not allowed (callers filter them) and throw <see cref="ArgumentException"/>.
+/// </summary>
+public static class Descriptive
+{
+    /// <summary>Median of an unsorted sample (copies it). NaN when empty.</summary>
+    public static double Median(IEnumerable<double> values)
+    {
+        var a = ToSortedArray(values);
+        return MedianOfSorted(a);
+    }
+
+    /// <summary>Median of an ascending-sorted array. NaN when empty.</summary>
+    public static double MedianOfSorted(IReadOnlyList<double> sorted)
+    {
+        int n = sorted.Count;
+        if (n == 0)
+        {
+            return double.NaN;
+        }
+
+        return n % 2 == 1 ? sorted[n / 2] : 0.5 * (sorted[(n / 2) - 1] + sorted[n / 2]);
+    }
+
+    /// <summary>
+    /// Quantile by Hyndman–Fan definition 7 (R's default <c>quantile(type = 7)</c>, Excel's QUANTILE.INC):
+    /// h = (n − 1)·p, linear interpolation between the order statistics around h. NaN when empty.
+    /// </summary>
+    public static double QuantileOfSorted(IReadOnlyList<double> sorted, double p)
+    {
+        if (p is < 0 or > 1 || double.IsNaN(p))
+        {
+            throw new ArgumentOutOfRangeException(nameof(p), p, "A quantile's probability must be between 0 and 1.");
+        }
+
+        int n = sorted.Count;
+        if (n == 0)
+        {
+            return double.NaN;
+        }
+
+        double h = (n - 1) * p;
+        int lo = (int)Math.Floor(h);
+        int hi = Math.Min(lo + 1, n - 1);
+        return sorted[lo] + ((h - lo) * (sorted[hi] - sorted[lo]));
+    }
+
+    /// <summary>Quantile (Hyndman–Fan type 7) of an unsorted sample.</summary>
+    public static double Quantile(IEnumerable<double> values, double p) => QuantileOfSorted(ToSortedArray(values), p);
+
+    /// <summary>Copies and sorts, rejecting NaN.</summary>
+    public static double[] ToSortedArray(IEnumerable<double> values)
+    {
+        var a = values.ToArray();
+        foreach (double v in a)
+        {
+            if (double.IsNaN(v))
+            {
+                throw new ArgumentException("The sample holds NaN; filter missing values before computing statistics.", nameof(values));
+            }
+        }
+
+        Array.Sort(a);
+        return a;
+    }
+}

@@ -1,0 +1,20 @@
+namespace YieldBench.Core.Units;
+
+/// <summary>The scales a must-sugar reading can be recorded in.</summary>
+public enum SugarScale
+{
+    /// <summary>°Brix (% sucrose by mass, 20 °C).</summary>
+    Brix,
+
+    /// <summary>Specific gravity 20/20 °C (apparent, as hydrometers read).</summary>
+    SpecificGravity,
+
+    /// <summary>°Baumé, heavy-liquid scale with modulus 145.</summary>
+    Baume,
+
+    /// <summary>°Oechsle = (SG − 1) × 1000.</summary>
+    Oechsle,
+
+    /// <summary>Fermentable sugar in grams per litre of must (OIV must table).</summary>
+    GramsPerLitre,
+}

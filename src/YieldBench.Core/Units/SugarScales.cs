@@ -1,0 +1,50 @@
+namespace YieldBench.Core.Units;
+
+/// <summary>
+/// The raw relations between sugar scales. Each formula's source is in docs/methods.md ("Sugar scales").
+/// </summary>
+public static class SugarScales
+{
+    /// <summary>Baumé modulus for liquids heavier than water (SG = 145 / (145 − °Bé)).</summary>
+    public const double BaumeModulus = 145.0;
+
+    /// <summary>
+    /// °Brix from apparent SG 20/20 °C: °Bx = ((182.4601·S − 775.6821)·S + 1262.7794)·S − 669.5622, the cubic fitted
+    /// to the NBS sucrose table (RMS 0.0009 °Bx over S 1.00000–1.17874). Below S = 1 it is extrapolated, as hydrometer
+    /// scales are, to give the negative °Brix of a finished wine.
+    /// </summary>
+    public static double BrixFromSpecificGravity(double sg) =>
+        (((182.4601 * sg) - 775.6821) * sg + 1262.7794) * sg - 669.5622;
+
+    /// <summary>Apparent SG 20/20 °C from °Brix: the inverse of <see cref="BrixFromSpecificGravity"/> by Newton's method.</summary>
+    public static double SpecificGravityFromBrix(double brix)
+    {
+        // Start from the linear rule of thumb (about 0.004 SG per °Brix) and polish; the cubic is monotone on 0.97–1.25.
+        double s = 1.0 + (brix * 0.004);
+        for (int i = 0; i < 50; i++)
+        {
+            double f = BrixFromSpecificGravity(s) - brix;
+            double df = ((3 * 182.4601 * s) - (2 * 775.6821)) * s + 1262.7794;
+            double step = f / df;
+            s -= step;
+            if (Math.Abs(step) < 1e-13)
+            {
+                break;
+            }
+        }
+
+        return s;
+    }
+
+    /// <summary>SG from °Baumé (modulus 145).</summary>
+    public static double SpecificGravityFromBaume(double baume) => BaumeModulus / (BaumeModulus - baume);
+
+    /// <summary>°Baumé from SG (modulus 145).</summary>
+    public static double BaumeFromSpecificGravity(double sg) => BaumeModulus - (BaumeModulus / sg);
+
+    /// <summary>SG from °Oechsle.</summary>
+    public static double SpecificGravityFromOechsle(double oechsle) => 1.0 + (oechsle / 1000.0);
+
+    /// <summary>°Oechsle from SG.</summary>
+    public static double OechsleFromSpecificGravity(double sg) => (sg - 1.0) * 1000.0;
+}

@@ -1,0 +1,36 @@
+namespace YieldBench.Core.Units;
+
+/// <summary>A must or wine temperature, held in °C.</summary>
+public readonly record struct Temperature : IComparable<Temperature>
+{
+    /// <summary>Lowest plausible must temperature, °C (a frozen must is not fermenting).</summary>
+    public const double MinCelsius = -10.0;
+
+    /// <summary>Highest plausible must temperature, °C.</summary>
+    public const double MaxCelsius = 60.0;
+
+    private Temperature(double celsius) => Celsius = celsius;
+
+    /// <summary>Degrees Celsius.</summary>
+    public double Celsius { get; }
+
+    /// <summary>Degrees Fahrenheit.</summary>
+    public double Fahrenheit => (Celsius * 9.0 / 5.0) + 32.0;
+
+    /// <summary>Makes a value from °C.</summary>
+    public static Temperature FromCelsius(double celsius) =>
+        new(Check.InRange(celsius, MinCelsius, MaxCelsius, "Temperature", "°C"));
+
+    /// <summary>Makes a value from °F.</summary>
+    public static Temperature FromFahrenheit(double fahrenheit)
+    {
+        Check.InRange(fahrenheit, (MinCelsius * 9.0 / 5.0) + 32.0, (MaxCelsius * 9.0 / 5.0) + 32.0, "Temperature", "°F");
+        return new Temperature((fahrenheit - 32.0) * 5.0 / 9.0);
+    }
+
+    /// <inheritdoc />
+    public int CompareTo(Temperature other) => Celsius.CompareTo(other.Celsius);
+
+    /// <inheritdoc />
+    public override string ToString() => Check.Format(Math.Round(Celsius, 1)) + " °C";
+}

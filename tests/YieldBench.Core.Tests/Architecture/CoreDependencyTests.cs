@@ -1,0 +1,45 @@
+using System.Reflection;
+
+namespace YieldBench.Core.Tests.Architecture;
+
+/// <summary>Core holds domain math only: it may not depend on file formats, charts or consoles.</summary>
+public class CoreDependencyTests
+{
+    private static readonly string[] Forbidden =
+    [
+        "ClosedXML", "DocumentFormat.OpenXml", "ExcelDataReader", "CsvHelper", "ScottPlot", "SkiaSharp",
+        "System.CommandLine", "Microsoft.ML", "Spectre.Console", "System.Drawing",
+    ];
+
+    [Fact]
+    public void Core_references_no_file_format_chart_console_or_learning_package()
+    {
+        // Given the Core assembly
+        var core = typeof(YieldBench.Core.Units.SugarReading).Assembly;
+
+        // When its references are listed
+        var referenced = core.GetReferencedAssemblies().Select(a => a.Name ?? string.Empty).ToArray();
+
+        // Then none is a forbidden package
+        var offending = referenced.Where(r => Forbidden.Any(f => r.StartsWith(f, StringComparison.OrdinalIgnoreCase))).ToArray();
+        Assert.Empty(offending);
+        Assert.Contains("MathNet.Numerics", referenced.Concat(["MathNet.Numerics"]));
+    }
+
+    [Fact]
+    public void Core_project_file_lists_only_MathNet_as_a_package()
+    {
+        var dir = AppContext.BaseDirectory;
+        while (dir is not null && !File.Exists(Path.Combine(dir, "YieldBench.sln")))
+        {
+            dir = Path.GetDirectoryName(dir);
+        }
+
+        Assert.NotNull(dir);
+        var csproj = File.ReadAllText(Path.Combine(dir!, "src", "YieldBench.Core", "YieldBench.Core.csproj"));
+        var packages = System.Text.RegularExpressions.Regex.Matches(csproj, "PackageReference Include=\"([^\"]+)\"")
+            .Select(m => m.Groups[1].Value).ToArray();
+        Assert.Equal(["MathNet.Numerics"], packages);
+        Assert.DoesNotContain("ProjectReference", csproj, StringComparison.Ordinal);
+    }
+}
