@@ -1,0 +1,13 @@
+using YieldBench.Core.Conversion;
+
+namespace YieldBench.Core.Review;
+
+/// <summary>Settings of a review. Every default is documented in docs/methods.md with its source.</summary>
+public sealed record ReviewSettings
+{
+    /// <summary>Seed for every random step (bootstrap, model training); same seed, same numbers.</summary>
+    public int Seed { get; init; } = 20261;
+
+    /// <summary>How fermentable sugar is obtained from °Brix.</summary>
+    public SugarModel SugarModel { get; init; } = SugarModel.Default;
+}
