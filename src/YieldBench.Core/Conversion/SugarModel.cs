@@ -45,7 +45,7 @@ public sealed record SugarModel(SugarRule Rule)
     public double PotentialAlcohol(double brix) => SugarGramsPerLitre(brix) / SugarGramsPerPercentVolume;
 
     /// <summary>
-    /// The lowest °Brix whose fermentable sugar under this rule reaches <paramref name="sugarGl"/> (inverse of
+    /// The °Brix whose fermentable sugar under this rule is <paramref name="sugarGl"/> (inverse of
     /// <see cref="SugarGramsPerLitre"/>; 0 g/L gives the °Brix where the rule's sugar starts).
     /// </summary>
     public double BrixEquivalent(double sugarGl) =>

@@ -32,6 +32,17 @@ public readonly record struct AlcoholContent : IComparable<AlcoholContent>
         return new AlcoholContent(Math.Min(MaxPercent, gramsPerLitre / (10.0 * EthanolDensity20C)));
     }
 
+    /// <summary>
+    /// Makes a value from % v/v without throwing: false, with <paramref name="problem"/> set to the factory's message,
+    /// when outside 0–25 % v/v.
+    /// </summary>
+    public static bool TryFromPercentVolume(double percent, out AlcoholContent alcohol, out string? problem)
+    {
+        problem = Check.Problem(percent, MinPercent, MaxPercent, "Alcohol", "% v/v");
+        alcohol = problem is null ? new AlcoholContent(percent) : default;
+        return problem is null;
+    }
+
     /// <inheritdoc />
     public int CompareTo(AlcoholContent other) => PercentVolume.CompareTo(other.PercentVolume);
 

@@ -101,8 +101,8 @@ public static class OivMustTable
     public static double PotentialAlcohol(double brix) => SugarGramsPerLitre(brix) / SugarGramsPerPercentVolume;
 
     /// <summary>
-    /// The lowest °Brix whose fermentable sugar reaches <paramref name="sugarGl"/> (bisection on the rising curve,
-    /// to 1e-10 °Brix). 0 g/L gives the °Brix where sugar starts (about 2.1 °Brix).
+    /// The °Brix whose fermentable sugar is <paramref name="sugarGl"/> (bisection on the rising curve, to 1e-10 °Brix).
+    /// 0 g/L gives the °Brix where sugar starts (2.147 °Brix).
     /// </summary>
     public static double BrixFromSugarGramsPerLitre(double sugarGl) =>
         InverseOfRising(SugarGramsPerLitre, sugarGl, 0, SugarReading.MaxBrix);
@@ -114,7 +114,10 @@ public static class OivMustTable
     public static double TotalSolidsGramsPerLitre(double brix) =>
         brix * 10.0 * SugarScales.SpecificGravityFromBrix(brix) * WaterDensity20C;
 
-    /// <summary>Smallest x in [lo, hi] with f(x) ≥ y for a non-decreasing f; hi when f(hi) &lt; y.</summary>
+    /// <summary>
+    /// For a non-decreasing f, the point in [lo, hi] where f passes <paramref name="y"/>: the largest x with f(x) ≤ y
+    /// (so a flat stretch at y resolves to its upper end); hi when f(hi) &lt; y.
+    /// </summary>
     internal static double InverseOfRising(Func<double, double> f, double y, double lo, double hi)
     {
         if (f(hi) < y)
@@ -125,7 +128,7 @@ public static class OivMustTable
         for (int i = 0; i < 200 && hi - lo > 1e-10; i++)
         {
             double mid = 0.5 * (lo + hi);
-            if (f(mid) < y)
+            if (f(mid) <= y)
             {
                 lo = mid;
             }

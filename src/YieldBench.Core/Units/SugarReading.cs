@@ -60,7 +60,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     /// <summary>Makes a reading from apparent specific gravity 20/20 °C (0.9773–1.2318).</summary>
     public static SugarReading FromSpecificGravity(double specificGravity)
     {
-        Check.InRange(specificGravity, MinSpecificGravity, MaxSpecificGravity, "Specific gravity", "(20/20 °C)");
+        Check.InRange(specificGravity, MinSpecificGravity, MaxSpecificGravity, "Specific gravity (20/20 °C)", string.Empty);
         return new SugarReading(SugarScales.BrixFromSpecificGravity(specificGravity));
     }
 
@@ -79,8 +79,8 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     }
 
     /// <summary>
-    /// Makes a reading from a must's fermentable sugar in g/L (inverse of the OIV must table): the lowest °Brix whose
-    /// sugar reaches the value. Sugar is 0 up to about 2.1 °Brix (non-sugar solids), so 0 g/L reads as about 2.1 °Brix.
+    /// Makes a reading from a must's fermentable sugar in g/L (inverse of the OIV must table): the °Brix whose
+    /// sugar is the value. Sugar is 0 up to 2.147 °Brix (non-sugar solids), so 0 g/L reads as 2.147 °Brix.
     /// </summary>
     public static SugarReading FromGramsPerLitre(double gramsPerLitre)
     {
@@ -98,6 +98,25 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         SugarScale.GramsPerLitre => FromGramsPerLitre(value),
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
+
+    /// <summary>
+    /// Makes a reading from a value on the given scale without throwing: false, with <paramref name="problem"/> set to
+    /// the same text the factory would throw, when the value is outside the scale's accepted range.
+    /// </summary>
+    public static bool TryFrom(double value, SugarScale scale, out SugarReading reading, out string? problem)
+    {
+        problem = scale switch
+        {
+            SugarScale.Brix => Check.Problem(value, MinBrix, MaxBrix, "Sugar", "°Brix"),
+            SugarScale.SpecificGravity => Check.Problem(value, MinSpecificGravity, MaxSpecificGravity, "Specific gravity (20/20 °C)", string.Empty),
+            SugarScale.Baume => Check.Problem(value, MinBaume, MaxBaume, "Sugar", "°Baumé"),
+            SugarScale.Oechsle => Check.Problem(value, MinOechsle, MaxOechsle, "Sugar", "°Oechsle"),
+            SugarScale.GramsPerLitre => Check.Problem(value, 0, MaxGramsPerLitre, "Sugar", "g/L"),
+            _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
+        };
+        reading = problem is null ? From(value, scale) : default;
+        return problem is null;
+    }
 
     /// <summary>The reading expressed on the given scale.</summary>
     public double In(SugarScale scale) => scale switch
