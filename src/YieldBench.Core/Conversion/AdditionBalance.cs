@@ -6,7 +6,7 @@ namespace YieldBench.Core.Conversion;
 /// <summary>
 /// Effective starting sugar after recorded pre-fermentation additions, by mass balance.
 /// °Brix is grams of sucrose-equivalent solids per 100 g of must, so with must volume V (L) at °Bx B₀:
-/// must mass M₀ = V·ρ(B₀) kg (ρ = SG 20/20 × 0.99820 kg/L); solids = M₀·B₀/100;
+/// must mass M₀ = V·ρ(B₀) kg (ρ = true density of a sucrose solution of that °Brix, kg/L); solids = M₀·B₀/100;
 /// water W litres adds 0.99820·W kg of mass and no solids; sucrose K kg adds K kg of mass and K kg of solids;
 /// effective °Bx B₁ = 100·(solids + K)/(M₀ + 0.99820·W + K).
 /// Volume afterwards V₁ = M₁/ρ(B₁): the mixture is given the density of a sucrose solution of its °Brix, which
@@ -125,5 +125,5 @@ public static class AdditionBalance
     }
 
     /// <summary>Density at 20 °C (kg/L) of a sucrose solution of this °Brix, standing in for the must's.</summary>
-    private static double Density(double brix) => SugarScales.SpecificGravityFromBrix(brix) * OivMustTable.WaterDensity20C;
+    private static double Density(double brix) => SugarScales.DensityFromBrix(brix);
 }

@@ -28,8 +28,8 @@ public static class OivMustTable
     /// <summary>Grams of sugar per litre taken as one % vol of potential alcohol in the OIV and EU convention.</summary>
     public const double SugarGramsPerPercentVolume = 16.83;
 
-    /// <summary>Density of water at 20 °C, kg/L (g/mL): SG 20/20 × this = density at 20 °C.</summary>
-    public const double WaterDensity20C = 0.99820;
+    /// <summary>Density of water at 20 °C, kg/L (g/mL); the same constant as <see cref="SugarScales.WaterDensity20C"/>.</summary>
+    public const double WaterDensity20C = SugarScales.WaterDensity20C;
 
     // Rows read in the Arrêté annex (% sucrose, must density kg/L, sugar g/L, % vol at 16.83 g/L).
     private static readonly OivMustRow[] Rows =
@@ -108,11 +108,10 @@ public static class OivMustTable
         InverseOfRising(SugarGramsPerLitre, sugarGl, 0, SugarReading.MaxBrix);
 
     /// <summary>
-    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × density at 20 °C
-    /// (SG 20/20 × 0.99820 kg/L).
+    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × its true density at 20 °C
+    /// (<see cref="SugarScales.DensityFromBrix"/>).
     /// </summary>
-    public static double TotalSolidsGramsPerLitre(double brix) =>
-        brix * 10.0 * SugarScales.SpecificGravityFromBrix(brix) * WaterDensity20C;
+    public static double TotalSolidsGramsPerLitre(double brix) => brix * 10.0 * SugarScales.DensityFromBrix(brix);
 
     /// <summary>
     /// For a non-decreasing f, the point in [lo, hi] where f passes <paramref name="y"/>: the largest x with f(x) ≤ y

@@ -8,6 +8,25 @@ public static class SugarScales
     /// <summary>Baumé modulus for liquids heavier than water (SG = 145 / (145 − °Bé)).</summary>
     public const double BaumeModulus = 145.0;
 
+    /// <summary>Density of water at 20 °C, g/mL (998.20 kg/m³).</summary>
+    public const double WaterDensity20C = 0.99820;
+
+    /// <summary>Conventional density of air for weighing, g/mL (1.2 kg/m³).</summary>
+    public const double AirDensity = 0.0012;
+
+    /// <summary>
+    /// True density at 20 °C (g/mL) of a liquid whose apparent SG 20/20 — weights in air, as the NBS sucrose table and
+    /// hydrometers give it — is <paramref name="sg"/>: ρ = ρ_air + SG·(ρ_water − ρ_air). The air term lowers the density
+    /// by (SG − 1) × 0.0012 g/mL, 1.2e-4 g/mL at 24 °Brix, against SG × 0.99820.
+    /// </summary>
+    public static double DensityFromSpecificGravity(double sg) => AirDensity + (sg * (WaterDensity20C - AirDensity));
+
+    /// <summary>Apparent SG 20/20 of a liquid of true density <paramref name="density"/> g/mL at 20 °C (inverse of the above).</summary>
+    public static double SpecificGravityFromDensity(double density) => (density - AirDensity) / (WaterDensity20C - AirDensity);
+
+    /// <summary>True density at 20 °C (g/mL, equal to kg/L) of a sucrose solution of this °Brix.</summary>
+    public static double DensityFromBrix(double brix) => DensityFromSpecificGravity(SpecificGravityFromBrix(brix));
+
     /// <summary>
     /// °Brix from apparent SG 20/20 °C: °Bx = ((182.4601·S − 775.6821)·S + 1262.7794)·S − 669.5622, the cubic fitted
     /// to the NBS sucrose table (RMS 0.0009 °Bx over S 1.00000–1.17874). Below S = 1 it is extrapolated, as hydrometer
