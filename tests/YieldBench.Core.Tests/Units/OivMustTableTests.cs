@@ -42,7 +42,7 @@ public class OivMustTableTests
         Assert.Equal(potentialAlcohol, computed, 0.01);
     }
 
-    // scipy 1.10.1 (Debian python3-scipy 1.10.1-2), /usr/bin/python3:
+    // scipy 1.10.1 (Debian python3-scipy 1.10.1-2): /usr/bin/python3 tests/YieldBench.Core.Tests/Units/Oracles/units_oracle.py
     //   ρ(Bx) = 0.0012 + SG(Bx)·(0.99820 − 0.0012), SG from scipy.optimize.brentq on the NBS cubic;
     //   NS = [Bx·10·ρ(Bx) − sugar for each row]; sugar(x) = x·10·ρ(x) − PchipInterpolator(rows_bx, NS)(x).
     [Theory]
