@@ -1,7 +1,7 @@
 namespace YieldBench.Core.Units;
 
 /// <summary>
-/// The raw relations between sugar scales. Each formula's source is in docs/methods.md ("Sugar scales").
+/// The raw relations between sugar scales. Each formula's source is in docs/methods-units.md ("Sugar scales").
 /// </summary>
 public static class SugarScales
 {

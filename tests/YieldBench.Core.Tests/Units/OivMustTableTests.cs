@@ -47,6 +47,7 @@ public class OivMustTableTests
     //   NS = [Bx·10·ρ(Bx) − sugar for each row]; sugar(x) = x·10·ρ(x) − PchipInterpolator(rows_bx, NS)(x).
     [Theory]
     [InlineData(10.5, 87.5076814408712)]
+    [InlineData(12.0, 103.53738293928325)]
     [InlineData(12.5, 108.91702746985405)]
     [InlineData(17.5, 163.7640217461322)]
     [InlineData(21.0, 203.26820214658127)]

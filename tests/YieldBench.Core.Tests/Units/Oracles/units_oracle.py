@@ -45,7 +45,7 @@ def sugar(x):
 
 print("scipy", scipy.__version__)
 print("S=1.040 ->", brix_from_sg(1.040))
-print("between rows", {x: sugar(x) for x in [10.5, 12.5, 17.5, 21.0, 23.3, 25.5, 27.0, 29.0]})
+print("between rows", {x: sugar(x) for x in [10.5, 12.0, 12.5, 17.5, 21.0, 23.3, 25.5, 27.0, 29.0]})
 print("outside", {x: sugar(x) for x in [5.0, 40.0]})
 print("sugar starts at", brentq(lambda b: solids(b) - NS[0], 1, 5, xtol=1e-14))
 loo = []
