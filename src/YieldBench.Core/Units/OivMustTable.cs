@@ -108,8 +108,8 @@ public static class OivMustTable
         InverseOfRising(SugarGramsPerLitre, sugarGl, 0, SugarReading.MaxBrix);
 
     /// <summary>
-    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × its true density at 20 °C
-    /// (<see cref="SugarScales.DensityFromBrix"/>).
+    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × its density at 20 °C
+    /// (SG 20/20 × 0.99820, <see cref="SugarScales.DensityFromBrix"/>).
     /// </summary>
     public static double TotalSolidsGramsPerLitre(double brix) => brix * 10.0 * SugarScales.DensityFromBrix(brix);
 

@@ -21,7 +21,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     /// <summary>Apparent specific gravity 20/20 °C.</summary>
     public double SpecificGravity => SugarScales.SpecificGravityFromBrix(Brix);
 
-    /// <summary>True density at 20 °C, g/mL, of a sucrose solution with this reading (from the apparent SG).</summary>
+    /// <summary>Density at 20 °C, g/mL, of a sucrose solution with this reading: SG × 0.99820.</summary>
     public double Density => SugarScales.DensityFromSpecificGravity(SpecificGravity);
 
     /// <summary>°Baumé (modulus 145).</summary>
@@ -68,8 +68,8 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     }
 
     /// <summary>
-    /// Makes a reading from a true density at 20 °C in g/mL (as an oscillating-cell density meter reports it),
-    /// through the apparent SG 20/20 of <see cref="SugarScales.SpecificGravityFromDensity"/>.
+    /// Makes a reading from a density at 20 °C in g/mL (as an oscillating-cell density meter reports it), through
+    /// SG = density ÷ 0.99820 (<see cref="SugarScales.SpecificGravityFromDensity"/>).
     /// </summary>
     public static SugarReading FromDensity(double gramsPerMillilitre)
     {

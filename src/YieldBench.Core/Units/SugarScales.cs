@@ -15,16 +15,24 @@ public static class SugarScales
     public const double AirDensity = 0.0012;
 
     /// <summary>
-    /// True density at 20 °C (g/mL) of a liquid whose apparent SG 20/20 — weights in air, as the NBS sucrose table and
-    /// hydrometers give it — is <paramref name="sg"/>: ρ = ρ_air + SG·(ρ_water − ρ_air). The air term lowers the density
-    /// by (SG − 1) × 0.0012 g/mL, 1.2e-4 g/mL at 24 °Brix, against SG × 0.99820.
+    /// Density at 20 °C (g/mL) taken for a liquid of apparent SG 20/20 <paramref name="sg"/>: SG × 0.99820. This
+    /// neglects air buoyancy in the apparent SG, which would lower the density by (SG − 1) × 0.0012 g/mL (1.2e-4 g/mL at
+    /// 24 °Brix, 0.01 %) — far below the 0.16 % by which a must's density exceeds a sucrose solution's (see
+    /// docs/methods-units.md); the whole project uses this one rule.
     /// </summary>
-    public static double DensityFromSpecificGravity(double sg) => AirDensity + (sg * (WaterDensity20C - AirDensity));
+    public static double DensityFromSpecificGravity(double sg) => sg * WaterDensity20C;
 
-    /// <summary>Apparent SG 20/20 of a liquid of true density <paramref name="density"/> g/mL at 20 °C (inverse of the above).</summary>
-    public static double SpecificGravityFromDensity(double density) => (density - AirDensity) / (WaterDensity20C - AirDensity);
+    /// <summary>Apparent SG 20/20 taken for a density at 20 °C in g/mL (inverse of <see cref="DensityFromSpecificGravity"/>).</summary>
+    public static double SpecificGravityFromDensity(double density) => density / WaterDensity20C;
 
-    /// <summary>True density at 20 °C (g/mL, equal to kg/L) of a sucrose solution of this °Brix.</summary>
+    /// <summary>
+    /// True SG 20/20 (ratio of densities) of a liquid whose apparent SG 20/20 (ratio of weights in air) is
+    /// <paramref name="apparentSg"/>: 1 + (SG − 1)·(1 − ρ_air/ρ_water). For comparing with tables of true SG.
+    /// </summary>
+    public static double TrueSpecificGravity(double apparentSg) =>
+        1.0 + ((apparentSg - 1.0) * (1.0 - (AirDensity / WaterDensity20C)));
+
+    /// <summary>Density at 20 °C (g/mL, equal to kg/L) of a sucrose solution of this °Brix: SG 20/20 × 0.99820.</summary>
     public static double DensityFromBrix(double brix) => DensityFromSpecificGravity(SpecificGravityFromBrix(brix));
 
     /// <summary>

@@ -43,18 +43,18 @@ public class OivMustTableTests
     }
 
     // scipy 1.10.1 (Debian python3-scipy 1.10.1-2): /usr/bin/python3 tests/YieldBench.Core.Tests/Units/Oracles/units_oracle.py
-    //   ρ(Bx) = 0.0012 + SG(Bx)·(0.99820 − 0.0012), SG from scipy.optimize.brentq on the NBS cubic;
+    //   ρ(Bx) = SG(Bx)·0.99820, SG from scipy.optimize.brentq on the NBS cubic;
     //   NS = [Bx·10·ρ(Bx) − sugar for each row]; sugar(x) = x·10·ρ(x) − PchipInterpolator(rows_bx, NS)(x).
     [Theory]
-    [InlineData(10.5, 87.5076814408712)]
-    [InlineData(12.0, 103.53738293928325)]
-    [InlineData(12.5, 108.91702746985405)]
-    [InlineData(17.5, 163.7640217461322)]
-    [InlineData(21.0, 203.26820214658127)]
-    [InlineData(23.3, 229.67371498280806)]
-    [InlineData(25.5, 255.34445800359242)]
-    [InlineData(27.0, 273.00590603695724)]
-    [InlineData(29.0, 296.86232086110044)]
+    [InlineData(10.5, 87.50768347758992)]
+    [InlineData(12.0, 103.53737029826874)]
+    [InlineData(12.5, 108.91700802336044)]
+    [InlineData(17.5, 163.7640017539478)]
+    [InlineData(21.0, 203.2682190464401)]
+    [InlineData(23.3, 229.6737101388681)]
+    [InlineData(25.5, 255.34445855848847)]
+    [InlineData(27.0, 273.00589993029047)]
+    [InlineData(29.0, 296.8623214353063)]
     public void Between_rows_the_sugar_is_the_monotone_cubic_scipy_computes(double brix, double scipySugarGl)
     {
         // Given a °Brix between published rows
@@ -83,9 +83,9 @@ public class OivMustTableTests
             worst = Math.Max(worst, Math.Abs(predicted - rows[k].SugarGl));
         }
 
-        // Then the worst miss is 0.0460 g/L, at 20 °Bx — inside the print's rounding of ±0.05 g/L.
-        // scipy 1.10.1, same construction with PchipInterpolator: 0.04598113610046539 (pchip on sugar itself: 0.1785)
-        Assert.Equal(0.04598113610046539, worst, 1e-9);
+        // Then the worst miss is 0.0461 g/L, at 20 °Bx — inside the print's rounding of ±0.05 g/L.
+        // scipy 1.10.1, same construction with PchipInterpolator: 0.04609702809707983 (pchip on sugar itself: 0.1785)
+        Assert.Equal(0.04609702809707983, worst, 1e-9);
     }
 
     [Fact]
@@ -97,8 +97,8 @@ public class OivMustTableTests
         // When the sugar is computed
         double sugar = OivMustTable.SugarGramsPerLitre(brix);
 
-        // Then it is total solids minus the 10 °Bx row's 21.6107 g/L of non-sugar solids (scipy 1.10.1: 29.28008)
-        Assert.Equal(29.280076098311262, sugar, 1e-9);
+        // Then it is total solids minus the 10 °Bx row's 21.6155 g/L of non-sugar solids (scipy 1.10.1: 29.27645)
+        Assert.Equal(29.276453321298206, sugar, 1e-9);
         Assert.True(SugarModel.Default.IsExtrapolated(brix));
     }
 
@@ -109,8 +109,8 @@ public class OivMustTableTests
         // When the sugar is computed
         double sugar = OivMustTable.SugarGramsPerLitre(40.0);
 
-        // Then it is total solids minus the 30 °Bx row's 29.1835 g/L (scipy 1.10.1: 441.37711)
-        Assert.Equal(441.3771113211867, sugar, 1e-9);
+        // Then it is total solids minus the 30 °Bx row's 29.2300 g/L (scipy 1.10.1: 441.41642)
+        Assert.Equal(441.41641777413093, sugar, 1e-9);
     }
 
     [Fact]
@@ -120,9 +120,9 @@ public class OivMustTableTests
         // When the °Brix where sugar starts is found
         double start = OivMustTable.BrixFromSugarGramsPerLitre(0);
 
-        // Then it is 2.1470 °Bx (scipy 1.10.1 brentq: 2.1470068), close to the 2.1 °Bx allowance of the
+        // Then it is 2.1475 °Bx (scipy 1.10.1 brentq: 2.1474588), close to the 2.1 °Bx allowance of the
         // (Brix − 2.1) × density rule (Margalit)
-        Assert.Equal(2.147006832224202, start, 1e-8);
+        Assert.Equal(2.1474588142878552, start, 1e-8);
         Assert.Equal(0, OivMustTable.SugarGramsPerLitre(1.5));
     }
 
@@ -135,7 +135,7 @@ public class OivMustTableTests
             .Select(r => r.DensityKgPerL - SugarScales.DensityFromBrix(r.Brix))
             .ToArray();
 
-        // Then must is denser by 0.6–1.8 g/L (at most 0.16 %): the documented error of using sucrose density in mass balances
-        Assert.All(excess, e => Assert.InRange(e, 0.0005, 0.0018));
+        // Then must is denser by 0.5–1.7 g/L (at most 0.15 %): the documented error of using sucrose density in mass balances
+        Assert.All(excess, e => Assert.InRange(e, 0.0004, 0.0018));
     }
 }

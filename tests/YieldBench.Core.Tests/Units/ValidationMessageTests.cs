@@ -12,7 +12,7 @@ public class ValidationMessageTests
     [InlineData(SugarScale.SpecificGravity, 0.95, "Specific gravity (20/20 °C) 0.95 is outside the plausible range 0.9773 to 1.2318.")]
     [InlineData(SugarScale.Baume, 30.0, "Sugar 30 °Baumé is outside the plausible range -3.36 to 27.28 °Baumé.")]
     [InlineData(SugarScale.Oechsle, 240.0, "Sugar 240 °Oechsle is outside the plausible range -22.7 to 231.8 °Oechsle.")]
-    [InlineData(SugarScale.GramsPerLitre, -1.0, "Sugar -1 g/L is outside the plausible range 0 to 585.4 g/L.")]
+    [InlineData(SugarScale.GramsPerLitre, -1.0, "Sugar -1 g/L is outside the plausible range 0 to 585.5 g/L.")]
     [InlineData(SugarScale.Brix, double.NaN, "Sugar is not a number; expected -6 to 50 °Brix.")]
     public void A_sugar_reading_outside_its_scale_is_refused_with_a_message_naming_value_and_range(SugarScale scale, double value, string expected)
     {

@@ -23,8 +23,8 @@ def sg_from_brix(b):
     return brentq(lambda s: brix_from_sg(s) - b, 0.9, 1.4, xtol=1e-15, rtol=1e-15)
 
 
-def density(b):  # true density g/mL from apparent SG (weights in air)
-    return AIR + sg_from_brix(b) * (WATER - AIR)
+def density(b):  # g/mL at 20 °C, the project's rule SG x 0.99820 (air buoyancy neglected)
+    return sg_from_brix(b) * WATER
 
 
 def solids(b):
@@ -55,5 +55,22 @@ for k in range(1, len(B) - 1):
     loo.append(solids(B[k]) - float(PchipInterpolator(B[m], NS[m])(B[k])) - S[k])
 print("leave-one-out worst", max(abs(e) for e in loo))
 print("true SG of apparent 1.08297", (AIR + 1.08297 * (WATER - AIR)) / WATER)
-print("Bx of density 1.0391", brix_from_sg((1.0391 - AIR) / (WATER - AIR)))
+print("Bx of density 1.0391", brix_from_sg(1.0391 / WATER))
 print("alternative rule 22.7 Bx", (22.7 - 2.1) * 10 * density(22.7) / 17)
+
+
+def d(s):
+    return s * WATER
+
+
+# Hand balances of AdditionBalanceTests with the Zoecklein SGs (24 Bx 1.10101, 22 Bx 1.09193, 20 Bx 1.08297)
+m0 = 1000 * d(1.10101); m1 = m0 + 100 * WATER; b1 = 100 * m0 * 0.24 / m1
+print("water: B1", b1, "SG(B1)", sg_from_brix(b1), "V1", m1 / d(sg_from_brix(b1)), "sugar", 237.8 * 1000 / (m1 / d(sg_from_brix(b1))))
+m0 = 1000 * d(1.08297); m1 = m0 + 20; b1 = 100 * (m0 * 0.20 + 20) / m1; v1 = m1 / d(sg_from_brix(b1))
+print("sugar: B1", b1, "SG(B1)", sg_from_brix(b1), "V1", v1, "sugar", (191.9 * 1000 + 20000 * 2 * 180.156 / 342.297) / v1)
+m0 = 1000 * d(1.10101); ma = m0 * 0.24 / 0.22
+print("water for 22: W", (ma - m0) / WATER, "V+W", 1000 + (ma - m0) / WATER, "mass/density", ma / d(1.09193))
+m0 = 1000 * d(1.08297)
+print("sugar for 22: K", (22 * m0 - 100 * m0 * 0.20) / 78)
+m0 = 10 * d(1.09193)
+print("odd", 100 * (m0 * 0.22 + 900) / (m0 + 900))
