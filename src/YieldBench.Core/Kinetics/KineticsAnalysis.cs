@@ -457,7 +457,7 @@ public static class KineticsAnalysis
             // reminder of the cooling the lot depended on, not a sign that something went wrong.
             int count = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
             string observed = peak is { } pk ? $" The logged peak was {F(pk)} °C, so about {F(removed!.Value)} K of the potential was removed by the vessel, cap management and cooling." : string.Empty;
-            findings.Add(new(key, "heat-potential-above-danger", $"At {F(hot.Brix)} °Brix and {F(hot.TemperatureC)} °C this lot could have reached {F(hot.PotentialTemperatureC)} °C without cooling ({Stamp(hot.Time)}; {count} reading(s) above the {F(th.DangerC)} °C danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source));
+            findings.Add(new(key, "heat-potential-above-danger", $"Lot {key}: at {F(hot.Brix)} °Brix and {F(hot.TemperatureC)} °C this lot could have reached {F(hot.PotentialTemperatureC)} °C without cooling ({Stamp(hot.Time)}; {count} reading(s) above the {F(th.DangerC)} °C danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source));
         }
 
         var consumed = bx.Select(b => start - b).ToArray();

@@ -19,7 +19,20 @@ public static class KineticsCharts
     /// <summary>Lots per overview page (6 × 4 panels).</summary>
     public const int OverviewPanels = 24;
 
-    private const int OverviewColumns = 6;
+    /// <summary>Header and footer bands of the overview, px.</summary>
+    public const int OverviewHeader = 70, OverviewFooter = 34;
+
+    /// <summary>
+    /// Grid of an overview page for <paramref name="panels"/> lots: columns ≈ √(1.6·n) (the page's aspect ratio), at most 6,
+    /// so a few lots get large panels and a full page gets 6 × 4.
+    /// </summary>
+    public static (int Columns, int Rows, int PanelWidth, int PanelHeight) OverviewLayout(int panels)
+    {
+        int n = Math.Clamp(panels, 1, OverviewPanels);
+        int cols = Math.Clamp((int)Math.Ceiling(Math.Sqrt(1.6 * n)), 1, 6);
+        int rows = (n + cols - 1) / cols;
+        return (cols, rows, ChartStyle.Width / cols, (ChartStyle.Height - OverviewHeader - OverviewFooter) / rows);
+    }
 
     /// <summary>Workbook sheet the kinetics pictures belong on.</summary>
     public const string Sheet = KineticsSheet.SheetName;
@@ -101,9 +114,10 @@ public static class KineticsCharts
 
         if (k.Stuck is { } stuck)
         {
-            var band = plot.Add.HorizontalSpan(stuck.BrixEnd - 0.5, stuck.BrixStart + 0.5);
+            // A horizontal span covers a stretch of the x axis: here the stuck window in days.
+            var band = plot.Add.HorizontalSpan((stuck.Start - k.Origin).TotalDays, (stuck.End - k.Origin).TotalDays);
             band.FillStyle.Color = ChartPalette.Band.WithAlpha(0.25);
-            band.LegendText = "Stuck stretch (sugar level)";
+            band.LegendText = "Stuck stretch";
         }
 
         var dry = plot.Add.HorizontalLine(0);
@@ -143,7 +157,7 @@ public static class KineticsCharts
             plot.Axes.AutoScale();
         }
 
-        ChartStyle.ShowLegend(plot, Alignment.UpperRight);
+        ChartStyle.ShowLegend(plot, Alignment.LowerLeft);
         return plot;
     }
 
@@ -240,10 +254,9 @@ public static class KineticsCharts
         ArgumentNullException.ThrowIfNull(lots);
         ReportFonts.EnsureRegistered();
         int width = ChartStyle.Width, height = ChartStyle.Height;
-        const int header = 70;
-        int rows = (OverviewPanels + OverviewColumns - 1) / OverviewColumns;
-        const int footer = 34;
-        int pw = width / OverviewColumns, ph = (height - header - footer) / rows;
+        const int header = OverviewHeader;
+        var (columns, _, pw, ph) = OverviewLayout(lots.Count);
+        float small = Math.Clamp(pw / 22f, 11f, 20f);
         using var surface = SKSurface.Create(new SKImageInfo(width, height));
         var canvas = surface.Canvas;
         canvas.Clear(SKColors.White);
@@ -258,12 +271,12 @@ public static class KineticsCharts
         {
             var k = lots[i];
             var plot = new Plot();
-            plot.Title($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", 15);
+            plot.Title($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", small * 1.3f);
             plot.Axes.Title.Label.FontName = ReportFonts.FamilyName;
             foreach (var axis in new ScottPlot.IAxis[] { plot.Axes.Bottom, plot.Axes.Left, plot.Axes.Right })
             {
                 axis.TickLabelStyle.FontName = ReportFonts.FamilyName;
-                axis.TickLabelStyle.FontSize = 11;
+                axis.TickLabelStyle.FontSize = small;
             }
 
             var s = plot.Add.Scatter(k.Sugar.Select(p => p.Hours / 24.0).ToArray(), k.Sugar.Select(p => p.Brix).ToArray());
@@ -284,7 +297,7 @@ public static class KineticsCharts
             plot.Axes.SetLimitsY(-4, 32, plot.Axes.Left);
             byte[] png = plot.GetImageBytes(pw, ph, ImageFormat.Png);
             using var bitmap = SKBitmap.Decode(png);
-            canvas.DrawBitmap(bitmap, (i % OverviewColumns) * pw, header + ((i / OverviewColumns) * ph));
+            canvas.DrawBitmap(bitmap, (i % columns) * pw, header + ((i / columns) * ph));
         }
 
         using (var typeface = ReportFonts.Typeface(bold: false))

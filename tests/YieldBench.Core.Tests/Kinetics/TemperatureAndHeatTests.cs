@@ -124,7 +124,7 @@ public class TemperatureAndHeatTests
         Assert.Equal(29.0 + expected - 33.0, lot.HeatRemovedK!.Value, 2);
         Assert.Equal(3, lot.ReadingsWithPotentialAboveDanger);
         var f = Assert.Single(review.Findings, x => x.Code == "heat-potential-above-danger");
-        Assert.StartsWith("At 20.0 °Brix and 29.0 °C this lot could have reached 54.4 °C without cooling (2025-10-01 00:00;", f.Message);
+        Assert.StartsWith("Lot 2025/T-101: at 20.0 °Brix and 29.0 °C this lot could have reached 54.4 °C without cooling (2025-10-01 00:00;", f.Message);
         Assert.Contains("The logged peak was 33.0 °C, so about 21.4 K of the potential was removed", f.Message);
     }
 

@@ -48,17 +48,18 @@ public sealed class KineticsChartsTests : IDisposable
         // When rendered
         var paths = KineticsCharts.Render(review, lots, dir);
 
-        // Then the lot chart has dark title pixels, and each of the four used overview panels has ink while an unused one has none
+        // Then the lot chart has dark title pixels, and each of the four overview panels (3 × 2 grid: √(1.6·4) → 3 columns) has ink while the unused sixth has none
         byte[] lot = File.ReadAllBytes(paths.Single(p => p.EndsWith("W-03.png", StringComparison.Ordinal)));
         Assert.True(PngProbe.DarkPixels(lot, 300, 0, 1000, 60) > 1500);
         byte[] overview = File.ReadAllBytes(paths[0]);
-        int pw = 1600 / 6, ph = (1000 - 70 - 34) / 4;
+        var (cols, rows, pw, ph) = KineticsCharts.OverviewLayout(4);
+        Assert.Equal((3, 2, 533, 448), (cols, rows, pw, ph));
         for (int i = 0; i < 4; i++)
         {
-            Assert.True(PngProbe.GreyVariance(overview, i * pw, 70, pw, ph) > 50, $"panel {i} is blank");
+            Assert.True(PngProbe.GreyVariance(overview, (i % cols) * pw, 70 + ((i / cols) * ph), pw, ph) > 50, $"panel {i} is blank");
         }
 
-        Assert.True(PngProbe.GreyVariance(overview, 5 * pw, 70 + (3 * ph), pw, ph) < 1, "an unused panel has ink");
+        Assert.True(PngProbe.GreyVariance(overview, 2 * pw, 70 + ph, pw, ph) < 1, "the unused sixth panel has ink");
     }
 
     [Fact]
