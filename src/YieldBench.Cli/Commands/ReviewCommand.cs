@@ -76,6 +76,7 @@ internal static class ReviewCommand
         }
 
         var inputs = request.Inputs.ToList();
+        string inputRoot = context.WorkingDirectory;
         if (inputs.Count == 0)
         {
             string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
@@ -85,12 +86,14 @@ internal static class ReviewCommand
                 return ExitCodes.Usage;
             }
 
-            inputs.Add(demo);
+            // Read relative to the tool's folder, so reports name the files "demo-data/…" wherever the tool is installed.
+            inputRoot = AppContext.BaseDirectory;
+            inputs.Add("demo-data");
             console.Line(ReportTexts.DemoDataNotice);
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
-        if (OutputClash(inputs.Select(i => Path.GetFullPath(i, context.WorkingDirectory)), outFolder) is { } clash)
+        if (OutputClash(inputs.Select(i => Path.GetFullPath(i, inputRoot)), outFolder) is { } clash)
         {
             context.Error.WriteLine(clash);
             return ExitCodes.Usage;
@@ -100,14 +103,14 @@ internal static class ReviewCommand
         var options = new IntakeOptions
         {
             ColumnMappings = request.Columns,
-            MappingFile = request.Mapping,
+            MappingFile = request.Mapping is null ? null : Path.GetFullPath(request.Mapping, context.WorkingDirectory),
             Season = request.Season,
-            WorkingDirectory = context.WorkingDirectory,
+            WorkingDirectory = inputRoot,
         };
         var set = IntakeReader.Read(inputs, options);
 
         // The hashed file list is what was really read (folders expanded): check it too before writing anything.
-        if (OutputClash(set.Files.Select(f => Path.GetFullPath(f.Path, context.WorkingDirectory)), outFolder) is { } fileClash)
+        if (OutputClash(set.Files.Select(f => Path.GetFullPath(f.Path, inputRoot)), outFolder) is { } fileClash)
         {
             context.Error.WriteLine(fileClash);
             return ExitCodes.Usage;
