@@ -1,0 +1,19 @@
+using YieldBench.Core.Kinetics;
+using YieldBench.Reports.Data;
+
+namespace YieldBench.Reports.Kinetics;
+
+/// <summary>Writes data/kinetics.csv: one row per lot with a log, invariant culture, snake_case columns with the unit last.</summary>
+public static class KineticsCsv
+{
+    /// <summary>Conventional file name inside the output's data folder.</summary>
+    public const string FileName = "kinetics.csv";
+
+    /// <summary>Writes the per-lot table as CSV (RFC 4180, CRLF, round-trip numbers; see <see cref="CsvText"/>).</summary>
+    public static void Write(KineticsReview review, TextWriter writer)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(writer);
+        writer.Write(CsvText.Write(KineticsTables.Lots(review)));
+    }
+}
