@@ -77,7 +77,8 @@ public static class WorkbookWriter
             WriteOverview(overview, review);
 
             var lots = wb.Worksheets.Add(Sheets.Lots);
-            SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
 
             var house = wb.Worksheets.Add(Sheets.HouseFactor);
             pictureRows[Sheets.HouseFactor] = WriteHouseFactor(house, review);
