@@ -38,5 +38,6 @@ public static class YieldBenchApp
     private static IEnumerable<Command> AllCommands(CliContext context)
     {
         yield return Commands.ReviewCommand.Create(context);
+        yield return Commands.PlanCommand.Create(context);
     }
 }
