@@ -8,8 +8,9 @@ namespace YieldBench.Reports.Charts;
 /// <param name="Title">Chart title, used as the picture's description in the workbook.</param>
 /// <param name="Width">Width, px.</param>
 /// <param name="Height">Height, px.</param>
-/// <param name="Sheet">Name of the workbook sheet the picture belongs on besides the overview (null: overview only).</param>
-public sealed record ChartFile(string Path, string Title, int Width, int Height, string? Sheet = null);
+/// <param name="Sheet">Name of the workbook sheet the picture is placed on, below its table (null: none besides the overview).</param>
+/// <param name="OnOverview">True when the overview sheet shows it too (keep it for the few charts that explain the review at a glance).</param>
+public sealed record ChartFile(string Path, string Title, int Width, int Height, string? Sheet = null, bool OnOverview = true);
 
 /// <summary>Renders plots to PNG bytes and files.</summary>
 public static class ChartImage
@@ -29,10 +30,12 @@ public static class ChartImage
     /// <param name="sheet">Workbook sheet the picture also goes on, or null.</param>
     /// <param name="width">Width, px.</param>
     /// <param name="height">Height, px.</param>
-    public static ChartFile Save(Plot plot, string path, string title, string? sheet = null, int width = ChartStyle.Width, int height = ChartStyle.Height)
+    /// <param name="onOverview">True when the overview sheet shows it too.</param>
+    public static ChartFile Save(
+        Plot plot, string path, string title, string? sheet = null, int width = ChartStyle.Width, int height = ChartStyle.Height, bool onOverview = true)
     {
         byte[] png = RenderPng(plot, width, height);
         AtomicFile.WriteAllBytes(path, png);
-        return new ChartFile(System.IO.Path.GetFullPath(path), title, width, height, sheet);
+        return new ChartFile(System.IO.Path.GetFullPath(path), title, width, height, sheet, onOverview);
     }
 }

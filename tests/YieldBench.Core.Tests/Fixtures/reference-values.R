@@ -1,0 +1,28 @@
+# Reference values for tests/YieldBench.Core.Tests/Statistics. Produced with:
+#   apt-get install -y r-base-core r-cran-robustbase   (R 4.2.2 Patched r83330, robustbase 0.95-0, MASS 7.3-58.2)
+#   Rscript reference-values.R
+library(robustbase); library(MASS)
+options(digits = 12)
+p <- function(label, v) cat(label, ":", format(v, digits = 12), "\n")
+x <- chem
+p("chem median", median(x)); p("chem mad", mad(x)); p("chem quantile7 0.25 0.75", quantile(x, c(.25, .75), type = 7))
+p("chem mean", mean(x)); p("chem sd", sd(x)); p("chem trim0.2", mean(x, trim = 0.2))
+p("chem Qn", Qn(x)); p("chem Sn", Sn(x))
+p("chem huberM k1.345", huberM(x, k = 1.345)$mu); p("chem huberM k1.5", huberM(x, k = 1.5)$mu)
+p("huberM c(1,2,10)", huberM(c(1, 2, 10))$mu); p("huberM c(1:10,100)", huberM(c(1:10, 100))$mu)
+p("Qn c(1,2,3,4,10)", Qn(c(1, 2, 3, 4, 10))); p("Sn c(1,2,3,4,10)", Sn(c(1, 2, 3, 4, 10)))
+p("Qn 1:10", Qn(1:10)); p("Sn 1:10", Sn(1:10))
+odd <- c(3.1, 0.4, 2.2, 9.7, 5.5, 1.8, 4.4, 7.0, 2.9, 6.3, 0.9, 8.8, 3.3)
+even <- c(odd, 12.5)
+p("Qn odd13", Qn(odd)); p("Sn odd13", Sn(odd)); p("Qn even14", Qn(even)); p("Sn even14", Sn(even))
+set.seed(7); big <- round(rnorm(301, 10, 2), 3)
+write(big, "normal301.txt", ncolumns = 1)  # copied into GeneratedSamples.cs
+p("Qn big301", Qn(big)); p("Sn big301", Sn(big)); p("mad big301", mad(big)); p("huberM big301 k1.345", huberM(big, k = 1.345)$mu)
+g1 <- c(2.9, 3.0, 2.5, 2.6, 3.2); g2 <- c(3.8, 2.7, 4.0, 2.4); g3 <- c(2.8, 3.4, 3.7, 2.2, 2.0, 3.0)
+p("kruskal H p", unlist(kruskal.test(list(g1, g2, g3))[c("statistic", "p.value")]))
+a <- c(0.58, 0.61, 0.55, 0.63, 0.60, 0.57); b <- c(0.52, 0.56, 0.54, 0.59, 0.50, 0.53, 0.51)
+w <- wilcox.test(a, b, conf.int = TRUE, exact = TRUE)
+p("wilcox exact W p", c(w$statistic, w$p.value)); p("HL exact est ci", c(w$estimate, w$conf.int))
+p("holm", p.adjust(c(0.01, 0.04, 0.03, 0.005, NA), "holm"))
+f <- rlm(stack.loss ~ ., stackloss)
+p("rlm coef", coef(f)); p("rlm se", summary(f)$coefficients[, 2]); p("rlm scale", f$s)
