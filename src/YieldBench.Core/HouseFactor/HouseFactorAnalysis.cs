@@ -18,6 +18,8 @@ public static class HouseFactorAnalysis
         list.AddRange(settings.FixedFactors.Select(f => new FixedFactorCandidate(f)));
         list.Add(new EuConventionCandidate());
         list.Add(new PooledMedianCandidate());
+        list.Add(new RobustOriginLineCandidate());
+        list.Add(new TheilSenLineCandidate());
         list.Add(new PerStrainMedianCandidate());
         list.Add(new ShrunkStrainCandidate());
         return list;
