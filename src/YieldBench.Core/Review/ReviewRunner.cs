@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
 
@@ -9,7 +10,7 @@ namespace YieldBench.Core.Review;
 public static class ReviewRunner
 {
     /// <summary>The review stages, in the order they run (progress reporting names them).</summary>
-    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "house factor", "kinetics"];
+    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "house factor", "kinetics", "strain review"];
 
     /// <summary>Runs the review.</summary>
     /// <param name="inputs">What intake produced.</param>
@@ -39,6 +40,9 @@ public static class ReviewRunner
             kinetics = KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics);
         }
 
+        progress?.Report(Stages[3]);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
+
         return new ReviewResult
         {
             Inputs = inputs,
@@ -46,6 +50,7 @@ public static class ReviewRunner
             Lots = lots,
             HouseFactor = house,
             Kinetics = kinetics,
+            Strains = strains,
             ToolVersion = toolVersion,
         };
     }

@@ -1,6 +1,7 @@
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
+using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
 
@@ -18,4 +19,7 @@ public sealed record ReviewSettings
 
     /// <summary>Kinetics thresholds (dryness, stalls, temperatures, heat constants).</summary>
     public KineticsSettings Kinetics { get; init; } = KineticsSettings.Default;
+
+    /// <summary>Strain review groupings, limits and flag thresholds (docs/methods-statistics.md).</summary>
+    public StrainReviewSettings Strains { get; init; } = new();
 }
