@@ -290,6 +290,24 @@ public class StrainReviewerTests
         Assert.Contains("Fewer than two strains have enough lots to compare.", review.Comparison.Sentences);
     }
 
+    [Fact]
+    public void A_lot_without_a_factor_is_counted_as_missing_and_named_in_the_notes()
+    {
+        // Given six ordinary lots and one whose recorded starting sugar is below zero °Brix (a finished-wine reading)
+        var lots = Enumerable.Range(0, 6).Select(i => LotBuilder.Convert(LotBuilder.Lot("G" + i, 2024, "Y-05", 23 + (0.1 * i), 13.5 + (0.05 * i)))).ToList();
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("G6", 2024, "Y-05", -1.5, 13.2)));
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the strain row counts it as missing, the notes say so, and it has no score or flag
+        var row = review.Groups.Single(g => g.Grouping == Groupings.Strain && g.Measure == ConversionMeasure.AbvPerBrix);
+        Assert.Equal((6, 1), (row.N, row.Missing));
+        Assert.Equal("1 lot(s) without a value", row.Note);
+        Assert.Contains(review.Notes, n => n.StartsWith("1 lot(s) have no conversion factor", StringComparison.Ordinal));
+        Assert.DoesNotContain(review.Scores, s => s.LotKey == "2024/G6");
+    }
+
     [Theory]
     [InlineData(20.99, "<21")]
     [InlineData(21.0, "21–23")]
