@@ -308,6 +308,33 @@ public class StrainReviewerTests
         Assert.DoesNotContain(review.Scores, s => s.LotKey == "2024/G6");
     }
 
+    [Fact]
+    public void Transposed_digits_are_found_on_the_scale_the_sugar_was_recorded_in()
+    {
+        // Given 30 ordinary lots and one recorded as SG 1.130 whose alcohol fits SG 1.103 (about 24.2 °Brix)
+        var random = new Random(8);
+        var lots = Enumerable.Range(0, 30).Select(i =>
+        {
+            double brix = Math.Round(23.5 + LotBuilder.Normal(random), 1);
+            return LotBuilder.Convert(LotBuilder.Lot("H" + i, 2024, "Y-05", brix, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * brix) + (0.1 * LotBuilder.Normal(random)), 2)));
+        }).ToList();
+        double trueBrix = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.103).Brix;
+        var odd = LotBuilder.Lot("H-SG", 2024, "Y-05", 20, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * trueBrix), 2)) with
+        {
+            StartingSugar = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.130),
+            StartingSugarScale = YieldBench.Core.Units.SugarScale.SpecificGravity,
+        };
+        lots.Add(LotBuilder.Convert(odd));
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the swap is found in SG digits
+        var flag = review.Flags.Single(f => f.LotKey == "2024/H-SG" && f.Code == FlagCodes.PossibleTransposedDigits);
+        Assert.StartsWith("the starting sugar was recorded as 1.130 SG; with two neighbouring digits swapped (1.103 SG)", flag.Reason, StringComparison.Ordinal);
+        Assert.Equal(trueBrix, flag.ReferenceMedian, 6);
+    }
+
     [Theory]
     [InlineData(20.99, "<21")]
     [InlineData(21.0, "21–23")]
