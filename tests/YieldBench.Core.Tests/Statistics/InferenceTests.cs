@@ -199,6 +199,25 @@ public class InferenceTests
         }
     }
 
+    [Theory]
+    [InlineData(0.0, 0.0)]
+    [InlineData(2.0, 1.0)]
+    public void Theil_Sen_selection_handles_points_that_all_lie_on_one_line(double slope, double intercept)
+    {
+        // Given 2,000 points exactly on y = intercept + slope·x with tied x (every pairwise slope equal)
+        var x = Enumerable.Range(0, 2000).Select(i => 18 + ((i % 97) * 0.1)).ToArray();
+        var y = x.Select(v => intercept + (slope * v)).ToArray();
+
+        // When fitted by the selection path
+        var line = TheilSen.Fit(x, y);
+
+        // Then the slope and both interval ends are that slope
+        Assert.Equal(slope, line.Slope, 9);
+        Assert.Equal(slope, line.SlopeInterval.Low, 9);
+        Assert.Equal(slope, line.SlopeInterval.High, 9);
+        Assert.Equal(intercept, line.Intercept, 9);
+    }
+
     [Fact]
     public void Theil_Sen_is_undefined_when_every_x_is_equal()
     {
