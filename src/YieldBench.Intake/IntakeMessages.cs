@@ -105,7 +105,7 @@ public static class IntakeMessages
         $"{field} could be {asThousands} (comma as thousands separator) or {asDecimal} (decimal comma). Write it without a thousands separator.";
 
     internal static string OutOfRange(string field, string shown, double min, double max, string unit) =>
-        $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)} {unit}. Check the value and its unit.";
+        $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)}{(unit.Length > 0 ? " " + unit : "")}. Check the value and its unit.";
 
     internal static string NotPositive(string field, string shown) =>
         $"{field} {shown} is not above zero. Enter the volume or capacity in the header's unit, or leave it empty.";

@@ -85,11 +85,11 @@ public static class ReviewCharts
             var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
             band.FillColor = ChartPalette.Band.WithAlpha(0.25);
             band.LineWidth = 0;
-            band.LegendText = $"label tolerance ({regime.Id})";
+            band.LegendText = $"label tolerance: {regime.Name}";
             var rec = plot.Add.ScatterLine(grid, predicted, ChartPalette.Reference);
             rec.LineWidth = 3;
             rec.LinePattern = LinePattern.Dashed;
-            rec.LegendText = "recommended: " + CandidateName(review, line.CandidateId);
+            rec.LegendText = "planner line (all lots): " + CandidateName(review, line.CandidateId);
         }
 
         var fitted = StrainLinesForChart(review);
@@ -148,9 +148,9 @@ public static class ReviewCharts
                 WhiskerMax = sorted.Where(v => v <= q3 + (1.5 * iqr)).Max(),
                 Width = 0.5,
             };
-            box.FillStyle.Color = color.WithAlpha(0.35);
-            box.LineStyle.Color = color;
-            box.LineStyle.Width = 2;
+            box.FillColor = color.WithAlpha(0.30);
+            box.LineColor = color;
+            box.LineWidth = 2;
             plot.Add.Box(box);
 
             // Points spread sideways by rank (deterministic, no random jitter) so equal values stay visible.
@@ -281,7 +281,8 @@ public static class ReviewCharts
         var line = plot.Add.VerticalLine(median, 3, ChartPalette.Reference, LinePattern.Dashed);
         line.LegendText = "median of all lots " + median.ToString("0.000", System.Globalization.CultureInfo.InvariantCulture);
         ChartStyle.ShowLegend(plot, Alignment.UpperRight);
-        plot.Axes.Margins(bottom: 0);
+        plot.Axes.SetLimitsX(lo - binWidth, hi + binWidth);
+        plot.Axes.SetLimitsY(0, hist.Counts.Max() * 1.15);
         return plot;
     }
 

@@ -5,6 +5,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
 using YieldBench.Reports.Charts;
+using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Output;
 using YieldBench.Reports.Tables;
 
@@ -33,7 +34,7 @@ public static class WorkbookWriter
         public const string Planner = "Planner";
 
         /// <summary>Kinetics (when logs exist).</summary>
-        public const string Kinetics = "Kinetics";
+        public const string Kinetics = KineticsSheet.SheetName;
 
         /// <summary>Intake issues.</summary>
         public const string IntakeIssues = "Intake issues";
@@ -50,9 +51,6 @@ public static class WorkbookWriter
 
     /// <summary>A fixed creation time for the package properties, so no clock value enters the file.</summary>
     public static DateTime FixedTimestamp { get; } = new(2000, 1, 1, 0, 0, 0, DateTimeKind.Utc);
-
-    /// <summary>Fills the kinetics sheet; null when the kinetics section is not rendered.</summary>
-    public static Action<IXLWorksheet, ReviewResult>? KineticsSheetFiller { get; set; }
 
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
     public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path) =>
@@ -77,7 +75,8 @@ public static class WorkbookWriter
             WriteOverview(overview, review);
 
             var lots = wb.Worksheets.Add(Sheets.Lots);
-            SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
 
             var house = wb.Worksheets.Add(Sheets.HouseFactor);
             pictureRows[Sheets.HouseFactor] = WriteHouseFactor(house, review);
@@ -85,10 +84,10 @@ public static class WorkbookWriter
             var planner = wb.Worksheets.Add(Sheets.Planner);
             pictureRows[Sheets.Planner] = WritePlanner(planner, review);
 
-            if (review.Kinetics is not null && KineticsSheetFiller is { } fill)
+            if (review.Kinetics is { } kineticsReview)
             {
                 var kinetics = wb.Worksheets.Add(Sheets.Kinetics);
-                fill(kinetics, review);
+                KineticsSheet.Fill(kinetics, kineticsReview);
                 pictureRows[Sheets.Kinetics] = kinetics.LastRowUsed()?.RowNumber() + 2 ?? 2;
             }
 
