@@ -51,6 +51,66 @@ public static class Descriptive
     /// <summary>Quantile (Hyndman–Fan type 7) of an unsorted sample.</summary>
     public static double Quantile(IEnumerable<double> values, double p) => QuantileOfSorted(ToSortedArray(values), p);
 
+    /// <summary>Arithmetic mean. NaN when empty.</summary>
+    public static double Mean(IEnumerable<double> values)
+    {
+        double sum = 0;
+        int n = 0;
+        foreach (double v in values)
+        {
+            RejectNaN(v, nameof(values));
+            sum += v;
+            n++;
+        }
+
+        return n == 0 ? double.NaN : sum / n;
+    }
+
+    /// <summary>
+    /// Sample standard deviation with the n − 1 denominator (R <c>sd</c>, Excel STDEV.S), by the two-pass formula
+    /// for accuracy. NaN when fewer than two values; 0 when all values are equal.
+    /// </summary>
+    public static double StandardDeviation(IEnumerable<double> values)
+    {
+        var a = values as IReadOnlyList<double> ?? values.ToArray();
+        if (a.Count < 2)
+        {
+            foreach (double v in a)
+            {
+                RejectNaN(v, nameof(values));
+            }
+
+            return double.NaN;
+        }
+
+        double mean = Mean(a);
+        double ss = 0;
+        foreach (double v in a)
+        {
+            double d = v - mean;
+            ss += d * d;
+        }
+
+        return Math.Sqrt(ss / (a.Count - 1));
+    }
+
+    /// <summary>
+    /// Interquartile range Q3 − Q1 with quantiles of Hyndman–Fan type 7. NaN when empty; 0 for one value.
+    /// </summary>
+    public static double InterquartileRange(IEnumerable<double> values)
+    {
+        var a = ToSortedArray(values);
+        return QuantileOfSorted(a, 0.75) - QuantileOfSorted(a, 0.25);
+    }
+
+    private static void RejectNaN(double v, string name)
+    {
+        if (double.IsNaN(v))
+        {
+            throw new ArgumentException("The sample holds NaN; filter missing values before computing statistics.", name);
+        }
+    }
+
     /// <summary>Copies and sorts, rejecting NaN.</summary>
     public static double[] ToSortedArray(IEnumerable<double> values)
     {

@@ -1,0 +1,154 @@
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Statistics;
+
+namespace YieldBench.Core.HouseFactor;
+
+/// <summary>How lots were held out.</summary>
+public enum BacktestScheme
+{
+    /// <summary>Each season in turn is predicted by a candidate trained on the other seasons.</summary>
+    LeaveOneSeasonOut,
+
+    /// <summary>Each lot in turn is predicted by a candidate trained on all other lots.</summary>
+    LeaveOneLotOut,
+
+    /// <summary>Lots dealt into ten seeded folds (used instead of leave-one-lot-out for costly candidates on large data).</summary>
+    TenFoldByLot,
+}
+
+/// <summary>One held-out prediction.</summary>
+/// <param name="LotKey">"season/lot".</param>
+/// <param name="Season">Season.</param>
+/// <param name="Strain">Strain.</param>
+/// <param name="ActualAbv">The lab's final alcohol, % v/v.</param>
+/// <param name="PredictedAbv">The prediction of a candidate that never saw this lot, % v/v.</param>
+public sealed record HeldOutPrediction(string LotKey, int Season, string Strain, double ActualAbv, double PredictedAbv)
+{
+    /// <summary>Actual − predicted, % v/v (positive: the wine came out stronger than predicted).</summary>
+    public double Error => ActualAbv - PredictedAbv;
+}
+
+/// <summary>
+/// Backtest metrics of one candidate on held-out lots. Errors are actual − predicted, % v/v.
+/// </summary>
+/// <param name="Lots">Held-out predictions scored.</param>
+/// <param name="Mae">Mean absolute error, % v/v.</param>
+/// <param name="MaeStandardError">Standard error of the MAE: SD of the absolute errors ÷ √n (NaN for n &lt; 2).</param>
+/// <param name="Bias">Mean of (predicted − actual), % v/v: positive means the candidate over-predicts.</param>
+/// <param name="Rmse">Root mean squared error, % v/v.</param>
+/// <param name="P90AbsoluteError">90th percentile of |error| (Hyndman–Fan type 7), % v/v.</param>
+/// <param name="ShareWithinTolerance">Share of lots whose lab alcohol the label regime would accept against the prediction as the stated value.</param>
+/// <param name="ShareWrongSideOfThreshold">Share of lots predicted on the other side of the threshold from the lab alcohol (at or below vs above).</param>
+public sealed record BacktestMetrics(
+    int Lots,
+    double Mae,
+    double MaeStandardError,
+    double Bias,
+    double Rmse,
+    double P90AbsoluteError,
+    double ShareWithinTolerance,
+    double ShareWrongSideOfThreshold)
+{
+    /// <summary>Scores held-out predictions against a regime and a threshold (% v/v).</summary>
+    public static BacktestMetrics Score(IReadOnlyList<HeldOutPrediction> predictions, LabelRegime regime, double thresholdAbv)
+    {
+        ArgumentNullException.ThrowIfNull(predictions);
+        ArgumentNullException.ThrowIfNull(regime);
+        int n = predictions.Count;
+        if (n == 0)
+        {
+            return new BacktestMetrics(0, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
+        }
+
+        var abs = predictions.Select(p => Math.Abs(p.Error)).ToArray();
+        double mae = abs.Average();
+        double se = n >= 2 ? Math.Sqrt(abs.Sum(a => (a - mae) * (a - mae)) / (n - 1)) / Math.Sqrt(n) : double.NaN;
+        double bias = predictions.Average(p => p.PredictedAbv - p.ActualAbv);
+        double rmse = Math.Sqrt(predictions.Average(p => p.Error * p.Error));
+        double p90 = Descriptive.Quantile(abs, 0.90);
+        double within = predictions.Count(p => regime.Accepts(p.PredictedAbv, p.ActualAbv)) / (double)n;
+        double wrong = predictions.Count(p => (p.PredictedAbv > thresholdAbv) != (p.ActualAbv > thresholdAbv)) / (double)n;
+        return new BacktestMetrics(n, mae, se, bias, rmse, p90, within, wrong);
+    }
+}
+
+/// <summary>Runs held-out predictions of a candidate.</summary>
+public static class Backtest
+{
+    /// <summary>
+    /// Predicts every lot with the candidate trained without it (or without its season, or its fold).
+    /// Returned in the order of <paramref name="lots"/>. Lots whose held-out training set is empty are skipped.
+    /// </summary>
+    public static IReadOnlyList<HeldOutPrediction> Run(
+        ICandidateTrainer candidate, IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(candidate);
+        ArgumentNullException.ThrowIfNull(lots);
+        var fold = FoldsOf(lots, scheme, seed);
+        var predicted = new double[lots.Count];
+        Array.Fill(predicted, double.NaN);
+        foreach (int f in fold.Distinct().Order())
+        {
+            var train = new List<LotConversion>();
+            var test = new List<int>();
+            for (int i = 0; i < lots.Count; i++)
+            {
+                if (fold[i] == f)
+                {
+                    test.Add(i);
+                }
+                else
+                {
+                    train.Add(lots[i]);
+                }
+            }
+
+            if (train.Count == 0)
+            {
+                continue;
+            }
+
+            var model = candidate.Train(train, seed);
+            foreach (int i in test)
+            {
+                predicted[i] = model.PredictAbv(PredictionInput.From(lots[i]));
+            }
+        }
+
+        var result = new List<HeldOutPrediction>(lots.Count);
+        for (int i = 0; i < lots.Count; i++)
+        {
+            if (double.IsFinite(predicted[i]))
+            {
+                var l = lots[i].Lot;
+                result.Add(new HeldOutPrediction(l.Key, l.Season, l.Strain, l.FinalAlcohol.PercentVolume, predicted[i]));
+            }
+        }
+
+        return result;
+    }
+
+    private static int[] FoldsOf(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)
+    {
+        switch (scheme)
+        {
+            case BacktestScheme.LeaveOneSeasonOut:
+                return lots.Select(l => l.Lot.Season).ToArray();
+            case BacktestScheme.LeaveOneLotOut:
+                return Enumerable.Range(0, lots.Count).ToArray();
+            case BacktestScheme.TenFoldByLot:
+                // A seeded shuffle dealt round-robin keeps fold sizes within one of each other.
+                var order = Enumerable.Range(0, lots.Count).ToArray();
+                new Random(seed).Shuffle(order);
+                var fold = new int[lots.Count];
+                for (int i = 0; i < order.Length; i++)
+                {
+                    fold[order[i]] = i % 10;
+                }
+
+                return fold;
+            default:
+                throw new ArgumentOutOfRangeException(nameof(scheme), scheme, "Unknown backtest scheme.");
+        }
+    }
+}

@@ -1,0 +1,95 @@
+namespace YieldBench.Core.HouseFactor;
+
+/// <summary>One candidate with its backtests.</summary>
+/// <param name="Id">Stable id.</param>
+/// <param name="Name">Plain name.</param>
+/// <param name="Description">What it does.</param>
+/// <param name="Complexity">Rank of simplicity (lower is simpler).</param>
+/// <param name="BySeason">Leave-one-season-out metrics, or null with fewer than two seasons.</param>
+/// <param name="ByLot">Leave-one-lot-out metrics (or ten-fold, see <paramref name="ByLotScheme"/>).</param>
+/// <param name="ByLotScheme">Leave-one-lot-out, or ten folds on large data.</param>
+/// <param name="HeldOut">The held-out predictions of the backtest the recommendation uses.</param>
+/// <param name="FullFit">The candidate trained on all lots, as strain lines, or null for a multi-variable model.</param>
+/// <param name="Importance">Permutation importance on all lots (multi-variable model only; else empty).</param>
+public sealed record CandidateResult(
+    string Id,
+    string Name,
+    string Description,
+    int Complexity,
+    BacktestMetrics? BySeason,
+    BacktestMetrics ByLot,
+    BacktestScheme ByLotScheme,
+    IReadOnlyList<HeldOutPrediction> HeldOut,
+    SugarLines? FullFit,
+    IReadOnlyList<FeatureImportance> Importance)
+{
+    /// <summary>The metrics of the backtest the recommendation uses.</summary>
+    public BacktestMetrics Primary => BySeason ?? ByLot;
+}
+
+/// <summary>The one-standard-error choice for all lots or one strain.</summary>
+/// <param name="Strain">Strain code, or <c>*</c> for all lots.</param>
+/// <param name="Lots">Lots scored.</param>
+/// <param name="CandidateId">Chosen candidate.</param>
+/// <param name="BestCandidateId">Candidate with the lowest MAE.</param>
+/// <param name="Metrics">The chosen candidate's metrics on these lots.</param>
+/// <param name="MaeLimit">Best MAE + one standard error, % v/v.</param>
+/// <param name="ErrorBand80">The 80 % band of held-out errors (low, high), % v/v: a prediction p has the interval [p + low, p + high]; NaN when too few lots.</param>
+/// <param name="ErrorBand95">The 95 % band of held-out errors (low, high), % v/v; NaN when too few lots.</param>
+/// <param name="Explanation">Why it was chosen and what it costs, in plain words.</param>
+public sealed record Recommendation(
+    string Strain,
+    int Lots,
+    string CandidateId,
+    string BestCandidateId,
+    BacktestMetrics Metrics,
+    double MaeLimit,
+    (double Low, double High) ErrorBand80,
+    (double Low, double High) ErrorBand95,
+    string Explanation);
+
+/// <summary>The house-factor section of a review.</summary>
+public sealed record HouseFactorReview
+{
+    /// <summary>Regime the backtest was scored against.</summary>
+    public required LabelRegime Regime { get; init; }
+
+    /// <summary>Threshold of the wrong-side share, % v/v.</summary>
+    public required double ThresholdAbv { get; init; }
+
+    /// <summary>Lots used.</summary>
+    public required int LotsUsed { get; init; }
+
+    /// <summary>Seasons among the lots, ascending.</summary>
+    public required IReadOnlyList<int> Seasons { get; init; }
+
+    /// <summary>The backtest the recommendation rests on.</summary>
+    public required BacktestScheme PrimaryScheme { get; init; }
+
+    /// <summary>Every candidate with its backtests, in offer order.</summary>
+    public required IReadOnlyList<CandidateResult> Candidates { get; init; }
+
+    /// <summary>The choice over all lots, or null when there were too few lots to choose.</summary>
+    public Recommendation? Overall { get; init; }
+
+    /// <summary>Choices for strains with enough lots, by strain code.</summary>
+    public IReadOnlyList<Recommendation> ByStrain { get; init; } = [];
+
+    /// <summary>The planner's predictor, or null when there was no recommendation.</summary>
+    public PlanningModel? Planning { get; init; }
+
+    /// <summary>Highest harvest sugar under each target at each confidence, for the pooled line and each strain.</summary>
+    public IReadOnlyList<ThresholdAnswer> PlannerTable { get; init; } = [];
+
+    /// <summary>The multi-variable model's feature importance in one sentence, when one was offered.</summary>
+    public string? ImportanceSentence { get; init; }
+
+    /// <summary>Plain-language explanation, one sentence per entry.</summary>
+    public IReadOnlyList<string> Explanation { get; init; } = [];
+
+    /// <summary>Lots left out and other notes on the data.</summary>
+    public IReadOnlyList<string> Notes { get; init; } = [];
+
+    /// <summary>Cautions shown with every house-factor result.</summary>
+    public IReadOnlyList<string> Cautions { get; init; } = HouseFactorTexts.PlannerCautions;
+}

@@ -1,0 +1,148 @@
+using System.Globalization;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Core.HouseFactor;
+
+/// <summary>Highest harvest sugar that keeps the predicted alcohol under a target at a confidence.</summary>
+/// <param name="Strain">Strain the line belongs to (<c>*</c>: pooled).</param>
+/// <param name="TargetAbv">Target, % v/v.</param>
+/// <param name="Confidence">One-sided confidence that the finished wine stays at or under the target, in (0, 1).</param>
+/// <param name="HighestBrix">The answer, °Brix (effective starting sugar), or NaN with a <paramref name="Note"/>.</param>
+/// <param name="ErrorAllowance">Upper held-out error at the confidence subtracted from the target, % v/v (0 at 50 % with no errors).</param>
+/// <param name="Note">Why there is no answer, or what it rests on; null when plain.</param>
+public sealed record ThresholdAnswer(string Strain, double TargetAbv, double Confidence, double HighestBrix, double ErrorAllowance, string? Note);
+
+/// <summary>Water add-back that brings a must to the sugar expected to give a target alcohol.</summary>
+/// <param name="TargetBrix">Starting °Brix aimed at.</param>
+/// <param name="WaterL">Water to add, L (0 when the must is already at or below the target).</param>
+/// <param name="VolumeAfterL">Must volume after the addition, L (mixing contraction ignored).</param>
+/// <param name="After">Predicted alcohol of the diluted must, with intervals.</param>
+/// <param name="Note">What the answer rests on or why there is none; null when plain.</param>
+public sealed record AddBackAnswer(double TargetBrix, double WaterL, double VolumeAfterL, AlcoholEstimate? After, string? Note);
+
+/// <summary>
+/// The potential-alcohol planner. Pure functions of a <see cref="PlanningLine"/>: prediction with intervals, the
+/// highest harvest sugar under a target, and water add-back by mass balance. Every answer is an estimate, never a
+/// label statement (<see cref="HouseFactorTexts.PlannerCautions"/>).
+/// </summary>
+public static class Planner
+{
+    /// <summary>Predicted alcohol at a starting sugar, with 80 % and 95 % intervals from the line's held-out errors.</summary>
+    public static AlcoholEstimate Estimate(PlanningLine line, SugarReading startingSugar)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        return AlcoholEstimate.From(line.Predict(startingSugar.Brix), line.SortedErrors);
+    }
+
+    /// <summary>
+    /// The highest starting °Brix b with predicted(b) + U(c) ≤ target, where U(c) is the upper held-out error bound at
+    /// one-sided confidence c (see <see cref="HeldOutErrors.UpperOfSorted"/>): a must at b or below finishes at or
+    /// under the target with probability about c, if the coming season behaves like the backtested ones.
+    /// </summary>
+    public static ThresholdAnswer HighestSugar(PlanningLine line, double targetAbv, double confidence)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        if (double.IsNaN(targetAbv) || targetAbv <= 0 || targetAbv > AlcoholContent.MaxPercent)
+        {
+            throw new ArgumentOutOfRangeException(nameof(targetAbv), targetAbv, "A target alcohol must be above 0 and at most 25 % v/v.");
+        }
+
+        if (double.IsNaN(confidence) || confidence <= 0 || confidence >= 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(confidence), confidence, "A confidence must be strictly between 0 and 1.");
+        }
+
+        string c = Percent(confidence);
+        double allowance;
+        string? note = null;
+        if (line.SortedErrors.Count == 0)
+        {
+            if (Math.Abs(confidence - 0.5) > 1e-9)
+            {
+                return new ThresholdAnswer(line.Strain, targetAbv, confidence, double.NaN, double.NaN,
+                    $"no held-out errors are known for this predictor, so no answer at {c} confidence can be given; use a house-factor file from a review, or ask at 50 % for the central estimate");
+            }
+
+            allowance = 0;
+            note = "central estimate only: no held-out errors are known";
+        }
+        else
+        {
+            allowance = HeldOutErrors.UpperOfSorted(line.SortedErrors, confidence);
+            if (double.IsNaN(allowance))
+            {
+                return new ThresholdAnswer(line.Strain, targetAbv, confidence, double.NaN, double.NaN,
+                    $"too few held-out lots ({line.SortedErrors.Count}) for {c} confidence; at least {HeldOutErrors.MinimumForOneSided(confidence)} are needed");
+            }
+        }
+
+        double brix = line.BrixFor(targetAbv - allowance);
+        if (double.IsNaN(brix))
+        {
+            return new ThresholdAnswer(line.Strain, targetAbv, confidence, double.NaN, allowance,
+                "the predictor cannot reach this target within 0–50 °Brix");
+        }
+
+        return new ThresholdAnswer(line.Strain, targetAbv, confidence, brix, allowance, note);
+    }
+
+    /// <summary>
+    /// Water to add so the must's predicted alcohol comes to the target: the target °Brix is the sugar whose
+    /// prediction is the target (at <paramref name="confidence"/>, when given, the sugar of <see cref="HighestSugar"/>);
+    /// the water follows from the mass balance on dissolved solids in <see cref="AdditionBalance.WaterForTarget"/>.
+    /// </summary>
+    public static AddBackAnswer WaterAddBack(PlanningLine line, SugarReading measured, double mustVolumeL, double targetAbv, double? confidence)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        if (double.IsNaN(mustVolumeL) || mustVolumeL <= 0 || mustVolumeL > 1e9)
+        {
+            throw new ArgumentOutOfRangeException(nameof(mustVolumeL), mustVolumeL, "A must volume must be above 0 and at most 1e9 L.");
+        }
+
+        double targetBrix;
+        string? note;
+        if (confidence is { } conf)
+        {
+            var t = HighestSugar(line, targetAbv, conf);
+            if (double.IsNaN(t.HighestBrix))
+            {
+                return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, t.Note);
+            }
+
+            targetBrix = t.HighestBrix;
+            note = $"aims at the sugar that keeps the wine at or under {Number(targetAbv)} % v/v with {Percent(conf)} confidence";
+        }
+        else
+        {
+            targetBrix = line.BrixFor(targetAbv);
+            if (double.IsNaN(targetBrix))
+            {
+                return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, "the predictor cannot reach this target within 0–50 °Brix");
+            }
+
+            note = $"aims at the sugar whose central prediction is {Number(targetAbv)} % v/v";
+        }
+
+        var (water, after) = AdditionBalance.WaterForTarget(measured, mustVolumeL, targetBrix);
+        double effective = water > 0 ? targetBrix : measured.Brix;
+        if (water <= 0)
+        {
+            note = "the must is already at or below the target sugar: no water is needed";
+        }
+
+        return new AddBackAnswer(targetBrix, water, after, AlcoholEstimate.From(line.Predict(effective), line.SortedErrors), note);
+    }
+
+    /// <summary>The threshold table of one line for several targets and confidences (targets outer, confidences inner).</summary>
+    public static IReadOnlyList<ThresholdAnswer> Table(PlanningLine line, IReadOnlyList<double> targetsAbv, IReadOnlyList<double> confidences)
+    {
+        ArgumentNullException.ThrowIfNull(targetsAbv);
+        ArgumentNullException.ThrowIfNull(confidences);
+        return targetsAbv.SelectMany(t => confidences.Select(c => HighestSugar(line, t, c))).ToArray();
+    }
+
+    private static string Percent(double p) => (p * 100).ToString("0.#", CultureInfo.InvariantCulture) + " %";
+
+    private static string Number(double v) => v.ToString("0.0#", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,107 @@
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Core.Tests.HouseFactor;
+
+public class PlannerTests
+{
+    private static PlanningLine LineWithErrors(double slope, double[] errors) =>
+        new("SX-01", "test", SugarCurve.Line, 0, slope, 100, errors.Order().ToArray(), "test errors");
+
+    private static double[] SpreadErrors(int n, int seed)
+    {
+        var rng = new Random(seed);
+        return Enumerable.Range(0, n).Select(_ => 0.2 * SyntheticLots.Gaussian(rng)).ToArray();
+    }
+
+    [Fact]
+    public void Water_add_back_equals_a_hand_mass_balance()
+    {
+        // Given 5000 L of must at 26.0 °Brix, a factor of 0.6 % v/v per °Brix and a target of 14.5 % v/v
+        var line = LineWithErrors(0.6, SpreadErrors(100, 3));
+        var must = SugarReading.FromBrix(26.0);
+
+        // When the planner works out the add-back
+        var answer = Planner.WaterAddBack(line, must, 5000, 14.5, null);
+
+        // Then it equals the hand balance on dissolved solids:
+        // target °Bx = 14.5 / 0.6 = 24.1667; must mass = 5000 L × SG(26 °Bx) × 0.99820 kg/L; solids = 26 % of it;
+        // mass after = solids ÷ 24.1667 %; water = (mass after − mass) ÷ 0.99820 kg/L
+        double targetBrix = 14.5 / 0.6;
+        double mass = 5000 * must.SpecificGravity * 0.99820;
+        double solids = mass * 0.26;
+        double massAfter = solids / (targetBrix / 100);
+        double water = (massAfter - mass) / 0.99820;
+        Assert.Equal(targetBrix, answer.TargetBrix, 1e-9);
+        Assert.Equal(water, answer.WaterL, 1e-6);
+        Assert.Equal(5000 + water, answer.VolumeAfterL, 1e-6);
+        Assert.InRange(answer.WaterL, 420, 430); // order of magnitude: 26 → 24.17 °Bx dilutes ~7.6 % of ~5550 kg
+        Assert.Equal(14.5, answer.After!.Predicted, 1e-9);
+    }
+
+    [Fact]
+    public void The_threshold_answer_fed_back_into_the_predictor_gives_the_target_at_the_stated_confidence()
+    {
+        // Given a line with 200 held-out errors
+        var errors = SpreadErrors(200, 4);
+        var line = LineWithErrors(0.59, errors);
+
+        // When the highest sugar for 14.0 % at 95 % confidence is asked
+        var t = Planner.HighestSugar(line, 14.0, 0.95);
+
+        // Then the prediction at that sugar plus the 95 % upper error is exactly the target,
+        // and at least 95 % of the held-out errors keep the wine at or under 14.0 there
+        double predicted = line.Predict(t.HighestBrix);
+        Assert.Equal(14.0, predicted + HeldOutErrors.UpperOfSorted(line.SortedErrors, 0.95), 1e-9);
+        Assert.True(errors.Count(e => predicted + e <= 14.0 + 1e-12) / (double)errors.Length >= 0.95);
+        Assert.True(t.HighestBrix < 14.0 / 0.59);
+    }
+
+    [Fact]
+    public void The_EU_convention_threshold_inverts_the_OIV_table()
+    {
+        // Given the EU convention with no errors (central estimate, 50 %)
+        var line = new PlanningLine("*", "eu-convention", SugarCurve.EuConvention, double.NaN, double.NaN, 0, [], "none");
+
+        // When the sugar for 14.13 % is asked at 50 %
+        var t = Planner.HighestSugar(line, 14.13, 0.5);
+
+        // Then it is about 24.0 °Brix (OIV table row: 24.0 °Brix → 237.8 g/L → 14.13 % vol at 16.83 g/L)
+        Assert.Equal(24.0, t.HighestBrix, 0.01);
+        Assert.Equal("central estimate only: no held-out errors are known", t.Note);
+    }
+
+    [Fact]
+    public void A_given_factor_has_no_intervals_and_the_planner_says_why()
+    {
+        // Given a factor typed by the user
+        var model = PlanningModel.FromFactor(0.6);
+
+        // When a 95 % threshold and an estimate are asked
+        var t = Planner.HighestSugar(model.Pooled, 14.0, 0.95);
+        var e = Planner.Estimate(model.Pooled, SugarReading.FromBrix(24));
+
+        // Then the estimate is 14.4 with no interval, and the threshold explains what is missing
+        Assert.Equal(14.4, e.Predicted, 1e-12);
+        Assert.True(double.IsNaN(e.Low80));
+        Assert.True(double.IsNaN(t.HighestBrix));
+        Assert.Equal("no held-out errors are known for this predictor, so no answer at 95 % confidence can be given; use a house-factor file from a review, or ask at 50 % for the central estimate", t.Note);
+    }
+
+    [Fact]
+    public void A_must_already_under_the_target_needs_no_water()
+    {
+        var answer = Planner.WaterAddBack(LineWithErrors(0.6, SpreadErrors(50, 5)), SugarReading.FromBrix(22), 1000, 14.5, null);
+        Assert.Equal(0, answer.WaterL);
+        Assert.Equal(1000, answer.VolumeAfterL);
+        Assert.Equal("the must is already at or below the target sugar: no water is needed", answer.Note);
+    }
+
+    [Fact]
+    public void Too_few_errors_for_the_confidence_asked_give_no_answer_and_the_count_needed()
+    {
+        var t = Planner.HighestSugar(LineWithErrors(0.6, SpreadErrors(10, 6)), 14.0, 0.95);
+        Assert.True(double.IsNaN(t.HighestBrix));
+        Assert.Equal("too few held-out lots (10) for 95 % confidence; at least 19 are needed", t.Note);
+    }
+}
