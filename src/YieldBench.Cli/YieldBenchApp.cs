@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Invocation;
 using System.Reflection;
 
 namespace YieldBench.Cli;
@@ -15,6 +16,12 @@ public static class YieldBenchApp
     {
         var root = new RootCommand(
             "YieldBench: post-harvest review of yeast-strain conversion, house conversion factors, odd lots and fermentation kinetics.");
+        foreach (var option in root.Options.OfType<VersionOption>())
+        {
+            // The built-in action prints the entry assembly's version (a test host's, under test); print ours.
+            option.Action = new PrintVersion(context);
+        }
+
         foreach (var command in AllCommands(context))
         {
             root.Subcommands.Add(command);
@@ -38,6 +45,17 @@ public static class YieldBenchApp
     private static IEnumerable<Command> AllCommands(CliContext context)
     {
         yield return Commands.ReviewCommand.Create(context);
+        yield return Commands.CheckCommand.Create(context);
+        yield return Commands.TemplateCommand.Create(context);
         yield return Commands.PlanCommand.Create(context);
+    }
+
+    private sealed class PrintVersion(CliContext context) : SynchronousCommandLineAction
+    {
+        public override int Invoke(ParseResult parseResult)
+        {
+            context.Out.WriteLine(Version);
+            return ExitCodes.Success;
+        }
     }
 }

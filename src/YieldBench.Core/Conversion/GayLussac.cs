@@ -15,6 +15,15 @@ public static class GayLussac
     /// <summary>Molar mass of carbon dioxide, g/mol.</summary>
     public const double CarbonDioxideMolarMass = 44.009;
 
+    /// <summary>Molar mass of sucrose (C12H22O11), g/mol.</summary>
+    public const double SucroseMolarMass = 342.297;
+
+    /// <summary>
+    /// Grams of hexose (glucose + fructose) formed per gram of sucrose inverted: C12H22O11 + H2O → 2 C6H12O6,
+    /// 2 × 180.156 / 342.297 = 1.0526.
+    /// </summary>
+    public static double HexosePerSucrose => 2 * HexoseMolarMass / SucroseMolarMass;
+
     /// <summary>Grams of ethanol per gram of hexose fermented in theory: 2 × 46.069 / 180.156 = 0.5114.</summary>
     public static double EthanolMassYield => 2 * EthanolMolarMass / HexoseMolarMass;
 

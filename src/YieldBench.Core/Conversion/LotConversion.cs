@@ -3,7 +3,7 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Core.Conversion;
 
 /// <summary>
-/// The conversion measures of one lot (definitions and sources in docs/methods.md, "Conversion factors").
+/// The conversion measures of one lot (definitions and sources in docs/methods-units.md, "The four conversion measures").
 /// </summary>
 public sealed record LotConversion
 {
@@ -16,16 +16,20 @@ public sealed record LotConversion
     /// <summary>True when additions changed the starting sugar.</summary>
     public required bool AdditionsApplied { get; init; }
 
-    /// <summary>Fermentable sugar at the start, g/L, from the sugar model.</summary>
+    /// <summary>Fermentable sugar at the start, g/L: the sugar model at the measured °Brix, corrected for additions by mass balance.</summary>
     public required double StartingSugarGl { get; init; }
 
     /// <summary>Residual sugar used, g/L (0 when not recorded).</summary>
     public required double ResidualSugarGl { get; init; }
 
-    /// <summary>°Brix actually fermented: effective start minus the °Brix-equivalent of residual sugar.</summary>
+    /// <summary>
+    /// °Brix actually fermented: effective start minus the °Brix-equivalent of residual sugar, that equivalent being
+    /// the residual sugar's share of the starting sugar (start °Brix × consumed ÷ starting sugar). NaN when nothing
+    /// was consumed.
+    /// </summary>
     public required double FermentedBrix { get; init; }
 
-    /// <summary>Sugar consumed, g/L.</summary>
+    /// <summary>Sugar consumed, g/L: starting sugar minus residual sugar (negative when residual sugar is the larger).</summary>
     public required double SugarConsumedGl { get; init; }
 
     /// <summary>Final alcohol % v/v ÷ effective starting °Brix.</summary>
@@ -40,7 +44,7 @@ public sealed record LotConversion
     /// <summary>Ethanol formed (g/L) ÷ (0.5114 × sugar consumed g/L): share of the Gay-Lussac theoretical yield.</summary>
     public required double GayLussacEfficiency { get; init; }
 
-    /// <summary>Notes on approximations used for this lot (extrapolated sugar model, uncorrected additions).</summary>
+    /// <summary>Notes on approximations and gaps for this lot (texts in <see cref="ConversionNotes"/>).</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
 
     /// <summary>The value of a measure.</summary>

@@ -1,11 +1,12 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
 
 namespace YieldBench.Core.Review;
 
 /// <summary>
 /// The single, immutable result of a review. Renderers only lay out what this holds; they never compute statistics.
-/// Sections are added here as the analyses that fill them are built.
 /// </summary>
 public sealed record ReviewResult
 {
@@ -17,6 +18,12 @@ public sealed record ReviewResult
 
     /// <summary>Every lot used, with its conversion measures, in input order.</summary>
     public required IReadOnlyList<LotConversion> Lots { get; init; }
+
+    /// <summary>The house-factor candidates, backtests, recommendation and planner table.</summary>
+    public required HouseFactorReview HouseFactor { get; init; }
+
+    /// <summary>Kinetics and heat of the lots that have a fermentation log; null when no log was read.</summary>
+    public KineticsReview? Kinetics { get; init; }
 
     /// <summary>The tool version that produced the review.</summary>
     public required string ToolVersion { get; init; }

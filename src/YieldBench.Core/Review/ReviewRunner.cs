@@ -1,4 +1,6 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
 
 namespace YieldBench.Core.Review;
@@ -6,12 +8,45 @@ namespace YieldBench.Core.Review;
 /// <summary>Runs every analysis on a season set and assembles the <see cref="ReviewResult"/>. Pure: no I/O.</summary>
 public static class ReviewRunner
 {
+    /// <summary>The review stages, in the order they run (progress reporting names them).</summary>
+    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "house factor", "kinetics"];
+
     /// <summary>Runs the review.</summary>
-    public static ReviewResult Run(SeasonSet inputs, ReviewSettings settings, string toolVersion)
+    /// <param name="inputs">What intake produced.</param>
+    /// <param name="settings">Review settings.</param>
+    /// <param name="toolVersion">Version recorded in the outputs.</param>
+    /// <param name="extraCandidates">House-factor candidates from outside Core (the multi-variable model); may be empty.</param>
+    /// <param name="progress">Told the name of each stage as it starts; may be null.</param>
+    public static ReviewResult Run(
+        SeasonSet inputs,
+        ReviewSettings settings,
+        string toolVersion,
+        IReadOnlyList<ICandidateTrainer>? extraCandidates = null,
+        IProgress<string>? progress = null)
     {
         ArgumentNullException.ThrowIfNull(inputs);
         ArgumentNullException.ThrowIfNull(settings);
+        progress?.Report(Stages[0]);
         var lots = inputs.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
-        return new ReviewResult { Inputs = inputs, Settings = settings, Lots = lots, ToolVersion = toolVersion };
+
+        progress?.Report(Stages[1]);
+        var house = HouseFactorAnalysis.Run(lots, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
+
+        KineticsReview? kinetics = null;
+        if (inputs.Logs.Count > 0)
+        {
+            progress?.Report(Stages[2]);
+            kinetics = KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics);
+        }
+
+        return new ReviewResult
+        {
+            Inputs = inputs,
+            Settings = settings,
+            Lots = lots,
+            HouseFactor = house,
+            Kinetics = kinetics,
+            ToolVersion = toolVersion,
+        };
     }
 }

@@ -1,4 +1,6 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Kinetics;
 
 namespace YieldBench.Core.Review;
 
@@ -10,4 +12,10 @@ public sealed record ReviewSettings
 
     /// <summary>How fermentable sugar is obtained from °Brix.</summary>
     public SugarModel SugarModel { get; init; } = SugarModel.Default;
+
+    /// <summary>House-factor candidates, label regime, threshold and planner targets.</summary>
+    public HouseFactorSettings HouseFactor { get; init; } = new();
+
+    /// <summary>Kinetics thresholds (dryness, stalls, temperatures, heat constants).</summary>
+    public KineticsSettings Kinetics { get; init; } = KineticsSettings.Default;
 }

@@ -2,19 +2,33 @@ using System.Globalization;
 
 namespace YieldBench.Core.Units;
 
-/// <summary>Argument checks whose messages name the value, its unit and the allowed range.</summary>
+/// <summary>Range checks whose messages name the value, its unit and the allowed range (the one place for their text).</summary>
 internal static class Check
 {
+    /// <summary>The problem with <paramref name="value"/>, or null when it lies in [min, max].</summary>
+    public static string? Problem(double value, double min, double max, string name, string unit)
+    {
+        string u = unit.Length == 0 ? string.Empty : " " + unit;
+        if (double.IsNaN(value))
+        {
+            return string.Create(CultureInfo.InvariantCulture, $"{name} is not a number; expected {Format(min)} to {Format(max)}{u}.");
+        }
+
+        if (value < min || value > max)
+        {
+            return string.Create(
+                CultureInfo.InvariantCulture,
+                $"{name} {Format(value)}{u} is outside the plausible range {Format(min)} to {Format(max)}{u}.");
+        }
+
+        return null;
+    }
+
     public static double InRange(double value, double min, double max, string name, string unit)
     {
-        if (double.IsNaN(value) || value < min || value > max)
+        if (Problem(value, min, max, name, unit) is { } problem)
         {
-            throw new ArgumentOutOfRangeException(
-                name,
-                value,
-                string.Create(
-                    CultureInfo.InvariantCulture,
-                    $"{name} {Format(value)} {unit} is outside the plausible range {Format(min)} to {Format(max)} {unit}."));
+            throw new ArgumentOutOfRangeException(name, value, problem);
         }
 
         return value;

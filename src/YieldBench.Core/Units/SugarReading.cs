@@ -3,7 +3,7 @@ namespace YieldBench.Core.Units;
 /// <summary>
 /// A must-sugar reading, held internally as °Brix and convertible to every <see cref="SugarScale"/>.
 /// Specific gravity is the apparent SG 20/20 °C (what a hydrometer calibrated at 20 °C reads), related to °Brix by the
-/// closed form fitted to the NBS sucrose table (see docs/methods.md, "Sugar scales").
+/// closed form fitted to the NBS sucrose table (see docs/methods-units.md, "Sugar scales").
 /// </summary>
 public readonly record struct SugarReading : IComparable<SugarReading>
 {
@@ -21,44 +21,85 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     /// <summary>Apparent specific gravity 20/20 °C.</summary>
     public double SpecificGravity => SugarScales.SpecificGravityFromBrix(Brix);
 
+    /// <summary>Density at 20 °C, g/mL, of a sucrose solution with this reading: SG × 0.99820.</summary>
+    public double Density => SugarScales.DensityFromSpecificGravity(SpecificGravity);
+
     /// <summary>°Baumé (modulus 145).</summary>
     public double Baume => SugarScales.BaumeFromSpecificGravity(SpecificGravity);
 
     /// <summary>°Oechsle.</summary>
     public double Oechsle => SugarScales.OechsleFromSpecificGravity(SpecificGravity);
 
-    /// <summary>Fermentable sugar in g/L by the OIV must table (closed form with a non-sugar allowance outside 10–30 °Brix).</summary>
+    /// <summary>Fermentable sugar in g/L by the OIV must table (edge non-sugar allowance outside 10–30 °Brix).</summary>
     public double GramsPerLitre => OivMustTable.SugarGramsPerLitre(Brix);
 
-    /// <summary>Makes a reading from °Brix.</summary>
+    /// <summary>Makes a reading from °Brix (−6 to 50).</summary>
     public static SugarReading FromBrix(double brix) =>
         new(Check.InRange(brix, MinBrix, MaxBrix, "Sugar", "°Brix"));
 
-    /// <summary>Makes a reading from apparent specific gravity 20/20 °C.</summary>
+    /// <summary>
+    /// Lowest specific gravity 20/20 °C accepted: SG at <see cref="MinBrix"/>, rounded inward to 4 decimals (0.9773).
+    /// </summary>
+    public static double MinSpecificGravity { get; } = Math.Ceiling(SugarScales.SpecificGravityFromBrix(MinBrix) * 1e4) / 1e4;
+
+    /// <summary>Highest specific gravity 20/20 °C accepted: SG at <see cref="MaxBrix"/>, rounded inward (1.2318).</summary>
+    public static double MaxSpecificGravity { get; } = Math.Floor(SugarScales.SpecificGravityFromBrix(MaxBrix) * 1e4) / 1e4;
+
+    /// <summary>Lowest °Baumé accepted (the Baumé of <see cref="MinSpecificGravity"/>, rounded inward to 2 decimals).</summary>
+    public static double MinBaume { get; } = Math.Ceiling(SugarScales.BaumeFromSpecificGravity(MinSpecificGravity) * 100) / 100;
+
+    /// <summary>Highest °Baumé accepted (the Baumé of <see cref="MaxSpecificGravity"/>, rounded inward).</summary>
+    public static double MaxBaume { get; } = Math.Floor(SugarScales.BaumeFromSpecificGravity(MaxSpecificGravity) * 100) / 100;
+
+    /// <summary>Lowest °Oechsle accepted (−22.7).</summary>
+    public static double MinOechsle { get; } = Math.Ceiling(SugarScales.OechsleFromSpecificGravity(MinSpecificGravity) * 10) / 10;
+
+    /// <summary>Highest °Oechsle accepted (231.8).</summary>
+    public static double MaxOechsle { get; } = Math.Floor(SugarScales.OechsleFromSpecificGravity(MaxSpecificGravity) * 10) / 10;
+
+    /// <summary>Highest must sugar accepted, g/L: the sugar model at <see cref="MaxBrix"/>, rounded down to 0.1 g/L.</summary>
+    public static double MaxGramsPerLitre { get; } = Math.Floor(OivMustTable.SugarGramsPerLitre(MaxBrix) * 10) / 10;
+
+    /// <summary>Makes a reading from apparent specific gravity 20/20 °C (0.9773–1.2318).</summary>
     public static SugarReading FromSpecificGravity(double specificGravity)
     {
-        Check.InRange(specificGravity, SugarScales.SpecificGravityFromBrix(MinBrix), SugarScales.SpecificGravityFromBrix(MaxBrix), "Specific gravity", "(20/20 °C)");
+        Check.InRange(specificGravity, MinSpecificGravity, MaxSpecificGravity, "Specific gravity (20/20 °C)", string.Empty);
         return new SugarReading(SugarScales.BrixFromSpecificGravity(specificGravity));
+    }
+
+    /// <summary>
+    /// Makes a reading from a density at 20 °C in g/mL (as an oscillating-cell density meter reports it), through
+    /// SG = density ÷ 0.99820 (<see cref="SugarScales.SpecificGravityFromDensity"/>).
+    /// </summary>
+    public static SugarReading FromDensity(double gramsPerMillilitre)
+    {
+        double min = Math.Ceiling(SugarScales.DensityFromSpecificGravity(MinSpecificGravity) * 1e4) / 1e4;
+        double max = Math.Floor(SugarScales.DensityFromSpecificGravity(MaxSpecificGravity) * 1e4) / 1e4;
+        Check.InRange(gramsPerMillilitre, min, max, "Density at 20 °C", "g/mL");
+        return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromDensity(gramsPerMillilitre)));
     }
 
     /// <summary>Makes a reading from °Baumé (modulus 145).</summary>
     public static SugarReading FromBaume(double baume)
     {
-        Check.InRange(baume, SugarScales.BaumeFromSpecificGravity(SugarScales.SpecificGravityFromBrix(MinBrix)), SugarScales.BaumeFromSpecificGravity(SugarScales.SpecificGravityFromBrix(MaxBrix)), "Sugar", "°Baumé");
+        Check.InRange(baume, MinBaume, MaxBaume, "Sugar", "°Baumé");
         return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromBaume(baume)));
     }
 
     /// <summary>Makes a reading from °Oechsle.</summary>
     public static SugarReading FromOechsle(double oechsle)
     {
-        Check.InRange(oechsle, SugarScales.OechsleFromSpecificGravity(SugarScales.SpecificGravityFromBrix(MinBrix)), SugarScales.OechsleFromSpecificGravity(SugarScales.SpecificGravityFromBrix(MaxBrix)), "Sugar", "°Oechsle");
+        Check.InRange(oechsle, MinOechsle, MaxOechsle, "Sugar", "°Oechsle");
         return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(oechsle)));
     }
 
-    /// <summary>Makes a reading from fermentable sugar in g/L (inverse of the OIV must table).</summary>
+    /// <summary>
+    /// Makes a reading from a must's fermentable sugar in g/L (inverse of the OIV must table): the °Brix whose
+    /// sugar is the value. Sugar is 0 up to 2.147 °Brix (non-sugar solids), so 0 g/L reads as 2.147 °Brix.
+    /// </summary>
     public static SugarReading FromGramsPerLitre(double gramsPerLitre)
     {
-        Check.InRange(gramsPerLitre, 0, OivMustTable.SugarGramsPerLitre(MaxBrix), "Sugar", "g/L");
+        Check.InRange(gramsPerLitre, 0, MaxGramsPerLitre, "Sugar", "g/L");
         return new SugarReading(OivMustTable.BrixFromSugarGramsPerLitre(gramsPerLitre));
     }
 
@@ -72,6 +113,25 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         SugarScale.GramsPerLitre => FromGramsPerLitre(value),
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
+
+    /// <summary>
+    /// Makes a reading from a value on the given scale without throwing: false, with <paramref name="problem"/> set to
+    /// the same text the factory would throw, when the value is outside the scale's accepted range.
+    /// </summary>
+    public static bool TryFrom(double value, SugarScale scale, out SugarReading reading, out string? problem)
+    {
+        problem = scale switch
+        {
+            SugarScale.Brix => Check.Problem(value, MinBrix, MaxBrix, "Sugar", "°Brix"),
+            SugarScale.SpecificGravity => Check.Problem(value, MinSpecificGravity, MaxSpecificGravity, "Specific gravity (20/20 °C)", string.Empty),
+            SugarScale.Baume => Check.Problem(value, MinBaume, MaxBaume, "Sugar", "°Baumé"),
+            SugarScale.Oechsle => Check.Problem(value, MinOechsle, MaxOechsle, "Sugar", "°Oechsle"),
+            SugarScale.GramsPerLitre => Check.Problem(value, 0, MaxGramsPerLitre, "Sugar", "g/L"),
+            _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
+        };
+        reading = problem is null ? From(value, scale) : default;
+        return problem is null;
+    }
 
     /// <summary>The reading expressed on the given scale.</summary>
     public double In(SugarScale scale) => scale switch

@@ -1,0 +1,155 @@
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>An explicit mapping of one header to one field (from --column or a mapping file).</summary>
+internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDef? LogField, ColumnUnit Unit, string Header)
+{
+    public bool Matches(string header) =>
+        string.Equals(header.Trim(), Header, StringComparison.OrdinalIgnoreCase)
+        || HeaderText.Normalise(header) == HeaderText.Normalise(Header);
+
+    public FieldDef? For(TableKind kind) => kind == TableKind.Lots ? LotField : LogField;
+
+    /// <summary>Set once a sheet used the rule, so unused rules can be reported.</summary>
+    public bool Used { get; set; }
+}
+
+/// <summary>Explicit column mappings and the synonym indexes the header matcher uses.</summary>
+internal static class ColumnRules
+{
+    public static readonly IReadOnlyDictionary<string, FieldDef> LotIndex = BuildIndex(Fields.Lots);
+
+    public static readonly IReadOnlyDictionary<string, FieldDef> LogIndex = BuildIndex(Fields.Log);
+
+    private static Dictionary<string, FieldDef> BuildIndex(IEnumerable<FieldDef> fields)
+    {
+        var index = new Dictionary<string, FieldDef>(StringComparer.Ordinal);
+        foreach (var f in fields)
+        {
+            // The canonical name itself is always a synonym ("starting_sugar" → "starting sugar").
+            foreach (var s in f.Synonyms.Prepend(f.Name))
+            {
+                index.TryAdd(HeaderText.Normalise(s), f);
+            }
+        }
+
+        return index;
+    }
+
+    /// <summary>Names accepted on the left of a mapping: canonical fields plus unit-bearing aliases.</summary>
+    public static IReadOnlyDictionary<string, (string Field, ColumnUnit Unit)> FieldAliases { get; } = BuildAliases();
+
+    private static Dictionary<string, (string, ColumnUnit)> BuildAliases()
+    {
+        var a = new Dictionary<string, (string, ColumnUnit)>(StringComparer.OrdinalIgnoreCase);
+        foreach (var f in Fields.All)
+        {
+            a.TryAdd(f.Name, (f.Name, ColumnUnit.None));
+            if (f.Kind == FieldKind.Volume && f.Name.EndsWith("_l", StringComparison.Ordinal))
+            {
+                string stem = f.Name[..^2];
+                a.TryAdd(stem + "_hl", (f.Name, ColumnUnit.Hectolitre));
+                a.TryAdd(stem + "_gal", (f.Name, ColumnUnit.UsGallon));
+            }
+            else if (f.Kind == FieldKind.Mass && f.Name.EndsWith("_kg", StringComparison.Ordinal))
+            {
+                string stem = f.Name[..^3];
+                a.TryAdd(stem + "_lb", (f.Name, ColumnUnit.Pound));
+                a.TryAdd(stem + "_g", (f.Name, ColumnUnit.Gram));
+            }
+            else if (f.Kind == FieldKind.Temperature && f.Name.EndsWith("_c", StringComparison.Ordinal))
+            {
+                a.TryAdd(f.Name[..^2] + "_f", (f.Name, ColumnUnit.Fahrenheit));
+            }
+        }
+
+        foreach (var (stem, field) in new[] { ("starting", "starting_sugar"), ("final", "final_sugar"), ("sugar", "sugar") })
+        {
+            a.TryAdd(stem + "_brix", (field, ColumnUnit.Brix));
+            a.TryAdd(stem + "_sg", (field, ColumnUnit.SpecificGravity));
+            a.TryAdd(stem + "_baume", (field, ColumnUnit.Baume));
+            a.TryAdd(stem + "_oechsle", (field, ColumnUnit.Oechsle));
+            a.TryAdd(stem + (stem == "sugar" ? "_gl" : "_sugar_gl"), (field, ColumnUnit.SugarGramsPerLitre));
+        }
+
+        a.TryAdd("final_alcohol_gl", ("final_abv", ColumnUnit.AlcoholGramsPerLitre));
+        return a;
+    }
+
+    /// <summary>Parses "FIELD=HEADER" texts from --column and the mapping file; problems become issues.</summary>
+    public static List<MappingRule> Parse(IntakeOptions options, string? mappingDisplayPath, string? mappingFullPath, IssueSink sink)
+    {
+        var rules = new List<MappingRule>();
+        foreach (var text in options.ColumnMappings)
+        {
+            AddRule(text, "--column", null, sink, rules);
+        }
+
+        if (mappingFullPath is not null && mappingDisplayPath is not null)
+        {
+            if (!File.Exists(mappingFullPath))
+            {
+                sink.Error(mappingDisplayPath, null, null, null, null, "mapping-file-not-found", IntakeMessages.MappingFileNotFound());
+                return rules;
+            }
+
+            using var stream = SourceFiles.OpenShared(mappingFullPath);
+            using var reader = new StreamReader(stream, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
+            int lineNo = 0;
+            while (reader.ReadLine() is { } line)
+            {
+                lineNo++;
+                string content = line;
+                int hash = content.IndexOf('#');
+                if (hash >= 0)
+                {
+                    content = content[..hash];
+                }
+
+                if (content.Trim().Length == 0)
+                {
+                    continue;
+                }
+
+                AddRule(content, mappingDisplayPath, lineNo, sink, rules);
+            }
+        }
+
+        return rules;
+    }
+
+    private static void AddRule(string text, string origin, int? line, IssueSink sink, List<MappingRule> rules)
+    {
+        int eq = text.IndexOf('=');
+        string field = eq > 0 ? text[..eq].Trim() : "";
+        string header = eq > 0 ? text[(eq + 1)..].Trim() : "";
+        if (field.Length == 0 || header.Length == 0)
+        {
+            sink.Error(origin, null, line, null, text.Trim(), "mapping-not-understood", IntakeMessages.MappingLineNotUnderstood());
+            return;
+        }
+
+        if (!FieldAliases.TryGetValue(field, out var alias))
+        {
+            sink.Error(origin, null, line, null, field, "mapping-unknown-field", IntakeMessages.MappingUnknownField(field));
+            return;
+        }
+
+        var lotField = Fields.Lots.FirstOrDefault(f => f.Name == alias.Field);
+        var logField = Fields.Log.FirstOrDefault(f => f.Name == alias.Field);
+        rules.Add(new MappingRule(alias.Field, lotField, logField, alias.Unit, header));
+    }
+
+    /// <summary>Issues for rules no sheet used.</summary>
+    public static void ReportUnused(IEnumerable<MappingRule> rules, IssueSink sink)
+    {
+        foreach (var r in rules.Where(r => !r.Used))
+        {
+            sink.Warning("--column", null, null, r.Header, r.Header, "mapped-header-not-found", IntakeMessages.MappedHeaderNotFound(r.FieldName));
+        }
+    }
+
+    /// <summary>A bad value of a critical field leaves its row out (error); of another field, only the value (warning).</summary>
+    internal static IssueSeverity SeverityOf(FieldDef f) => f.Critical ? IssueSeverity.Error : IssueSeverity.Warning;
+}

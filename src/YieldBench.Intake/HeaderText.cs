@@ -1,0 +1,174 @@
+using System.Text;
+using System.Text.RegularExpressions;
+
+namespace YieldBench.Intake;
+
+/// <summary>Header normalisation and unit detection from header text.</summary>
+internal static partial class HeaderText
+{
+    // Words that only carry a unit; they are dropped before a header is matched against field synonyms.
+    private static readonly HashSet<string> UnitWords =
+    [
+        "pct", "percent", "v", "vol", "l", "hl", "gal", "gals", "gallon", "gallons", "kg", "kgs", "lb", "lbs", "g", "mg",
+        "n", "gl", "mgl", "c", "f", "deg", "degc", "degf", "celsius", "fahrenheit", "in", "litre", "litres", "liter",
+        "liters", "lt", "ltr", "hectolitre", "hectolitres", "hectoliter", "hectoliters", "kilogram", "kilograms", "grams",
+        "pounds", "w", "ml", "per", "units", "unit", "u s", "us",
+    ];
+
+    /// <summary>Lower case, accents folded, '%' kept as the word "pct", everything else not a letter or digit a space.</summary>
+    public static string Normalise(string text)
+    {
+        var sb = new StringBuilder(text.Length + 8);
+        foreach (char raw in text.Trim())
+        {
+            char c = char.ToLowerInvariant(raw);
+            string? folded = c switch
+            {
+                'é' or 'è' or 'ê' or 'ë' => "e",
+                'á' or 'à' or 'â' or 'ä' or 'å' or 'ã' => "a",
+                'ó' or 'ò' or 'ô' or 'ö' or 'õ' or 'ø' => "o",
+                'ú' or 'ù' or 'û' or 'ü' => "u",
+                'í' or 'ì' or 'î' or 'ï' => "i",
+                'ñ' => "n",
+                'ç' => "c",
+                'ß' => "ss",
+                '%' => " pct ",
+                '₂' => "2",
+                _ => null,
+            };
+            if (folded is not null)
+            {
+                sb.Append(folded);
+            }
+            else if (c is (>= 'a' and <= 'z') or (>= '0' and <= '9'))
+            {
+                sb.Append(c);
+            }
+            else
+            {
+                sb.Append(' ');
+            }
+        }
+
+        return CollapseSpaces(sb.ToString());
+    }
+
+    /// <summary>
+    /// The header reduced to the words that name the field: bracketed text and unit words removed. When nothing is
+    /// left (a header that is only a unit, such as "% v/v"), the full normalised text is returned.
+    /// </summary>
+    public static string FieldKey(string header)
+    {
+        string withoutBrackets = Brackets().Replace(header, " ");
+        string norm = Normalise(withoutBrackets);
+        var words = norm.Split(' ', StringSplitOptions.RemoveEmptyEntries).Where(w => !UnitWords.Contains(w)).ToArray();
+        string key = string.Join(' ', words);
+        return key.Length > 0 ? key : Normalise(header);
+    }
+
+    /// <summary>The unit a header states for a field of the given kind, or <see cref="ColumnUnit.None"/>.</summary>
+    public static ColumnUnit UnitFromHeader(string header, FieldKind kind)
+    {
+        string norm = " " + Normalise(header) + " ";
+        bool Has(string w) => norm.Contains(" " + w + " ", StringComparison.Ordinal);
+        bool degreeLetter(char letter) => DegreeLetter().Matches(header).Any(m => char.ToLowerInvariant(m.Groups[1].Value[0]) == letter);
+
+        switch (kind)
+        {
+            case FieldKind.Sugar:
+                if (Has("brix") || Has("bx"))
+                {
+                    return ColumnUnit.Brix;
+                }
+
+                if (Has("oechsle") || Has("oe"))
+                {
+                    return ColumnUnit.Oechsle;
+                }
+
+                if (Has("baume") || Has("be") || Has("bau"))
+                {
+                    return ColumnUnit.Baume;
+                }
+
+                if (Has("sg") || Has("specific gravity") || Has("gravity") || Has("density") || Has("fg"))
+                {
+                    return ColumnUnit.SpecificGravity;
+                }
+
+                return Has("g l") || Has("gl") || Has("gpl") ? ColumnUnit.SugarGramsPerLitre : ColumnUnit.None;
+            case FieldKind.Alcohol:
+                if (Has("g l") || Has("gl"))
+                {
+                    return ColumnUnit.AlcoholGramsPerLitre;
+                }
+
+                return Has("pct") || Has("abv") || Has("v v") || Has("vol") ? ColumnUnit.PercentVolume : ColumnUnit.None;
+            case FieldKind.Temperature:
+                if (Has("f") || Has("degf") || Has("fahrenheit") || degreeLetter('f'))
+                {
+                    return ColumnUnit.Fahrenheit;
+                }
+
+                return Has("c") || Has("degc") || Has("celsius") || degreeLetter('c') ? ColumnUnit.Celsius : ColumnUnit.None;
+            case FieldKind.Volume:
+                if (Has("hl") || Has("hectolitre") || Has("hectolitres") || Has("hectoliter") || Has("hectoliters"))
+                {
+                    return ColumnUnit.Hectolitre;
+                }
+
+                if (Has("gal") || Has("gals") || Has("gallon") || Has("gallons"))
+                {
+                    return ColumnUnit.UsGallon;
+                }
+
+                return Has("l") || Has("litre") || Has("litres") || Has("liter") || Has("liters") || Has("lt") || Has("ltr")
+                    ? ColumnUnit.Litre
+                    : ColumnUnit.None;
+            case FieldKind.Mass:
+                if (Has("kg") || Has("kgs") || Has("kilogram") || Has("kilograms"))
+                {
+                    return ColumnUnit.Kilogram;
+                }
+
+                if (Has("lb") || Has("lbs") || Has("pound") || Has("pounds"))
+                {
+                    return ColumnUnit.Pound;
+                }
+
+                return Has("g") || Has("grams") ? ColumnUnit.Gram : ColumnUnit.None;
+            default:
+                return ColumnUnit.None;
+        }
+    }
+
+    private static string CollapseSpaces(string s)
+    {
+        var sb = new StringBuilder(s.Length);
+        bool space = false;
+        foreach (char c in s)
+        {
+            if (c == ' ')
+            {
+                space = sb.Length > 0;
+                continue;
+            }
+
+            if (space)
+            {
+                sb.Append(' ');
+                space = false;
+            }
+
+            sb.Append(c);
+        }
+
+        return sb.ToString();
+    }
+
+    [GeneratedRegex(@"\([^)]*\)|\[[^\]]*\]|\{[^}]*\}")]
+    private static partial Regex Brackets();
+
+    [GeneratedRegex(@"°\s*([A-Za-z])")]
+    private static partial Regex DegreeLetter();
+}

@@ -1,0 +1,162 @@
+using System.Globalization;
+
+namespace YieldBench.Intake;
+
+/// <summary>
+/// Every message intake shows, in one place. Each says what is wrong and what would fix it; tests assert them
+/// word for word. Codes are listed with their meaning in docs/input-format.md ("Issue codes").
+/// </summary>
+public static class IntakeMessages
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Formats a number for a message: up to 4 decimals, invariant culture.</summary>
+    public static string Num(double v) => v.ToString("0.####", Inv);
+
+    internal static string FileNotFound() => "The file or folder was not found. Check the path.";
+
+    internal static string UnsupportedFileType(string extension) =>
+        $"Files ending in '{extension}' are not read. Save the sheet as .xlsx, .xls or .csv.";
+
+    internal static string FolderEmpty() => "The folder holds no .xlsx, .xls or .csv file; nothing was read from it.";
+
+    internal static string LockFileSkipped() =>
+        "This is a spreadsheet program's lock file (its name starts with '~$'), not data; it was skipped.";
+
+    internal static string EmptyFile() => "The file is empty (0 bytes). Export the sheet again.";
+
+    internal static string FileTooLarge(long bytes, long limit) =>
+        $"The file is {bytes.ToString(Inv)} bytes, above the limit of {limit.ToString(Inv)} bytes. Split it (for example one file per season).";
+
+    internal static string CannotOpen(string reason) =>
+        $"The file could not be opened ({reason}). Close any program that locks it and check the permissions.";
+
+    internal static string NotAZip(string extension) =>
+        $"The file is not a readable {extension} workbook (its zip structure is missing or damaged). Open it in a spreadsheet program and save it again as .xlsx.";
+
+    internal static string PasswordProtected() =>
+        "The workbook is protected by a password, so it cannot be read. Save a copy without the password and give that.";
+
+    internal static string ZipBomb(long uncompressed, long compressed, double limit) =>
+        $"The workbook would expand from {compressed.ToString(Inv)} to {uncompressed.ToString(Inv)} bytes, {Num(Math.Round((double)uncompressed / Math.Max(1, compressed), 1))} times its size, out of proportion for a spreadsheet (limit {Num(limit)} times); it was not opened. Save the data again from the spreadsheet program.";
+
+    internal static string TooBigUncompressed(long uncompressed, long limit) =>
+        $"The workbook would expand to {uncompressed.ToString(Inv)} bytes, above the limit of {limit.ToString(Inv)} bytes; it was not opened. Split it into smaller workbooks.";
+
+    internal static string CorruptWorkbook(string reason) =>
+        $"The workbook could not be read ({reason}). Open it in a spreadsheet program and save it again as .xlsx.";
+
+    internal static string BinaryCsv(long offset) =>
+        $"The file is named .csv but holds binary data (a zero byte at offset {offset.ToString(Inv)}), not text. Export the sheet as CSV again, or give the workbook itself.";
+
+    internal static string EncodingAssumed() =>
+        "The file is not valid UTF-8; it was read as Windows-1252. If letters look wrong, save it again as UTF-8 CSV.";
+
+    internal static string NoTableInFile(int rowsSearched) =>
+        $"No header row naming lot or log columns was found (searched the first {rowsSearched.ToString(Inv)} rows of every sheet). Add a header row such as the one in 'yieldbench template', or map your headers with --column FIELD=HEADER.";
+
+    internal static string SheetSkipped(int rowsSearched) =>
+        $"No header row naming lot or log columns was found in the first {rowsSearched.ToString(Inv)} rows; the sheet was not read. If it holds lots or readings, map its headers with --column FIELD=HEADER.";
+
+    internal static string TooManyRows(int limit) =>
+        $"The sheet has more than {limit.ToString(Inv)} rows, the limit; it was not read. Split it (for example one sheet per season).";
+
+    internal static string MissingColumn(string field, IReadOnlyList<string> examples) =>
+        $"The sheet has no column for {field}, which is required; none of its rows could be used. Add a column headed for example {string.Join(", ", examples.Select(e => "'" + e + "'"))}, or map one with --column {field}=HEADER.";
+
+    internal static string MissingTimeColumn() =>
+        "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";
+
+    internal static string ColumnNotUsed() =>
+        "The column matches no field and was not read. If it holds one, map it with --column FIELD=HEADER (fields are listed in docs/input-format.md).";
+
+    internal static string DuplicateColumn(string field, string first) =>
+        $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
+
+    internal static string UnitAssumed(string unit, string example) =>
+        $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string UnitFromValues(string unit, double low, double high, string example) =>
+        $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string ColumnInFahrenheit(double low, double high) =>
+        $"The header says °C but the values ({Num(low)} to {Num(high)}) look like °F; they were converted from °F. Correct the header or the values.";
+
+    internal static string NoSeason() =>
+        "No season for this row: no season value, no four-digit year in the sheet or file name, and no --season. Add a season column, put the year in the sheet or file name, or pass --season YEAR.";
+
+    internal static string MappingFileNotFound() => "The mapping file was not found. Check the path given to --mapping.";
+
+    internal static string MappingLineNotUnderstood() =>
+        "The line is not of the form FIELD = HEADER. Write one mapping a line, e.g. 'strain = Levure'; '#' starts a comment.";
+
+    internal static string MappingUnknownField(string field) =>
+        $"'{field}' is not a field name. Use one of the fields listed in docs/input-format.md, e.g. lot_id, strain, starting_sugar, final_abv.";
+
+    internal static string MappedHeaderNotFound(string field) =>
+        $"No sheet has this header, so the mapping to {field} was not used. Check the spelling against the file's header row.";
+
+    internal static string MissingValue(string field) => $"{field} is empty; it is required, so the row was left out. Fill it in.";
+
+    internal static string NotANumber(string field) =>
+        $"{field} is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).";
+
+    internal static string AmbiguousNumber(string field, string asThousands, string asDecimal) =>
+        $"{field} could be {asThousands} (comma as thousands separator) or {asDecimal} (decimal comma). Write it without a thousands separator.";
+
+    internal static string OutOfRange(string field, string shown, double min, double max, string unit) =>
+        $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)}{(unit.Length > 0 ? " " + unit : "")}. Check the value and its unit.";
+
+    internal static string NotPositive(string field, string shown) =>
+        $"{field} {shown} is not above zero. Enter the volume or capacity in the header's unit, or leave it empty.";
+
+    internal static string Negative(string field, string shown) =>
+        $"{field} {shown} is below zero. Enter 0 or leave it empty when nothing was added.";
+
+    internal static string UnitDiffersInColumn(string field, string valueUnit, string columnUnit) =>
+        $"{field} looks like {valueUnit} while the column holds {columnUnit}. Convert it to {columnUnit}, or move such values to a column of their own.";
+
+    internal static string FahrenheitInCelsiusColumn(string field, double celsiusIfFahrenheit) =>
+        $"{field} is too hot for °C but would be {Num(Math.Round(celsiusIfFahrenheit, 1))} °C if it were °F. Enter it in °C.";
+
+    internal static string ErrorCell(string field) =>
+        $"{field} holds a spreadsheet error (a formula that failed). Fix the formula or type the value.";
+
+    internal static string NotADate(string field) =>
+        $"{field} is not a date. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+
+    internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>
+        $"{field} could be {dayFirst} (day first) or {monthFirst} (month first), and no other date in the column settles the order. Write it as year-month-day.";
+
+    internal static string NotATime(string field) => $"{field} is not a time of day. Write it as 14:30 (24-hour clock).";
+
+    internal static string UnknownColour(string field) =>
+        $"{field} is not a colour read here (red, white, rosé). Use one of those words.";
+
+    internal static string NotAYear(string field) =>
+        $"{field} is not a year. Enter the four-digit vintage year, e.g. 2024.";
+
+    internal static string DuplicateLot(string lotId, int season, string firstAt) =>
+        $"Lot '{lotId}' of season {season.ToString(Inv)} was already read at {firstAt}; this row was left out. Give each lot its own id, or delete the repeated row.";
+
+    internal static string SummaryRow() =>
+        "The row looks like a summary (average, total…), not a lot; it was skipped.";
+
+    internal static string NoReading() =>
+        "The row has neither a sugar nor a temperature reading, so it was left out. Fill one in, or delete the row.";
+
+    internal static string MissingTimestamp() =>
+        "The row has no date or timestamp, so it was left out. Fill in when the reading was taken.";
+
+    internal static string BadCsvRow(string detail) =>
+        $"The row could not be split into fields ({detail}). Fix the quote marks in the row.";
+
+    internal static string LogWithoutLot(string lotId, string season) =>
+        $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
+
+    internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
+        $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? ", …" : "")}. Kinetics is shown only for lots with a log.";
+
+    /// <summary>Text appended to an issue about an optional value that was left empty while the row was used.</summary>
+    internal const string LeftEmpty = " The value was left empty; the rest of the row was used.";
+}

@@ -1,0 +1,213 @@
+using System.Security.Cryptography;
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>
+/// Reads seasons of lots and fermentation logs from .xlsx, .xls and .csv files and folders. Never throws for bad
+/// input: every problem becomes an <see cref="IntakeIssue"/> naming file, sheet, row, column and value, and every row
+/// read is accounted for (<see cref="SourceAccount"/>).
+/// </summary>
+public static class IntakeReader
+{
+    /// <summary>File name endings read from a folder and accepted as inputs.</summary>
+    public static IReadOnlyList<string> Extensions { get; } = [".xlsx", ".xlsm", ".xls", ".csv"];
+
+    /// <summary>
+    /// Reads every input. <paramref name="paths"/> are files or folders (a folder means its .xlsx, .xlsm, .xls and .csv
+    /// files, not its subfolders, in ordinal name order). Results are in input order and do not depend on the clock.
+    /// </summary>
+    /// <param name="paths">Input files and folders, absolute or relative to <see cref="IntakeOptions.WorkingDirectory"/>.</param>
+    /// <param name="options">Mappings, season fallback and limits.</param>
+    /// <returns>Lots, logs, issues, accounting, file hashes and header mappings.</returns>
+    public static SeasonSet Read(IReadOnlyList<string> paths, IntakeOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(paths);
+        ArgumentNullException.ThrowIfNull(options);
+        var sink = new IssueSink();
+        string root = options.WorkingDirectory ?? Environment.CurrentDirectory;
+        string? mappingFull = options.MappingFile is null ? null : Path.GetFullPath(options.MappingFile, root);
+        var rules = ColumnRules.Parse(options, options.MappingFile, mappingFull, sink);
+        var run = new IntakeRun(options, rules, sink);
+        var files = new List<InputFile>();
+
+        foreach (var (display, full) in Expand(paths, root, sink))
+        {
+            ReadFile(run, display, full, files);
+        }
+
+        ColumnRules.ReportUnused(rules, sink);
+        var logs = JoinLogs(run);
+        return new SeasonSet
+        {
+            Lots = run.Lots,
+            Logs = logs,
+            Issues = sink.Issues.ToArray(),
+            Accounts = run.Accounts,
+            Files = files,
+            Mappings = run.Mappings,
+        };
+    }
+
+    private static IEnumerable<(string Display, string Full)> Expand(IReadOnlyList<string> paths, string root, IssueSink sink)
+    {
+        foreach (var p in paths)
+        {
+            string full = Path.GetFullPath(p, root);
+            if (Directory.Exists(full))
+            {
+                var inFolder = Directory.EnumerateFiles(full)
+                    .Where(f => Extensions.Contains(Path.GetExtension(f).ToLowerInvariant()))
+                    .Order(StringComparer.Ordinal)
+                    .ToList();
+                if (inFolder.Count == 0)
+                {
+                    sink.Warning(p, null, null, null, null, "folder-empty", IntakeMessages.FolderEmpty());
+                }
+
+                foreach (var f in inFolder)
+                {
+                    string display = Path.Combine(p, Path.GetFileName(f));
+                    if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
+                    {
+                        sink.Warning(display, null, null, null, null, "lock-file-skipped", IntakeMessages.LockFileSkipped());
+                        continue;
+                    }
+
+                    yield return (display, f);
+                }
+            }
+            else if (File.Exists(full))
+            {
+                yield return (p, full);
+            }
+            else
+            {
+                sink.Error(p, null, null, null, null, "file-not-found", IntakeMessages.FileNotFound());
+            }
+        }
+    }
+
+    private static void ReadFile(IntakeRun run, string file, string full, List<InputFile> files)
+    {
+        var sink = run.Sink;
+        string ext = Path.GetExtension(full).ToLowerInvariant();
+        if (!Extensions.Contains(ext) && ext is not ".txt" and not ".tsv")
+        {
+            sink.Error(file, null, null, null, null, "unsupported-file-type", IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
+            run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
+            return;
+        }
+
+        RawFile raw;
+        try
+        {
+            files.Add(Hash(file, full));
+            raw = SourceFiles.Read(file, full, run.Options, sink);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(ex.Message.TrimEnd('.')));
+            run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
+            return;
+        }
+
+        if (raw.Refused)
+        {
+            run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
+            return;
+        }
+
+        var notTables = new List<RawSheet>();
+        bool anyTable = false;
+        foreach (var sheet in raw.Sheets)
+        {
+            switch (TableReader.ReadSheet(run, file, full, sheet))
+            {
+                case TableReader.Outcome.Read:
+                    anyTable = true;
+                    break;
+                case TableReader.Outcome.NoTable:
+                    notTables.Add(sheet);
+                    break;
+                default:
+                    run.Accounts.Add(new SourceAccount(file, sheet.Name, "empty", 0, 0, 0, 0, 0, 0));
+                    break;
+            }
+        }
+
+        if (!anyTable)
+        {
+            sink.Error(file, null, null, null, null, "no-table-found", IntakeMessages.NoTableInFile(TableReader.HeaderSearchRows));
+        }
+        else
+        {
+            foreach (var sheet in notTables)
+            {
+                sink.Warning(file, sheet.Name, null, null, null, "sheet-skipped", IntakeMessages.SheetSkipped(TableReader.HeaderSearchRows));
+            }
+        }
+
+        foreach (var sheet in notTables)
+        {
+            run.Accounts.Add(new SourceAccount(file, sheet.Name, "not read", 0, 0, 0, 0, 0, 0));
+        }
+    }
+
+    private static InputFile Hash(string display, string full)
+    {
+        using var stream = SourceFiles.OpenShared(full);
+        byte[] hash = SHA256.HashData(stream);
+        return new InputFile(display, Convert.ToHexStringLower(hash), stream.Length);
+    }
+
+    private static List<FermentationLog> JoinLogs(IntakeRun run)
+    {
+        var logs = new List<FermentationLog>();
+        var index = new Dictionary<(string, int?), List<LogReading>>();
+        foreach (var (lotId, season, reading) in run.Readings)
+        {
+            if (!index.TryGetValue((lotId, season), out var list))
+            {
+                index[(lotId, season)] = list = [];
+                logs.Add(new FermentationLog(lotId, season, list));
+            }
+
+            list.Add(reading);
+        }
+
+        if (logs.Count == 0)
+        {
+            return logs;
+        }
+
+        var lotKeys = run.Lots.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
+        var lotIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        var withLog = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var log in logs)
+        {
+            bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
+            var first = log.Readings[0].Source!;
+            if (!matched)
+            {
+                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, "log-without-lot",
+                    IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
+                continue;
+            }
+
+            foreach (var lot in run.Lots.Where(l => l.LotId == log.LotId && (log.Season is null || l.Season == log.Season)))
+            {
+                withLog.Add(lot.Key);
+            }
+        }
+
+        foreach (var group in run.Lots.Where(l => !withLog.Contains(l.Key)).GroupBy(l => l.Season).OrderBy(g => g.Key))
+        {
+            var ids = group.Select(l => l.LotId).ToList();
+            var src = group.First().Source!;
+            run.Sink.Warning(src.File, src.Sheet, null, null, null, "lots-without-log", IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
+        }
+
+        return logs;
+    }
+}

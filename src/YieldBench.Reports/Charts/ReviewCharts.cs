@@ -1,0 +1,316 @@
+using ScottPlot;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Review;
+using YieldBench.Core.Statistics;
+using YieldBench.Reports.Tables;
+
+namespace YieldBench.Reports.Charts;
+
+/// <summary>
+/// The review's PNG charts. Each builder lays out numbers the review holds; box hinges and per-season medians use
+/// Core's type-7 quantile so the boxes match the sheets' quartiles.
+/// </summary>
+public static class ReviewCharts
+{
+    /// <summary>File names under charts/, in the order they are drawn and placed.</summary>
+    public static class Files
+    {
+        /// <summary>Alcohol vs starting sugar.</summary>
+        public const string AlcoholVsSugar = "alcohol-vs-sugar.png";
+
+        /// <summary>Conversion factor by strain.</summary>
+        public const string FactorByStrain = "factor-by-strain.png";
+
+        /// <summary>Conversion factor by season, per strain.</summary>
+        public const string FactorBySeason = "factor-by-season.png";
+
+        /// <summary>Backtest error per candidate.</summary>
+        public const string BacktestError = "backtest-error.png";
+
+        /// <summary>Histogram of factors.</summary>
+        public const string FactorHistogram = "factor-histogram.png";
+    }
+
+    /// <summary>Draws every review chart into <paramref name="folder"/> and returns them in placement order.</summary>
+    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var files = new List<ChartFile>();
+        if (review.Lots.Count == 0)
+        {
+            return files;
+        }
+
+        files.Add(ChartImage.Save(AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true));
+        files.Add(ChartImage.Save(FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"));
+        files.Add(ChartImage.Save(FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"));
+        if (review.HouseFactor.Candidates.Count > 0)
+        {
+            files.Add(ChartImage.Save(BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
+        }
+
+        files.Add(ChartImage.Save(FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
+        return files;
+    }
+
+    /// <summary>Strains in a stable order: most lots first, then code.</summary>
+    public static IReadOnlyList<string> StrainOrder(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        return review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
+            .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
+    }
+
+    /// <summary>
+    /// Final alcohol against starting sugar: points by strain, each strain's fitted line, and the recommended
+    /// predictor with the label regime's tolerance band.
+    /// </summary>
+    public static Plot AlcoholVsSugar(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var plot = ChartStyle.NewPlot("Final alcohol vs starting sugar", "Starting sugar after additions (°Brix)", "Final alcohol (% v/v)");
+        var strains = StrainOrder(review);
+        double xMin = review.Lots.Min(l => l.EffectiveStartingBrix), xMax = review.Lots.Max(l => l.EffectiveStartingBrix);
+        double[] grid = Enumerable.Range(0, 41).Select(i => xMin + ((xMax - xMin) * i / 40.0)).ToArray();
+
+        var planning = review.HouseFactor.Planning;
+        if (planning is not null)
+        {
+            var line = planning.Pooled;
+            var regime = review.HouseFactor.Regime;
+            double[] predicted = grid.Select(line.Predict).ToArray();
+            var upper = grid.Select((x, i) => new Coordinates(x, predicted[i] + regime.ToleranceFor(predicted[i])));
+            var lower = grid.Select((x, i) => new Coordinates(x, predicted[i] - regime.ToleranceFor(predicted[i]))).Reverse();
+            var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
+            band.FillColor = ChartPalette.Band.WithAlpha(0.25);
+            band.LineWidth = 0;
+            band.LegendText = $"label tolerance: {regime.Name}";
+            var rec = plot.Add.ScatterLine(grid, predicted, ChartPalette.Reference);
+            rec.LineWidth = 3;
+            rec.LinePattern = LinePattern.Dashed;
+            rec.LegendText = "planner line (all lots): " + CandidateName(review, line.CandidateId);
+        }
+
+        var fitted = StrainLinesForChart(review);
+        for (int i = 0; i < strains.Count; i++)
+        {
+            var members = review.Lots.Where(l => l.Lot.Strain == strains[i]).ToArray();
+            var color = ChartPalette.ForIndex(i);
+            var points = plot.Add.Markers(
+                members.Select(m => m.EffectiveStartingBrix).ToArray(),
+                members.Select(m => m.Lot.FinalAlcohol.PercentVolume).ToArray(),
+                MarkerShape.FilledCircle,
+                9,
+                color);
+            points.LegendText = $"{strains[i]} ({members.Length})";
+            if (fitted?.Strains.FirstOrDefault(s => s.Strain == strains[i]) is { } sl)
+            {
+                double lo = members.Min(m => m.EffectiveStartingBrix), hi = members.Max(m => m.EffectiveStartingBrix);
+                var fit = plot.Add.ScatterLine(new[] { lo, hi }, new[] { sl.At(lo), sl.At(hi) }, color);
+                fit.LineWidth = 2;
+            }
+        }
+
+        MarkFlagged(plot, review, review.Lots, l => l.EffectiveStartingBrix, l => l.Lot.FinalAlcohol.PercentVolume);
+        ChartStyle.ShowLegend(plot, Alignment.UpperLeft);
+        return plot;
+    }
+
+    /// <summary>abv_per_brix by strain: a box (quartiles, whiskers to the farthest lots within 1.5 IQR) and every lot.</summary>
+    public static Plot FactorByStrain(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
+        var strains = StrainOrder(review);
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        var pointXs = new Dictionary<LotConversion, double>();
+        for (int i = 0; i < strains.Count; i++)
+        {
+            var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();
+            ticks.AddMajor(i, $"{strains[i]}\n{members.Length} lots");
+            if (members.Length == 0)
+            {
+                continue;
+            }
+
+            var sorted = Descriptive.ToSortedArray(members.Select(m => m.AbvPerBrix));
+            double q1 = Descriptive.QuantileOfSorted(sorted, 0.25), q3 = Descriptive.QuantileOfSorted(sorted, 0.75);
+            double iqr = q3 - q1;
+            var color = ChartPalette.ForIndex(i);
+            var box = new Box
+            {
+                Position = i,
+                BoxMin = q1,
+                BoxMax = q3,
+                BoxMiddle = Descriptive.MedianOfSorted(sorted),
+                WhiskerMin = sorted.Where(v => v >= q1 - (1.5 * iqr)).Min(),
+                WhiskerMax = sorted.Where(v => v <= q3 + (1.5 * iqr)).Max(),
+                Width = 0.5,
+            };
+            box.FillColor = color.WithAlpha(0.30);
+            box.LineColor = color;
+            box.LineWidth = 2;
+            plot.Add.Box(box);
+
+            // Points spread sideways by rank (deterministic, no random jitter) so equal values stay visible.
+            var xs = members.Select((m, k) => i + 0.3 + (0.15 * ((k % 7) - 3) / 3.0)).ToArray();
+            for (int k = 0; k < members.Length; k++)
+            {
+                pointXs[members[k]] = xs[k];
+            }
+
+            plot.Add.Markers(xs, members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.FilledCircle, 7, color);
+        }
+
+        MarkFlagged(plot, review, pointXs.Keys.ToArray(), l => pointXs[l], l => l.AbvPerBrix);
+        plot.Axes.Bottom.TickGenerator = ticks;
+        plot.Axes.Bottom.MajorTickStyle.Length = 0;
+        plot.Axes.SetLimitsX(-0.7, strains.Count - 0.2);
+        return plot;
+    }
+
+    /// <summary>Median abv_per_brix per season for each strain, with every lot behind it.</summary>
+    public static Plot FactorBySeason(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var plot = ChartStyle.NewPlot("Conversion factor by season, per strain", "Season", "Alcohol per °Brix (% v/v per °Brix)");
+        var strains = StrainOrder(review);
+        var seasons = review.Lots.Select(l => l.Lot.Season).Distinct().Order().ToArray();
+        for (int i = 0; i < strains.Count; i++)
+        {
+            var color = ChartPalette.ForIndex(i);
+            double offset = (i - ((strains.Count - 1) / 2.0)) * 0.08;
+            var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();
+            var faint = plot.Add.Markers(
+                members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
+            faint.LegendText = string.Empty;
+            var medians = seasons
+                .Select(s => (Season: s, Values: members.Where(m => m.Lot.Season == s).Select(m => m.AbvPerBrix).ToArray()))
+                .Where(x => x.Values.Length > 0)
+                .Select(x => (x.Season, Median: Descriptive.Median(x.Values)))
+                .ToArray();
+            var line = plot.Add.Scatter(medians.Select(m => m.Season + offset).ToArray(), medians.Select(m => m.Median).ToArray(), color);
+            line.LineWidth = 3;
+            line.MarkerSize = 14;
+            line.MarkerShape = MarkerShape.FilledSquare;
+            line.LegendText = strains[i] + " median";
+        }
+
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        foreach (int s in seasons)
+        {
+            ticks.AddMajor(s, s.ToString(System.Globalization.CultureInfo.InvariantCulture));
+        }
+
+        plot.Axes.Bottom.TickGenerator = ticks;
+        plot.Axes.SetLimitsX(seasons[0] - 0.6, seasons[^1] + 0.6);
+        ChartStyle.ShowLegend(plot, Alignment.UpperRight);
+        return plot;
+    }
+
+    /// <summary>Each candidate's mean absolute error on the primary backtest, ±1 standard error, with the one-SE limit.</summary>
+    public static Plot BacktestError(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var h = review.HouseFactor;
+        var plot = ChartStyle.NewPlot(
+            "Backtest error per candidate (" + ReviewTables.SchemeName(h.PrimaryScheme) + ")", "Mean absolute error, ±1 standard error (% v/v)", string.Empty);
+        var candidates = h.Candidates.ToArray();
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        string? chosen = h.Overall?.CandidateId;
+        for (int i = 0; i < candidates.Length; i++)
+        {
+            var c = candidates[i];
+            var m = c.Primary;
+            double y = candidates.Length - 1 - i;
+            ticks.AddMajor(y, c.Name);
+            if (!double.IsFinite(m.Mae))
+            {
+                continue;
+            }
+
+            var color = c.Id == chosen ? ChartPalette.ForIndex(5) : ChartPalette.ForIndex(0);
+            var bar = plot.Add.Bars(new[] { new Bar { Position = y, Value = m.Mae, FillColor = color.WithAlpha(0.8), LineWidth = 0, Orientation = Orientation.Horizontal, Size = 0.6 } });
+            bar.Horizontal = true;
+            if (double.IsFinite(m.MaeStandardError))
+            {
+                var err = plot.Add.ErrorBar(new[] { m.Mae }, new[] { y }, new[] { 0.0 });
+                err.XErrorPositive = new[] { m.MaeStandardError };
+                err.XErrorNegative = new[] { m.MaeStandardError };
+                err.YErrorPositive = new[] { 0.0 };
+                err.YErrorNegative = new[] { 0.0 };
+                err.LineWidth = 3;
+                err.CapSize = 10;
+                err.Color = ChartPalette.Reference;
+            }
+        }
+
+        if (h.Overall is { } rec && double.IsFinite(rec.MaeLimit))
+        {
+            var limit = plot.Add.VerticalLine(rec.MaeLimit, 2, ChartPalette.Reference, LinePattern.Dashed);
+            limit.LegendText = "best + 1 standard error (recommended candidate in vermillion)";
+            ChartStyle.ShowLegend(plot, Alignment.LowerRight);
+        }
+
+        plot.Axes.Left.TickGenerator = ticks;
+        plot.Axes.Left.MajorTickStyle.Length = 0;
+        plot.Axes.SetLimitsX(0, Math.Max(0.1, candidates.Select(c => c.Primary.Mae + (double.IsFinite(c.Primary.MaeStandardError) ? c.Primary.MaeStandardError : 0)).Where(double.IsFinite).DefaultIfEmpty(1).Max() * 1.15));
+        return plot;
+    }
+
+    /// <summary>Histogram of abv_per_brix over all lots, with the pooled median marked.</summary>
+    public static Plot FactorHistogram(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var plot = ChartStyle.NewPlot("Histogram of conversion factors", "Alcohol per °Brix (% v/v per °Brix)", "Lots");
+        var values = review.Lots.Select(l => l.AbvPerBrix).Where(double.IsFinite).ToArray();
+        if (values.Length == 0)
+        {
+            return plot;
+        }
+
+        // Bins of 0.005 % v/v per °Brix: fine enough to show a shoulder, coarse enough for a few dozen lots per season.
+        const double binWidth = 0.005;
+        double lo = Math.Floor(values.Min() / binWidth) * binWidth, hi = (Math.Floor(values.Max() / binWidth) + 1) * binWidth;
+        var hist = ScottPlot.Statistics.Histogram.WithBinSize(binWidth, lo, hi);
+        hist.AddRange(values);
+        var bars = plot.Add.Histogram(hist, ChartPalette.ForIndex(0).WithAlpha(0.8));
+        bars.BarWidthFraction = 0.9;
+        double median = Descriptive.Median(values);
+        var line = plot.Add.VerticalLine(median, 3, ChartPalette.Reference, LinePattern.Dashed);
+        line.LegendText = "median of all lots " + median.ToString("0.000", System.Globalization.CultureInfo.InvariantCulture);
+        ChartStyle.ShowLegend(plot, Alignment.UpperRight);
+        plot.Axes.SetLimitsX(lo - binWidth, hi + binWidth);
+        plot.Axes.SetLimitsY(0, hist.Counts.Max() * 1.15);
+        return plot;
+    }
+
+    private static SugarLines? StrainLinesForChart(ReviewResult review)
+    {
+        var h = review.HouseFactor;
+        var recommended = h.Candidates.FirstOrDefault(c => c.Id == h.Overall?.CandidateId)?.FullFit;
+        if (recommended is { Strains.Count: > 0 })
+        {
+            return recommended;
+        }
+
+        return h.Candidates.FirstOrDefault(c => c.Id == "strain-shrunk")?.FullFit;
+    }
+
+    private static string CandidateName(ReviewResult review, string id) =>
+        review.HouseFactor.Candidates.FirstOrDefault(c => c.Id == id)?.Name ?? id;
+
+    private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
+    {
+        var flagged = lots.Where(l => ReviewTables.LotFlags(review, l).Count > 0 && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        if (flagged.Length == 0)
+        {
+            return;
+        }
+
+        var rings = plot.Add.Markers(flagged.Select(x).ToArray(), flagged.Select(y).ToArray(), MarkerShape.OpenCircle, 20, ChartPalette.Flagged);
+        rings.MarkerLineWidth = 2.5f;
+        rings.LegendText = $"flagged ({flagged.Length})";
+    }
+}

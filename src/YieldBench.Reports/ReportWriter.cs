@@ -1,0 +1,120 @@
+using YieldBench.Core.Review;
+using YieldBench.Reports.Charts;
+using YieldBench.Reports.Data;
+using YieldBench.Reports.Kinetics;
+using YieldBench.Reports.Output;
+using YieldBench.Reports.Tables;
+using YieldBench.Reports.Workbook;
+
+namespace YieldBench.Reports;
+
+/// <summary>What a report run wrote.</summary>
+/// <param name="Folder">Output folder (full path).</param>
+/// <param name="Files">Files written, relative to <paramref name="Folder"/>, with '/' separators, sorted.</param>
+/// <param name="Removed">Files of an earlier run that this run no longer makes and removed, relative, sorted.</param>
+public sealed record ReportOutput(string Folder, IReadOnlyList<string> Files, IReadOnlyList<string> Removed);
+
+/// <summary>
+/// Writes every output of a review into one folder: data files, PNG charts and report.xlsx. Each file is written
+/// atomically; a manifest (<see cref="ManifestName"/>) lists what was written so a later run replaces its own files
+/// and removes the ones it no longer makes, and never touches anything else in the folder.
+/// </summary>
+public static class ReportWriter
+{
+    /// <summary>The manifest file listing this tool's files in the folder.</summary>
+    public const string ManifestName = "yieldbench-files.txt";
+
+    /// <summary>Relative path of the workbook.</summary>
+    public const string WorkbookName = "report.xlsx";
+
+    /// <summary>Relative paths of the data files.</summary>
+    public static class DataFiles
+    {
+        /// <summary>One row per lot used.</summary>
+        public const string Lots = "data/lots.csv";
+
+        /// <summary>Intake issues.</summary>
+        public const string IntakeIssues = "data/intake-issues.csv";
+
+        /// <summary>Kinetics per lot (when logs were read).</summary>
+        public const string Kinetics = "data/" + KineticsCsv.FileName;
+    }
+
+    /// <summary>Writes everything; <paramref name="progress"/> hears the name of each step.</summary>
+    public static ReportOutput Write(ReviewResult review, string folder, IProgress<string>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(folder);
+        string root = Path.GetFullPath(folder);
+        Directory.CreateDirectory(root);
+        var previous = ReadManifest(root);
+        var written = new List<string>();
+
+        void Text(string relative, string content)
+        {
+            AtomicFile.WriteAllText(Full(root, relative), content);
+            written.Add(relative);
+        }
+
+        progress?.Report("data files");
+        Text(DataFiles.Lots, CsvText.Write(ReviewTables.Lots(review)));
+        Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
+        if (review.Kinetics is { } kinetics)
+        {
+            using var csv = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);
+            KineticsCsv.Write(kinetics, csv);
+            Text(DataFiles.Kinetics, csv.ToString());
+        }
+
+        progress?.Report("charts");
+        string chartFolder = Path.Combine(root, "charts");
+        var charts = ReviewCharts.WriteAll(review, chartFolder).ToList();
+        if (review.Kinetics is { } k)
+        {
+            // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
+            charts.AddRange(KineticsCharts.RenderFiles(k, review.Lots, chartFolder)
+                .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
+        }
+
+        written.AddRange(charts.Select(c => Relative(root, c.Path)));
+
+        progress?.Report("workbook");
+        WorkbookWriter.Write(review, charts, Full(root, WorkbookName));
+        written.Add(WorkbookName);
+
+        var files = written.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+        var removed = new List<string>();
+        foreach (var old in previous.Except(files, StringComparer.Ordinal).Order(StringComparer.Ordinal))
+        {
+            string path = Full(root, old);
+            if (File.Exists(path))
+            {
+                File.Delete(path);
+                removed.Add(old);
+            }
+        }
+
+        AtomicFile.WriteAllText(Path.Combine(root, ManifestName), string.Join("\n", files.Prepend(ManifestName)) + "\n");
+        return new ReportOutput(root, files, removed);
+    }
+
+    /// <summary>The files an earlier run listed in the folder's manifest (empty when none).</summary>
+    public static IReadOnlyList<string> ReadManifest(string folder)
+    {
+        string path = Path.Combine(Path.GetFullPath(folder), ManifestName);
+        if (!File.Exists(path))
+        {
+            return [];
+        }
+
+        // Only plain relative paths inside the folder are honoured, so an edited manifest cannot reach outside it.
+        return File.ReadAllLines(path)
+            .Select(l => l.Trim())
+            .Where(l => l.Length > 0 && l != ManifestName && !l.Contains("..", StringComparison.Ordinal) && !Path.IsPathRooted(l))
+            .ToArray();
+    }
+
+    private static string Full(string root, string relative) => Path.Combine(root, relative.Replace('/', Path.DirectorySeparatorChar));
+
+    private static string Relative(string root, string full) => Path.GetRelativePath(root, full).Replace(Path.DirectorySeparatorChar, '/');
+}

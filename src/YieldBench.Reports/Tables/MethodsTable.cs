@@ -1,0 +1,76 @@
+using System.Globalization;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Review;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Reports.Tables;
+
+/// <summary>The methods-and-cautions content: each formula or setting with its value and its source.</summary>
+public static class MethodsTable
+{
+    /// <summary>Formulas with their sources.</summary>
+    public static ReportTable Formulas(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var t = new ReportTable(
+        [
+            new("item", "Item", CellKind.Text),
+            new("formula", "Formula or rule", CellKind.Text),
+            new("source", "Source", CellKind.Text),
+        ]);
+        string sugarRule = review.Settings.SugarModel.Rule == SugarRule.OivTable
+            ? "OIV must table: fermentable sugar (g/L) by °Brix, 10.0–30.0 °Brix, linear interpolation; outside it, the sugar share of solids at the table's edge"
+            : $"Sugar % w/v = (°Brix − {SugarModel.NonSugarBrix.ToString("0.0", CultureInfo.InvariantCulture)}) × density";
+        t.Add(["Starting sugar after additions", "Water and sugar additions by mass balance of sugar and must mass (docs/methods.md, Conversion)", "Mass balance (common practice)"]);
+        t.Add(["Fermentable sugar", sugarRule, review.Settings.SugarModel.Rule == SugarRule.OivTable ? "OIV-MA-AS2-02, Table II; reproduced in the French Arrêté of 14 September 2011, Annexe IV" : "Margalit, Winery Technology and Operations, p. 3 (second-hand quote)"]);
+        t.Add(["abv_per_brix", "final alcohol (% v/v) ÷ starting °Brix after additions", "Definition (common practice: ballpark 0.55–0.65)"]);
+        t.Add(["abv_per_brix_fermented", "final alcohol ÷ (starting °Brix − °Brix equivalent of residual sugar)", "Definition"]);
+        t.Add(["sugar_gl_per_abv", "sugar consumed (g/L) ÷ final alcohol (% v/v); compare " + OivMustTable.SugarGramsPerPercentVolume.ToString("0.00", CultureInfo.InvariantCulture) + " g/L per % vol", "Arrêté of 3 May 1996, art. 2; Reg. (EU) 251/2014 Annex I pt 7"]);
+        t.Add(["gay_lussac_efficiency", "ethanol (g/L = % v/v × " + (10 * AlcoholContent.EthanolDensity20C).ToString("0.0000", CultureInfo.InvariantCulture) + ") ÷ (" + GayLussac.EthanolMassYield.ToString("0.0000", CultureInfo.InvariantCulture) + " × sugar consumed g/L)", "Gay-Lussac, C6H12O6 → 2 C2H5OH + 2 CO2; ethanol density 0.78924 g/mL at 20 °C (Council Directive 76/766/EEC)"]);
+        t.Add(["House-factor backtest", "Leave-one-season-out with two or more seasons, else leave-one-lot-out; MAE, bias, RMSE, 90th percentile |error|, share within label tolerance, share on the wrong side of " + review.HouseFactor.ThresholdAbv.ToString("0.0", CultureInfo.InvariantCulture) + " % v/v", "Cross-validation (docs/methods-house-factor.md)"]);
+        t.Add(["Recommendation", "Simplest candidate whose MAE is within one standard error of the best; intervals from the held-out errors' quantiles", "One-standard-error rule (Breiman et al. 1984; Hastie, Tibshirani & Friedman, Elements of Statistical Learning §7.10)"]);
+        t.Add(["Label regime", review.HouseFactor.Regime.Name, review.HouseFactor.Regime.Source]);
+        if (review.Kinetics is { } k)
+        {
+            var s = k.Settings;
+            t.Add(["Fermentation heat", $"rise (K) = remaining sugar (g/L) ÷ density × {s.HeatOfFermentationKjPerMol.ToString("0.0", CultureInfo.InvariantCulture)} kJ/mol ÷ 180.16 g/mol ÷ {s.MustHeatCapacityKjPerKgK.ToString("0.00", CultureInfo.InvariantCulture)} kJ/(kg·K)", "Colombié, Malherbe & Sablayrolles 2007, Food Control 18:953 (≈24 kcal/mol); Geankoplis, Transport Processes, App. A.4-1 (cp of juices)"]);
+            t.Add(["Sugar curves", "Modified Gompertz and logistic of sugar consumed against time, Levenberg–Marquardt", "Zwietering et al. 1990, Appl Environ Microbiol 56:1875"]);
+        }
+
+        t.Add(["Data files", ReportTexts.InjectionRule, "OWASP, CSV Injection (common practice)"]);
+        return t;
+    }
+
+    /// <summary>The settings the review ran with.</summary>
+    public static ReportTable Settings(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var t = new ReportTable(
+        [
+            new("setting", "Setting", CellKind.Text),
+            new("value", "Value", CellKind.Text),
+        ]);
+        var s = review.Settings;
+        t.Add(["Tool version", review.ToolVersion]);
+        t.Add(["Seed", s.Seed.ToString(CultureInfo.InvariantCulture)]);
+        t.Add(["Sugar rule", s.SugarModel.Rule == SugarRule.OivTable ? "OIV must table" : "°Brix minus non-sugar solids"]);
+        t.Add(["Label regime", $"{s.HouseFactor.Regime.Name} ({s.HouseFactor.Regime.Id})"]);
+        t.Add(["Threshold for the wrong-side share (% v/v)", F(s.HouseFactor.ThresholdAbv)]);
+        t.Add(["Fixed ballpark factors (% v/v per °Brix)", string.Join(", ", s.HouseFactor.FixedFactors.Select(F))]);
+        t.Add(["Fewest lots for a recommendation", s.HouseFactor.MinimumLots.ToString(CultureInfo.InvariantCulture)]);
+        t.Add(["Fewest lots for a strain's own recommendation", s.HouseFactor.MinimumLotsPerStrain.ToString(CultureInfo.InvariantCulture)]);
+        t.Add(["Planner targets (% v/v)", string.Join(", ", s.HouseFactor.PlannerTargets.Select(F))]);
+        t.Add(["Planner confidences", string.Join(", ", s.HouseFactor.PlannerConfidences.Select(c => (c * 100).ToString("0", CultureInfo.InvariantCulture) + " %"))]);
+        var k = s.Kinetics;
+        t.Add(["Dry at or below (°Brix)", F(k.DryBrix)]);
+        t.Add(["Red caution / danger temperature (°C)", F(k.RedThresholds.CautionC) + " / " + F(k.RedThresholds.DangerC)]);
+        t.Add(["White caution / danger temperature (°C)", F(k.WhiteThresholds.CautionC) + " / " + F(k.WhiteThresholds.DangerC)]);
+        t.Add(["Sluggish: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.SluggishRateBrixPerDay) + " / " + F(k.SluggishAboveBrix) + " / " + F(k.SluggishHours)]);
+        t.Add(["Stuck: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.StuckRateBrixPerDay) + " / " + F(k.StuckAboveBrix) + " / " + F(k.StuckHours)]);
+        t.Add(["Heat of fermentation (kJ/mol sugar)", F(k.HeatOfFermentationKjPerMol)]);
+        t.Add(["Must heat capacity (kJ/(kg·K))", F(k.MustHeatCapacityKjPerKgK)]);
+        return t;
+    }
+
+    private static string F(double v) => v.ToString("0.###", CultureInfo.InvariantCulture);
+}

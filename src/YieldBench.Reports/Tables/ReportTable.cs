@@ -1,0 +1,114 @@
+namespace YieldBench.Reports.Tables;
+
+/// <summary>How a column's values are written (CSV text and spreadsheet number format).</summary>
+public enum CellKind
+{
+    /// <summary>Free text; neutralised against formula injection in CSV and written as text in sheets.</summary>
+    Text,
+
+    /// <summary>A whole number.</summary>
+    Integer,
+
+    /// <summary>A real number, written in full (round-trip) precision in CSV.</summary>
+    Number,
+
+    /// <summary>A share in 0–1, shown as a percentage in sheets and written as the share in CSV.</summary>
+    Share,
+
+    /// <summary>A date and time, ISO 8601 in CSV.</summary>
+    DateTime,
+
+    /// <summary>true/false.</summary>
+    Boolean,
+}
+
+/// <summary>One column of a report table.</summary>
+/// <param name="Name">snake_case data-file name, unit last (e.g. <c>final_abv</c>).</param>
+/// <param name="Heading">Heading shown in the workbook (plain words with unit).</param>
+/// <param name="Kind">Value kind.</param>
+/// <param name="NumberFormat">Spreadsheet number format (null: by kind).</param>
+public sealed record ReportColumn(string Name, string Heading, CellKind Kind, string? NumberFormat = null)
+{
+    /// <summary>The number format the workbook uses for this column.</summary>
+    public string EffectiveNumberFormat => NumberFormat ?? Kind switch
+    {
+        CellKind.Integer => "0",
+        CellKind.Number => "0.000",
+        CellKind.Share => "0.0%",
+        CellKind.DateTime => "yyyy-mm-dd hh:mm",
+        _ => "@",
+    };
+}
+
+/// <summary>
+/// A table as every renderer sees it: the CSV writer and the workbook writer lay out the same columns and rows, so a
+/// data file and its sheet cannot disagree. Cells hold <see cref="string"/>, <see cref="double"/> (NaN: empty),
+/// <see cref="int"/>, <see cref="long"/>, <see cref="bool"/>, <see cref="System.DateTime"/>, or null (empty).
+/// </summary>
+public sealed class ReportTable
+{
+    private readonly List<object?[]> rows = [];
+    private readonly List<bool> highlighted = [];
+
+    /// <summary>Creates an empty table.</summary>
+    public ReportTable(IReadOnlyList<ReportColumn> columns)
+    {
+        ArgumentNullException.ThrowIfNull(columns);
+        if (columns.Count == 0)
+        {
+            throw new ArgumentException("A table needs at least one column.", nameof(columns));
+        }
+
+        var duplicate = columns.GroupBy(c => c.Name, StringComparer.Ordinal).FirstOrDefault(g => g.Count() > 1);
+        if (duplicate is not null)
+        {
+            throw new ArgumentException($"Column '{duplicate.Key}' appears twice.", nameof(columns));
+        }
+
+        Columns = columns;
+    }
+
+    /// <summary>The columns in their stable order.</summary>
+    public IReadOnlyList<ReportColumn> Columns { get; }
+
+    /// <summary>The rows, each with one cell per column.</summary>
+    public IReadOnlyList<object?[]> Rows => rows;
+
+    /// <summary>Whether each row is highlighted in the workbook (flagged lots).</summary>
+    public IReadOnlyList<bool> Highlighted => highlighted;
+
+    /// <summary>Index of a column by its data-file name.</summary>
+    public int IndexOf(string name)
+    {
+        for (int i = 0; i < Columns.Count; i++)
+        {
+            if (string.Equals(Columns[i].Name, name, StringComparison.Ordinal))
+            {
+                return i;
+            }
+        }
+
+        throw new ArgumentException($"No column '{name}'.", nameof(name));
+    }
+
+    /// <summary>Adds a row; it must have one cell per column, of a supported type.</summary>
+    public void Add(object?[] cells, bool highlight = false)
+    {
+        ArgumentNullException.ThrowIfNull(cells);
+        if (cells.Length != Columns.Count)
+        {
+            throw new ArgumentException($"A row has {cells.Length} cells but the table has {Columns.Count} columns.", nameof(cells));
+        }
+
+        foreach (var cell in cells)
+        {
+            if (cell is not (null or string or double or int or long or bool or System.DateTime))
+            {
+                throw new ArgumentException($"Unsupported cell type {cell.GetType().Name}.", nameof(cells));
+            }
+        }
+
+        rows.Add(cells);
+        highlighted.Add(highlight);
+    }
+}

@@ -1,0 +1,334 @@
+using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Reports.Tables;
+
+/// <summary>
+/// The review laid out as tables. Column names and order are the data files' contract (docs/report-guide.md); the
+/// workbook shows the same tables with plain headings.
+/// </summary>
+public static class ReviewTables
+{
+    /// <summary>Columns of data/lots.csv and the lots sheet, in order.</summary>
+    public static IReadOnlyList<ReportColumn> LotColumns { get; } =
+    [
+        new("lot_id", "Lot", CellKind.Text),
+        new("season", "Season", CellKind.Integer),
+        new("strain", "Strain", CellKind.Text),
+        new("vessel", "Vessel", CellKind.Text),
+        new("variety", "Variety", CellKind.Text),
+        new("starting_brix", "Starting sugar after additions (°Brix)", CellKind.Number, "0.00"),
+        new("final_abv", "Final alcohol (% v/v)", CellKind.Number, "0.00"),
+        new("residual_sugar_gl", "Residual sugar (g/L)", CellKind.Number, "0.0"),
+        new("abv_per_brix", "Alcohol per °Brix (% v/v per °Brix)", CellKind.Number, "0.0000"),
+        new("abv_per_brix_fermented", "Alcohol per °Brix fermented", CellKind.Number, "0.0000"),
+        new("sugar_gl_per_abv", "Sugar per % alcohol (g/L per % v/v)", CellKind.Number, "0.00"),
+        new("gay_lussac_efficiency", "Share of Gay-Lussac yield", CellKind.Share, "0.0%"),
+        new("robust_z", "Robust z within strain", CellKind.Number, "0.00"),
+        new("flags", "Flags", CellKind.Text),
+        new("measured_starting_brix", "Starting sugar as measured (°Brix)", CellKind.Number, "0.00"),
+        new("starting_sugar_scale", "Scale recorded", CellKind.Text),
+        new("starting_sugar_as_recorded", "Starting sugar in the recorded scale", CellKind.Number, "0.000"),
+        new("starting_sugar_gl", "Fermentable sugar at start (g/L)", CellKind.Number, "0.0"),
+        new("fermented_brix", "°Brix fermented", CellKind.Number, "0.00"),
+        new("sugar_consumed_gl", "Sugar consumed (g/L)", CellKind.Number, "0.0"),
+        new("additions_applied", "Additions applied", CellKind.Boolean),
+        new("must_volume_l", "Must volume (L)", CellKind.Number, "0"),
+        new("water_added_l", "Water added (L)", CellKind.Number, "0"),
+        new("sugar_added_kg", "Sugar added (kg)", CellKind.Number, "0.0"),
+        new("vessel_capacity_l", "Vessel capacity (L)", CellKind.Number, "0"),
+        new("block", "Block", CellKind.Text),
+        new("colour", "Colour", CellKind.Text),
+        new("final_sugar_brix", "Final sugar reading (°Brix)", CellKind.Number, "0.00"),
+        new("yan_mg_l", "YAN (mg N/L)", CellKind.Number, "0"),
+        new("ph", "pH", CellKind.Number, "0.00"),
+        new("ta_gl", "TA (g/L)", CellKind.Number, "0.00"),
+        new("mean_temp_c", "Mean fermentation temperature (°C)", CellKind.Number, "0.0"),
+        new("peak_temp_c", "Peak fermentation temperature (°C)", CellKind.Number, "0.0"),
+        new("inoculation_date", "Inoculated", CellKind.DateTime),
+        new("dry_date", "Declared dry", CellKind.DateTime),
+        new("notes", "Notes", CellKind.Text),
+        new("conversion_notes", "Approximations used", CellKind.Text),
+        new("source_file", "Source file", CellKind.Text),
+        new("source_sheet", "Source sheet", CellKind.Text),
+        new("source_row", "Source row", CellKind.Integer),
+    ];
+
+    /// <summary>
+    /// One row per lot used. <paramref name="order"/> gives the row order (data files keep input order; the lots sheet
+    /// groups rows by strain so each strain's chart series is one block of cells).
+    /// </summary>
+    public static ReportTable Lots(ReviewResult review, IEnumerable<LotConversion>? order = null)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(LotColumns);
+        foreach (var c in order ?? review.Lots)
+        {
+            var lot = c.Lot;
+            var flags = LotFlags(review, c);
+            table.Add(
+            [
+                lot.LotId,
+                lot.Season,
+                lot.Strain,
+                lot.Vessel,
+                lot.Variety,
+                c.EffectiveStartingBrix,
+                lot.FinalAlcohol.PercentVolume,
+                lot.ResidualSugarGl ?? double.NaN,
+                c.AbvPerBrix,
+                c.AbvPerBrixFermented,
+                c.SugarGlPerAbv,
+                c.GayLussacEfficiency,
+                double.NaN,
+                flags.Count == 0 ? null : string.Join(';', flags),
+                lot.StartingSugar.Brix,
+                ScaleName(lot.StartingSugarScale),
+                lot.StartingSugar.In(lot.StartingSugarScale),
+                c.StartingSugarGl,
+                c.FermentedBrix,
+                c.SugarConsumedGl,
+                c.AdditionsApplied,
+                lot.Additions.MustVolumeL ?? double.NaN,
+                lot.Additions.WaterAddedL ?? double.NaN,
+                lot.Additions.SugarAddedKg ?? double.NaN,
+                lot.VesselCapacityL ?? double.NaN,
+                lot.Block,
+                lot.Colour == WineColour.Unknown ? null : lot.Colour.ToString().ToLowerInvariant(),
+                lot.FinalSugar?.Brix ?? double.NaN,
+                lot.YanMgL ?? double.NaN,
+                lot.Ph ?? double.NaN,
+                lot.TaGl ?? double.NaN,
+                lot.MeanFermentationTempC ?? double.NaN,
+                lot.PeakFermentationTempC ?? double.NaN,
+                lot.InoculationDate,
+                lot.DryDate,
+                lot.Notes,
+                c.Notes.Count == 0 ? null : string.Join("; ", c.Notes),
+                lot.Source?.File,
+                lot.Source?.Sheet,
+                lot.Source?.Row,
+            ],
+            highlight: flags.Count > 0);
+        }
+
+        return table;
+    }
+
+    /// <summary>The lots in the lots sheet's order: by strain (ordinal), then season, then lot id.</summary>
+    public static IReadOnlyList<LotConversion> ByStrain(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        return review.Lots.OrderBy(l => l.Lot.Strain, StringComparer.Ordinal).ThenBy(l => l.Lot.Season)
+            .ThenBy(l => l.Lot.LotId, StringComparer.Ordinal).ToArray();
+    }
+
+    /// <summary>Flag codes of a lot from every section that flags lots, in a fixed order.</summary>
+    public static IReadOnlyList<string> LotFlags(ReviewResult review, LotConversion lot)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(lot);
+        var codes = new List<string>();
+        var kinetics = review.Kinetics?.Lots.FirstOrDefault(k => k.LotKey == lot.Lot.Key);
+        if (kinetics is not null)
+        {
+            codes.AddRange(kinetics.Flags);
+        }
+
+        return codes.Distinct(StringComparer.Ordinal).ToArray();
+    }
+
+    /// <summary>Columns of data/intake-issues.csv.</summary>
+    public static IReadOnlyList<ReportColumn> IntakeIssueColumns { get; } =
+    [
+        new("file", "File", CellKind.Text),
+        new("sheet", "Sheet", CellKind.Text),
+        new("row", "Row", CellKind.Integer),
+        new("column", "Column", CellKind.Text),
+        new("value", "Value", CellKind.Text),
+        new("code", "Code", CellKind.Text),
+        new("message", "What is wrong and how to fix it", CellKind.Text),
+    ];
+
+    /// <summary>Every intake issue, in the order intake found them.</summary>
+    public static ReportTable IntakeIssues(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(IntakeIssueColumns);
+        foreach (var i in review.Inputs.Issues)
+        {
+            table.Add([i.File, i.Sheet, i.Row, i.Column, i.Value, i.Code, i.Message], highlight: i.Severity == IssueSeverity.Error);
+        }
+
+        return table;
+    }
+
+    /// <summary>Input files with their SHA-256.</summary>
+    public static ReportTable InputFiles(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("file", "File", CellKind.Text),
+            new("sha256", "SHA-256", CellKind.Text),
+            new("bytes", "Bytes", CellKind.Integer, "#,##0"),
+        ]);
+        foreach (var f in review.Inputs.Files)
+        {
+            table.Add([f.Path, f.Sha256, f.Bytes]);
+        }
+
+        return table;
+    }
+
+    /// <summary>Row accounting per file and sheet.</summary>
+    public static ReportTable RowAccounts(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("file", "File", CellKind.Text),
+            new("sheet", "Sheet", CellKind.Text),
+            new("kind", "Kind", CellKind.Text),
+            new("rows_read", "Rows read", CellKind.Integer),
+            new("lots_used", "Lots used", CellKind.Integer),
+            new("log_readings_used", "Log readings used", CellKind.Integer),
+            new("rows_reported", "Rows reported", CellKind.Integer),
+            new("blank_rows_skipped", "Blank rows", CellKind.Integer),
+            new("summary_rows_skipped", "Summary rows", CellKind.Integer),
+        ]);
+        foreach (var a in review.Inputs.Accounts)
+        {
+            table.Add([a.File, a.Sheet, a.Kind, a.RowsRead, a.LotsUsed, a.LogReadingsUsed, a.RowsReported, a.BlankRowsSkipped, a.SummaryRowsSkipped], highlight: !a.Balances);
+        }
+
+        return table;
+    }
+
+    /// <summary>Every house-factor candidate with both backtests.</summary>
+    public static ReportTable HouseCandidates(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var h = review.HouseFactor;
+        var table = new ReportTable(
+        [
+            new("candidate", "Candidate", CellKind.Text),
+            new("description", "What it does", CellKind.Text),
+            new("simplicity_rank", "Simplicity rank", CellKind.Integer),
+            new("backtest", "Backtest", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("mae_abv", "Mean absolute error (% v/v)", CellKind.Number, "0.000"),
+            new("mae_se_abv", "Standard error of MAE", CellKind.Number, "0.000"),
+            new("bias_abv", "Bias, predicted − actual (% v/v)", CellKind.Number, "+0.000;-0.000;0.000"),
+            new("rmse_abv", "RMSE (% v/v)", CellKind.Number, "0.000"),
+            new("p90_abs_error_abv", "90th percentile |error| (% v/v)", CellKind.Number, "0.000"),
+            new("share_within_tolerance", "Within label tolerance", CellKind.Share),
+            new("share_wrong_side", "Wrong side of threshold", CellKind.Share),
+            new("recommended", "Recommended", CellKind.Boolean),
+        ]);
+        string? chosen = h.Overall?.CandidateId;
+        foreach (var c in h.Candidates)
+        {
+            foreach (var (scheme, m) in Backtests(c))
+            {
+                bool isChosen = c.Id == chosen && m == c.Primary;
+                table.Add(
+                [
+                    c.Name, c.Description, c.Complexity, SchemeName(scheme), m.Lots, m.Mae, m.MaeStandardError, m.Bias, m.Rmse,
+                    m.P90AbsoluteError, m.ShareWithinTolerance, m.ShareWrongSideOfThreshold, isChosen,
+                ],
+                highlight: isChosen);
+            }
+        }
+
+        return table;
+    }
+
+    /// <summary>The recommendation overall and per strain.</summary>
+    public static ReportTable Recommendations(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var h = review.HouseFactor;
+        var table = new ReportTable(
+        [
+            new("strain", "Strain", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("candidate", "Recommended", CellKind.Text),
+            new("best_candidate", "Lowest error", CellKind.Text),
+            new("mae_abv", "Mean absolute error (% v/v)", CellKind.Number, "0.000"),
+            new("mae_limit_abv", "Best MAE + 1 SE (% v/v)", CellKind.Number, "0.000"),
+            new("error_80_low_abv", "80 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_80_high_abv", "80 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_low_abv", "95 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_high_abv", "95 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("share_within_tolerance", "Within label tolerance", CellKind.Share),
+            new("explanation", "Why", CellKind.Text),
+        ]);
+        var names = h.Candidates.ToDictionary(c => c.Id, c => c.Name, StringComparer.Ordinal);
+        foreach (var r in (h.Overall is null ? [] : new[] { h.Overall }).Concat(h.ByStrain))
+        {
+            table.Add(
+            [
+                r.Strain == "*" ? "all lots" : r.Strain, r.Lots, names.GetValueOrDefault(r.CandidateId, r.CandidateId),
+                names.GetValueOrDefault(r.BestCandidateId, r.BestCandidateId), r.Metrics.Mae, r.MaeLimit,
+                r.ErrorBand80.Low, r.ErrorBand80.High, r.ErrorBand95.Low, r.ErrorBand95.High, r.Metrics.ShareWithinTolerance, r.Explanation,
+            ]);
+        }
+
+        return table;
+    }
+
+    /// <summary>The planner table: highest harvest sugar under each target at each confidence.</summary>
+    public static ReportTable Planner(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("strain", "Strain", CellKind.Text),
+            new("target_abv", "Keep alcohol under (% v/v)", CellKind.Number, "0.0"),
+            new("confidence", "With confidence", CellKind.Share, "0%"),
+            new("highest_brix", "Pick at or below (°Brix)", CellKind.Number, "0.0"),
+            new("error_allowance_abv", "Allowance for error (% v/v)", CellKind.Number, "0.00"),
+            new("note", "Note", CellKind.Text),
+        ]);
+        foreach (var t in review.HouseFactor.PlannerTable)
+        {
+            table.Add([t.Strain == "*" ? "all lots" : t.Strain, t.TargetAbv, t.Confidence, t.HighestBrix, t.ErrorAllowance, t.Note]);
+        }
+
+        return table;
+    }
+
+    /// <summary>Plain name of a backtest scheme.</summary>
+    public static string SchemeName(BacktestScheme scheme) => scheme switch
+    {
+        BacktestScheme.LeaveOneSeasonOut => "leave one season out",
+        BacktestScheme.LeaveOneLotOut => "leave one lot out",
+        BacktestScheme.TenFoldByLot => "ten folds by lot",
+        _ => scheme.ToString(),
+    };
+
+    /// <summary>Plain name of a sugar scale.</summary>
+    public static string ScaleName(SugarScale scale) => scale switch
+    {
+        SugarScale.Brix => "°Brix",
+        SugarScale.SpecificGravity => "SG",
+        SugarScale.Baume => "°Baumé",
+        SugarScale.Oechsle => "°Oechsle",
+        SugarScale.GramsPerLitre => "g/L",
+        _ => scale.ToString(),
+    };
+
+    private static IEnumerable<(BacktestScheme Scheme, BacktestMetrics Metrics)> Backtests(CandidateResult c)
+    {
+        if (c.BySeason is not null)
+        {
+            yield return (BacktestScheme.LeaveOneSeasonOut, c.BySeason);
+        }
+
+        yield return (c.ByLotScheme, c.ByLot);
+    }
+}

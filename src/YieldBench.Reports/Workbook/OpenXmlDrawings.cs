@@ -1,0 +1,239 @@
+using DocumentFormat.OpenXml;
+using DocumentFormat.OpenXml.Packaging;
+using DocumentFormat.OpenXml.Spreadsheet;
+using A = DocumentFormat.OpenXml.Drawing;
+using C = DocumentFormat.OpenXml.Drawing.Charts;
+using Xdr = DocumentFormat.OpenXml.Drawing.Spreadsheet;
+
+namespace YieldBench.Reports.Workbook;
+
+/// <summary>One series of a native scatter chart: a name and the cell ranges it is bound to.</summary>
+/// <param name="Name">Series name shown in the legend.</param>
+/// <param name="XRange">X cells, e.g. <c>'Lots'!$F$2:$F$40</c>.</param>
+/// <param name="YRange">Y cells.</param>
+/// <param name="XCache">The values now in the X cells (the chart shows them before the application recalculates).</param>
+/// <param name="YCache">The values now in the Y cells.</param>
+/// <param name="ColourHex">Marker colour, RGB hex without '#'.</param>
+public sealed record ScatterSeriesSpec(string Name, string XRange, string YRange, IReadOnlyList<double> XCache, IReadOnlyList<double> YCache, string ColourHex);
+
+/// <summary>A native scatter chart to place on a sheet.</summary>
+/// <param name="Title">Chart title.</param>
+/// <param name="XTitle">X axis title.</param>
+/// <param name="YTitle">Y axis title.</param>
+/// <param name="Series">Series bound to cells.</param>
+/// <param name="XBounds">X axis minimum and maximum (null: the application chooses).</param>
+/// <param name="YBounds">Y axis minimum and maximum.</param>
+public sealed record ScatterChartSpec(
+    string Title, string XTitle, string YTitle, IReadOnlyList<ScatterSeriesSpec> Series, (double Min, double Max)? XBounds = null, (double Min, double Max)? YBounds = null);
+
+/// <summary>Where a drawing goes: top-left cell (0-based column and row) and size in pixels at 96 dpi.</summary>
+public sealed record DrawingPlace(int Column, int Row, int WidthPx, int HeightPx);
+
+/// <summary>
+/// Adds native charts and PNG pictures to a saved workbook with the Open XML SDK 2.20 (ClosedXML 0.95.4 has no
+/// charts, and its picture support needs libgdiplus).
+/// </summary>
+public static class OpenXmlDrawings
+{
+    private const long EmuPerPixel = 9525;
+
+    /// <summary>Adds a scatter chart (markers only, one series per spec) to a worksheet.</summary>
+    public static void AddScatterChart(WorksheetPart sheet, ScatterChartSpec spec, DrawingPlace place, uint drawingId)
+    {
+        ArgumentNullException.ThrowIfNull(sheet);
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(place);
+        var drawings = DrawingsFor(sheet);
+        var chartPart = drawings.AddNewPart<ChartPart>(RelationshipId("ybChart", drawingId));
+        chartPart.ChartSpace = BuildChartSpace(spec);
+        chartPart.ChartSpace.Save();
+        string relId = drawings.GetIdOfPart(chartPart);
+
+        var frame = new Xdr.GraphicFrame(
+            new Xdr.NonVisualGraphicFrameProperties(
+                new Xdr.NonVisualDrawingProperties { Id = drawingId, Name = spec.Title, Description = spec.Title },
+                new Xdr.NonVisualGraphicFrameDrawingProperties()),
+            new Xdr.Transform(new A.Offset { X = 0, Y = 0 }, new A.Extents { Cx = 0, Cy = 0 }),
+            new A.Graphic(new A.GraphicData(new C.ChartReference { Id = relId }) { Uri = "http://schemas.openxmlformats.org/drawingml/2006/chart" }))
+        { Macro = string.Empty };
+        drawings.WorksheetDrawing!.Append(Anchor(place, frame));
+        drawings.WorksheetDrawing.Save();
+    }
+
+    /// <summary>Adds a PNG picture to a worksheet.</summary>
+    public static void AddPicture(WorksheetPart sheet, byte[] png, string description, DrawingPlace place, uint drawingId)
+    {
+        ArgumentNullException.ThrowIfNull(sheet);
+        ArgumentNullException.ThrowIfNull(png);
+        ArgumentNullException.ThrowIfNull(place);
+        var drawings = DrawingsFor(sheet);
+        var image = drawings.AddImagePart(ImagePartType.Png, RelationshipId("ybImage", drawingId));
+        using (var stream = new MemoryStream(png, writable: false))
+        {
+            image.FeedData(stream);
+        }
+
+        string relId = drawings.GetIdOfPart(image);
+        var picture = new Xdr.Picture(
+            new Xdr.NonVisualPictureProperties(
+                new Xdr.NonVisualDrawingProperties { Id = drawingId, Name = "Picture " + drawingId.ToString(System.Globalization.CultureInfo.InvariantCulture), Description = description },
+                new Xdr.NonVisualPictureDrawingProperties(new A.PictureLocks { NoChangeAspect = true })),
+            new Xdr.BlipFill(new A.Blip { Embed = relId }, new A.Stretch(new A.FillRectangle())),
+            new Xdr.ShapeProperties(
+                new A.Transform2D(new A.Offset { X = 0, Y = 0 }, new A.Extents { Cx = place.WidthPx * EmuPerPixel, Cy = place.HeightPx * EmuPerPixel }),
+                new A.PresetGeometry(new A.AdjustValueList()) { Preset = A.ShapeTypeValues.Rectangle }));
+        drawings.WorksheetDrawing!.Append(Anchor(place, picture));
+        drawings.WorksheetDrawing.Save();
+    }
+
+    private static string RelationshipId(string prefix, uint drawingId) =>
+        prefix + drawingId.ToString(System.Globalization.CultureInfo.InvariantCulture);
+
+    private static Xdr.OneCellAnchor Anchor(DrawingPlace place, OpenXmlElement content) =>
+        new(
+            new Xdr.FromMarker(
+                new Xdr.ColumnId(place.Column.ToString(System.Globalization.CultureInfo.InvariantCulture)),
+                new Xdr.ColumnOffset("0"),
+                new Xdr.RowId(place.Row.ToString(System.Globalization.CultureInfo.InvariantCulture)),
+                new Xdr.RowOffset("0")),
+            new Xdr.Extent { Cx = place.WidthPx * EmuPerPixel, Cy = place.HeightPx * EmuPerPixel },
+            content,
+            new Xdr.ClientData());
+
+    private static DrawingsPart DrawingsFor(WorksheetPart sheet)
+    {
+        if (sheet.DrawingsPart is { } existing)
+        {
+            return existing;
+        }
+
+        // Fixed relationship ids: the SDK would draw random ones, and the same review must give the same bytes.
+        var drawings = sheet.AddNewPart<DrawingsPart>("ybDrawing");
+        drawings.WorksheetDrawing = new Xdr.WorksheetDrawing();
+        drawings.WorksheetDrawing.AddNamespaceDeclaration("xdr", "http://schemas.openxmlformats.org/drawingml/2006/spreadsheetDrawing");
+        drawings.WorksheetDrawing.AddNamespaceDeclaration("a", "http://schemas.openxmlformats.org/drawingml/2006/main");
+        drawings.WorksheetDrawing.Save();
+
+        var worksheet = sheet.Worksheet;
+        var drawing = new Drawing { Id = sheet.GetIdOfPart(drawings) };
+
+        // CT_Worksheet fixes the order of children: <drawing> comes before these, after everything else.
+        var after = worksheet.ChildElements.FirstOrDefault(e =>
+            e is LegacyDrawing or LegacyDrawingHeaderFooter or DrawingHeaderFooter or Picture or OleObjects or Controls
+                or WebPublishItems or TableParts or WorksheetExtensionList);
+        if (after is null)
+        {
+            worksheet.Append(drawing);
+        }
+        else
+        {
+            worksheet.InsertBefore(drawing, after);
+        }
+
+        worksheet.Save();
+        return drawings;
+    }
+
+    private static C.ChartSpace BuildChartSpace(ScatterChartSpec spec)
+    {
+        const uint xAxisId = 500100;
+        const uint yAxisId = 500200;
+        var scatter = new C.ScatterChart(
+            new C.ScatterStyle { Val = C.ScatterStyleValues.LineMarker },
+            new C.VaryColors { Val = false });
+        for (int i = 0; i < spec.Series.Count; i++)
+        {
+            scatter.Append(Series(spec.Series[i], (uint)i));
+        }
+
+        scatter.Append(new C.AxisId { Val = xAxisId }, new C.AxisId { Val = yAxisId });
+
+        var plotArea = new C.PlotArea(
+            new C.Layout(),
+            scatter,
+            ValueAxis(xAxisId, yAxisId, C.AxisPositionValues.Bottom, spec.XTitle, "0.0", spec.XBounds),
+            ValueAxis(yAxisId, xAxisId, C.AxisPositionValues.Left, spec.YTitle, "0.0", spec.YBounds));
+
+        var chart = new C.Chart(
+            Title(spec.Title, 1400, bold: true),
+            new C.AutoTitleDeleted { Val = false },
+            plotArea,
+            new C.Legend(new C.LegendPosition { Val = C.LegendPositionValues.Right }, new C.Overlay { Val = false }),
+            new C.PlotVisibleOnly { Val = true },
+            new C.DisplayBlanksAs { Val = C.DisplayBlanksAsValues.Gap });
+
+        var space = new C.ChartSpace(
+            new C.Date1904 { Val = false },
+            new C.RoundedCorners { Val = false },
+            chart);
+        space.AddNamespaceDeclaration("c", "http://schemas.openxmlformats.org/drawingml/2006/chart");
+        space.AddNamespaceDeclaration("a", "http://schemas.openxmlformats.org/drawingml/2006/main");
+        space.AddNamespaceDeclaration("r", "http://schemas.openxmlformats.org/officeDocument/2006/relationships");
+        return space;
+    }
+
+    private static C.ScatterChartSeries Series(ScatterSeriesSpec s, uint index)
+    {
+        var fill = new A.SolidFill(new A.RgbColorModelHex { Val = s.ColourHex });
+        return new C.ScatterChartSeries(
+            new C.Index { Val = index },
+            new C.Order { Val = index },
+            new C.SeriesText(new C.NumericValue(s.Name)),
+            new C.ChartShapeProperties(new A.Outline(new A.NoFill())),
+            new C.Marker(
+                new C.Symbol { Val = C.MarkerStyleValues.Circle },
+                new C.Size { Val = 6 },
+                new C.ChartShapeProperties(fill, new A.Outline(new A.SolidFill(new A.RgbColorModelHex { Val = s.ColourHex })))),
+            new C.XValues(NumberReference(s.XRange, s.XCache)),
+            new C.YValues(NumberReference(s.YRange, s.YCache)),
+            new C.Smooth { Val = false });
+    }
+
+    private static C.NumberReference NumberReference(string range, IReadOnlyList<double> cache)
+    {
+        var numberCache = new C.NumberingCache(new C.FormatCode("General"), new C.PointCount { Val = (uint)cache.Count });
+        for (int i = 0; i < cache.Count; i++)
+        {
+            if (double.IsFinite(cache[i]))
+            {
+                numberCache.Append(new C.NumericPoint(new C.NumericValue(cache[i].ToString("R", System.Globalization.CultureInfo.InvariantCulture))) { Index = (uint)i });
+            }
+        }
+
+        return new C.NumberReference(new C.Formula(range), numberCache);
+    }
+
+    private static C.ValueAxis ValueAxis(uint id, uint crossing, C.AxisPositionValues position, string title, string format, (double Min, double Max)? bounds)
+    {
+        var scaling = new C.Scaling(new C.Orientation { Val = C.OrientationValues.MinMax });
+        if (bounds is { } b)
+        {
+            scaling.Append(new C.MaxAxisValue { Val = b.Max }, new C.MinAxisValue { Val = b.Min });
+        }
+
+        return new(
+            new C.AxisId { Val = id },
+            scaling,
+            new C.Delete { Val = false },
+            new C.AxisPosition { Val = position },
+            new C.MajorGridlines(new C.ChartShapeProperties(new A.Outline(new A.SolidFill(new A.RgbColorModelHex { Val = "E5E5E5" })))),
+            Title(title, 1000, bold: false),
+            new C.NumberingFormat { FormatCode = format, SourceLinked = false },
+            new C.MajorTickMark { Val = C.TickMarkValues.Outside },
+            new C.MinorTickMark { Val = C.TickMarkValues.None },
+            new C.TickLabelPosition { Val = C.TickLabelPositionValues.Low },
+            new C.CrossingAxis { Val = crossing },
+            new C.Crosses { Val = C.CrossesValues.AutoZero },
+            new C.CrossBetween { Val = C.CrossBetweenValues.MidpointCategory });
+    }
+
+    private static C.Title Title(string text, int size, bool bold) =>
+        new(
+            new C.ChartText(new C.RichText(
+                new A.BodyProperties(),
+                new A.ListStyle(),
+                new A.Paragraph(
+                    new A.ParagraphProperties(new A.DefaultRunProperties { FontSize = size, Bold = bold }),
+                    new A.Run(new A.RunProperties { Language = "en-GB", FontSize = size, Bold = bold }, new A.Text(text))))),
+            new C.Overlay { Val = false });
+}

@@ -1,0 +1,381 @@
+using System.Globalization;
+using ClosedXML.Excel;
+using DocumentFormat.OpenXml.Packaging;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
+using YieldBench.Reports.Charts;
+using YieldBench.Reports.Kinetics;
+using YieldBench.Reports.Output;
+using YieldBench.Reports.Tables;
+
+namespace YieldBench.Reports.Workbook;
+
+/// <summary>
+/// Writes report.xlsx: ClosedXML lays out the sheets, then the Open XML SDK adds the native alcohol-vs-sugar chart
+/// (bound to the lots sheet's cells) and the PNG charts as pictures, and the package is normalised so the same review
+/// gives the same bytes.
+/// </summary>
+public static class WorkbookWriter
+{
+    /// <summary>Sheet names, in workbook order (plain words of our own).</summary>
+    public static class Sheets
+    {
+        /// <summary>Overview.</summary>
+        public const string Overview = "Overview";
+
+        /// <summary>Every lot.</summary>
+        public const string Lots = "Lots";
+
+        /// <summary>House factor backtest and recommendation.</summary>
+        public const string HouseFactor = "House factor";
+
+        /// <summary>Planner table.</summary>
+        public const string Planner = "Planner";
+
+        /// <summary>Kinetics (when logs exist).</summary>
+        public const string Kinetics = KineticsSheet.SheetName;
+
+        /// <summary>Intake issues.</summary>
+        public const string IntakeIssues = "Intake issues";
+
+        /// <summary>Methods, settings, inputs and cautions.</summary>
+        public const string Methods = "Methods and cautions";
+    }
+
+    /// <summary>Pixel size pictures are shown at in the workbook (half the PNG's 1600×1000).</summary>
+    public const int PictureWidthPx = 800;
+
+    /// <summary>Picture height in the workbook, px.</summary>
+    public const int PictureHeightPx = 500;
+
+    /// <summary>A fixed creation time for the package properties, so no clock value enters the file.</summary>
+    public static DateTime FixedTimestamp { get; } = new(2000, 1, 1, 0, 0, 0, DateTimeKind.Utc);
+
+    /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
+    public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path) =>
+        AtomicFile.WriteAllBytes(path, Build(review, charts));
+
+    /// <summary>The workbook's bytes.</summary>
+    public static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures = true)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(charts);
+        var lotsOrder = ReviewTables.ByStrain(review);
+        byte[] laidOut;
+        var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
+        using (var wb = new XLWorkbook())
+        {
+            wb.Properties.Author = "YieldBench";
+            wb.Properties.Title = "YieldBench review";
+            wb.Properties.Created = FixedTimestamp;
+            wb.Properties.Modified = FixedTimestamp;
+
+            var overview = wb.Worksheets.Add(Sheets.Overview);
+            WriteOverview(overview, review);
+
+            var lots = wb.Worksheets.Add(Sheets.Lots);
+            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
+
+            var house = wb.Worksheets.Add(Sheets.HouseFactor);
+            pictureRows[Sheets.HouseFactor] = WriteHouseFactor(house, review);
+
+            var planner = wb.Worksheets.Add(Sheets.Planner);
+            pictureRows[Sheets.Planner] = WritePlanner(planner, review);
+
+            if (review.Kinetics is { } kineticsReview)
+            {
+                var kinetics = wb.Worksheets.Add(Sheets.Kinetics);
+                KineticsSheet.Fill(kinetics, kineticsReview);
+                pictureRows[Sheets.Kinetics] = kinetics.LastRowUsed()?.RowNumber() + 2 ?? 2;
+            }
+
+            var issues = wb.Worksheets.Add(Sheets.IntakeIssues);
+            var placed = SheetLayout.WriteTable(issues, ReviewTables.IntakeIssues(review));
+            pictureRows[Sheets.IntakeIssues] = placed.LastRow + 2;
+
+            var methods = wb.Worksheets.Add(Sheets.Methods);
+            WriteMethods(methods, review);
+
+            using var ms = new MemoryStream();
+            wb.SaveAs(ms);
+            laidOut = ms.ToArray();
+        }
+
+        using var package = new MemoryStream();
+        package.Write(laidOut);
+        using (var doc = SpreadsheetDocument.Open(package, isEditable: true))
+        {
+            var wbPart = doc.WorkbookPart ?? throw new InvalidOperationException("ClosedXML wrote no workbook part.");
+            uint drawingId = 2;
+            var overviewPart = SheetPart(wbPart, Sheets.Overview);
+            if (lotsOrder.Count > 0)
+            {
+                OpenXmlDrawings.AddScatterChart(overviewPart, AlcoholVsSugarChart(lotsOrder), new DrawingPlace(5, 1, 900, 560), drawingId++);
+            }
+
+            if (includePictures)
+            {
+                int overviewRow = 32;
+                int slot = 0;
+                foreach (var chart in charts)
+                {
+                    byte[] png = File.ReadAllBytes(chart.Path);
+                    if (chart.OnOverview)
+                    {
+                        // Two pictures side by side, rows of about 26 default-height rows each.
+                        int col = 5 + ((slot % 2) * 14);
+                        int row = overviewRow + ((slot / 2) * 27);
+                        OpenXmlDrawings.AddPicture(overviewPart, png, chart.Title, new DrawingPlace(col, row, PictureWidthPx, PictureHeightPx), drawingId++);
+                        slot++;
+                    }
+
+                    if (chart.Sheet is { } sheetName && pictureRows.TryGetValue(sheetName, out int at))
+                    {
+                        OpenXmlDrawings.AddPicture(SheetPart(wbPart, sheetName), png, chart.Title, new DrawingPlace(0, at, PictureWidthPx, PictureHeightPx), drawingId++);
+                        pictureRows[sheetName] = at + 27;
+                    }
+                }
+            }
+
+            doc.PackageProperties.Created = FixedTimestamp;
+            doc.PackageProperties.Modified = FixedTimestamp;
+            doc.PackageProperties.Creator = "YieldBench";
+            doc.PackageProperties.LastModifiedBy = "YieldBench";
+        }
+
+        return DeterministicZip.Normalise(package.ToArray());
+    }
+
+    /// <summary>The native chart: one series per strain, bound to the lots sheet's starting-sugar and alcohol columns.</summary>
+    public static ScatterChartSpec AlcoholVsSugarChart(IReadOnlyList<LotConversion> lotsByStrain)
+    {
+        ArgumentNullException.ThrowIfNull(lotsByStrain);
+        string xCol = ColumnLetter(ReviewTables.LotColumns.ToList().FindIndex(c => c.Name == "starting_brix") + 1);
+        string yCol = ColumnLetter(ReviewTables.LotColumns.ToList().FindIndex(c => c.Name == "final_abv") + 1);
+        var series = new List<ScatterSeriesSpec>();
+        int row = 2;
+        int index = 0;
+        foreach (var group in lotsByStrain.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal))
+        {
+            var members = group.ToArray();
+            int first = row, last = row + members.Length - 1;
+            series.Add(new ScatterSeriesSpec(
+                group.Key,
+                $"'{Sheets.Lots}'!${xCol}${first}:${xCol}${last}",
+                $"'{Sheets.Lots}'!${yCol}${first}:${yCol}${last}",
+                members.Select(m => m.EffectiveStartingBrix).ToArray(),
+                members.Select(m => m.Lot.FinalAlcohol.PercentVolume).ToArray(),
+                ChartPalette.ForIndex(index).ToHex().TrimStart('#')[..6]));
+            row = last + 1;
+            index++;
+        }
+
+        var xs = lotsByStrain.Select(l => l.EffectiveStartingBrix).Where(double.IsFinite).ToArray();
+        var ys = lotsByStrain.Select(l => l.Lot.FinalAlcohol.PercentVolume).Where(double.IsFinite).ToArray();
+        return new ScatterChartSpec(
+            "Final alcohol vs starting sugar (follows the Lots sheet)",
+            "Starting sugar after additions (°Brix)",
+            "Final alcohol (% v/v)",
+            series,
+            xs.Length == 0 ? null : (Math.Floor(xs.Min()) - 1, Math.Ceiling(xs.Max()) + 1),
+            ys.Length == 0 ? null : (Math.Floor(ys.Min()) - 1, Math.Ceiling(ys.Max()) + 1));
+    }
+
+    /// <summary>Spreadsheet column letters of a 1-based column number (1 → A, 27 → AA).</summary>
+    public static string ColumnLetter(int column)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(column, 1);
+        string s = string.Empty;
+        while (column > 0)
+        {
+            int m = (column - 1) % 26;
+            s = (char)('A' + m) + s;
+            column = (column - 1) / 26;
+        }
+
+        return s;
+    }
+
+    private static WorksheetPart SheetPart(WorkbookPart wb, string name)
+    {
+        var sheet = wb.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().First(s => s.Name == name);
+        return (WorksheetPart)wb.GetPartById(sheet.Id!);
+    }
+
+    private static void WriteOverview(IXLWorksheet ws, ReviewResult review)
+    {
+        ws.Column(1).Width = 34;
+        ws.Column(2).Width = 22;
+        ws.Column(3).Width = 14;
+        ws.Column(4).Width = 14;
+        int r = 1;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "YieldBench review", 18);
+        SheetLayout.SetText(ws.Cell(r++, 1), "Tool version " + review.ToolVersion);
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Inputs", 13);
+        int leftOut = review.Inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+        Pair(ws, ref r, "Input files", review.Inputs.Files.Count);
+        Pair(ws, ref r, "Lots used", review.Lots.Count);
+        Pair(ws, ref r, "Rows left out (see Intake issues)", leftOut);
+        Pair(ws, ref r, "Intake issues", review.Inputs.Issues.Count);
+        Pair(ws, ref r, "Seasons", review.Inputs.Seasons.Count == 0 ? "none" : string.Join(", ", review.Inputs.Seasons));
+        Pair(ws, ref r, "Fermentation logs", review.Inputs.Logs.Count);
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Strains", 13);
+        SheetLayout.SetText(ws.Cell(r, 1), "Strain");
+        SheetLayout.SetText(ws.Cell(r, 2), "Lots");
+        ws.Range(r, 1, r, 2).Style.Font.Bold = true;
+        r++;
+        foreach (var g in review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal).OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal))
+        {
+            SheetLayout.SetText(ws.Cell(r, 1), g.Key);
+            ws.Cell(r, 2).SetValue(g.Count());
+            r++;
+        }
+
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "House conversion factor", 13);
+        var h = review.HouseFactor;
+        if (h.Overall is { } rec)
+        {
+            var chosen = h.Candidates.FirstOrDefault(c => c.Id == rec.CandidateId);
+            Pair(ws, ref r, "Recommended", chosen?.Name ?? rec.CandidateId);
+            Pair(ws, ref r, "Backtest", ReviewTables.SchemeName(h.PrimaryScheme));
+            PairNumber(ws, ref r, "Mean absolute error (% v/v)", rec.Metrics.Mae, "0.00");
+            PairNumber(ws, ref r, "Within label tolerance (" + h.Regime.Id + ")", rec.Metrics.ShareWithinTolerance, "0%");
+            PairNumber(ws, ref r, "80 % of errors from (% v/v)", rec.ErrorBand80.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % of errors to (% v/v)", rec.ErrorBand80.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % of errors from (% v/v)", rec.ErrorBand95.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % of errors to (% v/v)", rec.ErrorBand95.High, "+0.00;-0.00;0.00");
+            SheetLayout.SetText(ws.Cell(r, 1), rec.Explanation);
+            ws.Cell(r, 1).Style.Alignment.WrapText = true;
+            ws.Range(r, 1, r, 4).Merge();
+            ws.Row(r).Height = 75;
+            r++;
+        }
+        else
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), "No recommendation: " + string.Join(" ", h.Explanation.DefaultIfEmpty("too few lots to choose.")));
+        }
+
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
+        int flagged = review.Lots.Count(l => ReviewTables.LotFlags(review, l).Count > 0);
+        Pair(ws, ref r, "Flagged lots (highlighted on Lots)", flagged);
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Cautions", 13);
+        foreach (var caution in ReportTexts.Cautions)
+        {
+            SheetLayout.SetText(ws.Cell(r, 1), caution);
+            ws.Cell(r, 1).Style.Alignment.WrapText = true;
+            ws.Range(r, 1, r, 4).Merge();
+            ws.Row(r).Height = 48;
+            r++;
+        }
+    }
+
+    private static int WriteHouseFactor(IXLWorksheet ws, ReviewResult review)
+    {
+        var h = review.HouseFactor;
+        int r = 1;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "House conversion factor: candidates judged by backtest against " + h.Regime.Name, 13);
+        foreach (var line in h.Explanation.Concat(h.ImportanceSentence is null ? [] : [h.ImportanceSentence]))
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), line);
+        }
+
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Recommendation", 12);
+        var rec = SheetLayout.WriteTable(ws, ReviewTables.Recommendations(review), r, 1, freezeAndFilter: false);
+        r = rec.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Every candidate", 12);
+        var cand = SheetLayout.WriteTable(ws, ReviewTables.HouseCandidates(review), r, 1, freezeAndFilter: false);
+        r = cand.LastRow + 2;
+        foreach (var note in h.Notes)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), note);
+        }
+
+        return r + 1;
+    }
+
+    private static int WritePlanner(IXLWorksheet ws, ReviewResult review)
+    {
+        int r = 1;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Planner: the highest harvest sugar that keeps the predicted alcohol under a target", 13);
+        foreach (var caution in review.HouseFactor.Cautions)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), caution);
+        }
+
+        r++;
+        var placed = SheetLayout.WriteTable(ws, ReviewTables.Planner(review), r, 1, freezeAndFilter: false);
+        return placed.LastRow + 2;
+    }
+
+    private static void WriteMethods(IXLWorksheet ws, ReviewResult review)
+    {
+        int r = 1;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Methods and cautions", 14);
+        SheetLayout.SetText(ws.Cell(r++, 1), "YieldBench " + review.ToolVersion);
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Cautions", 12);
+        foreach (var caution in ReportTexts.Cautions)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), caution);
+        }
+
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Formulas and their sources", 12);
+        var formulas = SheetLayout.WriteTable(ws, MethodsTable.Formulas(review), r, 1, freezeAndFilter: false);
+        r = formulas.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Settings", 12);
+        var settings = SheetLayout.WriteTable(ws, MethodsTable.Settings(review), r, 1, freezeAndFilter: false);
+        r = settings.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Input files", 12);
+        var files = SheetLayout.WriteTable(ws, ReviewTables.InputFiles(review), r, 1, freezeAndFilter: false);
+        r = files.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Rows read per file and sheet", 12);
+        SheetLayout.WriteTable(ws, ReviewTables.RowAccounts(review), r, 1, freezeAndFilter: false);
+
+        // The tables above share columns; keep the first three wide enough for formulas and sources.
+        ws.Column(1).Width = Math.Max(ws.Column(1).Width, 40);
+        ws.Column(2).Width = Math.Min(Math.Max(ws.Column(2).Width, 60), 90);
+        ws.Column(3).Width = Math.Min(Math.Max(ws.Column(3).Width, 60), 90);
+        ws.Range(1, 2, r + 200, 3).Style.Alignment.WrapText = true;
+    }
+
+    private static void Pair(IXLWorksheet ws, ref int r, string label, object value)
+    {
+        SheetLayout.SetText(ws.Cell(r, 1), label);
+        switch (value)
+        {
+            case int i:
+                ws.Cell(r, 2).SetValue(i);
+                break;
+            default:
+                SheetLayout.SetText(ws.Cell(r, 2), Convert.ToString(value, CultureInfo.InvariantCulture) ?? string.Empty);
+                break;
+        }
+
+        r++;
+    }
+
+    private static void PairNumber(IXLWorksheet ws, ref int r, string label, double value, string format)
+    {
+        SheetLayout.SetText(ws.Cell(r, 1), label);
+        if (double.IsFinite(value))
+        {
+            ws.Cell(r, 2).SetValue(value);
+            ws.Cell(r, 2).Style.NumberFormat.Format = format;
+        }
+        else
+        {
+            SheetLayout.SetText(ws.Cell(r, 2), "too few lots");
+        }
+
+        r++;
+    }
+}

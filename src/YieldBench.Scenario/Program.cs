@@ -1,0 +1,3 @@
+using YieldBench.Scenario;
+
+return ScenarioProgram.Run(args, Console.Out, Console.Error);
