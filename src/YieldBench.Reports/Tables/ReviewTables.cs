@@ -114,7 +114,7 @@ public static class ReviewTables
                 lot.Source?.Sheet,
                 lot.Source?.Row,
             ],
-            highlight: flags.Count > 0);
+            highlight: IsFlagged(review, c));
         }
 
         return table;
@@ -142,6 +142,17 @@ public static class ReviewTables
         }
 
         return codes.Distinct(StringComparer.Ordinal).ToArray();
+    }
+
+    /// <summary>
+    /// True when the strain review flagged the lot (highlighted rows, chart rings, overview counts). Kinetics flags are
+    /// listed in the flags column too but shaded on the kinetics sheet, so that conversion charts mark conversion findings.
+    /// </summary>
+    public static bool IsFlagged(ReviewResult review, LotConversion lot)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(lot);
+        return review.Strains.Flags.Any(f => f.LotKey == lot.Lot.Key);
     }
 
     /// <summary>The most serious strain-review flag of a lot, or null when it has none.</summary>

@@ -315,7 +315,7 @@ public static class WorkbookWriter
 
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
-        int flagged = review.Lots.Count(l => ReviewTables.LotFlags(review, l).Count > 0);
+        int flagged = review.Lots.Count(l => ReviewTables.IsFlagged(review, l));
         Pair(ws, ref r, "Flagged lots (highlighted on Lots)", flagged);
         foreach (var severity in new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note })
         {

@@ -10,18 +10,36 @@ using C = DocumentFormat.OpenXml.Drawing.Charts;
 
 namespace YieldBench.Reports.Tests.Workbook;
 
-public sealed class WorkbookTests : IDisposable
+/// <summary>Builds the sample workbook once for the tests that only read it (charts take seconds to draw).</summary>
+public sealed class WorkbookFixture : IDisposable
 {
     private readonly TempFolder folder = new();
 
-    public void Dispose() => folder.Dispose();
-
-    private (byte[] Bytes, IReadOnlyList<ChartFile> Charts) Build(bool pictures = true)
+    public WorkbookFixture()
     {
-        var review = SampleReview.Build();
-        var charts = ReviewCharts.WriteAll(review, folder["charts"]);
-        return (WorkbookWriter.Build(review, charts, pictures), charts);
+        Review = SampleReview.Build();
+        Charts = ReviewCharts.WriteAll(Review, folder["charts"]);
+        Bytes = WorkbookWriter.Build(Review, Charts);
+        PictureFree = WorkbookWriter.Build(Review, Charts, includePictures: false);
     }
+
+    public Core.Review.ReviewResult Review { get; }
+
+    public IReadOnlyList<ChartFile> Charts { get; }
+
+    public byte[] Bytes { get; }
+
+    public byte[] PictureFree { get; }
+
+    public byte[] BuildAgain() => WorkbookWriter.Build(SampleReview.Build(), Charts);
+
+    public void Dispose() => folder.Dispose();
+}
+
+public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<WorkbookFixture>
+{
+    private (byte[] Bytes, IReadOnlyList<ChartFile> Charts) Build(bool pictures = true) =>
+        (pictures ? fixture.Bytes : fixture.PictureFree, fixture.Charts);
 
     [Fact]
     public void The_workbook_passes_the_Open_XML_validator_with_no_errors()
@@ -61,7 +79,7 @@ public sealed class WorkbookTests : IDisposable
     public void The_lots_sheet_reads_back_with_the_values_of_the_review()
     {
         // Given a workbook of a review
-        var review = SampleReview.Build();
+        var review = fixture.Review;
         var (bytes, _) = Build();
 
         // When the lots sheet is read with a managed reader (no libgdiplus needed even with pictures)
@@ -139,9 +157,9 @@ public sealed class WorkbookTests : IDisposable
     [Fact]
     public void The_same_review_gives_the_same_workbook_bytes()
     {
-        // Given one review built twice
+        // Given one review built twice, from scratch
         var (first, _) = Build();
-        var (second, _) = Build();
+        var second = fixture.BuildAgain();
 
         // When compared byte for byte
         // Then they are identical (fixed package times, fixed zip entry times, no clock inside)
@@ -168,7 +186,7 @@ public sealed class WorkbookTests : IDisposable
     public void A_picture_free_workbook_reopens_in_ClosedXML_with_the_values()
     {
         // Given the workbook without pictures (ClosedXML needs libgdiplus to open one with pictures)
-        var review = SampleReview.Build();
+        var review = fixture.Review;
         var (bytes, _) = Build(pictures: false);
 
         // When ClosedXML opens it
