@@ -135,7 +135,7 @@ public class OivMustTableTests
             .Select(r => r.DensityKgPerL - SugarScales.DensityFromBrix(r.Brix))
             .ToArray();
 
-        // Then must is denser by 0.5–1.7 g/L (at most 0.15 %): the documented error of using sucrose density in mass balances
+        // Then must is denser by 0.5–1.7 g/L (at most 0.14 %): the documented error of using sucrose density in mass balances
         Assert.All(excess, e => Assert.InRange(e, 0.0004, 0.0018));
     }
 }
