@@ -45,6 +45,9 @@ public static class YieldBenchApp
     private static IEnumerable<Command> AllCommands(CliContext context)
     {
         yield return Commands.ReviewCommand.Create(context);
+        yield return Commands.CheckCommand.Create(context);
+        yield return Commands.TemplateCommand.Create(context);
+        yield return Commands.PlanCommand.Create(context);
     }
 
     private sealed class PrintVersion(CliContext context) : SynchronousCommandLineAction

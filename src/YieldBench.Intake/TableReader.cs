@@ -102,7 +102,8 @@ internal static partial class TableReader
         SettleUnits(ctx);
         foreach (var c in columns)
         {
-            run.Mappings.Add(new HeaderMapping(file, sheetName, c.Field.Name, c.Header, ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : null));
+            string unit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : c.Field.Unit;
+            run.Mappings.Add(new HeaderMapping(file, sheetName, c.Field.Name, c.Header, unit.Length > 0 ? unit : null));
         }
 
         return kind == TableKind.Lots ? ReadLots(ctx) : ReadLog(ctx, Path.GetFileNameWithoutExtension(fullPath));
@@ -153,6 +154,7 @@ internal static partial class TableReader
             var row = sheet.Rows[r];
             var lotFields = new HashSet<string>();
             var logFields = new HashSet<string>();
+            int texts = 0, matched = 0;
             foreach (var cell in row)
             {
                 if (cell is not string s || s.Trim().Length == 0)
@@ -160,19 +162,27 @@ internal static partial class TableReader
                     continue;
                 }
 
+                texts++;
+                bool any = false;
                 if (Match(run, s, TableKind.Lots, out _) is { } lf)
                 {
                     lotFields.Add(lf.Name);
+                    any = true;
                 }
 
                 if (Match(run, s, TableKind.Log, out _) is { } gf)
                 {
                     logFields.Add(gf.Name);
+                    any = true;
                 }
+
+                matched += any ? 1 : 0;
             }
 
+            // A header row names at least two fields, and most of its cells are field names (a row of notes
+            // that happens to mention two field words is not a header).
             int score = Math.Max(lotFields.Count, logFields.Count);
-            if (score > bestScore)
+            if (score > bestScore && (matched * 2 >= texts || score >= 4))
             {
                 bestScore = score;
                 headerRow = r;
@@ -906,7 +916,7 @@ internal static partial class TableReader
             if (when is null && !st.Bad)
             {
                 var c = tsCol ?? dateCol!;
-                st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-value", IntakeMessages.MissingTimestamp(), true);
+                st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-timestamp", IntakeMessages.MissingTimestamp(), true);
             }
 
             SugarReading? sugar = sugarCol is null ? null : SugarField(st, "sugar");

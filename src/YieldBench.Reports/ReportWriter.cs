@@ -1,6 +1,7 @@
 using YieldBench.Core.Review;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Data;
+using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Output;
 using YieldBench.Reports.Tables;
 using YieldBench.Reports.Workbook;
@@ -32,8 +33,17 @@ public static class ReportWriter
         /// <summary>One row per lot used.</summary>
         public const string Lots = "data/lots.csv";
 
+        /// <summary>Group summaries.</summary>
+        public const string Groups = "data/groups.csv";
+
+        /// <summary>Odd-lot flags.</summary>
+        public const string Flags = "data/flags.csv";
+
         /// <summary>Intake issues.</summary>
         public const string IntakeIssues = "data/intake-issues.csv";
+
+        /// <summary>Kinetics per lot (when logs were read).</summary>
+        public const string Kinetics = "data/" + KineticsCsv.FileName;
     }
 
     /// <summary>Writes everything; <paramref name="progress"/> hears the name of each step.</summary>
@@ -54,10 +64,26 @@ public static class ReportWriter
 
         progress?.Report("data files");
         Text(DataFiles.Lots, CsvText.Write(ReviewTables.Lots(review)));
+        Text(DataFiles.Groups, CsvText.Write(ReviewTables.Groups(review)));
+        Text(DataFiles.Flags, CsvText.Write(ReviewTables.Flags(review)));
         Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
+        if (review.Kinetics is { } kinetics)
+        {
+            using var csv = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);
+            KineticsCsv.Write(kinetics, csv);
+            Text(DataFiles.Kinetics, csv.ToString());
+        }
 
         progress?.Report("charts");
-        var charts = ReviewCharts.WriteAll(review, Path.Combine(root, "charts"));
+        string chartFolder = Path.Combine(root, "charts");
+        var charts = ReviewCharts.WriteAll(review, chartFolder).ToList();
+        if (review.Kinetics is { } k)
+        {
+            // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
+            charts.AddRange(KineticsCharts.RenderFiles(k, review.Lots, chartFolder)
+                .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
+        }
+
         written.AddRange(charts.Select(c => Relative(root, c.Path)));
 
         progress?.Report("workbook");

@@ -27,8 +27,8 @@ public sealed record HouseFactorSettings
     /// <summary>Above this many lots leave-one-lot-out gives way to ten seeded folds (default 3000).</summary>
     public int MaximumLotsForLeaveOneLotOut { get; init; } = 3000;
 
-    /// <summary>Above this many lots a costly candidate (the multi-variable model) uses ten folds instead of leave-one-lot-out (default 400).</summary>
-    public int MaximumLotsForCostlyLeaveOneLotOut { get; init; } = 400;
+    /// <summary>Above this many lots a costly candidate (robust lines, the multi-variable model) uses ten folds instead of leave-one-lot-out (default 100).</summary>
+    public int MaximumLotsForCostlyLeaveOneLotOut { get; init; } = 100;
 
     /// <summary>Fewest held-out errors of a strain for intervals of its own (default 39, the fewest for a 95 % interval).</summary>
     public int MinimumErrorsForStrainIntervals { get; init; } = 39;

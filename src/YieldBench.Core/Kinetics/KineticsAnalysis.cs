@@ -16,7 +16,7 @@ public static class KineticsAnalysis
     /// <summary>Flag codes a lot can carry, in the order they are listed.</summary>
     public static IReadOnlyList<string> FlagOrder { get; } =
     [
-        "stuck", "sluggish", "not-dry-at-log-end", "above-danger-temp", "above-caution-temp", "heat-potential-above-danger",
+        "stuck", "sluggish", "not-dry-at-log-end", "above-danger-temp", "above-caution-temp",
         "out-of-order-timestamp", "duplicate-timestamp", "sugar-rose",
     ];
 
@@ -450,12 +450,14 @@ public static class KineticsAnalysis
         HeatPoint? potentialPeak = heat.Count == 0 ? null : heat.Aggregate((a, b) => b.PotentialTemperatureC > a.PotentialTemperatureC ? b : a);
         double? removed = potentialPeak is not null && peak is not null ? potentialPeak.PotentialTemperatureC - peak.Value : null;
         var hot = heat.FirstOrDefault(h => h.PotentialTemperatureC > th.DangerC);
+        int hotReadings = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
         if (hot is not null)
         {
-            flags.Add("heat-potential-above-danger");
+            // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
+            // reminder of the cooling the lot depended on, not a sign that something went wrong.
             int count = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
             string observed = peak is { } pk ? $" The logged peak was {F(pk)} °C, so about {F(removed!.Value)} K of the potential was removed by the vessel, cap management and cooling." : string.Empty;
-            findings.Add(new(key, "heat-potential-above-danger", $"At {F(hot.Brix)} °Brix and {F(hot.TemperatureC)} °C this lot could have reached {F(hot.PotentialTemperatureC)} °C without cooling ({Stamp(hot.Time)}; {count} reading(s) above the {F(th.DangerC)} °C danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source));
+            findings.Add(new(key, "heat-potential-above-danger", $"Lot {key}: at {F(hot.Brix)} °Brix and {F(hot.TemperatureC)} °C this lot could have reached {F(hot.PotentialTemperatureC)} °C without cooling ({Stamp(hot.Time)}; {count} reading(s) above the {F(th.DangerC)} °C danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source));
         }
 
         var consumed = bx.Select(b => start - b).ToArray();
@@ -499,6 +501,7 @@ public static class KineticsAnalysis
             Sluggish = sluggish,
             Stuck = stuck,
             Heat = heat,
+            ReadingsWithPotentialAboveDanger = hotReadings,
             PotentialPeak = potentialPeak,
             HeatRemovedK = removed,
             Gompertz = gomp,
@@ -597,7 +600,22 @@ public static class KineticsAnalysis
             return null;
         }
 
-        int i = Array.FindIndex(temps, p => p.Time >= t);
+        // First reading at or after t, by binary search (dense probe logs hold thousands of readings).
+        int lo = 0, hi = temps.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (temps[mid].Time < t)
+            {
+                lo = mid + 1;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        int i = lo == temps.Length ? -1 : lo;
         if (i >= 0 && temps[i].Time == t)
         {
             return temps[i].Celsius;

@@ -205,6 +205,9 @@ public sealed record LotKinetics
     /// <summary>Heat potential at every sugar reading with a temperature.</summary>
     public required IReadOnlyList<HeatPoint> Heat { get; init; }
 
+    /// <summary>Sugar readings at which the temperature reachable without cooling passes the danger threshold.</summary>
+    public required int ReadingsWithPotentialAboveDanger { get; init; }
+
     /// <summary>The reading with the highest temperature reachable without cooling.</summary>
     public HeatPoint? PotentialPeak { get; init; }
 
@@ -217,7 +220,10 @@ public sealed record LotKinetics
     /// <summary>Modified logistic fit (Zwietering et al. 1990).</summary>
     public required SigmoidFitResult Logistic { get; init; }
 
-    /// <summary>Flag codes for this lot (e.g. <c>stuck</c>, <c>above-danger-temp</c>), in a fixed order.</summary>
+    /// <summary>
+    /// Flag codes for this lot (e.g. <c>stuck</c>, <c>above-danger-temp</c>), in <see cref="KineticsAnalysis.FlagOrder"/>.
+    /// The heat potential is reported as a finding and in <see cref="ReadingsWithPotentialAboveDanger"/>, not as a flag.
+    /// </summary>
     public required IReadOnlyList<string> Flags { get; init; }
 
     /// <summary>True when the lot needs a look (any flag).</summary>

@@ -8,6 +8,9 @@ namespace YieldBench.Core.Statistics;
 /// </summary>
 public static class Bootstrap
 {
+    /// <summary>Largest n resampled literally; above it each resample's median is drawn from its exact law.</summary>
+    public const int DirectLimit = 1000;
+
     /// <summary>Fewest resamples accepted: below about 1,000 the tail quantiles of a 95 % interval wander visibly.</summary>
     public const int MinResamples = 200;
 
@@ -15,8 +18,12 @@ public static class Bootstrap
     /// Percentile bootstrap interval of the median. <paramref name="level"/> in (0, 1), typically 0.95;
     /// <paramref name="resamples"/> ≥ 200 (2,000 or more for reports). Undefined (NaN ends) when there are fewer than
     /// two values; a zero-width interval when all values are equal.
-    /// Cost O(resamples · n): the values are sorted once and each resample's median is the value at the median of
-    /// its drawn ranks, because drawing ranks into a sorted array preserves order.
+    /// The values are sorted once; a resample's median is then the value at the median of its drawn ranks, because
+    /// drawing ranks into a sorted array preserves order. Up to <see cref="DirectLimit"/> values the n ranks of each
+    /// resample are drawn (O(resamples · n)). Above it the median rank is drawn directly from its law, in O(1) per
+    /// resample: a drawn rank is ⌊n·U⌋ with U uniform, so the m-th smallest of n drawn ranks is ⌊n·U₍ₘ₎⌋ where the
+    /// uniform order statistic U₍ₘ₎ ~ Beta(m, n + 1 − m); for even n the next one is U₍ₘ₎ + (1 − U₍ₘ₎)·Beta(1, n − m).
+    /// Both ways sample the same bootstrap distribution; only the random stream differs.
     /// </summary>
     public static Interval MedianInterval(IEnumerable<double> values, int resamples, double level, int seed)
     {
@@ -34,6 +41,15 @@ public static class Bootstrap
         }
 
         var random = new Random(seed);
+        var medians = n <= DirectLimit ? ResampledMedians(x, resamples, random) : MedianLawMedians(x, resamples, random);
+        Array.Sort(medians);
+        double tail = (1 - level) / 2;
+        return new Interval(Descriptive.QuantileOfSorted(medians, tail), Descriptive.QuantileOfSorted(medians, 1 - tail), level);
+    }
+
+    private static double[] ResampledMedians(double[] x, int resamples, Random random)
+    {
+        int n = x.Length;
         var ranks = new int[n];
         var medians = new double[resamples];
         for (int b = 0; b < resamples; b++)
@@ -62,9 +78,30 @@ public static class Bootstrap
             }
         }
 
-        Array.Sort(medians);
-        double tail = (1 - level) / 2;
-        return new Interval(Descriptive.QuantileOfSorted(medians, tail), Descriptive.QuantileOfSorted(medians, 1 - tail), level);
+        return medians;
+    }
+
+    private static double[] MedianLawMedians(double[] x, int resamples, Random random)
+    {
+        int n = x.Length;
+        int m = (n + 1) / 2;
+        var medians = new double[resamples];
+        int Rank(double u) => Math.Min(n - 1, (int)Math.Floor(n * u));
+        for (int b = 0; b < resamples; b++)
+        {
+            double u = MathNet.Numerics.Distributions.Beta.Sample(random, m, n + 1 - m);
+            if (n % 2 == 1)
+            {
+                medians[b] = x[Rank(u)];
+            }
+            else
+            {
+                double next = u + ((1 - u) * MathNet.Numerics.Distributions.Beta.Sample(random, 1, n - m));
+                medians[b] = 0.5 * (x[Rank(u)] + x[Rank(next)]);
+            }
+        }
+
+        return medians;
     }
 
     internal static void CheckLevel(double level)

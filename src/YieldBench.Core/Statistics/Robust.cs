@@ -54,6 +54,32 @@ public static class Robust
     /// </summary>
     public static double Mad(IEnumerable<double> values) => MadConsistency * RawMad(values);
 
+    /// <summary>√(π/2): makes the mean absolute deviation consistent for the normal standard deviation.</summary>
+    public static readonly double MeanAbsoluteDeviationConsistency = Math.Sqrt(Math.PI / 2);
+
+    /// <summary>
+    /// Mean absolute deviation about the median, scaled by √(π/2) to be consistent for the normal standard deviation.
+    /// Not robust (its breakdown point is 0), but it is positive whenever the values are not all equal, so it serves
+    /// as the last fallback scale when more than half the values are tied and MAD, Qn and Sn are all 0.
+    /// NaN when empty; 0 when all values are equal.
+    /// </summary>
+    public static double MeanAbsoluteDeviation(IEnumerable<double> values)
+    {
+        var a = Descriptive.ToSortedArray(values);
+        if (a.Length == 0)
+        {
+            return double.NaN;
+        }
+
+        double med = Descriptive.MedianOfSorted(a), sum = 0;
+        foreach (double v in a)
+        {
+            sum += Math.Abs(v - med);
+        }
+
+        return MeanAbsoluteDeviationConsistency * sum / a.Length;
+    }
+
     /// <summary>
     /// Iglewicz–Hoaglin modified z-score M = 0.6745 (x − median) / raw MAD. The usual outlier rule is |M| &gt; 3.5.
     /// When the raw MAD is 0 the score is undefined: this returns NaN and callers choose a fallback scale.
@@ -93,7 +119,24 @@ public static class Robust
             last[i] = n - 1;
         }
 
-        double kth = SortedMatrixSelection.Select(n, first, last, (i, j) => x[j] - x[i], k);
+        // Entries of row i below t are the j > i with x[j] − x[i] < t; that boundary only moves right as i grows
+        // (the comparison is on the difference itself, exactly as the entries are formed).
+        void Count(double t, bool strict, long[] counts)
+        {
+            int p = 0;
+            for (int i = 0; i < n; i++)
+            {
+                p = Math.Max(p, i + 1);
+                while (p < n && (strict ? x[p] - x[i] < t : x[p] - x[i] <= t))
+                {
+                    p++;
+                }
+
+                counts[i] = p - (i + 1);
+            }
+        }
+
+        double kth = SortedMatrixSelection.Select(n, first, last, (i, j) => x[j] - x[i], k, Count);
         double raw = QnConsistency * kth;
         return n <= 12 ? raw * QnSmallSample[n - 2] : raw / QnFiniteCorrection(n);
     }

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using MathNet.Numerics.Distributions;
 
 namespace YieldBench.Core.Statistics;
@@ -152,6 +153,9 @@ public static class TheilSen
         private readonly double maxSlope;
         private readonly double[] keys;
         private readonly double[] buffer;
+        private readonly double maxAbsY;
+        private readonly double maxAbsX;
+        private readonly double minGapX;
 
         public SlopeSelector(IReadOnlyList<double> x, IReadOnlyList<double> y, int seed)
         {
@@ -166,6 +170,16 @@ public static class TheilSen
             pairs = ((long)n * (n - 1) / 2) - tiedXPairs;
             keys = new double[n];
             buffer = new double[n];
+            maxAbsY = py.Max(Math.Abs);
+            maxAbsX = px.Max(Math.Abs);
+            minGapX = double.PositiveInfinity;
+            for (int i = 1; i < n; i++)
+            {
+                if (px[i] > px[i - 1])
+                {
+                    minGapX = Math.Min(minGapX, px[i] - px[i - 1]);
+                }
+            }
 
             // The extreme slopes join neighbouring distinct x values (a slope across a gap averages those inside it).
             minSlope = double.PositiveInfinity;
@@ -238,29 +252,73 @@ public static class TheilSen
             TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Max(0, q - spread)), k, ref lo, ref cLo, ref hi, ref cHi);
             TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Min(1, q + spread)), k, ref lo, ref cLo, ref hi, ref cHi);
 
-            for (int round = 0; round < 400 && cHi - cLo > window; round++)
+            for (int round = 0; round < 200 && cHi - cLo > window; round++)
             {
                 long before = cHi - cLo;
                 double fraction = (double)(k - cLo) / (cHi - cLo);
                 double half = (double)(window / 4) / (cHi - cLo);
-                TryNarrow(lo + ((hi - lo) * Math.Max(0, fraction - half)), k, ref lo, ref cLo, ref hi, ref cHi);
-                TryNarrow(lo + ((hi - lo) * Math.Min(1, fraction + half)), k, ref lo, ref cLo, ref hi, ref cHi);
+                double t1 = lo + ((hi - lo) * Math.Max(0, fraction - half));
+                double t2 = lo + ((hi - lo) * Math.Min(1, fraction + half));
+                TryNarrow(t1, k, ref lo, ref cLo, ref hi, ref cHi);
+                TryNarrow(t2, k, ref lo, ref cLo, ref hi, ref cHi);
                 if (cHi - cLo > before / 2)
                 {
-                    TryNarrow(lo + ((hi - lo) / 2), k, ref lo, ref cLo, ref hi, ref cHi);
+                    // Interpolation stalls on a point mass of tied slopes (common with rounded data): probe just
+                    // either side of a sampled slope inside the bracket, which closes the bracket on the mass at once.
+                    if (SampledSlopeInside(lo, hi) is { } tied)
+                    {
+                        double eps = TieWidth(tied);
+                        TryNarrow(tied - eps, k, ref lo, ref cLo, ref hi, ref cHi);
+                        TryNarrow(tied + eps, k, ref lo, ref cLo, ref hi, ref cHi);
+                    }
+
+                    if (cHi - cLo > before / 2)
+                    {
+                        TryNarrow(lo + ((hi - lo) / 2), k, ref lo, ref cLo, ref hi, ref cHi);
+                    }
                 }
 
-                if (Math.BitIncrement(lo) >= hi)
+                if (hi - lo <= 2 * TieWidth(hi))
                 {
-                    // No double lies strictly between: every slope inside the bracket equals hi.
-                    return hi;
+                    break;
                 }
             }
 
-            var inside = ListBetween(lo, hi);
+            if (cHi - cLo > window)
+            {
+                // Every slope left in the bracket lies within the tie width: they are one tied value; take one of them.
+                var any = ListBetween(lo, hi, limit: 1);
+                return any.Count > 0 ? any[0] : hi;
+            }
+
+            var inside = ListBetween(lo, hi, limit: int.MaxValue);
             inside.Sort();
             long rank = k - cLo;
             return inside[(int)Math.Clamp(rank - 1, 0, inside.Count - 1)];
+        }
+
+        /// <summary>
+        /// Half-width within which two slopes count as tied: comparisons of y − t·x are trusted only when t is farther
+        /// than this from a slope, given the keys' magnitude and the smallest gap between distinct x values.
+        /// </summary>
+        private double TieWidth(double slope) => 1e-13 * (maxAbsY + (Math.Abs(slope) * maxAbsX)) / minGapX;
+
+        private double? SampledSlopeInside(double lo, double hi)
+        {
+            int a = Array.BinarySearch(sample, lo);
+            a = a < 0 ? ~a : a;
+            while (a < sample.Length && sample[a] <= lo)
+            {
+                a++;
+            }
+
+            int b = a;
+            while (b < sample.Length && sample[b] < hi)
+            {
+                b++;
+            }
+
+            return b > a ? sample[a + ((b - a) / 2)] : null;
         }
 
         private void TryNarrow(double t, long k, ref double lo, ref long cLo, ref double hi, ref long cHi)
@@ -284,6 +342,7 @@ public static class TheilSen
         }
 
         /// <summary>Number of pairs with distinct x whose slope is at most t.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private long CountAtOrBelow(double t)
         {
             for (int i = 0; i < px.Length; i++)
@@ -296,6 +355,7 @@ public static class TheilSen
         }
 
         /// <summary>Sorts a[from..to) ascending and returns the number of pairs i &lt; j with a[i] ≥ a[j].</summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private static long CountInversions(double[] a, double[] tmp, int from, int to)
         {
             int len = to - from;
@@ -335,7 +395,7 @@ public static class TheilSen
         }
 
         /// <summary>Slopes s with lo &lt; s ≤ hi, listed in time proportional to their number (plus exact duplicates).</summary>
-        private List<double> ListBetween(double lo, double hi)
+        private List<double> ListBetween(double lo, double hi, int limit)
         {
             int n = px.Length;
 
@@ -352,21 +412,22 @@ public static class TheilSen
 
             var idx = Enumerable.Range(0, n).OrderBy(i => a[i]).ThenBy(i => b[i]).ToArray();
             var result = new List<double>();
-            ListInversions(idx, new int[n], a, b, 0, n, result);
+            ListInversions(idx, new int[n], a, b, 0, n, result, limit);
             return result;
         }
 
-        private void ListInversions(int[] idx, int[] tmp, double[] a, double[] b, int from, int to, List<double> result)
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+        private void ListInversions(int[] idx, int[] tmp, double[] a, double[] b, int from, int to, List<double> result, int limit)
         {
             int len = to - from;
-            if (len < 2)
+            if (len < 2 || result.Count >= limit)
             {
                 return;
             }
 
             int mid = from + (len / 2);
-            ListInversions(idx, tmp, a, b, from, mid, result);
-            ListInversions(idx, tmp, a, b, mid, to, result);
+            ListInversions(idx, tmp, a, b, from, mid, result, limit);
+            ListInversions(idx, tmp, a, b, mid, to, result, limit);
             int i = from, j = mid, o = from;
             while (i < mid && j < to)
             {
@@ -382,6 +443,10 @@ public static class TheilSen
                         if (a[p] < a[q] && px[p] < px[q])
                         {
                             result.Add((py[q] - py[p]) / (px[q] - px[p]));
+                            if (result.Count >= limit)
+                            {
+                                return;
+                            }
                         }
                     }
 

@@ -85,11 +85,11 @@ public static class ReviewCharts
             var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
             band.FillColor = ChartPalette.Band.WithAlpha(0.25);
             band.LineWidth = 0;
-            band.LegendText = $"label tolerance ({regime.Id})";
+            band.LegendText = $"label tolerance: {regime.Name}";
             var rec = plot.Add.ScatterLine(grid, predicted, ChartPalette.Reference);
             rec.LineWidth = 3;
             rec.LinePattern = LinePattern.Dashed;
-            rec.LegendText = "recommended: " + CandidateName(review, line.CandidateId);
+            rec.LegendText = "planner line (all lots): " + CandidateName(review, line.CandidateId);
         }
 
         var fitted = StrainLinesForChart(review);
@@ -148,10 +148,12 @@ public static class ReviewCharts
                 WhiskerMax = sorted.Where(v => v <= q3 + (1.5 * iqr)).Max(),
                 Width = 0.5,
             };
-            box.FillStyle.Color = color.WithAlpha(0.35);
-            box.LineStyle.Color = color;
-            box.LineStyle.Width = 2;
             plot.Add.Box(box);
+
+            // Set after adding: adding a box gives it the plot's next palette colour.
+            box.FillColor = color.WithAlpha(0.30);
+            box.LineColor = color;
+            box.LineWidth = 2;
 
             // Points spread sideways by rank (deterministic, no random jitter) so equal values stay visible.
             var xs = members.Select((m, k) => i + 0.3 + (0.15 * ((k % 7) - 3) / 3.0)).ToArray();
@@ -281,7 +283,8 @@ public static class ReviewCharts
         var line = plot.Add.VerticalLine(median, 3, ChartPalette.Reference, LinePattern.Dashed);
         line.LegendText = "median of all lots " + median.ToString("0.000", System.Globalization.CultureInfo.InvariantCulture);
         ChartStyle.ShowLegend(plot, Alignment.UpperRight);
-        plot.Axes.Margins(bottom: 0);
+        plot.Axes.SetLimitsX(lo - binWidth, hi + binWidth);
+        plot.Axes.SetLimitsY(0, hist.Counts.Max() * 1.15);
         return plot;
     }
 
@@ -302,7 +305,7 @@ public static class ReviewCharts
 
     private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
     {
-        var flagged = lots.Where(l => ReviewTables.LotFlags(review, l).Count > 0 && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var flagged = lots.Where(l => ReviewTables.IsFlagged(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;
@@ -310,6 +313,6 @@ public static class ReviewCharts
 
         var rings = plot.Add.Markers(flagged.Select(x).ToArray(), flagged.Select(y).ToArray(), MarkerShape.OpenCircle, 20, ChartPalette.Flagged);
         rings.MarkerLineWidth = 2.5f;
-        rings.LegendText = $"flagged ({flagged.Length})";
+        rings.LegendText = $"flagged by the strain review ({flagged.Length})";
     }
 }

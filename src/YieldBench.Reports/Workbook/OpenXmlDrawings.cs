@@ -44,7 +44,7 @@ public static class OpenXmlDrawings
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(place);
         var drawings = DrawingsFor(sheet);
-        var chartPart = drawings.AddNewPart<ChartPart>();
+        var chartPart = drawings.AddNewPart<ChartPart>(RelationshipId("ybChart", drawingId));
         chartPart.ChartSpace = BuildChartSpace(spec);
         chartPart.ChartSpace.Save();
         string relId = drawings.GetIdOfPart(chartPart);
@@ -67,7 +67,7 @@ public static class OpenXmlDrawings
         ArgumentNullException.ThrowIfNull(png);
         ArgumentNullException.ThrowIfNull(place);
         var drawings = DrawingsFor(sheet);
-        var image = drawings.AddImagePart(ImagePartType.Png);
+        var image = drawings.AddImagePart(ImagePartType.Png, RelationshipId("ybImage", drawingId));
         using (var stream = new MemoryStream(png, writable: false))
         {
             image.FeedData(stream);
@@ -85,6 +85,9 @@ public static class OpenXmlDrawings
         drawings.WorksheetDrawing!.Append(Anchor(place, picture));
         drawings.WorksheetDrawing.Save();
     }
+
+    private static string RelationshipId(string prefix, uint drawingId) =>
+        prefix + drawingId.ToString(System.Globalization.CultureInfo.InvariantCulture);
 
     private static Xdr.OneCellAnchor Anchor(DrawingPlace place, OpenXmlElement content) =>
         new(
@@ -104,7 +107,8 @@ public static class OpenXmlDrawings
             return existing;
         }
 
-        var drawings = sheet.AddNewPart<DrawingsPart>();
+        // Fixed relationship ids: the SDK would draw random ones, and the same review must give the same bytes.
+        var drawings = sheet.AddNewPart<DrawingsPart>("ybDrawing");
         drawings.WorksheetDrawing = new Xdr.WorksheetDrawing();
         drawings.WorksheetDrawing.AddNamespaceDeclaration("xdr", "http://schemas.openxmlformats.org/drawingml/2006/spreadsheetDrawing");
         drawings.WorksheetDrawing.AddNamespaceDeclaration("a", "http://schemas.openxmlformats.org/drawingml/2006/main");
@@ -174,7 +178,7 @@ public static class OpenXmlDrawings
         return new C.ScatterChartSeries(
             new C.Index { Val = index },
             new C.Order { Val = index },
-            new C.SeriesText(new C.StringLiteral(new C.PointCount { Val = 1 }, new C.StringPoint(new C.NumericValue(s.Name)) { Index = 0 })),
+            new C.SeriesText(new C.NumericValue(s.Name)),
             new C.ChartShapeProperties(new A.Outline(new A.NoFill())),
             new C.Marker(
                 new C.Symbol { Val = C.MarkerStyleValues.Circle },

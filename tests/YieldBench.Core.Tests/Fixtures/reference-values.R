@@ -26,3 +26,4 @@ p("wilcox exact W p", c(w$statistic, w$p.value)); p("HL exact est ci", c(w$estim
 p("holm", p.adjust(c(0.01, 0.04, 0.03, 0.005, NA), "holm"))
 f <- rlm(stack.loss ~ ., stackloss)
 p("rlm coef", coef(f)); p("rlm se", summary(f)$coefficients[, 2]); p("rlm scale", f$s)
+x <- chem; p("chem mean abs dev about median x sqrt(pi/2)", mean(abs(x - median(x))) * sqrt(pi / 2))

@@ -159,3 +159,59 @@ public class BacktestTests
         Assert.Contains(review.Explanation, s => s.StartsWith("Only one season is present", StringComparison.Ordinal));
     }
 }
+
+public class PlannerFallbackTests
+{
+    /// <summary>A stand-in for a multi-variable model: knows the true rule, including the nitrogen effect.</summary>
+    private sealed class KnowsNitrogen : ICandidateTrainer, IAbvPredictor
+    {
+        public string Id => "knows-nitrogen";
+
+        public string Name => "Knows nitrogen";
+
+        public string Description => "Test stand-in.";
+
+        public int Complexity => 10;
+
+        public bool IsCostly => false;
+
+        public IAbvPredictor Train(IReadOnlyList<YieldBench.Core.Conversion.LotConversion> lots, int seed) => this;
+
+        public double PredictAbv(PredictionInput input) => (0.58 * input.StartingBrix) + (0.01 * (input.YanMgL!.Value - 200));
+
+        public SugarLines? AsSugarLines() => null;
+
+        public IReadOnlyList<FeatureImportance> Importance(IReadOnlyList<YieldBench.Core.Conversion.LotConversion> lots, int seed) =>
+            [new("starting sugar", 1.0), new("YAN", 0.5)];
+    }
+
+    [Fact]
+    public void When_the_chosen_model_needs_more_than_strain_and_sugar_the_planner_uses_the_best_that_does_and_says_so()
+    {
+        // Given lots whose alcohol depends strongly on YAN, which only the stand-in model knows
+        var rng = new Random(3);
+        var lots = Enumerable.Range(0, 60).Select(i =>
+        {
+            double brix = 20 + (7 * rng.NextDouble()), yan = 100 + (200 * rng.NextDouble());
+            var lot = new YieldBench.Core.Lots.Lot
+            {
+                LotId = $"L{i}",
+                Season = 2022 + (i % 3),
+                Strain = "SX-01",
+                StartingSugar = YieldBench.Core.Units.SugarReading.FromBrix(brix),
+                FinalAlcohol = YieldBench.Core.Units.AlcoholContent.FromPercentVolume((0.58 * brix) + (0.01 * (yan - 200)) + (0.05 * SyntheticLots.Gaussian(rng))),
+                YanMgL = yan,
+            };
+            return YieldBench.Core.Conversion.ConversionFactors.For(lot, YieldBench.Core.Conversion.SugarModel.Default);
+        }).ToArray();
+
+        // When the analysis runs with the stand-in offered
+        var review = HouseFactorAnalysis.Run(lots, new HouseFactorSettings(), [new KnowsNitrogen()], 1);
+
+        // Then the stand-in is chosen, the planner uses a strain-and-sugar candidate, and the explanation says why
+        Assert.Equal("knows-nitrogen", review.Overall!.CandidateId);
+        Assert.NotEqual("knows-nitrogen", review.Planning!.Pooled.CandidateId);
+        Assert.Contains(review.Explanation, s => s.StartsWith("The chosen model needs more inputs than strain and sugar, so the planner uses ", StringComparison.Ordinal));
+        Assert.Equal("Knows nitrogen: Starting sugar explains most; YAN second.", review.ImportanceSentence);
+    }
+}

@@ -122,8 +122,9 @@ public class TemperatureAndHeatTests
         Assert.Equal(expected, lot.Heat[0].PotentialRiseK, 2);
         Assert.Equal(29.0 + expected, lot.PotentialPeak!.PotentialTemperatureC, 2);
         Assert.Equal(29.0 + expected - 33.0, lot.HeatRemovedK!.Value, 2);
+        Assert.Equal(3, lot.ReadingsWithPotentialAboveDanger);
         var f = Assert.Single(review.Findings, x => x.Code == "heat-potential-above-danger");
-        Assert.StartsWith("At 20.0 °Brix and 29.0 °C this lot could have reached 54.4 °C without cooling (2025-10-01 00:00;", f.Message);
+        Assert.StartsWith("Lot 2025/T-101: at 20.0 °Brix and 29.0 °C this lot could have reached 54.4 °C without cooling (2025-10-01 00:00;", f.Message);
         Assert.Contains("The logged peak was 33.0 °C, so about 21.4 K of the potential was removed", f.Message);
     }
 
@@ -137,7 +138,7 @@ public class TemperatureAndHeatTests
         var lot = Assert.Single(KineticsAnalysis.Run([Lot(colour: WineColour.White, startingBrix: 4.0)], [log], KineticsSettings.Default).Lots);
 
         // Then no heat flag is raised and the potential stays under 20 °C
-        Assert.DoesNotContain("heat-potential-above-danger", lot.Flags);
+        Assert.Equal(0, lot.ReadingsWithPotentialAboveDanger);
         Assert.InRange(lot.PotentialPeak!.PotentialTemperatureC, 12.0, 20.0);
     }
 

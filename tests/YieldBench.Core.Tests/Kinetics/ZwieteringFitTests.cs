@@ -39,6 +39,35 @@ public class ZwieteringFitTests
         Assert.Equal(fit.MaxRateBrixPerHour * 24.0, fit.MaxRateBrixPerDay, 12);
     }
 
+    // Sugar consumed (°Brix) every 6 h from Gompertz(A 25, μm 0.30, λ 15) plus Gaussian noise sd 0.15, rounded to 0.01.
+    // Generated and fitted with scipy 1.10.1 / numpy 1.24.2 (Debian python3-scipy 1.10.1-2, `apt-get install python3-scipy`):
+    //   rng = numpy.random.default_rng(2025); y = round(gomp(t, 25, 0.30, 15) + rng.normal(0, 0.15, 29), 2)
+    //   scipy.optimize.curve_fit(f, t, y, p0=[25, 0.3, 15], method="lm", xtol=ftol=gtol=1e-14)
+    private static readonly double[] OracleY =
+    [
+        -0.04, 0.66, 1.17, 1.96, 2.93, 4.84, 6.24, 8.14, 10.00, 11.72, 13.33, 15.04, 16.45, 17.74, 18.53, 19.70, 20.50, 21.76,
+        21.83, 22.64, 22.63, 23.19, 23.33, 23.83, 24.28, 24.05, 24.44, 24.56, 24.64,
+    ];
+
+    [Theory]
+    [InlineData(SigmoidModel.Gompertz, 24.97966501, 0.30320166, 15.45343277, 0.17150414, 0.99960062)]
+    [InlineData(SigmoidModel.Logistic, 24.05716655, 0.31003137, 18.43444130, 0.58524424, 0.99534934)]
+    public void The_fit_agrees_with_scipy_curve_fit_on_the_same_data(SigmoidModel model, double a, double mu, double lambda, double rmse, double r2)
+    {
+        // Given the oracle data set above
+        var t = Enumerable.Range(0, 29).Select(i => i * 6.0).ToArray();
+
+        // When fitted here
+        var fit = ZwieteringFit.Fit(model, t, OracleY).Fit!;
+
+        // Then the least-squares optimum is scipy's (Levenberg–Marquardt, MINPACK) to 1e-5 relative
+        Assert.Equal(a, fit.AsymptoteBrix, a * 1e-5);
+        Assert.Equal(mu, fit.MaxRateBrixPerHour, mu * 1e-5);
+        Assert.Equal(lambda, fit.LagHours, lambda * 1e-5);
+        Assert.Equal(rmse, fit.Rmse, 1e-6);
+        Assert.Equal(r2, fit.RSquared, 1e-7);
+    }
+
     [Theory]
     [InlineData(SigmoidModel.Gompertz)]
     [InlineData(SigmoidModel.Logistic)]
@@ -125,24 +154,21 @@ public class ZwieteringFitTests
     }
 
     [Fact]
-    public void A_straight_line_log_does_not_pin_the_curve_down_and_says_so()
+    public void A_log_still_falling_in_a_straight_line_gets_an_asymptote_beyond_the_last_reading()
     {
-        // Given sugar falling in a straight line with no sign of a lag or a plateau
+        // Given sugar consumed in a straight line, 0.1 °Brix/h for 108 h, with no plateau yet
         var t = Enumerable.Range(0, 10).Select(i => i * 12.0).ToArray();
         var y = t.Select(x => 0.1 * x).ToArray();
 
         // When fitted by the Gompertz form
         var result = ZwieteringFit.Fit(SigmoidModel.Gompertz, t, y);
 
-        // Then either the fit fails with a reason or, if given, it reproduces the line closely; it never throws
-        if (result.Succeeded)
-        {
-            Assert.True(result.Fit!.Rmse < 0.5);
-        }
-        else
-        {
-            Assert.StartsWith("no sigmoid fit:", result.Reason);
-        }
+        // Then the curve places the end of fermentation beyond the data (A above the 10.8 °Brix consumed so far)
+        // and its steepest rate at or above the line's 0.1 °Brix/h
+        Assert.True(result.Succeeded, result.Reason);
+        Assert.True(result.Fit!.AsymptoteBrix > 10.8);
+        Assert.True(result.Fit.MaxRateBrixPerHour >= 0.1);
+        Assert.True(result.Fit.Rmse < 0.5);
     }
 
     [Fact]

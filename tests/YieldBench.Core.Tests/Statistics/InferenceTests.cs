@@ -277,6 +277,42 @@ public class InferenceTests
         Assert.InRange(first.High, x[highRank - 2], x[highRank]);
     }
 
+    [Theory]
+    [InlineData(5001)]
+    [InlineData(4000)]
+    public void Bootstrap_above_the_direct_limit_samples_the_exact_law_of_the_resampled_median(int n)
+    {
+        // Given n seeded values above the direct-resampling limit
+        Assert.True(n > Bootstrap.DirectLimit);
+        var random = new Random(n);
+        var x = Enumerable.Range(0, n).Select(_ => random.NextDouble()).OrderBy(v => v).ToArray();
+
+        // When the interval is drawn from the median's law
+        var interval = Bootstrap.MedianInterval(x, 4000, 0.95, seed: 3);
+
+        // Then its ends sit within a few order statistics of the exact bootstrap quantiles. The lower middle of a
+        // resample is at most x(k) with probability P(Bin(n, k/n) ≥ ⌈n/2⌉), the upper middle with P(Bin ≥ ⌊n/2⌋ + 1)
+        // (Efron & Tibshirani 1993); a median lies between them, so its quantile lies between theirs.
+        int Rank(double p, int need)
+        {
+            for (int k = 1; k <= n; k++)
+            {
+                if (1 - MathNet.Numerics.Distributions.Binomial.CDF(k / (double)n, n, need - 1) >= p)
+                {
+                    return k;
+                }
+            }
+
+            return n;
+        }
+
+        int lowerNeed = (n + 1) / 2, upperNeed = (n / 2) + 1;
+        const int slack = 4;
+        Assert.InRange(interval.Low, x[Rank(0.025, upperNeed) - 1 - slack], x[Rank(0.025, lowerNeed) - 1 + slack]);
+        Assert.InRange(interval.High, x[Rank(0.975, upperNeed) - 1 - slack], x[Rank(0.975, lowerNeed) - 1 + slack]);
+        Assert.Equal(interval, Bootstrap.MedianInterval(x, 4000, 0.95, seed: 3));
+    }
+
     [Fact]
     public void Bootstrap_needs_two_values_and_gives_a_point_for_equal_values()
     {

@@ -185,6 +185,16 @@ public class RobustTests
         Assert.Throws<ArgumentException>(() => Descriptive.Mean(withNaN));
     }
 
+    [Fact]
+    public void Scaled_mean_absolute_deviation_of_chem_matches_R()
+    {
+        // Given chem; R: mean(abs(chem - median(chem))) * sqrt(pi/2) = 1.95673669688
+        // Then
+        Assert.Equal(1.95673669688, Robust.MeanAbsoluteDeviation(ReferenceData.Chem), 10);
+        Assert.True(double.IsNaN(Robust.MeanAbsoluteDeviation([])));
+        Assert.Equal(0, Robust.MeanAbsoluteDeviation([0.6, 0.6]));
+    }
+
     private static double[] Sample(string name) => name switch
     {
         "chem" => ReferenceData.Chem,

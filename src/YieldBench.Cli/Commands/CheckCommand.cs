@@ -1,0 +1,53 @@
+using System.CommandLine;
+using System.Text;
+using YieldBench.Intake;
+
+namespace YieldBench.Cli.Commands;
+
+/// <summary><c>yieldbench check</c>: read inputs, print the header mapping, row accounting and every issue.</summary>
+internal static class CheckCommand
+{
+    public static Command Create(CliContext context)
+    {
+        var inputs = new Argument<string[]>("inputs") { Description = "Lot and log files or folders (.xlsx, .xls, .csv).", Arity = ArgumentArity.OneOrMore };
+        var columns = new Option<string[]>("--column") { Description = "Map a header to a field: FIELD=HEADER (repeatable).", Arity = ArgumentArity.ZeroOrMore, AllowMultipleArgumentsPerToken = false };
+        var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one 'FIELD = HEADER' a line, '#' comments." };
+        var season = new Option<int?>("--season") { Description = "Season (vintage year) for rows whose column, sheet name and file name give none." };
+        var issuesCsv = new Option<string?>("--issues-csv") { Description = "Also write every issue to this CSV file (file, sheet, row, column, value, code, severity, message)." };
+        var command = new Command("check", "Check input files without analysing them: header mapping, rows used and left out, and every problem found.");
+        command.Arguments.Add(inputs);
+        command.Options.Add(columns);
+        command.Options.Add(mapping);
+        command.Options.Add(season);
+        command.Options.Add(issuesCsv);
+        command.SetAction(parseResult =>
+        {
+            int? year = parseResult.GetValue(season);
+            if (year is < 1900 or > 2100)
+            {
+                context.Error.WriteLine($"check: --season {year} is not a four-digit year between 1900 and 2100.");
+                return ExitCodes.Usage;
+            }
+
+            var options = new IntakeOptions
+            {
+                ColumnMappings = parseResult.GetValue(columns) ?? [],
+                MappingFile = parseResult.GetValue(mapping),
+                Season = year,
+                WorkingDirectory = context.WorkingDirectory,
+            };
+            var set = IntakeReader.Read(parseResult.GetValue(inputs) ?? [], options);
+            IntakeReport.WriteText(set, context.Out);
+            if (parseResult.GetValue(issuesCsv) is { } csvPath)
+            {
+                string full = Path.GetFullPath(csvPath, context.WorkingDirectory);
+                using var writer = new StreamWriter(full, append: false, new UTF8Encoding(false));
+                IntakeReport.WriteIssuesCsv(set, writer);
+                context.Out.WriteLine($"Issues written to {csvPath}.");
+            }
+
+            return IntakeReport.AnyRowLeftOut(set) ? ExitCodes.InputProblems : ExitCodes.Success;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,134 @@
+using System.Globalization;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Statistics;
+
+namespace YieldBench.Core.Review.Strains;
+
+/// <summary>Summaries of every measure over every grouping.</summary>
+internal static class GroupSummaries
+{
+    public const string TooFewLots = "too few lots";
+
+    public static IReadOnlyList<GroupSummary> Build(IReadOnlyList<PreparedLot> lots, StrainReviewSettings settings, int seed)
+    {
+        var result = new List<GroupSummary>();
+        foreach (string grouping in Groupings.All)
+        {
+            var groups = lots
+                .GroupBy(l => Label(grouping, l, settings), StringComparer.Ordinal)
+                .OrderBy(g => SortKey(grouping, g.First(), settings), StringComparer.Ordinal)
+                .ThenBy(g => g.Key, StringComparer.Ordinal);
+            foreach (var group in groups)
+            {
+                foreach (var measure in ConversionMeasureNames.All)
+                {
+                    result.Add(Summarise(grouping, group.Key, measure, group.ToArray(), settings, seed));
+                }
+            }
+        }
+
+        return result;
+    }
+
+    /// <summary>Band label for an effective starting sugar: "&lt;21", "21–23", …, "≥27" from the edges.</summary>
+    public static string Band(double brix, IReadOnlyList<double> edges)
+    {
+        string E(double v) => v.ToString("0.##", CultureInfo.InvariantCulture);
+        if (edges.Count == 0)
+        {
+            return "all";
+        }
+
+        if (brix < edges[0])
+        {
+            return "<" + E(edges[0]);
+        }
+
+        for (int i = 1; i < edges.Count; i++)
+        {
+            if (brix < edges[i])
+            {
+                return E(edges[i - 1]) + "–" + E(edges[i]);
+            }
+        }
+
+        return "≥" + E(edges[^1]);
+    }
+
+    private static int BandIndex(double brix, IReadOnlyList<double> edges)
+    {
+        int i = 0;
+        while (i < edges.Count && brix >= edges[i])
+        {
+            i++;
+        }
+
+        return i;
+    }
+
+    private static string Label(string grouping, PreparedLot l, StrainReviewSettings settings) => grouping switch
+    {
+        Groupings.Strain => l.Strain,
+        Groupings.Vessel => l.Vessel,
+        Groupings.SugarBand => Band(l.Brix, settings.SugarBandEdgesBrix),
+        Groupings.Variety => l.Variety,
+        Groupings.Season => l.Season.ToString(CultureInfo.InvariantCulture),
+        Groupings.StrainByVessel => l.Strain + " × " + l.Vessel,
+        Groupings.StrainBySeason => l.Strain + " × " + l.Season.ToString(CultureInfo.InvariantCulture),
+        _ => throw new ArgumentOutOfRangeException(nameof(grouping), grouping, "Unknown grouping."),
+    };
+
+    private static string SortKey(string grouping, PreparedLot l, StrainReviewSettings settings) => grouping switch
+    {
+        Groupings.SugarBand => BandIndex(l.Brix, settings.SugarBandEdgesBrix).ToString("D3", CultureInfo.InvariantCulture),
+        Groupings.Season => l.Season.ToString("D6", CultureInfo.InvariantCulture),
+        Groupings.StrainBySeason => l.Strain + "\u0001" + l.Season.ToString("D6", CultureInfo.InvariantCulture),
+        _ => Label(grouping, l, settings),
+    };
+
+    private static GroupSummary Summarise(string grouping, string group, ConversionMeasure measure, PreparedLot[] lots, StrainReviewSettings settings, int seed)
+    {
+        var values = lots.Select(l => l.Conversion.Get(measure)).Where(v => double.IsFinite(v)).ToArray();
+        int missing = lots.Length - values.Length;
+        var sorted = Descriptive.ToSortedArray(values);
+        string? note = null;
+        Interval interval;
+        if (sorted.Length < settings.MinLotsForInterval)
+        {
+            interval = Interval.Undefined(settings.Level);
+            note = GroupSummaries.TooFewLots;
+        }
+        else
+        {
+            int streamSeed = StrainReviewer.DerivedSeed(seed, grouping + "|" + group + "|" + measure.Name());
+            interval = Bootstrap.MedianInterval(sorted, settings.Resamples, settings.Level, streamSeed);
+        }
+
+        if (missing > 0)
+        {
+            string m = missing.ToString(CultureInfo.InvariantCulture) + " lot(s) without a value";
+            note = note is null ? m : note + "; " + m;
+        }
+
+        return new GroupSummary
+        {
+            Grouping = grouping,
+            Group = group,
+            Measure = measure,
+            N = sorted.Length,
+            Missing = missing,
+            Median = Descriptive.MedianOfSorted(sorted),
+            Mad = Robust.Mad(sorted),
+            Qn = Robust.Qn(sorted),
+            Iqr = Descriptive.InterquartileRange(sorted),
+            Mean = Descriptive.Mean(sorted),
+            Sd = Descriptive.StandardDeviation(sorted),
+            TrimmedMean = Robust.TrimmedMean(sorted),
+            Huber = Robust.HuberLocation(sorted, settings.HuberK),
+            Min = sorted.Length > 0 ? sorted[0] : double.NaN,
+            Max = sorted.Length > 0 ? sorted[^1] : double.NaN,
+            MedianInterval = interval,
+            Note = note,
+        };
+    }
+}

@@ -1,0 +1,345 @@
+using System.Globalization;
+using DocumentFormat.OpenXml.Packaging;
+using DocumentFormat.OpenXml.Validation;
+using SkiaSharp;
+
+namespace YieldBench.Cli.Tests;
+
+/// <summary>Runs the demo review once for the tests that only read its outputs (it takes tens of seconds).</summary>
+public sealed class DemoReviewFixture : IDisposable
+{
+    public DemoReviewFixture()
+    {
+        Root = Path.Combine(Path.GetTempPath(), "yb-cli-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(Root);
+        (ExitCode, Out, Error) = Cli.Run(Root, "review", "--out", "first");
+        (SecondExitCode, _, _) = Cli.Run(Root, "review", "--out", "second", "--quiet");
+    }
+
+    public string Root { get; }
+
+    public string First => Path.Combine(Root, "first");
+
+    public string Second => Path.Combine(Root, "second");
+
+    public int ExitCode { get; }
+
+    public int SecondExitCode { get; }
+
+    public string Out { get; }
+
+    public string Error { get; }
+
+    public void Dispose()
+    {
+        try
+        {
+            Directory.Delete(Root, recursive: true);
+        }
+        catch (IOException)
+        {
+        }
+    }
+}
+
+internal static class Cli
+{
+    public static (int Exit, string Out, string Error) Run(string workingDirectory, params string[] args)
+    {
+        var output = new StringWriter(CultureInfo.InvariantCulture);
+        var error = new StringWriter(CultureInfo.InvariantCulture);
+        int exit = YieldBenchApp.Run(args, new CliContext(output, error, IsTerminal: false, workingDirectory));
+        return (exit, output.ToString(), error.ToString());
+    }
+
+    public static string[] CsvLines(string path) =>
+        File.ReadAllText(path).Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
+}
+
+public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<DemoReviewFixture>
+{
+    [Fact]
+    public void With_no_inputs_the_review_reads_the_bundled_demo_data_and_says_so()
+    {
+        // Given no inputs (the fixture ran "review --out first")
+        // When it finished
+        // Then it said it used the demo data, succeeded, and named where the files went
+        Assert.Equal(0, demo.ExitCode);
+        Assert.Equal(string.Empty, demo.Error);
+        Assert.StartsWith("No inputs given: reviewing the bundled demo data", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("Lots used: 222 (2023, 2024, 2025) from 4 file(s)", demo.Out, StringComparison.Ordinal);
+        Assert.Contains($"written to {demo.First} (open report.xlsx)", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("not a label statement", demo.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Redirected_output_shows_progress_as_plain_lines_and_quiet_shows_none()
+    {
+        // Given the demo review with output redirected, and a second one with --quiet
+        // When their output is read
+        var lines = demo.Out.Split('\n').Select(l => l.TrimEnd('\r')).ToArray();
+
+        // Then stages are plain lines with no carriage-return rewriting, and the quiet run exited cleanly
+        Assert.Contains("review: reading inputs", lines);
+        Assert.Contains("review: workbook", lines);
+        Assert.DoesNotContain('\r', demo.Out.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal(0, demo.SecondExitCode);
+    }
+
+    [Fact]
+    public void Every_output_file_is_written()
+    {
+        // Given the demo review's folder
+        string[] expected =
+        [
+            "report.xlsx", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv",
+            "charts/alcohol-vs-sugar.png", "charts/factor-by-strain.png", "charts/factor-by-season.png",
+            "charts/backtest-error.png", "charts/factor-histogram.png", "charts/kinetics-strain-curves.png", "yieldbench-files.txt",
+        ];
+
+        // When its files are listed
+        // Then each expected file is there and the manifest lists every file the folder holds
+        foreach (var file in expected)
+        {
+            Assert.True(File.Exists(Path.Combine(demo.First, file)), file + " is missing");
+        }
+
+        var manifest = File.ReadAllLines(Path.Combine(demo.First, "yieldbench-files.txt")).Order(StringComparer.Ordinal).ToArray();
+        var actual = Directory.EnumerateFiles(demo.First, "*", SearchOption.AllDirectories)
+            .Select(f => Path.GetRelativePath(demo.First, f).Replace(Path.DirectorySeparatorChar, '/')).Order(StringComparer.Ordinal).ToArray();
+        Assert.Equal(actual, manifest);
+    }
+
+    [Fact]
+    public void The_lots_file_has_one_row_per_lot_used_with_invariant_numbers()
+    {
+        // Given the demo review's lots file
+        var lines = Cli.CsvLines(Path.Combine(demo.First, "data", "lots.csv"));
+
+        // When its rows are counted and a value read
+        var header = lines[0].Split(',');
+        int abv = Array.IndexOf(header, "final_abv");
+
+        // Then there are 222 lots (72 + 66 + 84, the demo-data README) and numbers use a point
+        Assert.Equal(223, lines.Length);
+        Assert.Equal("lot_id", header[0]);
+        Assert.All(lines.Skip(1).Take(20), l => Assert.DoesNotContain(";", l.Split(',')[abv], StringComparison.Ordinal));
+        Assert.InRange(double.Parse(lines[1].Split(',')[abv], CultureInfo.InvariantCulture), 5, 20);
+    }
+
+    [Fact]
+    public void The_demo_data_files_are_named_relative_to_the_tool_not_by_the_install_path()
+    {
+        // Given the demo review's intake issues and methods
+        var issues = Cli.CsvLines(Path.Combine(demo.First, "data", "intake-issues.csv"));
+
+        // When the file column is read
+        var files = issues.Skip(1).Select(l => l.Split(',')[0]).Distinct().ToArray();
+
+        // Then every file is "demo-data/…"
+        Assert.NotEmpty(files);
+        Assert.All(files, f => Assert.StartsWith("demo-data" + Path.DirectorySeparatorChar, f, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void The_demo_workbook_passes_the_validator()
+    {
+        // Given the demo review's workbook
+        using var doc = SpreadsheetDocument.Open(Path.Combine(demo.First, "report.xlsx"), false);
+
+        // When validated with the Open XML SDK 2.20
+        var errors = new OpenXmlValidator(DocumentFormat.OpenXml.FileFormatVersions.Office2019).Validate(doc).Take(5)
+            .Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}").ToArray();
+        var sheets = doc.WorkbookPart!.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().Select(s => s.Name!.Value!).ToArray();
+
+        // Then there are no errors and the kinetics sheet is present (the demo has logs)
+        Assert.Empty(errors);
+        Assert.Contains("Kinetics", sheets);
+        Assert.Equal("Overview", sheets[0]);
+    }
+
+    [Fact]
+    public void Every_chart_decodes_at_its_size_and_is_not_blank()
+    {
+        // Given every PNG of the demo review
+        var pngs = Directory.GetFiles(Path.Combine(demo.First, "charts"), "*.png");
+
+        // When each is decoded
+        // Then it is 1600×1000 and its grey levels vary (a blank image has variance 0)
+        Assert.True(pngs.Length >= 6);
+        foreach (var png in pngs)
+        {
+            using var bitmap = SKBitmap.Decode(png);
+            Assert.NotNull(bitmap);
+            Assert.Equal((1600, 1000), (bitmap.Width, bitmap.Height));
+            double sum = 0, sumSq = 0;
+            int n = 0;
+            for (int y = 0; y < bitmap.Height; y += 4)
+            {
+                for (int x = 0; x < bitmap.Width; x += 4)
+                {
+                    var c = bitmap.GetPixel(x, y);
+                    double g = (c.Red + c.Green + c.Blue) / 3.0;
+                    sum += g;
+                    sumSq += g * g;
+                    n++;
+                }
+            }
+
+            double variance = (sumSq / n) - ((sum / n) * (sum / n));
+            Assert.True(variance > 100, $"{Path.GetFileName(png)} looks blank (variance {variance:0.0})");
+        }
+    }
+
+    [Fact]
+    public void The_same_inputs_give_byte_identical_data_files_charts_and_workbook()
+    {
+        // Given two runs of the same review into two folders
+        var first = File.ReadAllLines(Path.Combine(demo.First, "yieldbench-files.txt"));
+        var second = File.ReadAllLines(Path.Combine(demo.Second, "yieldbench-files.txt"));
+
+        // When every file is compared byte for byte
+        // Then the lists and every file are the same
+        Assert.Equal(first, second);
+        foreach (var file in first)
+        {
+            var a = File.ReadAllBytes(Path.Combine(demo.First, file));
+            var b = File.ReadAllBytes(Path.Combine(demo.Second, file));
+            Assert.True(a.AsSpan().SequenceEqual(b), file + " differs between runs");
+        }
+    }
+}
+
+public sealed class ReviewCommandInputTests : IDisposable
+{
+    private readonly string root = Path.Combine(Path.GetTempPath(), "yb-cli-in-" + Guid.NewGuid().ToString("N"));
+
+    public ReviewCommandInputTests() => Directory.CreateDirectory(Path.Combine(root, "lots"));
+
+    public void Dispose()
+    {
+        try
+        {
+            Directory.Delete(root, recursive: true);
+        }
+        catch (IOException)
+        {
+        }
+    }
+
+    private string Write(string name, string text)
+    {
+        string path = Path.Combine(root, "lots", name);
+        File.WriteAllText(path, text);
+        return path;
+    }
+
+    private static string GoodLots(int season, int count)
+    {
+        var sb = new System.Text.StringBuilder("Lot,Strain,Start Brix,Alcohol % v/v,RS (g/L)\n");
+        for (int i = 0; i < count; i++)
+        {
+            double brix = 21.0 + (0.25 * i);
+            double abv = Math.Round((0.585 + (0.01 * (i % 3))) * brix, 2);
+            sb.Append(CultureInfo.InvariantCulture, $"L{season}-{i:00},ZZ-{1 + (i % 3)},{brix:0.00},{abv:0.00},1.5\n");
+        }
+
+        return sb.ToString();
+    }
+
+    [Fact]
+    public void A_folder_with_broken_rows_is_reviewed_the_rows_are_reported_and_the_exit_code_is_1()
+    {
+        // Given a folder with good lots of two seasons and a third file with two broken rows
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+        Write("harvest-2026.csv", "Lot,Strain,Start Brix,Alcohol % v/v\nB-1,ZZ-1,twenty,13.1\nB-2,ZZ-2,23.0,\nB-3,ZZ-3,23.5,13.9\n");
+
+        // When the folder is reviewed
+        var (exit, output, error) = Cli.Run(root, "review", "lots", "--out", "report");
+
+        // Then the good lots are used, the broken rows are in intake-issues.csv with file, row, column and value, and the exit code says so
+        Assert.Equal(1, exit);
+        Assert.Equal(string.Empty, error);
+        Assert.Contains("Lots used: 25 (2024, 2025, 2026)", output, StringComparison.Ordinal);
+        var issues = Cli.CsvLines(Path.Combine(root, "report", "data", "intake-issues.csv"));
+        Assert.Equal("file,sheet,row,column,value,code,message", issues[0]);
+        Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,2,", StringComparison.Ordinal) && l.Contains("twenty", StringComparison.Ordinal));
+        Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,3,", StringComparison.Ordinal));
+        Assert.Equal(26, Cli.CsvLines(Path.Combine(root, "report", "data", "lots.csv")).Length);
+        Assert.True(File.Exists(Path.Combine(root, "report", "report.xlsx")));
+        Assert.False(File.Exists(Path.Combine(root, "report", "data", "kinetics.csv")));
+    }
+
+    [Fact]
+    public void An_output_folder_that_holds_an_input_is_refused_and_nothing_is_written()
+    {
+        // Given an input file inside the folder asked for as output
+        string input = Write("harvest-2024.csv", GoodLots(2024, 12));
+        string before = File.ReadAllText(input);
+
+        // When reviewed with --out pointing at the inputs' folder
+        var (exit, output, error) = Cli.Run(root, "review", "lots/harvest-2024.csv", "--out", "lots");
+
+        // Then it is a usage error with a message naming the clash, and the folder holds only the input
+        Assert.Equal(2, exit);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains("contains the input", error, StringComparison.Ordinal);
+        Assert.Equal(before, File.ReadAllText(input));
+        Assert.Single(Directory.GetFileSystemEntries(Path.Combine(root, "lots")));
+    }
+
+    [Fact]
+    public void An_unknown_regime_is_a_usage_error()
+    {
+        // Given a regime the tool does not know
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+
+        // When reviewed
+        var (exit, _, error) = Cli.Run(root, "review", "lots", "--regime", "mars");
+
+        // Then it exits 2 and says what is accepted
+        Assert.Equal(2, exit);
+        Assert.Equal("--regime 'mars' is not understood; use us, eu, or custom:TOLERANCE with a tolerance above 0 and at most 5 % v/v (e.g. custom:0.8).\n", error.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_custom_regime_is_used_for_the_backtest()
+    {
+        // Given good lots
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+
+        // When reviewed with a custom tolerance
+        var (exit, output, _) = Cli.Run(root, "review", "lots", "--regime", "custom:0.8", "--out", "r");
+
+        // Then the summary scores against it
+        Assert.Equal(0, exit);
+        Assert.Contains("within the User-defined ±0.8 % v/v tolerance", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Re_running_replaces_its_own_files_removes_stale_ones_and_leaves_others_alone()
+    {
+        // Given an earlier review's folder holding a stale file of ours (in the manifest) and a file of the user's
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+        Assert.Equal(0, Cli.Run(root, "review", "lots", "--out", "r", "--quiet").Exit);
+        string folder = Path.Combine(root, "r");
+        File.WriteAllText(Path.Combine(folder, "data", "old-extra.csv"), "stale");
+        File.AppendAllText(Path.Combine(folder, "yieldbench-files.txt"), "data/old-extra.csv\n");
+        File.WriteAllText(Path.Combine(folder, "my-notes.txt"), "mine");
+        File.WriteAllText(Path.Combine(folder, "data", "lots.csv"), "overwritten by hand");
+
+        // When the review runs again into the same folder
+        var (exit, output, _) = Cli.Run(root, "review", "lots", "--out", "r");
+
+        // Then our files are rewritten, the stale one removed, and the user's file kept
+        Assert.Equal(0, exit);
+        Assert.StartsWith("lot_id,", File.ReadAllText(Path.Combine(folder, "data", "lots.csv")), StringComparison.Ordinal);
+        Assert.False(File.Exists(Path.Combine(folder, "data", "old-extra.csv")));
+        Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "my-notes.txt")));
+        Assert.Contains("Removed 1 file(s) of an earlier run", output, StringComparison.Ordinal);
+        Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
+    }
+}

@@ -1,0 +1,310 @@
+using YieldBench.Core.Conversion;
+using YieldBench.Core.Review.Strains;
+
+namespace YieldBench.Core.Tests.Review;
+
+public class StrainReviewerTests
+{
+    private const int Seed = 20261;
+
+    private static readonly Lazy<(SyntheticCellar Cellar, StrainReview Review)> Scenario = new(() =>
+    {
+        var cellar = SyntheticCellar.Make(seed: 7);
+        return (cellar, StrainReviewer.Run(cellar.Lots, new StrainReviewSettings(), Seed));
+    });
+
+    [Fact]
+    public void Every_planted_odd_lot_is_flagged_with_its_code()
+    {
+        // Given the invented cellar with planted faults
+        var (cellar, review) = Scenario.Value;
+
+        // When the flags are collected per lot
+        var codes = review.Flags.Where(f => f.LotKey is not null).GroupBy(f => f.LotKey!).ToDictionary(g => g.Key, g => g.Select(f => f.Code).ToHashSet());
+
+        // Then each planted lot carries the code planted for it
+        var missed = cellar.Planted.Where(p => !codes.TryGetValue(p.Key, out var c) || !c.Contains(p.Value)).Select(p => p.Key + " " + p.Value).ToArray();
+        Assert.Empty(missed);
+        Assert.True(cellar.Planted.Count >= 30, "a tenth of about 400 lots plus six special plants");
+    }
+
+    [Fact]
+    public void Planted_shifts_mostly_raise_a_factor_flag_in_their_direction()
+    {
+        // Given the planted ±1.0 % v/v shifts (about 1.7 robust scales of the within-strain factor at 23–26 °Brix,
+        // where sugar variation widens the factor's spread; the line residual removes that, hence off-strain-line)
+        var (cellar, review) = Scenario.Value;
+
+        // When their high-factor and low-factor flags are read
+        var byKey = review.Flags.Where(f => f.Code is FlagCodes.HighFactor or FlagCodes.LowFactor).ToDictionary(f => f.LotKey!, f => f.Code);
+
+        // Then none points the wrong way and at least three in four are caught by the modified z as well
+        Assert.All(byKey.Where(k => cellar.Shifted.ContainsKey(k.Key)), k => Assert.Equal(cellar.Shifted[k.Key] ? FlagCodes.HighFactor : FlagCodes.LowFactor, k.Value));
+        Assert.True(cellar.Shifted.Keys.Count(byKey.ContainsKey) >= 0.75 * cellar.Shifted.Count, $"{cellar.Shifted.Keys.Count(byKey.ContainsKey)} of {cellar.Shifted.Count}");
+    }
+
+    [Fact]
+    public void Clean_lots_are_flagged_no_more_often_than_the_nominal_rates()
+    {
+        // Given the clean lots (no planted fault, not in the drifting strain-season)
+        var (cellar, review) = Scenario.Value;
+        int clean = cellar.Clean.Count;
+
+        // When flags on clean lots are counted by code
+        var onClean = review.Flags.Where(f => f.LotKey is not null && cellar.Clean.Contains(f.LotKey)).ToArray();
+        double Rate(string code) => (double)onClean.Count(f => f.Code == code) / clean;
+
+        // Then |modified z| > 3.5 and |line residual| > 3.5 stay near their normal-theory rate (0.05 %), and the inner
+        // Tukey fence near its 0.7 % (NIST/SEMATECH handbook: 1.5 IQR); allowances cover the sampling noise of ~350 lots
+        Assert.InRange(Rate(FlagCodes.HighFactor) + Rate(FlagCodes.LowFactor), 0, 0.01);
+        Assert.InRange(Rate(FlagCodes.OffStrainLine), 0, 0.01);
+        Assert.InRange(Rate(FlagCodes.OutsideTukeyFence) + Rate(FlagCodes.FarOutsideTukeyFence), 0, 0.03);
+        Assert.Equal(0, Rate(FlagCodes.AboveTheoreticalYield));
+        Assert.Equal(0, Rate(FlagCodes.NotDry));
+        Assert.InRange(Rate(FlagCodes.ImplausibleFactor), 0, 0.01);
+        Assert.InRange(Rate(FlagCodes.PossibleStrainMixUp) + Rate(FlagCodes.PossibleTransposedDigits), 0, 0.005);
+    }
+
+    [Fact]
+    public void Adjusted_comparison_recovers_the_true_advantage_while_raw_medians_overstate_it()
+    {
+        // Given Y-17, truly better by 0.15 % v/v at the same sugar but used on riper fruit (25.8 vs 23.0 °Brix)
+        var (_, review) = Scenario.Value;
+        var c = review.Comparison;
+
+        // When the adjusted difference Y-05 − Y-17 and the raw Hodges–Lehmann shift are read
+        var adjusted = c.AdjustedDifferences.Single(d => d.First == "Y-05" && d.Second == "Y-17");
+        var raw = c.Pairs.Single(p => p.First == "Y-05" && p.Second == "Y-17");
+        double trueFactorShift = -0.15 / c.ReferenceBrix;
+
+        // Then the adjusted interval holds the true −0.15 % v/v, and the raw shift's interval misses the true factor gap
+        Assert.True(adjusted.Interval.Contains(-0.15), $"adjusted {adjusted.AbvDifference:0.000} [{adjusted.Interval.Low:0.000}, {adjusted.Interval.High:0.000}]");
+        Assert.False(raw.Interval.Contains(trueFactorShift), $"raw {raw.Shift:0.0000} [{raw.Interval.Low:0.0000}, {raw.Interval.High:0.0000}] vs true {trueFactorShift:0.0000}");
+        Assert.True(raw.Shift < 2 * trueFactorShift, "riper fruit at least doubles the apparent advantage");
+        Assert.True(c.AdjustedForVessel);
+    }
+
+    [Fact]
+    public void Raw_ranking_that_rides_on_riper_fruit_is_called_out()
+    {
+        // Given Y-31 with no advantage on riper fruit and Y-05 better by 0.15 % v/v on ordinary fruit
+        var random = new Random(11);
+        var lots = new List<LotConversion>();
+        for (int i = 0; i < 60; i++)
+        {
+            bool ripe = i % 2 == 0;
+            string strain = ripe ? "Y-31" : "Y-05";
+            double brix = Math.Round((ripe ? 26.0 : 22.5) + (0.8 * LotBuilder.Normal(random)), 1);
+            double abv = SyntheticCellar.Intercept + (SyntheticCellar.Slope * brix) + (ripe ? 0 : 0.15) + (0.1 * LotBuilder.Normal(random));
+            lots.Add(LotBuilder.Convert(LotBuilder.Lot("R" + i, 2024, strain, brix, Math.Round(abv, 2))));
+        }
+
+        // When reviewed
+        var c = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed).Comparison;
+
+        // Then raw medians put Y-31 first, the adjusted comparison Y-05, and a sentence warns about it
+        Assert.True(c.RawMedians[c.Strains.ToList().IndexOf("Y-31")] > c.RawMedians[c.Strains.ToList().IndexOf("Y-05")]);
+        Assert.True(c.Adjusted.Single(a => a.Strain == "Y-05").Factor > c.Adjusted.Single(a => a.Strain == "Y-31").Factor);
+        Assert.True(c.RankingsDisagree);
+        Assert.Contains(c.Sentences, s => s.StartsWith("Caution: ranked by raw median factor, Y-31 comes first, but adjusted for starting sugar, Y-05 does.", StringComparison.Ordinal));
+        Assert.Contains(c.Sentences, s => s.Contains("not a prediction for a label", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Season_drift_of_a_strain_is_flagged_for_that_season()
+    {
+        // Given Y-22 planted 0.3 % v/v low in 2025
+        var (cellar, review) = Scenario.Value;
+
+        // Then a season-drift flag names that strain and season, and no other strain-season drifts
+        var drift = review.Flags.Where(f => f.Code == FlagCodes.SeasonDrift).ToArray();
+        var only = Assert.Single(drift);
+        Assert.Equal((cellar.Drift.Strain, cellar.Drift.Season), (only.Strain, only.Season));
+        Assert.Null(only.LotKey);
+        Assert.Contains("less alcohol", only.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Strains_differ_by_Kruskal_Wallis_and_the_poor_converter_is_larger_than_the_noise()
+    {
+        // Given Y-44, 1.4 % v/v short at the same sugar
+        var (_, review) = Scenario.Value;
+        var c = review.Comparison;
+
+        // Then the rank test rejects equality and every pair with Y-44 is beyond the noise after Holm
+        Assert.True(c.KruskalWallis.P < 1e-6);
+        Assert.All(c.Pairs.Where(p => p.First == "Y-44" || p.Second == "Y-44"), p => Assert.True(p.HolmP < 0.05));
+        Assert.Contains(c.Sentences, s => s.Contains("Y-05 makes 1.", StringComparison.Ordinal) && s.Contains("more alcohol than Y-44", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Group_summaries_cover_every_grouping_and_measure_with_bootstrap_intervals()
+    {
+        // Given the cellar
+        var (cellar, review) = Scenario.Value;
+
+        // Then every grouping appears, each group has the four measures, and group sizes add up to the lots
+        Assert.Equal(Groupings.All, review.Groups.Select(g => g.Grouping).Distinct());
+        foreach (string grouping in Groupings.All)
+        {
+            var rows = review.Groups.Where(g => g.Grouping == grouping && g.Measure == ConversionMeasure.AbvPerBrix).ToArray();
+            Assert.Equal(cellar.Lots.Count, rows.Sum(r => r.N + r.Missing));
+        }
+
+        var y05 = review.Groups.Single(g => g.Grouping == Groupings.Strain && g.Group == "Y-05" && g.Measure == ConversionMeasure.AbvPerBrix);
+        Assert.True(y05.MedianInterval.Contains(y05.Median));
+        Assert.Null(y05.Note);
+        Assert.Equal(["<21", "21–23", "23–25", "25–27", "≥27"], review.Groups.Where(g => g.Grouping == Groupings.SugarBand && g.Measure == ConversionMeasure.AbvPerBrix).Select(g => g.Group));
+    }
+
+    [Fact]
+    public void A_group_under_five_lots_gets_no_interval_and_says_why()
+    {
+        // Given a strain with four lots
+        var lots = Enumerable.Range(0, 4).Select(i => LotBuilder.Convert(LotBuilder.Lot("T" + i, 2024, "Y-09", 23 + (0.2 * i), 13.4 + (0.1 * i)))).ToList();
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then its summary has NaN interval ends and the note
+        var row = review.Groups.First(g => g.Grouping == Groupings.Strain && g.Group == "Y-09");
+        Assert.False(row.MedianInterval.IsDefined);
+        Assert.Equal("too few lots", row.Note);
+        Assert.Equal(4, row.N);
+    }
+
+    [Fact]
+    public void A_strain_with_few_lots_is_judged_against_the_pooled_lots_and_the_flag_says_so()
+    {
+        // Given 30 lots of Y-05 and 3 of Y-09, one of which made 2 % v/v too little
+        var random = new Random(3);
+        var lots = Enumerable.Range(0, 30).Select(i =>
+        {
+            double brix = Math.Round(23 + LotBuilder.Normal(random), 1);
+            return LotBuilder.Convert(LotBuilder.Lot("A" + i, 2024, "Y-05", brix, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * brix) + (0.1 * LotBuilder.Normal(random)), 2)));
+        }).ToList();
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("B1", 2024, "Y-09", 23.0, 13.45)));
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("B2", 2024, "Y-09", 23.4, 13.70)));
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("B3", 2024, "Y-09", 23.2, 11.50)));
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then B3 is low against all lots, the reason names the pooled reference, and the score says so
+        var flag = review.Flags.Single(f => f.LotKey == "2024/B3" && f.Code == FlagCodes.LowFactor);
+        Assert.Equal(StrainReviewer.Pooled, flag.ReferenceGroup);
+        Assert.Contains("strain Y-09 has fewer than 5 lots, so all lots are the reference", flag.Reason, StringComparison.Ordinal);
+        Assert.Equal(StrainReviewer.Pooled, review.Scores.Single(s => s.LotKey == "2024/B3").ReferenceGroup);
+        Assert.Contains(review.Notes, n => n.StartsWith("Strain Y-09 has 3 lot(s)", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void When_most_factors_are_tied_the_robust_z_falls_back_to_the_mean_absolute_deviation()
+    {
+        // Given six lots with identical factors and three others: MAD, Qn and Sn are all 0 (R robustbase 0.95-0:
+        // mad(x), Qn(x), Sn(x) give 0 0 0), since one tie group holds more than half the values
+        var lots = Enumerable.Range(0, 6).Select(i => LotBuilder.Convert(LotBuilder.Lot("E" + i, 2024, "Y-05", 24.0, 14.00))).ToList();
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("E6", 2024, "Y-05", 24.0, 14.10)));
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("E7", 2024, "Y-05", 24.0, 13.90)));
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("E8", 2024, "Y-05", 24.0, 12.00)));
+        var factors = lots.Select(l => l.AbvPerBrix).ToArray();
+        Assert.Equal(0, YieldBench.Core.Statistics.Robust.Mad(factors));
+        Assert.Equal(0, YieldBench.Core.Statistics.Robust.Qn(factors));
+
+        // When scored
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the scale is the scaled mean absolute deviation, √(π/2)·mean|x − median|, and the far lot is low
+        var score = review.Scores.Single(s => s.LotKey == "2024/E8");
+        Assert.Equal("mean absolute deviation", score.ScaleName);
+        double expected = Math.Sqrt(Math.PI / 2) * factors.Sum(f => Math.Abs(f - (14.0 / 24.0))) / 9;
+        Assert.Equal(expected, score.ReferenceScale, 12);
+        Assert.Contains(review.Flags, f => f.LotKey == "2024/E8" && f.Code == FlagCodes.LowFactor);
+    }
+
+    [Fact]
+    public void The_transposed_digits_reason_names_the_swap()
+    {
+        // Given the planted 42.2 °Brix lot whose alcohol fits 24.2
+        var (_, review) = Scenario.Value;
+
+        // Then its reason shows the recorded and the swapped reading
+        var flag = review.Flags.Single(f => f.LotKey == "2024/P-SWAP-1" && f.Code == FlagCodes.PossibleTransposedDigits);
+        Assert.StartsWith("the starting sugar was recorded as 42.2 °Brix; with two neighbouring digits swapped (24.2 °Brix)", flag.Reason, StringComparison.Ordinal);
+        Assert.Equal(FlagSeverity.LikelyError, flag.Severity);
+        Assert.Equal(FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip", flag.FollowUp);
+    }
+
+    [Fact]
+    public void Same_lots_settings_and_seed_give_the_same_review()
+    {
+        // Given the cellar reviewed twice with one seed
+        var (cellar, first) = Scenario.Value;
+        var second = StrainReviewer.Run(cellar.Lots, new StrainReviewSettings(), Seed);
+
+        // Then every list is equal, element by element
+        Assert.Equal(first.Groups, second.Groups);
+        Assert.Equal(first.Flags, second.Flags);
+        Assert.Equal(first.Scores, second.Scores);
+        Assert.Equal(first.Comparison.Sentences, second.Comparison.Sentences);
+    }
+
+    [Fact]
+    public void Flags_are_ordered_by_season_lot_and_code()
+    {
+        // Given the review's flags
+        var (_, review) = Scenario.Value;
+
+        // Then they are sorted: season, lot flags before group flags, lot id (ordinal), code order
+        var expected = review.Flags
+            .OrderBy(f => f.Season)
+            .ThenBy(f => f.LotId is null ? 1 : 0)
+            .ThenBy(f => f.LotId ?? f.Strain, StringComparer.Ordinal)
+            .ThenBy(f => f.Strain, StringComparer.Ordinal)
+            .ThenBy(f => FlagCodes.All.ToList().IndexOf(f.Code))
+            .ToArray();
+        Assert.Equal(expected, review.Flags);
+        Assert.Equal(review.Flags.Count, review.Flags.Select(f => (f.LotKey ?? f.Strain + f.Season, f.Code)).Distinct().Count());
+    }
+
+    [Fact]
+    public void Invalid_settings_are_refused_with_the_problem_in_words()
+    {
+        // Given band edges out of order
+        var settings = new StrainReviewSettings { SugarBandEdgesBrix = [23, 21] };
+
+        // Then
+        var e = Assert.Throws<ArgumentException>(() => StrainReviewer.Run([], settings, Seed));
+        Assert.StartsWith("Strain review settings: starting-sugar band edges must be numbers in ascending order", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void An_empty_season_set_gives_an_empty_review()
+    {
+        // Given no lots
+        var review = StrainReviewer.Run([], new StrainReviewSettings(), Seed);
+
+        // Then nothing is summarised or flagged and the comparison says why
+        Assert.Empty(review.Groups);
+        Assert.Empty(review.Flags);
+        Assert.Contains("Fewer than two strains have enough lots to compare.", review.Comparison.Sentences);
+    }
+
+    [Theory]
+    [InlineData(20.99, "<21")]
+    [InlineData(21.0, "21–23")]
+    [InlineData(24.5, "23–25")]
+    [InlineData(26.99, "25–27")]
+    [InlineData(27.0, "≥27")]
+    public void Starting_sugar_bands_are_closed_below_and_open_above(double brix, string band)
+    {
+        // Given the default edges
+        var lots = new[] { LotBuilder.Convert(LotBuilder.Lot("S", 2024, "Y-05", brix, 13.0)) };
+
+        // When summarised
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the lot lands in the expected band
+        Assert.Equal(band, review.Groups.Single(g => g.Grouping == Groupings.SugarBand && g.Measure == ConversionMeasure.AbvPerBrix).Group);
+    }
+}

@@ -1,0 +1,258 @@
+using System.Data;
+using ClosedXML.Excel;
+using DocumentFormat.OpenXml.Packaging;
+using DocumentFormat.OpenXml.Validation;
+using ExcelDataReader;
+using YieldBench.Reports.Charts;
+using YieldBench.Reports.Tests.Fixtures;
+using YieldBench.Reports.Workbook;
+using C = DocumentFormat.OpenXml.Drawing.Charts;
+
+namespace YieldBench.Reports.Tests.Workbook;
+
+/// <summary>Builds the sample workbook once for the tests that only read it (charts take seconds to draw).</summary>
+public sealed class WorkbookFixture : IDisposable
+{
+    private readonly TempFolder folder = new();
+
+    public WorkbookFixture()
+    {
+        Review = SampleReview.Build();
+        Charts = ReviewCharts.WriteAll(Review, folder["charts"]);
+        Bytes = WorkbookWriter.Build(Review, Charts);
+        PictureFree = WorkbookWriter.Build(Review, Charts, includePictures: false);
+    }
+
+    public Core.Review.ReviewResult Review { get; }
+
+    public IReadOnlyList<ChartFile> Charts { get; }
+
+    public byte[] Bytes { get; }
+
+    public byte[] PictureFree { get; }
+
+    public byte[] BuildAgain() => WorkbookWriter.Build(SampleReview.Build(), Charts);
+
+    public void Dispose() => folder.Dispose();
+}
+
+public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<WorkbookFixture>
+{
+    private (byte[] Bytes, IReadOnlyList<ChartFile> Charts) Build(bool pictures = true) =>
+        (pictures ? fixture.Bytes : fixture.PictureFree, fixture.Charts);
+
+    [Fact]
+    public void The_workbook_passes_the_Open_XML_validator_with_no_errors()
+    {
+        // Given a workbook with the native chart and every PNG chart
+        var (bytes, _) = Build();
+
+        // When the Open XML SDK 2.20 validator checks it (Office 2019 rules)
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        var errors = new OpenXmlValidator(DocumentFormat.OpenXml.FileFormatVersions.Office2019).Validate(doc)
+            .Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}").ToArray();
+
+        // Then it finds nothing
+        Assert.Empty(errors);
+    }
+
+    [Fact]
+    public void The_sheets_are_in_the_documented_order()
+    {
+        // Given a workbook
+        var (bytes, _) = Build();
+
+        // When its sheet names are read
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        string[] names = doc.WorkbookPart!.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().Select(s => s.Name!.Value!).ToArray();
+
+        // Then they are ours, in order (no kinetics sheet without logs)
+        Assert.Equal(
+            [
+                "Overview", "Lots", "By strain", "By vessel", "By sugar band", "By variety", "By season", "Strain by vessel", "Strain by season",
+                "Strain comparison", "Follow-up", "House factor", "Planner", "Intake issues", "Methods and cautions",
+            ],
+            names);
+    }
+
+    [Fact]
+    public void The_lots_sheet_reads_back_with_the_values_of_the_review()
+    {
+        // Given a workbook of a review
+        var review = fixture.Review;
+        var (bytes, _) = Build();
+
+        // When the lots sheet is read with a managed reader (no libgdiplus needed even with pictures)
+        var lots = ReadSheet(bytes, "Lots");
+
+        // Then every lot is there, grouped by strain, with its numbers unchanged
+        Assert.Equal(review.Lots.Count, lots.Rows.Count - 1);
+        Assert.Equal("Lot", lots.Rows[0][0]);
+        Assert.Equal("Starting sugar after additions (°Brix)", lots.Rows[0][5]);
+        var first = review.Lots.Where(l => l.Lot.Strain == "ST-A").OrderBy(l => l.Lot.Season).ThenBy(l => l.Lot.LotId, StringComparer.Ordinal).First();
+        Assert.Equal(first.Lot.LotId, lots.Rows[1][0]);
+        Assert.Equal("ST-A", lots.Rows[1][2]);
+        Assert.Equal(first.EffectiveStartingBrix, (double)lots.Rows[1][5], 12);
+        Assert.Equal(first.Lot.FinalAlcohol.PercentVolume, (double)lots.Rows[1][6], 12);
+        Assert.Equal(first.AbvPerBrix, (double)lots.Rows[1][8], 12);
+        Assert.Equal(2024.0, (double)lots.Rows[1][1]);
+    }
+
+    [Fact]
+    public void A_formula_looking_note_is_stored_as_text_not_as_a_formula()
+    {
+        // Given a lot whose note looks like a formula
+        var (bytes, _) = Build();
+
+        // When the lots sheet's cells are inspected in the package
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        var part = SheetPart(doc, "Lots");
+        int formulas = part.Worksheet.Descendants<DocumentFormat.OpenXml.Spreadsheet.CellFormula>().Count();
+        var lots = ReadSheet(bytes, "Lots");
+
+        // Then no cell holds a formula and the note reads back as the same text
+        Assert.Equal(0, formulas);
+        Assert.Contains(lots.Rows.Cast<DataRow>(), r => Equals(r[35], SampleReview.InjectedNote));
+    }
+
+    [Fact]
+    public void The_native_chart_has_one_series_per_strain_bound_to_the_lots_sheet()
+    {
+        // Given a workbook
+        var (bytes, _) = Build();
+
+        // When the overview's chart part is read
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        var drawings = SheetPart(doc, "Overview").DrawingsPart!;
+        var chart = drawings.ChartParts.Single().ChartSpace;
+        var series = chart.Descendants<C.ScatterChartSeries>().ToArray();
+        var names = series.Select(s => s.SeriesText!.Descendants<C.NumericValue>().Single().Text).ToArray();
+        var xRefs = series.Select(s => s.GetFirstChild<C.XValues>()!.Descendants<C.Formula>().Single().Text).ToArray();
+        var yRefs = series.Select(s => s.GetFirstChild<C.YValues>()!.Descendants<C.Formula>().Single().Text).ToArray();
+
+        // Then each strain is a block of rows of columns F (starting sugar) and G (final alcohol) of 'Lots'
+        Assert.Equal(["ST-A", "ST-B", "ST-C"], names);
+        Assert.Equal(["'Lots'!$F$2:$F$13", "'Lots'!$F$14:$F$25", "'Lots'!$F$26:$F$37"], xRefs);
+        Assert.Equal(["'Lots'!$G$2:$G$13", "'Lots'!$G$14:$G$25", "'Lots'!$G$26:$G$37"], yRefs);
+    }
+
+    [Fact]
+    public void Every_chart_is_placed_as_a_picture_and_the_key_ones_on_the_overview()
+    {
+        // Given a workbook and its charts
+        var (bytes, charts) = Build();
+
+        // When the pictures of each sheet are counted
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        int Pictures(string sheet) => SheetPart(doc, sheet).DrawingsPart?.WorksheetDrawing?.Descendants<DocumentFormat.OpenXml.Drawing.Spreadsheet.Picture>().Count() ?? 0;
+
+        // Then the overview shows the five review charts, the lots sheet its alcohol-vs-sugar chart and the house-factor sheet its backtest chart
+        Assert.Equal(5, charts.Count);
+        Assert.Equal(5, Pictures("Overview"));
+        Assert.Equal(1, Pictures("Lots"));
+        Assert.Equal(1, Pictures("House factor"));
+        Assert.Equal(0, Pictures("Methods and cautions"));
+    }
+
+    [Fact]
+    public void The_same_review_gives_the_same_workbook_bytes()
+    {
+        // Given one review built twice, from scratch
+        var (first, _) = Build();
+        var second = fixture.BuildAgain();
+
+        // When compared byte for byte
+        // Then they are identical (fixed package times, fixed zip entry times, no clock inside)
+        Assert.Equal(first.Length, second.Length);
+        Assert.True(first.AsSpan().SequenceEqual(second), "workbook bytes differ between runs");
+    }
+
+    [Fact]
+    public void The_package_carries_no_clock_time()
+    {
+        // Given a workbook
+        var (bytes, _) = Build();
+
+        // When its package properties and zip entry times are read
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        using var zip = new System.IO.Compression.ZipArchive(new MemoryStream(bytes));
+
+        // Then they carry the fixed values
+        Assert.Equal(WorkbookWriter.FixedTimestamp, doc.PackageProperties.Created!.Value.ToUniversalTime());
+        Assert.All(zip.Entries, e => Assert.Equal(1980, e.LastWriteTime.Year));
+    }
+
+    [Fact]
+    public void A_picture_free_workbook_reopens_in_ClosedXML_with_the_values()
+    {
+        // Given the workbook without pictures (ClosedXML needs libgdiplus to open one with pictures)
+        var review = fixture.Review;
+        var (bytes, _) = Build(pictures: false);
+
+        // When ClosedXML opens it
+        using var wb = new XLWorkbook(new MemoryStream(bytes));
+        var lots = wb.Worksheet("Lots");
+
+        // Then the header is frozen, filtered, and the values are there with their formats
+        Assert.Equal(1, lots.SheetView.SplitRow);
+        Assert.True(lots.AutoFilter.IsEnabled);
+        Assert.Equal(review.Lots.Count + 1, lots.LastRowUsed()!.RowNumber());
+        Assert.Equal("0.00", lots.Cell(2, 6).Style.NumberFormat.Format);
+        Assert.Equal("YieldBench review", wb.Worksheet("Overview").Cell(1, 1).GetString());
+        Assert.Equal(review.Lots.Count, wb.Worksheet("Overview").Cell(6, 2).GetValue<int>());
+    }
+
+    [Fact]
+    public void Column_letters_follow_the_spreadsheet_scheme()
+    {
+        // Given column numbers
+        // When converted
+        // Then 1 → A, 26 → Z, 27 → AA, 702 → ZZ, 703 → AAA
+        Assert.Equal("A", WorkbookWriter.ColumnLetter(1));
+        Assert.Equal("Z", WorkbookWriter.ColumnLetter(26));
+        Assert.Equal("AA", WorkbookWriter.ColumnLetter(27));
+        Assert.Equal("ZZ", WorkbookWriter.ColumnLetter(702));
+        Assert.Equal("AAA", WorkbookWriter.ColumnLetter(703));
+    }
+
+    internal static DataTable ReadSheet(byte[] bytes, string sheet)
+    {
+        // ExcelDataReader asks for code page 1252 even for .xlsx; .NET ships it behind this provider.
+        System.Text.Encoding.RegisterProvider(System.Text.CodePagesEncodingProvider.Instance);
+        using var reader = ExcelReaderFactory.CreateReader(new MemoryStream(bytes));
+        do
+        {
+            if (reader.Name != sheet)
+            {
+                continue;
+            }
+
+            var table = new DataTable(sheet);
+            for (int c = 0; c < reader.FieldCount; c++)
+            {
+                table.Columns.Add("c" + c, typeof(object));
+            }
+
+            while (reader.Read())
+            {
+                var values = new object[reader.FieldCount];
+                for (int c = 0; c < reader.FieldCount; c++)
+                {
+                    values[c] = reader.GetValue(c) ?? DBNull.Value;
+                }
+
+                table.Rows.Add(values);
+            }
+
+            return table;
+        }
+        while (reader.NextResult());
+        throw new InvalidOperationException("no sheet " + sheet);
+    }
+
+    private static WorksheetPart SheetPart(SpreadsheetDocument doc, string name)
+    {
+        var sheet = doc.WorkbookPart!.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().First(s => s.Name == name);
+        return (WorksheetPart)doc.WorkbookPart.GetPartById(sheet.Id!);
+    }
+}
