@@ -47,6 +47,7 @@ public static class YieldBenchApp
         yield return Commands.ReviewCommand.Create(context);
         yield return Commands.CheckCommand.Create(context);
         yield return Commands.TemplateCommand.Create(context);
+        yield return Commands.PlanCommand.Create(context);
     }
 
     private sealed class PrintVersion(CliContext context) : SynchronousCommandLineAction

@@ -105,7 +105,7 @@ public static class IntakeMessages
         $"{field} could be {asThousands} (comma as thousands separator) or {asDecimal} (decimal comma). Write it without a thousands separator.";
 
     internal static string OutOfRange(string field, string shown, double min, double max, string unit) =>
-        $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)} {unit}. Check the value and its unit.";
+        $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)}{(unit.Length > 0 ? " " + unit : "")}. Check the value and its unit.";
 
     internal static string NotPositive(string field, string shown) =>
         $"{field} {shown} is not above zero. Enter the volume or capacity in the header's unit, or leave it empty.";
@@ -155,7 +155,7 @@ public static class IntakeMessages
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
 
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
-        $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? ", …" : "")}. Kinetics is shown only for lots with a log.";
+        $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";
 
     /// <summary>Text appended to an issue about an optional value that was left empty while the row was used.</summary>
     internal const string LeftEmpty = " The value was left empty; the rest of the row was used.";

@@ -916,7 +916,7 @@ internal static partial class TableReader
             if (when is null && !st.Bad)
             {
                 var c = tsCol ?? dateCol!;
-                st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-value", IntakeMessages.MissingTimestamp(), true);
+                st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-timestamp", IntakeMessages.MissingTimestamp(), true);
             }
 
             SugarReading? sugar = sugarCol is null ? null : SugarField(st, "sugar");

@@ -6,14 +6,14 @@ namespace YieldBench.Core.Conversion;
 /// <summary>
 /// Effective starting sugar after recorded pre-fermentation additions, by mass balance.
 /// °Brix is grams of sucrose-equivalent solids per 100 g of must, so with must volume V (L) at °Bx B₀:
-/// must mass M₀ = V·ρ(B₀) kg (ρ = SG 20/20 × 0.99820 kg/L); solids = M₀·B₀/100;
+/// must mass M₀ = V·ρ(B₀) kg (ρ = SG 20/20 × 0.99820 kg/L of a sucrose solution of that °Brix); solids = M₀·B₀/100;
 /// water W litres adds 0.99820·W kg of mass and no solids; sucrose K kg adds K kg of mass and K kg of solids;
 /// effective °Bx B₁ = 100·(solids + K)/(M₀ + 0.99820·W + K).
 /// Volume afterwards V₁ = M₁/ρ(B₁): the mixture is given the density of a sucrose solution of its °Brix, which
 /// stands in for the small contraction on mixing and the volume the dissolved sugar takes up.
 /// Fermentable sugar afterwards = (sugar model at B₀ × V + 1000·K·1.0526)/V₁ g/L: added sucrose inverts to
 /// 1.0526 times its mass of glucose + fructose (C12H22O11 + H2O → 2 C6H12O6) before yeast ferment it.
-/// Approximations are listed in docs/methods-units.md ("Additions").
+/// Approximations are listed in docs/methods-units.md ("Additions: water and sugar before fermentation").
 /// </summary>
 public static class AdditionBalance
 {
@@ -84,8 +84,9 @@ public static class AdditionBalance
 
     /// <summary>
     /// Water (L) to add to <paramref name="mustVolumeL"/> litres at <paramref name="measured"/> to reach
-    /// <paramref name="targetBrix"/> (0.1–50 °Brix), and the volume afterwards (mass ÷ density at the target).
-    /// Zero water when the must is already at or below the target.
+    /// <paramref name="targetBrix"/> (0.1–50 °Brix), and the volume afterwards, V + W: volumes of must and water are
+    /// taken as additive (the mass-over-density volume of <see cref="Apply(SugarReading, Additions, SugarModel)"/>
+    /// differs by about 0.01 %). Zero water when the must is already at or below the target.
     /// </summary>
     public static (double WaterL, double VolumeAfterL) WaterForTarget(SugarReading measured, double mustVolumeL, double targetBrix)
     {
@@ -100,7 +101,7 @@ public static class AdditionBalance
         double solids = mass * measured.Brix / 100.0;
         double massAfter = 100.0 * solids / targetBrix;
         double water = (massAfter - mass) / OivMustTable.WaterDensity20C;
-        return (water, massAfter / Density(targetBrix));
+        return (water, mustVolumeL + water);
     }
 
     /// <summary>
@@ -125,5 +126,5 @@ public static class AdditionBalance
     }
 
     /// <summary>Density at 20 °C (kg/L) of a sucrose solution of this °Brix, standing in for the must's.</summary>
-    private static double Density(double brix) => SugarScales.SpecificGravityFromBrix(brix) * OivMustTable.WaterDensity20C;
+    private static double Density(double brix) => SugarScales.DensityFromBrix(brix);
 }

@@ -4,7 +4,7 @@ namespace YieldBench.Core.Conversion;
 
 /// <summary>
 /// Computes each lot's four conversion measures (definitions and sources in docs/methods-units.md,
-/// "Conversion measures"). A measure that cannot be computed is NaN and the lot carries a note saying why.
+/// "The four conversion measures"). A measure that cannot be computed is NaN and the lot carries a note saying why.
 /// </summary>
 public static class ConversionFactors
 {

@@ -33,8 +33,8 @@ public sealed record SugarModel(SugarRule Rule)
     {
         SugarRule.OivTable => OivMustTable.SugarGramsPerLitre(brix),
 
-        // % w/v is g per 100 mL, so g/L = 10 × (°Brix − 2.1) × density (g/mL, SG 20/20 × 0.99820).
-        SugarRule.BrixMinusNonSugar => Math.Max(0, (brix - NonSugarBrix) * 10.0 * SugarScales.SpecificGravityFromBrix(brix) * OivMustTable.WaterDensity20C),
+        // % w/v is g per 100 mL, so g/L = 10 × (°Brix − 2.1) × density (g/mL at 20 °C).
+        SugarRule.BrixMinusNonSugar => Math.Max(0, (brix - NonSugarBrix) * 10.0 * SugarScales.DensityFromBrix(brix)),
         _ => throw new ArgumentOutOfRangeException(nameof(Rule), Rule, "Unknown sugar rule."),
     };
 

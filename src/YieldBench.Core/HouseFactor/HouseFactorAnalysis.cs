@@ -194,7 +194,7 @@ public static class HouseFactorAnalysis
         var band95 = (HeldOutErrors.LowerOfSorted(errors, 0.025), HeldOutErrors.UpperOfSorted(errors, 0.975));
         string who = strain == "*" ? "All lots" : $"Strain {strain}";
         string why = ch.Chosen == ch.Best
-            ? $"{who}: {chosen.Name} has the lowest held-out error (MAE {F(m.Mae)} % v/v) and no simpler candidate comes within one standard error ({F(ch.Limit - m.Mae)})."
+            ? $"{who}: {chosen.Name} has the lowest held-out error (MAE {F(m.Mae)} % v/v, standard error {F(ch.Limit - m.Mae)}) and no simpler candidate comes within one standard error of it."
             : $"{who}: {chosen.Name} is the simplest candidate within one standard error of the best ({best.Name}, MAE {F(metrics[ch.Best].Mae)}; limit {F(ch.Limit)}); it costs {F(m.Mae - metrics[ch.Best].Mae)} % v/v of MAE and {F(100 * (metrics[ch.Best].ShareWithinTolerance - m.ShareWithinTolerance), "0.#")} points of lots within tolerance.";
         return new Recommendation(strain, m.Lots, chosen.Id, best.Id, m, ch.Limit, band80, band95, why);
     }

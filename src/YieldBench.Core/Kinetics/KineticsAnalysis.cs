@@ -600,7 +600,22 @@ public static class KineticsAnalysis
             return null;
         }
 
-        int i = Array.FindIndex(temps, p => p.Time >= t);
+        // First reading at or after t, by binary search (dense probe logs hold thousands of readings).
+        int lo = 0, hi = temps.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (temps[mid].Time < t)
+            {
+                lo = mid + 1;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        int i = lo == temps.Length ? -1 : lo;
         if (i >= 0 && temps[i].Time == t)
         {
             return temps[i].Celsius;

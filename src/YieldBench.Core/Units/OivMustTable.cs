@@ -28,8 +28,8 @@ public static class OivMustTable
     /// <summary>Grams of sugar per litre taken as one % vol of potential alcohol in the OIV and EU convention.</summary>
     public const double SugarGramsPerPercentVolume = 16.83;
 
-    /// <summary>Density of water at 20 °C, kg/L (g/mL): SG 20/20 × this = density at 20 °C.</summary>
-    public const double WaterDensity20C = 0.99820;
+    /// <summary>Density of water at 20 °C, kg/L (g/mL); the same constant as <see cref="SugarScales.WaterDensity20C"/>.</summary>
+    public const double WaterDensity20C = SugarScales.WaterDensity20C;
 
     // Rows read in the Arrêté annex (% sucrose, must density kg/L, sugar g/L, % vol at 16.83 g/L).
     private static readonly OivMustRow[] Rows =
@@ -101,18 +101,18 @@ public static class OivMustTable
     public static double PotentialAlcohol(double brix) => SugarGramsPerLitre(brix) / SugarGramsPerPercentVolume;
 
     /// <summary>
-    /// The °Brix whose fermentable sugar is <paramref name="sugarGl"/> (bisection on the rising curve, to 1e-10 °Brix).
+    /// The °Brix whose fermentable sugar is <paramref name="sugarGl"/> (Illinois root-finding on the rising curve, to
+    /// 1e-11 g/L or 1e-10 °Brix).
     /// 0 g/L gives the °Brix where sugar starts (2.147 °Brix).
     /// </summary>
     public static double BrixFromSugarGramsPerLitre(double sugarGl) =>
         InverseOfRising(SugarGramsPerLitre, sugarGl, 0, SugarReading.MaxBrix);
 
     /// <summary>
-    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × density at 20 °C
-    /// (SG 20/20 × 0.99820 kg/L).
+    /// Total dissolved solids of a sucrose solution of this °Brix, g/L: °Brix × 10 × its density at 20 °C
+    /// (SG 20/20 × 0.99820, <see cref="SugarScales.DensityFromBrix"/>).
     /// </summary>
-    public static double TotalSolidsGramsPerLitre(double brix) =>
-        brix * 10.0 * SugarScales.SpecificGravityFromBrix(brix) * WaterDensity20C;
+    public static double TotalSolidsGramsPerLitre(double brix) => brix * 10.0 * SugarScales.DensityFromBrix(brix);
 
     /// <summary>
     /// For a non-decreasing f, the point in [lo, hi] where f passes <paramref name="y"/>: the largest x with f(x) ≤ y
@@ -120,24 +120,73 @@ public static class OivMustTable
     /// </summary>
     internal static double InverseOfRising(Func<double, double> f, double y, double lo, double hi)
     {
-        if (f(hi) < y)
+        double fHi = f(hi) - y;
+        if (fHi < 0)
         {
             return hi;
         }
 
+        double fLo = f(lo) - y;
+        if (y <= 0 || fLo >= 0)
+        {
+            // A flat stretch at y (no sugar below the non-sugar allowance): plain bisection finds its upper end.
+            for (int i = 0; i < 200 && hi - lo > 1e-10; i++)
+            {
+                double mid = 0.5 * (lo + hi);
+                if (f(mid) <= y)
+                {
+                    lo = mid;
+                }
+                else
+                {
+                    hi = mid;
+                }
+            }
+
+            return hi;
+        }
+
+        // Illinois (modified regula falsi): keeps the bracket like bisection, converges superlinearly on the smooth curve.
+        int side = 0;
+        double x = lo;
         for (int i = 0; i < 200 && hi - lo > 1e-10; i++)
         {
-            double mid = 0.5 * (lo + hi);
-            if (f(mid) <= y)
+            x = ((lo * fHi) - (hi * fLo)) / (fHi - fLo);
+            double fx = f(x) - y;
+            if (fx == 0)
             {
-                lo = mid;
+                return x;
+            }
+
+            if (fx < 0)
+            {
+                lo = x;
+                fLo = fx;
+                if (side == -1)
+                {
+                    fHi *= 0.5;
+                }
+
+                side = -1;
             }
             else
             {
-                hi = mid;
+                hi = x;
+                fHi = fx;
+                if (side == 1)
+                {
+                    fLo *= 0.5;
+                }
+
+                side = 1;
+            }
+
+            if (Math.Abs(fx) < 1e-11)
+            {
+                return x;
             }
         }
 
-        return hi;
+        return x;
     }
 }

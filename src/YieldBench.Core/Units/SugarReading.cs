@@ -3,7 +3,7 @@ namespace YieldBench.Core.Units;
 /// <summary>
 /// A must-sugar reading, held internally as °Brix and convertible to every <see cref="SugarScale"/>.
 /// Specific gravity is the apparent SG 20/20 °C (what a hydrometer calibrated at 20 °C reads), related to °Brix by the
-/// closed form fitted to the NBS sucrose table (see docs/methods.md, "Sugar scales").
+/// closed form fitted to the NBS sucrose table (see docs/methods-units.md, "Sugar scales").
 /// </summary>
 public readonly record struct SugarReading : IComparable<SugarReading>
 {
@@ -20,6 +20,9 @@ public readonly record struct SugarReading : IComparable<SugarReading>
 
     /// <summary>Apparent specific gravity 20/20 °C.</summary>
     public double SpecificGravity => SugarScales.SpecificGravityFromBrix(Brix);
+
+    /// <summary>Density at 20 °C, g/mL, of a sucrose solution with this reading: SG × 0.99820.</summary>
+    public double Density => SugarScales.DensityFromSpecificGravity(SpecificGravity);
 
     /// <summary>°Baumé (modulus 145).</summary>
     public double Baume => SugarScales.BaumeFromSpecificGravity(SpecificGravity);
@@ -62,6 +65,18 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     {
         Check.InRange(specificGravity, MinSpecificGravity, MaxSpecificGravity, "Specific gravity (20/20 °C)", string.Empty);
         return new SugarReading(SugarScales.BrixFromSpecificGravity(specificGravity));
+    }
+
+    /// <summary>
+    /// Makes a reading from a density at 20 °C in g/mL (as an oscillating-cell density meter reports it), through
+    /// SG = density ÷ 0.99820 (<see cref="SugarScales.SpecificGravityFromDensity"/>).
+    /// </summary>
+    public static SugarReading FromDensity(double gramsPerMillilitre)
+    {
+        double min = Math.Ceiling(SugarScales.DensityFromSpecificGravity(MinSpecificGravity) * 1e4) / 1e4;
+        double max = Math.Floor(SugarScales.DensityFromSpecificGravity(MaxSpecificGravity) * 1e4) / 1e4;
+        Check.InRange(gramsPerMillilitre, min, max, "Density at 20 °C", "g/mL");
+        return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromDensity(gramsPerMillilitre)));
     }
 
     /// <summary>Makes a reading from °Baumé (modulus 145).</summary>

@@ -1,12 +1,39 @@
 namespace YieldBench.Core.Units;
 
 /// <summary>
-/// The raw relations between sugar scales. Each formula's source is in docs/methods.md ("Sugar scales").
+/// The raw relations between sugar scales. Each formula's source is in docs/methods-units.md ("Sugar scales").
 /// </summary>
 public static class SugarScales
 {
     /// <summary>Baumé modulus for liquids heavier than water (SG = 145 / (145 − °Bé)).</summary>
     public const double BaumeModulus = 145.0;
+
+    /// <summary>Density of water at 20 °C, g/mL (998.20 kg/m³).</summary>
+    public const double WaterDensity20C = 0.99820;
+
+    /// <summary>Conventional density of air for weighing, g/mL (1.2 kg/m³).</summary>
+    public const double AirDensity = 0.0012;
+
+    /// <summary>
+    /// Density at 20 °C (g/mL) taken for a liquid of apparent SG 20/20 <paramref name="sg"/>: SG × 0.99820. This
+    /// neglects air buoyancy in the apparent SG, which would lower the density by (SG − 1) × 0.0012 g/mL (1.2e-4 g/mL at
+    /// 24 °Brix, 0.01 %) — far below the 0.16 % by which a must's density exceeds a sucrose solution's (see
+    /// docs/methods-units.md); the whole project uses this one rule.
+    /// </summary>
+    public static double DensityFromSpecificGravity(double sg) => sg * WaterDensity20C;
+
+    /// <summary>Apparent SG 20/20 taken for a density at 20 °C in g/mL (inverse of <see cref="DensityFromSpecificGravity"/>).</summary>
+    public static double SpecificGravityFromDensity(double density) => density / WaterDensity20C;
+
+    /// <summary>
+    /// True SG 20/20 (ratio of densities) of a liquid whose apparent SG 20/20 (ratio of weights in air) is
+    /// <paramref name="apparentSg"/>: 1 + (SG − 1)·(1 − ρ_air/ρ_water). For comparing with tables of true SG.
+    /// </summary>
+    public static double TrueSpecificGravity(double apparentSg) =>
+        1.0 + ((apparentSg - 1.0) * (1.0 - (AirDensity / WaterDensity20C)));
+
+    /// <summary>Density at 20 °C (g/mL, equal to kg/L) of a sucrose solution of this °Brix: SG 20/20 × 0.99820.</summary>
+    public static double DensityFromBrix(double brix) => DensityFromSpecificGravity(SpecificGravityFromBrix(brix));
 
     /// <summary>
     /// °Brix from apparent SG 20/20 °C: °Bx = ((182.4601·S − 775.6821)·S + 1262.7794)·S − 669.5622, the cubic fitted

@@ -9,6 +9,17 @@ public static class KineticsCsv
     /// <summary>Conventional file name inside the output's data folder.</summary>
     public const string FileName = "kinetics.csv";
 
+    /// <summary>Conventional file name of the per-reading data file.</summary>
+    public const string ReadingsFileName = "kinetics-readings.csv";
+
+    /// <summary>Writes one row per sugar reading (rates, smoothed rate, sugar g/L and heat potential) as CSV.</summary>
+    public static void WriteReadings(KineticsReview review, TextWriter writer)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(writer);
+        writer.Write(CsvText.Write(KineticsTables.Readings(review)));
+    }
+
     /// <summary>Writes the per-lot table as CSV (RFC 4180, CRLF, round-trip numbers; see <see cref="CsvText"/>).</summary>
     public static void Write(KineticsReview review, TextWriter writer)
     {

@@ -1,4 +1,5 @@
 using ClosedXML.Excel;
+using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Tables;
@@ -24,7 +25,13 @@ public static class KineticsSheet
     ];
 
     /// <summary>Writes the sheet from row 1. The sheet should be empty.</summary>
-    public static void Fill(IXLWorksheet sheet, KineticsReview review)
+    public static void Fill(IXLWorksheet sheet, KineticsReview review) => Fill(sheet, review, null);
+
+    /// <summary>
+    /// Writes the sheet from row 1; with <paramref name="lots"/>, the strain table also shows each strain's median
+    /// conversion (alcohol per °Brix, sugar per % alcohol) beside its kinetics.
+    /// </summary>
+    public static void Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(review);
@@ -43,7 +50,7 @@ public static class KineticsSheet
 
         var widths = new Dictionary<int, int>();
         row++;
-        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review), widths);
+        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, lots), widths);
         row++;
         row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", KineticsTables.Lots(review), widths);
         row++;

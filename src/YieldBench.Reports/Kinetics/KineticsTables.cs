@@ -1,4 +1,6 @@
+using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
+using YieldBench.Core.Statistics;
 using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports.Kinetics;
@@ -77,6 +79,30 @@ public static class KineticsTables
         new("stuck_share", "Stuck share", CellKind.Share),
     ];
 
+    /// <summary>Conversion columns appended to the strain table when the lots' conversion measures are given.</summary>
+    public static IReadOnlyList<ReportColumn> StrainConversionColumns { get; } =
+    [
+        new("lots_reviewed", "Lots reviewed (all, with or without a log)", CellKind.Integer),
+        new("abv_per_brix_median", "Alcohol per °Brix, median (% v/v per °Brix)", CellKind.Number, "0.0000"),
+        new("sugar_gl_per_abv_median", "Sugar per % alcohol, median (g/L per % v/v)", CellKind.Number, "0.00"),
+    ];
+
+    /// <summary>Columns of the per-reading table (data/kinetics-readings.csv).</summary>
+    public static IReadOnlyList<ReportColumn> ReadingColumns { get; } =
+    [
+        new("season", "Season", CellKind.Integer),
+        new("lot_id", "Lot", CellKind.Text),
+        new("time", "Time", CellKind.DateTime),
+        new("hours_from_time_zero_h", "Hours from time zero", CellKind.Number, "0.00"),
+        new("sugar_brix", "Sugar (°Brix)", CellKind.Number, "0.00"),
+        new("temp_c", "Temperature (°C)", CellKind.Number, "0.0"),
+        new("rate_since_previous_brix_per_day", "Rate since previous reading (°Brix/day)", CellKind.Number, "0.00"),
+        new("smoothed_rate_brix_per_day", "Smoothed rate (°Brix/day)", CellKind.Number, "0.00"),
+        new("sugar_remaining_gl", "Fermentable sugar remaining (g/L)", CellKind.Number, "0.0"),
+        new("potential_rise_k", "Rise possible without cooling (K)", CellKind.Number, "0.0"),
+        new("reachable_temp_c", "Reachable without cooling (°C)", CellKind.Number, "0.0"),
+    ];
+
     /// <summary>Columns of the findings table.</summary>
     public static IReadOnlyList<ReportColumn> FindingColumns { get; } =
     [
@@ -115,14 +141,18 @@ public static class KineticsTables
         return t;
     }
 
-    /// <summary>One row per strain.</summary>
-    public static ReportTable Strains(KineticsReview review)
+    /// <summary>
+    /// One row per strain. With <paramref name="lots"/> (the review's conversion measures), the strain's median
+    /// conversion is appended so a sheet shows each strain's whole performance; these medians are order statistics of
+    /// values the conversion review computed, taken here only to join the two tables.
+    /// </summary>
+    public static ReportTable Strains(KineticsReview review, IReadOnlyList<LotConversion>? lots = null)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var t = new ReportTable(StrainColumns);
+        var t = new ReportTable(lots is null ? StrainColumns : [.. StrainColumns, .. StrainConversionColumns]);
         foreach (var s in review.Strains)
         {
-            t.Add(
+            object?[] cells =
             [
                 s.Strain, s.Lots,
                 s.MaxRateBrixPerDay.Median, s.MaxRateBrixPerDay.Iqr,
@@ -130,7 +160,44 @@ public static class KineticsTables
                 s.DaysToDry.Median, s.DaysToDry.Iqr, s.DaysToDry.N,
                 s.PeakTemperatureC.Median, s.PeakTemperatureC.Iqr,
                 s.SluggishShare, s.StuckShare,
-            ]);
+            ];
+            if (lots is not null)
+            {
+                var mine = lots.Where(l => string.Equals(l.Lot.Strain, s.Strain, StringComparison.Ordinal)).ToArray();
+                cells =
+                [
+                    .. cells,
+                    mine.Length,
+                    Descriptive.Median(mine.Select(l => l.AbvPerBrix).Where(double.IsFinite)),
+                    Descriptive.Median(mine.Select(l => l.SugarGlPerAbv).Where(double.IsFinite)),
+                ];
+            }
+
+            t.Add(cells);
+        }
+
+        return t;
+    }
+
+    /// <summary>One row per sugar reading of every analysed lot, with its rates and heat potential.</summary>
+    public static ReportTable Readings(KineticsReview review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var t = new ReportTable(ReadingColumns);
+        foreach (var k in review.Lots)
+        {
+            var heat = k.Heat.ToDictionary(h => h.Time);
+            for (int i = 0; i < k.Sugar.Count; i++)
+            {
+                var p = k.Sugar[i];
+                heat.TryGetValue(p.Time, out var h);
+                t.Add(
+                [
+                    k.Lot.Season, k.Lot.LotId, p.Time, p.Hours, p.Brix, p.TemperatureC,
+                    i > 0 ? k.Rates[i - 1].BrixPerDay : null, k.SmoothedRates[i].BrixPerDay,
+                    h?.SugarGl, h?.PotentialRiseK, h?.PotentialTemperatureC,
+                ]);
+            }
         }
 
         return t;

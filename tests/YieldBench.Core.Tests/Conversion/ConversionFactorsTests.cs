@@ -1,3 +1,4 @@
+using System.Globalization;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Units;
@@ -101,7 +102,7 @@ public class ConversionFactorsTests
     [Fact]
     public void Residual_sugar_above_the_starting_sugar_leaves_the_fermented_measures_empty_with_a_reason()
     {
-        // Given 12 °Bx must (the table gives 103.7 g/L) and a residual sugar typed as 150 g/L
+        // Given 12 °Bx must (103.54 g/L by the model; units_oracle.py 103.537370) and a residual sugar typed as 150 g/L
         var c = ConversionFactors.For(MakeLot(12.0, 1.0, 150.0), SugarModel.Default);
 
         // Then the fermented measures are NaN and the note names both values
@@ -109,8 +110,11 @@ public class ConversionFactorsTests
         Assert.True(double.IsNaN(c.SugarGlPerAbv));
         Assert.True(double.IsNaN(c.GayLussacEfficiency));
         Assert.Equal(1.0 / 12.0, c.AbvPerBrix, 1e-12);
+        Assert.Equal(103.53737029826874, c.StartingSugarGl, 1e-9);
         Assert.Contains(
-            $"residual sugar 150.0 g/L is not below the starting sugar {c.StartingSugarGl:0.0} g/L, so the fermented measures cannot be computed; check both values",
+            string.Create(
+                CultureInfo.InvariantCulture,
+                $"residual sugar 150.0 g/L is not below the starting sugar {c.StartingSugarGl:0.0} g/L, so the fermented measures cannot be computed; check both values"),
             c.Notes);
     }
 

@@ -13,12 +13,12 @@ public class SugarModelTests
         // (Margalit, Winery Technology and Operations, p. 3, as quoted second-hand: 13.3 ± 0.2 %)
         var model = SugarModel.BrixMinusNonSugar;
 
-        // When its potential alcohol is computed (our density: SG 20/20 of 22.7 °Bx × 0.99820 = 1.0931 g/mL)
+        // When its potential alcohol is computed (our density of 22.7 °Bx: SG 1.09511 × 0.99820 = 1.0931 g/mL)
         double potential = model.PotentialAlcohol(22.7);
 
         // Then it is 13.25 %, inside 13.3 ± 0.2; with the example's own density 1.095 the rule gives 13.27 %
         Assert.InRange(potential, 13.1, 13.5);
-        Assert.Equal(13.246214038285906, potential, 1e-6); // scipy 1.10.1 brentq SG, same formula
+        Assert.Equal(13.246214038285908, potential, 1e-6); // units_oracle.py (scipy 1.10.1 brentq SG)
         Assert.Equal(13.268823529411764, (22.7 - SugarModel.NonSugarBrix) * 1.095 / 1.7, 1e-12);
     }
 

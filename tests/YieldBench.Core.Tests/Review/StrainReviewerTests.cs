@@ -116,9 +116,12 @@ public class StrainReviewerTests
         // Given Y-22 planted 0.3 % v/v low in 2025
         var (cellar, review) = Scenario.Value;
 
-        // Then a season-drift flag names that strain and season
+        // Then a season-drift flag names that strain and season, and no other strain-season drifts
         var drift = review.Flags.Where(f => f.Code == FlagCodes.SeasonDrift).ToArray();
-        Assert.Contains(drift, f => f.Strain == cellar.Drift.Strain && f.Season == cellar.Drift.Season && f.LotKey is null);
+        var only = Assert.Single(drift);
+        Assert.Equal((cellar.Drift.Strain, cellar.Drift.Season), (only.Strain, only.Season));
+        Assert.Null(only.LotKey);
+        Assert.Contains("less alcohol", only.Reason, StringComparison.Ordinal);
     }
 
     [Fact]

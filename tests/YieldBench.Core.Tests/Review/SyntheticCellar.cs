@@ -95,7 +95,7 @@ internal sealed class SyntheticCellar
         Add("P-SWAP-1", "Y-05", 42.2, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
         Add("P-SWAP-2", "Y-05", 22.4, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
         var sugar = SugarModel.Default.SugarGramsPerLitre(23.0);
-        double theoretical = sugar * GayLussac.EthanolMassYield / (10 * Units.AlcoholContent.EthanolDensity20C);
+        double theoretical = sugar * GayLussac.EthanolMassYield / (10 * YieldBench.Core.Units.AlcoholContent.EthanolDensity20C);
         Add("P-OVER", "Y-22", 23.0, 1.05 * theoretical, FlagCodes.AboveTheoreticalYield);
         Add("P-STUCK", "Y-31", 24.0, Abv(24.0 - 1.2, "Y-31"), FlagCodes.NotDry, residualSugar: 12.0);
 

@@ -42,18 +42,19 @@ public class OivMustTableTests
         Assert.Equal(potentialAlcohol, computed, 0.01);
     }
 
-    // scipy 1.10.1 (Debian python3-scipy 1.10.1-2), /usr/bin/python3:
-    //   NS = [Bx·10·SG(Bx)·0.99820 − sugar for each row]; PchipInterpolator(rows_bx, NS)(x);
-    //   sugar(x) = x·10·SG(x)·0.99820 − that, SG from scipy.optimize.brentq on the NBS cubic.
+    // scipy 1.10.1 (Debian python3-scipy 1.10.1-2): /usr/bin/python3 tests/YieldBench.Core.Tests/Units/Oracles/units_oracle.py
+    //   ρ(Bx) = SG(Bx)·0.99820, SG from scipy.optimize.brentq on the NBS cubic;
+    //   NS = [Bx·10·ρ(Bx) − sugar for each row]; sugar(x) = x·10·ρ(x) − PchipInterpolator(rows_bx, NS)(x).
     [Theory]
-    [InlineData(10.5, 87.50768347758991)]
-    [InlineData(12.5, 108.91700802336038)]
+    [InlineData(10.5, 87.50768347758992)]
+    [InlineData(12.0, 103.53737029826874)]
+    [InlineData(12.5, 108.91700802336044)]
     [InlineData(17.5, 163.7640017539478)]
-    [InlineData(21.0, 203.26821904644012)]
-    [InlineData(23.3, 229.67371013886807)]
-    [InlineData(25.5, 255.34445855848844)]
-    [InlineData(27.0, 273.00589993029035)]
-    [InlineData(29.0, 296.86232143530634)]
+    [InlineData(21.0, 203.2682190464401)]
+    [InlineData(23.3, 229.6737101388681)]
+    [InlineData(25.5, 255.34445855848847)]
+    [InlineData(27.0, 273.00589993029047)]
+    [InlineData(29.0, 296.8623214353063)]
     public void Between_rows_the_sugar_is_the_monotone_cubic_scipy_computes(double brix, double scipySugarGl)
     {
         // Given a °Brix between published rows
@@ -83,8 +84,8 @@ public class OivMustTableTests
         }
 
         // Then the worst miss is 0.0461 g/L, at 20 °Bx — inside the print's rounding of ±0.05 g/L.
-        // scipy 1.10.1, same construction with PchipInterpolator: 0.04609702809710825 (pchip on sugar itself: 0.1785)
-        Assert.Equal(0.04609702809710825, worst, 1e-9);
+        // scipy 1.10.1, same construction with PchipInterpolator: 0.04609702809707983 (pchip on sugar itself: 0.1785)
+        Assert.Equal(0.04609702809707983, worst, 1e-9);
     }
 
     [Fact]
@@ -109,7 +110,7 @@ public class OivMustTableTests
         double sugar = OivMustTable.SugarGramsPerLitre(40.0);
 
         // Then it is total solids minus the 30 °Bx row's 29.2300 g/L (scipy 1.10.1: 441.41642)
-        Assert.Equal(441.4164177741309, sugar, 1e-9);
+        Assert.Equal(441.41641777413093, sugar, 1e-9);
     }
 
     [Fact]
@@ -131,10 +132,10 @@ public class OivMustTableTests
         // Given the table's must densities and the NBS-cubic sucrose density at the same °Brix
         // When compared row by row
         var excess = OivMustTable.Table
-            .Select(r => r.DensityKgPerL - (SugarScales.SpecificGravityFromBrix(r.Brix) * OivMustTable.WaterDensity20C))
+            .Select(r => r.DensityKgPerL - SugarScales.DensityFromBrix(r.Brix))
             .ToArray();
 
-        // Then must is denser by 0.6–1.6 g/L (0.06–0.14 %): the documented error of using sucrose density in mass balances
-        Assert.All(excess, e => Assert.InRange(e, 0.0005, 0.0017));
+        // Then must is denser by 0.5–1.7 g/L (at most 0.14 %): the documented error of using sucrose density in mass balances
+        Assert.All(excess, e => Assert.InRange(e, 0.0004, 0.0018));
     }
 }

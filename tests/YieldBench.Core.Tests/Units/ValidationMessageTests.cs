@@ -41,6 +41,16 @@ public class ValidationMessageTests
     }
 
     [Fact]
+    public void A_density_outside_the_range_is_refused_in_grams_per_millilitre()
+    {
+        // Given 1.3 g/mL, beyond the densest accepted must (50 °Bx: SG 1.2318 × 0.99820 = 1.2296, rounded inward)
+        var ex = Assert.Throws<ArgumentOutOfRangeException>(() => SugarReading.FromDensity(1.3));
+
+        // Then the message names value and range in g/mL
+        Assert.StartsWith("Density at 20 °C 1.3 g/mL is outside the plausible range 0.9756 to 1.2295 g/mL.", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Alcohol_above_twenty_five_percent_is_refused_naming_the_range()
     {
         // Given 31 % v/v, beyond fermentation (fortified wines are out of scope)

@@ -61,4 +61,30 @@ public class KineticsCsvTests
         // Then the texts are identical (no timestamps, fixed order)
         Assert.Equal(a.ToString(), b.ToString());
     }
+
+    [Fact]
+    public void The_readings_file_has_one_row_per_sugar_reading_with_its_rate_and_heat_potential()
+    {
+        // Given the review (R-01: 24.0 → 23.6 °Brix in the first 12 h, at 18 °C and 21 °C)
+        var (_, review) = KineticsReportData.Build();
+
+        // When the readings file is written
+        using var w = new StringWriter();
+        KineticsCsv.WriteReadings(review, w);
+        var lines = w.ToString().Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
+        var header = lines[0].Split(',');
+
+        // Then every sugar reading has a row; the second R-01 row carries (24.0 − 23.6) / 12 h × 24 = 0.8 °Brix/day
+        Assert.Equal(1 + review.Lots.Sum(l => l.Sugar.Count), lines.Length);
+        Assert.Equal("season,lot_id,time,hours_from_time_zero_h,sugar_brix,temp_c,rate_since_previous_brix_per_day,smoothed_rate_brix_per_day,sugar_remaining_gl,potential_rise_k,reachable_temp_c", lines[0]);
+        var first = lines[1].Split(',');
+        var second = lines[2].Split(',');
+        Assert.Equal("2025-09-28T08:00:00", first[2]);
+        Assert.Equal("6", first[3]);
+        Assert.Equal(string.Empty, first[Array.IndexOf(header, "rate_since_previous_brix_per_day")]);
+        Assert.Equal(0.8, double.Parse(second[Array.IndexOf(header, "rate_since_previous_brix_per_day")], System.Globalization.CultureInfo.InvariantCulture), 9);
+        double rise = double.Parse(first[Array.IndexOf(header, "potential_rise_k")], System.Globalization.CultureInfo.InvariantCulture);
+        double reach = double.Parse(first[Array.IndexOf(header, "reachable_temp_c")], System.Globalization.CultureInfo.InvariantCulture);
+        Assert.Equal(18.0 + rise, reach, 9);
+    }
 }

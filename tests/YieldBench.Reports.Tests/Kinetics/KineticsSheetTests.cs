@@ -83,4 +83,24 @@ public class KineticsSheetTests
         // Then a non-empty workbook package was written
         Assert.True(ms.Length > 5000);
     }
+
+    [Fact]
+    public void Given_the_conversion_measures_the_strain_table_shows_each_strains_median_conversion()
+    {
+        // Given the review and its lots (every invented lot: 24 °Brix, 14 % v/v, so 14 / 24 = 0.58333 % v/v per °Brix)
+        var (lots, review) = KineticsReportData.Build();
+        using var wb = new XLWorkbook();
+        var sheet = wb.AddWorksheet(KineticsSheet.SheetName);
+
+        // When the sheet is filled with the lots
+        KineticsSheet.Fill(sheet, review, lots);
+
+        // Then KX-11 shows 3 lots reviewed (one without a log) and the median conversion
+        var header = Find(sheet, "Alcohol per °Brix, median (% v/v per °Brix)");
+        var reviewed = Find(sheet, "Lots reviewed (all, with or without a log)");
+        int kxRow = header.Address.RowNumber + 2;
+        Assert.Equal("KX-11", sheet.Cell(kxRow, 1).GetString());
+        Assert.Equal(3, sheet.Cell(kxRow, reviewed.Address.ColumnNumber).GetValue<int>());
+        Assert.Equal(14.0 / 24.0, sheet.Cell(kxRow, header.Address.ColumnNumber).GetValue<double>(), 9);
+    }
 }

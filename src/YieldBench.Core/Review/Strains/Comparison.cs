@@ -70,6 +70,9 @@ internal static class Comparison
         };
     }
 
+    /// <summary>Rounds to two decimals without a negative zero ("-0.00" reads as a sign that is not there).</summary>
+    private static double R2(double v) => Math.Round(v, 2) + 0.0;
+
     private static string Leader(string[] strains, double[] values)
     {
         int best = 0;
@@ -242,7 +245,7 @@ internal static class Comparison
         {
             if (d.Interval.Contains(0))
             {
-                sentences.Add(Invariant($"{d.First} and {d.Second} make the same alcohol from the same sugar within the noise (difference {d.AbvDifference:+0.00;-0.00;0.00} % v/v, interval {d.Interval.Low:0.00} to {d.Interval.High:0.00})."));
+                sentences.Add(Invariant($"{d.First} and {d.Second} make the same alcohol from the same sugar within the noise (difference {R2(d.AbvDifference):+0.00;-0.00;0.00} % v/v, interval {R2(d.Interval.Low):0.00} to {R2(d.Interval.High):0.00})."));
             }
             else
             {

@@ -391,12 +391,14 @@ internal static class OddLots
                 double median = Descriptive.Median(season.Select(l => l.Factor));
                 var interval = Bootstrap.MedianInterval(others, settings.Resamples, settings.Level,
                     StrainReviewer.DerivedSeed(seed, "drift|" + strain.Key + "|" + season.Key.ToString(CultureInfo.InvariantCulture)));
-                if (interval.Contains(median))
+                double otherMedian = Descriptive.Median(others);
+                double strainBrix = Descriptive.Median(strain.Select(l => l.Brix));
+                double driftAbv = Math.Abs(median - otherMedian) * strainBrix;
+                if (interval.Contains(median) || !(driftAbv >= settings.DriftMinimumAbv))
                 {
                     continue;
                 }
 
-                double otherMedian = Descriptive.Median(others);
                 result.Add(new LotFlag
                 {
                     Season = season.Key,
@@ -408,7 +410,7 @@ internal static class OddLots
                     ReferenceGroup = Invariant($"strain {strain.Key}, other seasons"),
                     ReferenceMedian = otherMedian,
                     ReferenceScale = Robust.Mad(others),
-                    Reason = Invariant($"strain {strain.Key}'s median factor in {season.Key} ({median:0.0000}, {season.Count()} lots) lies outside the {settings.Level * 100:0} % interval {interval.Low:0.0000}–{interval.High:0.0000} of its median in the other seasons ({otherMedian:0.0000}, {others.Length} lots)"),
+                    Reason = Invariant($"strain {strain.Key}'s median factor in {season.Key} ({median:0.0000}, {season.Count()} lots) lies outside the {settings.Level * 100:0} % interval {interval.Low:0.0000}–{interval.High:0.0000} of its median in the other seasons ({otherMedian:0.0000}, {others.Length} lots); at its median {strainBrix:0.0} °Brix that is {driftAbv:0.00} % v/v {(median < otherMedian ? "less" : "more")} alcohol"),
                     FollowUp = FollowUps.SeasonCheck,
                 });
             }

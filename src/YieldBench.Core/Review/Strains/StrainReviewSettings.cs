@@ -61,6 +61,12 @@ public sealed record StrainReviewSettings
     /// <summary>Share of water in the must (0–1) that an unrecorded add-back could plausibly explain, high end.</summary>
     public double WaterShareHigh { get; init; } = 0.25;
 
+    /// <summary>
+    /// Smallest season drift worth a flag, in % v/v at the strain's median starting sugar: a season median outside the
+    /// other seasons' interval but closer than this is within lab repeatability for alcohol and is not flagged.
+    /// </summary>
+    public double DriftMinimumAbv { get; init; } = 0.15;
+
     /// <summary>Checks the settings; returns the first problem in plain words, or null.</summary>
     public string? Problem()
     {

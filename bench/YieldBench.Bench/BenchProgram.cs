@@ -1,0 +1,216 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Runtime.InteropServices;
+using System.Text;
+using System.Text.Json;
+using YieldBench.Core.Review;
+using YieldBench.Intake;
+using YieldBench.Reports;
+using YieldBench.Scenario;
+
+namespace YieldBench.Bench;
+
+/// <summary>One measured run, as a child process reports it.</summary>
+internal sealed record RunResult(
+    string Name,
+    int Lots,
+    long LogReadings,
+    long LogReadingsUsed,
+    long InputBytes,
+    double GenerateSeconds,
+    IReadOnlyList<StageTiming> Stages,
+    double TotalSeconds,
+    long ProcessPeakWorkingSetBytes,
+    int IntakeIssues,
+    int IntakeErrors);
+
+/// <summary>
+/// The scale benchmark. <c>run</c> (the default) measures the demo review and generated data sets of 1k, 10k and 100k
+/// lots, each in a fresh child process so that peak memory belongs to one run; <c>gen</c> and <c>measure</c> are the
+/// child steps. Results go to the console and to bench/results/ (ignored by git); docs/performance.md records them.
+/// </summary>
+internal static class BenchProgram
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+    private static readonly JsonSerializerOptions Json = new() { WriteIndented = false };
+
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        string mode = args.Length > 0 && !args[0].StartsWith("--", StringComparison.Ordinal) ? args[0] : "run";
+        var opts = ParseOptions(args.SkipWhile(a => !a.StartsWith("--", StringComparison.Ordinal)).ToArray());
+        switch (mode)
+        {
+            case "gen":
+                output.WriteLine(JsonSerializer.Serialize(Generate(int.Parse(opts["lots"], Inv), opts["dir"]), Json));
+                return 0;
+            case "measure":
+                output.WriteLine(JsonSerializer.Serialize(Measure(opts["name"], opts["inputs"].Split('|'), opts["out"], int.Parse(opts.GetValueOrDefault("lots", "0"), Inv), long.Parse(opts.GetValueOrDefault("readings", "0"), Inv), double.Parse(opts.GetValueOrDefault("gen-seconds", "0"), Inv)), Json));
+                return 0;
+            case "run":
+                return Orchestrate(opts, output, error);
+            default:
+                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR]");
+                return 2;
+        }
+    }
+
+    private static Dictionary<string, string> ParseOptions(string[] args)
+    {
+        var d = new Dictionary<string, string>(StringComparer.Ordinal);
+        for (int i = 0; i + 1 < args.Length; i += 2)
+        {
+            d[args[i].TrimStart('-')] = args[i + 1];
+        }
+
+        return d;
+    }
+
+    private static int Orchestrate(Dictionary<string, string> opts, TextWriter output, TextWriter error)
+    {
+        string root = FindRoot();
+        var sizes = opts.GetValueOrDefault("sizes", "1000,10000,100000").Split(',', StringSplitOptions.RemoveEmptyEntries).Select(s => int.Parse(s, Inv)).ToArray();
+        string work = Path.GetFullPath(opts.GetValueOrDefault("work", Path.Combine(Path.GetTempPath(), "yieldbench-bench")));
+        string results = Path.GetFullPath(opts.GetValueOrDefault("results", Path.Combine(root, "bench", "results")));
+        string demo = Path.GetFullPath(opts.GetValueOrDefault("demo", Path.Combine(root, "demo-data")));
+        Directory.CreateDirectory(work);
+        Directory.CreateDirectory(results);
+        var runs = new List<RunResult>();
+
+        if (opts.GetValueOrDefault("skip-demo", "no") != "yes")
+        {
+            output.WriteLine($"bench: demo review of {demo}");
+            runs.Add(Child<RunResult>(["measure", "--name", "demo", "--inputs", demo, "--out", Path.Combine(work, "demo-report")], error));
+        }
+
+        foreach (int n in sizes)
+        {
+            string dir = Path.Combine(work, $"lots-{n}");
+            output.WriteLine($"bench: generating {n} lots into {dir}");
+            var gen = Child<GenResult>(["gen", "--lots", n.ToString(Inv), "--dir", dir], error);
+            output.WriteLine($"bench: measuring {n} lots ({gen.Readings} log readings, {gen.Bytes / 1e6:0.0} MB of CSV)");
+            runs.Add(Child<RunResult>(["measure", "--name", $"{n} lots", "--inputs", string.Join('|', gen.LogsPaths.Prepend(gen.LotsPath)), "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], error));
+        }
+
+        string table = Table(runs);
+        output.Write(table);
+        File.WriteAllText(Path.Combine(results, "results.md"), Machine() + "\n" + table);
+        File.WriteAllText(Path.Combine(results, "results.json"), JsonSerializer.Serialize(runs, new JsonSerializerOptions { WriteIndented = true }));
+        output.WriteLine($"bench: results in {results}");
+        return 0;
+    }
+
+    private sealed record GenResult(int Lots, long Readings, long Bytes, double Seconds, string LotsPath, IReadOnlyList<string> LogsPaths);
+
+    private static GenResult Generate(int lots, string dir)
+    {
+        var watch = Stopwatch.StartNew();
+        var scenario = ScenarioGenerator.Generate(ScaleFiles.Options(lots));
+        var (lotsPath, logsPaths, readings) = ScaleFiles.Write(scenario, dir);
+        long bytes = new FileInfo(lotsPath).Length + logsPaths.Sum(p => new FileInfo(p).Length);
+        return new GenResult(lots, readings, bytes, watch.Elapsed.TotalSeconds, lotsPath, logsPaths);
+    }
+
+    private static RunResult Measure(string name, string[] inputs, string outDir, int lots, long readings, double genSeconds)
+    {
+        var files = inputs.SelectMany<string, string>(p => Directory.Exists(p)
+                ? Directory.GetFiles(p).Where(f => IntakeReader.Extensions.Contains(Path.GetExtension(f).ToLowerInvariant())).Order(StringComparer.Ordinal)
+                : [p])
+            .ToArray();
+        long inputBytes = files.Sum(f => new FileInfo(f).Length);
+        using var clock = new StageClock();
+
+        // The floor: only reading the bytes and finding the line ends, nothing parsed.
+        clock.Start("read floor (bytes only)");
+        long lines = 0;
+        foreach (var f in files)
+        {
+            lines += File.ReadAllBytes(f).AsSpan().Count((byte)'\n');
+        }
+
+        GC.KeepAlive(lines);
+
+        clock.Start("read (intake)");
+        var set = IntakeReader.Read(inputs, new IntakeOptions());
+        var review = ReviewRunner.Run(set, new ReviewSettings(), "bench", null, clock);
+        ReportWriter.Write(review, outDir, clock);
+        clock.Stop();
+
+        var stages = clock.Stages;
+        double total = stages.Skip(1).Sum(s => s.Seconds);
+        using var self = Process.GetCurrentProcess();
+        return new RunResult(
+            name,
+            lots > 0 ? lots : set.Lots.Count,
+            readings > 0 ? readings : set.Logs.Sum(l => (long)l.Readings.Count),
+            set.Logs.Sum(l => (long)l.Readings.Count),
+            inputBytes,
+            genSeconds,
+            stages,
+            total,
+            self.PeakWorkingSet64,
+            set.Issues.Count,
+            set.Issues.Count(i => i.Severity == YieldBench.Core.Lots.IssueSeverity.Error));
+    }
+
+    private static T Child<T>(string[] args, TextWriter error)
+    {
+        string host = Environment.ProcessPath ?? throw new InvalidOperationException("No process path.");
+        var start = new ProcessStartInfo(host) { RedirectStandardOutput = true, UseShellExecute = false };
+        if (Path.GetFileNameWithoutExtension(host) == "dotnet")
+        {
+            start.ArgumentList.Add(typeof(BenchProgram).Assembly.Location);
+        }
+
+        foreach (var a in args)
+        {
+            start.ArgumentList.Add(a);
+        }
+
+        using var p = Process.Start(start) ?? throw new InvalidOperationException("Could not start the child process.");
+        string text = p.StandardOutput.ReadToEnd();
+        p.WaitForExit();
+        if (p.ExitCode != 0)
+        {
+            error.WriteLine(text);
+            throw new InvalidOperationException($"child '{string.Join(' ', args)}' exited {p.ExitCode}");
+        }
+
+        string last = text.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1];
+        return JsonSerializer.Deserialize<T>(last, Json) ?? throw new InvalidOperationException("Empty child result.");
+    }
+
+    private static string Table(IReadOnlyList<RunResult> runs)
+    {
+        var sb = new StringBuilder();
+        sb.Append("| run | lots | log readings used | input MB | stage | wall s | CPU s | peak working set MB | allocated MB |\n");
+        sb.Append("|---|---|---|---|---|---|---|---|---|\n");
+        foreach (var r in runs)
+        {
+            foreach (var s in r.Stages)
+            {
+                sb.Append(Inv, $"| {r.Name} | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | {s.Name} | {s.Seconds:0.000} | {s.CpuSeconds:0.000} | {s.PeakWorkingSetBytes / 1048576.0:0} | {s.AllocatedBytes / 1048576.0:0} |\n");
+            }
+
+            sb.Append(Inv, $"| **{r.Name}** | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | **total (read to workbook)**; intake issues {r.IntakeIssues} ({r.IntakeErrors} errors) | **{r.TotalSeconds:0.000}** | {r.Stages.Skip(1).Sum(s => s.CpuSeconds):0.000} | **{r.ProcessPeakWorkingSetBytes / 1048576.0:0}** (process peak) | |\n");
+        }
+
+        return sb.ToString();
+    }
+
+    private static string Machine()
+    {
+        string load = File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Trim() : "unknown";
+        return string.Create(Inv, $"Machine: {Environment.ProcessorCount} cores, {GC.GetGCMemoryInfo().TotalAvailableMemoryBytes / 1073741824.0:0.0} GiB available to .NET, {RuntimeInformation.OSDescription}, {RuntimeInformation.FrameworkDescription}, server GC {System.Runtime.GCSettings.IsServerGC}; load average at the end {load}\n");
+    }
+
+    private static string FindRoot()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "YieldBench.sln")))
+        {
+            dir = dir.Parent;
+        }
+
+        return dir?.FullName ?? Environment.CurrentDirectory;
+    }
+}

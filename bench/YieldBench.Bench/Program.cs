@@ -1,0 +1,3 @@
+using YieldBench.Bench;
+
+return BenchProgram.Run(args, Console.Out, Console.Error);

@@ -1,0 +1,295 @@
+using System.CommandLine;
+using System.Globalization;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Units;
+using YieldBench.Reports;
+
+namespace YieldBench.Cli.Commands;
+
+/// <summary>
+/// <c>yieldbench plan</c>: potential alcohol before harvest from a review's house factor (or a factor given directly).
+/// Three questions: predicted alcohol for a must; the highest harvest sugar under target alcohols; water add-back.
+/// </summary>
+internal static class PlanCommand
+{
+    private static readonly NumberFormatInfo DecimalComma = new() { NumberDecimalSeparator = ",", NumberGroupSeparator = "\u00a0" };
+
+    private static readonly Dictionary<string, (SugarScale Scale, string Unit)> Scales = new(StringComparer.OrdinalIgnoreCase)
+    {
+        ["brix"] = (SugarScale.Brix, "°Brix"),
+        ["sg"] = (SugarScale.SpecificGravity, "SG"),
+        ["baume"] = (SugarScale.Baume, "°Baumé"),
+        ["oechsle"] = (SugarScale.Oechsle, "°Oechsle"),
+        ["gl"] = (SugarScale.GramsPerLitre, "g/L sugar"),
+    };
+
+    public static Command Create(CliContext context)
+    {
+        var factorFile = new Option<string?>("--factor-file") { Description = "A house-factor.json written by 'yieldbench review' (its data folder)." };
+        var factor = new Option<string?>("--factor") { Description = "A conversion factor to use instead, % v/v per °Brix (no intervals: none are known)." };
+        var strain = new Option<string?>("--strain") { Description = "Yeast strain code (default: the pooled line for all strains)." };
+        var sugar = new Option<string?>("--sugar") { Description = "Starting must sugar, on the scale given by --scale." };
+        var scale = new Option<string>("--scale") { Description = "Scale of --sugar: brix, sg, baume, oechsle or gl.", DefaultValueFactory = _ => "brix" };
+        var target = new Option<string[]>("--target") { Description = "Target alcohol(s), % v/v; several may follow one --target.", AllowMultipleArgumentsPerToken = true };
+        var confidence = new Option<string[]>("--confidence") { Description = "Confidence(s) that the wine stays at or under the target, 0.5–0.99 (default 0.8 and 0.95).", AllowMultipleArgumentsPerToken = true };
+        var volume = new Option<string?>("--volume") { Description = "Must volume, L: with --sugar and one --target, the water add-back is worked out." };
+        var command = new Command("plan", "Plan potential alcohol: predicted alcohol for a must, the highest harvest sugar under a target, or the water add-back to reach it.");
+        foreach (var o in new Option[] { factorFile, factor, strain, sugar, scale, target, confidence, volume })
+        {
+            command.Options.Add(o);
+        }
+
+        command.SetAction(parse =>
+        {
+            var request = new Request(
+                parse.GetValue(factorFile),
+                parse.GetValue(factor),
+                parse.GetValue(strain),
+                parse.GetValue(sugar),
+                parse.GetValue(scale) ?? "brix",
+                parse.GetValue(target) ?? [],
+                parse.GetValue(confidence) ?? [],
+                parse.GetValue(volume));
+            return Run(request, context);
+        });
+        return command;
+    }
+
+    private sealed record Request(string? FactorFile, string? Factor, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume);
+
+    private static int Run(Request r, CliContext context)
+    {
+        var err = context.Error;
+        if ((r.FactorFile is null) == (r.Factor is null))
+        {
+            err.WriteLine("plan: give either --factor-file (a house-factor.json from 'yieldbench review') or --factor (a conversion factor, % v/v per °Brix), not both and not neither.");
+            return ExitCodes.Usage;
+        }
+
+        PlanningModel model;
+        string? regime = null;
+        if (r.FactorFile is not null)
+        {
+            string path = Path.IsPathRooted(r.FactorFile) ? r.FactorFile : Path.Combine(context.WorkingDirectory, r.FactorFile);
+            var file = HouseFactorJson.ReadFile(path);
+            if (file.Model is null)
+            {
+                err.WriteLine("plan: " + file.Error);
+                return ExitCodes.InputProblems;
+            }
+
+            model = file.Model;
+            regime = file.RegimeName;
+        }
+        else
+        {
+            if (!TryNumber(r.Factor!, "--factor", err, out double f))
+            {
+                return ExitCodes.Usage;
+            }
+
+            if (f is <= 0 or >= 1.5)
+            {
+                err.WriteLine($"plan: --factor {r.Factor} is outside 0–1.5 % v/v per °Brix; typical house factors are 0.55–0.65.");
+                return ExitCodes.Usage;
+            }
+
+            model = PlanningModel.FromFactor(f);
+        }
+
+        if (!Scales.TryGetValue(r.Scale, out var scale))
+        {
+            err.WriteLine($"plan: --scale {r.Scale} is not known; use brix, sg, baume, oechsle or gl.");
+            return ExitCodes.Usage;
+        }
+
+        SugarReading? must = null;
+        if (r.Sugar is not null)
+        {
+            if (!TryNumber(r.Sugar, "--sugar", err, out double s))
+            {
+                return ExitCodes.Usage;
+            }
+
+            try
+            {
+                must = SugarReading.From(s, scale.Scale);
+            }
+            catch (ArgumentOutOfRangeException e)
+            {
+                err.WriteLine($"plan: --sugar {r.Sugar} {scale.Unit}: {e.Message.Split(" (Parameter")[0]}");
+                return ExitCodes.Usage;
+            }
+        }
+
+        var targets = new List<double>();
+        foreach (string t in r.Targets)
+        {
+            if (!TryNumber(t, "--target", err, out double v))
+            {
+                return ExitCodes.Usage;
+            }
+
+            if (v is <= 0 or > 25)
+            {
+                err.WriteLine($"plan: --target {t} is outside 0–25 % v/v.");
+                return ExitCodes.Usage;
+            }
+
+            targets.Add(v);
+        }
+
+        var confidences = new List<double>();
+        foreach (string c in r.Confidences)
+        {
+            if (!TryNumber(c, "--confidence", err, out double v))
+            {
+                return ExitCodes.Usage;
+            }
+
+            if (v is < 0.5 or > 0.99)
+            {
+                err.WriteLine($"plan: --confidence {c} is outside 0.5–0.99 (write 0.95 for 95 %).");
+                return ExitCodes.Usage;
+            }
+
+            confidences.Add(v);
+        }
+
+        double? volumeL = null;
+        if (r.Volume is not null)
+        {
+            if (!TryNumber(r.Volume, "--volume", err, out double v))
+            {
+                return ExitCodes.Usage;
+            }
+
+            if (v is <= 0 or > 1e9)
+            {
+                err.WriteLine($"plan: --volume {r.Volume} must be above 0 L.");
+                return ExitCodes.Usage;
+            }
+
+            if (must is null || targets.Count != 1)
+            {
+                err.WriteLine("plan: the water add-back needs --volume, --sugar and exactly one --target.");
+                return ExitCodes.Usage;
+            }
+
+            if (confidences.Count > 1)
+            {
+                err.WriteLine("plan: the water add-back takes at most one --confidence.");
+                return ExitCodes.Usage;
+            }
+
+            volumeL = v;
+        }
+
+        var o = context.Out;
+        var line = model.For(r.Strain);
+        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null ? "." : $" (label tolerance scored: {regime})."));
+        if (r.Strain is not null && !model.Knows(r.Strain))
+        {
+            o.WriteLine(model.Strains.Count == 0
+                ? $"Strain {r.Strain}: the factor applies to every strain."
+                : $"Strain {r.Strain} is not in the review; the line for all strains is used.");
+        }
+
+        string who = line.Strain == "*" ? "all strains" : $"strain {line.Strain}";
+        o.WriteLine($"Predictor for {who}: {Describe(line)}; intervals from {line.ErrorBasis}.");
+        o.WriteLine();
+
+        // With no held-out errors only the central (50 %) answer exists, so that is the default then.
+        var defaultConfidences = confidences.Count > 0 ? confidences : line.SortedErrors.Count > 0 ? [0.80, 0.95] : [0.50];
+        if (volumeL is { } vol)
+        {
+            var answer = Planner.WaterAddBack(line, must!.Value, vol, targets[0], confidences.Count == 1 ? confidences[0] : null);
+            o.WriteLine($"Must: {F(vol, "0")} L at {SugarText(must.Value, r.Sugar!, scale)}; target {F(targets[0], "0.0#")} % v/v.");
+            if (double.IsNaN(answer.WaterL))
+            {
+                o.WriteLine($"No add-back could be worked out: {answer.Note}.");
+            }
+            else
+            {
+                o.WriteLine($"Add {F(answer.WaterL, "0")} L of water to bring the must to {F(answer.TargetBrix, "0.0")} °Brix; volume afterwards {F(answer.VolumeAfterL, "0")} L ({answer.Note}).");
+                o.WriteLine("After the addition: " + EstimateText(answer.After!) + ".");
+            }
+        }
+        else
+        {
+            if (must is { } m)
+            {
+                var e = Planner.Estimate(line, m);
+                o.WriteLine($"Starting sugar {SugarText(m, r.Sugar!, scale)}: {EstimateText(e)}.");
+            }
+
+            if (targets.Count > 0 || must is null)
+            {
+                var ts = targets.Count > 0 ? targets : [13.0, 13.5, 14.0, 14.5, 15.0];
+                o.WriteLine("Highest harvest sugar (effective starting °Brix) that keeps the wine at or under the target:");
+                o.WriteLine("  target % v/v | " + string.Join(" | ", defaultConfidences.Select(c => $"{F(100 * c, "0.#")} % confidence")));
+                foreach (double t in ts)
+                {
+                    var cells = defaultConfidences.Select(c => Planner.HighestSugar(line, t, c)).ToArray();
+                    o.WriteLine($"  {F(t, "0.0"),12} | " + string.Join(" | ", cells.Select(a => double.IsNaN(a.HighestBrix) ? "no answer" : F(a.HighestBrix, "0.0") + " °Brix")));
+                }
+
+                foreach (string? note in defaultConfidences.Select(c => Planner.HighestSugar(line, ts[0], c).Note).Where(n => n is not null).Distinct())
+                {
+                    o.WriteLine("  Note: " + note + ".");
+                }
+            }
+        }
+
+        o.WriteLine();
+        o.WriteLine("Cautions:");
+        foreach (string c in HouseFactorTexts.PlannerCautions)
+        {
+            o.WriteLine("- " + c);
+        }
+
+        return ExitCodes.Success;
+    }
+
+    private static string Describe(PlanningLine l) => l.Curve == SugarCurve.EuConvention
+        ? "potential alcohol = fermentable sugar (OIV must table) ÷ 16.83 g/L per % vol"
+        : l.Intercept == 0
+            ? $"alcohol = {F(l.SlopePerBrix, "0.0000")} × °Brix"
+            : $"alcohol = {F(l.Intercept, "0.000;−0.000")} + {F(l.SlopePerBrix, "0.0000")} × °Brix";
+
+    private static string EstimateText(AlcoholEstimate e)
+    {
+        string text = $"predicted alcohol {F(e.Predicted, "0.00")} % v/v";
+        if (e.ErrorCount == 0)
+        {
+            return text + "; no interval: no held-out errors are known (a house-factor file from a review gives them)";
+        }
+
+        text += double.IsNaN(e.Low80) ? "; no 80 % interval (too few held-out lots)" : $"; 80 % interval {F(e.Low80, "0.00")}–{F(e.High80, "0.00")}";
+        text += double.IsNaN(e.Low95) ? "; no 95 % interval (too few held-out lots)" : $"; 95 % interval {F(e.Low95, "0.00")}–{F(e.High95, "0.00")}";
+        return text;
+    }
+
+    private static string SugarText(SugarReading m, string typed, (SugarScale Scale, string Unit) scale) =>
+        scale.Scale == SugarScale.Brix ? $"{F(m.Brix, "0.0#")} °Brix" : $"{typed} {scale.Unit} = {F(m.Brix, "0.0#")} °Brix";
+
+    private static bool TryNumber(string text, string option, TextWriter err, out double value)
+    {
+        string t = text.Trim();
+        if (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value))
+        {
+            return true;
+        }
+
+        if (!t.Contains('.', StringComparison.Ordinal) && double.TryParse(t, NumberStyles.Float, DecimalComma, out value) && double.IsFinite(value))
+        {
+            return true;
+        }
+
+        err.WriteLine($"plan: {option} {text} is not a number; write it like 24.5 (a decimal comma, 24,5, is also read).");
+        value = double.NaN;
+        return false;
+    }
+
+    private static string F(double v, string format) => v.ToString(format, CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,251 @@
+using System.Text;
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using YieldBench.Core.HouseFactor;
+
+namespace YieldBench.Reports;
+
+/// <summary>What reading a house-factor file gave: the planner's model, or a message saying what is wrong and how to fix it.</summary>
+/// <param name="Model">The planning model, when the file could be used.</param>
+/// <param name="RegimeName">The label regime the review scored against, when recorded.</param>
+/// <param name="Error">Why the file could not be used, or null.</param>
+public sealed record HouseFactorFile(PlanningModel? Model, string? RegimeName, string? Error);
+
+/// <summary>
+/// Writes and reads <c>data/house-factor.json</c>: the house-factor section of a review, and the planner's model that
+/// <c>yieldbench plan --factor-file</c> reads back. Invariant numbers (shortest round-trip form), snake_case names
+/// with the unit last, properties in a fixed order, LF line ends, no timestamps: same review, same bytes. Numbers
+/// that are not defined (NaN) are written as null.
+/// </summary>
+public static class HouseFactorJson
+{
+    /// <summary>File name inside the output's data folder.</summary>
+    public const string FileName = "house-factor.json";
+
+    /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
+    public const int FormatVersion = 1;
+
+    private static readonly JsonSerializerOptions Options = new()
+    {
+        WriteIndented = true,
+        NewLine = "\n",
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+        Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    };
+
+    /// <summary>The file's text for a review.</summary>
+    public static string Write(HouseFactorReview review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var dto = new FileDto(
+            FormatVersion,
+            "house-factor",
+            new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowBoundary, review.Regime.ToleranceAboveBoundary, N(review.Regime.BoundaryAbv), review.Regime.NoCrossingBoundary, review.Regime.Source),
+            review.ThresholdAbv,
+            review.LotsUsed,
+            review.Seasons,
+            Scheme(review.PrimaryScheme),
+            review.Candidates.Select(c => new CandidateDto(c.Id, c.Name, c.Description, c.Complexity, Metrics(c.BySeason), Metrics(c.ByLot), Scheme(c.ByLotScheme),
+                c.Importance.Select(i => new ImportanceDto(i.Feature, N(i.MaeIncrease))).ToArray())).ToArray(),
+            Recommendation(review.Overall),
+            review.ByStrain.Select(r => Recommendation(r)!).ToArray(),
+            review.Planning is null ? null : new PlanningDto(Line(review.Planning.Pooled), review.Planning.Strains.Select(Line).ToArray(), review.Planning.Basis),
+            review.PlannerTable.Select(t => new ThresholdDto(t.Strain, t.TargetAbv, t.Confidence, N(t.HighestBrix), N(t.ErrorAllowance), t.Note)).ToArray(),
+            review.ImportanceSentence,
+            review.Explanation,
+            review.Notes,
+            review.Cautions);
+        return JsonSerializer.Serialize(dto, Options) + "\n";
+    }
+
+    /// <summary>Writes the file (UTF-8, no byte-order mark).</summary>
+    public static void WriteFile(HouseFactorReview review, string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        File.WriteAllText(path, Write(review), new UTF8Encoding(false));
+    }
+
+    /// <summary>Reads the planner's model from a file; a missing or unusable file gives a message, not an exception.</summary>
+    public static HouseFactorFile ReadFile(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        if (!File.Exists(path))
+        {
+            return new HouseFactorFile(null, null, $"{path}: no such file. Give the {FileName} written by 'yieldbench review' in its output's data folder.");
+        }
+
+        return Read(File.ReadAllText(path, Encoding.UTF8), path);
+    }
+
+    /// <summary>Reads the planner's model from the file's text; <paramref name="source"/> names it in messages.</summary>
+    public static HouseFactorFile Read(string json, string source)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        FileDto? dto;
+        try
+        {
+            dto = JsonSerializer.Deserialize<FileDto>(json, Options);
+        }
+        catch (JsonException e)
+        {
+            string where = e.LineNumber is { } line ? $" at line {line + 1}" : string.Empty;
+            return new HouseFactorFile(null, null, $"{source}: not a readable house-factor file{where} ({e.Message.Split('.')[0]}). Write it again with 'yieldbench review'.");
+        }
+
+        if (dto is null || dto.Kind != "house-factor")
+        {
+            return new HouseFactorFile(null, null, $"{source}: not a house-factor file (its \"kind\" is not \"house-factor\"). Give the {FileName} written by 'yieldbench review'.");
+        }
+
+        if (dto.FormatVersion != FormatVersion)
+        {
+            return new HouseFactorFile(null, null, $"{source}: layout version {dto.FormatVersion} is not the {FormatVersion} this version reads. Write it again with this version's 'yieldbench review'.");
+        }
+
+        if (dto.Planning is null)
+        {
+            string why = dto.Explanation is { Count: > 0 } ex ? " " + ex[^1] : string.Empty;
+            return new HouseFactorFile(null, dto.Regime?.Name, $"{source}: the review chose no house factor, so there is nothing to plan with.{why}");
+        }
+
+        var bad = new List<string>();
+        var pooled = ToLine(dto.Planning.Pooled, "planning.pooled", bad);
+        var strains = (dto.Planning.Strains ?? []).Select((s, i) => ToLine(s, $"planning.strains[{i}]", bad)).ToArray();
+        if (bad.Count > 0)
+        {
+            return new HouseFactorFile(null, dto.Regime?.Name, $"{source}: {string.Join("; ", bad)}. Write the file again with 'yieldbench review'.");
+        }
+
+        return new HouseFactorFile(new PlanningModel(pooled!, strains!, dto.Planning.Basis ?? "a house-factor file"), dto.Regime?.Name, null);
+    }
+
+    private static PlanningLine? ToLine(LineDto? d, string where, List<string> bad)
+    {
+        if (d is null)
+        {
+            bad.Add($"{where} is missing");
+            return null;
+        }
+
+        SugarCurve curve;
+        switch (d.Curve)
+        {
+            case "line":
+                curve = SugarCurve.Line;
+                if (d.InterceptAbv is null || d.SlopeAbvPerBrix is null || !(d.SlopeAbvPerBrix > 0))
+                {
+                    bad.Add($"{where} needs intercept_abv and a positive slope_abv_per_brix");
+                    return null;
+                }
+
+                break;
+            case "eu-convention":
+                curve = SugarCurve.EuConvention;
+                break;
+            default:
+                bad.Add($"{where}.curve is \"{d.Curve}\"; it must be \"line\" or \"eu-convention\"");
+                return null;
+        }
+
+        var errors = (d.HeldOutErrorsAbv ?? []).ToArray();
+        if (errors.Any(e => !double.IsFinite(e)))
+        {
+            bad.Add($"{where}.held_out_errors_abv holds a value that is not a number");
+            return null;
+        }
+
+        Array.Sort(errors);
+        return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, errors, d.ErrorBasis ?? "held-out errors");
+    }
+
+    private static LineDto Line(PlanningLine l) => new(
+        l.Strain,
+        l.CandidateId,
+        l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
+        N(l.Intercept),
+        N(l.SlopePerBrix),
+        l.Lots,
+        l.ErrorBasis,
+        l.SortedErrors);
+
+    private static RecommendationDto? Recommendation(Recommendation? r) => r is null ? null : new(
+        r.Strain,
+        r.Lots,
+        r.CandidateId,
+        r.BestCandidateId,
+        N(r.MaeLimit),
+        Metrics(r.Metrics)!,
+        N(r.ErrorBand80.Low),
+        N(r.ErrorBand80.High),
+        N(r.ErrorBand95.Low),
+        N(r.ErrorBand95.High),
+        r.Explanation);
+
+    private static MetricsDto? Metrics(BacktestMetrics? m) => m is null ? null : new(
+        m.Lots, N(m.Mae), N(m.MaeStandardError), N(m.Bias), N(m.Rmse), N(m.P90AbsoluteError), N(m.ShareWithinTolerance), N(m.ShareWrongSideOfThreshold));
+
+    private static string Scheme(BacktestScheme s) => s switch
+    {
+        BacktestScheme.LeaveOneSeasonOut => "leave-one-season-out",
+        BacktestScheme.LeaveOneLotOut => "leave-one-lot-out",
+        _ => "ten-fold-by-lot",
+    };
+
+    private static double? N(double v) => double.IsFinite(v) ? v : null;
+
+    private static double? N(double? v) => v is { } d && double.IsFinite(d) ? d : null;
+
+    private sealed record FileDto(
+        int FormatVersion,
+        string Kind,
+        RegimeDto? Regime,
+        double ThresholdAbv,
+        int LotsUsed,
+        IReadOnlyList<int> Seasons,
+        string PrimaryBacktest,
+        IReadOnlyList<CandidateDto> Candidates,
+        RecommendationDto? Recommendation,
+        IReadOnlyList<RecommendationDto> ByStrain,
+        PlanningDto? Planning,
+        IReadOnlyList<ThresholdDto> PlannerTable,
+        string? ImportanceSentence,
+        IReadOnlyList<string> Explanation,
+        IReadOnlyList<string> Notes,
+        IReadOnlyList<string> Cautions);
+
+    private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowBoundaryAbv, double ToleranceAboveBoundaryAbv, double? BoundaryAbv, bool NoCrossingBoundary, string Source);
+
+    private sealed record MetricsDto(int Lots, double? MaeAbv, double? MaeStandardErrorAbv, double? BiasAbv, double? RmseAbv, double? P90AbsoluteErrorAbv, double? ShareWithinTolerance, double? ShareWrongSideOfThreshold);
+
+    private sealed record ImportanceDto(string Feature, double? MaeIncreaseAbv);
+
+    private sealed record CandidateDto(string Id, string Name, string Description, int Complexity, MetricsDto? BySeason, MetricsDto? ByLot, string ByLotBacktest, IReadOnlyList<ImportanceDto> Importance);
+
+    private sealed record RecommendationDto(
+        string Strain,
+        int Lots,
+        string CandidateId,
+        string BestCandidateId,
+        double? MaeLimitAbv,
+        MetricsDto Metrics,
+        double? Error80LowAbv,
+        double? Error80HighAbv,
+        double? Error95LowAbv,
+        double? Error95HighAbv,
+        string Explanation);
+
+    private sealed record LineDto(
+        string Strain,
+        string CandidateId,
+        string Curve,
+        double? InterceptAbv,
+        double? SlopeAbvPerBrix,
+        int Lots,
+        string ErrorBasis,
+        IReadOnlyList<double> HeldOutErrorsAbv);
+
+    private sealed record PlanningDto(LineDto Pooled, IReadOnlyList<LineDto> Strains, string Basis);
+
+    private sealed record ThresholdDto(string Strain, double TargetAbv, double Confidence, double? HighestBrix, double? ErrorAllowanceAbv, string? Note);
+}

@@ -1,0 +1,224 @@
+using System.Globalization;
+using YieldBench.Cli;
+using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+using YieldBench.Reports;
+
+namespace YieldBench.Cli.Tests;
+
+public sealed class PlanCommandTests : IDisposable
+{
+    private readonly string dir = Path.Combine(Path.GetTempPath(), "yieldbench-plan-" + Guid.NewGuid().ToString("N"));
+
+    public PlanCommandTests() => Directory.CreateDirectory(dir);
+
+    public void Dispose() => Directory.Delete(dir, recursive: true);
+
+    /// <summary>Three seeded seasons: SX-01 at 0.57, SX-02 at 0.61 % v/v per °Brix, noise SD 0.15.</summary>
+    private static IReadOnlyList<LotConversion> Lots()
+    {
+        var rng = new Random(8);
+        var lots = new List<LotConversion>();
+        for (int s = 0; s < 3; s++)
+        {
+            foreach (var (strain, f) in new[] { ("SX-01", 0.57), ("SX-02", 0.61) })
+            {
+                for (int i = 0; i < 25; i++)
+                {
+                    double brix = 20 + (7 * rng.NextDouble());
+                    double u1 = 1 - rng.NextDouble(), u2 = rng.NextDouble();
+                    double abv = (f * brix) + (0.15 * Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2));
+                    var lot = new Lot
+                    {
+                        LotId = $"L{lots.Count:000}", Season = 2022 + s, Strain = strain,
+                        StartingSugar = SugarReading.FromBrix(brix), FinalAlcohol = AlcoholContent.FromPercentVolume(abv),
+                    };
+                    lots.Add(ConversionFactors.For(lot, SugarModel.Default));
+                }
+            }
+        }
+
+        return lots;
+    }
+
+    private (HouseFactorReview Review, string Path) FactorFile()
+    {
+        var review = HouseFactorAnalysis.Run(Lots(), new HouseFactorSettings(), [], 3);
+        string path = Path.Combine(dir, HouseFactorJson.FileName);
+        HouseFactorJson.WriteFile(review, path);
+        return (review, path);
+    }
+
+    private (int Code, string Out, string Err) Plan(params string[] args)
+    {
+        var o = new StringWriter(CultureInfo.InvariantCulture);
+        var e = new StringWriter(CultureInfo.InvariantCulture);
+        int code = YieldBenchApp.Run(["plan", .. args], new CliContext(o, e, false, dir));
+        return (code, o.ToString(), e.ToString());
+    }
+
+    [Fact]
+    public void The_house_factor_file_round_trips_the_planning_model_and_is_byte_stable()
+    {
+        // Given a review's house-factor section
+        var review = HouseFactorAnalysis.Run(Lots(), new HouseFactorSettings(), [], 3);
+
+        // When it is written twice and read back
+        string a = HouseFactorJson.Write(review), b = HouseFactorJson.Write(review);
+        var read = HouseFactorJson.Read(a, "test");
+
+        // Then the text is identical, holds no clock, and the model predicts as the original does
+        Assert.Equal(a, b);
+        Assert.DoesNotContain("\r", a, StringComparison.Ordinal);
+        Assert.Contains("\"kind\": \"house-factor\"", a, StringComparison.Ordinal);
+        Assert.Null(read.Error);
+        var original = review.Planning!.For("SX-02");
+        var back = read.Model!.For("SX-02");
+        Assert.Equal(original.Predict(24.3), back.Predict(24.3), 1e-12);
+        Assert.Equal(original.SortedErrors, back.SortedErrors);
+        Assert.Equal("United States (TTB)", read.RegimeName);
+    }
+
+    [Fact]
+    public void Question_a_predicts_alcohol_for_a_strain_and_a_sugar_on_any_scale_with_intervals_and_cautions()
+    {
+        // Given a house-factor file
+        var (review, path) = FactorFile();
+        var line = review.Planning!.For("SX-02");
+        var must = SugarReading.FromSpecificGravity(1.102);
+        var expected = Planner.Estimate(line, must);
+
+        // When the planner is asked about SX-02 at SG 1.102
+        var (code, output, err) = Plan("--factor-file", path, "--strain", "SX-02", "--sugar", "1.102", "--scale", "sg");
+
+        // Then it prints the prediction with both intervals, as the planner computes them, and every caution
+        Assert.Equal(0, code);
+        Assert.Equal(string.Empty, err);
+        string f2(double v) => v.ToString("0.00", CultureInfo.InvariantCulture);
+        Assert.Contains(
+            $"Starting sugar 1.102 SG = {must.Brix.ToString("0.0#", CultureInfo.InvariantCulture)} °Brix: predicted alcohol {f2(expected.Predicted)} % v/v; 80 % interval {f2(expected.Low80)}–{f2(expected.High80)}; 95 % interval {f2(expected.Low95)}–{f2(expected.High95)}.",
+            output,
+            StringComparison.Ordinal);
+        Assert.InRange(expected.Predicted, 0.61 * must.Brix - 0.1, 0.61 * must.Brix + 0.1);
+        Assert.All(HouseFactorTexts.PlannerCautions, c => Assert.Contains("- " + c, output, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Question_b_gives_the_highest_harvest_sugar_for_several_targets()
+    {
+        // Given a house-factor file
+        var (review, path) = FactorFile();
+        var line = review.Planning!.For("SX-01");
+
+        // When the planner is asked for 14.0 and 14.5 % at 95 % confidence
+        var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-01", "--target", "14.0", "14.5", "--confidence", "0.95");
+
+        // Then each row is the planner's threshold answer
+        Assert.Equal(0, code);
+        foreach (double t in new[] { 14.0, 14.5 })
+        {
+            double b = Planner.HighestSugar(line, t, 0.95).HighestBrix;
+            Assert.Contains($"{t.ToString("0.0", CultureInfo.InvariantCulture),14} | {b.ToString("0.0", CultureInfo.InvariantCulture)} °Brix", output, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void Question_c_gives_the_water_add_back_and_the_volume_afterwards()
+    {
+        // Given a factor of 0.6 typed directly
+        // When 5000 L at 26 °Brix is to come to 14.5 % v/v
+        var (code, output, _) = Plan("--factor", "0.6", "--volume", "5000", "--sugar", "26", "--target", "14.5");
+
+        // Then the add-back follows the solids balance: 5000 L × SG(26) × 0.9982 kg/L × 26 % = solids; mass after = solids / 24.1667 %
+        double mass = 5000 * SugarReading.FromBrix(26).SpecificGravity * 0.99820;
+        double water = ((mass * 0.26 / (14.5 / 0.6 / 100)) - mass) / 0.99820;
+        Assert.Equal(0, code);
+        Assert.Contains($"Add {water.ToString("0", CultureInfo.InvariantCulture)} L of water to bring the must to 24.2 °Brix; volume afterwards {(5000 + water).ToString("0", CultureInfo.InvariantCulture)} L", output, StringComparison.Ordinal);
+        Assert.Contains("Rules on water additions and on labelling alcohol differ by country", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_decimal_comma_is_read_and_a_bad_number_names_the_option_and_the_fix()
+    {
+        var ok = Plan("--factor", "0,6", "--sugar", "24,0");
+        Assert.Equal(0, ok.Code);
+        Assert.Contains("predicted alcohol 14.40 % v/v", ok.Out, StringComparison.Ordinal);
+
+        var bad = Plan("--factor", "0.6", "--sugar", "twenty");
+        Assert.Equal(2, bad.Code);
+        Assert.Equal("plan: --sugar twenty is not a number; write it like 24.5 (a decimal comma, 24,5, is also read).\n", bad.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_missing_factor_file_is_an_input_problem_with_a_fix()
+    {
+        var (code, _, err) = Plan("--factor-file", "nowhere.json", "--sugar", "24");
+        Assert.Equal(1, code);
+        Assert.Contains("nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Giving_both_a_file_and_a_factor_is_a_usage_error()
+    {
+        var (code, _, err) = Plan("--factor-file", "x.json", "--factor", "0.6");
+        Assert.Equal(2, code);
+        Assert.StartsWith("plan: give either --factor-file", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_file_from_a_review_with_too_few_lots_says_there_is_nothing_to_plan_with()
+    {
+        // Given a review of five lots
+        var review = HouseFactorAnalysis.Run(Lots().Take(5).ToArray(), new HouseFactorSettings(), [], 3);
+        string path = Path.Combine(dir, "small.json");
+        HouseFactorJson.WriteFile(review, path);
+
+        // When the planner reads it
+        var (code, _, err) = Plan("--factor-file", path, "--sugar", "24");
+
+        // Then it is an input problem naming the reason
+        Assert.Equal(1, code);
+        Assert.Contains("the review chose no house factor, so there is nothing to plan with. Too few lots to choose a house factor: 5 usable", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_file_that_is_not_a_house_factor_file_is_refused_with_a_fix()
+    {
+        // Given a JSON file of another kind and a file that is not JSON
+        string other = Path.Combine(dir, "other.json");
+        File.WriteAllText(other, "{\"format_version\": 1, \"kind\": \"lots\"}");
+        string broken = Path.Combine(dir, "broken.json");
+        File.WriteAllText(broken, "{ not json");
+
+        // When the planner reads them
+        var a = Plan("--factor-file", other, "--sugar", "24");
+        var b = Plan("--factor-file", broken, "--sugar", "24");
+
+        // Then both are input problems that say what to do
+        Assert.Equal(1, a.Code);
+        Assert.Contains("other.json: not a house-factor file (its \"kind\" is not \"house-factor\"). Give the house-factor.json written by 'yieldbench review'.", a.Err, StringComparison.Ordinal);
+        Assert.Equal(1, b.Code);
+        Assert.Contains("broken.json: not a readable house-factor file at line 1", b.Err, StringComparison.Ordinal);
+        Assert.Contains("Write it again with 'yieldbench review'.", b.Err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void An_unknown_scale_is_a_usage_error_listing_the_scales()
+    {
+        var (code, _, err) = Plan("--factor", "0.6", "--sugar", "24", "--scale", "plato");
+        Assert.Equal(2, code);
+        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle or gl.", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_strain_not_in_the_review_uses_the_pooled_line_and_says_so()
+    {
+        var (_, path) = FactorFile();
+        var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
+        Assert.Equal(0, code);
+        Assert.Contains("Strain SX-77 is not in the review; the line for all strains is used.", output, StringComparison.Ordinal);
+        Assert.Contains("Predictor for all strains: ", output, StringComparison.Ordinal);
+    }
+}

@@ -1,0 +1,106 @@
+namespace YieldBench.Intake.Tests;
+
+public class HeaderMatchingTests
+{
+    [Theory]
+    [InlineData("Lot", "lot_id")]
+    [InlineData("Lot #", "lot_id")]
+    [InlineData("LOT NO.", "lot_id")]
+    [InlineData("Vintage", "season")]
+    [InlineData("Harvest year", "season")]
+    [InlineData("Yeast", "strain")]
+    [InlineData("Yeast strain", "strain")]
+    [InlineData("Culture", "strain")]
+    [InlineData("Start Brix (°Bx)", "starting_sugar")]
+    [InlineData("Initial  BRIX", "starting_sugar")]
+    [InlineData("Must SG", "starting_sugar")]
+    [InlineData("Must sugar", "starting_sugar")]
+    [InlineData("Baumé", "starting_sugar")]
+    [InlineData("Oechsle (°Oe)", "starting_sugar")]
+    [InlineData("Alcohol % v/v", "final_abv")]
+    [InlineData("ABV (%)", "final_abv")]
+    [InlineData("% v/v", "final_abv")]
+    [InlineData("Alc.", "final_abv")]
+    [InlineData("RS (g/L)", "residual_sugar_gl")]
+    [InlineData("Residual sugar", "residual_sugar_gl")]
+    [InlineData("YAN (mg N/L)", "yan_mgl")]
+    [InlineData("pH", "ph")]
+    [InlineData("TA (g/L)", "ta_gl")]
+    [InlineData("Peak temp (°C)", "peak_temp_c")]
+    [InlineData("Max. temperature °F", "peak_temp_c")]
+    [InlineData("Capacity (L)", "vessel_capacity_l")]
+    [InlineData("Vessel type", "vessel")]
+    [InlineData("Fermenter", "vessel")]
+    [InlineData("Water added (L)", "water_added_l")]
+    [InlineData("Sugar added (kg)", "sugar_added_kg")]
+    [InlineData("Must volume (L)", "must_volume_l")]
+    [InlineData("Inoculated", "inoculation_date")]
+    [InlineData("Dry date", "dry_date")]
+    [InlineData("Final Brix", "final_sugar")]
+    [InlineData("Style", "colour")]
+    [InlineData("Notes", "notes")]
+    public void Lot_headers_match_their_field_whatever_the_case_spacing_punctuation_or_unit(string header, string field)
+    {
+        // Given a header as cellars write it / When it is matched / Then it names the field
+        Assert.True(ColumnRules.LotIndex.TryGetValue(HeaderText.FieldKey(header), out var f) || ColumnRules.LotIndex.TryGetValue(HeaderText.Normalise(header), out f), header);
+        Assert.Equal(field, f!.Name);
+    }
+
+    [Theory]
+    [InlineData("Timestamp", "timestamp")]
+    [InlineData("Date", "date")]
+    [InlineData("Time", "time")]
+    [InlineData("Brix", "sugar")]
+    [InlineData("SG", "sugar")]
+    [InlineData("Temp °C", "temp_c")]
+    [InlineData("Cap temp", "temp_c")]
+    public void Log_headers_match_their_field(string header, string field)
+    {
+        Assert.True(ColumnRules.LogIndex.TryGetValue(HeaderText.FieldKey(header), out var f), header);
+        Assert.Equal(field, f!.Name);
+    }
+
+    [Theory]
+    [InlineData("Potential alcohol")]
+    [InlineData("Picker crew")]
+    [InlineData("Sugar")]
+    public void Headers_that_name_no_lot_field_are_not_matched(string header)
+    {
+        Assert.False(ColumnRules.LotIndex.ContainsKey(HeaderText.FieldKey(header)));
+    }
+
+    [Fact]
+    public void No_synonym_names_two_fields_of_the_same_table()
+    {
+        // Given every field's synonyms / Then none is claimed by two fields of one table (the index would hide one)
+        foreach (var table in new[] { Fields.Lots, Fields.Log })
+        {
+            var clashes = table.SelectMany(f => f.Synonyms.Prepend(f.Name).Select(s => (Key: HeaderText.Normalise(s), f.Name)))
+                .Distinct()
+                .GroupBy(x => x.Key)
+                .Where(g => g.Select(x => x.Name).Distinct().Count() > 1)
+                .Select(g => g.Key + ": " + string.Join("/", g.Select(x => x.Name).Distinct()))
+                .ToList();
+            Assert.Empty(clashes);
+        }
+    }
+
+    [Theory]
+    [InlineData("Start Brix (°Bx)", "Sugar", "Brix")]
+    [InlineData("Must SG", "Sugar", "SpecificGravity")]
+    [InlineData("Must weight (°Oe)", "Sugar", "Oechsle")]
+    [InlineData("Baumé", "Sugar", "Baume")]
+    [InlineData("Sugar (g/L)", "Sugar", "SugarGramsPerLitre")]
+    [InlineData("Initial sugar", "Sugar", "None")]
+    [InlineData("Alcohol % v/v", "Alcohol", "PercentVolume")]
+    [InlineData("Alcohol (g/L)", "Alcohol", "AlcoholGramsPerLitre")]
+    [InlineData("Peak temp (°C)", "Temperature", "Celsius")]
+    [InlineData("Peak temp °F", "Temperature", "Fahrenheit")]
+    [InlineData("Capacity (gal)", "Volume", "UsGallon")]
+    [InlineData("Capacity (hL)", "Volume", "Hectolitre")]
+    [InlineData("Sugar added (lb)", "Mass", "Pound")]
+    public void Units_are_read_from_the_header_text(string header, string kind, string unit)
+    {
+        Assert.Equal(Enum.Parse<ColumnUnit>(unit), HeaderText.UnitFromHeader(header, Enum.Parse<FieldKind>(kind)));
+    }
+}
