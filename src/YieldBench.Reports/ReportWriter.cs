@@ -44,6 +44,9 @@ public static class ReportWriter
 
         /// <summary>Kinetics per lot (when logs were read).</summary>
         public const string Kinetics = "data/" + KineticsCsv.FileName;
+
+        /// <summary>The house-factor section, which <c>yieldbench plan --factor-file</c> reads back.</summary>
+        public const string HouseFactor = "data/" + HouseFactorJson.FileName;
     }
 
     /// <summary>Writes everything; <paramref name="progress"/> hears the name of each step.</summary>
@@ -67,6 +70,7 @@ public static class ReportWriter
         Text(DataFiles.Groups, CsvText.Write(ReviewTables.Groups(review)));
         Text(DataFiles.Flags, CsvText.Write(ReviewTables.Flags(review)));
         Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
+        Text(DataFiles.HouseFactor, HouseFactorJson.Write(review.HouseFactor));
         if (review.Kinetics is { } kinetics)
         {
             using var csv = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);
