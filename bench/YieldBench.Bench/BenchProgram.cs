@@ -104,6 +104,11 @@ internal static class BenchProgram
     private static GenResult Generate(int lots, string dir)
     {
         var watch = Stopwatch.StartNew();
+        if (Directory.Exists(dir))
+        {
+            Directory.Delete(dir, recursive: true);
+        }
+
         var scenario = ScenarioGenerator.Generate(ScaleFiles.Options(lots));
         var (lotsPath, logsPaths, readings) = ScaleFiles.Write(scenario, dir);
         long bytes = new FileInfo(lotsPath).Length + logsPaths.Sum(p => new FileInfo(p).Length);
