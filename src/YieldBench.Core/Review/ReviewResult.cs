@@ -29,9 +29,6 @@ public sealed record ReviewResult
     /// <summary>Kinetics and heat of the lots that have a fermentation log; null when no log was read.</summary>
     public KineticsReview? Kinetics { get; init; }
 
-    /// <summary>Group summaries, strain comparison, robust lot scores and odd-lot flags; null only when not run.</summary>
-    public StrainReview? Strains { get; init; }
-
     /// <summary>The tool version that produced the review.</summary>
     public required string ToolVersion { get; init; }
 }

@@ -22,7 +22,4 @@ public sealed record ReviewSettings
 
     /// <summary>Kinetics thresholds (dryness, stalls, temperatures, heat constants).</summary>
     public KineticsSettings Kinetics { get; init; } = KineticsSettings.Default;
-
-    /// <summary>Strain review groupings, limits and flag thresholds (docs/methods-statistics.md).</summary>
-    public StrainReviewSettings Strains { get; init; } = new();
 }
