@@ -33,11 +33,20 @@ public static class ReportWriter
         /// <summary>One row per lot used.</summary>
         public const string Lots = "data/lots.csv";
 
+        /// <summary>Group summaries.</summary>
+        public const string Groups = "data/groups.csv";
+
+        /// <summary>Odd-lot flags.</summary>
+        public const string Flags = "data/flags.csv";
+
         /// <summary>Intake issues.</summary>
         public const string IntakeIssues = "data/intake-issues.csv";
 
         /// <summary>Kinetics per lot (when logs were read).</summary>
         public const string Kinetics = "data/" + KineticsCsv.FileName;
+
+        /// <summary>The house-factor section, which <c>yieldbench plan --factor-file</c> reads back.</summary>
+        public const string HouseFactor = "data/" + HouseFactorJson.FileName;
     }
 
     /// <summary>Writes everything; <paramref name="progress"/> hears the name of each step.</summary>
@@ -58,7 +67,10 @@ public static class ReportWriter
 
         progress?.Report("data files");
         Text(DataFiles.Lots, CsvText.Write(ReviewTables.Lots(review)));
+        Text(DataFiles.Groups, CsvText.Write(ReviewTables.Groups(review)));
+        Text(DataFiles.Flags, CsvText.Write(ReviewTables.Flags(review)));
         Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
+        Text(DataFiles.HouseFactor, HouseFactorJson.Write(review.HouseFactor));
         if (review.Kinetics is { } kinetics)
         {
             using var csv = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);

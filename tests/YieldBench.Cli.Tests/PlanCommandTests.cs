@@ -182,4 +182,43 @@ public sealed class PlanCommandTests : IDisposable
         Assert.Equal(1, code);
         Assert.Contains("the review chose no house factor, so there is nothing to plan with. Too few lots to choose a house factor: 5 usable", err, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void A_file_that_is_not_a_house_factor_file_is_refused_with_a_fix()
+    {
+        // Given a JSON file of another kind and a file that is not JSON
+        string other = Path.Combine(dir, "other.json");
+        File.WriteAllText(other, "{\"format_version\": 1, \"kind\": \"lots\"}");
+        string broken = Path.Combine(dir, "broken.json");
+        File.WriteAllText(broken, "{ not json");
+
+        // When the planner reads them
+        var a = Plan("--factor-file", other, "--sugar", "24");
+        var b = Plan("--factor-file", broken, "--sugar", "24");
+
+        // Then both are input problems that say what to do
+        Assert.Equal(1, a.Code);
+        Assert.Contains("other.json: not a house-factor file (its \"kind\" is not \"house-factor\"). Give the house-factor.json written by 'yieldbench review'.", a.Err, StringComparison.Ordinal);
+        Assert.Equal(1, b.Code);
+        Assert.Contains("broken.json: not a readable house-factor file at line 1", b.Err, StringComparison.Ordinal);
+        Assert.Contains("Write it again with 'yieldbench review'.", b.Err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void An_unknown_scale_is_a_usage_error_listing_the_scales()
+    {
+        var (code, _, err) = Plan("--factor", "0.6", "--sugar", "24", "--scale", "plato");
+        Assert.Equal(2, code);
+        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle or gl.", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_strain_not_in_the_review_uses_the_pooled_line_and_says_so()
+    {
+        var (_, path) = FactorFile();
+        var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
+        Assert.Equal(0, code);
+        Assert.Contains("Strain SX-77 is not in the review; the line for all strains is used.", output, StringComparison.Ordinal);
+        Assert.Contains("Predictor for all strains: ", output, StringComparison.Ordinal);
+    }
 }

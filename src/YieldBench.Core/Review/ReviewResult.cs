@@ -20,14 +20,14 @@ public sealed record ReviewResult
     /// <summary>Every lot used, with its conversion measures, in input order.</summary>
     public required IReadOnlyList<LotConversion> Lots { get; init; }
 
+    /// <summary>Group summaries, the strain comparison, per-lot robust scores and odd-lot flags.</summary>
+    public required StrainReview Strains { get; init; }
+
     /// <summary>The house-factor candidates, backtests, recommendation and planner table.</summary>
     public required HouseFactorReview HouseFactor { get; init; }
 
     /// <summary>Kinetics and heat of the lots that have a fermentation log; null when no log was read.</summary>
     public KineticsReview? Kinetics { get; init; }
-
-    /// <summary>Group summaries, strain comparison, robust lot scores and odd-lot flags; null only when not run.</summary>
-    public StrainReview? Strains { get; init; }
 
     /// <summary>The tool version that produced the review.</summary>
     public required string ToolVersion { get; init; }

@@ -10,7 +10,7 @@ namespace YieldBench.Core.Review;
 public static class ReviewRunner
 {
     /// <summary>The review stages, in the order they run (progress reporting names them).</summary>
-    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "house factor", "kinetics", "strain review"];
+    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "strain review", "house factor", "kinetics"];
 
     /// <summary>Runs the review.</summary>
     /// <param name="inputs">What intake produced.</param>
@@ -31,26 +31,26 @@ public static class ReviewRunner
         var lots = inputs.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
 
         progress?.Report(Stages[1]);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
+
+        progress?.Report(Stages[2]);
         var house = HouseFactorAnalysis.Run(lots, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
 
         KineticsReview? kinetics = null;
         if (inputs.Logs.Count > 0)
         {
-            progress?.Report(Stages[2]);
+            progress?.Report(Stages[3]);
             kinetics = KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics);
         }
-
-        progress?.Report(Stages[3]);
-        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
 
         return new ReviewResult
         {
             Inputs = inputs,
             Settings = settings,
             Lots = lots,
+            Strains = strains,
             HouseFactor = house,
             Kinetics = kinetics,
-            Strains = strains,
             ToolVersion = toolVersion,
         };
     }

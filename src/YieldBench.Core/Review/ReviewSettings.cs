@@ -14,12 +14,12 @@ public sealed record ReviewSettings
     /// <summary>How fermentable sugar is obtained from °Brix.</summary>
     public SugarModel SugarModel { get; init; } = SugarModel.Default;
 
+    /// <summary>Groupings, interval and odd-lot detector settings of the strain review.</summary>
+    public StrainReviewSettings Strains { get; init; } = new();
+
     /// <summary>House-factor candidates, label regime, threshold and planner targets.</summary>
     public HouseFactorSettings HouseFactor { get; init; } = new();
 
     /// <summary>Kinetics thresholds (dryness, stalls, temperatures, heat constants).</summary>
     public KineticsSettings Kinetics { get; init; } = KineticsSettings.Default;
-
-    /// <summary>Strain review groupings, limits and flag thresholds (docs/methods-statistics.md).</summary>
-    public StrainReviewSettings Strains { get; init; } = new();
 }
