@@ -124,6 +124,8 @@ internal static class Corpus
             W("colour.csv", null, 2, "Colour", "orange", "unknown-colour", "colour is not a colour read here (red, white, rosé). Use one of those words. The value was left empty; the rest of the row was used."), 1),
         new("unclosed quote", f => f.Text("quote.csv", Csv(Header + ",Notes", GoodRow + ",fine", "A-02,2023,QX-7,23.0,13.5,\"stuck at 2")),
             E("quote.csv", null, 3, null, null, "bad-csv-row", "The row could not be split into fields (a quote mark is not closed). Fix the quote marks in the row."), 1),
+        new("unclosed quote before more rows", f => f.Text("quote-mid.csv", Csv(Header + ",Notes", "A-01,2023,QX-7,24.0,14.0,\"stuck at 2", "A-02,2023,QX-7,23.0,13.5,fine", "A-03,2023,QX-7,23.0,13.5,fine")),
+            E("quote-mid.csv", null, 2, null, null, "bad-csv-row", "The row could not be split into fields (a quote mark is not closed, so the 2 line(s) after it were read into this row). Fix the quote marks in the row."), 0),
         new("negative water addition", f => f.Text("water.csv", Csv(Header + ",Water added (L)", GoodRow + ",0", "A-02,2023,QX-7,23.0,13.5,-40")),
             E("water.csv", null, 3, "Water added (L)", "-40", "out-of-range", "water_added_l -40 L is below zero. Enter 0 or leave it empty when nothing was added."), 1),
         new("log row without a reading", f => f.Text("log.csv", Csv("Lot,Season,Timestamp,Brix,Temp °C", "A-01,2023,2023-03-02 08:00,24.0,18", "A-01,2023,2023-03-03 08:00,,")),
