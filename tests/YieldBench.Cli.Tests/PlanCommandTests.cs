@@ -219,6 +219,6 @@ public sealed class PlanCommandTests : IDisposable
         var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
         Assert.Equal(0, code);
         Assert.Contains("Strain SX-77 is not in the review; the line for all strains is used.", output, StringComparison.Ordinal);
-        Assert.Contains("Predictor for all strains: ", output, StringComparison.Ordinal);
+        Assert.Contains("Predictor for all strains (candidate ", output, StringComparison.Ordinal);
     }
 }

@@ -187,7 +187,7 @@ internal static class PlanCommand
 
         var o = context.Out;
         var line = model.For(r.Strain);
-        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null ? "." : $" (label tolerance scored: {regime})."));
+        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null || model.Basis.Contains(regime, StringComparison.Ordinal) ? "." : $" (label tolerance scored: {regime})."));
         if (r.Strain is not null && !model.Knows(r.Strain))
         {
             o.WriteLine(model.Strains.Count == 0
@@ -196,7 +196,8 @@ internal static class PlanCommand
         }
 
         string who = line.Strain == "*" ? "all strains" : $"strain {line.Strain}";
-        o.WriteLine($"Predictor for {who}: {Describe(line)}; intervals from {line.ErrorBasis}.");
+        string from = line.CandidateId == "given" ? string.Empty : $" (candidate {line.CandidateId})";
+        o.WriteLine($"Predictor for {who}{from}: {Describe(line)}; intervals from {line.ErrorBasis}.");
         o.WriteLine();
 
         // With no held-out errors only the central (50 %) answer exists, so that is the default then.
