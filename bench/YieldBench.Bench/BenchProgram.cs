@@ -15,12 +15,14 @@ internal sealed record RunResult(
     string Name,
     int Lots,
     long LogReadings,
+    long LogReadingsUsed,
     long InputBytes,
     double GenerateSeconds,
     IReadOnlyList<StageTiming> Stages,
     double TotalSeconds,
     long ProcessPeakWorkingSetBytes,
-    int IntakeIssues);
+    int IntakeIssues,
+    int IntakeErrors);
 
 /// <summary>
 /// The scale benchmark. <c>run</c> (the default) measures the demo review and generated data sets of 1k, 10k and 100k
@@ -86,7 +88,7 @@ internal static class BenchProgram
             output.WriteLine($"bench: generating {n} lots into {dir}");
             var gen = Child<GenResult>(["gen", "--lots", n.ToString(Inv), "--dir", dir], error);
             output.WriteLine($"bench: measuring {n} lots ({gen.Readings} log readings, {gen.Bytes / 1e6:0.0} MB of CSV)");
-            runs.Add(Child<RunResult>(["measure", "--name", $"{n} lots", "--inputs", gen.LotsPath + "|" + gen.LogsPath, "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], error));
+            runs.Add(Child<RunResult>(["measure", "--name", $"{n} lots", "--inputs", string.Join('|', gen.LogsPaths.Prepend(gen.LotsPath)), "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], error));
         }
 
         string table = Table(runs);
@@ -97,15 +99,20 @@ internal static class BenchProgram
         return 0;
     }
 
-    private sealed record GenResult(int Lots, long Readings, long Bytes, double Seconds, string LotsPath, string LogsPath);
+    private sealed record GenResult(int Lots, long Readings, long Bytes, double Seconds, string LotsPath, IReadOnlyList<string> LogsPaths);
 
     private static GenResult Generate(int lots, string dir)
     {
         var watch = Stopwatch.StartNew();
+        if (Directory.Exists(dir))
+        {
+            Directory.Delete(dir, recursive: true);
+        }
+
         var scenario = ScenarioGenerator.Generate(ScaleFiles.Options(lots));
-        var (lotsPath, logsPath, readings) = ScaleFiles.Write(scenario, dir);
-        long bytes = new FileInfo(lotsPath).Length + new FileInfo(logsPath).Length;
-        return new GenResult(lots, readings, bytes, watch.Elapsed.TotalSeconds, lotsPath, logsPath);
+        var (lotsPath, logsPaths, readings) = ScaleFiles.Write(scenario, dir);
+        long bytes = new FileInfo(lotsPath).Length + logsPaths.Sum(p => new FileInfo(p).Length);
+        return new GenResult(lots, readings, bytes, watch.Elapsed.TotalSeconds, lotsPath, logsPaths);
     }
 
     private static RunResult Measure(string name, string[] inputs, string outDir, int lots, long readings, double genSeconds)
@@ -140,12 +147,14 @@ internal static class BenchProgram
             name,
             lots > 0 ? lots : set.Lots.Count,
             readings > 0 ? readings : set.Logs.Sum(l => (long)l.Readings.Count),
+            set.Logs.Sum(l => (long)l.Readings.Count),
             inputBytes,
             genSeconds,
             stages,
             total,
             self.PeakWorkingSet64,
-            set.Issues.Count);
+            set.Issues.Count,
+            set.Issues.Count(i => i.Severity == YieldBench.Core.Lots.IssueSeverity.Error));
     }
 
     private static T Child<T>(string[] args, TextWriter error)
@@ -178,23 +187,26 @@ internal static class BenchProgram
     private static string Table(IReadOnlyList<RunResult> runs)
     {
         var sb = new StringBuilder();
-        sb.Append("| run | lots | log readings | input MB | stage | wall s | peak working set MB | allocated MB |\n");
-        sb.Append("|---|---|---|---|---|---|---|---|\n");
+        sb.Append("| run | lots | log readings used | input MB | stage | wall s | CPU s | peak working set MB | allocated MB |\n");
+        sb.Append("|---|---|---|---|---|---|---|---|---|\n");
         foreach (var r in runs)
         {
             foreach (var s in r.Stages)
             {
-                sb.Append(Inv, $"| {r.Name} | {r.Lots} | {r.LogReadings} | {r.InputBytes / 1e6:0.00} | {s.Name} | {s.Seconds:0.000} | {s.PeakWorkingSetBytes / 1048576.0:0} | {s.AllocatedBytes / 1048576.0:0} |\n");
+                sb.Append(Inv, $"| {r.Name} | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | {s.Name} | {s.Seconds:0.000} | {s.CpuSeconds:0.000} | {s.PeakWorkingSetBytes / 1048576.0:0} | {s.AllocatedBytes / 1048576.0:0} |\n");
             }
 
-            sb.Append(Inv, $"| **{r.Name}** | {r.Lots} | {r.LogReadings} | {r.InputBytes / 1e6:0.00} | **total (read to workbook)** | **{r.TotalSeconds:0.000}** | **{r.ProcessPeakWorkingSetBytes / 1048576.0:0}** (process peak) | |\n");
+            sb.Append(Inv, $"| **{r.Name}** | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | **total (read to workbook)**; intake issues {r.IntakeIssues} ({r.IntakeErrors} errors) | **{r.TotalSeconds:0.000}** | {r.Stages.Skip(1).Sum(s => s.CpuSeconds):0.000} | **{r.ProcessPeakWorkingSetBytes / 1048576.0:0}** (process peak) | |\n");
         }
 
         return sb.ToString();
     }
 
-    private static string Machine() =>
-        string.Create(Inv, $"Machine: {Environment.ProcessorCount} cores, {GC.GetGCMemoryInfo().TotalAvailableMemoryBytes / 1073741824.0:0.0} GiB available to .NET, {RuntimeInformation.OSDescription}, {RuntimeInformation.FrameworkDescription}, server GC {System.Runtime.GCSettings.IsServerGC}\n");
+    private static string Machine()
+    {
+        string load = File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Trim() : "unknown";
+        return string.Create(Inv, $"Machine: {Environment.ProcessorCount} cores, {GC.GetGCMemoryInfo().TotalAvailableMemoryBytes / 1073741824.0:0.0} GiB available to .NET, {RuntimeInformation.OSDescription}, {RuntimeInformation.FrameworkDescription}, server GC {System.Runtime.GCSettings.IsServerGC}; load average at the end {load}\n");
+    }
 
     private static string FindRoot()
     {

@@ -7,7 +7,8 @@ namespace YieldBench.Bench;
 /// <param name="Seconds">Wall time, s.</param>
 /// <param name="PeakWorkingSetBytes">Highest working set seen during the stage, bytes.</param>
 /// <param name="AllocatedBytes">Bytes allocated on the managed heap during the stage.</param>
-internal sealed record StageTiming(string Name, double Seconds, long PeakWorkingSetBytes, long AllocatedBytes);
+/// <param name="CpuSeconds">Processor time of the whole process during the stage (all threads), s; less sensitive than wall time to other load on the machine.</param>
+internal sealed record StageTiming(string Name, double Seconds, long PeakWorkingSetBytes, long AllocatedBytes, double CpuSeconds);
 
 /// <summary>
 /// Splits a run into stages at the moments the library reports a new stage name (its progress callback), so the
@@ -20,6 +21,7 @@ internal sealed class StageClock : IProgress<string>, IDisposable
     private readonly List<StageTiming> _stages = [];
     private string? _current;
     private long _allocatedAtStart;
+    private TimeSpan _cpuAtStart;
 
     public IReadOnlyList<StageTiming> Stages => _stages;
 
@@ -32,6 +34,7 @@ internal sealed class StageClock : IProgress<string>, IDisposable
         _current = name;
         _allocatedAtStart = GC.GetTotalAllocatedBytes(false);
         _memory.TakeWindowPeak();
+        _cpuAtStart = Cpu();
         _watch.Restart();
     }
 
@@ -45,9 +48,15 @@ internal sealed class StageClock : IProgress<string>, IDisposable
 
         _watch.Stop();
         long peak = _memory.TakeWindowPeak();
-        _stages.Add(new StageTiming(_current, _watch.Elapsed.TotalSeconds, peak, GC.GetTotalAllocatedBytes(false) - _allocatedAtStart));
+        _stages.Add(new StageTiming(_current, _watch.Elapsed.TotalSeconds, peak, GC.GetTotalAllocatedBytes(false) - _allocatedAtStart, (Cpu() - _cpuAtStart).TotalSeconds));
         _current = null;
     }
 
     public void Dispose() => _memory.Dispose();
+
+    private static TimeSpan Cpu()
+    {
+        using var p = Process.GetCurrentProcess();
+        return p.TotalProcessorTime;
+    }
 }

@@ -155,7 +155,7 @@ public static class IntakeMessages
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
 
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
-        $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? ", …" : "")}. Kinetics is shown only for lots with a log.";
+        $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";
 
     /// <summary>Text appended to an issue about an optional value that was left empty while the row was used.</summary>
     internal const string LeftEmpty = " The value was left empty; the rest of the row was used.";

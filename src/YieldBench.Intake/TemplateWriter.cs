@@ -54,6 +54,9 @@ public static class TemplateWriter
             cell.Comment.AddText(Note(f));
             ws.Column(col).Width = Math.Clamp(f.TemplateHeader.Length + 4, 10, 40);
             var data = ws.Range(2, col, PreparedRows + 1, col);
+
+            // Number formats go on the whole column (no cells are made for empty rows); the header keeps text.
+            var format = ws.Column(col).Style.NumberFormat;
             switch (f.Kind)
             {
                 case FieldKind.Colour:
@@ -66,19 +69,19 @@ public static class TemplateWriter
                     var year = data.SetDataValidation();
                     year.WholeNumber.Between(1900, 2100);
                     year.ErrorMessage = "Enter a four-digit year (1900–2100).";
-                    data.Style.NumberFormat.Format = "0";
+                    format.Format = "0";
                     break;
                 case FieldKind.Date:
-                    data.Style.NumberFormat.Format = "yyyy-mm-dd";
+                    format.Format = "yyyy-mm-dd";
                     break;
                 case FieldKind.DateTime:
-                    data.Style.NumberFormat.Format = "yyyy-mm-dd hh:mm";
+                    format.Format = "yyyy-mm-dd hh:mm";
                     break;
                 case FieldKind.Text:
-                    data.Style.NumberFormat.Format = "@";
+                    format.Format = "@";
                     break;
                 default:
-                    data.Style.NumberFormat.Format = f.Name is "ph" ? "0.00" : f.Name is "final_abv" ? "0.00" : f.Kind is FieldKind.Volume or FieldKind.Mass ? "0" : "0.0";
+                    format.Format = f.Name is "ph" ? "0.00" : f.Name is "final_abv" ? "0.00" : f.Kind is FieldKind.Volume or FieldKind.Mass ? "0" : "0.0";
                     if (f.Min is { } min && f.Max is { } max)
                     {
                         var range = data.SetDataValidation();

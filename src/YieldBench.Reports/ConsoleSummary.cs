@@ -1,6 +1,7 @@
 using System.Globalization;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
+using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports;
@@ -29,14 +30,25 @@ public static class ConsoleSummary
         }
 
         var h = review.HouseFactor;
-        var shrunk = h.Candidates.FirstOrDefault(c => c.Id == "strain-shrunk")?.FullFit;
-        if (shrunk is { Strains.Count: > 0 })
+        var comparison = review.Strains.Comparison;
+        var ranked = ReviewTables.RankedStrains(review);
+        if (ranked.Count > 0)
         {
-            lines.Add("Strains by conversion (per-strain factor shrunk toward the pooled one, % v/v per °Brix):");
+            bool adjusted = comparison.Adjusted.Count > 0;
+            lines.Add(adjusted
+                ? $"Strains ranked by conversion adjusted to {F(comparison.ReferenceBrix, "0.0")} °Brix (% v/v per °Brix, 95 % interval):"
+                : $"Strains ranked by raw median {comparison.Measure} (the adjusted comparison could not be fitted):");
             int rank = 1;
-            foreach (var s in shrunk.Strains.OrderByDescending(s => s.SlopePerBrix).ThenBy(s => s.Strain, StringComparer.Ordinal))
+            foreach (var (strain, raw, adj) in ranked)
             {
-                lines.Add($"  {rank++}. {s.Strain}  {F(s.SlopePerBrix, "0.0000")}  ({s.Lots} lots)");
+                lines.Add(adj is null
+                    ? $"  {rank++}. {strain}  {F(raw, "0.0000")}"
+                    : $"  {rank++}. {strain}  {F(adj.Factor, "0.0000")}  ({F(adj.FactorInterval.Low, "0.0000")} to {F(adj.FactorInterval.High, "0.0000")}); raw median {F(raw, "0.0000")}");
+            }
+
+            foreach (var sentence in comparison.Sentences.Take(2))
+            {
+                lines.Add("  " + sentence);
             }
         }
 
@@ -62,17 +74,29 @@ public static class ConsoleSummary
             lines.Add("House factor: no recommendation. " + string.Join(" ", h.Explanation));
         }
 
-        var flagged = review.Lots.Select(l => (Lot: l, Flags: ReviewTables.LotFlags(review, l))).Where(x => x.Flags.Count > 0).ToArray();
-        if (flagged.Length == 0)
+        var flags = review.Strains.Flags;
+        var bySeverity = new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note }
+            .Select(sev => (Severity: sev, Lots: review.Lots.Count(l => ReviewTables.LotSeverity(review, l) == sev)))
+            .ToArray();
+        int flaggedLots = bySeverity.Sum(x => x.Lots);
+        if (flaggedLots == 0)
         {
-            lines.Add("Flagged lots: none.");
+            lines.Add("Odd lots: none flagged.");
         }
         else
         {
-            var byCode = flagged.SelectMany(x => x.Flags).GroupBy(c => c, StringComparer.Ordinal)
-                .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal)
-                .Select(g => $"{g.Key} {g.Count()}");
-            lines.Add($"Flagged lots: {flagged.Length} ({string.Join(", ", byCode)}); they are highlighted on the Lots sheet.");
+            lines.Add($"Odd lots: {flaggedLots} flagged — by worst flag: {string.Join(", ", bySeverity.Select(x => $"{ReviewTables.SeverityName(x.Severity)} {x.Lots}"))}; reasons and follow-ups on the Follow-up sheet and in {ReportWriter.DataFiles.Flags}.");
+            foreach (var f in flags.Where(f => f.Severity == FlagSeverity.LikelyError).Take(5))
+            {
+                lines.Add($"  {f.Season}/{f.LotId ?? f.Strain} {f.Code}: {f.Reason}");
+            }
+        }
+
+        if (review.Kinetics is { } k)
+        {
+            var kflags = k.Lots.SelectMany(x => x.Flags).GroupBy(c => c, StringComparer.Ordinal)
+                .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Key} {g.Count()}").ToArray();
+            lines.Add($"Kinetics: {k.Lots.Count} lots with a log; {k.Lots.Count(x => x.Flagged)} flagged{(kflags.Length > 0 ? " (" + string.Join(", ", kflags) + ")" : string.Empty)}.");
         }
 
         lines.Add($"Files: {output.Files.Count} written to {output.Folder} (open {ReportWriter.WorkbookName}).");

@@ -33,6 +33,12 @@ public static class ReportWriter
         /// <summary>One row per lot used.</summary>
         public const string Lots = "data/lots.csv";
 
+        /// <summary>Group summaries.</summary>
+        public const string Groups = "data/groups.csv";
+
+        /// <summary>Odd-lot flags.</summary>
+        public const string Flags = "data/flags.csv";
+
         /// <summary>Intake issues.</summary>
         public const string IntakeIssues = "data/intake-issues.csv";
 
@@ -61,6 +67,8 @@ public static class ReportWriter
 
         progress?.Report("data files");
         Text(DataFiles.Lots, CsvText.Write(ReviewTables.Lots(review)));
+        Text(DataFiles.Groups, CsvText.Write(ReviewTables.Groups(review)));
+        Text(DataFiles.Flags, CsvText.Write(ReviewTables.Flags(review)));
         Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
         Text(DataFiles.HouseFactor, HouseFactorJson.Write(review.HouseFactor));
         if (review.Kinetics is { } kinetics)

@@ -197,13 +197,14 @@ public static class DemoDataWriter
             int row = 2;
             foreach (var lot in season.Lots.Where(l => l.Log is not null && !l.LogIsProbe))
             {
-                foreach (var r in lot.Log!.Readings)
+                for (int k = 0; k < lot.Log!.Readings.Count; k++)
                 {
+                    var r = lot.Log.Readings[k];
                     ws.Cell(row, 1).Value = lot.Recorded.LotId;
                     ws.Cell(row, 1).Style.NumberFormat.Format = "@";
                     SetCell(ws.Cell(row, 2), r.Timestamp.Date, "yyyy-mm-dd");
                     SetCell(ws.Cell(row, 3), r.Timestamp.TimeOfDay.TotalDays, "hh:mm");
-                    SetCell(ws.Cell(row, 4), sg ? Math.Round(r.Sugar!.Value.SpecificGravity, 3) : Math.Round(r.Sugar!.Value.Brix, 1), sg ? "0.000" : "0.0");
+                    SetCell(ws.Cell(row, 4), lot.LogRecordedSugar![k], sg ? "0.000" : "0.0");
                     SetCell(ws.Cell(row, 5), r.TemperatureC, "0.0");
                     row++;
                 }
@@ -218,10 +219,11 @@ public static class DemoDataWriter
             var ws = wb.Worksheets.Add(lot.Recorded.LotId);
             WriteHeader(ws, ["Timestamp", "Brix", "Temp °C"], [17, 8, 9]);
             int row = 2;
-            foreach (var r in lot.Log!.Readings)
+            for (int k = 0; k < lot.Log!.Readings.Count; k++)
             {
+                var r = lot.Log.Readings[k];
                 SetCell(ws.Cell(row, 1), r.Timestamp, "yyyy-mm-dd hh:mm");
-                SetCell(ws.Cell(row, 2), Math.Round(r.Sugar!.Value.Brix, 2), "0.00");
+                SetCell(ws.Cell(row, 2), lot.LogRecordedSugar![k], "0.00");
                 SetCell(ws.Cell(row, 3), r.TemperatureC, "0.0");
                 row++;
             }

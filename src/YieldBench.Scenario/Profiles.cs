@@ -25,9 +25,9 @@ public sealed record StrainProfile(
 {
     /// <summary>
     /// True conversion factor at a starting sugar of <paramref name="brix"/> for a dry lot in a vessel with no ethanol loss:
-    /// OIV fermentable sugar g/L ÷ <see cref="SugarGlPerAbv"/> ÷ °Brix, % v/v per °Brix.
+    /// OIV fermentable sugar g/L (the scenario's frozen <see cref="ScenarioChemistry"/>) ÷ <see cref="SugarGlPerAbv"/> ÷ °Brix, % v/v per °Brix.
     /// </summary>
-    public double TrueFactorAt(double brix) => OivMustTable.SugarGramsPerLitre(brix) / SugarGlPerAbv / brix;
+    public double TrueFactorAt(double brix) => ScenarioChemistry.SugarGramsPerLitre(brix) / SugarGlPerAbv / brix;
 }
 
 /// <summary>A vessel type and size of the invented cellar and how it behaves.</summary>

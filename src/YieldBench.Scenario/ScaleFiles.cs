@@ -6,7 +6,8 @@ namespace YieldBench.Scenario;
 
 /// <summary>
 /// Writes a (large) scenario as two plain CSV files for the scale benchmark: all lots in one file (comma-separated,
-/// invariant culture, the demo's headers) and all hand-read log readings in one long file with a full timestamp.
+/// invariant culture, the demo's headers) and the log readings in one long file per season (logs-YEAR.csv) with a full
+/// timestamp — per season as a cellar keeps them, which also keeps each file under intake's one-million-row limit.
 /// Streams row by row so that 100k lots and a million readings need no more memory than the scenario itself.
 /// </summary>
 public static class ScaleFiles
@@ -14,8 +15,8 @@ public static class ScaleFiles
     /// <summary>Name of the lots file.</summary>
     public const string LotsFileName = "lots.csv";
 
-    /// <summary>Name of the logs file.</summary>
-    public const string LogsFileName = "logs.csv";
+    /// <summary>Name of a season's logs file.</summary>
+    public static string LogsFileName(int season) => string.Create(CultureInfo.InvariantCulture, $"logs-{season}.csv");
 
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
@@ -30,13 +31,12 @@ public static class ScaleFiles
         return new ScenarioOptions { Seed = seed, Seasons = seasons, LogShare = logShare, ProbeLotsPerSeason = 0, PlantCases = false };
     }
 
-    /// <summary>Writes lots.csv and logs.csv into <paramref name="directory"/>; returns (lots path, logs path, log readings written).</summary>
-    public static (string LotsPath, string LogsPath, long Readings) Write(ScenarioData scenario, string directory)
+    /// <summary>Writes lots.csv and one logs-YEAR.csv per season with logs into <paramref name="directory"/>; returns the paths and the log readings written.</summary>
+    public static (string LotsPath, IReadOnlyList<string> LogsPaths, long Readings) Write(ScenarioData scenario, string directory)
     {
         ArgumentNullException.ThrowIfNull(scenario);
         Directory.CreateDirectory(directory);
         string lotsPath = Path.Combine(directory, LotsFileName);
-        string logsPath = Path.Combine(directory, LogsFileName);
         var utf8 = new UTF8Encoding(false);
         using (var w = new StreamWriter(lotsPath, false, utf8, 1 << 16))
         {
@@ -70,11 +70,15 @@ public static class ScaleFiles
         }
 
         long readings = 0;
-        using (var w = new StreamWriter(logsPath, false, utf8, 1 << 16))
+        var logsPaths = new List<string>();
+        foreach (var season in scenario.Seasons.Where(s => s.Lots.Any(l => l.Log is not null)))
         {
+            string logsPath = Path.Combine(directory, LogsFileName(season.Profile.Year));
+            logsPaths.Add(logsPath);
+            using var w = new StreamWriter(logsPath, false, utf8, 1 << 16);
             w.NewLine = "\n";
             w.WriteLine("Lot,Vintage,Timestamp,Brix,Temp °C");
-            foreach (var g in scenario.AllLots)
+            foreach (var g in season.Lots)
             {
                 if (g.Log is not { } log)
                 {
@@ -93,7 +97,7 @@ public static class ScaleFiles
             }
         }
 
-        return (lotsPath, logsPath, readings);
+        return (lotsPath, logsPaths, readings);
     }
 
     private static string N(double? v, string format) => v?.ToString(format, Inv) ?? string.Empty;

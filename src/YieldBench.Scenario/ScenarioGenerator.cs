@@ -109,12 +109,11 @@ public static class ScenarioGenerator
             if (colour == WineColour.Red && brix > 26.0 && rng.Chance(0.6))
             {
                 double target = rng.Uniform(24.6, 25.2);
-                var (water, _) = AdditionBalance.WaterForTarget(SugarReading.FromBrix(brix), volume, target);
-                plan.RecordedWaterL = RoundTo(water, 5);
+                plan.RecordedWaterL = RoundTo(ScenarioChemistry.WaterForTarget(brix, volume, target), 5);
             }
             else if ((colour != WineColour.Red || variety.Name == "Pinot Noir") && brix < 20.8 && rng.Chance(0.7))
             {
-                plan.RecordedSugarKg = RoundTo(SucroseForTarget(brix, volume, rng.Uniform(21.6, 22.2)), 0.5);
+                plan.RecordedSugarKg = RoundTo(ScenarioChemistry.SucroseForTarget(brix, volume, rng.Uniform(21.6, 22.2)), 0.5);
             }
 
             plans.Add(plan);
@@ -156,7 +155,7 @@ public static class ScenarioGenerator
         var water = Choose(2023, p => p.Colour == WineColour.Red && p.Vessel.Type == "Stainless tank" && p.Strain is "YB-R12" or "YB-R31");
         water.TrueBrix = 27.3;
         water.ExactRecordedBrix = 27.3;
-        water.UnrecordedWaterL = RoundTo(AdditionBalance.WaterForTarget(SugarReading.FromBrix(27.3), water.MustVolumeL, 24.5).WaterL, 5);
+        water.UnrecordedWaterL = RoundTo(ScenarioChemistry.WaterForTarget(27.3, water.MustVolumeL, 24.5), 5);
         water.LogKind = LogKind.HandRead;
         yield return (PlantedKind.UnrecordedWater, water);
 
@@ -226,15 +225,16 @@ public static class ScenarioGenerator
     {
         var r = lot.Recorded;
         var t = lot.Truth;
-        double recordedFactor = r.FinalAlcohol.PercentVolume / r.StartingSugar.Brix;
+        double recordedBrix = lot.RecordedScale == SugarScale.SpecificGravity ? ScenarioChemistry.BrixFromSpecificGravity(lot.RecordedStartingValue) : lot.RecordedStartingValue;
+        double recordedFactor = r.FinalAlcohol.PercentVolume / recordedBrix;
         return kind switch
         {
             PlantedKind.TransposedDigits => new(kind, r.Season, r.LotId, ["possible-transposed-digits", "low-factor"],
-                $"starting sugar written {Fmt(r.StartingSugar.Brix)} °Brix for {Fmt(t.StartingBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)} against the strain's {Fmt(Catalog.Strain(t.Strain).TrueFactorAt(t.StartingBrix), 3)}",
-                "starting sugar, °Brix", r.StartingSugar.Brix, t.StartingBrix),
+                $"starting sugar written {Fmt(recordedBrix)} °Brix for {Fmt(t.StartingBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)} against the strain's {Fmt(Catalog.Strain(t.Strain).TrueFactorAt(t.StartingBrix), 3)}",
+                "starting sugar, °Brix", recordedBrix, t.StartingBrix),
             PlantedKind.UnrecordedWater => new(kind, r.Season, r.LotId, ["possible-unrecorded-water", "low-factor"],
-                $"{Fmt(t.WaterAddedL, 0)} L of water added to {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must was not recorded; the must really fermented from {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(r.StartingSugar.Brix)}; abv_per_brix reads {Fmt(recordedFactor, 3)}",
-                "effective starting sugar, °Brix", r.StartingSugar.Brix, t.EffectiveBrix),
+                $"{Fmt(t.WaterAddedL, 0)} L of water added to {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must was not recorded; the must really fermented from {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(recordedBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)}",
+                "effective starting sugar, °Brix", recordedBrix, t.EffectiveBrix),
             PlantedKind.OverheatedFerment => new(kind, r.Season, r.LotId, [],
                 $"probe log peaks at {Fmt(lot.Log!.Readings.Max(x => x.TemperatureC ?? double.MinValue), 1)} °C, above the red danger threshold of 40 °C (recorded peak {Fmt(r.PeakFermentationTempC ?? 0, 1)} °C)",
                 "peak temperature, °C", r.PeakFermentationTempC ?? double.NaN, t.PeakTempC),
@@ -245,13 +245,13 @@ public static class ScenarioGenerator
                 $"the ferment levelled off near {Fmt(t.FinalBrix)} °Brix and residual sugar is {Fmt(r.ResidualSugarGl ?? 0)} g/L; the log shows the stall (sluggish then stuck)",
                 "residual sugar, g/L", r.ResidualSugarGl ?? double.NaN, t.ResidualSugarGl),
             PlantedKind.UnderReadStartingSugar => new(kind, r.Season, r.LotId, ["high-factor", "above-theoretical-yield"],
-                $"starting sugar sampled before soak-up reads {Fmt(r.StartingSugar.Brix)} °Brix; the must was {Fmt(t.StartingBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)}",
-                "starting sugar, °Brix", r.StartingSugar.Brix, t.StartingBrix),
+                $"starting sugar sampled before soak-up reads {Fmt(recordedBrix)} °Brix; the must was {Fmt(t.StartingBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)}",
+                "starting sugar, °Brix", recordedBrix, t.StartingBrix),
             PlantedKind.RecordedAdditionControl => new(kind, r.Season, r.LotId, [],
                 r.Additions.WaterAddedL is > 0
-                    ? $"{Fmt(r.Additions.WaterAddedL ?? 0, 0)} L of water recorded on {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must: the effective starting sugar is {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(r.StartingSugar.Brix)}; no flag expected once corrected"
-                    : $"{Fmt(r.Additions.SugarAddedKg ?? 0)} kg of sucrose recorded on {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must: the effective starting sugar is {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(r.StartingSugar.Brix)}; no flag expected once corrected",
-                "effective starting sugar, °Brix", r.StartingSugar.Brix, t.EffectiveBrix),
+                    ? $"{Fmt(r.Additions.WaterAddedL ?? 0, 0)} L of water recorded on {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must: the effective starting sugar is {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(recordedBrix)}; no flag expected once corrected"
+                    : $"{Fmt(r.Additions.SugarAddedKg ?? 0)} kg of sucrose recorded on {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must: the effective starting sugar is {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(recordedBrix)}; no flag expected once corrected",
+                "effective starting sugar, °Brix", recordedBrix, t.EffectiveBrix),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown planted kind."),
         };
     }
@@ -271,7 +271,7 @@ public static class ScenarioGenerator
         // Additions and the effective sugar the yeast really saw.
         double recordedWater = p.RecordedWaterL ?? 0, sugar = p.RecordedSugarKg ?? 0;
         double trueWater = recordedWater + p.UnrecordedWaterL;
-        var effective = AdditionBalance.Apply(SugarReading.FromBrix(p.TrueBrix), new Additions(p.MustVolumeL, trueWater, sugar)).Effective.Brix;
+        var effective = ScenarioChemistry.BrixAfterAdditions(p.TrueBrix, p.MustVolumeL, trueWater, sugar);
 
         // Temperatures and kinetics (Zwietering modified Gompertz of °Brix consumed).
         double basePeak = (red ? p.Vessel.RedPeakC : p.Vessel.WhitePeakC) + strain.HeatRiseC;
@@ -287,7 +287,7 @@ public static class ScenarioGenerator
         // Residual sugar and alcohol: sugar consumed ÷ the strain's sugar per % v/v, less vessel and heat losses.
         double rs = p.ForcedResidualGl ?? (0.8 + (2.4 * Math.Pow(rng.NextDouble(), 2)));
         double heatLoss = 0.004 * Math.Max(0, peak - 32);
-        double abv = (OivMustTable.SugarGramsPerLitre(effective) - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
+        double abv = (ScenarioChemistry.SugarGramsPerLitre(effective) - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
         double labAbv = Math.Round(abv + rng.Normal(0, 0.07), 2);
         double labRs = Math.Round(Math.Max(0.3, rs + rng.Normal(0, 0.15)), 1);
 
@@ -297,7 +297,7 @@ public static class ScenarioGenerator
         SugarReading recordedSugar;
         if (p.Season.Scale == SugarScale.SpecificGravity)
         {
-            recordedValue = Math.Round(SugarScales.SpecificGravityFromBrix(sampled), 3);
+            recordedValue = Math.Round(ScenarioChemistry.SpecificGravityFromBrix(sampled), 3);
             recordedSugar = SugarReading.FromSpecificGravity(recordedValue);
         }
         else
@@ -323,7 +323,7 @@ public static class ScenarioGenerator
             HoursToZeroBrix = hoursToZero,
         };
 
-        var log = p.LogKind == LogKind.None ? null : MakeLog(p, truth, rng.Fork("log"));
+        var (log, logValues) = p.LogKind == LogKind.None ? (null, null) : MakeLog(p, truth, rng.Fork("log"));
         double recordedPeak = log is not null
             ? log.Readings.Max(r => r.TemperatureC ?? double.MinValue)
             : Math.Round(peak + rng.Normal(0, 0.3), 1);
@@ -359,12 +359,14 @@ public static class ScenarioGenerator
             RecordedScale = p.Season.Scale,
             Truth = truth,
             Log = log,
+            LogRecordedSugar = logValues,
             LogIsProbe = p.LogKind == LogKind.Probe,
         };
     }
 
-    private static FermentationLog MakeLog(LotPlan p, LotTruth t, ScenarioRandom rng)
+    private static (FermentationLog Log, IReadOnlyList<double> Values) MakeLog(LotPlan p, LotTruth t, ScenarioRandom rng)
     {
+        var values = new List<double>();
         double amount = t.EffectiveBrix - t.FinalBrix;
         double end = (t.HoursToZeroBrix ?? (GompertzTimeTo(amount, t.MaxRateBrixPerHour, t.LagHours, t.EffectiveBrix - t.FinalBrix - 0.2) + 120)) + 36;
         var readings = new List<LogReading>();
@@ -379,6 +381,7 @@ public static class ScenarioGenerator
                 double brix = Math.Round(BrixAt(t, hours) + rng.Normal(0, 0.03), 2);
                 double temp = Math.Round(TempAt(t, hours) + rng.Normal(0, 0.08), 1);
                 readings.Add(new LogReading(at, SugarReading.FromBrix(brix), temp));
+                values.Add(brix);
             }
         }
         else
@@ -409,9 +412,9 @@ public static class ScenarioGenerator
                     }
 
                     double brix = BrixAt(t, hours) + rng.Normal(0, 0.15);
-                    var reading = sg
-                        ? SugarReading.FromSpecificGravity(Math.Round(SugarScales.SpecificGravityFromBrix(brix), 3))
-                        : SugarReading.FromBrix(Math.Round(brix, 1));
+                    double value = sg ? Math.Round(ScenarioChemistry.SpecificGravityFromBrix(brix), 3) : Math.Round(brix, 1);
+                    var reading = sg ? SugarReading.FromSpecificGravity(value) : SugarReading.FromBrix(value);
+                    values.Add(value);
                     double temp = Math.Round(TempAt(t, hours) + rng.Normal(0, 0.25), 1);
                     readings.Add(new LogReading(at, reading, temp));
                 }
@@ -423,7 +426,7 @@ public static class ScenarioGenerator
             }
         }
 
-        return new FermentationLog(p.LotId, p.Season.Year, readings);
+        return (new FermentationLog(p.LotId, p.Season.Year, readings), values);
     }
 
     /// <summary>°Brix on the Zwietering modified Gompertz curve at <paramref name="hours"/> after inoculation.</summary>
@@ -483,14 +486,6 @@ public static class ScenarioGenerator
 
     private static VesselProfile Vessels(string type, double capacity) =>
         Catalog.Vessels.First(v => v.Type == type && v.CapacityL == capacity);
-
-    /// <summary>Sucrose (kg) that raises <paramref name="volumeL"/> L at <paramref name="brix"/> to <paramref name="target"/> °Brix (the mass balance of <see cref="AdditionBalance"/> solved for sucrose).</summary>
-    private static double SucroseForTarget(double brix, double volumeL, double target)
-    {
-        double mass = volumeL * SugarScales.SpecificGravityFromBrix(brix) * OivMustTable.WaterDensity20C;
-        double solids = mass * brix / 100.0;
-        return ((target * mass) - (100 * solids)) / (100 - target);
-    }
 
     private static double RoundTo(double value, double step) => Math.Round(value / step) * step;
 

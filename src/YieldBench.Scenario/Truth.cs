@@ -64,6 +64,9 @@ public sealed record GeneratedLot
     /// <summary>The lot's fermentation log, or null when none was kept.</summary>
     public FermentationLog? Log { get; init; }
 
+    /// <summary>The log's sugar readings as written in the files (the season's scale, rounded as recorded), in reading order.</summary>
+    public IReadOnlyList<double>? LogRecordedSugar { get; init; }
+
     /// <summary>True when the log is a probe's dense record (every 15 minutes) kept on its own sheet.</summary>
     public bool LogIsProbe { get; init; }
 }

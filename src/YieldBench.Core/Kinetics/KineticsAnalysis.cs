@@ -16,7 +16,7 @@ public static class KineticsAnalysis
     /// <summary>Flag codes a lot can carry, in the order they are listed.</summary>
     public static IReadOnlyList<string> FlagOrder { get; } =
     [
-        "stuck", "sluggish", "not-dry-at-log-end", "above-danger-temp", "above-caution-temp",
+        "stuck", "sluggish", "stalled-then-finished", "not-dry-at-log-end", "above-danger-temp", "above-caution-temp",
         "out-of-order-timestamp", "duplicate-timestamp", "sugar-rose",
     ];
 
@@ -413,25 +413,51 @@ public static class KineticsAnalysis
             findings.Add(new(key, "above-caution-temp", $"Lot {key} reached {F(peak!.Value)} °C at {Stamp(peakAt!.Value)}, above the caution threshold of {F(th.CautionC)} °C, for about {F(aboveCaution)} h.", temps.First(t => t.Time == peakAt).Source));
         }
 
-        // Stalls are judged after the lag, so a slow start is not counted twice.
-        double judgeFrom = lagHours is { } lh ? Math.Max(hrs[0], lh) : hrs[0];
-        var stuck = FindStall(sugar, hrs, bx, judgeFrom, s.StuckHours, s.StuckRateBrixPerDay, s.StuckAboveBrix);
-        var sluggish = FindStall(sugar, hrs, bx, judgeFrom, s.SluggishHours, s.SluggishRateBrixPerDay, s.SluggishAboveBrix);
+        // Stalls are judged after the lag and after the fastest point: a slow start and the climb to full speed are the
+        // lag's business, not a stall.
+        double judgeFrom = hrs[0];
+        if (lagHours is { } lh)
+        {
+            judgeFrom = Math.Max(judgeFrom, lh);
+        }
+
+        if (maxAt is { } ma)
+        {
+            judgeFrom = Math.Max(judgeFrom, H(ma));
+        }
+
+        double sluggishRate = s.SluggishRateFor(lot.Colour);
+        var stall = FindStall(sugar, hrs, bx, judgeFrom, s.StuckHours, s.StuckRateBrixPerDay, s.StuckAboveBrix);
+        var sluggish = FindStall(sugar, hrs, bx, judgeFrom, s.SluggishHours, sluggishRate, s.SluggishAboveBrix);
+        bool rsDry = lot.ResidualSugarGl is { } rsDryValue && rsDryValue <= s.DryResidualSugarGl;
+        bool dryAfterStall = stall is not null && dryAt is { } da && da > stall.End;
+        StallEpisode? stuck = stall is not null && !dryAfterStall && !rsDry ? stall : null;
+        StallEpisode? restarted = stall is not null && stuck is null ? stall : null;
         string rsNote = lot.ResidualSugarGl is { } rsv
             ? rsv > s.DryResidualSugarGl
                 ? $" The lab recorded {F(rsv)} g/L residual sugar, above the {F(s.DryResidualSugarGl)} g/L dry limit."
-                : $" The lab recorded {F(rsv)} g/L residual sugar, within the {F(s.DryResidualSugarGl)} g/L dry limit, so the lot finished later."
+                : $" The lab recorded {F(rsv)} g/L residual sugar, within the {F(s.DryResidualSugarGl)} g/L dry limit."
             : " No residual sugar was recorded for the lot.";
+        string stallText(StallEpisode e) =>
+            $"sugar went from {F(e.BrixStart)} to {F(e.BrixEnd)} °Brix between {Stamp(e.Start)} and {Stamp(e.End)} ({F(e.MeanRateBrixPerDay, "0.00")} °Brix/day, under {F(s.StuckRateBrixPerDay, "0.00")} for {F(s.StuckHours, "0")} h while above {F(s.StuckAboveBrix)} °Brix)";
         if (stuck is not null)
         {
             flags.Add("stuck");
-            findings.Add(new(key, "stuck", $"Lot {key}: sugar went from {F(stuck.BrixStart)} to {F(stuck.BrixEnd)} °Brix between {Stamp(stuck.Start)} and {Stamp(stuck.End)} ({F(stuck.MeanRateBrixPerDay, "0.00")} °Brix/day, under {F(s.StuckRateBrixPerDay, "0.00")} for {F(s.StuckHours, "0")} h while above {F(s.StuckAboveBrix)} °Brix).{rsNote}", sugar.First(p => p.Time == stuck.End).Source));
+            findings.Add(new(key, "stuck", $"Lot {key}: {stallText(stuck)}.{rsNote}", sugar.First(p => p.Time == stuck.End).Source));
+        }
+        else if (restarted is not null)
+        {
+            flags.Add("stalled-then-finished");
+            string how = dryAfterStall
+                ? $"the log reached {F(s.DryBrix)} °Brix afterwards ({Stamp(dryAt!.Value)})"
+                : "the lot finished after the log ended";
+            findings.Add(new(key, "stalled-then-finished", $"Lot {key}: {stallText(restarted)}, then {how}, so it is not counted as stuck.{rsNote}", sugar.First(p => p.Time == restarted.End).Source));
         }
 
         if (sluggish is not null)
         {
             flags.Add("sluggish");
-            findings.Add(new(key, "sluggish", $"Lot {key}: sugar went from {F(sluggish.BrixStart)} to {F(sluggish.BrixEnd)} °Brix between {Stamp(sluggish.Start)} and {Stamp(sluggish.End)} ({F(sluggish.MeanRateBrixPerDay, "0.00")} °Brix/day, under {F(s.SluggishRateBrixPerDay, "0.00")} for {F(s.SluggishHours, "0")} h while above {F(s.SluggishAboveBrix)} °Brix).", sugar.First(p => p.Time == sluggish.End).Source));
+            findings.Add(new(key, "sluggish", $"Lot {key}: sugar went from {F(sluggish.BrixStart)} to {F(sluggish.BrixEnd)} °Brix between {Stamp(sluggish.Start)} and {Stamp(sluggish.End)} ({F(sluggish.MeanRateBrixPerDay, "0.00")} °Brix/day, under {F(sluggishRate, "0.00")} for {F(s.SluggishHours, "0")} h while above {F(s.SluggishAboveBrix)} °Brix, after the fastest point of the ferment).", sugar.First(p => p.Time == sluggish.End).Source));
         }
 
         var heat = new List<HeatPoint>();
@@ -500,6 +526,7 @@ public static class KineticsAnalysis
             HoursAboveDanger = aboveDanger,
             Sluggish = sluggish,
             Stuck = stuck,
+            StalledThenFinished = restarted,
             Heat = heat,
             ReadingsWithPotentialAboveDanger = hotReadings,
             PotentialPeak = potentialPeak,

@@ -199,8 +199,14 @@ public sealed record LotKinetics
     /// <summary>The first sluggish stretch, if any.</summary>
     public StallEpisode? Sluggish { get; init; }
 
-    /// <summary>The first stuck stretch, if any.</summary>
+    /// <summary>
+    /// The first stretch meeting the stuck rule, when the lot did not finish afterwards: the log never reached the dry
+    /// reading after it, and the lab's residual sugar (where recorded) is above the dry limit.
+    /// </summary>
     public StallEpisode? Stuck { get; init; }
+
+    /// <summary>A stretch meeting the stuck rule after which the lot still finished (dry later in the log, or a dry lab residual sugar).</summary>
+    public StallEpisode? StalledThenFinished { get; init; }
 
     /// <summary>Heat potential at every sugar reading with a temperature.</summary>
     public required IReadOnlyList<HeatPoint> Heat { get; init; }

@@ -39,6 +39,9 @@ public sealed record KineticsSettings
     /// <summary>Sluggish: mean rate below this over <see cref="SluggishHours"/>, °Brix/day (default 1.0).</summary>
     public double SluggishRateBrixPerDay { get; init; } = 1.0;
 
+    /// <summary>Sluggish rate threshold for whites and rosés, which run cooler and slower, °Brix/day (default 0.5).</summary>
+    public double WhiteSluggishRateBrixPerDay { get; init; } = 0.5;
+
     /// <summary>Sluggish only while the sugar stays above this, °Brix (default 5).</summary>
     public double SluggishAboveBrix { get; init; } = 5.0;
 
@@ -79,6 +82,10 @@ public sealed record KineticsSettings
     public TemperatureThresholds ThresholdsFor(WineColour colour) =>
         colour is WineColour.White or WineColour.Rose ? WhiteThresholds : RedThresholds;
 
+    /// <summary>The sluggish rate threshold for a colour: whites and rosés use <see cref="WhiteSluggishRateBrixPerDay"/>.</summary>
+    public double SluggishRateFor(WineColour colour) =>
+        colour is WineColour.White or WineColour.Rose ? WhiteSluggishRateBrixPerDay : SluggishRateBrixPerDay;
+
     /// <summary>Problems with the settings, as sentences; empty when they are usable.</summary>
     public IReadOnlyList<string> Problems()
     {
@@ -95,6 +102,7 @@ public sealed record KineticsSettings
         Positive(SmoothingWindowHours, nameof(SmoothingWindowHours));
         Positive(DenseSpacingHours, nameof(DenseSpacingHours));
         Positive(SluggishRateBrixPerDay, nameof(SluggishRateBrixPerDay));
+        Positive(WhiteSluggishRateBrixPerDay, nameof(WhiteSluggishRateBrixPerDay));
         Positive(SluggishHours, nameof(SluggishHours));
         Positive(StuckRateBrixPerDay, nameof(StuckRateBrixPerDay));
         Positive(StuckHours, nameof(StuckHours));

@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
 
@@ -18,6 +19,9 @@ public sealed record ReviewResult
 
     /// <summary>Every lot used, with its conversion measures, in input order.</summary>
     public required IReadOnlyList<LotConversion> Lots { get; init; }
+
+    /// <summary>Group summaries, the strain comparison, per-lot robust scores and odd-lot flags.</summary>
+    public required StrainReview Strains { get; init; }
 
     /// <summary>The house-factor candidates, backtests, recommendation and planner table.</summary>
     public required HouseFactorReview HouseFactor { get; init; }

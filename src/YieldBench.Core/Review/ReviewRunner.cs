@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
 
@@ -9,7 +10,7 @@ namespace YieldBench.Core.Review;
 public static class ReviewRunner
 {
     /// <summary>The review stages, in the order they run (progress reporting names them).</summary>
-    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "house factor", "kinetics"];
+    public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "strain review", "house factor", "kinetics"];
 
     /// <summary>Runs the review.</summary>
     /// <param name="inputs">What intake produced.</param>
@@ -30,12 +31,15 @@ public static class ReviewRunner
         var lots = inputs.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
 
         progress?.Report(Stages[1]);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
+
+        progress?.Report(Stages[2]);
         var house = HouseFactorAnalysis.Run(lots, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
 
         KineticsReview? kinetics = null;
         if (inputs.Logs.Count > 0)
         {
-            progress?.Report(Stages[2]);
+            progress?.Report(Stages[3]);
             kinetics = KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics);
         }
 
@@ -44,6 +48,7 @@ public static class ReviewRunner
             Inputs = inputs,
             Settings = settings,
             Lots = lots,
+            Strains = strains,
             HouseFactor = house,
             Kinetics = kinetics,
             ToolVersion = toolVersion,

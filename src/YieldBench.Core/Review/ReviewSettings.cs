@@ -1,6 +1,7 @@
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
+using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
 
@@ -12,6 +13,9 @@ public sealed record ReviewSettings
 
     /// <summary>How fermentable sugar is obtained from °Brix.</summary>
     public SugarModel SugarModel { get; init; } = SugarModel.Default;
+
+    /// <summary>Groupings, interval and odd-lot detector settings of the strain review.</summary>
+    public StrainReviewSettings Strains { get; init; } = new();
 
     /// <summary>House-factor candidates, label regime, threshold and planner targets.</summary>
     public HouseFactorSettings HouseFactor { get; init; } = new();

@@ -278,7 +278,23 @@ public static class RankTests
         var last = Enumerable.Repeat(cols - 1, rows).ToArray();
 
         // Column c holds b in descending order, so a[r] − b[cols − 1 − c] rises along the row.
-        return SortedMatrixSelection.Select(rows, first, last, (r, c) => a[r] - b[cols - 1 - c], k);
+        // Entries of row r below t are the b with a[r] − b < t; as a[r] grows that set shrinks from the top of b,
+        // so one pointer into b (ascending) serves every row: count = cols − (first index with a[r] − b[idx] < t).
+        void Count(double t, bool strict, long[] counts)
+        {
+            int p = 0;
+            for (int r = 0; r < rows; r++)
+            {
+                while (p < cols && !(strict ? a[r] - b[p] < t : a[r] - b[p] <= t))
+                {
+                    p++;
+                }
+
+                counts[r] = cols - p;
+            }
+        }
+
+        return SortedMatrixSelection.Select(rows, first, last, (r, c) => a[r] - b[cols - 1 - c], k, Count);
     }
 
     private static void RejectNaN(double v)

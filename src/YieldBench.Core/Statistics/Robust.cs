@@ -119,7 +119,24 @@ public static class Robust
             last[i] = n - 1;
         }
 
-        double kth = SortedMatrixSelection.Select(n, first, last, (i, j) => x[j] - x[i], k);
+        // Entries of row i below t are the j > i with x[j] − x[i] < t; that boundary only moves right as i grows
+        // (the comparison is on the difference itself, exactly as the entries are formed).
+        void Count(double t, bool strict, long[] counts)
+        {
+            int p = 0;
+            for (int i = 0; i < n; i++)
+            {
+                p = Math.Max(p, i + 1);
+                while (p < n && (strict ? x[p] - x[i] < t : x[p] - x[i] <= t))
+                {
+                    p++;
+                }
+
+                counts[i] = p - (i + 1);
+            }
+        }
+
+        double kth = SortedMatrixSelection.Select(n, first, last, (i, j) => x[j] - x[i], k, Count);
         double raw = QnConsistency * kth;
         return n <= 12 ? raw * QnSmallSample[n - 2] : raw / QnFiniteCorrection(n);
     }

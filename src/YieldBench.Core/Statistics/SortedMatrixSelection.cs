@@ -15,7 +15,16 @@ internal static class SortedMatrixSelection
     /// <paramref name="lastColumn"/>[r] (inclusive; empty when last &lt; first), and
     /// <paramref name="entry"/>(r, c) must be non-decreasing in c.
     /// </summary>
-    public static double Select(int rows, int[] firstColumn, int[] lastColumn, Func<int, int, double> entry, long k)
+    /// <param name="rows">Number of rows.</param>
+    /// <param name="firstColumn">First column of each row.</param>
+    /// <param name="lastColumn">Last column of each row (inclusive).</param>
+    /// <param name="entry">The entry at (row, column).</param>
+    /// <param name="k">Rank wanted, 1-based.</param>
+    /// <param name="countRows">
+    /// Optional fast counter: given t and strictness, fills for every row the number of its entries below t (or at
+    /// or below t). Without it each row is binary-searched; with a monotone two-pointer counter a round costs O(R + C).
+    /// </param>
+    public static double Select(int rows, int[] firstColumn, int[] lastColumn, Func<int, int, double> entry, long k, Action<double, bool, long[]>? countRows = null)
     {
         long total = 0;
         for (int r = 0; r < rows; r++)
@@ -35,7 +44,6 @@ internal static class SortedMatrixSelection
         var atOrBelow = new long[rows];
         var trialValues = new double[rows];
         var trialWeights = new long[rows];
-        var order = new int[rows];
 
         while (true)
         {
@@ -58,12 +66,24 @@ internal static class SortedMatrixSelection
                 return SelectAmongCandidates(rows, firstColumn, lo, hi, entry, k);
             }
 
-            double trial = WeightedHighMedian(trialValues, trialWeights, order, m);
+            double trial = WeightedHighMedian(trialValues, trialWeights, m);
             long sumBelow = 0, sumAtOrBelow = 0;
+            if (countRows is null)
+            {
+                for (int r = 0; r < rows; r++)
+                {
+                    below[r] = CountBelow(r, firstColumn[r], lastColumn[r], entry, trial, strict: true);
+                    atOrBelow[r] = CountBelow(r, firstColumn[r], lastColumn[r], entry, trial, strict: false);
+                }
+            }
+            else
+            {
+                countRows(trial, true, below);
+                countRows(trial, false, atOrBelow);
+            }
+
             for (int r = 0; r < rows; r++)
             {
-                below[r] = CountBelow(r, firstColumn[r], lastColumn[r], entry, trial, strict: true);
-                atOrBelow[r] = CountBelow(r, firstColumn[r], lastColumn[r], entry, trial, strict: false);
                 sumBelow += below[r];
                 sumAtOrBelow += atOrBelow[r];
             }
@@ -129,15 +149,10 @@ internal static class SortedMatrixSelection
         return a - first;
     }
 
-    /// <summary>Smallest value whose cumulative weight reaches half the total (weighted high median).</summary>
-    private static double WeightedHighMedian(double[] values, long[] weights, int[] order, int m)
+    /// <summary>Smallest value whose cumulative weight exceeds half the total (weighted high median). Reorders the arrays' first m items.</summary>
+    private static double WeightedHighMedian(double[] values, long[] weights, int m)
     {
-        for (int i = 0; i < m; i++)
-        {
-            order[i] = i;
-        }
-
-        Array.Sort(order, 0, m, Comparer<int>.Create((x, y) => values[x].CompareTo(values[y])));
+        Array.Sort(values, weights, 0, m);
         long total = 0;
         for (int i = 0; i < m; i++)
         {
@@ -147,13 +162,13 @@ internal static class SortedMatrixSelection
         long cumulative = 0;
         for (int i = 0; i < m; i++)
         {
-            cumulative += weights[order[i]];
+            cumulative += weights[i];
             if (2 * cumulative > total)
             {
-                return values[order[i]];
+                return values[i];
             }
         }
 
-        return values[order[m - 1]];
+        return values[m - 1];
     }
 }

@@ -101,7 +101,8 @@ public static class OivMustTable
     public static double PotentialAlcohol(double brix) => SugarGramsPerLitre(brix) / SugarGramsPerPercentVolume;
 
     /// <summary>
-    /// The °Brix whose fermentable sugar is <paramref name="sugarGl"/> (bisection on the rising curve, to 1e-10 °Brix).
+    /// The °Brix whose fermentable sugar is <paramref name="sugarGl"/> (Illinois root-finding on the rising curve, to
+    /// 1e-11 g/L or 1e-10 °Brix).
     /// 0 g/L gives the °Brix where sugar starts (2.147 °Brix).
     /// </summary>
     public static double BrixFromSugarGramsPerLitre(double sugarGl) =>
@@ -119,24 +120,73 @@ public static class OivMustTable
     /// </summary>
     internal static double InverseOfRising(Func<double, double> f, double y, double lo, double hi)
     {
-        if (f(hi) < y)
+        double fHi = f(hi) - y;
+        if (fHi < 0)
         {
             return hi;
         }
 
+        double fLo = f(lo) - y;
+        if (y <= 0 || fLo >= 0)
+        {
+            // A flat stretch at y (no sugar below the non-sugar allowance): plain bisection finds its upper end.
+            for (int i = 0; i < 200 && hi - lo > 1e-10; i++)
+            {
+                double mid = 0.5 * (lo + hi);
+                if (f(mid) <= y)
+                {
+                    lo = mid;
+                }
+                else
+                {
+                    hi = mid;
+                }
+            }
+
+            return hi;
+        }
+
+        // Illinois (modified regula falsi): keeps the bracket like bisection, converges superlinearly on the smooth curve.
+        int side = 0;
+        double x = lo;
         for (int i = 0; i < 200 && hi - lo > 1e-10; i++)
         {
-            double mid = 0.5 * (lo + hi);
-            if (f(mid) <= y)
+            x = ((lo * fHi) - (hi * fLo)) / (fHi - fLo);
+            double fx = f(x) - y;
+            if (fx == 0)
             {
-                lo = mid;
+                return x;
+            }
+
+            if (fx < 0)
+            {
+                lo = x;
+                fLo = fx;
+                if (side == -1)
+                {
+                    fHi *= 0.5;
+                }
+
+                side = -1;
             }
             else
             {
-                hi = mid;
+                hi = x;
+                fHi = fx;
+                if (side == 1)
+                {
+                    fLo *= 0.5;
+                }
+
+                side = 1;
+            }
+
+            if (Math.Abs(fx) < 1e-11)
+            {
+                return x;
             }
         }
 
-        return hi;
+        return x;
     }
 }

@@ -148,10 +148,12 @@ public static class ReviewCharts
                 WhiskerMax = sorted.Where(v => v <= q3 + (1.5 * iqr)).Max(),
                 Width = 0.5,
             };
+            plot.Add.Box(box);
+
+            // Set after adding: adding a box gives it the plot's next palette colour.
             box.FillColor = color.WithAlpha(0.30);
             box.LineColor = color;
             box.LineWidth = 2;
-            plot.Add.Box(box);
 
             // Points spread sideways by rank (deterministic, no random jitter) so equal values stay visible.
             var xs = members.Select((m, k) => i + 0.3 + (0.15 * ((k % 7) - 3) / 3.0)).ToArray();
@@ -303,7 +305,7 @@ public static class ReviewCharts
 
     private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
     {
-        var flagged = lots.Where(l => ReviewTables.LotFlags(review, l).Count > 0 && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var flagged = lots.Where(l => ReviewTables.IsFlagged(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;
@@ -311,6 +313,6 @@ public static class ReviewCharts
 
         var rings = plot.Add.Markers(flagged.Select(x).ToArray(), flagged.Select(y).ToArray(), MarkerShape.OpenCircle, 20, ChartPalette.Flagged);
         rings.MarkerLineWidth = 2.5f;
-        rings.LegendText = $"flagged ({flagged.Length})";
+        rings.LegendText = $"flagged by the strain review ({flagged.Length})";
     }
 }

@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
+using YieldBench.Core.Review.Strains;
 using YieldBench.Core.Units;
 
 namespace YieldBench.Reports.Tables;
@@ -65,6 +66,7 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         var table = new ReportTable(LotColumns);
+        var scores = review.Strains.Scores.GroupBy(x => x.LotKey, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
         foreach (var c in order ?? review.Lots)
         {
             var lot = c.Lot;
@@ -83,7 +85,7 @@ public static class ReviewTables
                 c.AbvPerBrixFermented,
                 c.SugarGlPerAbv,
                 c.GayLussacEfficiency,
-                double.NaN,
+                scores.TryGetValue(lot.Key, out var score) ? score.Z : double.NaN,
                 flags.Count == 0 ? null : string.Join(';', flags),
                 lot.StartingSugar.Brix,
                 ScaleName(lot.StartingSugarScale),
@@ -112,7 +114,7 @@ public static class ReviewTables
                 lot.Source?.Sheet,
                 lot.Source?.Row,
             ],
-            highlight: flags.Count > 0);
+            highlight: IsFlagged(review, c));
         }
 
         return table;
@@ -132,6 +134,7 @@ public static class ReviewTables
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
         var codes = new List<string>();
+        codes.AddRange(review.Strains.Flags.Where(f => f.LotKey == lot.Lot.Key).Select(f => f.Code));
         var kinetics = review.Kinetics?.Lots.FirstOrDefault(k => k.LotKey == lot.Lot.Key);
         if (kinetics is not null)
         {
@@ -139,6 +142,208 @@ public static class ReviewTables
         }
 
         return codes.Distinct(StringComparer.Ordinal).ToArray();
+    }
+
+    /// <summary>
+    /// True when the strain review flagged the lot (highlighted rows, chart rings, overview counts). Kinetics flags are
+    /// listed in the flags column too but shaded on the kinetics sheet, so that conversion charts mark conversion findings.
+    /// </summary>
+    public static bool IsFlagged(ReviewResult review, LotConversion lot)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(lot);
+        return review.Strains.Flags.Any(f => f.LotKey == lot.Lot.Key);
+    }
+
+    /// <summary>The most serious strain-review flag of a lot, or null when it has none.</summary>
+    public static FlagSeverity? LotSeverity(ReviewResult review, LotConversion lot)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(lot);
+        var severities = review.Strains.Flags.Where(f => f.LotKey == lot.Lot.Key).Select(f => f.Severity).ToArray();
+        return severities.Length == 0 ? null : severities.Max();
+    }
+
+    /// <summary>Plain name of a severity, as in data/flags.csv.</summary>
+    public static string SeverityName(FlagSeverity severity) => severity switch
+    {
+        FlagSeverity.Note => "note",
+        FlagSeverity.Check => "check",
+        FlagSeverity.LikelyError => "likely error",
+        _ => severity.ToString(),
+    };
+
+    /// <summary>Columns of data/groups.csv (the sheets add a note column).</summary>
+    public static IReadOnlyList<ReportColumn> GroupColumns { get; } =
+    [
+        new("grouping", "Grouping", CellKind.Text),
+        new("group", "Group", CellKind.Text),
+        new("measure", "Measure", CellKind.Text),
+        new("n", "Lots", CellKind.Integer),
+        new("median", "Median", CellKind.Number, "0.0000"),
+        new("mad", "MAD (scaled)", CellKind.Number, "0.0000"),
+        new("qn", "Qn", CellKind.Number, "0.0000"),
+        new("iqr", "IQR", CellKind.Number, "0.0000"),
+        new("mean", "Mean", CellKind.Number, "0.0000"),
+        new("sd", "SD", CellKind.Number, "0.0000"),
+        new("trimmed_mean", "20 % trimmed mean", CellKind.Number, "0.0000"),
+        new("huber", "Huber location", CellKind.Number, "0.0000"),
+        new("min", "Min", CellKind.Number, "0.0000"),
+        new("max", "Max", CellKind.Number, "0.0000"),
+        new("ci_low", "Median 95 % interval low", CellKind.Number, "0.0000"),
+        new("ci_high", "Median 95 % interval high", CellKind.Number, "0.0000"),
+    ];
+
+    /// <summary>Group summaries: every grouping, or only <paramref name="grouping"/>; with a note column for the sheets.</summary>
+    public static ReportTable Groups(ReviewResult review, string? grouping = null, bool withNote = false)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var columns = withNote ? [.. GroupColumns, new ReportColumn("note", "Note", CellKind.Text)] : GroupColumns;
+        var table = new ReportTable(columns);
+        foreach (var g in review.Strains.Groups.Where(g => grouping is null || g.Grouping == grouping))
+        {
+            object?[] cells =
+            [
+                g.Grouping, g.Group, g.Measure.Name(), g.N, g.Median, g.Mad, g.Qn, g.Iqr, g.Mean, g.Sd, g.TrimmedMean, g.Huber, g.Min, g.Max,
+                g.MedianInterval.Low, g.MedianInterval.High,
+            ];
+            table.Add(withNote ? [.. cells, g.Note] : cells);
+        }
+
+        return table;
+    }
+
+    /// <summary>Columns of data/flags.csv.</summary>
+    public static IReadOnlyList<ReportColumn> FlagColumns { get; } =
+    [
+        new("lot_id", "Lot", CellKind.Text),
+        new("season", "Season", CellKind.Integer),
+        new("code", "Flag", CellKind.Text),
+        new("severity", "Severity", CellKind.Text),
+        new("measure", "Measure judged", CellKind.Text),
+        new("value", "Value", CellKind.Number, "0.000"),
+        new("reference_group", "Judged against", CellKind.Text),
+        new("reference_median", "Reference median", CellKind.Number, "0.000"),
+        new("reference_scale", "Reference scale", CellKind.Number, "0.000"),
+        new("reason", "Why", CellKind.Text),
+        new("follow_up", "Suggested follow-up", CellKind.Text),
+    ];
+
+    /// <summary>Every strain-review flag in the review's order.</summary>
+    public static ReportTable Flags(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(FlagColumns);
+        foreach (var f in review.Strains.Flags)
+        {
+            table.Add([f.LotId, f.Season, f.Code, SeverityName(f.Severity), f.Measure, f.Value, f.ReferenceGroup, f.ReferenceMedian, f.ReferenceScale, f.Reason, f.FollowUp]);
+        }
+
+        return table;
+    }
+
+    /// <summary>The follow-up list: flags by severity (likely errors first), then season and lot, with the strain.</summary>
+    public static ReportTable FollowUp(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("severity", "Severity", CellKind.Text),
+            new("lot_id", "Lot", CellKind.Text),
+            new("season", "Season", CellKind.Integer),
+            new("strain", "Strain", CellKind.Text),
+            new("code", "Flag", CellKind.Text),
+            new("reason", "Why", CellKind.Text),
+            new("follow_up", "Suggested follow-up", CellKind.Text),
+            new("value", "Value", CellKind.Number, "0.000"),
+            new("reference_group", "Judged against", CellKind.Text),
+        ]);
+        var ordered = review.Strains.Flags
+            .Select((f, i) => (Flag: f, Index: i))
+            .OrderByDescending(x => x.Flag.Severity).ThenBy(x => x.Index)
+            .Select(x => x.Flag);
+        foreach (var f in ordered)
+        {
+            table.Add([SeverityName(f.Severity), f.LotId ?? "(whole strain)", f.Season, f.Strain, f.Code, f.Reason, f.FollowUp, f.Value, f.ReferenceGroup], highlight: f.Severity == FlagSeverity.LikelyError);
+        }
+
+        return table;
+    }
+
+    /// <summary>Each compared strain's raw median and adjusted conversion at the reference sugar, ranked by adjusted conversion.</summary>
+    public static ReportTable StrainRanking(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var c = review.Strains.Comparison;
+        var table = new ReportTable(
+        [
+            new("rank", "Rank", CellKind.Integer),
+            new("strain", "Strain", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("raw_median", "Raw median " + c.Measure, CellKind.Number, "0.0000"),
+            new("adjusted_factor", "Adjusted factor at " + c.ReferenceBrix.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture) + " °Brix", CellKind.Number, "0.0000"),
+            new("adjusted_low", "Interval low", CellKind.Number, "0.0000"),
+            new("adjusted_high", "Interval high", CellKind.Number, "0.0000"),
+            new("predicted_abv", "Predicted alcohol at the reference sugar (% v/v)", CellKind.Number, "0.00"),
+        ]);
+        var lotsPerStrain = review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.Count(), StringComparer.Ordinal);
+        foreach (var (row, rank) in RankedStrains(review).Select((r, i) => (r, i + 1)))
+        {
+            table.Add([rank, row.Strain, lotsPerStrain.GetValueOrDefault(row.Strain), row.RawMedian, row.Adjusted?.Factor ?? double.NaN, row.Adjusted?.FactorInterval.Low ?? double.NaN, row.Adjusted?.FactorInterval.High ?? double.NaN, row.Adjusted?.PredictedAbv ?? double.NaN]);
+        }
+
+        return table;
+    }
+
+    /// <summary>Compared strains ranked by adjusted conversion (by raw median when the adjusted comparison could not be fitted).</summary>
+    public static IReadOnlyList<(string Strain, double RawMedian, AdjustedStrain? Adjusted)> RankedStrains(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var c = review.Strains.Comparison;
+        var rows = c.Strains.Select((s, i) => (Strain: s, RawMedian: c.RawMedians[i], Adjusted: c.Adjusted.FirstOrDefault(a => a.Strain == s))).ToArray();
+        return rows.OrderByDescending(r => r.Adjusted?.Factor ?? r.RawMedian).ThenBy(r => r.Strain, StringComparer.Ordinal).ToArray();
+    }
+
+    /// <summary>Pairwise Hodges–Lehmann shifts with Holm-adjusted p-values.</summary>
+    public static ReportTable PairwiseShifts(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("first", "First strain", CellKind.Text),
+            new("second", "Second strain", CellKind.Text),
+            new("shift", "Shift, first − second (% v/v per °Brix)", CellKind.Number, "+0.0000;-0.0000;0.0000"),
+            new("shift_low", "Interval low", CellKind.Number, "+0.0000;-0.0000;0.0000"),
+            new("shift_high", "Interval high", CellKind.Number, "+0.0000;-0.0000;0.0000"),
+            new("p", "Mann–Whitney p", CellKind.Number, "0.0000"),
+            new("holm_p", "Holm-adjusted p", CellKind.Number, "0.0000"),
+        ]);
+        foreach (var p in review.Strains.Comparison.Pairs)
+        {
+            table.Add([p.First, p.Second, p.Shift, p.Interval.Low, p.Interval.High, p.P, p.HolmP], highlight: p.HolmP < 0.05);
+        }
+
+        return table;
+    }
+
+    /// <summary>Adjusted differences in alcohol at the same starting sugar (and vessel mix).</summary>
+    public static ReportTable AdjustedDifferences(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("first", "First strain", CellKind.Text),
+            new("second", "Second strain", CellKind.Text),
+            new("abv_difference", "Alcohol difference, first − second (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("low", "Interval low", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("high", "Interval high", CellKind.Number, "+0.00;-0.00;0.00"),
+        ]);
+        foreach (var d in review.Strains.Comparison.AdjustedDifferences)
+        {
+            table.Add([d.First, d.Second, d.AbvDifference, d.Interval.Low, d.Interval.High], highlight: d.Interval.IsDefined && (d.Interval.Low > 0 || d.Interval.High < 0));
+        }
+
+        return table;
     }
 
     /// <summary>Columns of data/intake-issues.csv.</summary>

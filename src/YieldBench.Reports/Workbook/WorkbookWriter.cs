@@ -4,6 +4,7 @@ using DocumentFormat.OpenXml.Packaging;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
+using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Output;
@@ -26,6 +27,24 @@ public static class WorkbookWriter
 
         /// <summary>Every lot.</summary>
         public const string Lots = "Lots";
+
+        /// <summary>The strain comparison.</summary>
+        public const string StrainComparison = "Strain comparison";
+
+        /// <summary>Flagged lots by severity with reasons and follow-ups.</summary>
+        public const string FollowUp = "Follow-up";
+
+        /// <summary>One sheet per grouping of the strain review, in report order.</summary>
+        public static IReadOnlyList<(string Grouping, string Sheet)> Groupings { get; } =
+        [
+            (Core.Review.Strains.Groupings.Strain, "By strain"),
+            (Core.Review.Strains.Groupings.Vessel, "By vessel"),
+            (Core.Review.Strains.Groupings.SugarBand, "By sugar band"),
+            (Core.Review.Strains.Groupings.Variety, "By variety"),
+            (Core.Review.Strains.Groupings.Season, "By season"),
+            (Core.Review.Strains.Groupings.StrainByVessel, "Strain by vessel"),
+            (Core.Review.Strains.Groupings.StrainBySeason, "Strain by season"),
+        ];
 
         /// <summary>House factor backtest and recommendation.</summary>
         public const string HouseFactor = "House factor";
@@ -77,6 +96,20 @@ public static class WorkbookWriter
             var lots = wb.Worksheets.Add(Sheets.Lots);
             var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
             pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
+
+            foreach (var (grouping, sheetName) in Sheets.Groupings)
+            {
+                var sheet = wb.Worksheets.Add(sheetName);
+                var placedGroups = SheetLayout.WriteTable(sheet, ReviewTables.Groups(review, grouping, withNote: true));
+                pictureRows[sheetName] = placedGroups.LastRow + 2;
+            }
+
+            var comparison = wb.Worksheets.Add(Sheets.StrainComparison);
+            pictureRows[Sheets.StrainComparison] = WriteComparison(comparison, review);
+
+            var followUp = wb.Worksheets.Add(Sheets.FollowUp);
+            var placedFlags = WriteFollowUp(followUp, review);
+            pictureRows[Sheets.FollowUp] = placedFlags + 2;
 
             var house = wb.Worksheets.Add(Sheets.HouseFactor);
             pictureRows[Sheets.HouseFactor] = WriteHouseFactor(house, review);
@@ -223,15 +256,35 @@ public static class WorkbookWriter
         Pair(ws, ref r, "Seasons", review.Inputs.Seasons.Count == 0 ? "none" : string.Join(", ", review.Inputs.Seasons));
         Pair(ws, ref r, "Fermentation logs", review.Inputs.Logs.Count);
         r++;
-        SheetLayout.SetHeading(ws.Cell(r++, 1), "Strains", 13);
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Strains ranked by conversion adjusted for starting sugar", 13);
         SheetLayout.SetText(ws.Cell(r, 1), "Strain");
-        SheetLayout.SetText(ws.Cell(r, 2), "Lots");
-        ws.Range(r, 1, r, 2).Style.Font.Bold = true;
+        SheetLayout.SetText(ws.Cell(r, 2), "Adjusted factor (% v/v per °Brix)");
+        SheetLayout.SetText(ws.Cell(r, 3), "Interval low");
+        SheetLayout.SetText(ws.Cell(r, 4), "Interval high");
+        ws.Range(r, 1, r, 4).Style.Font.Bold = true;
+        ws.Range(r, 1, r, 4).Style.Alignment.WrapText = true;
         r++;
-        foreach (var g in review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal).OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal))
+        foreach (var (strain, raw, adjusted) in ReviewTables.RankedStrains(review))
         {
-            SheetLayout.SetText(ws.Cell(r, 1), g.Key);
-            ws.Cell(r, 2).SetValue(g.Count());
+            SheetLayout.SetText(ws.Cell(r, 1), strain);
+            foreach (var (col, v) in new[] { (2, adjusted?.Factor ?? raw), (3, adjusted?.FactorInterval.Low ?? double.NaN), (4, adjusted?.FactorInterval.High ?? double.NaN) })
+            {
+                if (double.IsFinite(v))
+                {
+                    ws.Cell(r, col).SetValue(v);
+                    ws.Cell(r, col).Style.NumberFormat.Format = "0.0000";
+                }
+            }
+
+            r++;
+        }
+
+        foreach (var sentence in review.Strains.Comparison.Sentences.Take(3))
+        {
+            SheetLayout.SetText(ws.Cell(r, 1), sentence);
+            ws.Cell(r, 1).Style.Alignment.WrapText = true;
+            ws.Range(r, 1, r, 4).Merge();
+            ws.Row(r).Height = 45;
             r++;
         }
 
@@ -262,8 +315,18 @@ public static class WorkbookWriter
 
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
-        int flagged = review.Lots.Count(l => ReviewTables.LotFlags(review, l).Count > 0);
+        int flagged = review.Lots.Count(l => ReviewTables.IsFlagged(review, l));
         Pair(ws, ref r, "Flagged lots (highlighted on Lots)", flagged);
+        foreach (var severity in new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note })
+        {
+            int n = review.Lots.Count(l => ReviewTables.LotSeverity(review, l) == severity);
+            Pair(ws, ref r, "  worst flag: " + ReviewTables.SeverityName(severity) + " (see Follow-up)", n);
+        }
+
+        if (review.Kinetics is { } k)
+        {
+            Pair(ws, ref r, "  with a kinetics flag (see Kinetics)", k.Lots.Count(x => x.Flagged));
+        }
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Cautions", 13);
         foreach (var caution in ReportTexts.Cautions)
@@ -274,6 +337,50 @@ public static class WorkbookWriter
             ws.Row(r).Height = 48;
             r++;
         }
+    }
+
+    private static int WriteComparison(IXLWorksheet ws, ReviewResult review)
+    {
+        var c = review.Strains.Comparison;
+        int r = 1;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Strain comparison on " + c.Measure, 13);
+        foreach (var sentence in c.Sentences)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), sentence);
+        }
+
+        var kw = c.KruskalWallis;
+        SheetLayout.SetText(ws.Cell(r++, 1), string.Create(
+            CultureInfo.InvariantCulture,
+            $"Kruskal–Wallis across {c.Strains.Count} strains: H = {kw.H:0.00}, {kw.DegreesOfFreedom} degrees of freedom, p = {kw.P:0.0000}, {kw.N} lots.{(kw.Note is null ? string.Empty : " " + kw.Note)}"));
+        if (c.RankingsDisagree)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), "Raw medians and the adjusted comparison put a different strain first: the raw ranking is confounded with starting sugar (or vessel).");
+            ws.Cell(r - 1, 1).Style.Font.Bold = true;
+        }
+
+        r++;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Strains ranked by adjusted conversion" + (c.AdjustedForVessel ? " (adjusted for starting sugar and vessel)" : " (adjusted for starting sugar)"), 12);
+        var ranking = SheetLayout.WriteTable(ws, ReviewTables.StrainRanking(review), r, 1, freezeAndFilter: false);
+        r = ranking.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Adjusted differences in alcohol at the same starting sugar (shaded: interval excludes 0)", 12);
+        var diffs = SheetLayout.WriteTable(ws, ReviewTables.AdjustedDifferences(review), r, 1, freezeAndFilter: false);
+        r = diffs.LastRow + 2;
+        SheetLayout.SetHeading(ws.Cell(r++, 1), "Pairwise Hodges–Lehmann shifts of the raw factor (shaded: Holm-adjusted p below 0.05)", 12);
+        var pairs = SheetLayout.WriteTable(ws, ReviewTables.PairwiseShifts(review), r, 1, freezeAndFilter: false);
+        r = pairs.LastRow + 2;
+        foreach (var note in review.Strains.Notes)
+        {
+            SheetLayout.SetText(ws.Cell(r++, 1), note);
+        }
+
+        return r + 1;
+    }
+
+    private static int WriteFollowUp(IXLWorksheet ws, ReviewResult review)
+    {
+        var placed = SheetLayout.WriteTable(ws, ReviewTables.FollowUp(review));
+        return placed.LastRow;
     }
 
     private static int WriteHouseFactor(IXLWorksheet ws, ReviewResult review)

@@ -80,4 +80,69 @@ public class StallTests
         Assert.Equal(Day0.AddDays(5), byStrict.Sluggish!.End);
         Assert.Equal(1.5, byStrict.Sluggish.MeanRateBrixPerDay, 9);
     }
+
+    [Fact]
+    public void A_stall_after_which_the_log_goes_dry_is_reported_but_not_counted_as_stuck()
+    {
+        // Given a ferment that stalls near 6 °Brix for four days and then finishes
+        var log = Regular("T-101", 2025, Day0, 24.0, [24.0, 18.0, 12.0, 6.0, 5.9, 5.9, 5.8, 5.8, 3.0, 0.5, -1.0]);
+
+        // When analysed
+        var review = KineticsAnalysis.Run([Lot()], [log], KineticsSettings.Default);
+
+        // Then the stall (day 3 → day 6, 0.2 °Brix in 72 h) is reported as stalled-then-finished, not stuck; dryness is
+        // reached (hand-worked) 0.5 / 1.5 × 24 h = 8 h after day 9, i.e. 10 October 16:00
+        var lot = Assert.Single(review.Lots);
+        Assert.Null(lot.Stuck);
+        Assert.Equal(Day0.AddDays(6), lot.StalledThenFinished!.End);
+        Assert.Contains("stalled-then-finished", lot.Flags);
+        Assert.DoesNotContain("stuck", lot.Flags);
+        var f = Assert.Single(review.Findings, x => x.Code == "stalled-then-finished");
+        Assert.Contains("then the log reached 0.0 °Brix afterwards (2025-10-10 16:00), so it is not counted as stuck.", f.Message);
+    }
+
+    [Fact]
+    public void A_stall_is_not_stuck_when_the_lab_found_the_wine_dry()
+    {
+        // Given a log that ends on a stall at 1.5 °Brix, and a lab residual sugar of 2.1 g/L (within the 4 g/L dry limit)
+        var log = Regular("T-101", 2025, Day0, 24.0, [24.0, 18.0, 11.0, 5.0, 1.6, 1.5, 1.5, 1.5, 1.5]);
+
+        // When analysed
+        var lot = Assert.Single(KineticsAnalysis.Run([Lot(residualSugarGl: 2.1)], [log], KineticsSettings.Default).Lots);
+
+        // Then the lot finished after the log ended: not stuck
+        Assert.Null(lot.Stuck);
+        Assert.NotNull(lot.StalledThenFinished);
+    }
+
+    [Fact]
+    public void Whites_are_judged_sluggish_against_their_own_lower_rate()
+    {
+        // Given a slow ferment running at 0.8 °Brix/day above 5 °Brix, after a peak of 2 °Brix/day
+        var brix = new[] { 22.0, 21.0, 19.0, 17.0, 16.2, 15.4, 14.6, 13.8 };
+        var settings = KineticsSettings.Default;
+
+        // When analysed as a red and as a white lot
+        var red = Assert.Single(KineticsAnalysis.Run([Lot(startingBrix: 22)], [Regular("T-101", 2025, Day0, 24.0, brix)], settings).Lots);
+        var white = Assert.Single(KineticsAnalysis.Run([Lot(colour: YieldBench.Core.Lots.WineColour.White, startingBrix: 22)], [Regular("T-101", 2025, Day0, 24.0, brix)], settings).Lots);
+
+        // Then only the red is sluggish: 0.8 is under the red threshold of 1.0 but not under the white 0.5
+        Assert.Equal(0.8, red.Sluggish!.MeanRateBrixPerDay, 9);
+        Assert.Null(white.Sluggish);
+        Assert.Equal(0.5, settings.SluggishRateFor(YieldBench.Core.Lots.WineColour.Rose));
+    }
+
+    [Fact]
+    public void The_climb_to_full_speed_is_not_judged_as_sluggish()
+    {
+        // Given a red lot that leaves the lag slowly (0.75 °Brix/day for two days) before running at 5 °Brix/day
+        var log = Regular("T-101", 2025, Day0, 24.0, [24.0, 22.9, 22.15, 21.4, 16.4, 11.4, 6.4, 1.4, -1.0]);
+
+        // When analysed
+        var lot = Assert.Single(KineticsAnalysis.Run([Lot()], [log], KineticsSettings.Default).Lots);
+
+        // Then the slow stretch before the fastest point is not called sluggish
+        Assert.Null(lot.Sluggish);
+        Assert.Empty(lot.Flags);
+    }
 }

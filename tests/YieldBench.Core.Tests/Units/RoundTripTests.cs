@@ -43,7 +43,7 @@ public class RoundTripTests
             var first = SugarReading.From(SugarReading.FromBrix(brix).In(from), from);
             var second = SugarReading.From(first.In(via), via);
 
-            // Then it lands on the starting °Brix within 1e-8 (the g/L inverse is bisected to 1e-10 °Brix)
+            // Then it lands on the starting °Brix within 1e-8 (the g/L inverse is solved to 1e-11 g/L)
             Assert.Equal(brix, second.Brix, 1e-8);
         }
     }

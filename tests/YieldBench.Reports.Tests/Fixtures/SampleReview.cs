@@ -6,7 +6,8 @@ namespace YieldBench.Reports.Tests.Fixtures;
 
 /// <summary>
 /// A small invented review: three invented strains (codes ST-A, ST-B, ST-C) over two seasons, one lot with text that
-/// a spreadsheet would run as a formula, one lot with an unrecorded-water look, and two intake issues.
+/// a spreadsheet would run as a formula, a lot above the theoretical yield (L010), a lot not dry (L005), and two
+/// intake issues.
 /// </summary>
 internal static class SampleReview
 {
@@ -28,6 +29,13 @@ internal static class SampleReview
                     n++;
                     double brix = 21.5 + (0.5 * k) + (0.3 * s) + (0.2 * (season - 2024));
                     double abv = Math.Round((factor[s] * brix) + ((rng.NextDouble() - 0.5) * 0.3), 2);
+
+                    // Planted: lot L010 holds more alcohol than its sugar can give; lot L005 did not finish.
+                    if (n == 10)
+                    {
+                        abv = Math.Round(0.68 * brix, 2);
+                    }
+
                     lots.Add(new Lot
                     {
                         LotId = $"L{n:000}",
@@ -37,7 +45,7 @@ internal static class SampleReview
                         FinalAlcohol = AlcoholContent.FromPercentVolume(abv),
                         Vessel = k % 2 == 0 ? "tank" : "barrel",
                         Variety = s == 2 ? "Pinot noir" : "Chardonnay",
-                        ResidualSugarGl = 1.5,
+                        ResidualSugarGl = n == 5 ? 12.0 : 1.5,
                         YanMgL = 180 + (10 * k),
                         Notes = n == 3 ? InjectedNote : (n == 4 ? "-5 L topped" : null),
                         Source = new SourceRef($"lots-{season}.csv", null, k + 2 + (6 * s)),

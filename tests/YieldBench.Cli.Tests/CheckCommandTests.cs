@@ -1,0 +1,90 @@
+using System.Text;
+
+namespace YieldBench.Cli.Tests;
+
+public sealed class CheckCommandTests : IDisposable
+{
+    private readonly string _dir = Path.Combine(Path.GetTempPath(), "yieldbench-check-" + Guid.NewGuid().ToString("N"));
+
+    public CheckCommandTests() => Directory.CreateDirectory(_dir);
+
+    public void Dispose() => Directory.Delete(_dir, recursive: true);
+
+    private (int Code, string Out, string Error) Run(params string[] args)
+    {
+        var output = new StringWriter();
+        var error = new StringWriter();
+        int code = YieldBenchApp.Run(args, new CliContext(output, error, IsTerminal: false, _dir));
+        return (code, output.ToString().Replace("\r\n", "\n", StringComparison.Ordinal), error.ToString());
+    }
+
+    private void Write(string name, string text) => File.WriteAllText(Path.Combine(_dir, name), text, new UTF8Encoding(false));
+
+    [Fact]
+    public void Check_of_clean_inputs_prints_mapping_and_accounting_and_exits_zero()
+    {
+        // Given a clean lots file
+        Write("lots-2023.csv", "Lot,Yeast,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\nA-02,QX-9,23.0,13.5\n");
+
+        // When checked
+        var (code, output, _) = Run("check", "lots-2023.csv");
+
+        // Then it exits 0 and says what went where
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Contains("  lots-2023.csv         Brix           starting_sugar  °Brix", output, StringComparison.Ordinal);
+        Assert.Contains("  lots-2023.csv         lots  2          2          0              0         0      0        yes", output, StringComparison.Ordinal);
+        Assert.Contains("Issues: 0 (0 errors, 0 warnings)", output, StringComparison.Ordinal);
+        Assert.EndsWith("Result: 2 lots (2023), 0 fermentation logs with 0 readings; 0 rows left out.\n", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_exits_one_and_names_the_place_when_a_row_is_left_out()
+    {
+        Write("lots-2023.csv", "Lot,Yeast,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\nA-02,QX-9,abc,13.5\n");
+        var (code, output, _) = Run("check", "lots-2023.csv");
+        Assert.Equal(ExitCodes.InputProblems, code);
+        Assert.Contains(
+            "  error   lots-2023.csv, row 3, column \"Brix\", value \"abc\": not-a-number: starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).\n",
+            output,
+            StringComparison.Ordinal);
+        Assert.Contains("1 rows left out.", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_writes_every_issue_to_a_csv_file_when_asked()
+    {
+        Write("lots-2023.csv", "Lot,Yeast,Brix,Alcohol % v/v,pH\nA-01,QX-7,24.0,14.0,\"3,4\"\nA-02,QX-9,abc,13.5,3.3\n");
+        var (code, _, _) = Run("check", "lots-2023.csv", "--issues-csv", "issues.csv");
+        Assert.Equal(ExitCodes.InputProblems, code);
+        Assert.Equal(
+            "file,sheet,row,column,value,code,severity,message\n" +
+            "lots-2023.csv,,3,Brix,abc,not-a-number,error,\"starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).\"\n",
+            File.ReadAllText(Path.Combine(_dir, "issues.csv")));
+    }
+
+    [Fact]
+    public void Check_passes_column_mappings_and_the_season_to_intake()
+    {
+        Write("lots.csv", "Lot,Levure,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\n");
+        var (code, output, _) = Run("check", "lots.csv", "--column", "strain=Levure", "--season", "2021");
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Contains("Result: 1 lots (2021)", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_without_inputs_is_a_usage_error()
+    {
+        var (code, _, error) = Run("check");
+        Assert.Equal(ExitCodes.Usage, code);
+        Assert.Contains("Run 'yieldbench --help' for usage.", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_refuses_a_season_that_is_not_a_year()
+    {
+        Write("lots.csv", "Lot,Yeast,Brix,ABV\nA-01,QX-7,24.0,14.0\n");
+        var (code, _, error) = Run("check", "lots.csv", "--season", "23");
+        Assert.Equal(ExitCodes.Usage, code);
+        Assert.Equal("check: --season 23 is not a four-digit year between 1900 and 2100.\n", error.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+}
