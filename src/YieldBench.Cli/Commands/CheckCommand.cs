@@ -29,6 +29,14 @@ internal static class CheckCommand
                 return ExitCodes.Usage;
             }
 
+            string? csvPath = parseResult.GetValue(issuesCsv);
+            string? csvFull = csvPath is null ? null : Path.GetFullPath(csvPath, context.WorkingDirectory);
+            if (csvFull is not null && Path.GetDirectoryName(csvFull) is { } csvDir && !Directory.Exists(csvDir))
+            {
+                context.Error.WriteLine($"check: the folder of --issues-csv '{csvPath}' does not exist.");
+                return ExitCodes.Usage;
+            }
+
             var options = new IntakeOptions
             {
                 ColumnMappings = parseResult.GetValue(columns) ?? [],
@@ -38,10 +46,9 @@ internal static class CheckCommand
             };
             var set = IntakeReader.Read(parseResult.GetValue(inputs) ?? [], options);
             IntakeReport.WriteText(set, context.Out);
-            if (parseResult.GetValue(issuesCsv) is { } csvPath)
+            if (csvFull is not null)
             {
-                string full = Path.GetFullPath(csvPath, context.WorkingDirectory);
-                using var writer = new StreamWriter(full, append: false, new UTF8Encoding(false));
+                using var writer = new StreamWriter(csvFull, append: false, new UTF8Encoding(false));
                 IntakeReport.WriteIssuesCsv(set, writer);
                 context.Out.WriteLine($"Issues written to {csvPath}.");
             }

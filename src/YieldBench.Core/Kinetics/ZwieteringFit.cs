@@ -170,7 +170,7 @@ public static class ZwieteringFit
             var solver = new LevenbergMarquardtMinimizer(maximumIterations: 500);
             result = solver.FindMinimum(objective, Vector<double>.Build.DenseOfArray([a0, mu0, lambda0]), lower, upper);
         }
-        catch (Exception ex) when (ex is ArithmeticException or ArgumentException or InvalidOperationException or MaximumIterationsException)
+        catch (Exception ex) when (ex is ArithmeticException or ArgumentException or InvalidOperationException or MathNet.Numerics.NonConvergenceException or OptimizationException)
         {
             return new(null, $"no sigmoid fit: the solver failed ({ex.GetType().Name})");
         }

@@ -301,7 +301,7 @@ public static class TheilSen
         /// Half-width within which two slopes count as tied: comparisons of y − t·x are trusted only when t is farther
         /// than this from a slope, given the keys' magnitude and the smallest gap between distinct x values.
         /// </summary>
-        private double TieWidth(double slope) => 1e-13 * (maxAbsY + (Math.Abs(slope) * maxAbsX)) / minGapX;
+        private double TieWidth(double slope) => Math.Max(1e-13 * (maxAbsY + (Math.Abs(slope) * maxAbsX)) / minGapX, 1e-300);
 
         private double? SampledSlopeInside(double lo, double hi)
         {
@@ -313,7 +313,7 @@ public static class TheilSen
             }
 
             int b = a;
-            while (b < sample.Length && sample[b] < hi)
+            while (b < sample.Length && sample[b] <= hi)
             {
                 b++;
             }

@@ -27,3 +27,5 @@ p("holm", p.adjust(c(0.01, 0.04, 0.03, 0.005, NA), "holm"))
 f <- rlm(stack.loss ~ ., stackloss)
 p("rlm coef", coef(f)); p("rlm se", summary(f)$coefficients[, 2]); p("rlm scale", f$s)
 x <- chem; p("chem mean abs dev about median x sqrt(pi/2)", mean(abs(x - median(x))) * sqrt(pi / 2))
+f2 <- rlm(breaks ~ wool + tension, warpbreaks)   # factor (dummy) columns: woolB, tensionM, tensionH
+p("rlm warpbreaks coef", coef(f2)); p("rlm warpbreaks se", summary(f2)$coefficients[, 2]); p("rlm warpbreaks scale", f2$s)

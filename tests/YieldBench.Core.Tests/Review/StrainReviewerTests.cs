@@ -290,6 +290,51 @@ public class StrainReviewerTests
         Assert.Contains("Fewer than two strains have enough lots to compare.", review.Comparison.Sentences);
     }
 
+    [Fact]
+    public void A_lot_without_a_factor_is_counted_as_missing_and_named_in_the_notes()
+    {
+        // Given six ordinary lots and one whose recorded starting sugar is below zero °Brix (a finished-wine reading)
+        var lots = Enumerable.Range(0, 6).Select(i => LotBuilder.Convert(LotBuilder.Lot("G" + i, 2024, "Y-05", 23 + (0.1 * i), 13.5 + (0.05 * i)))).ToList();
+        lots.Add(LotBuilder.Convert(LotBuilder.Lot("G6", 2024, "Y-05", -1.5, 13.2)));
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the strain row counts it as missing, the notes say so, and it has no score or flag
+        var row = review.Groups.Single(g => g.Grouping == Groupings.Strain && g.Measure == ConversionMeasure.AbvPerBrix);
+        Assert.Equal((6, 1), (row.N, row.Missing));
+        Assert.Equal("1 lot(s) without a value", row.Note);
+        Assert.Contains(review.Notes, n => n.StartsWith("1 lot(s) have no conversion factor", StringComparison.Ordinal));
+        Assert.DoesNotContain(review.Scores, s => s.LotKey == "2024/G6");
+    }
+
+    [Fact]
+    public void Transposed_digits_are_found_on_the_scale_the_sugar_was_recorded_in()
+    {
+        // Given 30 ordinary lots and one recorded as SG 1.130 whose alcohol fits SG 1.103 (about 24.2 °Brix)
+        var random = new Random(8);
+        var lots = Enumerable.Range(0, 30).Select(i =>
+        {
+            double brix = Math.Round(23.5 + LotBuilder.Normal(random), 1);
+            return LotBuilder.Convert(LotBuilder.Lot("H" + i, 2024, "Y-05", brix, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * brix) + (0.1 * LotBuilder.Normal(random)), 2)));
+        }).ToList();
+        double trueBrix = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.103).Brix;
+        var odd = LotBuilder.Lot("H-SG", 2024, "Y-05", 20, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * trueBrix), 2)) with
+        {
+            StartingSugar = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.130),
+            StartingSugarScale = YieldBench.Core.Units.SugarScale.SpecificGravity,
+        };
+        lots.Add(LotBuilder.Convert(odd));
+
+        // When reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then the swap is found in SG digits
+        var flag = review.Flags.Single(f => f.LotKey == "2024/H-SG" && f.Code == FlagCodes.PossibleTransposedDigits);
+        Assert.StartsWith("the starting sugar was recorded as 1.130 SG; with two neighbouring digits swapped (1.103 SG)", flag.Reason, StringComparison.Ordinal);
+        Assert.Equal(trueBrix, flag.ReferenceMedian, 6);
+    }
+
     [Theory]
     [InlineData(20.99, "<21")]
     [InlineData(21.0, "21–23")]

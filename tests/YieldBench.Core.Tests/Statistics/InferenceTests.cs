@@ -199,6 +199,25 @@ public class InferenceTests
         }
     }
 
+    [Theory]
+    [InlineData(0.0, 0.0)]
+    [InlineData(2.0, 1.0)]
+    public void Theil_Sen_selection_handles_points_that_all_lie_on_one_line(double slope, double intercept)
+    {
+        // Given 2,000 points exactly on y = intercept + slope·x with tied x (every pairwise slope equal)
+        var x = Enumerable.Range(0, 2000).Select(i => 18 + ((i % 97) * 0.1)).ToArray();
+        var y = x.Select(v => intercept + (slope * v)).ToArray();
+
+        // When fitted by the selection path
+        var line = TheilSen.Fit(x, y);
+
+        // Then the slope and both interval ends are that slope
+        Assert.Equal(slope, line.Slope, 9);
+        Assert.Equal(slope, line.SlopeInterval.Low, 9);
+        Assert.Equal(slope, line.SlopeInterval.High, 9);
+        Assert.Equal(intercept, line.Intercept, 9);
+    }
+
     [Fact]
     public void Theil_Sen_is_undefined_when_every_x_is_equal()
     {
@@ -241,6 +260,62 @@ public class InferenceTests
 
         Assert.Equal(2.44071379481, fit.Scale, 8);
         Assert.True(fit.Converged);
+    }
+
+    [Fact]
+    public void Huber_regression_with_factor_columns_matches_MASS_rlm_on_warpbreaks()
+    {
+        // Given warpbreaks (R datasets) with 0/1 columns for wool B and tensions M and H (baselines wool A, tension L)
+        int[] breaks =
+        [
+            26, 30, 54, 25, 70, 52, 51, 26, 67, 18, 21, 29, 17, 12, 18, 35, 30, 36, 36, 21, 24, 18, 10, 43, 28, 15, 26,
+            27, 14, 29, 19, 29, 31, 41, 20, 44, 42, 26, 19, 16, 39, 28, 21, 39, 29, 20, 21, 24, 17, 13, 15, 15, 16, 28,
+        ];
+        var design = new double[54, 4];
+        for (int i = 0; i < 54; i++)
+        {
+            int tension = (i % 27) / 9;
+            design[i, 0] = 1;
+            design[i, 1] = i >= 27 ? 1 : 0;
+            design[i, 2] = tension == 1 ? 1 : 0;
+            design[i, 3] = tension == 2 ? 1 : 0;
+        }
+
+        // When fitted
+        var fit = RobustRegression.Huber(design, breaks.Select(b => (double)b).ToArray(), ["(Intercept)", "woolB", "tensionM", "tensionH"]);
+
+        // Then MASS 7.3-58.2 rlm(breaks ~ wool + tension, warpbreaks) and its summary() standard errors
+        double[] coef = [36.7141494014, -4.3015268261, -8.2508848449, -13.1453479013];
+        double[] se = [3.15973231731, 3.15973231731, 3.86986595059, 3.86986595059];
+        for (int j = 0; j < 4; j++)
+        {
+            Assert.Equal(coef[j], fit.Coefficients[j], 7);
+            Assert.Equal(se[j], fit.StandardErrors[j], 7);
+        }
+
+        Assert.Equal(11.1193476649, fit.Scale, 7);
+
+        // And a linear combination reproduces a coefficient and its standard error
+        var (estimate, error, interval) = fit.Combination([0, 0, 0, 1]);
+        Assert.Equal(fit.Coefficients[3], estimate, 12);
+        Assert.Equal(fit.StandardErrors[3], error, 12);
+        Assert.Equal(fit.Intervals[3], interval);
+    }
+
+    [Fact]
+    public void Huber_regression_refuses_a_rank_deficient_design_with_a_message()
+    {
+        // Given two identical columns
+        var design = new double[6, 2];
+        for (int i = 0; i < 6; i++)
+        {
+            design[i, 0] = 1;
+            design[i, 1] = 1;
+        }
+
+        // Then the fit is refused, naming the cause
+        var e = Assert.Throws<ArgumentException>(() => RobustRegression.Huber(design, [1, 2, 3, 4, 5, 6], ["a", "b"]));
+        Assert.StartsWith("The design matrix is rank-deficient (an empty factor level or collinear columns).", e.Message, StringComparison.Ordinal);
     }
 
     [Fact]
