@@ -91,7 +91,13 @@ internal static partial class SourceFiles
                 return Refused;
             }
 
-            errorCells = FindErrorCells(fullPath);
+            errorCells = FindErrorCells(fullPath, out string? damage);
+            if (damage is not null)
+            {
+                // The spreadsheet reader stops quietly at damaged XML; a half-read sheet must not pass as whole.
+                sink.Error(file, null, null, null, null, "corrupt-workbook", IntakeMessages.CorruptWorkbook(damage));
+                return Refused;
+            }
         }
 
         var sheets = new List<RawSheet>();
@@ -216,9 +222,11 @@ internal static partial class SourceFiles
     /// Cells of type "e" (formula errors) in each worksheet of an .xlsx, by sheet name. The spreadsheet reader shows
     /// them as empty; this pass lets us report them instead.
     /// </summary>
-    private static Dictionary<string, List<(int Row, int Col, string Text)>> FindErrorCells(string fullPath)
+    private static Dictionary<string, List<(int Row, int Col, string Text)>> FindErrorCells(string fullPath, out string? damage)
     {
         var result = new Dictionary<string, List<(int, int, string)>>(StringComparer.Ordinal);
+        damage = null;
+        string part = "xl/workbook.xml";
         try
         {
             using var fs = OpenShared(fullPath);
@@ -262,6 +270,7 @@ internal static partial class SourceFiles
 
             foreach (var (name, path) in sheets)
             {
+                part = $"sheet '{name}'";
                 var entry = zip.GetEntry(path);
                 if (entry is null)
                 {
@@ -303,9 +312,13 @@ internal static partial class SourceFiles
                 }
             }
         }
-        catch (XmlException)
+        catch (XmlException ex)
         {
-            // A damaged sheet is reported by the main reader; this pass only adds detail when it can.
+            damage = $"the XML of {part} is damaged: {ex.Message.TrimEnd('.')}";
+        }
+        catch (InvalidDataException ex)
+        {
+            damage = $"{part} cannot be decompressed: {ex.Message.TrimEnd('.')}";
         }
 
         return result;

@@ -53,6 +53,23 @@ internal static class Corpus
             E("password-protected.xls", null, null, null, null, "password-protected", "The workbook is protected by a password, so it cannot be read. Save a copy without the password and give that."), 0),
         new("encrypted xlsx package", f => f.Bytes("encrypted.xlsx", EncryptedPackageLookalike()),
             E("encrypted.xlsx", null, null, null, null, "password-protected", "The workbook is protected by a password, so it cannot be read. Save a copy without the password and give that."), 0),
+        new("random bytes named xls", f => f.Bytes("random.xls", [0x13, 0x37, 0x42, 0x99, 0x01, 0x02, 0x03, 0x04, 0x05]),
+            E("random.xls", null, null, null, null, "not-a-workbook", "The workbook could not be read (it is not an Excel 97–2003 file). Open it in a spreadsheet program and save it again as .xlsx."), 0),
+        new("compound file that is no workbook", f => f.Bytes("not-excel.xls", EmptyCompoundFile()),
+            E("not-excel.xls", null, null, null, null, "corrupt-workbook", "The workbook could not be read (Invalid byte order specified in header). Open it in a spreadsheet program and save it again as .xlsx."), 0),
+        new("workbook with damaged sheet XML", f =>
+            {
+                Workbooks.WriteRaw(f.PathOf("damaged.xlsx"), ("Lots", [["Lot", "Yeast", "Brix", "ABV"], ["A-01", "QX-7", 24.0, 14.0]]));
+                using (var zip = System.IO.Compression.ZipFile.Open(f.PathOf("damaged.xlsx"), System.IO.Compression.ZipArchiveMode.Update))
+                {
+                    zip.GetEntry("xl/worksheets/sheet1.xml")!.Delete();
+                    using var w = new StreamWriter(zip.CreateEntry("xl/worksheets/sheet1.xml").Open());
+                    w.Write("<worksheet><sheetData><row r=\"1\"><c r=\"A1\" t=\"inlineStr\"><is><t>Lot</t></is>");
+                }
+
+                return "damaged.xlsx";
+            },
+            E("damaged.xlsx", null, null, null, null, "corrupt-workbook", "The workbook could not be read (the XML of sheet 'Lots' is damaged: Unexpected end of file has occurred. The following elements are not closed: c, row, sheetData, worksheet. Line 1, position 77). Open it in a spreadsheet program and save it again as .xlsx."), 0),
         new("file over the size limit", f => f.Text("big.csv", Csv(Header, GoodRow)),
             E("big.csv", null, null, null, "61", "file-too-large", "The file is 61 bytes, above the limit of 40 bytes. Split it (for example one file per season)."), 0, new IntakeOptions { MaxFileBytes = 40 }),
         new("sheet over the row limit", f => f.Text("long.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,24.0,14.0", "A-03,2023,QX-7,24.0,14.0")),
@@ -132,6 +149,14 @@ f.Text("log-2023.csv", Csv("Lot,Date,Brix", "Z-99,2023-03-02,24.0", "Z-99,2023-0
     /// The opening bytes of an OLE compound file whose directory names an "EncryptedPackage" stream, which is how an
     /// encrypted .xlsx is stored (MS-OFFCRYPTO 2.3.4.1). Only the structure intake looks at is made.
     /// </summary>
+    private static byte[] EmptyCompoundFile()
+    {
+        var bytes = new byte[1536];
+        byte[] magic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
+        magic.CopyTo(bytes, 0);
+        return bytes;
+    }
+
     private static byte[] EncryptedPackageLookalike()
     {
         var bytes = new byte[2048];
