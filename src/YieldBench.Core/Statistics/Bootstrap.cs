@@ -9,7 +9,7 @@ namespace YieldBench.Core.Statistics;
 public static class Bootstrap
 {
     /// <summary>Largest n resampled literally; above it each resample's median is drawn from its exact law.</summary>
-    public const int DirectLimit = 1000;
+    public const int DirectLimit = 50;
 
     /// <summary>Fewest resamples accepted: below about 1,000 the tail quantiles of a 95 % interval wander visibly.</summary>
     public const int MinResamples = 200;

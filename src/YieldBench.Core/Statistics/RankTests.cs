@@ -32,7 +32,8 @@ public static class RankTests
 {
     /// <summary>
     /// Samples this small (both sizes) and free of ties get exact p-values and interval ranks for Mann–Whitney;
-    /// larger or tied samples use the normal approximation (the rule of scipy 1.10's <c>method="auto"</c>).
+    /// larger or tied samples use the normal approximation. (scipy 1.10's <c>method="auto"</c> goes exact when either
+    /// sample has at most 8 values; requiring both keeps the exact table small for a strain of thousands of lots.)
     /// </summary>
     public const int ExactLimit = 8;
 
@@ -88,7 +89,8 @@ public static class RankTests
     /// <summary>
     /// Two-sided Mann–Whitney U test. Exact when both samples have at most <see cref="ExactLimit"/> values and there
     /// are no ties: p = min(1, 2·P(U ≥ max(U, nm − U))). Otherwise z = (|U − nm/2| − ½)/σ with
-    /// σ² = nm/12 · [(N + 1) − Σ(t³ − t)/(N(N − 1))], p = 2(1 − Φ(z)) (as scipy 1.10 <c>mannwhitneyu</c>).
+    /// σ² = nm/12 · [(N + 1) − Σ(t³ − t)/(N(N − 1))], p = 2(1 − Φ(z)) (as scipy 1.10 <c>mannwhitneyu</c> with
+    /// <c>method="asymptotic"</c>).
     /// </summary>
     public static MannWhitneyResult MannWhitney(IReadOnlyList<double> a, IReadOnlyList<double> b)
     {

@@ -67,8 +67,18 @@ public static class TheilSen
             return new TheilSenLine(double.NaN, double.NaN, Interval.Undefined(level), n, 0, n < 2 ? "fewer than two points" : "all x values are equal");
         }
 
-        Func<long, double> select = n <= DirectLimit ? DirectSelector(x, y) : new SlopeSelector(x, y, seed).Select;
-        double slope = pairs % 2 == 1 ? select((pairs + 1) / 2) : 0.5 * (select(pairs / 2) + select((pairs / 2) + 1));
+        Func<long, long, double[]> select = n <= DirectLimit ? DirectSelector(x, y) : new SlopeSelector(x, y, seed).SelectRange;
+        double slope;
+        if (pairs % 2 == 1)
+        {
+            slope = select((pairs + 1) / 2, (pairs + 1) / 2)[0];
+        }
+        else
+        {
+            var middle = select(pairs / 2, (pairs / 2) + 1);
+            slope = 0.5 * (middle[0] + middle[1]);
+        }
+
 
         double sigmaSquared = ((double)n * (n - 1) * ((2.0 * n) + 5) - TieTerm(xs) - TieTerm(Descriptive.ToSortedArray(y))) / 18.0;
         double z = Normal.InvCDF(0, 1, (1 - level) / 2);
@@ -77,12 +87,12 @@ public static class TheilSen
         // 0-based ranks as scipy: upper = min(round((N − zσ)/2), N − 1), lower = max(round((N + zσ)/2) − 1, 0), z < 0.
         long upper = Math.Min((long)Math.Round((pairs - (z * sigma)) / 2.0, MidpointRounding.ToEven), pairs - 1);
         long lower = Math.Max((long)Math.Round((pairs + (z * sigma)) / 2.0, MidpointRounding.ToEven) - 1, 0);
-        var interval = new Interval(select(lower + 1), select(upper + 1), level);
+        var interval = new Interval(select(lower + 1, lower + 1)[0], select(upper + 1, upper + 1)[0], level);
         double intercept = Descriptive.Median(y) - (slope * Descriptive.MedianOfSorted(xs));
         return new TheilSenLine(slope, intercept, interval, n, pairs, null);
     }
 
-    private static Func<long, double> DirectSelector(IReadOnlyList<double> x, IReadOnlyList<double> y)
+    private static Func<long, long, double[]> DirectSelector(IReadOnlyList<double> x, IReadOnlyList<double> y)
     {
         int n = x.Count;
         var slopes = new List<double>();
@@ -98,7 +108,7 @@ public static class TheilSen
         }
 
         slopes.Sort();
-        return k => slopes[(int)(k - 1)];
+        return (kLow, kHigh) => slopes.GetRange((int)(kLow - 1), (int)(kHigh - kLow + 1)).ToArray();
     }
 
     private static long TiedPairs(double[] sorted)
@@ -156,6 +166,7 @@ public static class TheilSen
         private readonly double maxAbsY;
         private readonly double maxAbsX;
         private readonly double minGapX;
+        private (double Lo, long CLo, double Hi, long CHi)? extremes;
 
         public SlopeSelector(IReadOnlyList<double> x, IReadOnlyList<double> y, int seed)
         {
@@ -228,39 +239,31 @@ public static class TheilSen
         }
 
         /// <summary>The k-th smallest slope, 1 ≤ k ≤ pairs.</summary>
-        public double Select(long k)
+        public double Select(long k) => SelectRange(k, k)[0];
+
+        /// <summary>The kLow-th to kHigh-th smallest slopes (a short run of ranks, e.g. the two middle ones), ascending.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+        public double[] SelectRange(long kLow, long kHigh)
         {
             int n = px.Length;
             long window = Math.Max(4L * n, 4096);
+            var (lo, cLo, hi, cHi) = Extremes();
 
-            // Bracket: CountAtOrBelow(lo) < k ≤ CountAtOrBelow(hi). The extremes get a margin, and their counts are
-            // taken rather than assumed, because comparing y − t·x for t within rounding noise of a slope is unreliable.
-            double spanMargin = 1e-6 * Math.Max(1, Math.Max(Math.Abs(minSlope), Math.Abs(maxSlope)));
-            double lo = minSlope - spanMargin, hi = maxSlope + spanMargin;
-            long cLo = CountAtOrBelow(lo), cHi = CountAtOrBelow(hi);
-            while (cLo >= k || cHi < k)
-            {
-                spanMargin *= 1000;
-                lo = minSlope - spanMargin;
-                hi = maxSlope + spanMargin;
-                cLo = CountAtOrBelow(lo);
-                cHi = CountAtOrBelow(hi);
-            }
-
-            double q = (double)k / pairs;
+            // Bracket: CountAtOrBelow(lo) < kLow and kHigh ≤ CountAtOrBelow(hi).
+            double q = (double)kLow / pairs;
             double spread = 4 * Math.Sqrt(q * (1 - q) / sample.Length) + (2.0 / sample.Length);
-            TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Max(0, q - spread)), k, ref lo, ref cLo, ref hi, ref cHi);
-            TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Min(1, q + spread)), k, ref lo, ref cLo, ref hi, ref cHi);
+            TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Max(0, q - spread)), kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
+            TryNarrow(Descriptive.QuantileOfSorted(sample, Math.Min(1, q + spread)), kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
 
             for (int round = 0; round < 200 && cHi - cLo > window; round++)
             {
                 long before = cHi - cLo;
-                double fraction = (double)(k - cLo) / (cHi - cLo);
+                double fraction = (((kLow + kHigh) / 2.0) - cLo) / (cHi - cLo);
                 double half = (double)(window / 4) / (cHi - cLo);
                 double t1 = lo + ((hi - lo) * Math.Max(0, fraction - half));
                 double t2 = lo + ((hi - lo) * Math.Min(1, fraction + half));
-                TryNarrow(t1, k, ref lo, ref cLo, ref hi, ref cHi);
-                TryNarrow(t2, k, ref lo, ref cLo, ref hi, ref cHi);
+                TryNarrow(t1, kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
+                TryNarrow(t2, kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
                 if (cHi - cLo > before / 2)
                 {
                     // Interpolation stalls on a point mass of tied slopes (common with rounded data): probe just
@@ -268,13 +271,13 @@ public static class TheilSen
                     if (SampledSlopeInside(lo, hi) is { } tied)
                     {
                         double eps = TieWidth(tied);
-                        TryNarrow(tied - eps, k, ref lo, ref cLo, ref hi, ref cHi);
-                        TryNarrow(tied + eps, k, ref lo, ref cLo, ref hi, ref cHi);
+                        TryNarrow(tied - eps, kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
+                        TryNarrow(tied + eps, kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
                     }
 
                     if (cHi - cLo > before / 2)
                     {
-                        TryNarrow(lo + ((hi - lo) / 2), k, ref lo, ref cLo, ref hi, ref cHi);
+                        TryNarrow(lo + ((hi - lo) / 2), kLow, kHigh, ref lo, ref cLo, ref hi, ref cHi);
                     }
                 }
 
@@ -284,17 +287,49 @@ public static class TheilSen
                 }
             }
 
+            var result = new double[kHigh - kLow + 1];
             if (cHi - cLo > window)
             {
                 // Every slope left in the bracket lies within the tie width: they are one tied value; take one of them.
                 var any = ListBetween(lo, hi, limit: 1);
-                return any.Count > 0 ? any[0] : hi;
+                Array.Fill(result, any.Count > 0 ? any[0] : hi);
+                return result;
             }
 
             var inside = ListBetween(lo, hi, limit: int.MaxValue);
             inside.Sort();
-            long rank = k - cLo;
-            return inside[(int)Math.Clamp(rank - 1, 0, inside.Count - 1)];
+            for (long k = kLow; k <= kHigh; k++)
+            {
+                result[k - kLow] = inside[(int)Math.Clamp(k - cLo - 1, 0, inside.Count - 1)];
+            }
+
+            return result;
+        }
+
+        /// <summary>
+        /// A bracket holding every slope: the extremes with a margin, their counts taken rather than assumed, because
+        /// comparing y − t·x for t within rounding noise of a slope is unreliable. Computed once.
+        /// </summary>
+        private (double Lo, long CLo, double Hi, long CHi) Extremes()
+        {
+            if (extremes is { } known)
+            {
+                return known;
+            }
+
+            double spanMargin = 1e-6 * Math.Max(1, Math.Max(Math.Abs(minSlope), Math.Abs(maxSlope)));
+            while (true)
+            {
+                double lo = minSlope - spanMargin, hi = maxSlope + spanMargin;
+                long cLo = CountAtOrBelow(lo), cHi = CountAtOrBelow(hi);
+                if (cLo == 0 && cHi == pairs)
+                {
+                    extremes = (lo, cLo, hi, cHi);
+                    return extremes.Value;
+                }
+
+                spanMargin *= 1000;
+            }
         }
 
         /// <summary>
@@ -321,7 +356,7 @@ public static class TheilSen
             return b > a ? sample[a + ((b - a) / 2)] : null;
         }
 
-        private void TryNarrow(double t, long k, ref double lo, ref long cLo, ref double hi, ref long cHi)
+        private void TryNarrow(double t, long kLow, long kHigh, ref double lo, ref long cLo, ref double hi, ref long cHi)
         {
             if (!(t > lo && t < hi))
             {
@@ -329,16 +364,18 @@ public static class TheilSen
             }
 
             long c = CountAtOrBelow(t);
-            if (c < k)
+            if (c < kLow)
             {
                 lo = t;
                 cLo = c;
             }
-            else
+            else if (c >= kHigh)
             {
                 hi = t;
                 cHi = c;
             }
+
+            // Otherwise t falls between the wanted ranks; the bracket is already about as tight as they allow.
         }
 
         /// <summary>Number of pairs with distinct x whose slope is at most t.</summary>

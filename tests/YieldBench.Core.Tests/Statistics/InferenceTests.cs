@@ -197,6 +197,10 @@ public class InferenceTests
         {
             Assert.Equal(all[(int)(k - 1)], selector.Select(k));
         }
+
+        // And a run of two ranks (the two middle slopes) comes out in one selection
+        long mid = all.Count / 2;
+        Assert.Equal([all[(int)mid - 1], all[(int)mid]], selector.SelectRange(mid, mid + 1));
     }
 
     [Theory]

@@ -94,7 +94,7 @@ internal static class Comparison
         var finished = lots.Where(l => l.IsDry && double.IsFinite(l.Brix) && double.IsFinite(l.Abv)).ToArray();
 
         // An M-estimator bounds the pull of odd alcohol values but not of odd starting sugars (leverage), so lots
-        // whose factor is outside the plausible band or above the Gay-Lussac yield — near-certain recording errors —
+        // whose factor is outside the plausible band or above the Gay-Lussac yield — near-certain data-entry errors —
         // stay out of the regression.
         var used = finished.Where(l => l.Factor >= settings.PlausibleFactorLow && l.Factor <= settings.PlausibleFactorHigh && !(l.Conversion.GayLussacEfficiency > 1.0)).ToArray();
         if (used.Length < finished.Length)

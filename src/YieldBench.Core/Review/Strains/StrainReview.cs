@@ -204,7 +204,7 @@ public enum FlagSeverity
     /// <summary>Worth checking the records or the lab.</summary>
     Check,
 
-    /// <summary>Very likely a recording or measurement error.</summary>
+    /// <summary>Very likely a data-entry or measurement error.</summary>
     LikelyError,
 }
 
