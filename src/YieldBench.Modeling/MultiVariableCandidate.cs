@@ -97,11 +97,14 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
 
     private sealed class Predictor(MLContext ml, ITransformer model, FeaturePlan plan, double centre) : IAbvPredictor
     {
-        public double PredictAbv(PredictionInput input)
+        public double PredictAbv(PredictionInput input) => PredictAbv([input])[0];
+
+        public IReadOnlyList<double> PredictAbv(IReadOnlyList<PredictionInput> inputs)
         {
-            // A one-row data view costs far less than building a prediction engine, which compiles code per model.
-            var scored = model.Transform(ml.Data.LoadFromEnumerable(new[] { plan.Row(input, 0f) }));
-            return centre + scored.GetColumn<float>("Score").First();
+            // One data view for the whole batch: building a prediction engine compiles code per model, and each
+            // transform has a fixed cost, so the backtest predicts a fold at a time.
+            var scored = model.Transform(ml.Data.LoadFromEnumerable(inputs.Select(x => plan.Row(x, 0f)).ToArray()));
+            return scored.GetColumn<float>("Score").Select(s => centre + s).ToArray();
         }
 
         public SugarLines? AsSugarLines() => null;

@@ -164,7 +164,7 @@ public sealed class PlanCommandTests : IDisposable
     {
         var (code, _, err) = Plan("--factor-file", "x.json", "--factor", "0.6");
         Assert.Equal(2, code);
-        Assert.StartsWith("plan: give either --factor-file", err, StringComparison.Ordinal);
+        Assert.StartsWith("plan: give one of --factor-file", err, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -219,6 +219,36 @@ public sealed class PlanCommandTests : IDisposable
         var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
         Assert.Equal(0, code);
         Assert.Contains("Strain SX-77 is not in the review; the line for all strains is used.", output, StringComparison.Ordinal);
-        Assert.Contains("Predictor for all strains: ", output, StringComparison.Ordinal);
+        Assert.Contains("Predictor for all strains (candidate ", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Lot_files_given_directly_are_analysed_first_and_the_answer_names_its_basis()
+    {
+        // Given the repository's demo lot files
+        string? root = AppContext.BaseDirectory;
+        while (root is not null && !File.Exists(Path.Combine(root, "YieldBench.sln")))
+        {
+            root = Path.GetDirectoryName(root);
+        }
+
+        Assert.NotNull(root);
+        string demo = Path.Combine(root!, "demo-data");
+
+        // When the planner is given them with a strain and a sugar
+        var (code, output, _) = Plan("--lots", demo, "--sugar", "24");
+
+        // Then it chooses a house factor from them and answers with intervals
+        Assert.Equal(0, code);
+        Assert.Matches(@"chosen by the one-standard-error rule on leave-one-season-out, .* from \d+ lots read now\.", output);
+        Assert.Matches(@"Starting sugar 24\.0 °Brix: predicted alcohol \d+\.\d\d % v/v; 80 % interval ", output);
+    }
+
+    [Fact]
+    public void Giving_a_factor_and_lot_files_together_is_a_usage_error()
+    {
+        var (code, _, err) = Plan("--lots", "x.csv", "--factor", "0.6");
+        Assert.Equal(2, code);
+        Assert.StartsWith("plan: give one of --factor-file", err, StringComparison.Ordinal);
     }
 }

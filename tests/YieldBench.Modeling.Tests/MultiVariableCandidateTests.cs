@@ -132,4 +132,20 @@ public class MultiVariableCandidateTests
         Assert.NotNull(review.Planning);
         Assert.NotEqual("multi-variable", review.Planning!.Pooled.CandidateId);
     }
+
+    [Fact]
+    public void Predicting_a_batch_gives_the_same_numbers_as_predicting_one_lot_at_a_time()
+    {
+        // Given a trained model and 30 lots
+        var lots = Lots(7, 60);
+        var model = new MultiVariableCandidate().Train(lots, 7);
+        var inputs = lots.Take(30).Select(PredictionInput.From).ToArray();
+
+        // When they are predicted as one batch and one by one
+        var batch = model.PredictAbv(inputs);
+        var single = inputs.Select(model.PredictAbv).ToArray();
+
+        // Then the numbers are identical and in input order
+        Assert.Equal(single, batch);
+    }
 }

@@ -1,7 +1,11 @@
 using System.CommandLine;
 using System.Globalization;
+using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
 using YieldBench.Core.Units;
+using YieldBench.Intake;
 using YieldBench.Reports;
 
 namespace YieldBench.Cli.Commands;
@@ -27,6 +31,7 @@ internal static class PlanCommand
     {
         var factorFile = new Option<string?>("--factor-file") { Description = "A house-factor.json written by 'yieldbench review' (its data folder)." };
         var factor = new Option<string?>("--factor") { Description = "A conversion factor to use instead, % v/v per °Brix (no intervals: none are known)." };
+        var lotFiles = new Option<string[]>("--lots") { Description = "Or lot files or folders of past seasons: the house factor is chosen from them first (as 'yieldbench review' does, without the multi-variable model).", AllowMultipleArgumentsPerToken = true };
         var strain = new Option<string?>("--strain") { Description = "Yeast strain code (default: the pooled line for all strains)." };
         var sugar = new Option<string?>("--sugar") { Description = "Starting must sugar, on the scale given by --scale." };
         var scale = new Option<string>("--scale") { Description = "Scale of --sugar: brix, sg, baume, oechsle or gl.", DefaultValueFactory = _ => "brix" };
@@ -34,7 +39,7 @@ internal static class PlanCommand
         var confidence = new Option<string[]>("--confidence") { Description = "Confidence(s) that the wine stays at or under the target, 0.5–0.99 (default 0.8 and 0.95).", AllowMultipleArgumentsPerToken = true };
         var volume = new Option<string?>("--volume") { Description = "Must volume, L: with --sugar and one --target, the water add-back is worked out." };
         var command = new Command("plan", "Plan potential alcohol: predicted alcohol for a must, the highest harvest sugar under a target, or the water add-back to reach it.");
-        foreach (var o in new Option[] { factorFile, factor, strain, sugar, scale, target, confidence, volume })
+        foreach (var o in new Option[] { factorFile, factor, lotFiles, strain, sugar, scale, target, confidence, volume })
         {
             command.Options.Add(o);
         }
@@ -44,6 +49,7 @@ internal static class PlanCommand
             var request = new Request(
                 parse.GetValue(factorFile),
                 parse.GetValue(factor),
+                parse.GetValue(lotFiles) ?? [],
                 parse.GetValue(strain),
                 parse.GetValue(sugar),
                 parse.GetValue(scale) ?? "brix",
@@ -55,20 +61,31 @@ internal static class PlanCommand
         return command;
     }
 
-    private sealed record Request(string? FactorFile, string? Factor, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume);
+    private sealed record Request(string? FactorFile, string? Factor, string[] LotFiles, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume);
 
     private static int Run(Request r, CliContext context)
     {
         var err = context.Error;
-        if ((r.FactorFile is null) == (r.Factor is null))
+        int sources = (r.FactorFile is null ? 0 : 1) + (r.Factor is null ? 0 : 1) + (r.LotFiles.Length == 0 ? 0 : 1);
+        if (sources != 1)
         {
-            err.WriteLine("plan: give either --factor-file (a house-factor.json from 'yieldbench review') or --factor (a conversion factor, % v/v per °Brix), not both and not neither.");
+            err.WriteLine("plan: give one of --factor-file (a house-factor.json from 'yieldbench review'), --factor (a conversion factor, % v/v per °Brix) or --lots (lot files of past seasons), not several and not none.");
             return ExitCodes.Usage;
         }
 
         PlanningModel model;
         string? regime = null;
-        if (r.FactorFile is not null)
+        if (r.LotFiles.Length > 0)
+        {
+            var fromLots = FromLots(r.LotFiles, context);
+            if (fromLots is null)
+            {
+                return ExitCodes.InputProblems;
+            }
+
+            model = fromLots;
+        }
+        else if (r.FactorFile is not null)
         {
             string path = Path.IsPathRooted(r.FactorFile) ? r.FactorFile : Path.Combine(context.WorkingDirectory, r.FactorFile);
             var file = HouseFactorJson.ReadFile(path);
@@ -187,7 +204,7 @@ internal static class PlanCommand
 
         var o = context.Out;
         var line = model.For(r.Strain);
-        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null ? "." : $" (label tolerance scored: {regime})."));
+        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null || model.Basis.Contains(regime, StringComparison.Ordinal) ? "." : $" (label tolerance scored: {regime})."));
         if (r.Strain is not null && !model.Knows(r.Strain))
         {
             o.WriteLine(model.Strains.Count == 0
@@ -196,7 +213,8 @@ internal static class PlanCommand
         }
 
         string who = line.Strain == "*" ? "all strains" : $"strain {line.Strain}";
-        o.WriteLine($"Predictor for {who}: {Describe(line)}; intervals from {line.ErrorBasis}.");
+        string from = line.CandidateId == "given" ? string.Empty : $" (candidate {line.CandidateId})";
+        o.WriteLine($"Predictor for {who}{from}: {Describe(line)}; intervals from {line.ErrorBasis}.");
         o.WriteLine();
 
         // With no held-out errors only the central (50 %) answer exists, so that is the default then.
@@ -249,6 +267,27 @@ internal static class PlanCommand
         }
 
         return ExitCodes.Success;
+    }
+
+    private static PlanningModel? FromLots(string[] paths, CliContext context)
+    {
+        var set = IntakeReader.Read(paths, new IntakeOptions { WorkingDirectory = context.WorkingDirectory });
+        int leftOut = set.Issues.Count(i => i.Severity == IssueSeverity.Error);
+        if (set.Issues.Count > 0)
+        {
+            context.Error.WriteLine($"plan: {set.Issues.Count} intake issue(s), {leftOut} of them leaving a row or file out; run 'yieldbench check' or 'yieldbench review' on the same files to see each with its fix.");
+        }
+
+        var settings = new ReviewSettings();
+        var lots = set.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
+        var review = HouseFactorAnalysis.Run(lots, settings.HouseFactor, [], settings.Seed);
+        if (review.Planning is null)
+        {
+            context.Error.WriteLine("plan: no house factor could be chosen from these lots. " + string.Join(" ", review.Explanation));
+            return null;
+        }
+
+        return review.Planning with { Basis = review.Planning.Basis + $", from {lots.Length} lots read now" };
     }
 
     private static string Describe(PlanningLine l) => l.Curve == SugarCurve.EuConvention

@@ -109,9 +109,10 @@ public static class Backtest
             }
 
             var model = candidate.Train(train, seed);
-            foreach (int i in test)
+            var batch = model.PredictAbv(test.Select(i => PredictionInput.From(lots[i])).ToArray());
+            for (int j = 0; j < test.Count; j++)
             {
-                predicted[i] = model.PredictAbv(PredictionInput.From(lots[i]));
+                predicted[test[j]] = batch[j];
             }
         }
 

@@ -242,7 +242,8 @@ public static class HouseFactorAnalysis
                 useOwn ? $"this strain's {own.Length} lots held out by {schemeText}" : $"all {all.Length} lots held out by {schemeText} (this strain has {own.Length}, too few for intervals of its own)"));
         }
 
-        return new PlanningModel(pooled, lines, $"{basis.Name} chosen by the one-standard-error rule on {schemeText}, scored against {settings.Regime.Name}");
+        string ownChoice = byStrain.Count > 0 ? $"; strains with {settings.MinimumLotsPerStrain} or more lots use their own choice by the same rule" : string.Empty;
+        return new PlanningModel(pooled, lines, $"{basis.Name} chosen by the one-standard-error rule on {schemeText}, scored against {settings.Regime.Name}{ownChoice}");
     }
 
     private static PlanningLine Line(string strain, CandidateResult source, StrainLine line, double[] errors, string basis)

@@ -40,6 +40,9 @@ public interface IAbvPredictor
     /// <summary>Predicted final alcohol, % v/v.</summary>
     double PredictAbv(PredictionInput input);
 
+    /// <summary>Predicted final alcohol of several lots, % v/v, in input order (models with a per-call cost batch this).</summary>
+    IReadOnlyList<double> PredictAbv(IReadOnlyList<PredictionInput> inputs) => inputs.Select(PredictAbv).ToArray();
+
     /// <summary>
     /// The predictor as per-strain curves over starting °Brix, when it is one (the planner can use only such a
     /// predictor, as it asks for strain and sugar alone); null for models that use more inputs.
