@@ -22,7 +22,8 @@ internal sealed record RunResult(
     double TotalSeconds,
     long ProcessPeakWorkingSetBytes,
     int IntakeIssues,
-    int IntakeErrors);
+    int IntakeErrors,
+    string? Unfinished = null);
 
 /// <summary>
 /// The scale benchmark. <c>run</c> (the default) measures the demo review and generated data sets of 1k, 10k and 100k
@@ -49,7 +50,7 @@ internal static class BenchProgram
             case "run":
                 return Orchestrate(opts, output, error);
             default:
-                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR]");
+                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR] [--budget SECONDS per run] [--skip-demo yes]");
                 return 2;
         }
     }
@@ -72,6 +73,7 @@ internal static class BenchProgram
         string work = Path.GetFullPath(opts.GetValueOrDefault("work", Path.Combine(Path.GetTempPath(), "yieldbench-bench")));
         string results = Path.GetFullPath(opts.GetValueOrDefault("results", Path.Combine(root, "bench", "results")));
         string demo = Path.GetFullPath(opts.GetValueOrDefault("demo", Path.Combine(root, "demo-data")));
+        var budget = TimeSpan.FromSeconds(double.Parse(opts.GetValueOrDefault("budget", "1800"), Inv));
         Directory.CreateDirectory(work);
         Directory.CreateDirectory(results);
         var runs = new List<RunResult>();
@@ -79,7 +81,7 @@ internal static class BenchProgram
         if (opts.GetValueOrDefault("skip-demo", "no") != "yes")
         {
             output.WriteLine($"bench: demo review of {demo}");
-            runs.Add(Child<RunResult>(["measure", "--name", "demo", "--inputs", demo, "--out", Path.Combine(work, "demo-report")], error));
+            runs.Add(Measured(["measure", "--name", "demo", "--inputs", demo, "--out", Path.Combine(work, "demo-report")], budget, error));
         }
 
         foreach (int n in sizes)
@@ -88,7 +90,7 @@ internal static class BenchProgram
             output.WriteLine($"bench: generating {n} lots into {dir}");
             var gen = Child<GenResult>(["gen", "--lots", n.ToString(Inv), "--dir", dir], error);
             output.WriteLine($"bench: measuring {n} lots ({gen.Readings} log readings, {gen.Bytes / 1e6:0.0} MB of CSV)");
-            runs.Add(Child<RunResult>(["measure", "--name", $"{n} lots", "--inputs", string.Join('|', gen.LogsPaths.Prepend(gen.LotsPath)), "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], error));
+            runs.Add(Measured(["measure", "--name", $"{n} lots", "--inputs", string.Join('|', gen.LogsPaths.Prepend(gen.LotsPath)), "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], budget, error));
         }
 
         string table = Table(runs);
@@ -122,7 +124,7 @@ internal static class BenchProgram
                 : [p])
             .ToArray();
         long inputBytes = files.Sum(f => new FileInfo(f).Length);
-        using var clock = new StageClock();
+        using var clock = new StageClock { Finished = t => Console.Error.WriteLine("stage\t" + JsonSerializer.Serialize(t, Json)) };
 
         // The floor: only reading the bytes and finding the line ends, nothing parsed.
         clock.Start("read floor (bytes only)");
@@ -134,6 +136,7 @@ internal static class BenchProgram
 
         GC.KeepAlive(lines);
 
+        Console.Error.WriteLine("start\t" + JsonSerializer.Serialize(new RunResult(name, lots, readings, 0, inputBytes, genSeconds, [], 0, 0, 0, 0), Json));
         clock.Start("read (intake)");
         var set = IntakeReader.Read(inputs, new IntakeOptions());
         var review = ReviewRunner.Run(set, new ReviewSettings(), "bench", null, clock);
@@ -157,7 +160,70 @@ internal static class BenchProgram
             set.Issues.Count(i => i.Severity == YieldBench.Core.Lots.IssueSeverity.Error));
     }
 
-    private static T Child<T>(string[] args, TextWriter error)
+    /// <summary>
+    /// Runs a measuring child with a time budget. Finished stages arrive on its standard error as they end; when the
+    /// budget runs out the child is stopped and the run is reported with the stages it finished and the one it was in.
+    /// </summary>
+    private static RunResult Measured(string[] args, TimeSpan budget, TextWriter error)
+    {
+        var start = ChildStart(args);
+        start.RedirectStandardError = true;
+        using var p = Process.Start(start) ?? throw new InvalidOperationException("Could not start the child process.");
+        var stages = new List<StageTiming>();
+        RunResult? header = null;
+        var stderrDone = new ManualResetEventSlim();
+        p.ErrorDataReceived += (_, e) =>
+        {
+            if (e.Data is null)
+            {
+                stderrDone.Set();
+                return;
+            }
+
+            var parts = e.Data.Split('\t', 2);
+            lock (stages)
+            {
+                if (parts.Length == 2 && parts[0] == "stage")
+                {
+                    stages.Add(JsonSerializer.Deserialize<StageTiming>(parts[1], Json)!);
+                    error.WriteLine($"bench:   {stages[^1].Name}: {stages[^1].Seconds:0.00} s wall, {stages[^1].CpuSeconds:0.00} s CPU");
+                }
+                else if (parts.Length == 2 && parts[0] == "start")
+                {
+                    header = JsonSerializer.Deserialize<RunResult>(parts[1], Json);
+                }
+                else
+                {
+                    error.WriteLine(e.Data);
+                }
+            }
+        };
+        p.BeginErrorReadLine();
+        var stdout = p.StandardOutput.ReadToEndAsync();
+        if (!p.WaitForExit(budget))
+        {
+            p.Kill(entireProcessTree: true);
+            p.WaitForExit();
+            stderrDone.Wait(TimeSpan.FromSeconds(10));
+            lock (stages)
+            {
+                var h = header ?? throw new InvalidOperationException("The child reported nothing before its budget ran out.");
+                string unfinished = string.Create(Inv, $"stopped after {budget.TotalMinutes:0} min; finished {stages.Count} stage(s)");
+                return h with { Stages = stages.ToArray(), TotalSeconds = stages.Skip(1).Sum(s => s.Seconds), Unfinished = unfinished };
+            }
+        }
+
+        p.WaitForExit();
+        if (p.ExitCode != 0)
+        {
+            throw new InvalidOperationException($"child '{string.Join(' ', args)}' exited {p.ExitCode}");
+        }
+
+        string last = stdout.Result.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1];
+        return JsonSerializer.Deserialize<RunResult>(last, Json) ?? throw new InvalidOperationException("Empty child result.");
+    }
+
+    private static ProcessStartInfo ChildStart(string[] args)
     {
         string host = Environment.ProcessPath ?? throw new InvalidOperationException("No process path.");
         var start = new ProcessStartInfo(host) { RedirectStandardOutput = true, UseShellExecute = false };
@@ -171,6 +237,12 @@ internal static class BenchProgram
             start.ArgumentList.Add(a);
         }
 
+        return start;
+    }
+
+    private static T Child<T>(string[] args, TextWriter error)
+    {
+        var start = ChildStart(args);
         using var p = Process.Start(start) ?? throw new InvalidOperationException("Could not start the child process.");
         string text = p.StandardOutput.ReadToEnd();
         p.WaitForExit();
@@ -196,7 +268,7 @@ internal static class BenchProgram
                 sb.Append(Inv, $"| {r.Name} | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | {s.Name} | {s.Seconds:0.000} | {s.CpuSeconds:0.000} | {s.PeakWorkingSetBytes / 1048576.0:0} | {s.AllocatedBytes / 1048576.0:0} |\n");
             }
 
-            sb.Append(Inv, $"| **{r.Name}** | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | **total (read to workbook)**; intake issues {r.IntakeIssues} ({r.IntakeErrors} errors) | **{r.TotalSeconds:0.000}** | {r.Stages.Skip(1).Sum(s => s.CpuSeconds):0.000} | **{r.ProcessPeakWorkingSetBytes / 1048576.0:0}** (process peak) | |\n");
+            sb.Append(Inv, $"| **{r.Name}** | {r.Lots} | {r.LogReadingsUsed} | {r.InputBytes / 1e6:0.00} | **total (read to workbook)**; intake issues {r.IntakeIssues} ({r.IntakeErrors} errors){(r.Unfinished is null ? "" : "; NOT FINISHED: " + r.Unfinished)} | **{r.TotalSeconds:0.000}** | {r.Stages.Skip(1).Sum(s => s.CpuSeconds):0.000} | **{r.ProcessPeakWorkingSetBytes / 1048576.0:0}** (process peak) | |\n");
         }
 
         return sb.ToString();

@@ -23,7 +23,13 @@ internal sealed class StageClock : IProgress<string>, IDisposable
     private long _allocatedAtStart;
     private TimeSpan _cpuAtStart;
 
+    /// <summary>Told each stage as it ends (the child prints it, so a run stopped for time still reports its finished stages).</summary>
+    public Action<StageTiming>? Finished { get; init; }
+
     public IReadOnlyList<StageTiming> Stages => _stages;
+
+    /// <summary>The stage running now, or null.</summary>
+    public string? Current => _current;
 
     public void Report(string value) => Start(value);
 
@@ -48,7 +54,9 @@ internal sealed class StageClock : IProgress<string>, IDisposable
 
         _watch.Stop();
         long peak = _memory.TakeWindowPeak();
-        _stages.Add(new StageTiming(_current, _watch.Elapsed.TotalSeconds, peak, GC.GetTotalAllocatedBytes(false) - _allocatedAtStart, (Cpu() - _cpuAtStart).TotalSeconds));
+        var timing = new StageTiming(_current, _watch.Elapsed.TotalSeconds, peak, GC.GetTotalAllocatedBytes(false) - _allocatedAtStart, (Cpu() - _cpuAtStart).TotalSeconds);
+        _stages.Add(timing);
+        Finished?.Invoke(timing);
         _current = null;
     }
 

@@ -13,7 +13,7 @@ public sealed class DemoReviewFixture : IDisposable
         Root = Path.Combine(Path.GetTempPath(), "yb-cli-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(Root);
         (ExitCode, Out, Error) = Cli.Run(Root, "review", "--out", "first");
-        (SecondExitCode, _, _) = Cli.Run(Root, "review", "--out", "second", "--quiet");
+        (SecondExitCode, QuietOut, _) = Cli.Run(Root, "review", "--out", "second", "--quiet");
     }
 
     public string Root { get; }
@@ -27,6 +27,8 @@ public sealed class DemoReviewFixture : IDisposable
     public int SecondExitCode { get; }
 
     public string Out { get; }
+
+    public string QuietOut { get; }
 
     public string Error { get; }
 
@@ -84,6 +86,26 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         Assert.Contains("review: workbook", lines);
         Assert.DoesNotContain('\r', demo.Out.Replace("\r\n", "\n", StringComparison.Ordinal));
         Assert.Equal(0, demo.SecondExitCode);
+        Assert.Equal(string.Empty, demo.QuietOut);
+    }
+
+    [Fact]
+    public void On_a_terminal_progress_rewrites_one_line_and_clears_it_before_the_summary()
+    {
+        // Given a console report on a terminal
+        var output = new StringWriter(CultureInfo.InvariantCulture);
+        var report = new Commands.ConsoleReport(new CliContext(output, TextWriter.Null, IsTerminal: true, "/"), quiet: false);
+
+        // When two stages run and a line is printed
+        report.Stage("reading inputs");
+        report.Stage("charts");
+        report.Line("done");
+
+        // Then each stage overwrote the line in place (carriage return, padding) and the line was cleared first
+        string first = "review: reading inputs…", second = "review: charts…";
+        Assert.Equal(
+            "\r" + first + "\r" + second + new string(' ', first.Length - second.Length) + "\r" + new string(' ', second.Length) + "\rdone" + Environment.NewLine,
+            output.ToString());
     }
 
     [Fact]
@@ -92,7 +114,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         // Given the demo review's folder
         string[] expected =
         [
-            "report.xlsx", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv",
+            "report.xlsx", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv", "data/house-factor.json",
             "charts/alcohol-vs-sugar.png", "charts/factor-by-strain.png", "charts/factor-by-season.png",
             "charts/backtest-error.png", "charts/factor-histogram.png", "charts/kinetics-strain-curves.png", "yieldbench-files.txt",
         ];
@@ -142,6 +164,25 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
     }
 
     [Fact]
+    public void The_house_factor_file_holds_the_recommendation_the_summary_printed()
+    {
+        // Given the demo review's house-factor file
+        using var json = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.First, "data", "house-factor.json")));
+
+        // When its overall recommendation is read
+        var root = json.RootElement;
+        string candidate = root.GetProperty("recommendation").GetProperty("candidate_id").GetString()!;
+        string name = root.GetProperty("candidates").EnumerateArray().First(c => c.GetProperty("id").GetString() == candidate).GetProperty("name").GetString()!;
+
+        // Then it is the candidate the console named, over the demo's 222 lots, and the planner reads it back
+        Assert.Contains("House factor: " + name + ";", demo.Out, StringComparison.Ordinal);
+        Assert.Equal(222, root.GetProperty("lots_used").GetInt32());
+        var file = YieldBench.Reports.HouseFactorJson.ReadFile(Path.Combine(demo.First, "data", "house-factor.json"));
+        Assert.Null(file.Error);
+        Assert.NotNull(file.Model);
+    }
+
+    [Fact]
     public void The_demo_workbook_passes_the_validator()
     {
         // Given the demo review's workbook
@@ -152,10 +193,15 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
             .Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}").ToArray();
         var sheets = doc.WorkbookPart!.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().Select(s => s.Name!.Value!).ToArray();
 
-        // Then there are no errors and the kinetics sheet is present (the demo has logs)
+        // Then there are no errors, the kinetics sheet is present (the demo has logs) and holds its pictures
         Assert.Empty(errors);
         Assert.Contains("Kinetics", sheets);
         Assert.Equal("Overview", sheets[0]);
+        var kineticsSheet = doc.WorkbookPart.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().First(s => s.Name == "Kinetics");
+        var part = (WorksheetPart)doc.WorkbookPart.GetPartById(kineticsSheet.Id!);
+        int pictures = part.DrawingsPart?.WorksheetDrawing?.Descendants<DocumentFormat.OpenXml.Drawing.Spreadsheet.Picture>().Count() ?? 0;
+        int kineticsPngs = Directory.GetFiles(Path.Combine(demo.First, "charts"), "kinetics-*.png").Length;
+        Assert.Equal(kineticsPngs, pictures);
     }
 
     [Fact]

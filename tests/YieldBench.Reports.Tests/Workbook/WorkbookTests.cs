@@ -203,6 +203,70 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
     }
 
     [Fact]
+    public void The_methods_sheet_records_each_input_file_with_its_SHA_256_the_settings_and_the_version()
+    {
+        // Given a workbook of a review of two files
+        var (bytes, _) = Build();
+
+        // When the methods sheet is read
+        var methods = ReadSheet(bytes, "Methods and cautions");
+        var cells = methods.Rows.Cast<DataRow>().SelectMany(r => r.ItemArray).OfType<string>().ToArray();
+
+        // Then each file and its hash are there, with the version, the seed and the cautions
+        Assert.Contains("lots-2024.csv", cells);
+        Assert.Contains(new string('a', 64), cells);
+        Assert.Contains(new string('b', 64), cells);
+        Assert.Contains("YieldBench 9.9.9-test", cells);
+        Assert.Contains("20261", cells);
+        Assert.Contains(cells, c => c.StartsWith("This is an estimate from past lots, not a label statement", StringComparison.Ordinal));
+        Assert.Contains(cells, c => c.Contains("OIV-MA-AS2-02", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void The_overview_counts_lots_issues_and_flags_as_the_review_does()
+    {
+        // Given a workbook of the sample review
+        var review = fixture.Review;
+        var (bytes, _) = Build();
+
+        // When the overview's label/value pairs are read
+        var overview = ReadSheet(bytes, "Overview");
+        var pairs = overview.Rows.Cast<DataRow>()
+            .Where(r => r[0] is string && r[1] is not DBNull)
+            .GroupBy(r => (string)r[0]).ToDictionary(g => g.Key, g => g.First()[1]);
+
+        // Then the counts match the review (36 lots, 1 row left out, 2 issues, the flagged lots)
+        Assert.Equal(36.0, Convert.ToDouble(pairs["Lots used"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(1.0, Convert.ToDouble(pairs["Rows left out (see Intake issues)"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(2.0, Convert.ToDouble(pairs["Intake issues"], System.Globalization.CultureInfo.InvariantCulture));
+        int flagged = review.Lots.Count(l => review.Strains.Flags.Any(f => f.LotKey == l.Lot.Key));
+        Assert.True(flagged >= 2);
+        Assert.Equal((double)flagged, Convert.ToDouble(pairs["Flagged lots (highlighted on Lots)"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal("2024, 2025", pairs["Seasons"]);
+    }
+
+    [Fact]
+    public void Flagged_lots_are_highlighted_on_the_lots_sheet_and_others_are_not()
+    {
+        // Given a picture-free workbook reopened in ClosedXML
+        var review = fixture.Review;
+        var (bytes, _) = Build(pictures: false);
+        using var wb = new XLWorkbook(new MemoryStream(bytes));
+        var lots = wb.Worksheet("Lots");
+
+        // When each row's fill is compared with the strain review's flags
+        for (int row = 2; row <= review.Lots.Count + 1; row++)
+        {
+            string key = lots.Cell(row, 2).GetValue<int>().ToString(System.Globalization.CultureInfo.InvariantCulture) + "/" + lots.Cell(row, 1).GetString();
+            bool flagged = review.Strains.Flags.Any(f => f.LotKey == key);
+            var fill = lots.Cell(row, 1).Style.Fill.BackgroundColor;
+
+            // Then flagged rows carry the highlight colour and the others none
+            Assert.Equal(flagged, fill.HasValue && (fill.Color.R, fill.Color.G, fill.Color.B) == (0xFB, 0xE8, 0xC4));
+        }
+    }
+
+    [Fact]
     public void Column_letters_follow_the_spreadsheet_scheme()
     {
         // Given column numbers
