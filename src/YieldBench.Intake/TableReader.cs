@@ -677,6 +677,25 @@ internal static partial class TableReader
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
         var problem = CellValues.Number(cell, st.Ctx.Sheet.DecimalComma, out value, out var alternative);
         string label = Label(c.Field);
+        if (problem == CellProblem.NotANumber && cell is string text && CellValues.SplitUnit(text) is var (number, unitText))
+        {
+            // "24.5 Bx", "1.4 g/L": the unit written in the cell is accepted only when it is the column's own unit.
+            var inner = CellValues.Number(number, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+            if (inner == CellProblem.None)
+            {
+                if (CellUnitAgrees(c, unitText))
+                {
+                    return true;
+                }
+
+                string columnUnit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : (c.Field.Unit.Length > 0 ? c.Field.Unit : "its held unit");
+                st.Problem(c, cell, "unit-in-cell-differs", IntakeMessages.UnitInCellDiffers(label, unitText, columnUnit), c.Field.Critical);
+                return false;
+            }
+
+            problem = inner;
+        }
+
         switch (problem)
         {
             case CellProblem.None:
@@ -699,6 +718,39 @@ internal static partial class TableReader
                 st.Problem(c, cell, "not-a-number", IntakeMessages.NotANumber(label), c.Field.Critical);
                 return false;
         }
+    }
+
+    /// <summary>True when a unit written after a number in a cell names the unit the column is read in.</summary>
+    private static bool CellUnitAgrees(BoundColumn c, string unitText)
+    {
+        string u = unitText.ToLowerInvariant().Replace("°", "", StringComparison.Ordinal).Replace("º", "", StringComparison.Ordinal)
+            .Replace(" ", "", StringComparison.Ordinal).Replace("é", "e", StringComparison.Ordinal).TrimEnd('.');
+        ColumnUnit? named = u switch
+        {
+            "bx" or "brix" => ColumnUnit.Brix,
+            "sg" => ColumnUnit.SpecificGravity,
+            "oe" or "oechsle" => ColumnUnit.Oechsle,
+            "be" or "baume" => ColumnUnit.Baume,
+            "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
+            "c" => ColumnUnit.Celsius,
+            "f" => ColumnUnit.Fahrenheit,
+            "l" or "lt" or "ltr" or "litres" or "liters" => ColumnUnit.Litre,
+            "hl" => ColumnUnit.Hectolitre,
+            "gal" or "gals" or "gallons" => ColumnUnit.UsGallon,
+            "kg" => ColumnUnit.Kilogram,
+            "lb" or "lbs" => ColumnUnit.Pound,
+            _ => null,
+        };
+        bool gramsPerLitre = u is "g/l" or "gl" or "gpl";
+        return c.Field.Name switch
+        {
+            "residual_sugar_gl" or "ta_gl" => gramsPerLitre,
+            "yan_mgl" => u is "mg/l" or "mgn/l" or "ppm" or "mgl",
+            _ when c.Field.Kind == FieldKind.Sugar => gramsPerLitre ? c.Unit == ColumnUnit.SugarGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Alcohol => gramsPerLitre ? c.Unit == ColumnUnit.AlcoholGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Mass && u == "g" => c.Unit == ColumnUnit.Gram,
+            _ => named is not null && named == c.Unit,
+        };
     }
 
     private static string Shown(double raw, ColumnUnit unit) =>
