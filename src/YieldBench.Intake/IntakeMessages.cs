@@ -55,6 +55,12 @@ public static class IntakeMessages
     internal static string NoTableInFile(int rowsSearched) =>
         $"No header row naming lot or log columns was found (searched the first {rowsSearched.ToString(Inv)} rows of every sheet). Add a header row such as the one in 'yieldbench template', or map your headers with --column FIELD=HEADER.";
 
+    internal static string UnitsRowRead() =>
+        "The row under the header holds only units; they were read as the columns' units, and the row is not a lot.";
+
+    internal static string NoteRowSkipped() =>
+        "The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.";
+
     internal static string HiddenSheetSkipped() =>
         "The sheet is hidden in the workbook, so it was not read. If it holds lots or readings, unhide it and check again.";
 

@@ -98,6 +98,30 @@ internal static partial class TableReader
         }
 
         int firstData = headerRow + 1;
+        if (firstData <= lastRow && IsUnitsRow(sheet.Rows[firstData]))
+        {
+            // A units row under the header ("°Bx", "%", "g/L"): its units count as the headers' own, and it is no lot.
+            var unitsRow = sheet.Rows[firstData];
+            for (int i = 0; i < columns.Count; i++)
+            {
+                var c = columns[i];
+                string unitText = c.Index < unitsRow.Length ? CellValues.Text(unitsRow[c.Index]) : "";
+                if (c.UnitStated || unitText.Length == 0)
+                {
+                    continue;
+                }
+
+                var unit = HeaderText.UnitFromHeader($"{c.Header} ({unitText})", c.Field.Kind);
+                if (unit != ColumnUnit.None)
+                {
+                    columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder };
+                }
+            }
+
+            sink.Warning(file, sheetName, firstData + 1, null, null, "units-row-read", IntakeMessages.UnitsRowRead());
+            firstData++;
+        }
+
         var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonFromName(sheetName) ?? SeasonFromName(Path.GetFileNameWithoutExtension(fullPath)) ?? run.Options.Season);
         SettleUnits(ctx);
         foreach (var c in columns)
@@ -217,6 +241,12 @@ internal static partial class TableReader
             }
 
             var unit = rule is { Unit: not ColumnUnit.None } ? rule.Unit : HeaderText.UnitFromHeader(text, field.Kind);
+            if (unit == ColumnUnit.None && field.Name == "residual_sugar_gl" && HeaderText.IsPercentHeader(text))
+            {
+                // "RS %" is the lab's g per 100 mL (common practice); read as g/L it would be ten times too dry.
+                unit = ColumnUnit.GramsPer100Millilitre;
+            }
+
             var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None);
             if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
             {
@@ -447,6 +477,35 @@ internal static partial class TableReader
         }
     }
 
+    /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>
+    private static bool IsUnitsRow(object?[] row)
+    {
+        int units = 0;
+        foreach (var cell in row)
+        {
+            if (CellValues.IsBlank(cell))
+            {
+                continue;
+            }
+
+            if (cell is not string s || !HeaderText.IsUnitOnly(s))
+            {
+                return false;
+            }
+
+            units++;
+        }
+
+        return units >= 2;
+    }
+
+    /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
+    private static string? NoteText(object?[] row)
+    {
+        var filled = row.Where(c => !CellValues.IsBlank(c)).Take(2).ToList();
+        return filled is [string s] && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+    }
+
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
     {
         label = null;
@@ -505,6 +564,13 @@ internal static partial class TableReader
             {
                 summary++;
                 sink.Warning(ctx.File, ctx.SheetName, r + 1, ctx.Column("lot_id")?.Header, label, "summary-row-skipped", IntakeMessages.SummaryRow());
+                continue;
+            }
+
+            if (NoteText(row) is { } note)
+            {
+                reported++;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, note, "note-row-skipped", IntakeMessages.NoteRowSkipped());
                 continue;
             }
 
