@@ -339,7 +339,7 @@ internal static partial class TableReader
                     }
 
                     break;
-                case FieldKind.Plain when c.Field.Unit.Length > 0 && !PlainUnitStated(c):
+                case FieldKind.Plain when c.Field.Unit.Length > 0 && c.Unit == ColumnUnit.None && !PlainUnitStated(c):
                     ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "unit-assumed", IntakeMessages.UnitAssumed(c.Field.Unit, c.Field.TemplateHeader));
                     break;
                 case FieldKind.Date or FieldKind.DateTime:

@@ -1,0 +1,235 @@
+using System.Text;
+using ClosedXML.Excel;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Intake.Tests;
+
+/// <summary>Layouts found in cellar files kept by hand: percent formats, hidden sheets, units in cells and rows, notes.</summary>
+public class CellarFileTests
+{
+    private static readonly object?[] Header = ["Lot", "Strain", "Brix", "ABV", "RS (g/L)"];
+
+    [Fact]
+    public void A_percent_formatted_alcohol_is_read_as_the_percentage_the_sheet_shows()
+    {
+        // Given a sheet whose alcohol cells hold 0.138 shown as "13.8%", next to a plain 14.1 in the same column
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2024.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.Worksheets.Add("2024");
+            Workbooks.Fill(ws, Header, ["P-1", "QV-7", 23.5, 0.138, 1.2], ["P-2", "QV-7", 24.0, 14.1, 1.0]);
+            ws.Cell(2, 4).Style.NumberFormat.Format = "0.0%";
+            ws.Cell(3, 4).Style.NumberFormat.Format = "0.0";
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lots 2024.xlsx");
+
+        // Then the percent cell is 13.8 % v/v, not 0.138 % v/v, and the plain cell is left as it is
+        Assert.Equal([13.8, 14.1], set.Lots.Select(l => l.FinalAlcohol.PercentVolume));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Theory]
+    [InlineData("0.0%", true)]
+    [InlineData("0.00 %", true)]
+    [InlineData("0.0\"%\"", false)]
+    [InlineData("0.0\\%", false)]
+    [InlineData("0.00", false)]
+    [InlineData("General", false)]
+    public void Only_a_percent_sign_outside_quotes_and_escapes_makes_a_percent_format(string format, bool percent)
+    {
+        // Given an Excel number format (a quoted or escaped % is literal text, ECMA-376 Part 1, 18.8.31 numFmts)
+        // When it is classified, Then only a bare % scales the value by 100
+        Assert.Equal(percent, SourceFiles.IsPercentFormat(format));
+    }
+
+    [Fact]
+    public void A_hidden_sheet_is_not_read_and_is_reported()
+    {
+        // Given a workbook whose hidden sheet holds old workings laid out like lots
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2022.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            Workbooks.Fill(wb.Worksheets.Add("2022"), Header, ["H-1", "RC-11", 24.0, 14.0, 1.0]);
+            var old = wb.Worksheets.Add("old calc");
+            Workbooks.Fill(old, Header, ["H-9", "RC-11", 50.0, 3.0, 1.0]);
+            old.Hide();
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lots 2022.xlsx");
+
+        // Then only the visible lot is used, and the hidden sheet is named in a warning and in the accounts
+        Assert.Equal(["H-1"], set.Lots.Select(l => l.LotId));
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal(("hidden-sheet-skipped", "old calc", IssueSeverity.Warning), (issue.Code, issue.Sheet, issue.Severity));
+        Assert.Equal("The sheet is hidden in the workbook, so it was not read. If it holds lots or readings, unhide it and check again.", issue.Message);
+        Assert.Contains(set.Accounts, a => a.Sheet == "old calc" && a.Kind == "hidden" && a.RowsRead == 0);
+    }
+
+    [Fact]
+    public void A_unit_written_in_the_cell_is_accepted_when_it_is_the_columns_unit()
+    {
+        // Given values typed with their units, in columns whose headers say the same units
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2024.csv",
+            "Lot,Strain,Brix,ABV,RS,YAN,Must volume (gal)\n" +
+            "U-1,QV-7,24.5 Bx,13.8 %vol,1.4 g/L,180 ppm,500 gal\n" +
+            "U-2,QV-7,23.0 °Brix,13.1%,2 g/l,210 mg/L,400 gal\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then the numbers are used as written; 500 US gal = 1892.705892 L (NIST Handbook 44, Appendix C: 3.785411784 L)
+        Assert.Equal(2, set.Lots.Count);
+        var u = set.Lots[0];
+        Assert.Equal((24.5, 13.8, 1.4, 180.0), (u.StartingSugar.Brix, u.FinalAlcohol.PercentVolume, u.ResidualSugarGl!.Value, u.YanMgL!.Value));
+        Assert.Equal(1892.705892, u.Additions.MustVolumeL!.Value, 9);
+        Assert.Equal((23.0, 13.1, 2.0), (set.Lots[1].StartingSugar.Brix, set.Lots[1].FinalAlcohol.PercentVolume, set.Lots[1].ResidualSugarGl!.Value));
+        Assert.DoesNotContain(set.Issues, i => i.Code is "not-a-number" or "unit-in-cell-differs");
+    }
+
+    [Fact]
+    public void A_unit_in_the_cell_that_differs_from_the_columns_is_reported_and_never_converted_silently()
+    {
+        // Given an SG typed into a °Brix column and a °F reading typed into a °C column
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2024.csv",
+            "Lot,Strain,Brix,ABV,RS (g/L),Mean temp (°C)\n" +
+            "X-1,QV-7,1.095 SG,13.0,1.0,20\n" +
+            "X-2,QV-7,24.0,14.0,1.0,75 F\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then the SG row is left out with an error, and the °F value is left empty with a warning
+        var sg = Assert.Single(set.Issues, i => i.Row == 2);
+        Assert.Equal(("unit-in-cell-differs", "Brix", "1.095 SG", IssueSeverity.Error), (sg.Code, sg.Column, sg.Value, sg.Severity));
+        Assert.Equal("starting_sugar is written with the unit 'SG', but the column is read in °Brix, so the value was not used. Convert it to °Brix, or write the number alone and state the unit in the header.", sg.Message);
+        var f = Assert.Single(set.Issues, i => i.Row == 3);
+        Assert.Equal(("unit-in-cell-differs", IssueSeverity.Warning), (f.Code, f.Severity));
+        Assert.StartsWith("mean_temp_c is written with the unit 'F', but the column is read in °C", f.Message, StringComparison.Ordinal);
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal(("X-2", (double?)null), (lot.LotId, lot.MeanFermentationTempC));
+    }
+
+    [Fact]
+    public void A_units_row_under_the_header_gives_the_columns_units_and_is_not_a_lot()
+    {
+        // Given a header without units and, under it, a row of units only (°Oe and US gallons)
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2023.xlsx");
+        Workbooks.WriteClosedXml(path, ("2023", [
+            ["Lot #", "Yeast strain", "Must weight", "Final alc", "Must volume", "Notes"],
+            [null, null, "°Oe", "% v/v", "gal", null],
+            ["W-1", "BX-4", 95.0, 13.0, 500.0, "cool ferment"],
+        ]));
+
+        // When it is read
+        var set = folder.Read("lots 2023.xlsx");
+
+        // Then the units row sets °Oechsle and gallons, with one warning naming its row, and it is not counted as read
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal(SugarScale.Oechsle, lot.StartingSugarScale);
+        // 95 °Oe = SG 1.095; ASBC Plato polynomial (−616.868 + 1111.14 SG − 630.272 SG² + 135.997 SG³, python3) gives 22.673 °Brix
+        Assert.Equal(22.673, lot.StartingSugar.Brix, 0.03);
+        Assert.Equal(1892.705892, lot.Additions.MustVolumeL!.Value, 9);
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal(("units-row-read", 2, IssueSeverity.Warning), (issue.Code, issue.Row, issue.Severity));
+        Assert.Equal("The row under the header holds only units; they were read as the columns' units, and the row is not a lot.", issue.Message);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((1, 1, true), (account.RowsRead, account.LotsUsed, account.Balances));
+    }
+
+    [Fact]
+    public void A_note_row_between_lots_is_one_warning_instead_of_an_error_per_empty_column()
+    {
+        // Given a lots sheet with a free-text note typed on its own row between two lots
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2023.xlsx");
+        Workbooks.WriteClosedXml(path, ("2023", [
+            Header,
+            ["N-1", "RC-11", 24.0, 14.0, 1.0],
+            ["note: tank 4 cooled overnight"],
+            ["N-2", "RC-11", 23.0, 13.5, 1.0],
+        ]));
+
+        // When it is read
+        var set = folder.Read("lots 2023.xlsx");
+
+        // Then both lots are used and the note row is left out with a single warning holding its text
+        Assert.Equal(["N-1", "N-2"], set.Lots.Select(l => l.LotId));
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal(("note-row-skipped", 3, "note: tank 4 cooled overnight", IssueSeverity.Warning), (issue.Code, issue.Row, issue.Value, issue.Severity));
+        Assert.Equal("The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.", issue.Message);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((3, 2, 1, true), (account.RowsRead, account.LotsUsed, account.RowsReported, account.Balances));
+    }
+
+    [Fact]
+    public void A_lot_row_with_only_its_id_is_still_reported_as_missing_values()
+    {
+        // Given a lot id typed without any other value (one word, not a note)
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2023.csv", "Lot,Strain,Brix,ABV\nM-1,RC-11,24,14\nM-2,,,\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then the missing required values are errors as before
+        Assert.Equal(3, set.Issues.Count(i => i.Code == "missing-value" && i.Row == 3));
+    }
+
+    [Fact]
+    public void Residual_sugar_headed_with_a_percent_sign_is_read_as_grams_per_100_mL()
+    {
+        // Given residual sugar recorded as a percentage (g per 100 mL; 0.25 % = 2.5 g/L, common practice)
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2015.csv", "Lot,Strain,Brix,ABV,RS %\nR-1,RC-11,24,14,0.25\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then it is held as 2.5 g/L, the mapping says so, and no "unit-assumed" g/L warning misleads
+        Assert.Equal(2.5, Assert.Single(set.Lots).ResidualSugarGl!.Value, 12);
+        Assert.Equal("g/100 mL", Assert.Single(set.Mappings, m => m.Field == "residual_sugar_gl").Unit);
+        Assert.DoesNotContain(set.Issues, i => i.Code == "unit-assumed");
+    }
+
+    [Fact]
+    public void A_semicolon_export_with_French_headers_and_decimal_commas_is_read()
+    {
+        // Given a Windows-1252 CSV from a European cellar program with French headers
+        using var folder = new TestFolder();
+        string name = folder.Text("export 2019.csv",
+            "Lot;Levure;Degré Brix;Alcool (% vol);Sucres résiduels (g/l);Cuve\r\n19-01;LM-2;24,3;14,2;1,8;Cuve béton\r\n",
+            Encoding.Latin1);
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then every field is matched and the decimal commas are read
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal(("LM-2", 24.3, 14.2, 1.8, "Cuve béton"), (lot.Strain, lot.StartingSugar.Brix, lot.FinalAlcohol.PercentVolume, lot.ResidualSugarGl!.Value, lot.Vessel));
+        Assert.Equal(["encoding-assumed"], set.Issues.Select(i => i.Code));
+    }
+
+    [Fact]
+    public void A_dotted_abbreviation_of_residual_sugar_is_matched()
+    {
+        // Given the header "R.S. g/L"
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2023.csv", "Lot,Strain,Brix,ABV,R.S. g/L\nD-1,RC-11,24,14,3.2\n");
+
+        // When it is read, Then it is the residual sugar in g/L
+        var set = folder.Read(name);
+        Assert.Equal(3.2, Assert.Single(set.Lots).ResidualSugarGl!.Value, 12);
+        Assert.Empty(set.Issues);
+    }
+}
