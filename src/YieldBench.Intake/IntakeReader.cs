@@ -8,7 +8,7 @@ namespace YieldBench.Intake;
 /// input: every problem becomes an <see cref="IntakeIssue"/> naming file, sheet, row, column and value, and every row
 /// read is accounted for (<see cref="SourceAccount"/>).
 /// </summary>
-public static class IntakeReader
+public static partial class IntakeReader
 {
     /// <summary>File name endings read from a folder and accepted as inputs.</summary>
     public static IReadOnlyList<string> Extensions { get; } = [".xlsx", ".xlsm", ".xls", ".csv"];
@@ -173,8 +173,16 @@ public static class IntakeReader
     {
         var logs = new List<FermentationLog>();
         var index = new Dictionary<(string, int?), List<LogReading>>();
-        foreach (var (lotId, season, reading) in run.Readings)
+        var knownIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        foreach (var (rawId, season, reading) in run.Readings)
         {
+            // A log sheet named "Lot 23-004" (or "Batch #7") is the log of lot 23-004 when no lot bears the full name.
+            string lotId = rawId;
+            if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
+            {
+                lotId = rawId[m.Length..];
+            }
+
             if (!index.TryGetValue((lotId, season), out var list))
             {
                 index[(lotId, season)] = list = [];
@@ -218,4 +226,7 @@ public static class IntakeReader
 
         return logs;
     }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"^(lot|batch)\s*(#|no\.?|nr\.?|number)?\s*[:#\-]?\s*", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant)]
+    private static partial System.Text.RegularExpressions.Regex LotWordPrefix();
 }

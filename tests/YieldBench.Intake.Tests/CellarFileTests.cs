@@ -232,4 +232,26 @@ public class CellarFileTests
         Assert.Equal(3.2, Assert.Single(set.Lots).ResidualSugarGl!.Value, 12);
         Assert.Empty(set.Issues);
     }
+
+    [Fact]
+    public void A_log_sheet_named_lot_and_the_id_is_the_log_of_that_lot()
+    {
+        // Given a lots sheet and one log sheet per lot, named "Lot 23-004" and "Batch #7" as cellars often name them
+        using var folder = new TestFolder();
+        string path = folder.PathOf("ferments 2023.xlsx");
+        Workbooks.WriteClosedXml(path,
+            ("Lots", [["Lot", "Strain", "Brix", "ABV", "RS (g/L)"], ["23-004", "RC-11", 24.0, 14.0, 1.0], ["7", "RC-11", 23.0, 13.5, 1.0]]),
+            ("Lot 23-004", [["Date", "Brix", "Temp (°C)"], [new DateTime(2023, 9, 10), 24.0, 18.0], [new DateTime(2023, 9, 11), 21.5, 20.0]]),
+            ("Batch #7", [["Date", "Brix", "Temp (°C)"], [new DateTime(2023, 9, 10), 23.0, 18.0]]),
+            ("Lot 99", [["Date", "Brix", "Temp (°C)"], [new DateTime(2023, 9, 10), 23.0, 18.0]]));
+
+        // When it is read
+        var set = folder.Read("ferments 2023.xlsx");
+
+        // Then the first two logs join their lots; a sheet whose id matches no lot keeps its full name in the warning
+        Assert.Equal(["23-004", "7", "Lot 99"], set.Logs.Select(l => l.LotId));
+        var orphan = Assert.Single(set.Issues, i => i.Code == "log-without-lot");
+        Assert.Equal("Lot 99", orphan.Value);
+        Assert.DoesNotContain(set.Issues, i => i.Code == "lots-without-log");
+    }
 }
