@@ -84,7 +84,7 @@ internal static class ColumnUnits
         ColumnUnit.UsGallon => value * LitresPerUsGallon,
         ColumnUnit.Gram => value / 1000.0,
         ColumnUnit.Pound => value * KilogramsPerPound,
-        ColumnUnit.GramsPer100Millilitre => value * 10.0,
+        ColumnUnit.GramsPer100Millilitre => Math.Round(value * 10.0, 10), // drops the binary error of × 10 (0.09 → 0.9, not 0.8999…)
         _ => value,
     };
 

@@ -191,13 +191,13 @@ public class CellarFileTests
     {
         // Given residual sugar recorded as a percentage (g per 100 mL; 0.25 % = 2.5 g/L, common practice)
         using var folder = new TestFolder();
-        string name = folder.Text("lots 2015.csv", "Lot,Strain,Brix,ABV,RS %\nR-1,RC-11,24,14,0.25\n");
+        string name = folder.Text("lots 2015.csv", "Lot,Strain,Brix,ABV,RS %\nR-1,RC-11,24,14,0.25\nR-2,RC-11,24,14,0.09\n");
 
         // When it is read
         var set = folder.Read(name);
 
         // Then it is held as 2.5 g/L, the mapping says so, and no "unit-assumed" g/L warning misleads
-        Assert.Equal(2.5, Assert.Single(set.Lots).ResidualSugarGl!.Value, 12);
+        Assert.Equal([2.5, 0.9], set.Lots.Select(l => l.ResidualSugarGl!.Value));
         Assert.Equal("g/100 mL", Assert.Single(set.Mappings, m => m.Field == "residual_sugar_gl").Unit);
         Assert.DoesNotContain(set.Issues, i => i.Code == "unit-assumed");
     }
