@@ -762,6 +762,22 @@ internal static partial class TableReader
             problem = inner;
         }
 
+        if (problem == CellProblem.None && cell is string pct && pct.TrimEnd().EndsWith('%'))
+        {
+            // A percent sign (typed, or from a percent-formatted cell) is % v/v for alcohol and % by mass for °Brix;
+            // residual sugar in % is g per 100 mL; for any other field it names no unit the column can hold.
+            if (c.Field.Name == "residual_sugar_gl" && c.Unit != ColumnUnit.GramsPer100Millilitre)
+            {
+                value = Math.Round(value * 10.0, 10);
+            }
+            else if (c.Field.Kind is not (FieldKind.Alcohol or FieldKind.Sugar) && c.Field.Name != "residual_sugar_gl")
+            {
+                string columnUnit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : (c.Field.Unit.Length > 0 ? c.Field.Unit : "its held unit");
+                st.Problem(c, cell, "unit-in-cell-differs", IntakeMessages.UnitInCellDiffers(label, "%", columnUnit), c.Field.Critical);
+                return false;
+            }
+        }
+
         switch (problem)
         {
             case CellProblem.None:

@@ -42,7 +42,7 @@ public class CellarFileTests
     [InlineData("General", false)]
     public void Only_a_percent_sign_outside_quotes_and_escapes_makes_a_percent_format(string format, bool percent)
     {
-        // Given an Excel number format (a quoted or escaped % is literal text, ECMA-376 Part 1, 18.8.31 numFmts)
+        // Given an Excel number format (a quoted or escaped % is literal text: ECMA-376 Part 1, number formats, §18.8.30–31, from memory)
         // When it is classified, Then only a bare % scales the value by 100
         Assert.Equal(percent, SourceFiles.IsPercentFormat(format));
     }
@@ -253,5 +253,39 @@ public class CellarFileTests
         var orphan = Assert.Single(set.Issues, i => i.Code == "log-without-lot");
         Assert.Equal("Lot 99", orphan.Value);
         Assert.DoesNotContain(set.Issues, i => i.Code == "lots-without-log");
+    }
+
+    [Fact]
+    public void A_percent_sign_on_residual_sugar_means_grams_per_100_mL_and_on_a_volume_is_reported()
+    {
+        // Given residual sugar percent-formatted (0.0015 shown as 0.15 %, i.e. 1.5 g/L, common practice) and a
+        // must volume typed as "12%"
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2024.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.Worksheets.Add("2024");
+            Workbooks.Fill(ws, ["Lot", "Strain", "Brix", "ABV", "RS (g/L)", "Must volume (L)"], ["Q-1", "QV-7", 24.0, 14.0, 0.0015, "12%"]);
+            ws.Cell(2, 5).Style.NumberFormat.Format = "0.00%";
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lots 2024.xlsx");
+
+        // Then the sugar is 1.5 g/L, and the volume is refused with a message naming the unit
+        Assert.Empty(set.Lots);
+        var issue = Assert.Single(set.Issues, i => i.Code == "unit-in-cell-differs");
+        Assert.Equal(("Must volume (L)", "12%", IssueSeverity.Error), (issue.Column, issue.Value, issue.Severity));
+        Assert.Equal("must_volume_l is written with the unit '%', but the column is read in L, so the value was not used. Convert it to L, or write the number alone and state the unit in the header.", issue.Message);
+
+        // And with the volume corrected the lot is used with 1.5 g/L
+        using (var wb = new XLWorkbook(path))
+        {
+            wb.Worksheet("2024").Cell(2, 6).SetValue(1200);
+            wb.Save();
+        }
+
+        Assert.Equal(1.5, Assert.Single(folder.Read("lots 2024.xlsx").Lots).ResidualSugarGl!.Value, 12);
     }
 }
