@@ -135,6 +135,14 @@ internal static partial class CellValues
                 : CellProblem.NotANumber;
         }
 
+        if (decimalComma && dot >= 0 && ThousandsWithDot().IsMatch(t))
+        {
+            // In a decimal-comma file "1.200" is as likely 1200 (dot grouping thousands) as 1.2: never guessed.
+            string asThousands = t.Replace(".", "", StringComparison.Ordinal);
+            alternative = asThousands + " or " + t;
+            return CellProblem.AmbiguousNumber;
+        }
+
         return double.TryParse(t, NumberStyles.Float, Inv, out value) && double.IsFinite(value) ? CellProblem.None : CellProblem.NotANumber;
     }
 
@@ -330,6 +338,9 @@ internal static partial class CellValues
 
     [GeneratedRegex(@"^\d{1,3}(,\d{3})+$")]
     private static partial Regex ThousandsWithComma();
+
+    [GeneratedRegex(@"^\d{1,3}(\.\d{3})+$")]
+    private static partial Regex ThousandsWithDot();
 
     [GeneratedRegex(@"^(?<y>\d{4})[-/.](?<m>\d{1,2})[-/.](?<d>\d{1,2})(?:[ T](?<h>\d{1,2}):(?<min>\d{2})(?::(?<s>\d{2})(?:\.\d+)?)?)?$")]
     private static partial Regex IsoDate();

@@ -65,19 +65,19 @@ internal static class Fields
     [
         "", "start", "starting", "initial", "init", "must", "juice", "harvest", "crush", "at crush", "original",
         "beginning", "begin", "pre ferment", "pre fermentation", "prefermentation", "incoming", "fruit", "grape",
-        "receival", "intake", "inoculation", "pre",
+        "receival", "intake", "inoculation", "pre", "mout",
     ];
 
     private static readonly string[] SugarCores =
     [
         "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "degrees brix", "deg brix", "degre brix", "degres brix", "mostgewicht",
-        "sugar", "sugars", "density", "gravity", "must weight", "sugar content",
+        "sugar", "sugars", "density", "gravity", "must weight", "sugar content", "densite",
     ];
 
     // Bare words that alone are too vague for a starting sugar (they could equally be a final reading).
-    private static readonly HashSet<string> VagueBareSugar = ["sugar", "sugars", "density", "gravity", "sugar content"];
+    private static readonly HashSet<string> VagueBareSugar = ["sugar", "sugars", "density", "gravity", "sugar content", "densite"];
 
-    private static readonly string[] StartSuffixes = ["start", "initial", "at crush", "crush", "must", "in", "harvest", "at harvest", "juice"];
+    private static readonly string[] StartSuffixes = ["start", "initial", "at crush", "crush", "must", "in", "harvest", "at harvest", "juice", "mout"];
 
     public static IReadOnlyList<FieldDef> Lots { get; } = BuildLotFields();
 
@@ -134,7 +134,7 @@ internal static class Fields
             new("must_volume_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Must volume (L)", "Must volume before any addition.", "4200",
                 ["must volume", "volume", "juice volume", "must vol", "vol", "starting volume", "initial volume", "volume must", "must quantity"]),
             new("water_added_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Water added (L)", "Water added before fermentation (add-back); 0 or empty when none.", "0",
-                ["water added", "water", "water addition", "added water", "add back", "addback", "water add", "h2o added", "h2o", "dilution", "water addback"]),
+                ["water added", "water", "water addition", "added water", "add back", "addback", "water add", "h2o added", "h2o", "dilution", "water addback", "eau ajoutee", "ajout eau", "wasserzugabe"]),
             new("sugar_added_kg", TableKind.Lots, FieldKind.Mass, false, "kg", 0, null, "Sugar added (kg)", "Sucrose added before fermentation (chaptalization); 0 or empty when none.", "0",
                 ["sugar added", "sugar addition", "added sugar", "sucrose added", "sugar add", "chaptalization", "chaptalisation", "chapt", "sucrose"]),
             new("starting_sugar", TableKind.Lots, FieldKind.Sugar, true, "°Brix", 10, 40, "Starting sugar (°Brix)", "Must sugar before any addition, in °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "24.2", startingSugar),

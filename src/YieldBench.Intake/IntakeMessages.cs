@@ -113,6 +113,9 @@ public static class IntakeMessages
     internal static string NotANumber(string field) =>
         $"{field} is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).";
 
+    internal static string AmbiguousDotNumber(string field, string asThousands, string asDecimal) =>
+        $"{field} could be {asThousands} (dot as thousands separator, as this decimal-comma file may use) or {asDecimal} (decimal point). Write it without a thousands separator.";
+
     internal static string AmbiguousNumber(string field, string asThousands, string asDecimal) =>
         $"{field} could be {asThousands} (comma as thousands separator) or {asDecimal} (decimal comma). Write it without a thousands separator.";
 

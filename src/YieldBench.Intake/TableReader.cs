@@ -794,7 +794,18 @@ internal static partial class TableReader
                 return false;
             case CellProblem.AmbiguousNumber:
                 var parts = alternative!.Split(" or ");
-                st.Problem(c, cell, "ambiguous-number", IntakeMessages.AmbiguousNumber(label, parts[0], parts[1]), c.Field.Critical);
+                string shown = CellValues.Text(cell);
+                if (!shown.Contains(',', StringComparison.Ordinal) && c.Field.Kind == FieldKind.Sugar
+                    && double.TryParse(parts[1], System.Globalization.NumberStyles.Float, Inv, out double gravity) && gravity is >= 0.95 and < 1.3)
+                {
+                    // "1.095" in a sugar column is a specific gravity; 1095 means nothing on any sugar scale.
+                    value = gravity;
+                    return true;
+                }
+
+                st.Problem(c, cell, "ambiguous-number", shown.Contains(',', StringComparison.Ordinal)
+                    ? IntakeMessages.AmbiguousNumber(label, parts[0], parts[1])
+                    : IntakeMessages.AmbiguousDotNumber(label, parts[0], parts[1]), c.Field.Critical);
                 return false;
             default:
                 st.Problem(c, cell, "not-a-number", IntakeMessages.NotANumber(label), c.Field.Critical);

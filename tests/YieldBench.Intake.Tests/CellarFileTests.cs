@@ -288,4 +288,27 @@ public class CellarFileTests
 
         Assert.Equal(1.5, Assert.Single(folder.Read("lots 2024.xlsx").Lots).ResidualSugarGl!.Value, 12);
     }
+
+    [Fact]
+    public void In_a_decimal_comma_file_a_dot_grouping_thousands_is_ambiguous_but_a_gravity_is_not()
+    {
+        // Given a semicolon CSV with decimal commas, a must volume written "1.200" and an SG column written with dots
+        using var folder = new TestFolder();
+        string name = folder.Text("export 2019.csv",
+            "Lot;Levure;Densité moût (SG);Alcool (% vol);Volume (L);Eau ajoutée (L)\r\n" +
+            "19-01;LM-2;1.095;12,9;1.200;0\r\n" +
+            "19-02;LM-2;1.101;13,8;950;20,5\r\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then "1.200" is not guessed (1200 or 1.2 L), while 1.101 is read as a gravity and the water added is matched
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal(("ambiguous-number", 2, "Volume (L)", IssueSeverity.Error), (issue.Code, issue.Row, issue.Column, issue.Severity));
+        Assert.Equal("must_volume_l could be 1200 (dot as thousands separator, as this decimal-comma file may use) or 1.200 (decimal point). Write it without a thousands separator.", issue.Message);
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal((SugarScale.SpecificGravity, 950.0, 20.5), (lot.StartingSugarScale, lot.Additions.MustVolumeL!.Value, lot.Additions.WaterAddedL!.Value));
+        // SG 1.10101 is 24 °Brix (Zoecklein et al., Wine Analysis and Production, Appendix I, Table I-1), so 1.101 is just under 24
+        Assert.Equal(24.0, lot.StartingSugar.Brix, 0.05);
+    }
 }
