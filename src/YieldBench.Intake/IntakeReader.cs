@@ -37,6 +37,7 @@ public static partial class IntakeReader
         }
 
         ColumnRules.ReportUnused(rules, sink);
+        UnifySpellings(run);
         var logs = JoinLogs(run);
         return new SeasonSet
         {
@@ -48,6 +49,45 @@ public static partial class IntakeReader
             Mappings = run.Mappings,
         };
     }
+
+    /// <summary>
+    /// Strain codes (and vessel types) that differ only in case, spaces or punctuation ("RC-11", "rc-11", "RC 11") are
+    /// one strain: each group takes its most used spelling (the first read on a tie), with one warning per group, so
+    /// that a typing habit never splits a strain into several.
+    /// </summary>
+    private static void UnifySpellings(IntakeRun run)
+    {
+        foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
+        {
+            var groups = run.Lots.Select(get).OfType<string>().GroupBy(SpellingKey, StringComparer.Ordinal);
+            foreach (var g in groups)
+            {
+                var spellings = g.GroupBy(v => v, StringComparer.Ordinal).Select(x => (Text: x.Key, Count: x.Count())).ToList();
+                if (spellings.Count < 2)
+                {
+                    continue;
+                }
+
+                var kept = spellings.OrderByDescending(x => x.Count).First();
+                var others = spellings.Where(x => x.Text != kept.Text).ToList();
+                for (int i = 0; i < run.Lots.Count; i++)
+                {
+                    var lot = run.Lots[i];
+                    if (get(lot) is { } v && v != kept.Text && SpellingKey(v) == g.Key)
+                    {
+                        run.Lots[i] = field == "strain" ? lot with { Strain = kept.Text } : lot with { Vessel = kept.Text };
+                    }
+                }
+
+                var first = run.Lots.First(l => get(l) == kept.Text).Source;
+                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept.Text, "spelling-unified",
+                    IntakeMessages.SpellingUnified(field, kept.Text, kept.Count, others.Select(o => (o.Text, o.Count)).ToList()));
+            }
+        }
+    }
+
+    private static string SpellingKey(string text) =>
+        new string(text.Where(char.IsLetterOrDigit).Select(char.ToUpperInvariant).ToArray());
 
     private static IEnumerable<(string Display, string Full)> Expand(IReadOnlyList<string> paths, string root, IssueSink sink)
     {

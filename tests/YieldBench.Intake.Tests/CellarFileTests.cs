@@ -311,4 +311,26 @@ public class CellarFileTests
         // SG 1.10101 is 24 °Brix (Zoecklein et al., Wine Analysis and Production, Appendix I, Table I-1), so 1.101 is just under 24
         Assert.Equal(24.0, lot.StartingSugar.Brix, 0.05);
     }
+
+    [Fact]
+    public void Strain_codes_typed_in_other_cases_or_punctuation_are_one_strain_with_a_warning()
+    {
+        // Given one strain typed four ways and a vessel typed two ways
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2022.csv",
+            "Lot,Strain,Vessel,Brix,ABV,RS (g/L)\n" +
+            "C-1,RC-11,Tank,24,14.1,1\nC-2,rc-11,tank,23,13.6,1\nC-3,RC-11,Tank,25,14.8,1\nC-4,RC 11,Tank,24.5,14.4,1\nC-5,QV-7,barrel,24,14,1\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then the most used spelling is kept for every lot, and each unified group is named in one warning
+        Assert.Equal(["RC-11", "RC-11", "RC-11", "RC-11", "QV-7"], set.Lots.Select(l => l.Strain));
+        Assert.Equal(["Tank", "Tank", "Tank", "Tank", "barrel"], set.Lots.Select(l => l.Vessel));
+        var issues = set.Issues.Where(i => i.Code == "spelling-unified").ToList();
+        Assert.Equal(2, issues.Count);
+        Assert.Equal("strain 'rc-11' (1 lot), 'RC 11' (1 lot) differ from 'RC-11' (2 lots) only in case, spaces or punctuation, so they were read as 'RC-11'. If they are different, give them codes that differ in letters or digits.", issues[0].Message);
+        Assert.Equal(IssueSeverity.Warning, issues[0].Severity);
+        Assert.StartsWith("vessel 'tank' (1 lot) differs from 'Tank' (3 lots) only in case, spaces or punctuation, so it was read as 'Tank'.", issues[1].Message, StringComparison.Ordinal);
+    }
 }
