@@ -125,6 +125,9 @@ public static class IntakeMessages
     internal static string OutOfRange(string field, string shown, double min, double max, string unit) =>
         $"{field} {shown} is outside the plausible range {Num(min)} to {Num(max)}{(unit.Length > 0 ? " " + unit : "")}. Check the value and its unit.";
 
+    internal static string LooksLikeAFraction(double percent) =>
+        $" It looks like a fraction: if it means {Num(percent)} % v/v, write {Num(percent)} (or format the cell as a percentage).";
+
     internal static string NotPositive(string field, string shown) =>
         $"{field} {shown} is not above zero. Enter the volume or capacity in the header's unit, or leave it empty.";
 

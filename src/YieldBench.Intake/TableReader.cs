@@ -881,7 +881,14 @@ internal static partial class TableReader
 
         if (f.Min is { } min && f.Max is { } max && (v < min || v > max))
         {
-            st.Problem(c, cell, "out-of-range", IntakeMessages.OutOfRange(Label(f), shown, min, max, f.Unit), f.Critical);
+            string message = IntakeMessages.OutOfRange(Label(f), shown, min, max, f.Unit);
+            if (f.Kind == FieldKind.Alcohol && c.Unit == ColumnUnit.PercentVolume && v * 100 >= min && v * 100 <= max)
+            {
+                // 0.141 is how a spreadsheet holds 14.1 % when the cell lost its percent format.
+                message += IntakeMessages.LooksLikeAFraction(raw * 100);
+            }
+
+            st.Problem(c, cell, "out-of-range", message, f.Critical);
             return null;
         }
 

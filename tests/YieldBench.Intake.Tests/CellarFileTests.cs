@@ -333,4 +333,21 @@ public class CellarFileTests
         Assert.Equal(IssueSeverity.Warning, issues[0].Severity);
         Assert.StartsWith("vessel 'tank' (1 lot) differs from 'Tank' (3 lots) only in case, spaces or punctuation, so it was read as 'Tank'.", issues[1].Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void An_alcohol_typed_as_a_fraction_is_refused_with_a_hint_of_the_percentage()
+    {
+        // Given 14.1 % typed as 0.141 in a plain (not percent-formatted) cell
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2022.csv", "Lot,Strain,Brix,ABV,RS (g/L)\nF-1,RC-11,24,0.141,1\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then it is not guessed: the row is left out, and the message suggests the percentage
+        Assert.Empty(set.Lots);
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal("out-of-range", issue.Code);
+        Assert.Equal("final_abv 0.141 % v/v is outside the plausible range 3 to 20 % v/v. Check the value and its unit. It looks like a fraction: if it means 14.1 % v/v, write 14.1 (or format the cell as a percentage).", issue.Message);
+    }
 }
