@@ -350,4 +350,20 @@ public class CellarFileTests
         Assert.Equal("out-of-range", issue.Code);
         Assert.Equal("final_abv 0.141 % v/v is outside the plausible range 3 to 20 % v/v. Check the value and its unit. It looks like a fraction: if it means 14.1 % v/v, write 14.1 (or format the cell as a percentage).", issue.Message);
     }
+
+    [Fact]
+    public void A_legacy_xls_keeps_its_percent_formats_and_hidden_sheets()
+    {
+        // Given the committed Excel 97–2003 file (Corpus/README.md says how it was made)
+        using var folder = new TestFolder();
+        File.Copy(Path.Combine(AppContext.BaseDirectory, "Corpus", "percent-and-hidden-2021.xls"), folder.PathOf("percent-and-hidden-2021.xls"));
+
+        // When it is read
+        var set = folder.Read("percent-and-hidden-2021.xls");
+
+        // Then 0.142 shown as 14.2 % is 14.2 % v/v and the hidden sheet is skipped with its warning
+        Assert.Equal([("X21-01", 14.2), ("X21-02", 13.4)], set.Lots.Select(l => (l.LotId, l.FinalAlcohol.PercentVolume)));
+        Assert.Equal(["hidden-sheet-skipped"], set.Issues.Select(i => i.Code));
+        Assert.Equal("old calc", set.Issues[0].Sheet);
+    }
 }
