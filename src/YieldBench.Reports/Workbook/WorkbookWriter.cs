@@ -250,7 +250,7 @@ public static class WorkbookWriter
         ws.Cell(r++, 1).Style.Font.Italic = true;
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Inputs", 13);
-        int leftOut = review.Inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+        int leftOut = ReviewTables.RowsLeftOut(review);
         Pair(ws, ref r, "Input files", review.Inputs.Files.Count);
         Pair(ws, ref r, "Lots used", review.Lots.Count);
         Pair(ws, ref r, "Rows left out (see Intake issues)", leftOut);
