@@ -3,7 +3,7 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Intake;
 
 /// <summary>An explicit mapping of one header to one field (from --column or a mapping file).</summary>
-internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDef? LogField, ColumnUnit Unit, string Header)
+internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDef? LogField, ColumnUnit Unit, string Header, string Origin, int? Line)
 {
     public bool Matches(string header) =>
         string.Equals(header.Trim(), Header, StringComparison.OrdinalIgnoreCase)
@@ -138,7 +138,7 @@ internal static class ColumnRules
 
         var lotField = Fields.Lots.FirstOrDefault(f => f.Name == alias.Field);
         var logField = Fields.Log.FirstOrDefault(f => f.Name == alias.Field);
-        rules.Add(new MappingRule(alias.Field, lotField, logField, alias.Unit, header));
+        rules.Add(new MappingRule(alias.Field, lotField, logField, alias.Unit, header, origin, line));
     }
 
     /// <summary>Issues for rules no sheet used.</summary>
@@ -146,7 +146,7 @@ internal static class ColumnRules
     {
         foreach (var r in rules.Where(r => !r.Used))
         {
-            sink.Warning("--column", null, null, r.Header, r.Header, "mapped-header-not-found", IntakeMessages.MappedHeaderNotFound(r.FieldName));
+            sink.Warning(r.Origin, null, r.Line, r.Header, r.Header, "mapped-header-not-found", IntakeMessages.MappedHeaderNotFound(r.FieldName));
         }
     }
 

@@ -411,7 +411,10 @@ internal static partial class SourceFiles
                 var record = parser.Record ?? [];
                 if (parser.RawRecord.Contains('"') && !QuotesBalanced(parser.RawRecord))
                 {
-                    badRows[rows.Count] = "a quote mark is not closed";
+                    int swallowed = parser.RawRecord.TrimEnd('\r', '\n').Count(ch => ch == '\n');
+                    badRows[rows.Count] = swallowed == 0
+                        ? "a quote mark is not closed"
+                        : $"a quote mark is not closed, so the {swallowed.ToString(CultureInfo.InvariantCulture)} line(s) after it were read into this row";
                 }
 
                 var cells = new object?[record.Length];

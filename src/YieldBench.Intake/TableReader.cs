@@ -361,7 +361,7 @@ internal static partial class TableReader
             case FieldKind.Alcohol when c.Unit == ColumnUnit.None:
                 c.Unit = median > 30 ? ColumnUnit.AlcoholGramsPerLitre : ColumnUnit.PercentVolume;
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "unit-from-values",
-                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, "Final alcohol (% v/v)"));
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, c.Unit == ColumnUnit.AlcoholGramsPerLitre ? "Final alcohol (g/L)" : "Final alcohol (% v/v)"));
                 break;
             case FieldKind.Temperature when c.Unit == ColumnUnit.None:
                 c.Unit = median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;

@@ -352,10 +352,22 @@ public static class DemoDataWriter
         }
 
         L();
-        L("Noise: starting-sugar sampling 0.20–0.45 °Brix SD by vessel (bins with skins worst), lab alcohol 0.07 % v/v SD,");
-        L("residual sugar 0.15 g/L SD; SG rounded to 0.001 (about ±0.13 °Brix). Ethanol lost by evaporation: open-top bins");
-        L("1.2 %, barrels 0.6 %, tanks 0.2 %, plus 0.4 % per °C of peak above 32 °C. These are choices of the invented");
-        L("scenario, not measurements.");
+        L("How the numbers are made (all choices of the invented scenario, not measurements):");
+        L();
+        L("- Starting sugar: normal around the season's mean for the colour plus the variety's offset (SD 1.1 °Brix). The");
+        L("  sample written down adds sampling error of 0.20–0.45 °Brix SD by vessel (bins with skins worst); SG is rounded to");
+        L("  0.001 (about ±0.13 °Brix).");
+        L("- Additions: very ripe reds (> 26 °Brix) often get water added back to 24.6–25.2 °Brix, thin whites and Pinot Noir");
+        L("  (< 20.8 °Brix) sucrose to 21.6–22.2 °Brix, by a mass balance on dissolved solids; the must volume is recorded.");
+        L("- Alcohol: (fermentable sugar of the effective must by the OIV table − residual sugar) ÷ the strain's sugar per");
+        L("  1 % v/v, less the vessel's ethanol loss (open-top bins 1.2 %, barrels 0.6 %, puncheons 0.5 %, eggs 0.3 %,");
+        L("  tanks 0.2 %) and 0.4 % per °C of peak above 32 °C; the lab adds 0.07 % v/v SD. Residual sugar of dry lots");
+        L("  0.8–3.2 g/L, read with 0.15 g/L SD. The world's chemistry is frozen in `ScenarioChemistry`, apart from the tool.");
+        L("- Kinetics: °Brix follows the modified Gompertz curve of Zwietering et al. (1990) from the effective starting");
+        L("  sugar down to about −1.5 to −2.1 °Brix (a dry wine on a hydrometer), with the strain's lag and maximum rate; the");
+        L("  rate rises 7 % per °C of peak temperature (capped at 34 °C) and with nitrogen (YAN^0.35). Temperature climbs from");
+        L("  the starting temperature to the peak in step with the consumption rate, four hours behind it. Hand readings add");
+        L("  0.15 °Brix and 0.25 °C SD; the probe 0.03 °Brix and 0.08 °C.");
         L();
         L("## Planted cases (what a correct review shows)");
         L();

@@ -124,6 +124,8 @@ internal static class Corpus
             W("colour.csv", null, 2, "Colour", "orange", "unknown-colour", "colour is not a colour read here (red, white, rosé). Use one of those words. The value was left empty; the rest of the row was used."), 1),
         new("unclosed quote", f => f.Text("quote.csv", Csv(Header + ",Notes", GoodRow + ",fine", "A-02,2023,QX-7,23.0,13.5,\"stuck at 2")),
             E("quote.csv", null, 3, null, null, "bad-csv-row", "The row could not be split into fields (a quote mark is not closed). Fix the quote marks in the row."), 1),
+        new("unclosed quote before more rows", f => f.Text("quote-mid.csv", Csv(Header + ",Notes", "A-01,2023,QX-7,24.0,14.0,\"stuck at 2", "A-02,2023,QX-7,23.0,13.5,fine", "A-03,2023,QX-7,23.0,13.5,fine")),
+            E("quote-mid.csv", null, 2, null, null, "bad-csv-row", "The row could not be split into fields (a quote mark is not closed, so the 2 line(s) after it were read into this row). Fix the quote marks in the row."), 0),
         new("negative water addition", f => f.Text("water.csv", Csv(Header + ",Water added (L)", GoodRow + ",0", "A-02,2023,QX-7,23.0,13.5,-40")),
             E("water.csv", null, 3, "Water added (L)", "-40", "out-of-range", "water_added_l -40 L is below zero. Enter 0 or leave it empty when nothing was added."), 1),
         new("log row without a reading", f => f.Text("log.csv", Csv("Lot,Season,Timestamp,Brix,Temp °C", "A-01,2023,2023-03-02 08:00,24.0,18", "A-01,2023,2023-03-03 08:00,,")),
@@ -143,6 +145,22 @@ f.Text("log-2023.csv", Csv("Lot,Date,Brix", "Z-99,2023-03-02,24.0", "Z-99,2023-0
             W("two-brix.csv", null, 1, "Start Brix", null, "duplicate-column", "This column maps to starting_sugar, as does the earlier column 'Brix'; only the earlier one was read. Rename one of them, or map the one you mean with --column starting_sugar=HEADER."), 1),
         new("mapping to an unknown field", f => f.Text("lots-2023b.csv", Csv(Header, GoodRow)),
             E("--column", null, null, null, "yeast_brand", "mapping-unknown-field", "'yeast_brand' is not a field name. Use one of the fields listed in docs/input-format.md, e.g. lot_id, strain, starting_sugar, final_abv."), 1, new IntakeOptions { ColumnMappings = ["yeast_brand=Yeast"] }),
+        new("volume without a unit", f => f.Text("volume-unit.csv", Csv(Header + ",Must volume", GoodRow + ",3500")),
+            W("volume-unit.csv", null, 1, "Must volume", null, "unit-assumed", "The header gives no unit; values were read as L. State the unit in the header, e.g. 'Must volume (L)'."), 1),
+        new("alcohol in grams per litre by its values", f => f.Text("abv-gl.csv", Csv("Lot,Season,Yeast,Brix,Alcohol", "A-01,2023,QX-7,24.0,110.5", "A-02,2023,QX-7,23.0,106.1")),
+            W("abv-gl.csv", null, 1, "Alcohol", null, "unit-from-values", "The header gives no unit; the values (106.1 to 110.5) look like g/L ethanol, so they were read as g/L ethanol. State the unit in the header, e.g. 'Final alcohol (g/L)'."), 2),
+        new("mapping file missing", f => f.Text("lots-2023c.csv", Csv(Header, GoodRow)),
+            E("nomap.txt", null, null, null, null, "mapping-file-not-found", "The mapping file was not found. Check the path given to --mapping."), 1, new IntakeOptions { MappingFile = "nomap.txt" }),
+        new("mapping line without an equals sign", f =>
+            {
+                f.Text("map.txt", "# mappings\nstrain Levure\n");
+                return f.Text("lots-2023d.csv", Csv(Header, GoodRow));
+            },
+            E("map.txt", null, 2, null, "strain Levure", "mapping-not-understood", "The line is not of the form FIELD = HEADER. Write one mapping a line, e.g. 'strain = Levure'; '#' starts a comment."), 1, new IntakeOptions { MappingFile = "map.txt" }),
+        new("mapped header absent", f => f.Text("lots-2023e.csv", Csv(Header, GoodRow)),
+            W("--column", null, null, "Levure", "Levure", "mapped-header-not-found", "No sheet has this header, so the mapping to strain was not used. Check the spelling against the file's header row."), 1, new IntakeOptions { ColumnMappings = ["strain=Levure"] }),
+        new("log time not a time of day", f => f.Text("log-clock.csv", Csv("Lot,Season,Date,Time,Brix", "A-01,2023,2023-03-02,08:00,24.0", "A-01,2023,2023-03-03,noon,22.0")),
+            E("log-clock.csv", null, 3, "Time", "noon", "not-a-time", "time is not a time of day. Write it as 14:30 (24-hour clock)."), 0),
     ];
 
     /// <summary>

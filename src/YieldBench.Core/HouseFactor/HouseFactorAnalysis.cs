@@ -75,7 +75,7 @@ public static class HouseFactorAnalysis
 
         if (usable.Count < settings.MinimumLots)
         {
-            explanation.Add($"Too few lots to choose a house factor: {usable.Count} usable, at least {settings.MinimumLots} are needed. Keep recording starting sugar, strain and the lab's final alcohol for every lot.");
+            explanation.Add($"Too few lots to choose a house factor: {usable.Count} usable, at least {settings.MinimumLots} are needed. Keep a record of starting sugar, strain and the lab's final alcohol for every lot.");
             return new HouseFactorReview
             {
                 Regime = settings.Regime,

@@ -141,7 +141,7 @@ public class BacktestTests
         // Then nothing is chosen, the planner has no model, and the reason is plain
         Assert.Null(review.Overall);
         Assert.Null(review.Planning);
-        Assert.Contains("Too few lots to choose a house factor: 6 usable, at least 10 are needed. Keep recording starting sugar, strain and the lab's final alcohol for every lot.", review.Explanation);
+        Assert.Contains("Too few lots to choose a house factor: 6 usable, at least 10 are needed. Keep a record of starting sugar, strain and the lab's final alcohol for every lot.", review.Explanation);
     }
 
     [Fact]
