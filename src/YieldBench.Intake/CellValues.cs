@@ -77,6 +77,19 @@ internal static partial class CellValues
         }
     }
 
+    /// <summary>
+    /// A number followed by a unit in one text cell ("24.5 Bx", "1.4 g/L", "13.8 % vol"): the number and the unit text,
+    /// or null when the text is not of that form.
+    /// </summary>
+    public static (string Number, string Unit)? SplitUnit(string text)
+    {
+        var m = NumberThenUnit().Match(text.Trim());
+        return m.Success ? (m.Groups[1].Value, m.Groups[2].Value.Trim()) : null;
+    }
+
+    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0 ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
+    private static partial Regex NumberThenUnit();
+
     private static CellProblem ParseNumberText(string s, bool decimalComma, out double value, out string? alternative)
     {
         value = double.NaN;

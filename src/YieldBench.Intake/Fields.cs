@@ -70,7 +70,7 @@ internal static class Fields
 
     private static readonly string[] SugarCores =
     [
-        "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "degrees brix", "deg brix",
+        "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "degrees brix", "deg brix", "degre brix", "degres brix", "mostgewicht",
         "sugar", "sugars", "density", "gravity", "must weight", "sugar content",
     ];
 
@@ -120,15 +120,15 @@ internal static class Fields
             new("lot_id", TableKind.Lots, FieldKind.Text, true, "", null, null, "Lot", "The cellar's lot identifier, unique within a season.", "R23-014", LotIdWords),
             new("season", TableKind.Lots, FieldKind.Season, false, "", 1900, 2100, "Season", "Season (vintage year). May be left empty when the sheet or file name holds the year.", "2024", SeasonWords),
             new("strain", TableKind.Lots, FieldKind.Text, true, "", null, null, "Strain", "Yeast strain code as the cellar records it.", "QX-7",
-                ["yeast", "strain", "culture", "yeast strain", "strain code", "yeast code", "yeast used", "yeast culture", "inoculum", "starter", "levure", "yeast name", "strain name", "yeast type"]),
+                ["yeast", "strain", "culture", "yeast strain", "strain code", "yeast code", "yeast used", "yeast culture", "inoculum", "starter", "levure", "levures", "hefe", "hefestamm", "yeast name", "strain name", "yeast type"]),
             new("colour", TableKind.Lots, FieldKind.Colour, false, "", null, null, "Colour", "Wine colour: red, white or rosé (sets temperature defaults).", "red",
                 ["colour", "color", "style", "type", "wine type", "wine colour", "wine color", "wine style", "colour style"]),
             new("vessel", TableKind.Lots, FieldKind.Text, false, "", null, null, "Vessel", "Vessel type (tank, barrel, bin, concrete…).", "tank",
-                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material"]),
+                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no"]),
             new("vessel_capacity_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Vessel capacity (L)", "Capacity of the vessel.", "5000",
                 ["capacity", "vessel capacity", "vessel size", "tank size", "tank capacity", "size", "vessel volume", "fermenter size", "fermenter capacity"]),
             new("variety", TableKind.Lots, FieldKind.Text, false, "", null, null, "Variety", "Grape variety.", "Syrah",
-                ["variety", "varietal", "grape", "grape variety", "cultivar", "cepage", "grapes"]),
+                ["variety", "varietal", "grape", "grape variety", "cultivar", "cepage", "grapes", "rebsorte", "sorte"]),
             new("block", TableKind.Lots, FieldKind.Text, false, "", null, null, "Block", "Vineyard block the fruit came from.", "North 3",
                 ["block", "vineyard block", "vineyard", "site", "parcel", "plot", "source block", "vineyard site", "source"]),
             new("must_volume_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Must volume (L)", "Must volume before any addition.", "4200",
@@ -139,9 +139,9 @@ internal static class Fields
                 ["sugar added", "sugar addition", "added sugar", "sucrose added", "sugar add", "chaptalization", "chaptalisation", "chapt", "sucrose"]),
             new("starting_sugar", TableKind.Lots, FieldKind.Sugar, true, "°Brix", 10, 40, "Starting sugar (°Brix)", "Must sugar before any addition, in °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "24.2", startingSugar),
             new("final_abv", TableKind.Lots, FieldKind.Alcohol, true, "% v/v", 3, 20, "Final alcohol (% v/v)", "The lab's final alcohol of the finished wine.", "13.9",
-                ["alcohol", "abv", "alc", "final alcohol", "final abv", "final alc", "alcohol final", "abv final", "alcohol content", "alcohol by volume", "ethanol", "etoh", "alc vol", "lab alcohol", "alcohol lab", "measured alcohol", "actual alcohol", "wine alcohol", "finished alcohol", "pct v v", "pct vol", "pct alc", "pct abv", "pct alcohol", "v v"]),
+                ["alcohol", "abv", "alc", "final alcohol", "final abv", "final alc", "alcohol final", "abv final", "alcohol content", "alcohol by volume", "ethanol", "etoh", "alc vol", "lab alcohol", "alcohol lab", "measured alcohol", "actual alcohol", "wine alcohol", "finished alcohol", "pct v v", "pct vol", "pct alc", "pct abv", "pct alcohol", "v v", "alcool", "alkohol", "alcool final", "tav", "tav acquis", "titre alcoometrique"]),
             new("residual_sugar_gl", TableKind.Lots, FieldKind.Plain, false, "g/L", 0, 300, "Residual sugar (g/L)", "Residual sugar (glucose + fructose) of the finished wine.", "1.8",
-                ["rs", "residual sugar", "residual sugars", "residual", "res sugar", "final rs", "rs final", "glu fru", "glucose fructose", "gf", "g f", "reducing sugar", "reducing sugars"]),
+                ["rs", "residual sugar", "residual sugars", "residual", "res sugar", "final rs", "rs final", "glu fru", "glucose fructose", "gf", "g f", "reducing sugar", "reducing sugars", "r s", "sucres residuels", "sucre residuel", "restzucker"]),
             new("final_sugar", TableKind.Lots, FieldKind.Sugar, false, "°Brix", -6, 40, "Final sugar (°Brix)", "Hydrometer reading of the finished wine, °Brix or SG.", "-1.8",
                 ["final sugar", "final brix", "end brix", "final bx", "finish brix", "finishing brix", "dry brix", "final sg", "end sg", "finish sg", "final density", "final gravity", "fg", "final hydrometer", "final reading", "brix final", "sg final", "brix end", "sg end"]),
             new("yan_mgl", TableKind.Lots, FieldKind.Plain, false, "mg N/L", 0, 1000, "YAN (mg N/L)", "Yeast assimilable nitrogen of the must.", "210",

@@ -66,6 +66,23 @@ internal static partial class HeaderText
         return key.Length > 0 ? key : Normalise(header);
     }
 
+    // Scale and unit words a units row under the header may hold besides the unit words above.
+    private static readonly HashSet<string> UnitRowWords =
+    [
+        "bx", "brix", "sg", "oe", "oechsle", "be", "baume", "bau", "ppm", "abv", "gpl", "hl", "degrees", "s", "ntu",
+    ];
+
+    /// <summary>True when the header has a % sign or the word percent (e.g. "RS %", "Residual sugar (%)").</summary>
+    public static bool IsPercentHeader(string header) =>
+        (" " + Normalise(header) + " ").Contains(" pct ", StringComparison.Ordinal) || Normalise(header).Split(' ').Contains("percent");
+
+    /// <summary>True when the text names only units ("°Bx", "% v/v", "g/L", "(gal)"), no field words or numbers.</summary>
+    public static bool IsUnitOnly(string text)
+    {
+        var words = Normalise(text).Split(' ', StringSplitOptions.RemoveEmptyEntries);
+        return words.Length > 0 && words.All(w => UnitWords.Contains(w) || UnitRowWords.Contains(w));
+    }
+
     /// <summary>The unit a header states for a field of the given kind, or <see cref="ColumnUnit.None"/>.</summary>
     public static ColumnUnit UnitFromHeader(string header, FieldKind kind)
     {

@@ -55,6 +55,15 @@ public static class IntakeMessages
     internal static string NoTableInFile(int rowsSearched) =>
         $"No header row naming lot or log columns was found (searched the first {rowsSearched.ToString(Inv)} rows of every sheet). Add a header row such as the one in 'yieldbench template', or map your headers with --column FIELD=HEADER.";
 
+    internal static string UnitsRowRead() =>
+        "The row under the header holds only units; they were read as the columns' units, and the row is not a lot.";
+
+    internal static string NoteRowSkipped() =>
+        "The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.";
+
+    internal static string HiddenSheetSkipped() =>
+        "The sheet is hidden in the workbook, so it was not read. If it holds lots or readings, unhide it and check again.";
+
     internal static string SheetSkipped(int rowsSearched) =>
         $"No header row naming lot or log columns was found in the first {rowsSearched.ToString(Inv)} rows; the sheet was not read. If it holds lots or readings, map its headers with --column FIELD=HEADER.";
 
@@ -97,6 +106,9 @@ public static class IntakeMessages
         $"No sheet has this header, so the mapping to {field} was not used. Check the spelling against the file's header row.";
 
     internal static string MissingValue(string field) => $"{field} is empty; it is required, so the row was left out. Fill it in.";
+
+    internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
+        $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
 
     internal static string NotANumber(string field) =>
         $"{field} is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).";

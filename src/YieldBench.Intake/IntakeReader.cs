@@ -122,6 +122,14 @@ public static class IntakeReader
         bool anyTable = false;
         foreach (var sheet in raw.Sheets)
         {
+            if (sheet.Hidden)
+            {
+                // Hidden sheets usually hold old workings or lookups; reading them unasked would mix them into the lots.
+                sink.Warning(file, sheet.Name, null, null, null, "hidden-sheet-skipped", IntakeMessages.HiddenSheetSkipped());
+                run.Accounts.Add(new SourceAccount(file, sheet.Name, "hidden", 0, 0, 0, 0, 0, 0));
+                continue;
+            }
+
             switch (TableReader.ReadSheet(run, file, full, sheet))
             {
                 case TableReader.Outcome.Read:

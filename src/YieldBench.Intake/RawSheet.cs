@@ -22,6 +22,9 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
     /// <summary>True when the sheet had more rows than the limit and was cut short.</summary>
     public bool TooManyRows { get; init; }
 
+    /// <summary>True when the workbook hides the sheet (hidden or very hidden); such a sheet is not read.</summary>
+    public bool Hidden { get; init; }
+
     /// <summary>CSV rows (0-based index) the parser could not split cleanly, with what was wrong.</summary>
     public Dictionary<int, string> BadRows { get; } = [];
 

@@ -121,6 +121,11 @@ internal static partial class SourceFiles
                     for (int i = 0; i < cells.Length; i++)
                     {
                         cells[i] = reader.GetValue(i);
+                        if (cells[i] is double d && IsPercentFormat(reader.GetNumberFormatString(i)))
+                        {
+                            // A percent-formatted 0.138 is shown as 13.8 %; read what the user sees, as text with its %.
+                            cells[i] = Math.Round(d * 100, 10).ToString("R", CultureInfo.InvariantCulture) + "%";
+                        }
                     }
 
                     rows.Add(cells);
@@ -147,7 +152,8 @@ internal static partial class SourceFiles
                     }
                 }
 
-                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany });
+                bool hidden = !string.Equals(reader.VisibleState, "visible", StringComparison.OrdinalIgnoreCase) && !string.IsNullOrEmpty(reader.VisibleState);
+                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, Hidden = hidden });
             }
             while (reader.NextResult());
         }
@@ -489,4 +495,33 @@ internal static partial class SourceFiles
 
     [GeneratedRegex(@"^\s*[-+]?\d+,\d+\s*$")]
     private static partial Regex DecimalCommaNumber();
+
+    /// <summary>True when an Excel number format shows the value as a percentage (a % outside quotes and escapes).</summary>
+    internal static bool IsPercentFormat(string? format)
+    {
+        if (string.IsNullOrEmpty(format))
+        {
+            return false;
+        }
+
+        bool quoted = false;
+        for (int i = 0; i < format.Length; i++)
+        {
+            char c = format[i];
+            if (c == '"')
+            {
+                quoted = !quoted;
+            }
+            else if (!quoted && c == '\\')
+            {
+                i++;
+            }
+            else if (!quoted && c == '%')
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
 }

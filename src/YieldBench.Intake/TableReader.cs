@@ -98,6 +98,30 @@ internal static partial class TableReader
         }
 
         int firstData = headerRow + 1;
+        if (firstData <= lastRow && IsUnitsRow(sheet.Rows[firstData]))
+        {
+            // A units row under the header ("°Bx", "%", "g/L"): its units count as the headers' own, and it is no lot.
+            var unitsRow = sheet.Rows[firstData];
+            for (int i = 0; i < columns.Count; i++)
+            {
+                var c = columns[i];
+                string unitText = c.Index < unitsRow.Length ? CellValues.Text(unitsRow[c.Index]) : "";
+                if (c.UnitStated || unitText.Length == 0)
+                {
+                    continue;
+                }
+
+                var unit = HeaderText.UnitFromHeader($"{c.Header} ({unitText})", c.Field.Kind);
+                if (unit != ColumnUnit.None)
+                {
+                    columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder };
+                }
+            }
+
+            sink.Warning(file, sheetName, firstData + 1, null, null, "units-row-read", IntakeMessages.UnitsRowRead());
+            firstData++;
+        }
+
         var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonFromName(sheetName) ?? SeasonFromName(Path.GetFileNameWithoutExtension(fullPath)) ?? run.Options.Season);
         SettleUnits(ctx);
         foreach (var c in columns)
@@ -217,6 +241,12 @@ internal static partial class TableReader
             }
 
             var unit = rule is { Unit: not ColumnUnit.None } ? rule.Unit : HeaderText.UnitFromHeader(text, field.Kind);
+            if (unit == ColumnUnit.None && field.Name == "residual_sugar_gl" && HeaderText.IsPercentHeader(text))
+            {
+                // "RS %" is the lab's g per 100 mL (common practice); read as g/L it would be ten times too dry.
+                unit = ColumnUnit.GramsPer100Millilitre;
+            }
+
             var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None);
             if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
             {
@@ -447,6 +477,35 @@ internal static partial class TableReader
         }
     }
 
+    /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>
+    private static bool IsUnitsRow(object?[] row)
+    {
+        int units = 0;
+        foreach (var cell in row)
+        {
+            if (CellValues.IsBlank(cell))
+            {
+                continue;
+            }
+
+            if (cell is not string s || !HeaderText.IsUnitOnly(s))
+            {
+                return false;
+            }
+
+            units++;
+        }
+
+        return units >= 2;
+    }
+
+    /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
+    private static string? NoteText(object?[] row)
+    {
+        var filled = row.Where(c => !CellValues.IsBlank(c)).Take(2).ToList();
+        return filled is [string s] && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+    }
+
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
     {
         label = null;
@@ -505,6 +564,13 @@ internal static partial class TableReader
             {
                 summary++;
                 sink.Warning(ctx.File, ctx.SheetName, r + 1, ctx.Column("lot_id")?.Header, label, "summary-row-skipped", IntakeMessages.SummaryRow());
+                continue;
+            }
+
+            if (NoteText(row) is { } note)
+            {
+                reported++;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, note, "note-row-skipped", IntakeMessages.NoteRowSkipped());
                 continue;
             }
 
@@ -677,6 +743,25 @@ internal static partial class TableReader
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
         var problem = CellValues.Number(cell, st.Ctx.Sheet.DecimalComma, out value, out var alternative);
         string label = Label(c.Field);
+        if (problem == CellProblem.NotANumber && cell is string text && CellValues.SplitUnit(text) is var (number, unitText))
+        {
+            // "24.5 Bx", "1.4 g/L": the unit written in the cell is accepted only when it is the column's own unit.
+            var inner = CellValues.Number(number, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+            if (inner == CellProblem.None)
+            {
+                if (CellUnitAgrees(c, unitText))
+                {
+                    return true;
+                }
+
+                string columnUnit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : (c.Field.Unit.Length > 0 ? c.Field.Unit : "its held unit");
+                st.Problem(c, cell, "unit-in-cell-differs", IntakeMessages.UnitInCellDiffers(label, unitText, columnUnit), c.Field.Critical);
+                return false;
+            }
+
+            problem = inner;
+        }
+
         switch (problem)
         {
             case CellProblem.None:
@@ -699,6 +784,39 @@ internal static partial class TableReader
                 st.Problem(c, cell, "not-a-number", IntakeMessages.NotANumber(label), c.Field.Critical);
                 return false;
         }
+    }
+
+    /// <summary>True when a unit written after a number in a cell names the unit the column is read in.</summary>
+    private static bool CellUnitAgrees(BoundColumn c, string unitText)
+    {
+        string u = unitText.ToLowerInvariant().Replace("°", "", StringComparison.Ordinal).Replace("º", "", StringComparison.Ordinal)
+            .Replace(" ", "", StringComparison.Ordinal).Replace("é", "e", StringComparison.Ordinal).TrimEnd('.');
+        ColumnUnit? named = u switch
+        {
+            "bx" or "brix" => ColumnUnit.Brix,
+            "sg" => ColumnUnit.SpecificGravity,
+            "oe" or "oechsle" => ColumnUnit.Oechsle,
+            "be" or "baume" => ColumnUnit.Baume,
+            "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
+            "c" => ColumnUnit.Celsius,
+            "f" => ColumnUnit.Fahrenheit,
+            "l" or "lt" or "ltr" or "litres" or "liters" => ColumnUnit.Litre,
+            "hl" => ColumnUnit.Hectolitre,
+            "gal" or "gals" or "gallons" => ColumnUnit.UsGallon,
+            "kg" => ColumnUnit.Kilogram,
+            "lb" or "lbs" => ColumnUnit.Pound,
+            _ => null,
+        };
+        bool gramsPerLitre = u is "g/l" or "gl" or "gpl";
+        return c.Field.Name switch
+        {
+            "residual_sugar_gl" or "ta_gl" => gramsPerLitre,
+            "yan_mgl" => u is "mg/l" or "mgn/l" or "ppm" or "mgl",
+            _ when c.Field.Kind == FieldKind.Sugar => gramsPerLitre ? c.Unit == ColumnUnit.SugarGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Alcohol => gramsPerLitre ? c.Unit == ColumnUnit.AlcoholGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Mass && u == "g" => c.Unit == ColumnUnit.Gram,
+            _ => named is not null && named == c.Unit,
+        };
     }
 
     private static string Shown(double raw, ColumnUnit unit) =>

@@ -21,6 +21,9 @@ internal enum ColumnUnit
     Kilogram,
     Gram,
     Pound,
+
+    /// <summary>Residual sugar written as a percentage, g per 100 mL (× 10 → g/L).</summary>
+    GramsPer100Millilitre,
 }
 
 /// <summary>Unit labels and conversions to the unit each field is held in.</summary>
@@ -49,6 +52,7 @@ internal static class ColumnUnits
         ColumnUnit.Kilogram => "kg",
         ColumnUnit.Gram => "g",
         ColumnUnit.Pound => "lb",
+        ColumnUnit.GramsPer100Millilitre => "g/100 mL",
         _ => "",
     };
 
@@ -80,6 +84,7 @@ internal static class ColumnUnits
         ColumnUnit.UsGallon => value * LitresPerUsGallon,
         ColumnUnit.Gram => value / 1000.0,
         ColumnUnit.Pound => value * KilogramsPerPound,
+        ColumnUnit.GramsPer100Millilitre => value * 10.0,
         _ => value,
     };
 
