@@ -240,6 +240,7 @@ public static partial class IntakeReader
         var lotKeys = run.Lots.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
         var lotIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
         var withLog = new HashSet<string>(StringComparer.Ordinal);
+        var lotsById = run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
         foreach (var log in logs)
         {
             bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
@@ -251,7 +252,7 @@ public static partial class IntakeReader
                 continue;
             }
 
-            foreach (var lot in run.Lots.Where(l => l.LotId == log.LotId && (log.Season is null || l.Season == log.Season)))
+            foreach (var lot in lotsById[log.LotId].Where(l => log.Season is null || l.Season == log.Season))
             {
                 withLog.Add(lot.Key);
             }

@@ -16,7 +16,7 @@ public static class ConsoleSummary
         ArgumentNullException.ThrowIfNull(output);
         var lines = new List<string>();
         var inputs = review.Inputs;
-        int leftOut = inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+        int leftOut = ReviewTables.RowsLeftOut(review);
         int filesLeftOut = inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is null);
         string seasons = inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", inputs.Seasons);
         lines.Add($"Lots used: {review.Lots.Count} ({seasons}) from {inputs.Files.Count} file(s); fermentation logs: {inputs.Logs.Count}.");

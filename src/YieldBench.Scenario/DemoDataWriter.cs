@@ -375,12 +375,14 @@ public static class DemoDataWriter
         L("|---|---|---|---|---|");
         foreach (var p in scenario.PlantedCases)
         {
-            string codes = p.ExpectedCodes.Count == 0 ? (p.Kind == PlantedKind.RecordedAdditionControl ? "none (control)" : "kinetics finding") : string.Join(", ", p.ExpectedCodes.Select(c => $"`{c}`"));
+            string codes = p.ExpectedCodes.Count == 0 && p.ExpectedKineticsCodes.Count == 0
+                ? "none (control)"
+                : string.Join(", ", p.ExpectedCodes.Select(c => $"`{c}`").Concat(p.ExpectedKineticsCodes.Select(c => $"kinetics `{c}`")));
             L($"| {p.LotId} | {p.Season} | {KindText(p.Kind)} | {codes} | {p.ExpectedFinding} |");
         }
 
         L();
-        L("Any one of the listed codes counts as detection. Probe-logged lots: " + string.Join(", ", scenario.AllLots.Where(l => l.LogIsProbe).Select(l => l.Recorded.LotId)) + " (records cross the end of September).");
+        L("Any one of the listed lot-flag codes counts as detection; a kinetics code is expected as listed. Probe-logged lots: " + string.Join(", ", scenario.AllLots.Where(l => l.LogIsProbe).Select(l => l.Recorded.LotId)) + " (records cross the end of September).");
         L();
         L("## Cautions");
         L();

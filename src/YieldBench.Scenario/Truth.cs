@@ -120,6 +120,9 @@ public sealed record PlantedCase(
 {
     /// <summary>"season/lot", matching <see cref="Lot.Key"/>.</summary>
     public string Key => $"{Season}/{LotId}";
+
+    /// <summary>Finding codes of the kinetics review that detect the case (all are expected); empty when none.</summary>
+    public IReadOnlyList<string> ExpectedKineticsCodes { get; init; } = [];
 }
 
 /// <summary>One generated season.</summary>

@@ -336,6 +336,25 @@ public sealed class ReviewCommandInputTests : IDisposable
     }
 
     [Fact]
+    public void A_column_mapping_from_the_command_line_reaches_intake()
+    {
+        // Given a file whose strain column has a header intake cannot guess
+        Write("harvest-2025.csv", "Lot,Culture code,Start Brix,Alcohol % v/v\nM-1,ZZ-1,23.0,13.5\nM-2,ZZ-2,24.0,14.1\n");
+
+        // When reviewed without and then with --column strain=HEADER
+        var without = Cli.Run(root, "review", "lots", "--out", "a");
+        var with = Cli.Run(root, "review", "lots", "--out", "b", "--column", "strain=Culture code");
+
+        // Then without it the rows are left out and reported with the fix; with it both lots are used
+        Assert.Equal(1, without.Exit);
+        Assert.Contains("Lots used: 0 (no season)", without.Out, StringComparison.Ordinal);
+        Assert.Contains("Left out: 2 row(s)", without.Out, StringComparison.Ordinal);
+        Assert.Contains(Cli.CsvLines(Path.Combine(root, "a", "data", "intake-issues.csv")), l => l.Contains("missing-column", StringComparison.Ordinal) && l.Contains("--column strain=HEADER", StringComparison.Ordinal));
+        Assert.Equal(0, with.Exit);
+        Assert.Contains("Lots used: 2 (2025)", with.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void An_unknown_regime_is_a_usage_error()
     {
         // Given a regime the tool does not know

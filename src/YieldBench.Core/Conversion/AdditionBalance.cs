@@ -13,7 +13,7 @@ namespace YieldBench.Core.Conversion;
 /// stands in for the small contraction on mixing and the volume the dissolved sugar takes up.
 /// Fermentable sugar afterwards = (sugar model at B₀ × V + 1000·K·1.0526)/V₁ g/L: added sucrose inverts to
 /// 1.0526 times its mass of glucose + fructose (C12H22O11 + H2O → 2 C6H12O6) before yeast ferment it.
-/// Approximations are listed in docs/methods-units.md ("Additions: water and sugar before fermentation").
+/// Approximations are listed in docs/methods.md ("Additions: water and sugar before fermentation").
 /// </summary>
 public static class AdditionBalance
 {

@@ -3,7 +3,7 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Core.Conversion;
 
 /// <summary>
-/// Computes each lot's four conversion measures (definitions and sources in docs/methods-units.md,
+/// Computes each lot's four conversion measures (definitions and sources in docs/methods.md,
 /// "The four conversion measures"). A measure that cannot be computed is NaN and the lot carries a note saying why.
 /// </summary>
 public static class ConversionFactors

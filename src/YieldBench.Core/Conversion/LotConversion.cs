@@ -3,7 +3,7 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Core.Conversion;
 
 /// <summary>
-/// The conversion measures of one lot (definitions and sources in docs/methods-units.md, "The four conversion measures").
+/// The conversion measures of one lot (definitions and sources in docs/methods.md, "The four conversion measures").
 /// </summary>
 public sealed record LotConversion
 {

@@ -1,6 +1,6 @@
 namespace YieldBench.Core.HouseFactor;
 
-/// <summary>Settings of the house-factor analysis. Every default is in docs/methods-house-factor.md with its source.</summary>
+/// <summary>Settings of the house-factor analysis. Every default is in docs/methods.md with its source.</summary>
 public sealed record HouseFactorSettings
 {
     /// <summary>Label regime the backtest is scored against (default: United States).</summary>

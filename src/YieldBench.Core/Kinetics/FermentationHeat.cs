@@ -5,7 +5,7 @@ namespace YieldBench.Core.Kinetics;
 /// <summary>
 /// The temperature rise the remaining sugar could still cause if it fermented with no heat removed (adiabatic):
 /// ΔT = (sugar g/L ÷ 180.16 g/mol) × ΔH kJ/mol ÷ (must density kg/L × cp kJ/(kg·K)).
-/// Sources in docs/methods-kinetics.md ("Heat").
+/// Sources in docs/methods.md ("Heat").
 /// </summary>
 public static class FermentationHeat
 {

@@ -9,7 +9,7 @@ namespace YieldBench.Core.Kinetics;
 /// <summary>
 /// Fermentation kinetics and heat from the lots' logs: rates, lag, one-third depletion, dryness, temperature exposure,
 /// sluggish and stuck stretches, Zwietering sigmoid fits, adiabatic heat potential, and per-strain summaries.
-/// Pure: no I/O, no clock. Definitions and defaults are in docs/methods-kinetics.md.
+/// Pure: no I/O, no clock. Definitions and defaults are in docs/methods.md.
 /// </summary>
 public static class KineticsAnalysis
 {

@@ -4,14 +4,14 @@ namespace YieldBench.Core.Kinetics;
 
 /// <summary>
 /// Temperature thresholds for one colour style, °C. Caution: the ferment is slowing and yeast are stressed;
-/// danger: yeast die and the ferment may stop. Defaults are common practice (see docs/methods-kinetics.md).
+/// danger: yeast die and the ferment may stop. Defaults are common practice (see docs/methods.md).
 /// </summary>
 /// <param name="CautionC">Caution threshold, °C.</param>
 /// <param name="DangerC">Danger threshold, °C (above the caution threshold).</param>
 public sealed record TemperatureThresholds(double CautionC, double DangerC);
 
 /// <summary>
-/// Settings of the kinetics and heat analysis. Every default and its source is in docs/methods-kinetics.md.
+/// Settings of the kinetics and heat analysis. Every default and its source is in docs/methods.md.
 /// </summary>
 public sealed record KineticsSettings
 {

@@ -1,5 +1,6 @@
 using MathNet.Numerics.Distributions;
 using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.LinearAlgebra.Factorization;
 
 namespace YieldBench.Core.Statistics;
 
@@ -112,7 +113,7 @@ public static class RobustRegression
 
         var x = Matrix<double>.Build.DenseOfArray(design);
         var yv = Vector<double>.Build.DenseOfEnumerable(y);
-        if (x.Rank() < p)
+        if (!HasFullColumnRank(x))
         {
             throw new ArgumentException("The design matrix is rank-deficient (an empty factor level or collinear columns).", nameof(design));
         }
@@ -212,7 +213,32 @@ public static class RobustRegression
             xw.SetRow(i, x.Row(i) * sw[i]);
         }
 
-        return xw.QR().Solve(y.PointwiseMultiply(sw));
+        // Thin QR: Q is n×p. The full factorisation would build an n×n Q (80 GB at 100k lots).
+        return xw.QR(QRMethod.Thin).Solve(y.PointwiseMultiply(sw));
+    }
+
+    /// <summary>
+    /// Column rank check from the thin QR's R diagonal (|Rᵢᵢ| against the largest, relative 1e-10), which needs
+    /// O(n·p) memory where an SVD of the design needs O(n²).
+    /// </summary>
+    private static bool HasFullColumnRank(Matrix<double> x)
+    {
+        var r = x.QR(QRMethod.Thin).R;
+        double largest = 0;
+        for (int i = 0; i < r.ColumnCount; i++)
+        {
+            largest = Math.Max(largest, Math.Abs(r[i, i]));
+        }
+
+        for (int i = 0; i < r.ColumnCount; i++)
+        {
+            if (!(Math.Abs(r[i, i]) > largest * 1e-10))
+            {
+                return false;
+            }
+        }
+
+        return true;
     }
 
     private static double MedianAbs(Vector<double> r) => Descriptive.Median(r.Select(Math.Abs));

@@ -13,7 +13,7 @@ public readonly record struct OivMustRow(double Brix, double DensityKgPerL, doub
 /// be read for this build; between them the non-sugar solids (total solids − sugar, g/L) are interpolated with the
 /// monotone piecewise-cubic Hermite curve of Fritsch and Carlson (the same curve as scipy's PchipInterpolator), and
 /// sugar is total solids minus that. Leave-one-row-out, this reproduces the held-out rows within 0.05 g/L, the
-/// table's own rounding (docs/methods-units.md, "Sugar model").
+/// table's own rounding (docs/methods.md, "Sugar model").
 /// Outside 10–30 °Brix the non-sugar solids are held at the nearest edge row's value — a stated approximation that
 /// callers report as a warning.
 /// </summary>

@@ -3,7 +3,7 @@ namespace YieldBench.Core.Units;
 /// <summary>
 /// A must-sugar reading, held internally as °Brix and convertible to every <see cref="SugarScale"/>.
 /// Specific gravity is the apparent SG 20/20 °C (what a hydrometer calibrated at 20 °C reads), related to °Brix by the
-/// closed form fitted to the NBS sucrose table (see docs/methods-units.md, "Sugar scales").
+/// closed form fitted to the NBS sucrose table (see docs/methods.md, "Sugar scales").
 /// </summary>
 public readonly record struct SugarReading : IComparable<SugarReading>
 {

@@ -1,7 +1,7 @@
 namespace YieldBench.Core.Units;
 
 /// <summary>
-/// The raw relations between sugar scales. Each formula's source is in docs/methods-units.md ("Sugar scales").
+/// The raw relations between sugar scales. Each formula's source is in docs/methods.md ("Sugar scales").
 /// </summary>
 public static class SugarScales
 {
@@ -18,7 +18,7 @@ public static class SugarScales
     /// Density at 20 °C (g/mL) taken for a liquid of apparent SG 20/20 <paramref name="sg"/>: SG × 0.99820. This
     /// neglects air buoyancy in the apparent SG, which would lower the density by (SG − 1) × 0.0012 g/mL (1.2e-4 g/mL at
     /// 24 °Brix, 0.01 %) — far below the 0.16 % by which a must's density exceeds a sucrose solution's (see
-    /// docs/methods-units.md); the whole project uses this one rule.
+    /// docs/methods.md); the whole project uses this one rule.
     /// </summary>
     public static double DensityFromSpecificGravity(double sg) => sg * WaterDensity20C;
 

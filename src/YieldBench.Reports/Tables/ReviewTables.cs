@@ -346,6 +346,19 @@ public static class ReviewTables
         return table;
     }
 
+    /// <summary>
+    /// Rows read but not used: the sum of the intake's row accounting when there is one (a sheet refused whole counts
+    /// all its rows), else the count of row-level errors.
+    /// </summary>
+    public static int RowsLeftOut(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var inputs = review.Inputs;
+        return inputs.Accounts.Count > 0
+            ? inputs.Accounts.Sum(a => a.RowsReported)
+            : inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+    }
+
     /// <summary>Columns of data/intake-issues.csv.</summary>
     public static IReadOnlyList<ReportColumn> IntakeIssueColumns { get; } =
     [

@@ -246,9 +246,11 @@ public static class WorkbookWriter
         int r = 1;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "YieldBench review", 18);
         SheetLayout.SetText(ws.Cell(r++, 1), "Tool version " + review.ToolVersion);
+        SheetLayout.SetText(ws.Cell(r, 1), "Predicted alcohol here is an estimate, not a label statement; fermentation heat and CO2 are hazards. See Cautions below.");
+        ws.Cell(r++, 1).Style.Font.Italic = true;
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Inputs", 13);
-        int leftOut = review.Inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+        int leftOut = ReviewTables.RowsLeftOut(review);
         Pair(ws, ref r, "Input files", review.Inputs.Files.Count);
         Pair(ws, ref r, "Lots used", review.Lots.Count);
         Pair(ws, ref r, "Rows left out (see Intake issues)", leftOut);
@@ -297,7 +299,7 @@ public static class WorkbookWriter
             Pair(ws, ref r, "Recommended", chosen?.Name ?? rec.CandidateId);
             Pair(ws, ref r, "Backtest", ReviewTables.SchemeName(h.PrimaryScheme));
             PairNumber(ws, ref r, "Mean absolute error (% v/v)", rec.Metrics.Mae, "0.00");
-            PairNumber(ws, ref r, "Within label tolerance (" + h.Regime.Id + ")", rec.Metrics.ShareWithinTolerance, "0%");
+            PairNumber(ws, ref r, "Within label tolerance, " + h.Regime.Name, rec.Metrics.ShareWithinTolerance, "0%");
             PairNumber(ws, ref r, "80 % of errors from (% v/v)", rec.ErrorBand80.Low, "+0.00;-0.00;0.00");
             PairNumber(ws, ref r, "80 % of errors to (% v/v)", rec.ErrorBand80.High, "+0.00;-0.00;0.00");
             PairNumber(ws, ref r, "95 % of errors from (% v/v)", rec.ErrorBand95.Low, "+0.00;-0.00;0.00");

@@ -154,6 +154,15 @@ public class StrainReviewerTests
         var y05 = review.Groups.Single(g => g.Grouping == Groupings.Strain && g.Group == "Y-05" && g.Measure == ConversionMeasure.AbvPerBrix);
         Assert.True(y05.MedianInterval.Contains(y05.Median));
         Assert.Null(y05.Note);
+
+        // And the row's numbers are the estimators applied to that strain's factors
+        var factors = cellar.Lots.Where(l => l.Lot.Strain == "Y-05").Select(l => l.AbvPerBrix).ToArray();
+        Assert.Equal(factors.Length, y05.N);
+        Assert.Equal(YieldBench.Core.Statistics.Descriptive.Median(factors), y05.Median, 15);
+        Assert.Equal(YieldBench.Core.Statistics.Robust.Qn(factors), y05.Qn, 15);
+        Assert.Equal(YieldBench.Core.Statistics.Robust.HuberLocation(factors), y05.Huber, 15);
+        Assert.Equal(factors.Min(), y05.Min);
+        Assert.Equal(factors.Max(), y05.Max);
         Assert.Equal(["<21", "21–23", "23–25", "25–27", "≥27"], review.Groups.Where(g => g.Grouping == Groupings.SugarBand && g.Measure == ConversionMeasure.AbvPerBrix).Select(g => g.Group));
     }
 

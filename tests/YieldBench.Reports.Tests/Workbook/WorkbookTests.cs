@@ -199,7 +199,8 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         Assert.Equal(review.Lots.Count + 1, lots.LastRowUsed()!.RowNumber());
         Assert.Equal("0.00", lots.Cell(2, 6).Style.NumberFormat.Format);
         Assert.Equal("YieldBench review", wb.Worksheet("Overview").Cell(1, 1).GetString());
-        Assert.Equal(review.Lots.Count, wb.Worksheet("Overview").Cell(6, 2).GetValue<int>());
+        Assert.Equal("Lots used", wb.Worksheet("Overview").Cell(7, 1).GetString());
+        Assert.Equal(review.Lots.Count, wb.Worksheet("Overview").Cell(7, 2).GetValue<int>());
     }
 
     [Fact]

@@ -3,7 +3,7 @@ using YieldBench.Core.Statistics;
 namespace YieldBench.Core.Review.Strains;
 
 /// <summary>
-/// Settings of the strain review. Every default is documented with its source in docs/methods-statistics.md.
+/// Settings of the strain review. Every default is documented with its source in docs/methods.md.
 /// </summary>
 public sealed record StrainReviewSettings
 {
