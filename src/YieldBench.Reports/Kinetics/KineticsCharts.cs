@@ -14,7 +14,7 @@ namespace YieldBench.Reports.Kinetics;
 public static class KineticsCharts
 {
     /// <summary>At most this many per-lot charts are drawn (flagged lots in review order); the rest stay in the tables.</summary>
-    public const int MaxLotCharts = 60;
+    public const int MaxLotCharts = 24;
 
     /// <summary>At most this many overview pages are drawn; with more lots, flagged lots fill them first.</summary>
     public const int MaxOverviewPages = 6;
