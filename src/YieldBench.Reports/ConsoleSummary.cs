@@ -81,11 +81,11 @@ public static class ConsoleSummary
         int flaggedLots = bySeverity.Sum(x => x.Lots);
         if (flaggedLots == 0)
         {
-            lines.Add("Odd lots: none flagged.");
+            lines.Add("Lots to look at: none flagged.");
         }
         else
         {
-            lines.Add($"Odd lots: {flaggedLots} flagged — by worst flag: {string.Join(", ", bySeverity.Select(x => $"{ReviewTables.SeverityName(x.Severity)} {x.Lots}"))}; reasons and follow-ups on the Follow-up sheet and in {ReportWriter.DataFiles.Flags}.");
+            lines.Add($"Lots to look at: {flaggedLots} flagged (strain review and kinetics) — by worst flag: {string.Join(", ", bySeverity.Select(x => $"{ReviewTables.SeverityName(x.Severity)} {x.Lots}"))}; reasons and follow-ups on the Follow-up sheet and in {ReportWriter.DataFiles.Flags}{(review.Kinetics is null ? string.Empty : " and " + ReportWriter.DataFiles.Kinetics)}.");
             foreach (var f in flags.Where(f => f.Severity == FlagSeverity.LikelyError).Take(5))
             {
                 lines.Add($"  {f.Season}/{f.LotId ?? f.Strain} {f.Code}: {f.Reason}");

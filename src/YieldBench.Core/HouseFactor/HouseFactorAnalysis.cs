@@ -58,10 +58,12 @@ public static class HouseFactorAnalysis
         var results = new List<CandidateResult>(candidates.Length);
         if (usable.Count >= 2)
         {
-            foreach (var c in candidates)
-            {
-                results.Add(Evaluate(c, usable, seasons.Length, settings, seed));
-            }
+            // Candidates share nothing mutable and each is seeded, so evaluating them side by side gives the same
+            // results as one after another; the array keeps their order.
+            var evaluated = new CandidateResult[candidates.Length];
+            Parallel.For(0, candidates.Length, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
+                evaluated[i] = Evaluate(candidates[i], usable, seasons.Length, settings, seed));
+            results.AddRange(evaluated);
         }
 
         var explanation = new List<string>();

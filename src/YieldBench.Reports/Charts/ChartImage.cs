@@ -38,4 +38,20 @@ public static class ChartImage
         AtomicFile.WriteAllBytes(path, png);
         return new ChartFile(System.IO.Path.GetFullPath(path), title, width, height, sheet, onOverview);
     }
+
+    /// <summary>
+    /// Runs independent chart jobs on all cores and returns their results in the jobs' order, so the files, their
+    /// bytes and the workbook's placement do not depend on which thread finished first.
+    /// </summary>
+    /// <param name="jobs">Each job builds its own plot and writes its own file; jobs share no mutable state.</param>
+    public static IReadOnlyList<ChartFile> RenderAll(IReadOnlyList<Func<ChartFile>> jobs)
+    {
+        ArgumentNullException.ThrowIfNull(jobs);
+
+        // Font registration touches ScottPlot's global resolver list: do it once before any worker starts.
+        ReportFonts.EnsureRegistered();
+        var results = new ChartFile[jobs.Count];
+        Parallel.For(0, jobs.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i => results[i] = jobs[i]());
+        return results;
+    }
 }

@@ -36,22 +36,24 @@ public static class ReviewCharts
     public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var files = new List<ChartFile>();
         if (review.Lots.Count == 0)
         {
-            return files;
+            return [];
         }
 
-        files.Add(ChartImage.Save(AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true));
-        files.Add(ChartImage.Save(FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"));
-        files.Add(ChartImage.Save(FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"));
+        var jobs = new List<Func<ChartFile>>
+        {
+            () => ChartImage.Save(AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
+            () => ChartImage.Save(FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
+            () => ChartImage.Save(FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
+        };
         if (review.HouseFactor.Candidates.Count > 0)
         {
-            files.Add(ChartImage.Save(BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
+            jobs.Add(() => ChartImage.Save(BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
         }
 
-        files.Add(ChartImage.Save(FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
-        return files;
+        jobs.Add(() => ChartImage.Save(FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
+        return ChartImage.RenderAll(jobs);
     }
 
     /// <summary>Strains in a stable order: most lots first, then code.</summary>
@@ -305,7 +307,7 @@ public static class ReviewCharts
 
     private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
     {
-        var flagged = lots.Where(l => ReviewTables.IsFlagged(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var flagged = lots.Where(l => ReviewTables.HasStrainFlag(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;

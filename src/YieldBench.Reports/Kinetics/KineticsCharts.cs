@@ -14,7 +14,10 @@ namespace YieldBench.Reports.Kinetics;
 public static class KineticsCharts
 {
     /// <summary>At most this many per-lot charts are drawn (flagged lots in review order); the rest stay in the tables.</summary>
-    public const int MaxLotCharts = 60;
+    public const int MaxLotCharts = 24;
+
+    /// <summary>At most this many overview pages are drawn; with more lots, flagged lots fill them first.</summary>
+    public const int MaxOverviewPages = 6;
 
     /// <summary>Lots per overview page (6 × 4 panels).</summary>
     public const int OverviewPanels = 24;
@@ -58,26 +61,46 @@ public static class KineticsCharts
         var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
         var strains = ordered.Select(k => k.Lot.Strain).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
 
-        for (int page = 0; page * OverviewPanels < ordered.Length; page++)
+        // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
+        // first when the pages cannot hold every lot, and every lot stays in the Kinetics table.
+        int capacity = MaxOverviewPages * OverviewPanels;
+        var shown = ordered.Length <= capacity
+            ? ordered
+            : ordered.Where(k => k.Flagged).Concat(ordered.Where(k => !k.Flagged)).Take(capacity).ToArray();
+        int pages = (shown.Length + OverviewPanels - 1) / OverviewPanels;
+        var jobs = new List<Func<ChartFile>>();
+        for (int page = 0; page < pages; page++)
         {
-            var chunk = ordered.Skip(page * OverviewPanels).Take(OverviewPanels).ToArray();
+            var chunk = shown.Skip(page * OverviewPanels).Take(OverviewPanels).ToArray();
             string path = Path.Combine(directory, $"kinetics-overview-{page + 1}.png");
-            int pages = (ordered.Length + OverviewPanels - 1) / OverviewPanels;
-            string title = pages == 1 ? "Sugar against time, every lot with a log" : $"Sugar against time, every lot with a log (page {page + 1} of {pages})";
-            AtomicFile.WriteAllBytes(path, Overview(chunk, title));
-            files.Add(new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet));
+            string title = OverviewTitle(page, pages, shown.Length, ordered.Length);
+            jobs.Add(() =>
+            {
+                AtomicFile.WriteAllBytes(path, Overview(chunk, title));
+                return new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
+            });
         }
 
-        files.Add(ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
-        files.Add(ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
+        jobs.Add(() => ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
+        jobs.Add(() => ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         foreach (var k in ordered.Where(k => k.Flagged).Take(MaxLotCharts))
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
-            files.Add(ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
+            jobs.Add(() => ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
         }
 
+        files.AddRange(ChartImage.RenderAll(jobs));
         return files;
+    }
+
+    /// <summary>Title of overview page <paramref name="page"/> (0-based) of <paramref name="pages"/>, saying when not every lot is shown.</summary>
+    public static string OverviewTitle(int page, int pages, int shown, int total)
+    {
+        string title = pages == 1 ? "Sugar against time, every lot with a log" : $"Sugar against time, every lot with a log (page {page + 1} of {pages})";
+        return shown >= total
+            ? title
+            : $"Sugar against time, {shown} of {total} lots with a log, flagged first (page {page + 1} of {pages}); every lot is in the table";
     }
 
     /// <summary>Sugar (left axis) and temperature (right axis) against days from time zero for one lot.</summary>
@@ -295,9 +318,12 @@ public static class KineticsCharts
             }
 
             plot.Axes.SetLimitsY(-4, 32, plot.Axes.Left);
-            byte[] png = plot.GetImageBytes(pw, ph, ImageFormat.Png);
-            using var bitmap = SKBitmap.Decode(png);
-            canvas.DrawBitmap(bitmap, (i % columns) * pw, header + ((i / columns) * ph));
+            // Drawn straight into its cell: encoding and decoding a PNG per panel cost most of an overview page's time.
+            float left = (i % columns) * pw, top = header + ((i / columns) * ph);
+            canvas.Save();
+            canvas.ClipRect(new SKRect(left, top, left + pw, top + ph));
+            plot.Render(canvas, new PixelRect(left, left + pw, top + ph, top));
+            canvas.Restore();
         }
 
         using (var typeface = ReportFonts.Typeface(bold: false))

@@ -1,5 +1,6 @@
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
 using YieldBench.Core.Review.Strains;
@@ -133,10 +134,10 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
+        var index = FlagIndex.Of(review);
         var codes = new List<string>();
-        codes.AddRange(review.Strains.Flags.Where(f => f.LotKey == lot.Lot.Key).Select(f => f.Code));
-        var kinetics = review.Kinetics?.Lots.FirstOrDefault(k => k.LotKey == lot.Lot.Key);
-        if (kinetics is not null)
+        codes.AddRange(index.StrainFlags(lot.Lot.Key).Select(f => f.Code));
+        if (index.Kinetics(lot.Lot.Key) is { } kinetics)
         {
             codes.AddRange(kinetics.Flags);
         }
@@ -145,23 +146,82 @@ public static class ReviewTables
     }
 
     /// <summary>
-    /// True when the strain review flagged the lot (highlighted rows, chart rings, overview counts). Kinetics flags are
-    /// listed in the flags column too but shaded on the kinetics sheet, so that conversion charts mark conversion findings.
+    /// True when the lot is one to look at: a strain-review flag or a kinetics follow-up flag (stuck, sluggish, too hot,
+    /// not dry at log end). This drives the Lots-sheet highlight and the overview and console counts.
     /// </summary>
-    public static bool IsFlagged(ReviewResult review, LotConversion lot)
+    public static bool IsFlagged(ReviewResult review, LotConversion lot) => LotSeverity(review, lot) is not null;
+
+    /// <summary>
+    /// True when the strain review flagged the lot. Conversion charts ring only these, so that they mark conversion
+    /// findings; kinetics findings have their own charts.
+    /// </summary>
+    public static bool HasStrainFlag(ReviewResult review, LotConversion lot)
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        return review.Strains.Flags.Any(f => f.LotKey == lot.Lot.Key);
+        return FlagIndex.Of(review).StrainFlags(lot.Lot.Key).Count > 0;
     }
 
-    /// <summary>The most serious strain-review flag of a lot, or null when it has none.</summary>
+    /// <summary>The most serious follow-up item of a lot (strain review or kinetics), or null when it has none.</summary>
     public static FlagSeverity? LotSeverity(ReviewResult review, LotConversion lot)
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        var severities = review.Strains.Flags.Where(f => f.LotKey == lot.Lot.Key).Select(f => f.Severity).ToArray();
-        return severities.Length == 0 ? null : severities.Max();
+        return FlagIndex.Of(review).WorstSeverity(lot.Lot.Key);
+    }
+
+    /// <summary>Every follow-up item: the strain review's flags, then the kinetics follow-ups (<see cref="KineticsFollowUps"/>).</summary>
+    public static IReadOnlyList<LotFlag> FollowUpItems(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        return FlagIndex.Of(review).Items;
+    }
+
+    /// <summary>
+    /// Per-lot lookups built once per review: the tables, charts and overview ask about every lot, and scanning every
+    /// flag per lot made those steps quadratic in lots.
+    /// </summary>
+    private sealed class FlagIndex
+    {
+        private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, FlagIndex> Cache = new();
+        private readonly Dictionary<string, List<LotFlag>> strainFlags = new(StringComparer.Ordinal);
+        private readonly Dictionary<string, LotKinetics> kinetics = new(StringComparer.Ordinal);
+        private readonly Dictionary<string, FlagSeverity> worst = new(StringComparer.Ordinal);
+
+        private FlagIndex(ReviewResult review)
+        {
+            var kineticsItems = review.Kinetics is { } k ? KineticsFollowUps.For(k) : [];
+            Items = review.Strains.Flags.Concat(kineticsItems).ToArray();
+            foreach (var f in review.Strains.Flags.Where(f => f.LotKey is not null))
+            {
+                if (!strainFlags.TryGetValue(f.LotKey!, out var list))
+                {
+                    strainFlags[f.LotKey!] = list = [];
+                }
+
+                list.Add(f);
+            }
+
+            foreach (var f in Items.Where(f => f.LotKey is not null))
+            {
+                worst[f.LotKey!] = worst.TryGetValue(f.LotKey!, out var w) && w > f.Severity ? w : f.Severity;
+            }
+
+            foreach (var lk in review.Kinetics?.Lots ?? [])
+            {
+                kinetics.TryAdd(lk.LotKey, lk);
+            }
+        }
+
+        public IReadOnlyList<LotFlag> Items { get; }
+
+        public static FlagIndex Of(ReviewResult review) => Cache.GetValue(review, r => new FlagIndex(r));
+
+        public IReadOnlyList<LotFlag> StrainFlags(string lotKey) => strainFlags.TryGetValue(lotKey, out var list) ? list : [];
+
+        public LotKinetics? Kinetics(string lotKey) => kinetics.GetValueOrDefault(lotKey);
+
+        public FlagSeverity? WorstSeverity(string lotKey) => worst.TryGetValue(lotKey, out var w) ? w : null;
     }
 
     /// <summary>Plain name of a severity, as in data/flags.csv.</summary>
@@ -242,7 +302,10 @@ public static class ReviewTables
         return table;
     }
 
-    /// <summary>The follow-up list: flags by severity (likely errors first), then season and lot, with the strain.</summary>
+    /// <summary>
+    /// The follow-up list: strain-review flags and kinetics follow-ups, by severity (likely errors first), then in their
+    /// order (strain review first, then kinetics), with the strain.
+    /// </summary>
     public static ReportTable FollowUp(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
@@ -258,7 +321,7 @@ public static class ReviewTables
             new("value", "Value", CellKind.Number, "0.000"),
             new("reference_group", "Judged against", CellKind.Text),
         ]);
-        var ordered = review.Strains.Flags
+        var ordered = FollowUpItems(review)
             .Select((f, i) => (Flag: f, Index: i))
             .OrderByDescending(x => x.Flag.Severity).ThenBy(x => x.Index)
             .Select(x => x.Flag);

@@ -30,7 +30,9 @@ public static partial class DeterministicZip
             foreach (var entry in input.Entries)
             {
                 string name = entry == coreProperties ? CorePropertiesEntry : entry.FullName;
-                var copy = archive.CreateEntry(name, CompressionLevel.Optimal);
+                // PNGs are deflated already: compressing them again costs time and saves almost nothing.
+                var level = name.EndsWith(".png", StringComparison.OrdinalIgnoreCase) ? CompressionLevel.NoCompression : CompressionLevel.Optimal;
+                var copy = archive.CreateEntry(name, level);
                 copy.LastWriteTime = EntryTime;
                 using var from = entry.Open();
                 using var to = copy.Open();

@@ -52,7 +52,7 @@ public static class SheetLayout
             for (int c = 0; c < cols; c++)
             {
                 var cell = sheet.Cell(headerRow + 1 + r, firstColumn + c);
-                SetValue(cell, row[c], table.Columns[c]);
+                SetValueOnly(cell, row[c]);
             }
 
             if (table.Highlighted[r])
@@ -66,6 +66,13 @@ public static class SheetLayout
         for (int c = 0; c < cols; c++)
         {
             var column = table.Columns[c];
+
+            // One style for the column's data range: a style set cell by cell made large sheets the slowest step.
+            if (table.Rows.Count > 0 && column.Kind != CellKind.Text)
+            {
+                sheet.Range(headerRow + 1, firstColumn + c, lastRow, firstColumn + c).Style.NumberFormat.Format = column.EffectiveNumberFormat;
+            }
+
             double width = Math.Min(HeadingWidth(column.Heading), 24);
             foreach (var row in table.Rows)
             {
@@ -139,6 +146,38 @@ public static class SheetLayout
         }
 
         cell.Style.NumberFormat.Format = column.EffectiveNumberFormat;
+    }
+
+    // As SetValue without the per-cell number format, which WriteTable sets once per column.
+    private static void SetValueOnly(IXLCell cell, object? value)
+    {
+        switch (value)
+        {
+            case null:
+                return;
+            case string s:
+                SetText(cell, s);
+                return;
+            case double d when !double.IsFinite(d):
+                return;
+            case double d:
+                cell.SetValue(d);
+                return;
+            case int i:
+                cell.SetValue(i);
+                return;
+            case long l:
+                cell.SetValue(l);
+                return;
+            case bool b:
+                SetText(cell, b ? "yes" : "no");
+                return;
+            case DateTime t:
+                cell.SetValue(t);
+                return;
+            default:
+                throw new ArgumentException($"Unsupported cell type {value.GetType().Name}.", nameof(value));
+        }
     }
 
     /// <summary>Approximate width, in character widths, of a value as the sheet shows it.</summary>

@@ -318,7 +318,7 @@ public static class WorkbookWriter
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
         int flagged = review.Lots.Count(l => ReviewTables.IsFlagged(review, l));
-        Pair(ws, ref r, "Flagged lots (highlighted on Lots)", flagged);
+        Pair(ws, ref r, "Flagged lots, strain review or kinetics (highlighted on Lots)", flagged);
         foreach (var severity in new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note })
         {
             int n = review.Lots.Count(l => ReviewTables.LotSeverity(review, l) == severity);

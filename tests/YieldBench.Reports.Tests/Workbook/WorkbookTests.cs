@@ -242,7 +242,7 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         Assert.Equal(2.0, Convert.ToDouble(pairs["Intake issues"], System.Globalization.CultureInfo.InvariantCulture));
         int flagged = review.Lots.Count(l => review.Strains.Flags.Any(f => f.LotKey == l.Lot.Key));
         Assert.True(flagged >= 2);
-        Assert.Equal((double)flagged, Convert.ToDouble(pairs["Flagged lots (highlighted on Lots)"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal((double)flagged, Convert.ToDouble(pairs["Flagged lots, strain review or kinetics (highlighted on Lots)"], System.Globalization.CultureInfo.InvariantCulture));
         Assert.Equal("2024, 2025", pairs["Seasons"]);
     }
 

@@ -1,0 +1,85 @@
+using YieldBench.Core.Review.Strains;
+
+namespace YieldBench.Core.Kinetics;
+
+/// <summary>
+/// The kinetics flags a winemaker acts on (stuck, sluggish, overheated, not dry when the log ends), as follow-up items in
+/// the same shape as the strain review's flags, so one list holds every lot to look at. Data-quality flags of a log
+/// (timestamps, rising sugar) and a stall that still finished stay on the kinetics sheet only.
+/// </summary>
+public static class KineticsFollowUps
+{
+    /// <summary>Kinetics flag codes that become follow-up items, in report order.</summary>
+    public static IReadOnlyList<string> Codes { get; } =
+        ["stuck", "sluggish", "above-danger-temp", "above-caution-temp", "not-dry-at-log-end"];
+
+    /// <summary>
+    /// One item per lot and follow-up code, lots in the review's order and codes in <see cref="Codes"/> order. Severity
+    /// is <see cref="FlagSeverity.Check"/> for a stuck ferment, a danger-level temperature or a log ending above dry, and
+    /// <see cref="FlagSeverity.Note"/> for a sluggish stretch or a caution-level temperature (a judgement of common
+    /// practice: the first three can leave a lot unfinished or spoiled, the last two usually need watching only).
+    /// </summary>
+    /// <param name="review">The kinetics review.</param>
+    public static IReadOnlyList<LotFlag> For(KineticsReview review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var messages = new Dictionary<(string Lot, string Code), string>();
+        foreach (var f in review.Findings)
+        {
+            messages.TryAdd((f.LotKey, f.Code), f.Message);
+        }
+
+        var items = new List<LotFlag>();
+        foreach (var k in review.Lots)
+        {
+            foreach (string code in Codes)
+            {
+                if (!k.Flags.Contains(code))
+                {
+                    continue;
+                }
+
+                string reason = messages.GetValueOrDefault((k.LotKey, code)) ?? $"Lot {k.LotKey}: kinetics flag {code}.";
+                items.Add(Item(k, code, reason, review.Settings));
+            }
+        }
+
+        return items;
+    }
+
+    private static LotFlag Item(LotKinetics k, string code, string reason, KineticsSettings s)
+    {
+        const string CheckFinish = "Confirm the lot finished (lab residual sugar); if it did not, consider a restart protocol per licensed practice.";
+        const string Cooling = "Check cooling capacity and cap management for this vessel before next harvest; fermentation heat and CO2 in the cellar are hazards — ventilate and follow local safety rules.";
+        var (severity, measure, value, reference, threshold, followUp) = code switch
+        {
+            "stuck" => (FlagSeverity.Check, "rate_brix_per_day", k.Stuck?.MeanRateBrixPerDay ?? double.NaN, "stuck rule", s.StuckRateBrixPerDay,
+                "Taste and measure sugar now; check temperature, nutrients (YAN) and cap; " + CheckFinish),
+            "sluggish" => (FlagSeverity.Note, "rate_brix_per_day", k.Sluggish?.MeanRateBrixPerDay ?? double.NaN, "sluggish rule", s.SluggishRateFor(k.Lot.Colour),
+                "Watch the lot until dry; check temperature and nutrients (YAN); " + CheckFinish),
+            "above-danger-temp" => (FlagSeverity.Check, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "danger temperature", k.Thresholds.DangerC,
+                Cooling + " " + CheckFinish),
+            "above-caution-temp" => (FlagSeverity.Note, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "caution temperature", k.Thresholds.CautionC,
+                Cooling),
+            "not-dry-at-log-end" => (FlagSeverity.Check, "final_brix", k.FinalBrix, "dry reading", s.DryBrix,
+                CheckFinish),
+            _ => throw new ArgumentOutOfRangeException(nameof(code), code, "Not a kinetics follow-up code."),
+        };
+        return new LotFlag
+        {
+            LotKey = k.LotKey,
+            LotId = k.Lot.LotId,
+            Season = k.Lot.Season,
+            Strain = k.Lot.Strain,
+            Code = code,
+            Severity = severity,
+            Measure = measure,
+            Value = value,
+            ReferenceGroup = "kinetics: " + reference,
+            ReferenceMedian = threshold,
+            ReferenceScale = double.NaN,
+            Reason = reason,
+            FollowUp = followUp,
+        };
+    }
+}
