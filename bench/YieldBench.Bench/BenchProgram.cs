@@ -214,9 +214,15 @@ internal static class BenchProgram
         }
 
         p.WaitForExit();
+        stderrDone.Wait(TimeSpan.FromSeconds(10));
         if (p.ExitCode != 0)
         {
-            throw new InvalidOperationException($"child '{string.Join(' ', args)}' exited {p.ExitCode}");
+            // A library failure at scale is a result to report, with the stages that did finish.
+            lock (stages)
+            {
+                var h = header ?? throw new InvalidOperationException($"child '{string.Join(' ', args)}' exited {p.ExitCode} before starting");
+                return h with { Stages = stages.ToArray(), TotalSeconds = stages.Skip(1).Sum(s => s.Seconds), Unfinished = string.Create(Inv, $"the run failed (exit {p.ExitCode}) after {stages.Count} stage(s); its error is printed above") };
+            }
         }
 
         string last = stdout.Result.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1];
