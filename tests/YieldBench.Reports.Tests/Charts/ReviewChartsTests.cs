@@ -42,10 +42,19 @@ public sealed class ReviewChartsTests
     [MemberData(nameof(ChartNames))]
     public void The_same_review_draws_the_same_chart_bytes(string name)
     {
-        // Given one chart drawn twice
-        // When the PNG bytes are compared
-        // Then they are identical (no random jitter, no clock)
-        Assert.Equal(ChartImage.RenderPng(Make(name)), ChartImage.RenderPng(Make(name)));
+        // Given one chart drawn twice, and an empty chart of the same size as a reference
+        byte[] first = ChartImage.RenderPng(Make(name));
+        byte[] second = ChartImage.RenderPng(Make(name));
+        byte[] empty = ChartImage.RenderPng(ChartStyle.NewPlot("Empty", "x", "y"));
+
+        // When their hashes are compared
+        string Hash(byte[] b) => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b));
+
+        // Then the two drawings are byte-identical (no random jitter, no clock), and the comparison is sensitive:
+        // the drawn chart's bytes differ from an empty chart's
+        Assert.Equal(Hash(first), Hash(second));
+        Assert.NotEqual(Hash(empty), Hash(first));
+        Assert.True(first.Length > empty.Length, $"{name}: {first.Length} bytes, empty chart {empty.Length}");
     }
 
     [Fact]
