@@ -112,40 +112,16 @@ public static class SheetLayout
         cell.Style.Font.FontSize = size;
     }
 
-    /// <summary>Writes one cell of a table column.</summary>
+    /// <summary>Writes one cell of a table column, with the column's number format on numbers and dates.</summary>
     public static void SetValue(IXLCell cell, object? value, ReportColumn column)
     {
         ArgumentNullException.ThrowIfNull(cell);
         ArgumentNullException.ThrowIfNull(column);
-        switch (value)
+        SetValueOnly(cell, value);
+        if (value is int or long or DateTime || value is double d && double.IsFinite(d))
         {
-            case null:
-                return;
-            case string s:
-                SetText(cell, s);
-                return;
-            case double d when !double.IsFinite(d):
-                return;
-            case double d:
-                cell.SetValue(d);
-                break;
-            case int i:
-                cell.SetValue(i);
-                break;
-            case long l:
-                cell.SetValue(l);
-                break;
-            case bool b:
-                SetText(cell, b ? "yes" : "no");
-                return;
-            case DateTime t:
-                cell.SetValue(t);
-                break;
-            default:
-                throw new ArgumentException($"Unsupported cell type {value.GetType().Name}.", nameof(value));
+            cell.Style.NumberFormat.Format = column.EffectiveNumberFormat;
         }
-
-        cell.Style.NumberFormat.Format = column.EffectiveNumberFormat;
     }
 
     // As SetValue without the per-cell number format, which WriteTable sets once per column.
