@@ -87,10 +87,16 @@ public static class Backtest
         var fold = FoldsOf(lots, scheme, seed);
         var predicted = new double[lots.Count];
         Array.Fill(predicted, double.NaN);
-        foreach (int f in fold.Distinct().Order())
+        var foldSize = new Dictionary<int, int>();
+        foreach (int f in fold)
         {
-            var train = new List<LotConversion>();
-            var test = new List<int>();
+            foldSize[f] = foldSize.GetValueOrDefault(f) + 1;
+        }
+
+        foreach (int f in foldSize.Keys.Order())
+        {
+            var train = new List<LotConversion>(lots.Count - foldSize[f]);
+            var test = new List<int>(foldSize[f]);
             for (int i = 0; i < lots.Count; i++)
             {
                 if (fold[i] == f)

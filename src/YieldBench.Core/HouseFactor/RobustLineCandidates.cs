@@ -71,7 +71,7 @@ public sealed class TheilSenLineCandidate : ICandidateTrainer
     public IAbvPredictor Train(IReadOnlyList<LotConversion> lots, int seed)
     {
         ArgumentNullException.ThrowIfNull(lots);
-        var line = TheilSen.Fit(lots.Select(l => l.EffectiveStartingBrix).ToArray(), lots.Select(l => l.Lot.FinalAlcohol.PercentVolume).ToArray(), 0.95, seed);
+        var line = TheilSen.Fit(lots.Select(l => l.EffectiveStartingBrix).ToArray(), lots.Select(l => l.Lot.FinalAlcohol.PercentVolume).ToArray(), 0.95, seed, withInterval: false);
         return line.IsDefined
             ? SugarLines.Single(line.Intercept, line.Slope, lots.Count)
             : SugarLines.Single(0, Descriptive.Median(lots.Select(l => l.AbvPerBrix)), lots.Count);

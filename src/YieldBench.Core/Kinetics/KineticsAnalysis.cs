@@ -81,7 +81,9 @@ public static class KineticsAnalysis
             list.Add(log);
         }
 
-        var results = new List<LotKinetics>();
+        // Lots in input order (first of any repeated key); each is analysed on its own, so they run side by side and
+        // their results and findings are put back in this order.
+        var work = new List<(LotConversion Lot, List<FermentationLog> Logs)>();
         var withoutLog = new List<string>();
         var seen = new HashSet<string>(StringComparer.Ordinal);
         foreach (var lc in lots)
@@ -97,14 +99,30 @@ public static class KineticsAnalysis
                 continue;
             }
 
+            work.Add((lc, lotLogs));
+        }
+
+        var analysed = new LotKinetics?[work.Count];
+        var lotFindings = new List<KineticsFinding>[work.Count];
+        Parallel.For(0, work.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
+        {
+            var (lc, lotLogs) = work[i];
+            var own = new List<KineticsFinding>();
             if (lotLogs.Count > 1)
             {
-                findings.Add(new(lc.Lot.Key, "several-logs-for-lot", $"{lotLogs.Count} logs were found for lot {lc.Lot.Key}; their readings were combined.", FirstSource(lotLogs[1])));
+                own.Add(new(lc.Lot.Key, "several-logs-for-lot", $"{lotLogs.Count} logs were found for lot {lc.Lot.Key}; their readings were combined.", FirstSource(lotLogs[1])));
             }
 
             var readings = lotLogs.SelectMany(g => g.Readings).ToArray();
-            var lk = AnalyseLot(lc.Lot, readings, settings, findings);
-            if (lk is not null)
+            analysed[i] = AnalyseLot(lc.Lot, readings, settings, own);
+            lotFindings[i] = own;
+        });
+
+        var results = new List<LotKinetics>(work.Count);
+        for (int i = 0; i < work.Count; i++)
+        {
+            findings.AddRange(lotFindings[i]);
+            if (analysed[i] is { } lk)
             {
                 results.Add(lk);
             }

@@ -93,6 +93,7 @@ public static class ZwieteringFit
     /// <param name="minConsumedBrix">Least total consumption accepted, °Brix.</param>
     public static SigmoidFitResult Fit(SigmoidModel model, IReadOnlyList<double> hours, IReadOnlyList<double> consumedBrix, int minPoints = 6, double minConsumedBrix = 3.0)
     {
+        Statistics.MathNetSetup.SingleThreaded();
         ArgumentNullException.ThrowIfNull(hours);
         ArgumentNullException.ThrowIfNull(consumedBrix);
         if (hours.Count != consumedBrix.Count)

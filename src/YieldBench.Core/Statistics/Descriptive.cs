@@ -9,8 +9,17 @@ public static class Descriptive
     /// <summary>Median of an unsorted sample (copies it). NaN when empty.</summary>
     public static double Median(IEnumerable<double> values)
     {
-        var a = ToSortedArray(values);
-        return MedianOfSorted(a);
+        var a = values.ToArray();
+        foreach (double v in a)
+        {
+            if (double.IsNaN(v))
+            {
+                throw new ArgumentException("The sample holds NaN; filter missing values before computing statistics.", nameof(values));
+            }
+        }
+
+        // Selection instead of a full sort: the same order statistics, O(n) expected.
+        return MedianInPlace(a);
     }
 
     /// <summary>Median of an ascending-sorted array. NaN when empty.</summary>
@@ -109,6 +118,96 @@ public static class Descriptive
         {
             throw new ArgumentException("The sample holds NaN; filter missing values before computing statistics.", name);
         }
+    }
+
+    /// <summary>
+    /// Median of <paramref name="scratch"/> by selection (Hoare's quickselect, median-of-three pivots), O(n) expected
+    /// instead of a sort's O(n log n). Reorders the array. NaN when empty; the values must not hold NaN.
+    /// </summary>
+    public static double MedianInPlace(double[] scratch)
+    {
+        ArgumentNullException.ThrowIfNull(scratch);
+        int n = scratch.Length;
+        if (n == 0)
+        {
+            return double.NaN;
+        }
+
+        double upper = SelectInPlace(scratch, n / 2);
+        if (n % 2 == 1)
+        {
+            return upper;
+        }
+
+        // After selection every value left of n/2 is at most the upper middle; the largest of them is the lower middle.
+        double lower = scratch[0];
+        for (int i = 1; i < n / 2; i++)
+        {
+            lower = Math.Max(lower, scratch[i]);
+        }
+
+        return 0.5 * (lower + upper);
+    }
+
+    /// <summary>Places the k-th smallest (0-based) value at index k, smaller ones before it, larger after; returns it.</summary>
+    internal static double SelectInPlace(double[] a, int k)
+    {
+        int lo = 0, hi = a.Length - 1;
+        while (hi > lo)
+        {
+            int mid = lo + ((hi - lo) / 2);
+            if (a[mid] < a[lo])
+            {
+                (a[mid], a[lo]) = (a[lo], a[mid]);
+            }
+
+            if (a[hi] < a[lo])
+            {
+                (a[hi], a[lo]) = (a[lo], a[hi]);
+            }
+
+            if (a[hi] < a[mid])
+            {
+                (a[hi], a[mid]) = (a[mid], a[hi]);
+            }
+
+            double pivot = a[mid];
+            int i = lo, j = hi;
+            while (i <= j)
+            {
+                while (a[i] < pivot)
+                {
+                    i++;
+                }
+
+                while (a[j] > pivot)
+                {
+                    j--;
+                }
+
+                if (i <= j)
+                {
+                    (a[i], a[j]) = (a[j], a[i]);
+                    i++;
+                    j--;
+                }
+            }
+
+            if (k <= j)
+            {
+                hi = j;
+            }
+            else if (k >= i)
+            {
+                lo = i;
+            }
+            else
+            {
+                break;
+            }
+        }
+
+        return a[k];
     }
 
     /// <summary>Copies and sorts, rejecting NaN.</summary>

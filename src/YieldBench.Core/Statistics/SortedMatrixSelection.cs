@@ -149,26 +149,70 @@ internal static class SortedMatrixSelection
         return a - first;
     }
 
-    /// <summary>Smallest value whose cumulative weight exceeds half the total (weighted high median). Reorders the arrays' first m items.</summary>
-    private static double WeightedHighMedian(double[] values, long[] weights, int m)
+    /// <summary>
+    /// Smallest value whose cumulative weight exceeds half the total (weighted high median), by three-way
+    /// partitioning selection: O(m) expected per call, where sorting made it O(m log m) and the largest cost of Qn at
+    /// 100,000 values. Reorders the arrays' first m items.
+    /// </summary>
+    internal static double WeightedHighMedian(double[] values, long[] weights, int m)
     {
-        Array.Sort(values, weights, 0, m);
         long total = 0;
         for (int i = 0; i < m; i++)
         {
             total += weights[i];
         }
 
-        long cumulative = 0;
-        for (int i = 0; i < m; i++)
+        int lo = 0, hi = m - 1;
+        long before = 0; // weight of the values known to be below every value in [lo, hi]
+        while (lo < hi)
         {
-            cumulative += weights[i];
-            if (2 * cumulative > total)
+            int mid = lo + ((hi - lo) / 2);
+            double a = values[lo], b = values[mid], c = values[hi];
+            double pivot = a < b ? (b < c ? b : (a < c ? c : a)) : (a < c ? a : (b < c ? c : b));
+
+            // Dutch-flag partition of [lo, hi]: < pivot, then == pivot, then > pivot.
+            int lt = lo, i = lo, gt = hi;
+            long weightBelow = 0, weightEqual = 0;
+            while (i <= gt)
             {
-                return values[i];
+                double v = values[i];
+                if (v < pivot)
+                {
+                    weightBelow += weights[i];
+                    Swap(values, weights, lt++, i++);
+                }
+                else if (v > pivot)
+                {
+                    Swap(values, weights, i, gt--);
+                }
+                else
+                {
+                    weightEqual += weights[i];
+                    i++;
+                }
+            }
+
+            if (2 * (before + weightBelow) > total)
+            {
+                hi = lt - 1;
+            }
+            else if (2 * (before + weightBelow + weightEqual) > total)
+            {
+                return pivot;
+            }
+            else
+            {
+                before += weightBelow + weightEqual;
+                lo = gt + 1;
             }
         }
 
-        return values[m - 1];
+        return values[lo];
+    }
+
+    private static void Swap(double[] values, long[] weights, int a, int b)
+    {
+        (values[a], values[b]) = (values[b], values[a]);
+        (weights[a], weights[b]) = (weights[b], weights[a]);
     }
 }

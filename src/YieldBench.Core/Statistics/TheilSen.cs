@@ -38,9 +38,10 @@ public static class TheilSen
     /// <summary>
     /// Fits the line. <paramref name="level"/> in (0, 1) is the slope interval's coverage (default 0.95).
     /// <paramref name="seed"/> drives only the sampling used to bracket order statistics for large n; the result
-    /// is the same for every seed.
+    /// is the same for every seed. With <paramref name="withInterval"/> false the slope interval is not computed
+    /// (undefined in the result), which saves two of the four order-statistic selections when only the line is needed.
     /// </summary>
-    public static TheilSenLine Fit(IReadOnlyList<double> x, IReadOnlyList<double> y, double level = 0.95, int seed = 1)
+    public static TheilSenLine Fit(IReadOnlyList<double> x, IReadOnlyList<double> y, double level = 0.95, int seed = 1, bool withInterval = true)
     {
         ArgumentNullException.ThrowIfNull(x);
         ArgumentNullException.ThrowIfNull(y);
@@ -79,6 +80,11 @@ public static class TheilSen
             slope = 0.5 * (middle[0] + middle[1]);
         }
 
+        double intercept = Descriptive.Median(y) - (slope * Descriptive.MedianOfSorted(xs));
+        if (!withInterval)
+        {
+            return new TheilSenLine(slope, intercept, Interval.Undefined(level), n, pairs, null);
+        }
 
         double sigmaSquared = ((double)n * (n - 1) * ((2.0 * n) + 5) - TieTerm(xs) - TieTerm(Descriptive.ToSortedArray(y))) / 18.0;
         double z = Normal.InvCDF(0, 1, (1 - level) / 2);
@@ -88,7 +94,6 @@ public static class TheilSen
         long upper = Math.Min((long)Math.Round((pairs - (z * sigma)) / 2.0, MidpointRounding.ToEven), pairs - 1);
         long lower = Math.Max((long)Math.Round((pairs + (z * sigma)) / 2.0, MidpointRounding.ToEven) - 1, 0);
         var interval = new Interval(select(lower + 1, lower + 1)[0], select(upper + 1, upper + 1)[0], level);
-        double intercept = Descriptive.Median(y) - (slope * Descriptive.MedianOfSorted(xs));
         return new TheilSenLine(slope, intercept, interval, n, pairs, null);
     }
 
@@ -174,9 +179,31 @@ public static class TheilSen
 
             // Points in x order, ties in x by descending y, so every tied-x pair is an inversion of y − t·x
             // at every t and can be subtracted as a constant.
-            var order = Enumerable.Range(0, n).OrderBy(i => x[i]).ThenByDescending(i => y[i]).ThenBy(i => i).ToArray();
-            px = order.Select(i => x[i]).ToArray();
-            py = order.Select(i => y[i]).ToArray();
+            var xa = x.ToArray();
+            var ya = y.ToArray();
+            var order = new int[n];
+            for (int i = 0; i < n; i++)
+            {
+                order[i] = i;
+            }
+
+            Array.Sort(order, (a, b) =>
+            {
+                int c = xa[a].CompareTo(xa[b]);
+                if (c == 0)
+                {
+                    c = ya[b].CompareTo(ya[a]);
+                }
+
+                return c != 0 ? c : a.CompareTo(b);
+            });
+            px = new double[n];
+            py = new double[n];
+            for (int i = 0; i < n; i++)
+            {
+                px[i] = xa[order[i]];
+                py[i] = ya[order[i]];
+            }
             tiedXPairs = TiedPairs(px);
             pairs = ((long)n * (n - 1) / 2) - tiedXPairs;
             keys = new double[n];

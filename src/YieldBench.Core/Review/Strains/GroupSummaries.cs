@@ -11,7 +11,7 @@ internal static class GroupSummaries
 
     public static IReadOnlyList<GroupSummary> Build(IReadOnlyList<PreparedLot> lots, StrainReviewSettings settings, int seed)
     {
-        var result = new List<GroupSummary>();
+        var jobs = new List<(string Grouping, string Group, ConversionMeasure Measure, PreparedLot[] Lots)>();
         foreach (string grouping in Groupings.All)
         {
             var groups = lots
@@ -20,13 +20,19 @@ internal static class GroupSummaries
                 .ThenBy(g => g.Key, StringComparer.Ordinal);
             foreach (var group in groups)
             {
+                var members = group.ToArray();
                 foreach (var measure in ConversionMeasureNames.All)
                 {
-                    result.Add(Summarise(grouping, group.Key, measure, group.ToArray(), settings, seed));
+                    jobs.Add((grouping, group.Key, measure, members));
                 }
             }
         }
 
+        // Each summary depends only on its own lots and its own derived bootstrap seed, so they are computed side by
+        // side and kept in the order above.
+        var result = new GroupSummary[jobs.Count];
+        Parallel.For(0, jobs.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
+            result[i] = Summarise(jobs[i].Grouping, jobs[i].Group, jobs[i].Measure, jobs[i].Lots, settings, seed));
         return result;
     }
 
