@@ -244,6 +244,17 @@ public static class RobustRegression
         };
     }
 
+    /// <summary>
+    /// True when the design's columns are linearly independent (numerical rank = number of columns), judged as
+    /// <see cref="Huber"/> judges it before fitting. Costs one thin QR of the design.
+    /// </summary>
+    public static bool HasFullColumnRank(double[,] design)
+    {
+        ArgumentNullException.ThrowIfNull(design);
+        int n = design.GetLength(0), p = design.GetLength(1);
+        return n >= p && NumericalRank(Matrix<double>.Build.DenseOfArray(design), n, p) == p;
+    }
+
     private static double[] WeightedLeastSquares(double[] xc, int n, int p, double[] y, double[] w)
     {
         var xw = new double[n * p];

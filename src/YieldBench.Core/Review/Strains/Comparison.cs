@@ -122,7 +122,7 @@ internal static class Comparison
         foreach (bool withVessel in vesselUsable ? new[] { true, false } : new[] { false })
         {
             var design = Design(used, strains, withVessel ? vessels : [], reference, out var names);
-            if (used.Length <= names.Count + 1 || MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfArray(design).Rank() < names.Count)
+            if (used.Length <= names.Count + 1 || !RobustRegression.HasFullColumnRank(design))
             {
                 if (withVessel)
                 {
