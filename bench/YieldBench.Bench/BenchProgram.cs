@@ -78,10 +78,13 @@ internal static class BenchProgram
         Directory.CreateDirectory(results);
         var runs = new List<RunResult>();
 
+        CommandTiming? command = null;
         if (opts.GetValueOrDefault("skip-demo", "no") != "yes")
         {
             output.WriteLine($"bench: demo review of {demo}");
             runs.Add(Measured(["measure", "--name", "demo", "--inputs", demo, "--out", Path.Combine(work, "demo-report")], budget, error));
+            output.WriteLine("bench: the review command on the demo data, as a user runs it (3 times)");
+            command = TimeCommand(demo, Path.Combine(work, "demo-command"), 3, error);
         }
 
         foreach (int n in sizes)
@@ -93,7 +96,7 @@ internal static class BenchProgram
             runs.Add(Measured(["measure", "--name", $"{n} lots", "--inputs", string.Join('|', gen.LogsPaths.Prepend(gen.LotsPath)), "--out", Path.Combine(dir, "report"), "--lots", n.ToString(Inv), "--readings", gen.Readings.ToString(Inv), "--gen-seconds", gen.Seconds.ToString("R", Inv)], budget, error));
         }
 
-        string table = Table(runs);
+        string table = Table(runs) + (command is null ? string.Empty : "\n" + command.Describe() + "\n");
         output.Write(table);
         File.WriteAllText(Path.Combine(results, "results.md"), Machine() + "\n" + table);
         File.WriteAllText(Path.Combine(results, "results.json"), JsonSerializer.Serialize(runs, new JsonSerializerOptions { WriteIndented = true }));
@@ -139,7 +142,8 @@ internal static class BenchProgram
         Console.Error.WriteLine("start\t" + JsonSerializer.Serialize(new RunResult(name, lots, readings, 0, inputBytes, genSeconds, [], 0, 0, 0, 0), Json));
         clock.Start("read (intake)");
         var set = IntakeReader.Read(inputs, new IntakeOptions());
-        var review = ReviewRunner.Run(set, new ReviewSettings(), "bench", null, clock);
+        // The same candidates as the review command, the multi-variable model included.
+        var review = ReviewRunner.Run(set, new ReviewSettings(), "bench", [new YieldBench.Modeling.MultiVariableCandidate()], clock);
         ReportWriter.Write(review, outDir, clock);
         clock.Stop();
 
@@ -228,6 +232,71 @@ internal static class BenchProgram
         string last = stdout.Result.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1];
         return JsonSerializer.Deserialize<RunResult>(last, Json) ?? throw new InvalidOperationException("Empty child result.");
     }
+
+    /// <summary>Wall time and peak resident memory of the review command as a process, over several runs.</summary>
+    private sealed record CommandTiming(string Command, IReadOnlyList<double> WallSeconds, IReadOnlyList<long> PeakBytes)
+    {
+        public string Describe() => string.Create(Inv,
+            $"The review command on the demo data as a process (`{Command}`): wall {string.Join(", ", WallSeconds.Select(w => w.ToString("0.00", Inv)))} s (best {WallSeconds.Min():0.00} s), peak resident memory {PeakBytes.Max() / 1048576.0:0} MB.");
+    }
+
+    /// <summary>
+    /// Runs <c>yieldbench review</c> (the Release build next to this benchmark's) on the demo data and times it from
+    /// process start to exit, start-up and JIT included; peak memory is the largest resident size seen while it runs.
+    /// </summary>
+    private static CommandTiming TimeCommand(string demo, string outDir, int repeats, TextWriter error)
+    {
+        string cli = Path.Combine(FindRoot(), "src", "YieldBench.Cli", "bin", BuildConfiguration(), "net10.0", "yieldbench.dll");
+        if (!File.Exists(cli))
+        {
+            throw new InvalidOperationException($"The review command is not built at {cli}; build it first: dotnet build -c {BuildConfiguration()}");
+        }
+
+        var walls = new List<double>();
+        var peaks = new List<long>();
+        for (int i = 0; i < repeats; i++)
+        {
+            var start = new ProcessStartInfo(Environment.ProcessPath ?? "dotnet") { UseShellExecute = false, RedirectStandardOutput = true, RedirectStandardError = true };
+            foreach (var a in new[] { cli, "review", demo, "--out", outDir, "--quiet" })
+            {
+                start.ArgumentList.Add(a);
+            }
+
+            var watch = Stopwatch.StartNew();
+            using var p = Process.Start(start) ?? throw new InvalidOperationException("Could not start the review command.");
+            var stdout = p.StandardOutput.ReadToEndAsync();
+            var stderr = p.StandardError.ReadToEndAsync();
+            long peak = 0;
+            while (!p.WaitForExit(5))
+            {
+                try
+                {
+                    p.Refresh();
+                    peak = Math.Max(peak, Math.Max(p.PeakWorkingSet64, p.WorkingSet64));
+                }
+                catch (InvalidOperationException)
+                {
+                    break;
+                }
+            }
+
+            p.WaitForExit();
+            walls.Add(watch.Elapsed.TotalSeconds);
+            peaks.Add(peak);
+            if (p.ExitCode > 1)
+            {
+                error.WriteLine(stdout.Result + stderr.Result);
+                throw new InvalidOperationException($"The review command exited {p.ExitCode}.");
+            }
+
+            error.WriteLine(string.Create(Inv, $"bench:   review command run {i + 1}: {walls[^1]:0.00} s wall, {peak / 1048576.0:0} MB peak"));
+        }
+
+        return new CommandTiming($"dotnet src/YieldBench.Cli/bin/{BuildConfiguration()}/net10.0/yieldbench.dll review demo-data --out DIR --quiet", walls, peaks);
+    }
+
+    private static string BuildConfiguration() =>
+        AppContext.BaseDirectory.Contains($"{Path.DirectorySeparatorChar}Debug{Path.DirectorySeparatorChar}", StringComparison.Ordinal) ? "Debug" : "Release";
 
     private static ProcessStartInfo ChildStart(string[] args)
     {

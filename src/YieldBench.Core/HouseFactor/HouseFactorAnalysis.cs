@@ -60,9 +60,14 @@ public static class HouseFactorAnalysis
         {
             // Candidates share nothing mutable and each is seeded, so evaluating them side by side gives the same
             // results as one after another; the array keeps their order.
+            // Costly candidates start first and each thread takes the next candidate when it is free, so the slowest
+            // (the multi-variable model) runs beside all the quick ones instead of after them.
             var evaluated = new CandidateResult[candidates.Length];
-            Parallel.For(0, candidates.Length, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
-                evaluated[i] = Evaluate(candidates[i], usable, seasons.Length, settings, seed));
+            var order = Enumerable.Range(0, candidates.Length).OrderByDescending(i => candidates[i].IsCostly).ThenByDescending(i => candidates[i].Complexity).ToArray();
+            Parallel.ForEach(
+                System.Collections.Concurrent.Partitioner.Create(order, System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering),
+                new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount },
+                i => evaluated[i] = Evaluate(candidates[i], usable, seasons.Length, settings, seed));
             results.AddRange(evaluated);
         }
 

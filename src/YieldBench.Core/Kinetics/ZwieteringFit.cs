@@ -1,6 +1,3 @@
-using MathNet.Numerics.LinearAlgebra;
-using MathNet.Numerics.Optimization;
-
 namespace YieldBench.Core.Kinetics;
 
 /// <summary>The two sigmoid forms of Zwietering et al. (1990), reparameterised with biologically meaningful parameters.</summary>
@@ -41,8 +38,8 @@ public sealed record SigmoidFitResult(SigmoidFit? Fit, string? Reason)
 }
 
 /// <summary>
-/// Fits the Zwietering et al. (1990) modified Gompertz or logistic curve by Levenberg–Marquardt
-/// (MathNet.Numerics <see cref="LevenbergMarquardtMinimizer"/>) with analytic derivatives and box bounds.
+/// Fits the Zwietering et al. (1990) modified Gompertz or logistic curve by Levenberg–Marquardt with analytic
+/// derivatives and box bounds (checked against scipy's curve_fit in the tests).
 /// </summary>
 public static class ZwieteringFit
 {
@@ -93,7 +90,6 @@ public static class ZwieteringFit
     /// <param name="minConsumedBrix">Least total consumption accepted, °Brix.</param>
     public static SigmoidFitResult Fit(SigmoidModel model, IReadOnlyList<double> hours, IReadOnlyList<double> consumedBrix, int minPoints = 6, double minConsumedBrix = 3.0)
     {
-        Statistics.MathNetSetup.SingleThreaded();
         ArgumentNullException.ThrowIfNull(hours);
         ArgumentNullException.ThrowIfNull(consumedBrix);
         if (hours.Count != consumedBrix.Count)
@@ -142,46 +138,16 @@ public static class ZwieteringFit
 
         double a0 = yMax * 1.02;
         double lambda0 = Math.Clamp(tAt - (yAt / mu0), tMin - span, tMax);
-        var lower = Vector<double>.Build.DenseOfArray([yMax * 0.5, mu0 * 1e-3, tMin - span]);
-        var upper = Vector<double>.Build.DenseOfArray([yMax * 3.0, mu0 * 20.0, tMax]);
-        var x = Vector<double>.Build.DenseOfEnumerable(hours);
-        var y = Vector<double>.Build.DenseOfEnumerable(consumedBrix);
-
-        Vector<double> F(Vector<double> p, Vector<double> t) =>
-            Vector<double>.Build.Dense(t.Count, i => Evaluate(model, p[0], p[1], p[2], t[i]));
-
-        Matrix<double> J(Vector<double> p, Vector<double> t)
+        double[] lower = [yMax * 0.5, mu0 * 1e-3, tMin - span];
+        double[] upper = [yMax * 3.0, mu0 * 20.0, tMax];
+        var t = hours.ToArray();
+        var y = consumedBrix.ToArray();
+        var (p, iterations, converged) = LevenbergMarquardt(model, t, y, [a0, mu0, lambda0], lower, upper);
+        if (!converged)
         {
-            var m = Matrix<double>.Build.Dense(t.Count, 3);
-            for (int i = 0; i < t.Count; i++)
-            {
-                var (dA, dMu, dL) = Gradient(model, p[0], p[1], p[2], t[i]);
-                m[i, 0] = dA;
-                m[i, 1] = dMu;
-                m[i, 2] = dL;
-            }
-
-            return m;
+            return new(null, $"no sigmoid fit: Levenberg–Marquardt did not converge (no settled optimum after {iterations} iterations)");
         }
 
-        NonlinearMinimizationResult result;
-        try
-        {
-            var objective = ObjectiveFunction.NonlinearModel(F, J, x, y);
-            var solver = new LevenbergMarquardtMinimizer(maximumIterations: 500);
-            result = solver.FindMinimum(objective, Vector<double>.Build.DenseOfArray([a0, mu0, lambda0]), lower, upper);
-        }
-        catch (Exception ex) when (ex is ArithmeticException or ArgumentException or InvalidOperationException or MathNet.Numerics.NonConvergenceException or OptimizationException)
-        {
-            return new(null, $"no sigmoid fit: the solver failed ({ex.GetType().Name})");
-        }
-
-        if (result.ReasonForExit is ExitCondition.ExceedIterations or ExitCondition.InvalidValues or ExitCondition.ManuallyStopped)
-        {
-            return new(null, $"no sigmoid fit: Levenberg–Marquardt did not converge ({result.ReasonForExit} after {result.Iterations} iterations)");
-        }
-
-        var p = result.MinimizingPoint;
         if (p.Any(v => !double.IsFinite(v)))
         {
             return new(null, "no sigmoid fit: the solver returned non-finite parameters");
@@ -206,6 +172,158 @@ public static class ZwieteringFit
             ssTot += (consumedBrix[i] - mean) * (consumedBrix[i] - mean);
         }
 
-        return new(new SigmoidFit(model, p[0], p[1], p[2], Math.Sqrt(ssRes / n), ssTot > 0 ? 1.0 - (ssRes / ssTot) : double.NaN, n, result.Iterations), null);
+        return new(new SigmoidFit(model, p[0], p[1], p[2], Math.Sqrt(ssRes / n), ssTot > 0 ? 1.0 - (ssRes / ssTot) : double.NaN, n, iterations), null);
+    }
+
+    /// <summary>Most iterations of <see cref="LevenbergMarquardt"/>.</summary>
+    public const int MaximumIterations = 500;
+
+    /// <summary>
+    /// Levenberg–Marquardt for the three parameters (Marquardt 1963; Moré 1978 for the scaling and stopping rules, as
+    /// MINPACK's lmder that scipy's curve_fit calls): each step solves (JᵀJ + μ·diag(JᵀJ))·δ = Jᵀr by Cholesky, the
+    /// trial point is clipped to the box, a step that lowers the sum of squares is taken and μ shrinks tenfold,
+    /// otherwise μ grows tenfold. It stops when the relative decrease of the sum of squares and the relative step both
+    /// fall below 1e-14 (scipy's tolerances in the reference fits), or when no step can lower the sum any more.
+    /// Written out for three parameters because a general solver allocated vectors and matrices on every evaluation,
+    /// the largest cost of a review with tens of thousands of logs.
+    /// </summary>
+    private static (double[] P, int Iterations, bool Converged) LevenbergMarquardt(SigmoidModel model, double[] t, double[] y, double[] start, double[] lower, double[] upper)
+    {
+        const double tolerance = 1e-14;
+        int n = t.Length;
+        var p = new double[3];
+        for (int k = 0; k < 3; k++)
+        {
+            p[k] = Math.Clamp(start[k], lower[k], upper[k]);
+        }
+
+        double ssr = SumOfSquares(model, t, y, p);
+        double damping = 1e-3;
+        Span<double> jtj = stackalloc double[9];
+        Span<double> g = stackalloc double[3];
+        Span<double> a = stackalloc double[9];
+        Span<double> step = stackalloc double[3];
+        var trial = new double[3];
+        for (int iter = 1; iter <= MaximumIterations; iter++)
+        {
+            jtj.Clear();
+            g.Clear();
+            for (int i = 0; i < n; i++)
+            {
+                var (d0, d1, d2) = Gradient(model, p[0], p[1], p[2], t[i]);
+                double r = y[i] - Evaluate(model, p[0], p[1], p[2], t[i]);
+                jtj[0] += d0 * d0; jtj[1] += d0 * d1; jtj[2] += d0 * d2;
+                jtj[4] += d1 * d1; jtj[5] += d1 * d2; jtj[8] += d2 * d2;
+                g[0] += d0 * r; g[1] += d1 * r; g[2] += d2 * r;
+            }
+
+            jtj[3] = jtj[1]; jtj[6] = jtj[2]; jtj[7] = jtj[5];
+            if (!(double.IsFinite(jtj[0]) && double.IsFinite(jtj[4]) && double.IsFinite(jtj[8])))
+            {
+                return (p, iter, false);
+            }
+
+            while (true)
+            {
+                jtj.CopyTo(a);
+                for (int k = 0; k < 3; k++)
+                {
+                    a[(k * 3) + k] += damping * Math.Max(jtj[(k * 3) + k], 1e-300);
+                }
+
+                if (!SolveSymmetric3(a, g, step))
+                {
+                    damping *= 10;
+                    if (damping > 1e20)
+                    {
+                        return (p, iter, true);
+                    }
+
+                    continue;
+                }
+
+                for (int k = 0; k < 3; k++)
+                {
+                    trial[k] = Math.Clamp(p[k] + step[k], lower[k], upper[k]);
+                }
+
+                double trialSsr = SumOfSquares(model, t, y, trial);
+                if (double.IsFinite(trialSsr) && trialSsr < ssr)
+                {
+                    double relativeDecrease = (ssr - trialSsr) / Math.Max(ssr, 1e-300);
+                    double relativeStep = 0;
+                    for (int k = 0; k < 3; k++)
+                    {
+                        relativeStep = Math.Max(relativeStep, Math.Abs(trial[k] - p[k]) / (Math.Abs(p[k]) + tolerance));
+                    }
+
+                    Array.Copy(trial, p, 3);
+                    ssr = trialSsr;
+                    damping = Math.Max(damping / 10, 1e-15);
+                    if (relativeDecrease <= tolerance && relativeStep <= 1e-10)
+                    {
+                        return (p, iter, true);
+                    }
+
+                    break;
+                }
+
+                damping *= 10;
+                if (damping > 1e20)
+                {
+                    // No step in any direction lowers the sum of squares: p is the optimum to machine precision.
+                    return (p, iter, true);
+                }
+            }
+        }
+
+        return (p, MaximumIterations, false);
+    }
+
+    private static double SumOfSquares(SigmoidModel model, double[] t, double[] y, double[] p)
+    {
+        double sum = 0;
+        for (int i = 0; i < t.Length; i++)
+        {
+            double r = y[i] - Evaluate(model, p[0], p[1], p[2], t[i]);
+            sum += r * r;
+        }
+
+        return sum;
+    }
+
+    /// <summary>Solves the symmetric 3×3 system a·x = b by Cholesky; false when a is not positive definite.</summary>
+    private static bool SolveSymmetric3(Span<double> a, ReadOnlySpan<double> b, Span<double> x)
+    {
+        double l00 = a[0];
+        if (!(l00 > 0))
+        {
+            return false;
+        }
+
+        l00 = Math.Sqrt(l00);
+        double l10 = a[3] / l00, l20 = a[6] / l00;
+        double d11 = a[4] - (l10 * l10);
+        if (!(d11 > 0))
+        {
+            return false;
+        }
+
+        double l11 = Math.Sqrt(d11);
+        double l21 = (a[7] - (l20 * l10)) / l11;
+        double d22 = a[8] - (l20 * l20) - (l21 * l21);
+        if (!(d22 > 0))
+        {
+            return false;
+        }
+
+        double l22 = Math.Sqrt(d22);
+        double z0 = b[0] / l00;
+        double z1 = (b[1] - (l10 * z0)) / l11;
+        double z2 = (b[2] - (l20 * z0) - (l21 * z1)) / l22;
+        x[2] = z2 / l22;
+        x[1] = (z1 - (l21 * x[2])) / l11;
+        x[0] = (z0 - (l10 * x[1]) - (l20 * x[2])) / l00;
+        return double.IsFinite(x[0]) && double.IsFinite(x[1]) && double.IsFinite(x[2]);
     }
 }
