@@ -148,4 +148,34 @@ public class MultiVariableCandidateTests
         // Then the numbers are identical and in input order
         Assert.Equal(single, batch);
     }
+
+    [Fact]
+    public void Large_training_sets_are_sampled_by_seed_and_small_ones_used_whole()
+    {
+        // Given more lots than the training limit, with distinct lot ids
+        var many = Lots(3, MultiVariableCandidate.MaximumTrainingLots + 1500);
+        var few = Lots(4, 200);
+
+        // When the candidate draws its training lots
+        var a = MultiVariableCandidate.Sample(many, 7);
+        var b = MultiVariableCandidate.Sample(many, 7);
+        var c = MultiVariableCandidate.Sample(many, 8);
+
+        // Then a large set gives exactly the limit, distinct lots in their input order, the same for the same seed
+        Assert.Equal(MultiVariableCandidate.MaximumTrainingLots, a.Count);
+        Assert.Equal(a.Count, a.Select(l => l.Lot.LotId).Distinct().Count());
+        var index = new Dictionary<object, int>(ReferenceEqualityComparer.Instance);
+        for (int i = 0; i < many.Count; i++)
+        {
+            index[many[i]] = i;
+        }
+
+        var positions = a.Select(l => index[l]).ToArray();
+        Assert.Equal(positions.Order(), positions);
+        Assert.Equal(a, b);
+        Assert.NotEqual(a, c);
+
+        // And a small set is used whole
+        Assert.Same(few, MultiVariableCandidate.Sample(few, 7));
+    }
 }
