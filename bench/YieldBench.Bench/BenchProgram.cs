@@ -45,12 +45,12 @@ internal static class BenchProgram
                 output.WriteLine(JsonSerializer.Serialize(Generate(int.Parse(opts["lots"], Inv), opts["dir"]), Json));
                 return 0;
             case "measure":
-                output.WriteLine(JsonSerializer.Serialize(Measure(opts["name"], opts["inputs"].Split('|'), opts["out"], int.Parse(opts.GetValueOrDefault("lots", "0"), Inv), long.Parse(opts.GetValueOrDefault("readings", "0"), Inv), double.Parse(opts.GetValueOrDefault("gen-seconds", "0"), Inv)), Json));
+                output.WriteLine(JsonSerializer.Serialize(Measure(opts["name"], opts["inputs"].Split('|'), opts["out"], int.Parse(opts.GetValueOrDefault("lots", "0"), Inv), long.Parse(opts.GetValueOrDefault("readings", "0"), Inv), double.Parse(opts.GetValueOrDefault("gen-seconds", "0"), Inv), opts.GetValueOrDefault("reports", "yes") == "yes"), Json));
                 return 0;
             case "run":
                 return Orchestrate(opts, output, error);
             default:
-                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR] [--budget SECONDS per run] [--skip-demo yes]");
+                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR] [--budget SECONDS per run] [--skip-demo yes]; measure --name N --inputs 'a|b' --out DIR [--reports no] (one run, for profiling)");
                 return 2;
         }
     }
@@ -120,7 +120,7 @@ internal static class BenchProgram
         return new GenResult(lots, readings, bytes, watch.Elapsed.TotalSeconds, lotsPath, logsPaths);
     }
 
-    private static RunResult Measure(string name, string[] inputs, string outDir, int lots, long readings, double genSeconds)
+    private static RunResult Measure(string name, string[] inputs, string outDir, int lots, long readings, double genSeconds, bool reports)
     {
         var files = inputs.SelectMany<string, string>(p => Directory.Exists(p)
                 ? Directory.GetFiles(p).Where(f => IntakeReader.Extensions.Contains(Path.GetExtension(f).ToLowerInvariant())).Order(StringComparer.Ordinal)
@@ -144,7 +144,11 @@ internal static class BenchProgram
         var set = IntakeReader.Read(inputs, new IntakeOptions());
         // The same candidates as the review command, the multi-variable model included.
         var review = ReviewRunner.Run(set, new ReviewSettings(), "bench", [new YieldBench.Modeling.MultiVariableCandidate()], clock);
-        ReportWriter.Write(review, outDir, clock);
+        if (reports)
+        {
+            ReportWriter.Write(review, outDir, clock);
+        }
+
         clock.Stop();
 
         var stages = clock.Stages;

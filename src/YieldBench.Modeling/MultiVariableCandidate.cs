@@ -109,19 +109,8 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
     }
 
     /// <summary>The lots themselves, or a seeded sample of <see cref="MaximumTrainingLots"/> of them in their input order.</summary>
-    internal static IReadOnlyList<LotConversion> Sample(IReadOnlyList<LotConversion> lots, int seed)
-    {
-        if (lots.Count <= MaximumTrainingLots)
-        {
-            return lots;
-        }
-
-        var order = Enumerable.Range(0, lots.Count).ToArray();
-        new Random(seed).Shuffle(order);
-        var chosen = order.AsSpan(0, MaximumTrainingLots).ToArray();
-        Array.Sort(chosen);
-        return chosen.Select(i => lots[i]).ToArray();
-    }
+    internal static IReadOnlyList<LotConversion> Sample(IReadOnlyList<LotConversion> lots, int seed) =>
+        TrainingSample.Of(lots, MaximumTrainingLots, seed);
 
     private sealed class Predictor(MLContext ml, ITransformer model, FeaturePlan plan, double centre) : IAbvPredictor
     {

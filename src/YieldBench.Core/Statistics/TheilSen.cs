@@ -60,6 +60,9 @@ public static class TheilSen
             }
         }
 
+        // x values equal but for floating-point noise (24.999999999999996 and 25, as sugar conversions and addition
+        // balances produce) are ties: compared unrounded they make pairs with slopes of ±10¹⁴ that mean nothing.
+        x = x.Select(SnapNoise).ToArray();
         var xs = Descriptive.ToSortedArray(x);
         long tiedXPairs = TiedPairs(xs);
         long pairs = ((long)n * (n - 1) / 2) - tiedXPairs;
@@ -95,6 +98,21 @@ public static class TheilSen
         long lower = Math.Max((long)Math.Round((pairs + (z * sigma)) / 2.0, MidpointRounding.ToEven) - 1, 0);
         var interval = new Interval(select(lower + 1, lower + 1)[0], select(upper + 1, upper + 1)[0], level);
         return new TheilSenLine(slope, intercept, interval, n, pairs, null);
+    }
+
+    /// <summary>Significant digits x is rounded to before pairs are formed (measurements carry four or fewer).</summary>
+    public const int SignificantDigitsOfX = 12;
+
+    private static double SnapNoise(double v)
+    {
+        if (v == 0 || !double.IsFinite(v))
+        {
+            return v;
+        }
+
+        int magnitude = (int)Math.Floor(Math.Log10(Math.Abs(v))) + 1;
+        int decimals = SignificantDigitsOfX - magnitude;
+        return decimals is >= 0 and <= 15 ? Math.Round(v, decimals, MidpointRounding.ToEven) : v;
     }
 
     private static Func<long, long, double[]> DirectSelector(IReadOnlyList<double> x, IReadOnlyList<double> y)
@@ -274,7 +292,7 @@ public static class TheilSen
         {
             int n = px.Length;
             long window = Math.Max(4L * n, 4096);
-            var (lo, cLo, hi, cHi) = Extremes();
+            var (lo, cLo, hi, cHi) = Extremes(kLow, kHigh);
 
             // Bracket: CountAtOrBelow(lo) < kLow and kHigh ≤ CountAtOrBelow(hi).
             double q = (double)kLow / pairs;
@@ -337,19 +355,21 @@ public static class TheilSen
         /// A bracket holding every slope: the extremes with a margin, their counts taken rather than assumed, because
         /// comparing y − t·x for t within rounding noise of a slope is unreliable. Computed once.
         /// </summary>
-        private (double Lo, long CLo, double Hi, long CHi) Extremes()
+        private (double Lo, long CLo, double Hi, long CHi) Extremes(long kLow, long kHigh)
         {
-            if (extremes is { } known)
+            if (extremes is { } known && known.CLo < kLow && known.CHi >= kHigh)
             {
                 return known;
             }
 
+            // Widen until the bracket holds the wanted ranks. Counts at slopes far beyond every real slope are not
+            // exact in floating point, so "all pairs inside" is not required: holding kLow..kHigh is what selection needs.
             double spanMargin = 1e-6 * Math.Max(1, Math.Max(Math.Abs(minSlope), Math.Abs(maxSlope)));
-            while (true)
+            for (int attempt = 0; ; attempt++)
             {
                 double lo = minSlope - spanMargin, hi = maxSlope + spanMargin;
                 long cLo = CountAtOrBelow(lo), cHi = CountAtOrBelow(hi);
-                if (cLo == 0 && cHi == pairs)
+                if ((cLo < kLow && cHi >= kHigh) || attempt >= 40)
                 {
                     extremes = (lo, cLo, hi, cHi);
                     return extremes.Value;

@@ -68,4 +68,51 @@ public sealed class SelectionTests
             Assert.Equal(expected, SortedMatrixSelection.WeightedHighMedian(values, weights, m));
         }
     }
+
+    [Fact]
+    public void Theil_Sen_treats_x_values_equal_but_for_rounding_noise_as_ties()
+    {
+        // Given four points, two of whose x values differ only by floating-point noise (as 24.999999999999996 and 25)
+        double[] x = [1, 2, 2 + 4e-15, 3];
+        double[] y = [1, 2, 5, 3];
+
+        // When the line is fitted
+        var line = TheilSen.Fit(x, y);
+
+        // Then that pair is a tie (5 pairs, not 6, and no slope of 10^15): the slopes are 1, 4, 2, 1, -2 → median 1
+        Assert.Equal(5, line.Pairs);
+        Assert.Equal(1.0, line.Slope, 12);
+    }
+
+    [Fact]
+    public void Theil_Sen_beyond_the_direct_limit_gives_the_exact_median_slope_of_the_noise_free_points()
+    {
+        // Given 1,600 points (above the direct limit) at sugars rounded to 0.1, with ±3e-15 of noise added to x
+        var random = new Random(11);
+        var clean = Enumerable.Range(0, 1600).Select(_ => Math.Round(20 + (random.NextDouble() * 8), 1)).ToArray();
+        var x = clean.Select(v => v + ((random.Next(3) - 1) * 3e-15)).ToArray();
+        var y = clean.Select(v => Math.Round((0.6 * v) + (random.NextDouble() - 0.5), 2)).ToArray();
+
+        // When the large-n selector fits the noisy points
+        var line = TheilSen.Fit(x, y);
+
+        // Then it gives the median of the pairwise slopes of the noise-free points, formed here one by one
+        var slopes = new List<double>();
+        for (int i = 0; i < clean.Length; i++)
+        {
+            for (int j = i + 1; j < clean.Length; j++)
+            {
+                if (clean[i] != clean[j])
+                {
+                    slopes.Add((y[j] - y[i]) / (clean[j] - clean[i]));
+                }
+            }
+        }
+
+        slopes.Sort();
+        int m = slopes.Count;
+        double expected = m % 2 == 1 ? slopes[m / 2] : 0.5 * (slopes[(m / 2) - 1] + slopes[m / 2]);
+        Assert.Equal(m, line.Pairs);
+        Assert.Equal(expected, line.Slope, 9);
+    }
 }

@@ -268,11 +268,12 @@ internal static class OddLots
             return scale > 0 ? new StrainLine(name, line, scale) : null;
         }
 
-        var pooled = finished.Length >= 2 ? Fit("all finished lots (pooled line)", finished) : null;
+        // Fitted only when a strain needs it (one with too few finished lots): at 100,000 lots it is the largest fit here.
+        var pooled = new Lazy<StrainLine?>(() => finished.Length >= 2 ? Fit("all finished lots (pooled line)", finished) : null);
         var byStrain = finished.GroupBy(l => l.Strain, StringComparer.Ordinal)
             .Where(g => g.Count() >= settings.MinLotsForStrainLine)
             .ToDictionary(g => g.Key, g => Fit("strain " + g.Key, g.ToArray()), StringComparer.Ordinal);
-        return strain => byStrain.TryGetValue(strain, out var r) && r is not null ? r : pooled;
+        return strain => byStrain.TryGetValue(strain, out var r) && r is not null ? r : pooled.Value;
     }
 
     /// <summary>Flags a starting sugar whose adjacent-digit swap would put the lot on its line.</summary>
