@@ -39,10 +39,10 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
     /// <summary>
     /// Most lots the model is trained on (and its importance measured on). Above it a seeded random sample of this
     /// many lots is used: a linear model of some twenty coefficients is estimated to well within the lot-to-lot noise
-    /// from 10,000 lots, while training time grows with every lot (at 100,000 lots the full data made this candidate's
-    /// backtest the slowest step of the review).
+    /// from 5,000 lots (250 per coefficient), while training time grows with every lot (at 100,000 lots the full data
+    /// made this candidate's backtest the slowest step of the review).
     /// </summary>
-    public const int MaximumTrainingLots = 10_000;
+    public const int MaximumTrainingLots = 5_000;
 
     /// <inheritdoc />
     public string Id => "multi-variable";

@@ -257,6 +257,19 @@ public static class RobustRegression
 
     private static double[] WeightedLeastSquares(double[] xc, int n, int p, double[] y, double[] w)
     {
+        if (p == 1)
+        {
+            // One column: the least-squares coefficient is Σwxy / Σwx², which is what the QR solution reduces to.
+            double xwy = 0, xwx = 0;
+            for (int i = 0; i < n; i++)
+            {
+                xwy += w[i] * xc[i] * y[i];
+                xwx += w[i] * xc[i] * xc[i];
+            }
+
+            return [xwy / xwx];
+        }
+
         var xw = new double[n * p];
         var yw = new double[n];
         for (int i = 0; i < n; i++)
