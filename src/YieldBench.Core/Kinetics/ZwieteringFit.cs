@@ -62,6 +62,13 @@ public static class ZwieteringFit
     /// <summary>Partial derivatives (∂/∂A, ∂/∂μm, ∂/∂λ) of the model at t.</summary>
     public static (double dA, double dMu, double dLambda) Gradient(SigmoidModel model, double a, double mu, double lambda, double t)
     {
+        var (_, dA, dMu, dLambda) = ValueAndGradient(model, a, mu, lambda, t);
+        return (dA, dMu, dLambda);
+    }
+
+    /// <summary>The model's value and partial derivatives at t, sharing the exponentials.</summary>
+    internal static (double Value, double dA, double dMu, double dLambda) ValueAndGradient(SigmoidModel model, double a, double mu, double lambda, double t)
+    {
         double d = lambda - t;
         if (model == SigmoidModel.Gompertz)
         {
@@ -69,14 +76,14 @@ public static class ZwieteringFit
             double eu = Math.Exp(u);
             double g = Math.Exp(-eu);
             double geu = g * eu;
-            return (g + (geu * mu * Math.E * d / a), -geu * Math.E * d, -geu * mu * Math.E);
+            return (a * g, g + (geu * mu * Math.E * d / a), -geu * Math.E * d, -geu * mu * Math.E);
         }
 
         double v = Math.Min(ExponentCap, (4.0 * mu / a * d) + 2.0);
         double q = Math.Exp(v);
         double s = 1.0 / (1.0 + q);
         double dydv = -a * q * s * s;
-        return (s + (dydv * (-4.0 * mu * d / (a * a))), dydv * (4.0 * d / a), dydv * (4.0 * mu / a));
+        return (a * s, s + (dydv * (-4.0 * mu * d / (a * a))), dydv * (4.0 * d / a), dydv * (4.0 * mu / a));
     }
 
     /// <summary>
@@ -210,8 +217,8 @@ public static class ZwieteringFit
             g.Clear();
             for (int i = 0; i < n; i++)
             {
-                var (d0, d1, d2) = Gradient(model, p[0], p[1], p[2], t[i]);
-                double r = y[i] - Evaluate(model, p[0], p[1], p[2], t[i]);
+                var (value, d0, d1, d2) = ValueAndGradient(model, p[0], p[1], p[2], t[i]);
+                double r = y[i] - value;
                 jtj[0] += d0 * d0; jtj[1] += d0 * d1; jtj[2] += d0 * d2;
                 jtj[4] += d1 * d1; jtj[5] += d1 * d2; jtj[8] += d2 * d2;
                 g[0] += d0 * r; g[1] += d1 * r; g[2] += d2 * r;
