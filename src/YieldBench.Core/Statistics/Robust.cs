@@ -110,35 +110,110 @@ public static class Robust
         long h = (n / 2) + 1;
         long k = h * (h - 1) / 2;
 
-        // Row i holds x[j] − x[i] for j = i+1 .. n−1: non-decreasing along the row because x is sorted.
-        var first = new int[n];
-        var last = new int[n];
+        double kth = KthPairwiseDifference(x, k);
+        double raw = QnConsistency * kth;
+        return n <= 12 ? raw * QnSmallSample[n - 2] : raw / QnFiniteCorrection(n);
+    }
+
+    /// <summary>
+    /// The k-th smallest (1-based) of the differences x[j] − x[i], i &lt; j, of a sorted array: the row-bound narrowing
+    /// of Johnson &amp; Mizoguchi (1978) as Croux &amp; Rousseeuw (1992) use it for Qn (see
+    /// <see cref="SortedMatrixSelection"/>), written out for this matrix so that the entries are read straight from the
+    /// array and both counts of a round come from one two-pointer pass. Row i holds x[j] − x[i] for j = i+1 .. n−1,
+    /// non-decreasing along the row because x is sorted; the boundary of the entries below a trial value only moves
+    /// right as i grows.
+    /// </summary>
+    internal static double KthPairwiseDifference(double[] x, long k)
+    {
+        int n = x.Length;
+        var lo = new int[n];
+        var hi = new int[n];
         for (int i = 0; i < n; i++)
         {
-            first[i] = i + 1;
-            last[i] = n - 1;
+            lo[i] = i + 1;
+            hi[i] = n - 1;
         }
 
-        // Entries of row i below t are the j > i with x[j] − x[i] < t; that boundary only moves right as i grows
-        // (the comparison is on the difference itself, exactly as the entries are formed).
-        void Count(double t, bool strict, long[] counts)
+        var below = new int[n];
+        var atOrBelow = new int[n];
+        var trialValues = new double[n];
+        var trialWeights = new long[n];
+        while (true)
         {
-            int p = 0;
+            long candidates = 0;
+            int m = 0;
+            for (int i = 0; i < n; i++)
+            {
+                int a = lo[i], b = hi[i];
+                if (a <= b)
+                {
+                    candidates += b - a + 1;
+                    trialValues[m] = x[a + ((b - a) / 2)] - x[i];
+                    trialWeights[m] = b - a + 1;
+                    m++;
+                }
+            }
+
+            if (candidates <= Math.Max(n, 64))
+            {
+                long discarded = 0;
+                var values = new List<double>((int)candidates);
+                for (int i = 0; i < n; i++)
+                {
+                    discarded += Math.Max(lo[i], i + 1) - (i + 1);
+                    for (int j = lo[i]; j <= hi[i]; j++)
+                    {
+                        values.Add(x[j] - x[i]);
+                    }
+                }
+
+                values.Sort();
+                return values[(int)(k - discarded - 1)];
+            }
+
+            double t = SortedMatrixSelection.WeightedHighMedian(trialValues, trialWeights, m);
+            long sumBelow = 0, sumAtOrBelow = 0;
+            int p = 0, q = 0;
             for (int i = 0; i < n; i++)
             {
                 p = Math.Max(p, i + 1);
-                while (p < n && (strict ? x[p] - x[i] < t : x[p] - x[i] <= t))
+                q = Math.Max(q, p);
+                while (p < n && x[p] - x[i] < t)
                 {
                     p++;
                 }
 
-                counts[i] = p - (i + 1);
+                q = Math.Max(q, p);
+                while (q < n && x[q] - x[i] <= t)
+                {
+                    q++;
+                }
+
+                below[i] = p - (i + 1);
+                atOrBelow[i] = q - (i + 1);
+                sumBelow += below[i];
+                sumAtOrBelow += atOrBelow[i];
+            }
+
+            if (k <= sumBelow)
+            {
+                for (int i = 0; i < n; i++)
+                {
+                    hi[i] = Math.Min(hi[i], i + below[i]);
+                }
+            }
+            else if (k > sumAtOrBelow)
+            {
+                for (int i = 0; i < n; i++)
+                {
+                    lo[i] = Math.Max(lo[i], i + 1 + atOrBelow[i]);
+                }
+            }
+            else
+            {
+                return t;
             }
         }
-
-        double kth = SortedMatrixSelection.Select(n, first, last, (i, j) => x[j] - x[i], k, Count);
-        double raw = QnConsistency * kth;
-        return n <= 12 ? raw * QnSmallSample[n - 2] : raw / QnFiniteCorrection(n);
     }
 
     /// <summary>

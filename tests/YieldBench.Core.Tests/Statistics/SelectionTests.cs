@@ -115,4 +115,34 @@ public sealed class SelectionTests
         Assert.Equal(m, line.Pairs);
         Assert.Equal(expected, line.Slope, 9);
     }
+
+    [Theory]
+    [InlineData(2, 1)]
+    [InlineData(9, 2)]
+    [InlineData(70, 3)]
+    [InlineData(400, 4)]
+    public void The_kth_pairwise_difference_equals_the_sorted_list_of_all_differences(int n, int seed)
+    {
+        // Given sorted values with many ties (rounded to 0.05)
+        var random = new Random(seed);
+        var x = Enumerable.Range(0, n).Select(_ => Math.Round(random.NextDouble() * 4 * 20) / 20).Order().ToArray();
+        var all = new List<double>();
+        for (int i = 0; i < n; i++)
+        {
+            for (int j = i + 1; j < n; j++)
+            {
+                all.Add(x[j] - x[i]);
+            }
+        }
+
+        all.Sort();
+
+        // Then every rank checked (first, last, Qn's and a spread of others) matches the full list
+        long h = (n / 2) + 1;
+        var ranks = new[] { 1L, all.Count, Math.Min(all.Count, h * (h - 1) / 2), (all.Count + 1) / 2, Math.Max(1, all.Count / 7) };
+        foreach (long k in ranks)
+        {
+            Assert.Equal(all[(int)(k - 1)], Robust.KthPairwiseDifference(x, k));
+        }
+    }
 }
