@@ -152,7 +152,7 @@ internal static partial class CellValues
         bool dayFirst = false, monthFirst = false;
         foreach (var c in cells)
         {
-            if (c is string s && SlashDate().Match(s.Trim()) is { Success: true } m)
+            if (c is string s && !StartsWithThreeDigits(s.Trim()) && SlashDate().Match(s.Trim()) is { Success: true } m)
             {
                 if (m.Groups["sep"].Value == ".")
                 {
@@ -210,6 +210,11 @@ internal static partial class CellValues
             return CellProblem.Blank;
         }
 
+        if (PlainIsoDate(s, out value, out bool valid))
+        {
+            return valid ? CellProblem.None : CellProblem.NotADate;
+        }
+
         if (IsoDate().Match(s) is { Success: true } iso)
         {
             return MakeDate(iso.Groups["y"].Value, iso.Groups["m"].Value, iso.Groups["d"].Value, iso, out value) ? CellProblem.None : CellProblem.NotADate;
@@ -254,6 +259,123 @@ internal static partial class CellValues
         }
 
         return DateTime.TryParseExact(s, MonthNameFormats, Inv, DateTimeStyles.AllowWhiteSpaces, out value) ? CellProblem.None : CellProblem.NotADate;
+    }
+
+    /// <summary>A day and month cannot follow "d/" or "dd/" when the text starts with three digits.</summary>
+    private static bool StartsWithThreeDigits(string s) =>
+        s.Length >= 3 && char.IsAsciiDigit(s[0]) && char.IsAsciiDigit(s[1]) && char.IsAsciiDigit(s[2]);
+
+    /// <summary>
+    /// The common ISO text ("2024-03-02", "2024-03-02 14:30", "2024/3/2T14:30:05.5") in ASCII digits, read without
+    /// the regular expression: true when the text has that form (then <paramref name="valid"/> tells whether it is a
+    /// real date and time, as <see cref="IsoDate"/> and <see cref="MakeDate"/> would), false for any other text.
+    /// </summary>
+    private static bool PlainIsoDate(string s, out DateTime value, out bool valid)
+    {
+        value = default;
+        valid = false;
+        int i = 0;
+        if (!Digits(s, ref i, 4, 4, out int year) || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int month)
+            || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int day))
+        {
+            return false;
+        }
+
+        int h = 0, min = 0, sec = 0;
+        bool time = i < s.Length;
+        if (time)
+        {
+            if (s[i] is not (' ' or 'T'))
+            {
+                return false;
+            }
+
+            i++;
+            if (!Digits(s, ref i, 1, 2, out h) || i >= s.Length || s[i] != ':')
+            {
+                return false;
+            }
+
+            i++;
+            if (!Digits(s, ref i, 2, 2, out min))
+            {
+                return false;
+            }
+
+            if (i < s.Length)
+            {
+                if (s[i] != ':')
+                {
+                    return false;
+                }
+
+                i++;
+                if (!Digits(s, ref i, 2, 2, out sec))
+                {
+                    return false;
+                }
+
+                if (i < s.Length)
+                {
+                    // Fractions of a second are accepted and dropped.
+                    if (s[i] != '.')
+                    {
+                        return false;
+                    }
+
+                    i++;
+                    if (!Digits(s, ref i, 1, int.MaxValue, out _))
+                    {
+                        return false;
+                    }
+
+                    if (i < s.Length)
+                    {
+                        return false;
+                    }
+                }
+            }
+        }
+
+        if (month is < 1 or > 12 || day < 1 || year is < 1900 or > 2100 || day > DateTime.DaysInMonth(year, month) || h > 23 || min > 59 || sec > 59)
+        {
+            return true;
+        }
+
+        value = new DateTime(year, month, day, 0, 0, 0, DateTimeKind.Unspecified);
+        if (time)
+        {
+            value = value.Add(new TimeSpan(h, min, sec));
+        }
+
+        valid = true;
+        return true;
+
+        static bool Separator(string s, ref int i)
+        {
+            if (i < s.Length && s[i] is '-' or '/' or '.')
+            {
+                i++;
+                return true;
+            }
+
+            return false;
+        }
+
+        static bool Digits(string s, ref int i, int least, int most, out int number)
+        {
+            number = 0;
+            int n = 0;
+            while (n < most && i < s.Length && char.IsAsciiDigit(s[i]))
+            {
+                // Only the date and time parts are used as numbers (at most four digits); long fractions are skipped.
+                number = n < 9 ? (number * 10) + (s[i] - '0') : number;
+                i++;
+                n++;
+            }
+
+            return n >= least;
+        }
     }
 
     private static bool MakeDate(string y, string m, string d, Match match, out DateTime value)

@@ -55,7 +55,9 @@ internal static partial class TableReader
         "median", "std", "stdev", "std dev", "standard deviation", "overall", "grand total", "subtotal", "sub total", "range",
     ];
 
-    private static readonly HashSet<string> SummaryFollowers = ["of", "for", "all", "season", "lots", "vintage", "pct"];
+    private static readonly HashSet<string> SummaryFollowers = new(["of", "for", "all", "season", "lots", "vintage", "pct"], StringComparer.Ordinal);
+
+    private static readonly HashSet<string>.AlternateLookup<ReadOnlySpan<char>> SummaryFollowerLookup = SummaryFollowers.GetAlternateLookup<ReadOnlySpan<char>>();
 
     /// <summary>What reading a sheet came to.</summary>
     public enum Outcome
@@ -143,9 +145,23 @@ internal static partial class TableReader
         int LastRow,
         int? DefaultSeason)
     {
+        private readonly Dictionary<string, BoundColumn> _byField = IndexByField(Columns);
+
         public string? SheetName => Sheet.Name;
 
-        public BoundColumn? Column(string field) => Columns.FirstOrDefault(c => c.Field.Name == field);
+        /// <summary>The column bound to the field (the first one, when a header repeats), or null.</summary>
+        public BoundColumn? Column(string field) => _byField.GetValueOrDefault(field);
+
+        private static Dictionary<string, BoundColumn> IndexByField(List<BoundColumn> columns)
+        {
+            var index = new Dictionary<string, BoundColumn>(StringComparer.Ordinal);
+            foreach (var c in columns)
+            {
+                index.TryAdd(c.Field.Name, c);
+            }
+
+            return index;
+        }
 
         public IEnumerable<object?> Values(BoundColumn c)
         {
@@ -316,6 +332,17 @@ internal static partial class TableReader
 
     [GeneratedRegex(@"^\s*(?<y>\d{4})(?:\s*[-/]\s*\d{2,4})?\s*$")]
     private static partial Regex YearText();
+
+    /// <summary>The year a season cell's text names ("2024", "2024/25"), or null when it names none.</summary>
+    internal static int? YearOf(string text)
+    {
+        if (text.Length == 4 && char.IsAsciiDigit(text[0]) && char.IsAsciiDigit(text[1]) && char.IsAsciiDigit(text[2]) && char.IsAsciiDigit(text[3]))
+        {
+            return ((text[0] - '0') * 1000) + ((text[1] - '0') * 100) + ((text[2] - '0') * 10) + (text[3] - '0');
+        }
+
+        return YearText().Match(text) is { Success: true } m ? int.Parse(m.Groups["y"].Value, Inv) : null;
+    }
 
     // ---------------------------------------------------------------- units settled from the values
 
@@ -502,8 +529,47 @@ internal static partial class TableReader
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
     private static string? NoteText(object?[] row)
     {
-        var filled = row.Where(c => !CellValues.IsBlank(c)).Take(2).ToList();
-        return filled is [string s] && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+        object? only = null;
+        int filled = 0;
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c) && ++filled == 1)
+            {
+                only = c;
+            }
+            else if (filled > 1)
+            {
+                return null;
+            }
+        }
+
+        return filled == 1 && only is string s && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+    }
+
+    private static bool AllBlank(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static object? FirstFilled(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return c;
+            }
+        }
+
+        return null;
     }
 
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
@@ -512,8 +578,15 @@ internal static partial class TableReader
         var lotCol = ctx.Column("lot_id");
         object? candidate = lotCol is not null && lotCol.Index < row.Length && !CellValues.IsBlank(row[lotCol.Index])
             ? row[lotCol.Index]
-            : row.FirstOrDefault(c => !CellValues.IsBlank(c));
+            : FirstFilled(row);
         if (candidate is not string s)
+        {
+            return false;
+        }
+
+        // Every summary word starts with a letter, so text starting with a digit (a lot id) is none.
+        var lead = s.AsSpan().TrimStart();
+        if (lead.Length > 0 && char.IsAsciiDigit(lead[0]))
         {
             return false;
         }
@@ -527,10 +600,16 @@ internal static partial class TableReader
 
         foreach (var w in SummaryWords)
         {
-            if (n.StartsWith(w + " ", StringComparison.Ordinal) && SummaryFollowers.Contains(n[(w.Length + 1)..].Split(' ')[0]))
+            // "<word> <follower> ...": the word, a space, then a follower as the next whole word.
+            if (n.Length > w.Length && n[w.Length] == ' ' && n.StartsWith(w, StringComparison.Ordinal))
             {
-                label = s.Trim();
-                return true;
+                var rest = n.AsSpan(w.Length + 1);
+                int space = rest.IndexOf(' ');
+                if (SummaryFollowerLookup.Contains(space < 0 ? rest : rest[..space]))
+                {
+                    label = s.Trim();
+                    return true;
+                }
             }
         }
 
@@ -554,7 +633,7 @@ internal static partial class TableReader
         {
             read++;
             var row = ctx.Sheet.Rows[r];
-            if (row.All(CellValues.IsBlank))
+            if (AllBlank(row))
             {
                 blank++;
                 continue;
@@ -709,7 +788,7 @@ internal static partial class TableReader
                     return (int)d;
                 }
 
-                if (cell is string s && YearText().Match(s) is { Success: true } m && int.Parse(m.Groups["y"].Value, Inv) is var y and >= 1900 and <= 2100)
+                if (cell is string s && YearOf(s) is >= 1900 and <= 2100 and var y)
                 {
                     return y;
                 }
@@ -866,22 +945,21 @@ internal static partial class TableReader
         }
 
         double v = ColumnUnits.ToFieldUnit(raw, c.Unit);
-        string shown = ConvertedShown(raw, c.Unit, v, f.Unit);
         if (f.Kind is FieldKind.Volume && name is "must_volume_l" or "vessel_capacity_l" && v <= 0)
         {
-            st.Problem(c, cell, "out-of-range", IntakeMessages.NotPositive(Label(f), shown), f.Critical);
+            st.Problem(c, cell, "out-of-range", IntakeMessages.NotPositive(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
             return null;
         }
 
         if (f.Kind is FieldKind.Volume or FieldKind.Mass && v < 0)
         {
-            st.Problem(c, cell, "out-of-range", IntakeMessages.Negative(Label(f), shown), f.Critical);
+            st.Problem(c, cell, "out-of-range", IntakeMessages.Negative(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
             return null;
         }
 
         if (f.Min is { } min && f.Max is { } max && (v < min || v > max))
         {
-            string message = IntakeMessages.OutOfRange(Label(f), shown, min, max, f.Unit);
+            string message = IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit), min, max, f.Unit);
             if (f.Kind == FieldKind.Alcohol && c.Unit == ColumnUnit.PercentVolume && v * 100 >= min && v * 100 <= max)
             {
                 // 0.141 is how a spreadsheet holds 14.1 % when the cell lost its percent format.
@@ -1008,7 +1086,7 @@ internal static partial class TableReader
         {
             read++;
             var row = ctx.Sheet.Rows[r];
-            if (row.All(CellValues.IsBlank))
+            if (AllBlank(row))
             {
                 blank++;
                 continue;
