@@ -92,8 +92,13 @@ internal static partial class CellValues
 
     private static CellProblem ParseNumberText(string s, bool decimalComma, out double value, out string? alternative)
     {
-        value = double.NaN;
         alternative = null;
+        if (!(decimalComma && s.Contains('.', StringComparison.Ordinal)) && PlainDecimal(s, out value))
+        {
+            return CellProblem.None;
+        }
+
+        value = double.NaN;
         string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal);
         if (t.Length == 0)
         {
@@ -145,6 +150,60 @@ internal static partial class CellValues
 
         return double.TryParse(t, NumberStyles.Float, Inv, out value) && double.IsFinite(value) ? CellProblem.None : CellProblem.NotANumber;
     }
+
+    /// <summary>
+    /// Text such as "24.3", "-1.8" or "1000": an optional minus, digits, and an optional point with digits, at most 15
+    /// digits in all. Such a number is an integer below 2^53 divided by an exact power of ten, so one division gives
+    /// the correctly rounded double, the value <see cref="double.TryParse(string?, NumberStyles, IFormatProvider?, out double)"/>
+    /// gives. False for any other text, which takes the general path.
+    /// </summary>
+    private static bool PlainDecimal(string s, out double value)
+    {
+        value = 0;
+        int i = 0;
+        bool negative = s.Length > 0 && s[0] == '-';
+        if (negative)
+        {
+            i++;
+        }
+
+        long mantissa = 0;
+        int digits = 0, decimals = 0;
+        bool point = false;
+        for (; i < s.Length; i++)
+        {
+            char c = s[i];
+            if (char.IsAsciiDigit(c))
+            {
+                if (++digits > 15)
+                {
+                    return false;
+                }
+
+                mantissa = (mantissa * 10) + (c - '0');
+                decimals += point ? 1 : 0;
+            }
+            else if (c == '.' && !point && digits > 0)
+            {
+                point = true;
+            }
+            else
+            {
+                return false;
+            }
+        }
+
+        if (digits == 0 || (point && decimals == 0))
+        {
+            return false;
+        }
+
+        double magnitude = decimals == 0 ? mantissa : mantissa / PowersOfTen[decimals];
+        value = negative ? -magnitude : magnitude;
+        return true;
+    }
+
+    private static readonly double[] PowersOfTen = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 
     /// <summary>Day/month order settled by the column's text dates (a first part above 12 means day first).</summary>
     public static DateOrder ColumnDateOrder(IEnumerable<object?> cells)

@@ -21,8 +21,8 @@ internal sealed class CsvRecords : IDisposable
     private readonly char _delimiter;
     private readonly CsvConfiguration _config;
     private readonly SearchValues<char> _fieldEnds;
-    private readonly List<string> _fields = [];
-    private readonly Queue<(string[] Fields, string? Bad)> _pending = new();
+    private readonly List<object?> _fields = [];
+    private readonly Queue<(object?[] Fields, string? Bad)> _pending = new();
     private readonly StringBuilder _segment = new();
     private char[] _buffer;
     private int _pos;
@@ -41,8 +41,12 @@ internal sealed class CsvRecords : IDisposable
         _fieldEnds = SearchValues.Create([delimiter, '"', '\r', '\n']);
     }
 
-    /// <summary>The fields of the record last read.</summary>
-    public string[] Record { get; private set; } = [];
+    // The fields of the previous record: a field equal to the one above it is the same string (ids and seasons
+    // repeat down a log), which saves building and holding a copy.
+    private object?[] _above = [];
+
+    /// <summary>The fields of the record last read (all strings).</summary>
+    public object?[] Record { get; private set; } = [];
 
     /// <summary>What is wrong with the quoting of the record last read (an unclosed quote mark), or null.</summary>
     public string? Bad { get; private set; }
@@ -128,7 +132,7 @@ internal sealed class CsvRecords : IDisposable
         {
             while (parser.Read())
             {
-                _pending.Enqueue((parser.Record ?? [], QuoteProblem(parser.RawRecord)));
+                _pending.Enqueue(([.. parser.Record ?? []], QuoteProblem(parser.RawRecord)));
             }
         }
 
@@ -206,27 +210,31 @@ internal sealed class CsvRecords : IDisposable
         }
     }
 
-    private string[] Split(ReadOnlySpan<char> line)
+    private object?[] Split(ReadOnlySpan<char> line)
     {
         int count = line.Count(_delimiter) + 1;
-        var fields = new string[count];
+        var fields = new object?[count];
         int f = 0;
         while (true)
         {
             int d = line.IndexOf(_delimiter);
+            var field = d < 0 ? line : line[..d];
+            fields[f] = field.Length == 0 ? ""
+                : f < _above.Length && _above[f] is string above && field.SequenceEqual(above) ? above
+                : new string(field);
             if (d < 0)
             {
-                fields[f] = line.Length == 0 ? "" : new string(line);
+                _above = fields;
                 return fields;
             }
 
-            fields[f++] = d == 0 ? "" : new string(line[..d]);
+            f++;
             line = line[(d + 1)..];
         }
     }
 
     /// <summary>The fields of a record whose every quote mark is part of a well-formed quoted field, else null.</summary>
-    private string[]? SplitWellFormed(string raw, int terminator)
+    private object?[]? SplitWellFormed(string raw, int terminator)
     {
         int end = raw.Length - terminator;
         _fields.Clear();

@@ -59,29 +59,73 @@ public static partial class IntakeReader
     {
         foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
         {
-            var groups = run.Lots.Select(get).OfType<string>().GroupBy(SpellingKey, StringComparer.Ordinal);
-            foreach (var g in groups)
+            // Each distinct spelling once, in order of first use, with its count and the first lot that uses it.
+            var spellings = new Dictionary<string, (int Count, int First)>(StringComparer.Ordinal);
+            for (int i = 0; i < run.Lots.Count; i++)
             {
-                var spellings = g.GroupBy(v => v, StringComparer.Ordinal).Select(x => (Text: x.Key, Count: x.Count())).ToList();
-                if (spellings.Count < 2)
+                if (get(run.Lots[i]) is { } v)
+                {
+                    spellings[v] = spellings.TryGetValue(v, out var seen) ? (seen.Count + 1, seen.First) : (1, i);
+                }
+            }
+
+            // Groups of spellings by key, in order of the group's first use; spellings in order of first use.
+            var groups = new Dictionary<string, List<(string Text, int Count, int First)>>(StringComparer.Ordinal);
+            var order = new List<string>();
+            foreach (var (text, (count, first)) in spellings.OrderBy(x => x.Value.First))
+            {
+                string key = SpellingKey(text);
+                if (!groups.TryGetValue(key, out var list))
+                {
+                    groups[key] = list = [];
+                    order.Add(key);
+                }
+
+                list.Add((text, count, first));
+            }
+
+            var replace = new Dictionary<string, string>(StringComparer.Ordinal);
+            var warnings = new List<(int FirstLot, string Kept, int Count, List<(string, int)> Others)>();
+            foreach (var key in order)
+            {
+                var group = groups[key];
+                if (group.Count < 2)
                 {
                     continue;
                 }
 
-                var kept = spellings.OrderByDescending(x => x.Count).First();
-                var others = spellings.Where(x => x.Text != kept.Text).ToList();
-                for (int i = 0; i < run.Lots.Count; i++)
+                // The most used spelling; on a tie the first read.
+                var kept = group[0];
+                foreach (var g in group)
                 {
-                    var lot = run.Lots[i];
-                    if (get(lot) is { } v && v != kept.Text && SpellingKey(v) == g.Key)
+                    kept = g.Count > kept.Count ? g : kept;
+                }
+
+                foreach (var g in group)
+                {
+                    if (g.Text != kept.Text)
                     {
-                        run.Lots[i] = field == "strain" ? lot with { Strain = kept.Text } : lot with { Vessel = kept.Text };
+                        replace[g.Text] = kept.Text;
                     }
                 }
 
-                var first = run.Lots.First(l => get(l) == kept.Text).Source;
-                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept.Text, "spelling-unified",
-                    IntakeMessages.SpellingUnified(field, kept.Text, kept.Count, others.Select(o => (o.Text, o.Count)).ToList()));
+                warnings.Add((group[0].First, kept.Text, kept.Count, group.Where(g => g.Text != kept.Text).Select(g => (g.Text, g.Count)).ToList()));
+            }
+
+            for (int i = 0; replace.Count > 0 && i < run.Lots.Count; i++)
+            {
+                var lot = run.Lots[i];
+                if (get(lot) is { } v && replace.TryGetValue(v, out var kept))
+                {
+                    run.Lots[i] = field == "strain" ? lot with { Strain = kept } : lot with { Vessel = kept };
+                }
+            }
+
+            foreach (var (firstLot, kept, count, others) in warnings)
+            {
+                // The group's first lot: after unifying, the first that bears the kept spelling.
+                var first = run.Lots[firstLot].Source;
+                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, "spelling-unified", IntakeMessages.SpellingUnified(field, kept, count, others));
             }
         }
     }
@@ -214,8 +258,18 @@ public static partial class IntakeReader
         var logs = new List<FermentationLog>();
         var index = new Dictionary<(string, int?), List<LogReading>>();
         var knownIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        string? lastId = null;
+        int? lastSeason = null;
+        List<LogReading>? lastList = null;
         foreach (var (rawId, season, reading) in run.Readings)
         {
+            // A log's readings mostly follow one another: the same lot and season as the reading before is its list.
+            if (lastList is not null && season == lastSeason && string.Equals(rawId, lastId, StringComparison.Ordinal))
+            {
+                lastList.Add(reading);
+                continue;
+            }
+
             // A log sheet named "Lot 23-004" (or "Batch #7") is the log of lot 23-004 when no lot bears the full name.
             string lotId = rawId;
             if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
@@ -230,6 +284,7 @@ public static partial class IntakeReader
             }
 
             list.Add(reading);
+            (lastId, lastSeason, lastList) = (rawId, season, list);
         }
 
         if (logs.Count == 0)

@@ -390,11 +390,13 @@ internal static partial class TableReader
     private static void SettleFromValues(SheetContext ctx, BoundColumn c)
     {
         var values = new List<double>();
-        foreach (var v in ctx.Values(c))
+        bool negativeZero = false;
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
-            if (CellValues.Number(v, ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None)
+            if (CellValues.Number(ctx.Sheet.Cell(r, c.Index), ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None)
             {
                 values.Add(d);
+                negativeZero |= d == 0 && double.IsNegative(d);
             }
         }
 
@@ -404,16 +406,15 @@ internal static partial class TableReader
             return;
         }
 
-        values.Sort();
-        double median = values[values.Count / 2], low = values[0], high = values[^1];
+        var (low, median, high) = Spread(values, negativeZero);
         var sink = ctx.Run.Sink;
         switch (c.Field.Kind)
         {
             case FieldKind.Sugar when c.Unit == ColumnUnit.None:
                 c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
-                var inBand = values.Where(v => ValueLooksLike(c.Field, v, c.Unit)).ToList();
+                var (bandLow, bandHigh) = BandSpread(values, c, negativeZero) ?? (low, high);
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "unit-from-values",
-                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), inBand.Count > 0 ? inBand[0] : low, inBand.Count > 0 ? inBand[^1] : high, SugarHeaderExample(c)));
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)));
                 break;
             case FieldKind.Alcohol when c.Unit == ColumnUnit.None:
                 c.Unit = median > 30 ? ColumnUnit.AlcoholGramsPerLitre : ColumnUnit.PercentVolume;
@@ -430,6 +431,100 @@ internal static partial class TableReader
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "temperature-in-fahrenheit", IntakeMessages.ColumnInFahrenheit(low, high));
                 break;
         }
+    }
+
+    /// <summary>
+    /// The lowest, middle (the element at index n / 2 in sorted order) and highest value. Values that compare equal
+    /// are then the same number, so selection finds what a sort would; only -0 and 0 compare equal yet print apart,
+    /// and a column holding -0 is sorted, as it always was.
+    /// </summary>
+    private static (double Low, double Median, double High) Spread(List<double> values, bool negativeZero)
+    {
+        if (negativeZero)
+        {
+            values.Sort();
+            return (values[0], values[values.Count / 2], values[^1]);
+        }
+
+        double low = values[0], high = values[0];
+        foreach (double v in values)
+        {
+            low = Math.Min(low, v);
+            high = Math.Max(high, v);
+        }
+
+        var work = values.ToArray();
+        return (low, Select(work, work.Length / 2), high);
+    }
+
+    /// <summary>The lowest and highest value that fit the column's scale (in sorted order, as <see cref="Spread"/>), or null.</summary>
+    private static (double Low, double High)? BandSpread(List<double> values, BoundColumn c, bool negativeZero)
+    {
+        if (negativeZero)
+        {
+            // Spread has sorted the values.
+            var inBand = values.Where(v => ValueLooksLike(c.Field, v, c.Unit)).ToList();
+            return inBand.Count > 0 ? (inBand[0], inBand[^1]) : null;
+        }
+
+        bool any = false;
+        double low = 0, high = 0;
+        foreach (double v in values)
+        {
+            if (ValueLooksLike(c.Field, v, c.Unit))
+            {
+                low = any ? Math.Min(low, v) : v;
+                high = any ? Math.Max(high, v) : v;
+                any = true;
+            }
+        }
+
+        return any ? (low, high) : null;
+    }
+
+    /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>
+    private static double Select(double[] a, int k)
+    {
+        int left = 0, right = a.Length - 1;
+        while (left < right)
+        {
+            double pivot = a[left + ((right - left) / 2)];
+            int i = left, j = right;
+            while (i <= j)
+            {
+                while (a[i] < pivot)
+                {
+                    i++;
+                }
+
+                while (a[j] > pivot)
+                {
+                    j--;
+                }
+
+                if (i <= j)
+                {
+                    (a[i], a[j]) = (a[j], a[i]);
+                    i++;
+                    j--;
+                }
+            }
+
+            if (k <= j)
+            {
+                right = j;
+            }
+            else if (k >= i)
+            {
+                left = i;
+            }
+            else
+            {
+                return a[k];
+            }
+        }
+
+        return a[k];
     }
 
     private static string SugarHeaderExample(BoundColumn c) => c.Field.Name switch
@@ -747,9 +842,11 @@ internal static partial class TableReader
 
     private static string Label(FieldDef f) => f.Name;
 
-    private static string? TextField(RowState st, string name)
+    private static string? TextField(RowState st, string name) => TextField(st, st.Ctx.Column(name));
+
+    private static string? TextField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c)
+        if (column is not { } c)
         {
             return null;
         }
@@ -775,10 +872,12 @@ internal static partial class TableReader
         return text;
     }
 
-    private static int? SeasonField(RowState st)
+    private static int? SeasonField(RowState st) => SeasonField(st, st.Ctx.Column("season"));
+
+    private static int? SeasonField(RowState st, BoundColumn? seasonColumn)
     {
         var ctx = st.Ctx;
-        if (ctx.Column("season") is { } c)
+        if (seasonColumn is { } c)
         {
             object? cell = ctx.Sheet.Cell(st.Row, c.Index);
             if (!CellValues.IsBlank(cell))
@@ -811,7 +910,7 @@ internal static partial class TableReader
         if (ctx.Kind == TableKind.Lots)
         {
             st.Bad = true;
-            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, st.SheetRow, ctx.Column("season")?.Header, null, "no-season", IntakeMessages.NoSeason());
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, st.SheetRow, seasonColumn?.Header, null, "no-season", IntakeMessages.NoSeason());
         }
 
         return null;
@@ -929,14 +1028,17 @@ internal static partial class TableReader
         ColumnUnits.Label(unit) is { Length: > 0 } u ? $"{IntakeMessages.Num(raw)} {u}" : IntakeMessages.Num(raw);
 
     /// <summary>A number in the field's unit, range-checked; null when empty or bad (bad ones reported).</summary>
-    private static double? NumberField(RowState st, string name)
+    private static double? NumberField(RowState st, string name) => NumberField(st, st.Ctx.Column(name));
+
+    private static double? NumberField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c || !NumberCell(st, c, out double raw))
+        if (column is not { } c || !NumberCell(st, c, out double raw))
         {
             return null;
         }
 
         var f = c.Field;
+        string name = f.Name;
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
         if (f.Kind == FieldKind.Temperature && c.Unit == ColumnUnit.Celsius && raw is > 45 and <= 120)
         {
@@ -984,9 +1086,11 @@ internal static partial class TableReader
         return shown;
     }
 
-    private static SugarReading? SugarField(RowState st, string name)
+    private static SugarReading? SugarField(RowState st, string name) => SugarField(st, st.Ctx.Column(name));
+
+    private static SugarReading? SugarField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c || !NumberCell(st, c, out double raw))
+        if (column is not { } c || !NumberCell(st, c, out double raw))
         {
             return null;
         }
@@ -1010,9 +1114,11 @@ internal static partial class TableReader
         return SugarReading.FromBrix(brix);
     }
 
-    private static DateTime? DateField(RowState st, string name)
+    private static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));
+
+    private static DateTime? DateField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c)
+        if (column is not { } c)
         {
             return null;
         }
@@ -1073,6 +1179,7 @@ internal static partial class TableReader
         var timeCol = ctx.Column("time");
         var sugarCol = ctx.Column("sugar");
         var tempCol = ctx.Column("temp_c");
+        var seasonCol = ctx.Column("season");
         bool noTime = tsCol is null && dateCol is null;
         if (noTime)
         {
@@ -1113,21 +1220,21 @@ internal static partial class TableReader
             }
 
             var st = new RowState(ctx, r);
-            string? lotId = sheetLot ?? TextField(st, "lot_id");
+            string? lotId = sheetLot ?? TextField(st, lotCol);
             if (lotId is null && lotCol is not null && !st.Bad)
             {
                 st.Problem(lotCol, null, "missing-value", IntakeMessages.MissingValue("lot_id"), true);
             }
 
-            int? season = SeasonField(st);
+            int? season = SeasonField(st, seasonCol);
             DateTime? when = null;
             if (tsCol is not null)
             {
-                when = DateField(st, "timestamp");
+                when = DateField(st, tsCol);
             }
             else if (dateCol is not null)
             {
-                when = DateField(st, "date");
+                when = DateField(st, dateCol);
                 if (when is not null && timeCol is not null)
                 {
                     object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
@@ -1149,8 +1256,8 @@ internal static partial class TableReader
                 st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-timestamp", IntakeMessages.MissingTimestamp(), true);
             }
 
-            SugarReading? sugar = sugarCol is null ? null : SugarField(st, "sugar");
-            double? temp = tempCol is null ? null : NumberField(st, "temp_c");
+            SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
+            double? temp = tempCol is null ? null : NumberField(st, tempCol);
             if (!st.Bad && sugar is null && temp is null)
             {
                 st.Bad = true;

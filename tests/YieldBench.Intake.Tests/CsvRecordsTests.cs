@@ -27,7 +27,7 @@ public class CsvRecordsTests
         using var reader = new CsvRecords(new StringReader(text), delimiter, chunk);
         while (reader.Read())
         {
-            records.Add((reader.Record, reader.Bad));
+            records.Add((reader.Record.Cast<string>().ToArray(), reader.Bad));
         }
 
         return records;
