@@ -483,7 +483,7 @@ internal static partial class TableReader
     }
 
     /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>
-    private static double Select(double[] a, int k)
+    internal static double Select(double[] a, int k)
     {
         int left = 0, right = a.Length - 1;
         while (left < right)
