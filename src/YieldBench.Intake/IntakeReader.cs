@@ -293,9 +293,11 @@ public static partial class IntakeReader
         }
 
         var lotKeys = run.Lots.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
-        var lotIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
-        var withLog = new HashSet<string>(StringComparer.Ordinal);
-        var lotsById = run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
+        var lotIds = knownIds;
+
+        // Lots with a log, by lot id and season (what a lot's key is made of).
+        var withLog = new HashSet<(string, int)>();
+        ILookup<string, Lot>? lotsById = null;
         foreach (var log in logs)
         {
             bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
@@ -307,13 +309,21 @@ public static partial class IntakeReader
                 continue;
             }
 
-            foreach (var lot in lotsById[log.LotId].Where(l => log.Season is null || l.Season == log.Season))
+            if (log.Season is { } season)
             {
-                withLog.Add(lot.Key);
+                // Lot keys are unique, so this is the one lot of that id and season.
+                withLog.Add((log.LotId, season));
+                continue;
+            }
+
+            lotsById ??= run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
+            foreach (var lot in lotsById[log.LotId])
+            {
+                withLog.Add((lot.LotId, lot.Season));
             }
         }
 
-        foreach (var group in run.Lots.Where(l => !withLog.Contains(l.Key)).GroupBy(l => l.Season).OrderBy(g => g.Key))
+        foreach (var group in run.Lots.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
         {
             var ids = group.Select(l => l.LotId).ToList();
             var src = group.First().Source!;

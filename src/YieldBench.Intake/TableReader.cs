@@ -406,13 +406,14 @@ internal static partial class TableReader
             return;
         }
 
-        var (low, median, high) = Spread(values, negativeZero);
+        var spread = new Spread(values, negativeZero);
+        double median = spread.Median, low = spread.Low, high = spread.High;
         var sink = ctx.Run.Sink;
         switch (c.Field.Kind)
         {
             case FieldKind.Sugar when c.Unit == ColumnUnit.None:
                 c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
-                var (bandLow, bandHigh) = BandSpread(values, c, negativeZero) ?? (low, high);
+                var (bandLow, bandHigh) = spread.Band(v => ValueLooksLike(c.Field, v, c.Unit)) ?? (low, high);
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "unit-from-values",
                     IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)));
                 break;
@@ -434,52 +435,84 @@ internal static partial class TableReader
     }
 
     /// <summary>
-    /// The lowest, middle (the element at index n / 2 in sorted order) and highest value. Values that compare equal
-    /// are then the same number, so selection finds what a sort would; only -0 and 0 compare equal yet print apart,
-    /// and a column holding -0 is sorted, as it always was.
+    /// The lowest, middle (the element at index n / 2 in sorted order) and highest of a column's values, as a sort
+    /// would give them, found by selection. Values that compare equal are the same number, except -0 and 0, which
+    /// print apart: when a column holds both and a zero is the lowest or highest value shown, the values are sorted
+    /// and the ends taken from the sorted order, as they always were.
     /// </summary>
-    private static (double Low, double Median, double High) Spread(List<double> values, bool negativeZero)
+    private sealed class Spread
     {
-        if (negativeZero)
+        private readonly List<double> _values;
+        private readonly bool _negativeZero;
+        private bool _sorted;
+
+        public Spread(List<double> values, bool negativeZero)
         {
-            values.Sort();
-            return (values[0], values[values.Count / 2], values[^1]);
+            _values = values;
+            _negativeZero = negativeZero;
+            double low = values[0], high = values[0];
+            foreach (double v in values)
+            {
+                low = v < low ? v : low;
+                high = v > high ? v : high;
+            }
+
+            var work = values.ToArray();
+            Median = Select(work, work.Length / 2);
+            if (negativeZero && (low == 0 || high == 0))
+            {
+                Sort();
+                (low, high) = (values[0], values[^1]);
+            }
+
+            (Low, High) = (low, high);
         }
 
-        double low = values[0], high = values[0];
-        foreach (double v in values)
-        {
-            low = Math.Min(low, v);
-            high = Math.Max(high, v);
-        }
+        public double Low { get; }
 
-        var work = values.ToArray();
-        return (low, Select(work, work.Length / 2), high);
-    }
+        public double Median { get; }
 
-    /// <summary>The lowest and highest value that fit the column's scale (in sorted order, as <see cref="Spread"/>), or null.</summary>
-    private static (double Low, double High)? BandSpread(List<double> values, BoundColumn c, bool negativeZero)
-    {
-        if (negativeZero)
+        public double High { get; }
+
+        /// <summary>The lowest and highest of the values that pass the test (first and last in sorted order), or null.</summary>
+        public (double Low, double High)? Band(Func<double, bool> fits)
         {
-            // Spread has sorted the values.
-            var inBand = values.Where(v => ValueLooksLike(c.Field, v, c.Unit)).ToList();
+            if (!_sorted)
+            {
+                bool any = false;
+                double low = 0, high = 0;
+                foreach (double v in _values)
+                {
+                    if (fits(v))
+                    {
+                        low = !any || v < low ? v : low;
+                        high = !any || v > high ? v : high;
+                        any = true;
+                    }
+                }
+
+                if (!any)
+                {
+                    return null;
+                }
+
+                if (!_negativeZero || (low != 0 && high != 0))
+                {
+                    return (low, high);
+                }
+
+                Sort();
+            }
+
+            var inBand = _values.Where(fits).ToList();
             return inBand.Count > 0 ? (inBand[0], inBand[^1]) : null;
         }
 
-        bool any = false;
-        double low = 0, high = 0;
-        foreach (double v in values)
+        private void Sort()
         {
-            if (ValueLooksLike(c.Field, v, c.Unit))
-            {
-                low = any ? Math.Min(low, v) : v;
-                high = any ? Math.Max(high, v) : v;
-                any = true;
-            }
+            _values.Sort();
+            _sorted = true;
         }
-
-        return any ? (low, high) : null;
     }
 
     /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>

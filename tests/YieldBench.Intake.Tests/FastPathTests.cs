@@ -185,4 +185,21 @@ public class FastPathTests
         Assert.Equal([new DateTime(2023, 9, 4, 8, 0, 0), new DateTime(2023, 9, 5, 8, 30, 15)], log.Readings.Select(r => r.Timestamp));
         Assert.Contains(set.Issues, i => i.Code == "not-a-date" && i.File == "logs-2023.csv" && i.Row == 4 && i.Column == "Timestamp" && i.Value == "2023-09-06 24:00");
     }
+
+    [Theory]
+    [InlineData("-0", "0", "-0")]
+    [InlineData("0", "-0", "0")]
+    public void A_zero_written_with_a_minus_shows_in_a_unit_range_as_it_was_read(string first, string second, string shownLow)
+    {
+        // Given a log whose sugar column gives no unit and holds both 0 and -0 as its lowest readings
+        using var folder = new TestFolder();
+        string name = folder.Text("log-2023.csv", $"Lot,Timestamp,Sugar\nA-01,2023-09-01 08:00,24\nA-01,2023-09-02 08:00,{first}\nA-01,2023-09-03 08:00,{second}\nA-01,2023-09-04 08:00,12\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then the range shown starts at the zero a sort of the values puts first
+        var unit = Assert.Single(set.Issues, i => i.Code == "unit-from-values");
+        Assert.Equal($"The header gives no unit; the values ({shownLow} to 24) look like °Brix, so they were read as °Brix. State the unit in the header, e.g. 'Sugar (°Brix)'.", unit.Message);
+    }
 }
