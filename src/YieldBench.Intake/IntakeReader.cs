@@ -31,9 +31,40 @@ public static partial class IntakeReader
         var run = new IntakeRun(options, rules, sink);
         var files = new List<InputFile>();
 
-        foreach (var (display, full) in Expand(paths, root, sink))
+        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty
+        // folder). While one file's tables are read here, the next file is hashed and parsed on another thread; its
+        // issues wait in their own list and join the others when its turn comes, so the order never changes.
+        var steps = Expand(paths, root).ToList();
+        Task<LoadedFile>? ahead = null;
+        int aheadAt = -1;
+        for (int i = 0; i < steps.Count; i++)
         {
-            ReadFile(run, display, full, files);
+            if (steps[i].Issue is { } issue)
+            {
+                sink.AddRange([issue]);
+                continue;
+            }
+
+            var (display, full) = (steps[i].Display!, steps[i].Full!);
+            LoadedFile? loaded = null;
+            if (aheadAt == i)
+            {
+                loaded = ahead!.GetAwaiter().GetResult();
+            }
+            else if (Readable(full))
+            {
+                loaded = Load(display, full, options);
+            }
+
+            int following = steps.FindIndex(i + 1, s => s.Full is not null);
+            if (following >= 0 && Readable(steps[following].Full!))
+            {
+                var (d, f) = (steps[following].Display!, steps[following].Full!);
+                ahead = Task.Run(() => Load(d, f, options));
+                aheadAt = following;
+            }
+
+            ReadFile(run, display, full, loaded, files);
         }
 
         ColumnRules.ReportUnused(rules, sink);
@@ -133,7 +164,13 @@ public static partial class IntakeReader
     private static string SpellingKey(string text) =>
         new string(text.Where(char.IsLetterOrDigit).Select(char.ToUpperInvariant).ToArray());
 
-    private static IEnumerable<(string Display, string Full)> Expand(IReadOnlyList<string> paths, string root, IssueSink sink)
+    /// <summary>One input in order: a file to read (display name and full path), or an issue found listing the inputs.</summary>
+    private sealed record Step(string? Display, string? Full, IntakeIssue? Issue);
+
+    private static Step Found(string file, string code, string message, IssueSeverity severity) =>
+        new(null, null, new IntakeIssue(file, null, null, null, null, code, message, severity));
+
+    private static IEnumerable<Step> Expand(IReadOnlyList<string> paths, string root)
     {
         foreach (var p in paths)
         {
@@ -146,7 +183,7 @@ public static partial class IntakeReader
                     .ToList();
                 if (inFolder.Count == 0)
                 {
-                    sink.Warning(p, null, null, null, null, "folder-empty", IntakeMessages.FolderEmpty());
+                    yield return Found(p, "folder-empty", IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
                 }
 
                 foreach (var f in inFolder)
@@ -154,44 +191,71 @@ public static partial class IntakeReader
                     string display = Path.Combine(p, Path.GetFileName(f));
                     if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
                     {
-                        sink.Warning(display, null, null, null, null, "lock-file-skipped", IntakeMessages.LockFileSkipped());
+                        yield return Found(display, "lock-file-skipped", IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
                         continue;
                     }
 
-                    yield return (display, f);
+                    yield return new Step(display, f, null);
                 }
             }
             else if (File.Exists(full))
             {
-                yield return (p, full);
+                yield return new Step(p, full, null);
             }
             else
             {
-                sink.Error(p, null, null, null, null, "file-not-found", IntakeMessages.FileNotFound());
+                yield return Found(p, "file-not-found", IntakeMessages.FileNotFound(), IssueSeverity.Error);
             }
         }
     }
 
-    private static void ReadFile(IntakeRun run, string file, string full, List<InputFile> files)
+    /// <summary>True for a file of a type that is read (by its name's ending).</summary>
+    private static bool Readable(string full)
+    {
+        string ext = Path.GetExtension(full).ToLowerInvariant();
+        return Extensions.Contains(ext) || ext is ".txt" or ".tsv";
+    }
+
+    /// <summary>A file hashed and parsed into raw sheets, with the issues found doing so, not yet read as tables.</summary>
+    private sealed record LoadedFile(InputFile? Hash, RawFile? Raw, IReadOnlyList<IntakeIssue> Issues, string? CannotOpen);
+
+    /// <summary>Hashes and parses one file; touches nothing shared, so it may run on another thread.</summary>
+    private static LoadedFile Load(string file, string full, IntakeOptions options)
+    {
+        var sink = new IssueSink();
+        InputFile? hash = null;
+        try
+        {
+            hash = Hash(file, full);
+            var raw = SourceFiles.Read(file, full, options, sink);
+            return new LoadedFile(hash, raw, sink.Issues, null);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return new LoadedFile(hash, null, sink.Issues, ex.Message.TrimEnd('.'));
+        }
+    }
+
+    private static void ReadFile(IntakeRun run, string file, string full, LoadedFile? loaded, List<InputFile> files)
     {
         var sink = run.Sink;
         string ext = Path.GetExtension(full).ToLowerInvariant();
-        if (!Extensions.Contains(ext) && ext is not ".txt" and not ".tsv")
+        if (loaded is null)
         {
             sink.Error(file, null, null, null, null, "unsupported-file-type", IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
 
-        RawFile raw;
-        try
+        if (loaded.Hash is { } hash)
         {
-            files.Add(Hash(file, full));
-            raw = SourceFiles.Read(file, full, run.Options, sink);
+            files.Add(hash);
         }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+
+        sink.AddRange(loaded.Issues);
+        if (loaded.Raw is not { } raw)
         {
-            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(ex.Message.TrimEnd('.')));
+            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
