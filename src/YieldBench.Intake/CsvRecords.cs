@@ -24,6 +24,7 @@ internal sealed class CsvRecords : IDisposable
     private readonly List<object?> _fields = [];
     private readonly Queue<(object?[] Fields, string? Bad)> _pending = new();
     private readonly StringBuilder _segment = new();
+    private readonly StringBuilder _field = new();
     private char[] _buffer;
     private int _pos;
     private int _len;
@@ -238,7 +239,7 @@ internal sealed class CsvRecords : IDisposable
     {
         int end = raw.Length - terminator;
         _fields.Clear();
-        var sb = new StringBuilder();
+        var sb = _field;
         int i = 0;
         while (true)
         {

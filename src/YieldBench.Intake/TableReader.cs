@@ -389,7 +389,7 @@ internal static partial class TableReader
 
     private static void SettleFromValues(SheetContext ctx, BoundColumn c)
     {
-        var values = new List<double>();
+        var values = new List<double>(ctx.LastRow - ctx.FirstData + 1);
         bool negativeZero = false;
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
@@ -457,13 +457,15 @@ internal static partial class TableReader
                 high = v > high ? v : high;
             }
 
-            var work = values.ToArray();
-            Median = Select(work, work.Length / 2);
             if (negativeZero && (low == 0 || high == 0))
             {
                 Sort();
                 (low, high) = (values[0], values[^1]);
             }
+
+            // Selection reorders what it works on. Where a sort may still be needed (to place -0 and 0), the order it
+            // starts from decides where they land, so the values keep their order and a copy is used.
+            Median = Select(negativeZero ? values.ToArray() : System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values), values.Count / 2);
 
             (Low, High) = (low, high);
         }
@@ -516,7 +518,7 @@ internal static partial class TableReader
     }
 
     /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>
-    internal static double Select(double[] a, int k)
+    internal static double Select(Span<double> a, int k)
     {
         int left = 0, right = a.Length - 1;
         while (left < right)
