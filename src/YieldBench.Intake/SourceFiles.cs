@@ -433,7 +433,8 @@ internal static partial class SourceFiles
     {
         var fs = OpenShared(fullPath);
         fs.Seek(skip, SeekOrigin.Begin);
-        return new StreamReader(fs, encoding, detectEncodingFromByteOrderMarks: false, bufferSize: 1 << 16, leaveOpen: false);
+        // Buffers stay below the size that would put them on the large-object heap.
+        return new StreamReader(fs, encoding, detectEncodingFromByteOrderMarks: false, bufferSize: 1 << 15, leaveOpen: false);
     }
 
     /// <summary>
@@ -477,7 +478,7 @@ internal static partial class SourceFiles
     /// <summary>True when the rest of the stream is valid UTF-8, checked a block at a time.</summary>
     private static bool IsValidUtf8(Stream stream)
     {
-        var buffer = new byte[1 << 16];
+        var buffer = new byte[1 << 15];
         int carried = 0;
         while (true)
         {

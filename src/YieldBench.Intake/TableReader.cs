@@ -34,11 +34,17 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public Dictionary<string, SourceRef> LotKeys { get; } = new(StringComparer.Ordinal);
 
-    public List<(string LotId, int? Season, LogReading Reading)> Readings { get; } = [];
+    public ChunkedList<(string LotId, int? Season, LogReading Reading)> Readings { get; } = new();
 
     public List<SourceAccount> Accounts { get; } = [];
 
     public List<HeaderMapping> Mappings { get; } = [];
+
+    /// <summary>A column's numbers while its unit is settled; reused from column to column (tables are read on one thread).</summary>
+    public List<double> ColumnValues { get; } = [];
+
+    /// <summary>Room to select a column's middle value in without reordering <see cref="ColumnValues"/>.</summary>
+    public double[] SelectionSpace { get; set; } = [];
 }
 
 /// <summary>Finds the table in a sheet, maps its headers, and turns its rows into lots or log readings.</summary>
@@ -389,7 +395,9 @@ internal static partial class TableReader
 
     private static void SettleFromValues(SheetContext ctx, BoundColumn c)
     {
-        var values = new List<double>(ctx.LastRow - ctx.FirstData + 1);
+        var values = ctx.Run.ColumnValues;
+        values.Clear();
+        values.EnsureCapacity(ctx.LastRow - ctx.FirstData + 1);
         bool negativeZero = false;
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
@@ -406,7 +414,7 @@ internal static partial class TableReader
             return;
         }
 
-        var spread = new Spread(values, negativeZero);
+        var spread = new Spread(values, negativeZero, ctx.Run);
         double median = spread.Median, low = spread.Low, high = spread.High;
         var sink = ctx.Run.Sink;
         switch (c.Field.Kind)
@@ -446,7 +454,7 @@ internal static partial class TableReader
         private readonly bool _negativeZero;
         private bool _sorted;
 
-        public Spread(List<double> values, bool negativeZero)
+        public Spread(List<double> values, bool negativeZero, IntakeRun run)
         {
             _values = values;
             _negativeZero = negativeZero;
@@ -465,7 +473,19 @@ internal static partial class TableReader
 
             // Selection reorders what it works on. Where a sort may still be needed (to place -0 and 0), the order it
             // starts from decides where they land, so the values keep their order and a copy is used.
-            Median = Select(negativeZero ? values.ToArray() : System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values), values.Count / 2);
+            var all = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values);
+            if (negativeZero)
+            {
+                if (run.SelectionSpace.Length < all.Length)
+                {
+                    run.SelectionSpace = new double[all.Length];
+                }
+
+                all.CopyTo(run.SelectionSpace);
+                all = run.SelectionSpace.AsSpan(0, values.Count);
+            }
+
+            Median = Select(all, values.Count / 2);
 
             (Low, High) = (low, high);
         }
@@ -609,15 +629,23 @@ internal static partial class TableReader
 
     // ---------------------------------------------------------------- rows
 
-    private sealed class RowState(SheetContext ctx, int row)
+    /// <summary>The row being read and whether a problem has left it out; one per sheet, started afresh for each row.</summary>
+    private sealed class RowState(SheetContext ctx)
     {
         public bool Bad { get; set; }
 
-        public int Row { get; } = row;
+        public int Row { get; private set; }
 
         public int SheetRow => Row + 1;
 
         public SheetContext Ctx { get; } = ctx;
+
+        public RowState Start(int row)
+        {
+            Row = row;
+            Bad = false;
+            return this;
+        }
 
         public void Problem(BoundColumn c, object? cell, string code, string message, bool critical)
         {
@@ -759,6 +787,7 @@ internal static partial class TableReader
         }
 
         int read = 0, used = 0, reported = 0, blank = 0, summary = 0;
+        var rowState = new RowState(ctx);
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
             read++;
@@ -796,7 +825,7 @@ internal static partial class TableReader
                 continue;
             }
 
-            var lot = ReadLotRow(ctx, r);
+            var lot = ReadLotRow(ctx, rowState, r);
             if (lot is null)
             {
                 reported++;
@@ -819,9 +848,9 @@ internal static partial class TableReader
         return Outcome.Read;
     }
 
-    private static Lot? ReadLotRow(SheetContext ctx, int r)
+    private static Lot? ReadLotRow(SheetContext ctx, RowState row, int r)
     {
-        var st = new RowState(ctx, r);
+        var st = row.Start(r);
         string? lotId = TextField(st, "lot_id");
         string? strain = TextField(st, "strain");
         int? season = SeasonField(st);
@@ -1224,6 +1253,7 @@ internal static partial class TableReader
         // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
         string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
         int read = 0, used = 0, reported = 0, blank = 0, summary = 0;
+        var rowState = new RowState(ctx);
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
             read++;
@@ -1254,7 +1284,7 @@ internal static partial class TableReader
                 continue;
             }
 
-            var st = new RowState(ctx, r);
+            var st = rowState.Start(r);
             string? lotId = sheetLot ?? TextField(st, lotCol);
             if (lotId is null && lotCol is not null && !st.Bad)
             {
