@@ -47,6 +47,11 @@ internal sealed class CsvRecords : IDisposable
     // repeat down a log), which saves building and holding a copy.
     private object?[] _above = [];
 
+    // Per column, the short texts seen so far, so that a repeated value (a strain, a vessel type, a reading such as
+    // "20.5") is one string. A column that keeps giving new texts (ids, timestamps) stops being tracked.
+    private readonly List<HashSet<string>.AlternateLookup<ReadOnlySpan<char>>?> _seen = [];
+    private readonly List<bool> _seenDropped = [];
+
     /// <summary>The fields of the record last read (all strings).</summary>
     public object?[] Record { get; private set; } = [];
 
@@ -223,7 +228,7 @@ internal sealed class CsvRecords : IDisposable
             var field = d < 0 ? line : line[..d];
             fields[f] = field.Length == 0 ? ""
                 : f < _above.Length && _above[f] is string above && field.SequenceEqual(above) ? above
-                : new string(field);
+                : Text(f, field);
             if (d < 0)
             {
                 _above = fields;
@@ -233,6 +238,44 @@ internal sealed class CsvRecords : IDisposable
             f++;
             line = line[(d + 1)..];
         }
+    }
+
+    /// <summary>The text of a field in column <paramref name="column"/>: a string already made for the same text, or a new one.</summary>
+    private string Text(int column, ReadOnlySpan<char> field)
+    {
+        const int MaxLength = 24, MaxDistinct = 4096;
+        if (field.Length > MaxLength)
+        {
+            return new string(field);
+        }
+
+        while (_seen.Count <= column)
+        {
+            _seen.Add(null);
+            _seenDropped.Add(false);
+        }
+
+        if (_seenDropped[column])
+        {
+            return new string(field);
+        }
+
+        var seen = _seen[column] ??= new HashSet<string>(StringComparer.Ordinal).GetAlternateLookup<ReadOnlySpan<char>>();
+        if (seen.TryGetValue(field, out var known))
+        {
+            return known;
+        }
+
+        string text = new(field);
+        if (seen.Set.Count >= MaxDistinct)
+        {
+            _seen[column] = null;
+            _seenDropped[column] = true;
+            return text;
+        }
+
+        seen.Add(text);
+        return text;
     }
 
     /// <summary>The fields of a record whose every quote mark is part of a well-formed quoted field, else null.</summary>
