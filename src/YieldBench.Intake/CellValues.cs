@@ -92,6 +92,18 @@ internal static partial class CellValues
 
     private static CellProblem ParseNumberText(string s, bool decimalComma, out double value, out string? alternative)
     {
+        if (!(decimalComma && s.Contains('.', StringComparison.Ordinal)) && PlainDecimal(s, out value))
+        {
+            alternative = null;
+            return CellProblem.None;
+        }
+
+        return ParseNumberTextGeneral(s, decimalComma, out value, out alternative);
+    }
+
+    /// <summary>Any number text: grouping, decimal commas, signs, spaces, percent; the reference for the fast path.</summary>
+    internal static CellProblem ParseNumberTextGeneral(string s, bool decimalComma, out double value, out string? alternative)
+    {
         value = double.NaN;
         alternative = null;
         string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal);
@@ -146,13 +158,67 @@ internal static partial class CellValues
         return double.TryParse(t, NumberStyles.Float, Inv, out value) && double.IsFinite(value) ? CellProblem.None : CellProblem.NotANumber;
     }
 
+    /// <summary>
+    /// Text such as "24.3", "-1.8" or "1000": an optional minus, digits, and an optional point with digits, at most 15
+    /// digits in all. Such a number is an integer below 2^53 divided by an exact power of ten, so one division gives
+    /// the correctly rounded double, the value <see cref="double.TryParse(string?, NumberStyles, IFormatProvider?, out double)"/>
+    /// gives. False for any other text, which takes the general path.
+    /// </summary>
+    private static bool PlainDecimal(string s, out double value)
+    {
+        value = 0;
+        int i = 0;
+        bool negative = s.Length > 0 && s[0] == '-';
+        if (negative)
+        {
+            i++;
+        }
+
+        long mantissa = 0;
+        int digits = 0, decimals = 0;
+        bool point = false;
+        for (; i < s.Length; i++)
+        {
+            char c = s[i];
+            if (char.IsAsciiDigit(c))
+            {
+                if (++digits > 15)
+                {
+                    return false;
+                }
+
+                mantissa = (mantissa * 10) + (c - '0');
+                decimals += point ? 1 : 0;
+            }
+            else if (c == '.' && !point && digits > 0)
+            {
+                point = true;
+            }
+            else
+            {
+                return false;
+            }
+        }
+
+        if (digits == 0 || (point && decimals == 0))
+        {
+            return false;
+        }
+
+        double magnitude = decimals == 0 ? mantissa : mantissa / PowersOfTen[decimals];
+        value = negative ? -magnitude : magnitude;
+        return true;
+    }
+
+    private static readonly double[] PowersOfTen = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+
     /// <summary>Day/month order settled by the column's text dates (a first part above 12 means day first).</summary>
     public static DateOrder ColumnDateOrder(IEnumerable<object?> cells)
     {
         bool dayFirst = false, monthFirst = false;
         foreach (var c in cells)
         {
-            if (c is string s && SlashDate().Match(s.Trim()) is { Success: true } m)
+            if (c is string s && !StartsWithThreeDigits(s.Trim()) && SlashDate().Match(s.Trim()) is { Success: true } m)
             {
                 if (m.Groups["sep"].Value == ".")
                 {
@@ -210,6 +276,19 @@ internal static partial class CellValues
             return CellProblem.Blank;
         }
 
+        if (PlainIsoDate(s, out value, out bool valid))
+        {
+            return valid ? CellProblem.None : CellProblem.NotADate;
+        }
+
+        return ParseDateTextGeneral(s, order, out value, out dayFirst, out monthFirst);
+    }
+
+    /// <summary>Any date text (trimmed, not empty), by the regular expressions; the reference for the fast path.</summary>
+    internal static CellProblem ParseDateTextGeneral(string s, DateOrder order, out DateTime value, out string? dayFirst, out string? monthFirst)
+    {
+        value = default;
+        dayFirst = monthFirst = null;
         if (IsoDate().Match(s) is { Success: true } iso)
         {
             return MakeDate(iso.Groups["y"].Value, iso.Groups["m"].Value, iso.Groups["d"].Value, iso, out value) ? CellProblem.None : CellProblem.NotADate;
@@ -254,6 +333,128 @@ internal static partial class CellValues
         }
 
         return DateTime.TryParseExact(s, MonthNameFormats, Inv, DateTimeStyles.AllowWhiteSpaces, out value) ? CellProblem.None : CellProblem.NotADate;
+    }
+
+    /// <summary>A day and month cannot follow "d/" or "dd/" when the text starts with three digits.</summary>
+    private static bool StartsWithThreeDigits(string s) =>
+        s.Length >= 3 && char.IsAsciiDigit(s[0]) && char.IsAsciiDigit(s[1]) && char.IsAsciiDigit(s[2]);
+
+    /// <summary>
+    /// The common ISO text ("2024-03-02", "2024-03-02 14:30", "2024/3/2T14:30:05.5") in ASCII digits, read without
+    /// the regular expression: true when the text has that form (then <paramref name="valid"/> tells whether it is a
+    /// real date and time, as <see cref="IsoDate"/> and <see cref="MakeDate"/> would), false for any other text.
+    /// </summary>
+    private static bool PlainIsoDate(string s, out DateTime value, out bool valid)
+    {
+        value = default;
+        valid = false;
+        int i = 0;
+        if (!Digits(s, ref i, 4, 4, out int year) || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int month)
+            || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int day))
+        {
+            return false;
+        }
+
+        int h = 0, min = 0, sec = 0;
+        bool time = i < s.Length;
+        if (time)
+        {
+            if (s[i] is not (' ' or 'T'))
+            {
+                return false;
+            }
+
+            i++;
+            if (!Digits(s, ref i, 1, 2, out h) || i >= s.Length || s[i] != ':')
+            {
+                return false;
+            }
+
+            i++;
+            if (!Digits(s, ref i, 2, 2, out min))
+            {
+                return false;
+            }
+
+            if (i < s.Length)
+            {
+                if (s[i] != ':')
+                {
+                    return false;
+                }
+
+                i++;
+                if (!Digits(s, ref i, 2, 2, out sec))
+                {
+                    return false;
+                }
+
+                if (i < s.Length)
+                {
+                    // Fractions of a second are accepted and dropped.
+                    if (s[i] != '.')
+                    {
+                        return false;
+                    }
+
+                    i++;
+                    if (!Digits(s, ref i, 1, int.MaxValue, out _))
+                    {
+                        return false;
+                    }
+
+                    if (i < s.Length)
+                    {
+                        return false;
+                    }
+                }
+            }
+        }
+
+        if (month is < 1 or > 12 || day < 1 || year is < 1900 or > 2100 || day > DateTime.DaysInMonth(year, month))
+        {
+            return true;
+        }
+
+        value = new DateTime(year, month, day, 0, 0, 0, DateTimeKind.Unspecified);
+        if (time)
+        {
+            if (h > 23 || min > 59 || sec > 59)
+            {
+                return true;
+            }
+
+            value = value.Add(new TimeSpan(h, min, sec));
+        }
+
+        valid = true;
+        return true;
+
+        static bool Separator(string s, ref int i)
+        {
+            if (i < s.Length && s[i] is '-' or '/' or '.')
+            {
+                i++;
+                return true;
+            }
+
+            return false;
+        }
+
+        static bool Digits(string s, ref int i, int least, int most, out int number)
+        {
+            number = 0;
+            int n = 0;
+            while (n < most && i < s.Length && char.IsAsciiDigit(s[i]))
+            {
+                // Only the date and time parts are used as numbers (at most four digits); long fractions are skipped.
+                number = n < 9 ? (number * 10) + (s[i] - '0') : number;
+                i++;
+                n++;
+            }
+
+            return n >= least;
+        }
     }
 
     private static bool MakeDate(string y, string m, string d, Match match, out DateTime value)

@@ -31,9 +31,40 @@ public static partial class IntakeReader
         var run = new IntakeRun(options, rules, sink);
         var files = new List<InputFile>();
 
-        foreach (var (display, full) in Expand(paths, root, sink))
+        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty
+        // folder). While one file's tables are read here, the next file is hashed and parsed on another thread; its
+        // issues wait in their own list and join the others when its turn comes, so the order never changes.
+        var steps = Expand(paths, root).ToList();
+        Task<LoadedFile>? ahead = null;
+        int aheadAt = -1;
+        for (int i = 0; i < steps.Count; i++)
         {
-            ReadFile(run, display, full, files);
+            if (steps[i].Issue is { } issue)
+            {
+                sink.AddRange([issue]);
+                continue;
+            }
+
+            var (display, full) = (steps[i].Display!, steps[i].Full!);
+            LoadedFile? loaded = null;
+            if (aheadAt == i)
+            {
+                loaded = ahead!.GetAwaiter().GetResult();
+            }
+            else if (Readable(full))
+            {
+                loaded = Load(display, full, options);
+            }
+
+            int following = steps.FindIndex(i + 1, s => s.Full is not null);
+            if (following >= 0 && Readable(steps[following].Full!))
+            {
+                var (d, f) = (steps[following].Display!, steps[following].Full!);
+                ahead = Task.Run(() => Load(d, f, options));
+                aheadAt = following;
+            }
+
+            ReadFile(run, display, full, loaded, files);
         }
 
         ColumnRules.ReportUnused(rules, sink);
@@ -59,29 +90,73 @@ public static partial class IntakeReader
     {
         foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
         {
-            var groups = run.Lots.Select(get).OfType<string>().GroupBy(SpellingKey, StringComparer.Ordinal);
-            foreach (var g in groups)
+            // Each distinct spelling once, in order of first use, with its count and the first lot that uses it.
+            var spellings = new Dictionary<string, (int Count, int First)>(StringComparer.Ordinal);
+            for (int i = 0; i < run.Lots.Count; i++)
             {
-                var spellings = g.GroupBy(v => v, StringComparer.Ordinal).Select(x => (Text: x.Key, Count: x.Count())).ToList();
-                if (spellings.Count < 2)
+                if (get(run.Lots[i]) is { } v)
+                {
+                    spellings[v] = spellings.TryGetValue(v, out var seen) ? (seen.Count + 1, seen.First) : (1, i);
+                }
+            }
+
+            // Groups of spellings by key, in order of the group's first use; spellings in order of first use.
+            var groups = new Dictionary<string, List<(string Text, int Count, int First)>>(StringComparer.Ordinal);
+            var order = new List<string>();
+            foreach (var (text, (count, first)) in spellings.OrderBy(x => x.Value.First))
+            {
+                string key = SpellingKey(text);
+                if (!groups.TryGetValue(key, out var list))
+                {
+                    groups[key] = list = [];
+                    order.Add(key);
+                }
+
+                list.Add((text, count, first));
+            }
+
+            var replace = new Dictionary<string, string>(StringComparer.Ordinal);
+            var warnings = new List<(int FirstLot, string Kept, int Count, List<(string, int)> Others)>();
+            foreach (var key in order)
+            {
+                var group = groups[key];
+                if (group.Count < 2)
                 {
                     continue;
                 }
 
-                var kept = spellings.OrderByDescending(x => x.Count).First();
-                var others = spellings.Where(x => x.Text != kept.Text).ToList();
-                for (int i = 0; i < run.Lots.Count; i++)
+                // The most used spelling; on a tie the first read.
+                var kept = group[0];
+                foreach (var g in group)
                 {
-                    var lot = run.Lots[i];
-                    if (get(lot) is { } v && v != kept.Text && SpellingKey(v) == g.Key)
+                    kept = g.Count > kept.Count ? g : kept;
+                }
+
+                foreach (var g in group)
+                {
+                    if (g.Text != kept.Text)
                     {
-                        run.Lots[i] = field == "strain" ? lot with { Strain = kept.Text } : lot with { Vessel = kept.Text };
+                        replace[g.Text] = kept.Text;
                     }
                 }
 
-                var first = run.Lots.First(l => get(l) == kept.Text).Source;
-                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept.Text, "spelling-unified",
-                    IntakeMessages.SpellingUnified(field, kept.Text, kept.Count, others.Select(o => (o.Text, o.Count)).ToList()));
+                warnings.Add((group[0].First, kept.Text, kept.Count, group.Where(g => g.Text != kept.Text).Select(g => (g.Text, g.Count)).ToList()));
+            }
+
+            for (int i = 0; replace.Count > 0 && i < run.Lots.Count; i++)
+            {
+                var lot = run.Lots[i];
+                if (get(lot) is { } v && replace.TryGetValue(v, out var kept))
+                {
+                    run.Lots[i] = field == "strain" ? lot with { Strain = kept } : lot with { Vessel = kept };
+                }
+            }
+
+            foreach (var (firstLot, kept, count, others) in warnings)
+            {
+                // The group's first lot: after unifying, the first that bears the kept spelling.
+                var first = run.Lots[firstLot].Source;
+                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, "spelling-unified", IntakeMessages.SpellingUnified(field, kept, count, others));
             }
         }
     }
@@ -89,7 +164,13 @@ public static partial class IntakeReader
     private static string SpellingKey(string text) =>
         new string(text.Where(char.IsLetterOrDigit).Select(char.ToUpperInvariant).ToArray());
 
-    private static IEnumerable<(string Display, string Full)> Expand(IReadOnlyList<string> paths, string root, IssueSink sink)
+    /// <summary>One input in order: a file to read (display name and full path), or an issue found listing the inputs.</summary>
+    private sealed record Step(string? Display, string? Full, IntakeIssue? Issue);
+
+    private static Step Found(string file, string code, string message, IssueSeverity severity) =>
+        new(null, null, new IntakeIssue(file, null, null, null, null, code, message, severity));
+
+    private static IEnumerable<Step> Expand(IReadOnlyList<string> paths, string root)
     {
         foreach (var p in paths)
         {
@@ -102,7 +183,7 @@ public static partial class IntakeReader
                     .ToList();
                 if (inFolder.Count == 0)
                 {
-                    sink.Warning(p, null, null, null, null, "folder-empty", IntakeMessages.FolderEmpty());
+                    yield return Found(p, "folder-empty", IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
                 }
 
                 foreach (var f in inFolder)
@@ -110,44 +191,71 @@ public static partial class IntakeReader
                     string display = Path.Combine(p, Path.GetFileName(f));
                     if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
                     {
-                        sink.Warning(display, null, null, null, null, "lock-file-skipped", IntakeMessages.LockFileSkipped());
+                        yield return Found(display, "lock-file-skipped", IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
                         continue;
                     }
 
-                    yield return (display, f);
+                    yield return new Step(display, f, null);
                 }
             }
             else if (File.Exists(full))
             {
-                yield return (p, full);
+                yield return new Step(p, full, null);
             }
             else
             {
-                sink.Error(p, null, null, null, null, "file-not-found", IntakeMessages.FileNotFound());
+                yield return Found(p, "file-not-found", IntakeMessages.FileNotFound(), IssueSeverity.Error);
             }
         }
     }
 
-    private static void ReadFile(IntakeRun run, string file, string full, List<InputFile> files)
+    /// <summary>True for a file of a type that is read (by its name's ending).</summary>
+    private static bool Readable(string full)
+    {
+        string ext = Path.GetExtension(full).ToLowerInvariant();
+        return Extensions.Contains(ext) || ext is ".txt" or ".tsv";
+    }
+
+    /// <summary>A file hashed and parsed into raw sheets, with the issues found doing so, not yet read as tables.</summary>
+    private sealed record LoadedFile(InputFile? Hash, RawFile? Raw, IReadOnlyList<IntakeIssue> Issues, string? CannotOpen);
+
+    /// <summary>Hashes and parses one file; touches nothing shared, so it may run on another thread.</summary>
+    private static LoadedFile Load(string file, string full, IntakeOptions options)
+    {
+        var sink = new IssueSink();
+        InputFile? hash = null;
+        try
+        {
+            hash = Hash(file, full);
+            var raw = SourceFiles.Read(file, full, options, sink);
+            return new LoadedFile(hash, raw, sink.Issues, null);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return new LoadedFile(hash, null, sink.Issues, ex.Message.TrimEnd('.'));
+        }
+    }
+
+    private static void ReadFile(IntakeRun run, string file, string full, LoadedFile? loaded, List<InputFile> files)
     {
         var sink = run.Sink;
         string ext = Path.GetExtension(full).ToLowerInvariant();
-        if (!Extensions.Contains(ext) && ext is not ".txt" and not ".tsv")
+        if (loaded is null)
         {
             sink.Error(file, null, null, null, null, "unsupported-file-type", IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
 
-        RawFile raw;
-        try
+        if (loaded.Hash is { } hash)
         {
-            files.Add(Hash(file, full));
-            raw = SourceFiles.Read(file, full, run.Options, sink);
+            files.Add(hash);
         }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+
+        sink.AddRange(loaded.Issues);
+        if (loaded.Raw is not { } raw)
         {
-            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(ex.Message.TrimEnd('.')));
+            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
@@ -214,8 +322,18 @@ public static partial class IntakeReader
         var logs = new List<FermentationLog>();
         var index = new Dictionary<(string, int?), List<LogReading>>();
         var knownIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        string? lastId = null;
+        int? lastSeason = null;
+        List<LogReading>? lastList = null;
         foreach (var (rawId, season, reading) in run.Readings)
         {
+            // A log's readings mostly follow one another: the same lot and season as the reading before is its list.
+            if (lastList is not null && season == lastSeason && string.Equals(rawId, lastId, StringComparison.Ordinal))
+            {
+                lastList.Add(reading);
+                continue;
+            }
+
             // A log sheet named "Lot 23-004" (or "Batch #7") is the log of lot 23-004 when no lot bears the full name.
             string lotId = rawId;
             if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
@@ -230,6 +348,7 @@ public static partial class IntakeReader
             }
 
             list.Add(reading);
+            (lastId, lastSeason, lastList) = (rawId, season, list);
         }
 
         if (logs.Count == 0)
@@ -238,9 +357,11 @@ public static partial class IntakeReader
         }
 
         var lotKeys = run.Lots.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
-        var lotIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
-        var withLog = new HashSet<string>(StringComparer.Ordinal);
-        var lotsById = run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
+        var lotIds = knownIds;
+
+        // Lots with a log, by lot id and season (what a lot's key is made of).
+        var withLog = new HashSet<(string, int)>();
+        ILookup<string, Lot>? lotsById = null;
         foreach (var log in logs)
         {
             bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
@@ -252,13 +373,21 @@ public static partial class IntakeReader
                 continue;
             }
 
-            foreach (var lot in lotsById[log.LotId].Where(l => log.Season is null || l.Season == log.Season))
+            if (log.Season is { } season)
             {
-                withLog.Add(lot.Key);
+                // Lot keys are unique, so this is the one lot of that id and season.
+                withLog.Add((log.LotId, season));
+                continue;
+            }
+
+            lotsById ??= run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
+            foreach (var lot in lotsById[log.LotId])
+            {
+                withLog.Add((lot.LotId, lot.Season));
             }
         }
 
-        foreach (var group in run.Lots.Where(l => !withLog.Contains(l.Key)).GroupBy(l => l.Season).OrderBy(g => g.Key))
+        foreach (var group in run.Lots.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
         {
             var ids = group.Select(l => l.LotId).ToList();
             var src = group.First().Source!;

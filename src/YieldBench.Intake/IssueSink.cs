@@ -14,4 +14,7 @@ internal sealed class IssueSink
 
     public void Warning(string file, string? sheet, int? row, string? column, string? value, string code, string message) =>
         _issues.Add(new IntakeIssue(file, sheet, row, column, value, code, message, IssueSeverity.Warning));
+
+    /// <summary>Adds issues collected elsewhere (by a file read ahead), in their order.</summary>
+    public void AddRange(IEnumerable<IntakeIssue> issues) => _issues.AddRange(issues);
 }

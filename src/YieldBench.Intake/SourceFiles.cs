@@ -4,8 +4,6 @@ using System.Text;
 using System.Text.RegularExpressions;
 using System.Text.Unicode;
 using System.Xml;
-using CsvHelper;
-using CsvHelper.Configuration;
 using ExcelDataReader;
 
 namespace YieldBench.Intake;
@@ -18,6 +16,9 @@ internal static partial class SourceFiles
 {
     /// <summary>Bytes of a CSV searched for a zero byte (a text file has none).</summary>
     private const int BinaryProbeBytes = 64 * 1024;
+
+    /// <summary>Non-blank lines at the start of a CSV that settle its delimiter.</summary>
+    private const int DelimiterSampleLines = 30;
 
     private static readonly byte[] ZipMagic = [0x50, 0x4B, 0x03, 0x04];
     private static readonly byte[] CompoundFileMagic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
@@ -366,47 +367,41 @@ internal static partial class SourceFiles
             }
         }
 
-        byte[] bytes;
+        // The file is streamed: read once to settle its encoding, then decoded and split as it is read again.
+        Encoding encoding;
+        int skip;
         using (var fs = OpenShared(fullPath))
         {
-            bytes = new byte[fs.Length];
-            fs.ReadExactly(bytes);
+            if (utf16)
+            {
+                encoding = new UnicodeEncoding(bigEndian: head[0] == 0xFE, byteOrderMark: false);
+                skip = 2;
+            }
+            else if (IsValidUtf8(fs))
+            {
+                encoding = new UTF8Encoding(encoderShouldEmitUTF8Identifier: false);
+                skip = head.Length >= 3 && head[0] == 0xEF && head[1] == 0xBB && head[2] == 0xBF ? 3 : 0;
+            }
+            else
+            {
+                encoding = Encoding.GetEncoding(1252);
+                skip = 0;
+                sink.Warning(file, null, null, null, null, "encoding-assumed", IntakeMessages.EncodingAssumed());
+            }
         }
 
-        string text;
-        if (utf16)
+        char delimiter;
+        using (var reader = OpenText(fullPath, encoding, skip))
         {
-            text = (head[0] == 0xFF ? Encoding.Unicode : Encoding.BigEndianUnicode).GetString(bytes, 2, bytes.Length - 2);
+            delimiter = DetectDelimiter(LeadingLines(reader));
         }
-        else if (Utf8.IsValid(bytes))
-        {
-            int skip = bytes.Length >= 3 && bytes[0] == 0xEF && bytes[1] == 0xBB && bytes[2] == 0xBF ? 3 : 0;
-            text = Encoding.UTF8.GetString(bytes, skip, bytes.Length - skip);
-        }
-        else
-        {
-            text = Encoding.GetEncoding(1252).GetString(bytes);
-            sink.Warning(file, null, null, null, null, "encoding-assumed", IntakeMessages.EncodingAssumed());
-        }
-
-        char delimiter = DetectDelimiter(text);
-        var config = new CsvConfiguration(CultureInfo.InvariantCulture)
-        {
-            Delimiter = delimiter.ToString(),
-            DetectDelimiter = false,
-            IgnoreBlankLines = false,
-            BadDataFound = null,
-            MissingFieldFound = null,
-            Mode = CsvMode.RFC4180,
-        };
 
         var rows = new List<object?[]>();
         var badRows = new Dictionary<int, string>();
         bool tooMany = false;
-        using (var reader = new StringReader(text))
-        using (var parser = new CsvParser(reader, config))
+        using (var records = new CsvRecords(OpenText(fullPath, encoding, skip), delimiter))
         {
-            while (parser.Read())
+            while (records.Read())
             {
                 if (rows.Count >= options.MaxRows)
                 {
@@ -414,22 +409,12 @@ internal static partial class SourceFiles
                     break;
                 }
 
-                var record = parser.Record ?? [];
-                if (parser.RawRecord.Contains('"') && !QuotesBalanced(parser.RawRecord))
+                if (records.Bad is { } bad)
                 {
-                    int swallowed = parser.RawRecord.TrimEnd('\r', '\n').Count(ch => ch == '\n');
-                    badRows[rows.Count] = swallowed == 0
-                        ? "a quote mark is not closed"
-                        : $"a quote mark is not closed, so the {swallowed.ToString(CultureInfo.InvariantCulture)} line(s) after it were read into this row";
+                    badRows[rows.Count] = bad;
                 }
 
-                var cells = new object?[record.Length];
-                for (int i = 0; i < record.Length; i++)
-                {
-                    cells[i] = record[i];
-                }
-
-                rows.Add(cells);
+                rows.Add(records.Record);
             }
         }
 
@@ -443,7 +428,84 @@ internal static partial class SourceFiles
         return new RawFile([sheet], false);
     }
 
-    private static bool QuotesBalanced(string raw) => raw.Count(c => c == '"') % 2 == 0;
+    /// <summary>The file's text from after its byte-order mark, decoded as it is read.</summary>
+    private static StreamReader OpenText(string fullPath, Encoding encoding, int skip)
+    {
+        var fs = OpenShared(fullPath);
+        fs.Seek(skip, SeekOrigin.Begin);
+        // Buffers stay below the size that would put them on the large-object heap.
+        return new StreamReader(fs, encoding, detectEncodingFromByteOrderMarks: false, bufferSize: 1 << 15, leaveOpen: false);
+    }
+
+    /// <summary>
+    /// The start of the text, far enough to hold its first <see cref="DelimiterSampleLines"/> non-blank lines whole
+    /// (or all of it): what <see cref="DetectDelimiter"/> looks at.
+    /// </summary>
+    private static string LeadingLines(TextReader reader)
+    {
+        var sb = new StringBuilder();
+        var chunk = new char[4096];
+        int lines = 0;
+        bool blank = true;
+        while (lines < DelimiterSampleLines)
+        {
+            int n = reader.Read(chunk, 0, chunk.Length);
+            if (n == 0)
+            {
+                break;
+            }
+
+            int from = sb.Length;
+            sb.Append(chunk, 0, n);
+            for (int i = from; i < sb.Length && lines < DelimiterSampleLines; i++)
+            {
+                char c = sb[i];
+                if (c == '\n')
+                {
+                    lines += blank ? 0 : 1;
+                    blank = true;
+                }
+                else if (!char.IsWhiteSpace(c))
+                {
+                    blank = false;
+                }
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    /// <summary>True when the rest of the stream is valid UTF-8, checked a block at a time.</summary>
+    private static bool IsValidUtf8(Stream stream)
+    {
+        var buffer = new byte[1 << 15];
+        int carried = 0;
+        while (true)
+        {
+            int n = stream.Read(buffer, carried, buffer.Length - carried);
+            if (n == 0)
+            {
+                return Utf8.IsValid(buffer.AsSpan(0, carried));
+            }
+
+            // Split the block before the last byte that starts a character, so no character is cut in two; valid
+            // UTF-8 never has four continuation bytes in a row.
+            int total = carried + n, split = total - 1, back = 0;
+            while (split >= 0 && back < 4 && (buffer[split] & 0xC0) == 0x80)
+            {
+                split--;
+                back++;
+            }
+
+            if (split < 0 || back == 4 || !Utf8.IsValid(buffer.AsSpan(0, split)))
+            {
+                return false;
+            }
+
+            carried = total - split;
+            Array.Copy(buffer, split, buffer, 0, carried);
+        }
+    }
 
     /// <summary>
     /// The delimiter that splits the first lines most consistently: for each candidate, the most common non-zero
@@ -451,7 +513,7 @@ internal static partial class SourceFiles
     /// </summary>
     internal static char DetectDelimiter(string text)
     {
-        var lines = text.Split('\n').Select(l => l.TrimEnd('\r')).Where(l => l.Trim().Length > 0).Take(30).ToArray();
+        var lines = text.Split('\n').Select(l => l.TrimEnd('\r')).Where(l => l.Trim().Length > 0).Take(DelimiterSampleLines).ToArray();
         char best = ',';
         int bestLines = 0, bestCount = 0;
         foreach (char d in new[] { ',', ';', '\t', '|' })

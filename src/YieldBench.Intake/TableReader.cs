@@ -34,11 +34,17 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public Dictionary<string, SourceRef> LotKeys { get; } = new(StringComparer.Ordinal);
 
-    public List<(string LotId, int? Season, LogReading Reading)> Readings { get; } = [];
+    public ChunkedList<(string LotId, int? Season, LogReading Reading)> Readings { get; } = new();
 
     public List<SourceAccount> Accounts { get; } = [];
 
     public List<HeaderMapping> Mappings { get; } = [];
+
+    /// <summary>A column's numbers while its unit is settled; reused from column to column (tables are read on one thread).</summary>
+    public List<double> ColumnValues { get; } = [];
+
+    /// <summary>Room to select a column's middle value in without reordering <see cref="ColumnValues"/>.</summary>
+    public double[] SelectionSpace { get; set; } = [];
 }
 
 /// <summary>Finds the table in a sheet, maps its headers, and turns its rows into lots or log readings.</summary>
@@ -55,7 +61,9 @@ internal static partial class TableReader
         "median", "std", "stdev", "std dev", "standard deviation", "overall", "grand total", "subtotal", "sub total", "range",
     ];
 
-    private static readonly HashSet<string> SummaryFollowers = ["of", "for", "all", "season", "lots", "vintage", "pct"];
+    private static readonly HashSet<string> SummaryFollowers = new(["of", "for", "all", "season", "lots", "vintage", "pct"], StringComparer.Ordinal);
+
+    private static readonly HashSet<string>.AlternateLookup<ReadOnlySpan<char>> SummaryFollowerLookup = SummaryFollowers.GetAlternateLookup<ReadOnlySpan<char>>();
 
     /// <summary>What reading a sheet came to.</summary>
     public enum Outcome
@@ -143,9 +151,23 @@ internal static partial class TableReader
         int LastRow,
         int? DefaultSeason)
     {
+        private readonly Dictionary<string, BoundColumn> _byField = IndexByField(Columns);
+
         public string? SheetName => Sheet.Name;
 
-        public BoundColumn? Column(string field) => Columns.FirstOrDefault(c => c.Field.Name == field);
+        /// <summary>The column bound to the field (the first one, when a header repeats), or null.</summary>
+        public BoundColumn? Column(string field) => _byField.GetValueOrDefault(field);
+
+        private static Dictionary<string, BoundColumn> IndexByField(List<BoundColumn> columns)
+        {
+            var index = new Dictionary<string, BoundColumn>(StringComparer.Ordinal);
+            foreach (var c in columns)
+            {
+                index.TryAdd(c.Field.Name, c);
+            }
+
+            return index;
+        }
 
         public IEnumerable<object?> Values(BoundColumn c)
         {
@@ -317,6 +339,17 @@ internal static partial class TableReader
     [GeneratedRegex(@"^\s*(?<y>\d{4})(?:\s*[-/]\s*\d{2,4})?\s*$")]
     private static partial Regex YearText();
 
+    /// <summary>The year a season cell's text names ("2024", "2024/25"), or null when it names none.</summary>
+    internal static int? YearOf(string text)
+    {
+        if (text.Length == 4 && char.IsAsciiDigit(text[0]) && char.IsAsciiDigit(text[1]) && char.IsAsciiDigit(text[2]) && char.IsAsciiDigit(text[3]))
+        {
+            return ((text[0] - '0') * 1000) + ((text[1] - '0') * 100) + ((text[2] - '0') * 10) + (text[3] - '0');
+        }
+
+        return YearText().Match(text) is { Success: true } m ? int.Parse(m.Groups["y"].Value, Inv) : null;
+    }
+
     // ---------------------------------------------------------------- units settled from the values
 
     private static void SettleUnits(SheetContext ctx)
@@ -362,12 +395,16 @@ internal static partial class TableReader
 
     private static void SettleFromValues(SheetContext ctx, BoundColumn c)
     {
-        var values = new List<double>();
-        foreach (var v in ctx.Values(c))
+        var values = ctx.Run.ColumnValues;
+        values.Clear();
+        values.EnsureCapacity(ctx.LastRow - ctx.FirstData + 1);
+        bool negativeZero = false;
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
-            if (CellValues.Number(v, ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None)
+            if (CellValues.Number(ctx.Sheet.Cell(r, c.Index), ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None)
             {
                 values.Add(d);
+                negativeZero |= d == 0 && double.IsNegative(d);
             }
         }
 
@@ -377,16 +414,16 @@ internal static partial class TableReader
             return;
         }
 
-        values.Sort();
-        double median = values[values.Count / 2], low = values[0], high = values[^1];
+        var spread = new Spread(values, negativeZero, ctx.Run);
+        double median = spread.Median, low = spread.Low, high = spread.High;
         var sink = ctx.Run.Sink;
         switch (c.Field.Kind)
         {
             case FieldKind.Sugar when c.Unit == ColumnUnit.None:
                 c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
-                var inBand = values.Where(v => ValueLooksLike(c.Field, v, c.Unit)).ToList();
+                var (bandLow, bandHigh) = spread.Band(v => ValueLooksLike(c.Field, v, c.Unit)) ?? (low, high);
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "unit-from-values",
-                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), inBand.Count > 0 ? inBand[0] : low, inBand.Count > 0 ? inBand[^1] : high, SugarHeaderExample(c)));
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)));
                 break;
             case FieldKind.Alcohol when c.Unit == ColumnUnit.None:
                 c.Unit = median > 30 ? ColumnUnit.AlcoholGramsPerLitre : ColumnUnit.PercentVolume;
@@ -403,6 +440,146 @@ internal static partial class TableReader
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "temperature-in-fahrenheit", IntakeMessages.ColumnInFahrenheit(low, high));
                 break;
         }
+    }
+
+    /// <summary>
+    /// The lowest, middle (the element at index n / 2 in sorted order) and highest of a column's values, as a sort
+    /// would give them, found by selection. Values that compare equal are the same number, except -0 and 0, which
+    /// print apart: when a column holds both and a zero is the lowest or highest value shown, the values are sorted
+    /// and the ends taken from the sorted order, as they always were.
+    /// </summary>
+    private sealed class Spread
+    {
+        private readonly List<double> _values;
+        private readonly bool _negativeZero;
+        private bool _sorted;
+
+        public Spread(List<double> values, bool negativeZero, IntakeRun run)
+        {
+            _values = values;
+            _negativeZero = negativeZero;
+            double low = values[0], high = values[0];
+            foreach (double v in values)
+            {
+                low = v < low ? v : low;
+                high = v > high ? v : high;
+            }
+
+            if (negativeZero && (low == 0 || high == 0))
+            {
+                Sort();
+                (low, high) = (values[0], values[^1]);
+            }
+
+            // Selection reorders what it works on. Where a sort may still be needed (to place -0 and 0), the order it
+            // starts from decides where they land, so the values keep their order and a copy is used.
+            var all = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values);
+            if (negativeZero)
+            {
+                if (run.SelectionSpace.Length < all.Length)
+                {
+                    run.SelectionSpace = new double[all.Length];
+                }
+
+                all.CopyTo(run.SelectionSpace);
+                all = run.SelectionSpace.AsSpan(0, values.Count);
+            }
+
+            Median = Select(all, values.Count / 2);
+
+            (Low, High) = (low, high);
+        }
+
+        public double Low { get; }
+
+        public double Median { get; }
+
+        public double High { get; }
+
+        /// <summary>The lowest and highest of the values that pass the test (first and last in sorted order), or null.</summary>
+        public (double Low, double High)? Band(Func<double, bool> fits)
+        {
+            if (!_sorted)
+            {
+                bool any = false;
+                double low = 0, high = 0;
+                foreach (double v in _values)
+                {
+                    if (fits(v))
+                    {
+                        low = !any || v < low ? v : low;
+                        high = !any || v > high ? v : high;
+                        any = true;
+                    }
+                }
+
+                if (!any)
+                {
+                    return null;
+                }
+
+                if (!_negativeZero || (low != 0 && high != 0))
+                {
+                    return (low, high);
+                }
+
+                Sort();
+            }
+
+            var inBand = _values.Where(fits).ToList();
+            return inBand.Count > 0 ? (inBand[0], inBand[^1]) : null;
+        }
+
+        private void Sort()
+        {
+            _values.Sort();
+            _sorted = true;
+        }
+    }
+
+    /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>
+    internal static double Select(Span<double> a, int k)
+    {
+        int left = 0, right = a.Length - 1;
+        while (left < right)
+        {
+            double pivot = a[left + ((right - left) / 2)];
+            int i = left, j = right;
+            while (i <= j)
+            {
+                while (a[i] < pivot)
+                {
+                    i++;
+                }
+
+                while (a[j] > pivot)
+                {
+                    j--;
+                }
+
+                if (i <= j)
+                {
+                    (a[i], a[j]) = (a[j], a[i]);
+                    i++;
+                    j--;
+                }
+            }
+
+            if (k <= j)
+            {
+                right = j;
+            }
+            else if (k >= i)
+            {
+                left = i;
+            }
+            else
+            {
+                return a[k];
+            }
+        }
+
+        return a[k];
     }
 
     private static string SugarHeaderExample(BoundColumn c) => c.Field.Name switch
@@ -452,15 +629,23 @@ internal static partial class TableReader
 
     // ---------------------------------------------------------------- rows
 
-    private sealed class RowState(SheetContext ctx, int row)
+    /// <summary>The row being read and whether a problem has left it out; one per sheet, started afresh for each row.</summary>
+    private sealed class RowState(SheetContext ctx)
     {
         public bool Bad { get; set; }
 
-        public int Row { get; } = row;
+        public int Row { get; private set; }
 
         public int SheetRow => Row + 1;
 
         public SheetContext Ctx { get; } = ctx;
+
+        public RowState Start(int row)
+        {
+            Row = row;
+            Bad = false;
+            return this;
+        }
 
         public void Problem(BoundColumn c, object? cell, string code, string message, bool critical)
         {
@@ -502,8 +687,47 @@ internal static partial class TableReader
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
     private static string? NoteText(object?[] row)
     {
-        var filled = row.Where(c => !CellValues.IsBlank(c)).Take(2).ToList();
-        return filled is [string s] && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+        object? only = null;
+        int filled = 0;
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c) && ++filled == 1)
+            {
+                only = c;
+            }
+            else if (filled > 1)
+            {
+                return null;
+            }
+        }
+
+        return filled == 1 && only is string s && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+    }
+
+    private static bool AllBlank(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static object? FirstFilled(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return c;
+            }
+        }
+
+        return null;
     }
 
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
@@ -512,8 +736,15 @@ internal static partial class TableReader
         var lotCol = ctx.Column("lot_id");
         object? candidate = lotCol is not null && lotCol.Index < row.Length && !CellValues.IsBlank(row[lotCol.Index])
             ? row[lotCol.Index]
-            : row.FirstOrDefault(c => !CellValues.IsBlank(c));
+            : FirstFilled(row);
         if (candidate is not string s)
+        {
+            return false;
+        }
+
+        // Every summary word starts with a letter, so text starting with a digit (a lot id) is none.
+        var lead = s.AsSpan().TrimStart();
+        if (lead.Length > 0 && char.IsAsciiDigit(lead[0]))
         {
             return false;
         }
@@ -527,10 +758,16 @@ internal static partial class TableReader
 
         foreach (var w in SummaryWords)
         {
-            if (n.StartsWith(w + " ", StringComparison.Ordinal) && SummaryFollowers.Contains(n[(w.Length + 1)..].Split(' ')[0]))
+            // "<word> <follower> ...": the word, a space, then a follower as the next whole word.
+            if (n.Length > w.Length && n[w.Length] == ' ' && n.StartsWith(w, StringComparison.Ordinal))
             {
-                label = s.Trim();
-                return true;
+                var rest = n.AsSpan(w.Length + 1);
+                int space = rest.IndexOf(' ');
+                if (SummaryFollowerLookup.Contains(space < 0 ? rest : rest[..space]))
+                {
+                    label = s.Trim();
+                    return true;
+                }
             }
         }
 
@@ -550,11 +787,12 @@ internal static partial class TableReader
         }
 
         int read = 0, used = 0, reported = 0, blank = 0, summary = 0;
+        var rowState = new RowState(ctx);
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
             read++;
             var row = ctx.Sheet.Rows[r];
-            if (row.All(CellValues.IsBlank))
+            if (AllBlank(row))
             {
                 blank++;
                 continue;
@@ -587,7 +825,7 @@ internal static partial class TableReader
                 continue;
             }
 
-            var lot = ReadLotRow(ctx, r);
+            var lot = ReadLotRow(ctx, rowState, r);
             if (lot is null)
             {
                 reported++;
@@ -610,9 +848,9 @@ internal static partial class TableReader
         return Outcome.Read;
     }
 
-    private static Lot? ReadLotRow(SheetContext ctx, int r)
+    private static Lot? ReadLotRow(SheetContext ctx, RowState row, int r)
     {
-        var st = new RowState(ctx, r);
+        var st = row.Start(r);
         string? lotId = TextField(st, "lot_id");
         string? strain = TextField(st, "strain");
         int? season = SeasonField(st);
@@ -668,9 +906,11 @@ internal static partial class TableReader
 
     private static string Label(FieldDef f) => f.Name;
 
-    private static string? TextField(RowState st, string name)
+    private static string? TextField(RowState st, string name) => TextField(st, st.Ctx.Column(name));
+
+    private static string? TextField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c)
+        if (column is not { } c)
         {
             return null;
         }
@@ -696,10 +936,12 @@ internal static partial class TableReader
         return text;
     }
 
-    private static int? SeasonField(RowState st)
+    private static int? SeasonField(RowState st) => SeasonField(st, st.Ctx.Column("season"));
+
+    private static int? SeasonField(RowState st, BoundColumn? seasonColumn)
     {
         var ctx = st.Ctx;
-        if (ctx.Column("season") is { } c)
+        if (seasonColumn is { } c)
         {
             object? cell = ctx.Sheet.Cell(st.Row, c.Index);
             if (!CellValues.IsBlank(cell))
@@ -709,7 +951,7 @@ internal static partial class TableReader
                     return (int)d;
                 }
 
-                if (cell is string s && YearText().Match(s) is { Success: true } m && int.Parse(m.Groups["y"].Value, Inv) is var y and >= 1900 and <= 2100)
+                if (cell is string s && YearOf(s) is >= 1900 and <= 2100 and var y)
                 {
                     return y;
                 }
@@ -732,7 +974,7 @@ internal static partial class TableReader
         if (ctx.Kind == TableKind.Lots)
         {
             st.Bad = true;
-            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, st.SheetRow, ctx.Column("season")?.Header, null, "no-season", IntakeMessages.NoSeason());
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, st.SheetRow, seasonColumn?.Header, null, "no-season", IntakeMessages.NoSeason());
         }
 
         return null;
@@ -850,14 +1092,17 @@ internal static partial class TableReader
         ColumnUnits.Label(unit) is { Length: > 0 } u ? $"{IntakeMessages.Num(raw)} {u}" : IntakeMessages.Num(raw);
 
     /// <summary>A number in the field's unit, range-checked; null when empty or bad (bad ones reported).</summary>
-    private static double? NumberField(RowState st, string name)
+    private static double? NumberField(RowState st, string name) => NumberField(st, st.Ctx.Column(name));
+
+    private static double? NumberField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c || !NumberCell(st, c, out double raw))
+        if (column is not { } c || !NumberCell(st, c, out double raw))
         {
             return null;
         }
 
         var f = c.Field;
+        string name = f.Name;
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
         if (f.Kind == FieldKind.Temperature && c.Unit == ColumnUnit.Celsius && raw is > 45 and <= 120)
         {
@@ -866,22 +1111,21 @@ internal static partial class TableReader
         }
 
         double v = ColumnUnits.ToFieldUnit(raw, c.Unit);
-        string shown = ConvertedShown(raw, c.Unit, v, f.Unit);
         if (f.Kind is FieldKind.Volume && name is "must_volume_l" or "vessel_capacity_l" && v <= 0)
         {
-            st.Problem(c, cell, "out-of-range", IntakeMessages.NotPositive(Label(f), shown), f.Critical);
+            st.Problem(c, cell, "out-of-range", IntakeMessages.NotPositive(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
             return null;
         }
 
         if (f.Kind is FieldKind.Volume or FieldKind.Mass && v < 0)
         {
-            st.Problem(c, cell, "out-of-range", IntakeMessages.Negative(Label(f), shown), f.Critical);
+            st.Problem(c, cell, "out-of-range", IntakeMessages.Negative(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
             return null;
         }
 
         if (f.Min is { } min && f.Max is { } max && (v < min || v > max))
         {
-            string message = IntakeMessages.OutOfRange(Label(f), shown, min, max, f.Unit);
+            string message = IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit), min, max, f.Unit);
             if (f.Kind == FieldKind.Alcohol && c.Unit == ColumnUnit.PercentVolume && v * 100 >= min && v * 100 <= max)
             {
                 // 0.141 is how a spreadsheet holds 14.1 % when the cell lost its percent format.
@@ -906,9 +1150,11 @@ internal static partial class TableReader
         return shown;
     }
 
-    private static SugarReading? SugarField(RowState st, string name)
+    private static SugarReading? SugarField(RowState st, string name) => SugarField(st, st.Ctx.Column(name));
+
+    private static SugarReading? SugarField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c || !NumberCell(st, c, out double raw))
+        if (column is not { } c || !NumberCell(st, c, out double raw))
         {
             return null;
         }
@@ -932,9 +1178,11 @@ internal static partial class TableReader
         return SugarReading.FromBrix(brix);
     }
 
-    private static DateTime? DateField(RowState st, string name)
+    private static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));
+
+    private static DateTime? DateField(RowState st, BoundColumn? column)
     {
-        if (st.Ctx.Column(name) is not { } c)
+        if (column is not { } c)
         {
             return null;
         }
@@ -995,6 +1243,7 @@ internal static partial class TableReader
         var timeCol = ctx.Column("time");
         var sugarCol = ctx.Column("sugar");
         var tempCol = ctx.Column("temp_c");
+        var seasonCol = ctx.Column("season");
         bool noTime = tsCol is null && dateCol is null;
         if (noTime)
         {
@@ -1004,11 +1253,12 @@ internal static partial class TableReader
         // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
         string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
         int read = 0, used = 0, reported = 0, blank = 0, summary = 0;
+        var rowState = new RowState(ctx);
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
             read++;
             var row = ctx.Sheet.Rows[r];
-            if (row.All(CellValues.IsBlank))
+            if (AllBlank(row))
             {
                 blank++;
                 continue;
@@ -1034,22 +1284,22 @@ internal static partial class TableReader
                 continue;
             }
 
-            var st = new RowState(ctx, r);
-            string? lotId = sheetLot ?? TextField(st, "lot_id");
+            var st = rowState.Start(r);
+            string? lotId = sheetLot ?? TextField(st, lotCol);
             if (lotId is null && lotCol is not null && !st.Bad)
             {
                 st.Problem(lotCol, null, "missing-value", IntakeMessages.MissingValue("lot_id"), true);
             }
 
-            int? season = SeasonField(st);
+            int? season = SeasonField(st, seasonCol);
             DateTime? when = null;
             if (tsCol is not null)
             {
-                when = DateField(st, "timestamp");
+                when = DateField(st, tsCol);
             }
             else if (dateCol is not null)
             {
-                when = DateField(st, "date");
+                when = DateField(st, dateCol);
                 if (when is not null && timeCol is not null)
                 {
                     object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
@@ -1071,8 +1321,8 @@ internal static partial class TableReader
                 st.Problem(c, ctx.Sheet.Cell(r, c.Index), "missing-timestamp", IntakeMessages.MissingTimestamp(), true);
             }
 
-            SugarReading? sugar = sugarCol is null ? null : SugarField(st, "sugar");
-            double? temp = tempCol is null ? null : NumberField(st, "temp_c");
+            SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
+            double? temp = tempCol is null ? null : NumberField(st, tempCol);
             if (!st.Bad && sugar is null && temp is null)
             {
                 st.Bad = true;
