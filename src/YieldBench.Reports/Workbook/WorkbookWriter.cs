@@ -16,7 +16,7 @@ namespace YieldBench.Reports.Workbook;
 /// Writes report.xlsx: ClosedXML lays out the sheets, then the Open XML SDK adds the native alcohol-vs-sugar chart
 /// (bound to the lots sheet's cells) and the PNG charts as pictures, and the package is normalised so the same review
 /// gives the same bytes. Tables longer than <see cref="StreamedTables.DefaultRowThreshold"/> rows (the lots of a large
-/// review) never become ClosedXML cells: their rows are streamed into the package in the last
+/// review, its kinetics per lot) never become ClosedXML cells: their rows are streamed into the package in the last
 /// step (<see cref="StreamedSheet"/>), which keeps the workbook's time and memory near-linear in the lots.
 /// </summary>
 public static class WorkbookWriter
@@ -127,8 +127,8 @@ public static class WorkbookWriter
             if (review.Kinetics is { } kineticsReview)
             {
                 var kinetics = wb.Worksheets.Add(Sheets.Kinetics);
-                KineticsSheet.Fill(kinetics, kineticsReview);
-                pictureRows[Sheets.Kinetics] = kinetics.LastRowUsed()?.RowNumber() + 2 ?? 2;
+                int lastKineticsRow = KineticsSheet.Fill(kinetics, kineticsReview, null, streamed);
+                pictureRows[Sheets.Kinetics] = lastKineticsRow + 2;
             }
 
             var issues = wb.Worksheets.Add(Sheets.IntakeIssues);

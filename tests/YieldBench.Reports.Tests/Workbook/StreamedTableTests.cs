@@ -3,7 +3,9 @@ using System.IO.Compression;
 using ClosedXML.Excel;
 using DocumentFormat.OpenXml.Packaging;
 using DocumentFormat.OpenXml.Validation;
+using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Tables;
+using YieldBench.Reports.Tests.Kinetics;
 using YieldBench.Reports.Workbook;
 
 namespace YieldBench.Reports.Tests.Workbook;
@@ -406,5 +408,41 @@ public sealed class StreamedTableTests
         // Then they are the caption, the headings and the rows below the table only (the data are inline strings)
         Assert.Equal(["Caption above the table", "Lot", "Season", "Starting sugar (°Brix)", "Final alcohol (% v/v)", "Share within tolerance", "Inoculated", "Stuck", "Readings", "Note", "Below the table"], texts);
         Assert.Equal(texts.Length.ToString(CultureInfo.InvariantCulture), (string?)sst.Attribute("count"));
+    }
+
+    [Fact]
+    public void A_streamed_kinetics_sheet_reopens_as_the_cell_by_cell_one()
+    {
+        // Given the kinetics sheet filled cell by cell and with its longer tables streamed (threshold 2: the 4-lot table)
+        var (lots, review) = KineticsReportData.Build();
+        byte[] Build(StreamedTables? streamed, out int lastRow)
+        {
+            var register = streamed ?? new StreamedTables(int.MaxValue);
+            using var wb = new XLWorkbook();
+            lastRow = KineticsSheet.Fill(wb.AddWorksheet(KineticsSheet.SheetName), review, lots, streamed);
+            using var ms = new MemoryStream();
+            wb.SaveAs(ms);
+            return WorkbookWriter.Finish(ms.ToArray(), register, null);
+        }
+
+        var streamed = new StreamedTables(rowThreshold: 2);
+        byte[] cellByCell = Build(null, out int lastA);
+        byte[] streamedBytes = Build(streamed, out int lastB);
+        Assert.Contains(streamed.Bodies, b => b.Table.Columns.Count == KineticsTables.LotColumns.Count);
+
+        // When both are reopened
+        using var a = new XLWorkbook(new MemoryStream(cellByCell));
+        using var b = new XLWorkbook(new MemoryStream(streamedBytes));
+        var wa = a.Worksheet(KineticsSheet.SheetName);
+        var wb2 = b.Worksheet(KineticsSheet.SheetName);
+        int columns = KineticsTables.LotColumns.Count + 1;
+
+        // Then every cell, width and the last row agree
+        Assert.Equal(lastA, lastB);
+        Assert.Equal(wa.LastRowUsed()!.RowNumber(), lastB);
+        Assert.Equal(Cells(wa, lastA + 1, columns), Cells(wb2, lastB + 1, columns));
+        Assert.Equal(
+            Enumerable.Range(1, columns).Select(c => wa.Column(c).Width).ToArray(),
+            Enumerable.Range(1, columns).Select(c => wb2.Column(c).Width).ToArray());
     }
 }
