@@ -193,6 +193,8 @@ public static class WorkbookWriter
         var streamedSheets = new Dictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)>(StringComparer.Ordinal);
         using (var doc = SpreadsheetDocument.Open(package, isEditable: true))
         {
+            // The package is compressed once, when it is normalised; compressing the new parts here is wasted work.
+            doc.CompressionOption = System.IO.Packaging.CompressionOption.NotCompressed;
             var wbPart = doc.WorkbookPart ?? throw new InvalidOperationException("ClosedXML wrote no workbook part.");
             foreach (var (sheetName, bodies) in streamed.BySheet())
             {
