@@ -1,8 +1,8 @@
 using ClosedXML.Excel;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
-using YieldBench.Reports.Charts;
 using YieldBench.Reports.Tables;
+using YieldBench.Reports.Workbook;
 
 namespace YieldBench.Reports.Kinetics;
 
@@ -31,7 +31,14 @@ public static class KineticsSheet
     /// Writes the sheet from row 1; with <paramref name="lots"/>, the strain table also shows each strain's median
     /// conversion (alcohol per °Brix, sugar per % alcohol) beside its kinetics.
     /// </summary>
-    public static void Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots)
+    public static void Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots) => Fill(sheet, review, lots, null);
+
+    /// <summary>
+    /// As the public overloads; with <paramref name="streamed"/>, a table longer than its threshold (the lots of a
+    /// large review) is streamed into the finished package instead of becoming ClosedXML cells. Returns the sheet's
+    /// last row.
+    /// </summary>
+    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(review);
@@ -50,91 +57,58 @@ public static class KineticsSheet
 
         var widths = new Dictionary<int, int>();
         row++;
-        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, lots), widths);
+        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, lots), widths, streamed);
         row++;
-        row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", KineticsTables.Lots(review), widths);
+        row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", KineticsTables.Lots(review), widths, streamed);
         row++;
-        WriteTable(sheet, row, "Findings", KineticsTables.Findings(review), widths);
+        row = WriteTable(sheet, row, "Findings", KineticsTables.Findings(review), widths, streamed);
         foreach (var (col, w) in widths)
         {
             // Long message columns wrap at 100 characters rather than stretching the sheet.
             sheet.Column(col).Width = Math.Clamp(w + 2, 8, 100);
         }
+
+        return row - 1;
     }
 
-    private static int WriteTable(IXLWorksheet sheet, int row, string caption, ReportTable table, Dictionary<int, int> widths)
+    // A caption, then the table as every sheet lays one out (no freeze or filter: three tables share the sheet), or
+    // "(none)". The columns are sized once for all three tables. Returns the row after the table.
+    private static int WriteTable(IXLWorksheet sheet, int row, string caption, ReportTable table, Dictionary<int, int> widths, StreamedTables? streamed)
     {
         var cap = sheet.Cell(row, 1);
         cap.Value = caption;
         cap.Style.Font.Bold = true;
         row++;
-        for (int c = 0; c < table.Columns.Count; c++)
-        {
-            var cell = sheet.Cell(row, c + 1);
-            cell.Value = table.Columns[c].Heading;
-            cell.Style.Font.Bold = true;
-            cell.Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.HeaderFillHex);
-            cell.Style.Alignment.WrapText = true;
-            Track(widths, c + 1, Math.Min(table.Columns[c].Heading.Length, 24));
-        }
-
-        row++;
+        var placed = SheetLayout.WriteTable(sheet, table, row, 1, freezeAndFilter: false, setColumnWidths: false, streamed);
+        TrackWidths(table, widths);
         if (table.Rows.Count == 0)
         {
-            sheet.Cell(row, 1).Value = "(none)";
-            return row + 1;
+            sheet.Cell(placed.LastRow + 1, 1).Value = "(none)";
+            return placed.LastRow + 2;
         }
 
-        for (int r = 0; r < table.Rows.Count; r++, row++)
-        {
-            var cells = table.Rows[r];
-            for (int c = 0; c < cells.Length; c++)
-            {
-                var cell = sheet.Cell(row, c + 1);
-                var col = table.Columns[c];
-                switch (cells[c])
-                {
-                    case null:
-                        break;
-                    case double d when !double.IsFinite(d):
-                        break;
-                    case double d:
-                        cell.Value = d;
-                        cell.Style.NumberFormat.Format = col.EffectiveNumberFormat;
-                        Track(widths, c + 1, 10);
-                        break;
-                    case int i:
-                        cell.Value = i;
-                        Track(widths, c + 1, 6);
-                        break;
-                    case bool b:
-                        cell.Value = b ? "yes" : "no";
-                        break;
-                    case DateTime t:
-                        cell.Value = t;
-                        cell.Style.NumberFormat.Format = col.EffectiveNumberFormat;
-                        Track(widths, c + 1, 16);
-                        break;
-                    case string s:
-                        // Text stays text: a leading '=' must never become a formula.
-                        cell.SetValue(s);
-                        cell.DataType = XLDataType.Text;
-                        Track(widths, c + 1, s.Length);
-                        break;
-                    default:
-                        throw new InvalidOperationException($"Unsupported cell type {cells[c]!.GetType().Name}.");
-                }
-
-                if (table.Highlighted[r])
-                {
-                    cell.Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.FlaggedRowFillHex);
-                }
-            }
-        }
-
-        return row;
+        return placed.LastRow + 1;
     }
 
-    private static void Track(Dictionary<int, int> widths, int col, int w) =>
-        widths[col] = Math.Max(widths.GetValueOrDefault(col), w);
+    // Headings up to 24 characters, numbers 10, whole numbers 6, times 16, text its length.
+    private static void TrackWidths(ReportTable table, Dictionary<int, int> widths)
+    {
+        for (int c = 0; c < table.Columns.Count; c++)
+        {
+            int w = Math.Min(table.Columns[c].Heading.Length, 24);
+            foreach (var cells in table.Rows)
+            {
+                w = Math.Max(w, cells[c] switch
+                {
+                    double d when double.IsFinite(d) => 10,
+                    int => 6,
+                    DateTime => 16,
+                    string s => s.Length,
+                    _ => 0,
+                });
+            }
+
+            widths[c + 1] = Math.Max(widths.GetValueOrDefault(c + 1), w);
+        }
+    }
 }

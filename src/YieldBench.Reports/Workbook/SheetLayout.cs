@@ -1,4 +1,6 @@
 using System.Globalization;
+using System.Text;
+using System.Xml;
 using ClosedXML.Excel;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Data;
@@ -29,77 +31,202 @@ public static class SheetLayout
     /// Writes a table with a bold, tinted, wrapped header row and number formats per column; highlights flagged rows;
     /// optionally freezes the header and adds filters. Returns where it went.
     /// </summary>
-    public static Placement WriteTable(IXLWorksheet sheet, ReportTable table, int headerRow = 1, int firstColumn = 1, bool freezeAndFilter = true)
+    public static Placement WriteTable(IXLWorksheet sheet, ReportTable table, int headerRow = 1, int firstColumn = 1, bool freezeAndFilter = true) =>
+        WriteTable(sheet, table, headerRow, firstColumn, freezeAndFilter, setColumnWidths: true, streamed: null);
+
+    /// <summary>
+    /// As the public overload; without <paramref name="setColumnWidths"/> the caller sizes the columns, and with
+    /// <paramref name="streamed"/> a table longer than its threshold is laid out as the heading and two template rows
+    /// (plain and highlighted, one value of each column's kind) and registered there, so its rows are streamed into
+    /// the finished package instead of becoming ClosedXML cells. Widths, freeze and filter cover the full table either
+    /// way, and rows written below it afterwards go where they would have gone.
+    /// </summary>
+    internal static Placement WriteTable(
+        IXLWorksheet sheet, ReportTable table, int headerRow, int firstColumn, bool freezeAndFilter, bool setColumnWidths, StreamedTables? streamed)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(table);
         int cols = table.Columns.Count;
+        int lastColumn = firstColumn + cols - 1;
         for (int c = 0; c < cols; c++)
         {
             var cell = sheet.Cell(headerRow, firstColumn + c);
             SetText(cell, table.Columns[c].Heading);
         }
 
-        var header = sheet.Range(headerRow, firstColumn, headerRow, firstColumn + cols - 1);
+        var header = sheet.Range(headerRow, firstColumn, headerRow, lastColumn);
         header.Style.Font.Bold = true;
         header.Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.HeaderFillHex);
         header.Style.Alignment.WrapText = true;
         header.Style.Alignment.Vertical = XLAlignmentVerticalValues.Top;
 
-        for (int r = 0; r < table.Rows.Count; r++)
+        // The rows ClosedXML holds: every data row, or the two template rows of a streamed table.
+        int bodyRows;
+        if (streamed is not null && streamed.ShouldStream(table))
         {
-            var row = table.Rows[r];
             for (int c = 0; c < cols; c++)
             {
-                var cell = sheet.Cell(headerRow + 1 + r, firstColumn + c);
-                SetValueOnly(cell, row[c]);
+                SetTemplateValue(sheet.Cell(headerRow + 1, firstColumn + c), table.Columns[c]);
+                SetTemplateValue(sheet.Cell(headerRow + 2, firstColumn + c), table.Columns[c]);
             }
 
-            if (table.Highlighted[r])
+            sheet.Range(headerRow + 2, firstColumn, headerRow + 2, lastColumn)
+                .Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.FlaggedRowFillHex);
+            streamed.Add(new DeferredBody(sheet.Name, headerRow + 1, firstColumn, table));
+            bodyRows = 2;
+        }
+        else
+        {
+            for (int r = 0; r < table.Rows.Count; r++)
             {
-                sheet.Range(headerRow + 1 + r, firstColumn, headerRow + 1 + r, firstColumn + cols - 1)
-                    .Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.FlaggedRowFillHex);
+                var row = table.Rows[r];
+                for (int c = 0; c < cols; c++)
+                {
+                    var cell = sheet.Cell(headerRow + 1 + r, firstColumn + c);
+                    SetValueOnly(cell, row[c]);
+                }
+
+                if (table.Highlighted[r])
+                {
+                    sheet.Range(headerRow + 1 + r, firstColumn, headerRow + 1 + r, lastColumn)
+                        .Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.FlaggedRowFillHex);
+                }
             }
+
+            bodyRows = table.Rows.Count;
         }
 
-        int lastRow = headerRow + Math.Max(0, table.Rows.Count);
+        int lastRow = headerRow + table.Rows.Count;
+        int bodyLastRow = headerRow + bodyRows;
         for (int c = 0; c < cols; c++)
         {
             var column = table.Columns[c];
 
             // One style for the column's data range: a style set cell by cell made large sheets the slowest step.
-            if (table.Rows.Count > 0 && column.Kind != CellKind.Text)
+            if (bodyRows > 0 && column.Kind != CellKind.Text)
             {
-                sheet.Range(headerRow + 1, firstColumn + c, lastRow, firstColumn + c).Style.NumberFormat.Format = column.EffectiveNumberFormat;
+                sheet.Range(headerRow + 1, firstColumn + c, bodyLastRow, firstColumn + c).Style.NumberFormat.Format = column.EffectiveNumberFormat;
             }
 
-            double width = Math.Min(HeadingWidth(column.Heading), 24);
-            foreach (var row in table.Rows)
+            if (setColumnWidths)
             {
-                width = Math.Max(width, DisplayWidth(row[c], column));
+                sheet.Column(firstColumn + c).Width = Math.Clamp(ContentWidth(table, c) + 2, MinColumnWidth, MaxColumnWidth);
             }
 
-            sheet.Column(firstColumn + c).Width = Math.Clamp(width + 2, MinColumnWidth, MaxColumnWidth);
-            if (column.Kind == CellKind.Text && table.Rows.Any(row => row[c] is string s && s.Length > MaxColumnWidth))
+            if (bodyRows > 0 && column.Kind == CellKind.Text && table.Rows.Any(row => row[c] is string s && s.Length > MaxColumnWidth))
             {
-                sheet.Range(headerRow + 1, firstColumn + c, lastRow, firstColumn + c).Style.Alignment.WrapText = true;
+                sheet.Range(headerRow + 1, firstColumn + c, bodyLastRow, firstColumn + c).Style.Alignment.WrapText = true;
             }
         }
 
         if (freezeAndFilter)
         {
             sheet.SheetView.FreezeRows(headerRow);
-            sheet.Range(headerRow, firstColumn, lastRow, firstColumn + cols - 1).SetAutoFilter();
+            sheet.Range(headerRow, firstColumn, lastRow, lastColumn).SetAutoFilter();
         }
 
-        return new Placement(headerRow, firstColumn, lastRow, firstColumn + cols - 1);
+        return new Placement(headerRow, firstColumn, lastRow, lastColumn);
     }
 
-    /// <summary>Writes a cell as text (never as a formula, whatever its first character).</summary>
+    /// <summary>
+    /// The width, in character widths, a column of <paramref name="table"/> needs: its widest value as the sheet shows
+    /// it, or its heading's longest word (up to 24).
+    /// </summary>
+    private static double ContentWidth(ReportTable table, int column)
+    {
+        ArgumentNullException.ThrowIfNull(table);
+        var reportColumn = table.Columns[column];
+        var format = new NumberShape(reportColumn.EffectiveNumberFormat);
+        double width = Math.Min(HeadingWidth(reportColumn.Heading), 24);
+        foreach (var row in table.Rows)
+        {
+            width = Math.Max(width, DisplayWidth(row[column], reportColumn, format));
+        }
+
+        return width;
+    }
+
+    /// <summary>
+    /// <paramref name="text"/> without the characters XML 1.0 cannot carry (control characters other than tab and
+    /// line breaks, unpaired surrogates, U+FFFE and U+FFFF), so no text can make the package unreadable.
+    /// </summary>
+    public static string XmlSafe(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        int i = 0;
+        while (i < text.Length && ValidAt(text, i) is int width and > 0)
+        {
+            i += width;
+        }
+
+        if (i == text.Length)
+        {
+            return text;
+        }
+
+        var sb = new StringBuilder(text.Length);
+        sb.Append(text, 0, i);
+        while (i < text.Length)
+        {
+            int width = ValidAt(text, i);
+            if (width > 0)
+            {
+                sb.Append(text, i, width);
+                i += width;
+            }
+            else
+            {
+                i++;
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    // 1 for a valid character, 2 for a valid surrogate pair, 0 for a character XML cannot carry.
+    private static int ValidAt(string text, int i)
+    {
+        char ch = text[i];
+        if (XmlConvert.IsXmlChar(ch))
+        {
+            return 1;
+        }
+
+        return i + 1 < text.Length && XmlConvert.IsXmlSurrogatePair(text[i + 1], ch) ? 2 : 0;
+    }
+
+    // A value of the column's kind, so ClosedXML gives the template cell the style a real value would get; empty
+    // text leaves no shared string behind when the template row is dropped.
+    private static void SetTemplateValue(IXLCell cell, ReportColumn column)
+    {
+        switch (column.Kind)
+        {
+            case CellKind.Integer:
+                cell.SetValue(0);
+                break;
+            case CellKind.Number:
+            case CellKind.Share:
+                cell.SetValue(0.0);
+                break;
+            case CellKind.DateTime:
+                cell.SetValue(new DateTime(2000, 1, 1));
+                break;
+            default:
+                // Text, and booleans, which are written as the text "yes" or "no".
+                SetText(cell, string.Empty);
+                break;
+        }
+    }
+
+    /// <summary>
+    /// Writes a cell as text (never as a formula, whatever its first character), without the characters XML cannot
+    /// carry (see <see cref="XmlSafe"/>), as streamed tables write it.
+    /// </summary>
     public static void SetText(IXLCell cell, string text)
     {
         ArgumentNullException.ThrowIfNull(cell);
-        cell.SetValue(text);
+        ArgumentNullException.ThrowIfNull(text);
+        cell.SetValue(XmlSafe(text));
         cell.DataType = XLDataType.Text;
     }
 
@@ -160,33 +287,69 @@ public static class SheetLayout
     public static double DisplayWidth(object? value, ReportColumn column)
     {
         ArgumentNullException.ThrowIfNull(column);
-        return value switch
-        {
-            null => 0,
-            string s => s.Length,
-            double d when !double.IsFinite(d) => 0,
-            double d => FormattedNumberWidth(d, column.EffectiveNumberFormat),
-            int i => i.ToString(CultureInfo.InvariantCulture).Length + 1,
-            long l => l.ToString(CultureInfo.InvariantCulture).Length + 2,
-            bool => 3,
-            DateTime => 16,
-            _ => CsvText.Format(value, column.Kind).Length,
-        };
+        return DisplayWidth(value, column, new NumberShape(column.EffectiveNumberFormat));
+    }
+
+    private static double DisplayWidth(object? value, ReportColumn column, NumberShape format) => value switch
+    {
+        null => 0,
+        string s => s.Length,
+        double d when !double.IsFinite(d) => 0,
+        double d => format.Width(d),
+        int i => DigitCount(i) + 1,
+        long l => DigitCount(l) + 2,
+        bool => 3,
+        DateTime => 16,
+        _ => CsvText.Format(value, column.Kind).Length,
+    };
+
+    private static int DigitCount(long value)
+    {
+        Span<char> digits = stackalloc char[24];
+        return value.TryFormat(digits, out int n, default, CultureInfo.InvariantCulture) ? n : value.ToString(CultureInfo.InvariantCulture).Length;
     }
 
     private static double HeadingWidth(string heading) => heading.Split(' ').Max(w => w.Length) + 4;
 
-    private static double FormattedNumberWidth(double d, string format)
+    /// <summary>How a number format shows a number: its decimals and whether it is a percentage.</summary>
+    private readonly struct NumberShape
     {
-        int decimals = 0;
-        int dot = format.IndexOf('.', StringComparison.Ordinal);
-        if (dot >= 0)
+        private readonly int decimals;
+        private readonly bool percent;
+        private readonly string fixedFormat;
+
+        public NumberShape(string format)
         {
-            decimals = format.Skip(dot + 1).TakeWhile(ch => ch == '0').Count();
+            int dot = format.IndexOf('.', StringComparison.Ordinal);
+            if (dot >= 0)
+            {
+                decimals = format.Skip(dot + 1).TakeWhile(ch => ch == '0').Count();
+            }
+
+            percent = format.Contains('%', StringComparison.Ordinal);
+            fixedFormat = "F" + decimals.ToString(CultureInfo.InvariantCulture);
         }
 
-        string s = Math.Round(Math.Abs(d) * (format.Contains('%', StringComparison.Ordinal) ? 100 : 1), decimals)
-            .ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
-        return s.Length + 2;
+        public double Width(double d)
+        {
+            double shown = Math.Round(Math.Abs(d) * (percent ? 100 : 1), decimals);
+            if (shown < 1e15)
+            {
+                // The digits before the point, counted without formatting (this runs for every number of a table).
+                int digits = 1;
+                for (double power = 10; shown >= power; power *= 10)
+                {
+                    digits++;
+                }
+
+                return digits + (decimals > 0 ? decimals + 1 : 0) + 2;
+            }
+
+            Span<char> text = stackalloc char[64];
+            int n = shown.TryFormat(text, out int written, fixedFormat, CultureInfo.InvariantCulture)
+                ? written
+                : shown.ToString(fixedFormat, CultureInfo.InvariantCulture).Length;
+            return n + 2;
+        }
     }
 }

@@ -15,7 +15,9 @@ namespace YieldBench.Reports.Workbook;
 /// <summary>
 /// Writes report.xlsx: ClosedXML lays out the sheets, then the Open XML SDK adds the native alcohol-vs-sugar chart
 /// (bound to the lots sheet's cells) and the PNG charts as pictures, and the package is normalised so the same review
-/// gives the same bytes.
+/// gives the same bytes. Tables longer than <see cref="StreamedTables.DefaultRowThreshold"/> rows (the lots of a large
+/// review, its kinetics per lot) never become ClosedXML cells: their rows are streamed into the package in the last
+/// step (<see cref="StreamedSheet"/>), which keeps the workbook's time and memory near-linear in the lots.
 /// </summary>
 public static class WorkbookWriter
 {
@@ -76,10 +78,15 @@ public static class WorkbookWriter
         AtomicFile.WriteAllBytes(path, Build(review, charts));
 
     /// <summary>The workbook's bytes.</summary>
-    public static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures = true)
+    public static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures = true) =>
+        Build(review, charts, includePictures, StreamedTables.DefaultRowThreshold);
+
+    /// <summary>The workbook's bytes, streaming every table with more than <paramref name="streamRowThreshold"/> rows.</summary>
+    internal static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures, int streamRowThreshold)
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(charts);
+        var streamed = new StreamedTables(streamRowThreshold);
         var lotsOrder = ReviewTables.ByStrain(review);
         byte[] laidOut;
         var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
@@ -94,13 +101,13 @@ public static class WorkbookWriter
             WriteOverview(overview, review);
 
             var lots = wb.Worksheets.Add(Sheets.Lots);
-            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder));
+            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder), 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
             pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
 
             foreach (var (grouping, sheetName) in Sheets.Groupings)
             {
                 var sheet = wb.Worksheets.Add(sheetName);
-                var placedGroups = SheetLayout.WriteTable(sheet, ReviewTables.Groups(review, grouping, withNote: true));
+                var placedGroups = SheetLayout.WriteTable(sheet, ReviewTables.Groups(review, grouping, withNote: true), 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
                 pictureRows[sheetName] = placedGroups.LastRow + 2;
             }
 
@@ -108,7 +115,7 @@ public static class WorkbookWriter
             pictureRows[Sheets.StrainComparison] = WriteComparison(comparison, review);
 
             var followUp = wb.Worksheets.Add(Sheets.FollowUp);
-            var placedFlags = WriteFollowUp(followUp, review);
+            var placedFlags = WriteFollowUp(followUp, review, streamed);
             pictureRows[Sheets.FollowUp] = placedFlags + 2;
 
             var house = wb.Worksheets.Add(Sheets.HouseFactor);
@@ -120,12 +127,12 @@ public static class WorkbookWriter
             if (review.Kinetics is { } kineticsReview)
             {
                 var kinetics = wb.Worksheets.Add(Sheets.Kinetics);
-                KineticsSheet.Fill(kinetics, kineticsReview);
-                pictureRows[Sheets.Kinetics] = kinetics.LastRowUsed()?.RowNumber() + 2 ?? 2;
+                int lastKineticsRow = KineticsSheet.Fill(kinetics, kineticsReview, null, streamed);
+                pictureRows[Sheets.Kinetics] = lastKineticsRow + 2;
             }
 
             var issues = wb.Worksheets.Add(Sheets.IntakeIssues);
-            var placed = SheetLayout.WriteTable(issues, ReviewTables.IntakeIssues(review));
+            var placed = SheetLayout.WriteTable(issues, ReviewTables.IntakeIssues(review), 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
             pictureRows[Sheets.IntakeIssues] = placed.LastRow + 2;
 
             var methods = wb.Worksheets.Add(Sheets.Methods);
@@ -136,11 +143,8 @@ public static class WorkbookWriter
             laidOut = ms.ToArray();
         }
 
-        using var package = new MemoryStream();
-        package.Write(laidOut);
-        using (var doc = SpreadsheetDocument.Open(package, isEditable: true))
+        return Finish(laidOut, streamed, wbPart =>
         {
-            var wbPart = doc.WorkbookPart ?? throw new InvalidOperationException("ClosedXML wrote no workbook part.");
             uint drawingId = 2;
             var overviewPart = SheetPart(wbPart, Sheets.Overview);
             if (lotsOrder.Count > 0)
@@ -171,14 +175,40 @@ public static class WorkbookWriter
                     }
                 }
             }
+        });
+    }
 
+    /// <summary>
+    /// Finishes a package ClosedXML saved: <paramref name="drawings"/> adds to it through the Open XML SDK, the package
+    /// properties get fixed values, and the package is normalised with the rows of <paramref name="streamed"/> written
+    /// into their sheets. Until then those sheets hold only their template rows, so the SDK loads small sheet parts even
+    /// where it adds pictures.
+    /// </summary>
+    internal static byte[] Finish(byte[] laidOut, StreamedTables streamed, Action<WorkbookPart>? drawings)
+    {
+        ArgumentNullException.ThrowIfNull(laidOut);
+        ArgumentNullException.ThrowIfNull(streamed);
+        using var package = new MemoryStream();
+        package.Write(laidOut);
+        var streamedSheets = new Dictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)>(StringComparer.Ordinal);
+        using (var doc = SpreadsheetDocument.Open(package, isEditable: true))
+        {
+            // The package is compressed once, when it is normalised; compressing the new parts here is wasted work.
+            doc.CompressionOption = System.IO.Packaging.CompressionOption.NotCompressed;
+            var wbPart = doc.WorkbookPart ?? throw new InvalidOperationException("ClosedXML wrote no workbook part.");
+            foreach (var (sheetName, bodies) in streamed.BySheet())
+            {
+                streamedSheets[SheetPart(wbPart, sheetName).Uri.OriginalString.TrimStart('/')] = (sheetName, bodies);
+            }
+
+            drawings?.Invoke(wbPart);
             doc.PackageProperties.Created = FixedTimestamp;
             doc.PackageProperties.Modified = FixedTimestamp;
             doc.PackageProperties.Creator = "YieldBench";
             doc.PackageProperties.LastModifiedBy = "YieldBench";
         }
 
-        return DeterministicZip.Normalise(package.ToArray());
+        return DeterministicZip.Normalise(package.ToArray(), streamedSheets);
     }
 
     /// <summary>The native chart: one series per strain, bound to the lots sheet's starting-sugar and alcohol columns.</summary>
@@ -379,9 +409,9 @@ public static class WorkbookWriter
         return r + 1;
     }
 
-    private static int WriteFollowUp(IXLWorksheet ws, ReviewResult review)
+    private static int WriteFollowUp(IXLWorksheet ws, ReviewResult review, StreamedTables streamed)
     {
-        var placed = SheetLayout.WriteTable(ws, ReviewTables.FollowUp(review));
+        var placed = SheetLayout.WriteTable(ws, ReviewTables.FollowUp(review), 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
         return placed.LastRow;
     }
 
