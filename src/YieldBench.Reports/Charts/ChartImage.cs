@@ -1,4 +1,5 @@
 using ScottPlot;
+using SkiaSharp;
 using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports.Charts;
@@ -15,12 +16,48 @@ public sealed record ChartFile(string Path, string Title, int Width, int Height,
 /// <summary>Renders plots to PNG bytes and files.</summary>
 public static class ChartImage
 {
+    /// <summary>
+    /// PNG settings of every chart: the "up" row filter and zlib level 3. Measured with SkiaSharp 3.119 on a
+    /// 1600 × 1000 chart, the encoder's default (every filter tried per row, level 6) took 85–110 ms of a chart's
+    /// 110–130 ms; these take 15–30 ms for files about 15 % larger. PNG is lossless: the pixels, and so the text, are
+    /// the same whichever setting is used.
+    /// </summary>
+    public static SKPngEncoderOptions PngOptions { get; } = new(SKPngEncoderFilterFlags.Up, 3);
+
     /// <summary>The plot as PNG bytes.</summary>
     public static byte[] RenderPng(Plot plot, int width = ChartStyle.Width, int height = ChartStyle.Height)
     {
         ArgumentNullException.ThrowIfNull(plot);
         ReportFonts.EnsureRegistered();
-        return plot.GetImageBytes(width, height, ImageFormat.Png);
+        using var surface = NewSurface(width, height);
+        plot.Render(surface.Canvas, width, height);
+        return EncodePng(surface);
+    }
+
+    /// <summary>
+    /// A white raster surface of the given size for a chart. It starts opaque and everything is drawn over it with
+    /// ordinary blending, so the finished picture is opaque and <see cref="EncodePng"/> can store it as RGB.
+    /// </summary>
+    public static SKSurface NewSurface(int width, int height)
+    {
+        var surface = SKSurface.Create(new SKImageInfo(width, height, SKColorType.Rgba8888, SKAlphaType.Premul))
+            ?? throw new InvalidOperationException($"Could not create a {width} × {height} drawing surface.");
+        surface.Canvas.Clear(SKColors.White);
+        return surface;
+    }
+
+    /// <summary>The surface's pixels as an RGB PNG (<see cref="PngOptions"/>); the surface must come from <see cref="NewSurface"/>.</summary>
+    public static byte[] EncodePng(SKSurface surface)
+    {
+        ArgumentNullException.ThrowIfNull(surface);
+        using var pixels = surface.PeekPixels()
+            ?? throw new InvalidOperationException("The chart surface has no readable pixels.");
+
+        // Every pixel is opaque (see NewSurface), so declaring the pixels opaque drops only the constant alpha byte.
+        using var opaque = pixels.WithAlphaType(SKAlphaType.Opaque);
+        using var data = opaque.Encode(PngOptions)
+            ?? throw new InvalidOperationException("The chart could not be encoded as PNG.");
+        return data.ToArray();
     }
 
     /// <summary>Renders the plot and writes it atomically (temporary file, then rename) to <paramref name="path"/>.</summary>

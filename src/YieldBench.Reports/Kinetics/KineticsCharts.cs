@@ -280,9 +280,8 @@ public static class KineticsCharts
         const int header = OverviewHeader;
         var (columns, _, pw, ph) = OverviewLayout(lots.Count);
         float small = Math.Clamp(pw / 22f, 11f, 20f);
-        using var surface = SKSurface.Create(new SKImageInfo(width, height));
+        using var surface = ChartImage.NewSurface(width, height);
         var canvas = surface.Canvas;
-        canvas.Clear(SKColors.White);
         using (var typeface = ReportFonts.Typeface(bold: true))
         using (var font = new SKFont(typeface, ChartStyle.TitleSize * 0.85f))
         using (var paint = new SKPaint { Color = SKColors.Black, IsAntialias = true })
@@ -333,9 +332,7 @@ public static class KineticsCharts
             canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, paint);
         }
 
-        using var image = surface.Snapshot();
-        using var data = image.Encode(SKEncodedImageFormat.Png, 100);
-        return data.ToArray();
+        return ChartImage.EncodePng(surface);
     }
 
     private static string Safe(string s) =>
