@@ -1,4 +1,5 @@
 using ScottPlot;
+using SkiaSharp;
 using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports.Charts;
@@ -15,12 +16,49 @@ public sealed record ChartFile(string Path, string Title, int Width, int Height,
 /// <summary>Renders plots to PNG bytes and files.</summary>
 public static class ChartImage
 {
+    /// <summary>
+    /// PNG settings of every chart: the "up" row filter and zlib level 1. Measured with SkiaSharp 3.119 on a
+    /// 1600 × 1000 chart (best of 15), the encoder's default (every filter tried per row, level 6) took 85–110 ms of a
+    /// chart's 110–130 ms; the up filter at level 1 takes about 15 ms (level 3: 30 ms) for files 2–10 % larger than
+    /// level 3 and 10–20 % larger than the default. PNG is lossless: the pixels, and so the text, are the same
+    /// whichever setting is used.
+    /// </summary>
+    public static SKPngEncoderOptions PngOptions { get; } = new(SKPngEncoderFilterFlags.Up, 1);
+
     /// <summary>The plot as PNG bytes.</summary>
     public static byte[] RenderPng(Plot plot, int width = ChartStyle.Width, int height = ChartStyle.Height)
     {
         ArgumentNullException.ThrowIfNull(plot);
         ReportFonts.EnsureRegistered();
-        return plot.GetImageBytes(width, height, ImageFormat.Png);
+        using var surface = NewSurface(width, height);
+        plot.Render(surface.Canvas, width, height);
+        return EncodePng(surface);
+    }
+
+    /// <summary>
+    /// A white raster surface of the given size for a chart. It starts opaque and everything is drawn over it with
+    /// ordinary blending, so the finished picture is opaque and <see cref="EncodePng"/> can store it as RGB.
+    /// </summary>
+    public static SKSurface NewSurface(int width, int height)
+    {
+        var surface = SKSurface.Create(new SKImageInfo(width, height, SKColorType.Rgba8888, SKAlphaType.Premul))
+            ?? throw new InvalidOperationException($"Could not create a {width} × {height} drawing surface.");
+        surface.Canvas.Clear(SKColors.White);
+        return surface;
+    }
+
+    /// <summary>The surface's pixels as an RGB PNG (<see cref="PngOptions"/>); the surface must come from <see cref="NewSurface"/>.</summary>
+    public static byte[] EncodePng(SKSurface surface)
+    {
+        ArgumentNullException.ThrowIfNull(surface);
+        using var pixels = surface.PeekPixels()
+            ?? throw new InvalidOperationException("The chart surface has no readable pixels.");
+
+        // Every pixel is opaque (see NewSurface), so declaring the pixels opaque drops only the constant alpha byte.
+        using var opaque = pixels.WithAlphaType(SKAlphaType.Opaque);
+        using var data = opaque.Encode(PngOptions)
+            ?? throw new InvalidOperationException("The chart could not be encoded as PNG.");
+        return data.ToArray();
     }
 
     /// <summary>Renders the plot and writes it atomically (temporary file, then rename) to <paramref name="path"/>.</summary>
@@ -44,6 +82,7 @@ public static class ChartImage
     /// bytes and the workbook's placement do not depend on which thread finished first.
     /// </summary>
     /// <param name="jobs">Each job builds its own plot and writes its own file; jobs share no mutable state.</param>
+    /// <exception cref="AggregateException">A job failed (the jobs not yet started are not run).</exception>
     public static IReadOnlyList<ChartFile> RenderAll(IReadOnlyList<Func<ChartFile>> jobs)
     {
         ArgumentNullException.ThrowIfNull(jobs);
@@ -51,7 +90,41 @@ public static class ChartImage
         // Font registration touches ScottPlot's global resolver list: do it once before any worker starts.
         ReportFonts.EnsureRegistered();
         var results = new ChartFile[jobs.Count];
-        Parallel.For(0, jobs.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i => results[i] = jobs[i]());
-        return results;
+
+        // One worker more than there are cores: every job ends by writing its file and waiting for the disk to confirm
+        // it (AtomicFile), and while one worker waits another can draw. Workers take the next job in order.
+        int workers = Math.Min(jobs.Count, Environment.ProcessorCount + 1);
+        int next = -1;
+        var errors = new System.Collections.Concurrent.ConcurrentQueue<Exception>();
+        void Work()
+        {
+            int i;
+            while (errors.IsEmpty && (i = Interlocked.Increment(ref next)) < jobs.Count)
+            {
+                try
+                {
+                    results[i] = jobs[i]();
+                }
+                catch (Exception e)
+                {
+                    errors.Enqueue(e);
+                }
+            }
+        }
+
+        var threads = new Thread[Math.Max(0, workers - 1)];
+        for (int t = 0; t < threads.Length; t++)
+        {
+            threads[t] = new Thread(Work) { IsBackground = true, Name = "chart worker" };
+            threads[t].Start();
+        }
+
+        Work();
+        foreach (var thread in threads)
+        {
+            thread.Join();
+        }
+
+        return errors.IsEmpty ? results : throw new AggregateException("A chart could not be drawn or written.", errors);
     }
 }

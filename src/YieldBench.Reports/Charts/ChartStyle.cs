@@ -55,6 +55,40 @@ public static class ChartStyle
         return plot;
     }
 
+    /// <summary>Subtitle size, px.</summary>
+    public const float SubtitleSize = 20;
+
+    /// <summary>
+    /// A second, regular-weight line under the title: what the chart shows when that is not obvious, e.g. that a
+    /// sample of the lots is drawn. Returns the panel so a test can read its text.
+    /// </summary>
+    public static ScottPlot.Panels.TitlePanel Subtitle(Plot plot, string text)
+    {
+        ArgumentNullException.ThrowIfNull(plot);
+        ArgumentNullException.ThrowIfNull(text);
+        var panel = new ScottPlot.Panels.TitlePanel();
+        panel.Label.Text = text;
+        panel.Label.FontName = ReportFonts.FamilyName;
+        panel.Label.FontSize = SubtitleSize;
+        panel.Label.Bold = false;
+        panel.Label.ForeColor = Color.FromHex("#333333");
+        plot.Axes.AddPanel(panel);
+        return panel;
+    }
+
+    /// <summary>
+    /// Adds a batch of markers (<see cref="MarkerCloud"/>): the way every chart draws one point per lot or per reading,
+    /// so that 100,000 lots cost about what a few thousand do.
+    /// </summary>
+    public static MarkerCloud AddMarkers(
+        Plot plot, IReadOnlyList<double> xs, IReadOnlyList<double> ys, MarkerShape shape, float size, Color color, float lineWidth = 1f)
+    {
+        ArgumentNullException.ThrowIfNull(plot);
+        var cloud = new MarkerCloud(xs, ys, shape, size, color, lineWidth);
+        plot.Add.Plottable(cloud);
+        return cloud;
+    }
+
     /// <summary>Shows the legend in the upper-left corner (where alcohol-vs-sugar charts have empty space).</summary>
     public static void ShowLegend(Plot plot, Alignment where = Alignment.UpperLeft)
     {

@@ -99,7 +99,8 @@ public static class ReviewCharts
         {
             var members = review.Lots.Where(l => l.Lot.Strain == strains[i]).ToArray();
             var color = ChartPalette.ForIndex(i);
-            var points = plot.Add.Markers(
+            var points = ChartStyle.AddMarkers(
+                plot,
                 members.Select(m => m.EffectiveStartingBrix).ToArray(),
                 members.Select(m => m.Lot.FinalAlcohol.PercentVolume).ToArray(),
                 MarkerShape.FilledCircle,
@@ -164,7 +165,7 @@ public static class ReviewCharts
                 pointXs[members[k]] = xs[k];
             }
 
-            plot.Add.Markers(xs, members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.FilledCircle, 7, color);
+            ChartStyle.AddMarkers(plot, xs, members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.FilledCircle, 7, color);
         }
 
         MarkFlagged(plot, review, pointXs.Keys.ToArray(), l => pointXs[l], l => l.AbvPerBrix);
@@ -186,9 +187,8 @@ public static class ReviewCharts
             var color = ChartPalette.ForIndex(i);
             double offset = (i - ((strains.Count - 1) / 2.0)) * 0.08;
             var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();
-            var faint = plot.Add.Markers(
-                members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
-            faint.LegendText = string.Empty;
+            ChartStyle.AddMarkers(
+                plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
             var medians = seasons
                 .Select(s => (Season: s, Values: members.Where(m => m.Lot.Season == s).Select(m => m.AbvPerBrix).ToArray()))
                 .Where(x => x.Values.Length > 0)
@@ -313,8 +313,7 @@ public static class ReviewCharts
             return;
         }
 
-        var rings = plot.Add.Markers(flagged.Select(x).ToArray(), flagged.Select(y).ToArray(), MarkerShape.OpenCircle, 20, ChartPalette.Flagged);
-        rings.MarkerLineWidth = 2.5f;
+        var rings = ChartStyle.AddMarkers(plot, flagged.Select(x).ToArray(), flagged.Select(y).ToArray(), MarkerShape.OpenCircle, 20, ChartPalette.Flagged, 2.5f);
         rings.LegendText = $"flagged by the strain review ({flagged.Length})";
     }
 }

@@ -2,6 +2,7 @@ using ScottPlot;
 using SkiaSharp;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
+using YieldBench.Core.Statistics;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Output;
 
@@ -59,7 +60,7 @@ public static class KineticsCharts
         // Lots are drawn in the order of the lot records so pages and colours are stable.
         var order = lots.Select((l, i) => (l.Lot.Key, i)).GroupBy(p => p.Key).ToDictionary(g => g.Key, g => g.First().i, StringComparer.Ordinal);
         var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
-        var strains = ordered.Select(k => k.Lot.Strain).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+        var strains = StrainOrder(ordered, lots);
 
         // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
         // first when the pages cannot hold every lot, and every lot stays in the Kinetics table.
@@ -92,6 +93,22 @@ public static class KineticsCharts
 
         files.AddRange(ChartImage.RenderAll(jobs));
         return files;
+    }
+
+    /// <summary>
+    /// Strains in the colour order of every other chart (docs/report-guide.md): most lots in the review first, then code
+    /// (ordinal), as <see cref="ReviewCharts.StrainOrder"/> orders them, so a strain has the same colour everywhere; a
+    /// strain only the logs know comes last, by code. Strains without a log keep their place (and colour) and draw nothing.
+    /// </summary>
+    public static IReadOnlyList<string> StrainOrder(IReadOnlyList<LotKinetics> kinetics, IReadOnlyList<LotConversion> lots)
+    {
+        ArgumentNullException.ThrowIfNull(kinetics);
+        ArgumentNullException.ThrowIfNull(lots);
+        var reviewed = lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
+            .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToList();
+        var known = reviewed.ToHashSet(StringComparer.Ordinal);
+        var logOnly = kinetics.Select(k => k.Lot.Strain).Where(s => !known.Contains(s)).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal);
+        return reviewed.Concat(logOnly).ToArray();
     }
 
     /// <summary>Title of overview page <paramref name="page"/> (0-based) of <paramref name="pages"/>, saying when not every lot is shown.</summary>
@@ -184,31 +201,271 @@ public static class KineticsCharts
         return plot;
     }
 
-    /// <summary>Sugar remaining as a share of the start against days, coloured by strain (one legend entry per strain).</summary>
+    /// <summary>At most this many lots per strain that are not flagged are drawn as lines on the strain-curves chart.</summary>
+    public const int MaxOrdinaryCurvesPerStrain = 40;
+
+    /// <summary>Time step at which the strain course (median and interquartile range) is taken, h.</summary>
+    public const double CourseStepHours = 6;
+
+    /// <summary>Fewest lots that must be known at a time step for the strain course to be drawn there.</summary>
+    public const int MinCourseLots = 5;
+
+    /// <summary>
+    /// One strain's typical course of sugar remaining (share of the starting °Brix) against days from time zero: the
+    /// quartiles (Hyndman–Fan type 7) at each <see cref="CourseStepHours"/> step over the lots known there.
+    /// </summary>
+    /// <param name="Strain">Strain code.</param>
+    /// <param name="Lots">Lots of the strain with a log and a positive starting sugar.</param>
+    /// <param name="Days">Time of each step, days from time zero.</param>
+    /// <param name="Q1">Lower quartile at each step.</param>
+    /// <param name="Median">Median at each step.</param>
+    /// <param name="Q3">Upper quartile at each step.</param>
+    /// <param name="Counted">Lots known at each step.</param>
+    public sealed record StrainCourse(
+        string Strain, int Lots, IReadOnlyList<double> Days, IReadOnlyList<double> Q1, IReadOnlyList<double> Median, IReadOnlyList<double> Q3, IReadOnlyList<int> Counted);
+
+    /// <summary>The lots the strain-curves chart draws as lines.</summary>
+    /// <param name="Flagged">Every flagged lot, in review order.</param>
+    /// <param name="Sampled">The other lots drawn: per strain at most <see cref="MaxOrdinaryCurvesPerStrain"/>, evenly spaced in review order.</param>
+    /// <param name="Total">Lots on the chart (with a log and a positive starting sugar); each strain's course uses all of its lots.</param>
+    public sealed record CurveSelection(IReadOnlyList<LotKinetics> Flagged, IReadOnlyList<LotKinetics> Sampled, int Total)
+    {
+        /// <summary>Lots drawn as lines.</summary>
+        public int Drawn => Flagged.Count + Sampled.Count;
+    }
+
+    /// <summary>
+    /// The strain course of <paramref name="lots"/> (one strain's lots). A lot is known at a step from its first reading
+    /// to its last, by straight-line interpolation between readings; after its last reading it stays known at that
+    /// reading only if it reached dry (a dry wine stays dry), while a log that stopped short of dry says nothing about
+    /// later times. The course is drawn over the first unbroken run of steps where at least
+    /// <see cref="MinCourseLots"/> lots and at least half of the strain's lots are known, so a few long logs cannot make
+    /// the tail look like the strain.
+    /// </summary>
+    public static StrainCourse Course(string strain, IReadOnlyList<LotKinetics> lots)
+    {
+        ArgumentNullException.ThrowIfNull(strain);
+        ArgumentNullException.ThrowIfNull(lots);
+        var usable = lots.Where(k => k.StartingBrix > 0 && k.Sugar.Count > 0).ToArray();
+        var empty = new StrainCourse(strain, usable.Length, [], [], [], [], []);
+        if (usable.Length == 0)
+        {
+            return empty;
+        }
+
+        double first = usable.Min(k => k.Sugar[0].Hours), last = usable.Max(k => k.Sugar[^1].Hours);
+        int j0 = (int)Math.Floor(Math.Min(0, first) / CourseStepHours), j1 = (int)Math.Floor(last / CourseStepHours);
+        int steps = j1 - j0 + 1;
+
+        // Each lot's known steps, as a range of step indices.
+        var ranges = new (int From, int To)[usable.Length];
+        var counts = new int[steps];
+        for (int i = 0; i < usable.Length; i++)
+        {
+            var k = usable[i];
+            int from = (int)Math.Ceiling(k.Sugar[0].Hours / CourseStepHours) - j0;
+            int to = k.HoursToDry is not null ? steps - 1 : (int)Math.Floor(k.Sugar[^1].Hours / CourseStepHours) - j0;
+            ranges[i] = (from, to);
+            for (int j = from; j <= to; j++)
+            {
+                counts[j]++;
+            }
+        }
+
+        var offsets = new int[steps + 1];
+        for (int j = 0; j < steps; j++)
+        {
+            offsets[j + 1] = offsets[j] + counts[j];
+        }
+
+        var values = new double[offsets[steps]];
+        var filled = new int[steps];
+        for (int i = 0; i < usable.Length; i++)
+        {
+            var k = usable[i];
+            var sugar = k.Sugar;
+            int p = 0;
+            for (int j = ranges[i].From; j <= ranges[i].To; j++)
+            {
+                double t = (j + j0) * CourseStepHours;
+                while (p + 1 < sugar.Count && sugar[p + 1].Hours <= t)
+                {
+                    p++;
+                }
+
+                double brix = p + 1 < sugar.Count && sugar[p].Hours < t
+                    ? sugar[p].Brix + ((sugar[p + 1].Brix - sugar[p].Brix) * (t - sugar[p].Hours) / (sugar[p + 1].Hours - sugar[p].Hours))
+                    : sugar[p].Brix;
+                values[offsets[j] + filled[j]++] = brix / k.StartingBrix;
+            }
+        }
+
+        int needed = Math.Max(MinCourseLots, (usable.Length + 1) / 2);
+        int start = Array.FindIndex(counts, c => c >= needed);
+        if (start < 0)
+        {
+            return empty;
+        }
+
+        var days = new List<double>();
+        var q1 = new List<double>();
+        var median = new List<double>();
+        var q3 = new List<double>();
+        var counted = new List<int>();
+        for (int j = start; j < steps && counts[j] >= needed; j++)
+        {
+            Array.Sort(values, offsets[j], counts[j]);
+            var sorted = new ArraySegment<double>(values, offsets[j], counts[j]);
+            days.Add((j + j0) * CourseStepHours / 24.0);
+            q1.Add(Descriptive.QuantileOfSorted(sorted, 0.25));
+            median.Add(Descriptive.QuantileOfSorted(sorted, 0.5));
+            q3.Add(Descriptive.QuantileOfSorted(sorted, 0.75));
+            counted.Add(counts[j]);
+        }
+
+        return new StrainCourse(strain, usable.Length, days, q1, median, q3, counted);
+    }
+
+    /// <summary>
+    /// The lots drawn as lines on the strain-curves chart: every flagged lot, and per strain at most
+    /// <paramref name="perStrain"/> of the others, evenly spaced through the review order (the i-th of m drawn is
+    /// the ⌊(i + ½)·n / m⌋-th of the strain's n others), so the same review always draws the same lots.
+    /// </summary>
+    public static CurveSelection SelectCurves(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains, int perStrain = MaxOrdinaryCurvesPerStrain)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        ArgumentNullException.ThrowIfNull(strains);
+        ArgumentOutOfRangeException.ThrowIfNegative(perStrain);
+        var usable = lots.Where(k => k.StartingBrix > 0 && k.Sugar.Count > 0).ToArray();
+        var flagged = usable.Where(k => k.Flagged).ToArray();
+        var sampled = new List<LotKinetics>();
+        foreach (string strain in strains)
+        {
+            var others = usable.Where(k => !k.Flagged && string.Equals(k.Lot.Strain, strain, StringComparison.Ordinal)).ToArray();
+            if (others.Length <= perStrain)
+            {
+                sampled.AddRange(others);
+                continue;
+            }
+
+            for (int i = 0; i < perStrain; i++)
+            {
+                sampled.Add(others[(int)((i + 0.5) * others.Length / perStrain)]);
+            }
+        }
+
+        return new CurveSelection(flagged, sampled, usable.Length);
+    }
+
+    /// <summary>Colour of the lines of lots that are not flagged on the strain-curves chart (grey, translucent).</summary>
+    public static Color OtherLotColor { get; } = Color.FromHex("#808080").WithAlpha(0.4);
+
+    /// <summary>Opacity of each flagged lot's line when a strain has <paramref name="lines"/> of them: 0.85·√(10/n), between 0.15 and 0.85.</summary>
+    public static double FlaggedLineAlpha(int lines) => Math.Clamp(0.85 * Math.Sqrt(10.0 / Math.Max(lines, 1)), 0.15, 0.85);
+
+    /// <summary>The strain-curves chart's subtitle: how many lots are drawn as lines and what the lines and bands are.</summary>
+    public static string StrainOverlaySubtitle(CurveSelection selection)
+    {
+        ArgumentNullException.ThrowIfNull(selection);
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        return selection.Drawn >= selection.Total
+            ? string.Format(inv, "Every lot drawn ({0:N0}): flagged in the strain's colour, others grey; thick line and band: each strain's median and quartiles", selection.Total)
+            : string.Format(
+                inv,
+                "{0:N0} of {1:N0} lots drawn: all {2:N0} flagged (strain colour), up to {3} others per strain (grey); median and quartiles of all {1:N0}",
+                selection.Drawn,
+                selection.Total,
+                selection.Flagged.Count,
+                MaxOrdinaryCurvesPerStrain);
+    }
+
+    /// <summary>
+    /// Sugar remaining as a share of the start against days, by strain: each strain's course (<see cref="Course"/>,
+    /// median line and interquartile band), every flagged lot as a thin line in its
+    /// strain's colour and a bounded sample of the other lots as grey lines (<see cref="SelectCurves"/>); the subtitle
+    /// says how many lots are drawn.
+    /// </summary>
     public static Plot StrainOverlay(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(strains);
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
         var plot = ChartStyle.NewPlot("Normalised sugar curves by strain", "Days from time zero (inoculation, or first reading)", "Sugar remaining (share of starting °Brix)");
-        var labelled = new HashSet<string>(StringComparer.Ordinal);
-        foreach (var k in lots)
+        var selection = SelectCurves(lots, strains);
+        ChartStyle.Subtitle(plot, StrainOverlaySubtitle(selection));
+        var byStrain = lots.Where(k => k.StartingBrix > 0 && k.Sugar.Count > 0)
+            .GroupBy(k => k.Lot.Strain, StringComparer.Ordinal)
+            .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
+        var courses = strains.Select(s => Course(s, byStrain.GetValueOrDefault(s, []))).ToArray();
+
+        // The other lots give context in grey; flagged lots carry their strain's colour. Flagged lots can run to
+        // thousands at scale, so their lines fade as they grow in number (FlaggedLineAlpha): together they show where
+        // the flagged lots went without hiding the course drawn over them.
+        var others = new CurveBundle(OtherLotColor, 1f);
+        foreach (var k in selection.Sampled)
         {
-            if (!(k.StartingBrix > 0))
+            others.Add(k.Sugar.Select(p => p.Hours / 24.0).ToArray(), k.Sugar.Select(p => p.Brix / k.StartingBrix).ToArray());
+        }
+
+        plot.Add.Plottable(others);
+        var flaggedKeys = selection.Flagged.Select(k => k.LotKey).ToHashSet(StringComparer.Ordinal);
+        for (int si = 0; si < strains.Count; si++)
+        {
+            var mine = selection.Flagged.Where(k => string.Equals(k.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();
+            // Past a few dozen lines a hairline (1 px) reads the same and costs a sixth of a 1.4 px stroke to draw.
+            var bundle = new CurveBundle(ChartPalette.ForIndex(si).WithAlpha(FlaggedLineAlpha(mine.Length)), mine.Length > 50 ? 1f : 1.4f);
+            foreach (var k in mine)
+            {
+                bundle.Add(k.Sugar.Select(p => p.Hours / 24.0).ToArray(), k.Sugar.Select(p => p.Brix / k.StartingBrix).ToArray());
+            }
+
+            plot.Add.Plottable(bundle);
+        }
+
+        // The bands go over the lots' lines (translucent, so the lines show through and the band stays visible however
+        // many lines there are), and the medians on top with a white edge.
+        for (int si = 0; si < strains.Count; si++)
+        {
+            var c = courses[si];
+            if (c.Days.Count >= 2)
+            {
+                var upper = c.Days.Select((d, i) => new Coordinates(d, c.Q3[i]));
+                var lower = c.Days.Select((d, i) => new Coordinates(d, c.Q1[i])).Reverse();
+                var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
+                band.FillColor = ChartPalette.ForIndex(si).WithAlpha(0.28);
+                band.LineWidth = 0;
+            }
+        }
+
+        for (int si = 0; si < strains.Count; si++)
+        {
+            var c = courses[si];
+            if (c.Lots == 0)
             {
                 continue;
             }
 
-            int idx = Array.IndexOf(strains.ToArray(), k.Lot.Strain);
-            var s = plot.Add.Scatter(k.Sugar.Select(p => p.Hours / 24.0).ToArray(), k.Sugar.Select(p => p.Brix / k.StartingBrix).ToArray());
-            s.Color = ChartPalette.ForIndex(idx).WithAlpha(0.75);
-            s.LineWidth = 2;
-            s.MarkerSize = 0;
-            if (labelled.Add(k.Lot.Strain))
+            int flagged = byStrain.GetValueOrDefault(strains[si], []).Count(k => flaggedKeys.Contains(k.LotKey));
+            string lotsText = string.Format(inv, "{0:N0} lots, {1:N0} flagged", c.Lots, flagged);
+            if (c.Days.Count >= 2)
             {
-                s.LegendText = $"{k.Lot.Strain} ({lots.Count(x => x.Lot.Strain == k.Lot.Strain)} lots)";
+                var days = c.Days.ToArray();
+                var halo = plot.Add.ScatterLine(days, c.Median.ToArray(), Colors.White);
+                halo.LineWidth = 8;
+                var median = plot.Add.ScatterLine(days, c.Median.ToArray(), ChartPalette.ForIndex(si));
+                median.LineWidth = 4;
+                median.LegendText = $"{strains[si]}: median, quartiles ({lotsText})";
+            }
+            else
+            {
+                // Too few lots for a course: the legend still names the strain and its colour.
+                var key = new CurveBundle(ChartPalette.ForIndex(si).WithAlpha(0.8), 1.6f) { LegendText = $"{strains[si]} ({lotsText}; too few for a median)" };
+                plot.Add.Plottable(key);
             }
         }
 
+        plot.Add.Plottable(new CurveBundle(Colors.Black.WithAlpha(0.8), 1.4f) { LegendText = "thin line in a strain's colour: a flagged lot" });
+        plot.Add.Plottable(new CurveBundle(OtherLotColor, 1f) { LegendText = selection.Sampled.Count < selection.Total - selection.Flagged.Count ? "grey line: a lot not flagged (sample)" : "grey line: a lot not flagged" });
         var third = plot.Add.HorizontalLine(2.0 / 3.0);
         third.Color = ChartPalette.Reference.WithAlpha(0.5);
         third.LinePattern = LinePattern.Dashed;
@@ -257,10 +514,7 @@ public static class KineticsCharts
                 continue;
             }
 
-            var s = plot.Add.Scatter(xs.ToArray(), ys.ToArray());
-            s.Color = ChartPalette.ForIndex(si).WithAlpha(0.8);
-            s.LineWidth = 0;
-            s.MarkerSize = 8;
+            var s = ChartStyle.AddMarkers(plot, xs, ys, MarkerShape.FilledCircle, 8, ChartPalette.ForIndex(si).WithAlpha(0.8));
             s.LegendText = strains[si];
         }
 
@@ -271,7 +525,17 @@ public static class KineticsCharts
         return plot;
     }
 
-    /// <summary>Small multiples: one panel per lot with its sugar curve (and temperature on a shared 0–45 °C right axis).</summary>
+    /// <summary>Sugar axis of every overview panel, °Brix (fixed so panels compare at a glance).</summary>
+    public const double OverviewBrixMin = -4, OverviewBrixMax = 32;
+
+    /// <summary>Temperature axis of every overview panel, °C.</summary>
+    public const double OverviewTempMin = 0, OverviewTempMax = 45;
+
+    /// <summary>
+    /// Small multiples: one panel per lot with its sugar curve (left axis, −4 to 32 °Brix) and temperature (right axis,
+    /// 0 to 45 °C) against days from time zero. The panels are drawn straight onto the page with SkiaSharp: with 144
+    /// panels a full plotting-library layout per panel (automatic ticks, measured labels) cost most of the page.
+    /// </summary>
     public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title)
     {
         ArgumentNullException.ThrowIfNull(lots);
@@ -280,62 +544,207 @@ public static class KineticsCharts
         const int header = OverviewHeader;
         var (columns, _, pw, ph) = OverviewLayout(lots.Count);
         float small = Math.Clamp(pw / 22f, 11f, 20f);
-        using var surface = SKSurface.Create(new SKImageInfo(width, height));
+        using var surface = ChartImage.NewSurface(width, height);
         var canvas = surface.Canvas;
-        canvas.Clear(SKColors.White);
-        using (var typeface = ReportFonts.Typeface(bold: true))
-        using (var font = new SKFont(typeface, ChartStyle.TitleSize * 0.85f))
-        using (var paint = new SKPaint { Color = SKColors.Black, IsAntialias = true })
+        using var regular = ReportFonts.Typeface(bold: false);
+        using var bold = ReportFonts.Typeface(bold: true);
+        using var ink = new SKPaint { Color = SKColors.Black, IsAntialias = true };
+        using (var font = new SKFont(bold, ChartStyle.TitleSize * 0.85f))
         {
-            canvas.DrawText(title, width / 2f, 48, SKTextAlign.Center, font, paint);
+            canvas.DrawText(title, width / 2f, 48, SKTextAlign.Center, font, ink);
         }
 
+        using var painter = new PanelPainter(regular, bold, small);
         for (int i = 0; i < lots.Count; i++)
         {
-            var k = lots[i];
-            var plot = new Plot();
-            plot.Title($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", small * 1.3f);
-            plot.Axes.Title.Label.FontName = ReportFonts.FamilyName;
-            foreach (var axis in new ScottPlot.IAxis[] { plot.Axes.Bottom, plot.Axes.Left, plot.Axes.Right })
-            {
-                axis.TickLabelStyle.FontName = ReportFonts.FamilyName;
-                axis.TickLabelStyle.FontSize = small;
-            }
-
-            var s = plot.Add.Scatter(k.Sugar.Select(p => p.Hours / 24.0).ToArray(), k.Sugar.Select(p => p.Brix).ToArray());
-            s.Color = ChartPalette.ForIndex(0);
-            s.LineWidth = 2;
-            s.MarkerSize = k.Dense ? 0 : 4;
-            if (k.Temperatures.Count > 0)
-            {
-                var t = plot.Add.Scatter(k.Temperatures.Select(p => p.Hours / 24.0).ToArray(), k.Temperatures.Select(p => p.Celsius).ToArray());
-                t.Color = ChartPalette.ForIndex(5);
-                t.LineWidth = 1.5f;
-                t.MarkerSize = 0;
-                t.Axes.YAxis = plot.Axes.Right;
-                plot.Axes.AutoScale();
-                plot.Axes.SetLimitsY(0, 45, plot.Axes.Right);
-            }
-
-            plot.Axes.SetLimitsY(-4, 32, plot.Axes.Left);
-            // Drawn straight into its cell: encoding and decoding a PNG per panel cost most of an overview page's time.
             float left = (i % columns) * pw, top = header + ((i / columns) * ph);
+            var cell = new SKRect(left, top, left + pw, top + ph);
             canvas.Save();
-            canvas.ClipRect(new SKRect(left, top, left + pw, top + ph));
-            plot.Render(canvas, new PixelRect(left, left + pw, top + ph, top));
+            canvas.ClipRect(cell);
+            painter.Draw(canvas, lots[i], cell);
             canvas.Restore();
         }
 
-        using (var typeface = ReportFonts.Typeface(bold: false))
-        using (var font = new SKFont(typeface, ChartStyle.TickSize * 0.8f))
-        using (var paint = new SKPaint { Color = SKColors.Black, IsAntialias = true })
+        using (var font = new SKFont(regular, ChartStyle.TickSize * 0.8f))
         {
-            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, paint);
+            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
         }
 
-        using var image = surface.Snapshot();
-        using var data = image.Encode(SKEncodedImageFormat.Png, 100);
-        return data.ToArray();
+        return ChartImage.EncodePng(surface);
+    }
+
+    /// <summary>
+    /// Steps of about <paramref name="target"/> ticks over [<paramref name="lo"/>, <paramref name="hi"/>]: the smallest
+    /// of 1, 2 and 5 times a power of ten that gives no more ticks than that.
+    /// </summary>
+    public static double NiceStep(double lo, double hi, int target)
+    {
+        double span = hi - lo;
+        if (!(span > 0) || target < 1)
+        {
+            return 1;
+        }
+
+        double raw = span / target;
+        double magnitude = Math.Pow(10, Math.Floor(Math.Log10(raw)));
+        foreach (double m in new[] { 1.0, 2.0, 5.0, 10.0 })
+        {
+            if (m * magnitude >= raw)
+            {
+                return m * magnitude;
+            }
+        }
+
+        return 10 * magnitude;
+    }
+
+    /// <summary>Draws one overview panel; holds the fonts and paints a page's panels share.</summary>
+    private sealed class PanelPainter : IDisposable
+    {
+        private const float TickLength = 4;
+        private readonly SKFont tickFont;
+        private readonly SKFont titleFont;
+        private readonly SKPaint text = new() { Color = SKColors.Black, IsAntialias = true };
+        private readonly SKPaint frame = new() { Color = SKColors.Black, IsAntialias = false, Style = SKPaintStyle.Stroke, StrokeWidth = 1 };
+        private readonly SKPaint grid = new() { Color = new SKColor(0, 0, 0, 26), IsAntialias = false, Style = SKPaintStyle.Stroke, StrokeWidth = 1 };
+        private readonly SKPaint sugar;
+        private readonly SKPaint sugarMarks;
+        private readonly SKPaint temperature;
+
+        public PanelPainter(SKTypeface regular, SKTypeface bold, float size)
+        {
+            tickFont = new SKFont(regular, size);
+            titleFont = new SKFont(bold, size * 1.3f);
+            var blue = ChartPalette.ForIndex(0);
+            var vermillion = ChartPalette.ForIndex(5);
+            sugar = new SKPaint { Color = new SKColor(blue.R, blue.G, blue.B, blue.A), IsAntialias = true, Style = SKPaintStyle.Stroke, StrokeWidth = 2, StrokeJoin = SKStrokeJoin.Round };
+            sugarMarks = new SKPaint { Color = sugar.Color, IsAntialias = true, Style = SKPaintStyle.Stroke, StrokeWidth = 4, StrokeCap = SKStrokeCap.Round };
+            temperature = new SKPaint { Color = new SKColor(vermillion.R, vermillion.G, vermillion.B, vermillion.A), IsAntialias = true, Style = SKPaintStyle.Stroke, StrokeWidth = 1.5f, StrokeJoin = SKStrokeJoin.Round };
+        }
+
+        public void Draw(SKCanvas canvas, LotKinetics k, SKRect cell)
+        {
+            var inv = System.Globalization.CultureInfo.InvariantCulture;
+            bool hasTemp = k.Temperatures.Count > 0;
+            float tickH = tickFont.Size;
+            float pad = 6;
+            var data = new SKRect(
+                cell.Left + pad + tickFont.MeasureText("30") + TickLength + 4,
+                cell.Top + (titleFont.Size * 1.6f),
+                cell.Right - pad - (hasTemp ? tickFont.MeasureText("40") + TickLength + 4 : 0),
+                cell.Bottom - pad - tickH - TickLength - 4);
+            canvas.DrawText($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", cell.MidX, cell.Top + (titleFont.Size * 1.15f), SKTextAlign.Center, titleFont, text);
+            if (data.Width < 10 || data.Height < 10)
+            {
+                return;
+            }
+
+            // x: the data's day range with a small margin.
+            double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+            foreach (var p in k.Sugar)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+
+            foreach (var p in k.Temperatures)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+
+            if (!(hi > lo))
+            {
+                lo = double.IsFinite(lo) ? lo - 0.5 : 0;
+                hi = lo + 1;
+            }
+
+            double margin = (hi - lo) * 0.03;
+            lo -= margin;
+            hi += margin;
+            float X(double d) => data.Left + (float)((d - lo) / (hi - lo) * data.Width);
+            float YBrix(double b) => data.Bottom - (float)((b - OverviewBrixMin) / (OverviewBrixMax - OverviewBrixMin) * data.Height);
+            float YTemp(double c) => data.Bottom - (float)((c - OverviewTempMin) / (OverviewTempMax - OverviewTempMin) * data.Height);
+
+            // Grid and ticks: sugar every 5 °Brix, temperature every 10 °C, days at a 1-2-5 step.
+            double step = NiceStep(lo, hi, Math.Max(2, (int)(data.Width / (tickFont.MeasureText("00") * 2.2f))));
+            string format = step >= 1 ? "0" : step >= 0.1 ? "0.0" : "0.00";
+            for (double d = Math.Ceiling(lo / step) * step; d <= hi; d += step)
+            {
+                float x = MathF.Round(X(d)) + 0.5f;
+                canvas.DrawLine(x, data.Top, x, data.Bottom, grid);
+                canvas.DrawLine(x, data.Bottom, x, data.Bottom + TickLength, frame);
+                double shown = Math.Abs(d) < step * 1e-9 ? 0 : d;
+                canvas.DrawText(shown.ToString(format, inv), x, data.Bottom + TickLength + 2 + tickH, SKTextAlign.Center, tickFont, text);
+            }
+
+            for (int b = 0; b <= 30; b += 5)
+            {
+                float y = MathF.Round(YBrix(b)) + 0.5f;
+                canvas.DrawLine(data.Left, y, data.Right, y, grid);
+                canvas.DrawLine(data.Left - TickLength, y, data.Left, y, frame);
+                canvas.DrawText(b.ToString(inv), data.Left - TickLength - 2, y + (tickH * 0.36f), SKTextAlign.Right, tickFont, text);
+            }
+
+            if (hasTemp)
+            {
+                for (int c = 0; c <= 40; c += 10)
+                {
+                    float y = MathF.Round(YTemp(c)) + 0.5f;
+                    canvas.DrawLine(data.Right, y, data.Right + TickLength, y, frame);
+                    canvas.DrawText(c.ToString(inv), data.Right + TickLength + 2, y + (tickH * 0.36f), SKTextAlign.Left, tickFont, text);
+                }
+            }
+
+            canvas.Save();
+            canvas.ClipRect(data);
+            if (hasTemp)
+            {
+                using var t = new SKPath();
+                for (int i = 0; i < k.Temperatures.Count; i++)
+                {
+                    var p = k.Temperatures[i];
+                    if (i == 0)
+                    {
+                        t.MoveTo(X(p.Hours / 24.0), YTemp(p.Celsius));
+                    }
+                    else
+                    {
+                        t.LineTo(X(p.Hours / 24.0), YTemp(p.Celsius));
+                    }
+                }
+
+                canvas.DrawPath(t, temperature);
+            }
+
+            var points = new SKPoint[k.Sugar.Count];
+            for (int i = 0; i < points.Length; i++)
+            {
+                points[i] = new SKPoint(X(k.Sugar[i].Hours / 24.0), YBrix(k.Sugar[i].Brix));
+            }
+
+            canvas.DrawPoints(SKPointMode.Polygon, points, sugar);
+            if (!k.Dense)
+            {
+                canvas.DrawPoints(SKPointMode.Points, points, sugarMarks);
+            }
+
+            canvas.Restore();
+            var box = new SKRect(MathF.Round(data.Left) + 0.5f, MathF.Round(data.Top) + 0.5f, MathF.Round(data.Right) - 0.5f, MathF.Round(data.Bottom) - 0.5f);
+            canvas.DrawRect(box, frame);
+        }
+
+        public void Dispose()
+        {
+            tickFont.Dispose();
+            titleFont.Dispose();
+            text.Dispose();
+            frame.Dispose();
+            grid.Dispose();
+            sugar.Dispose();
+            sugarMarks.Dispose();
+            temperature.Dispose();
+        }
     }
 
     private static string Safe(string s) =>
