@@ -10,8 +10,9 @@ namespace YieldBench.Intake;
 /// Splits CSV text into records as it streams in, without holding the whole file. Lines without a quote mark, and
 /// lines whose quoted fields are well formed (a quote opens a field and closes it before a delimiter or the line end,
 /// inner quotes doubled), are split here; any other quoting is handed, one record at a time, to CsvHelper's RFC 4180
-/// parser, whose reading of malformed quotes is the reference (the records are the same as CsvHelper gives for the
-/// whole text: a record starts wherever the count of quote marks read so far is even at a line end).
+/// parser, whose reading of malformed quotes is the reference. Records end where CsvHelper ends them when it reads the
+/// whole text: at the first line end outside a quoted field, a quote mark opening a quoted field only at the start of
+/// a field (see <see cref="Scan"/>), so each record's text can be handed over alone.
 /// </summary>
 internal sealed class CsvRecords : IDisposable
 {
@@ -26,6 +27,16 @@ internal sealed class CsvRecords : IDisposable
     private readonly Queue<(object?[] Fields, string? Bad)> _pending = new();
     private readonly StringBuilder _segment = new();
     private readonly StringBuilder _field = new();
+
+    // The fields of the previous record: a field equal to the one above it is the same string (ids and seasons
+    // repeat down a log), which saves building and holding a copy.
+    private object?[] _above = [];
+
+    // Per column, the short texts seen so far, so that a repeated value (a strain, a vessel type, a reading such as
+    // "20.5") is one string. A column that keeps giving new texts (ids, timestamps) stops being tracked.
+    private readonly List<HashSet<string>.AlternateLookup<ReadOnlySpan<char>>?> _seen = [];
+    private readonly List<bool> _seenDropped = [];
+
     private char[] _buffer;
     private int _pos;
     private int _len;
@@ -42,15 +53,6 @@ internal sealed class CsvRecords : IDisposable
         _config = Configuration(delimiter);
         _fieldEnds = SearchValues.Create([delimiter, '"', '\r', '\n']);
     }
-
-    // The fields of the previous record: a field equal to the one above it is the same string (ids and seasons
-    // repeat down a log), which saves building and holding a copy.
-    private object?[] _above = [];
-
-    // Per column, the short texts seen so far, so that a repeated value (a strain, a vessel type, a reading such as
-    // "20.5") is one string. A column that keeps giving new texts (ids, timestamps) stops being tracked.
-    private readonly List<HashSet<string>.AlternateLookup<ReadOnlySpan<char>>?> _seen = [];
-    private readonly List<bool> _seenDropped = [];
 
     /// <summary>The fields of the record last read (all strings).</summary>
     public object?[] Record { get; private set; } = [];

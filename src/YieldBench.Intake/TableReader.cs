@@ -155,6 +155,9 @@ internal static partial class TableReader
 
         public string? SheetName => Sheet.Name;
 
+        /// <summary>The lot id column, or null.</summary>
+        public BoundColumn? LotColumn { get; } = Columns.FirstOrDefault(c => c.Field.Name == "lot_id");
+
         /// <summary>The column bound to the field (the first one, when a header repeats), or null.</summary>
         public BoundColumn? Column(string field) => _byField.GetValueOrDefault(field);
 
@@ -733,7 +736,7 @@ internal static partial class TableReader
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
     {
         label = null;
-        var lotCol = ctx.Column("lot_id");
+        var lotCol = ctx.LotColumn;
         object? candidate = lotCol is not null && lotCol.Index < row.Length && !CellValues.IsBlank(row[lotCol.Index])
             ? row[lotCol.Index]
             : FirstFilled(row);
