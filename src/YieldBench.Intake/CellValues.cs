@@ -537,18 +537,18 @@ internal static partial class CellValues
         }
     }
 
-    [GeneratedRegex(@"^\d{1,3}(,\d{3})+$")]
+    [GeneratedRegex(@"^[0-9]{1,3}(,[0-9]{3})+$")]
     private static partial Regex ThousandsWithComma();
 
-    [GeneratedRegex(@"^\d{1,3}(\.\d{3})+$")]
+    [GeneratedRegex(@"^[0-9]{1,3}(\.[0-9]{3})+$")]
     private static partial Regex ThousandsWithDot();
 
-    [GeneratedRegex(@"^(?<y>\d{4})[-/.](?<m>\d{1,2})[-/.](?<d>\d{1,2})(?:[ T](?<h>\d{1,2}):(?<min>\d{2})(?::(?<s>\d{2})(?:\.\d+)?)?)?$")]
+    [GeneratedRegex(@"^(?<y>[0-9]{4})[-/.](?<m>[0-9]{1,2})[-/.](?<d>[0-9]{1,2})(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2})(?::(?<s>[0-9]{2})(?:\.[0-9]+)?)?)?$")]
     private static partial Regex IsoDate();
 
-    [GeneratedRegex(@"^(?<a>\d{1,2})(?<sep>[/.-])(?<b>\d{1,2})\k<sep>(?<y>\d{4}|\d{2})(?:[ T](?<h>\d{1,2}):(?<min>\d{2})(?::(?<s>\d{2}))?)?$")]
+    [GeneratedRegex(@"^(?<a>[0-9]{1,2})(?<sep>[/.-])(?<b>[0-9]{1,2})\k<sep>(?<y>[0-9]{4}|[0-9]{2})(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2})(?::(?<s>[0-9]{2}))?)?$")]
     private static partial Regex SlashDate();
 
-    [GeneratedRegex(@"^(?<h>\d{1,2})[:.](?<min>\d{2})(?::(?<s>\d{2}))?\s*(?<ampm>[AaPp]\.?[Mm]\.?)?$")]
+    [GeneratedRegex(@"^(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2})(?::(?<s>[0-9]{2}))?\s*(?<ampm>[AaPp]\.?[Mm]\.?)?$")]
     private static partial Regex TimeText();
 }

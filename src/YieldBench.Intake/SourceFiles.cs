@@ -555,7 +555,7 @@ internal static partial class SourceFiles
         return n;
     }
 
-    [GeneratedRegex(@"^\s*[-+]?\d+,\d+\s*$")]
+    [GeneratedRegex(@"^\s*[-+]?[0-9]+,[0-9]+\s*$")]
     private static partial Regex DecimalCommaNumber();
 
     /// <summary>True when an Excel number format shows the value as a percentage (a % outside quotes and escapes).</summary>

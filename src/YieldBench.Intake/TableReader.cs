@@ -336,10 +336,10 @@ internal static partial class TableReader
         return years.Length == 1 ? years[0] : null;
     }
 
-    [GeneratedRegex(@"(?<!\d)\d{4}(?!\d)")]
+    [GeneratedRegex(@"(?<![0-9])[0-9]{4}(?![0-9])")]
     private static partial Regex YearInName();
 
-    [GeneratedRegex(@"^\s*(?<y>\d{4})(?:\s*[-/]\s*\d{2,4})?\s*$")]
+    [GeneratedRegex(@"^\s*(?<y>[0-9]{4})(?:\s*[-/]\s*[0-9]{2,4})?\s*$")]
     private static partial Regex YearText();
 
     /// <summary>The year a season cell's text names ("2024", "2024/25"), or null when it names none.</summary>

@@ -90,4 +90,28 @@ public class ValueParsingTests
     {
         Assert.Equal(expected, TableReader.SeasonFromName(name));
     }
+
+    [Theory]
+    [InlineData("\uFF12\uFF10\uFF12\uFF14-03-02")]
+    [InlineData("\uFF10\uFF12.03.2024")]
+    [InlineData("14:\uFF13\uFF10")]
+    public void Dates_with_non_ascii_digits_are_a_reported_problem_not_a_crash(string text)
+    {
+        // Full-width digits (as an East Asian input method types them) match .NET's \d but not int.Parse: they must be
+        // refused as an unreadable date, never throw.
+        Assert.NotEqual(CellProblem.None, CellValues.Date(text, DateOrder.Unknown, out _, out _, out _));
+    }
+
+    [Fact]
+    public void A_log_row_with_a_full_width_date_is_reported_and_the_rest_is_read()
+    {
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots 2024.csv", "Lot;Yeast;Start Brix (°Bx);Alcohol % v/v\nA-01;QX-7;24,3;14,1\n");
+        var logs = folder.Text("logs 2024.csv", "Lot;Date;Brix\nA-01;2024-03-01 08:00;24,3\nA-01;\uFF12\uFF10\uFF12\uFF14-03-02 08:00;20,1\nA-01;2024-03-03 08:00;15,0\n");
+
+        var set = folder.Read(lots, logs);
+
+        Assert.Equal(2, set.Logs.Single().Readings.Count);
+        Assert.Contains(set.Issues, i => i.File.EndsWith("logs 2024.csv", StringComparison.Ordinal) && i.Row == 3);
+    }
 }
