@@ -8,6 +8,12 @@ internal static class Check
     /// <summary>The problem with <paramref name="value"/>, or null when it lies in [min, max].</summary>
     public static string? Problem(double value, double min, double max, string name, string unit)
     {
+        if (value >= min && value <= max)
+        {
+            // The common case returns before any text is built (every sugar reading passes through here).
+            return null;
+        }
+
         string u = unit.Length == 0 ? string.Empty : " " + unit;
         if (double.IsNaN(value))
         {
