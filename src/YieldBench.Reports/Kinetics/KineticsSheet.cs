@@ -90,15 +90,17 @@ public static class KineticsSheet
         return placed.LastRow + 1;
     }
 
-    // Headings up to 24 characters, numbers 10, whole numbers 6, times 16, text its length.
+    // Headings up to 24 characters, numbers 10, whole numbers 6, times 16, text its length (read row by row: the
+    // per-lot table of a large review is long).
     private static void TrackWidths(ReportTable table, Dictionary<int, int> widths)
     {
-        for (int c = 0; c < table.Columns.Count; c++)
+        var w = table.Columns.Select(c => Math.Min(c.Heading.Length, 24)).ToArray();
+        for (int r = 0; r < table.Rows.Count; r++)
         {
-            int w = Math.Min(table.Columns[c].Heading.Length, 24);
-            foreach (var cells in table.Rows)
+            var cells = table.Rows[r];
+            for (int c = 0; c < w.Length; c++)
             {
-                w = Math.Max(w, cells[c] switch
+                w[c] = Math.Max(w[c], cells[c] switch
                 {
                     double d when double.IsFinite(d) => 10,
                     int => 6,
@@ -107,8 +109,11 @@ public static class KineticsSheet
                     _ => 0,
                 });
             }
+        }
 
-            widths[c + 1] = Math.Max(widths.GetValueOrDefault(c + 1), w);
+        for (int c = 0; c < w.Length; c++)
+        {
+            widths[c + 1] = Math.Max(widths.GetValueOrDefault(c + 1), w[c]);
         }
     }
 }

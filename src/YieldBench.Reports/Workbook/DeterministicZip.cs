@@ -52,7 +52,10 @@ public static partial class DeterministicZip
                 using var to = copy.Open();
                 if (isStreamed)
                 {
-                    StreamedSheet.Write(from, to, streamed.Sheet, streamed.Bodies);
+                    // Composed on this thread and deflated on another, in fixed-size chunks (the same bytes each run).
+                    using var pipe = new ChunkPipe(to);
+                    StreamedSheet.Write(from, pipe, streamed.Sheet, streamed.Bodies);
+                    pipe.Complete();
                     spliced++;
                 }
                 else if (entry.FullName == "_rels/.rels")

@@ -98,6 +98,7 @@ public static class SheetLayout
 
         int lastRow = headerRow + table.Rows.Count;
         int bodyLastRow = headerRow + bodyRows;
+        var (widths, longText) = Measure(table);
         for (int c = 0; c < cols; c++)
         {
             var column = table.Columns[c];
@@ -110,10 +111,10 @@ public static class SheetLayout
 
             if (setColumnWidths)
             {
-                sheet.Column(firstColumn + c).Width = Math.Clamp(ContentWidth(table, c) + 2, MinColumnWidth, MaxColumnWidth);
+                sheet.Column(firstColumn + c).Width = Math.Clamp(widths[c] + 2, MinColumnWidth, MaxColumnWidth);
             }
 
-            if (bodyRows > 0 && column.Kind == CellKind.Text && table.Rows.Any(row => row[c] is string s && s.Length > MaxColumnWidth))
+            if (bodyRows > 0 && column.Kind == CellKind.Text && longText[c])
             {
                 sheet.Range(headerRow + 1, firstColumn + c, bodyLastRow, firstColumn + c).Style.Alignment.WrapText = true;
             }
@@ -129,21 +130,37 @@ public static class SheetLayout
     }
 
     /// <summary>
-    /// The width, in character widths, a column of <paramref name="table"/> needs: its widest value as the sheet shows
-    /// it, or its heading's longest word (up to 24).
+    /// The width, in character widths, each column of <paramref name="table"/> needs (its widest value as the sheet
+    /// shows it, or its heading's longest word up to 24), and whether it holds text longer than
+    /// <see cref="MaxColumnWidth"/>. One pass row by row: a large table's values are read once, in memory order.
     /// </summary>
-    private static double ContentWidth(ReportTable table, int column)
+    private static (double[] Widths, bool[] LongText) Measure(ReportTable table)
     {
-        ArgumentNullException.ThrowIfNull(table);
-        var reportColumn = table.Columns[column];
-        var format = new NumberShape(reportColumn.EffectiveNumberFormat);
-        double width = Math.Min(HeadingWidth(reportColumn.Heading), 24);
-        foreach (var row in table.Rows)
+        int cols = table.Columns.Count;
+        var widths = new double[cols];
+        var longText = new bool[cols];
+        var shapes = new NumberShape[cols];
+        for (int c = 0; c < cols; c++)
         {
-            width = Math.Max(width, DisplayWidth(row[column], reportColumn, format));
+            widths[c] = Math.Min(HeadingWidth(table.Columns[c].Heading), 24);
+            shapes[c] = new NumberShape(table.Columns[c].EffectiveNumberFormat);
         }
 
-        return width;
+        for (int r = 0; r < table.Rows.Count; r++)
+        {
+            var row = table.Rows[r];
+            for (int c = 0; c < cols; c++)
+            {
+                object? value = row[c];
+                widths[c] = Math.Max(widths[c], DisplayWidth(value, table.Columns[c], shapes[c]));
+                if (value is string s && s.Length > MaxColumnWidth)
+                {
+                    longText[c] = true;
+                }
+            }
+        }
+
+        return (widths, longText);
     }
 
     /// <summary>

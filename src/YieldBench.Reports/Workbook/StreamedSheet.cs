@@ -256,9 +256,17 @@ internal static class StreamedSheet
         // The reader is on <sheetData>; leaves it after </sheetData>.
         public void CopySheetData(XmlReader reader)
         {
-            prefix = reader.Prefix;
             int depth = reader.Depth;
             writer.WriteStartElement(reader.Prefix, reader.LocalName, reader.NamespaceURI);
+            prefix = reader.Prefix;
+            if (prefix.Length > 0 && reader.GetAttribute("xmlns") is null)
+            {
+                // The streamed rows use unprefixed names under a default namespace declared here: the prefix on every
+                // element was a fifth of a large sheet's bytes. The rows ClosedXML wrote keep theirs.
+                writer.WriteAttributeString("xmlns", MainNamespace);
+                prefix = string.Empty;
+            }
+
             writer.WriteAttributes(reader, defattr: true);
             bool empty = reader.IsEmptyElement;
             reader.Read();
@@ -364,8 +372,9 @@ internal static class StreamedSheet
     /// <summary>
     /// Rows of a streamed table as UTF-8 markup, composed in a reusable buffer. Numbers are written in round-trip
     /// form, dates as their serial numbers, text (and yes/no for booleans) as inline strings with <c>&amp;</c>,
-    /// <c>&lt;</c>, <c>&gt;</c> and carriage returns escaped and the characters XML cannot carry removed; an empty
-    /// value gives a cell only when it has a style, as ClosedXML writes it.
+    /// <c>&lt;</c>, <c>&gt;</c> and carriage returns escaped, the characters XML cannot carry removed and whitespace
+    /// marked as meaningful where it would otherwise be trimmed; an empty value (or empty text) gives a cell only
+    /// when it has a style, as ClosedXML writes it.
     /// </summary>
     internal sealed class RowMarkup
     {
@@ -373,6 +382,7 @@ internal static class StreamedSheet
         public const int FlushBytes = 1 << 16;
 
         private static readonly SearchValues<char> Escaped = SearchValues.Create("&<>\r");
+        private static readonly SearchValues<char> Breaks = SearchValues.Create("\t\n\r");
         private static readonly SearchValues<char> EscapedInAttributes = SearchValues.Create("&<>\"\t\n\r");
         private static readonly UTF8Encoding Utf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
 
@@ -383,6 +393,7 @@ internal static class StreamedSheet
         private readonly byte[] valueOpen;
         private readonly byte[] valueClose;
         private readonly byte[] textOpen;
+        private readonly byte[] textOpenPreserve;
         private readonly byte[] textClose;
         private readonly byte[][] letters;
         private byte[] buffer = new byte[FlushBytes + 4096];
@@ -401,7 +412,8 @@ internal static class StreamedSheet
             cellClose = Utf8.GetBytes("</" + p + "c>");
             valueOpen = Utf8.GetBytes("<" + p + "v>");
             valueClose = Utf8.GetBytes("</" + p + "v>");
-            textOpen = Utf8.GetBytes("<" + p + "is><" + p + "t xml:space=\"preserve\">");
+            textOpen = Utf8.GetBytes("<" + p + "is><" + p + "t>");
+            textOpenPreserve = Utf8.GetBytes("<" + p + "is><" + p + "t xml:space=\"preserve\">");
             textClose = Utf8.GetBytes("</" + p + "t></" + p + "is>");
             letters = Enumerable.Range(firstColumn, columns).Select(c => Utf8.GetBytes(WorkbookWriter.ColumnLetter(c))).ToArray();
         }
@@ -494,7 +506,17 @@ internal static class StreamedSheet
 
                     return;
                 case string s:
-                    Text(column, row, template, s);
+                    // Empty text is an empty cell, as ClosedXML leaves it (after the characters XML cannot carry go).
+                    string safe = SheetLayout.XmlSafe(s);
+                    if (safe.Length > 0)
+                    {
+                        Text(column, row, template, safe);
+                    }
+                    else
+                    {
+                        Cell(column, row, template, null);
+                    }
+
                     return;
                 case bool b:
                     Text(column, row, template, b ? "yes" : "no");
@@ -542,8 +564,12 @@ internal static class StreamedSheet
             // Inline strings are never read as formulas, whatever their first character.
             Start(column, row, template);
             Append(" t=\"inlineStr\">"u8);
-            Append(textOpen);
-            var rest = SheetLayout.XmlSafe(text).AsSpan();
+
+            // Spreadsheet applications trim text whose whitespace is not marked as meaningful.
+            bool preserve = char.IsWhiteSpace(text[0]) || char.IsWhiteSpace(text[^1])
+                || text.AsSpan().IndexOfAny(Breaks) >= 0 || text.Contains("  ", StringComparison.Ordinal);
+            Append(preserve ? textOpenPreserve : textOpen);
+            var rest = text.AsSpan();
             while (!rest.IsEmpty)
             {
                 int special = rest.IndexOfAny(Escaped);

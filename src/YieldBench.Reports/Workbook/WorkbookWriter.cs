@@ -347,11 +347,12 @@ public static class WorkbookWriter
 
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
-        int flagged = review.Lots.Count(l => ReviewTables.IsFlagged(review, l));
-        Pair(ws, ref r, "Flagged lots, strain review or kinetics (highlighted on Lots)", flagged);
+        // Each lot's worst flag, looked up once (a flagged lot is one with any flag).
+        var worst = review.Lots.Select(l => ReviewTables.LotSeverity(review, l)).Where(s => s is not null).ToArray();
+        Pair(ws, ref r, "Flagged lots, strain review or kinetics (highlighted on Lots)", worst.Length);
         foreach (var severity in new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note })
         {
-            int n = review.Lots.Count(l => ReviewTables.LotSeverity(review, l) == severity);
+            int n = worst.Count(s => s == severity);
             Pair(ws, ref r, "  worst flag: " + ReviewTables.SeverityName(severity) + " (see Follow-up)", n);
         }
 

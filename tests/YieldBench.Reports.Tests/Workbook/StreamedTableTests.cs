@@ -34,7 +34,7 @@ public sealed class StreamedTableTests
         ]);
         string longNote = "A note long enough to make the column wrap, because it runs past the widest column of seventy characters.";
         t.Add(["L-001", 2024, 23.456, 13.2, 0.875, When, true, 12L, "plain"]);
-        t.Add(["L-002", 2024, double.NaN, 12.9, 0.5, null, false, null, "=SUM(A1:A9)"], highlight: true);
+        t.Add([string.Empty, 2024, double.NaN, 12.9, 0.5, null, false, null, "=SUM(A1:A9)"], highlight: true);
         t.Add(["L-003", 2025, 21.0, double.PositiveInfinity, 0.0, When.AddDays(1), null, 3L, longNote]);
         t.Add(["L-004", 2025, -0.125, 1e-7, 1.0, When.AddHours(36.5), true, long.MaxValue / 1024, "  spaced  "], highlight: true);
         t.Add([null, null, 1234567.891, 14.0, double.NaN, null, null, 0L, "tab\there, line\nbreak, grape 🍇, café"]);
@@ -261,7 +261,16 @@ public sealed class StreamedTableTests
         var cells = doc.WorkbookPart!.WorksheetParts.Single().Worksheet.Descendants<DocumentFormat.OpenXml.Spreadsheet.Cell>()
             .ToDictionary(c => c.CellReference!.Value!, c => c.CellValue?.Text);
 
-        // Then they parse back to the very same doubles, and a date is its serial number
+        var texts = doc.WorkbookPart!.WorksheetParts.Single().Worksheet.Descendants<DocumentFormat.OpenXml.Spreadsheet.Cell>()
+            .Where(c => c.InlineString is not null).ToDictionary(c => c.CellReference!.Value!, c => c.InlineString!.Text!);
+
+        // Then they parse back to the very same doubles, and a date is its serial number; only text with meaningful
+        // whitespace is marked to keep it; empty text is no value
+        Assert.Null(texts["J4"].Space);
+        Assert.Equal(DocumentFormat.OpenXml.SpaceProcessingModeValues.Preserve, texts["J7"].Space!.Value);
+        Assert.Equal(DocumentFormat.OpenXml.SpaceProcessingModeValues.Preserve, texts["J8"].Space!.Value);
+        Assert.False(texts.ContainsKey("B5"));
+        Assert.Null(cells["B5"]);
         Assert.Equal(0.1 + 0.2, double.Parse(cells["D9"]!, CultureInfo.InvariantCulture));
         Assert.Equal(0.3333333333333333, double.Parse(cells["F9"]!, CultureInfo.InvariantCulture));
         Assert.Equal(When.AddHours(36.5).ToOADate(), double.Parse(cells["G7"]!, CultureInfo.InvariantCulture));
