@@ -10,7 +10,8 @@ namespace YieldBench.Reports.Kinetics;
 
 /// <summary>
 /// Kinetics charts (≈1600×1000 PNG): sugar and temperature on two axes for each flagged lot, a small-multiples overview,
-/// strain overlays of normalised sugar curves, and rate against remaining sugar. Renders only what the review holds.
+/// each strain's typical course of normalised sugar (median and quartiles, with every flagged lot and a bounded sample
+/// of the others drawn), and rate against remaining sugar. Renders only what the review holds.
 /// </summary>
 public static class KineticsCharts
 {
