@@ -83,6 +83,7 @@ public static class KineticsCharts
             });
         }
 
+        int strainJob = jobs.Count;
         jobs.Add(() => ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
         jobs.Add(() => ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
@@ -92,7 +93,8 @@ public static class KineticsCharts
             jobs.Add(() => ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
         }
 
-        files.AddRange(ChartImage.RenderAll(jobs));
+        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
+        files.AddRange(ChartImage.RenderAll(jobs, [strainJob, strainJob + 1]));
         return files;
     }
 
