@@ -82,10 +82,21 @@ public static class ChartImage
     /// bytes and the workbook's placement do not depend on which thread finished first.
     /// </summary>
     /// <param name="jobs">Each job builds its own plot and writes its own file; jobs share no mutable state.</param>
+    /// <param name="startFirst">
+    /// Indices of jobs to start before the others (the longest ones, so that no long job starts last and runs alone);
+    /// the rest start in their order. Results are in the jobs' order whatever the start order.
+    /// </param>
     /// <exception cref="AggregateException">A job failed (the jobs not yet started are not run).</exception>
-    public static IReadOnlyList<ChartFile> RenderAll(IReadOnlyList<Func<ChartFile>> jobs)
+    public static IReadOnlyList<ChartFile> RenderAll(IReadOnlyList<Func<ChartFile>> jobs, IReadOnlyList<int>? startFirst = null)
     {
         ArgumentNullException.ThrowIfNull(jobs);
+        var first = startFirst ?? [];
+        if (first.Any(i => i < 0 || i >= jobs.Count) || first.Distinct().Count() != first.Count)
+        {
+            throw new ArgumentException("The jobs to start first must be distinct indices of jobs.", nameof(startFirst));
+        }
+
+        var starts = first.Concat(Enumerable.Range(0, jobs.Count).Except(first)).ToArray();
 
         // Font registration touches ScottPlot's global resolver list: do it once before any worker starts.
         ReportFonts.EnsureRegistered();
@@ -98,9 +109,10 @@ public static class ChartImage
         var errors = new System.Collections.Concurrent.ConcurrentQueue<Exception>();
         void Work()
         {
-            int i;
-            while (errors.IsEmpty && (i = Interlocked.Increment(ref next)) < jobs.Count)
+            int n;
+            while (errors.IsEmpty && (n = Interlocked.Increment(ref next)) < jobs.Count)
             {
+                int i = starts[n];
                 try
                 {
                     results[i] = jobs[i]();

@@ -127,7 +127,8 @@ public static class ReviewCharts
         var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
         var strains = StrainOrder(review);
         var ticks = new ScottPlot.TickGenerators.NumericManual();
-        var pointXs = new Dictionary<LotConversion, double>();
+        // Keyed by reference: a lot's record equality hashes every field, which at 100,000 lots cost most of this chart.
+        var pointXs = new Dictionary<LotConversion, double>(ReferenceEqualityComparer.Instance);
         for (int i = 0; i < strains.Count; i++)
         {
             var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();

@@ -10,7 +10,8 @@ namespace YieldBench.Reports.Kinetics;
 
 /// <summary>
 /// Kinetics charts (≈1600×1000 PNG): sugar and temperature on two axes for each flagged lot, a small-multiples overview,
-/// strain overlays of normalised sugar curves, and rate against remaining sugar. Renders only what the review holds.
+/// each strain's typical course of normalised sugar (median and quartiles, with every flagged lot and a bounded sample
+/// of the others drawn), and rate against remaining sugar. Renders only what the review holds.
 /// </summary>
 public static class KineticsCharts
 {
@@ -82,6 +83,7 @@ public static class KineticsCharts
             });
         }
 
+        int strainJob = jobs.Count;
         jobs.Add(() => ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
         jobs.Add(() => ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
@@ -91,7 +93,8 @@ public static class KineticsCharts
             jobs.Add(() => ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
         }
 
-        files.AddRange(ChartImage.RenderAll(jobs));
+        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
+        files.AddRange(ChartImage.RenderAll(jobs, [strainJob, strainJob + 1]));
         return files;
     }
 
@@ -257,18 +260,26 @@ public static class KineticsCharts
         int j0 = (int)Math.Floor(Math.Min(0, first) / CourseStepHours), j1 = (int)Math.Floor(last / CourseStepHours);
         int steps = j1 - j0 + 1;
 
-        // Each lot's known steps, as a range of step indices.
+        // Each lot is "live" over the steps its log spans (interpolated values, gathered per step); a lot that reached
+        // dry then joins the "settled" values at its last reading, which stay until the end and are kept sorted once
+        // rather than re-sorted at every step (at 100,000 lots most of a long course is settled lots).
         var ranges = new (int From, int To)[usable.Length];
         var counts = new int[steps];
+        var settleAt = new List<(int Step, double Share)>();
         for (int i = 0; i < usable.Length; i++)
         {
             var k = usable[i];
             int from = (int)Math.Ceiling(k.Sugar[0].Hours / CourseStepHours) - j0;
-            int to = k.HoursToDry is not null ? steps - 1 : (int)Math.Floor(k.Sugar[^1].Hours / CourseStepHours) - j0;
+            int to = (int)Math.Floor(k.Sugar[^1].Hours / CourseStepHours) - j0;
             ranges[i] = (from, to);
             for (int j = from; j <= to; j++)
             {
                 counts[j]++;
+            }
+
+            if (k.HoursToDry is not null && to + 1 < steps)
+            {
+                settleAt.Add((Math.Max(to + 1, from), k.Sugar[^1].Brix / k.StartingBrix));
             }
         }
 
@@ -300,30 +311,83 @@ public static class KineticsCharts
             }
         }
 
+        settleAt.Sort((a, b) => a.Step.CompareTo(b.Step));
+        var settled = new List<double>();
+        int nextSettle = 0;
         int needed = Math.Max(MinCourseLots, (usable.Length + 1) / 2);
-        int start = Array.FindIndex(counts, c => c >= needed);
-        if (start < 0)
-        {
-            return empty;
-        }
-
         var days = new List<double>();
         var q1 = new List<double>();
         var median = new List<double>();
         var q3 = new List<double>();
         var counted = new List<int>();
-        for (int j = start; j < steps && counts[j] >= needed; j++)
+        bool started = false;
+        for (int j = 0; j < steps; j++)
         {
+            while (nextSettle < settleAt.Count && settleAt[nextSettle].Step <= j)
+            {
+                double share = settleAt[nextSettle++].Share;
+                int at = settled.BinarySearch(share);
+                settled.Insert(at < 0 ? ~at : at, share);
+            }
+
+            int known = counts[j] + settled.Count;
+            if (known < needed)
+            {
+                if (started)
+                {
+                    break;
+                }
+
+                continue;
+            }
+
+            started = true;
             Array.Sort(values, offsets[j], counts[j]);
-            var sorted = new ArraySegment<double>(values, offsets[j], counts[j]);
+            var live = new ReadOnlySpan<double>(values, offsets[j], counts[j]);
             days.Add((j + j0) * CourseStepHours / 24.0);
-            q1.Add(Descriptive.QuantileOfSorted(sorted, 0.25));
-            median.Add(Descriptive.QuantileOfSorted(sorted, 0.5));
-            q3.Add(Descriptive.QuantileOfSorted(sorted, 0.75));
-            counted.Add(counts[j]);
+            q1.Add(QuantileOfUnion(live, settled, 0.25));
+            median.Add(QuantileOfUnion(live, settled, 0.5));
+            q3.Add(QuantileOfUnion(live, settled, 0.75));
+            counted.Add(known);
         }
 
         return new StrainCourse(strain, usable.Length, days, q1, median, q3, counted);
+    }
+
+    /// <summary>
+    /// The type-7 quantile (as <see cref="Descriptive.QuantileOfSorted"/>) of the union of two ascending samples,
+    /// without merging them: the two order statistics around h = (n − 1)·p are found by bisection.
+    /// </summary>
+    private static double QuantileOfUnion(ReadOnlySpan<double> a, List<double> b, double p)
+    {
+        int n = a.Length + b.Count;
+        double h = (n - 1) * p;
+        int lo = (int)Math.Floor(h);
+        int hi = Math.Min(lo + 1, n - 1);
+        double x = OrderStatistic(a, b, lo);
+        return x + ((h - lo) * (OrderStatistic(a, b, hi) - x));
+    }
+
+    /// <summary>The k-th smallest (0-based) of the union of two ascending samples.</summary>
+    private static double OrderStatistic(ReadOnlySpan<double> a, List<double> b, int k)
+    {
+        // Take i from a and k + 1 − i from b: the smallest i for which a's next value is not below b's last taken one.
+        int lo = Math.Max(0, k + 1 - b.Count), hi = Math.Min(k + 1, a.Length);
+        while (lo < hi)
+        {
+            int i = (lo + hi) / 2;
+            if (a[i] < b[k - i])
+            {
+                lo = i + 1;
+            }
+            else
+            {
+                hi = i;
+            }
+        }
+
+        int fromB = k + 1 - lo;
+        return Math.Max(lo > 0 ? a[lo - 1] : double.NegativeInfinity, fromB > 0 ? b[fromB - 1] : double.NegativeInfinity);
     }
 
     /// <summary>

@@ -17,7 +17,7 @@ public static class KineticsCsv
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(writer);
-        writer.Write(CsvText.Write(KineticsTables.Readings(review)));
+        CsvText.Write(KineticsTables.Readings(review), writer);
     }
 
     /// <summary>Writes the per-lot table as CSV (RFC 4180, CRLF, round-trip numbers; see <see cref="CsvText"/>).</summary>
@@ -25,6 +25,13 @@ public static class KineticsCsv
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(writer);
-        writer.Write(CsvText.Write(KineticsTables.Lots(review)));
+        CsvText.Write(KineticsTables.Lots(review), writer);
+    }
+
+    /// <summary>Writes the per-lot table straight to <paramref name="path"/> (streamed, atomic; the bytes of <see cref="Write"/> as UTF-8).</summary>
+    public static void WriteFile(KineticsReview review, string path)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        CsvText.WriteFile(KineticsTables.Lots(review), path);
     }
 }

@@ -68,10 +68,14 @@ public static class ReviewTables
         ArgumentNullException.ThrowIfNull(review);
         var table = new ReportTable(LotColumns);
         var scores = review.Strains.Scores.GroupBy(x => x.LotKey, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
+        var index = FlagIndex.Of(review);
         foreach (var c in order ?? review.Lots)
         {
             var lot = c.Lot;
-            var flags = LotFlags(review, c);
+
+            // The key is built once per lot (Lot.Key formats it on every call) and every lookup below shares it.
+            string key = lot.Key;
+            var flags = index.Codes(key);
             table.Add(
             [
                 lot.LotId,
@@ -86,7 +90,7 @@ public static class ReviewTables
                 c.AbvPerBrixFermented,
                 c.SugarGlPerAbv,
                 c.GayLussacEfficiency,
-                scores.TryGetValue(lot.Key, out var score) ? score.Z : double.NaN,
+                scores.TryGetValue(key, out var score) ? score.Z : double.NaN,
                 flags.Count == 0 ? null : string.Join(';', flags),
                 lot.StartingSugar.Brix,
                 ScaleName(lot.StartingSugarScale),
@@ -115,7 +119,7 @@ public static class ReviewTables
                 lot.Source?.Sheet,
                 lot.Source?.Row,
             ],
-            highlight: IsFlagged(review, c));
+            highlight: index.WorstSeverity(key) is not null);
         }
 
         return table;
@@ -134,15 +138,7 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        var index = FlagIndex.Of(review);
-        var codes = new List<string>();
-        codes.AddRange(index.StrainFlags(lot.Lot.Key).Select(f => f.Code));
-        if (index.Kinetics(lot.Lot.Key) is { } kinetics)
-        {
-            codes.AddRange(kinetics.Flags);
-        }
-
-        return codes.Distinct(StringComparer.Ordinal).ToArray();
+        return FlagIndex.Of(review).Codes(lot.Lot.Key);
     }
 
     /// <summary>
@@ -220,6 +216,44 @@ public static class ReviewTables
         public IReadOnlyList<LotFlag> StrainFlags(string lotKey) => strainFlags.TryGetValue(lotKey, out var list) ? list : [];
 
         public LotKinetics? Kinetics(string lotKey) => kinetics.GetValueOrDefault(lotKey);
+
+        /// <summary>The lot's flag codes, strain review first, then kinetics, each once, in that order.</summary>
+        public IReadOnlyList<string> Codes(string lotKey)
+        {
+            var strain = StrainFlags(lotKey);
+            var logged = Kinetics(lotKey)?.Flags ?? [];
+            if (strain.Count + logged.Count == 0)
+            {
+                return [];
+            }
+
+            // A handful of codes per lot at most: a linear check for repeats beats building a set.
+            var codes = new List<string>(strain.Count + logged.Count);
+            foreach (var f in strain)
+            {
+                AddOnce(codes, f.Code);
+            }
+
+            foreach (var code in logged)
+            {
+                AddOnce(codes, code);
+            }
+
+            return codes;
+        }
+
+        private static void AddOnce(List<string> codes, string code)
+        {
+            foreach (var c in codes)
+            {
+                if (string.Equals(c, code, StringComparison.Ordinal))
+                {
+                    return;
+                }
+            }
+
+            codes.Add(code);
+        }
 
         public FlagSeverity? WorstSeverity(string lotKey) => worst.TryGetValue(lotKey, out var w) ? w : null;
     }

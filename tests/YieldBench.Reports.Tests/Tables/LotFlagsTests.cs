@@ -1,0 +1,69 @@
+using YieldBench.Core.Kinetics;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
+using YieldBench.Core.Units;
+using YieldBench.Reports.Tables;
+using YieldBench.Reports.Tests.Fixtures;
+using YieldBench.Reports.Tests.Kinetics;
+
+namespace YieldBench.Reports.Tests.Tables;
+
+public sealed class LotFlagsTests
+{
+    // The sample review with invented logs: L005 (2024) stalls at 10.6 °Brix, L020 (2025) ferments through 41 °C.
+    private static ReviewResult ReviewWithLogs()
+    {
+        var review = SampleReview.Build();
+        FermentationLog Log(string id, int season, double step, double[] brix, double[] temps) =>
+            new(id, season, brix.Select((b, i) => new LogReading(KineticsReportData.Start.AddHours(i * step), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
+        var logs = new[]
+        {
+            Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
+            Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
+        };
+        return review with { Kinetics = KineticsAnalysis.Run(review.Lots, logs, KineticsSettings.Default) };
+    }
+
+    [Fact]
+    public void A_lot_s_flags_are_its_strain_codes_then_its_kinetics_codes_each_once()
+    {
+        // Given the review with logs (some lots carry several codes)
+        var review = ReviewWithLogs();
+
+        // When each lot's flags are asked for, and worked out independently from the review's own lists
+        foreach (var lot in review.Lots)
+        {
+            var expected = review.Strains.Flags.Where(f => f.LotKey == lot.Lot.Key).Select(f => f.Code)
+                .Concat(review.Kinetics!.Lots.FirstOrDefault(k => k.LotKey == lot.Lot.Key)?.Flags ?? [])
+                .Distinct(StringComparer.Ordinal).ToArray();
+
+            // Then they agree, in order
+            Assert.Equal(expected, ReviewTables.LotFlags(review, lot));
+        }
+
+        Assert.Contains(review.Lots, l => ReviewTables.LotFlags(review, l).Count >= 2);
+        Assert.Contains(review.Lots, l => ReviewTables.LotFlags(review, l).Count == 0);
+    }
+
+    [Fact]
+    public void The_lots_table_joins_the_flags_and_highlights_exactly_the_lots_to_look_at()
+    {
+        // Given the review with logs
+        var review = ReviewWithLogs();
+
+        // When the lots table is built
+        var table = ReviewTables.Lots(review);
+        int flagsColumn = table.IndexOf("flags");
+
+        // Then each row's flags cell is the lot's codes joined by ';' (empty when none) and the highlight is IsFlagged
+        for (int i = 0; i < review.Lots.Count; i++)
+        {
+            var codes = ReviewTables.LotFlags(review, review.Lots[i]);
+            Assert.Equal(codes.Count == 0 ? null : string.Join(';', codes), table.Rows[i][flagsColumn]);
+            Assert.Equal(ReviewTables.IsFlagged(review, review.Lots[i]), table.Highlighted[i]);
+        }
+
+        Assert.Contains(true, table.Highlighted);
+        Assert.Contains(false, table.Highlighted);
+    }
+}
