@@ -65,17 +65,23 @@ public static class ReportWriter
             written.Add(relative);
         }
 
+        // Tables stream straight to their files: at 100,000 lots a whole file held as one string cost hundreds of MB.
+        void Table(string relative, Tables.ReportTable table)
+        {
+            CsvText.WriteFile(table, Full(root, relative));
+            written.Add(relative);
+        }
+
         progress?.Report("data files");
-        Text(DataFiles.Lots, CsvText.Write(ReviewTables.Lots(review)));
-        Text(DataFiles.Groups, CsvText.Write(ReviewTables.Groups(review)));
-        Text(DataFiles.Flags, CsvText.Write(ReviewTables.Flags(review)));
-        Text(DataFiles.IntakeIssues, CsvText.Write(ReviewTables.IntakeIssues(review)));
+        Table(DataFiles.Lots, ReviewTables.Lots(review));
+        Table(DataFiles.Groups, ReviewTables.Groups(review));
+        Table(DataFiles.Flags, ReviewTables.Flags(review));
+        Table(DataFiles.IntakeIssues, ReviewTables.IntakeIssues(review));
         Text(DataFiles.HouseFactor, HouseFactorJson.Write(review.HouseFactor));
         if (review.Kinetics is { } kinetics)
         {
-            using var csv = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);
-            KineticsCsv.Write(kinetics, csv);
-            Text(DataFiles.Kinetics, csv.ToString());
+            KineticsCsv.WriteFile(kinetics, Full(root, DataFiles.Kinetics));
+            written.Add(DataFiles.Kinetics);
         }
 
         progress?.Report("charts");
