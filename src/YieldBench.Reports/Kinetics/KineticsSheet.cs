@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using ClosedXML.Excel;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
@@ -92,6 +93,7 @@ public static class KineticsSheet
 
     // Headings up to 24 characters, numbers 10, whole numbers 6, times 16, text its length (read row by row: the
     // per-lot table of a large review is long).
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void TrackWidths(ReportTable table, Dictionary<int, int> widths)
     {
         var w = table.Columns.Select(c => Math.Min(c.Heading.Length, 24)).ToArray();

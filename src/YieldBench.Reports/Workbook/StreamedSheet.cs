@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using System.Text;
 using System.Xml;
 using System.Xml.Linq;
@@ -8,16 +9,15 @@ namespace YieldBench.Reports.Workbook;
 
 /// <summary>
 /// Writes a worksheet part whose long tables ClosedXML laid out only as a heading and two template rows: the part is
-/// copied node by node, the template rows give each column's cell style (plain and highlighted) and are replaced by
-/// the table's rows, written straight to the output with an <see cref="XmlWriter"/>, and the sheet's dimension is
-/// widened to cover them. Rows ClosedXML wrote before and after a table are kept where they are.
+/// copied node by node through an <see cref="XmlWriter"/>, the template rows give each column's cell style (plain and
+/// highlighted) and are replaced by the table's rows, composed as UTF-8 markup (<see cref="RowMarkup"/>) straight into
+/// the output, and the sheet's dimension is widened to cover them. Rows ClosedXML wrote before and after a table are
+/// kept where they are.
 /// </summary>
 internal static class StreamedSheet
 {
     /// <summary>The SpreadsheetML main namespace.</summary>
     public const string MainNamespace = "http://schemas.openxmlformats.org/spreadsheetml/2006/main";
-
-    private const string XmlNamespace = "http://www.w3.org/XML/1998/namespace";
 
     private static readonly XmlReaderSettings ReaderSettings = new()
     {
@@ -344,6 +344,7 @@ internal static class StreamedSheet
             writer.WriteNode(reader, defattr: true);
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Emit(DeferredBody body, Template? plainTemplate, Template? highlightedTemplate)
         {
             // The rows, millions of cells in a large review, go to the output as UTF-8 composed here: an XmlWriter's
@@ -376,6 +377,10 @@ internal static class StreamedSheet
     /// marked as meaningful where it would otherwise be trimmed; an empty value (or empty text) gives a cell only
     /// when it has a style, as ClosedXML writes it.
     /// </summary>
+    /// <remarks>
+    /// The methods run millions of times once per process, when the workbook is written: they are compiled optimised
+    /// at once (AggressiveOptimization) rather than starting as unoptimised code that the runtime replaces later.
+    /// </remarks>
     internal sealed class RowMarkup
     {
         /// <summary>Buffered bytes at which the caller should write them out.</summary>
@@ -441,6 +446,7 @@ internal static class StreamedSheet
         }
 
         /// <summary>Adds one row.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Row(int rowNumber, PreparedTemplate template, object?[] cells)
         {
             ArgumentNullException.ThrowIfNull(template);
@@ -492,6 +498,7 @@ internal static class StreamedSheet
             return sb.ToString();
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Cell(int column, int row, PreparedTemplate template, object? value)
         {
             switch (value)
@@ -559,6 +566,7 @@ internal static class StreamedSheet
             }
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Text(int column, int row, PreparedTemplate template, string text)
         {
             // Inline strings are never read as formulas, whatever their first character.
@@ -595,6 +603,7 @@ internal static class StreamedSheet
             Append(cellClose);
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Start(int column, int row, PreparedTemplate template)
         {
             Append(cellOpen);
@@ -607,20 +616,35 @@ internal static class StreamedSheet
             }
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Format<T>(T value)
-            where T : IUtf8SpanFormattable
+            where T : ISpanFormattable
         {
-            // "R": the shortest text that reads back as the same double; integers as they are.
+            // "R": the shortest text that reads back as the same double; integers as they are. Formatted as characters
+            // (numbers are ASCII, so each is one byte): the runtime's character formatting is already compiled for
+            // speed by the time a report is written, its UTF-8 formatting would start out unoptimised.
             ReadOnlySpan<char> format = typeof(T) == typeof(double) ? "R" : default;
-            int written;
-            while (!value.TryFormat(buffer.AsSpan(length), out written, format, CultureInfo.InvariantCulture))
+            Span<char> text = stackalloc char[40];
+            if (!value.TryFormat(text, out int written, format, CultureInfo.InvariantCulture))
             {
-                Grow(64);
+                throw new InvalidOperationException($"A number took more than {text.Length} characters.");
+            }
+
+            if (length + written > buffer.Length)
+            {
+                Grow(written);
+            }
+
+            var into = buffer.AsSpan(length, written);
+            for (int i = 0; i < written; i++)
+            {
+                into[i] = (byte)text[i];
             }
 
             length += written;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(byte b)
         {
             if (length == buffer.Length)
@@ -631,6 +655,7 @@ internal static class StreamedSheet
             buffer[length++] = b;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(ReadOnlySpan<byte> bytes)
         {
             if (length + bytes.Length > buffer.Length)
@@ -642,6 +667,7 @@ internal static class StreamedSheet
             length += bytes.Length;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(ReadOnlySpan<char> text)
         {
             int most = Utf8.GetMaxByteCount(text.Length);
