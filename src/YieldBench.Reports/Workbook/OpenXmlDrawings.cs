@@ -125,24 +125,80 @@ public static class OpenXmlDrawings
         drawings.WorksheetDrawing.AddNamespaceDeclaration("a", "http://schemas.openxmlformats.org/drawingml/2006/main");
         drawings.WorksheetDrawing.Save();
 
-        var worksheet = sheet.Worksheet;
-        var drawing = new Drawing { Id = sheet.GetIdOfPart(drawings) };
-
-        // CT_Worksheet fixes the order of children: <drawing> comes before these, after everything else.
-        var after = worksheet.ChildElements.FirstOrDefault(e =>
-            e is LegacyDrawing or LegacyDrawingHeaderFooter or DrawingHeaderFooter or Picture or OleObjects or Controls
-                or WebPublishItems or TableParts or WorksheetExtensionList);
-        if (after is null)
+        // The worksheet gets its <drawing> by a streaming copy of its XML: loading it as SDK elements took seconds for
+        // a sheet of a few thousand rows, and its elements would be saved again when the package closes.
+        byte[] xml;
+        using (var from = sheet.GetStream(FileMode.Open, FileAccess.Read))
         {
-            worksheet.Append(drawing);
-        }
-        else
-        {
-            worksheet.InsertBefore(drawing, after);
+            xml = WithDrawing(from, sheet.GetIdOfPart(drawings));
         }
 
-        worksheet.Save();
+        using (var data = new MemoryStream(xml, writable: false))
+        {
+            sheet.FeedData(data);
+        }
+
         return drawings;
+    }
+
+    // CT_Worksheet fixes the order of children: <drawing> comes before these, after everything else.
+    private static readonly HashSet<string> AfterDrawing = new(StringComparer.Ordinal)
+    {
+        "legacyDrawing", "legacyDrawingHF", "drawingHF", "picture", "oleObjects", "controls", "webPublishItems", "tableParts", "extLst",
+    };
+
+    /// <summary>The worksheet XML <paramref name="worksheet"/> with a <c>&lt;drawing r:id="…"/&gt;</c> in its place.</summary>
+    internal static byte[] WithDrawing(Stream worksheet, string relationshipId)
+    {
+        ArgumentNullException.ThrowIfNull(worksheet);
+        ArgumentNullException.ThrowIfNull(relationshipId);
+        const string Relationships = "http://schemas.openxmlformats.org/officeDocument/2006/relationships";
+        using var output = new MemoryStream();
+        using (var reader = System.Xml.XmlReader.Create(worksheet, new System.Xml.XmlReaderSettings { DtdProcessing = System.Xml.DtdProcessing.Prohibit, XmlResolver = null, CloseInput = false }))
+        using (var writer = System.Xml.XmlWriter.Create(output, new System.Xml.XmlWriterSettings { Encoding = new System.Text.UTF8Encoding(false), CloseOutput = false, NewLineHandling = System.Xml.NewLineHandling.Entitize }))
+        {
+            bool placed = false;
+            string rootPrefix = string.Empty;
+            void Place()
+            {
+                writer.WriteStartElement(rootPrefix, "drawing", StreamedSheet.MainNamespace);
+                writer.WriteAttributeString("r", "id", Relationships, relationshipId);
+                writer.WriteEndElement();
+                placed = true;
+            }
+
+            while (reader.Read())
+            {
+                if (reader.NodeType == System.Xml.XmlNodeType.XmlDeclaration)
+                {
+                    writer.WriteStartDocument(string.Equals(reader.GetAttribute("standalone"), "yes", StringComparison.Ordinal));
+                    continue;
+                }
+
+                if (reader.Depth == 0 && reader.NodeType == System.Xml.XmlNodeType.Element)
+                {
+                    rootPrefix = reader.Prefix;
+                }
+                else if (!placed && reader.Depth == 1 && reader.NodeType == System.Xml.XmlNodeType.Element
+                    && reader.NamespaceURI == StreamedSheet.MainNamespace && AfterDrawing.Contains(reader.LocalName))
+                {
+                    Place();
+                }
+                else if (!placed && reader.Depth == 0 && reader.NodeType == System.Xml.XmlNodeType.EndElement)
+                {
+                    Place();
+                }
+
+                StreamedSheet.CopyNode(reader, writer);
+            }
+
+            if (!placed)
+            {
+                throw new InvalidOperationException("The worksheet part has no root element to put a drawing in.");
+            }
+        }
+
+        return output.ToArray();
     }
 
     private static C.ChartSpace BuildChartSpace(ScatterChartSpec spec)
