@@ -28,11 +28,18 @@ public static class ChartImage
     /// <summary>The plot as PNG bytes.</summary>
     public static byte[] RenderPng(Plot plot, int width = ChartStyle.Width, int height = ChartStyle.Height)
     {
+        using var png = RenderPngData(plot, width, height);
+        return png.ToArray();
+    }
+
+    /// <summary>The plot as PNG bytes held by SkiaSharp (native memory: a chart's half megabyte never lands on the managed heap).</summary>
+    public static SKData RenderPngData(Plot plot, int width = ChartStyle.Width, int height = ChartStyle.Height)
+    {
         ArgumentNullException.ThrowIfNull(plot);
         ReportFonts.EnsureRegistered();
         using var surface = NewSurface(width, height);
         plot.Render(surface.Canvas, width, height);
-        return EncodePng(surface);
+        return EncodePngData(surface);
     }
 
     /// <summary>
@@ -50,15 +57,28 @@ public static class ChartImage
     /// <summary>The surface's pixels as an RGB PNG (<see cref="PngOptions"/>); the surface must come from <see cref="NewSurface"/>.</summary>
     public static byte[] EncodePng(SKSurface surface)
     {
+        using var png = EncodePngData(surface);
+        return png.ToArray();
+    }
+
+    /// <summary>As <see cref="EncodePng"/>, the bytes left in SkiaSharp's native memory (dispose them).</summary>
+    public static SKData EncodePngData(SKSurface surface)
+    {
         ArgumentNullException.ThrowIfNull(surface);
         using var pixels = surface.PeekPixels()
             ?? throw new InvalidOperationException("The chart surface has no readable pixels.");
 
         // Every pixel is opaque (see NewSurface), so declaring the pixels opaque drops only the constant alpha byte.
         using var opaque = pixels.WithAlphaType(SKAlphaType.Opaque);
-        using var data = opaque.Encode(PngOptions)
+        return opaque.Encode(PngOptions)
             ?? throw new InvalidOperationException("The chart could not be encoded as PNG.");
-        return data.ToArray();
+    }
+
+    /// <summary>Writes PNG bytes held by SkiaSharp to <paramref name="path"/> atomically, straight from native memory.</summary>
+    public static void WritePng(string path, SKData png)
+    {
+        ArgumentNullException.ThrowIfNull(png);
+        AtomicFile.Write(path, stream => stream.Write(png.AsSpan()));
     }
 
     /// <summary>Renders the plot and writes it atomically (temporary file, then rename) to <paramref name="path"/>.</summary>
@@ -72,8 +92,11 @@ public static class ChartImage
     public static ChartFile Save(
         Plot plot, string path, string title, string? sheet = null, int width = ChartStyle.Width, int height = ChartStyle.Height, bool onOverview = true)
     {
-        byte[] png = RenderPng(plot, width, height);
-        AtomicFile.WriteAllBytes(path, png);
+        using (var png = RenderPngData(plot, width, height))
+        {
+            WritePng(path, png);
+        }
+
         return new ChartFile(System.IO.Path.GetFullPath(path), title, width, height, sheet, onOverview);
     }
 

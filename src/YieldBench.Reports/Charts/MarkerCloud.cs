@@ -16,7 +16,11 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
     private readonly double[] xs;
     private readonly double[] ys;
 
-    /// <summary>A cloud of markers at (<paramref name="x"/>[i], <paramref name="y"/>[i]); non-finite points are skipped.</summary>
+    /// <summary>
+    /// A cloud of markers at (<paramref name="x"/>[i], <paramref name="y"/>[i]); non-finite points are skipped. Arrays
+    /// are kept as given, not copied (a million-point cloud would otherwise hold its points twice): do not change them
+    /// afterwards.
+    /// </summary>
     /// <param name="x">Horizontal coordinates.</param>
     /// <param name="y">Vertical coordinates (same length).</param>
     /// <param name="shape"><see cref="MarkerShape.FilledCircle"/>, <see cref="MarkerShape.OpenCircle"/> or <see cref="MarkerShape.FilledSquare"/>.</param>
@@ -37,8 +41,8 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
             throw new ArgumentException($"Marker shape {shape} is not drawn by a marker cloud.", nameof(shape));
         }
 
-        xs = [.. x];
-        ys = [.. y];
+        xs = x as double[] ?? [.. x];
+        ys = y as double[] ?? [.. y];
         Shape = shape;
         Size = size;
         Color = color;
@@ -124,7 +128,14 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
 
         int grid = CellPixels;
         var stamped = new System.Collections.BitArray(width * height);
-        var transforms = new List<SKRotationScaleMatrix>();
+
+        // Stamps go out in batches of a fixed size, so the batch arrays stay small (off the large-object heap).
+        const int Batch = 4096;
+        var transforms = new SKRotationScaleMatrix[Batch];
+        var sources = new SKRect[Batch];
+        Array.Fill(sources, new SKRect(0, 0, side, side));
+        int pending = 0;
+        using var paint = new SKPaint();
         for (int i = 0; i < xs.Length; i++)
         {
             if (!double.IsFinite(xs[i]) || !double.IsFinite(ys[i]))
@@ -151,19 +162,19 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
             }
 
             stamped[cell] = true;
-            transforms.Add(SKRotationScaleMatrix.CreateTranslation(ix + left - half, iy + top - half));
+            transforms[pending++] = SKRotationScaleMatrix.CreateTranslation(ix + left - half, iy + top - half);
+            StampedLastRender++;
+            if (pending == Batch)
+            {
+                rp.Canvas.DrawAtlas(sprite, sources, transforms, paint);
+                pending = 0;
+            }
         }
 
-        StampedLastRender = transforms.Count;
-        if (transforms.Count == 0)
+        if (pending > 0)
         {
-            return;
+            rp.Canvas.DrawAtlas(sprite, sources[..pending], transforms[..pending], paint);
         }
-
-        var sources = new SKRect[transforms.Count];
-        Array.Fill(sources, new SKRect(0, 0, side, side));
-        using var paint = new SKPaint();
-        rp.Canvas.DrawAtlas(sprite, sources, [.. transforms], paint);
     }
 
     private SKImage Sprite(int side, int half)

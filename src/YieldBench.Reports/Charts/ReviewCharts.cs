@@ -95,9 +95,10 @@ public static class ReviewCharts
         }
 
         var fitted = StrainLinesForChart(review);
+        var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
         {
-            var members = review.Lots.Where(l => l.Lot.Strain == strains[i]).ToArray();
+            var members = byStrain[strains[i]].ToArray();
             var color = ChartPalette.ForIndex(i);
             var points = ChartStyle.AddMarkers(
                 plot,
@@ -129,9 +130,10 @@ public static class ReviewCharts
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         // Keyed by reference: a lot's record equality hashes every field, which at 100,000 lots cost most of this chart.
         var pointXs = new Dictionary<LotConversion, double>(ReferenceEqualityComparer.Instance);
+        var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
         {
-            var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();
+            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
             ticks.AddMajor(i, $"{strains[i]}\n{members.Length} lots");
             if (members.Length == 0)
             {
@@ -183,11 +185,12 @@ public static class ReviewCharts
         var plot = ChartStyle.NewPlot("Conversion factor by season, per strain", "Season", "Alcohol per °Brix (% v/v per °Brix)");
         var strains = StrainOrder(review);
         var seasons = review.Lots.Select(l => l.Lot.Season).Distinct().Order().ToArray();
+        var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
         {
             var color = ChartPalette.ForIndex(i);
             double offset = (i - ((strains.Count - 1) / 2.0)) * 0.08;
-            var members = review.Lots.Where(l => l.Lot.Strain == strains[i] && double.IsFinite(l.AbvPerBrix)).ToArray();
+            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
             ChartStyle.AddMarkers(
                 plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
             var medians = seasons
@@ -290,6 +293,9 @@ public static class ReviewCharts
         plot.Axes.SetLimitsY(0, hist.Counts.Max() * 1.15);
         return plot;
     }
+
+    /// <summary>The review's lots by strain (ordinal), each strain's lots in review order; one pass instead of one per strain.</summary>
+    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => review.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
 
     private static SugarLines? StrainLinesForChart(ReviewResult review)
     {

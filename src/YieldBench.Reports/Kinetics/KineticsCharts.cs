@@ -4,7 +4,6 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Statistics;
 using YieldBench.Reports.Charts;
-using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports.Kinetics;
 
@@ -78,7 +77,11 @@ public static class KineticsCharts
             string title = OverviewTitle(page, pages, shown.Length, ordered.Length);
             jobs.Add(() =>
             {
-                AtomicFile.WriteAllBytes(path, Overview(chunk, title));
+                using (var png = OverviewPng(chunk, title))
+                {
+                    ChartImage.WritePng(path, png);
+                }
+
                 return new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
             });
         }
@@ -546,36 +549,30 @@ public static class KineticsCharts
         var plot = ChartStyle.NewPlot("Fermentation rate against remaining sugar", "Sugar remaining (°Brix; the ferment runs left to right)", "Rate (°Brix/day)");
         for (int si = 0; si < strains.Count; si++)
         {
-            var xs = new List<double>();
-            var ys = new List<double>();
-            foreach (var k in lots.Where(l => l.Lot.Strain == strains[si]))
+            // Counted first, then filled: at 100,000 lots a strain has hundreds of thousands of rates, and growing lists
+            // would copy them over and over on the large-object heap.
+            var mine = lots.Where(l => string.Equals(l.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();
+            int count = 0;
+            foreach (var k in mine)
             {
-                if (k.Dense)
-                {
-                    // Dense probe logs: the smoothed rate, thinned to one point per hour or so to keep the chart legible.
-                    int step = Math.Max(1, (int)Math.Round(1.0 / Math.Max(k.MedianSpacingHours ?? 1.0, 1e-3)));
-                    for (int i = 0; i < k.SmoothedRates.Count; i += step)
-                    {
-                        if (k.SmoothedRates[i].BrixPerDay is { } r)
-                        {
-                            xs.Add(k.SmoothedRates[i].Brix);
-                            ys.Add(r);
-                        }
-                    }
-                }
-                else
-                {
-                    foreach (var r in k.Rates)
-                    {
-                        xs.Add(0.5 * (r.BrixStart + r.BrixEnd));
-                        ys.Add(r.BrixPerDay);
-                    }
-                }
+                ForEachRate(k, (_, _) => count++);
             }
 
-            if (xs.Count == 0)
+            if (count == 0)
             {
                 continue;
+            }
+
+            var xs = new double[count];
+            var ys = new double[count];
+            int n = 0;
+            foreach (var k in mine)
+            {
+                ForEachRate(k, (brix, rate) =>
+                {
+                    xs[n] = brix;
+                    ys[n++] = rate;
+                });
             }
 
             var s = ChartStyle.AddMarkers(plot, xs, ys, MarkerShape.FilledCircle, 8, ChartPalette.ForIndex(si).WithAlpha(0.8));
@@ -587,6 +584,32 @@ public static class KineticsCharts
         plot.Axes.SetLimitsX(lim.Right, lim.Left);
         ChartStyle.ShowLegend(plot, Alignment.UpperLeft);
         return plot;
+    }
+
+    /// <summary>
+    /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
+    /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
+    /// </summary>
+    private static void ForEachRate(LotKinetics k, Action<double, double> point)
+    {
+        if (k.Dense)
+        {
+            int step = Math.Max(1, (int)Math.Round(1.0 / Math.Max(k.MedianSpacingHours ?? 1.0, 1e-3)));
+            for (int i = 0; i < k.SmoothedRates.Count; i += step)
+            {
+                if (k.SmoothedRates[i].BrixPerDay is { } r)
+                {
+                    point(k.SmoothedRates[i].Brix, r);
+                }
+            }
+        }
+        else
+        {
+            foreach (var r in k.Rates)
+            {
+                point(0.5 * (r.BrixStart + r.BrixEnd), r.BrixPerDay);
+            }
+        }
     }
 
     /// <summary>Sugar axis of every overview panel, °Brix (fixed so panels compare at a glance).</summary>
@@ -601,6 +624,13 @@ public static class KineticsCharts
     /// panels a full plotting-library layout per panel (automatic ticks, measured labels) cost most of the page.
     /// </summary>
     public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title)
+    {
+        using var png = OverviewPng(lots, title);
+        return png.ToArray();
+    }
+
+    /// <summary>As <see cref="Overview"/>, the PNG left in SkiaSharp's native memory (dispose it).</summary>
+    public static SKData OverviewPng(IReadOnlyList<LotKinetics> lots, string title)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ReportFonts.EnsureRegistered();
@@ -634,7 +664,7 @@ public static class KineticsCharts
             canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
         }
 
-        return ChartImage.EncodePng(surface);
+        return ChartImage.EncodePngData(surface);
     }
 
     /// <summary>

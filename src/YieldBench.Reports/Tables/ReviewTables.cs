@@ -73,8 +73,8 @@ public static class ReviewTables
         {
             var lot = c.Lot;
 
-            // The key is built once per lot (Lot.Key formats it on every call) and every lookup below shares it.
-            string key = lot.Key;
+            // Lot.Key formats the key on every call; the index holds each reviewed lot's key, built once.
+            string key = index.KeyOf(c);
             var flags = index.Codes(key);
             table.Add(
             [
@@ -138,7 +138,8 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        return FlagIndex.Of(review).Codes(lot.Lot.Key);
+        var index = FlagIndex.Of(review);
+        return index.Codes(index.KeyOf(lot));
     }
 
     /// <summary>
@@ -155,7 +156,8 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        return FlagIndex.Of(review).StrainFlags(lot.Lot.Key).Count > 0;
+        var index = FlagIndex.Of(review);
+        return index.StrainFlags(index.KeyOf(lot)).Count > 0;
     }
 
     /// <summary>The most serious follow-up item of a lot (strain review or kinetics), or null when it has none.</summary>
@@ -163,7 +165,8 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lot);
-        return FlagIndex.Of(review).WorstSeverity(lot.Lot.Key);
+        var index = FlagIndex.Of(review);
+        return index.WorstSeverity(index.KeyOf(lot));
     }
 
     /// <summary>Every follow-up item: the strain review's flags, then the kinetics follow-ups (<see cref="KineticsFollowUps"/>).</summary>
@@ -184,8 +187,16 @@ public static class ReviewTables
         private readonly Dictionary<string, LotKinetics> kinetics = new(StringComparer.Ordinal);
         private readonly Dictionary<string, FlagSeverity> worst = new(StringComparer.Ordinal);
 
+        // Each reviewed lot's key, by reference: Lot.Key formats a new string per call, and the reports ask per lot.
+        private readonly Dictionary<LotConversion, string> keys = new(ReferenceEqualityComparer.Instance);
+
         private FlagIndex(ReviewResult review)
         {
+            foreach (var lot in review.Lots)
+            {
+                keys.TryAdd(lot, lot.Lot.Key);
+            }
+
             var kineticsItems = review.Kinetics is { } k ? KineticsFollowUps.For(k) : [];
             Items = review.Strains.Flags.Concat(kineticsItems).ToArray();
             foreach (var f in review.Strains.Flags.Where(f => f.LotKey is not null))
@@ -212,6 +223,9 @@ public static class ReviewTables
         public IReadOnlyList<LotFlag> Items { get; }
 
         public static FlagIndex Of(ReviewResult review) => Cache.GetValue(review, r => new FlagIndex(r));
+
+        /// <summary>The lot's "season/lot" key (held for the review's lots, formatted for any other).</summary>
+        public string KeyOf(LotConversion lot) => keys.TryGetValue(lot, out var key) ? key : lot.Lot.Key;
 
         public IReadOnlyList<LotFlag> StrainFlags(string lotKey) => strainFlags.TryGetValue(lotKey, out var list) ? list : [];
 
