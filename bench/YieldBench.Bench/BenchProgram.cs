@@ -260,7 +260,11 @@ internal static class BenchProgram
         var peaks = new List<long>();
         for (int i = 0; i < repeats; i++)
         {
-            var start = new ProcessStartInfo(Environment.ProcessPath ?? "dotnet") { UseShellExecute = false, RedirectStandardOutput = true, RedirectStandardError = true };
+            // The dotnet host runs the command's dll, as `dotnet yieldbench.dll` (this benchmark may itself run from its apphost).
+            string host = Environment.ProcessPath is { } self && Path.GetFileNameWithoutExtension(self) == "dotnet"
+                ? self
+                : Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") ?? "dotnet";
+            var start = new ProcessStartInfo(host) { UseShellExecute = false, RedirectStandardOutput = true, RedirectStandardError = true };
             foreach (var a in new[] { cli, "review", demo, "--out", outDir, "--quiet" })
             {
                 start.ArgumentList.Add(a);
