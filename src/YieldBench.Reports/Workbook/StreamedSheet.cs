@@ -393,14 +393,15 @@ internal static class StreamedSheet
 
         private readonly byte[] rowOpen;
         private readonly byte[] rowClose;
-        private readonly byte[] cellOpen;
         private readonly byte[] cellClose;
         private readonly byte[] valueOpen;
         private readonly byte[] valueClose;
         private readonly byte[] textOpen;
         private readonly byte[] textOpenPreserve;
         private readonly byte[] textClose;
-        private readonly byte[][] letters;
+        private readonly byte[][] cellStarts;
+        private readonly byte[] rowDigits = new byte[16];
+        private int rowDigitCount;
         private byte[] buffer = new byte[FlushBytes + 4096];
         private int length;
 
@@ -413,14 +414,13 @@ internal static class StreamedSheet
             string p = prefix.Length == 0 ? string.Empty : prefix + ":";
             rowOpen = Utf8.GetBytes("<" + p + "row r=\"");
             rowClose = Utf8.GetBytes("</" + p + "row>");
-            cellOpen = Utf8.GetBytes("<" + p + "c r=\"");
             cellClose = Utf8.GetBytes("</" + p + "c>");
             valueOpen = Utf8.GetBytes("<" + p + "v>");
             valueClose = Utf8.GetBytes("</" + p + "v>");
             textOpen = Utf8.GetBytes("<" + p + "is><" + p + "t>");
             textOpenPreserve = Utf8.GetBytes("<" + p + "is><" + p + "t xml:space=\"preserve\">");
             textClose = Utf8.GetBytes("</" + p + "t></" + p + "is>");
-            letters = Enumerable.Range(firstColumn, columns).Select(c => Utf8.GetBytes(WorkbookWriter.ColumnLetter(c))).ToArray();
+            cellStarts = Enumerable.Range(firstColumn, columns).Select(c => Utf8.GetBytes("<" + p + "c r=\"" + WorkbookWriter.ColumnLetter(c))).ToArray();
         }
 
         /// <summary>Bytes composed and not yet written out.</summary>
@@ -440,9 +440,11 @@ internal static class StreamedSheet
             }
 
             // Style 0 is every cell's default, so it is left out (ClosedXML writes it; the meaning is the same).
+            bool[] styled = template.Styles.Select(s => s is not null && s != "0").ToArray();
             return new PreparedTemplate(
                 Utf8.GetBytes(attributes.ToString()),
-                template.Styles.Select(s => s is null || s == "0" ? null : Utf8.GetBytes(" s=\"" + s + "\"")).ToArray());
+                template.Styles.Select((s, c) => Utf8.GetBytes(styled[c] ? "\" s=\"" + s + "\"" : "\"")).ToArray(),
+                styled);
         }
 
         /// <summary>Adds one row.</summary>
@@ -451,14 +453,22 @@ internal static class StreamedSheet
         {
             ArgumentNullException.ThrowIfNull(template);
             ArgumentNullException.ThrowIfNull(cells);
+            // The row number, which every cell's reference repeats, is formatted once.
+            Span<char> digits = stackalloc char[16];
+            rowNumber.TryFormat(digits, out rowDigitCount, default, CultureInfo.InvariantCulture);
+            for (int i = 0; i < rowDigitCount; i++)
+            {
+                rowDigits[i] = (byte)digits[i];
+            }
+
             Append(rowOpen);
-            Format(rowNumber);
+            Append(rowDigits.AsSpan(0, rowDigitCount));
             Append((byte)'"');
             Append(template.RowAttributes);
             Append((byte)'>');
             for (int c = 0; c < cells.Length; c++)
             {
-                Cell(c, rowNumber, template, cells[c]);
+                Cell(c, template, cells[c]);
             }
 
             Append(rowClose);
@@ -499,15 +509,15 @@ internal static class StreamedSheet
         }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-        private void Cell(int column, int row, PreparedTemplate template, object? value)
+        private void Cell(int column, PreparedTemplate template, object? value)
         {
             switch (value)
             {
                 case null:
                 case double d when !double.IsFinite(d):
-                    if (template.StyleAttributes[column] is not null)
+                    if (template.Styled[column])
                     {
-                        Start(column, row, template);
+                        Start(column, template);
                         Append("/>"u8);
                     }
 
@@ -517,19 +527,19 @@ internal static class StreamedSheet
                     string safe = SheetLayout.XmlSafe(s);
                     if (safe.Length > 0)
                     {
-                        Text(column, row, template, safe);
+                        Text(column, template, safe);
                     }
                     else
                     {
-                        Cell(column, row, template, null);
+                        Cell(column, template, null);
                     }
 
                     return;
                 case bool b:
-                    Text(column, row, template, b ? "yes" : "no");
+                    Text(column, template, b ? "yes" : "no");
                     return;
                 case double d:
-                    Start(column, row, template);
+                    Start(column, template);
                     Append((byte)'>');
                     Append(valueOpen);
                     Format(d);
@@ -537,7 +547,7 @@ internal static class StreamedSheet
                     Append(cellClose);
                     return;
                 case int i:
-                    Start(column, row, template);
+                    Start(column, template);
                     Append((byte)'>');
                     Append(valueOpen);
                     Format(i);
@@ -545,7 +555,7 @@ internal static class StreamedSheet
                     Append(cellClose);
                     return;
                 case long l:
-                    Start(column, row, template);
+                    Start(column, template);
                     Append((byte)'>');
                     Append(valueOpen);
                     Format(l);
@@ -554,7 +564,7 @@ internal static class StreamedSheet
                     return;
                 case DateTime t:
                     // A date is its serial number; the column's date format (in the template's style) shows it.
-                    Start(column, row, template);
+                    Start(column, template);
                     Append((byte)'>');
                     Append(valueOpen);
                     Format(t.ToOADate());
@@ -567,10 +577,10 @@ internal static class StreamedSheet
         }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-        private void Text(int column, int row, PreparedTemplate template, string text)
+        private void Text(int column, PreparedTemplate template, string text)
         {
             // Inline strings are never read as formulas, whatever their first character.
-            Start(column, row, template);
+            Start(column, template);
             Append(" t=\"inlineStr\">"u8);
 
             // Spreadsheet applications trim text whose whitespace is not marked as meaningful.
@@ -604,16 +614,11 @@ internal static class StreamedSheet
         }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-        private void Start(int column, int row, PreparedTemplate template)
+        private void Start(int column, PreparedTemplate template)
         {
-            Append(cellOpen);
-            Append(letters[column]);
-            Format(row);
-            Append((byte)'"');
-            if (template.StyleAttributes[column] is { } style)
-            {
-                Append(style);
-            }
+            Append(cellStarts[column]);
+            Append(rowDigits.AsSpan(0, rowDigitCount));
+            Append(template.AfterReference[column]);
         }
 
         [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -684,6 +689,7 @@ internal static class StreamedSheet
 
     /// <summary>A template row ready to stamp onto rows: its attributes and each column's style, as UTF-8 markup.</summary>
     /// <param name="RowAttributes">The row attributes after the number, each with its leading space.</param>
-    /// <param name="StyleAttributes">Each column's <c> s="…"</c> attribute, or null for the default style (a cell without a value is then not written).</param>
-    internal sealed record PreparedTemplate(byte[] RowAttributes, byte[]?[] StyleAttributes);
+    /// <param name="AfterReference">What follows each column's cell reference: its closing quote and <c> s="…"</c> unless the style is the default.</param>
+    /// <param name="Styled">Whether each column's style is other than the default (a cell without a value is written only then).</param>
+    internal sealed record PreparedTemplate(byte[] RowAttributes, byte[][] AfterReference, bool[] Styled);
 }
