@@ -143,8 +143,9 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
                 continue;
             }
 
+            // Compared as floats first: a point far outside the axes can lie beyond the range of an int.
             float px = Axes.GetPixelX(xs[i]), py = Axes.GetPixelY(ys[i]);
-            if (!float.IsFinite(px) || !float.IsFinite(py))
+            if (!(px >= left - grid && px <= left + width + grid && py >= top - grid && py <= top + height + grid))
             {
                 continue;
             }

@@ -79,6 +79,21 @@ public sealed class BatchedPlottablesTests
     }
 
     [Fact]
+    public void Points_far_outside_the_axes_are_skipped_without_overflow()
+    {
+        // Given fixed axes 0–10 and points at 1e15 and −1e15 (pixels far beyond an int) besides one inside
+        var plot = Frame();
+        var cloud = ChartStyle.AddMarkers(plot, [1e15, -1e15, 5], [5, 5, 5], MarkerShape.FilledCircle, 6, ChartPalette.ForIndex(0));
+        plot.Axes.SetLimits(0, 10, 0, 10);
+
+        // When rendered (the build checks arithmetic overflow)
+        ChartImage.RenderPng(plot);
+
+        // Then only the point inside is stamped
+        Assert.Equal(1, cloud.StampedLastRender);
+    }
+
+    [Fact]
     public void A_marker_cloud_s_limits_cover_its_finite_points_only()
     {
         var cloud = new MarkerCloud([1, 4, double.NaN, 2], [7, -3, 100, double.PositiveInfinity], MarkerShape.OpenCircle, 6, Colors.Black);
