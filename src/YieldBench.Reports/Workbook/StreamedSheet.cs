@@ -426,9 +426,6 @@ internal static class StreamedSheet
         /// <summary>Bytes composed and not yet written out.</summary>
         public int Length => length;
 
-        /// <summary>The composed markup (for tests).</summary>
-        public override string ToString() => Utf8.GetString(buffer, 0, length);
-
         /// <summary>A template's row attributes and cell styles as the markup they become.</summary>
         public PreparedTemplate Prepare(Template template)
         {
