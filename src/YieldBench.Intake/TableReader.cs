@@ -488,7 +488,7 @@ internal static partial class TableReader
                 all = run.SelectionSpace.AsSpan(0, values.Count);
             }
 
-            Median = Select(all, values.Count / 2);
+            Median = YieldBench.Core.Statistics.Descriptive.SelectInPlace(all, values.Count / 2);
 
             (Low, High) = (low, high);
         }
@@ -538,51 +538,6 @@ internal static partial class TableReader
             _values.Sort();
             _sorted = true;
         }
-    }
-
-    /// <summary>The k-th smallest value (0-based) of finite values, reordering the array (Hoare's selection).</summary>
-    internal static double Select(Span<double> a, int k)
-    {
-        int left = 0, right = a.Length - 1;
-        while (left < right)
-        {
-            double pivot = a[left + ((right - left) / 2)];
-            int i = left, j = right;
-            while (i <= j)
-            {
-                while (a[i] < pivot)
-                {
-                    i++;
-                }
-
-                while (a[j] > pivot)
-                {
-                    j--;
-                }
-
-                if (i <= j)
-                {
-                    (a[i], a[j]) = (a[j], a[i]);
-                    i++;
-                    j--;
-                }
-            }
-
-            if (k <= j)
-            {
-                right = j;
-            }
-            else if (k >= i)
-            {
-                left = i;
-            }
-            else
-            {
-                return a[k];
-            }
-        }
-
-        return a[k];
     }
 
     private static string SugarHeaderExample(BoundColumn c) => c.Field.Name switch

@@ -101,7 +101,7 @@ public class FastPathTests
 
             var sorted = values.Order().ToArray();
             int k = random.Next(values.Length);
-            Assert.Equal(sorted[k], TableReader.Select([.. values], k));
+            Assert.Equal(sorted[k], YieldBench.Core.Statistics.Descriptive.SelectInPlace([.. values], k));
         }
     }
 

@@ -149,9 +149,14 @@ public static class Descriptive
         return 0.5 * (lower + upper);
     }
 
-    /// <summary>Places the k-th smallest (0-based) value at index k, smaller ones before it, larger after; returns it.</summary>
-    internal static double SelectInPlace(double[] a, int k)
+    /// <summary>
+    /// Places the k-th smallest (0-based) value at index k, smaller ones before it, larger after; returns it. The values
+    /// must not hold NaN.
+    /// </summary>
+    public static double SelectInPlace(Span<double> a, int k)
     {
+        ArgumentOutOfRangeException.ThrowIfNegative(k);
+        ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(k, a.Length);
         int lo = 0, hi = a.Length - 1;
         while (hi > lo)
         {
