@@ -80,43 +80,31 @@ public static class Backtest
     /// Returned in the order of <paramref name="lots"/>. Lots whose held-out training set is empty are skipped.
     /// </summary>
     public static IReadOnlyList<HeldOutPrediction> Run(
-        ICandidateTrainer candidate, IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)
+        ICandidateTrainer candidate, IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed) =>
+        Run(candidate, BacktestFolds.Of(lots, scheme, seed), seed);
+
+    /// <summary>
+    /// As <see cref="Run(ICandidateTrainer, IReadOnlyList{LotConversion}, BacktestScheme, int)"/> on folds made once
+    /// and shared by every candidate (each fold's training lots and test inputs are then built only once).
+    /// </summary>
+    public static IReadOnlyList<HeldOutPrediction> Run(ICandidateTrainer candidate, BacktestFolds folds, int seed)
     {
         ArgumentNullException.ThrowIfNull(candidate);
-        ArgumentNullException.ThrowIfNull(lots);
-        var fold = FoldsOf(lots, scheme, seed);
+        ArgumentNullException.ThrowIfNull(folds);
+        var lots = folds.Lots;
         var predicted = new double[lots.Count];
         Array.Fill(predicted, double.NaN);
-        var foldSize = new Dictionary<int, int>();
-        foreach (int f in fold)
+        for (int f = 0; f < folds.Count; f++)
         {
-            foldSize[f] = foldSize.GetValueOrDefault(f) + 1;
-        }
-
-        foreach (int f in foldSize.Keys.Order())
-        {
-            var train = new List<LotConversion>(lots.Count - foldSize[f]);
-            var test = new List<int>(foldSize[f]);
-            for (int i = 0; i < lots.Count; i++)
-            {
-                if (fold[i] == f)
-                {
-                    test.Add(i);
-                }
-                else
-                {
-                    train.Add(lots[i]);
-                }
-            }
-
+            var (train, test, inputs) = folds.Fold(f);
             if (train.Count == 0)
             {
                 continue;
             }
 
             var model = candidate.Train(train, seed);
-            var batch = model.PredictAbv(test.Select(i => PredictionInput.From(lots[i])).ToArray());
-            for (int j = 0; j < test.Count; j++)
+            var batch = model.PredictAbv(inputs);
+            for (int j = 0; j < test.Length; j++)
             {
                 predicted[test[j]] = batch[j];
             }
@@ -128,11 +116,98 @@ public static class Backtest
             if (double.IsFinite(predicted[i]))
             {
                 var l = lots[i].Lot;
-                result.Add(new HeldOutPrediction(l.Key, l.Season, l.Strain, l.FinalAlcohol.PercentVolume, predicted[i]));
+                result.Add(new HeldOutPrediction(folds.Keys[i], l.Season, l.Strain, l.FinalAlcohol.PercentVolume, predicted[i]));
             }
         }
 
         return result;
+    }
+}
+
+/// <summary>
+/// The folds of one backtest scheme over a set of lots, in ascending fold order: for each fold the lots it trains on
+/// (in input order), the indices of the lots it predicts and their prediction inputs. Folds of the grouped schemes
+/// (by season, ten folds) are built once on first use and kept, so candidates sharing them do not rebuild them;
+/// leave-one-lot-out folds are built on demand (keeping n copies of n − 1 lots would cost n² memory). Thread-safe.
+/// </summary>
+public sealed class BacktestFolds
+{
+    private readonly int[] foldOf;
+    private readonly int[] foldIds;
+    private readonly Lazy<(LotConversion[] Train, int[] Test, PredictionInput[] Inputs)>[]? kept;
+    private readonly Lazy<PredictionInput[]> inputs;
+    private readonly Lazy<string[]> keys;
+
+    private BacktestFolds(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int[] foldOf)
+    {
+        Lots = lots;
+        Scheme = scheme;
+        this.foldOf = foldOf;
+        foldIds = scheme == BacktestScheme.LeaveOneLotOut ? foldOf : foldOf.Distinct().Order().ToArray();
+        inputs = new Lazy<PredictionInput[]>(() => lots.Select(PredictionInput.From).ToArray());
+        keys = new Lazy<string[]>(() => lots.Select(l => l.Lot.Key).ToArray());
+        if (scheme != BacktestScheme.LeaveOneLotOut)
+        {
+            kept = foldIds.Select(id => new Lazy<(LotConversion[], int[], PredictionInput[])>(() => Build(id))).ToArray();
+        }
+    }
+
+    /// <summary>The lots, in input order.</summary>
+    public IReadOnlyList<LotConversion> Lots { get; }
+
+    /// <summary>The scheme.</summary>
+    public BacktestScheme Scheme { get; }
+
+    /// <summary>Number of folds.</summary>
+    public int Count => foldIds.Length;
+
+    /// <summary>Each lot's "season/lot" key, in input order.</summary>
+    internal IReadOnlyList<string> Keys => keys.Value;
+
+    /// <summary>Deals the lots into the folds of <paramref name="scheme"/> (ten folds by a shuffle seeded with <paramref name="seed"/>).</summary>
+    public static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        return new BacktestFolds(lots, scheme, FoldsOf(lots, scheme, seed));
+    }
+
+    /// <summary>The <paramref name="index"/>-th fold (ascending fold id): training lots, held-out indices and their inputs.</summary>
+    public (IReadOnlyList<LotConversion> Train, int[] Test, IReadOnlyList<PredictionInput> Inputs) Fold(int index)
+    {
+        var fold = kept is null ? Build(foldIds[index]) : kept[index].Value;
+        return (fold.Train, fold.Test, fold.Inputs);
+    }
+
+    private (LotConversion[] Train, int[] Test, PredictionInput[] Inputs) Build(int id)
+    {
+        int held = 0;
+        foreach (int f in foldOf)
+        {
+            if (f == id)
+            {
+                held++;
+            }
+        }
+
+        var train = new LotConversion[Lots.Count - held];
+        var test = new int[held];
+        var testInputs = new PredictionInput[held];
+        var all = inputs.Value;
+        int t = 0, h = 0;
+        for (int i = 0; i < foldOf.Length; i++)
+        {
+            if (foldOf[i] == id)
+            {
+                testInputs[h] = all[i];
+                test[h++] = i;
+            }
+            else
+            {
+                train[t++] = Lots[i];
+            }
+        }
+
+        return (train, test, testInputs);
     }
 
     private static int[] FoldsOf(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)

@@ -63,11 +63,14 @@ public static class HouseFactorAnalysis
             // Costly candidates start first and each thread takes the next candidate when it is free, so the slowest
             // (the multi-variable model) runs beside all the quick ones instead of after them.
             var evaluated = new CandidateResult[candidates.Length];
+            // Every scheme deals the lots the same way for every candidate, so each scheme's folds are made once.
+            var folds = new[] { BacktestScheme.LeaveOneSeasonOut, BacktestScheme.LeaveOneLotOut, BacktestScheme.TenFoldByLot }
+                .ToDictionary(s => s, s => new Lazy<BacktestFolds>(() => BacktestFolds.Of(usable, s, seed)));
             var order = Enumerable.Range(0, candidates.Length).OrderByDescending(i => candidates[i].IsCostly).ThenByDescending(i => candidates[i].Complexity).ToArray();
             Parallel.ForEach(
                 System.Collections.Concurrent.Partitioner.Create(order, System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering),
                 new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount },
-                i => evaluated[i] = Evaluate(candidates[i], usable, seasons.Length, settings, seed));
+                i => evaluated[i] = Evaluate(candidates[i], usable, s => folds[s].Value, seasons.Length, settings, seed));
             results.AddRange(evaluated);
         }
 
@@ -157,12 +160,13 @@ public static class HouseFactorAnalysis
         };
     }
 
-    private static CandidateResult Evaluate(ICandidateTrainer c, IReadOnlyList<LotConversion> lots, int seasonCount, HouseFactorSettings settings, int seed)
+    private static CandidateResult Evaluate(
+        ICandidateTrainer c, IReadOnlyList<LotConversion> lots, Func<BacktestScheme, BacktestFolds> folds, int seasonCount, HouseFactorSettings settings, int seed)
     {
         int limit = c.IsCostly ? settings.MaximumLotsForCostlyLeaveOneLotOut : settings.MaximumLotsForLeaveOneLotOut;
         var lotScheme = lots.Count > limit ? BacktestScheme.TenFoldByLot : BacktestScheme.LeaveOneLotOut;
-        var byLot = Backtest.Run(c, lots, lotScheme, seed);
-        IReadOnlyList<HeldOutPrediction>? bySeason = seasonCount >= 2 ? Backtest.Run(c, lots, BacktestScheme.LeaveOneSeasonOut, seed) : null;
+        var byLot = Backtest.Run(c, folds(lotScheme), seed);
+        IReadOnlyList<HeldOutPrediction>? bySeason = seasonCount >= 2 ? Backtest.Run(c, folds(BacktestScheme.LeaveOneSeasonOut), seed) : null;
         var fit = c.Train(lots, seed);
         return new CandidateResult(
             c.Id,
@@ -195,7 +199,7 @@ public static class HouseFactorAnalysis
 
         var chosen = pool[ch.Chosen];
         var best = pool[ch.Best];
-        var errors = preds[ch.Chosen].Select(p => p.Error).Order().ToArray();
+        var errors = SortedErrors(preds[ch.Chosen]);
         var m = metrics[ch.Chosen];
         var band80 = (HeldOutErrors.LowerOfSorted(errors, 0.10), HeldOutErrors.UpperOfSorted(errors, 0.90));
         var band95 = (HeldOutErrors.LowerOfSorted(errors, 0.025), HeldOutErrors.UpperOfSorted(errors, 0.975));
@@ -230,7 +234,7 @@ public static class HouseFactorAnalysis
         }
 
         string schemeText = SchemeText(scheme);
-        var pooledErrors = basis.HeldOut.Select(p => p.Error).Order().ToArray();
+        var pooledErrors = SortedErrors(basis.HeldOut);
         var pooledFit = basis.FullFit!;
         var pooled = Line("*", basis, pooledFit.Pooled, pooledErrors, $"all {pooledErrors.Length} lots held out by {schemeText}");
         var lines = new List<PlanningLine>();
@@ -238,8 +242,8 @@ public static class HouseFactorAnalysis
         {
             var rec = byStrain.FirstOrDefault(r => r.Strain == strain);
             var source = rec is null ? basis : results.First(r => r.Id == rec.CandidateId);
-            var own = source.HeldOut.Where(p => p.Strain == strain).Select(p => p.Error).Order().ToArray();
-            var all = source.HeldOut.Select(p => p.Error).Order().ToArray();
+            var own = SortedErrors(source.HeldOut.Where(p => p.Strain == strain));
+            var all = SortedErrors(source.HeldOut);
             bool useOwn = own.Length >= settings.MinimumErrorsForStrainIntervals;
             lines.Add(Line(
                 strain,
@@ -280,6 +284,13 @@ public static class HouseFactorAnalysis
         BacktestScheme.LeaveOneLotOut => "leave-one-lot-out",
         _ => "ten-fold by lot",
     };
+
+    private static double[] SortedErrors(IEnumerable<HeldOutPrediction> predictions)
+    {
+        var errors = predictions.Select(p => p.Error).ToArray();
+        Array.Sort(errors);
+        return errors;
+    }
 
     private static string F(double v, string format = "0.000") => v.ToString(format, CultureInfo.InvariantCulture);
 }

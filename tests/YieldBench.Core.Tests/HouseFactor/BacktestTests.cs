@@ -55,6 +55,63 @@ public class BacktestTests
         Assert.Equal([12.0, 15.0, 10.0, 12.5], preds.Select(p => Math.Round(p.PredictedAbv, 9)).ToArray());
     }
 
+    [Theory]
+    [InlineData(BacktestScheme.TenFoldByLot, 10)]
+    [InlineData(BacktestScheme.LeaveOneSeasonOut, 3)]
+    [InlineData(BacktestScheme.LeaveOneLotOut, 60)]
+    public void Every_lot_is_held_out_exactly_once_and_trained_on_in_every_other_fold(BacktestScheme scheme, int expectedFolds)
+    {
+        // Given three seeded seasons of 20 lots
+        var lots = SyntheticLots.Seasons(5, SameStrains, seasons: 3, lotsPerStrainPerSeason: 5, noiseSd: 0.15);
+
+        // When the folds of the scheme are dealt
+        var folds = BacktestFolds.Of(lots, scheme, 3);
+
+        // Then each lot is predicted by one fold only, never trained on there, and trained on (in input order) everywhere else
+        Assert.Equal(expectedFolds, folds.Count);
+        var heldBy = new int[lots.Count];
+        for (int f = 0; f < folds.Count; f++)
+        {
+            var (train, test, inputs) = folds.Fold(f);
+            Assert.Equal(test.Length, inputs.Count);
+            Assert.Equal(lots.Count, train.Count + test.Length);
+            var expectedTrain = lots.Where((_, i) => !test.Contains(i)).ToArray();
+            Assert.Equal(expectedTrain, train);
+            foreach (int i in test)
+            {
+                heldBy[i]++;
+                Assert.Equal(lots[i].EffectiveStartingBrix, inputs[Array.IndexOf(test, i)].StartingBrix);
+            }
+
+            if (scheme == BacktestScheme.LeaveOneSeasonOut)
+            {
+                Assert.Single(test.Select(i => lots[i].Lot.Season).Distinct());
+            }
+        }
+
+        Assert.All(heldBy, n => Assert.Equal(1, n));
+    }
+
+    [Fact]
+    public void Shared_folds_give_the_same_predictions_as_folds_dealt_for_one_candidate()
+    {
+        // Given seeded seasons and the ten-fold scheme dealt once
+        var lots = SyntheticLots.Seasons(9, DifferentStrains, seasons: 2, lotsPerStrainPerSeason: 10, noiseSd: 0.15);
+        var folds = BacktestFolds.Of(lots, BacktestScheme.TenFoldByLot, 4);
+
+        // When two candidates use the shared folds, and each is also backtested on its own
+        var shared = new ICandidateTrainer[] { new PerStrainMedianCandidate(), new PooledMedianCandidate() }.Select(c => Backtest.Run(c, folds, 4)).ToArray();
+        var alone = new ICandidateTrainer[] { new PerStrainMedianCandidate(), new PooledMedianCandidate() }.Select(c => Backtest.Run(c, lots, BacktestScheme.TenFoldByLot, 4)).ToArray();
+
+        // Then the predictions agree lot by lot, and the two candidates really differ
+        for (int c = 0; c < 2; c++)
+        {
+            Assert.Equal(alone[c].Select(p => (p.LotKey, p.PredictedAbv)), shared[c].Select(p => (p.LotKey, p.PredictedAbv)));
+        }
+
+        Assert.NotEqual(shared[0].Select(p => p.PredictedAbv), shared[1].Select(p => p.PredictedAbv));
+    }
+
     [Fact]
     public void The_backtest_ranks_the_true_per_strain_model_first_on_seeded_seasons()
     {
