@@ -94,12 +94,12 @@ public static class Backtest
         var lots = folds.Lots;
         var predicted = new double[lots.Count];
         Array.Fill(predicted, double.NaN);
-        for (int f = 0; f < folds.Count; f++)
+        void RunFold(int f)
         {
             var (train, test, inputs) = folds.Fold(f);
             if (train.Count == 0)
             {
-                continue;
+                return;
             }
 
             var model = candidate.Train(train, seed);
@@ -107,6 +107,21 @@ public static class Backtest
             for (int j = 0; j < test.Length; j++)
             {
                 predicted[test[j]] = batch[j];
+            }
+        }
+
+        if (candidate.IsCostly)
+        {
+            // A costly candidate's folds are trained side by side: each fold is seeded on its own and writes only its
+            // own lots, so the results are those of one fold after another, and a core left idle by the quick
+            // candidates is used.
+            Parallel.For(0, folds.Count, RunFold);
+        }
+        else
+        {
+            for (int f = 0; f < folds.Count; f++)
+            {
+                RunFold(f);
             }
         }
 
