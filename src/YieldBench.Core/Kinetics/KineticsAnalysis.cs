@@ -492,11 +492,12 @@ public static class KineticsAnalysis
         }
 
         HeatPoint? potentialPeak = heat.Count == 0 ? null : heat.Aggregate((a, b) => b.PotentialTemperatureC > a.PotentialTemperatureC ? b : a);
-        double? removed = potentialPeak is not null && peak is not null ? potentialPeak.PotentialTemperatureC - peak.Value : null;
-        var hot = heat.FirstOrDefault(h => h.PotentialTemperatureC > th.DangerC);
+        double? removed = potentialPeak is { } pp && peak is not null ? pp.PotentialTemperatureC - peak.Value : null;
+        int hotIndex = heat.FindIndex(h => h.PotentialTemperatureC > th.DangerC);
         int hotReadings = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
-        if (hot is not null)
+        if (hotIndex >= 0)
         {
+            var hot = heat[hotIndex];
             // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
             // reminder of the cooling the lot depended on, not a sign that something went wrong.
             int count = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
@@ -666,16 +667,18 @@ public static class KineticsAnalysis
             return temps[i].Celsius;
         }
 
-        TemperaturePoint? before = i == -1 ? temps[^1] : i > 0 ? temps[i - 1] : null;
-        TemperaturePoint? after = i >= 0 ? temps[i] : null;
-        bool nearBefore = before is not null && (t - before.Time).TotalHours <= maxGapHours;
-        bool nearAfter = after is not null && (after.Time - t).TotalHours <= maxGapHours;
+        bool hasBefore = i == -1 || i > 0;
+        bool hasAfter = i >= 0;
+        var before = i == -1 ? temps[^1] : i > 0 ? temps[i - 1] : default;
+        var after = i >= 0 ? temps[i] : default;
+        bool nearBefore = hasBefore && (t - before.Time).TotalHours <= maxGapHours;
+        bool nearAfter = hasAfter && (after.Time - t).TotalHours <= maxGapHours;
         if (nearBefore && nearAfter)
         {
-            double f = (t - before!.Time).TotalHours / (after!.Time - before.Time).TotalHours;
+            double f = (t - before.Time).TotalHours / (after.Time - before.Time).TotalHours;
             return before.Celsius + (f * (after.Celsius - before.Celsius));
         }
 
-        return nearBefore ? before!.Celsius : nearAfter ? after!.Celsius : null;
+        return nearBefore ? before.Celsius : nearAfter ? after.Celsius : null;
     }
 }

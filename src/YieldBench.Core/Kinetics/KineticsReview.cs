@@ -57,10 +57,10 @@ public enum TimeOrigin
 /// <param name="Brix">Sugar, °Brix.</param>
 /// <param name="TemperatureC">Temperature at the reading (logged with it, or interpolated), °C; null when none is near.</param>
 /// <param name="Source">The log row.</param>
-public sealed record SugarPoint(DateTime Time, double Hours, double Brix, double? TemperatureC, SourceRef? Source);
+public readonly record struct SugarPoint(DateTime Time, double Hours, double Brix, double? TemperatureC, SourceRef? Source);
 
 /// <summary>A temperature reading after sorting and merging duplicates.</summary>
-public sealed record TemperaturePoint(DateTime Time, double Hours, double Celsius, SourceRef? Source);
+public readonly record struct TemperaturePoint(DateTime Time, double Hours, double Celsius, SourceRef? Source);
 
 /// <summary>The rate between two consecutive sugar readings, on the real time between them.</summary>
 /// <param name="Start">Earlier reading's time.</param>
@@ -68,7 +68,7 @@ public sealed record TemperaturePoint(DateTime Time, double Hours, double Celsiu
 /// <param name="ElapsedHours">Real elapsed time, h (&gt; 0).</param>
 /// <param name="BrixStart">°Brix at the start.</param>
 /// <param name="BrixEnd">°Brix at the end.</param>
-public sealed record RateInterval(DateTime Start, DateTime End, double ElapsedHours, double BrixStart, double BrixEnd)
+public readonly record struct RateInterval(DateTime Start, DateTime End, double ElapsedHours, double BrixStart, double BrixEnd)
 {
     /// <summary>Sugar consumption rate, °Brix/h (positive while sugar falls).</summary>
     public double BrixPerHour => (BrixStart - BrixEnd) / ElapsedHours;
@@ -84,7 +84,7 @@ public sealed record RateInterval(DateTime Start, DateTime End, double ElapsedHo
 /// <param name="Time">Reading time.</param>
 /// <param name="Brix">°Brix at the reading.</param>
 /// <param name="BrixPerDay">Smoothed rate, °Brix/day (positive while sugar falls); null when the window held fewer than 3 readings.</param>
-public sealed record SmoothedRate(DateTime Time, double Brix, double? BrixPerDay);
+public readonly record struct SmoothedRate(DateTime Time, double Brix, double? BrixPerDay);
 
 /// <summary>A stretch of the log where the mean rate stayed below a threshold with the sugar above a threshold.</summary>
 /// <param name="Start">Window start.</param>
@@ -100,7 +100,7 @@ public sealed record StallEpisode(DateTime Start, DateTime End, double BrixStart
 /// <param name="TemperatureC">Observed temperature, °C.</param>
 /// <param name="SugarGl">Fermentable sugar remaining by the OIV table, g/L.</param>
 /// <param name="PotentialRiseK">Adiabatic rise if that sugar fermented with no heat removed, K.</param>
-public sealed record HeatPoint(DateTime Time, double Brix, double TemperatureC, double SugarGl, double PotentialRiseK)
+public readonly record struct HeatPoint(DateTime Time, double Brix, double TemperatureC, double SugarGl, double PotentialRiseK)
 {
     /// <summary>Temperature reachable without cooling, °C.</summary>
     public double PotentialTemperatureC => TemperatureC + PotentialRiseK;

@@ -191,12 +191,12 @@ public static class KineticsTables
             for (int i = 0; i < k.Sugar.Count; i++)
             {
                 var p = k.Sugar[i];
-                heat.TryGetValue(p.Time, out var h);
+                bool hasHeat = heat.TryGetValue(p.Time, out var h);
                 t.Add(
                 [
                     k.Lot.Season, k.Lot.LotId, p.Time, p.Hours, p.Brix, p.TemperatureC,
                     i > 0 ? k.Rates[i - 1].BrixPerDay : null, k.SmoothedRates[i].BrixPerDay,
-                    h?.SugarGl, h?.PotentialRiseK, h?.PotentialTemperatureC,
+                    hasHeat ? h.SugarGl : null, hasHeat ? h.PotentialRiseK : null, hasHeat ? h.PotentialTemperatureC : null,
                 ]);
             }
         }

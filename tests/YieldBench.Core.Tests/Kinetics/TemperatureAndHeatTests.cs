@@ -120,7 +120,7 @@ public class TemperatureAndHeatTests
         var lot = Assert.Single(review.Lots);
         double expected = 191.9 / 180.16 * 100.4 / (1.08297 * 0.99820 * 3.9);
         Assert.Equal(expected, lot.Heat[0].PotentialRiseK, 2);
-        Assert.Equal(29.0 + expected, lot.PotentialPeak!.PotentialTemperatureC, 2);
+        Assert.Equal(29.0 + expected, lot.PotentialPeak!.Value.PotentialTemperatureC, 2);
         Assert.Equal(29.0 + expected - 33.0, lot.HeatRemovedK!.Value, 2);
         Assert.Equal(3, lot.ReadingsWithPotentialAboveDanger);
         var f = Assert.Single(review.Findings, x => x.Code == "heat-potential-above-danger");
@@ -139,7 +139,7 @@ public class TemperatureAndHeatTests
 
         // Then no heat flag is raised and the potential stays under 20 °C
         Assert.Equal(0, lot.ReadingsWithPotentialAboveDanger);
-        Assert.InRange(lot.PotentialPeak!.PotentialTemperatureC, 12.0, 20.0);
+        Assert.InRange(lot.PotentialPeak!.Value.PotentialTemperatureC, 12.0, 20.0);
     }
 
     [Fact]
