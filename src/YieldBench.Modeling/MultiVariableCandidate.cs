@@ -70,60 +70,49 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
 
         lots = Sample(lots, seed);
         var inputs = lots.Select(PredictionInput.From).ToArray();
-        var plan = FeaturePlan.For(inputs);
-        var ml = new MLContext(seed);
         // SDCA converges far faster on a centred label: the intercept then starts near its answer.
         double centre = lots.Average(l => l.Lot.FinalAlcohol.PercentVolume);
-        var rows = inputs.Select((x, i) => plan.Row(x, (float)(lots[i].Lot.FinalAlcohol.PercentVolume - centre))).ToArray();
-        var data = ml.Data.LoadFromEnumerable(rows);
+        var raw = FeaturePlan.Fill(inputs);
+        var rows = inputs.Select((x, i) => raw.Fill(x, (float)(lots[i].Lot.FinalAlcohol.PercentVolume - centre))).ToArray();
+        var plan = raw.Scaled(rows);
 
-        var numeric = plan.NumericColumns.ToArray();
-        IEstimator<ITransformer> pipeline = ml.Transforms.Concatenate("Numeric", numeric)
-            .Append(ml.Transforms.NormalizeMeanVariance("Numeric", fixZero: false));
-        var featureParts = new List<string> { "Numeric" };
-        foreach (string cat in plan.CategoricalColumns)
-        {
-            pipeline = pipeline.Append(ml.Transforms.Categorical.OneHotEncoding(cat + "Hot", cat));
-            featureParts.Add(cat + "Hot");
-        }
-
+        // The features (standardised numbers, one-hot categories) are formed here rather than by ML.NET transforms:
+        // a transform evaluates its rows over background threads that hand rows to each other, which on small folds
+        // cost more than the training itself. ML.NET then does what it is here for, the SDCA fit.
+        var ml = new MLContext(seed);
+        var schema = SchemaDefinition.Create(typeof(FeatureRow));
+        schema[nameof(FeatureRow.Features)].ColumnType = new VectorDataViewType(NumberDataViewType.Single, plan.Width);
+        var data = ml.Data.LoadFromEnumerable(rows.Select(r => new FeatureRow { Label = r.Label, Features = plan.Vector(r) }).ToArray(), schema);
         var options = new SdcaRegressionTrainer.Options
         {
-            LabelColumnName = nameof(ModelRow.Label),
-            FeatureColumnName = "Features",
+            LabelColumnName = nameof(FeatureRow.Label),
+            FeatureColumnName = nameof(FeatureRow.Features),
             L2Regularization = L2Penalty,
             L1Regularization = 0f,
             MaximumNumberOfIterations = Iterations,
             NumberOfThreads = 1,
             Shuffle = true,
         };
-        // SDCA passes over the data many times (and once more per convergence check); the cache keeps the
-        // transformed rows in memory so each pass does not rerun the concatenation, scaling and one-hot encoding
-        // (without it those re-runs were nine tenths of the training time).
-        pipeline = pipeline
-            .Append(ml.Transforms.Concatenate("Features", featureParts.ToArray()))
-            .AppendCacheCheckpoint(ml)
-            .Append(ml.Regression.Trainers.Sdca(options));
-        var model = pipeline.Fit(data);
-        return new Predictor(ml, model, plan, centre);
+        var model = ml.Regression.Trainers.Sdca(options).Fit(ml.Data.Cache(data)).Model;
+        return new Predictor(plan, model.Weights.ToArray(), model.Bias, centre);
     }
 
     /// <summary>The lots themselves, or a seeded sample of <see cref="MaximumTrainingLots"/> of them in their input order.</summary>
     internal static IReadOnlyList<LotConversion> Sample(IReadOnlyList<LotConversion> lots, int seed) =>
         TrainingSample.Of(lots, MaximumTrainingLots, seed);
 
-    private sealed class Predictor(MLContext ml, ITransformer model, FeaturePlan plan, double centre) : IAbvPredictor
+    /// <summary>The fitted linear model: score = bias + Σ weight × feature, plus the centre of the training labels.</summary>
+    private sealed class Predictor(FeaturePlan plan, float[] weights, float bias, double centre) : IAbvPredictor
     {
-        public double PredictAbv(PredictionInput input) => PredictAbv([input])[0];
+        public double PredictAbv(PredictionInput input) => centre + Score(plan.Fill(input));
 
         public IReadOnlyList<double> PredictAbv(IReadOnlyList<PredictionInput> inputs)
         {
             ArgumentNullException.ThrowIfNull(inputs);
-            var scores = Scores(inputs.Select(x => plan.Row(x, 0f)));
-            var result = new double[scores.Length];
-            for (int i = 0; i < scores.Length; i++)
+            var result = new double[inputs.Count];
+            for (int i = 0; i < result.Length; i++)
             {
-                result[i] = centre + scores[i];
+                result[i] = PredictAbv(inputs[i]);
             }
 
             return result;
@@ -135,7 +124,7 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
         {
             ArgumentNullException.ThrowIfNull(lots);
             lots = Sample(lots, seed);
-            var rows = lots.Select(l => plan.Row(PredictionInput.From(l), (float)(l.Lot.FinalAlcohol.PercentVolume - centre))).ToArray();
+            var rows = lots.Select(l => plan.Fill(PredictionInput.From(l), (float)(l.Lot.FinalAlcohol.PercentVolume - centre))).ToArray();
             double baseMae = Mae(rows);
             var result = new List<FeatureImportance>();
             var rng = new Random(seed);
@@ -156,74 +145,117 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
             return result;
         }
 
-        private double Mae(ModelRow[] rows)
-        {
-            var scores = Scores(rows);
-            return rows.Select((r, i) => Math.Abs(r.Label - (double)scores[i])).Average();
-        }
+        private double Mae(ModelRow[] rows) => rows.Average(r => Math.Abs(r.Label - Score(r)));
 
-        /// <summary>
-        /// The model's scores of the rows, in order, through one prediction engine (made per call: an engine is not
-        /// thread-safe). The engine maps row by row; a transformed data view would instead split its cursor over
-        /// background threads, whose hand-offs cost more than the arithmetic of a linear model (at 100,000 lots they
-        /// were the largest cost of this candidate).
-        /// </summary>
-        private float[] Scores(IEnumerable<ModelRow> rows)
+        private double Score(ModelRow row)
         {
-            using var engine = ml.Model.CreatePredictionEngine<ModelRow, ScoreRow>(model);
-            var scores = new List<float>();
-            var output = new ScoreRow();
-            foreach (var row in rows)
+            var x = plan.Vector(row);
+            double score = bias;
+            for (int j = 0; j < x.Length; j++)
             {
-                engine.Predict(row, ref output);
-                scores.Add(output.Score);
+                score += (double)weights[j] * x[j];
             }
 
-            return scores.ToArray();
+            return score;
         }
     }
 
-    /// <summary>Which inputs the model uses, and the fill-in values for missing numbers (training medians).</summary>
+    /// <summary>A numeric input: how it is read from a row, and the training mean and standard deviation it is scaled by.</summary>
+    private sealed record NumericFeature(Func<ModelRow, float> Get, double Mean, double Sd);
+
+    /// <summary>A categorical input: how it is read from a row, and the training categories in ordinal order (one indicator each).</summary>
+    private sealed record CategoryFeature(Func<ModelRow, string> Get, IReadOnlyDictionary<string, int> Index);
+
+    /// <summary>
+    /// Which inputs the model uses, the fill-in values for missing numbers (training medians), and once scaled, the
+    /// features: each number standardised by its training mean and standard deviation (n − 1), each category one
+    /// indicator per training category (a category not seen in training gives all zeros).
+    /// </summary>
     private sealed class FeaturePlan
     {
         private readonly Dictionary<string, float> fill = new(StringComparer.Ordinal);
-
-        public List<string> NumericColumns { get; } = [nameof(ModelRow.StartingBrix)];
-
-        public List<string> CategoricalColumns { get; } = [nameof(ModelRow.Strain)];
+        private readonly List<(string Column, Func<ModelRow, float> Get)> numericColumns = [(nameof(ModelRow.StartingBrix), r => r.StartingBrix)];
+        private readonly List<(string Column, Func<ModelRow, string> Get)> categoricalColumns = [(nameof(ModelRow.Strain), r => r.Strain)];
+        private NumericFeature[] numeric = [];
+        private CategoryFeature[] categories = [];
 
         public List<Feature> Features { get; } = [new("starting sugar", (t, s) => t.StartingBrix = s.StartingBrix)];
 
-        public static FeaturePlan For(IReadOnlyList<PredictionInput> x)
+        /// <summary>Number of features.</summary>
+        public int Width { get; private set; }
+
+        /// <summary>Chooses the inputs recorded well enough on the training lots and their fill-in values.</summary>
+        public static FeaturePlan Fill(IReadOnlyList<PredictionInput> x)
         {
             var p = new FeaturePlan();
             p.Features.Add(new("strain", (t, s) => t.Strain = s.Strain));
-            p.AddNumeric(x, nameof(ModelRow.VesselCapacityL), "vessel size", i => i.VesselCapacityL, (t, s) => t.VesselCapacityL = s.VesselCapacityL);
-            p.AddNumeric(x, nameof(ModelRow.YanMgL), "YAN", i => i.YanMgL, (t, s) => t.YanMgL = s.YanMgL);
-            p.AddNumeric(x, nameof(ModelRow.Ph), "pH", i => i.Ph, (t, s) => t.Ph = s.Ph);
-            p.AddNumeric(x, nameof(ModelRow.FermentationTempC), "fermentation temperature", i => i.FermentationTempC, (t, s) => t.FermentationTempC = s.FermentationTempC);
-            p.AddCategory(x, nameof(ModelRow.Vessel), "vessel type", i => i.Vessel, (t, s) => t.Vessel = s.Vessel);
-            p.AddCategory(x, nameof(ModelRow.Variety), "variety", i => i.Variety, (t, s) => t.Variety = s.Variety);
+            p.AddNumeric(x, nameof(ModelRow.VesselCapacityL), "vessel size", i => i.VesselCapacityL, r => r.VesselCapacityL, (t, s) => t.VesselCapacityL = s.VesselCapacityL);
+            p.AddNumeric(x, nameof(ModelRow.YanMgL), "YAN", i => i.YanMgL, r => r.YanMgL, (t, s) => t.YanMgL = s.YanMgL);
+            p.AddNumeric(x, nameof(ModelRow.Ph), "pH", i => i.Ph, r => r.Ph, (t, s) => t.Ph = s.Ph);
+            p.AddNumeric(x, nameof(ModelRow.FermentationTempC), "fermentation temperature", i => i.FermentationTempC, r => r.FermentationTempC, (t, s) => t.FermentationTempC = s.FermentationTempC);
+            p.AddCategory(x, nameof(ModelRow.Vessel), "vessel type", i => i.Vessel, r => r.Vessel, (t, s) => t.Vessel = s.Vessel);
+            p.AddCategory(x, nameof(ModelRow.Variety), "variety", i => i.Variety, r => r.Variety, (t, s) => t.Variety = s.Variety);
             return p;
         }
 
-        public ModelRow Row(PredictionInput x, float label) => new()
+        /// <summary>This plan with the scaling and categories of the training rows.</summary>
+        public FeaturePlan Scaled(IReadOnlyList<ModelRow> rows)
+        {
+            numeric = numericColumns.Select(c =>
+            {
+                var v = rows.Select(r => (double)c.Get(r)).ToArray();
+                double mean = v.Average();
+                double sd = v.Length > 1 ? Math.Sqrt(v.Sum(d => (d - mean) * (d - mean)) / (v.Length - 1)) : 0;
+                return new NumericFeature(c.Get, mean, sd > 0 ? sd : 1);
+            }).ToArray();
+            categories = categoricalColumns.Select(c => new CategoryFeature(
+                c.Get,
+                rows.Select(c.Get).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Select((name, i) => (name, i)).ToDictionary(t => t.name, t => t.i, StringComparer.Ordinal))).ToArray();
+            Width = numeric.Length + categories.Sum(c => c.Index.Count);
+            return this;
+        }
+
+        /// <summary>The features of a row.</summary>
+        public float[] Vector(ModelRow row)
+        {
+            var x = new float[Width];
+            int j = 0;
+            foreach (var n in numeric)
+            {
+                x[j++] = (float)((n.Get(row) - n.Mean) / n.Sd);
+            }
+
+            foreach (var c in categories)
+            {
+                if (c.Index.TryGetValue(c.Get(row), out int k))
+                {
+                    x[j + k] = 1f;
+                }
+
+                j += c.Index.Count;
+            }
+
+            return x;
+        }
+
+        /// <summary>The row of an input, missing numbers filled in.</summary>
+        public ModelRow Fill(PredictionInput x, float label = 0f) => new()
         {
             Label = label,
             StartingBrix = (float)x.StartingBrix,
-            VesselCapacityL = Fill(nameof(ModelRow.VesselCapacityL), x.VesselCapacityL),
-            YanMgL = Fill(nameof(ModelRow.YanMgL), x.YanMgL),
-            Ph = Fill(nameof(ModelRow.Ph), x.Ph),
-            FermentationTempC = Fill(nameof(ModelRow.FermentationTempC), x.FermentationTempC),
+            VesselCapacityL = FillValue(nameof(ModelRow.VesselCapacityL), x.VesselCapacityL),
+            YanMgL = FillValue(nameof(ModelRow.YanMgL), x.YanMgL),
+            Ph = FillValue(nameof(ModelRow.Ph), x.Ph),
+            FermentationTempC = FillValue(nameof(ModelRow.FermentationTempC), x.FermentationTempC),
             Strain = x.Strain,
             Vessel = string.IsNullOrWhiteSpace(x.Vessel) ? NotRecorded : x.Vessel,
             Variety = string.IsNullOrWhiteSpace(x.Variety) ? NotRecorded : x.Variety,
         };
 
-        private float Fill(string column, double? value) =>
+        private float FillValue(string column, double? value) =>
             value is { } v && double.IsFinite(v) ? (float)v : fill.GetValueOrDefault(column);
 
-        private void AddNumeric(IReadOnlyList<PredictionInput> x, string column, string name, Func<PredictionInput, double?> get, Action<ModelRow, ModelRow> copy)
+        private void AddNumeric(IReadOnlyList<PredictionInput> x, string column, string name, Func<PredictionInput, double?> get, Func<ModelRow, float> read, Action<ModelRow, ModelRow> copy)
         {
             var present = x.Select(get).Where(v => v is { } d && double.IsFinite(d)).Select(v => v!.Value).ToArray();
             if (present.Length < MinimumRecordedShare * x.Count || present.Distinct().Count() < 2)
@@ -232,18 +264,18 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
             }
 
             fill[column] = (float)Descriptive.Median(present);
-            NumericColumns.Add(column);
+            numericColumns.Add((column, read));
             Features.Add(new(name, copy));
         }
 
-        private void AddCategory(IReadOnlyList<PredictionInput> x, string column, string name, Func<PredictionInput, string?> get, Action<ModelRow, ModelRow> copy)
+        private void AddCategory(IReadOnlyList<PredictionInput> x, string column, string name, Func<PredictionInput, string?> get, Func<ModelRow, string> read, Action<ModelRow, ModelRow> copy)
         {
             if (x.Select(i => get(i) ?? NotRecorded).Distinct(StringComparer.Ordinal).Count() < 2)
             {
                 return;
             }
 
-            CategoricalColumns.Add(column);
+            categoricalColumns.Add((column, read));
             Features.Add(new(name, copy));
         }
     }
@@ -260,13 +292,15 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
     }
 }
 
-/// <summary>The model's output for one row.</summary>
-internal sealed class ScoreRow
+/// <summary>One training row as ML.NET sees it: the centred label and the feature vector.</summary>
+internal sealed class FeatureRow
 {
-    public float Score { get; set; }
+    public float Label { get; set; }
+
+    public float[] Features { get; set; } = [];
 }
 
-/// <summary>One row as ML.NET sees it.</summary>
+/// <summary>One lot's inputs as the model reads them (missing numbers filled in) and its centred label.</summary>
 internal sealed class ModelRow
 {
     public float Label { get; set; }

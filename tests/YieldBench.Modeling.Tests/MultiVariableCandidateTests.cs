@@ -80,6 +80,36 @@ public class MultiVariableCandidateTests
     }
 
     [Fact]
+    public void The_fit_agrees_with_ordinary_least_squares_on_the_same_inputs()
+    {
+        // Given 240 seeded lots (sugar, strain, vessel type and size, YAN and pH all recorded)
+        var lots = Lots(8, 240);
+        var test = Lots(9, 50);
+
+        // When the model is trained, and the same linear model is solved by least squares with MathNet's QR
+        // (intercept, °Brix, vessel size, YAN, pH, and indicators for strains and vessel types other than the first;
+        // the independent reference: SDCA with its small L2 penalty converges to nearly this solution)
+        var model = new MultiVariableCandidate().Train(lots, 7);
+        double[] Row(LotConversion l) =>
+        [
+            1, l.EffectiveStartingBrix, l.Lot.VesselCapacityL!.Value, l.Lot.YanMgL!.Value, l.Lot.Ph!.Value,
+            l.Lot.Strain == Strains[1] ? 1 : 0, l.Lot.Strain == Strains[2] ? 1 : 0,
+            l.Lot.Vessel == Vessels[1] ? 1 : 0, l.Lot.Vessel == Vessels[2] ? 1 : 0,
+        ];
+        var x = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfRows(lots.Select(Row));
+        var y = MathNet.Numerics.LinearAlgebra.Vector<double>.Build.DenseOfEnumerable(lots.Select(l => l.Lot.FinalAlcohol.PercentVolume));
+        var beta = x.QR().Solve(y);
+
+        // Then the two predict new lots alike: SDCA's 100 passes stop within 0.03 % v/v of the least-squares answer here
+        // (measured: largest gap 0.028; 1,000 passes bring it to 0.002), far inside the 0.12 % v/v noise
+        foreach (var l in test)
+        {
+            double ols = MathNet.Numerics.LinearAlgebra.Vector<double>.Build.DenseOfArray(Row(l)).DotProduct(beta);
+            Assert.Equal(ols, model.PredictAbv(PredictionInput.From(l)), 0.04);
+        }
+    }
+
+    [Fact]
     public void Permutation_importance_puts_starting_sugar_first_and_says_vessel_adds_little()
     {
         // Given lots where sugar drives alcohol, strain and YAN shift it, and vessel and pH do nothing
