@@ -74,8 +74,13 @@ public static class WorkbookWriter
     public static DateTime FixedTimestamp { get; } = new(2000, 1, 1, 0, 0, 0, DateTimeKind.Utc);
 
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
-    public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path) =>
-        AtomicFile.WriteAllBytes(path, Build(review, charts));
+    /// <remarks>The package goes straight into the file as it is compressed (the bytes of <see cref="Build(ReviewResult, IReadOnlyList{ChartFile}, bool)"/>).</remarks>
+    public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(charts);
+        AtomicFile.Write(path, stream => Build(review, charts, includePictures: true, StreamedTables.DefaultRowThreshold, stream));
+    }
 
     /// <summary>The workbook's bytes.</summary>
     public static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures = true) =>
@@ -83,6 +88,14 @@ public static class WorkbookWriter
 
     /// <summary>The workbook's bytes, streaming every table with more than <paramref name="streamRowThreshold"/> rows.</summary>
     internal static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures, int streamRowThreshold)
+    {
+        using var output = new MemoryStream();
+        Build(review, charts, includePictures, streamRowThreshold, output);
+        return output.ToArray();
+    }
+
+    /// <summary>Writes the workbook to <paramref name="output"/> (seekable).</summary>
+    internal static void Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures, int streamRowThreshold, Stream output)
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(charts);
@@ -143,7 +156,7 @@ public static class WorkbookWriter
             laidOut = ms.ToArray();
         }
 
-        return Finish(laidOut, streamed, wbPart =>
+        Finish(laidOut, streamed, output, wbPart =>
         {
             uint drawingId = 2;
             var overviewPart = SheetPart(wbPart, Sheets.Overview);
@@ -186,8 +199,17 @@ public static class WorkbookWriter
     /// </summary>
     internal static byte[] Finish(byte[] laidOut, StreamedTables streamed, Action<WorkbookPart>? drawings)
     {
+        using var output = new MemoryStream();
+        Finish(laidOut, streamed, output, drawings);
+        return output.ToArray();
+    }
+
+    /// <summary>As <see cref="Finish(byte[], StreamedTables, Action{WorkbookPart}?)"/>, the package written to <paramref name="output"/> (seekable).</summary>
+    internal static void Finish(byte[] laidOut, StreamedTables streamed, Stream output, Action<WorkbookPart>? drawings)
+    {
         ArgumentNullException.ThrowIfNull(laidOut);
         ArgumentNullException.ThrowIfNull(streamed);
+        ArgumentNullException.ThrowIfNull(output);
         using var package = new MemoryStream();
         package.Write(laidOut);
         var streamedSheets = new Dictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)>(StringComparer.Ordinal);
@@ -208,7 +230,8 @@ public static class WorkbookWriter
             doc.PackageProperties.LastModifiedBy = "YieldBench";
         }
 
-        return DeterministicZip.Normalise(package.ToArray(), streamedSheets);
+        // Read where the SDK left it rather than copied out again.
+        DeterministicZip.Normalise(new MemoryStream(package.GetBuffer(), 0, (int)package.Length, writable: false), output, streamedSheets);
     }
 
     /// <summary>The native chart: one series per strain, bound to the lots sheet's starting-sugar and alcohol columns.</summary>
