@@ -129,8 +129,16 @@ public static class ReviewTables
     public static IReadOnlyList<LotConversion> ByStrain(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.Lots.OrderBy(l => l.Lot.Strain, StringComparer.Ordinal).ThenBy(l => l.Lot.Season)
-            .ThenBy(l => l.Lot.LotId, StringComparer.Ordinal).ToArray();
+        return ByStrainIndices(review).Select(i => review.Lots[i]).ToArray();
+    }
+
+    /// <summary>The indices into the review's lots of <see cref="ByStrain"/>'s order (a stable sort, so ties keep input order).</summary>
+    internal static int[] ByStrainIndices(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var lots = review.Lots;
+        return Enumerable.Range(0, lots.Count).OrderBy(i => lots[i].Lot.Strain, StringComparer.Ordinal).ThenBy(i => lots[i].Lot.Season)
+            .ThenBy(i => lots[i].Lot.LotId, StringComparer.Ordinal).ToArray();
     }
 
     /// <summary>Flag codes of a lot from every section that flags lots, in a fixed order.</summary>
