@@ -14,6 +14,7 @@ internal sealed class SharedTables
     private readonly Lazy<int[]> byStrain;
     private readonly Lazy<ReportTable> lotsByStrain;
     private readonly Lazy<ReportTable?> kineticsLots;
+    private readonly Lazy<Core.Conversion.LotConversion[]> lotsInSheetOrder;
 
     public SharedTables(ReviewResult review)
     {
@@ -21,6 +22,7 @@ internal sealed class SharedTables
         lots = new(() => ReviewTables.Lots(review), LazyThreadSafetyMode.ExecutionAndPublication);
         byStrain = new(() => ReviewTables.ByStrainIndices(review), LazyThreadSafetyMode.ExecutionAndPublication);
         lotsByStrain = new(() => lots.Value.Reordered(byStrain.Value), LazyThreadSafetyMode.ExecutionAndPublication);
+        lotsInSheetOrder = new(() => byStrain.Value.Select(i => review.Lots[i]).ToArray(), LazyThreadSafetyMode.ExecutionAndPublication);
         kineticsLots = new(() => review.Kinetics is { } k ? KineticsTables.Lots(k) : null, LazyThreadSafetyMode.ExecutionAndPublication);
     }
 
@@ -29,6 +31,9 @@ internal sealed class SharedTables
 
     /// <summary>The same rows in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>).</summary>
     public ReportTable LotsByStrain => lotsByStrain.Value;
+
+    /// <summary>The review's lots in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>), sorted once with the table.</summary>
+    public IReadOnlyList<Core.Conversion.LotConversion> LotsInSheetOrder => lotsInSheetOrder.Value;
 
     /// <summary>Kinetics per lot (data/kinetics.csv and the kinetics sheet), or null without logs.</summary>
     public ReportTable? KineticsLots => kineticsLots.Value;

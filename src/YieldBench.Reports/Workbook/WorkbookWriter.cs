@@ -115,7 +115,7 @@ public static class WorkbookWriter
         ArgumentNullException.ThrowIfNull(review);
         tables ??= new SharedTables(review);
         var streamed = new StreamedTables(streamRowThreshold);
-        var lotsOrder = ReviewTables.ByStrain(review);
+        var lotsOrder = tables.LotsInSheetOrder;
         byte[] laidOut;
         var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
         using (var wb = new XLWorkbook())
