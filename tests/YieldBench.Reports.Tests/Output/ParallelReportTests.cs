@@ -116,6 +116,21 @@ public sealed class ParallelReportTests
     }
 
     [Fact]
+    public void The_lots_sheet_order_is_by_strain_season_and_lot_id_with_ties_in_input_order()
+    {
+        // Given lots in a shuffled order with some lots twice (equal keys), and the order written as a stable sort
+        var review = SampleReview.Build();
+        var lots = review.Lots.Reverse().Concat(review.Lots.Where((_, i) => i % 5 == 0)).ToArray();
+        var shuffled = review with { Lots = lots };
+        var expected = lots.Select((l, i) => (l, i)).OrderBy(x => x.l.Lot.Strain, StringComparer.Ordinal).ThenBy(x => x.l.Lot.Season)
+            .ThenBy(x => x.l.Lot.LotId, StringComparer.Ordinal).Select(x => x.i).ToArray();
+
+        // Then the sheet order gives the same indices (the repeated lots in the order they came)
+        Assert.Equal(expected, ReviewTables.ByStrainIndices(shuffled));
+        Assert.Equal(expected.Select(i => lots[i]), ReviewTables.ByStrain(shuffled));
+    }
+
+    [Fact]
     public void A_failing_data_file_fails_the_report_after_every_other_step_has_stopped()
     {
         // Given an output folder where the data folder cannot be made (a file stands in its place)
