@@ -49,7 +49,18 @@ public static class ReportWriter
         public const string HouseFactor = "data/" + HouseFactorJson.FileName;
     }
 
-    /// <summary>Writes everything; <paramref name="progress"/> hears the name of each step.</summary>
+    /// <summary>Progress step of <see cref="Write"/> in which the data files, the charts and the workbook's layout are made side by side.</summary>
+    public const string ParallelStep = "data files, charts and workbook layout";
+
+    /// <summary>Progress step of <see cref="Write"/> in which the workbook gets its pictures and is written.</summary>
+    public const string WorkbookStep = "workbook";
+
+    /// <summary>
+    /// Writes everything; <paramref name="progress"/> hears the name of each step (<see cref="ParallelStep"/>, then
+    /// <see cref="WorkbookStep"/>). The data files, the charts and the workbook's layout do not depend on one another
+    /// and are made at the same time, each on its own thread (the charts on several); the workbook is finished once
+    /// the charts it shows exist. Each output's bytes and the manifest do not depend on which thread finished first.
+    /// </summary>
     public static ReportOutput Write(ReviewResult review, string folder, IProgress<string>? progress = null)
     {
         ArgumentNullException.ThrowIfNull(review);
@@ -57,47 +68,37 @@ public static class ReportWriter
         string root = Path.GetFullPath(folder);
         Directory.CreateDirectory(root);
         var previous = ReadManifest(root);
+        var tables = new SharedTables(review);
         var written = new List<string>();
 
-        void Text(string relative, string content)
+        progress?.Report(ParallelStep);
+        var dataFiles = Started(() => WriteDataFiles(review, root, tables));
+        var layout = Started(() => WorkbookWriter.Layout(review, tables: tables));
+        List<ChartFile> charts;
+        try
         {
-            AtomicFile.WriteAllText(Full(root, relative), content);
-            written.Add(relative);
+            string chartFolder = Path.Combine(root, "charts");
+            charts = ReviewCharts.WriteAll(review, chartFolder).ToList();
+            if (review.Kinetics is { } k)
+            {
+                // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
+                charts.AddRange(KineticsCharts.RenderFiles(k, review.Lots, chartFolder)
+                    .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
+            }
+        }
+        finally
+        {
+            // Nothing keeps writing into the folder after this method returns, whatever failed.
+            WaitQuietly(dataFiles);
+            WaitQuietly(layout);
         }
 
-        // Tables stream straight to their files: at 100,000 lots a whole file held as one string cost hundreds of MB.
-        void Table(string relative, Tables.ReportTable table)
-        {
-            CsvText.WriteFile(table, Full(root, relative));
-            written.Add(relative);
-        }
-
-        progress?.Report("data files");
-        Table(DataFiles.Lots, ReviewTables.Lots(review));
-        Table(DataFiles.Groups, ReviewTables.Groups(review));
-        Table(DataFiles.Flags, ReviewTables.Flags(review));
-        Table(DataFiles.IntakeIssues, ReviewTables.IntakeIssues(review));
-        Text(DataFiles.HouseFactor, HouseFactorJson.Write(review.HouseFactor));
-        if (review.Kinetics is { } kinetics)
-        {
-            KineticsCsv.WriteFile(kinetics, Full(root, DataFiles.Kinetics));
-            written.Add(DataFiles.Kinetics);
-        }
-
-        progress?.Report("charts");
-        string chartFolder = Path.Combine(root, "charts");
-        var charts = ReviewCharts.WriteAll(review, chartFolder).ToList();
-        if (review.Kinetics is { } k)
-        {
-            // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
-            charts.AddRange(KineticsCharts.RenderFiles(k, review.Lots, chartFolder)
-                .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
-        }
-
+        written.AddRange(dataFiles.GetAwaiter().GetResult());
         written.AddRange(charts.Select(c => Relative(root, c.Path)));
+        var laidOut = layout.GetAwaiter().GetResult();
 
-        progress?.Report("workbook");
-        WorkbookWriter.Write(review, charts, Full(root, WorkbookName));
+        progress?.Report(WorkbookStep);
+        WorkbookWriter.Write(laidOut, charts, Full(root, WorkbookName));
         written.Add(WorkbookName);
 
         var files = written.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
@@ -114,6 +115,50 @@ public static class ReportWriter
 
         AtomicFile.WriteAllText(Path.Combine(root, ManifestName), string.Join("\n", files.Prepend(ManifestName)) + "\n");
         return new ReportOutput(root, files, removed);
+    }
+
+    /// <summary>Writes the data files (tables streamed straight to their files) and returns their relative paths.</summary>
+    internal static IReadOnlyList<string> WriteDataFiles(ReviewResult review, string root, SharedTables tables)
+    {
+        var written = new List<string>();
+
+        // Tables stream straight to their files: at 100,000 lots a whole file held as one string cost hundreds of MB.
+        void Table(string relative, ReportTable table)
+        {
+            CsvText.WriteFile(table, Full(root, relative));
+            written.Add(relative);
+        }
+
+        Table(DataFiles.Lots, tables.Lots);
+        Table(DataFiles.Groups, ReviewTables.Groups(review));
+        Table(DataFiles.Flags, ReviewTables.Flags(review));
+        Table(DataFiles.IntakeIssues, ReviewTables.IntakeIssues(review));
+        AtomicFile.WriteAllText(Full(root, DataFiles.HouseFactor), HouseFactorJson.Write(review.HouseFactor));
+        written.Add(DataFiles.HouseFactor);
+        if (tables.KineticsLots is { } kinetics)
+        {
+            // The table of KineticsCsv.WriteFile, shared with the kinetics sheet.
+            Table(DataFiles.Kinetics, kinetics);
+        }
+
+        return written;
+    }
+
+    /// <summary>Runs <paramref name="work"/> on a thread of its own (not the pool's: the charts keep the pool's threads busy).</summary>
+    private static Task<T> Started<T>(Func<T> work) =>
+        Task.Factory.StartNew(work, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+
+    /// <summary>Waits for <paramref name="task"/> to end; its failure, if any, is reported by whoever reads its result.</summary>
+    private static void WaitQuietly(Task task)
+    {
+        try
+        {
+            task.Wait();
+        }
+        catch (AggregateException)
+        {
+            // Read again (and rethrown unwrapped) where the result is used, unless an earlier failure is on its way.
+        }
     }
 
     /// <summary>The files an earlier run listed in the folder's manifest (empty when none).</summary>

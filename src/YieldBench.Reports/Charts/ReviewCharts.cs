@@ -193,8 +193,10 @@ public static class ReviewCharts
             var members = byStrain[strains[i]].Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
             ChartStyle.AddMarkers(
                 plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
+            // The strain's lots by season in one pass (each season's values in review order, as a filter per season gave them).
+            var bySeason = members.ToLookup(m => m.Lot.Season);
             var medians = seasons
-                .Select(s => (Season: s, Values: members.Where(m => m.Lot.Season == s).Select(m => m.AbvPerBrix).ToArray()))
+                .Select(s => (Season: s, Values: bySeason[s].Select(m => m.AbvPerBrix).ToArray()))
                 .Where(x => x.Values.Length > 0)
                 .Select(x => (x.Season, Median: Descriptive.Median(x.Values)))
                 .ToArray();

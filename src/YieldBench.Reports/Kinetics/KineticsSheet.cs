@@ -39,7 +39,11 @@ public static class KineticsSheet
     /// large review) is streamed into the finished package instead of becoming ClosedXML cells. Returns the sheet's
     /// last row.
     /// </summary>
-    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed)
+    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed) =>
+        Fill(sheet, review, lots, streamed, null);
+
+    /// <summary>As the overload above, with the per-lot table built already (<see cref="KineticsTables.Lots"/> of <paramref name="review"/>) or null to build it.</summary>
+    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed, ReportTable? lotsTable)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(review);
@@ -60,7 +64,7 @@ public static class KineticsSheet
         row++;
         row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, lots), widths, streamed);
         row++;
-        row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", KineticsTables.Lots(review), widths, streamed);
+        row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", lotsTable ?? KineticsTables.Lots(review), widths, streamed);
         row++;
         row = WriteTable(sheet, row, "Findings", KineticsTables.Findings(review), widths, streamed);
         foreach (var (col, w) in widths)

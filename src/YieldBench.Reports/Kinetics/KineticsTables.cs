@@ -124,7 +124,7 @@ public static class KineticsTables
             var l = k.Logistic.Fit;
             t.Add(
             [
-                k.Lot.Season, k.Lot.LotId, k.Lot.Strain, k.Lot.Colour.ToString().ToLowerInvariant(),
+                k.Lot.Season, k.Lot.LotId, k.Lot.Strain, ReviewTables.LowerName(k.Lot.Colour),
                 k.OriginKind == TimeOrigin.Inoculation ? "inoculation" : "first reading", k.Origin,
                 k.Sugar.Count, k.MedianSpacingHours, k.MaxRateMethod == RateMethod.LocalLinearFit ? "local linear fit" : "between readings",
                 k.StartingBrix, k.FinalBrix, k.MaxRateBrixPerDay, k.MaxRateAt, k.LagHours,

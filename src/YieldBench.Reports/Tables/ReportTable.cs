@@ -111,4 +111,23 @@ public sealed class ReportTable
         rows.Add(cells);
         highlighted.Add(highlight);
     }
+
+    /// <summary>
+    /// A table of the same columns holding this table's rows (the same cell arrays, not copies) and highlights in the
+    /// order <paramref name="order"/> gives by index; the rows are shared, so neither table may change afterwards.
+    /// </summary>
+    internal ReportTable Reordered(IReadOnlyList<int> order)
+    {
+        ArgumentNullException.ThrowIfNull(order);
+        var table = new ReportTable(Columns);
+        table.rows.Capacity = order.Count;
+        table.highlighted.Capacity = order.Count;
+        foreach (int i in order)
+        {
+            table.rows.Add(rows[i]);
+            table.highlighted.Add(highlighted[i]);
+        }
+
+        return table;
+    }
 }

@@ -79,18 +79,18 @@ public static class ReviewTables
             table.Add(
             [
                 lot.LotId,
-                lot.Season,
+                SeasonCell(lot.Season),
                 lot.Strain,
                 lot.Vessel,
                 lot.Variety,
                 c.EffectiveStartingBrix,
                 lot.FinalAlcohol.PercentVolume,
-                lot.ResidualSugarGl ?? double.NaN,
+                NumberCell(lot.ResidualSugarGl),
                 c.AbvPerBrix,
                 c.AbvPerBrixFermented,
                 c.SugarGlPerAbv,
                 c.GayLussacEfficiency,
-                scores.TryGetValue(key, out var score) ? score.Z : double.NaN,
+                scores.TryGetValue(key, out var score) ? score.Z : NaNCell,
                 flags.Count == 0 ? null : string.Join(';', flags),
                 lot.StartingSugar.Brix,
                 ScaleName(lot.StartingSugarScale),
@@ -98,19 +98,19 @@ public static class ReviewTables
                 c.StartingSugarGl,
                 c.FermentedBrix,
                 c.SugarConsumedGl,
-                c.AdditionsApplied,
-                lot.Additions.MustVolumeL ?? double.NaN,
-                lot.Additions.WaterAddedL ?? double.NaN,
-                lot.Additions.SugarAddedKg ?? double.NaN,
-                lot.VesselCapacityL ?? double.NaN,
+                c.AdditionsApplied ? TrueCell : FalseCell,
+                NumberCell(lot.Additions.MustVolumeL),
+                NumberCell(lot.Additions.WaterAddedL),
+                NumberCell(lot.Additions.SugarAddedKg),
+                NumberCell(lot.VesselCapacityL),
                 lot.Block,
-                lot.Colour == WineColour.Unknown ? null : lot.Colour.ToString().ToLowerInvariant(),
-                lot.FinalSugar?.Brix ?? double.NaN,
-                lot.YanMgL ?? double.NaN,
-                lot.Ph ?? double.NaN,
-                lot.TaGl ?? double.NaN,
-                lot.MeanFermentationTempC ?? double.NaN,
-                lot.PeakFermentationTempC ?? double.NaN,
+                ColourCell(lot.Colour),
+                NumberCell(lot.FinalSugar?.Brix),
+                NumberCell(lot.YanMgL),
+                NumberCell(lot.Ph),
+                NumberCell(lot.TaGl),
+                NumberCell(lot.MeanFermentationTempC),
+                NumberCell(lot.PeakFermentationTempC),
                 lot.InoculationDate,
                 lot.DryDate,
                 lot.Notes,
@@ -125,12 +125,67 @@ public static class ReviewTables
         return table;
     }
 
+    // Cells a per-lot table repeats on most rows, boxed once (a box is never changed, so rows can share it): at 100,000
+    // lots a box per missing value, flag and season was tens of megabytes held while the report is written.
+    private static readonly object NaNCell = double.NaN;
+    private static readonly object TrueCell = true;
+    private static readonly object FalseCell = false;
+    private static readonly object[] SeasonCells = Enumerable.Range(1900, 301).Select(y => (object)y).ToArray();
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<WineColour, string> ColourNames = new();
+
+    private static object NumberCell(double? value) => value is { } v && !double.IsNaN(v) ? v : NaNCell;
+
+    private static object SeasonCell(int season) => (uint)(season - 1900) < (uint)SeasonCells.Length ? SeasonCells[season - 1900] : season;
+
+    /// <summary>A colour as the tables write it (lower-case name; null when unknown), each name made once.</summary>
+    internal static string? ColourCell(WineColour colour) => colour == WineColour.Unknown ? null : LowerName(colour);
+
+    /// <summary>The colour's name in lower case (also for <see cref="WineColour.Unknown"/>), each name made once.</summary>
+    internal static string LowerName(WineColour colour) => ColourNames.GetOrAdd(colour, c => c.ToString().ToLowerInvariant());
+
     /// <summary>The lots in the lots sheet's order: by strain (ordinal), then season, then lot id.</summary>
     public static IReadOnlyList<LotConversion> ByStrain(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.Lots.OrderBy(l => l.Lot.Strain, StringComparer.Ordinal).ThenBy(l => l.Lot.Season)
-            .ThenBy(l => l.Lot.LotId, StringComparer.Ordinal).ToArray();
+        return ByStrainIndices(review).Select(i => review.Lots[i]).ToArray();
+    }
+
+    /// <summary>The indices into the review's lots of <see cref="ByStrain"/>'s order (a stable sort, so ties keep input order).</summary>
+    internal static int[] ByStrainIndices(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var lots = review.Lots;
+
+        // Strains are few: each is ranked once (ordinal order) so most comparisons are of two integers; the index
+        // breaks the last ties, which makes the unstable sort give the stable order.
+        var strainRank = lots.Select(l => l.Lot.Strain).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal)
+            .Select((strain, rank) => (strain, rank)).ToDictionary(x => x.strain, x => x.rank, StringComparer.Ordinal);
+        var rank = new int[lots.Count];
+        var season = new int[lots.Count];
+        var order = new int[lots.Count];
+        for (int i = 0; i < lots.Count; i++)
+        {
+            rank[i] = strainRank[lots[i].Lot.Strain];
+            season[i] = lots[i].Lot.Season;
+            order[i] = i;
+        }
+
+        Array.Sort(order, (a, b) =>
+        {
+            int c = rank[a].CompareTo(rank[b]);
+            if (c == 0)
+            {
+                c = season[a].CompareTo(season[b]);
+            }
+
+            if (c == 0)
+            {
+                c = string.CompareOrdinal(lots[a].Lot.LotId, lots[b].Lot.LotId);
+            }
+
+            return c == 0 ? a.CompareTo(b) : c;
+        });
+        return order;
     }
 
     /// <summary>Flag codes of a lot from every section that flags lots, in a fixed order.</summary>

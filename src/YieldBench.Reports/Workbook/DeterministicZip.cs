@@ -29,9 +29,29 @@ public static partial class DeterministicZip
     internal static byte[] Normalise(byte[] zip, IReadOnlyDictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)> streamedSheets)
     {
         ArgumentNullException.ThrowIfNull(zip);
-        ArgumentNullException.ThrowIfNull(streamedSheets);
-        using var input = new ZipArchive(new MemoryStream(zip, writable: false), ZipArchiveMode.Read);
         using var output = new MemoryStream();
+        Normalise(new MemoryStream(zip, writable: false), output, streamedSheets);
+        return output.ToArray();
+    }
+
+    /// <summary>
+    /// As <see cref="Normalise(byte[], IReadOnlyDictionary{string, ValueTuple{string, IReadOnlyList{DeferredBody}}})"/>,
+    /// reading the package from <paramref name="zip"/> and writing the normalised one straight to
+    /// <paramref name="output"/> (seekable, as a file or memory stream is: the bytes are the same either way), so a large
+    /// workbook is never held whole in memory a second and third time.
+    /// </summary>
+    internal static void Normalise(Stream zip, Stream output, IReadOnlyDictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)> streamedSheets)
+    {
+        ArgumentNullException.ThrowIfNull(zip);
+        ArgumentNullException.ThrowIfNull(output);
+        ArgumentNullException.ThrowIfNull(streamedSheets);
+        if (!output.CanSeek)
+        {
+            // Without seeking the archive writes data descriptors after each entry: other bytes for the same package.
+            throw new ArgumentException("The package must be written to a seekable stream.", nameof(output));
+        }
+
+        using var input = new ZipArchive(zip, ZipArchiveMode.Read);
         using (var archive = new ZipArchive(output, ZipArchiveMode.Create, leaveOpen: true))
         {
             int spliced = 0;
@@ -84,8 +104,6 @@ public static partial class DeterministicZip
                 throw new InvalidOperationException("The package has no part " + string.Join(", ", missing) + " for the streamed tables.");
             }
         }
-
-        return output.ToArray();
     }
 
     [GeneratedRegex("Id=\"R[0-9a-f]{16}\"")]

@@ -73,9 +73,18 @@ public static class WorkbookWriter
     /// <summary>A fixed creation time for the package properties, so no clock value enters the file.</summary>
     public static DateTime FixedTimestamp { get; } = new(2000, 1, 1, 0, 0, 0, DateTimeKind.Utc);
 
+    /// <summary>Writes a workbook laid out by <see cref="Layout"/> atomically to <paramref name="path"/>.</summary>
+    internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, string path) =>
+        AtomicFile.Write(path, stream => Finish(layout, charts, includePictures: true, stream));
+
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
-    public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path) =>
-        AtomicFile.WriteAllBytes(path, Build(review, charts));
+    /// <remarks>The package goes straight into the file as it is compressed (the bytes of <see cref="Build(ReviewResult, IReadOnlyList{ChartFile}, bool)"/>).</remarks>
+    public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(charts);
+        AtomicFile.Write(path, stream => Build(review, charts, includePictures: true, StreamedTables.DefaultRowThreshold, stream));
+    }
 
     /// <summary>The workbook's bytes.</summary>
     public static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures = true) =>
@@ -84,10 +93,29 @@ public static class WorkbookWriter
     /// <summary>The workbook's bytes, streaming every table with more than <paramref name="streamRowThreshold"/> rows.</summary>
     internal static byte[] Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures, int streamRowThreshold)
     {
-        ArgumentNullException.ThrowIfNull(review);
+        using var output = new MemoryStream();
+        Build(review, charts, includePictures, streamRowThreshold, output);
+        return output.ToArray();
+    }
+
+    /// <summary>Writes the workbook to <paramref name="output"/> (seekable).</summary>
+    internal static void Build(ReviewResult review, IReadOnlyList<ChartFile> charts, bool includePictures, int streamRowThreshold, Stream output)
+    {
         ArgumentNullException.ThrowIfNull(charts);
+        Finish(Layout(review, streamRowThreshold), charts, includePictures, output);
+    }
+
+    /// <summary>
+    /// The first half of <see cref="Write"/>: everything but the pictures, which need the charts. It reads only the
+    /// review, so it can run while the charts are drawn; <paramref name="tables"/> shares the per-lot tables with the
+    /// data files (null: built here).
+    /// </summary>
+    internal static LaidOutWorkbook Layout(ReviewResult review, int streamRowThreshold = StreamedTables.DefaultRowThreshold, SharedTables? tables = null)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        tables ??= new SharedTables(review);
         var streamed = new StreamedTables(streamRowThreshold);
-        var lotsOrder = ReviewTables.ByStrain(review);
+        var lotsOrder = tables.LotsInSheetOrder;
         byte[] laidOut;
         var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
         using (var wb = new XLWorkbook())
@@ -101,7 +129,7 @@ public static class WorkbookWriter
             WriteOverview(overview, review);
 
             var lots = wb.Worksheets.Add(Sheets.Lots);
-            var lotsPlaced = SheetLayout.WriteTable(lots, ReviewTables.Lots(review, lotsOrder), 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
+            var lotsPlaced = SheetLayout.WriteTable(lots, tables.LotsByStrain, 1, 1, freezeAndFilter: true, setColumnWidths: true, streamed);
             pictureRows[Sheets.Lots] = lotsPlaced.LastRow + 2;
 
             foreach (var (grouping, sheetName) in Sheets.Groupings)
@@ -127,7 +155,7 @@ public static class WorkbookWriter
             if (review.Kinetics is { } kineticsReview)
             {
                 var kinetics = wb.Worksheets.Add(Sheets.Kinetics);
-                int lastKineticsRow = KineticsSheet.Fill(kinetics, kineticsReview, null, streamed);
+                int lastKineticsRow = KineticsSheet.Fill(kinetics, kineticsReview, null, streamed, tables.KineticsLots);
                 pictureRows[Sheets.Kinetics] = lastKineticsRow + 2;
             }
 
@@ -143,7 +171,17 @@ public static class WorkbookWriter
             laidOut = ms.ToArray();
         }
 
-        return Finish(laidOut, streamed, wbPart =>
+        return new LaidOutWorkbook(laidOut, streamed, pictureRows, lotsOrder);
+    }
+
+    /// <summary>The second half of <see cref="Write"/>: the pictures and native chart go in and the package is written to <paramref name="output"/> (seekable).</summary>
+    internal static void Finish(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, bool includePictures, Stream output)
+    {
+        ArgumentNullException.ThrowIfNull(layout);
+        ArgumentNullException.ThrowIfNull(charts);
+        var lotsOrder = layout.LotsOrder;
+        var pictureRows = new Dictionary<string, int>(layout.PictureRows, StringComparer.Ordinal);
+        Finish(layout.LaidOut, layout.Streamed, output, wbPart =>
         {
             uint drawingId = 2;
             var overviewPart = SheetPart(wbPart, Sheets.Overview);
@@ -186,8 +224,17 @@ public static class WorkbookWriter
     /// </summary>
     internal static byte[] Finish(byte[] laidOut, StreamedTables streamed, Action<WorkbookPart>? drawings)
     {
+        using var output = new MemoryStream();
+        Finish(laidOut, streamed, output, drawings);
+        return output.ToArray();
+    }
+
+    /// <summary>As <see cref="Finish(byte[], StreamedTables, Action{WorkbookPart}?)"/>, the package written to <paramref name="output"/> (seekable).</summary>
+    internal static void Finish(byte[] laidOut, StreamedTables streamed, Stream output, Action<WorkbookPart>? drawings)
+    {
         ArgumentNullException.ThrowIfNull(laidOut);
         ArgumentNullException.ThrowIfNull(streamed);
+        ArgumentNullException.ThrowIfNull(output);
         using var package = new MemoryStream();
         package.Write(laidOut);
         var streamedSheets = new Dictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)>(StringComparer.Ordinal);
@@ -208,7 +255,8 @@ public static class WorkbookWriter
             doc.PackageProperties.LastModifiedBy = "YieldBench";
         }
 
-        return DeterministicZip.Normalise(package.ToArray(), streamedSheets);
+        // Read where the SDK left it rather than copied out again.
+        DeterministicZip.Normalise(new MemoryStream(package.GetBuffer(), 0, (int)package.Length, writable: false), output, streamedSheets);
     }
 
     /// <summary>The native chart: one series per strain, bound to the lots sheet's starting-sugar and alcohol columns.</summary>
@@ -519,3 +567,10 @@ public static class WorkbookWriter
         r++;
     }
 }
+
+/// <summary>A workbook ClosedXML has laid out, waiting for its pictures (<see cref="WorkbookWriter.Finish(LaidOutWorkbook, IReadOnlyList{ChartFile}, bool, Stream)"/>).</summary>
+/// <param name="LaidOut">The package ClosedXML saved (streamed tables as their template rows).</param>
+/// <param name="Streamed">The tables whose rows go in when the package is finished.</param>
+/// <param name="PictureRows">Per sheet, the row below its content where its first picture goes.</param>
+/// <param name="LotsOrder">The lots in the lots sheet's order (the native chart's series follow it).</param>
+internal sealed record LaidOutWorkbook(byte[] LaidOut, StreamedTables Streamed, IReadOnlyDictionary<string, int> PictureRows, IReadOnlyList<LotConversion> LotsOrder);

@@ -1,0 +1,40 @@
+using YieldBench.Core.Review;
+using YieldBench.Reports.Kinetics;
+
+namespace YieldBench.Reports.Tables;
+
+/// <summary>
+/// The long tables a report shows twice, once as a data file and once on a sheet: built once, on whichever thread asks
+/// first, and shared read-only (at 100,000 lots each per-lot table is about a hundred megabytes of cells, and building
+/// it was a second of the report's time). The lots sheet's rows are the data file's rows in the sheet's order.
+/// </summary>
+internal sealed class SharedTables
+{
+    private readonly Lazy<ReportTable> lots;
+    private readonly Lazy<int[]> byStrain;
+    private readonly Lazy<ReportTable> lotsByStrain;
+    private readonly Lazy<ReportTable?> kineticsLots;
+    private readonly Lazy<Core.Conversion.LotConversion[]> lotsInSheetOrder;
+
+    public SharedTables(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        lots = new(() => ReviewTables.Lots(review), LazyThreadSafetyMode.ExecutionAndPublication);
+        byStrain = new(() => ReviewTables.ByStrainIndices(review), LazyThreadSafetyMode.ExecutionAndPublication);
+        lotsByStrain = new(() => lots.Value.Reordered(byStrain.Value), LazyThreadSafetyMode.ExecutionAndPublication);
+        lotsInSheetOrder = new(() => byStrain.Value.Select(i => review.Lots[i]).ToArray(), LazyThreadSafetyMode.ExecutionAndPublication);
+        kineticsLots = new(() => review.Kinetics is { } k ? KineticsTables.Lots(k) : null, LazyThreadSafetyMode.ExecutionAndPublication);
+    }
+
+    /// <summary>One row per lot in input order (data/lots.csv).</summary>
+    public ReportTable Lots => lots.Value;
+
+    /// <summary>The same rows in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>).</summary>
+    public ReportTable LotsByStrain => lotsByStrain.Value;
+
+    /// <summary>The review's lots in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>), sorted once with the table.</summary>
+    public IReadOnlyList<Core.Conversion.LotConversion> LotsInSheetOrder => lotsInSheetOrder.Value;
+
+    /// <summary>Kinetics per lot (data/kinetics.csv and the kinetics sheet), or null without logs.</summary>
+    public ReportTable? KineticsLots => kineticsLots.Value;
+}

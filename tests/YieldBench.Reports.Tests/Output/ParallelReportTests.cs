@@ -1,0 +1,162 @@
+using System.Text;
+using YieldBench.Core.Kinetics;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
+using YieldBench.Core.Units;
+using YieldBench.Reports.Charts;
+using YieldBench.Reports.Data;
+using YieldBench.Reports.Kinetics;
+using YieldBench.Reports.Tables;
+using YieldBench.Reports.Tests.Fixtures;
+using YieldBench.Reports.Tests.Kinetics;
+using YieldBench.Reports.Workbook;
+
+namespace YieldBench.Reports.Tests.Output;
+
+/// <summary>
+/// ReportWriter makes the data files, the charts and the workbook's layout side by side; these tests hold it to the
+/// bytes the writers give when each is run on its own, one after another.
+/// </summary>
+public sealed class ParallelReportTests
+{
+    private static readonly UTF8Encoding Utf8NoBom = new(encoderShouldEmitUTF8Identifier: false);
+
+    // The sample review with invented logs for two lots, so the kinetics data file, charts and sheet are made too.
+    private static ReviewResult ReviewWithLogs()
+    {
+        var review = SampleReview.Build();
+        FermentationLog Log(string id, int season, double step, double[] brix, double[] temps) =>
+            new(id, season, brix.Select((b, i) => new LogReading(KineticsReportData.Start.AddHours(i * step), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
+        var logs = new[]
+        {
+            Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
+            Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
+        };
+        return review with { Kinetics = KineticsAnalysis.Run(review.Lots, logs, KineticsSettings.Default) };
+    }
+
+    [Fact]
+    public void The_report_holds_the_bytes_each_writer_gives_on_its_own()
+    {
+        // Given a review with logs, written by the report writer, and each output made separately, one after another
+        using var temp = new TempFolder();
+        var review = ReviewWithLogs();
+        var steps = new List<string>();
+        var output = ReportWriter.Write(review, temp["report"], new SynchronousProgress(steps));
+
+        var alone = new List<ChartFile>(ReviewCharts.WriteAll(review, temp["alone"]));
+        alone.AddRange(KineticsCharts.RenderFiles(review.Kinetics!, review.Lots, temp["alone"])
+            .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
+        var expected = new Dictionary<string, byte[]>(StringComparer.Ordinal)
+        {
+            ["data/lots.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Lots(review))),
+            ["data/groups.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Groups(review))),
+            ["data/flags.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Flags(review))),
+            ["data/intake-issues.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.IntakeIssues(review))),
+            ["data/house-factor.json"] = Utf8NoBom.GetBytes(HouseFactorJson.Write(review.HouseFactor)),
+            ["data/kinetics.csv"] = Utf8NoBom.GetBytes(Csv(w => KineticsCsv.Write(review.Kinetics!, w))),
+            [ReportWriter.WorkbookName] = WorkbookWriter.Build(review, alone),
+        };
+        foreach (var chart in alone)
+        {
+            expected["charts/" + Path.GetFileName(chart.Path)] = File.ReadAllBytes(chart.Path);
+        }
+
+        // Then it wrote exactly those files, each with the same bytes, listed in order, after the two steps in order
+        Assert.Equal(expected.Keys.Order(StringComparer.Ordinal), output.Files);
+        foreach (var (relative, bytes) in expected)
+        {
+            Assert.True(bytes.AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(output.Folder, relative))), relative + " differs");
+        }
+
+        Assert.Equal([ReportWriter.ParallelStep, ReportWriter.WorkbookStep], steps);
+        Assert.Equal(
+            [ReportWriter.ManifestName, .. output.Files],
+            File.ReadAllText(Path.Combine(output.Folder, ReportWriter.ManifestName)).Split('\n', StringSplitOptions.RemoveEmptyEntries));
+    }
+
+    [Fact]
+    public void Two_runs_write_the_same_bytes_however_the_threads_are_scheduled()
+    {
+        // Given the same review written three times into fresh folders
+        using var temp = new TempFolder();
+        var outputs = Enumerable.Range(0, 3).Select(i => ReportWriter.Write(ReviewWithLogs(), temp["run" + i])).ToArray();
+
+        // Then every run lists the same files with the same bytes
+        foreach (var other in outputs.Skip(1))
+        {
+            Assert.Equal(outputs[0].Files, other.Files);
+            foreach (var relative in outputs[0].Files)
+            {
+                Assert.True(
+                    File.ReadAllBytes(Path.Combine(outputs[0].Folder, relative)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(other.Folder, relative))),
+                    relative + " differs between runs");
+            }
+        }
+    }
+
+    [Fact]
+    public void The_shared_lots_sheet_table_is_the_table_built_in_the_sheet_s_order()
+    {
+        // Given the review, its lots table built in the sheet's order, and the data file's rows reordered for the sheet
+        var review = ReviewWithLogs();
+        var built = ReviewTables.Lots(review, ReviewTables.ByStrain(review));
+        var shared = new SharedTables(review).LotsByStrain;
+
+        // Then they hold the same cells and highlights, row by row
+        Assert.Equal(built.Columns, shared.Columns);
+        Assert.Equal(built.Highlighted, shared.Highlighted);
+        Assert.Equal(built.Rows.Count, shared.Rows.Count);
+        for (int r = 0; r < built.Rows.Count; r++)
+        {
+            Assert.Equal(built.Rows[r], shared.Rows[r]);
+        }
+
+        Assert.Contains(true, shared.Highlighted);
+    }
+
+    [Fact]
+    public void The_lots_sheet_order_is_by_strain_season_and_lot_id_with_ties_in_input_order()
+    {
+        // Given lots in a shuffled order with some lots twice (equal keys), and the order written as a stable sort
+        var review = SampleReview.Build();
+        var lots = review.Lots.Reverse().Concat(review.Lots.Where((_, i) => i % 5 == 0)).ToArray();
+        var shuffled = review with { Lots = lots };
+        var expected = lots.Select((l, i) => (l, i)).OrderBy(x => x.l.Lot.Strain, StringComparer.Ordinal).ThenBy(x => x.l.Lot.Season)
+            .ThenBy(x => x.l.Lot.LotId, StringComparer.Ordinal).Select(x => x.i).ToArray();
+
+        // Then the sheet order gives the same indices (the repeated lots in the order they came)
+        Assert.Equal(expected, ReviewTables.ByStrainIndices(shuffled));
+        Assert.Equal(expected.Select(i => lots[i]), ReviewTables.ByStrain(shuffled));
+    }
+
+    [Fact]
+    public void A_failing_data_file_fails_the_report_after_every_other_step_has_stopped()
+    {
+        // Given an output folder where the data folder cannot be made (a file stands in its place)
+        using var temp = new TempFolder();
+        string folder = temp["report"];
+        Directory.CreateDirectory(folder);
+        File.WriteAllText(Path.Combine(folder, "data"), "in the way");
+
+        // When the report is written, it fails with the file system's error, not a wrapped one
+        Assert.ThrowsAny<IOException>(() => ReportWriter.Write(ReviewWithLogs(), folder));
+
+        // Then no workbook or manifest was written, and no temporary file is left behind by any step
+        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.WorkbookName)));
+        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.ManifestName)));
+        Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
+    }
+
+    private static string Csv(Action<TextWriter> write)
+    {
+        using var w = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);
+        write(w);
+        return w.ToString();
+    }
+
+    private sealed class SynchronousProgress(List<string> steps) : IProgress<string>
+    {
+        public void Report(string value) => steps.Add(value);
+    }
+}
