@@ -10,7 +10,7 @@ namespace YieldBench.Modeling;
 /// <summary>
 /// The multi-variable house-factor candidate: an ML.NET linear regression trained by SDCA (stochastic dual coordinate
 /// ascent, squared loss, L2 penalty) on starting sugar, strain, vessel type and size, variety, YAN, pH and mean
-/// fermentation temperature where recorded. Numeric inputs are standardised (mean/variance), categorical inputs
+/// fermentation temperature where recorded. Numeric inputs are standardised (training mean and SD), categorical inputs
 /// one-hot encoded.
 /// <para>
 /// Why SDCA and not boosted trees: with a few hundred lots a linear model has far less variance than a tree
