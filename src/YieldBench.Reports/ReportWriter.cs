@@ -161,6 +161,26 @@ public static class ReportWriter
         }
     }
 
+    /// <summary>
+    /// Builds and discards a one-cell workbook and a small chart, so that the workbook and chart code are compiled
+    /// while the inputs are read (a command calls this on a spare thread; it writes no file and holds no state).
+    /// </summary>
+    public static void WarmUp()
+    {
+        using (var workbook = new ClosedXML.Excel.XLWorkbook())
+        {
+            workbook.AddWorksheet("warm-up").Cell(1, 1).Value = 1;
+            using var sink = new MemoryStream();
+            workbook.SaveAs(sink);
+        }
+
+        Charts.ReportFonts.EnsureRegistered();
+        var plot = new ScottPlot.Plot();
+        plot.Add.Scatter(new double[] { 0, 1 }, new double[] { 0, 1 });
+        plot.Title("warm-up");
+        plot.GetImageBytes(64, 48, ScottPlot.ImageFormat.Png);
+    }
+
     /// <summary>The files an earlier run listed in the folder's manifest (empty when none).</summary>
     public static IReadOnlyList<string> ReadManifest(string folder)
     {

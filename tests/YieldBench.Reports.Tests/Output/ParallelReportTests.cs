@@ -36,6 +36,33 @@ public sealed class ParallelReportTests
     }
 
     [Fact]
+    public async Task The_warm_up_beside_a_report_changes_none_of_its_bytes_and_writes_nothing_itself()
+    {
+        // Given a review written once on its own
+        using var temp = new TempFolder();
+        var review = ReviewWithLogs();
+        ReportWriter.Write(review, temp["alone"]);
+
+        // When the warm-up runs on other threads while the same review is written again
+        var warmUps = Enumerable.Range(0, 3).Select(_ => Task.Run(ReportWriter.WarmUp)).ToArray();
+        ReportWriter.Write(review, temp["beside"]);
+        await Task.WhenAll(warmUps);
+
+        // Then both folders hold the same files with the same bytes (the warm-up shares the font registry and
+        // the workbook library with the writer), and nothing else appeared in the temporary folder
+        string[] Files(string folder) => Directory.GetFiles(folder, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(folder, f)).Order(StringComparer.Ordinal).ToArray();
+        var alone = Files(temp["alone"]);
+        Assert.Equal(alone, Files(temp["beside"]));
+        Assert.Contains(ReportWriter.WorkbookName, alone);
+        foreach (string f in alone)
+        {
+            Assert.Equal(File.ReadAllBytes(Path.Combine(temp["alone"], f)), File.ReadAllBytes(Path.Combine(temp["beside"], f)));
+        }
+
+        Assert.Equal(["alone", "beside"], Directory.GetFileSystemEntries(temp.Path).Select(p => Path.GetFileName(p)!).Order(StringComparer.Ordinal).ToArray());
+    }
+
+    [Fact]
     public void The_report_holds_the_bytes_each_writer_gives_on_its_own()
     {
         // Given a review with logs, written by the report writer, and each output made separately, one after another
