@@ -44,8 +44,7 @@ public static class Robust
             dev[i] = Math.Abs(a[i] - med);
         }
 
-        Array.Sort(dev);
-        return Descriptive.MedianOfSorted(dev);
+        return Descriptive.MedianInPlace(dev);
     }
 
     /// <summary>
