@@ -260,43 +260,82 @@ public static class KineticsAnalysis
         var flags = new HashSet<string>(StringComparer.Ordinal);
 
         // Out-of-order: a reading logged before the one above it in the file.
+        bool inOrder = true;
         for (int i = 1; i < raw.Count; i++)
         {
             if (raw[i].Timestamp < raw[i - 1].Timestamp)
             {
+                inOrder = false;
                 flags.Add("out-of-order-timestamp");
                 findings.Add(new(key, "out-of-order-timestamp", $"Lot {key}: the reading at {Stamp(raw[i].Timestamp)} comes after one at {Stamp(raw[i - 1].Timestamp)} in the log; the readings were sorted by time. Check the date and time of this row.", raw[i].Source));
             }
         }
 
-        var sorted = raw.Select((r, i) => (r, i)).OrderBy(p => p.r.Timestamp).ThenBy(p => p.i).Select(p => p.r).ToArray();
-        var sugarRaw = new List<(DateTime T, double Brix, SourceRef? Src)>();
-        var tempRaw = new List<(DateTime T, double C, SourceRef? Src)>();
-        foreach (var group in sorted.GroupBy(r => r.Timestamp))
+        // Sorted by time, readings of equal time kept in file order (a stable sort; nothing to do for a log in order).
+        var sorted = raw.ToArray();
+        if (!inOrder)
         {
-            var g = group.ToArray();
-            if (g.Length > 1)
+            var position = Enumerable.Range(0, sorted.Length).ToArray();
+            Array.Sort(position, (a, b) => raw[a].Timestamp != raw[b].Timestamp ? raw[a].Timestamp.CompareTo(raw[b].Timestamp) : a.CompareTo(b));
+            for (int i = 0; i < sorted.Length; i++)
+            {
+                sorted[i] = raw[position[i]];
+            }
+        }
+
+        // Readings of one time are merged: sugar and temperature each averaged over the readings that hold them.
+        var sugarRaw = new List<(DateTime T, double Brix, SourceRef? Src)>(sorted.Length);
+        var tempRaw = new List<(DateTime T, double C, SourceRef? Src)>(sorted.Length);
+        for (int from = 0, to; from < sorted.Length; from = to)
+        {
+            var time = sorted[from].Timestamp;
+            to = from + 1;
+            while (to < sorted.Length && sorted[to].Timestamp == time)
+            {
+                to++;
+            }
+
+            if (to - from > 1)
             {
                 flags.Add("duplicate-timestamp");
-                findings.Add(new(key, "duplicate-timestamp", $"Lot {key}: {g.Length} readings share the time {Stamp(g[0].Timestamp)}; their values were averaged. Check whether one of them has a wrong time.", g[1].Source));
+                findings.Add(new(key, "duplicate-timestamp", $"Lot {key}: {to - from} readings share the time {Stamp(time)}; their values were averaged. Check whether one of them has a wrong time.", sorted[from + 1].Source));
             }
 
-            var sug = g.Where(r => r.Sugar is not null).ToArray();
-            if (sug.Length > 0)
+            double sugarSum = 0, tempSum = 0;
+            int sugarCount = 0, tempCount = 0;
+            SourceRef? sugarSource = null, tempSource = null;
+            for (int i = from; i < to; i++)
             {
-                sugarRaw.Add((group.Key, sug.Average(r => r.Sugar!.Value.Brix), sug[0].Source));
+                var r = sorted[i];
+                if (r.Sugar is { } sr)
+                {
+                    sugarSource = sugarCount == 0 ? r.Source : sugarSource;
+                    sugarSum += sr.Brix;
+                    sugarCount++;
+                }
+
+                if (r.TemperatureC is { } c)
+                {
+                    tempSource = tempCount == 0 ? r.Source : tempSource;
+                    tempSum += c;
+                    tempCount++;
+                }
             }
 
-            var tem = g.Where(r => r.TemperatureC is not null).ToArray();
-            if (tem.Length > 0)
+            if (sugarCount > 0)
             {
-                tempRaw.Add((group.Key, tem.Average(r => r.TemperatureC!.Value), tem[0].Source));
+                sugarRaw.Add((time, sugarSum / sugarCount, sugarSource));
+            }
+
+            if (tempCount > 0)
+            {
+                tempRaw.Add((time, tempSum / tempCount, tempSource));
             }
         }
 
         if (sugarRaw.Count < 2)
         {
-            findings.Add(new(key, "too-few-sugar-readings", $"Lot {key}: the log has {sugarRaw.Count} sugar reading(s); rates need at least two. The lot's kinetics were not analysed.", sorted.FirstOrDefault()?.Source));
+            findings.Add(new(key, "too-few-sugar-readings", $"Lot {key}: the log has {sugarRaw.Count} sugar reading(s); rates need at least two. The lot's kinetics were not analysed.", sorted.Length > 0 ? sorted[0].Source : null));
             return null;
         }
 
@@ -478,7 +517,7 @@ public static class KineticsAnalysis
             findings.Add(new(key, "sluggish", $"Lot {key}: sugar went from {F(sluggish.BrixStart)} to {F(sluggish.BrixEnd)} °Brix between {Stamp(sluggish.Start)} and {Stamp(sluggish.End)} ({F(sluggish.MeanRateBrixPerDay, "0.00")} °Brix/day, under {F(sluggishRate, "0.00")} for {F(s.SluggishHours, "0")} h while above {F(s.SluggishAboveBrix)} °Brix, after the fastest point of the ferment).", sugar.First(p => p.Time == sluggish.End).Source));
         }
 
-        var heat = new List<HeatPoint>();
+        var heat = new List<HeatPoint>(sugar.Length);
         foreach (var p in sugar)
         {
             if (p.TemperatureC is not { } c)
