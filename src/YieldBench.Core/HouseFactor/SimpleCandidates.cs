@@ -100,9 +100,8 @@ public sealed class PerStrainMedianCandidate : ICandidateTrainer
     {
         ArgumentNullException.ThrowIfNull(lots);
         var pooled = new StrainLine("*", 0, Descriptive.Median(lots.Select(l => l.AbvPerBrix)), lots.Count);
-        var strains = lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
-            .OrderBy(g => g.Key, StringComparer.Ordinal)
-            .Select(g => new StrainLine(g.Key, 0, Descriptive.Median(g.Select(l => l.AbvPerBrix)), g.Count()))
+        var strains = StrainGroups.AbvPerBrix(lots)
+            .Select(g => new StrainLine(g.Strain, 0, Descriptive.Median(g.Values), g.Values.Length))
             .ToArray();
         return new SugarLines(SugarCurve.Line, pooled, strains);
     }
@@ -133,10 +132,7 @@ public sealed class ShrunkStrainCandidate : ICandidateTrainer
     public IAbvPredictor Train(IReadOnlyList<LotConversion> lots, int seed)
     {
         ArgumentNullException.ThrowIfNull(lots);
-        var groups = lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
-            .OrderBy(g => g.Key, StringComparer.Ordinal)
-            .Select(g => (g.Key, (IReadOnlyList<double>)g.Select(l => l.AbvPerBrix).ToArray()))
-            .ToArray();
+        var groups = StrainGroups.AbvPerBrix(lots).Select(g => (g.Strain, (IReadOnlyList<double>)g.Values)).ToArray();
         var shrunk = EmpiricalBayesShrinkage.Shrink(groups);
         return new SugarLines(
             SugarCurve.Line,
