@@ -33,27 +33,32 @@ public static class ReviewCharts
     }
 
     /// <summary>Draws every review chart into <paramref name="folder"/> and returns them in placement order.</summary>
-    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder)
+    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder) =>
+        ChartImage.RenderAll(Plan(review, folder).Select(c => c.Job).ToArray());
+
+    /// <summary>The charts <see cref="WriteAll"/> draws, in placement order, each with its file known before it is drawn.</summary>
+    internal static IReadOnlyList<PlannedChart> Plan(ReviewResult review, string folder)
     {
         ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(folder);
         if (review.Lots.Count == 0)
         {
             return [];
         }
 
-        var jobs = new List<Func<ChartFile>>
+        var charts = new List<PlannedChart>
         {
-            () => ChartImage.Save(AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
-            () => ChartImage.Save(FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
-            () => ChartImage.Save(FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
+            PlannedChart.Of(() => AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
+            PlannedChart.Of(() => FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
+            PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
         };
         if (review.HouseFactor.Candidates.Count > 0)
         {
-            jobs.Add(() => ChartImage.Save(BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
+            charts.Add(PlannedChart.Of(() => BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
         }
 
-        jobs.Add(() => ChartImage.Save(FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
-        return ChartImage.RenderAll(jobs);
+        charts.Add(PlannedChart.Of(() => FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
+        return charts;
     }
 
     /// <summary>Strains in a stable order: most lots first, then code.</summary>

@@ -48,13 +48,25 @@ public static class KineticsCharts
     /// <summary>As <see cref="Render"/>, with each chart's title for the workbook.</summary>
     public static IReadOnlyList<ChartFile> RenderFiles(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
     {
+        var (charts, startFirst) = Plan(review, lots, directory);
+
+        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
+        return charts.Count == 0 ? [] : ChartImage.RenderAll(charts.Select(c => c.Job).ToArray(), startFirst);
+    }
+
+    /// <summary>
+    /// The charts <see cref="RenderFiles"/> draws, in their order, each with its file known before it is drawn, and
+    /// the indices of those to start first (the two whose cost grows with the lot count).
+    /// </summary>
+    internal static (IReadOnlyList<PlannedChart> Charts, IReadOnlyList<int> StartFirst) Plan(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
+    {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(directory);
-        var files = new List<ChartFile>();
+        var charts = new List<PlannedChart>();
         if (review.Lots.Count == 0)
         {
-            return files;
+            return (charts, []);
         }
 
         // Lots are drawn in the order of the lot records so pages and colours are stable.
@@ -69,36 +81,34 @@ public static class KineticsCharts
             ? ordered
             : ordered.Where(k => k.Flagged).Concat(ordered.Where(k => !k.Flagged)).Take(capacity).ToArray();
         int pages = (shown.Length + OverviewPanels - 1) / OverviewPanels;
-        var jobs = new List<Func<ChartFile>>();
         for (int page = 0; page < pages; page++)
         {
             var chunk = shown.Skip(page * OverviewPanels).Take(OverviewPanels).ToArray();
             string path = Path.Combine(directory, $"kinetics-overview-{page + 1}.png");
             string title = OverviewTitle(page, pages, shown.Length, ordered.Length);
-            jobs.Add(() =>
+            var file = new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
+            charts.Add(new PlannedChart(file, () =>
             {
                 using (var png = OverviewPng(chunk, title))
                 {
                     ChartImage.WritePng(path, png);
                 }
 
-                return new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
-            });
+                return file;
+            }));
         }
 
-        int strainJob = jobs.Count;
-        jobs.Add(() => ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
-        jobs.Add(() => ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
+        int strainJob = charts.Count;
+        charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
+        charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         foreach (var k in ordered.Where(k => k.Flagged).Take(MaxLotCharts))
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
-            jobs.Add(() => ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
+            charts.Add(PlannedChart.Of(() => LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
         }
 
-        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
-        files.AddRange(ChartImage.RenderAll(jobs, [strainJob, strainJob + 1]));
-        return files;
+        return (charts, [strainJob, strainJob + 1]);
     }
 
     /// <summary>

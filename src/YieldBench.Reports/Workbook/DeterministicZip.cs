@@ -38,9 +38,11 @@ public static partial class DeterministicZip
     /// As <see cref="Normalise(byte[], IReadOnlyDictionary{string, ValueTuple{string, IReadOnlyList{DeferredBody}}})"/>,
     /// reading the package from <paramref name="zip"/> and writing the normalised one straight to
     /// <paramref name="output"/> (seekable, as a file or memory stream is: the bytes are the same either way), so a large
-    /// workbook is never held whole in memory a second and third time.
+    /// workbook is never held whole in memory a second and third time. Where <paramref name="partBytes"/> gives bytes
+    /// for an entry (a part added as a stand-in), they are its content; it is asked as each entry is reached, in order.
     /// </summary>
-    internal static void Normalise(Stream zip, Stream output, IReadOnlyDictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)> streamedSheets)
+    internal static void Normalise(
+        Stream zip, Stream output, IReadOnlyDictionary<string, (string Sheet, IReadOnlyList<DeferredBody> Bodies)> streamedSheets, Func<string, byte[]?>? partBytes = null)
     {
         ArgumentNullException.ThrowIfNull(zip);
         ArgumentNullException.ThrowIfNull(output);
@@ -70,7 +72,11 @@ public static partial class DeterministicZip
                 copy.LastWriteTime = EntryTime;
                 using var from = entry.Open();
                 using var to = copy.Open();
-                if (isStreamed)
+                if (!isStreamed && partBytes?.Invoke(entry.FullName) is { } content)
+                {
+                    to.Write(content);
+                }
+                else if (isStreamed)
                 {
                     // Composed on this thread and deflated on another, in fixed-size chunks (the same bytes each run).
                     using var pipe = new ChunkPipe(to);
