@@ -70,7 +70,13 @@ public static class KineticsCharts
         }
 
         // Lots are drawn in the order of the lot records so pages and colours are stable.
-        var order = lots.Select((l, i) => (l.Lot.Key, i)).GroupBy(p => p.Key).ToDictionary(g => g.Key, g => g.First().i, StringComparer.Ordinal);
+        // Each key's first place (a repeated key keeps its first).
+        var order = new Dictionary<string, int>(lots.Count, StringComparer.Ordinal);
+        for (int i = 0; i < lots.Count; i++)
+        {
+            order.TryAdd(lots[i].Lot.Key, i);
+        }
+
         var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
         var strains = StrainOrder(ordered, lots);
 
@@ -668,8 +674,9 @@ public static class KineticsCharts
         float small = Math.Clamp(pw / 22f, 11f, 20f);
         using var surface = ChartImage.NewSurface(width, height);
         var canvas = surface.Canvas;
-        using var regular = ReportFonts.Typeface(bold: false);
-        using var bold = ReportFonts.Typeface(bold: true);
+        // The process's shared typefaces: reading and parsing the two font files again for every page was a large part of a page's time.
+        var regular = ReportFonts.Shared(bold: false);
+        var bold = ReportFonts.Shared(bold: true);
         using var ink = new SKPaint { Color = SKColors.Black, IsAntialias = true };
         using (var font = new SKFont(bold, ChartStyle.TitleSize * 0.85f))
         {
