@@ -321,7 +321,8 @@ public static class ReviewCharts
 
     private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
     {
-        var flagged = lots.Where(l => ReviewTables.HasStrainFlag(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var hasStrainFlag = ReviewTables.StrainFlagTest(review);
+        var flagged = lots.Where(l => hasStrainFlag(l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;

@@ -215,6 +215,17 @@ public static class ReviewTables
         return index.StrainFlags(index.KeyOf(lot)).Count > 0;
     }
 
+    /// <summary>
+    /// <see cref="HasStrainFlag"/> for many lots: the review's lookups are found once, and the review's own lots are
+    /// answered from the set of those the strain review flagged (built once per review), by reference.
+    /// </summary>
+    public static Func<LotConversion, bool> StrainFlagTest(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var index = FlagIndex.Of(review);
+        return index.HasStrainFlag;
+    }
+
     /// <summary>The most serious follow-up item of a lot (strain review or kinetics), or null when it has none.</summary>
     public static FlagSeverity? LotSeverity(ReviewResult review, LotConversion lot)
     {
@@ -276,6 +287,19 @@ public static class ReviewTables
         }
 
         public IReadOnlyList<LotFlag> Items { get; }
+
+        /// <summary>Whether the strain review flagged the lot (a reviewed lot by reference, any other by its key).</summary>
+        public bool HasStrainFlag(LotConversion lot)
+        {
+            ArgumentNullException.ThrowIfNull(lot);
+            return keys.ContainsKey(lot) ? StrainFlaggedLots.Contains(lot) : StrainFlags(lot.Lot.Key).Count > 0;
+        }
+
+        // The reviewed lots with a strain-review flag, by reference (a few per cent of the lots: a small set to probe).
+        private HashSet<LotConversion> StrainFlaggedLots => LazyInitializer.EnsureInitialized(ref strainFlaggedLots, () =>
+            new HashSet<LotConversion>(keys.Where(p => strainFlags.ContainsKey(p.Value)).Select(p => p.Key), ReferenceEqualityComparer.Instance));
+
+        private HashSet<LotConversion>? strainFlaggedLots;
 
         public static FlagIndex Of(ReviewResult review) => Cache.GetValue(review, r => new FlagIndex(r));
 
