@@ -248,7 +248,9 @@ public static class ReviewTables
     /// </summary>
     private sealed class FlagIndex
     {
-        private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, FlagIndex> Cache = new();
+        // Held through a Lazy: the table runs its factory outside its lock, and the report's threads (data files,
+        // workbook layout, charts) all ask at once, so each built the whole index; now one builds it and the others wait.
+        private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<FlagIndex>> Cache = new();
         private readonly Dictionary<string, List<LotFlag>> strainFlags = new(StringComparer.Ordinal);
         private readonly Dictionary<string, LotKinetics> kinetics = new(StringComparer.Ordinal);
         private readonly Dictionary<string, FlagSeverity> worst = new(StringComparer.Ordinal);
@@ -301,7 +303,8 @@ public static class ReviewTables
 
         private HashSet<LotConversion>? strainFlaggedLots;
 
-        public static FlagIndex Of(ReviewResult review) => Cache.GetValue(review, r => new FlagIndex(r));
+        public static FlagIndex Of(ReviewResult review) =>
+            Cache.GetValue(review, r => new Lazy<FlagIndex>(() => new FlagIndex(r), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
         /// <summary>The lot's "season/lot" key (held for the review's lots, formatted for any other).</summary>
         public string KeyOf(LotConversion lot) => keys.TryGetValue(lot, out var key) ? key : lot.Lot.Key;
