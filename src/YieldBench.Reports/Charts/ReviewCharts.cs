@@ -65,9 +65,23 @@ public static class ReviewCharts
     public static IReadOnlyList<string> StrainOrder(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
-            .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
+        return GroupsOf(review).Order.ToArray();
     }
+
+    // The strain grouping every lot chart starts from, made once per review: the charts are drawn side by side and
+    // each grouped 100,000 lots again. A Lazy, because the table runs its factory outside its lock.
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<StrainGroups>> Groups = new();
+
+    private sealed record StrainGroups(IReadOnlyList<string> Order, ILookup<string, LotConversion> Lots);
+
+    private static StrainGroups GroupsOf(ReviewResult review) => Groups.GetValue(review, r => new Lazy<StrainGroups>(
+        () =>
+        {
+            var lots = r.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
+            var order = lots.OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
+            return new StrainGroups(order, lots);
+        },
+        LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
     /// <summary>
     /// Final alcohol against starting sugar: points by strain, each strain's fitted line, and the recommended
@@ -77,7 +91,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Final alcohol vs starting sugar", "Starting sugar after additions (°Brix)", "Final alcohol (% v/v)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         double xMin = review.Lots.Min(l => l.EffectiveStartingBrix), xMax = review.Lots.Max(l => l.EffectiveStartingBrix);
         double[] grid = Enumerable.Range(0, 41).Select(i => xMin + ((xMax - xMin) * i / 40.0)).ToArray();
 
@@ -131,7 +145,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         // Keyed by reference: a lot's record equality hashes every field, which at 100,000 lots cost most of this chart.
         var pointXs = new Dictionary<LotConversion, double>(ReferenceEqualityComparer.Instance);
@@ -188,7 +202,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by season, per strain", "Season", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         var seasons = review.Lots.Select(l => l.Lot.Season).Distinct().Order().ToArray();
         var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
@@ -302,7 +316,7 @@ public static class ReviewCharts
     }
 
     /// <summary>The review's lots by strain (ordinal), each strain's lots in review order; one pass instead of one per strain.</summary>
-    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => review.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
+    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => GroupsOf(review).Lots;
 
     private static SugarLines? StrainLinesForChart(ReviewResult review)
     {
