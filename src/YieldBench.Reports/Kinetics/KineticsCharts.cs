@@ -264,6 +264,7 @@ public static class KineticsCharts
     /// <see cref="MinCourseLots"/> lots and at least half of the strain's lots are known, so a few long logs cannot make
     /// the tail look like the strain.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static StrainCourse Course(string strain, IReadOnlyList<LotKinetics> lots)
     {
         ArgumentNullException.ThrowIfNull(strain);
@@ -576,6 +577,7 @@ public static class KineticsCharts
     }
 
     /// <summary>Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs), coloured by strain.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static Plot RateAgainstSugar(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
     {
         ArgumentNullException.ThrowIfNull(lots);
@@ -624,6 +626,7 @@ public static class KineticsCharts
     /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
     /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void ForEachRate(LotKinetics k, Action<double, double> point)
     {
         if (k.Dense)

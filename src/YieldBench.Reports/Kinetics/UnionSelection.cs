@@ -18,6 +18,7 @@ internal static class UnionSelection
     /// of <paramref name="unordered"/> (permuted in place) and <paramref name="ascending"/>. The ranks may come in any
     /// order and repeat, and must lie in [0, n); neither sample may hold NaN.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void OrderStatistics(Span<double> unordered, ReadOnlySpan<double> ascending, ReadOnlySpan<int> ranks, Span<double> results)
     {
         if (results.Length < ranks.Length)
@@ -68,6 +69,7 @@ internal static class UnionSelection
         OrderStatistics(unordered, CollectionsMarshal.AsSpan(ascending), ranks, results);
 
     /// <summary>The k-th smallest (0-based) of the union of two ascending samples, by bisection on how many come from each.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static double OfSorted(ReadOnlySpan<double> a, ReadOnlySpan<double> b, int k)
     {
         // Take i from a and k + 1 − i from b: the smallest i for which a's next value is not below b's last taken one.
@@ -90,6 +92,7 @@ internal static class UnionSelection
     }
 
     // The wanted ranks count from the start of the union; `below` values of it lie below both segments.
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void Select(Span<double> a, ReadOnlySpan<double> b, int below, ReadOnlySpan<int> ranks, Span<double> results, int depth)
     {
         while (ranks.Length > 0)
@@ -169,6 +172,7 @@ internal static class UnionSelection
         x < y ? (y < z ? y : x < z ? z : x) : (x < z ? x : y < z ? z : y);
 
     /// <summary>First index whose value is not below <paramref name="v"/>.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static int LowerBound(ReadOnlySpan<double> b, double v)
     {
         int lo = 0, hi = b.Length;
@@ -189,6 +193,7 @@ internal static class UnionSelection
     }
 
     /// <summary>First index whose value is above <paramref name="v"/>.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static int UpperBound(ReadOnlySpan<double> b, double v)
     {
         int lo = 0, hi = b.Length;

@@ -63,6 +63,7 @@ public static class ReviewTables
     /// One row per lot used. <paramref name="order"/> gives the row order (data files keep input order; the lots sheet
     /// groups rows by strain so each strain's chart series is one block of cells).
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static ReportTable Lots(ReviewResult review, IEnumerable<LotConversion>? order = null)
     {
         ArgumentNullException.ThrowIfNull(review);
