@@ -57,9 +57,12 @@ public static class ReportWriter
 
     /// <summary>
     /// Writes everything; <paramref name="progress"/> hears the name of each step (<see cref="ParallelStep"/>, then
-    /// <see cref="WorkbookStep"/>). The data files, the charts and the workbook's layout do not depend on one another
-    /// and are made at the same time, each on its own thread (the charts on several); the workbook is finished once
-    /// the charts it shows exist. Each output's bytes and the manifest do not depend on which thread finished first.
+    /// <see cref="WorkbookStep"/>). The data files, the charts and the workbook do not depend on one another until the
+    /// workbook's pictures: they are made at the same time, each on its own thread (the charts on several). The
+    /// workbook is laid out and its sheets written while the charts are drawn; each picture goes in when the package
+    /// reaches it, after every sheet, once its chart exists. The second step is what remains of the workbook after
+    /// the data files and charts are done. Each output's bytes and the manifest do not depend on which thread
+    /// finished first.
     /// </summary>
     public static ReportOutput Write(ReviewResult review, string folder, IProgress<string>? progress = null)
     {
@@ -72,33 +75,91 @@ public static class ReportWriter
         var written = new List<string>();
 
         progress?.Report(ParallelStep);
+        string chartFolder = Path.Combine(root, "charts");
+        var plan = ReviewCharts.Plan(review, chartFolder).ToList();
+        int reviewCharts = plan.Count;
+        IReadOnlyList<int> kineticsFirst = [];
+        if (review.Kinetics is { } k)
+        {
+            var (kinetics, first) = KineticsCharts.Plan(k, review.Lots, chartFolder);
+
+            // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
+            kineticsFirst = first;
+            plan.AddRange(kinetics.Select(c => c with { File = c.File with { OnOverview = Path.GetFileName(c.File.Path) == "kinetics-strain-curves.png" } }));
+        }
+
+        // Each chart's job, and the moment it is drawn: the workbook waits for a chart only when it needs its picture.
+        var charts = plan.Select(c => c.File).ToArray();
+        var drawn = plan.Select(_ => new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
+        var jobs = plan.Select((c, i) => (Func<ChartFile>)(() =>
+        {
+            c.Job();
+            drawn[i].SetResult();
+            return charts[i];
+        })).ToArray();
+        byte[] Picture(int i)
+        {
+            drawn[i].Task.GetAwaiter().GetResult();
+            return File.ReadAllBytes(charts[i].Path);
+        }
+
         var dataFiles = Started(() => WriteDataFiles(review, root, tables));
-        var layout = Started(() => WorkbookWriter.Layout(review, tables: tables));
-        List<ChartFile> charts;
+        var laidOut = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        var workbook = Started(() =>
+        {
+            LaidOutWorkbook layout;
+            try
+            {
+                layout = WorkbookWriter.Layout(review, tables: tables);
+            }
+            finally
+            {
+                laidOut.SetResult();
+            }
+
+            // The workbook replaces an earlier one only when the data files were written too (every chart was, or a
+            // picture would have failed it).
+            WorkbookWriter.Write(layout, charts, Picture, () => dataFiles.GetAwaiter().GetResult(), Full(root, WorkbookName));
+            return true;
+        });
+        bool chartsDrawn = false;
         try
         {
-            string chartFolder = Path.Combine(root, "charts");
-            charts = ReviewCharts.WriteAll(review, chartFolder).ToList();
-            if (review.Kinetics is { } k)
+            // The review's charts, then the kinetics charts (their two largest first), in two batches as WriteAll and RenderFiles draw them.
+            ChartImage.RenderAll(jobs[..reviewCharts]);
+            if (reviewCharts < jobs.Length)
             {
-                // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
-                charts.AddRange(KineticsCharts.RenderFiles(k, review.Lots, chartFolder)
-                    .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
+                ChartImage.RenderAll(jobs[reviewCharts..], kineticsFirst);
             }
+
+            chartsDrawn = true;
+        }
+        catch (Exception e)
+        {
+            // A chart that was never drawn must not keep the workbook waiting for its picture.
+            foreach (var d in drawn)
+            {
+                d.TrySetException(e);
+            }
+
+            throw;
         }
         finally
         {
             // Nothing keeps writing into the folder after this method returns, whatever failed.
             WaitQuietly(dataFiles);
-            WaitQuietly(layout);
+            WaitQuietly(laidOut.Task);
+            if (!chartsDrawn || !dataFiles.IsCompletedSuccessfully)
+            {
+                WaitQuietly(workbook);
+            }
         }
 
         written.AddRange(dataFiles.GetAwaiter().GetResult());
         written.AddRange(charts.Select(c => Relative(root, c.Path)));
-        var laidOut = layout.GetAwaiter().GetResult();
 
         progress?.Report(WorkbookStep);
-        WorkbookWriter.Write(laidOut, charts, Full(root, WorkbookName));
+        workbook.GetAwaiter().GetResult();
         written.Add(WorkbookName);
 
         var files = written.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();

@@ -13,6 +13,23 @@ namespace YieldBench.Reports.Charts;
 /// <param name="OnOverview">True when the overview sheet shows it too (keep it for the few charts that explain the review at a glance).</param>
 public sealed record ChartFile(string Path, string Title, int Width, int Height, string? Sheet = null, bool OnOverview = true);
 
+/// <summary>A chart to be drawn: the file it becomes, known before it is drawn, and the job that draws it and returns that file.</summary>
+/// <param name="File">The chart file the job writes.</param>
+/// <param name="Job">Draws the chart into <see cref="ChartFile.Path"/> and returns <paramref name="File"/>.</param>
+internal sealed record PlannedChart(ChartFile File, Func<ChartFile> Job)
+{
+    /// <summary>A chart whose plot <paramref name="plot"/> builds, saved by <see cref="ChartImage.Save"/> to <paramref name="path"/>.</summary>
+    public static PlannedChart Of(Func<Plot> plot, string path, string title, string? sheet = null, bool onOverview = true)
+    {
+        var file = new ChartFile(System.IO.Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, sheet, onOverview);
+        return new PlannedChart(file, () =>
+        {
+            ChartImage.Save(plot(), path, title, sheet, onOverview: onOverview);
+            return file;
+        });
+    }
+}
+
 /// <summary>Renders plots to PNG bytes and files.</summary>
 public static class ChartImage
 {

@@ -85,6 +85,7 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
         : LegendItem.Single(this, LegendText, LegendMarker());
 
     /// <inheritdoc />
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public AxisLimits GetAxisLimits()
     {
         double left = double.PositiveInfinity, right = double.NegativeInfinity, bottom = double.PositiveInfinity, top = double.NegativeInfinity;
@@ -103,6 +104,7 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
     }
 
     /// <inheritdoc />
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public void Render(RenderPack rp)
     {
         ArgumentNullException.ThrowIfNull(rp);

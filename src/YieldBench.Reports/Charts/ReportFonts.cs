@@ -15,6 +15,8 @@ public static class ReportFonts
     public const string FamilyName = "DejaVu Sans";
 
     private static readonly Lock Gate = new();
+    private static readonly Lazy<SKTypeface> SharedRegular = new(() => Typeface(bold: false));
+    private static readonly Lazy<SKTypeface> SharedBold = new(() => Typeface(bold: true));
     private static bool registered;
 
     /// <summary>
@@ -36,7 +38,13 @@ public static class ReportFonts
         }
     }
 
-    /// <summary>The shipped typeface (regular or bold), read from the embedded resource.</summary>
+    /// <summary>
+    /// The shipped typeface (regular or bold), read once per process and shared by every chart on every thread (a
+    /// typeface does not change once made; ScottPlot's charts draw with these too). Never dispose it.
+    /// </summary>
+    public static SKTypeface Shared(bool bold) => bold ? SharedBold.Value : SharedRegular.Value;
+
+    /// <summary>The shipped typeface (regular or bold), read from the embedded resource (a new one, for the caller to dispose).</summary>
     public static SKTypeface Typeface(bool bold)
     {
         string name = bold ? "YieldBench.Reports.Fonts.DejaVuSans-Bold.ttf" : "YieldBench.Reports.Fonts.DejaVuSans.ttf";
@@ -51,9 +59,6 @@ public static class ReportFonts
 
     private sealed class EmbeddedFontResolver : IFontResolver
     {
-        private readonly Lazy<SKTypeface> regular = new(() => Typeface(bold: false));
-        private readonly Lazy<SKTypeface> bold = new(() => Typeface(bold: true));
-
         public SKTypeface? CreateTypeface(string fontName, FontWeight weight, FontSlant slant, FontSpacing spacing) =>
             CreateTypeface(fontName, weight >= FontWeight.SemiBold, slant != FontSlant.Upright);
 
@@ -65,7 +70,7 @@ public static class ReportFonts
                 return null;
             }
 
-            return bold ? this.bold.Value : regular.Value;
+            return Shared(bold);
         }
     }
 }

@@ -33,36 +33,55 @@ public static class ReviewCharts
     }
 
     /// <summary>Draws every review chart into <paramref name="folder"/> and returns them in placement order.</summary>
-    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder)
+    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder) =>
+        ChartImage.RenderAll(Plan(review, folder).Select(c => c.Job).ToArray());
+
+    /// <summary>The charts <see cref="WriteAll"/> draws, in placement order, each with its file known before it is drawn.</summary>
+    internal static IReadOnlyList<PlannedChart> Plan(ReviewResult review, string folder)
     {
         ArgumentNullException.ThrowIfNull(review);
+        ArgumentNullException.ThrowIfNull(folder);
         if (review.Lots.Count == 0)
         {
             return [];
         }
 
-        var jobs = new List<Func<ChartFile>>
+        var charts = new List<PlannedChart>
         {
-            () => ChartImage.Save(AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
-            () => ChartImage.Save(FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
-            () => ChartImage.Save(FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
+            PlannedChart.Of(() => AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
+            PlannedChart.Of(() => FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
+            PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
         };
         if (review.HouseFactor.Candidates.Count > 0)
         {
-            jobs.Add(() => ChartImage.Save(BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
+            charts.Add(PlannedChart.Of(() => BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
         }
 
-        jobs.Add(() => ChartImage.Save(FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
-        return ChartImage.RenderAll(jobs);
+        charts.Add(PlannedChart.Of(() => FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
+        return charts;
     }
 
     /// <summary>Strains in a stable order: most lots first, then code.</summary>
     public static IReadOnlyList<string> StrainOrder(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.Lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
-            .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
+        return GroupsOf(review).Order.ToArray();
     }
+
+    // The strain grouping every lot chart starts from, made once per review: the charts are drawn side by side and
+    // each grouped 100,000 lots again. A Lazy, because the table runs its factory outside its lock.
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<StrainGroups>> Groups = new();
+
+    private sealed record StrainGroups(IReadOnlyList<string> Order, ILookup<string, LotConversion> Lots);
+
+    private static StrainGroups GroupsOf(ReviewResult review) => Groups.GetValue(review, r => new Lazy<StrainGroups>(
+        () =>
+        {
+            var lots = r.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
+            var order = lots.OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
+            return new StrainGroups(order, lots);
+        },
+        LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
     /// <summary>
     /// Final alcohol against starting sugar: points by strain, each strain's fitted line, and the recommended
@@ -72,7 +91,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Final alcohol vs starting sugar", "Starting sugar after additions (°Brix)", "Final alcohol (% v/v)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         double xMin = review.Lots.Min(l => l.EffectiveStartingBrix), xMax = review.Lots.Max(l => l.EffectiveStartingBrix);
         double[] grid = Enumerable.Range(0, 41).Select(i => xMin + ((xMax - xMin) * i / 40.0)).ToArray();
 
@@ -126,7 +145,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         // Keyed by reference: a lot's record equality hashes every field, which at 100,000 lots cost most of this chart.
         var pointXs = new Dictionary<LotConversion, double>(ReferenceEqualityComparer.Instance);
@@ -183,7 +202,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by season, per strain", "Season", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = StrainOrder(review);
+        var strains = GroupsOf(review).Order;
         var seasons = review.Lots.Select(l => l.Lot.Season).Distinct().Order().ToArray();
         var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
@@ -297,7 +316,7 @@ public static class ReviewCharts
     }
 
     /// <summary>The review's lots by strain (ordinal), each strain's lots in review order; one pass instead of one per strain.</summary>
-    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => review.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
+    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => GroupsOf(review).Lots;
 
     private static SugarLines? StrainLinesForChart(ReviewResult review)
     {
@@ -316,7 +335,8 @@ public static class ReviewCharts
 
     private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
     {
-        var flagged = lots.Where(l => ReviewTables.HasStrainFlag(review, l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var hasStrainFlag = ReviewTables.StrainFlagTest(review);
+        var flagged = lots.Where(l => hasStrainFlag(l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;

@@ -48,17 +48,35 @@ public static class KineticsCharts
     /// <summary>As <see cref="Render"/>, with each chart's title for the workbook.</summary>
     public static IReadOnlyList<ChartFile> RenderFiles(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
     {
+        var (charts, startFirst) = Plan(review, lots, directory);
+
+        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
+        return charts.Count == 0 ? [] : ChartImage.RenderAll(charts.Select(c => c.Job).ToArray(), startFirst);
+    }
+
+    /// <summary>
+    /// The charts <see cref="RenderFiles"/> draws, in their order, each with its file known before it is drawn, and
+    /// the indices of those to start first (the two whose cost grows with the lot count).
+    /// </summary>
+    internal static (IReadOnlyList<PlannedChart> Charts, IReadOnlyList<int> StartFirst) Plan(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
+    {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(directory);
-        var files = new List<ChartFile>();
+        var charts = new List<PlannedChart>();
         if (review.Lots.Count == 0)
         {
-            return files;
+            return (charts, []);
         }
 
         // Lots are drawn in the order of the lot records so pages and colours are stable.
-        var order = lots.Select((l, i) => (l.Lot.Key, i)).GroupBy(p => p.Key).ToDictionary(g => g.Key, g => g.First().i, StringComparer.Ordinal);
+        // Each key's first place (a repeated key keeps its first).
+        var order = new Dictionary<string, int>(lots.Count, StringComparer.Ordinal);
+        for (int i = 0; i < lots.Count; i++)
+        {
+            order.TryAdd(lots[i].Lot.Key, i);
+        }
+
         var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
         var strains = StrainOrder(ordered, lots);
 
@@ -69,36 +87,34 @@ public static class KineticsCharts
             ? ordered
             : ordered.Where(k => k.Flagged).Concat(ordered.Where(k => !k.Flagged)).Take(capacity).ToArray();
         int pages = (shown.Length + OverviewPanels - 1) / OverviewPanels;
-        var jobs = new List<Func<ChartFile>>();
         for (int page = 0; page < pages; page++)
         {
             var chunk = shown.Skip(page * OverviewPanels).Take(OverviewPanels).ToArray();
             string path = Path.Combine(directory, $"kinetics-overview-{page + 1}.png");
             string title = OverviewTitle(page, pages, shown.Length, ordered.Length);
-            jobs.Add(() =>
+            var file = new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
+            charts.Add(new PlannedChart(file, () =>
             {
                 using (var png = OverviewPng(chunk, title))
                 {
                     ChartImage.WritePng(path, png);
                 }
 
-                return new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
-            });
+                return file;
+            }));
         }
 
-        int strainJob = jobs.Count;
-        jobs.Add(() => ChartImage.Save(StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
-        jobs.Add(() => ChartImage.Save(RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
+        int strainJob = charts.Count;
+        charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
+        charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         foreach (var k in ordered.Where(k => k.Flagged).Take(MaxLotCharts))
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
-            jobs.Add(() => ChartImage.Save(LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
+            charts.Add(PlannedChart.Of(() => LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
         }
 
-        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
-        files.AddRange(ChartImage.RenderAll(jobs, [strainJob, strainJob + 1]));
-        return files;
+        return (charts, [strainJob, strainJob + 1]);
     }
 
     /// <summary>
@@ -248,6 +264,7 @@ public static class KineticsCharts
     /// <see cref="MinCourseLots"/> lots and at least half of the strain's lots are known, so a few long logs cannot make
     /// the tail look like the strain.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static StrainCourse Course(string strain, IReadOnlyList<LotKinetics> lots)
     {
         ArgumentNullException.ThrowIfNull(strain);
@@ -269,6 +286,7 @@ public static class KineticsCharts
         var ranges = new (int From, int To)[usable.Length];
         var counts = new int[steps];
         var settleAt = new List<(int Step, double Share)>();
+        bool anyNaN = false;
         for (int i = 0; i < usable.Length; i++)
         {
             var k = usable[i];
@@ -282,7 +300,9 @@ public static class KineticsCharts
 
             if (k.HoursToDry is not null && to + 1 < steps)
             {
-                settleAt.Add((Math.Max(to + 1, from), k.Sugar[^1].Brix / k.StartingBrix));
+                double share = k.Sugar[^1].Brix / k.StartingBrix;
+                anyNaN |= double.IsNaN(share);
+                settleAt.Add((Math.Max(to + 1, from), share));
             }
         }
 
@@ -310,7 +330,9 @@ public static class KineticsCharts
                 double brix = p + 1 < sugar.Count && sugar[p].Hours < t
                     ? sugar[p].Brix + ((sugar[p + 1].Brix - sugar[p].Brix) * (t - sugar[p].Hours) / (sugar[p + 1].Hours - sugar[p].Hours))
                     : sugar[p].Brix;
-                values[offsets[j] + filled[j]++] = brix / k.StartingBrix;
+                double share = brix / k.StartingBrix;
+                anyNaN |= double.IsNaN(share);
+                values[offsets[j] + filled[j]++] = share;
             }
         }
 
@@ -324,6 +346,8 @@ public static class KineticsCharts
         var q3 = new List<double>();
         var counted = new List<int>();
         bool started = false;
+        Span<int> ranks = stackalloc int[6];
+        Span<double> ranked = stackalloc double[6];
         for (int j = 0; j < steps; j++)
         {
             while (nextSettle < settleAt.Count && settleAt[nextSettle].Step <= j)
@@ -345,17 +369,39 @@ public static class KineticsCharts
             }
 
             started = true;
-            Array.Sort(values, offsets[j], counts[j]);
-            var live = new ReadOnlySpan<double>(values, offsets[j], counts[j]);
+            var live = new Span<double>(values, offsets[j], counts[j]);
             days.Add((j + j0) * CourseStepHours / 24.0);
-            q1.Add(QuantileOfUnion(live, settled, 0.25));
-            median.Add(QuantileOfUnion(live, settled, 0.5));
-            q3.Add(QuantileOfUnion(live, settled, 0.75));
+            if (anyNaN)
+            {
+                // Selection compares with < and ==; a sort orders NaN first, as the settled values' binary search does.
+                live.Sort();
+                q1.Add(QuantileOfUnion(live, settled, 0.25));
+                median.Add(QuantileOfUnion(live, settled, 0.5));
+                q3.Add(QuantileOfUnion(live, settled, 0.75));
+            }
+            else
+            {
+                // The six order statistics around the three quartiles, by selection: the step's live values need not be sorted.
+                for (int q = 0; q < 3; q++)
+                {
+                    var (lo, hi, _) = QuantileRanks(known, QuartileProbabilities[q]);
+                    ranks[2 * q] = lo;
+                    ranks[(2 * q) + 1] = hi;
+                }
+
+                UnionSelection.OrderStatistics(live, settled, ranks, ranked);
+                q1.Add(Interpolated(known, 0.25, ranked[0], ranked[1]));
+                median.Add(Interpolated(known, 0.5, ranked[2], ranked[3]));
+                q3.Add(Interpolated(known, 0.75, ranked[4], ranked[5]));
+            }
+
             counted.Add(known);
         }
 
         return new StrainCourse(strain, usable.Length, days, q1, median, q3, counted);
     }
+
+    private static readonly double[] QuartileProbabilities = [0.25, 0.5, 0.75];
 
     /// <summary>
     /// The type-7 quantile (as <see cref="Descriptive.QuantileOfSorted"/>) of the union of two ascending samples,
@@ -363,34 +409,23 @@ public static class KineticsCharts
     /// </summary>
     private static double QuantileOfUnion(ReadOnlySpan<double> a, List<double> b, double p)
     {
-        int n = a.Length + b.Count;
-        double h = (n - 1) * p;
-        int lo = (int)Math.Floor(h);
-        int hi = Math.Min(lo + 1, n - 1);
-        double x = OrderStatistic(a, b, lo);
-        return x + ((h - lo) * (OrderStatistic(a, b, hi) - x));
+        var (lo, hi, n) = QuantileRanks(a.Length + b.Count, p);
+        var sortedB = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(b);
+        return Interpolated(n, p, UnionSelection.OfSorted(a, sortedB, lo), UnionSelection.OfSorted(a, sortedB, hi));
     }
 
-    /// <summary>The k-th smallest (0-based) of the union of two ascending samples.</summary>
-    private static double OrderStatistic(ReadOnlySpan<double> a, List<double> b, int k)
+    /// <summary>The 0-based ranks of the two order statistics the type-7 quantile <paramref name="p"/> of <paramref name="n"/> values lies between.</summary>
+    private static (int Lo, int Hi, int N) QuantileRanks(int n, double p)
     {
-        // Take i from a and k + 1 − i from b: the smallest i for which a's next value is not below b's last taken one.
-        int lo = Math.Max(0, k + 1 - b.Count), hi = Math.Min(k + 1, a.Length);
-        while (lo < hi)
-        {
-            int i = (lo + hi) / 2;
-            if (a[i] < b[k - i])
-            {
-                lo = i + 1;
-            }
-            else
-            {
-                hi = i;
-            }
-        }
+        int lo = (int)Math.Floor((n - 1) * p);
+        return (lo, Math.Min(lo + 1, n - 1), n);
+    }
 
-        int fromB = k + 1 - lo;
-        return Math.Max(lo > 0 ? a[lo - 1] : double.NegativeInfinity, fromB > 0 ? b[fromB - 1] : double.NegativeInfinity);
+    /// <summary>The type-7 quantile from the order statistics <paramref name="x"/> (rank ⌊h⌋) and <paramref name="y"/> (the next), h = (n − 1)·p.</summary>
+    private static double Interpolated(int n, double p, double x, double y)
+    {
+        double h = (n - 1) * p;
+        return x + ((h - Math.Floor(h)) * (y - x));
     }
 
     /// <summary>
@@ -542,6 +577,7 @@ public static class KineticsCharts
     }
 
     /// <summary>Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs), coloured by strain.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static Plot RateAgainstSugar(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
     {
         ArgumentNullException.ThrowIfNull(lots);
@@ -590,6 +626,7 @@ public static class KineticsCharts
     /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
     /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void ForEachRate(LotKinetics k, Action<double, double> point)
     {
         if (k.Dense)
@@ -640,8 +677,9 @@ public static class KineticsCharts
         float small = Math.Clamp(pw / 22f, 11f, 20f);
         using var surface = ChartImage.NewSurface(width, height);
         var canvas = surface.Canvas;
-        using var regular = ReportFonts.Typeface(bold: false);
-        using var bold = ReportFonts.Typeface(bold: true);
+        // The process's shared typefaces: reading and parsing the two font files again for every page was a large part of a page's time.
+        var regular = ReportFonts.Shared(bold: false);
+        var bold = ReportFonts.Shared(bold: true);
         using var ink = new SKPaint { Color = SKColors.Black, IsAntialias = true };
         using (var font = new SKFont(bold, ChartStyle.TitleSize * 0.85f))
         {

@@ -114,6 +114,7 @@ public static class KineticsTables
     ];
 
     /// <summary>One row per analysed lot; flagged lots are highlighted.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static ReportTable Lots(KineticsReview review)
     {
         ArgumentNullException.ThrowIfNull(review);

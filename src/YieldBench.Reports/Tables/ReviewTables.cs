@@ -63,6 +63,7 @@ public static class ReviewTables
     /// One row per lot used. <paramref name="order"/> gives the row order (data files keep input order; the lots sheet
     /// groups rows by strain so each strain's chart series is one block of cells).
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static ReportTable Lots(ReviewResult review, IEnumerable<LotConversion>? order = null)
     {
         ArgumentNullException.ThrowIfNull(review);
@@ -215,6 +216,17 @@ public static class ReviewTables
         return index.StrainFlags(index.KeyOf(lot)).Count > 0;
     }
 
+    /// <summary>
+    /// <see cref="HasStrainFlag"/> for many lots: the review's lookups are found once, and the review's own lots are
+    /// answered from the set of those the strain review flagged (built once per review), by reference.
+    /// </summary>
+    public static Func<LotConversion, bool> StrainFlagTest(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var index = FlagIndex.Of(review);
+        return index.HasStrainFlag;
+    }
+
     /// <summary>The most serious follow-up item of a lot (strain review or kinetics), or null when it has none.</summary>
     public static FlagSeverity? LotSeverity(ReviewResult review, LotConversion lot)
     {
@@ -237,7 +249,9 @@ public static class ReviewTables
     /// </summary>
     private sealed class FlagIndex
     {
-        private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, FlagIndex> Cache = new();
+        // Held through a Lazy: the table runs its factory outside its lock, and the report's threads (data files,
+        // workbook layout, charts) all ask at once, so each built the whole index; now one builds it and the others wait.
+        private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<FlagIndex>> Cache = new();
         private readonly Dictionary<string, List<LotFlag>> strainFlags = new(StringComparer.Ordinal);
         private readonly Dictionary<string, LotKinetics> kinetics = new(StringComparer.Ordinal);
         private readonly Dictionary<string, FlagSeverity> worst = new(StringComparer.Ordinal);
@@ -277,7 +291,21 @@ public static class ReviewTables
 
         public IReadOnlyList<LotFlag> Items { get; }
 
-        public static FlagIndex Of(ReviewResult review) => Cache.GetValue(review, r => new FlagIndex(r));
+        /// <summary>Whether the strain review flagged the lot (a reviewed lot by reference, any other by its key).</summary>
+        public bool HasStrainFlag(LotConversion lot)
+        {
+            ArgumentNullException.ThrowIfNull(lot);
+            return keys.ContainsKey(lot) ? StrainFlaggedLots.Contains(lot) : StrainFlags(lot.Lot.Key).Count > 0;
+        }
+
+        // The reviewed lots with a strain-review flag, by reference (a few per cent of the lots: a small set to probe).
+        private HashSet<LotConversion> StrainFlaggedLots => LazyInitializer.EnsureInitialized(ref strainFlaggedLots, () =>
+            new HashSet<LotConversion>(keys.Where(p => strainFlags.ContainsKey(p.Value)).Select(p => p.Key), ReferenceEqualityComparer.Instance));
+
+        private HashSet<LotConversion>? strainFlaggedLots;
+
+        public static FlagIndex Of(ReviewResult review) =>
+            Cache.GetValue(review, r => new Lazy<FlagIndex>(() => new FlagIndex(r), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
         /// <summary>The lot's "season/lot" key (held for the review's lots, formatted for any other).</summary>
         public string KeyOf(LotConversion lot) => keys.TryGetValue(lot, out var key) ? key : lot.Lot.Key;

@@ -72,7 +72,14 @@ public static class OpenXmlDrawings
     }
 
     /// <summary>Adds a PNG picture to a worksheet.</summary>
-    public static void AddPicture(WorksheetPart sheet, byte[] png, string description, DrawingPlace place, uint drawingId)
+    public static void AddPicture(WorksheetPart sheet, byte[] png, string description, DrawingPlace place, uint drawingId) =>
+        PlacePicture(sheet, png, description, place, drawingId);
+
+    /// <summary>
+    /// As <see cref="AddPicture"/>, returning the picture's part (<paramref name="png"/> may be a stand-in that the
+    /// finished package replaces: nothing but the part's content depends on the bytes).
+    /// </summary>
+    internal static ImagePart PlacePicture(WorksheetPart sheet, byte[] png, string description, DrawingPlace place, uint drawingId)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(png);
@@ -95,6 +102,7 @@ public static class OpenXmlDrawings
                 new A.PresetGeometry(new A.AdjustValueList()) { Preset = A.ShapeTypeValues.Rectangle }));
         drawings.WorksheetDrawing!.Append(Anchor(place, picture));
         drawings.WorksheetDrawing.Save();
+        return image;
     }
 
     private static string RelationshipId(string prefix, uint drawingId) =>

@@ -77,6 +77,20 @@ public static class WorkbookWriter
     internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, string path) =>
         AtomicFile.Write(path, stream => Finish(layout, charts, includePictures: true, stream));
 
+    /// <summary>
+    /// As <see cref="Write(LaidOutWorkbook, IReadOnlyList{ChartFile}, string)"/> for charts that may still be being
+    /// drawn: <paramref name="pictureBytes"/> gives chart i's PNG once it exists (waiting for it), and is asked only
+    /// when the package reaches that picture's part, after every sheet, so the sheets are written meanwhile.
+    /// <paramref name="beforeReplacing"/> runs once the package is complete and before it replaces the file; when it
+    /// throws, the file is left as it was.
+    /// </summary>
+    internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, Func<int, byte[]> pictureBytes, Action beforeReplacing, string path) =>
+        AtomicFile.Write(path, stream =>
+        {
+            Finish(layout, charts, includePictures: true, stream, pictureBytes);
+            beforeReplacing();
+        });
+
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
     /// <remarks>The package goes straight into the file as it is compressed (the bytes of <see cref="Build(ReviewResult, IReadOnlyList{ChartFile}, bool)"/>).</remarks>
     public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path)
@@ -175,12 +189,27 @@ public static class WorkbookWriter
     }
 
     /// <summary>The second half of <see cref="Write"/>: the pictures and native chart go in and the package is written to <paramref name="output"/> (seekable).</summary>
-    internal static void Finish(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, bool includePictures, Stream output)
+    /// <remarks>
+    /// Each picture goes in as an empty stand-in part; the package is given chart i's bytes
+    /// (<paramref name="pictureBytes"/>, by default the chart's file) when it writes that part, so the PNGs are never
+    /// held by the packaging library and a chart still being drawn holds up only the last parts.
+    /// </remarks>
+    internal static void Finish(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, bool includePictures, Stream output, Func<int, byte[]>? pictureBytes = null)
     {
         ArgumentNullException.ThrowIfNull(layout);
         ArgumentNullException.ThrowIfNull(charts);
         var lotsOrder = layout.LotsOrder;
         var pictureRows = new Dictionary<string, int>(layout.PictureRows, StringComparer.Ordinal);
+        pictureBytes ??= i => File.ReadAllBytes(charts[i].Path);
+
+        // Zip entry name of each picture part → the chart it shows.
+        var pictures = new Dictionary<string, int>(StringComparer.Ordinal);
+        void Picture(WorksheetPart sheet, int chart, DrawingPlace place, uint drawingId)
+        {
+            var part = OpenXmlDrawings.PlacePicture(sheet, [], charts[chart].Title, place, drawingId);
+            pictures.Add(part.Uri.OriginalString.TrimStart('/'), chart);
+        }
+
         Finish(layout.LaidOut, layout.Streamed, output, wbPart =>
         {
             uint drawingId = 2;
@@ -194,26 +223,27 @@ public static class WorkbookWriter
             {
                 int overviewRow = 32;
                 int slot = 0;
-                foreach (var chart in charts)
+                for (int i = 0; i < charts.Count; i++)
                 {
-                    byte[] png = File.ReadAllBytes(chart.Path);
+                    var chart = charts[i];
                     if (chart.OnOverview)
                     {
                         // Two pictures side by side, rows of about 26 default-height rows each.
                         int col = 5 + ((slot % 2) * 14);
                         int row = overviewRow + ((slot / 2) * 27);
-                        OpenXmlDrawings.AddPicture(overviewPart, png, chart.Title, new DrawingPlace(col, row, PictureWidthPx, PictureHeightPx), drawingId++);
+                        Picture(overviewPart, i, new DrawingPlace(col, row, PictureWidthPx, PictureHeightPx), drawingId++);
                         slot++;
                     }
 
                     if (chart.Sheet is { } sheetName && pictureRows.TryGetValue(sheetName, out int at))
                     {
-                        OpenXmlDrawings.AddPicture(SheetPart(wbPart, sheetName), png, chart.Title, new DrawingPlace(0, at, PictureWidthPx, PictureHeightPx), drawingId++);
+                        Picture(SheetPart(wbPart, sheetName), i, new DrawingPlace(0, at, PictureWidthPx, PictureHeightPx), drawingId++);
                         pictureRows[sheetName] = at + 27;
                     }
                 }
             }
-        });
+        },
+        name => pictures.TryGetValue(name, out int chart) ? pictureBytes(chart) : null);
     }
 
     /// <summary>
@@ -230,7 +260,12 @@ public static class WorkbookWriter
     }
 
     /// <summary>As <see cref="Finish(byte[], StreamedTables, Action{WorkbookPart}?)"/>, the package written to <paramref name="output"/> (seekable).</summary>
-    internal static void Finish(byte[] laidOut, StreamedTables streamed, Stream output, Action<WorkbookPart>? drawings)
+    /// <param name="laidOut">The package ClosedXML saved.</param>
+    /// <param name="streamed">The tables whose rows go into their sheets.</param>
+    /// <param name="output">Where the package goes (seekable).</param>
+    /// <param name="drawings">Adds pictures and charts through the Open XML SDK (null: none).</param>
+    /// <param name="partBytes">The content of a part added as a stand-in, by zip entry name (null for every other part).</param>
+    internal static void Finish(byte[] laidOut, StreamedTables streamed, Stream output, Action<WorkbookPart>? drawings, Func<string, byte[]?>? partBytes = null)
     {
         ArgumentNullException.ThrowIfNull(laidOut);
         ArgumentNullException.ThrowIfNull(streamed);
@@ -256,7 +291,7 @@ public static class WorkbookWriter
         }
 
         // Read where the SDK left it rather than copied out again.
-        DeterministicZip.Normalise(new MemoryStream(package.GetBuffer(), 0, (int)package.Length, writable: false), output, streamedSheets);
+        DeterministicZip.Normalise(new MemoryStream(package.GetBuffer(), 0, (int)package.Length, writable: false), output, streamedSheets, partBytes);
     }
 
     /// <summary>The native chart: one series per strain, bound to the lots sheet's starting-sugar and alcohol columns.</summary>

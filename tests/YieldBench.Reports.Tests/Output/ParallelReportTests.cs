@@ -175,6 +175,28 @@ public sealed class ParallelReportTests
         Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
     }
 
+    [Fact]
+    public async Task A_failing_chart_fails_the_report_without_a_workbook_and_nothing_waits_for_its_picture()
+    {
+        // Given an output folder where the charts folder cannot be made (a file stands in its place), while the
+        // workbook is laid out and its sheets written beside the charts, waiting only for their pictures
+        using var temp = new TempFolder();
+        string folder = temp["report"];
+        Directory.CreateDirectory(folder);
+        File.WriteAllText(Path.Combine(folder, "charts"), "in the way");
+
+        // When the report is written, it fails (and returns: no step is left waiting for a chart that never came)
+        var write = Task.Run(() => ReportWriter.Write(ReviewWithLogs(), folder));
+        var ended = await Task.WhenAny(write, Task.Delay(TimeSpan.FromMinutes(2)));
+        Assert.Same(write, ended);
+        await Assert.ThrowsAnyAsync<Exception>(() => write);
+
+        // Then no workbook or manifest was written, and no temporary file is left behind by any step
+        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.WorkbookName)));
+        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.ManifestName)));
+        Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
+    }
+
     private static string Csv(Action<TextWriter> write)
     {
         using var w = new StringWriter(System.Globalization.CultureInfo.InvariantCulture);

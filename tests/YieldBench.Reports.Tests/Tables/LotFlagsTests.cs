@@ -25,6 +25,24 @@ public sealed class LotFlagsTests
     }
 
     [Fact]
+    public void The_strain_flag_test_answers_as_HasStrainFlag_for_the_review_s_lots_and_for_a_copy_of_one()
+    {
+        // Given the review with logs, some of its lots flagged by the strain review, and a copy of a flagged lot (the
+        // same key, another object: answered by its key)
+        var review = ReviewWithLogs();
+        var test = ReviewTables.StrainFlagTest(review);
+        var flagged = review.Lots.First(l => ReviewTables.HasStrainFlag(review, l));
+        var copy = flagged with { };
+
+        // Then the test and HasStrainFlag agree on every lot, flagged or not, and on the copy
+        Assert.All(review.Lots, l => Assert.Equal(ReviewTables.HasStrainFlag(review, l), test(l)));
+        Assert.Contains(review.Lots, l => !test(l));
+        Assert.NotSame(flagged, copy);
+        Assert.True(test(copy));
+        Assert.True(ReviewTables.HasStrainFlag(review, copy));
+    }
+
+    [Fact]
     public void A_lot_s_flags_are_its_strain_codes_then_its_kinetics_codes_each_once()
     {
         // Given the review with logs (some lots carry several codes)

@@ -155,6 +155,41 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
     }
 
     [Fact]
+    public void Every_picture_part_holds_the_bytes_of_the_chart_it_shows()
+    {
+        // Given a workbook whose pictures went in as stand-ins filled when the package was finished
+        var (bytes, charts) = Build();
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
+        int checkedPictures = 0;
+        foreach (var sheet in doc.WorkbookPart!.WorksheetParts)
+        {
+            if (sheet.DrawingsPart is not { } drawings)
+            {
+                continue;
+            }
+
+            foreach (var picture in drawings.WorksheetDrawing!.Descendants<DocumentFormat.OpenXml.Drawing.Spreadsheet.Picture>())
+            {
+                // When each picture's image part is read and matched to its chart by the picture's description
+                string title = picture.NonVisualPictureProperties!.NonVisualDrawingProperties!.Description!.Value!;
+                var chart = Assert.Single(charts, c => c.Title == title);
+                var part = (ImagePart)drawings.GetPartById(picture.BlipFill!.Blip!.Embed!.Value!);
+                using var content = new MemoryStream();
+                using (var stream = part.GetStream())
+                {
+                    stream.CopyTo(content);
+                }
+
+                // Then the part holds exactly the chart's PNG
+                Assert.Equal(File.ReadAllBytes(chart.Path), content.ToArray());
+                checkedPictures++;
+            }
+        }
+
+        Assert.Equal(7, checkedPictures);
+    }
+
+    [Fact]
     public void The_same_review_gives_the_same_workbook_bytes()
     {
         // Given one review built twice, from scratch
