@@ -10,19 +10,7 @@ namespace YieldBench.Reports.Tests.Tables;
 
 public sealed class LotFlagsTests
 {
-    // The sample review with invented logs: L005 (2024) stalls at 10.6 °Brix, L020 (2025) ferments through 41 °C.
-    private static ReviewResult ReviewWithLogs()
-    {
-        var review = SampleReview.Build();
-        FermentationLog Log(string id, int season, double step, double[] brix, double[] temps) =>
-            new(id, season, brix.Select((b, i) => new LogReading(KineticsReportData.Start.AddHours(i * step), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
-        var logs = new[]
-        {
-            Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
-            Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
-        };
-        return review with { Kinetics = KineticsAnalysis.Run(review.Lots, logs, KineticsSettings.Default) };
-    }
+    private static ReviewResult ReviewWithLogs() => SampleReview.WithLogs();
 
     [Fact]
     public void The_strain_flag_test_answers_as_HasStrainFlag_for_the_review_s_lots_and_for_a_copy_of_one()
