@@ -62,7 +62,7 @@ public static class IntakeReport
 
         output.WriteLine();
         int leftOut = set.Accounts.Sum(a => a.RowsReported);
-        string seasons = set.Seasons.Count == 0 ? "no season" : string.Join(", ", set.Seasons.Select(N));
+        string seasons = set.Lots.Count == 0 ? "no usable lot rows" : set.Seasons.Count == 0 ? "no season" : string.Join(", ", set.Seasons.Select(N));
         output.WriteLine($"Result: {N(set.Lots.Count)} lots ({seasons}), {N(set.Logs.Count)} fermentation logs with {N(set.Logs.Sum(l => l.Readings.Count))} readings; {N(leftOut)} rows left out.");
     }
 

@@ -18,7 +18,8 @@ public static class ConsoleSummary
         var inputs = review.Inputs;
         int leftOut = ReviewTables.RowsLeftOut(review);
         int filesLeftOut = inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is null);
-        string seasons = inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", inputs.Seasons);
+        // Seasons come from the lots, so with no usable lot there is no season to name (logs alone give none).
+        string seasons = review.Lots.Count == 0 ? "no usable lot rows" : inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", inputs.Seasons);
         lines.Add($"Lots used: {review.Lots.Count} ({seasons}) from {inputs.Files.Count} file(s); fermentation logs: {inputs.Logs.Count}.");
         if (inputs.Issues.Count > 0)
         {

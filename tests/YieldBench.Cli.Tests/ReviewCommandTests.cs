@@ -336,6 +336,20 @@ public sealed class ReviewCommandInputTests : IDisposable
     }
 
     [Fact]
+    public void Logs_without_lot_records_say_there_is_no_usable_lot_rather_than_no_season()
+    {
+        // Given only a fermentation log (season in its rows), no lot records
+        Write("logs-2025.csv", "Lot,Vintage,Timestamp,Brix,Temp °C\nM-1,2025,2025-09-20 08:00,23.0,14\nM-1,2025,2025-09-21 08:00,21.5,16\n");
+
+        // When reviewed
+        var result = Cli.Run(root, "review", "lots", "--out", "a");
+
+        // Then the summary counts the log, names no season, and says no lot row was usable
+        Assert.Contains("Lots used: 0 (no usable lot rows) from 1 file(s); fermentation logs: 1.", result.Out, StringComparison.Ordinal);
+        Assert.DoesNotContain("no season", result.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_column_mapping_from_the_command_line_reaches_intake()
     {
         // Given a file whose strain column has a header intake cannot guess
@@ -347,7 +361,7 @@ public sealed class ReviewCommandInputTests : IDisposable
 
         // Then without it the rows are left out and reported with the fix; with it both lots are used
         Assert.Equal(1, without.Exit);
-        Assert.Contains("Lots used: 0 (no season)", without.Out, StringComparison.Ordinal);
+        Assert.Contains("Lots used: 0 (no usable lot rows)", without.Out, StringComparison.Ordinal);
         Assert.Contains("Left out: 2 row(s)", without.Out, StringComparison.Ordinal);
         Assert.Contains(Cli.CsvLines(Path.Combine(root, "a", "data", "intake-issues.csv")), l => l.Contains("missing-column", StringComparison.Ordinal) && l.Contains("--column strain=HEADER", StringComparison.Ordinal));
         Assert.Equal(0, with.Exit);

@@ -28,7 +28,7 @@ public sealed class TemplateCommandTests : IDisposable
         var check = Run("check", "lots-template.xlsx");
         Assert.Equal(ExitCodes.Success, check.Code);
         Assert.Contains("Issues: 1 (0 errors, 1 warnings)", check.Out, StringComparison.Ordinal);
-        Assert.Contains("Result: 0 lots (no season)", check.Out, StringComparison.Ordinal);
+        Assert.Contains("Result: 0 lots (no usable lot rows)", check.Out, StringComparison.Ordinal);
     }
 
     [Fact]
