@@ -61,11 +61,11 @@ public static class Bootstrap
 
             if (n % 2 == 1)
             {
-                medians[b] = x[SelectInPlace(ranks, n / 2)];
+                medians[b] = x[Descriptive.SelectInPlace<int>(ranks, n / 2)];
             }
             else
             {
-                int upper = SelectInPlace(ranks, n / 2);
+                int upper = Descriptive.SelectInPlace<int>(ranks, n / 2);
 
                 // After selection every rank left of n/2 is at most the upper one; the largest of them is the lower middle.
                 int lower = ranks[0];
@@ -110,50 +110,5 @@ public static class Bootstrap
         {
             throw new ArgumentOutOfRangeException(nameof(level), level, "A confidence level must be between 0 and 1, e.g. 0.95.");
         }
-    }
-
-    /// <summary>Hoare quickselect: puts the k-th smallest (0-based) at index k and returns it.</summary>
-    private static int SelectInPlace(int[] a, int k)
-    {
-        int lo = 0, hi = a.Length - 1;
-        while (lo < hi)
-        {
-            int pivot = a[lo + ((hi - lo) / 2)];
-            int i = lo, j = hi;
-            while (i <= j)
-            {
-                while (a[i] < pivot)
-                {
-                    i++;
-                }
-
-                while (a[j] > pivot)
-                {
-                    j--;
-                }
-
-                if (i <= j)
-                {
-                    (a[i], a[j]) = (a[j], a[i]);
-                    i++;
-                    j--;
-                }
-            }
-
-            if (k <= j)
-            {
-                hi = j;
-            }
-            else if (k >= i)
-            {
-                lo = i;
-            }
-            else
-            {
-                break;
-            }
-        }
-
-        return a[k];
     }
 }

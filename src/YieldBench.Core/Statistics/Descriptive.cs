@@ -153,7 +153,14 @@ public static class Descriptive
     /// Places the k-th smallest (0-based) value at index k, smaller ones before it, larger after; returns it. The values
     /// must not hold NaN.
     /// </summary>
-    public static double SelectInPlace(Span<double> a, int k)
+    public static double SelectInPlace(Span<double> a, int k) => SelectInPlace<double>(a, k);
+
+    /// <summary>
+    /// Hoare's quickselect with median-of-three pivots for any ordered numbers (ranks, counts, values): places the
+    /// k-th smallest (0-based) at index k, smaller ones before it, larger after; returns it.
+    /// </summary>
+    internal static T SelectInPlace<T>(Span<T> a, int k)
+        where T : struct, System.Numerics.IComparisonOperators<T, T, bool>
     {
         ArgumentOutOfRangeException.ThrowIfNegative(k);
         ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(k, a.Length);
@@ -176,7 +183,7 @@ public static class Descriptive
                 (a[hi], a[mid]) = (a[mid], a[hi]);
             }
 
-            double pivot = a[mid];
+            T pivot = a[mid];
             int i = lo, j = hi;
             while (i <= j)
             {
