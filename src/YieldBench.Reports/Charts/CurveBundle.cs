@@ -60,22 +60,13 @@ public sealed class CurveBundle : IPlottable, IHasLegendText
     /// <inheritdoc />
     public AxisLimits GetAxisLimits()
     {
-        double left = double.PositiveInfinity, right = double.NegativeInfinity, bottom = double.PositiveInfinity, top = double.NegativeInfinity;
+        var bounds = new FiniteBounds();
         foreach (var (x, y) in curves)
         {
-            for (int i = 0; i < x.Length; i++)
-            {
-                if (double.IsFinite(x[i]) && double.IsFinite(y[i]))
-                {
-                    left = Math.Min(left, x[i]);
-                    right = Math.Max(right, x[i]);
-                    bottom = Math.Min(bottom, y[i]);
-                    top = Math.Max(top, y[i]);
-                }
-            }
+            bounds.Add(x, y);
         }
 
-        return left <= right ? new AxisLimits(left, right, bottom, top) : AxisLimits.NoLimits;
+        return bounds.Limits;
     }
 
     /// <inheritdoc />

@@ -85,22 +85,11 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
         : LegendItem.Single(this, LegendText, LegendMarker());
 
     /// <inheritdoc />
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public AxisLimits GetAxisLimits()
     {
-        double left = double.PositiveInfinity, right = double.NegativeInfinity, bottom = double.PositiveInfinity, top = double.NegativeInfinity;
-        for (int i = 0; i < xs.Length; i++)
-        {
-            if (double.IsFinite(xs[i]) && double.IsFinite(ys[i]))
-            {
-                left = Math.Min(left, xs[i]);
-                right = Math.Max(right, xs[i]);
-                bottom = Math.Min(bottom, ys[i]);
-                top = Math.Max(top, ys[i]);
-            }
-        }
-
-        return left <= right ? new AxisLimits(left, right, bottom, top) : AxisLimits.NoLimits;
+        var bounds = new FiniteBounds();
+        bounds.Add(xs, ys);
+        return bounds.Limits;
     }
 
     /// <inheritdoc />
