@@ -82,6 +82,9 @@ public static class IntakeMessages
     internal static string ColumnNotUsed() =>
         "The column matches no field and was not read. If it holds one, map it with --column FIELD=HEADER (fields are listed in docs/input-format.md).";
 
+    internal static string FinalColumnNotRead(string field) =>
+        $"The column is read as {field}, a value of the finished wine; lots still fermenting have none yet, so it was not read.";
+
     internal static string DuplicateColumn(string field, string first) =>
         $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
 

@@ -39,6 +39,13 @@ public sealed record IntakeOptions
     /// <summary>Largest total uncompressed size of a workbook, bytes.</summary>
     public long MaxUncompressedBytes { get; init; } = DefaultMaxUncompressedBytes;
 
+    /// <summary>
+    /// When true, lots tables hold lots still fermenting: they need no final alcohol, their rows become
+    /// <see cref="YieldBench.Core.Lots.RunningLot"/>s (in <see cref="YieldBench.Core.Lots.SeasonSet.RunningLots"/>), and
+    /// columns of the final analysis are reported as not used. Logs are read as always.
+    /// </summary>
+    public bool RunningLots { get; init; }
+
     /// <summary>Directory relative paths are resolved against (null: the process's current directory).</summary>
     public string? WorkingDirectory { get; init; }
 }

@@ -73,6 +73,7 @@ public static partial class IntakeReader
         return new SeasonSet
         {
             Lots = run.Lots,
+            RunningLots = run.RunningLots,
             Logs = logs,
             Issues = sink.Issues.ToArray(),
             Accounts = run.Accounts,
@@ -321,7 +322,9 @@ public static partial class IntakeReader
     {
         var logs = new List<FermentationLog>();
         var index = new Dictionary<(string, int?), List<LogReading>>();
-        var knownIds = run.Lots.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        // Finished and running lots alike (a run reads one kind or the other).
+        var recorded = run.Lots.Select(l => (l.LotId, l.Season, l.Source)).Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.Source))).ToList();
+        var knownIds = recorded.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
         string? lastId = null;
         int? lastSeason = null;
         List<LogReading>? lastList = null;
@@ -356,12 +359,12 @@ public static partial class IntakeReader
             return logs;
         }
 
-        var lotKeys = run.Lots.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
+        var lotKeys = recorded.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
         var lotIds = knownIds;
 
         // Lots with a log, by lot id and season (what a lot's key is made of).
         var withLog = new HashSet<(string, int)>();
-        ILookup<string, Lot>? lotsById = null;
+        ILookup<string, (string LotId, int Season, SourceRef? Source)>? lotsById = null;
         foreach (var log in logs)
         {
             bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
@@ -380,14 +383,14 @@ public static partial class IntakeReader
                 continue;
             }
 
-            lotsById ??= run.Lots.ToLookup(l => l.LotId, StringComparer.Ordinal);
+            lotsById ??= recorded.ToLookup(l => l.LotId, StringComparer.Ordinal);
             foreach (var lot in lotsById[log.LotId])
             {
                 withLog.Add((lot.LotId, lot.Season));
             }
         }
 
-        foreach (var group in run.Lots.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
+        foreach (var group in recorded.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
         {
             var ids = group.Select(l => l.LotId).ToList();
             var src = group.First().Source!;

@@ -32,6 +32,8 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public List<Lot> Lots { get; } = [];
 
+    public List<RunningLot> RunningLots { get; } = [];
+
     public Dictionary<LotKey, SourceRef> LotKeys { get; } = [];
 
     public ChunkedList<(string LotId, int? Season, LogReading Reading)> Readings { get; } = new();
@@ -736,8 +738,14 @@ internal static partial class TableReader
     {
         var run = ctx.Run;
         var sink = run.Sink;
-        string[] required = ["lot_id", "strain", "starting_sugar", "final_abv"];
+        bool running = run.Options.RunningLots;
+        string[] required = running ? ["lot_id", "strain", "starting_sugar"] : ["lot_id", "strain", "starting_sugar", "final_abv"];
         var missing = required.Where(f => ctx.Column(f) is null).ToList();
+        if (running)
+        {
+            ReportFinalColumns(ctx);
+        }
+
         foreach (var m in missing)
         {
             var f = Fields.Lot(m);
@@ -783,6 +791,14 @@ internal static partial class TableReader
                 continue;
             }
 
+            if (running)
+            {
+                bool added = AddRunningLot(ctx, rowState, r);
+                used += added ? 1 : 0;
+                reported += added ? 0 : 1;
+                continue;
+            }
+
             var lot = ReadLotRow(ctx, rowState, r);
             if (lot is null)
             {
@@ -802,7 +818,7 @@ internal static partial class TableReader
             used++;
         }
 
-        run.Accounts.Add(new SourceAccount(ctx.File, ctx.SheetName, "lots", read, used, 0, reported, blank, summary));
+        run.Accounts.Add(new SourceAccount(ctx.File, ctx.SheetName, running ? "running lots" : "lots", read, used, 0, reported, blank, summary));
         return Outcome.Read;
     }
 

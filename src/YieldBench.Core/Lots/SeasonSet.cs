@@ -6,6 +6,9 @@ public sealed record SeasonSet
     /// <summary>Lots used.</summary>
     public required IReadOnlyList<Lot> Lots { get; init; }
 
+    /// <summary>Lots still fermenting (read only with <c>IntakeOptions.RunningLots</c>; empty otherwise).</summary>
+    public IReadOnlyList<RunningLot> RunningLots { get; init; } = [];
+
     /// <summary>Fermentation logs read (joined to lots by key).</summary>
     public IReadOnlyList<FermentationLog> Logs { get; init; } = [];
 

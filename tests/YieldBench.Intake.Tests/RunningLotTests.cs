@@ -1,0 +1,76 @@
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Intake.Tests;
+
+public class RunningLotTests
+{
+    [Fact]
+    public void A_lots_table_without_final_alcohol_is_read_as_running_lots_with_their_logs()
+    {
+        // Given a table of lots still fermenting (no final alcohol) and its log in °F
+        using var folder = new TestFolder();
+        var lots = folder.Text("running-2026.csv",
+            "Lot,Yeast,Must SG,Vessel,Capacity (L),Must volume (L),YAN (mg N/L),Inoculated,Colour\n" +
+            "26-001,yb-r12,1.10101,Stainless tank,5000,4200,180,2026-09-10 10:00,red\n" +
+            "26-002,YB-W22,1.09193,Barrel,225,,,,white\n");
+        var log = folder.Text("running-log-2026.csv",
+            "Lot,Timestamp,Brix,Temp (°F)\n" +
+            "26-001,2026-09-10 17:30,23.6,66.2\n" +
+            "26-001,2026-09-11 07:30,22.1,71.6\n");
+
+        // When read as running lots
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then both rows are running lots, none a finished lot, and the log joins the first
+        Assert.Empty(set.Lots);
+        Assert.Equal(2, set.RunningLots.Count);
+        var a = set.RunningLots[0];
+        Assert.Equal(("26-001", 2026, "yb-r12", "Stainless tank", WineColour.Red), (a.LotId, a.Season, a.Strain, a.Vessel, a.Colour));
+        Assert.Equal(24.0, a.StartingSugar.Brix, 0.01); // SG 1.10101 = 24 °Brix (Zoecklein et al., Appendix I, Table I-1)
+        Assert.Equal(SugarScale.SpecificGravity, a.StartingSugarScale);
+        Assert.Equal((5000.0, 4200.0, 180.0), (a.VesselCapacityL!.Value, a.Additions.MustVolumeL!.Value, a.YanMgL!.Value));
+        Assert.Equal(new DateTime(2026, 9, 10, 10, 0, 0), a.InoculationDate);
+        Assert.Equal(new SourceRef("running-2026.csv", null, 2), a.Source);
+        var readings = Assert.Single(set.Logs).Readings;
+        Assert.Equal(19.0, readings[0].TemperatureC!.Value, 1e-9); // 66.2 °F = (66.2 − 32) × 5/9 = 19 °C
+        Assert.Contains(set.Accounts, x => x.Kind == "running lots" && x.LotsUsed == 2 && x.Balances);
+        Assert.Contains(set.Issues, i => i.Code == "lots-without-log" && i.Message.Contains("26-002", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Columns_of_the_finished_wine_are_named_and_not_read_and_bad_rows_are_reported()
+    {
+        // Given a running table that still carries a final-alcohol column and a row without starting sugar
+        using var folder = new TestFolder();
+        var lots = folder.Text("running-2026.csv",
+            "Lot,Yeast,Brix,Alcohol % v/v\n" +
+            "26-001,YB-R12,24.1,\n" +
+            "26-002,YB-R12,,\n" +
+            "26-001,YB-R31,25.0,\n");
+
+        // When read as running lots
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots);
+
+        // Then the alcohol column is named once, the empty sugar and the repeated lot are reported, and the rows balance
+        var lot = Assert.Single(set.RunningLots);
+        Assert.Equal(24.1, lot.StartingSugar.Brix, 1e-9);
+        var final = Assert.Single(set.Issues, i => i.Code == "final-column-not-read");
+        Assert.Equal("Alcohol % v/v", final.Column);
+        Assert.Contains(set.Issues, i => i.Code == "missing-value" && i.Row == 3);
+        Assert.Contains(set.Issues, i => i.Code == "duplicate-lot" && i.Row == 4);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal(new SourceAccount("running-2026.csv", null, "running lots", 3, 1, 0, 2, 0, 0), account);
+    }
+
+    [Fact]
+    public void Without_the_option_a_table_without_final_alcohol_is_still_refused()
+    {
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Brix\n26-001,YB-R12,24.1\n");
+        var set = folder.Read(lots);
+        Assert.Empty(set.Lots);
+        Assert.Empty(set.RunningLots);
+        Assert.Contains(set.Issues, i => i.Code == "missing-column" && i.Message.Contains("final_abv", StringComparison.Ordinal));
+    }
+}
