@@ -68,7 +68,7 @@ public static partial class IntakeReader
         }
 
         ColumnRules.ReportUnused(rules, sink);
-        UnifySpellings(run);
+        Spellings.Unify(run.Lots, sink);
         var logs = JoinLogs(run);
         return new SeasonSet
         {
@@ -81,89 +81,6 @@ public static partial class IntakeReader
             Mappings = run.Mappings,
         };
     }
-
-    /// <summary>
-    /// Strain codes (and vessel types) that differ only in case, spaces or punctuation ("RC-11", "rc-11", "RC 11") are
-    /// one strain: each group takes its most used spelling (the first read on a tie), with one warning per group, so
-    /// that a typing habit never splits a strain into several.
-    /// </summary>
-    private static void UnifySpellings(IntakeRun run)
-    {
-        foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
-        {
-            // Each distinct spelling once, in order of first use, with its count and the first lot that uses it.
-            var spellings = new Dictionary<string, (int Count, int First)>(StringComparer.Ordinal);
-            for (int i = 0; i < run.Lots.Count; i++)
-            {
-                if (get(run.Lots[i]) is { } v)
-                {
-                    spellings[v] = spellings.TryGetValue(v, out var seen) ? (seen.Count + 1, seen.First) : (1, i);
-                }
-            }
-
-            // Groups of spellings by key, in order of the group's first use; spellings in order of first use.
-            var groups = new Dictionary<string, List<(string Text, int Count, int First)>>(StringComparer.Ordinal);
-            var order = new List<string>();
-            foreach (var (text, (count, first)) in spellings.OrderBy(x => x.Value.First))
-            {
-                string key = SpellingKey(text);
-                if (!groups.TryGetValue(key, out var list))
-                {
-                    groups[key] = list = [];
-                    order.Add(key);
-                }
-
-                list.Add((text, count, first));
-            }
-
-            var replace = new Dictionary<string, string>(StringComparer.Ordinal);
-            var warnings = new List<(int FirstLot, string Kept, int Count, List<(string, int)> Others)>();
-            foreach (var key in order)
-            {
-                var group = groups[key];
-                if (group.Count < 2)
-                {
-                    continue;
-                }
-
-                // The most used spelling; on a tie the first read.
-                var kept = group[0];
-                foreach (var g in group)
-                {
-                    kept = g.Count > kept.Count ? g : kept;
-                }
-
-                foreach (var g in group)
-                {
-                    if (g.Text != kept.Text)
-                    {
-                        replace[g.Text] = kept.Text;
-                    }
-                }
-
-                warnings.Add((group[0].First, kept.Text, kept.Count, group.Where(g => g.Text != kept.Text).Select(g => (g.Text, g.Count)).ToList()));
-            }
-
-            for (int i = 0; replace.Count > 0 && i < run.Lots.Count; i++)
-            {
-                var lot = run.Lots[i];
-                if (get(lot) is { } v && replace.TryGetValue(v, out var kept))
-                {
-                    run.Lots[i] = field == "strain" ? lot with { Strain = kept } : lot with { Vessel = kept };
-                }
-            }
-
-            foreach (var (firstLot, kept, count, others) in warnings)
-            {
-                // The group's first lot: after unifying, the first that bears the kept spelling.
-                var first = run.Lots[firstLot].Source;
-                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, "spelling-unified", IntakeMessages.SpellingUnified(field, kept, count, others));
-            }
-        }
-    }
-
-    private static string SpellingKey(string text) =>
-        new string(text.Where(char.IsLetterOrDigit).Select(char.ToUpperInvariant).ToArray());
 
     /// <summary>One input in order: a file to read (display name and full path), or an issue found listing the inputs.</summary>
     private sealed record Step(string? Display, string? Full, IntakeIssue? Issue);

@@ -828,8 +828,8 @@ internal static partial class TableReader
         string? lotId = TextField(st, "lot_id");
         string? strain = TextField(st, "strain");
         int? season = SeasonField(st);
-        var startScale = ctx.Column("starting_sugar")?.Unit ?? ColumnUnit.Brix;
-        SugarReading? start = SugarField(st, "starting_sugar");
+        var startScale = ColumnUnits.Scale(ctx.Column("starting_sugar")?.Unit ?? ColumnUnit.Brix);
+        SugarReading? start = SugarField(st, ctx.Column("starting_sugar"), out double startRecorded);
         double? abv = NumberField(st, "final_abv");
         var lot = st.Bad || lotId is null || strain is null || start is null || abv is null || season is null
             ? null
@@ -839,7 +839,7 @@ internal static partial class TableReader
                 Season = season.Value,
                 Strain = strain,
                 StartingSugar = start.Value,
-                StartingSugarScale = ColumnUnits.Scale(startScale),
+                RecordedStartingSugar = new RecordedSugar(startRecorded, startScale),
                 FinalAlcohol = AlcoholContent.FromPercentVolume(abv.Value),
                 Vessel = TextField(st, "vessel"),
                 VesselCapacityL = NumberField(st, "vessel_capacity_l"),
@@ -1124,10 +1124,14 @@ internal static partial class TableReader
         return shown;
     }
 
-    private static SugarReading? SugarField(RowState st, string name) => SugarField(st, st.Ctx.Column(name));
+    private static SugarReading? SugarField(RowState st, string name) => SugarField(st, st.Ctx.Column(name), out _);
 
-    private static SugarReading? SugarField(RowState st, BoundColumn? column)
+    private static SugarReading? SugarField(RowState st, BoundColumn? column) => SugarField(st, column, out _);
+
+    /// <summary>A sugar value converted to a reading through Core's sugar scales, and the number as written.</summary>
+    private static SugarReading? SugarField(RowState st, BoundColumn? column, out double recorded)
     {
+        recorded = double.NaN;
         if (column is not { } c || !NumberCell(st, c, out double raw))
         {
             return null;
@@ -1141,15 +1145,15 @@ internal static partial class TableReader
             return null;
         }
 
-        double brix = ColumnUnits.ToBrix(raw, c.Unit);
         double min = f.Min ?? SugarReading.MinBrix, max = f.Max ?? SugarReading.MaxBrix;
-        if (brix < min || brix > max || double.IsNaN(brix))
+        if (!SugarReading.TryFrom(raw, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
         {
             st.Problem(c, cell, "out-of-range", IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
             return null;
         }
 
-        return SugarReading.FromBrix(brix);
+        recorded = raw;
+        return reading;
     }
 
     private static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));

@@ -335,7 +335,7 @@ public static class ScenarioGenerator
             Season = p.Season.Year,
             Strain = p.RecordedStrain,
             StartingSugar = recordedSugar,
-            StartingSugarScale = p.Season.Scale,
+            RecordedStartingSugar = new RecordedSugar(recordedValue, p.Season.Scale),
             FinalAlcohol = AlcoholContent.FromPercentVolume(labAbv),
             Vessel = p.Vessel.Type,
             VesselCapacityL = p.Vessel.CapacityL,

@@ -332,7 +332,7 @@ public class StrainReviewerTests
         var odd = LotBuilder.Lot("H-SG", 2024, "Y-05", 20, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * trueBrix), 2)) with
         {
             StartingSugar = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.130),
-            StartingSugarScale = YieldBench.Core.Units.SugarScale.SpecificGravity,
+            RecordedStartingSugar = new YieldBench.Core.Units.RecordedSugar(1.130, YieldBench.Core.Units.SugarScale.SpecificGravity),
         };
         lots.Add(LotBuilder.Convert(odd));
 
