@@ -34,7 +34,7 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public List<RunningLot> RunningLots { get; } = [];
 
-    public Dictionary<string, SourceRef> LotKeys { get; } = new(StringComparer.Ordinal);
+    public Dictionary<LotKey, SourceRef> LotKeys { get; } = [];
 
     public ChunkedList<(string LotId, int? Season, LogReading Reading)> Readings { get; } = new();
 

@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Data;
 using YieldBench.Reports.Tables;
@@ -42,7 +43,7 @@ public sealed class ReviewTablesTests
         // Then they agree for every lot
         foreach (var row in table.Rows)
         {
-            string key = $"{row[season]}/{row[id]}";
+            var key = new LotKey((int)row[season]!, (string)row[id]!);
             var score = Review.Strains.Scores.Single(s => s.LotKey == key);
             Assert.Equal(score.Z, (double)row[z]!);
         }
