@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.HouseFactor;
@@ -8,13 +9,13 @@ namespace YieldBench.Core.HouseFactor;
 /// A lot the house factor leaves out by default: the strain review flagged it as a likely error, or it did not ferment
 /// to dryness (its alcohol is short of a finished ferment, so it would teach a factor that is too low).
 /// </summary>
-/// <param name="LotKey">"season/lot".</param>
+/// <param name="LotKey">The lot's key.</param>
 /// <param name="Season">Season.</param>
 /// <param name="LotId">Lot id.</param>
 /// <param name="Strain">Strain.</param>
 /// <param name="Codes">The flag codes that put it here, in flag order (<see cref="FlagCodes"/>).</param>
 /// <param name="Reason">Why, in plain words.</param>
-public sealed record FlaggedLot(string LotKey, int Season, string LotId, string Strain, IReadOnlyList<string> Codes, string Reason);
+public sealed record FlaggedLot(LotKey LotKey, int Season, string LotId, string Strain, IReadOnlyList<string> Codes, string Reason);
 
 /// <summary>Which lots the house factor leaves out by default, from the strain review's flags.</summary>
 public static class FlaggedLots
@@ -27,7 +28,7 @@ public static class FlaggedLots
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(flags);
-        var byKey = new Dictionary<string, List<LotFlag>>(StringComparer.Ordinal);
+        var byKey = new Dictionary<LotKey, List<LotFlag>>();
         foreach (var f in flags)
         {
             if (f.LotKey is { } key && (f.Severity == FlagSeverity.LikelyError || f.Code == FlagCodes.NotDry))

@@ -47,7 +47,7 @@ public static class HouseFactorAnalysis
             return Run(lots, settings, extraCandidates, seed) with { FlaggedLotsIncluded = settings.IncludeFlaggedLots };
         }
 
-        var keys = flagged.Select(f => f.LotKey).ToHashSet(StringComparer.Ordinal);
+        var keys = flagged.Select(f => f.LotKey).ToHashSet();
         var kept = lots.Where(l => !keys.Contains(l.Lot.Key)).ToArray();
 
         // The two versions share only the immutable lots and are each seeded, so running them side by side gives the

@@ -41,13 +41,13 @@ public class FlaggedLotsTests
 
         // Then both lots are named with their reason, left out of every held-out prediction and of the lots used,
         // and the other version has them
-        Assert.Equal(["2022/BAD-1", "2023/SWEET-1"], review.FlaggedLots.Select(f => f.LotKey));
+        Assert.Equal(["2022/BAD-1", "2023/SWEET-1"], review.FlaggedLots.Select(f => f.LotKey.ToString()));
         Assert.Equal([FlagCodes.ImplausibleFactor], review.FlaggedLots[0].Codes);
         Assert.Equal([FlagCodes.NotDry], review.FlaggedLots[1].Codes);
         Assert.Contains("30.0 g/L residual sugar", review.FlaggedLots[1].Reason, StringComparison.Ordinal);
         Assert.False(review.FlaggedLotsIncluded);
         Assert.Equal(lots.Count - 2, review.LotsUsed);
-        Assert.All(review.Candidates, c => Assert.DoesNotContain(c.HeldOut, p => p.LotKey is "2022/BAD-1" or "2023/SWEET-1"));
+        Assert.All(review.Candidates, c => Assert.DoesNotContain(c.HeldOut, p => p.LotKey.ToString() is "2022/BAD-1" or "2023/SWEET-1"));
         Assert.Contains(review.Explanation, s => s.Contains("left out of training, selection and intervals", StringComparison.Ordinal) && s.Contains("2022/BAD-1", StringComparison.Ordinal));
         var other = review.OtherVersion!;
         Assert.True(other.FlaggedLotsIncluded);
