@@ -102,7 +102,7 @@ public class ReadingTests
         var set = folder.Read(new IntakeOptions { Season = 2019 }, "lots-2021.xlsx", "lots.csv");
 
         // Then the column wins, then the sheet name, then the file name, then the option
-        Assert.Equal(["2020/A-01", "2022/A-02", "2021/A-03", "2019/A-04"], set.Lots.Select(l => l.Key));
+        Assert.Equal([new LotKey(2020, "A-01"), new LotKey(2022, "A-02"), new LotKey(2021, "A-03"), new LotKey(2019, "A-04")], set.Lots.Select(l => l.Key));
     }
 
     [Fact]

@@ -1,4 +1,5 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 
 namespace YieldBench.Core.HouseFactor;
@@ -17,12 +18,12 @@ public enum BacktestScheme
 }
 
 /// <summary>One held-out prediction.</summary>
-/// <param name="LotKey">"season/lot".</param>
+/// <param name="LotKey">The lot's key.</param>
 /// <param name="Season">Season.</param>
 /// <param name="Strain">Strain.</param>
 /// <param name="ActualAbv">The lab's final alcohol, % v/v.</param>
 /// <param name="PredictedAbv">The prediction of a candidate that never saw this lot, % v/v.</param>
-public sealed record HeldOutPrediction(string LotKey, int Season, string Strain, double ActualAbv, double PredictedAbv)
+public sealed record HeldOutPrediction(LotKey LotKey, int Season, string Strain, double ActualAbv, double PredictedAbv)
 {
     /// <summary>Actual − predicted, % v/v (positive: the wine came out stronger than predicted).</summary>
     public double Error => ActualAbv - PredictedAbv;
@@ -151,7 +152,7 @@ public sealed class BacktestFolds
     private readonly int[] foldIds;
     private readonly Lazy<(LotConversion[] Train, int[] Test, PredictionInput[] Inputs)>[]? kept;
     private readonly Lazy<PredictionInput[]> inputs;
-    private readonly Lazy<string[]> keys;
+    private readonly Lazy<LotKey[]> keys;
 
     private BacktestFolds(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int[] foldOf)
     {
@@ -160,7 +161,7 @@ public sealed class BacktestFolds
         this.foldOf = foldOf;
         foldIds = scheme == BacktestScheme.LeaveOneLotOut ? foldOf : foldOf.Distinct().Order().ToArray();
         inputs = new Lazy<PredictionInput[]>(() => lots.Select(PredictionInput.From).ToArray());
-        keys = new Lazy<string[]>(() => lots.Select(l => l.Lot.Key).ToArray());
+        keys = new Lazy<LotKey[]>(() => lots.Select(l => l.Lot.Key).ToArray());
         if (scheme != BacktestScheme.LeaveOneLotOut)
         {
             kept = foldIds.Select(id => new Lazy<(LotConversion[], int[], PredictionInput[])>(() => Build(id))).ToArray();
@@ -177,7 +178,7 @@ public sealed class BacktestFolds
     public int Count => foldIds.Length;
 
     /// <summary>Each lot's "season/lot" key, in input order.</summary>
-    internal IReadOnlyList<string> Keys => keys.Value;
+    internal IReadOnlyList<LotKey> Keys => keys.Value;
 
     /// <summary>Deals the lots into the folds of <paramref name="scheme"/> (ten folds by a shuffle seeded with <paramref name="seed"/>).</summary>
     public static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)

@@ -89,6 +89,6 @@ public sealed record Lot
     /// <summary>Where the lot's row was read.</summary>
     public SourceRef? Source { get; init; }
 
-    /// <summary>A key unique across seasons: "season/lot".</summary>
-    public string Key => $"{Season}/{LotId}";
+    /// <summary>The lot's identity across seasons (season, lot id).</summary>
+    public LotKey Key => new(Season, LotId);
 }

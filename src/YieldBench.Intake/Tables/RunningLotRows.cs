@@ -58,7 +58,7 @@ internal static class RunningLotRows
             Source = new SourceRef(ctx.File, ctx.SheetName, r + 1),
         };
 
-        string key = $"{lot.Season}/{lot.LotId}";
+        var key = new LotKey(lot.Season, lot.LotId);
         if (ctx.Run.LotKeys.TryGetValue(key, out var first))
         {
             ctx.Run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.Column("lot_id")!.Header, lot.LotId, IssueCodes.DuplicateLot, IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString()));

@@ -71,13 +71,13 @@ public static class KineticsCharts
 
         // Lots are drawn in the order of the lot records so pages and colours are stable.
         // Each key's first place (a repeated key keeps its first).
-        var order = new Dictionary<string, int>(lots.Count, StringComparer.Ordinal);
+        var order = new Dictionary<Core.Lots.LotKey, int>(lots.Count);
         for (int i = 0; i < lots.Count; i++)
         {
             order.TryAdd(lots[i].Lot.Key, i);
         }
 
-        var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
+        var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey).ToArray();
         var strains = StrainOrder(ordered, lots);
 
         // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
@@ -510,7 +510,7 @@ public static class KineticsCharts
         }
 
         plot.Add.Plottable(others);
-        var flaggedKeys = selection.Flagged.Select(k => k.LotKey).ToHashSet(StringComparer.Ordinal);
+        var flaggedKeys = selection.Flagged.Select(k => k.LotKey).ToHashSet();
         for (int si = 0; si < strains.Count; si++)
         {
             var mine = selection.Flagged.Where(k => string.Equals(k.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();

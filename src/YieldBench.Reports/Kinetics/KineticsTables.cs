@@ -212,12 +212,12 @@ public static class KineticsTables
         var t = new ReportTable(FindingColumns);
         foreach (var f in review.Findings)
         {
-            t.Add([f.LotKey, f.Code, f.Message, f.Source?.ToString()]);
+            t.Add([f.Subject, f.Code, f.Message, f.Source?.ToString()]);
         }
 
         foreach (var key in review.LotsWithoutLog)
         {
-            t.Add([key, "no-log", $"Lot {key} has no fermentation log; its kinetics are not shown.", null]);
+            t.Add([key.ToString(), "no-log", $"Lot {key} has no fermentation log; its kinetics are not shown.", null]);
         }
 
         return t;

@@ -68,14 +68,14 @@ public static class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         var table = new ReportTable(LotColumns);
-        var scores = review.Strains.Scores.GroupBy(x => x.LotKey, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
+        var scores = review.Strains.Scores.GroupBy(x => x.LotKey).ToDictionary(g => g.Key, g => g.First());
         var index = FlagIndex.Of(review);
         foreach (var c in order ?? review.Lots)
         {
             var lot = c.Lot;
 
             // Lot.Key formats the key on every call; the index holds each reviewed lot's key, built once.
-            string key = index.KeyOf(c);
+            var key = index.KeyOf(c);
             var flags = index.Codes(key);
             table.Add(
             [
@@ -252,12 +252,12 @@ public static class ReviewTables
         // Held through a Lazy: the table runs its factory outside its lock, and the report's threads (data files,
         // workbook layout, charts) all ask at once, so each built the whole index; now one builds it and the others wait.
         private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<FlagIndex>> Cache = new();
-        private readonly Dictionary<string, List<LotFlag>> strainFlags = new(StringComparer.Ordinal);
-        private readonly Dictionary<string, LotKinetics> kinetics = new(StringComparer.Ordinal);
-        private readonly Dictionary<string, FlagSeverity> worst = new(StringComparer.Ordinal);
+        private readonly Dictionary<LotKey, List<LotFlag>> strainFlags = [];
+        private readonly Dictionary<LotKey, LotKinetics> kinetics = [];
+        private readonly Dictionary<LotKey, FlagSeverity> worst = [];
 
         // Each reviewed lot's key, by reference: Lot.Key formats a new string per call, and the reports ask per lot.
-        private readonly Dictionary<LotConversion, string> keys = new(ReferenceEqualityComparer.Instance);
+        private readonly Dictionary<LotConversion, LotKey> keys = new(ReferenceEqualityComparer.Instance);
 
         private FlagIndex(ReviewResult review)
         {
@@ -268,19 +268,27 @@ public static class ReviewTables
 
             var kineticsItems = review.Kinetics is { } k ? KineticsFollowUps.For(k) : [];
             Items = review.Strains.Flags.Concat(kineticsItems).ToArray();
-            foreach (var f in review.Strains.Flags.Where(f => f.LotKey is not null))
+            foreach (var f in review.Strains.Flags)
             {
-                if (!strainFlags.TryGetValue(f.LotKey!, out var list))
+                if (f.LotKey is not { } key)
                 {
-                    strainFlags[f.LotKey!] = list = [];
+                    continue;
+                }
+
+                if (!strainFlags.TryGetValue(key, out var list))
+                {
+                    strainFlags[key] = list = [];
                 }
 
                 list.Add(f);
             }
 
-            foreach (var f in Items.Where(f => f.LotKey is not null))
+            foreach (var f in Items)
             {
-                worst[f.LotKey!] = worst.TryGetValue(f.LotKey!, out var w) && w > f.Severity ? w : f.Severity;
+                if (f.LotKey is { } key)
+                {
+                    worst[key] = worst.TryGetValue(key, out var w) && w > f.Severity ? w : f.Severity;
+                }
             }
 
             foreach (var lk in review.Kinetics?.Lots ?? [])
@@ -308,14 +316,14 @@ public static class ReviewTables
             Cache.GetValue(review, r => new Lazy<FlagIndex>(() => new FlagIndex(r), LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
         /// <summary>The lot's "season/lot" key (held for the review's lots, formatted for any other).</summary>
-        public string KeyOf(LotConversion lot) => keys.TryGetValue(lot, out var key) ? key : lot.Lot.Key;
+        public LotKey KeyOf(LotConversion lot) => keys.TryGetValue(lot, out var key) ? key : lot.Lot.Key;
 
-        public IReadOnlyList<LotFlag> StrainFlags(string lotKey) => strainFlags.TryGetValue(lotKey, out var list) ? list : [];
+        public IReadOnlyList<LotFlag> StrainFlags(LotKey lotKey) => strainFlags.TryGetValue(lotKey, out var list) ? list : [];
 
-        public LotKinetics? Kinetics(string lotKey) => kinetics.GetValueOrDefault(lotKey);
+        public LotKinetics? Kinetics(LotKey lotKey) => kinetics.GetValueOrDefault(lotKey);
 
         /// <summary>The lot's flag codes, strain review first, then kinetics, each once, in that order.</summary>
-        public IReadOnlyList<string> Codes(string lotKey)
+        public IReadOnlyList<string> Codes(LotKey lotKey)
         {
             var strain = StrainFlags(lotKey);
             var logged = Kinetics(lotKey)?.Flags ?? [];
@@ -352,7 +360,7 @@ public static class ReviewTables
             codes.Add(code);
         }
 
-        public FlagSeverity? WorstSeverity(string lotKey) => worst.TryGetValue(lotKey, out var w) ? w : null;
+        public FlagSeverity? WorstSeverity(LotKey lotKey) => worst.TryGetValue(lotKey, out var w) ? w : null;
     }
 
     /// <summary>Plain name of a severity, as in data/flags.csv.</summary>
@@ -688,6 +696,71 @@ public static class ReviewTables
                 names.GetValueOrDefault(r.BestCandidateId, r.BestCandidateId), r.Metrics.Mae, r.MaeLimit,
                 r.ErrorBand80.Low, r.ErrorBand80.High, r.ErrorBand95.Low, r.ErrorBand95.High, r.Metrics.ShareWithinTolerance, r.Explanation,
             ]);
+        }
+
+        return table;
+    }
+
+    /// <summary>
+    /// The recommendation overall and per strain in both versions of the house factor: with the lots flagged as likely
+    /// errors or not dry left out, and with them included (the version in use first).
+    /// </summary>
+    public static ReportTable HouseFactorVersions(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("flagged_lots", "Flagged lots", CellKind.Text),
+            new("in_use", "In use", CellKind.Boolean),
+            new("strain", "Strain", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("candidate", "Recommended", CellKind.Text),
+            new("mae_abv", "Mean absolute error (% v/v)", CellKind.Number, "0.000"),
+            new("error_80_low_abv", "80 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_80_high_abv", "80 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_low_abv", "95 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_high_abv", "95 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("share_within_tolerance", "Within label tolerance", CellKind.Share),
+        ]);
+        var h = review.HouseFactor;
+        var names = h.Candidates.ToDictionary(c => c.Id, c => c.Name, StringComparer.Ordinal);
+        foreach (var (version, inUse) in new[] { (h, true), (h.OtherVersion, false) })
+        {
+            if (version is null)
+            {
+                continue;
+            }
+
+            string which = version.FlaggedLotsIncluded ? "included" : "left out";
+            foreach (var r in (version.Overall is null ? [] : new[] { version.Overall }).Concat(version.ByStrain))
+            {
+                table.Add(
+                [
+                    which, inUse, r.Strain == "*" ? "all lots" : r.Strain, r.Lots, names.GetValueOrDefault(r.CandidateId, r.CandidateId), r.Metrics.Mae,
+                    r.ErrorBand80.Low, r.ErrorBand80.High, r.ErrorBand95.Low, r.ErrorBand95.High, r.Metrics.ShareWithinTolerance,
+                ],
+                highlight: inUse && r.Strain == "*");
+            }
+        }
+
+        return table;
+    }
+
+    /// <summary>The lots flagged as likely errors or not dry, which the house factor leaves out unless a setting includes them.</summary>
+    public static ReportTable HouseFactorFlaggedLots(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("season", "Season", CellKind.Integer),
+            new("lot_id", "Lot", CellKind.Text),
+            new("strain", "Strain", CellKind.Text),
+            new("codes", "Flags", CellKind.Text),
+            new("reason", "Why", CellKind.Text),
+        ]);
+        foreach (var f in review.HouseFactor.FlaggedLots)
+        {
+            table.Add([f.Season, f.LotId, f.Strain, string.Join(", ", f.Codes), f.Reason]);
         }
 
         return table;

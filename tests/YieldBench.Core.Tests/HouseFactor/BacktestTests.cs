@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.HouseFactor;
 
 namespace YieldBench.Core.Tests.HouseFactor;
@@ -22,7 +23,7 @@ public class BacktestTests
         // 0.477842372894, 0.7)
         double[] actual = [13.2, 14.1, 12.8, 15.0, 13.9, 14.4];
         double[] predicted = [13.0, 14.5, 12.9, 14.2, 14.3, 13.8];
-        var preds = actual.Select((a, i) => new HeldOutPrediction($"2024/L{i}", 2024, "SX-01", a, predicted[i])).ToArray();
+        var preds = actual.Select((a, i) => new HeldOutPrediction(new LotKey(2024, $"L{i}"), 2024, "SX-01", a, predicted[i])).ToArray();
 
         // When they are scored against the US regime and the 14 % threshold
         var m = BacktestMetrics.Score(preds, LabelRegime.UnitedStates, 14.0);

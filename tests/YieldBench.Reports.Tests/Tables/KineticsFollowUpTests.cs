@@ -35,7 +35,7 @@ public sealed class KineticsFollowUpTests
     {
         // Given a review whose lot L005 stalled above dry and did not finish by the lab's residual sugar
         var review = ReviewWithLogs();
-        Assert.Contains("stuck", review.Kinetics!.Lots.Single(k => k.LotKey == "2024/L005").Flags);
+        Assert.Contains("stuck", review.Kinetics!.Lots.Single(k => k.LotKey == new LotKey(2024, "L005")).Flags);
 
         // When the follow-up table is built
         var stuck = Rows(ReviewTables.FollowUp(review)).Single(r => (string?)r["lot_id"] == "L005" && (string?)r["code"] == "stuck");
@@ -80,8 +80,8 @@ public sealed class KineticsFollowUpTests
     {
         // Given the review with logs, and lot L020 which the strain review did not flag
         var review = ReviewWithLogs();
-        var l020 = review.Lots.Single(l => l.Lot.Key == "2025/L020");
-        Assert.DoesNotContain(review.Strains.Flags, f => f.LotKey == "2025/L020");
+        var l020 = review.Lots.Single(l => l.Lot.Key == new LotKey(2025, "L020"));
+        Assert.DoesNotContain(review.Strains.Flags, f => f.LotKey == new LotKey(2025, "L020"));
 
         // When it is asked about
         // Then it is flagged (Lots-sheet highlight, counts) with a check severity, but not a strain-review finding
@@ -95,9 +95,9 @@ public sealed class KineticsFollowUpTests
     {
         // Given the review with logs
         var review = ReviewWithLogs();
-        var expected = review.Strains.Flags.Where(f => f.LotKey is not null).Select(f => f.LotKey!)
+        var expected = review.Strains.Flags.Where(f => f.LotKey is not null).Select(f => f.LotKey!.Value)
             .Union(review.Kinetics!.Lots.Where(k => k.Flags.Intersect(KineticsFollowUps.Codes).Any()).Select(k => k.LotKey))
-            .Distinct(StringComparer.Ordinal).Count();
+            .Distinct().Count();
 
         // When the console summary is written
         var line = ConsoleSummary.Lines(review, new ReportOutput("out", [], [])).Single(l => l.StartsWith("Lots to look at:", StringComparison.Ordinal));

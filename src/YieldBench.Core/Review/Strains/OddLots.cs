@@ -36,7 +36,7 @@ internal static class OddLots
         var flags = new List<LotFlag>();
         var references = FactorReferences(lots, settings);
         var lines = StrainLines(lots, settings);
-        var scoreByKey = scores.ToDictionary(s => s.LotKey, StringComparer.Ordinal);
+        var scoreByKey = scores.ToDictionary(s => s.LotKey);
         var strainRefs = lots.Where(l => !double.IsNaN(l.Factor))
             .GroupBy(l => l.Strain, StringComparer.Ordinal)
             .Where(g => g.Count() >= settings.MinLotsForStrainReference)

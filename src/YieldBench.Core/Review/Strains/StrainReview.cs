@@ -1,4 +1,5 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 
 namespace YieldBench.Core.Review.Strains;
@@ -184,7 +185,7 @@ public sealed record AdjustedStrain(string Strain, double PredictedAbv, double F
 public sealed record AdjustedDifference(string First, string Second, double AbvDifference, Interval Interval);
 
 /// <summary>A lot's robust z within its reference group.</summary>
-/// <param name="LotKey">"season/lot".</param>
+/// <param name="LotKey">The lot's key.</param>
 /// <param name="Strain">The lot's strain.</param>
 /// <param name="Measure">Data-file name of the factor scored.</param>
 /// <param name="Value">The lot's factor.</param>
@@ -193,7 +194,7 @@ public sealed record AdjustedDifference(string First, string Second, double AbvD
 /// <param name="ReferenceScale">Scale used: scaled MAD, or Qn when the MAD is 0.</param>
 /// <param name="Z">(value − median) / scale: the Iglewicz–Hoaglin modified z (NaN when both scales are 0).</param>
 /// <param name="ScaleName">"MAD" or "Qn".</param>
-public sealed record LotScore(string LotKey, string Strain, string Measure, double Value, string ReferenceGroup, double ReferenceMedian, double ReferenceScale, double Z, string ScaleName);
+public sealed record LotScore(LotKey LotKey, string Strain, string Measure, double Value, string ReferenceGroup, double ReferenceMedian, double ReferenceScale, double Z, string ScaleName);
 
 /// <summary>How much a flag matters.</summary>
 public enum FlagSeverity
@@ -211,8 +212,8 @@ public enum FlagSeverity
 /// <summary>One finding about one lot (or, for season drift, one strain in one season).</summary>
 public sealed record LotFlag
 {
-    /// <summary>"season/lot", or null for a group-level flag.</summary>
-    public string? LotKey { get; init; }
+    /// <summary>The lot's key, or null for a group-level flag.</summary>
+    public LotKey? LotKey { get; init; }
 
     /// <summary>The lot id, or null for a group-level flag.</summary>
     public string? LotId { get; init; }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 using static System.FormattableString;
 
@@ -118,7 +119,7 @@ internal sealed class PreparedLot
     /// <summary>Final alcohol, % v/v.</summary>
     public double Abv { get; }
 
-    public string Key => Conversion.Lot.Key;
+    public LotKey Key => Conversion.Lot.Key;
 
     public int Season => Conversion.Lot.Season;
 }
