@@ -40,7 +40,7 @@ internal static class Corpus
     public static IReadOnlyList<CorpusCase> Cases { get; } =
     [
         new("empty file", f => f.Bytes("empty.csv", []),
-            E("empty.csv", null, null, null, null, "empty-file", "The file is empty (0 bytes). Export the sheet again."), 0),
+            E("empty.csv", null, null, null, null, "empty-file", "The file is empty (0 bytes), or it is not an ordinary file (a device, a pipe or a socket); nothing was read. Export the sheet again as a file."), 0),
         new("binary file named csv", f => f.Bytes("binary.csv", [0x41, 0x42, 0x00, 0x01, 0x02, 0xFF]),
             E("binary.csv", null, null, null, null, "binary-file", "The file is named .csv but holds binary data (a zero byte at offset 2), not text. Export the sheet as CSV again, or give the workbook itself."), 0),
         new("text file named xlsx", f => f.Text("not-really.xlsx", "Lot,Yeast\nA,B\n"),
@@ -74,8 +74,8 @@ internal static class Corpus
             E("big.csv", null, null, null, "61", "file-too-large", "The file is 61 bytes, above the limit of 40 bytes. Split it (for example one file per season)."), 0, new IntakeOptions { MaxFileBytes = 40 }),
         new("sheet over the row limit", f => f.Text("long.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,24.0,14.0", "A-03,2023,QX-7,24.0,14.0")),
             E("long.csv", null, null, null, null, "too-many-rows", "The sheet has more than 3 rows, the limit; it was not read. Split it (for example one sheet per season)."), 0, new IntakeOptions { MaxRows = 3 }),
-        new("unsupported file type", f => f.Text("lots.ods", "x"),
-            E("lots.ods", null, null, null, null, "unsupported-file-type", "Files ending in '.ods' are not read. Save the sheet as .xlsx, .xls or .csv."), 0),
+        new("unsupported file type", f => f.Text("lots.numbers", "x"),
+            E("lots.numbers", null, null, null, null, "unsupported-file-type", "Files ending in '.numbers' are not read. Save the sheet as .xlsx, .ods or .csv."), 0),
         new("missing file", _ => "nowhere.csv",
             E("nowhere.csv", null, null, null, null, "file-not-found", "The file or folder was not found. Check the path."), 0),
         new("no header row", f => f.Text("prose.csv", Csv("These are our notes from harvest.", "Nothing tabular here.")),
