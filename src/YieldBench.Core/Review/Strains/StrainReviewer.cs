@@ -84,7 +84,9 @@ internal sealed class PreparedLot
     {
         Conversion = conversion;
         Strain = conversion.Lot.Strain.Trim();
-        Vessel = string.IsNullOrWhiteSpace(conversion.Lot.Vessel) ? Groupings.NotRecorded : conversion.Lot.Vessel.Trim().ToLowerInvariant();
+        // Spellings are settled once, by intake (one spelling per strain and vessel type), so groups take the lot's own
+        // text and every output names a vessel as the lots table does.
+        Vessel = string.IsNullOrWhiteSpace(conversion.Lot.Vessel) ? Groupings.NotRecorded : conversion.Lot.Vessel.Trim();
         Variety = string.IsNullOrWhiteSpace(conversion.Lot.Variety) ? Groupings.NotRecorded : conversion.Lot.Variety.Trim();
         IsDry = conversion.ResidualSugarGl <= settings.DryThresholdGl;
         Factor = IsDry ? conversion.AbvPerBrix : conversion.AbvPerBrixFermented;
