@@ -329,7 +329,7 @@ public sealed class ReviewCommandInputTests : IDisposable
         Assert.Equal(string.Empty, error);
         Assert.Contains("Lots used: 25 (2024, 2025, 2026)", output, StringComparison.Ordinal);
         var issues = Cli.CsvLines(Path.Combine(root, "report", "data", "intake-issues.csv"));
-        Assert.Equal("file,sheet,row,column,value,code,message", issues[0]);
+        Assert.Equal("file,sheet,row,column,value,code,severity,message", issues[0]);
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,2,", StringComparison.Ordinal) && l.Contains("twenty", StringComparison.Ordinal));
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,3,", StringComparison.Ordinal));
         Assert.Equal(26, Cli.CsvLines(Path.Combine(root, "report", "data", "lots.csv")).Length);

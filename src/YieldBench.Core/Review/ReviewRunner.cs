@@ -38,7 +38,7 @@ public static class ReviewRunner
         var houseTask = Task.Run(() => HouseFactorAnalysis.Run(lots, settings.HouseFactor, extraCandidates ?? [], settings.Seed));
 
         progress?.Report(Stages[1]);
-        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed, settings.SugarModel);
 
         KineticsReview? kinetics = null;
         if (inputs.Logs.Count > 0)
@@ -50,6 +50,8 @@ public static class ReviewRunner
         progress?.Report(Stages[3]);
         var house = houseTask.GetAwaiter().GetResult();
 
+        var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps);
+        var figures = ReviewFigures.Build(lots, strains, kinetics);
         return new ReviewResult
         {
             Inputs = inputs,
@@ -58,6 +60,10 @@ public static class ReviewRunner
             Strains = strains,
             HouseFactor = house,
             Kinetics = kinetics,
+            LotReviews = lotReviews,
+            FollowUps = followUps,
+            Figures = figures,
+            Overview = ReviewOverview.Build(inputs, strains, house, kinetics, lotReviews, figures),
             ToolVersion = toolVersion,
         };
     }
