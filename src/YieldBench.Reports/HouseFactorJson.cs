@@ -23,7 +23,7 @@ public static class HouseFactorJson
     public const string FileName = "house-factor.json";
 
     /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
-    public const int FormatVersion = 1;
+    public const int FormatVersion = 2;
 
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -44,6 +44,8 @@ public static class HouseFactorJson
             new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowBoundary, review.Regime.ToleranceAboveBoundary, N(review.Regime.BoundaryAbv), review.Regime.NoCrossingBoundary, review.Regime.Source),
             review.ThresholdAbv,
             review.LotsUsed,
+            review.FlaggedLotsIncluded,
+            review.FlaggedLots.Select(Flagged).ToArray(),
             review.Seasons,
             Scheme(review.PrimaryScheme),
             review.Candidates.Select(c => new CandidateDto(c.Id, c.Name, c.Description, c.Complexity, Metrics(c.BySeason), Metrics(c.ByLot), Scheme(c.ByLotScheme),
@@ -55,7 +57,14 @@ public static class HouseFactorJson
             review.ImportanceSentence,
             review.Explanation,
             review.Notes,
-            review.Cautions);
+            review.Cautions,
+            review.OtherVersion is { } other ? new OtherVersionDto(
+                other.FlaggedLotsIncluded,
+                other.LotsUsed,
+                Recommendation(other.Overall),
+                other.ByStrain.Select(r => Recommendation(r)!).ToArray(),
+                other.Planning is null ? null : new PlanningDto(Line(other.Planning.Pooled), other.Planning.Strains.Select(Line).ToArray(), other.Planning.Basis),
+                other.Explanation) : null);
         return JsonSerializer.Serialize(dto, Options) + "\n";
     }
 
@@ -169,6 +178,8 @@ public static class HouseFactorJson
         l.ErrorBasis,
         l.SortedErrors);
 
+    private static FlaggedLotDto Flagged(FlaggedLot f) => new(f.Season, f.LotId, f.Strain, f.Codes, f.Reason);
+
     private static RecommendationDto? Recommendation(Recommendation? r) => r is null ? null : new(
         r.Strain,
         r.Lots,
@@ -202,6 +213,8 @@ public static class HouseFactorJson
         RegimeDto? Regime,
         double ThresholdAbv,
         int LotsUsed,
+        bool FlaggedLotsIncluded,
+        IReadOnlyList<FlaggedLotDto> FlaggedLots,
         IReadOnlyList<int> Seasons,
         string PrimaryBacktest,
         IReadOnlyList<CandidateDto> Candidates,
@@ -212,7 +225,18 @@ public static class HouseFactorJson
         string? ImportanceSentence,
         IReadOnlyList<string> Explanation,
         IReadOnlyList<string> Notes,
-        IReadOnlyList<string> Cautions);
+        IReadOnlyList<string> Cautions,
+        OtherVersionDto? OtherVersion);
+
+    private sealed record FlaggedLotDto(int Season, string LotId, string Strain, IReadOnlyList<string> Codes, string Reason);
+
+    private sealed record OtherVersionDto(
+        bool FlaggedLotsIncluded,
+        int LotsUsed,
+        RecommendationDto? Recommendation,
+        IReadOnlyList<RecommendationDto> ByStrain,
+        PlanningDto? Planning,
+        IReadOnlyList<string> Explanation);
 
     private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowBoundaryAbv, double ToleranceAboveBoundaryAbv, double? BoundaryAbv, bool NoCrossingBoundary, string Source);
 

@@ -194,9 +194,16 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         string candidate = root.GetProperty("recommendation").GetProperty("candidate_id").GetString()!;
         string name = root.GetProperty("candidates").EnumerateArray().First(c => c.GetProperty("id").GetString() == candidate).GetProperty("name").GetString()!;
 
-        // Then it is the candidate the console named, over the demo's 222 lots, and the planner reads it back
+        // Then it is the candidate the console named, over the demo's 222 lots less the four flagged as likely errors
+        // or not dry (named, and counted in the other version), and the planner reads it back
         Assert.Contains("House factor: " + name + ";", demo.Out, StringComparison.Ordinal);
-        Assert.Equal(222, root.GetProperty("lots_used").GetInt32());
+        Assert.Equal(218, root.GetProperty("lots_used").GetInt32());
+        Assert.False(root.GetProperty("flagged_lots_included").GetBoolean());
+        string[] flagged = root.GetProperty("flagged_lots").EnumerateArray().Select(f => f.GetProperty("lot_id").GetString()!).ToArray();
+        Assert.Equal(["23-016", "23-018", "24-020", "25-017"], flagged);
+        var other = root.GetProperty("other_version");
+        Assert.True(other.GetProperty("flagged_lots_included").GetBoolean());
+        Assert.Equal(222, other.GetProperty("lots_used").GetInt32());
         var file = YieldBench.Reports.HouseFactorJson.ReadFile(Path.Combine(demo.First, "data", "house-factor.json"));
         Assert.Null(file.Error);
         Assert.NotNull(file.Model);

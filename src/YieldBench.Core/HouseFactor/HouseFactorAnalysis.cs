@@ -26,7 +26,52 @@ public static class HouseFactorAnalysis
     }
 
     /// <summary>
-    /// Runs the analysis on lots with their conversion measures.
+    /// Runs the analysis twice, with and without the lots the strain review flagged as likely errors or not fermented
+    /// to dryness (<see cref="FlaggedLots.From"/>), side by side. The version <see cref="HouseFactorSettings.IncludeFlaggedLots"/>
+    /// asks for (by default: without them) is returned, the other in its <see cref="HouseFactorReview.OtherVersion"/>;
+    /// both name the flagged lots. With no flagged lot the analysis runs once.
+    /// </summary>
+    /// <param name="lots">Lots of any number of seasons.</param>
+    /// <param name="flags">The strain review's flags of these lots.</param>
+    /// <param name="settings">Settings.</param>
+    /// <param name="extraCandidates">Further candidates, offered after the built-in ones.</param>
+    /// <param name="seed">Seed for every random step.</param>
+    public static HouseFactorReview Run(
+        IReadOnlyList<LotConversion> lots, IReadOnlyList<Review.Strains.LotFlag> flags, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        ArgumentNullException.ThrowIfNull(settings);
+        var flagged = FlaggedLots.From(lots, flags);
+        if (flagged.Count == 0)
+        {
+            return Run(lots, settings, extraCandidates, seed) with { FlaggedLotsIncluded = settings.IncludeFlaggedLots };
+        }
+
+        var keys = flagged.Select(f => f.LotKey).ToHashSet();
+        var kept = lots.Where(l => !keys.Contains(l.Lot.Key)).ToArray();
+
+        // The two versions share only the immutable lots and are each seeded, so running them side by side gives the
+        // same results as one after the other.
+        var withoutTask = Task.Run(() => Run(kept, settings, extraCandidates, seed));
+        var with = Run(lots, settings, extraCandidates, seed);
+        var without = withoutTask.GetAwaiter().GetResult();
+        without = without with
+        {
+            FlaggedLotsIncluded = false,
+            FlaggedLots = flagged,
+            Explanation = [.. without.Explanation, FlaggedLots.Sentence(flagged, included: false)],
+        };
+        with = with with
+        {
+            FlaggedLotsIncluded = true,
+            FlaggedLots = flagged,
+            Explanation = [.. with.Explanation, FlaggedLots.Sentence(flagged, included: true)],
+        };
+        return settings.IncludeFlaggedLots ? with with { OtherVersion = without } : without with { OtherVersion = with };
+    }
+
+    /// <summary>
+    /// Runs the analysis on lots with their conversion measures (every lot given is used).
     /// </summary>
     /// <param name="lots">Lots of any number of seasons; lots without a finite abv_per_brix are left out and noted.</param>
     /// <param name="settings">Regime, threshold, planner targets and minimum counts.</param>

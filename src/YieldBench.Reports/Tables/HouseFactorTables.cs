@@ -69,6 +69,71 @@ public static partial class ReviewTables
         return ReportTable.Of(RecommendationTable, rows);
     }
 
+    /// <summary>
+    /// The recommendation overall and per strain in both versions of the house factor: with the lots flagged as likely
+    /// errors or not dry left out, and with them included (the version in use first).
+    /// </summary>
+    public static ReportTable HouseFactorVersions(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("flagged_lots", "Flagged lots", CellKind.Text),
+            new("in_use", "In use", CellKind.Boolean),
+            new("strain", "Strain", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("candidate", "Recommended", CellKind.Text),
+            new("mae_abv", "Mean absolute error (% v/v)", CellKind.Number, "0.000"),
+            new("error_80_low_abv", "80 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_80_high_abv", "80 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_low_abv", "95 % band low (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("error_95_high_abv", "95 % band high (% v/v)", CellKind.Number, "+0.00;-0.00;0.00"),
+            new("share_within_tolerance", "Within label tolerance", CellKind.Share),
+        ]);
+        var h = review.HouseFactor;
+        var names = h.Candidates.ToDictionary(c => c.Id, c => c.Name, StringComparer.Ordinal);
+        foreach (var (version, inUse) in new[] { (h, true), (h.OtherVersion, false) })
+        {
+            if (version is null)
+            {
+                continue;
+            }
+
+            string which = version.FlaggedLotsIncluded ? "included" : "left out";
+            foreach (var r in (version.Overall is null ? [] : new[] { version.Overall }).Concat(version.ByStrain))
+            {
+                table.Add(
+                [
+                    which, inUse, StrainName(r.Strain), r.Lots, names.GetValueOrDefault(r.CandidateId, r.CandidateId), r.Metrics.Mae,
+                    r.ErrorBand80.Low, r.ErrorBand80.High, r.ErrorBand95.Low, r.ErrorBand95.High, r.Metrics.ShareWithinTolerance,
+                ],
+                highlight: inUse && r.Strain == "*");
+            }
+        }
+
+        return table;
+    }
+
+    /// <summary>The lots flagged as likely errors or not dry, which the house factor leaves out unless a setting includes them.</summary>
+    public static ReportTable HouseFactorFlaggedLots(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("season", "Season", CellKind.Integer),
+            new("lot_id", "Lot", CellKind.Text),
+            new("strain", "Strain", CellKind.Text),
+            new("codes", "Flags", CellKind.Text),
+            new("reason", "Why", CellKind.Text),
+        ]);
+        foreach (var f in review.HouseFactor.FlaggedLots)
+        {
+            table.Add([f.Season, f.LotId, f.Strain, string.Join(", ", f.Codes), f.Reason]);
+        }
+
+        return table;
+    }
+
     private static IReadOnlyList<Column<ThresholdAnswer>> PlannerTable { get; } =
     [
         new("strain", "Strain", CellKind.Text, t => StrainName(t.Strain)),

@@ -508,6 +508,18 @@ public static class WorkbookWriter
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Recommendation", 12);
         var rec = SheetLayout.WriteTable(ws, ReviewTables.Recommendations(review), r, 1, freezeAndFilter: false);
         r = rec.LastRow + 2;
+        if (h.FlaggedLots.Count > 0)
+        {
+            SheetLayout.SetHeading(ws.Cell(r++, 1), h.FlaggedLotsIncluded
+                ? "Lots flagged as likely errors or not dry (included: the setting to include them is on)"
+                : "Lots flagged as likely errors or not dry (left out of training, selection and intervals; a setting includes them)", 12);
+            var flagged = SheetLayout.WriteTable(ws, ReviewTables.HouseFactorFlaggedLots(review), r, 1, freezeAndFilter: false);
+            r = flagged.LastRow + 2;
+            SheetLayout.SetHeading(ws.Cell(r++, 1), "Both versions: flagged lots left out and included", 12);
+            var versions = SheetLayout.WriteTable(ws, ReviewTables.HouseFactorVersions(review), r, 1, freezeAndFilter: false);
+            r = versions.LastRow + 2;
+        }
+
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Every candidate", 12);
         var cand = SheetLayout.WriteTable(ws, ReviewTables.HouseCandidates(review), r, 1, freezeAndFilter: false);
         r = cand.LastRow + 2;

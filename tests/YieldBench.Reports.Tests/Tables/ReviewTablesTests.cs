@@ -96,4 +96,20 @@ public sealed class ReviewTablesTests
         Assert.Equal(factors.OrderDescending().ToArray(), factors);
         Assert.Equal("ST-B", ranked[0].Strain);
     }
+
+    [Fact]
+    public void The_house_factor_sheet_names_the_flagged_lots_and_shows_both_versions()
+    {
+        // Given the sample review, whose lot L005 did not finish and L010 holds more alcohol than its sugar can give
+        // When the house factor's flagged lots and its two versions are laid out
+        var flagged = ReviewTables.HouseFactorFlaggedLots(Review);
+        var versions = ReviewTables.HouseFactorVersions(Review);
+
+        // Then both lots are named with their flag, and the overall row of each version counts 34 lots (left out, in use)
+        // and 36 (included)
+        Assert.Equal(["L005", "L010"], flagged.Rows.Select(r => (string)r[flagged.IndexOf("lot_id")]!));
+        Assert.Equal(["not-dry", "above-theoretical-yield"], flagged.Rows.Select(r => (string)r[flagged.IndexOf("codes")]!));
+        var overall = versions.Rows.Where(r => (string)r[versions.IndexOf("strain")]! == "all lots").ToArray();
+        Assert.Equal([("left out", true, 34), ("included", false, 36)], overall.Select(r => ((string)r[0]!, (bool)r[1]!, (int)r[3]!)));
+    }
 }
