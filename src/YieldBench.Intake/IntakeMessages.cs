@@ -128,8 +128,8 @@ public static class IntakeMessages
     internal static string MappingLineNotUnderstood() =>
         "The line is not of the form FIELD = HEADER. Write one mapping a line, e.g. 'strain = Levure'; '#' starts a comment.";
 
-    internal static string MappingUnknownField(string field) =>
-        $"'{field}' is not a field name. Use one of the fields listed in docs/input-format.md, e.g. lot_id, strain, starting_sugar, final_abv.";
+    internal static string MappingUnknownField(string field, IEnumerable<string> names) =>
+        $"'{field}' is not a field name. Use one of: {string.Join(", ", names)} (docs/input-format.md says what each holds).";
 
     internal static string MappedHeaderNotFound(string field) =>
         $"No sheet has this header, so the mapping to {field} was not used. Check the spelling against the file's header row.";
@@ -183,7 +183,7 @@ public static class IntakeMessages
         $"The residual sugar, {Num(residualGl)} g/L, is more than the must held at the start ({Num(Math.Round(startGl, 1))} g/L of fermentable sugar at {start}, after recorded additions), which is impossible; the lot was left out. One of the two values is wrong (a unit, a misplaced decimal point, or another lot's value).";
 
     internal static string AdditionsImplausible(string what, double effectiveBrix, double min, double max) =>
-        $"{what} would make {(double.IsNaN(effectiveBrix) ? "a must beyond any sugar scale" : "a must of " + Num(Math.Round(effectiveBrix, 1)) + " °Brix")}, outside any must ({Num(min)} to {Num(max)} °Brix); the lot was left out. One of the values is wrong (a unit, for example pounds or grams for kilograms, or a misplaced decimal point).";
+        $"{what} would make {(double.IsNaN(effectiveBrix) ? "a must of more than " + Num(YieldBench.Core.Units.SugarReading.MaxBrix) + " °Brix" : "a must of " + Num(Math.Round(effectiveBrix, 1)) + " °Brix")}, outside any must ({Num(min)} to {Num(max)} °Brix); the lot was left out. One of the values is wrong (a unit, for example pounds or grams for kilograms, or a misplaced decimal point).";
 
     internal static string AdditionsWithoutVolume() =>
         "Water or sugar additions are recorded without a must volume, so the starting sugar cannot be corrected for them: the lot is reviewed on its measured starting sugar and its factor is off by the additions. Add the must volume (before the additions).";

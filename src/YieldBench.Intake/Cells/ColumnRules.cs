@@ -143,7 +143,7 @@ internal static class ColumnRules
 
         if (!FieldAliases.TryGetValue(field, out var alias))
         {
-            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field));
+            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field, FieldAliases.Keys.Order(StringComparer.Ordinal)));
             return;
         }
 

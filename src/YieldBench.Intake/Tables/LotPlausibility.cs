@@ -27,10 +27,12 @@ internal static class LotPlausibility
         }
         else if (additions.Any && (!balance.Corrected || balance.Effective.Brix < startField.Min || balance.Effective.Brix > startField.Max))
         {
-            // Negative additions are refused cell by cell, so an uncorrected balance here means a must beyond any scale.
+            // Negative additions are refused cell by cell and water cannot take a must below 0 °Brix, so an uncorrected
+            // balance here means a must above the highest °Brix a reading may have.
             double effective = balance.Corrected ? balance.Effective.Brix : double.NaN;
             string what = Describe(lot);
-            sink.Error(ctx.File, ctx.SheetName, sheetRow, (ctx.Column("sugar_added_kg") ?? ctx.Column("water_added_l"))?.Header, null, IssueCodes.AdditionsImplausible,
+            var c = additions.SugarAddedKg is > 0 ? ctx.Column("sugar_added_kg") : ctx.Column("water_added_l");
+            sink.Error(ctx.File, ctx.SheetName, sheetRow, c?.Header, null, IssueCodes.AdditionsImplausible,
                 balance.Corrected
                     ? IntakeMessages.AdditionsImplausible(what, effective, startField.Min!.Value, startField.Max!.Value)
                     : IntakeMessages.AdditionsImplausible(what, double.NaN, startField.Min!.Value, startField.Max!.Value));
