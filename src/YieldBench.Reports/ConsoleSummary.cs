@@ -60,8 +60,9 @@ public static class ConsoleSummary
                 + $"{F(rec.Metrics.ShareWithinTolerance * 100, "0")} % of lots within the {h.Regime.Name} tolerance.");
             if (double.IsFinite(rec.ErrorBand80.Low))
             {
-                lines.Add($"  80 % of lots came out between {F(rec.ErrorBand80.Low, "+0.00;-0.00")} and {F(rec.ErrorBand80.High, "+0.00;-0.00")} % v/v of the prediction"
-                    + (double.IsFinite(rec.ErrorBand95.Low) ? $"; 95 % between {F(rec.ErrorBand95.Low, "+0.00;-0.00")} and {F(rec.ErrorBand95.High, "+0.00;-0.00")}." : "."));
+                lines.Add($"  A lot of a new season should come out between {F(rec.ErrorBand80.Low, "+0.00;-0.00")} and {F(rec.ErrorBand80.High, "+0.00;-0.00")} % v/v of the prediction with 80 % confidence"
+                    + (double.IsFinite(rec.ErrorBand95.Low) ? $", between {F(rec.ErrorBand95.Low, "+0.00;-0.00")} and {F(rec.ErrorBand95.High, "+0.00;-0.00")} with 95 %" : string.Empty)
+                    + (h.Coverage is { } c ? $" (on seasons held out, the planner's intervals held {F(c.Total.Share80 * 100, "0.0")} % and {F(c.Total.Share95 * 100, "0.0")} % of lots)." : "."));
             }
 
             foreach (var s in h.ByStrain)

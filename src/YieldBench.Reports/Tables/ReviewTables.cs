@@ -1,3 +1,4 @@
+using System.Globalization;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
@@ -28,7 +29,7 @@ public static class ReviewTables
         new("abv_per_brix", "Alcohol per °Brix (% v/v per °Brix)", CellKind.Number, "0.0000"),
         new("abv_per_brix_fermented", "Alcohol per °Brix fermented", CellKind.Number, "0.0000"),
         new("sugar_gl_per_abv", "Sugar per % alcohol (g/L per % v/v)", CellKind.Number, "0.00"),
-        new("gay_lussac_efficiency", "Share of Gay-Lussac yield", CellKind.Share, "0.0%"),
+        new("gay_lussac_efficiency", "Share of Gay-Lussac yield", CellKind.Share),
         new("robust_z", "Robust z within strain", CellKind.Number, "0.00"),
         new("flags", "Flags", CellKind.Text),
         new("measured_starting_brix", "Starting sugar as measured (°Brix)", CellKind.Number, "0.00"),
@@ -740,6 +741,30 @@ public static class ReviewTables
                     r.ErrorBand80.Low, r.ErrorBand80.High, r.ErrorBand95.Low, r.ErrorBand95.High, r.Metrics.ShareWithinTolerance,
                 ],
                 highlight: inUse && r.Strain == "*");
+            }
+        }
+
+        return table;
+    }
+
+    /// <summary>Interval coverage by nested leave-one-season-out: one row per season held out, then all together.</summary>
+    public static ReportTable IntervalCoverage(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var table = new ReportTable(
+        [
+            new("season_held_out", "Season held out", CellKind.Text),
+            new("lots", "Lots", CellKind.Integer),
+            new("share_in_80", "Inside the planner's 80 % interval", CellKind.Share),
+            new("share_in_95", "Inside the planner's 95 % interval", CellKind.Share),
+            new("share_in_overall_80", "Inside the overall 80 % band", CellKind.Share),
+            new("share_in_overall_95", "Inside the overall 95 % band", CellKind.Share),
+        ]);
+        if (review.HouseFactor.Coverage is { } c)
+        {
+            foreach (var r in c.Seasons.Append(c.Total))
+            {
+                table.Add([r.Season == 0 ? "all seasons" : r.Season.ToString(CultureInfo.InvariantCulture), r.Lots, r.Share80, r.Share95, r.OverallShare80, r.OverallShare95], highlight: r.Season == 0);
             }
         }
 
