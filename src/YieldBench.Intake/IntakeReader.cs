@@ -31,40 +31,17 @@ public static partial class IntakeReader
         var run = new IntakeRun(options, rules, sink);
         var files = new List<InputFile>();
 
-        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty
-        // folder). While one file's tables are read here, the next file is hashed and parsed on another thread; its
-        // issues wait in their own list and join the others when its turn comes, so the order never changes.
-        var steps = Expand(paths, root).ToList();
-        Task<LoadedFile>? ahead = null;
-        int aheadAt = -1;
-        for (int i = 0; i < steps.Count; i++)
+        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty folder).
+        foreach (var step in Expand(paths, root))
         {
-            if (steps[i].Issue is { } issue)
+            if (step.Issue is { } issue)
             {
                 sink.AddRange([issue]);
                 continue;
             }
 
-            var (display, full) = (steps[i].Display!, steps[i].Full!);
-            LoadedFile? loaded = null;
-            if (aheadAt == i)
-            {
-                loaded = ahead!.GetAwaiter().GetResult();
-            }
-            else if (Readable(full))
-            {
-                loaded = Load(display, full, options);
-            }
-
-            int following = steps.FindIndex(i + 1, s => s.Full is not null);
-            if (following >= 0 && Readable(steps[following].Full!))
-            {
-                var (d, f) = (steps[following].Display!, steps[following].Full!);
-                ahead = Task.Run(() => Load(d, f, options));
-                aheadAt = following;
-            }
-
-            ReadFile(run, display, full, loaded, files);
+            var (display, full) = (step.Display!, step.Full!);
+            ReadFile(run, display, full, Readable(full) ? Load(display, full, options) : null, files);
         }
 
         ColumnRules.ReportUnused(rules, sink);
@@ -101,7 +78,7 @@ public static partial class IntakeReader
                     .ToList();
                 if (inFolder.Count == 0)
                 {
-                    yield return Found(p, "folder-empty", IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
+                    yield return Found(p, IssueCodes.FolderEmpty, IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
                 }
 
                 foreach (var f in inFolder)
@@ -109,7 +86,7 @@ public static partial class IntakeReader
                     string display = Path.Combine(p, Path.GetFileName(f));
                     if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
                     {
-                        yield return Found(display, "lock-file-skipped", IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
+                        yield return Found(display, IssueCodes.LockFileSkipped, IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
                         continue;
                     }
 
@@ -122,7 +99,7 @@ public static partial class IntakeReader
             }
             else
             {
-                yield return Found(p, "file-not-found", IntakeMessages.FileNotFound(), IssueSeverity.Error);
+                yield return Found(p, IssueCodes.FileNotFound, IntakeMessages.FileNotFound(), IssueSeverity.Error);
             }
         }
     }
@@ -137,7 +114,7 @@ public static partial class IntakeReader
     /// <summary>A file hashed and parsed into raw sheets, with the issues found doing so, not yet read as tables.</summary>
     private sealed record LoadedFile(InputFile? Hash, RawFile? Raw, IReadOnlyList<IntakeIssue> Issues, string? CannotOpen);
 
-    /// <summary>Hashes and parses one file; touches nothing shared, so it may run on another thread.</summary>
+    /// <summary>Hashes and parses one file into raw sheets, with the issues found doing so.</summary>
     private static LoadedFile Load(string file, string full, IntakeOptions options)
     {
         var sink = new IssueSink();
@@ -160,7 +137,7 @@ public static partial class IntakeReader
         string ext = Path.GetExtension(full).ToLowerInvariant();
         if (loaded is null)
         {
-            sink.Error(file, null, null, null, null, "unsupported-file-type", IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
+            sink.Error(file, null, null, null, null, IssueCodes.UnsupportedFileType, IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
@@ -173,7 +150,7 @@ public static partial class IntakeReader
         sink.AddRange(loaded.Issues);
         if (loaded.Raw is not { } raw)
         {
-            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
+            sink.Error(file, null, null, null, null, IssueCodes.CannotOpen, IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
@@ -191,17 +168,17 @@ public static partial class IntakeReader
             if (sheet.Hidden)
             {
                 // Hidden sheets usually hold old workings or lookups; reading them unasked would mix them into the lots.
-                sink.Warning(file, sheet.Name, null, null, null, "hidden-sheet-skipped", IntakeMessages.HiddenSheetSkipped());
+                sink.Warning(file, sheet.Name, null, null, null, IssueCodes.HiddenSheetSkipped, IntakeMessages.HiddenSheetSkipped());
                 run.Accounts.Add(new SourceAccount(file, sheet.Name, "hidden", 0, 0, 0, 0, 0, 0));
                 continue;
             }
 
-            switch (TableReader.ReadSheet(run, file, full, sheet))
+            switch (SheetReader.Read(run, file, full, sheet))
             {
-                case TableReader.Outcome.Read:
+                case SheetReader.Outcome.Read:
                     anyTable = true;
                     break;
-                case TableReader.Outcome.NoTable:
+                case SheetReader.Outcome.NoTable:
                     notTables.Add(sheet);
                     break;
                 default:
@@ -212,13 +189,13 @@ public static partial class IntakeReader
 
         if (!anyTable)
         {
-            sink.Error(file, null, null, null, null, "no-table-found", IntakeMessages.NoTableInFile(TableReader.HeaderSearchRows));
+            sink.Error(file, null, null, null, null, IssueCodes.NoTableFound, IntakeMessages.NoTableInFile(HeaderDetection.SearchRows));
         }
         else
         {
             foreach (var sheet in notTables)
             {
-                sink.Warning(file, sheet.Name, null, null, null, "sheet-skipped", IntakeMessages.SheetSkipped(TableReader.HeaderSearchRows));
+                sink.Warning(file, sheet.Name, null, null, null, IssueCodes.SheetSkipped, IntakeMessages.SheetSkipped(HeaderDetection.SearchRows));
             }
         }
 
@@ -288,7 +265,7 @@ public static partial class IntakeReader
             var first = log.Readings[0].Source!;
             if (!matched)
             {
-                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, "log-without-lot",
+                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
                     IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
                 continue;
             }
@@ -311,7 +288,7 @@ public static partial class IntakeReader
         {
             var ids = group.Select(l => l.LotId).ToList();
             var src = group.First().Source!;
-            run.Sink.Warning(src.File, src.Sheet, null, null, null, "lots-without-log", IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
+            run.Sink.Warning(src.File, src.Sheet, null, null, null, IssueCodes.LotsWithoutLog, IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
         }
 
         return logs;

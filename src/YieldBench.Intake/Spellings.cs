@@ -127,7 +127,7 @@ public static class Spellings
             {
                 // The group's first lot: after unifying, the first that bears the kept spelling.
                 var first = lots[firstLot].Source;
-                sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, "spelling-unified", IntakeMessages.SpellingUnified(field, kept, count, others));
+                sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, IssueCodes.SpellingUnified, IntakeMessages.SpellingUnified(field, kept, count, others));
             }
         }
     }

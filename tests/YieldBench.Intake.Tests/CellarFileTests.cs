@@ -44,7 +44,7 @@ public class CellarFileTests
     {
         // Given an Excel number format (a quoted or escaped % is literal text: ECMA-376 Part 1, number formats, §18.8.30–31, from memory)
         // When it is classified, Then only a bare % scales the value by 100
-        Assert.Equal(percent, SourceFiles.IsPercentFormat(format));
+        Assert.Equal(percent, WorkbookSource.IsPercentFormat(format));
     }
 
     [Fact]
