@@ -149,6 +149,26 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         Assert.InRange(double.Parse(lines[1].Split(',')[abv], CultureInfo.InvariantCulture), 5, 20);
     }
 
+
+    [Theory]
+    [InlineData("strain")]
+    [InlineData("vessel")]
+    public void The_groups_file_names_each_group_exactly_as_the_lots_file_spells_it(string grouping)
+    {
+        // Given the demo review's lots file and groups file (the demo's lots write "Barrel", "Stainless tank", …)
+        var lots = Cli.CsvLines(Path.Combine(demo.First, "data", "lots.csv"));
+        var groups = Cli.CsvLines(Path.Combine(demo.First, "data", "groups.csv"));
+        int column = Array.IndexOf(lots[0].Split(','), grouping);
+
+        // When the values of the lots' column and the groups of that grouping are collected (both precede any quoted cell)
+        var spelt = lots.Skip(1).Select(l => l.Split(',')[column]).Where(v => v.Length > 0).ToHashSet(StringComparer.Ordinal);
+        var grouped = groups.Skip(1).Select(l => l.Split(',')).Where(f => f[0] == grouping).Select(f => f[1]).ToHashSet(StringComparer.Ordinal);
+
+        // Then they are the same set, letter for letter, so the two files join
+        Assert.True(column > 0, grouping + " is a column of lots.csv");
+        Assert.True(spelt.Count >= 2, "the demo has several " + grouping + " values");
+        Assert.Equal(spelt.Order(StringComparer.Ordinal), grouped.Order(StringComparer.Ordinal));
+    }
     [Fact]
     public void The_demo_data_files_are_named_relative_to_the_tool_not_by_the_install_path()
     {
@@ -328,7 +348,7 @@ public sealed class ReviewCommandInputTests : IDisposable
         Assert.Equal(string.Empty, error);
         Assert.Contains("Lots used: 25 (2024, 2025, 2026)", output, StringComparison.Ordinal);
         var issues = Cli.CsvLines(Path.Combine(root, "report", "data", "intake-issues.csv"));
-        Assert.Equal("file,sheet,row,column,value,code,message", issues[0]);
+        Assert.Equal("file,sheet,row,column,value,code,severity,message", issues[0]);
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,2,", StringComparison.Ordinal) && l.Contains("twenty", StringComparison.Ordinal));
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,3,", StringComparison.Ordinal));
         Assert.Equal(26, Cli.CsvLines(Path.Combine(root, "report", "data", "lots.csv")).Length);

@@ -40,7 +40,7 @@ public static class ReviewRunner
         var kineticsTask = inputs.Logs.Count > 0
             ? Task.Run<KineticsReview?>(() => KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics))
             : Task.FromResult<KineticsReview?>(null);
-        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed, settings.SugarModel);
         if (inputs.Logs.Count > 0)
         {
             progress?.Report(Stages[2]);
@@ -50,6 +50,8 @@ public static class ReviewRunner
         var house = HouseFactorAnalysis.Run(lots, strains.Flags, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
         var kinetics = kineticsTask.GetAwaiter().GetResult();
 
+        var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps);
+        var figures = ReviewFigures.Build(lots, strains, kinetics);
         return new ReviewResult
         {
             Inputs = inputs,
@@ -58,6 +60,10 @@ public static class ReviewRunner
             Strains = strains,
             HouseFactor = house,
             Kinetics = kinetics,
+            LotReviews = lotReviews,
+            FollowUps = followUps,
+            Figures = figures,
+            Overview = ReviewOverview.Build(inputs, strains, house, kinetics, lotReviews, figures),
             ToolVersion = toolVersion,
         };
     }

@@ -13,19 +13,9 @@ public sealed class KineticsFollowUpTests
 {
     // Invented logs for two sample lots: L005 (2024, lab residual sugar 12 g/L) stalls at 10.6 °Brix for days; L020
     // (2025, dry) ferments through 41 °C, above the default danger threshold for a lot of unknown colour.
-    private static ReviewResult ReviewWithLogs()
-    {
-        var review = SampleReview.Build();
-        var logs = new[]
-        {
-            Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
-            Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
-        };
-        return review with { Kinetics = KineticsAnalysis.Run(review.Lots, logs, KineticsSettings.Default) };
-    }
-
-    private static FermentationLog Log(string id, int season, double stepHours, double[] brix, double[] temps) =>
-        new(id, season, brix.Select((b, i) => new LogReading(KineticsReportData.Start.AddHours(i * stepHours), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
+    // The sample review with invented logs for two lots: L005 (2024, lab residual sugar 12 g/L) stalls at 10.6 °Brix
+    // for days; L020 (2025, dry) ferments through 41 °C, above the default danger threshold for a lot of unknown colour.
+    private static ReviewResult ReviewWithLogs() => SampleReview.WithLogs();
 
     private static IEnumerable<Dictionary<string, object?>> Rows(ReportTable table) =>
         table.Rows.Select(r => table.Columns.Select((c, i) => (c.Name, r[i])).ToDictionary(p => p.Name, p => p.Item2));
@@ -80,14 +70,14 @@ public sealed class KineticsFollowUpTests
     {
         // Given the review with logs, and lot L020 which the strain review did not flag
         var review = ReviewWithLogs();
-        var l020 = review.Lots.Single(l => l.Lot.Key == new LotKey(2025, "L020"));
+        var l020 = review.LotReviews.Single(l => l.Key == new LotKey(2025, "L020"));
         Assert.DoesNotContain(review.Strains.Flags, f => f.LotKey == new LotKey(2025, "L020"));
 
         // When it is asked about
         // Then it is flagged (Lots-sheet highlight, counts) with a check severity, but not a strain-review finding
-        Assert.True(ReviewTables.IsFlagged(review, l020));
-        Assert.Equal(FlagSeverity.Check, ReviewTables.LotSeverity(review, l020));
-        Assert.False(ReviewTables.HasStrainFlag(review, l020));
+        Assert.True(l020.IsFlagged);
+        Assert.Equal(FlagSeverity.Check, l020.WorstSeverity);
+        Assert.False(l020.HasStrainFlag);
     }
 
     [Fact]
@@ -104,7 +94,8 @@ public sealed class KineticsFollowUpTests
 
         // Then its count, the overview's count (IsFlagged) and the independent union agree
         Assert.StartsWith($"Lots to look at: {expected} flagged", line, StringComparison.Ordinal);
-        Assert.Equal(expected, review.Lots.Count(l => ReviewTables.IsFlagged(review, l)));
-        Assert.True(expected > review.Lots.Count(l => ReviewTables.HasStrainFlag(review, l)));
+        Assert.Equal(expected, review.LotReviews.Count(l => l.IsFlagged));
+        Assert.Equal(expected, review.Overview.Lots.Flagged);
+        Assert.True(expected > review.LotReviews.Count(l => l.HasStrainFlag));
     }
 }

@@ -87,7 +87,7 @@ public sealed class ReviewTablesTests
     public void Strains_are_ranked_by_adjusted_conversion()
     {
         // Given a review with an adjusted comparison
-        var ranked = ReviewTables.RankedStrains(Review);
+        var ranked = Review.Figures.Ranking;
 
         // When the factors are read in rank order
         var factors = ranked.Select(r => r.Adjusted!.Factor).ToArray();

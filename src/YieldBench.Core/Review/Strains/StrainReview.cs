@@ -30,6 +30,10 @@ public sealed record StrainReview
 
     /// <summary>Plain-language notes on what was left out and why (nothing is dropped silently).</summary>
     public required IReadOnlyList<string> Notes { get; init; }
+
+    /// <summary>The summary of <paramref name="measure"/> over one group of one grouping, or null when there is no such group.</summary>
+    public GroupSummary? Summary(string grouping, string group, ConversionMeasure measure) =>
+        Groups.FirstOrDefault(g => g.Grouping == grouping && g.Measure == measure && string.Equals(g.Group, group, StringComparison.Ordinal));
 }
 
 /// <summary>The groupings summarised, with their report names.</summary>
@@ -78,6 +82,12 @@ public sealed record GroupSummary
     /// <summary>The measure.</summary>
     public required ConversionMeasure Measure { get; init; }
 
+    /// <summary>The strain the group is of (by strain, strain × vessel, strain × season), else null.</summary>
+    public string? Strain { get; init; }
+
+    /// <summary>The season the group is of (by season, strain × season), else null.</summary>
+    public int? Season { get; init; }
+
     /// <summary>Lots with a value of this measure.</summary>
     public required int N { get; init; }
 
@@ -93,8 +103,20 @@ public sealed record GroupSummary
     /// <summary>Rousseeuw–Croux Qn.</summary>
     public required double Qn { get; init; }
 
-    /// <summary>Interquartile range (type 7).</summary>
+    /// <summary>Interquartile range (type 7): <see cref="Q3"/> − <see cref="Q1"/>.</summary>
     public required double Iqr { get; init; }
+
+    /// <summary>Lower quartile (type 7).</summary>
+    public double Q1 { get; init; } = double.NaN;
+
+    /// <summary>Upper quartile (type 7).</summary>
+    public double Q3 { get; init; } = double.NaN;
+
+    /// <summary>Smallest value at or above <see cref="Q1"/> − 1.5 IQR (a box plot's lower whisker, Tukey's inner fence).</summary>
+    public double LowerWhisker { get; init; } = double.NaN;
+
+    /// <summary>Largest value at or below <see cref="Q3"/> + 1.5 IQR (a box plot's upper whisker).</summary>
+    public double UpperWhisker { get; init; } = double.NaN;
 
     /// <summary>Arithmetic mean.</summary>
     public required double Mean { get; init; }
