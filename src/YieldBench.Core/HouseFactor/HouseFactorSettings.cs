@@ -37,6 +37,9 @@ public sealed record HouseFactorSettings
     /// </summary>
     public bool IncludeFlaggedLots { get; init; }
 
-    /// <summary>Fewest held-out errors of a strain for intervals of its own (default 39, the fewest for a 95 % interval).</summary>
-    public int MinimumErrorsForStrainIntervals { get; init; } = 39;
+    /// <summary>
+    /// Fewest held-out errors of a strain for intervals of its own (default 15, as for a choice of its own); a strain
+    /// with fewer uses all lots' errors.
+    /// </summary>
+    public int MinimumErrorsForStrainIntervals { get; init; } = 15;
 }
