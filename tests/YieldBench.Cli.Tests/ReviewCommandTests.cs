@@ -437,6 +437,24 @@ public sealed class ReviewCommandInputTests : IDisposable
     }
 
     [Fact]
+    public void The_class_line_can_be_set_or_removed_and_nonsense_is_a_usage_error()
+    {
+        // Given good lots
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+
+        // When reviewed with the class line at 14 %, and with a class line that is not a number
+        var (exit, output, _) = Cli.Run(root, "review", "lots", "--class-line", "14", "--out", "r");
+        var bad = Cli.Run(root, "review", "lots", "--class-line", "sixteen", "--out", "s");
+
+        // Then the first scores against the US rule with the line at 14 % and says so, and the second exits 2
+        Assert.Equal(0, exit);
+        Assert.Contains("within the United States (TTB), class line 14 % tolerance", output, StringComparison.Ordinal);
+        Assert.Equal(2, bad.Exit);
+        Assert.Contains("--class-line sixteen is not understood", bad.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Re_running_replaces_its_own_files_removes_stale_ones_and_leaves_others_alone()
     {
         // Given an earlier review's folder holding a stale file of ours (in the manifest) and a file of the user's
