@@ -202,6 +202,18 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         var other = root.GetProperty("other_version");
         Assert.True(other.GetProperty("flagged_lots_included").GetBoolean());
         Assert.Equal(222, other.GetProperty("lots_used").GetInt32());
+
+        // And the intervals' coverage on held-out seasons is printed (docs/methods.md, season-aware intervals):
+        // 182 and 209 of 218 lots, every season within 10 points of 80 % and 95 %
+        var coverage = root.GetProperty("interval_coverage");
+        Assert.Equal(218, coverage.GetProperty("all").GetProperty("lots").GetInt32());
+        Assert.Equal(182.0 / 218, coverage.GetProperty("all").GetProperty("share80").GetDouble(), 1e-12);
+        Assert.Equal(209.0 / 218, coverage.GetProperty("all").GetProperty("share95").GetDouble(), 1e-12);
+        foreach (var season in coverage.GetProperty("seasons").EnumerateArray())
+        {
+            Assert.InRange(season.GetProperty("share80").GetDouble(), 0.70, 0.90);
+            Assert.InRange(season.GetProperty("share95").GetDouble(), 0.85, 1.0);
+        }
         var file = YieldBench.Reports.HouseFactorJson.ReadFile(Path.Combine(demo.First, "data", "house-factor.json"));
         Assert.Null(file.Error);
         Assert.NotNull(file.Model);
@@ -459,6 +471,24 @@ public sealed class ReviewCommandInputTests : IDisposable
         // Then the summary scores against it
         Assert.Equal(0, exit);
         Assert.Contains("within the User-defined ±0.8 % v/v tolerance", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_class_line_can_be_set_or_removed_and_nonsense_is_a_usage_error()
+    {
+        // Given good lots
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+
+        // When reviewed with the class line at 14 %, and with a class line that is not a number
+        var (exit, output, _) = Cli.Run(root, "review", "lots", "--class-line", "14", "--out", "r");
+        var bad = Cli.Run(root, "review", "lots", "--class-line", "sixteen", "--out", "s");
+
+        // Then the first scores against the US rule with the line at 14 % and says so, and the second exits 2
+        Assert.Equal(0, exit);
+        Assert.Contains("within the United States (TTB), class line 14 % tolerance", output, StringComparison.Ordinal);
+        Assert.Equal(2, bad.Exit);
+        Assert.Contains("--class-line sixteen is not understood", bad.Error, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -27,10 +27,11 @@ internal static class ReviewCommand
         var regime = new Option<string>("--regime") { Description = "Label tolerance the backtest is scored against: us, eu, or custom:TOLERANCE (% v/v, e.g. custom:0.8).", DefaultValueFactory = _ => "us" };
         var threshold = new Option<double?>("--threshold") { Description = "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14)." };
         var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
+        var classLine = new Option<string?>("--class-line") { Description = "Alcohol (% v/v) a stated value may not cross in the label scoring, or 'none' (default: the regime's own; US 16, the tax-class boundary since 2018; 14 for the rule before)." };
         var includeFlagged = new Option<bool>("--include-flagged-lots") { Description = "Let lots flagged as likely errors or not fermented to dryness teach the house factor (by default they are left out; both versions are reported)." };
         var command = new Command("review", "Review finished lots: conversion by strain, odd lots, house factor, kinetics; writes a workbook, charts and data files.");
         command.Arguments.Add(inputs);
-        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged })
+        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged, classLine })
         {
             command.Options.Add(option);
         }
@@ -47,7 +48,8 @@ internal static class ReviewCommand
                 parse.GetValue(regime) ?? "us",
                 parse.GetValue(threshold),
                 parse.GetValue(seed),
-                parse.GetValue(includeFlagged))));
+                parse.GetValue(includeFlagged),
+                parse.GetValue(classLine))));
         return command;
     }
 
@@ -62,7 +64,8 @@ internal static class ReviewCommand
         string Regime,
         double? Threshold,
         int? Seed,
-        bool IncludeFlaggedLots = false);
+        bool IncludeFlaggedLots = false,
+        string? ClassLine = null);
 
     internal static int Run(CliContext context, Request request)
     {
@@ -71,6 +74,24 @@ internal static class ReviewCommand
         {
             context.Error.WriteLine(regimeError);
             return ExitCodes.Usage;
+        }
+
+        if (request.ClassLine is { } classLine)
+        {
+            string c = classLine.Trim();
+            if (string.Equals(c, "none", StringComparison.OrdinalIgnoreCase))
+            {
+                regime = regime.WithNoCrossingLine(null);
+            }
+            else if (double.TryParse(c, NumberStyles.Float, CultureInfo.InvariantCulture, out double line) && line > 0 && line <= 25)
+            {
+                regime = regime.WithNoCrossingLine(line);
+            }
+            else
+            {
+                context.Error.WriteLine($"--class-line {classLine} is not understood; give an alcohol above 0 and at most 25 % v/v (e.g. --class-line 16), or 'none'.");
+                return ExitCodes.Usage;
+            }
         }
 
         if (request.Threshold is { } t && (double.IsNaN(t) || t <= 0 || t > 25))

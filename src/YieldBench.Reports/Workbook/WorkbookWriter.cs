@@ -397,10 +397,10 @@ public static class WorkbookWriter
             Pair(ws, ref r, "Backtest", h.Scheme);
             PairNumber(ws, ref r, "Mean absolute error (% v/v)", h.Mae, "0.00");
             PairNumber(ws, ref r, "Within label tolerance, " + h.Regime, h.ShareWithinTolerance, "0%");
-            PairNumber(ws, ref r, "80 % of errors from (% v/v)", h.Band80.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "80 % of errors to (% v/v)", h.Band80.High, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors from (% v/v)", h.Band95.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors to (% v/v)", h.Band95.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % band from (% v/v)", h.Band80.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % band to (% v/v)", h.Band80.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band from (% v/v)", h.Band95.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band to (% v/v)", h.Band95.High, "+0.00;-0.00;0.00");
             SheetLayout.SetText(ws.Cell(r, 1), h.Explanation);
             ws.Cell(r, 1).Style.Alignment.WrapText = true;
             ws.Range(r, 1, r, 4).Merge();
@@ -494,6 +494,13 @@ public static class WorkbookWriter
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Recommendation", 12);
         var rec = SheetLayout.WriteTable(ws, ReviewTables.Recommendations(review), r, 1, freezeAndFilter: false);
         r = rec.LastRow + 2;
+        if (h.Coverage is { } coverage)
+        {
+            SheetLayout.SetHeading(ws.Cell(r++, 1), "How often the intervals held on a season they had not seen (" + coverage.Method + ")", 12);
+            var covered = SheetLayout.WriteTable(ws, ReviewTables.IntervalCoverage(review), r, 1, freezeAndFilter: false);
+            r = covered.LastRow + 2;
+        }
+
         if (h.FlaggedLots.Count > 0)
         {
             SheetLayout.SetHeading(ws.Cell(r++, 1), h.FlaggedLotsIncluded
