@@ -138,6 +138,22 @@ internal static class OverviewDetails
     public static IReadOnlyList<LotReview> FlaggedLots(IReadOnlyList<LotReview> lots) =>
         lots.Where(l => l.IsFlagged).OrderByDescending(l => l.WorstSeverity).ThenBy(l => l.Key).ToArray();
 
+    /// <summary>
+    /// The plain sentence of the comparison: how much more alcohol the first-ranked strain makes than the last from the
+    /// same starting sugar, or that they are the same within the noise; null without an adjusted comparison of two strains.
+    /// </summary>
+    public static string? StrainHeadline(Strains.StrainComparison c, IReadOnlyList<RankedStrain> ranking)
+    {
+        if (ranking.Count < 2 || ranking[0].Adjusted is null || ranking[^1].Adjusted is null)
+        {
+            return null;
+        }
+
+        string first = ranking[0].Strain, last = ranking[^1].Strain;
+        var d = c.AdjustedDifferences.FirstOrDefault(x => (x.First == first && x.Second == last) || (x.First == last && x.Second == first));
+        return d is null ? null : Strains.Comparison.DifferenceSentence(d);
+    }
+
     /// <summary>The reference sugar: the strain comparison's, or the median effective starting sugar when it has none.</summary>
     public static double ReferenceBrix(double comparisonReference, IEnumerable<double> effectiveBrix) =>
         double.IsFinite(comparisonReference) ? comparisonReference : Descriptive.Median(effectiveBrix.Where(double.IsFinite));

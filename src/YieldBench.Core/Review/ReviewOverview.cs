@@ -40,6 +40,9 @@ public sealed record ReviewOverview
     /// <summary>The planning table (highest picking °Brix per strain for each target and confidence); null without a planner.</summary>
     public PlanningAtAGlance? Planning { get; init; }
 
+    /// <summary>The comparison's plain sentence: how much more alcohol the first-ranked strain makes than the last from the same sugar (null without an adjusted comparison).</summary>
+    public string? StrainHeadline { get; init; }
+
     /// <summary>Per strain with logs, in the review's strain order: days to dry, peak temperature, troubled ferments (empty without logs).</summary>
     public IReadOnlyList<StrainFerments> Ferments { get; init; } = [];
 
@@ -105,6 +108,7 @@ public sealed record ReviewOverview
             Cautions = ReviewTexts.Cautions,
             Factors = OverviewDetails.Factors(h, OverviewDetails.ReferenceBrix(c.ReferenceBrix, lotReviews.Select(l => l.Conversion.EffectiveStartingBrix)), figures.StrainOrder, Name),
             Planning = OverviewDetails.Planning(h, settings, figures.StrainOrder),
+            StrainHeadline = OverviewDetails.StrainHeadline(c, figures.Ranking),
             Ferments = OverviewDetails.Ferments(kineticsReview, figures.StrainOrder),
             LeftOutReasons = OverviewDetails.LeftOutReasons(inputs),
             FlaggedLots = OverviewDetails.FlaggedLots(lotReviews),
