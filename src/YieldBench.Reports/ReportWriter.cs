@@ -27,6 +27,9 @@ public static class ReportWriter
     /// <summary>Relative path of the workbook.</summary>
     public const string WorkbookName = "report.xlsx";
 
+    /// <summary>Relative path of the one-page review for the meeting room.</summary>
+    public const string PageName = Html.HtmlReport.FileName;
+
     /// <summary>Relative paths of the data files.</summary>
     public static class DataFiles
     {
@@ -201,6 +204,10 @@ public static class ReportWriter
             // The table of KineticsCsv.WriteFile, shared with the kinetics sheet.
             Table(DataFiles.Kinetics, kinetics);
         }
+
+        // The meeting page lays out the review's overview only; it is written with the data files.
+        Html.HtmlReport.WriteFile(review, Full(root, PageName));
+        written.Add(PageName);
 
         return written;
     }

@@ -114,7 +114,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         // Given the demo review's folder
         string[] expected =
         [
-            "report.xlsx", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv", "data/house-factor.json",
+            "report.xlsx", "report.html", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv", "data/house-factor.json",
             "charts/alcohol-vs-sugar.png", "charts/factor-by-strain.png", "charts/factor-by-season.png",
             "charts/backtest-error.png", "charts/factor-histogram.png", "charts/kinetics-strain-curves.png", "yieldbench-files.txt",
         ];
