@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Review;
+using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports;
 
@@ -52,8 +53,8 @@ public static class ConsoleSummary
                 + $"{F(h.ShareWithinTolerance * 100, "0")} % of lots within the {h.Regime} tolerance.");
             if (double.IsFinite(h.Band80.Low))
             {
-                lines.Add($"  80 % of lots came out between {F(h.Band80.Low, "+0.00;-0.00")} and {F(h.Band80.High, "+0.00;-0.00")} % v/v of the prediction"
-                    + (double.IsFinite(h.Band95.Low) ? $"; 95 % between {F(h.Band95.Low, "+0.00;-0.00")} and {F(h.Band95.High, "+0.00;-0.00")}." : "."));
+                lines.Add($"  A lot of a new season should come out between {F(h.Band80.Low, "+0.00;-0.00")} and {F(h.Band80.High, "+0.00;-0.00")} % v/v of the prediction with 80 % confidence"
+                    + (double.IsFinite(h.Band95.Low) ? $", between {F(h.Band95.Low, "+0.00;-0.00")} and {F(h.Band95.High, "+0.00;-0.00")} with 95 %." : "."));
             }
 
             foreach (var s in h.ByStrain)

@@ -23,7 +23,7 @@ public static class HouseFactorJson
     public const string FileName = "house-factor.json";
 
     /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
-    public const int FormatVersion = 2;
+    public const int FormatVersion = 4;
 
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -41,7 +41,7 @@ public static class HouseFactorJson
         var dto = new FileDto(
             FormatVersion,
             "house-factor",
-            new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowBoundary, review.Regime.ToleranceAboveBoundary, N(review.Regime.BoundaryAbv), review.Regime.NoCrossingBoundary, review.Regime.Source),
+            new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowSwitch, review.Regime.ToleranceAboveSwitch, N(review.Regime.ToleranceSwitchAbv), N(review.Regime.NoCrossingLineAbv), review.Regime.Source, review.Regime.NoCrossingLineSource),
             review.ThresholdAbv,
             review.LotsUsed,
             review.FlaggedLotsIncluded,
@@ -54,6 +54,7 @@ public static class HouseFactorJson
             review.ByStrain.Select(r => Recommendation(r)!).ToArray(),
             review.Planning is null ? null : new PlanningDto(Line(review.Planning.Pooled), review.Planning.Strains.Select(Line).ToArray(), review.Planning.Basis),
             review.PlannerTable.Select(t => new ThresholdDto(t.Strain, t.TargetAbv, t.Confidence, N(t.HighestBrix), N(t.ErrorAllowance), t.Note)).ToArray(),
+            Coverage(review.Coverage),
             review.ImportanceSentence,
             review.Explanation,
             review.Notes,
@@ -157,26 +158,41 @@ public static class HouseFactorJson
                 return null;
         }
 
-        var errors = (d.HeldOutErrorsAbv ?? []).ToArray();
-        if (errors.Any(e => !double.IsFinite(e)))
+        var errors = (d.HeldOutErrors ?? []).ToArray();
+        if (errors.Any(e => e is null || e.ErrorAbv is not { } v || !double.IsFinite(v) || e.Strain is null))
         {
-            bad.Add($"{where}.held_out_errors_abv holds a value that is not a number");
+            bad.Add($"{where}.held_out_errors holds an entry without a numeric error_abv, a season and a strain");
             return null;
         }
 
-        Array.Sort(errors);
-        return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, errors, d.ErrorBasis ?? "held-out errors");
+        var seasonErrors = errors.Select(e => new SeasonError(e!.ErrorAbv!.Value, e.Season, e.Strain!)).ToArray();
+        return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, seasonErrors, d.ErrorBasis ?? "held-out errors");
     }
 
-    private static LineDto Line(PlanningLine l) => new(
-        l.Strain,
-        l.CandidateId,
-        l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
-        N(l.Intercept),
-        N(l.SlopePerBrix),
-        l.Lots,
-        l.ErrorBasis,
-        l.SortedErrors);
+    private static LineDto Line(PlanningLine l)
+    {
+        var m = l.ErrorModel;
+        var b80 = m.Band(0.80);
+        var b95 = m.Band(0.95);
+        return new(
+            l.Strain,
+            l.CandidateId,
+            l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
+            N(l.Intercept),
+            N(l.SlopePerBrix),
+            l.Lots,
+            l.ErrorBasis,
+            new ErrorModelDto(m.Count, m.Clusters, m.Seasons, N(m.Mean), N(Math.Sqrt(m.WithinVariance)), N(Math.Sqrt(m.BetweenVariance)), N(m.StandardErrorOfMean), N(m.PredictiveSd), N(m.DegreesOfFreedom), N(b80.Low), N(b80.High), N(b95.Low), N(b95.High)),
+            l.Errors.Select(e => new ErrorDto(e.Season, e.Strain, e.Error)).ToArray());
+    }
+
+    private static CoverageDto? Coverage(IntervalCoverage? c) => c is null ? null : new(
+        c.Method,
+        Row(c.Total),
+        c.Seasons.Select(Row).ToArray());
+
+    private static CoverageRowDto Row(SeasonCoverageRow r) => new(
+        r.Season == 0 ? null : r.Season, r.Lots, N(r.Share80), N(r.Share95), r.OverallLots, N(r.OverallShare80), N(r.OverallShare95));
 
     private static FlaggedLotDto Flagged(FlaggedLot f) => new(f.Season, f.LotId, f.Strain, f.Codes, f.Reason);
 
@@ -222,6 +238,7 @@ public static class HouseFactorJson
         IReadOnlyList<RecommendationDto> ByStrain,
         PlanningDto? Planning,
         IReadOnlyList<ThresholdDto> PlannerTable,
+        CoverageDto? IntervalCoverage,
         string? ImportanceSentence,
         IReadOnlyList<string> Explanation,
         IReadOnlyList<string> Notes,
@@ -238,7 +255,7 @@ public static class HouseFactorJson
         PlanningDto? Planning,
         IReadOnlyList<string> Explanation);
 
-    private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowBoundaryAbv, double ToleranceAboveBoundaryAbv, double? BoundaryAbv, bool NoCrossingBoundary, string Source);
+    private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowSwitchAbv, double ToleranceAboveSwitchAbv, double? ToleranceSwitchAbv, double? NoCrossingLineAbv, string Source, string NoCrossingLineSource);
 
     private sealed record MetricsDto(int Lots, double? MaeAbv, double? MaeStandardErrorAbv, double? BiasAbv, double? RmseAbv, double? P90AbsoluteErrorAbv, double? ShareWithinTolerance, double? ShareWrongSideOfThreshold);
 
@@ -267,7 +284,29 @@ public static class HouseFactorJson
         double? SlopeAbvPerBrix,
         int Lots,
         string ErrorBasis,
-        IReadOnlyList<double> HeldOutErrorsAbv);
+        ErrorModelDto? ErrorModel,
+        IReadOnlyList<ErrorDto?> HeldOutErrors);
+
+    private sealed record ErrorDto(int Season, string? Strain, double? ErrorAbv);
+
+    private sealed record ErrorModelDto(
+        int Errors,
+        int Clusters,
+        int Seasons,
+        double? MeanErrorAbv,
+        double? WithinClusterSdAbv,
+        double? BetweenClusterSdAbv,
+        double? MeanStandardErrorAbv,
+        double? PredictiveSdAbv,
+        double? DegreesOfFreedom,
+        double? Error80LowAbv,
+        double? Error80HighAbv,
+        double? Error95LowAbv,
+        double? Error95HighAbv);
+
+    private sealed record CoverageDto(string Method, CoverageRowDto All, IReadOnlyList<CoverageRowDto> Seasons);
+
+    private sealed record CoverageRowDto(int? Season, int Lots, double? Share80, double? Share95, int OverallLots, double? OverallShare80, double? OverallShare95);
 
     private sealed record PlanningDto(LineDto Pooled, IReadOnlyList<LineDto> Strains, string Basis);
 

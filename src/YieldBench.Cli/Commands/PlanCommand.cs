@@ -218,7 +218,7 @@ internal static class PlanCommand
         o.WriteLine();
 
         // With no held-out errors only the central (50 %) answer exists, so that is the default then.
-        var defaultConfidences = confidences.Count > 0 ? confidences : line.SortedErrors.Count > 0 ? [0.80, 0.95] : [0.50];
+        var defaultConfidences = confidences.Count > 0 ? confidences : line.Errors.Count > 0 ? [0.80, 0.95] : [0.50];
         if (volumeL is { } vol)
         {
             var answer = Planner.WaterAddBack(line, must!.Value, vol, targets[0], confidences.Count == 1 ? confidences[0] : null);

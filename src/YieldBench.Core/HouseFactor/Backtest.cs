@@ -34,7 +34,7 @@ public sealed record HeldOutPrediction(LotKey LotKey, int Season, string Strain,
 /// </summary>
 /// <param name="Lots">Held-out predictions scored.</param>
 /// <param name="Mae">Mean absolute error, % v/v.</param>
-/// <param name="MaeStandardError">Standard error of the MAE: SD of the absolute errors ÷ √n (NaN for n &lt; 2).</param>
+/// <param name="MaeStandardError">Standard error of the MAE, season-aware: √(σ²_w/n + σ²_b·Σn_g²/n²) of the absolute errors clustered by strain × season (<see cref="SeasonErrorModel"/>; SD ÷ √n when there is one cluster; NaN for n &lt; 2).</param>
 /// <param name="Bias">Mean of (predicted − actual), % v/v: positive means the candidate over-predicts.</param>
 /// <param name="Rmse">Root mean squared error, % v/v.</param>
 /// <param name="P90AbsoluteError">90th percentile of |error| (Hyndman–Fan type 7), % v/v.</param>
@@ -63,7 +63,11 @@ public sealed record BacktestMetrics(
 
         var abs = predictions.Select(p => Math.Abs(p.Error)).ToArray();
         double mae = abs.Average();
-        double se = n >= 2 ? Math.Sqrt(abs.Sum(a => (a - mae) * (a - mae)) / (n - 1)) / Math.Sqrt(n) : double.NaN;
+        // Lots of one strain in one season share that season's shift, so the standard error treats them as a cluster
+        // (SeasonErrorModel: the variance of a mean under the one-way random-effects model).
+        double se = n >= 2
+            ? SeasonErrorModel.Of(predictions.Select(p => new SeasonError(Math.Abs(p.Error), p.Season, p.Strain)).ToArray()).StandardErrorOfMean
+            : double.NaN;
         double bias = predictions.Average(p => p.PredictedAbv - p.ActualAbv);
         double rmse = Math.Sqrt(predictions.Average(p => p.Error * p.Error));
         double p90 = Descriptive.Quantile(abs, 0.90);

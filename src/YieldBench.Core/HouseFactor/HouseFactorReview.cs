@@ -102,6 +102,12 @@ public sealed record HouseFactorReview
     /// </summary>
     public HouseFactorReview? OtherVersion { get; init; }
 
+    /// <summary>
+    /// How often the intervals held the lab's alcohol of lots of a season the analysis had not seen (nested
+    /// leave-one-season-out); null when fewer than two seasons, or for the other version.
+    /// </summary>
+    public IntervalCoverage? Coverage { get; init; }
+
     /// <summary>Cautions shown with every house-factor result.</summary>
     public IReadOnlyList<string> Cautions { get; init; } = HouseFactorTexts.PlannerCautions;
 }

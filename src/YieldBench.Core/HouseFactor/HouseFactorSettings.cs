@@ -6,7 +6,10 @@ public sealed record HouseFactorSettings
     /// <summary>Label regime the backtest is scored against (default: United States).</summary>
     public LabelRegime Regime { get; init; } = LabelRegime.UnitedStates;
 
-    /// <summary>Threshold for the wrong-side share, % v/v (default 14.0, the US class/tax boundary).</summary>
+    /// <summary>
+    /// Threshold of the "share on the wrong side" column, % v/v (default 14.0: where the US tolerance changes size and
+    /// the tax-class boundary before 2018). Its own measure, apart from the regime's no-crossing line.
+    /// </summary>
     public double ThresholdAbv { get; init; } = 14.0;
 
     /// <summary>Fixed ballpark factors offered as candidates, % v/v per °Brix (common practice: 0.55 and 0.59).</summary>
@@ -37,6 +40,9 @@ public sealed record HouseFactorSettings
     /// </summary>
     public bool IncludeFlaggedLots { get; init; }
 
-    /// <summary>Fewest held-out errors of a strain for intervals of its own (default 39, the fewest for a 95 % interval).</summary>
-    public int MinimumErrorsForStrainIntervals { get; init; } = 39;
+    /// <summary>
+    /// Fewest held-out errors of a strain for intervals of its own (default 15, as for a choice of its own); a strain
+    /// with fewer uses all lots' errors.
+    /// </summary>
+    public int MinimumErrorsForStrainIntervals { get; init; } = 15;
 }

@@ -1,7 +1,6 @@
 using System.Text;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Review;
-using YieldBench.Reports.Output;
 using static YieldBench.Reports.Html.HtmlText;
 
 namespace YieldBench.Reports.Html;
@@ -28,9 +27,6 @@ public static class HtmlReport
         ("methods", "Methods in brief"),
         ("cautions", "Cautions"),
     ];
-
-    /// <summary>Writes the page atomically.</summary>
-    public static void WriteFile(ReviewResult review, string path) => AtomicFile.WriteAllText(path, Render(review));
 
     /// <summary>The page's text.</summary>
     public static string Render(ReviewResult review)

@@ -134,6 +134,24 @@ public static partial class ReviewTables
         return table;
     }
 
+    private static IReadOnlyList<Column<SeasonCoverageRow>> CoverageTable { get; } =
+    [
+        new("season_held_out", "Season held out", CellKind.Text, r => r.Season == 0 ? "all seasons" : r.Season.ToString(System.Globalization.CultureInfo.InvariantCulture)),
+        new("lots", "Lots", CellKind.Integer, r => r.Lots),
+        new("share_in_80", "Inside the planner's 80 % interval", CellKind.Share, r => r.Share80),
+        new("share_in_95", "Inside the planner's 95 % interval", CellKind.Share, r => r.Share95),
+        new("share_in_overall_80", "Inside the overall 80 % band", CellKind.Share, r => r.OverallShare80),
+        new("share_in_overall_95", "Inside the overall 95 % band", CellKind.Share, r => r.OverallShare95),
+    ];
+
+    /// <summary>Interval coverage by nested leave-one-season-out: one row per season held out, then all together (highlighted).</summary>
+    public static ReportTable IntervalCoverage(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var c = review.HouseFactor.Coverage;
+        return ReportTable.Of(CoverageTable, c is null ? [] : c.Seasons.Append(c.Total), r => r.Season == 0);
+    }
+
     private static IReadOnlyList<Column<ThresholdAnswer>> PlannerTable { get; } =
     [
         new("strain", "Strain", CellKind.Text, t => StrainName(t.Strain)),

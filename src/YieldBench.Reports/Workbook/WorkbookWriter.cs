@@ -77,20 +77,6 @@ public static class WorkbookWriter
     internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, string path) =>
         AtomicFile.Write(path, stream => Finish(layout, charts, includePictures: true, stream));
 
-    /// <summary>
-    /// As <see cref="Write(LaidOutWorkbook, IReadOnlyList{ChartFile}, string)"/> for charts that may still be being
-    /// drawn: <paramref name="pictureBytes"/> gives chart i's PNG once it exists (waiting for it), and is asked only
-    /// when the package reaches that picture's part, after every sheet, so the sheets are written meanwhile.
-    /// <paramref name="beforeReplacing"/> runs once the package is complete and before it replaces the file; when it
-    /// throws, the file is left as it was.
-    /// </summary>
-    internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, Func<int, byte[]> pictureBytes, Action beforeReplacing, string path) =>
-        AtomicFile.Write(path, stream =>
-        {
-            Finish(layout, charts, includePictures: true, stream, pictureBytes);
-            beforeReplacing();
-        });
-
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
     /// <remarks>The package goes straight into the file as it is compressed (the bytes of <see cref="Build(ReviewResult, IReadOnlyList{ChartFile}, bool)"/>).</remarks>
     public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path)
@@ -411,10 +397,10 @@ public static class WorkbookWriter
             Pair(ws, ref r, "Backtest", h.Scheme);
             PairNumber(ws, ref r, "Mean absolute error (% v/v)", h.Mae, "0.00");
             PairNumber(ws, ref r, "Within label tolerance, " + h.Regime, h.ShareWithinTolerance, "0%");
-            PairNumber(ws, ref r, "80 % of errors from (% v/v)", h.Band80.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "80 % of errors to (% v/v)", h.Band80.High, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors from (% v/v)", h.Band95.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors to (% v/v)", h.Band95.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % band from (% v/v)", h.Band80.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % band to (% v/v)", h.Band80.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band from (% v/v)", h.Band95.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band to (% v/v)", h.Band95.High, "+0.00;-0.00;0.00");
             SheetLayout.SetText(ws.Cell(r, 1), h.Explanation);
             ws.Cell(r, 1).Style.Alignment.WrapText = true;
             ws.Range(r, 1, r, 4).Merge();
@@ -508,6 +494,13 @@ public static class WorkbookWriter
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Recommendation", 12);
         var rec = SheetLayout.WriteTable(ws, ReviewTables.Recommendations(review), r, 1, freezeAndFilter: false);
         r = rec.LastRow + 2;
+        if (h.Coverage is { } coverage)
+        {
+            SheetLayout.SetHeading(ws.Cell(r++, 1), "How often the intervals held on a season they had not seen (" + coverage.Method + ")", 12);
+            var covered = SheetLayout.WriteTable(ws, ReviewTables.IntervalCoverage(review), r, 1, freezeAndFilter: false);
+            r = covered.LastRow + 2;
+        }
+
         if (h.FlaggedLots.Count > 0)
         {
             SheetLayout.SetHeading(ws.Cell(r++, 1), h.FlaggedLotsIncluded

@@ -28,15 +28,18 @@ public class BacktestTests
         // When they are scored against the US regime and the 14 % threshold
         var m = BacktestMetrics.Score(preds, LabelRegime.UnitedStates, 14.0);
 
-        // Then every metric is the hand value; lots 5 and 6 cross 14 %, so 4 of 6 meet the US rule and 2 of 6 are on the wrong side
+        // Then every metric is the hand value; every lot is within its tolerance and none crosses the 16 % class line, so
+        // 6 of 6 meet the US rule; lots 5 and 6 cross 14 %, so 2 of 6 are on the wrong side of the threshold, and with the
+        // class line set to 14 % (the rule before 2018) only 4 of 6 would meet it
         Assert.Equal(6, m.Lots);
         Assert.Equal(0.416666666667, m.Mae, 1e-9);
         Assert.Equal(0.104615698843, m.MaeStandardError, 1e-9);
         Assert.Equal(-0.116666666667, m.Bias, 1e-9);
         Assert.Equal(0.477842372894, m.Rmse, 1e-9);
         Assert.Equal(0.7, m.P90AbsoluteError, 1e-9);
-        Assert.Equal(4.0 / 6, m.ShareWithinTolerance, 1e-12);
+        Assert.Equal(6.0 / 6, m.ShareWithinTolerance, 1e-12);
         Assert.Equal(2.0 / 6, m.ShareWrongSideOfThreshold, 1e-12);
+        Assert.Equal(4.0 / 6, BacktestMetrics.Score(preds, LabelRegime.UnitedStates.WithNoCrossingLine(14.0), 14.0).ShareWithinTolerance, 1e-12);
     }
 
     [Fact]
@@ -142,18 +145,11 @@ public class BacktestTests
         var fresh = SyntheticLots.Seasons(99, DifferentStrains, seasons: 1, lotsPerStrainPerSeason: 1000, noiseSd: 0.15, firstSeason: 2030);
 
         // When each new lot is predicted by the planner line of its strain
-        int in80 = 0, in95 = 0;
-        foreach (var l in fresh)
-        {
-            var e = Planner.Estimate(review.Planning!.For(l.Lot.Strain), l.Lot.StartingSugar);
-            double actual = l.Lot.FinalAlcohol.PercentVolume;
-            in80 += actual >= e.Low80 && actual <= e.High80 ? 1 : 0;
-            in95 += actual >= e.Low95 && actual <= e.High95 ? 1 : 0;
-        }
+        var (n, in80, in95) = SyntheticLots.Covered(review.Planning!, fresh);
 
         // Then about 80 % and 95 % of the new lots fall inside (80 held-out errors per strain: a few points of slack)
-        Assert.InRange(in80 / (double)fresh.Count, 0.74, 0.88);
-        Assert.InRange(in95 / (double)fresh.Count, 0.91, 0.99);
+        Assert.InRange(in80 / (double)n, 0.74, 0.88);
+        Assert.InRange(in95 / (double)n, 0.91, 0.99);
     }
 
     [Fact]

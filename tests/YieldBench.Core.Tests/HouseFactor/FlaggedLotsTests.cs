@@ -67,8 +67,8 @@ public class FlaggedLotsTests
         var left = included.OtherVersion!;
 
         // Then the version in use is the one with them, the other leaves them out, and the lot 3 % v/v short of its
-        // strain (BAD-1: 13.5 % v/v where 0.60 × 30 °Brix = 18.0 is expected) sets the low end of its strain's 95 % band
-        // only where it is included: 61 errors of SX-02, whose lowest is the order statistic ⌊62 × 0.025⌋ = 1
+        // strain (BAD-1: 13.5 % v/v where 0.60 × 30 °Brix = 18.0 is expected) stretches its strain's 95 % band only where
+        // it is included: one error near −4.5 among 61 of SD about 0.12 raises their SD to about 0.6
         Assert.True(included.FlaggedLotsIncluded);
         Assert.False(left.FlaggedLotsIncluded);
         Assert.Equal(lots.Count, included.LotsUsed);
@@ -77,7 +77,7 @@ public class FlaggedLotsTests
         var withoutBad = left.ByStrain.Single(r => r.Strain == "SX-02");
         Assert.Equal(61, withBad.Lots);
         Assert.Equal(60, withoutBad.Lots);
-        Assert.True(withBad.ErrorBand95.Low < -3.0, $"included: {withBad.ErrorBand95.Low}");
+        Assert.True(withBad.ErrorBand95.Low < -1.0, $"included: {withBad.ErrorBand95.Low}");
         Assert.True(withoutBad.ErrorBand95.Low > -0.5, $"left out: {withoutBad.ErrorBand95.Low}");
     }
 
