@@ -134,6 +134,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         Assert.Equal(declared, actual);
         Assert.Equal(declared, manifest);
         Assert.Contains("report.xlsx", declared);
+        Assert.Contains("report.html", declared);
         Assert.Contains("data/kinetics.csv", declared);
         Assert.Contains("charts/kinetics-strain-curves.png", declared);
         Assert.Contains(declared, f => f.StartsWith("charts/kinetics-lot-", StringComparison.Ordinal));
