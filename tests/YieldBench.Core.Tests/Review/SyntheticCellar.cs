@@ -7,7 +7,8 @@ namespace YieldBench.Core.Tests.Review;
 /// <summary>
 /// An invented cellar with planted cases. Alcohol follows a straight line in starting sugar,
 /// ABV = −2.33 + 0.687·°Brix (the slope and intercept of the OIV table's potential alcohol between 20 and 26 °Brix
-/// at 16.83 g/L, references.md: 11.40 % at 20 °Bx, 15.52 % at 26 °Bx), plus a strain effect and noise N(0, 0.12).
+/// at 16.83 g/L: 11.40 % at 20 °Bx, 15.52 % at 26 °Bx, OIV-MA-AS2-02 Table II as reproduced in the French Arrêté du
+/// 14 septembre 2011 relatif aux réfractomètres, Annexe IV), plus a strain effect and noise N(0, 0.12).
 /// Strain codes, lots and numbers are invented.
 /// </summary>
 internal sealed class SyntheticCellar
