@@ -95,7 +95,11 @@ internal sealed class SyntheticCellar
 
         double Abv(double brix, string strain) => Intercept + (Slope * brix) + Effects[strain];
         Add("P-SWAP-1", "Y-05", 42.2, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
-        Add("P-SWAP-2", "Y-05", 22.4, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
+        Add("P-SWAP-2", "Y-05", 32.1, Abv(23.1, "Y-05"), FlagCodes.PossibleTransposedDigits);
+
+        // A swap across the decimal point (24.2 written as 22.4) is another number, not a transposition: it is planted
+        // for the alcohol it gives (off its strain's line) and must not be offered as swapped digits.
+        Add("P-CROSS", "Y-05", 22.4, Abv(24.2, "Y-05"), FlagCodes.OffStrainLine);
         var sugar = SugarModel.Default.SugarGramsPerLitre(23.0);
         double theoretical = sugar * GayLussac.EthanolMassYield / (10 * YieldBench.Core.Units.AlcoholContent.EthanolDensity20C);
         Add("P-OVER", "Y-22", 23.0, 1.05 * theoretical, FlagCodes.AboveTheoreticalYield);
