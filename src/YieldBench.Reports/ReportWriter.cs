@@ -6,7 +6,7 @@ using YieldBench.Reports.Parts;
 namespace YieldBench.Reports;
 
 /// <summary>
-/// The review's report: its parts (data files, charts, workbook, console summary) written into one folder by
+/// The review's report: its parts (data files, the meeting page, charts, workbook, console summary) written into one folder by
 /// <see cref="ReportPipeline"/> — whole or not at all, with a manifest (<see cref="ManifestName"/>) listing this tool's
 /// files so a later run replaces them and leaves everything else alone.
 /// </summary>
@@ -17,6 +17,9 @@ public static class ReportWriter
 
     /// <summary>Relative path of the workbook.</summary>
     public const string WorkbookName = "report.xlsx";
+
+    /// <summary>Relative path of the one-page review for the meeting room.</summary>
+    public const string PageName = Html.HtmlReport.FileName;
 
     /// <summary>Relative paths of the data files.</summary>
     public static class DataFiles
@@ -43,7 +46,7 @@ public static class ReportWriter
     /// <summary>The parts of a report, in the order their jobs start (the workbook first: it waits for the charts).</summary>
     /// <param name="console">Where the console summary goes once the report is in place; null: no summary.</param>
     public static IReadOnlyList<IReportPart> Parts(TextWriter? console = null) =>
-        [new WorkbookPart(), new DataFilesPart(), new ChartsPart(), new ConsolePart(console)];
+        [new WorkbookPart(), new DataFilesPart(), new PagePart(), new ChartsPart(), new ConsolePart(console)];
 
     /// <summary>The files a report of <paramref name="review"/> holds (the parts' files and the manifest), sorted.</summary>
     public static IReadOnlyList<string> Files(ReviewResult review) => ReportPipeline.Files(review, Parts());

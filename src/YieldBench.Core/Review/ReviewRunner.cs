@@ -64,7 +64,7 @@ public static class ReviewRunner
             Findings = lotReviews.Select(l => l.Finding).OfType<LotFinding>().OrderByDescending(f => f.Severity).ThenBy(f => f.Key).ToArray(),
             FollowUps = followUps,
             Figures = figures,
-            Overview = ReviewOverview.Build(inputs, strains, house, kinetics, lotReviews, figures),
+            Overview = ReviewOverview.Build(inputs, settings.HouseFactor, strains, house, kinetics, lotReviews, figures),
             ToolVersion = toolVersion,
         };
     }

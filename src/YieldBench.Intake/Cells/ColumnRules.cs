@@ -15,9 +15,36 @@ internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDe
     public bool Used { get; set; }
 }
 
+/// <summary>Checks one explicit mapping as typed on a command line, before anything is read.</summary>
+public static class ColumnMapping
+{
+    /// <summary>
+    /// What is wrong with a "FIELD=HEADER" mapping, or null when it is one: the same words intake reports for a bad
+    /// mapping line (an unknown field's message lists every field name).
+    /// </summary>
+    public static string? Problem(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        int eq = text.IndexOf('=');
+        string field = eq > 0 ? text[..eq].Trim() : "";
+        string header = eq > 0 ? text[(eq + 1)..].Trim() : "";
+        if (field.Length == 0 || header.Length == 0)
+        {
+            return $"'{TextSettling.ForDisplay(text)}': " + IntakeMessages.MappingLineNotUnderstood();
+        }
+
+        return ColumnRules.FieldAliases.ContainsKey(field)
+            ? null
+            : IntakeMessages.MappingUnknownField(TextSettling.ForDisplay(field), ColumnRules.FieldAliases.Keys.Order(StringComparer.Ordinal));
+    }
+}
+
 /// <summary>Explicit column mappings and the synonym indexes the header matcher uses.</summary>
 internal static class ColumnRules
 {
+    /// <summary>Largest mapping file read, bytes (1 MiB: thousands of mapping lines).</summary>
+    public const long MaxMappingFileBytes = 1L << 20;
+
     public static readonly IReadOnlyDictionary<string, FieldDef> LotIndex = BuildIndex(Fields.Lots);
 
     public static readonly IReadOnlyDictionary<string, FieldDef> LogIndex = BuildIndex(Fields.Log);
@@ -94,6 +121,14 @@ internal static class ColumnRules
                 return rules;
             }
 
+            // Checked from the directory entry before opening: a pipe would block the open, a device would never end.
+            long length = SourceFiles.EntryLength(mappingFullPath);
+            if (length == 0 || length > MaxMappingFileBytes)
+            {
+                sink.Error(mappingDisplayPath, null, null, null, null, IssueCodes.MappingFileRefused, IntakeMessages.MappingFileRefused(length, MaxMappingFileBytes));
+                return rules;
+            }
+
             using var stream = SourceFiles.OpenShared(mappingFullPath);
             using var reader = new StreamReader(stream, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
             int lineNo = 0;
@@ -132,7 +167,7 @@ internal static class ColumnRules
 
         if (!FieldAliases.TryGetValue(field, out var alias))
         {
-            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field));
+            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field, FieldAliases.Keys.Order(StringComparer.Ordinal)));
             return;
         }
 

@@ -72,6 +72,7 @@ public sealed class ParallelReportTests
             ["data/house-factor.json"] = Utf8NoBom.GetBytes(HouseFactorJson.Write(review.HouseFactor)),
             ["data/kinetics.csv"] = Utf8NoBom.GetBytes(Csv(w => KineticsCsv.Write(review.Kinetics!, w))),
             [ReportWriter.WorkbookName] = WorkbookWriter.Build(review, alone),
+            [ReportWriter.PageName] = Utf8NoBom.GetBytes(YieldBench.Reports.Html.HtmlReport.Render(review)),
         };
         foreach (var chart in alone)
         {
