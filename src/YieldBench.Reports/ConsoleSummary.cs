@@ -27,13 +27,14 @@ public static class ConsoleSummary
         void Say(string text, int indent = 0) => lines.AddRange(Wrap(text, indent));
 
         Say(o.Title);
-        if (o.Factors.Count > 0)
+        if (o.Factors is { } factors)
         {
-            Say($"Conversion factor for next harvest, shown at {F(o.TypicalBrix, "0.0")} °Brix (the median starting sugar of the lots compared):");
-            foreach (var f in o.Factors)
+            Say($"Conversion factor for next harvest, shown at {F(factors.ReferenceBrix, "0.0")} °Brix (the median starting sugar of the lots compared):");
+            foreach (var f in factors.Strains.Prepend(factors.Pooled))
             {
-                Say($"{f.Strain ?? "all lots"}: {F(f.Factor, "0.000")} % v/v per °Brix ({f.Candidate}) → {F(f.PredictedAbv, "0.00")} % v/v; "
-                    + $"80 % of lots {Range(f.Range80)}, 95 % {Range(f.Range95)}; held-out error {F(f.HeldOutError, "0.00")} % v/v ({f.Lots} lots, {f.Backtest}).", 2);
+                var e = f.Estimate;
+                Say($"{(f.Strain == "*" ? "all lots" : f.Strain)}: {F(f.Factor, "0.000")} % v/v per °Brix ({f.Candidate}) → {F(e.Predicted, "0.00")} % v/v; "
+                    + $"80 % of lots {Range(e.Low80, e.High80)}, 95 % {Range(e.Low95, e.High95)}; held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots).", 2);
             }
         }
         else
@@ -67,14 +68,15 @@ public static class ConsoleSummary
         else
         {
             Say($"Lots to look at: {lots.Flagged} ({string.Join(", ", lots.ByWorstSeverity.Where(x => x.Lots > 0).Select(x => $"{ReviewTexts.Severity(x.Severity)} {x.Lots}"))}), one line each; all on the Follow-up sheet:");
-            foreach (var f in o.LotLines.Take(LotLines))
+            var findings = o.FlaggedLots.Select(l => l.Finding).OfType<LotFinding>().ToArray();
+            foreach (var f in findings.Take(LotLines))
             {
                 Say($"{f.Key} {f.Strain} ({ReviewTexts.Severity(f.Severity)}): {f.Seen} {f.Explanation} {f.FollowUp}", 2);
             }
 
-            if (o.LotLines.Count > LotLines)
+            if (findings.Length > LotLines)
             {
-                Say($"… and {o.LotLines.Count - LotLines} more on the Follow-up sheet.", 2);
+                Say($"… and {findings.Length - LotLines} more on the Follow-up sheet.", 2);
             }
         }
 
@@ -83,7 +85,7 @@ public static class ConsoleSummary
             Say("How the strains fermented (lots with a log; median days to dry and peak temperature):");
             foreach (var s in o.Ferments)
             {
-                Say($"{s.Strain}: dry in {F(s.DaysToDry, "0.0")} days, peak {F(s.PeakTemperatureC, "0.0")} °C, {s.Troubled} of {s.LotsWithLog} troubled ({F(s.TroubledShare * 100, "0")} %).", 2);
+                Say($"{s.Strain}: dry in {F(s.DaysToDry.Median, "0.0")} days, peak {F(s.PeakTemperatureC.Median, "0.0")} °C, {s.Troubled} of {s.Lots} troubled (stuck, sluggish or not dry; {F(s.TroubledShare * 100, "0")} %).", 2);
             }
         }
 
@@ -139,7 +141,7 @@ public static class ConsoleSummary
         }
     }
 
-    private static string Range((double Low, double High) r) => double.IsFinite(r.Low) && double.IsFinite(r.High) ? $"{F(r.Low, "0.00")}–{F(r.High, "0.00")}" : "n/a (too few lots)";
+    private static string Range(double low, double high) => double.IsFinite(low) && double.IsFinite(high) ? $"{F(low, "0.00")}–{F(high, "0.00")}" : "n/a (too few lots)";
 
     private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "n/a";
 }

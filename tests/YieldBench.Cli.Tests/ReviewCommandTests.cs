@@ -148,31 +148,32 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         var review = YieldBench.Core.Review.ReviewRunner.Run(set, new YieldBench.Core.Review.ReviewSettings(), "test", [new YieldBench.Modeling.MultiVariableCandidate()]);
         using var json = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.First, "data", "house-factor.json")));
         var root = json.RootElement;
-        var o = review.Overview;
-        double t = o.TypicalBrix;
+        var factors = review.Overview.Factors!;
+        double t = factors.ReferenceBrix;
 
-        // When each factor line is recomputed from the file's planner line and recommendation at the typical sugar
-        Assert.Equal(1 + root.GetProperty("by_strain").GetArrayLength(), o.Factors.Count);
-        foreach (var f in o.Factors)
+        // When each factor line is recomputed from the file's planner line, its error model and its recommendation at the typical sugar
+        Assert.Equal(root.GetProperty("planning").GetProperty("strains").GetArrayLength(), factors.Strains.Count);
+        foreach (var f in factors.Strains.Prepend(factors.Pooled))
         {
-            var line = f.Strain is null
+            var line = f.Strain == "*"
                 ? root.GetProperty("planning").GetProperty("pooled")
                 : root.GetProperty("planning").GetProperty("strains").EnumerateArray().Single(s => s.GetProperty("strain").GetString() == f.Strain);
-            var rec = f.Strain is null
+            var rec = f.Strain == "*"
                 ? root.GetProperty("recommendation")
                 : root.GetProperty("by_strain").EnumerateArray().Single(s => s.GetProperty("strain").GetString() == f.Strain);
             double predicted = line.GetProperty("curve").GetString() == "eu-convention"
                 ? YieldBench.Core.Units.OivMustTable.PotentialAlcohol(t)
                 : line.GetProperty("intercept_abv").GetDouble() + (line.GetProperty("slope_abv_per_brix").GetDouble() * t);
+            var model = line.GetProperty("error_model");
 
             // Then the prediction, factor, ranges and held-out error agree with the file, and the console prints the factor
-            Assert.Equal(predicted, f.PredictedAbv, 9);
+            Assert.Equal(predicted, f.Estimate.Predicted, 9);
             Assert.Equal(predicted / t, f.Factor, 9);
-            Assert.Equal(predicted + rec.GetProperty("error80_low_abv").GetDouble(), f.Range80.Low, 9);
-            Assert.Equal(predicted + rec.GetProperty("error95_high_abv").GetDouble(), f.Range95.High, 9);
-            Assert.Equal(rec.GetProperty("metrics").GetProperty("mae_abv").GetDouble(), f.HeldOutError, 12);
+            Assert.Equal(predicted + model.GetProperty("error80_low_abv").GetDouble(), f.Estimate.Low80, 9);
+            Assert.Equal(predicted + model.GetProperty("error95_high_abv").GetDouble(), f.Estimate.High95, 9);
+            Assert.Equal(rec.GetProperty("metrics").GetProperty("mae_abv").GetDouble(), f.HeldOutMae, 12);
             string shown = f.Factor.ToString("0.000", CultureInfo.InvariantCulture);
-            Assert.Contains($"  {f.Strain ?? "all lots"}: {shown} % v/v per °Brix", demo.Out, StringComparison.Ordinal);
+            Assert.Contains($"  {(f.Strain == "*" ? "all lots" : f.Strain)}: {shown} % v/v per °Brix", demo.Out, StringComparison.Ordinal);
         }
     }
 

@@ -66,29 +66,6 @@ public static class LotFindings
         FlagCodes.OffStrainLine, FlagCodes.HighFactor, FlagCodes.LowFactor, FlagCodes.FarOutsideTukeyFence, FlagCodes.OutsideTukeyFence,
     ];
 
-    /// <summary>A flag code in plain words.</summary>
-    public static string Words(string code) => code switch
-    {
-        FlagCodes.HighFactor => "much more alcohol per °Brix than its strain",
-        FlagCodes.LowFactor => "much less alcohol per °Brix than its strain",
-        FlagCodes.OutsideTukeyFence => "alcohol per °Brix unusual for its strain",
-        FlagCodes.FarOutsideTukeyFence => "alcohol per °Brix far outside its strain's range",
-        FlagCodes.OffStrainLine => "alcohol off its strain's line for its starting sugar",
-        FlagCodes.AboveTheoreticalYield => "more alcohol than its sugar can make",
-        FlagCodes.ImplausibleFactor => "alcohol per °Brix outside what grape must can give",
-        FlagCodes.NotDry => "not fermented to dryness",
-        FlagCodes.SeasonDrift => "strain converted differently that season",
-        FlagCodes.PossibleTransposedDigits => "starting sugar may have two digits swapped",
-        FlagCodes.PossibleUnrecordedWater => "low alcohol that unrecorded water would explain",
-        FlagCodes.PossibleStrainMixUp => "behaves like another strain",
-        "stuck" => "stuck ferment",
-        "sluggish" => "sluggish ferment",
-        "above-danger-temp" => "ran above the danger temperature",
-        "above-caution-temp" => "ran above the caution temperature",
-        "not-dry-at-log-end" => "log ends before dry",
-        _ => code,
-    };
-
     /// <summary>The finding of a lot with follow-up items, or null when it has none.</summary>
     public static LotFinding? Of(LotConversion lot, IReadOnlyList<LotFlag> strainFlags, IReadOnlyList<LotFlag> kineticsItems, LotKinetics? kinetics = null)
     {
@@ -114,7 +91,7 @@ public static class LotFindings
             Strain = lot.Lot.Strain,
             Severity = all.Max(f => f.Severity),
             Codes = codes,
-            Flags = codes.Select(Words).ToArray(),
+            Flags = codes.Select(ReviewTexts.FlagName).ToArray(),
             Seen = Seen(lot, symptoms, explanations, kinetics),
             Explanation = lead is null ? SymptomExplanation(low) : Explain(lead, lot),
             Otherwise = second is null ? null : Explain(second, lot),
@@ -195,7 +172,7 @@ public static class LotFindings
         }
 
         reason = reason.TrimEnd('.');
-        return Words(f.Code) + ": " + reason;
+        return ReviewTexts.FlagName(f.Code) + ": " + reason;
     }
 
     private static string Explain(LotFlag f, LotConversion lot) => f.Code switch
@@ -211,7 +188,7 @@ public static class LotFindings
         "above-danger-temp" => "Too little cooling for this vessel: yeast suffer near this temperature and the ferment may stop.",
         "above-caution-temp" => "Warmer than the caution line for its colour.",
         "sluggish" => "A slow stretch late in the ferment.",
-        _ => char.ToUpperInvariant(Words(f.Code)[0]) + Words(f.Code)[1..] + ".",
+        _ => char.ToUpperInvariant(ReviewTexts.FlagName(f.Code)[0]) + ReviewTexts.FlagName(f.Code)[1..] + ".",
     };
 
     private static string Act(LotFlag f, LotConversion lot) => f.Code switch

@@ -14,22 +14,6 @@ public sealed record ReviewOverview
     /// <summary>The report's title, naming the inputs and the seasons.</summary>
     public required string Title { get; init; }
 
-    /// <summary>
-    /// The conversion factor to use next harvest: all lots first, then each strain with a recommendation of its own,
-    /// with its prediction and ranges at <see cref="TypicalBrix"/> and its error on held-out seasons. Empty when no
-    /// factor could be recommended (see <see cref="NoRecommendation"/>).
-    /// </summary>
-    public IReadOnlyList<FactorDecision> Factors { get; init; } = [];
-
-    /// <summary>The starting sugar the factors' predictions are shown at: the median of the lots in the strain comparison, °Brix.</summary>
-    public double TypicalBrix { get; init; } = double.NaN;
-
-    /// <summary>The lots to look at, one line each, most serious first.</summary>
-    public IReadOnlyList<LotFinding> LotLines { get; init; } = [];
-
-    /// <summary>How each strain fermented (lots with a log only), in the review's strain order; empty without logs.</summary>
-    public IReadOnlyList<StrainFerment> Ferments { get; init; } = [];
-
     /// <summary>What was read and what was left out.</summary>
     public required InputsAtAGlance Inputs { get; init; }
 
@@ -42,7 +26,35 @@ public sealed record ReviewOverview
     /// <summary>Why no house factor is recommended (empty when one is).</summary>
     public IReadOnlyList<string> NoRecommendation { get; init; } = [];
 
-    /// <summary>The lots to look at.</summary>
+    /// <summary>The house-factor recommendation.</summary>
+/// <param name="Candidate">Plain name of the recommended candidate.</param>
+/// <param name="Scheme">Plain name of the backtest it was judged by.</param>
+/// <param name="Regime">The label regime's name.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="ShareWithinTolerance">Share of held-out lots within the label tolerance (0–1).</param>
+/// <param name="Band80">The 80 % band of held-out errors, % v/v.</param>
+/// <param name="Band95">The 95 % band of held-out errors, % v/v.</param>
+/// <param name="Explanation">Why it was chosen, in plain words.</param>
+/// <param name="ByStrain">The per-strain choices.</param>
+public sealed record HouseFactorAtAGlance(
+    string Candidate,
+    string Scheme,
+    string Regime,
+    double Mae,
+    double ShareWithinTolerance,
+    (double Low, double High) Band80,
+    (double Low, double High) Band95,
+    string Explanation,
+    IReadOnlyList<StrainAdvice> ByStrain);
+
+/// <summary>One strain's house-factor choice.</summary>
+/// <param name="Strain">Strain code.</param>
+/// <param name="Candidate">Plain name of the chosen candidate.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="Lots">Lots scored.</param>
+public sealed record StrainAdvice(string Strain, string Candidate, double Mae, int Lots);
+
+/// <summary>The lots to look at.</summary>
     public required LotsToLookAt Lots { get; init; }
 
     /// <summary>The kinetics in numbers, or null when no log was read.</summary>
@@ -106,14 +118,9 @@ public sealed record ReviewOverview
                     .Select(g => new CodeCount(g.Key, g.Count())).ToArray())
             : null;
 
-        double typical = c.ReferenceBrix;
         return new ReviewOverview
         {
             Title = TitleOf(inputs),
-            Factors = FactorsOf(h, typical, Name),
-            TypicalBrix = typical,
-            LotLines = lotReviews.Select(l => l.Finding).OfType<LotFinding>().OrderByDescending(f => f.Severity).ThenBy(f => f.Key).ToArray(),
-            Ferments = FermentsOf(kineticsReview, lotReviews, figures.StrainOrder),
             Inputs = new InputsAtAGlance(
                 inputs.Files.Count,
                 lotReviews.Count,
@@ -149,34 +156,6 @@ public sealed record ReviewOverview
         return $"Review of {files}{span}";
     }
 
-    /// <summary>The recommended factor overall and per strain, at the typical starting sugar.</summary>
-    private static IReadOnlyList<FactorDecision> FactorsOf(HouseFactor.HouseFactorReview h, double typical, Func<string, string> name)
-    {
-        if (h.Overall is null || h.Planning is not { } planning || !double.IsFinite(typical) || typical <= 0)
-        {
-            return [];
-        }
-
-        string scheme = ReviewTexts.Scheme(h.PrimaryScheme);
-        FactorDecision Decide(HouseFactor.Recommendation r)
-        {
-            var line = planning.For(r.Strain == "*" ? null : r.Strain);
-            double predicted = line.Predict(typical);
-            return new FactorDecision(
-                r.Strain == "*" ? null : r.Strain,
-                r.Lots,
-                name(r.CandidateId),
-                predicted / typical,
-                predicted,
-                (predicted + r.ErrorBand80.Low, predicted + r.ErrorBand80.High),
-                (predicted + r.ErrorBand95.Low, predicted + r.ErrorBand95.High),
-                r.Metrics.Mae,
-                scheme);
-        }
-
-        return [Decide(h.Overall), .. h.ByStrain.Select(Decide)];
-    }
-
     /// <summary>The ranking in plain words: the first strain against the last, then each strain against the next.</summary>
     private static IReadOnlyList<string> Plain(IReadOnlyList<RankedStrain> ranking, StrainComparison c)
     {
@@ -185,22 +164,10 @@ public sealed record ReviewOverview
             return [];
         }
 
-        string? Say(string a, string b)
-        {
-            var d = c.AdjustedDifferences.FirstOrDefault(x => x.First == a && x.Second == b)
-                ?? c.AdjustedDifferences.Where(x => x.First == b && x.Second == a)
-                    .Select(x => x with { First = a, Second = b, AbvDifference = -x.AbvDifference, Interval = new Statistics.Interval(-x.Interval.High, -x.Interval.Low, x.Interval.Level) })
-                    .FirstOrDefault();
-            if (d is null)
-            {
-                return null;
-            }
-
-            bool clear = d.Interval.IsDefined && (d.Interval.Low > 0 || d.Interval.High < 0);
-            return clear
-                ? Invariant($"{a} makes {d.AbvDifference:0.00} % v/v more alcohol than {b} from the same starting sugar ({d.Interval.Level * 100:0} % interval {d.Interval.Low:0.00} to {d.Interval.High:0.00}) — more than the noise.")
-                : Invariant($"{a} and {b} make the same alcohol from the same starting sugar within the noise ({Math.Abs(d.AbvDifference):0.00} % v/v apart).");
-        }
+        string? Say(string a, string b) =>
+            c.AdjustedDifferences.FirstOrDefault(x => (x.First == a && x.Second == b) || (x.First == b && x.Second == a)) is { } d
+                ? Comparison.DifferenceSentence(d)
+                : null;
 
         var lines = new List<string>();
         if (Say(ranking[0].Strain, ranking[^1].Strain) is { } ends)
@@ -208,33 +175,15 @@ public sealed record ReviewOverview
             lines.Add(ends);
         }
 
-        for (int i = 0; i + 1 < ranking.Count; i++)
+        for (int i = 0; ranking.Count > 2 && i + 1 < ranking.Count; i++)
         {
-            if (ranking.Count > 2 && Say(ranking[i].Strain, ranking[i + 1].Strain) is { } next)
+            if (Say(ranking[i].Strain, ranking[i + 1].Strain) is { } next)
             {
                 lines.Add(next);
             }
         }
 
         return lines;
-    }
-
-    /// <summary>Each strain's days to dry, peak temperature and share of troubled ferments, over its lots with a log.</summary>
-    private static IReadOnlyList<StrainFerment> FermentsOf(Kinetics.KineticsReview? kinetics, IReadOnlyList<LotReview> lots, IReadOnlyList<string> order)
-    {
-        if (kinetics is null)
-        {
-            return [];
-        }
-
-        var byStrain = kinetics.Strains.ToDictionary(s => s.Strain, StringComparer.Ordinal);
-        var logged = lots.Where(l => l.Kinetics is not null).ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
-        return order.Where(byStrain.ContainsKey).Select(s =>
-        {
-            var k = byStrain[s];
-            int troubled = logged[s].Count(l => l.KineticsFollowUps.Count > 0);
-            return new StrainFerment(s, k.Lots, k.DaysToDry.Median, k.DaysToDry.N, k.PeakTemperatureC.Median, troubled, k.Lots == 0 ? double.NaN : (double)troubled / k.Lots);
-        }).ToArray();
     }
 
     /// <summary>
@@ -268,57 +217,6 @@ public sealed record StrainsAtAGlance(bool Adjusted, double ReferenceBrix, strin
     /// <summary>The ranking in plain words: the first strain against the last, then each against the next (empty when not adjusted).</summary>
     public IReadOnlyList<string> Plain { get; init; } = [];
 }
-
-/// <summary>The conversion factor to use next harvest, for all lots or one strain.</summary>
-/// <param name="Strain">The strain, or null for all lots.</param>
-/// <param name="Lots">Lots it was judged on.</param>
-/// <param name="Candidate">Plain name of the recommended candidate.</param>
-/// <param name="Factor">% v/v per °Brix at the typical starting sugar (its prediction ÷ that sugar).</param>
-/// <param name="PredictedAbv">Its prediction at the typical starting sugar, % v/v.</param>
-/// <param name="Range80">The 80 % range of the lab alcohol around that prediction, % v/v (from held-out errors).</param>
-/// <param name="Range95">The 95 % range, % v/v.</param>
-/// <param name="HeldOutError">Mean absolute error on held-out lots, % v/v.</param>
-/// <param name="Backtest">How the lots were held out, in words.</param>
-public sealed record FactorDecision(
-    string? Strain, int Lots, string Candidate, double Factor, double PredictedAbv, (double Low, double High) Range80, (double Low, double High) Range95, double HeldOutError, string Backtest);
-
-/// <summary>How one strain fermented, over its lots with a log.</summary>
-/// <param name="Strain">Strain code.</param>
-/// <param name="LotsWithLog">Lots with a log.</param>
-/// <param name="DaysToDry">Median days to dry of the lots that reached dry.</param>
-/// <param name="LotsDry">Lots that reached dry.</param>
-/// <param name="PeakTemperatureC">Median peak temperature, °C.</param>
-/// <param name="Troubled">Lots with a kinetics follow-up (stuck, sluggish, too hot, not dry when the log ends).</param>
-/// <param name="TroubledShare">Troubled ÷ lots with a log (0–1).</param>
-public sealed record StrainFerment(string Strain, int LotsWithLog, double DaysToDry, int LotsDry, double PeakTemperatureC, int Troubled, double TroubledShare);
-
-/// <summary>The house-factor recommendation.</summary>
-/// <param name="Candidate">Plain name of the recommended candidate.</param>
-/// <param name="Scheme">Plain name of the backtest it was judged by.</param>
-/// <param name="Regime">The label regime's name.</param>
-/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
-/// <param name="ShareWithinTolerance">Share of held-out lots within the label tolerance (0–1).</param>
-/// <param name="Band80">The 80 % band of held-out errors, % v/v.</param>
-/// <param name="Band95">The 95 % band of held-out errors, % v/v.</param>
-/// <param name="Explanation">Why it was chosen, in plain words.</param>
-/// <param name="ByStrain">The per-strain choices.</param>
-public sealed record HouseFactorAtAGlance(
-    string Candidate,
-    string Scheme,
-    string Regime,
-    double Mae,
-    double ShareWithinTolerance,
-    (double Low, double High) Band80,
-    (double Low, double High) Band95,
-    string Explanation,
-    IReadOnlyList<StrainAdvice> ByStrain);
-
-/// <summary>One strain's house-factor choice.</summary>
-/// <param name="Strain">Strain code.</param>
-/// <param name="Candidate">Plain name of the chosen candidate.</param>
-/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
-/// <param name="Lots">Lots scored.</param>
-public sealed record StrainAdvice(string Strain, string Candidate, double Mae, int Lots);
 
 /// <summary>The lots to look at.</summary>
 /// <param name="Flagged">Lots with a follow-up item (strain review or kinetics).</param>

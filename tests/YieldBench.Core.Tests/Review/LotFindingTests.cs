@@ -64,7 +64,7 @@ public sealed class LotFindingTests
         Assert.Equal(
             [FlagCodes.PossibleUnrecordedWater, FlagCodes.PossibleTransposedDigits, FlagCodes.OffStrainLine, FlagCodes.LowFactor],
             finding.Codes);
-        Assert.Equal("low alcohol that unrecorded water would explain", finding.Flags[0]);
+        Assert.Equal(ReviewTexts.FlagName(FlagCodes.PossibleUnrecordedWater), finding.Flags[0]);
     }
 
     [Fact]
