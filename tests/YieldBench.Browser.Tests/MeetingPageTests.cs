@@ -214,17 +214,25 @@ public sealed partial class MeetingPageTests(MeetingPage page, ITestOutputHelper
         // Given the page with its script
         page.RequireBrowser();
         int mark = await page.Load();
-        var all = (await page.Page.Evaluate("[...document.querySelectorAll('#lots-table tbody tr')].map(r => r.cells[1].innerText)")).EnumerateArray().Select(e => e.GetString()!).ToArray();
-        string strain = all.GroupBy(s => s).OrderByDescending(g => g.Count()).First().Key;
+        var all = (await page.Page.Evaluate("[...document.querySelectorAll('#lots-table tbody tr')].map(r => r.textContent.toLowerCase())")).EnumerateArray().Select(e => e.GetString()!).ToArray();
+        var strains = (await page.Page.Evaluate("[...document.querySelectorAll('#lots-table tbody tr')].map(r => r.cells[1].innerText)")).EnumerateArray().Select(e => e.GetString()!).ToArray();
+        string strain = strains.GroupBy(s => s).OrderByDescending(g => g.Count()).First().Key;
 
-        // When the filter is given a strain code
-        var shown = (await page.Page.Evaluate(
-            $"(() => {{ const i = document.getElementById('lots-filter'); i.value = '{strain}'; i.dispatchEvent(new Event('input')); return [...document.querySelectorAll('#lots-table tbody tr')].filter(r => !r.hidden).map(r => r.cells[1].innerText); }})()"))
-            .EnumerateArray().Select(e => e.GetString()!).ToArray();
+        // When the filter is given a strain code, then text that is in no row
+        string Filter(string text) =>
+            $"(() => {{ const i = document.getElementById('lots-filter'); i.value = '{text}'; i.dispatchEvent(new Event('input')); return [[...document.querySelectorAll('#lots-table tbody tr')].filter(r => !r.hidden).map(r => r.cells[1].innerText), document.querySelector('.filter output').textContent]; }})()";
+        var byStrain = await page.Page.Evaluate(Filter(strain));
+        var byNothing = await page.Page.Evaluate(Filter("no such lot anywhere"));
 
-        // Then only that strain's lots are shown, all of them
-        Assert.Equal(all.Count(s => s == strain), shown.Length);
-        Assert.All(shown, s => Assert.Equal(strain, s));
+        // Then the rows shown are exactly those whose text holds the code (every lot of the strain among them), the count
+        // says so, and a text in no row hides every row
+        var shown = byStrain[0].EnumerateArray().Select(e => e.GetString()!).ToArray();
+        Assert.Equal(all.Count(t => t.Contains(strain.ToLowerInvariant(), StringComparison.Ordinal)), shown.Length);
+        Assert.Equal(strains.Count(s => s == strain), shown.Count(s => s == strain));
+        Assert.True(shown.Length < all.Length, "a strain's code should not match every lot");
+        Assert.Equal($"{shown.Length} of {all.Length} lots shown", byStrain[1].GetString());
+        Assert.Equal(0, byNothing[0].GetArrayLength());
+        Assert.Equal($"0 of {all.Length} lots shown", byNothing[1].GetString());
 
         // When the filter is cleared and the Lot column is sorted twice
         string Sort(int times) =>
