@@ -25,7 +25,9 @@ Console.WriteLine();
 var set = IntakeReader.Read([Path.Combine(root, "demo-data")], new IntakeOptions());
 var lots = set.Lots.Select(l => ConversionFactors.For(l, SugarModel.Default)).ToArray();
 var settings = new HouseFactorSettings();
-var review = HouseFactorAnalysis.Run(lots, settings, [], seed);
+// As the review does: lots the strain review flags as likely errors or not dry do not teach the factor.
+var flags = YieldBench.Core.Review.Strains.StrainReviewer.Run(lots, new YieldBench.Core.Review.Strains.StrainReviewSettings(), seed).Flags;
+var review = HouseFactorAnalysis.Run(lots, flags, settings, [], seed);
 Console.WriteLine($"{review.LotsUsed} lots of seasons {string.Join(", ", review.Seasons)}; backtest: {review.PrimaryScheme}; label regime for scoring: {review.Regime.Name}.");
 Console.WriteLine();
 Console.WriteLine("candidate                                   | MAE % v/v (± SE) | bias   | 90 % of errors under | within label tolerance | wrong side of 14 %");
@@ -43,7 +45,11 @@ if (review.Overall is { } overall)
     Console.WriteLine($"Recommendation (one-standard-error rule: the simplest candidate whose MAE is within one standard error of the best, {F(overall.MaeLimit, "0.000")} % v/v):");
     Console.WriteLine($"  {chosen.Name}");
     Console.WriteLine($"  {overall.Explanation}");
-    Console.WriteLine($"  80 % of held-out errors fell between {F(overall.ErrorBand80.Low, "+0.00;-0.00")} and {F(overall.ErrorBand80.High, "+0.00;-0.00")} % v/v; 95 % between {F(overall.ErrorBand95.Low, "+0.00;-0.00")} and {F(overall.ErrorBand95.High, "+0.00;-0.00")}.");
+    Console.WriteLine($"  a lot of a new season: 80 % band {F(overall.ErrorBand80.Low, "+0.00;-0.00")} to {F(overall.ErrorBand80.High, "+0.00;-0.00")} % v/v around the prediction, 95 % band {F(overall.ErrorBand95.Low, "+0.00;-0.00")} to {F(overall.ErrorBand95.High, "+0.00;-0.00")} (season-aware: lots of one season share its shift).");
+    if (review.Coverage is { } cov)
+    {
+        Console.WriteLine($"  tested on each season held out in turn, the planner's 80 % and 95 % intervals held {P(cov.Total.Share80)} and {P(cov.Total.Share95)} of its lots.");
+    }
 }
 
 foreach (var r in review.ByStrain)
@@ -55,7 +61,7 @@ Console.WriteLine();
 Console.WriteLine("A check the way next year will really go: choose with 2023 and 2024 only, then predict 2025's lots.");
 var early = lots.Where(l => l.Lot.Season < 2025).ToArray();
 var late = lots.Where(l => l.Lot.Season == 2025).ToArray();
-var before = HouseFactorAnalysis.Run(early, settings, [], seed);
+var before = HouseFactorAnalysis.Run(early, flags.Where(f => f.Season < 2025).ToArray(), settings, [], seed);
 if (before.Planning is { } planning)
 {
     var errors = late.Select(l => l.Lot.FinalAlcohol.PercentVolume - Planner.Estimate(planning.For(l.Lot.Strain), SugarReading.FromBrix(l.EffectiveStartingBrix)).Predicted).ToArray();

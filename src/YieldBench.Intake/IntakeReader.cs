@@ -31,44 +31,21 @@ public static partial class IntakeReader
         var run = new IntakeRun(options, rules, sink);
         var files = new List<InputFile>();
 
-        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty
-        // folder). While one file's tables are read here, the next file is hashed and parsed on another thread; its
-        // issues wait in their own list and join the others when its turn comes, so the order never changes.
-        var steps = Expand(paths, root).ToList();
-        Task<LoadedFile>? ahead = null;
-        int aheadAt = -1;
-        for (int i = 0; i < steps.Count; i++)
+        // The inputs in order, each a file to read or an issue found while listing them (a missing file, an empty folder).
+        foreach (var step in Expand(paths, root))
         {
-            if (steps[i].Issue is { } issue)
+            if (step.Issue is { } issue)
             {
                 sink.AddRange([issue]);
                 continue;
             }
 
-            var (display, full) = (steps[i].Display!, steps[i].Full!);
-            LoadedFile? loaded = null;
-            if (aheadAt == i)
-            {
-                loaded = ahead!.GetAwaiter().GetResult();
-            }
-            else if (Readable(full))
-            {
-                loaded = Load(display, full, options);
-            }
-
-            int following = steps.FindIndex(i + 1, s => s.Full is not null);
-            if (following >= 0 && Readable(steps[following].Full!))
-            {
-                var (d, f) = (steps[following].Display!, steps[following].Full!);
-                ahead = Task.Run(() => Load(d, f, options));
-                aheadAt = following;
-            }
-
-            ReadFile(run, display, full, loaded, files);
+            var (display, full) = (step.Display!, step.Full!);
+            ReadFile(run, display, full, Readable(full) ? Load(display, full, options) : null, files);
         }
 
         ColumnRules.ReportUnused(rules, sink);
-        UnifySpellings(run);
+        Spellings.Unify(run.Lots, sink);
         var logs = JoinLogs(run);
         return new SeasonSet
         {
@@ -81,89 +58,6 @@ public static partial class IntakeReader
             Mappings = run.Mappings,
         };
     }
-
-    /// <summary>
-    /// Strain codes (and vessel types) that differ only in case, spaces or punctuation ("RC-11", "rc-11", "RC 11") are
-    /// one strain: each group takes its most used spelling (the first read on a tie), with one warning per group, so
-    /// that a typing habit never splits a strain into several.
-    /// </summary>
-    private static void UnifySpellings(IntakeRun run)
-    {
-        foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
-        {
-            // Each distinct spelling once, in order of first use, with its count and the first lot that uses it.
-            var spellings = new Dictionary<string, (int Count, int First)>(StringComparer.Ordinal);
-            for (int i = 0; i < run.Lots.Count; i++)
-            {
-                if (get(run.Lots[i]) is { } v)
-                {
-                    spellings[v] = spellings.TryGetValue(v, out var seen) ? (seen.Count + 1, seen.First) : (1, i);
-                }
-            }
-
-            // Groups of spellings by key, in order of the group's first use; spellings in order of first use.
-            var groups = new Dictionary<string, List<(string Text, int Count, int First)>>(StringComparer.Ordinal);
-            var order = new List<string>();
-            foreach (var (text, (count, first)) in spellings.OrderBy(x => x.Value.First))
-            {
-                string key = SpellingKey(text);
-                if (!groups.TryGetValue(key, out var list))
-                {
-                    groups[key] = list = [];
-                    order.Add(key);
-                }
-
-                list.Add((text, count, first));
-            }
-
-            var replace = new Dictionary<string, string>(StringComparer.Ordinal);
-            var warnings = new List<(int FirstLot, string Kept, int Count, List<(string, int)> Others)>();
-            foreach (var key in order)
-            {
-                var group = groups[key];
-                if (group.Count < 2)
-                {
-                    continue;
-                }
-
-                // The most used spelling; on a tie the first read.
-                var kept = group[0];
-                foreach (var g in group)
-                {
-                    kept = g.Count > kept.Count ? g : kept;
-                }
-
-                foreach (var g in group)
-                {
-                    if (g.Text != kept.Text)
-                    {
-                        replace[g.Text] = kept.Text;
-                    }
-                }
-
-                warnings.Add((group[0].First, kept.Text, kept.Count, group.Where(g => g.Text != kept.Text).Select(g => (g.Text, g.Count)).ToList()));
-            }
-
-            for (int i = 0; replace.Count > 0 && i < run.Lots.Count; i++)
-            {
-                var lot = run.Lots[i];
-                if (get(lot) is { } v && replace.TryGetValue(v, out var kept))
-                {
-                    run.Lots[i] = field == "strain" ? lot with { Strain = kept } : lot with { Vessel = kept };
-                }
-            }
-
-            foreach (var (firstLot, kept, count, others) in warnings)
-            {
-                // The group's first lot: after unifying, the first that bears the kept spelling.
-                var first = run.Lots[firstLot].Source;
-                run.Sink.Warning(first?.File ?? "", first?.Sheet, null, field, kept, "spelling-unified", IntakeMessages.SpellingUnified(field, kept, count, others));
-            }
-        }
-    }
-
-    private static string SpellingKey(string text) =>
-        new string(text.Where(char.IsLetterOrDigit).Select(char.ToUpperInvariant).ToArray());
 
     /// <summary>One input in order: a file to read (display name and full path), or an issue found listing the inputs.</summary>
     private sealed record Step(string? Display, string? Full, IntakeIssue? Issue);
@@ -184,7 +78,7 @@ public static partial class IntakeReader
                     .ToList();
                 if (inFolder.Count == 0)
                 {
-                    yield return Found(p, "folder-empty", IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
+                    yield return Found(p, IssueCodes.FolderEmpty, IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
                 }
 
                 foreach (var f in inFolder)
@@ -192,7 +86,7 @@ public static partial class IntakeReader
                     string display = Path.Combine(p, Path.GetFileName(f));
                     if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
                     {
-                        yield return Found(display, "lock-file-skipped", IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
+                        yield return Found(display, IssueCodes.LockFileSkipped, IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
                         continue;
                     }
 
@@ -205,7 +99,7 @@ public static partial class IntakeReader
             }
             else
             {
-                yield return Found(p, "file-not-found", IntakeMessages.FileNotFound(), IssueSeverity.Error);
+                yield return Found(p, IssueCodes.FileNotFound, IntakeMessages.FileNotFound(), IssueSeverity.Error);
             }
         }
     }
@@ -220,7 +114,7 @@ public static partial class IntakeReader
     /// <summary>A file hashed and parsed into raw sheets, with the issues found doing so, not yet read as tables.</summary>
     private sealed record LoadedFile(InputFile? Hash, RawFile? Raw, IReadOnlyList<IntakeIssue> Issues, string? CannotOpen);
 
-    /// <summary>Hashes and parses one file; touches nothing shared, so it may run on another thread.</summary>
+    /// <summary>Hashes and parses one file into raw sheets, with the issues found doing so.</summary>
     private static LoadedFile Load(string file, string full, IntakeOptions options)
     {
         var sink = new IssueSink();
@@ -243,7 +137,7 @@ public static partial class IntakeReader
         string ext = Path.GetExtension(full).ToLowerInvariant();
         if (loaded is null)
         {
-            sink.Error(file, null, null, null, null, "unsupported-file-type", IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
+            sink.Error(file, null, null, null, null, IssueCodes.UnsupportedFileType, IntakeMessages.UnsupportedFileType(ext.Length == 0 ? "(no extension)" : ext));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
@@ -256,7 +150,7 @@ public static partial class IntakeReader
         sink.AddRange(loaded.Issues);
         if (loaded.Raw is not { } raw)
         {
-            sink.Error(file, null, null, null, null, "cannot-open", IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
+            sink.Error(file, null, null, null, null, IssueCodes.CannotOpen, IntakeMessages.CannotOpen(loaded.CannotOpen ?? ""));
             run.Accounts.Add(new SourceAccount(file, null, "refused", 0, 0, 0, 0, 0, 0));
             return;
         }
@@ -274,17 +168,17 @@ public static partial class IntakeReader
             if (sheet.Hidden)
             {
                 // Hidden sheets usually hold old workings or lookups; reading them unasked would mix them into the lots.
-                sink.Warning(file, sheet.Name, null, null, null, "hidden-sheet-skipped", IntakeMessages.HiddenSheetSkipped());
+                sink.Warning(file, sheet.Name, null, null, null, IssueCodes.HiddenSheetSkipped, IntakeMessages.HiddenSheetSkipped());
                 run.Accounts.Add(new SourceAccount(file, sheet.Name, "hidden", 0, 0, 0, 0, 0, 0));
                 continue;
             }
 
-            switch (TableReader.ReadSheet(run, file, full, sheet))
+            switch (SheetReader.Read(run, file, full, sheet))
             {
-                case TableReader.Outcome.Read:
+                case SheetReader.Outcome.Read:
                     anyTable = true;
                     break;
-                case TableReader.Outcome.NoTable:
+                case SheetReader.Outcome.NoTable:
                     notTables.Add(sheet);
                     break;
                 default:
@@ -295,13 +189,13 @@ public static partial class IntakeReader
 
         if (!anyTable)
         {
-            sink.Error(file, null, null, null, null, "no-table-found", IntakeMessages.NoTableInFile(TableReader.HeaderSearchRows));
+            sink.Error(file, null, null, null, null, IssueCodes.NoTableFound, IntakeMessages.NoTableInFile(HeaderDetection.SearchRows));
         }
         else
         {
             foreach (var sheet in notTables)
             {
-                sink.Warning(file, sheet.Name, null, null, null, "sheet-skipped", IntakeMessages.SheetSkipped(TableReader.HeaderSearchRows));
+                sink.Warning(file, sheet.Name, null, null, null, IssueCodes.SheetSkipped, IntakeMessages.SheetSkipped(HeaderDetection.SearchRows));
             }
         }
 
@@ -371,7 +265,7 @@ public static partial class IntakeReader
             var first = log.Readings[0].Source!;
             if (!matched)
             {
-                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, "log-without-lot",
+                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
                     IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
                 continue;
             }
@@ -394,7 +288,7 @@ public static partial class IntakeReader
         {
             var ids = group.Select(l => l.LotId).ToList();
             var src = group.First().Source!;
-            run.Sink.Warning(src.File, src.Sheet, null, null, null, "lots-without-log", IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
+            run.Sink.Warning(src.File, src.Sheet, null, null, null, IssueCodes.LotsWithoutLog, IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
         }
 
         return logs;

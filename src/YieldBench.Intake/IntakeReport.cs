@@ -1,11 +1,9 @@
 using System.Globalization;
-using CsvHelper;
-using CsvHelper.Configuration;
 using YieldBench.Core.Lots;
 
 namespace YieldBench.Intake;
 
-/// <summary>Plain-text and CSV renderings of what intake read: mappings, row accounting and issues.</summary>
+/// <summary>The plain-text rendering of what intake read: mappings, row accounting and issues (the issue table as CSV is written by Reports, ReviewTables.IntakeIssues).</summary>
 public static class IntakeReport
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
@@ -88,32 +86,6 @@ public static class IntakeReport
 
         string severity = issue.Severity == IssueSeverity.Error ? "error  " : "warning";
         return $"{severity} {string.Join(", ", place)}: {issue.Code}: {issue.Message}";
-    }
-
-    /// <summary>Writes one CSV row per issue (invariant culture, UTF-8 is the caller's stream's choice).</summary>
-    public static void WriteIssuesCsv(SeasonSet set, TextWriter output)
-    {
-        ArgumentNullException.ThrowIfNull(set);
-        ArgumentNullException.ThrowIfNull(output);
-        using var csv = new CsvWriter(output, new CsvConfiguration(Inv) { NewLine = "\n" }, leaveOpen: true);
-        foreach (var h in new[] { "file", "sheet", "row", "column", "value", "code", "severity", "message" })
-        {
-            csv.WriteField(h);
-        }
-
-        csv.NextRecord();
-        foreach (var i in set.Issues)
-        {
-            csv.WriteField(i.File);
-            csv.WriteField(i.Sheet ?? "");
-            csv.WriteField(i.Row is { } r ? N(r) : "");
-            csv.WriteField(i.Column ?? "");
-            csv.WriteField(i.Value ?? "");
-            csv.WriteField(i.Code);
-            csv.WriteField(i.Severity == IssueSeverity.Error ? "error" : "warning");
-            csv.WriteField(i.Message);
-            csv.NextRecord();
-        }
     }
 
     private static string N(int v) => v.ToString(Inv);

@@ -23,7 +23,7 @@ public static class HouseFactorJson
     public const string FileName = "house-factor.json";
 
     /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
-    public const int FormatVersion = 1;
+    public const int FormatVersion = 3;
 
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -44,6 +44,8 @@ public static class HouseFactorJson
             new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowBoundary, review.Regime.ToleranceAboveBoundary, N(review.Regime.BoundaryAbv), review.Regime.NoCrossingBoundary, review.Regime.Source),
             review.ThresholdAbv,
             review.LotsUsed,
+            review.FlaggedLotsIncluded,
+            review.FlaggedLots.Select(Flagged).ToArray(),
             review.Seasons,
             Scheme(review.PrimaryScheme),
             review.Candidates.Select(c => new CandidateDto(c.Id, c.Name, c.Description, c.Complexity, Metrics(c.BySeason), Metrics(c.ByLot), Scheme(c.ByLotScheme),
@@ -52,10 +54,18 @@ public static class HouseFactorJson
             review.ByStrain.Select(r => Recommendation(r)!).ToArray(),
             review.Planning is null ? null : new PlanningDto(Line(review.Planning.Pooled), review.Planning.Strains.Select(Line).ToArray(), review.Planning.Basis),
             review.PlannerTable.Select(t => new ThresholdDto(t.Strain, t.TargetAbv, t.Confidence, N(t.HighestBrix), N(t.ErrorAllowance), t.Note)).ToArray(),
+            Coverage(review.Coverage),
             review.ImportanceSentence,
             review.Explanation,
             review.Notes,
-            review.Cautions);
+            review.Cautions,
+            review.OtherVersion is { } other ? new OtherVersionDto(
+                other.FlaggedLotsIncluded,
+                other.LotsUsed,
+                Recommendation(other.Overall),
+                other.ByStrain.Select(r => Recommendation(r)!).ToArray(),
+                other.Planning is null ? null : new PlanningDto(Line(other.Planning.Pooled), other.Planning.Strains.Select(Line).ToArray(), other.Planning.Basis),
+                other.Explanation) : null);
         return JsonSerializer.Serialize(dto, Options) + "\n";
     }
 
@@ -148,26 +158,43 @@ public static class HouseFactorJson
                 return null;
         }
 
-        var errors = (d.HeldOutErrorsAbv ?? []).ToArray();
-        if (errors.Any(e => !double.IsFinite(e)))
+        var errors = (d.HeldOutErrors ?? []).ToArray();
+        if (errors.Any(e => e is null || e.ErrorAbv is not { } v || !double.IsFinite(v) || e.Strain is null))
         {
-            bad.Add($"{where}.held_out_errors_abv holds a value that is not a number");
+            bad.Add($"{where}.held_out_errors holds an entry without a numeric error_abv, a season and a strain");
             return null;
         }
 
-        Array.Sort(errors);
-        return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, errors, d.ErrorBasis ?? "held-out errors");
+        var seasonErrors = errors.Select(e => new SeasonError(e!.ErrorAbv!.Value, e.Season, e.Strain!)).ToArray();
+        return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, seasonErrors, d.ErrorBasis ?? "held-out errors");
     }
 
-    private static LineDto Line(PlanningLine l) => new(
-        l.Strain,
-        l.CandidateId,
-        l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
-        N(l.Intercept),
-        N(l.SlopePerBrix),
-        l.Lots,
-        l.ErrorBasis,
-        l.SortedErrors);
+    private static LineDto Line(PlanningLine l)
+    {
+        var m = l.ErrorModel;
+        var b80 = m.Band(0.80);
+        var b95 = m.Band(0.95);
+        return new(
+            l.Strain,
+            l.CandidateId,
+            l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
+            N(l.Intercept),
+            N(l.SlopePerBrix),
+            l.Lots,
+            l.ErrorBasis,
+            new ErrorModelDto(m.Count, m.Clusters, m.Seasons, N(m.Mean), N(Math.Sqrt(m.WithinVariance)), N(Math.Sqrt(m.BetweenVariance)), N(m.StandardErrorOfMean), N(m.PredictiveSd), N(m.DegreesOfFreedom), N(b80.Low), N(b80.High), N(b95.Low), N(b95.High)),
+            l.Errors.Select(e => new ErrorDto(e.Season, e.Strain, e.Error)).ToArray());
+    }
+
+    private static CoverageDto? Coverage(IntervalCoverage? c) => c is null ? null : new(
+        c.Method,
+        Row(c.Total),
+        c.Seasons.Select(Row).ToArray());
+
+    private static CoverageRowDto Row(SeasonCoverageRow r) => new(
+        r.Season == 0 ? null : r.Season, r.Lots, N(r.Share80), N(r.Share95), r.OverallLots, N(r.OverallShare80), N(r.OverallShare95));
+
+    private static FlaggedLotDto Flagged(FlaggedLot f) => new(f.Season, f.LotId, f.Strain, f.Codes, f.Reason);
 
     private static RecommendationDto? Recommendation(Recommendation? r) => r is null ? null : new(
         r.Strain,
@@ -202,6 +229,8 @@ public static class HouseFactorJson
         RegimeDto? Regime,
         double ThresholdAbv,
         int LotsUsed,
+        bool FlaggedLotsIncluded,
+        IReadOnlyList<FlaggedLotDto> FlaggedLots,
         IReadOnlyList<int> Seasons,
         string PrimaryBacktest,
         IReadOnlyList<CandidateDto> Candidates,
@@ -209,10 +238,22 @@ public static class HouseFactorJson
         IReadOnlyList<RecommendationDto> ByStrain,
         PlanningDto? Planning,
         IReadOnlyList<ThresholdDto> PlannerTable,
+        CoverageDto? IntervalCoverage,
         string? ImportanceSentence,
         IReadOnlyList<string> Explanation,
         IReadOnlyList<string> Notes,
-        IReadOnlyList<string> Cautions);
+        IReadOnlyList<string> Cautions,
+        OtherVersionDto? OtherVersion);
+
+    private sealed record FlaggedLotDto(int Season, string LotId, string Strain, IReadOnlyList<string> Codes, string Reason);
+
+    private sealed record OtherVersionDto(
+        bool FlaggedLotsIncluded,
+        int LotsUsed,
+        RecommendationDto? Recommendation,
+        IReadOnlyList<RecommendationDto> ByStrain,
+        PlanningDto? Planning,
+        IReadOnlyList<string> Explanation);
 
     private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowBoundaryAbv, double ToleranceAboveBoundaryAbv, double? BoundaryAbv, bool NoCrossingBoundary, string Source);
 
@@ -243,7 +284,29 @@ public static class HouseFactorJson
         double? SlopeAbvPerBrix,
         int Lots,
         string ErrorBasis,
-        IReadOnlyList<double> HeldOutErrorsAbv);
+        ErrorModelDto? ErrorModel,
+        IReadOnlyList<ErrorDto?> HeldOutErrors);
+
+    private sealed record ErrorDto(int Season, string? Strain, double? ErrorAbv);
+
+    private sealed record ErrorModelDto(
+        int Errors,
+        int Clusters,
+        int Seasons,
+        double? MeanErrorAbv,
+        double? WithinClusterSdAbv,
+        double? BetweenClusterSdAbv,
+        double? MeanStandardErrorAbv,
+        double? PredictiveSdAbv,
+        double? DegreesOfFreedom,
+        double? Error80LowAbv,
+        double? Error80HighAbv,
+        double? Error95LowAbv,
+        double? Error95HighAbv);
+
+    private sealed record CoverageDto(string Method, CoverageRowDto All, IReadOnlyList<CoverageRowDto> Seasons);
+
+    private sealed record CoverageRowDto(int? Season, int Lots, double? Share80, double? Share95, int OverallLots, double? OverallShare80, double? OverallShare95);
 
     private sealed record PlanningDto(LineDto Pooled, IReadOnlyList<LineDto> Strains, string Basis);
 

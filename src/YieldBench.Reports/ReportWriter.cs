@@ -79,9 +79,9 @@ public static class ReportWriter
         var plan = ReviewCharts.Plan(review, chartFolder).ToList();
         int reviewCharts = plan.Count;
         IReadOnlyList<int> kineticsFirst = [];
-        if (review.Kinetics is { } k)
+        if (review.Kinetics is not null)
         {
-            var (kinetics, first) = KineticsCharts.Plan(k, review.Lots, chartFolder);
+            var (kinetics, first) = KineticsCharts.Plan(review, chartFolder);
 
             // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
             kineticsFirst = first;

@@ -40,8 +40,8 @@ public static class ScenarioGenerator
             seasons.Add(new GeneratedSeason(options.Seasons[s], plans[s].Select(Simulate).ToArray()));
         }
 
-        var byKey = seasons.SelectMany(s => s.Lots).ToDictionary(l => l.Recorded.Key, StringComparer.Ordinal);
-        var cases = planted.Select(p => Describe(p.Kind, byKey[$"{p.Plan.Season.Year}/{p.Plan.LotId}"])).ToArray();
+        var byKey = seasons.SelectMany(s => s.Lots).ToDictionary(l => l.Recorded.Key);
+        var cases = planted.Select(p => Describe(p.Kind, byKey[new LotKey(p.Plan.Season.Year, p.Plan.LotId)])).ToArray();
         return new ScenarioData
         {
             EstateName = Catalog.EstateName,
@@ -335,7 +335,7 @@ public static class ScenarioGenerator
             Season = p.Season.Year,
             Strain = p.RecordedStrain,
             StartingSugar = recordedSugar,
-            StartingSugarScale = p.Season.Scale,
+            RecordedStartingSugar = new RecordedSugar(recordedValue, p.Season.Scale),
             FinalAlcohol = AlcoholContent.FromPercentVolume(labAbv),
             Vessel = p.Vessel.Type,
             VesselCapacityL = p.Vessel.CapacityL,

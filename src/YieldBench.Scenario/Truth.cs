@@ -118,8 +118,8 @@ public sealed record PlantedCase(
     double RecordedValue,
     double TrueValue)
 {
-    /// <summary>"season/lot", matching <see cref="Lot.Key"/>.</summary>
-    public string Key => $"{Season}/{LotId}";
+    /// <summary>The planted lot's key, matching <see cref="Lot.Key"/>.</summary>
+    public LotKey Key => new(Season, LotId);
 
     /// <summary>Finding codes of the kinetics review that detect the case (all are expected); empty when none.</summary>
     public IReadOnlyList<string> ExpectedKineticsCodes { get; init; } = [];

@@ -57,9 +57,30 @@ public sealed class CheckCommandTests : IDisposable
         var (code, _, _) = Run("check", "lots-2023.csv", "--issues-csv", "issues.csv");
         Assert.Equal(ExitCodes.InputProblems, code);
         Assert.Equal(
-            "file,sheet,row,column,value,code,severity,message\n" +
-            "lots-2023.csv,,3,Brix,abc,not-a-number,error,\"starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).\"\n",
+            "file,sheet,row,column,value,code,severity,message\r\n" +
+            "lots-2023.csv,,3,Brix,abc,not-a-number,error,\"starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).\"\r\n",
             File.ReadAllText(Path.Combine(_dir, "issues.csv")));
+    }
+
+    [Fact]
+    public void Check_and_review_write_the_same_issue_file_for_the_same_input_with_formula_text_neutralised()
+    {
+        // Given a lots file whose bad cells hold formula-like text
+        Write("lots-2023.csv", "Lot,Yeast,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\nA-02,QX-9,=1+1,13.5\nA-03,QX-9,23.5,@SUM(A1)\nA-04,QX-7,23.0,13.6\n");
+
+        // When it is checked with --issues-csv and reviewed
+        Run("check", "lots-2023.csv", "--issues-csv", "issues.csv");
+        Run("review", "lots-2023.csv", "--out", "report", "--quiet");
+        byte[] fromCheck = File.ReadAllBytes(Path.Combine(_dir, "issues.csv"));
+        byte[] fromReview = File.ReadAllBytes(Path.Combine(_dir, "report", "data", "intake-issues.csv"));
+
+        // Then the two files are byte-identical, hold a severity column, end lines with CRLF and never start a cell with '='
+        string text = Encoding.UTF8.GetString(fromCheck);
+        Assert.Equal(fromCheck, fromReview);
+        Assert.StartsWith("file,sheet,row,column,value,code,severity,message\r\n", text, StringComparison.Ordinal);
+        Assert.Contains(",'=1+1,", text, StringComparison.Ordinal);
+        Assert.Contains(",'@SUM(A1),", text, StringComparison.Ordinal);
+        Assert.DoesNotContain(",=1+1", text, StringComparison.Ordinal);
     }
 
     [Fact]

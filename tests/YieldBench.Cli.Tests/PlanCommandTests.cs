@@ -77,7 +77,8 @@ public sealed class PlanCommandTests : IDisposable
         var original = review.Planning!.For("SX-02");
         var back = read.Model!.For("SX-02");
         Assert.Equal(original.Predict(24.3), back.Predict(24.3), 1e-12);
-        Assert.Equal(original.SortedErrors, back.SortedErrors);
+        Assert.Equal(original.Errors, back.Errors);
+        Assert.Equal(original.ErrorModel, back.ErrorModel);
         Assert.Equal("United States (TTB)", read.RegimeName);
     }
 

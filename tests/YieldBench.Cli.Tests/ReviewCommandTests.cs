@@ -149,6 +149,26 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         Assert.InRange(double.Parse(lines[1].Split(',')[abv], CultureInfo.InvariantCulture), 5, 20);
     }
 
+
+    [Theory]
+    [InlineData("strain")]
+    [InlineData("vessel")]
+    public void The_groups_file_names_each_group_exactly_as_the_lots_file_spells_it(string grouping)
+    {
+        // Given the demo review's lots file and groups file (the demo's lots write "Barrel", "Stainless tank", …)
+        var lots = Cli.CsvLines(Path.Combine(demo.First, "data", "lots.csv"));
+        var groups = Cli.CsvLines(Path.Combine(demo.First, "data", "groups.csv"));
+        int column = Array.IndexOf(lots[0].Split(','), grouping);
+
+        // When the values of the lots' column and the groups of that grouping are collected (both precede any quoted cell)
+        var spelt = lots.Skip(1).Select(l => l.Split(',')[column]).Where(v => v.Length > 0).ToHashSet(StringComparer.Ordinal);
+        var grouped = groups.Skip(1).Select(l => l.Split(',')).Where(f => f[0] == grouping).Select(f => f[1]).ToHashSet(StringComparer.Ordinal);
+
+        // Then they are the same set, letter for letter, so the two files join
+        Assert.True(column > 0, grouping + " is a column of lots.csv");
+        Assert.True(spelt.Count >= 2, "the demo has several " + grouping + " values");
+        Assert.Equal(spelt.Order(StringComparer.Ordinal), grouped.Order(StringComparer.Ordinal));
+    }
     [Fact]
     public void The_demo_data_files_are_named_relative_to_the_tool_not_by_the_install_path()
     {
@@ -174,9 +194,28 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         string candidate = root.GetProperty("recommendation").GetProperty("candidate_id").GetString()!;
         string name = root.GetProperty("candidates").EnumerateArray().First(c => c.GetProperty("id").GetString() == candidate).GetProperty("name").GetString()!;
 
-        // Then it is the candidate the console named, over the demo's 222 lots, and the planner reads it back
+        // Then it is the candidate the console named, over the demo's 222 lots less the four flagged as likely errors
+        // or not dry (named, and counted in the other version), and the planner reads it back
         Assert.Contains("House factor: " + name + ";", demo.Out, StringComparison.Ordinal);
-        Assert.Equal(222, root.GetProperty("lots_used").GetInt32());
+        Assert.Equal(218, root.GetProperty("lots_used").GetInt32());
+        Assert.False(root.GetProperty("flagged_lots_included").GetBoolean());
+        string[] flagged = root.GetProperty("flagged_lots").EnumerateArray().Select(f => f.GetProperty("lot_id").GetString()!).ToArray();
+        Assert.Equal(["23-016", "23-018", "24-020", "25-017"], flagged);
+        var other = root.GetProperty("other_version");
+        Assert.True(other.GetProperty("flagged_lots_included").GetBoolean());
+        Assert.Equal(222, other.GetProperty("lots_used").GetInt32());
+
+        // And the intervals' coverage on held-out seasons is printed (docs/methods.md, season-aware intervals):
+        // 182 and 209 of 218 lots, every season within 10 points of 80 % and 95 %
+        var coverage = root.GetProperty("interval_coverage");
+        Assert.Equal(218, coverage.GetProperty("all").GetProperty("lots").GetInt32());
+        Assert.Equal(182.0 / 218, coverage.GetProperty("all").GetProperty("share80").GetDouble(), 1e-12);
+        Assert.Equal(209.0 / 218, coverage.GetProperty("all").GetProperty("share95").GetDouble(), 1e-12);
+        foreach (var season in coverage.GetProperty("seasons").EnumerateArray())
+        {
+            Assert.InRange(season.GetProperty("share80").GetDouble(), 0.70, 0.90);
+            Assert.InRange(season.GetProperty("share95").GetDouble(), 0.85, 1.0);
+        }
         var file = YieldBench.Reports.HouseFactorJson.ReadFile(Path.Combine(demo.First, "data", "house-factor.json"));
         Assert.Null(file.Error);
         Assert.NotNull(file.Model);
@@ -309,7 +348,7 @@ public sealed class ReviewCommandInputTests : IDisposable
         Assert.Equal(string.Empty, error);
         Assert.Contains("Lots used: 25 (2024, 2025, 2026)", output, StringComparison.Ordinal);
         var issues = Cli.CsvLines(Path.Combine(root, "report", "data", "intake-issues.csv"));
-        Assert.Equal("file,sheet,row,column,value,code,message", issues[0]);
+        Assert.Equal("file,sheet,row,column,value,code,severity,message", issues[0]);
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,2,", StringComparison.Ordinal) && l.Contains("twenty", StringComparison.Ordinal));
         Assert.Contains(issues, l => l.StartsWith("lots/harvest-2026.csv,,3,", StringComparison.Ordinal));
         Assert.Equal(26, Cli.CsvLines(Path.Combine(root, "report", "data", "lots.csv")).Length);

@@ -44,7 +44,7 @@ public class CellarFileTests
     {
         // Given an Excel number format (a quoted or escaped % is literal text: ECMA-376 Part 1, number formats, §18.8.30–31, from memory)
         // When it is classified, Then only a bare % scales the value by 100
-        Assert.Equal(percent, SourceFiles.IsPercentFormat(format));
+        Assert.Equal(percent, WorkbookSource.IsPercentFormat(format));
     }
 
     [Fact]
@@ -136,7 +136,7 @@ public class CellarFileTests
 
         // Then the units row sets °Oechsle and gallons, with one warning naming its row, and it is not counted as read
         var lot = Assert.Single(set.Lots);
-        Assert.Equal(SugarScale.Oechsle, lot.StartingSugarScale);
+        Assert.Equal(new RecordedSugar(95.0, SugarScale.Oechsle), lot.RecordedStartingSugar);
         // 95 °Oe = SG 1.095; ASBC Plato polynomial (−616.868 + 1111.14 SG − 630.272 SG² + 135.997 SG³, python3) gives 22.673 °Brix
         Assert.Equal(22.673, lot.StartingSugar.Brix, 0.03);
         Assert.Equal(1892.705892, lot.Additions.MustVolumeL!.Value, 9);

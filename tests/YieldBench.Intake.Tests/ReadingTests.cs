@@ -37,7 +37,7 @@ public class ReadingTests
         Assert.Equal(("R24-01", 2024, "QX-7", "tank", "Syrah", "North 3"), (a.LotId, a.Season, a.Strain, a.Vessel, a.Variety, a.Block));
         // SG 1.10101 is 24 °Brix in Zoecklein et al., Wine Analysis and Production, Appendix I, Table I-1.
         Assert.Equal(24.0, a.StartingSugar.Brix, 0.01);
-        Assert.Equal(SugarScale.SpecificGravity, a.StartingSugarScale);
+        Assert.Equal(new RecordedSugar(1.10101, SugarScale.SpecificGravity), a.RecordedStartingSugar);
         Assert.Equal(14.1, a.FinalAlcohol.PercentVolume, 10);
         Assert.Equal(new Additions(4200, 100, 0), a.Additions);
         Assert.Equal((1.8, 210.0, 3.45, 6.2, 29.5), (a.ResidualSugarGl!.Value, a.YanMgL!.Value, a.Ph!.Value, a.TaGl!.Value, a.PeakFermentationTempC!.Value));
@@ -102,7 +102,7 @@ public class ReadingTests
         var set = folder.Read(new IntakeOptions { Season = 2019 }, "lots-2021.xlsx", "lots.csv");
 
         // Then the column wins, then the sheet name, then the file name, then the option
-        Assert.Equal(["2020/A-01", "2022/A-02", "2021/A-03", "2019/A-04"], set.Lots.Select(l => l.Key));
+        Assert.Equal([new LotKey(2020, "A-01"), new LotKey(2022, "A-02"), new LotKey(2021, "A-03"), new LotKey(2019, "A-04")], set.Lots.Select(l => l.Key));
     }
 
     [Fact]

@@ -81,6 +81,7 @@ public class TemplateTests
         {
             LotId = "W24-07", Season = 2024, Strain = "QX-3", Colour = WineColour.White, Vessel = "tank", VesselCapacityL = 3000,
             Variety = "Riesling", Block = "East 2", Additions = new Additions(2500, 50, 10), StartingSugar = SugarReading.FromBrix(21.5),
+            RecordedStartingSugar = new RecordedSugar(21.5, SugarScale.Brix),
             FinalAlcohol = AlcoholContent.FromPercentVolume(12.4), ResidualSugarGl = 4.2, FinalSugar = SugarReading.FromBrix(-1.1), YanMgL = 180,
             Ph = 3.2, TaGl = 7.1, MeanFermentationTempC = 15.5, PeakFermentationTempC = 17.0, InoculationDate = new DateTime(2024, 3, 9),
             DryDate = new DateTime(2024, 3, 30), Notes = "cool ferment", Source = new SourceRef("filled.xlsx", "Lots", 2),

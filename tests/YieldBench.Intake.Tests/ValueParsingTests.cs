@@ -77,7 +77,7 @@ public class ValueParsingTests
     [InlineData("Lot,Notes;x,Brix\n\"A,1\",ok,24\n", ',')]
     public void The_csv_delimiter_is_the_one_that_splits_the_lines_consistently(string text, char expected)
     {
-        Assert.Equal(expected, SourceFiles.DetectDelimiter(text));
+        Assert.Equal(expected, CsvSource.DetectDelimiter(text));
     }
 
     [Theory]
@@ -88,7 +88,7 @@ public class ValueParsingTests
     [InlineData("Lots", null)]
     public void A_season_is_taken_from_a_name_only_when_it_holds_exactly_one_year(string name, int? expected)
     {
-        Assert.Equal(expected, TableReader.SeasonFromName(name));
+        Assert.Equal(expected, SeasonNames.FromName(name));
     }
 
     [Theory]

@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
 
 namespace YieldBench.Scenario.Tests;
@@ -16,7 +17,7 @@ public class PlantedCaseDetectionTests
         var data = new TheoryData<string>();
         foreach (var p in Demo.PlantedCases.Where(p => p.ExpectedCodes.Count > 0 || p.ExpectedKineticsCodes.Count > 0))
         {
-            data.Add(p.Key);
+            data.Add(p.Key.ToString());
         }
 
         return data;
@@ -24,8 +25,9 @@ public class PlantedCaseDetectionTests
 
     [Theory]
     [MemberData(nameof(PlantedKeys))]
-    public void Each_planted_lot_is_flagged_with_an_expected_code(string key)
+    public void Each_planted_lot_is_flagged_with_an_expected_code(string keyText)
     {
+        var key = LotKey.Parse(keyText);
         // Given a planted case and the review's findings on its lot
         var planted = Demo.PlantedCases.Single(p => p.Key == key);
         var flags = Review.Strains.Flags.Where(f => f.LotKey == key).Select(f => f.Code).ToArray();
@@ -55,7 +57,7 @@ public class PlantedCaseDetectionTests
     public void Few_clean_lots_are_flagged()
     {
         // Given every lot that is not planted
-        var planted = Demo.PlantedCases.Select(p => p.Key).ToHashSet(StringComparer.Ordinal);
+        var planted = Demo.PlantedCases.Select(p => p.Key).ToHashSet();
         var clean = Demo.AllLots.Select(l => l.Recorded.Key).Where(k => !planted.Contains(k)).ToArray();
 
         // When the lots with any strain-review flag are counted

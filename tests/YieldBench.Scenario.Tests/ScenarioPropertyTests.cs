@@ -9,8 +9,8 @@ public class ScenarioPropertyTests
 {
     private static readonly ScenarioData Demo = ScenarioGenerator.Demo();
 
-    private static readonly HashSet<string> PlantedKeys = Demo.PlantedCases
-        .Where(p => p.Kind != PlantedKind.RecordedAdditionControl).Select(p => p.Key).ToHashSet(StringComparer.Ordinal);
+    private static readonly HashSet<LotKey> PlantedKeys = Demo.PlantedCases
+        .Where(p => p.Kind != PlantedKind.RecordedAdditionControl).Select(p => p.Key).ToHashSet();
 
     [Fact]
     public void Three_seasons_of_60_to_90_lots_with_unique_lot_ids()
@@ -103,7 +103,7 @@ public class ScenarioPropertyTests
 
         // Then each of the six kinds is planted once, on a lot that exists in that season
         Assert.Equal(Enum.GetValues<PlantedKind>().Where(k => k != PlantedKind.RecordedAdditionControl).Order(), kinds.Order());
-        var keys = Demo.AllLots.Select(l => l.Recorded.Key).ToHashSet(StringComparer.Ordinal);
+        var keys = Demo.AllLots.Select(l => l.Recorded.Key).ToHashSet();
         Assert.All(Demo.PlantedCases, p => Assert.Contains(p.Key, keys));
         Assert.Equal(Demo.PlantedCases.Count, Demo.PlantedCases.Select(p => p.Key).Distinct().Count());
     }
@@ -268,9 +268,9 @@ public class ScenarioPropertyTests
             var times = lot.Log!.Readings.Select(r => r.Timestamp).ToArray();
 
             // Then readings are ascending, at most two a calendar day, and all after inoculation
-            Assert.True(times.Zip(times.Skip(1), (a, b) => b > a).All(x => x), lot.Recorded.Key);
-            Assert.True(times.GroupBy(t => t.Date).All(g => g.Count() <= 2), lot.Recorded.Key);
-            Assert.True(times[0] > lot.Recorded.InoculationDate, lot.Recorded.Key);
+            Assert.True(times.Zip(times.Skip(1), (a, b) => b > a).All(x => x), lot.Recorded.Key.ToString());
+            Assert.True(times.GroupBy(t => t.Date).All(g => g.Count() <= 2), lot.Recorded.Key.ToString());
+            Assert.True(times[0] > lot.Recorded.InoculationDate, lot.Recorded.Key.ToString());
         }
     }
 

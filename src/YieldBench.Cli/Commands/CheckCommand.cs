@@ -1,6 +1,7 @@
 using System.CommandLine;
-using System.Text;
 using YieldBench.Intake;
+using YieldBench.Reports.Data;
+using YieldBench.Reports.Tables;
 
 namespace YieldBench.Cli.Commands;
 
@@ -48,8 +49,8 @@ internal static class CheckCommand
             IntakeReport.WriteText(set, context.Out);
             if (csvFull is not null)
             {
-                using var writer = new StreamWriter(csvFull, append: false, new UTF8Encoding(false));
-                IntakeReport.WriteIssuesCsv(set, writer);
+                // The one issue table review writes to data/intake-issues.csv: same columns, line ends and neutralising.
+                CsvText.WriteFile(ReviewTables.IntakeIssues(set.Issues), csvFull);
                 context.Out.WriteLine($"Issues written to {csvPath}.");
             }
 

@@ -218,7 +218,7 @@ internal static class PlanCommand
         o.WriteLine();
 
         // With no held-out errors only the central (50 %) answer exists, so that is the default then.
-        var defaultConfidences = confidences.Count > 0 ? confidences : line.SortedErrors.Count > 0 ? [0.80, 0.95] : [0.50];
+        var defaultConfidences = confidences.Count > 0 ? confidences : line.Errors.Count > 0 ? [0.80, 0.95] : [0.50];
         if (volumeL is { } vol)
         {
             var answer = Planner.WaterAddBack(line, must!.Value, vol, targets[0], confidences.Count == 1 ? confidences[0] : null);
@@ -280,7 +280,9 @@ internal static class PlanCommand
 
         var settings = new ReviewSettings();
         var lots = set.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
-        var review = HouseFactorAnalysis.Run(lots, settings.HouseFactor, [], settings.Seed);
+        // As in the review: the lots the strain review flags as likely errors or not dry do not teach the factor.
+        var flags = YieldBench.Core.Review.Strains.StrainReviewer.Run(lots, settings.Strains, settings.Seed).Flags;
+        var review = HouseFactorAnalysis.Run(lots, flags, settings.HouseFactor, [], settings.Seed);
         if (review.Planning is null)
         {
             context.Error.WriteLine("plan: no house factor could be chosen from these lots. " + string.Join(" ", review.Explanation));

@@ -26,9 +26,10 @@ internal static class ReviewCommand
         var regime = new Option<string>("--regime") { Description = "Label tolerance the backtest is scored against: us, eu, or custom:TOLERANCE (% v/v, e.g. custom:0.8).", DefaultValueFactory = _ => "us" };
         var threshold = new Option<double?>("--threshold") { Description = "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14)." };
         var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
+        var includeFlagged = new Option<bool>("--include-flagged-lots") { Description = "Let lots flagged as likely errors or not fermented to dryness teach the house factor (by default they are left out; both versions are reported)." };
         var command = new Command("review", "Review finished lots: conversion by strain, odd lots, house factor, kinetics; writes a workbook, charts and data files.");
         command.Arguments.Add(inputs);
-        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed })
+        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged })
         {
             command.Options.Add(option);
         }
@@ -44,7 +45,8 @@ internal static class ReviewCommand
                 parse.GetValue(season),
                 parse.GetValue(regime) ?? "us",
                 parse.GetValue(threshold),
-                parse.GetValue(seed))));
+                parse.GetValue(seed),
+                parse.GetValue(includeFlagged))));
         return command;
     }
 
@@ -58,7 +60,8 @@ internal static class ReviewCommand
         int? Season,
         string Regime,
         double? Threshold,
-        int? Seed);
+        int? Seed,
+        bool IncludeFlaggedLots = false);
 
     internal static int Run(CliContext context, Request request)
     {
@@ -132,7 +135,12 @@ internal static class ReviewCommand
         var settings = new ReviewSettings
         {
             Seed = request.Seed ?? new ReviewSettings().Seed,
-            HouseFactor = new HouseFactorSettings { Regime = regime, ThresholdAbv = request.Threshold ?? new HouseFactorSettings().ThresholdAbv },
+            HouseFactor = new HouseFactorSettings
+            {
+                Regime = regime,
+                ThresholdAbv = request.Threshold ?? new HouseFactorSettings().ThresholdAbv,
+                IncludeFlaggedLots = request.IncludeFlaggedLots,
+            },
         };
         var review = ReviewRunner.Run(set, settings, YieldBenchApp.Version, [new MultiVariableCandidate()], new Progress(console));
         console.Stage("writing reports");

@@ -1,4 +1,5 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 
 namespace YieldBench.Core.HouseFactor;
@@ -17,12 +18,12 @@ public enum BacktestScheme
 }
 
 /// <summary>One held-out prediction.</summary>
-/// <param name="LotKey">"season/lot".</param>
+/// <param name="LotKey">The lot's key.</param>
 /// <param name="Season">Season.</param>
 /// <param name="Strain">Strain.</param>
 /// <param name="ActualAbv">The lab's final alcohol, % v/v.</param>
 /// <param name="PredictedAbv">The prediction of a candidate that never saw this lot, % v/v.</param>
-public sealed record HeldOutPrediction(string LotKey, int Season, string Strain, double ActualAbv, double PredictedAbv)
+public sealed record HeldOutPrediction(LotKey LotKey, int Season, string Strain, double ActualAbv, double PredictedAbv)
 {
     /// <summary>Actual − predicted, % v/v (positive: the wine came out stronger than predicted).</summary>
     public double Error => ActualAbv - PredictedAbv;
@@ -33,7 +34,7 @@ public sealed record HeldOutPrediction(string LotKey, int Season, string Strain,
 /// </summary>
 /// <param name="Lots">Held-out predictions scored.</param>
 /// <param name="Mae">Mean absolute error, % v/v.</param>
-/// <param name="MaeStandardError">Standard error of the MAE: SD of the absolute errors ÷ √n (NaN for n &lt; 2).</param>
+/// <param name="MaeStandardError">Standard error of the MAE, season-aware: √(σ²_w/n + σ²_b·Σn_g²/n²) of the absolute errors clustered by strain × season (<see cref="SeasonErrorModel"/>; SD ÷ √n when there is one cluster; NaN for n &lt; 2).</param>
 /// <param name="Bias">Mean of (predicted − actual), % v/v: positive means the candidate over-predicts.</param>
 /// <param name="Rmse">Root mean squared error, % v/v.</param>
 /// <param name="P90AbsoluteError">90th percentile of |error| (Hyndman–Fan type 7), % v/v.</param>
@@ -62,7 +63,11 @@ public sealed record BacktestMetrics(
 
         var abs = predictions.Select(p => Math.Abs(p.Error)).ToArray();
         double mae = abs.Average();
-        double se = n >= 2 ? Math.Sqrt(abs.Sum(a => (a - mae) * (a - mae)) / (n - 1)) / Math.Sqrt(n) : double.NaN;
+        // Lots of one strain in one season share that season's shift, so the standard error treats them as a cluster
+        // (SeasonErrorModel: the variance of a mean under the one-way random-effects model).
+        double se = n >= 2
+            ? SeasonErrorModel.Of(predictions.Select(p => new SeasonError(Math.Abs(p.Error), p.Season, p.Strain)).ToArray()).StandardErrorOfMean
+            : double.NaN;
         double bias = predictions.Average(p => p.PredictedAbv - p.ActualAbv);
         double rmse = Math.Sqrt(predictions.Average(p => p.Error * p.Error));
         double p90 = Descriptive.Quantile(abs, 0.90);
@@ -151,7 +156,7 @@ public sealed class BacktestFolds
     private readonly int[] foldIds;
     private readonly Lazy<(LotConversion[] Train, int[] Test, PredictionInput[] Inputs)>[]? kept;
     private readonly Lazy<PredictionInput[]> inputs;
-    private readonly Lazy<string[]> keys;
+    private readonly Lazy<LotKey[]> keys;
 
     private BacktestFolds(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int[] foldOf)
     {
@@ -160,7 +165,7 @@ public sealed class BacktestFolds
         this.foldOf = foldOf;
         foldIds = scheme == BacktestScheme.LeaveOneLotOut ? foldOf : foldOf.Distinct().Order().ToArray();
         inputs = new Lazy<PredictionInput[]>(() => lots.Select(PredictionInput.From).ToArray());
-        keys = new Lazy<string[]>(() => lots.Select(l => l.Lot.Key).ToArray());
+        keys = new Lazy<LotKey[]>(() => lots.Select(l => l.Lot.Key).ToArray());
         if (scheme != BacktestScheme.LeaveOneLotOut)
         {
             kept = foldIds.Select(id => new Lazy<(LotConversion[], int[], PredictionInput[])>(() => Build(id))).ToArray();
@@ -177,7 +182,7 @@ public sealed class BacktestFolds
     public int Count => foldIds.Length;
 
     /// <summary>Each lot's "season/lot" key, in input order.</summary>
-    internal IReadOnlyList<string> Keys => keys.Value;
+    internal IReadOnlyList<LotKey> Keys => keys.Value;
 
     /// <summary>Deals the lots into the folds of <paramref name="scheme"/> (ten folds by a shuffle seeded with <paramref name="seed"/>).</summary>
     public static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)

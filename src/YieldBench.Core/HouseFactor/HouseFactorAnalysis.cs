@@ -26,14 +26,69 @@ public static class HouseFactorAnalysis
     }
 
     /// <summary>
-    /// Runs the analysis on lots with their conversion measures.
+    /// Runs the analysis twice, with and without the lots the strain review flagged as likely errors or not fermented
+    /// to dryness (<see cref="FlaggedLots.From"/>), side by side. The version <see cref="HouseFactorSettings.IncludeFlaggedLots"/>
+    /// asks for (by default: without them) is returned, the other in its <see cref="HouseFactorReview.OtherVersion"/>;
+    /// both name the flagged lots. With no flagged lot the analysis runs once.
+    /// </summary>
+    /// <param name="lots">Lots of any number of seasons.</param>
+    /// <param name="flags">The strain review's flags of these lots.</param>
+    /// <param name="settings">Settings.</param>
+    /// <param name="extraCandidates">Further candidates, offered after the built-in ones.</param>
+    /// <param name="seed">Seed for every random step.</param>
+    public static HouseFactorReview Run(
+        IReadOnlyList<LotConversion> lots, IReadOnlyList<Review.Strains.LotFlag> flags, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        ArgumentNullException.ThrowIfNull(settings);
+        var flagged = FlaggedLots.From(lots, flags);
+        if (flagged.Count == 0)
+        {
+            return Run(lots, settings, extraCandidates, seed) with { FlaggedLotsIncluded = settings.IncludeFlaggedLots };
+        }
+
+        var keys = flagged.Select(f => f.LotKey).ToHashSet();
+        var kept = lots.Where(l => !keys.Contains(l.Lot.Key)).ToArray();
+
+        // The two versions share only the immutable lots and are each seeded, so running them side by side gives the
+        // same results as one after the other.
+        bool includeInUse = settings.IncludeFlaggedLots;
+        var withoutTask = Task.Run(() => Analyse(kept, settings, extraCandidates, seed, coverage: !includeInUse, nested: false));
+        var with = Analyse(lots, settings, extraCandidates, seed, coverage: includeInUse, nested: false);
+        var without = withoutTask.GetAwaiter().GetResult();
+        without = without with
+        {
+            FlaggedLotsIncluded = false,
+            FlaggedLots = flagged,
+            Explanation = [.. without.Explanation, FlaggedLots.Sentence(flagged, included: false)],
+        };
+        with = with with
+        {
+            FlaggedLotsIncluded = true,
+            FlaggedLots = flagged,
+            Explanation = [.. with.Explanation, FlaggedLots.Sentence(flagged, included: true)],
+        };
+        return settings.IncludeFlaggedLots ? with with { OtherVersion = without } : without with { OtherVersion = with };
+    }
+
+    /// <summary>
+    /// Runs the analysis on lots with their conversion measures (every lot given is used).
     /// </summary>
     /// <param name="lots">Lots of any number of seasons; lots without a finite abv_per_brix are left out and noted.</param>
     /// <param name="settings">Regime, threshold, planner targets and minimum counts.</param>
     /// <param name="extraCandidates">Further candidates (e.g. the multi-variable model), offered after the built-in ones.</param>
     /// <param name="seed">Seed for every random step.</param>
     public static HouseFactorReview Run(
-        IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed)
+        IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed) =>
+        Analyse(lots, settings, extraCandidates, seed, coverage: true, nested: false);
+
+    /// <summary>
+    /// The analysis. <paramref name="coverage"/>: also measure the intervals' coverage by nested leave-one-season-out
+    /// (<see cref="SeasonCoverage"/>). <paramref name="nested"/>: an inner run of that measurement, which needs only
+    /// what the planner uses (no leave-one-lot-out backtest when seasons can be held out).
+    /// </summary>
+    internal static HouseFactorReview Analyse(
+        IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed, bool coverage, bool nested)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(settings);
@@ -70,7 +125,7 @@ public static class HouseFactorAnalysis
             Parallel.ForEach(
                 System.Collections.Concurrent.Partitioner.Create(order, System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering),
                 new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount },
-                i => evaluated[i] = Evaluate(candidates[i], usable, s => folds[s].Value, seasons.Length, settings, seed));
+                i => evaluated[i] = Evaluate(candidates[i], usable, s => folds[s].Value, seasons.Length, settings, seed, nested));
             results.AddRange(evaluated);
         }
 
@@ -142,6 +197,12 @@ public static class HouseFactorAnalysis
             }
         }
 
+        var measured = coverage ? SeasonCoverage.Measure(usable, settings, seed) : null;
+        if (measured is not null)
+        {
+            explanation.Add(SeasonCoverage.Sentence(measured));
+        }
+
         return new HouseFactorReview
         {
             Regime = settings.Regime,
@@ -157,16 +218,19 @@ public static class HouseFactorAnalysis
             ImportanceSentence = importance,
             Explanation = explanation,
             Notes = notes,
+            Coverage = measured,
         };
     }
 
     private static CandidateResult Evaluate(
-        ICandidateTrainer c, IReadOnlyList<LotConversion> lots, Func<BacktestScheme, BacktestFolds> folds, int seasonCount, HouseFactorSettings settings, int seed)
+        ICandidateTrainer c, IReadOnlyList<LotConversion> lots, Func<BacktestScheme, BacktestFolds> folds, int seasonCount, HouseFactorSettings settings, int seed, bool nested)
     {
         int limit = c.IsCostly ? settings.MaximumLotsForCostlyLeaveOneLotOut : settings.MaximumLotsForLeaveOneLotOut;
         var lotScheme = lots.Count > limit ? BacktestScheme.TenFoldByLot : BacktestScheme.LeaveOneLotOut;
-        var byLot = Backtest.Run(c, folds(lotScheme), seed);
         IReadOnlyList<HeldOutPrediction>? bySeason = seasonCount >= 2 ? Backtest.Run(c, folds(BacktestScheme.LeaveOneSeasonOut), seed) : null;
+
+        // An inner run of the coverage measurement reports nothing, so the leave-one-lot-out backtest it would not use is skipped.
+        var byLot = nested && bySeason is not null ? bySeason : Backtest.Run(c, folds(lotScheme), seed);
         var fit = c.Train(lots, seed);
         return new CandidateResult(
             c.Id,
@@ -199,10 +263,10 @@ public static class HouseFactorAnalysis
 
         var chosen = pool[ch.Chosen];
         var best = pool[ch.Best];
-        var errors = SortedErrors(preds[ch.Chosen]);
+        var model = SeasonErrorModel.Of(SeasonErrors(preds[ch.Chosen]));
         var m = metrics[ch.Chosen];
-        var band80 = (HeldOutErrors.LowerOfSorted(errors, 0.10), HeldOutErrors.UpperOfSorted(errors, 0.90));
-        var band95 = (HeldOutErrors.LowerOfSorted(errors, 0.025), HeldOutErrors.UpperOfSorted(errors, 0.975));
+        var band80 = model.Band(0.80);
+        var band95 = model.Band(0.95);
         string who = strain == "*" ? "All lots" : $"Strain {strain}";
         string why = ch.Chosen == ch.Best
             ? $"{who}: {chosen.Name} has the lowest held-out error (MAE {F(m.Mae)} % v/v, standard error {F(ch.Limit - m.Mae)}) and no simpler candidate comes within one standard error of it."
@@ -234,7 +298,7 @@ public static class HouseFactorAnalysis
         }
 
         string schemeText = SchemeText(scheme);
-        var pooledErrors = SortedErrors(basis.HeldOut);
+        var pooledErrors = SeasonErrors(basis.HeldOut);
         var pooledFit = basis.FullFit!;
         var pooled = Line("*", basis, pooledFit.Pooled, pooledErrors, $"all {pooledErrors.Length} lots held out by {schemeText}");
         var lines = new List<PlanningLine>();
@@ -242,8 +306,8 @@ public static class HouseFactorAnalysis
         {
             var rec = byStrain.FirstOrDefault(r => r.Strain == strain);
             var source = rec is null ? basis : results.First(r => r.Id == rec.CandidateId);
-            var own = SortedErrors(source.HeldOut.Where(p => p.Strain == strain));
-            var all = SortedErrors(source.HeldOut);
+            var own = SeasonErrors(source.HeldOut.Where(p => p.Strain == strain));
+            var all = SeasonErrors(source.HeldOut);
             bool useOwn = own.Length >= settings.MinimumErrorsForStrainIntervals;
             lines.Add(Line(
                 strain,
@@ -257,7 +321,7 @@ public static class HouseFactorAnalysis
         return new PlanningModel(pooled, lines, $"{basis.Name} chosen by the one-standard-error rule on {schemeText}, scored against {settings.Regime.Name}{ownChoice}");
     }
 
-    private static PlanningLine Line(string strain, CandidateResult source, StrainLine line, double[] errors, string basis)
+    private static PlanningLine Line(string strain, CandidateResult source, StrainLine line, SeasonError[] errors, string basis)
     {
         var curve = source.FullFit!.Curve;
         return new PlanningLine(strain, source.Id, curve, line.Intercept, line.SlopePerBrix, line.Lots, errors, basis);
@@ -271,7 +335,7 @@ public static class HouseFactorAnalysis
             + $"{F(100 * m.ShareWithinTolerance, "0.#")} % of lots would meet {settings.Regime.Name} tolerance against the prediction, {F(100 * m.ShareWrongSideOfThreshold, "0.#")} % were predicted on the wrong side of {F(settings.ThresholdAbv, "0.0")} % v/v.";
         if (double.IsNaN(overall.ErrorBand95.Low))
         {
-            yield return $"Too few lots for a 95 % interval ({m.Lots}; {HeldOutErrors.MinimumForTwoSided(0.95)} are needed).";
+            yield return $"Too few lots for intervals ({m.Lots}; {SeasonErrorModel.MinimumErrors} are needed).";
         }
 
         var ranked = results.Where(r => double.IsFinite(r.Primary.Mae)).OrderBy(r => r.Primary.Mae).Take(3).Select(r => $"{r.Name} {F(r.Primary.Mae)}");
@@ -285,12 +349,8 @@ public static class HouseFactorAnalysis
         _ => "ten-fold by lot",
     };
 
-    private static double[] SortedErrors(IEnumerable<HeldOutPrediction> predictions)
-    {
-        var errors = predictions.Select(p => p.Error).ToArray();
-        Array.Sort(errors);
-        return errors;
-    }
+    private static SeasonError[] SeasonErrors(IEnumerable<HeldOutPrediction> predictions) =>
+        predictions.Select(p => new SeasonError(p.Error, p.Season, p.Strain)).ToArray();
 
     private static string F(double v, string format = "0.000") => v.ToString(format, CultureInfo.InvariantCulture);
 }

@@ -90,6 +90,24 @@ public sealed record HouseFactorReview
     /// <summary>Lots left out and other notes on the data.</summary>
     public IReadOnlyList<string> Notes { get; init; } = [];
 
+    /// <summary>True when the lots in <see cref="FlaggedLots"/> were used; false when they were left out.</summary>
+    public bool FlaggedLotsIncluded { get; init; }
+
+    /// <summary>Lots flagged as likely errors or not fermented to dryness, in lot order (left out unless <see cref="FlaggedLotsIncluded"/>).</summary>
+    public IReadOnlyList<FlaggedLot> FlaggedLots { get; init; } = [];
+
+    /// <summary>
+    /// The same analysis with the flagged lots treated the other way (included when this version leaves them out, and
+    /// the reverse); null when no lot was flagged, so both versions are this one.
+    /// </summary>
+    public HouseFactorReview? OtherVersion { get; init; }
+
+    /// <summary>
+    /// How often the intervals held the lab's alcohol of lots of a season the analysis had not seen (nested
+    /// leave-one-season-out); null when fewer than two seasons, or for the other version.
+    /// </summary>
+    public IntervalCoverage? Coverage { get; init; }
+
     /// <summary>Cautions shown with every house-factor result.</summary>
     public IReadOnlyList<string> Cautions { get; init; } = HouseFactorTexts.PlannerCautions;
 }

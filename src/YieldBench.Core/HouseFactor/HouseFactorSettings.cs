@@ -30,6 +30,16 @@ public sealed record HouseFactorSettings
     /// <summary>Above this many lots a costly candidate (robust lines, the multi-variable model) uses ten folds instead of leave-one-lot-out (default 100).</summary>
     public int MaximumLotsForCostlyLeaveOneLotOut { get; init; } = 100;
 
-    /// <summary>Fewest held-out errors of a strain for intervals of its own (default 39, the fewest for a 95 % interval).</summary>
-    public int MinimumErrorsForStrainIntervals { get; init; } = 39;
+    /// <summary>
+    /// When false (the default), lots the strain review flags as likely errors and lots that did not ferment to dryness
+    /// are left out of training, candidate selection and intervals; when true they are included. The review reports
+    /// both versions either way.
+    /// </summary>
+    public bool IncludeFlaggedLots { get; init; }
+
+    /// <summary>
+    /// Fewest held-out errors of a strain for intervals of its own (default 15, as for a choice of its own); a strain
+    /// with fewer uses all lots' errors.
+    /// </summary>
+    public int MinimumErrorsForStrainIntervals { get; init; } = 15;
 }

@@ -9,7 +9,7 @@ namespace YieldBench.Core.HouseFactor;
 /// <param name="TargetAbv">Target, % v/v.</param>
 /// <param name="Confidence">One-sided confidence that the finished wine stays at or under the target, in (0, 1).</param>
 /// <param name="HighestBrix">The answer, °Brix (effective starting sugar), or NaN with a <paramref name="Note"/>.</param>
-/// <param name="ErrorAllowance">Upper held-out error at the confidence subtracted from the target, % v/v (0 at 50 % with no errors).</param>
+/// <param name="ErrorAllowance">Upper error bound at the confidence (season-aware, <see cref="SeasonErrorModel.Quantile"/>) subtracted from the target, % v/v (0 at 50 % with no errors).</param>
 /// <param name="Note">Why there is no answer, or what it rests on; null when plain.</param>
 public sealed record ThresholdAnswer(string Strain, double TargetAbv, double Confidence, double HighestBrix, double ErrorAllowance, string? Note);
 
@@ -28,17 +28,18 @@ public sealed record AddBackAnswer(double TargetBrix, double WaterL, double Volu
 /// </summary>
 public static class Planner
 {
-    /// <summary>Predicted alcohol at a starting sugar, with 80 % and 95 % intervals from the line's held-out errors.</summary>
+    /// <summary>Predicted alcohol at a starting sugar, with season-aware 80 % and 95 % intervals from the line's held-out errors.</summary>
     public static AlcoholEstimate Estimate(PlanningLine line, SugarReading startingSugar)
     {
         ArgumentNullException.ThrowIfNull(line);
-        return AlcoholEstimate.From(line.Predict(startingSugar.Brix), line.SortedErrors);
+        return AlcoholEstimate.From(line.Predict(startingSugar.Brix), line.ErrorModel);
     }
 
     /// <summary>
-    /// The highest starting °Brix b with predicted(b) + U(c) ≤ target, where U(c) is the upper held-out error bound at
-    /// one-sided confidence c (see <see cref="HeldOutErrors.UpperOfSorted"/>): a must at b or below finishes at or
-    /// under the target with probability about c, if the coming season behaves like the backtested ones.
+    /// The highest starting °Brix b with predicted(b) + U(c) ≤ target, where U(c) is the season-aware upper error bound
+    /// at one-sided confidence c (<see cref="SeasonErrorModel.Quantile"/>): a must at b or below finishes at or under
+    /// the target with probability about c, if the coming season differs from the past ones as they differed among
+    /// themselves.
     /// </summary>
     public static ThresholdAnswer HighestSugar(PlanningLine line, double targetAbv, double confidence)
     {
@@ -56,7 +57,7 @@ public static class Planner
         string c = Percent(confidence);
         double allowance;
         string? note = null;
-        if (line.SortedErrors.Count == 0)
+        if (line.Errors.Count == 0)
         {
             if (Math.Abs(confidence - 0.5) > 1e-9)
             {
@@ -69,11 +70,11 @@ public static class Planner
         }
         else
         {
-            allowance = HeldOutErrors.UpperOfSorted(line.SortedErrors, confidence);
+            allowance = line.ErrorModel.Quantile(confidence);
             if (double.IsNaN(allowance))
             {
                 return new ThresholdAnswer(line.Strain, targetAbv, confidence, double.NaN, double.NaN,
-                    $"too few held-out lots ({line.SortedErrors.Count}) for {c} confidence; at least {HeldOutErrors.MinimumForOneSided(confidence)} are needed");
+                    $"too few held-out lots ({line.Errors.Count}) for {c} confidence; at least {SeasonErrorModel.MinimumErrors} are needed");
             }
         }
 
@@ -131,7 +132,7 @@ public static class Planner
             note = "the must is already at or below the target sugar: no water is needed";
         }
 
-        return new AddBackAnswer(targetBrix, water, after, AlcoholEstimate.From(line.Predict(effective), line.SortedErrors), note);
+        return new AddBackAnswer(targetBrix, water, after, AlcoholEstimate.From(line.Predict(effective), line.ErrorModel), note);
     }
 
     /// <summary>The threshold table of one line for several targets and confidences (targets outer, confidences inner).</summary>

@@ -4,7 +4,8 @@ namespace YieldBench.Core.HouseFactor;
 
 /// <summary>
 /// What the planner needs for one strain (or <c>*</c>, all strains): a curve from starting °Brix to predicted alcohol
-/// and the held-out errors (actual − predicted, % v/v, ascending) its intervals come from.
+/// and the held-out errors (actual − predicted, % v/v, with their season and strain) its season-aware intervals come
+/// from (<see cref="SeasonErrorModel"/>).
 /// </summary>
 /// <param name="Strain">Strain code, or <c>*</c> for the pooled line.</param>
 /// <param name="CandidateId">The candidate the line comes from (<c>given</c> when typed on the command line).</param>
@@ -12,7 +13,7 @@ namespace YieldBench.Core.HouseFactor;
 /// <param name="Intercept">Intercept, % v/v (NaN for the EU convention).</param>
 /// <param name="SlopePerBrix">Slope, % v/v per °Brix (NaN for the EU convention).</param>
 /// <param name="Lots">Lots the line was fitted on.</param>
-/// <param name="SortedErrors">Held-out errors, ascending; empty when none are known.</param>
+/// <param name="Errors">Held-out errors with their season and strain; empty when none are known.</param>
 /// <param name="ErrorBasis">Which held-out lots the errors are, in words.</param>
 public sealed record PlanningLine(
     string Strain,
@@ -21,9 +22,18 @@ public sealed record PlanningLine(
     double Intercept,
     double SlopePerBrix,
     int Lots,
-    IReadOnlyList<double> SortedErrors,
+    IReadOnlyList<SeasonError> Errors,
     string ErrorBasis)
 {
+    /// <summary>The random-effects model of <see cref="Errors"/> the intervals come from (fitted on each call).</summary>
+    public SeasonErrorModel ErrorModel => SeasonErrorModel.Of(Errors);
+
+    /// <summary>
+    /// The conversion factor this line stands for, % v/v per °Brix, at <paramref name="brix"/> °Brix: predicted
+    /// alcohol ÷ °Brix (the slope itself for a line through the origin).
+    /// </summary>
+    public double FactorAt(double brix) => Predict(brix) / brix;
+
     /// <summary>Predicted alcohol, % v/v, at a starting sugar of <paramref name="brix"/> °Brix.</summary>
     public double Predict(double brix) => Curve == SugarCurve.EuConvention
         ? OivMustTable.PotentialAlcohol(brix)

@@ -36,21 +36,21 @@ public static class KineticsAnalysis
         }
 
         var findings = new List<KineticsFinding>();
-        var byKey = new Dictionary<string, LotConversion>(StringComparer.Ordinal);
+        var byKey = new Dictionary<LotKey, LotConversion>();
         foreach (var l in lots)
         {
             byKey.TryAdd(l.Lot.Key, l);
         }
 
         var byId = lots.GroupBy(l => l.Lot.LotId, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
-        var logsFor = new Dictionary<string, List<FermentationLog>>(StringComparer.Ordinal);
+        var logsFor = new Dictionary<LotKey, List<FermentationLog>>();
         var orphans = new List<FermentationLog>();
         foreach (var log in logs)
         {
             LotConversion? match = null;
-            if (log.Season is not null)
+            if (log.Key is { } logKey)
             {
-                byKey.TryGetValue(log.Key, out match);
+                byKey.TryGetValue(logKey, out match);
             }
             else if (byId.TryGetValue(log.LotId, out var same))
             {
@@ -60,7 +60,7 @@ public static class KineticsAnalysis
                 }
                 else
                 {
-                    findings.Add(new(log.Key, "log-matches-several-lots", $"The log for lot {log.LotId} names no season and {same.Length} seasons have a lot {log.LotId} ({string.Join(", ", same.Select(s => s.Lot.Season))}); give the season in the log so it can be joined.", FirstSource(log)));
+                    findings.Add(new(log.Key, "log-matches-several-lots", $"The log for lot {log.LotId} names no season and {same.Length} seasons have a lot {log.LotId} ({string.Join(", ", same.Select(s => s.Lot.Season))}); give the season in the log so it can be joined.", FirstSource(log)) { LogName = log.Name });
                     orphans.Add(log);
                     continue;
                 }
@@ -68,7 +68,7 @@ public static class KineticsAnalysis
 
             if (match is null)
             {
-                findings.Add(new(log.Key, "log-without-lot", $"The log for lot {log.Key} matches no lot in the lot records; check the lot id and season.", FirstSource(log)));
+                findings.Add(new(log.Key, "log-without-lot", $"The log for lot {log.Name} matches no lot in the lot records; check the lot id and season.", FirstSource(log)) { LogName = log.Name });
                 orphans.Add(log);
                 continue;
             }
@@ -84,8 +84,8 @@ public static class KineticsAnalysis
         // Lots in input order (first of any repeated key); each is analysed on its own, so they run side by side and
         // their results and findings are put back in this order.
         var work = new List<(LotConversion Lot, List<FermentationLog> Logs)>();
-        var withoutLog = new List<string>();
-        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var withoutLog = new List<LotKey>();
+        var seen = new HashSet<LotKey>();
         foreach (var lc in lots)
         {
             if (!seen.Add(lc.Lot.Key))
@@ -256,7 +256,7 @@ public static class KineticsAnalysis
 
     private static LotKinetics? AnalyseLot(Lot lot, IReadOnlyList<LogReading> raw, KineticsSettings s, List<KineticsFinding> findings)
     {
-        string key = lot.Key;
+        var key = lot.Key;
         var flags = new HashSet<string>(StringComparer.Ordinal);
 
         // Out-of-order: a reading logged before the one above it in the file.

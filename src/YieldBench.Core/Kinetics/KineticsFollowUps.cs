@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Kinetics;
@@ -23,10 +24,13 @@ public static class KineticsFollowUps
     public static IReadOnlyList<LotFlag> For(KineticsReview review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var messages = new Dictionary<(string Lot, string Code), string>();
+        var messages = new Dictionary<(LotKey Lot, string Code), string>();
         foreach (var f in review.Findings)
         {
-            messages.TryAdd((f.LotKey, f.Code), f.Message);
+            if (f.LotKey is { } lot)
+            {
+                messages.TryAdd((lot, f.Code), f.Message);
+            }
         }
 
         var items = new List<LotFlag>();

@@ -17,19 +17,26 @@ public sealed record KineticsReview
     /// <summary>Logs that matched no lot (or several).</summary>
     public required IReadOnlyList<FermentationLog> LogsWithoutLot { get; init; }
 
-    /// <summary>Keys ("season/lot") of lots that had no log.</summary>
-    public required IReadOnlyList<string> LotsWithoutLog { get; init; }
+    /// <summary>Keys of lots that had no log.</summary>
+    public required IReadOnlyList<LotKey> LotsWithoutLog { get; init; }
 
     /// <summary>Settings used.</summary>
     public required KineticsSettings Settings { get; init; }
 }
 
 /// <summary>Something the analysis saw: a stall, a hot ferment, a timestamp problem, a fit that failed.</summary>
-/// <param name="LotKey">"season/lot" of the lot, or the log's key when no lot matched.</param>
+/// <param name="LotKey">The lot, or the key the log names when no lot matched (null when the log names no season).</param>
 /// <param name="Code">Stable kebab-case code saying what was seen (e.g. <c>stuck</c>, <c>out-of-order-timestamp</c>).</param>
 /// <param name="Message">A plain sentence with the values involved.</param>
 /// <param name="Source">The log row involved, when one is.</param>
-public sealed record KineticsFinding(string LotKey, string Code, string Message, SourceRef? Source = null);
+public sealed record KineticsFinding(LotKey? LotKey, string Code, string Message, SourceRef? Source = null)
+{
+    /// <summary>The log's name (<see cref="FermentationLog.Name"/>) for a finding about a log that matched no lot; else null.</summary>
+    public string? LogName { get; init; }
+
+    /// <summary>What the finding is about as reports write it: the log's name, else "season/lot".</summary>
+    public string Subject => LogName ?? LotKey?.ToString() ?? string.Empty;
+}
 
 /// <summary>How the maximum rate was taken.</summary>
 public enum RateMethod
@@ -109,8 +116,8 @@ public readonly record struct HeatPoint(DateTime Time, double Brix, double Tempe
 /// <summary>Per-lot kinetics and heat. Times in hours are from <see cref="Origin"/>; null means "not reached" or "not measurable".</summary>
 public sealed record LotKinetics
 {
-    /// <summary>"season/lot".</summary>
-    public required string LotKey { get; init; }
+    /// <summary>The lot's key.</summary>
+    public required LotKey LotKey { get; init; }
 
     /// <summary>The lot.</summary>
     public required Lot Lot { get; init; }

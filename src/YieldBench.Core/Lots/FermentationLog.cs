@@ -11,6 +11,9 @@ public sealed record LogReading(DateTime Timestamp, SugarReading? Sugar, double?
 /// </summary>
 public sealed record FermentationLog(string LotId, int? Season, IReadOnlyList<LogReading> Readings)
 {
-    /// <summary>A key matching <see cref="Lot.Key"/> when the season is known.</summary>
-    public string Key => Season is { } s ? $"{s}/{LotId}" : LotId;
+    /// <summary>The key of the lot the log belongs to (<see cref="Lot.Key"/>), or null when the log names no season.</summary>
+    public LotKey? Key => Season is { } s ? new LotKey(s, LotId) : null;
+
+    /// <summary>The log as messages name it: "season/lot", or the lot id alone when no season is known.</summary>
+    public string Name => Key?.ToString() ?? LotId;
 }

@@ -17,11 +17,23 @@ public sealed record Lot
     /// <summary>Yeast strain code as recorded.</summary>
     public required string Strain { get; init; }
 
+    private readonly RecordedSugar? _recordedStartingSugar;
+
     /// <summary>Starting must sugar as measured, before any recorded addition.</summary>
     public required SugarReading StartingSugar { get; init; }
 
-    /// <summary>The scale the starting sugar was recorded in.</summary>
-    public SugarScale StartingSugarScale { get; init; } = SugarScale.Brix;
+    /// <summary>
+    /// The starting sugar as the cellar recorded it: the number written and its scale (what intake read from the cell).
+    /// A lot made without it reads as <see cref="StartingSugar"/> in °Brix.
+    /// </summary>
+    public RecordedSugar RecordedStartingSugar
+    {
+        get => _recordedStartingSugar ?? new RecordedSugar(StartingSugar.Brix, SugarScale.Brix);
+        init => _recordedStartingSugar = value;
+    }
+
+    /// <summary>The scale the starting sugar was recorded in (that of <see cref="RecordedStartingSugar"/>).</summary>
+    public SugarScale StartingSugarScale => RecordedStartingSugar.Scale;
 
     /// <summary>The lab's final alcohol.</summary>
     public required AlcoholContent FinalAlcohol { get; init; }
@@ -77,6 +89,6 @@ public sealed record Lot
     /// <summary>Where the lot's row was read.</summary>
     public SourceRef? Source { get; init; }
 
-    /// <summary>A key unique across seasons: "season/lot".</summary>
-    public string Key => $"{Season}/{LotId}";
+    /// <summary>The lot's identity across seasons (season, lot id).</summary>
+    public LotKey Key => new(Season, LotId);
 }

@@ -7,7 +7,8 @@ using YieldBench.Core.Review.Strains;
 namespace YieldBench.Core.Review;
 
 /// <summary>
-/// The single, immutable result of a review. Renderers only lay out what this holds; they never compute statistics.
+/// The single, immutable result of a review. Renderers only lay out what this holds; they compute no statistics, joins
+/// or orders (the per-lot view, the figures and the overview are here for them).
 /// </summary>
 public sealed record ReviewResult
 {
@@ -28,6 +29,18 @@ public sealed record ReviewResult
 
     /// <summary>Kinetics and heat of the lots that have a fermentation log; null when no log was read.</summary>
     public KineticsReview? Kinetics { get; init; }
+
+    /// <summary>Each lot's whole review (measures, robust z, flags, kinetics, worst severity), in the order of <see cref="Lots"/>.</summary>
+    public required IReadOnlyList<LotReview> LotReviews { get; init; }
+
+    /// <summary>Every follow-up item: the strain review's flags, then the kinetics follow-ups (<see cref="KineticsFollowUps"/>).</summary>
+    public required IReadOnlyList<LotFlag> FollowUps { get; init; }
+
+    /// <summary>The strain order, box-plot numbers, ranking and strain courses the renderers lay out.</summary>
+    public required ReviewFigures Figures { get; init; }
+
+    /// <summary>The review at a glance: headline numbers and plain sentences, format-neutral.</summary>
+    public required ReviewOverview Overview { get; init; }
 
     /// <summary>The tool version that produced the review.</summary>
     public required string ToolVersion { get; init; }

@@ -10,8 +10,9 @@ namespace YieldBench.Core.Review;
 public static class ReviewRunner
 {
     /// <summary>
-    /// The review stages, in the order progress reports them. The house factor (its backtest is the longest step)
-    /// starts beside the strain review and kinetics and is reported last, when the review waits for what is left of it.
+    /// The review stages, in the order progress reports them. Kinetics starts beside the strain review; the house
+    /// factor starts after it, because the lots the strain review flags as likely errors or not dry are left out of it
+    /// (by default), and it is reported last, when the review waits for what is left of it.
     /// </summary>
     public static IReadOnlyList<string> Stages { get; } = ["conversion factors", "strain review", "kinetics", "house factor"];
 
@@ -33,23 +34,24 @@ public static class ReviewRunner
         progress?.Report(Stages[0]);
         var lots = inputs.Lots.Select(l => ConversionFactors.For(l, settings.SugarModel)).ToArray();
 
-        // The analyses share only the (immutable) lots, and each is seeded on its own, so running the house factor
-        // beside the others gives the same results as running it after them.
-        var houseTask = Task.Run(() => HouseFactorAnalysis.Run(lots, settings.HouseFactor, extraCandidates ?? [], settings.Seed));
-
+        // The analyses share only the (immutable) lots, and each is seeded on its own, so running kinetics beside the
+        // strain review and the house factor gives the same results as running it after them.
         progress?.Report(Stages[1]);
-        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed);
-
-        KineticsReview? kinetics = null;
+        var kineticsTask = inputs.Logs.Count > 0
+            ? Task.Run<KineticsReview?>(() => KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics))
+            : Task.FromResult<KineticsReview?>(null);
+        var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed, settings.SugarModel);
         if (inputs.Logs.Count > 0)
         {
             progress?.Report(Stages[2]);
-            kinetics = KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics);
         }
 
         progress?.Report(Stages[3]);
-        var house = houseTask.GetAwaiter().GetResult();
+        var house = HouseFactorAnalysis.Run(lots, strains.Flags, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
+        var kinetics = kineticsTask.GetAwaiter().GetResult();
 
+        var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps);
+        var figures = ReviewFigures.Build(lots, strains, kinetics);
         return new ReviewResult
         {
             Inputs = inputs,
@@ -58,6 +60,10 @@ public static class ReviewRunner
             Strains = strains,
             HouseFactor = house,
             Kinetics = kinetics,
+            LotReviews = lotReviews,
+            FollowUps = followUps,
+            Figures = figures,
+            Overview = ReviewOverview.Build(inputs, strains, house, kinetics, lotReviews, figures),
             ToolVersion = toolVersion,
         };
     }

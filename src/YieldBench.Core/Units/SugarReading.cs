@@ -115,6 +115,34 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     };
 
     /// <summary>
+    /// °Brix of a value on the given scale by the same relations as the factories, without any range check: for
+    /// saying what an out-of-range value would have been. NaN or infinite where a relation has no value.
+    /// </summary>
+    public static double BrixOf(double value, SugarScale scale) => scale switch
+    {
+        SugarScale.Brix => value,
+        SugarScale.SpecificGravity => SugarScales.BrixFromSpecificGravity(value),
+        SugarScale.Baume => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromBaume(value)),
+        SugarScale.Oechsle => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(value)),
+        SugarScale.GramsPerLitre => OivMustTable.BrixFromSugarGramsPerLitre(value),
+        _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
+    };
+
+    /// <summary>
+    /// Makes a reading from a value on the given scale when its °Brix lies in [<paramref name="minBrix"/>,
+    /// <paramref name="maxBrix"/>] (a narrower plausible range than the accepted −6 to 50, such as a starting sugar's
+    /// 10 to 40): the value is converted once and checked once. <paramref name="brix"/> is the converted value either
+    /// way, so a message can say what the value would have been.
+    /// </summary>
+    public static bool TryFrom(double value, SugarScale scale, double minBrix, double maxBrix, out SugarReading reading, out double brix)
+    {
+        brix = BrixOf(value, scale);
+        bool inRange = brix >= Math.Max(minBrix, MinBrix) && brix <= Math.Min(maxBrix, MaxBrix);
+        reading = inRange ? new SugarReading(brix) : default;
+        return inRange;
+    }
+
+    /// <summary>
     /// Makes a reading from a value on the given scale without throwing: false, with <paramref name="problem"/> set to
     /// the same text the factory would throw, when the value is outside the scale's accepted range.
     /// </summary>

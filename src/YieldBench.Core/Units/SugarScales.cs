@@ -74,4 +74,18 @@ public static class SugarScales
 
     /// <summary>°Oechsle from SG.</summary>
     public static double OechsleFromSpecificGravity(double sg) => (sg - 1.0) * 1000.0;
+
+    /// <summary>
+    /// The short label of a scale, the one every message, data file, sheet and chart prints: °Brix, SG, °Baumé,
+    /// °Oechsle, g/L.
+    /// </summary>
+    public static string Label(SugarScale scale) => scale switch
+    {
+        SugarScale.Brix => "°Brix",
+        SugarScale.SpecificGravity => "SG",
+        SugarScale.Baume => "°Baumé",
+        SugarScale.Oechsle => "°Oechsle",
+        SugarScale.GramsPerLitre => "g/L",
+        _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
+    };
 }

@@ -2,8 +2,6 @@ using ScottPlot;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Review;
-using YieldBench.Core.Statistics;
-using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports.Charts;
 
@@ -61,27 +59,12 @@ public static class ReviewCharts
         return charts;
     }
 
-    /// <summary>Strains in a stable order: most lots first, then code.</summary>
+    /// <summary>Strains in the review's display order (<see cref="ReviewFigures.StrainOrder"/>): most lots first, then code.</summary>
     public static IReadOnlyList<string> StrainOrder(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return GroupsOf(review).Order.ToArray();
+        return review.Figures.StrainOrder;
     }
-
-    // The strain grouping every lot chart starts from, made once per review: the charts are drawn side by side and
-    // each grouped 100,000 lots again. A Lazy, because the table runs its factory outside its lock.
-    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<ReviewResult, Lazy<StrainGroups>> Groups = new();
-
-    private sealed record StrainGroups(IReadOnlyList<string> Order, ILookup<string, LotConversion> Lots);
-
-    private static StrainGroups GroupsOf(ReviewResult review) => Groups.GetValue(review, r => new Lazy<StrainGroups>(
-        () =>
-        {
-            var lots = r.Lots.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
-            var order = lots.OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToArray();
-            return new StrainGroups(order, lots);
-        },
-        LazyThreadSafetyMode.ExecutionAndPublication)).Value;
 
     /// <summary>
     /// Final alcohol against starting sugar: points by strain, each strain's fitted line, and the recommended
@@ -91,7 +74,7 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Final alcohol vs starting sugar", "Starting sugar after additions (°Brix)", "Final alcohol (% v/v)");
-        var strains = GroupsOf(review).Order;
+        var strains = review.Figures.StrainOrder;
         double xMin = review.Lots.Min(l => l.EffectiveStartingBrix), xMax = review.Lots.Max(l => l.EffectiveStartingBrix);
         double[] grid = Enumerable.Range(0, 41).Select(i => xMin + ((xMax - xMin) * i / 40.0)).ToArray();
 
@@ -118,10 +101,15 @@ public static class ReviewCharts
         for (int i = 0; i < strains.Count; i++)
         {
             var members = byStrain[strains[i]].ToArray();
+            if (members.Length == 0)
+            {
+                continue;
+            }
+
             var color = ChartPalette.ForIndex(i);
             var points = ChartStyle.AddMarkers(
                 plot,
-                members.Select(m => m.EffectiveStartingBrix).ToArray(),
+                members.Select(m => m.Conversion.EffectiveStartingBrix).ToArray(),
                 members.Select(m => m.Lot.FinalAlcohol.PercentVolume).ToArray(),
                 MarkerShape.FilledCircle,
                 9,
@@ -129,13 +117,13 @@ public static class ReviewCharts
             points.LegendText = $"{strains[i]} ({members.Length})";
             if (fitted?.Strains.FirstOrDefault(s => s.Strain == strains[i]) is { } sl)
             {
-                double lo = members.Min(m => m.EffectiveStartingBrix), hi = members.Max(m => m.EffectiveStartingBrix);
+                double lo = members.Min(m => m.Conversion.EffectiveStartingBrix), hi = members.Max(m => m.Conversion.EffectiveStartingBrix);
                 var fit = plot.Add.ScatterLine(new[] { lo, hi }, new[] { sl.At(lo), sl.At(hi) }, color);
                 fit.LineWidth = 2;
             }
         }
 
-        MarkFlagged(plot, review, review.Lots, l => l.EffectiveStartingBrix, l => l.Lot.FinalAlcohol.PercentVolume);
+        MarkFlagged(plot, review.LotReviews, l => l.Conversion.EffectiveStartingBrix, l => l.Lot.FinalAlcohol.PercentVolume);
         ChartStyle.ShowLegend(plot, Alignment.UpperLeft);
         return plot;
     }
@@ -145,32 +133,28 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = GroupsOf(review).Order;
+        var strains = review.Figures.StrainOrder;
         var ticks = new ScottPlot.TickGenerators.NumericManual();
-        // Keyed by reference: a lot's record equality hashes every field, which at 100,000 lots cost most of this chart.
-        var pointXs = new Dictionary<LotConversion, double>(ReferenceEqualityComparer.Instance);
+        var points = new List<(LotReview Lot, double X)>();
         var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
         {
-            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
+            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.Conversion.AbvPerBrix)).ToArray();
             ticks.AddMajor(i, $"{strains[i]}\n{members.Length} lots");
-            if (members.Length == 0)
+            if (members.Length == 0 || review.Figures.FactorByStrain[i] is not { } g)
             {
                 continue;
             }
 
-            var sorted = Descriptive.ToSortedArray(members.Select(m => m.AbvPerBrix));
-            double q1 = Descriptive.QuantileOfSorted(sorted, 0.25), q3 = Descriptive.QuantileOfSorted(sorted, 0.75);
-            double iqr = q3 - q1;
             var color = ChartPalette.ForIndex(i);
             var box = new Box
             {
                 Position = i,
-                BoxMin = q1,
-                BoxMax = q3,
-                BoxMiddle = Descriptive.MedianOfSorted(sorted),
-                WhiskerMin = sorted.Where(v => v >= q1 - (1.5 * iqr)).Min(),
-                WhiskerMax = sorted.Where(v => v <= q3 + (1.5 * iqr)).Max(),
+                BoxMin = g.Q1,
+                BoxMax = g.Q3,
+                BoxMiddle = g.Median,
+                WhiskerMin = g.LowerWhisker,
+                WhiskerMax = g.UpperWhisker,
                 Width = 0.5,
             };
             plot.Add.Box(box);
@@ -182,15 +166,17 @@ public static class ReviewCharts
 
             // Points spread sideways by rank (deterministic, no random jitter) so equal values stay visible.
             var xs = members.Select((m, k) => i + 0.3 + (0.15 * ((k % 7) - 3) / 3.0)).ToArray();
-            for (int k = 0; k < members.Length; k++)
-            {
-                pointXs[members[k]] = xs[k];
-            }
-
-            ChartStyle.AddMarkers(plot, xs, members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.FilledCircle, 7, color);
+            points.AddRange(members.Select((m, k) => (m, xs[k])));
+            ChartStyle.AddMarkers(plot, xs, members.Select(m => m.Conversion.AbvPerBrix).ToArray(), MarkerShape.FilledCircle, 7, color);
         }
 
-        MarkFlagged(plot, review, pointXs.Keys.ToArray(), l => pointXs[l], l => l.AbvPerBrix);
+        var at = new Dictionary<LotReview, double>(ReferenceEqualityComparer.Instance);
+        foreach (var (lot, x) in points)
+        {
+            at[lot] = x;
+        }
+
+        MarkFlagged(plot, points.Select(p => p.Lot).ToArray(), l => at[l], l => l.Conversion.AbvPerBrix);
         plot.Axes.Bottom.TickGenerator = ticks;
         plot.Axes.Bottom.MajorTickStyle.Length = 0;
         plot.Axes.SetLimitsX(-0.7, strains.Count - 0.2);
@@ -202,24 +188,18 @@ public static class ReviewCharts
     {
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by season, per strain", "Season", "Alcohol per °Brix (% v/v per °Brix)");
-        var strains = GroupsOf(review).Order;
-        var seasons = review.Lots.Select(l => l.Lot.Season).Distinct().Order().ToArray();
+        var strains = review.Figures.StrainOrder;
+        var seasons = review.Figures.Seasons;
         var byStrain = ByStrain(review);
         for (int i = 0; i < strains.Count; i++)
         {
             var color = ChartPalette.ForIndex(i);
             double offset = (i - ((strains.Count - 1) / 2.0)) * 0.08;
-            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
+            var members = byStrain[strains[i]].Where(l => double.IsFinite(l.Conversion.AbvPerBrix)).ToArray();
             ChartStyle.AddMarkers(
-                plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
-            // The strain's lots by season in one pass (each season's values in review order, as a filter per season gave them).
-            var bySeason = members.ToLookup(m => m.Lot.Season);
-            var medians = seasons
-                .Select(s => (Season: s, Values: bySeason[s].Select(m => m.AbvPerBrix).ToArray()))
-                .Where(x => x.Values.Length > 0)
-                .Select(x => (x.Season, Median: Descriptive.Median(x.Values)))
-                .ToArray();
-            var line = plot.Add.Scatter(medians.Select(m => m.Season + offset).ToArray(), medians.Select(m => m.Median).ToArray(), color);
+                plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.Conversion.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
+            var medians = review.Figures.FactorByStrainAndSeason.Where(g => g.Strain == strains[i]).ToArray();
+            var line = plot.Add.Scatter(medians.Select(m => m.Season!.Value + offset).ToArray(), medians.Select(m => m.Median).ToArray(), color);
             line.LineWidth = 3;
             line.MarkerSize = 14;
             line.MarkerShape = MarkerShape.FilledSquare;
@@ -244,7 +224,7 @@ public static class ReviewCharts
         ArgumentNullException.ThrowIfNull(review);
         var h = review.HouseFactor;
         var plot = ChartStyle.NewPlot(
-            "Backtest error per candidate (" + ReviewTables.SchemeName(h.PrimaryScheme) + ")", "Mean absolute error, ±1 standard error (% v/v)", string.Empty);
+            "Backtest error per candidate (" + ReviewTexts.Scheme(h.PrimaryScheme) + ")", "Mean absolute error, ±1 standard error (% v/v)", string.Empty);
         var candidates = h.Candidates.ToArray();
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         string? chosen = h.Overall?.CandidateId;
@@ -288,35 +268,63 @@ public static class ReviewCharts
         return plot;
     }
 
-    /// <summary>Histogram of abv_per_brix over all lots, with the pooled median marked.</summary>
+    /// <summary>
+    /// Histogram of abv_per_brix over all lots, each bin's bar stacked by strain in the strain colours, with the pooled
+    /// median marked. With no factor to show the chart says so instead of drawing axes without data.
+    /// </summary>
     public static Plot FactorHistogram(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var plot = ChartStyle.NewPlot("Histogram of conversion factors", "Alcohol per °Brix (% v/v per °Brix)", "Lots");
-        var values = review.Lots.Select(l => l.AbvPerBrix).Where(double.IsFinite).ToArray();
-        if (values.Length == 0)
+        var plot = ChartStyle.NewPlot("Histogram of conversion factors, stacked by strain", "Alcohol per °Brix (% v/v per °Brix)", "Lots");
+        if (review.Figures.FactorHistogram is not { } h)
         {
+            ChartStyle.Subtitle(plot, "No lot has a conversion factor (no starting sugar or no alcohol to divide): nothing to draw.");
             return plot;
         }
 
-        // Bins of 0.005 % v/v per °Brix: fine enough to show a shoulder, coarse enough for a few dozen lots per season.
-        const double binWidth = 0.005;
-        double lo = Math.Floor(values.Min() / binWidth) * binWidth, hi = (Math.Floor(values.Max() / binWidth) + 1) * binWidth;
-        var hist = ScottPlot.Statistics.Histogram.WithBinSize(binWidth, lo, hi);
-        hist.AddRange(values);
-        var bars = plot.Add.Histogram(hist, ChartPalette.ForIndex(0).WithAlpha(0.8));
-        bars.BarWidthFraction = 0.9;
-        double median = Descriptive.Median(values);
+        var below = new double[h.Bins];
+        for (int s = 0; s < h.Strains.Count; s++)
+        {
+            var bars = new List<Bar>();
+            for (int i = 0; i < h.Bins; i++)
+            {
+                int n = h.Counts[s][i];
+                if (n == 0)
+                {
+                    continue;
+                }
+
+                bars.Add(new Bar
+                {
+                    Position = h.Low + ((i + 0.5) * h.BinWidth),
+                    ValueBase = below[i],
+                    Value = below[i] + n,
+                    Size = h.BinWidth * 0.9,
+                    FillColor = ChartPalette.ForIndex(s).WithAlpha(0.85),
+                    LineWidth = 0,
+                });
+                below[i] += n;
+            }
+
+            if (bars.Count > 0)
+            {
+                var plotted = plot.Add.Bars(bars);
+                plotted.LegendText = h.Strains[s];
+            }
+        }
+
+        double median = review.Figures.PooledFactorMedian;
         var line = plot.Add.VerticalLine(median, 3, ChartPalette.Reference, LinePattern.Dashed);
         line.LegendText = "median of all lots " + median.ToString("0.000", System.Globalization.CultureInfo.InvariantCulture);
         ChartStyle.ShowLegend(plot, Alignment.UpperRight);
-        plot.Axes.SetLimitsX(lo - binWidth, hi + binWidth);
-        plot.Axes.SetLimitsY(0, hist.Counts.Max() * 1.15);
+        double hi = h.Low + (h.Bins * h.BinWidth);
+        plot.Axes.SetLimitsX(h.Low - h.BinWidth, hi + h.BinWidth);
+        plot.Axes.SetLimitsY(0, Math.Max(1, below.Max()) * 1.15);
         return plot;
     }
 
-    /// <summary>The review's lots by strain (ordinal), each strain's lots in review order; one pass instead of one per strain.</summary>
-    private static ILookup<string, LotConversion> ByStrain(ReviewResult review) => GroupsOf(review).Lots;
+    /// <summary>The review's lots by strain, each strain's lots in review order.</summary>
+    private static ILookup<string, LotReview> ByStrain(ReviewResult review) => review.LotReviews.ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
 
     private static SugarLines? StrainLinesForChart(ReviewResult review)
     {
@@ -333,10 +341,9 @@ public static class ReviewCharts
     private static string CandidateName(ReviewResult review, string id) =>
         review.HouseFactor.Candidates.FirstOrDefault(c => c.Id == id)?.Name ?? id;
 
-    private static void MarkFlagged(Plot plot, ReviewResult review, IReadOnlyList<LotConversion> lots, Func<LotConversion, double> x, Func<LotConversion, double> y)
+    private static void MarkFlagged(Plot plot, IReadOnlyList<LotReview> lots, Func<LotReview, double> x, Func<LotReview, double> y)
     {
-        var hasStrainFlag = ReviewTables.StrainFlagTest(review);
-        var flagged = lots.Where(l => hasStrainFlag(l) && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
+        var flagged = lots.Where(l => l.HasStrainFlag && double.IsFinite(x(l)) && double.IsFinite(y(l))).ToArray();
         if (flagged.Length == 0)
         {
             return;

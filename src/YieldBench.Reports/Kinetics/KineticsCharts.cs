@@ -1,8 +1,7 @@
 using ScottPlot;
 using SkiaSharp;
-using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
-using YieldBench.Core.Statistics;
+using YieldBench.Core.Review;
 using YieldBench.Reports.Charts;
 
 namespace YieldBench.Reports.Kinetics;
@@ -41,14 +40,14 @@ public static class KineticsCharts
     /// <summary>Workbook sheet the kinetics pictures belong on.</summary>
     public const string Sheet = KineticsSheet.SheetName;
 
-    /// <summary>Renders every kinetics chart into <paramref name="directory"/> and returns the PNG paths, in a stable order.</summary>
-    public static IReadOnlyList<string> Render(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory) =>
-        RenderFiles(review, lots, directory).Select(f => f.Path).ToArray();
+    /// <summary>Renders every kinetics chart of the review into <paramref name="directory"/> and returns the PNG paths, in a stable order.</summary>
+    public static IReadOnlyList<string> Render(ReviewResult review, string directory) =>
+        RenderFiles(review, directory).Select(f => f.Path).ToArray();
 
     /// <summary>As <see cref="Render"/>, with each chart's title for the workbook.</summary>
-    public static IReadOnlyList<ChartFile> RenderFiles(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
+    public static IReadOnlyList<ChartFile> RenderFiles(ReviewResult review, string directory)
     {
-        var (charts, startFirst) = Plan(review, lots, directory);
+        var (charts, startFirst) = Plan(review, directory);
 
         // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
         return charts.Count == 0 ? [] : ChartImage.RenderAll(charts.Select(c => c.Job).ToArray(), startFirst);
@@ -58,27 +57,20 @@ public static class KineticsCharts
     /// The charts <see cref="RenderFiles"/> draws, in their order, each with its file known before it is drawn, and
     /// the indices of those to start first (the two whose cost grows with the lot count).
     /// </summary>
-    internal static (IReadOnlyList<PlannedChart> Charts, IReadOnlyList<int> StartFirst) Plan(KineticsReview review, IReadOnlyList<LotConversion> lots, string directory)
+    internal static (IReadOnlyList<PlannedChart> Charts, IReadOnlyList<int> StartFirst) Plan(ReviewResult review, string directory)
     {
         ArgumentNullException.ThrowIfNull(review);
-        ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(directory);
         var charts = new List<PlannedChart>();
-        if (review.Lots.Count == 0)
+        if (review.Kinetics is not { Lots.Count: > 0 } kinetics)
         {
             return (charts, []);
         }
 
-        // Lots are drawn in the order of the lot records so pages and colours are stable.
-        // Each key's first place (a repeated key keeps its first).
-        var order = new Dictionary<string, int>(lots.Count, StringComparer.Ordinal);
-        for (int i = 0; i < lots.Count; i++)
-        {
-            order.TryAdd(lots[i].Lot.Key, i);
-        }
-
-        var ordered = review.Lots.OrderBy(k => order.GetValueOrDefault(k.LotKey, int.MaxValue)).ThenBy(k => k.LotKey, StringComparer.Ordinal).ToArray();
-        var strains = StrainOrder(ordered, lots);
+        // Lots are drawn in the order of the lot records (the kinetics review keeps it) so pages and colours are stable.
+        var ordered = kinetics.Lots.ToArray();
+        var strains = review.Figures.StrainOrder;
+        var courses = review.Figures.Courses;
 
         // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
         // first when the pages cannot hold every lot, and every lot stays in the Kinetics table.
@@ -105,7 +97,7 @@ public static class KineticsCharts
         }
 
         int strainJob = charts.Count;
-        charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
+        charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains, courses), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
         charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         foreach (var k in ordered.Where(k => k.Flagged).Take(MaxLotCharts))
@@ -115,22 +107,6 @@ public static class KineticsCharts
         }
 
         return (charts, [strainJob, strainJob + 1]);
-    }
-
-    /// <summary>
-    /// Strains in the colour order of every other chart (docs/report-guide.md): most lots in the review first, then code
-    /// (ordinal), as <see cref="ReviewCharts.StrainOrder"/> orders them, so a strain has the same colour everywhere; a
-    /// strain only the logs know comes last, by code. Strains without a log keep their place (and colour) and draw nothing.
-    /// </summary>
-    public static IReadOnlyList<string> StrainOrder(IReadOnlyList<LotKinetics> kinetics, IReadOnlyList<LotConversion> lots)
-    {
-        ArgumentNullException.ThrowIfNull(kinetics);
-        ArgumentNullException.ThrowIfNull(lots);
-        var reviewed = lots.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal)
-            .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal).Select(g => g.Key).ToList();
-        var known = reviewed.ToHashSet(StringComparer.Ordinal);
-        var logOnly = kinetics.Select(k => k.Lot.Strain).Where(s => !known.Contains(s)).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal);
-        return reviewed.Concat(logOnly).ToArray();
     }
 
     /// <summary>Title of overview page <paramref name="page"/> (0-based) of <paramref name="pages"/>, saying when not every lot is shown.</summary>
@@ -226,26 +202,6 @@ public static class KineticsCharts
     /// <summary>At most this many lots per strain that are not flagged are drawn as lines on the strain-curves chart.</summary>
     public const int MaxOrdinaryCurvesPerStrain = 40;
 
-    /// <summary>Time step at which the strain course (median and interquartile range) is taken, h.</summary>
-    public const double CourseStepHours = 6;
-
-    /// <summary>Fewest lots that must be known at a time step for the strain course to be drawn there.</summary>
-    public const int MinCourseLots = 5;
-
-    /// <summary>
-    /// One strain's typical course of sugar remaining (share of the starting °Brix) against days from time zero: the
-    /// quartiles (Hyndman–Fan type 7) at each <see cref="CourseStepHours"/> step over the lots known there.
-    /// </summary>
-    /// <param name="Strain">Strain code.</param>
-    /// <param name="Lots">Lots of the strain with a log and a positive starting sugar.</param>
-    /// <param name="Days">Time of each step, days from time zero.</param>
-    /// <param name="Q1">Lower quartile at each step.</param>
-    /// <param name="Median">Median at each step.</param>
-    /// <param name="Q3">Upper quartile at each step.</param>
-    /// <param name="Counted">Lots known at each step.</param>
-    public sealed record StrainCourse(
-        string Strain, int Lots, IReadOnlyList<double> Days, IReadOnlyList<double> Q1, IReadOnlyList<double> Median, IReadOnlyList<double> Q3, IReadOnlyList<int> Counted);
-
     /// <summary>The lots the strain-curves chart draws as lines.</summary>
     /// <param name="Flagged">Every flagged lot, in review order.</param>
     /// <param name="Sampled">The other lots drawn: per strain at most <see cref="MaxOrdinaryCurvesPerStrain"/>, evenly spaced in review order.</param>
@@ -254,178 +210,6 @@ public static class KineticsCharts
     {
         /// <summary>Lots drawn as lines.</summary>
         public int Drawn => Flagged.Count + Sampled.Count;
-    }
-
-    /// <summary>
-    /// The strain course of <paramref name="lots"/> (one strain's lots). A lot is known at a step from its first reading
-    /// to its last, by straight-line interpolation between readings; after its last reading it stays known at that
-    /// reading only if it reached dry (a dry wine stays dry), while a log that stopped short of dry says nothing about
-    /// later times. The course is drawn over the first unbroken run of steps where at least
-    /// <see cref="MinCourseLots"/> lots and at least half of the strain's lots are known, so a few long logs cannot make
-    /// the tail look like the strain.
-    /// </summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
-    public static StrainCourse Course(string strain, IReadOnlyList<LotKinetics> lots)
-    {
-        ArgumentNullException.ThrowIfNull(strain);
-        ArgumentNullException.ThrowIfNull(lots);
-        var usable = lots.Where(k => k.StartingBrix > 0 && k.Sugar.Count > 0).ToArray();
-        var empty = new StrainCourse(strain, usable.Length, [], [], [], [], []);
-        if (usable.Length == 0)
-        {
-            return empty;
-        }
-
-        double first = usable.Min(k => k.Sugar[0].Hours), last = usable.Max(k => k.Sugar[^1].Hours);
-        int j0 = (int)Math.Floor(Math.Min(0, first) / CourseStepHours), j1 = (int)Math.Floor(last / CourseStepHours);
-        int steps = j1 - j0 + 1;
-
-        // Each lot is "live" over the steps its log spans (interpolated values, gathered per step); a lot that reached
-        // dry then joins the "settled" values at its last reading, which stay until the end and are kept sorted once
-        // rather than re-sorted at every step (at 100,000 lots most of a long course is settled lots).
-        var ranges = new (int From, int To)[usable.Length];
-        var counts = new int[steps];
-        var settleAt = new List<(int Step, double Share)>();
-        bool anyNaN = false;
-        for (int i = 0; i < usable.Length; i++)
-        {
-            var k = usable[i];
-            int from = (int)Math.Ceiling(k.Sugar[0].Hours / CourseStepHours) - j0;
-            int to = (int)Math.Floor(k.Sugar[^1].Hours / CourseStepHours) - j0;
-            ranges[i] = (from, to);
-            for (int j = from; j <= to; j++)
-            {
-                counts[j]++;
-            }
-
-            if (k.HoursToDry is not null && to + 1 < steps)
-            {
-                double share = k.Sugar[^1].Brix / k.StartingBrix;
-                anyNaN |= double.IsNaN(share);
-                settleAt.Add((Math.Max(to + 1, from), share));
-            }
-        }
-
-        var offsets = new int[steps + 1];
-        for (int j = 0; j < steps; j++)
-        {
-            offsets[j + 1] = offsets[j] + counts[j];
-        }
-
-        var values = new double[offsets[steps]];
-        var filled = new int[steps];
-        for (int i = 0; i < usable.Length; i++)
-        {
-            var k = usable[i];
-            var sugar = k.Sugar;
-            int p = 0;
-            for (int j = ranges[i].From; j <= ranges[i].To; j++)
-            {
-                double t = (j + j0) * CourseStepHours;
-                while (p + 1 < sugar.Count && sugar[p + 1].Hours <= t)
-                {
-                    p++;
-                }
-
-                double brix = p + 1 < sugar.Count && sugar[p].Hours < t
-                    ? sugar[p].Brix + ((sugar[p + 1].Brix - sugar[p].Brix) * (t - sugar[p].Hours) / (sugar[p + 1].Hours - sugar[p].Hours))
-                    : sugar[p].Brix;
-                double share = brix / k.StartingBrix;
-                anyNaN |= double.IsNaN(share);
-                values[offsets[j] + filled[j]++] = share;
-            }
-        }
-
-        settleAt.Sort((a, b) => a.Step.CompareTo(b.Step));
-        var settled = new List<double>();
-        int nextSettle = 0;
-        int needed = Math.Max(MinCourseLots, (usable.Length + 1) / 2);
-        var days = new List<double>();
-        var q1 = new List<double>();
-        var median = new List<double>();
-        var q3 = new List<double>();
-        var counted = new List<int>();
-        bool started = false;
-        Span<int> ranks = stackalloc int[6];
-        Span<double> ranked = stackalloc double[6];
-        for (int j = 0; j < steps; j++)
-        {
-            while (nextSettle < settleAt.Count && settleAt[nextSettle].Step <= j)
-            {
-                double share = settleAt[nextSettle++].Share;
-                int at = settled.BinarySearch(share);
-                settled.Insert(at < 0 ? ~at : at, share);
-            }
-
-            int known = counts[j] + settled.Count;
-            if (known < needed)
-            {
-                if (started)
-                {
-                    break;
-                }
-
-                continue;
-            }
-
-            started = true;
-            var live = new Span<double>(values, offsets[j], counts[j]);
-            days.Add((j + j0) * CourseStepHours / 24.0);
-            if (anyNaN)
-            {
-                // Selection compares with < and ==; a sort orders NaN first, as the settled values' binary search does.
-                live.Sort();
-                q1.Add(QuantileOfUnion(live, settled, 0.25));
-                median.Add(QuantileOfUnion(live, settled, 0.5));
-                q3.Add(QuantileOfUnion(live, settled, 0.75));
-            }
-            else
-            {
-                // The six order statistics around the three quartiles, by selection: the step's live values need not be sorted.
-                for (int q = 0; q < 3; q++)
-                {
-                    var (lo, hi, _) = QuantileRanks(known, QuartileProbabilities[q]);
-                    ranks[2 * q] = lo;
-                    ranks[(2 * q) + 1] = hi;
-                }
-
-                UnionSelection.OrderStatistics(live, settled, ranks, ranked);
-                q1.Add(Interpolated(known, 0.25, ranked[0], ranked[1]));
-                median.Add(Interpolated(known, 0.5, ranked[2], ranked[3]));
-                q3.Add(Interpolated(known, 0.75, ranked[4], ranked[5]));
-            }
-
-            counted.Add(known);
-        }
-
-        return new StrainCourse(strain, usable.Length, days, q1, median, q3, counted);
-    }
-
-    private static readonly double[] QuartileProbabilities = [0.25, 0.5, 0.75];
-
-    /// <summary>
-    /// The type-7 quantile (as <see cref="Descriptive.QuantileOfSorted"/>) of the union of two ascending samples,
-    /// without merging them: the two order statistics around h = (n − 1)·p are found by bisection.
-    /// </summary>
-    private static double QuantileOfUnion(ReadOnlySpan<double> a, List<double> b, double p)
-    {
-        var (lo, hi, n) = QuantileRanks(a.Length + b.Count, p);
-        var sortedB = System.Runtime.InteropServices.CollectionsMarshal.AsSpan(b);
-        return Interpolated(n, p, UnionSelection.OfSorted(a, sortedB, lo), UnionSelection.OfSorted(a, sortedB, hi));
-    }
-
-    /// <summary>The 0-based ranks of the two order statistics the type-7 quantile <paramref name="p"/> of <paramref name="n"/> values lies between.</summary>
-    private static (int Lo, int Hi, int N) QuantileRanks(int n, double p)
-    {
-        int lo = (int)Math.Floor((n - 1) * p);
-        return (lo, Math.Min(lo + 1, n - 1), n);
-    }
-
-    /// <summary>The type-7 quantile from the order statistics <paramref name="x"/> (rank ⌊h⌋) and <paramref name="y"/> (the next), h = (n − 1)·p.</summary>
-    private static double Interpolated(int n, double p, double x, double y)
-    {
-        double h = (n - 1) * p;
-        return x + ((h - Math.Floor(h)) * (y - x));
     }
 
     /// <summary>
@@ -482,23 +266,20 @@ public static class KineticsCharts
     }
 
     /// <summary>
-    /// Sugar remaining as a share of the start against days, by strain: each strain's course (<see cref="Course"/>,
+    /// Sugar remaining as a share of the start against days, by strain: each strain's course (<paramref name="courses"/>, in <paramref name="strains"/> order:
     /// median line and interquartile band), every flagged lot as a thin line in its
     /// strain's colour and a bounded sample of the other lots as grey lines (<see cref="SelectCurves"/>); the subtitle
     /// says how many lots are drawn.
     /// </summary>
-    public static Plot StrainOverlay(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
+    public static Plot StrainOverlay(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains, IReadOnlyList<StrainCourse> courses)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(strains);
+        ArgumentNullException.ThrowIfNull(courses);
         var inv = System.Globalization.CultureInfo.InvariantCulture;
         var plot = ChartStyle.NewPlot("Normalised sugar curves by strain", "Days from time zero (inoculation, or first reading)", "Sugar remaining (share of starting °Brix)");
         var selection = SelectCurves(lots, strains);
         ChartStyle.Subtitle(plot, StrainOverlaySubtitle(selection));
-        var byStrain = lots.Where(k => k.StartingBrix > 0 && k.Sugar.Count > 0)
-            .GroupBy(k => k.Lot.Strain, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
-        var courses = strains.Select(s => Course(s, byStrain.GetValueOrDefault(s, []))).ToArray();
 
         // The other lots give context in grey; flagged lots carry their strain's colour. Flagged lots can run to
         // thousands at scale, so their lines fade as they grow in number (FlaggedLineAlpha): together they show where
@@ -510,7 +291,6 @@ public static class KineticsCharts
         }
 
         plot.Add.Plottable(others);
-        var flaggedKeys = selection.Flagged.Select(k => k.LotKey).ToHashSet(StringComparer.Ordinal);
         for (int si = 0; si < strains.Count; si++)
         {
             var mine = selection.Flagged.Where(k => string.Equals(k.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();
@@ -547,8 +327,7 @@ public static class KineticsCharts
                 continue;
             }
 
-            int flagged = byStrain.GetValueOrDefault(strains[si], []).Count(k => flaggedKeys.Contains(k.LotKey));
-            string lotsText = string.Format(inv, "{0:N0} lots, {1:N0} flagged", c.Lots, flagged);
+            string lotsText = string.Format(inv, "{0:N0} lots, {1:N0} flagged", c.Lots, c.Flagged);
             if (c.Days.Count >= 2)
             {
                 var days = c.Days.ToArray();
@@ -577,7 +356,6 @@ public static class KineticsCharts
     }
 
     /// <summary>Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs), coloured by strain.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static Plot RateAgainstSugar(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
     {
         ArgumentNullException.ThrowIfNull(lots);
@@ -626,7 +404,6 @@ public static class KineticsCharts
     /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
     /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
     /// </summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void ForEachRate(LotKinetics k, Action<double, double> point)
     {
         if (k.Dense)

@@ -1,6 +1,5 @@
-using System.Runtime.CompilerServices;
 using ClosedXML.Excel;
-using YieldBench.Core.Conversion;
+using YieldBench.Core.Review.Strains;
 using YieldBench.Core.Kinetics;
 using YieldBench.Reports.Tables;
 using YieldBench.Reports.Workbook;
@@ -29,21 +28,21 @@ public static class KineticsSheet
     public static void Fill(IXLWorksheet sheet, KineticsReview review) => Fill(sheet, review, null);
 
     /// <summary>
-    /// Writes the sheet from row 1; with <paramref name="lots"/>, the strain table also shows each strain's median
+    /// Writes the sheet from row 1; with <paramref name="strains"/> (the strain review), the strain table also shows each strain's median
     /// conversion (alcohol per °Brix, sugar per % alcohol) beside its kinetics.
     /// </summary>
-    public static void Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots) => Fill(sheet, review, lots, null);
+    public static void Fill(IXLWorksheet sheet, KineticsReview review, StrainReview? strains) => Fill(sheet, review, strains, null);
 
     /// <summary>
     /// As the public overloads; with <paramref name="streamed"/>, a table longer than its threshold (the lots of a
     /// large review) is streamed into the finished package instead of becoming ClosedXML cells. Returns the sheet's
     /// last row.
     /// </summary>
-    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed) =>
-        Fill(sheet, review, lots, streamed, null);
+    internal static int Fill(IXLWorksheet sheet, KineticsReview review, StrainReview? strains, StreamedTables? streamed) =>
+        Fill(sheet, review, strains, streamed, null);
 
     /// <summary>As the overload above, with the per-lot table built already (<see cref="KineticsTables.Lots"/> of <paramref name="review"/>) or null to build it.</summary>
-    internal static int Fill(IXLWorksheet sheet, KineticsReview review, IReadOnlyList<LotConversion>? lots, StreamedTables? streamed, ReportTable? lotsTable)
+    internal static int Fill(IXLWorksheet sheet, KineticsReview review, StrainReview? strains, StreamedTables? streamed, ReportTable? lotsTable)
     {
         ArgumentNullException.ThrowIfNull(sheet);
         ArgumentNullException.ThrowIfNull(review);
@@ -62,7 +61,7 @@ public static class KineticsSheet
 
         var widths = new Dictionary<int, int>();
         row++;
-        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, lots), widths, streamed);
+        row = WriteTable(sheet, row, "By strain (median and interquartile range across lots with a log)", KineticsTables.Strains(review, strains), widths, streamed);
         row++;
         row = WriteTable(sheet, row, "By lot (shaded: lots with a flag)", lotsTable ?? KineticsTables.Lots(review), widths, streamed);
         row++;
@@ -97,7 +96,6 @@ public static class KineticsSheet
 
     // Headings up to 24 characters, numbers 10, whole numbers 6, times 16, text its length (read row by row: the
     // per-lot table of a large review is long).
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void TrackWidths(ReportTable table, Dictionary<int, int> widths)
     {
         var w = table.Columns.Select(c => Math.Min(c.Heading.Length, 24)).ToArray();

@@ -1,6 +1,6 @@
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
-using YieldBench.Core.Statistics;
+using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports.Kinetics;
@@ -114,7 +114,6 @@ public static class KineticsTables
     ];
 
     /// <summary>One row per analysed lot; flagged lots are highlighted.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static ReportTable Lots(KineticsReview review)
     {
         ArgumentNullException.ThrowIfNull(review);
@@ -125,7 +124,7 @@ public static class KineticsTables
             var l = k.Logistic.Fit;
             t.Add(
             [
-                k.Lot.Season, k.Lot.LotId, k.Lot.Strain, ReviewTables.LowerName(k.Lot.Colour),
+                k.Lot.Season, k.Lot.LotId, k.Lot.Strain, ReviewTables.ColourName(k.Lot.Colour),
                 k.OriginKind == TimeOrigin.Inoculation ? "inoculation" : "first reading", k.Origin,
                 k.Sugar.Count, k.MedianSpacingHours, k.MaxRateMethod == RateMethod.LocalLinearFit ? "local linear fit" : "between readings",
                 k.StartingBrix, k.FinalBrix, k.MaxRateBrixPerDay, k.MaxRateAt, k.LagHours,
@@ -144,14 +143,13 @@ public static class KineticsTables
     }
 
     /// <summary>
-    /// One row per strain. With <paramref name="lots"/> (the review's conversion measures), the strain's median
-    /// conversion is appended so a sheet shows each strain's whole performance; these medians are order statistics of
-    /// values the conversion review computed, taken here only to join the two tables.
+    /// One row per strain. With <paramref name="strains"/> (the review's strain review), each strain's lots reviewed
+    /// and median conversion are appended from its group summaries, so a sheet shows each strain's whole performance.
     /// </summary>
-    public static ReportTable Strains(KineticsReview review, IReadOnlyList<LotConversion>? lots = null)
+    public static ReportTable Strains(KineticsReview review, StrainReview? strains = null)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var t = new ReportTable(lots is null ? StrainColumns : [.. StrainColumns, .. StrainConversionColumns]);
+        var t = new ReportTable(strains is null ? StrainColumns : [.. StrainColumns, .. StrainConversionColumns]);
         foreach (var s in review.Strains)
         {
             object?[] cells =
@@ -163,15 +161,16 @@ public static class KineticsTables
                 s.PeakTemperatureC.Median, s.PeakTemperatureC.Iqr,
                 s.SluggishShare, s.StuckShare,
             ];
-            if (lots is not null)
+            if (strains is not null)
             {
-                var mine = lots.Where(l => string.Equals(l.Lot.Strain, s.Strain, StringComparison.Ordinal)).ToArray();
+                var factor = strains.Summary(Groupings.Strain, s.Strain, ConversionMeasure.AbvPerBrix);
+                var sugar = strains.Summary(Groupings.Strain, s.Strain, ConversionMeasure.SugarGlPerAbv);
                 cells =
                 [
                     .. cells,
-                    mine.Length,
-                    Descriptive.Median(mine.Select(l => l.AbvPerBrix).Where(double.IsFinite)),
-                    Descriptive.Median(mine.Select(l => l.SugarGlPerAbv).Where(double.IsFinite)),
+                    factor is null ? 0 : factor.N + factor.Missing,
+                    factor?.Median ?? double.NaN,
+                    sugar?.Median ?? double.NaN,
                 ];
             }
 
@@ -212,12 +211,12 @@ public static class KineticsTables
         var t = new ReportTable(FindingColumns);
         foreach (var f in review.Findings)
         {
-            t.Add([f.LotKey, f.Code, f.Message, f.Source?.ToString()]);
+            t.Add([f.Subject, f.Code, f.Message, f.Source?.ToString()]);
         }
 
         foreach (var key in review.LotsWithoutLog)
         {
-            t.Add([key, "no-log", $"Lot {key} has no fermentation log; its kinetics are not shown.", null]);
+            t.Add([key.ToString(), "no-log", $"Lot {key} has no fermentation log; its kinetics are not shown.", null]);
         }
 
         return t;

@@ -40,6 +40,19 @@ public sealed record ReportColumn(string Name, string Heading, CellKind Kind, st
     };
 }
 
+/// <summary>A column and how it reads its value from a row's item: tables are defined by accessors, never by positions.</summary>
+/// <typeparam name="T">The item each row shows.</typeparam>
+/// <param name="Definition">Name, heading, kind and format.</param>
+/// <param name="Value">The cell of an item (string, double (NaN: empty), int, long, bool, DateTime or null).</param>
+public sealed record Column<T>(ReportColumn Definition, Func<T, object?> Value)
+{
+    /// <summary>A column of <typeparamref name="T"/> items.</summary>
+    public Column(string name, string heading, CellKind kind, Func<T, object?> value, string? numberFormat = null)
+        : this(new ReportColumn(name, heading, kind, numberFormat), value)
+    {
+    }
+}
+
 /// <summary>
 /// A table as every renderer sees it: the CSV writer and the workbook writer lay out the same columns and rows, so a
 /// data file and its sheet cannot disagree. Cells hold <see cref="string"/>, <see cref="double"/> (NaN: empty),
@@ -66,6 +79,29 @@ public sealed class ReportTable
         }
 
         Columns = columns;
+    }
+
+    /// <summary>
+    /// A table of one row per item, each cell read by its column's accessor; <paramref name="highlight"/> marks rows to
+    /// shade (null: none).
+    /// </summary>
+    public static ReportTable Of<T>(IReadOnlyList<Column<T>> columns, IEnumerable<T> items, Func<T, bool>? highlight = null)
+    {
+        ArgumentNullException.ThrowIfNull(columns);
+        ArgumentNullException.ThrowIfNull(items);
+        var table = new ReportTable(columns.Select(c => c.Definition).ToArray());
+        foreach (var item in items)
+        {
+            var cells = new object?[columns.Count];
+            for (int c = 0; c < cells.Length; c++)
+            {
+                cells[c] = columns[c].Value(item);
+            }
+
+            table.Add(cells, highlight?.Invoke(item) ?? false);
+        }
+
+        return table;
     }
 
     /// <summary>The columns in their stable order.</summary>

@@ -11,29 +11,26 @@ namespace YieldBench.Reports.Tables;
 internal sealed class SharedTables
 {
     private readonly Lazy<ReportTable> lots;
-    private readonly Lazy<int[]> byStrain;
     private readonly Lazy<ReportTable> lotsByStrain;
     private readonly Lazy<ReportTable?> kineticsLots;
-    private readonly Lazy<Core.Conversion.LotConversion[]> lotsInSheetOrder;
 
     public SharedTables(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
+        Review = review;
         lots = new(() => ReviewTables.Lots(review), LazyThreadSafetyMode.ExecutionAndPublication);
-        byStrain = new(() => ReviewTables.ByStrainIndices(review), LazyThreadSafetyMode.ExecutionAndPublication);
-        lotsByStrain = new(() => lots.Value.Reordered(byStrain.Value), LazyThreadSafetyMode.ExecutionAndPublication);
-        lotsInSheetOrder = new(() => byStrain.Value.Select(i => review.Lots[i]).ToArray(), LazyThreadSafetyMode.ExecutionAndPublication);
+        lotsByStrain = new(() => lots.Value.Reordered(review.Figures.LotsInStrainOrder), LazyThreadSafetyMode.ExecutionAndPublication);
         kineticsLots = new(() => review.Kinetics is { } k ? KineticsTables.Lots(k) : null, LazyThreadSafetyMode.ExecutionAndPublication);
     }
+
+    /// <summary>The review the tables show.</summary>
+    public ReviewResult Review { get; }
 
     /// <summary>One row per lot in input order (data/lots.csv).</summary>
     public ReportTable Lots => lots.Value;
 
-    /// <summary>The same rows in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>).</summary>
+    /// <summary>The same rows in the lots sheet's order (<see cref="ReviewFigures.LotsInStrainOrder"/>).</summary>
     public ReportTable LotsByStrain => lotsByStrain.Value;
-
-    /// <summary>The review's lots in the lots sheet's order (<see cref="ReviewTables.ByStrain"/>), sorted once with the table.</summary>
-    public IReadOnlyList<Core.Conversion.LotConversion> LotsInSheetOrder => lotsInSheetOrder.Value;
 
     /// <summary>Kinetics per lot (data/kinetics.csv and the kinetics sheet), or null without logs.</summary>
     public ReportTable? KineticsLots => kineticsLots.Value;

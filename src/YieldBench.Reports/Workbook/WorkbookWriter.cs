@@ -129,7 +129,7 @@ public static class WorkbookWriter
         ArgumentNullException.ThrowIfNull(review);
         tables ??= new SharedTables(review);
         var streamed = new StreamedTables(streamRowThreshold);
-        var lotsOrder = tables.LotsInSheetOrder;
+        var lotsOrder = ReviewTables.InStrainOrder(review).Select(l => l.Conversion).ToArray();
         byte[] laidOut;
         var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
         using (var wb = new XLWorkbook())
@@ -298,8 +298,8 @@ public static class WorkbookWriter
     public static ScatterChartSpec AlcoholVsSugarChart(IReadOnlyList<LotConversion> lotsByStrain)
     {
         ArgumentNullException.ThrowIfNull(lotsByStrain);
-        string xCol = ColumnLetter(ReviewTables.LotColumns.ToList().FindIndex(c => c.Name == "starting_brix") + 1);
-        string yCol = ColumnLetter(ReviewTables.LotColumns.ToList().FindIndex(c => c.Name == "final_abv") + 1);
+        string xCol = ColumnLetter(ReviewTables.LotColumnNumber(ReviewTables.StartingBrix));
+        string yCol = ColumnLetter(ReviewTables.LotColumnNumber(ReviewTables.FinalAbv));
         var series = new List<ScatterSeriesSpec>();
         int row = 2;
         int index = 0;
@@ -352,24 +352,24 @@ public static class WorkbookWriter
 
     private static void WriteOverview(IXLWorksheet ws, ReviewResult review)
     {
+        var o = review.Overview;
         ws.Column(1).Width = 34;
         ws.Column(2).Width = 22;
         ws.Column(3).Width = 14;
         ws.Column(4).Width = 14;
         int r = 1;
-        SheetLayout.SetHeading(ws.Cell(r++, 1), "YieldBench review", 18);
+        SheetLayout.SetHeading(ws.Cell(r++, 1), o.Title, 18);
         SheetLayout.SetText(ws.Cell(r++, 1), "Tool version " + review.ToolVersion);
         SheetLayout.SetText(ws.Cell(r, 1), "Predicted alcohol here is an estimate, not a label statement; fermentation heat and CO2 are hazards. See Cautions below.");
         ws.Cell(r++, 1).Style.Font.Italic = true;
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Inputs", 13);
-        int leftOut = ReviewTables.RowsLeftOut(review);
-        Pair(ws, ref r, "Input files", review.Inputs.Files.Count);
-        Pair(ws, ref r, "Lots used", review.Lots.Count);
-        Pair(ws, ref r, "Rows left out (see Intake issues)", leftOut);
-        Pair(ws, ref r, "Intake issues", review.Inputs.Issues.Count);
-        Pair(ws, ref r, "Seasons", review.Inputs.Seasons.Count == 0 ? "none" : string.Join(", ", review.Inputs.Seasons));
-        Pair(ws, ref r, "Fermentation logs", review.Inputs.Logs.Count);
+        Pair(ws, ref r, "Input files", o.Inputs.Files);
+        Pair(ws, ref r, "Lots used", o.Inputs.LotsUsed);
+        Pair(ws, ref r, "Rows left out (see Intake issues)", o.Inputs.RowsLeftOut);
+        Pair(ws, ref r, "Intake issues", o.Inputs.Issues);
+        Pair(ws, ref r, "Seasons", o.Inputs.Seasons.Count == 0 ? "none" : string.Join(", ", o.Inputs.Seasons));
+        Pair(ws, ref r, "Fermentation logs", o.Inputs.Logs);
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Strains ranked by conversion adjusted for starting sugar", 13);
         SheetLayout.SetText(ws.Cell(r, 1), "Strain");
@@ -379,10 +379,10 @@ public static class WorkbookWriter
         ws.Range(r, 1, r, 4).Style.Font.Bold = true;
         ws.Range(r, 1, r, 4).Style.Alignment.WrapText = true;
         r++;
-        foreach (var (strain, raw, adjusted) in ReviewTables.RankedStrains(review))
+        foreach (var s in o.Strains.Ranking)
         {
-            SheetLayout.SetText(ws.Cell(r, 1), strain);
-            foreach (var (col, v) in new[] { (2, adjusted?.Factor ?? raw), (3, adjusted?.FactorInterval.Low ?? double.NaN), (4, adjusted?.FactorInterval.High ?? double.NaN) })
+            SheetLayout.SetText(ws.Cell(r, 1), s.Strain);
+            foreach (var (col, v) in new[] { (2, s.Adjusted?.Factor ?? s.RawMedian), (3, s.Adjusted?.FactorInterval.Low ?? double.NaN), (4, s.Adjusted?.FactorInterval.High ?? double.NaN) })
             {
                 if (double.IsFinite(v))
                 {
@@ -394,7 +394,7 @@ public static class WorkbookWriter
             r++;
         }
 
-        foreach (var sentence in review.Strains.Comparison.Sentences.Take(3))
+        foreach (var sentence in o.Strains.Sentences.Take(3))
         {
             SheetLayout.SetText(ws.Cell(r, 1), sentence);
             ws.Cell(r, 1).Style.Alignment.WrapText = true;
@@ -405,19 +405,17 @@ public static class WorkbookWriter
 
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "House conversion factor", 13);
-        var h = review.HouseFactor;
-        if (h.Overall is { } rec)
+        if (o.HouseFactor is { } h)
         {
-            var chosen = h.Candidates.FirstOrDefault(c => c.Id == rec.CandidateId);
-            Pair(ws, ref r, "Recommended", chosen?.Name ?? rec.CandidateId);
-            Pair(ws, ref r, "Backtest", ReviewTables.SchemeName(h.PrimaryScheme));
-            PairNumber(ws, ref r, "Mean absolute error (% v/v)", rec.Metrics.Mae, "0.00");
-            PairNumber(ws, ref r, "Within label tolerance, " + h.Regime.Name, rec.Metrics.ShareWithinTolerance, "0%");
-            PairNumber(ws, ref r, "80 % of errors from (% v/v)", rec.ErrorBand80.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "80 % of errors to (% v/v)", rec.ErrorBand80.High, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors from (% v/v)", rec.ErrorBand95.Low, "+0.00;-0.00;0.00");
-            PairNumber(ws, ref r, "95 % of errors to (% v/v)", rec.ErrorBand95.High, "+0.00;-0.00;0.00");
-            SheetLayout.SetText(ws.Cell(r, 1), rec.Explanation);
+            Pair(ws, ref r, "Recommended", h.Candidate);
+            Pair(ws, ref r, "Backtest", h.Scheme);
+            PairNumber(ws, ref r, "Mean absolute error (% v/v)", h.Mae, "0.00");
+            PairNumber(ws, ref r, "Within label tolerance, " + h.Regime, h.ShareWithinTolerance, "0%");
+            PairNumber(ws, ref r, "80 % band from (% v/v)", h.Band80.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "80 % band to (% v/v)", h.Band80.High, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band from (% v/v)", h.Band95.Low, "+0.00;-0.00;0.00");
+            PairNumber(ws, ref r, "95 % band to (% v/v)", h.Band95.High, "+0.00;-0.00;0.00");
+            SheetLayout.SetText(ws.Cell(r, 1), h.Explanation);
             ws.Cell(r, 1).Style.Alignment.WrapText = true;
             ws.Range(r, 1, r, 4).Merge();
             ws.Row(r).Height = 75;
@@ -425,27 +423,24 @@ public static class WorkbookWriter
         }
         else
         {
-            SheetLayout.SetText(ws.Cell(r++, 1), "No recommendation: " + string.Join(" ", h.Explanation.DefaultIfEmpty("too few lots to choose.")));
+            SheetLayout.SetText(ws.Cell(r++, 1), "No recommendation: " + string.Join(" ", o.NoRecommendation.DefaultIfEmpty("too few lots to choose.")));
         }
 
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Lots to look at", 13);
-        // Each lot's worst flag, looked up once (a flagged lot is one with any flag).
-        var worst = review.Lots.Select(l => ReviewTables.LotSeverity(review, l)).Where(s => s is not null).ToArray();
-        Pair(ws, ref r, "Flagged lots, strain review or kinetics (highlighted on Lots)", worst.Length);
-        foreach (var severity in new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note })
+        Pair(ws, ref r, "Flagged lots, strain review or kinetics (highlighted on Lots)", o.Lots.Flagged);
+        foreach (var c in o.Lots.ByWorstSeverity)
         {
-            int n = worst.Count(s => s == severity);
-            Pair(ws, ref r, "  worst flag: " + ReviewTables.SeverityName(severity) + " (see Follow-up)", n);
+            Pair(ws, ref r, "  worst flag: " + ReviewTexts.Severity(c.Severity) + " (see Follow-up)", c.Lots);
         }
 
-        if (review.Kinetics is { } k)
+        if (o.Kinetics is { } k)
         {
-            Pair(ws, ref r, "  with a kinetics flag (see Kinetics)", k.Lots.Count(x => x.Flagged));
+            Pair(ws, ref r, "  with a kinetics flag (see Kinetics)", k.Flagged);
         }
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Cautions", 13);
-        foreach (var caution in ReportTexts.Cautions)
+        foreach (var caution in o.Cautions)
         {
             SheetLayout.SetText(ws.Cell(r, 1), caution);
             ws.Cell(r, 1).Style.Alignment.WrapText = true;
@@ -513,6 +508,25 @@ public static class WorkbookWriter
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Recommendation", 12);
         var rec = SheetLayout.WriteTable(ws, ReviewTables.Recommendations(review), r, 1, freezeAndFilter: false);
         r = rec.LastRow + 2;
+        if (h.Coverage is { } coverage)
+        {
+            SheetLayout.SetHeading(ws.Cell(r++, 1), "How often the intervals held on a season they had not seen (" + coverage.Method + ")", 12);
+            var covered = SheetLayout.WriteTable(ws, ReviewTables.IntervalCoverage(review), r, 1, freezeAndFilter: false);
+            r = covered.LastRow + 2;
+        }
+
+        if (h.FlaggedLots.Count > 0)
+        {
+            SheetLayout.SetHeading(ws.Cell(r++, 1), h.FlaggedLotsIncluded
+                ? "Lots flagged as likely errors or not dry (included: the setting to include them is on)"
+                : "Lots flagged as likely errors or not dry (left out of training, selection and intervals; a setting includes them)", 12);
+            var flagged = SheetLayout.WriteTable(ws, ReviewTables.HouseFactorFlaggedLots(review), r, 1, freezeAndFilter: false);
+            r = flagged.LastRow + 2;
+            SheetLayout.SetHeading(ws.Cell(r++, 1), "Both versions: flagged lots left out and included", 12);
+            var versions = SheetLayout.WriteTable(ws, ReviewTables.HouseFactorVersions(review), r, 1, freezeAndFilter: false);
+            r = versions.LastRow + 2;
+        }
+
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Every candidate", 12);
         var cand = SheetLayout.WriteTable(ws, ReviewTables.HouseCandidates(review), r, 1, freezeAndFilter: false);
         r = cand.LastRow + 2;
@@ -545,7 +559,7 @@ public static class WorkbookWriter
         SheetLayout.SetText(ws.Cell(r++, 1), "YieldBench " + review.ToolVersion);
         r++;
         SheetLayout.SetHeading(ws.Cell(r++, 1), "Cautions", 12);
-        foreach (var caution in ReportTexts.Cautions)
+        foreach (var caution in ReviewTexts.Cautions)
         {
             SheetLayout.SetText(ws.Cell(r++, 1), caution);
         }

@@ -20,11 +20,24 @@ public class CoreDependencyTests
         // When its references are listed
         var referenced = core.GetReferencedAssemblies().Select(a => a.Name ?? string.Empty).ToArray();
 
-        // Then none is a forbidden package
+        // Then none is a forbidden package, and besides the runtime's own assemblies the only one is MathNet.Numerics
         var offending = referenced.Where(r => Forbidden.Any(f => r.StartsWith(f, StringComparison.OrdinalIgnoreCase))).ToArray();
         Assert.Empty(offending);
-        Assert.Contains("MathNet.Numerics", referenced.Concat(["MathNet.Numerics"]));
+        var packages = referenced.Where(r => !IsRuntime(r)).ToArray();
+        Assert.Equal(["MathNet.Numerics"], packages);
     }
+
+    [Theory]
+    [InlineData("System.Runtime", true)]
+    [InlineData("System.Collections", true)]
+    [InlineData("netstandard", true)]
+    [InlineData("ClosedXML", false)]
+    [InlineData("ScottPlot", false)]
+    public void The_runtime_filter_passes_only_the_runtime_s_own_assemblies(string name, bool runtime) =>
+        Assert.Equal(runtime, IsRuntime(name));
+
+    private static bool IsRuntime(string name) =>
+        name is "System" or "mscorlib" or "netstandard" || name.StartsWith("System.", StringComparison.Ordinal) || name.StartsWith("Microsoft.Win32.", StringComparison.Ordinal);
 
     [Fact]
     public void Core_project_file_lists_only_MathNet_as_a_package()

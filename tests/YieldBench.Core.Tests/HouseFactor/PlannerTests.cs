@@ -6,7 +6,7 @@ namespace YieldBench.Core.Tests.HouseFactor;
 public class PlannerTests
 {
     private static PlanningLine LineWithErrors(double slope, double[] errors) =>
-        new("SX-01", "test", SugarCurve.Line, 0, slope, 100, errors.Order().ToArray(), "test errors");
+        new("SX-01", "test", SugarCurve.Line, 0, slope, 100, errors.Select(e => new SeasonError(e, 2024, "SX-01")).ToArray(), "test errors");
 
     private static double[] SpreadErrors(int n, int seed)
     {
@@ -49,11 +49,11 @@ public class PlannerTests
         // When the highest sugar for 14.0 % at 95 % confidence is asked
         var t = Planner.HighestSugar(line, 14.0, 0.95);
 
-        // Then the prediction at that sugar plus the 95 % upper error is exactly the target,
-        // and at least 95 % of the held-out errors keep the wine at or under 14.0 there
+        // Then the prediction at that sugar plus the 95 % upper error bound is exactly the target,
+        // and about 95 % of the held-out errors (drawn from N(0, 0.2²)) keep the wine at or under 14.0 there
         double predicted = line.Predict(t.HighestBrix);
-        Assert.Equal(14.0, predicted + HeldOutErrors.UpperOfSorted(line.SortedErrors, 0.95), 1e-9);
-        Assert.True(errors.Count(e => predicted + e <= 14.0 + 1e-12) / (double)errors.Length >= 0.95);
+        Assert.Equal(14.0, predicted + line.ErrorModel.Quantile(0.95), 1e-9);
+        Assert.InRange(errors.Count(e => predicted + e <= 14.0 + 1e-12) / (double)errors.Length, 0.93, 0.98);
         Assert.True(t.HighestBrix < 14.0 / 0.59);
     }
 
@@ -100,8 +100,9 @@ public class PlannerTests
     [Fact]
     public void Too_few_errors_for_the_confidence_asked_give_no_answer_and_the_count_needed()
     {
-        var t = Planner.HighestSugar(LineWithErrors(0.6, SpreadErrors(10, 6)), 14.0, 0.95);
+        // Given nine held-out errors (SeasonErrorModel.MinimumErrors is 10)
+        var t = Planner.HighestSugar(LineWithErrors(0.6, SpreadErrors(9, 6)), 14.0, 0.95);
         Assert.True(double.IsNaN(t.HighestBrix));
-        Assert.Equal("too few held-out lots (10) for 95 % confidence; at least 19 are needed", t.Note);
+        Assert.Equal("too few held-out lots (9) for 95 % confidence; at least 10 are needed", t.Note);
     }
 }

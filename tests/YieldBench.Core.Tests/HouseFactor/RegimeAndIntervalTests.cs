@@ -37,20 +37,69 @@ public class RegimeAndIntervalTests
     }
 
     [Fact]
-    public void Interval_bounds_are_the_conformal_order_statistics()
+    public void The_season_error_model_matches_a_one_way_ANOVA_in_R()
     {
-        // Given 19 sorted errors 1..19 (Lei et al. 2018: upper bound r(⌈(n+1)p⌉), lower r(⌊(n+1)p⌋))
-        var e = Enumerable.Range(1, 19).Select(i => (double)i).ToArray();
+        // Given 15 errors in three clusters of 5, 4 and 6 lots (one strain, three seasons)
+        double[] y = [0.12, -0.05, 0.30, 0.08, 0.21, -0.22, -0.10, -0.31, -0.05, 0.05, 0.14, -0.02, 0.20, 0.09, 0.11];
+        int[] season = [.. Enumerable.Repeat(2021, 5), .. Enumerable.Repeat(2022, 4), .. Enumerable.Repeat(2023, 6)];
 
-        // Then the 95 % upper bound is r(19) = 19, the 90 % upper r(18) = 18, the 10 % lower r(2) = 2,
-        // and a 97.5 % bound needs 39 errors, so it is NaN
-        Assert.Equal(19, HeldOutErrors.UpperOfSorted(e, 0.95));
-        Assert.Equal(18, HeldOutErrors.UpperOfSorted(e, 0.90));
-        Assert.Equal(2, HeldOutErrors.LowerOfSorted(e, 0.10));
-        Assert.True(double.IsNaN(HeldOutErrors.UpperOfSorted(e, 0.975)));
-        Assert.Equal(39, HeldOutErrors.MinimumForTwoSided(0.95));
-        Assert.Equal(9, HeldOutErrors.MinimumForTwoSided(0.80));
-        Assert.Equal(19, HeldOutErrors.MinimumForOneSided(0.95));
+        // When the model is fitted
+        var m = SeasonErrorModel.Of(y.Select((e, i) => new SeasonError(e, season[i], "SX-01")).ToArray());
+
+        // Then the mean squares are R's anova(lm(y ~ g)) and the variance components, variance of the mean,
+        // Satterthwaite degrees of freedom and t quantiles follow the formulas in the class's documentation
+        // (R 4.2.2, Debian r-base-core; script: msw, msb from anova(); n0 = (n − Σn²/n)/(G − 1); s2b = (msb − msw)/n0;
+        // V = msw(1 + 1/n) + s2b(1 + Σn²/n²); nu by Satterthwaite; mean(y) + qt(p, nu)·√V):
+        // msw 0.0116858333333333, s2b 0.0216214527027027, Var(mean) 0.00817839714714715, V 0.0414856831831832,
+        // nu 3.27440274698774, q10 −0.289504526648777, q90 0.36283785998211, q97.5 0.655195706517553
+        Assert.Equal(15, m.Count);
+        Assert.Equal(3, m.Clusters);
+        Assert.Equal(0.0366666666666667, m.Mean, 1e-12);
+        Assert.Equal(0.0116858333333333, m.WithinVariance, 1e-12);
+        Assert.Equal(0.0216214527027027, m.BetweenVariance, 1e-12);
+        Assert.Equal(0.00817839714714715, m.VarianceOfMean, 1e-12);
+        Assert.Equal(0.0414856831831832, m.PredictiveSd * m.PredictiveSd, 1e-12);
+        Assert.Equal(3.27440274698774, m.DegreesOfFreedom, 1e-9);
+        Assert.Equal(-0.289504526648777, m.Quantile(0.10), 1e-7);
+        Assert.Equal(0.36283785998211, m.Quantile(0.90), 1e-7);
+        Assert.Equal(0.655195706517553, m.Quantile(0.975), 1e-7);
+    }
+
+    [Fact]
+    public void On_balanced_clusters_the_variance_components_equal_REML_in_nlme()
+    {
+        // Given three clusters of four errors
+        double[] y = [0.1, 0.3, 0.2, 0.25, -0.2, -0.05, -0.15, -0.1, 0.05, 0.0, 0.12, 0.08];
+
+        // When the model is fitted
+        var m = SeasonErrorModel.Of(y.Select((e, i) => new SeasonError(e, 2020 + (i / 4), "SX-01")).ToArray());
+
+        // Then (balanced, positive) the ANOVA estimates are the REML ones: R 4.2.2 + nlme 3.1.162,
+        // VarCorr(lme(y ~ 1, random = ~1|g, method = "REML")) → between 0.027425693583919, within 0.00467222225318778
+        // (the optimiser's tolerance allows 1e-7)
+        Assert.Equal(0.027425693583919, m.BetweenVariance, 1e-7);
+        Assert.Equal(0.00467222225318778, m.WithinVariance, 1e-7);
+    }
+
+    [Fact]
+    public void One_season_gives_the_ordinary_prediction_interval_and_too_few_errors_give_none()
+    {
+        // Given 12 errors of one season
+        double[] y = [0.1, -0.2, 0.05, 0.3, -0.1, 0.0, 0.15, -0.25, 0.2, -0.05, 0.1, -0.15];
+        var m = SeasonErrorModel.Of(y.Select(e => new SeasonError(e, 2024, "SX-01")).ToArray());
+
+        // Then the between variance is 0, the within variance is the sample variance, ν = n − 1, and the 90 % bound
+        // is mean + qt(0.9, 11)·s·√(1 + 1/n) (R 4.2.2: mean 0.0125, sd 0.16804355496, qt(0.9, 11) = 1.36343031802)
+        Assert.Equal(0, m.BetweenVariance);
+        Assert.Equal(11, m.DegreesOfFreedom);
+        double sd = Math.Sqrt(y.Sum(v => (v - y.Average()) * (v - y.Average())) / 11);
+        Assert.Equal(0.16804355496, sd, 1e-10);
+        Assert.Equal(0.0125 + (1.36343031802 * sd * Math.Sqrt(1 + (1.0 / 12))), m.Quantile(0.9), 1e-8);
+
+        // And nine errors are too few for an interval
+        var few = SeasonErrorModel.Of(y.Take(9).Select(e => new SeasonError(e, 2024, "SX-01")).ToArray());
+        Assert.False(few.HasIntervals);
+        Assert.True(double.IsNaN(few.Band(0.8).Low));
     }
 
     [Fact]

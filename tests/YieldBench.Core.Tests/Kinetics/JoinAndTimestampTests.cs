@@ -66,13 +66,13 @@ public class JoinAndTimestampTests
         var review = KineticsAnalysis.Run(lots, logs, KineticsSettings.Default);
 
         // Then 2025/T-101 joins by key, T-202 by its unique id; the seasonless T-101 is ambiguous and T-999 matches nothing
-        Assert.Equal(["2025/T-101", "2025/T-202"], review.Lots.Select(l => l.LotKey));
-        Assert.Equal(["T-101", "2025/T-999"], review.LogsWithoutLot.Select(g => g.Key));
-        Assert.Equal(["2024/T-101", "2025/T-303"], review.LotsWithoutLog);
+        Assert.Equal([new LotKey(2025, "T-101"), new LotKey(2025, "T-202")], review.Lots.Select(l => l.LotKey));
+        Assert.Equal(["T-101", "2025/T-999"], review.LogsWithoutLot.Select(g => g.Name));
+        Assert.Equal([new LotKey(2024, "T-101"), new LotKey(2025, "T-303")], review.LotsWithoutLog);
         Assert.Equal(
             "The log for lot T-101 names no season and 2 seasons have a lot T-101 (2024, 2025); give the season in the log so it can be joined.",
             Assert.Single(review.Findings, f => f.Code == "log-matches-several-lots").Message);
-        Assert.Single(review.Findings, f => f.Code == "log-without-lot" && f.LotKey == "2025/T-999");
+        Assert.Single(review.Findings, f => f.Code == "log-without-lot" && f.LotKey == new LotKey(2025, "T-999"));
     }
 
     [Fact]

@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Review.Strains;
 
@@ -20,7 +21,7 @@ public class StrainReviewerTests
         var (cellar, review) = Scenario.Value;
 
         // When the flags are collected per lot
-        var codes = review.Flags.Where(f => f.LotKey is not null).GroupBy(f => f.LotKey!).ToDictionary(g => g.Key, g => g.Select(f => f.Code).ToHashSet());
+        var codes = review.Flags.Where(f => f.LotKey is not null).GroupBy(f => f.LotKey!.Value).ToDictionary(g => g.Key, g => g.Select(f => f.Code).ToHashSet());
 
         // Then each planted lot carries the code planted for it
         var missed = cellar.Planted.Where(p => !codes.TryGetValue(p.Key, out var c) || !c.Contains(p.Value)).Select(p => p.Key + " " + p.Value).ToArray();
@@ -36,7 +37,7 @@ public class StrainReviewerTests
         var (cellar, review) = Scenario.Value;
 
         // When their high-factor and low-factor flags are read
-        var byKey = review.Flags.Where(f => f.Code is FlagCodes.HighFactor or FlagCodes.LowFactor).ToDictionary(f => f.LotKey!, f => f.Code);
+        var byKey = review.Flags.Where(f => f.Code is FlagCodes.HighFactor or FlagCodes.LowFactor).ToDictionary(f => f.LotKey!.Value, f => f.Code);
 
         // Then none points the wrong way and at least three in four are caught by the modified z as well
         Assert.All(byKey.Where(k => cellar.Shifted.ContainsKey(k.Key)), k => Assert.Equal(cellar.Shifted[k.Key] ? FlagCodes.HighFactor : FlagCodes.LowFactor, k.Value));
@@ -51,7 +52,7 @@ public class StrainReviewerTests
         int clean = cellar.Clean.Count;
 
         // When flags on clean lots are counted by code
-        var onClean = review.Flags.Where(f => f.LotKey is not null && cellar.Clean.Contains(f.LotKey)).ToArray();
+        var onClean = review.Flags.Where(f => f.LotKey is { } key && cellar.Clean.Contains(key)).ToArray();
         double Rate(string code) => (double)onClean.Count(f => f.Code == code) / clean;
 
         // Then |modified z| > 3.5 and |line residual| > 3.5 stay near their normal-theory rate (0.05 %), and the inner
@@ -200,10 +201,10 @@ public class StrainReviewerTests
         var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
 
         // Then B3 is low against all lots, the reason names the pooled reference, and the score says so
-        var flag = review.Flags.Single(f => f.LotKey == "2024/B3" && f.Code == FlagCodes.LowFactor);
+        var flag = review.Flags.Single(f => f.LotKey == new LotKey(2024, "B3") && f.Code == FlagCodes.LowFactor);
         Assert.Equal(StrainReviewer.Pooled, flag.ReferenceGroup);
         Assert.Contains("strain Y-09 has fewer than 5 lots, so all lots are the reference", flag.Reason, StringComparison.Ordinal);
-        Assert.Equal(StrainReviewer.Pooled, review.Scores.Single(s => s.LotKey == "2024/B3").ReferenceGroup);
+        Assert.Equal(StrainReviewer.Pooled, review.Scores.Single(s => s.LotKey == new LotKey(2024, "B3")).ReferenceGroup);
         Assert.Contains(review.Notes, n => n.StartsWith("Strain Y-09 has 3 lot(s)", StringComparison.Ordinal));
     }
 
@@ -224,11 +225,11 @@ public class StrainReviewerTests
         var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
 
         // Then the scale is the scaled mean absolute deviation, √(π/2)·mean|x − median|, and the far lot is low
-        var score = review.Scores.Single(s => s.LotKey == "2024/E8");
+        var score = review.Scores.Single(s => s.LotKey == new LotKey(2024, "E8"));
         Assert.Equal("mean absolute deviation", score.ScaleName);
         double expected = Math.Sqrt(Math.PI / 2) * factors.Sum(f => Math.Abs(f - (14.0 / 24.0))) / 9;
         Assert.Equal(expected, score.ReferenceScale, 12);
-        Assert.Contains(review.Flags, f => f.LotKey == "2024/E8" && f.Code == FlagCodes.LowFactor);
+        Assert.Contains(review.Flags, f => f.LotKey == new LotKey(2024, "E8") && f.Code == FlagCodes.LowFactor);
     }
 
     [Fact]
@@ -238,7 +239,7 @@ public class StrainReviewerTests
         var (_, review) = Scenario.Value;
 
         // Then its reason shows the recorded and the swapped reading
-        var flag = review.Flags.Single(f => f.LotKey == "2024/P-SWAP-1" && f.Code == FlagCodes.PossibleTransposedDigits);
+        var flag = review.Flags.Single(f => f.LotKey == new LotKey(2024, "P-SWAP-1") && f.Code == FlagCodes.PossibleTransposedDigits);
         Assert.StartsWith("the starting sugar was recorded as 42.2 °Brix; with two neighbouring digits swapped (24.2 °Brix)", flag.Reason, StringComparison.Ordinal);
         Assert.Equal(FlagSeverity.LikelyError, flag.Severity);
         Assert.Equal(FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip", flag.FollowUp);
@@ -273,7 +274,7 @@ public class StrainReviewerTests
             .ThenBy(f => FlagCodes.All.ToList().IndexOf(f.Code))
             .ToArray();
         Assert.Equal(expected, review.Flags);
-        Assert.Equal(review.Flags.Count, review.Flags.Select(f => (f.LotKey ?? f.Strain + f.Season, f.Code)).Distinct().Count());
+        Assert.Equal(review.Flags.Count, review.Flags.Select(f => (f.LotKey?.ToString() ?? f.Strain + f.Season, f.Code)).Distinct().Count());
     }
 
     [Fact]
@@ -314,7 +315,7 @@ public class StrainReviewerTests
         Assert.Equal((6, 1), (row.N, row.Missing));
         Assert.Equal("1 lot(s) without a value", row.Note);
         Assert.Contains(review.Notes, n => n.StartsWith("1 lot(s) have no conversion factor", StringComparison.Ordinal));
-        Assert.DoesNotContain(review.Scores, s => s.LotKey == "2024/G6");
+        Assert.DoesNotContain(review.Scores, s => s.LotKey == new LotKey(2024, "G6"));
     }
 
     [Fact]
@@ -331,7 +332,7 @@ public class StrainReviewerTests
         var odd = LotBuilder.Lot("H-SG", 2024, "Y-05", 20, Math.Round(SyntheticCellar.Intercept + (SyntheticCellar.Slope * trueBrix), 2)) with
         {
             StartingSugar = YieldBench.Core.Units.SugarReading.FromSpecificGravity(1.130),
-            StartingSugarScale = YieldBench.Core.Units.SugarScale.SpecificGravity,
+            RecordedStartingSugar = new YieldBench.Core.Units.RecordedSugar(1.130, YieldBench.Core.Units.SugarScale.SpecificGravity),
         };
         lots.Add(LotBuilder.Convert(odd));
 
@@ -339,7 +340,7 @@ public class StrainReviewerTests
         var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
 
         // Then the swap is found in SG digits
-        var flag = review.Flags.Single(f => f.LotKey == "2024/H-SG" && f.Code == FlagCodes.PossibleTransposedDigits);
+        var flag = review.Flags.Single(f => f.LotKey == new LotKey(2024, "H-SG") && f.Code == FlagCodes.PossibleTransposedDigits);
         Assert.StartsWith("the starting sugar was recorded as 1.130 SG; with two neighbouring digits swapped (1.103 SG)", flag.Reason, StringComparison.Ordinal);
         Assert.Equal(trueBrix, flag.ReferenceMedian, 6);
     }

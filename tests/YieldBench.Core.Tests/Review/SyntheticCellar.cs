@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Review.Strains;
 
@@ -29,13 +30,13 @@ internal sealed class SyntheticCellar
     public List<LotConversion> Lots { get; } = [];
 
     /// <summary>Planted lot key → the code that must be raised for it.</summary>
-    public Dictionary<string, string> Planted { get; } = new(StringComparer.Ordinal);
+    public Dictionary<LotKey, string> Planted { get; } = [];
 
     /// <summary>Lots shifted by ±<see cref="PlantedShift"/>: key → true when shifted up.</summary>
-    public Dictionary<string, bool> Shifted { get; } = new(StringComparer.Ordinal);
+    public Dictionary<LotKey, bool> Shifted { get; } = [];
 
     /// <summary>Keys of lots that carry no planted fault.</summary>
-    public HashSet<string> Clean { get; } = new(StringComparer.Ordinal);
+    public HashSet<LotKey> Clean { get; } = [];
 
     /// <summary>The strain and season planted with a drift of −0.3 % v/v on every lot.</summary>
     public (string Strain, int Season) Drift { get; } = ("Y-22", 2025);
@@ -63,7 +64,7 @@ internal sealed class SyntheticCellar
                         abv -= 0.3;
                     }
 
-                    string key = season + "/" + id;
+                    var key = new LotKey(season, id);
                     bool plant = !drift && random.NextDouble() < 0.1;
                     if (plant)
                     {
@@ -88,7 +89,7 @@ internal sealed class SyntheticCellar
         {
             var lot = LotBuilder.Lot(id, 2024, strain, recordedBrix, Math.Round(abv, 2), "tank", residualSugarGl: residualSugar);
             cellar.Lots.Add(LotBuilder.Convert(lot));
-            cellar.Planted["2024/" + id] = code;
+            cellar.Planted[new LotKey(2024, id)] = code;
         }
 
         double Abv(double brix, string strain) => Intercept + (Slope * brix) + Effects[strain];

@@ -110,8 +110,8 @@ public sealed class CsvTextTests
         var lines = CsvText.Write(ReviewTables.IntakeIssues(review)).Split("\r\n");
 
         // Then the header is the contract and values are neutralised
-        Assert.Equal("file,sheet,row,column,value,code,message", lines[0]);
-        Assert.Equal("lots-2025.csv,,30,final_abv,\"13,2%\",not-a-number,\"'13,2%' is not a number; write 13.2.\"", lines[1]);
-        Assert.Equal("lots-2024.csv,,9,strain,'@ST-A,strain-looks-like-formula,'+ check the strain cell", lines[2]);
+        Assert.Equal("file,sheet,row,column,value,code,severity,message", lines[0]);
+        Assert.Equal("lots-2025.csv,,30,final_abv,\"13,2%\",not-a-number,error,\"'13,2%' is not a number; write 13.2.\"", lines[1]);
+        Assert.Equal("lots-2024.csv,,9,strain,'@ST-A,strain-looks-like-formula,warning,'+ check the strain cell", lines[2]);
     }
 }

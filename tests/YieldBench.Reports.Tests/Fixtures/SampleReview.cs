@@ -13,7 +13,9 @@ internal static class SampleReview
 {
     public const string InjectedNote = "=HYPERLINK(\"http://example.invalid\",\"click\")";
 
-    public static ReviewResult Build(bool withIssues = true)
+    public static ReviewResult Build(bool withIssues = true) => Build(withIssues, []);
+
+    private static ReviewResult Build(bool withIssues, IReadOnlyList<FermentationLog> logs)
     {
         var lots = new List<Lot>();
         var rng = new Random(7);
@@ -64,6 +66,7 @@ internal static class SampleReview
         var inputs = new SeasonSet
         {
             Lots = lots,
+            Logs = logs,
             Issues = issues,
             Files = [new InputFile("lots-2024.csv", new string('a', 64), 1234), new InputFile("lots-2025.csv", new string('b', 64), 2345)],
         };
@@ -76,7 +79,6 @@ internal static class SampleReview
     /// </summary>
     public static ReviewResult WithLogs()
     {
-        var review = Build();
         FermentationLog Log(string id, int season, double step, double[] brix, double[] temps) =>
             new(id, season, brix.Select((b, i) => new LogReading(Kinetics.KineticsReportData.Start.AddHours(i * step), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
         var logs = new[]
@@ -84,6 +86,6 @@ internal static class SampleReview
             Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
             Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
         };
-        return review with { Kinetics = YieldBench.Core.Kinetics.KineticsAnalysis.Run(review.Lots, logs, YieldBench.Core.Kinetics.KineticsSettings.Default) };
+        return Build(withIssues: true, logs);
     }
 }

@@ -19,13 +19,13 @@ public sealed class KineticsChartsTests : IDisposable
     public void Every_chart_is_written_as_a_decodable_non_blank_png_of_the_report_size()
     {
         // Given the invented review (three flagged lots: hot R-02, stuck W-03, and the dense R-04 if flagged)
-        var (lots, review) = KineticsReportData.Build();
+        var review = KineticsReportData.FullReview();
 
         // When the charts are rendered
-        var paths = KineticsCharts.Render(review, lots, dir);
+        var paths = KineticsCharts.Render(review, dir);
 
         // Then the overview, the strain overlay, the rate chart and one chart per flagged lot exist, each 1600×1000 and drawn on
-        var flagged = review.Lots.Where(l => l.Flagged).Select(l => $"kinetics-lot-2025-{l.Lot.LotId}.png");
+        var flagged = review.Kinetics!.Lots.Where(l => l.Flagged).Select(l => $"kinetics-lot-2025-{l.Lot.LotId}.png");
         Assert.Equal(
             new[] { "kinetics-overview-1.png", "kinetics-strain-curves.png", "kinetics-rate-vs-sugar.png" }.Concat(flagged),
             paths.Select(Path.GetFileName));
@@ -43,10 +43,10 @@ public sealed class KineticsChartsTests : IDisposable
     public void Lot_charts_draw_a_title_and_the_overview_draws_every_panel()
     {
         // Given the review
-        var (lots, review) = KineticsReportData.Build();
+        var review = KineticsReportData.FullReview();
 
         // When rendered
-        var paths = KineticsCharts.Render(review, lots, dir);
+        var paths = KineticsCharts.Render(review, dir);
 
         // Then the lot chart has dark title pixels, and each of the four overview panels (3 × 2 grid: √(1.6·4) → 3 columns) has ink while the unused sixth has none
         byte[] lot = File.ReadAllBytes(paths.Single(p => p.EndsWith("W-03.png", StringComparison.Ordinal)));
@@ -66,11 +66,11 @@ public sealed class KineticsChartsTests : IDisposable
     public void Rendering_twice_gives_identical_files()
     {
         // Given the review
-        var (lots, review) = KineticsReportData.Build();
+        var review = KineticsReportData.FullReview();
 
         // When rendered into two folders
-        var a = KineticsCharts.Render(review, lots, Path.Combine(dir, "a"));
-        var b = KineticsCharts.Render(review, lots, Path.Combine(dir, "b"));
+        var a = KineticsCharts.Render(review, Path.Combine(dir, "a"));
+        var b = KineticsCharts.Render(review, Path.Combine(dir, "b"));
 
         // Then the bytes match file for file
         Assert.Equal(a.Count, b.Count);

@@ -2,6 +2,7 @@ using System.Globalization;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Review;
 using YieldBench.Core.Units;
 
 namespace YieldBench.Reports.Tests.Kinetics;
@@ -29,8 +30,21 @@ internal static class KineticsReportData
     public static FermentationLog Log(string id, double stepHours, double[] brix, double[] temps) =>
         new(id, 2025, brix.Select((b, i) => new LogReading(Start.AddHours(i * stepHours), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
 
+    /// <summary>The lots and logs of <see cref="Build"/> reviewed whole (conversion, strain review, kinetics, figures).</summary>
+    public static ReviewResult FullReview()
+    {
+        var (lots, logs) = LotsAndLogs();
+        return ReviewRunner.Run(new SeasonSet { Lots = lots.Select(l => l.Lot).ToArray(), Logs = logs }, new ReviewSettings(), "test");
+    }
+
     /// <summary>Four lots: a healthy red, a hot red, a stuck white, and a dense probe-logged red; plus a lot with no log.</summary>
     public static (IReadOnlyList<LotConversion> Lots, KineticsReview Review) Build()
+    {
+        var (lots, logs) = LotsAndLogs();
+        return (lots, KineticsAnalysis.Run(lots, logs, KineticsSettings.Default));
+    }
+
+    private static (IReadOnlyList<LotConversion> Lots, IReadOnlyList<FermentationLog> Logs) LotsAndLogs()
     {
         var lots = new[]
         {
@@ -49,6 +63,6 @@ internal static class KineticsReportData
             Log("W-03", 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
             Log("R-04", 1, dense, denseT),
         };
-        return (lots, KineticsAnalysis.Run(lots, logs, KineticsSettings.Default));
+        return (lots, logs);
     }
 }

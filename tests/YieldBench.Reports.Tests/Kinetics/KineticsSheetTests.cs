@@ -88,12 +88,12 @@ public class KineticsSheetTests
     public void Given_the_conversion_measures_the_strain_table_shows_each_strains_median_conversion()
     {
         // Given the review and its lots (every invented lot: 24 °Brix, 14 % v/v, so 14 / 24 = 0.58333 % v/v per °Brix)
-        var (lots, review) = KineticsReportData.Build();
+        var review = KineticsReportData.FullReview();
         using var wb = new XLWorkbook();
         var sheet = wb.AddWorksheet(KineticsSheet.SheetName);
 
-        // When the sheet is filled with the lots
-        KineticsSheet.Fill(sheet, review, lots);
+        // When the sheet is filled with the strain review's summaries
+        KineticsSheet.Fill(sheet, review.Kinetics!, review.Strains);
 
         // Then KX-11 shows 3 lots reviewed (one without a log) and the median conversion
         var header = Find(sheet, "Alcohol per °Brix, median (% v/v per °Brix)");

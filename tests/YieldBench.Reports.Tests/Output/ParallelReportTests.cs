@@ -60,7 +60,7 @@ public sealed class ParallelReportTests
         var output = ReportWriter.Write(review, temp["report"], new SynchronousProgress(steps));
 
         var alone = new List<ChartFile>(ReviewCharts.WriteAll(review, temp["alone"]));
-        alone.AddRange(KineticsCharts.RenderFiles(review.Kinetics!, review.Lots, temp["alone"])
+        alone.AddRange(KineticsCharts.RenderFiles(review, temp["alone"])
             .Select(c => c with { OnOverview = Path.GetFileName(c.Path) == "kinetics-strain-curves.png" }));
         var expected = new Dictionary<string, byte[]>(StringComparer.Ordinal)
         {
@@ -115,7 +115,7 @@ public sealed class ParallelReportTests
     {
         // Given the review, its lots table built in the sheet's order, and the data file's rows reordered for the sheet
         var review = ReviewWithLogs();
-        var built = ReviewTables.Lots(review, ReviewTables.ByStrain(review));
+        var built = ReviewTables.Lots(review, ReviewTables.InStrainOrder(review));
         var shared = new SharedTables(review).LotsByStrain;
 
         // Then they hold the same cells and highlights, row by row
@@ -128,21 +128,6 @@ public sealed class ParallelReportTests
         }
 
         Assert.Contains(true, shared.Highlighted);
-    }
-
-    [Fact]
-    public void The_lots_sheet_order_is_by_strain_season_and_lot_id_with_ties_in_input_order()
-    {
-        // Given lots in a shuffled order with some lots twice (equal keys), and the order written as a stable sort
-        var review = SampleReview.Build();
-        var lots = review.Lots.Reverse().Concat(review.Lots.Where((_, i) => i % 5 == 0)).ToArray();
-        var shuffled = review with { Lots = lots };
-        var expected = lots.Select((l, i) => (l, i)).OrderBy(x => x.l.Lot.Strain, StringComparer.Ordinal).ThenBy(x => x.l.Lot.Season)
-            .ThenBy(x => x.l.Lot.LotId, StringComparer.Ordinal).Select(x => x.i).ToArray();
-
-        // Then the sheet order gives the same indices (the repeated lots in the order they came)
-        Assert.Equal(expected, ReviewTables.ByStrainIndices(shuffled));
-        Assert.Equal(expected.Select(i => lots[i]), ReviewTables.ByStrain(shuffled));
     }
 
     [Fact]

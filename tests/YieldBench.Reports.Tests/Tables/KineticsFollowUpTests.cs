@@ -13,19 +13,9 @@ public sealed class KineticsFollowUpTests
 {
     // Invented logs for two sample lots: L005 (2024, lab residual sugar 12 g/L) stalls at 10.6 °Brix for days; L020
     // (2025, dry) ferments through 41 °C, above the default danger threshold for a lot of unknown colour.
-    private static ReviewResult ReviewWithLogs()
-    {
-        var review = SampleReview.Build();
-        var logs = new[]
-        {
-            Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
-            Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
-        };
-        return review with { Kinetics = KineticsAnalysis.Run(review.Lots, logs, KineticsSettings.Default) };
-    }
-
-    private static FermentationLog Log(string id, int season, double stepHours, double[] brix, double[] temps) =>
-        new(id, season, brix.Select((b, i) => new LogReading(KineticsReportData.Start.AddHours(i * stepHours), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
+    // The sample review with invented logs for two lots: L005 (2024, lab residual sugar 12 g/L) stalls at 10.6 °Brix
+    // for days; L020 (2025, dry) ferments through 41 °C, above the default danger threshold for a lot of unknown colour.
+    private static ReviewResult ReviewWithLogs() => SampleReview.WithLogs();
 
     private static IEnumerable<Dictionary<string, object?>> Rows(ReportTable table) =>
         table.Rows.Select(r => table.Columns.Select((c, i) => (c.Name, r[i])).ToDictionary(p => p.Name, p => p.Item2));
@@ -35,7 +25,7 @@ public sealed class KineticsFollowUpTests
     {
         // Given a review whose lot L005 stalled above dry and did not finish by the lab's residual sugar
         var review = ReviewWithLogs();
-        Assert.Contains("stuck", review.Kinetics!.Lots.Single(k => k.LotKey == "2024/L005").Flags);
+        Assert.Contains("stuck", review.Kinetics!.Lots.Single(k => k.LotKey == new LotKey(2024, "L005")).Flags);
 
         // When the follow-up table is built
         var stuck = Rows(ReviewTables.FollowUp(review)).Single(r => (string?)r["lot_id"] == "L005" && (string?)r["code"] == "stuck");
@@ -80,14 +70,14 @@ public sealed class KineticsFollowUpTests
     {
         // Given the review with logs, and lot L020 which the strain review did not flag
         var review = ReviewWithLogs();
-        var l020 = review.Lots.Single(l => l.Lot.Key == "2025/L020");
-        Assert.DoesNotContain(review.Strains.Flags, f => f.LotKey == "2025/L020");
+        var l020 = review.LotReviews.Single(l => l.Key == new LotKey(2025, "L020"));
+        Assert.DoesNotContain(review.Strains.Flags, f => f.LotKey == new LotKey(2025, "L020"));
 
         // When it is asked about
         // Then it is flagged (Lots-sheet highlight, counts) with a check severity, but not a strain-review finding
-        Assert.True(ReviewTables.IsFlagged(review, l020));
-        Assert.Equal(FlagSeverity.Check, ReviewTables.LotSeverity(review, l020));
-        Assert.False(ReviewTables.HasStrainFlag(review, l020));
+        Assert.True(l020.IsFlagged);
+        Assert.Equal(FlagSeverity.Check, l020.WorstSeverity);
+        Assert.False(l020.HasStrainFlag);
     }
 
     [Fact]
@@ -95,16 +85,17 @@ public sealed class KineticsFollowUpTests
     {
         // Given the review with logs
         var review = ReviewWithLogs();
-        var expected = review.Strains.Flags.Where(f => f.LotKey is not null).Select(f => f.LotKey!)
+        var expected = review.Strains.Flags.Where(f => f.LotKey is not null).Select(f => f.LotKey!.Value)
             .Union(review.Kinetics!.Lots.Where(k => k.Flags.Intersect(KineticsFollowUps.Codes).Any()).Select(k => k.LotKey))
-            .Distinct(StringComparer.Ordinal).Count();
+            .Distinct().Count();
 
         // When the console summary is written
         var line = ConsoleSummary.Lines(review, new ReportOutput("out", [], [])).Single(l => l.StartsWith("Lots to look at:", StringComparison.Ordinal));
 
         // Then its count, the overview's count (IsFlagged) and the independent union agree
         Assert.StartsWith($"Lots to look at: {expected} flagged", line, StringComparison.Ordinal);
-        Assert.Equal(expected, review.Lots.Count(l => ReviewTables.IsFlagged(review, l)));
-        Assert.True(expected > review.Lots.Count(l => ReviewTables.HasStrainFlag(review, l)));
+        Assert.Equal(expected, review.LotReviews.Count(l => l.IsFlagged));
+        Assert.Equal(expected, review.Overview.Lots.Flagged);
+        Assert.True(expected > review.LotReviews.Count(l => l.HasStrainFlag));
     }
 }

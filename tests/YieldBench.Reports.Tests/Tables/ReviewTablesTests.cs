@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Data;
 using YieldBench.Reports.Tables;
@@ -42,7 +43,7 @@ public sealed class ReviewTablesTests
         // Then they agree for every lot
         foreach (var row in table.Rows)
         {
-            string key = $"{row[season]}/{row[id]}";
+            var key = new LotKey((int)row[season]!, (string)row[id]!);
             var score = Review.Strains.Scores.Single(s => s.LotKey == key);
             Assert.Equal(score.Z, (double)row[z]!);
         }
@@ -86,7 +87,7 @@ public sealed class ReviewTablesTests
     public void Strains_are_ranked_by_adjusted_conversion()
     {
         // Given a review with an adjusted comparison
-        var ranked = ReviewTables.RankedStrains(Review);
+        var ranked = Review.Figures.Ranking;
 
         // When the factors are read in rank order
         var factors = ranked.Select(r => r.Adjusted!.Factor).ToArray();
@@ -94,5 +95,21 @@ public sealed class ReviewTablesTests
         // Then they fall (ST-B was made to convert best in the sample: 0.600 vs 0.590 and 0.580)
         Assert.Equal(factors.OrderDescending().ToArray(), factors);
         Assert.Equal("ST-B", ranked[0].Strain);
+    }
+
+    [Fact]
+    public void The_house_factor_sheet_names_the_flagged_lots_and_shows_both_versions()
+    {
+        // Given the sample review, whose lot L005 did not finish and L010 holds more alcohol than its sugar can give
+        // When the house factor's flagged lots and its two versions are laid out
+        var flagged = ReviewTables.HouseFactorFlaggedLots(Review);
+        var versions = ReviewTables.HouseFactorVersions(Review);
+
+        // Then both lots are named with their flag, and the overall row of each version counts 34 lots (left out, in use)
+        // and 36 (included)
+        Assert.Equal(["L005", "L010"], flagged.Rows.Select(r => (string)r[flagged.IndexOf("lot_id")]!));
+        Assert.Equal(["not-dry", "above-theoretical-yield"], flagged.Rows.Select(r => (string)r[flagged.IndexOf("codes")]!));
+        var overall = versions.Rows.Where(r => (string)r[versions.IndexOf("strain")]! == "all lots").ToArray();
+        Assert.Equal([("left out", true, 34), ("included", false, 36)], overall.Select(r => ((string)r[0]!, (bool)r[1]!, (int)r[3]!)));
     }
 }

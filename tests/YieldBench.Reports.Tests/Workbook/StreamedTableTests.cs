@@ -423,12 +423,13 @@ public sealed class StreamedTableTests
     public void A_streamed_kinetics_sheet_reopens_as_the_cell_by_cell_one()
     {
         // Given the kinetics sheet filled cell by cell and with its longer tables streamed (threshold 2: the 4-lot table)
-        var (lots, review) = KineticsReportData.Build();
+        var whole = KineticsReportData.FullReview();
+        var review = whole.Kinetics!;
         byte[] Build(StreamedTables? streamed, out int lastRow)
         {
             var register = streamed ?? new StreamedTables(int.MaxValue);
             using var wb = new XLWorkbook();
-            lastRow = KineticsSheet.Fill(wb.AddWorksheet(KineticsSheet.SheetName), review, lots, streamed);
+            lastRow = KineticsSheet.Fill(wb.AddWorksheet(KineticsSheet.SheetName), review, whole.Strains, streamed);
             using var ms = new MemoryStream();
             wb.SaveAs(ms);
             return WorkbookWriter.Finish(ms.ToArray(), register, null);

@@ -1,3 +1,4 @@
+using YieldBench.Core.Lots;
 using System.Data;
 using ClosedXML.Excel;
 using DocumentFormat.OpenXml.Packaging;
@@ -293,7 +294,7 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         // When each row's fill is compared with the strain review's flags
         for (int row = 2; row <= review.Lots.Count + 1; row++)
         {
-            string key = lots.Cell(row, 2).GetValue<int>().ToString(System.Globalization.CultureInfo.InvariantCulture) + "/" + lots.Cell(row, 1).GetString();
+            var key = new LotKey(lots.Cell(row, 2).GetValue<int>(), lots.Cell(row, 1).GetString());
             bool flagged = review.Strains.Flags.Any(f => f.LotKey == key);
             var fill = lots.Cell(row, 1).Style.Fill.BackgroundColor;
 

@@ -116,17 +116,26 @@ internal static class GroupSummaries
             note = note is null ? m : note + "; " + m;
         }
 
+        double q1 = Descriptive.QuantileOfSorted(sorted, 0.25), q3 = Descriptive.QuantileOfSorted(sorted, 0.75);
+        double iqr = q3 - q1;
+        var first = lots.Length > 0 ? lots[0] : null;
         return new GroupSummary
         {
             Grouping = grouping,
             Group = group,
             Measure = measure,
+            Strain = grouping is Groupings.Strain or Groupings.StrainByVessel or Groupings.StrainBySeason ? first?.Strain : null,
+            Season = grouping is Groupings.Season or Groupings.StrainBySeason ? first?.Season : null,
             N = sorted.Length,
             Missing = missing,
             Median = Descriptive.MedianOfSorted(sorted),
             Mad = Robust.Mad(sorted),
             Qn = Robust.Qn(sorted),
-            Iqr = Descriptive.InterquartileRange(sorted),
+            Iqr = iqr,
+            Q1 = q1,
+            Q3 = q3,
+            LowerWhisker = sorted.Length > 0 ? sorted.First(v => v >= q1 - (1.5 * iqr)) : double.NaN,
+            UpperWhisker = sorted.Length > 0 ? sorted.Last(v => v <= q3 + (1.5 * iqr)) : double.NaN,
             Mean = Descriptive.Mean(sorted),
             Sd = Descriptive.StandardDeviation(sorted),
             TrimmedMean = Robust.TrimmedMean(sorted),

@@ -31,12 +31,12 @@ internal static class OddLots
         return scores;
     }
 
-    public static IReadOnlyList<LotFlag> Flag(IReadOnlyList<PreparedLot> lots, IReadOnlyList<LotScore> scores, StrainReviewSettings settings, int seed)
+    public static IReadOnlyList<LotFlag> Flag(IReadOnlyList<PreparedLot> lots, IReadOnlyList<LotScore> scores, StrainReviewSettings settings, int seed, SugarModel sugarModel)
     {
         var flags = new List<LotFlag>();
         var references = FactorReferences(lots, settings);
         var lines = StrainLines(lots, settings);
-        var scoreByKey = scores.ToDictionary(s => s.LotKey, StringComparer.Ordinal);
+        var scoreByKey = scores.ToDictionary(s => s.LotKey);
         var strainRefs = lots.Where(l => !double.IsNaN(l.Factor))
             .GroupBy(l => l.Strain, StringComparer.Ordinal)
             .Where(g => g.Count() >= settings.MinLotsForStrainReference)
@@ -114,7 +114,7 @@ internal static class OddLots
                             : FollowUps.RecheckStartingSugar + "; " + FollowUps.LookForSugar + "; " + FollowUps.RerunAlcohol,
                     });
 
-                    if (Transposition(lot, line, settings) is { } swap)
+                    if (Transposition(lot, line, settings, sugarModel) is { } swap)
                     {
                         lotFlags.Add(swap);
                     }
@@ -277,17 +277,17 @@ internal static class OddLots
     }
 
     /// <summary>Flags a starting sugar whose adjacent-digit swap would put the lot on its line.</summary>
-    private static LotFlag? Transposition(PreparedLot lot, StrainLine line, StrainReviewSettings settings)
+    private static LotFlag? Transposition(PreparedLot lot, StrainLine line, StrainReviewSettings settings, SugarModel sugarModel)
     {
         var recorded = lot.Conversion.Lot;
-        var scale = recorded.StartingSugarScale;
+        var scale = recorded.RecordedStartingSugar.Scale;
         int decimals = scale switch
         {
             SugarScale.Brix or SugarScale.Baume => 1,
             SugarScale.SpecificGravity => 3,
             _ => 0,
         };
-        double value = recorded.StartingSugar.In(scale);
+        double value = recorded.RecordedStartingSugar.Value;
         string text = Math.Round(value, decimals).ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
         string digits = text.Replace(".", string.Empty, StringComparison.Ordinal).TrimStart('-');
         if (text.StartsWith('-'))
@@ -308,13 +308,12 @@ internal static class OddLots
             string swapped = new string(chars);
             string candidateText = decimals > 0 ? swapped[..^decimals] + "." + swapped[^decimals..] : swapped;
             double candidate = double.Parse(candidateText, CultureInfo.InvariantCulture);
-            double? brix = ToBrix(candidate, scale);
-            if (brix is not { } b || b < 5 || b > 45)
+            if (!SugarReading.TryFrom(candidate, scale, TranspositionMinBrix, TranspositionMaxBrix, out var reading, out _))
             {
                 continue;
             }
 
-            double effective = AdditionBalance.Apply(SugarReading.FromBrix(b), recorded.Additions).Effective.Brix;
+            double effective = AdditionBalance.Apply(reading, recorded.Additions, sugarModel).Effective.Brix;
             double z = (lot.Abv - line.Line.Predict(effective)) / line.Scale;
             if (Math.Abs(z) <= settings.TranspositionFitZ && (best is null || Math.Abs(z) < Math.Abs(best.Value.Z)))
             {
@@ -340,34 +339,13 @@ internal static class OddLots
             ReferenceGroup = line.Name,
             ReferenceMedian = found.Brix,
             ReferenceScale = line.Scale,
-            Reason = Invariant($"the starting sugar was recorded as {text} {ScaleUnit(scale)}; with two neighbouring digits swapped ({found.Text} {ScaleUnit(scale)}) the lot's {lot.Abv:0.00} % v/v would sit on the line of {line.Name} (residual {found.Z:+0.0;-0.0} scales instead of {(lot.Abv - line.Line.Predict(lot.Brix)) / line.Scale:+0.0;-0.0})"),
+            Reason = Invariant($"the starting sugar was recorded as {text} {SugarScales.Label(scale)}; with two neighbouring digits swapped ({found.Text} {SugarScales.Label(scale)}) the lot's {lot.Abv:0.00} % v/v would sit on the line of {line.Name} (residual {found.Z:+0.0;-0.0} scales instead of {(lot.Abv - line.Line.Predict(lot.Brix)) / line.Scale:+0.0;-0.0})"),
             FollowUp = FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip",
         };
     }
 
-    private static string ScaleUnit(SugarScale scale) => scale switch
-    {
-        SugarScale.Brix => "°Brix",
-        SugarScale.SpecificGravity => "SG",
-        SugarScale.Baume => "°Baumé",
-        SugarScale.Oechsle => "°Oechsle",
-        SugarScale.GramsPerLitre => "g/L",
-        _ => string.Empty,
-    };
-
-    private static double? ToBrix(double value, SugarScale scale)
-    {
-        double brix = scale switch
-        {
-            SugarScale.Brix => value,
-            SugarScale.SpecificGravity => value is > 0.9 and < 1.3 ? SugarScales.BrixFromSpecificGravity(value) : double.NaN,
-            SugarScale.Baume => value is > -10 and < 30 ? SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromBaume(value)) : double.NaN,
-            SugarScale.Oechsle => value is > -100 and < 300 ? SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(value)) : double.NaN,
-            SugarScale.GramsPerLitre => value is >= 0 and < 500 ? OivMustTable.BrixFromSugarGramsPerLitre(value) : double.NaN,
-            _ => double.NaN,
-        };
-        return double.IsFinite(brix) && brix >= SugarReading.MinBrix && brix <= SugarReading.MaxBrix ? brix : null;
-    }
+    /// <summary>A swapped starting sugar is tried only when it lies in this range of °Brix (any must a cellar ferments).</summary>
+    private const double TranspositionMinBrix = 5, TranspositionMaxBrix = 45;
 
     /// <summary>A strain whose season median lies outside the bootstrap interval of its other seasons' median.</summary>
     private static IEnumerable<LotFlag> SeasonDrift(IReadOnlyList<PreparedLot> lots, StrainReviewSettings settings, int seed)

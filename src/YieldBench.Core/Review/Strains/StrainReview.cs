@@ -1,4 +1,5 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 
 namespace YieldBench.Core.Review.Strains;
@@ -29,6 +30,10 @@ public sealed record StrainReview
 
     /// <summary>Plain-language notes on what was left out and why (nothing is dropped silently).</summary>
     public required IReadOnlyList<string> Notes { get; init; }
+
+    /// <summary>The summary of <paramref name="measure"/> over one group of one grouping, or null when there is no such group.</summary>
+    public GroupSummary? Summary(string grouping, string group, ConversionMeasure measure) =>
+        Groups.FirstOrDefault(g => g.Grouping == grouping && g.Measure == measure && string.Equals(g.Group, group, StringComparison.Ordinal));
 }
 
 /// <summary>The groupings summarised, with their report names.</summary>
@@ -77,6 +82,12 @@ public sealed record GroupSummary
     /// <summary>The measure.</summary>
     public required ConversionMeasure Measure { get; init; }
 
+    /// <summary>The strain the group is of (by strain, strain × vessel, strain × season), else null.</summary>
+    public string? Strain { get; init; }
+
+    /// <summary>The season the group is of (by season, strain × season), else null.</summary>
+    public int? Season { get; init; }
+
     /// <summary>Lots with a value of this measure.</summary>
     public required int N { get; init; }
 
@@ -92,8 +103,20 @@ public sealed record GroupSummary
     /// <summary>Rousseeuw–Croux Qn.</summary>
     public required double Qn { get; init; }
 
-    /// <summary>Interquartile range (type 7).</summary>
+    /// <summary>Interquartile range (type 7): <see cref="Q3"/> − <see cref="Q1"/>.</summary>
     public required double Iqr { get; init; }
+
+    /// <summary>Lower quartile (type 7).</summary>
+    public double Q1 { get; init; } = double.NaN;
+
+    /// <summary>Upper quartile (type 7).</summary>
+    public double Q3 { get; init; } = double.NaN;
+
+    /// <summary>Smallest value at or above <see cref="Q1"/> − 1.5 IQR (a box plot's lower whisker, Tukey's inner fence).</summary>
+    public double LowerWhisker { get; init; } = double.NaN;
+
+    /// <summary>Largest value at or below <see cref="Q3"/> + 1.5 IQR (a box plot's upper whisker).</summary>
+    public double UpperWhisker { get; init; } = double.NaN;
 
     /// <summary>Arithmetic mean.</summary>
     public required double Mean { get; init; }
@@ -184,7 +207,7 @@ public sealed record AdjustedStrain(string Strain, double PredictedAbv, double F
 public sealed record AdjustedDifference(string First, string Second, double AbvDifference, Interval Interval);
 
 /// <summary>A lot's robust z within its reference group.</summary>
-/// <param name="LotKey">"season/lot".</param>
+/// <param name="LotKey">The lot's key.</param>
 /// <param name="Strain">The lot's strain.</param>
 /// <param name="Measure">Data-file name of the factor scored.</param>
 /// <param name="Value">The lot's factor.</param>
@@ -193,7 +216,7 @@ public sealed record AdjustedDifference(string First, string Second, double AbvD
 /// <param name="ReferenceScale">Scale used: scaled MAD, or Qn when the MAD is 0.</param>
 /// <param name="Z">(value − median) / scale: the Iglewicz–Hoaglin modified z (NaN when both scales are 0).</param>
 /// <param name="ScaleName">"MAD" or "Qn".</param>
-public sealed record LotScore(string LotKey, string Strain, string Measure, double Value, string ReferenceGroup, double ReferenceMedian, double ReferenceScale, double Z, string ScaleName);
+public sealed record LotScore(LotKey LotKey, string Strain, string Measure, double Value, string ReferenceGroup, double ReferenceMedian, double ReferenceScale, double Z, string ScaleName);
 
 /// <summary>How much a flag matters.</summary>
 public enum FlagSeverity
@@ -211,8 +234,8 @@ public enum FlagSeverity
 /// <summary>One finding about one lot (or, for season drift, one strain in one season).</summary>
 public sealed record LotFlag
 {
-    /// <summary>"season/lot", or null for a group-level flag.</summary>
-    public string? LotKey { get; init; }
+    /// <summary>The lot's key, or null for a group-level flag.</summary>
+    public LotKey? LotKey { get; init; }
 
     /// <summary>The lot id, or null for a group-level flag.</summary>
     public string? LotId { get; init; }

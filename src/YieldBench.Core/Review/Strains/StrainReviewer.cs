@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Statistics;
 using static System.FormattableString;
 
@@ -17,9 +18,11 @@ public static class StrainReviewer
     /// <summary>
     /// Reviews the lots. <paramref name="seed"/> seeds every bootstrap (each group's stream is derived from it and the
     /// group's name, so adding a group does not change the others). Invalid settings throw
-    /// <see cref="ArgumentException"/> with the problem in words.
+    /// <see cref="ArgumentException"/> with the problem in words. <paramref name="sugarModel"/> is the model the lots'
+    /// conversion used (default: <see cref="SugarModel.Default"/>); the odd-lot detectors that re-apply a lot's
+    /// additions to another starting sugar use it too.
     /// </summary>
-    public static StrainReview Run(IReadOnlyList<LotConversion> lots, StrainReviewSettings settings, int seed)
+    public static StrainReview Run(IReadOnlyList<LotConversion> lots, StrainReviewSettings settings, int seed, SugarModel? sugarModel = null)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(settings);
@@ -45,7 +48,7 @@ public static class StrainReviewer
         var groups = GroupSummaries.Build(prepared, settings, seed);
         var comparison = Comparison.Build(prepared, settings, notes);
         var scores = OddLots.Score(prepared, settings);
-        var flags = OddLots.Flag(prepared, scores, settings, seed);
+        var flags = OddLots.Flag(prepared, scores, settings, seed, sugarModel ?? SugarModel.Default);
         return new StrainReview
         {
             Settings = settings,
@@ -83,7 +86,9 @@ internal sealed class PreparedLot
     {
         Conversion = conversion;
         Strain = conversion.Lot.Strain.Trim();
-        Vessel = string.IsNullOrWhiteSpace(conversion.Lot.Vessel) ? Groupings.NotRecorded : conversion.Lot.Vessel.Trim().ToLowerInvariant();
+        // Spellings are settled once, by intake (one spelling per strain and vessel type), so groups take the lot's own
+        // text and every output names a vessel as the lots table does.
+        Vessel = string.IsNullOrWhiteSpace(conversion.Lot.Vessel) ? Groupings.NotRecorded : conversion.Lot.Vessel.Trim();
         Variety = string.IsNullOrWhiteSpace(conversion.Lot.Variety) ? Groupings.NotRecorded : conversion.Lot.Variety.Trim();
         IsDry = conversion.ResidualSugarGl <= settings.DryThresholdGl;
         Factor = IsDry ? conversion.AbvPerBrix : conversion.AbvPerBrixFermented;
@@ -118,7 +123,7 @@ internal sealed class PreparedLot
     /// <summary>Final alcohol, % v/v.</summary>
     public double Abv { get; }
 
-    public string Key => Conversion.Lot.Key;
+    public LotKey Key => Conversion.Lot.Key;
 
     public int Season => Conversion.Lot.Season;
 }

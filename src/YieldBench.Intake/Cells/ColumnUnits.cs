@@ -35,13 +35,10 @@ internal static class ColumnUnits
     /// <summary>Avoirdupois pound in kilograms (exact, international yard and pound agreement of 1959).</summary>
     public const double KilogramsPerPound = 0.45359237;
 
+    /// <summary>The unit's label in messages and the mapping table; sugar scales take Core's one label.</summary>
     public static string Label(ColumnUnit unit) => unit switch
     {
-        ColumnUnit.Brix => "°Brix",
-        ColumnUnit.SpecificGravity => "SG",
-        ColumnUnit.Baume => "°Baumé",
-        ColumnUnit.Oechsle => "°Oechsle",
-        ColumnUnit.SugarGramsPerLitre => "g/L sugar",
+        ColumnUnit.Brix or ColumnUnit.SpecificGravity or ColumnUnit.Baume or ColumnUnit.Oechsle or ColumnUnit.SugarGramsPerLitre => SugarScales.Label(Scale(unit)),
         ColumnUnit.PercentVolume => "% v/v",
         ColumnUnit.AlcoholGramsPerLitre => "g/L ethanol",
         ColumnUnit.Celsius => "°C",
@@ -63,16 +60,6 @@ internal static class ColumnUnits
         ColumnUnit.Oechsle => SugarScale.Oechsle,
         ColumnUnit.SugarGramsPerLitre => SugarScale.GramsPerLitre,
         _ => SugarScale.Brix,
-    };
-
-    /// <summary>°Brix of a sugar value on the column's scale, without range checks (the caller checks ranges).</summary>
-    public static double ToBrix(double value, ColumnUnit unit) => unit switch
-    {
-        ColumnUnit.SpecificGravity => SugarScales.BrixFromSpecificGravity(value),
-        ColumnUnit.Baume => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromBaume(value)),
-        ColumnUnit.Oechsle => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(value)),
-        ColumnUnit.SugarGramsPerLitre => OivMustTable.BrixFromSugarGramsPerLitre(value),
-        _ => value,
     };
 
     /// <summary>The value in the field's own unit (% v/v, °C, L, kg); other units pass through.</summary>

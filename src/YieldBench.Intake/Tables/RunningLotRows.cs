@@ -1,27 +1,28 @@
 using YieldBench.Core.Lots;
+using static YieldBench.Intake.FieldParsers;
 
 namespace YieldBench.Intake;
 
 /// <summary>Rows of a lots table read as lots still fermenting (<see cref="IntakeOptions.RunningLots"/>).</summary>
-internal static partial class TableReader
+internal static class RunningLotRows
 {
     /// <summary>Fields of the finished wine's analysis, which a lot still fermenting cannot have yet.</summary>
     private static readonly string[] FinalFields = ["final_abv", "residual_sugar_gl", "final_sugar", "dry_date", "mean_temp_c", "peak_temp_c"];
 
     /// <summary>One warning per final-analysis column of a running-lots table: it is not read.</summary>
-    private static void ReportFinalColumns(SheetContext ctx)
+    public static void ReportFinalColumns(SheetContext ctx)
     {
         foreach (var name in FinalFields)
         {
             if (ctx.Column(name) is { } c)
             {
-                ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, "final-column-not-read", IntakeMessages.FinalColumnNotRead(name));
+                ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.FinalColumnNotRead, IntakeMessages.FinalColumnNotRead(name));
             }
         }
     }
 
     /// <summary>Reads row <paramref name="r"/> as a running lot and keeps it; false when it was reported instead.</summary>
-    private static bool AddRunningLot(SheetContext ctx, RowState row, int r)
+    public static bool Add(SheetContext ctx, RowState row, int r)
     {
         var st = row.Start(r);
         string? lotId = TextField(st, "lot_id");
@@ -57,10 +58,10 @@ internal static partial class TableReader
             Source = new SourceRef(ctx.File, ctx.SheetName, r + 1),
         };
 
-        string key = $"{lot.Season}/{lot.LotId}";
+        var key = new LotKey(lot.Season, lot.LotId);
         if (ctx.Run.LotKeys.TryGetValue(key, out var first))
         {
-            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.Column("lot_id")!.Header, lot.LotId, "duplicate-lot", IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString()));
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.Column("lot_id")!.Header, lot.LotId, IssueCodes.DuplicateLot, IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString()));
             return false;
         }
 

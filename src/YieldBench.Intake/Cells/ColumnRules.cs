@@ -90,7 +90,7 @@ internal static class ColumnRules
         {
             if (!File.Exists(mappingFullPath))
             {
-                sink.Error(mappingDisplayPath, null, null, null, null, "mapping-file-not-found", IntakeMessages.MappingFileNotFound());
+                sink.Error(mappingDisplayPath, null, null, null, null, IssueCodes.MappingFileNotFound, IntakeMessages.MappingFileNotFound());
                 return rules;
             }
 
@@ -126,13 +126,13 @@ internal static class ColumnRules
         string header = eq > 0 ? text[(eq + 1)..].Trim() : "";
         if (field.Length == 0 || header.Length == 0)
         {
-            sink.Error(origin, null, line, null, text.Trim(), "mapping-not-understood", IntakeMessages.MappingLineNotUnderstood());
+            sink.Error(origin, null, line, null, text.Trim(), IssueCodes.MappingNotUnderstood, IntakeMessages.MappingLineNotUnderstood());
             return;
         }
 
         if (!FieldAliases.TryGetValue(field, out var alias))
         {
-            sink.Error(origin, null, line, null, field, "mapping-unknown-field", IntakeMessages.MappingUnknownField(field));
+            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field));
             return;
         }
 
@@ -146,7 +146,7 @@ internal static class ColumnRules
     {
         foreach (var r in rules.Where(r => !r.Used))
         {
-            sink.Warning(r.Origin, null, r.Line, r.Header, r.Header, "mapped-header-not-found", IntakeMessages.MappedHeaderNotFound(r.FieldName));
+            sink.Warning(r.Origin, null, r.Line, r.Header, r.Header, IssueCodes.MappedHeaderNotFound, IntakeMessages.MappedHeaderNotFound(r.FieldName));
         }
     }
 

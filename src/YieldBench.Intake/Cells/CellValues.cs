@@ -159,58 +159,12 @@ internal static partial class CellValues
     }
 
     /// <summary>
-    /// Text such as "24.3", "-1.8" or "1000": an optional minus, digits, and an optional point with digits, at most 15
-    /// digits in all. Such a number is an integer below 2^53 divided by an exact power of ten, so one division gives
-    /// the correctly rounded double, the value <see cref="double.TryParse(string?, NumberStyles, IFormatProvider?, out double)"/>
-    /// gives. False for any other text, which takes the general path.
+    /// The common plain number ("24.3", "-1.8", "1000"): the framework's parser under its strictest style (a sign and a
+    /// decimal point, nothing else) gives what the general path would; false sends any other text there. Without it
+    /// every cell took the general path's trims and replacements (docs/performance.md: +35 % CPU for check at 100k lots).
     /// </summary>
-    private static bool PlainDecimal(string s, out double value)
-    {
-        value = 0;
-        int i = 0;
-        bool negative = s.Length > 0 && s[0] == '-';
-        if (negative)
-        {
-            i++;
-        }
-
-        long mantissa = 0;
-        int digits = 0, decimals = 0;
-        bool point = false;
-        for (; i < s.Length; i++)
-        {
-            char c = s[i];
-            if (char.IsAsciiDigit(c))
-            {
-                if (++digits > 15)
-                {
-                    return false;
-                }
-
-                mantissa = (mantissa * 10) + (c - '0');
-                decimals += point ? 1 : 0;
-            }
-            else if (c == '.' && !point && digits > 0)
-            {
-                point = true;
-            }
-            else
-            {
-                return false;
-            }
-        }
-
-        if (digits == 0 || (point && decimals == 0))
-        {
-            return false;
-        }
-
-        double magnitude = decimals == 0 ? mantissa : mantissa / PowersOfTen[decimals];
-        value = negative ? -magnitude : magnitude;
-        return true;
-    }
-
-    private static readonly double[] PowersOfTen = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+    private static bool PlainDecimal(string s, out double value) =>
+        double.TryParse(s, NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint, Inv, out value) && double.IsFinite(value);
 
     /// <summary>Day/month order settled by the column's text dates (a first part above 12 means day first).</summary>
     public static DateOrder ColumnDateOrder(IEnumerable<object?> cells)
@@ -276,9 +230,9 @@ internal static partial class CellValues
             return CellProblem.Blank;
         }
 
-        if (PlainIsoDate(s, out value, out bool valid))
+        if (PlainIsoDate(s, out value))
         {
-            return valid ? CellProblem.None : CellProblem.NotADate;
+            return CellProblem.None;
         }
 
         return ParseDateTextGeneral(s, order, out value, out dayFirst, out monthFirst);
@@ -340,122 +294,14 @@ internal static partial class CellValues
         s.Length >= 3 && char.IsAsciiDigit(s[0]) && char.IsAsciiDigit(s[1]) && char.IsAsciiDigit(s[2]);
 
     /// <summary>
-    /// The common ISO text ("2024-03-02", "2024-03-02 14:30", "2024/3/2T14:30:05.5") in ASCII digits, read without
-    /// the regular expression: true when the text has that form (then <paramref name="valid"/> tells whether it is a
-    /// real date and time, as <see cref="IsoDate"/> and <see cref="MakeDate"/> would), false for any other text.
+    /// The common ISO text ("2024-03-02", "2024-03-02 14:30", "2024-03-02 14:30:05") read by the framework's exact
+    /// parser, within the years the general path accepts; false sends any other text to the general path, which gives
+    /// the same date for these forms. Without it every date cell took the regular expression (docs/performance.md).
     /// </summary>
-    private static bool PlainIsoDate(string s, out DateTime value, out bool valid)
-    {
-        value = default;
-        valid = false;
-        int i = 0;
-        if (!Digits(s, ref i, 4, 4, out int year) || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int month)
-            || !Separator(s, ref i) || !Digits(s, ref i, 1, 2, out int day))
-        {
-            return false;
-        }
+    private static bool PlainIsoDate(string s, out DateTime value) =>
+        DateTime.TryParseExact(s, PlainIsoFormats, Inv, DateTimeStyles.None, out value) && value.Year is >= 1900 and <= 2100;
 
-        int h = 0, min = 0, sec = 0;
-        bool time = i < s.Length;
-        if (time)
-        {
-            if (s[i] is not (' ' or 'T'))
-            {
-                return false;
-            }
-
-            i++;
-            if (!Digits(s, ref i, 1, 2, out h) || i >= s.Length || s[i] != ':')
-            {
-                return false;
-            }
-
-            i++;
-            if (!Digits(s, ref i, 2, 2, out min))
-            {
-                return false;
-            }
-
-            if (i < s.Length)
-            {
-                if (s[i] != ':')
-                {
-                    return false;
-                }
-
-                i++;
-                if (!Digits(s, ref i, 2, 2, out sec))
-                {
-                    return false;
-                }
-
-                if (i < s.Length)
-                {
-                    // Fractions of a second are accepted and dropped.
-                    if (s[i] != '.')
-                    {
-                        return false;
-                    }
-
-                    i++;
-                    if (!Digits(s, ref i, 1, int.MaxValue, out _))
-                    {
-                        return false;
-                    }
-
-                    if (i < s.Length)
-                    {
-                        return false;
-                    }
-                }
-            }
-        }
-
-        if (month is < 1 or > 12 || day < 1 || year is < 1900 or > 2100 || day > DateTime.DaysInMonth(year, month))
-        {
-            return true;
-        }
-
-        value = new DateTime(year, month, day, 0, 0, 0, DateTimeKind.Unspecified);
-        if (time)
-        {
-            if (h > 23 || min > 59 || sec > 59)
-            {
-                return true;
-            }
-
-            value = value.Add(new TimeSpan(h, min, sec));
-        }
-
-        valid = true;
-        return true;
-
-        static bool Separator(string s, ref int i)
-        {
-            if (i < s.Length && s[i] is '-' or '/' or '.')
-            {
-                i++;
-                return true;
-            }
-
-            return false;
-        }
-
-        static bool Digits(string s, ref int i, int least, int most, out int number)
-        {
-            number = 0;
-            int n = 0;
-            while (n < most && i < s.Length && char.IsAsciiDigit(s[i]))
-            {
-                // Only the date and time parts are used as numbers (at most four digits); long fractions are skipped.
-                number = n < 9 ? (number * 10) + (s[i] - '0') : number;
-                i++;
-                n++;
-            }
-
-            return n >= least;
-        }
-    }
+    private static readonly string[] PlainIsoFormats = ["yyyy-MM-dd", "yyyy-MM-dd HH:mm", "yyyy-MM-dd HH:mm:ss"];
 
     private static bool MakeDate(string y, string m, string d, Match match, out DateTime value)
     {

@@ -1,0 +1,170 @@
+using YieldBench.Core.Lots;
+using YieldBench.Core.Review.Strains;
+
+namespace YieldBench.Core.Review;
+
+/// <summary>
+/// The review at a glance, format-neutral: the headline numbers and plain sentences that the console, the Overview
+/// sheet and any other renderer show. It holds numbers, names and sentences only; each renderer formats and lays them
+/// out. Built once by <see cref="ReviewRunner"/> from the rest of the result.
+/// </summary>
+public sealed record ReviewOverview
+{
+    /// <summary>The report's title.</summary>
+    public required string Title { get; init; }
+
+    /// <summary>What was read and what was left out.</summary>
+    public required InputsAtAGlance Inputs { get; init; }
+
+    /// <summary>The strains ranked, with the comparison's first sentences.</summary>
+    public required StrainsAtAGlance Strains { get; init; }
+
+    /// <summary>The house-factor recommendation, or null when none could be made (see <see cref="NoRecommendation"/>).</summary>
+    public HouseFactorAtAGlance? HouseFactor { get; init; }
+
+    /// <summary>Why no house factor is recommended (empty when one is).</summary>
+    public IReadOnlyList<string> NoRecommendation { get; init; } = [];
+
+    /// <summary>The lots to look at.</summary>
+    public required LotsToLookAt Lots { get; init; }
+
+    /// <summary>The kinetics in numbers, or null when no log was read.</summary>
+    public KineticsAtAGlance? Kinetics { get; init; }
+
+    /// <summary>The cautions every report shows.</summary>
+    public required IReadOnlyList<string> Cautions { get; init; }
+
+    /// <summary>Builds the overview from the rest of the review (pure).</summary>
+    internal static ReviewOverview Build(
+        SeasonSet inputs, StrainReview strains, HouseFactor.HouseFactorReview h, Kinetics.KineticsReview? kineticsReview, IReadOnlyList<LotReview> lotReviews, ReviewFigures figures)
+    {
+        var c = strains.Comparison;
+        var names = h.Candidates.ToDictionary(x => x.Id, x => x.Name, StringComparer.Ordinal);
+        string Name(string id) => names.GetValueOrDefault(id, id);
+
+        HouseFactorAtAGlance? house = h.Overall is { } rec
+            ? new HouseFactorAtAGlance(
+                Name(rec.CandidateId),
+                ReviewTexts.Scheme(h.PrimaryScheme),
+                h.Regime.Name,
+                rec.Metrics.Mae,
+                rec.Metrics.ShareWithinTolerance,
+                rec.ErrorBand80,
+                rec.ErrorBand95,
+                rec.Explanation,
+                h.ByStrain.Select(s => new StrainAdvice(s.Strain, Name(s.CandidateId), s.Metrics.Mae, s.Lots)).ToArray())
+            : null;
+
+        var severities = new[] { FlagSeverity.LikelyError, FlagSeverity.Check, FlagSeverity.Note };
+        var worst = lotReviews.Select(l => l.WorstSeverity).Where(s => s is not null).ToArray();
+        var lots = new LotsToLookAt(
+            worst.Length,
+            severities.Select(s => new SeverityCount(s, worst.Count(w => w == s))).ToArray(),
+            strains.Flags.Where(f => f.Severity == FlagSeverity.LikelyError).ToArray());
+
+        KineticsAtAGlance? kinetics = kineticsReview is { } k
+            ? new KineticsAtAGlance(
+                k.Lots.Count,
+                k.Lots.Count(x => x.Flagged),
+                k.Lots.SelectMany(x => x.Flags).GroupBy(code => code, StringComparer.Ordinal)
+                    .OrderByDescending(g => g.Count()).ThenBy(g => g.Key, StringComparer.Ordinal)
+                    .Select(g => new CodeCount(g.Key, g.Count())).ToArray())
+            : null;
+
+        return new ReviewOverview
+        {
+            Title = "YieldBench review",
+            Inputs = new InputsAtAGlance(
+                inputs.Files.Count,
+                lotReviews.Count,
+                RowsLeftOut(inputs),
+                inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is null),
+                inputs.Issues.Count,
+                inputs.Seasons,
+                inputs.Logs.Count),
+            Strains = new StrainsAtAGlance(c.Adjusted.Count > 0, c.ReferenceBrix, c.Measure, figures.Ranking, c.Sentences),
+            HouseFactor = house,
+            NoRecommendation = house is null ? h.Explanation : [],
+            Lots = lots,
+            Kinetics = kinetics,
+            Cautions = ReviewTexts.Cautions,
+        };
+    }
+
+    /// <summary>
+    /// Rows read but not used: the sum of the intake's row accounting when there is one (a sheet refused whole counts
+    /// all its rows), else the count of row-level errors.
+    /// </summary>
+    private static int RowsLeftOut(SeasonSet inputs) =>
+        inputs.Accounts.Count > 0
+            ? inputs.Accounts.Sum(a => a.RowsReported)
+            : inputs.Issues.Count(i => i.Severity == IssueSeverity.Error && i.Row is not null);
+}
+
+/// <summary>What was read and what was left out.</summary>
+/// <param name="Files">Input files read.</param>
+/// <param name="LotsUsed">Lots reviewed.</param>
+/// <param name="RowsLeftOut">Rows read but not used (each reported).</param>
+/// <param name="FileProblems">Files or sheets refused whole.</param>
+/// <param name="Issues">Intake issues in all.</param>
+/// <param name="Seasons">Seasons of the lots used.</param>
+/// <param name="Logs">Fermentation logs read.</param>
+public sealed record InputsAtAGlance(int Files, int LotsUsed, int RowsLeftOut, int FileProblems, int Issues, IReadOnlyList<int> Seasons, int Logs);
+
+/// <summary>The strains ranked.</summary>
+/// <param name="Adjusted">True when the ranking is by conversion adjusted for starting sugar; false: by raw median.</param>
+/// <param name="ReferenceBrix">Starting sugar the adjusted conversion is taken at, °Brix.</param>
+/// <param name="Measure">Data-file name of the factor compared.</param>
+/// <param name="Ranking">The compared strains, best first.</param>
+/// <param name="Sentences">The comparison's findings in plain words, in reading order.</param>
+public sealed record StrainsAtAGlance(bool Adjusted, double ReferenceBrix, string Measure, IReadOnlyList<RankedStrain> Ranking, IReadOnlyList<string> Sentences);
+
+/// <summary>The house-factor recommendation.</summary>
+/// <param name="Candidate">Plain name of the recommended candidate.</param>
+/// <param name="Scheme">Plain name of the backtest it was judged by.</param>
+/// <param name="Regime">The label regime's name.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="ShareWithinTolerance">Share of held-out lots within the label tolerance (0–1).</param>
+/// <param name="Band80">The 80 % band of held-out errors, % v/v.</param>
+/// <param name="Band95">The 95 % band of held-out errors, % v/v.</param>
+/// <param name="Explanation">Why it was chosen, in plain words.</param>
+/// <param name="ByStrain">The per-strain choices.</param>
+public sealed record HouseFactorAtAGlance(
+    string Candidate,
+    string Scheme,
+    string Regime,
+    double Mae,
+    double ShareWithinTolerance,
+    (double Low, double High) Band80,
+    (double Low, double High) Band95,
+    string Explanation,
+    IReadOnlyList<StrainAdvice> ByStrain);
+
+/// <summary>One strain's house-factor choice.</summary>
+/// <param name="Strain">Strain code.</param>
+/// <param name="Candidate">Plain name of the chosen candidate.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="Lots">Lots scored.</param>
+public sealed record StrainAdvice(string Strain, string Candidate, double Mae, int Lots);
+
+/// <summary>The lots to look at.</summary>
+/// <param name="Flagged">Lots with a follow-up item (strain review or kinetics).</param>
+/// <param name="ByWorstSeverity">Flagged lots by their worst severity, most serious first.</param>
+/// <param name="LikelyErrors">The strain review's likely-error flags, in the review's order.</param>
+public sealed record LotsToLookAt(int Flagged, IReadOnlyList<SeverityCount> ByWorstSeverity, IReadOnlyList<LotFlag> LikelyErrors);
+
+/// <summary>How many lots have a severity as their worst.</summary>
+/// <param name="Severity">The severity.</param>
+/// <param name="Lots">Lots.</param>
+public sealed record SeverityCount(FlagSeverity Severity, int Lots);
+
+/// <summary>The kinetics in numbers.</summary>
+/// <param name="LotsWithLog">Lots with a log.</param>
+/// <param name="Flagged">Lots with any kinetics flag.</param>
+/// <param name="Flags">Each kinetics flag code with the lots carrying it, most frequent first.</param>
+public sealed record KineticsAtAGlance(int LotsWithLog, int Flagged, IReadOnlyList<CodeCount> Flags);
+
+/// <summary>A flag code and how many lots carry it.</summary>
+/// <param name="Code">The code.</param>
+/// <param name="Lots">Lots.</param>
+public sealed record CodeCount(string Code, int Lots);

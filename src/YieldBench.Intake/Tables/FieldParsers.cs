@@ -1,0 +1,384 @@
+using System.Globalization;
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+
+namespace YieldBench.Intake;
+
+/// <summary>The row being read and whether a problem has left it out; one per sheet, started afresh for each row.</summary>
+internal sealed class RowState(SheetContext ctx)
+{
+    public bool Bad { get; set; }
+
+    public int Row { get; private set; }
+
+    public int SheetRow => Row + 1;
+
+    public SheetContext Ctx { get; } = ctx;
+
+    public RowState Start(int row)
+    {
+        Row = row;
+        Bad = false;
+        return this;
+    }
+
+    public void Problem(BoundColumn c, object? cell, string code, string message, bool critical)
+    {
+        string value = CellValues.Text(cell);
+        if (critical)
+        {
+            Bad = true;
+            Ctx.Run.Sink.Error(Ctx.File, Ctx.SheetName, SheetRow, c.Header, value, code, message);
+        }
+        else
+        {
+            Ctx.Run.Sink.Warning(Ctx.File, Ctx.SheetName, SheetRow, c.Header, value, code, message + IntakeMessages.LeftEmpty);
+        }
+    }
+}
+
+/// <summary>
+/// Reads one field of the row being read: text, season, number, sugar, date, colour. Each value is parsed once,
+/// converted once and range-checked once; a bad value is reported where it is found (an error leaving the row out for
+/// a value that enters the conversion, else a warning leaving only the value empty).
+/// </summary>
+internal static class FieldParsers
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    internal static string Label(FieldDef f) => f.Name;
+
+    internal static string? TextField(RowState st, string name) => TextField(st, st.Ctx.Column(name));
+
+    internal static string? TextField(RowState st, BoundColumn? column)
+    {
+        if (column is not { } c)
+        {
+            return null;
+        }
+
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (cell is ErrorCell)
+        {
+            st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(Label(c.Field)), c.Field.Critical);
+            return null;
+        }
+
+        string text = CellValues.Text(cell);
+        if (text.Length == 0)
+        {
+            if (c.Field.Required)
+            {
+                st.Problem(c, cell, IssueCodes.MissingValue, IntakeMessages.MissingValue(Label(c.Field)), true);
+            }
+
+            return null;
+        }
+
+        return text;
+    }
+
+    internal static int? SeasonField(RowState st) => SeasonField(st, st.Ctx.Column("season"));
+
+    internal static int? SeasonField(RowState st, BoundColumn? seasonColumn)
+    {
+        var ctx = st.Ctx;
+        if (seasonColumn is { } c)
+        {
+            object? cell = ctx.Sheet.Cell(st.Row, c.Index);
+            if (!CellValues.IsBlank(cell))
+            {
+                if (cell is double d && d == Math.Floor(d) && d is >= 1900 and <= 2100)
+                {
+                    return (int)d;
+                }
+
+                if (cell is string s && SeasonNames.YearOf(s) is >= 1900 and <= 2100 and var y)
+                {
+                    return y;
+                }
+
+                if (cell is DateTime dt)
+                {
+                    return dt.Year;
+                }
+
+                st.Problem(c, cell, cell is ErrorCell ? IssueCodes.ErrorCell : IssueCodes.NotAYear, cell is ErrorCell ? IntakeMessages.ErrorCell("season") : IntakeMessages.NotAYear("season"), ctx.Kind == TableKind.Lots);
+                return null;
+            }
+        }
+
+        if (ctx.DefaultSeason is { } def)
+        {
+            return def;
+        }
+
+        if (ctx.Kind == TableKind.Lots)
+        {
+            st.Bad = true;
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, st.SheetRow, seasonColumn?.Header, null, IssueCodes.NoSeason, IntakeMessages.NoSeason());
+        }
+
+        return null;
+    }
+
+    internal static bool NumberCell(RowState st, BoundColumn c, out double value)
+    {
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        string? alternative = null;
+        var problem = c.ParsedAt(st.Row - st.Ctx.FirstData, out value)
+            ? CellProblem.None
+            : CellValues.Number(cell, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+        string label = Label(c.Field);
+        if (problem == CellProblem.NotANumber && cell is string text && CellValues.SplitUnit(text) is var (number, unitText))
+        {
+            // "24.5 Bx", "1.4 g/L": the unit written in the cell is accepted only when it is the column's own unit.
+            var inner = CellValues.Number(number, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+            if (inner == CellProblem.None)
+            {
+                if (CellUnitAgrees(c, unitText))
+                {
+                    return true;
+                }
+
+                string columnUnit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : (c.Field.Unit.Length > 0 ? c.Field.Unit : "its held unit");
+                st.Problem(c, cell, IssueCodes.UnitInCellDiffers, IntakeMessages.UnitInCellDiffers(label, unitText, columnUnit), c.Field.Critical);
+                return false;
+            }
+
+            problem = inner;
+        }
+
+        if (problem == CellProblem.None && cell is string pct && pct.TrimEnd().EndsWith('%'))
+        {
+            // A percent sign (typed, or from a percent-formatted cell) is % v/v for alcohol and % by mass for °Brix;
+            // residual sugar in % is g per 100 mL; for any other field it names no unit the column can hold.
+            if (c.Field.Name == "residual_sugar_gl" && c.Unit != ColumnUnit.GramsPer100Millilitre)
+            {
+                value = Math.Round(value * 10.0, 10);
+            }
+            else if (c.Field.Kind is not (FieldKind.Alcohol or FieldKind.Sugar) && c.Field.Name != "residual_sugar_gl")
+            {
+                string columnUnit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : (c.Field.Unit.Length > 0 ? c.Field.Unit : "its held unit");
+                st.Problem(c, cell, IssueCodes.UnitInCellDiffers, IntakeMessages.UnitInCellDiffers(label, "%", columnUnit), c.Field.Critical);
+                return false;
+            }
+        }
+
+        switch (problem)
+        {
+            case CellProblem.None:
+                return true;
+            case CellProblem.Blank:
+                if (c.Field.Required)
+                {
+                    st.Problem(c, cell, IssueCodes.MissingValue, IntakeMessages.MissingValue(label), true);
+                }
+
+                return false;
+            case CellProblem.ErrorCell:
+                st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(label), c.Field.Critical);
+                return false;
+            case CellProblem.AmbiguousNumber:
+                var parts = alternative!.Split(" or ");
+                string shown = CellValues.Text(cell);
+                if (!shown.Contains(',', StringComparison.Ordinal) && c.Field.Kind == FieldKind.Sugar
+                    && double.TryParse(parts[1], System.Globalization.NumberStyles.Float, Inv, out double gravity) && gravity is >= 0.95 and < 1.3)
+                {
+                    // "1.095" in a sugar column is a specific gravity; 1095 means nothing on any sugar scale.
+                    value = gravity;
+                    return true;
+                }
+
+                st.Problem(c, cell, IssueCodes.AmbiguousNumber, shown.Contains(',', StringComparison.Ordinal)
+                    ? IntakeMessages.AmbiguousNumber(label, parts[0], parts[1])
+                    : IntakeMessages.AmbiguousDotNumber(label, parts[0], parts[1]), c.Field.Critical);
+                return false;
+            default:
+                st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label), c.Field.Critical);
+                return false;
+        }
+    }
+
+    /// <summary>True when a unit written after a number in a cell names the unit the column is read in.</summary>
+    internal static bool CellUnitAgrees(BoundColumn c, string unitText)
+    {
+        string u = unitText.ToLowerInvariant().Replace("°", "", StringComparison.Ordinal).Replace("º", "", StringComparison.Ordinal)
+            .Replace(" ", "", StringComparison.Ordinal).Replace("é", "e", StringComparison.Ordinal).TrimEnd('.');
+        ColumnUnit? named = u switch
+        {
+            "bx" or "brix" => ColumnUnit.Brix,
+            "sg" => ColumnUnit.SpecificGravity,
+            "oe" or "oechsle" => ColumnUnit.Oechsle,
+            "be" or "baume" => ColumnUnit.Baume,
+            "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
+            "c" => ColumnUnit.Celsius,
+            "f" => ColumnUnit.Fahrenheit,
+            "l" or "lt" or "ltr" or "litres" or "liters" => ColumnUnit.Litre,
+            "hl" => ColumnUnit.Hectolitre,
+            "gal" or "gals" or "gallons" => ColumnUnit.UsGallon,
+            "kg" => ColumnUnit.Kilogram,
+            "lb" or "lbs" => ColumnUnit.Pound,
+            _ => null,
+        };
+        bool gramsPerLitre = u is "g/l" or "gl" or "gpl";
+        return c.Field.Name switch
+        {
+            "residual_sugar_gl" or "ta_gl" => gramsPerLitre,
+            "yan_mgl" => u is "mg/l" or "mgn/l" or "ppm" or "mgl",
+            _ when c.Field.Kind == FieldKind.Sugar => gramsPerLitre ? c.Unit == ColumnUnit.SugarGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Alcohol => gramsPerLitre ? c.Unit == ColumnUnit.AlcoholGramsPerLitre : named == c.Unit,
+            _ when c.Field.Kind == FieldKind.Mass && u == "g" => c.Unit == ColumnUnit.Gram,
+            _ => named is not null && named == c.Unit,
+        };
+    }
+
+    internal static string Shown(double raw, ColumnUnit unit) =>
+        ColumnUnits.Label(unit) is { Length: > 0 } u ? $"{IntakeMessages.Num(raw)} {u}" : IntakeMessages.Num(raw);
+
+    /// <summary>A number in the field's unit, range-checked; null when empty or bad (bad ones reported).</summary>
+    internal static double? NumberField(RowState st, string name) => NumberField(st, st.Ctx.Column(name));
+
+    internal static double? NumberField(RowState st, BoundColumn? column)
+    {
+        if (column is not { } c || !NumberCell(st, c, out double raw))
+        {
+            return null;
+        }
+
+        var f = c.Field;
+        string name = f.Name;
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (f.Kind == FieldKind.Temperature && c.Unit == ColumnUnit.Celsius && raw is > 45 and <= 120)
+        {
+            st.Problem(c, cell, IssueCodes.FahrenheitInCelsiusColumn, IntakeMessages.FahrenheitInCelsiusColumn(Label(f), (raw - 32) * 5 / 9), f.Critical);
+            return null;
+        }
+
+        double v = ColumnUnits.ToFieldUnit(raw, c.Unit);
+        if (f.Kind is FieldKind.Volume && name is "must_volume_l" or "vessel_capacity_l" && v <= 0)
+        {
+            st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.NotPositive(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
+            return null;
+        }
+
+        if (f.Kind is FieldKind.Volume or FieldKind.Mass && v < 0)
+        {
+            st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.Negative(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit)), f.Critical);
+            return null;
+        }
+
+        if (f.Min is { } min && f.Max is { } max && (v < min || v > max))
+        {
+            string message = IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, v, f.Unit), min, max, f.Unit);
+            if (f.Kind == FieldKind.Alcohol && c.Unit == ColumnUnit.PercentVolume && v * 100 >= min && v * 100 <= max)
+            {
+                // 0.141 is how a spreadsheet holds 14.1 % when the cell lost its percent format.
+                message += IntakeMessages.LooksLikeAFraction(raw * 100);
+            }
+
+            st.Problem(c, cell, IssueCodes.OutOfRange, message, f.Critical);
+            return null;
+        }
+
+        return v;
+    }
+
+    internal static string ConvertedShown(double raw, ColumnUnit unit, double converted, string fieldUnit)
+    {
+        string shown = Shown(raw, unit);
+        if (ColumnUnits.Label(unit) is { Length: > 0 } u && u != fieldUnit && fieldUnit.Length > 0)
+        {
+            shown += $" (= {IntakeMessages.Num(Math.Round(converted, 2))} {fieldUnit})";
+        }
+
+        return shown;
+    }
+
+    internal static SugarReading? SugarField(RowState st, string name) => SugarField(st, st.Ctx.Column(name), out _);
+
+    internal static SugarReading? SugarField(RowState st, BoundColumn? column) => SugarField(st, column, out _);
+
+    /// <summary>A sugar value converted to a reading through Core's sugar scales, and the number as written.</summary>
+    internal static SugarReading? SugarField(RowState st, BoundColumn? column, out double recorded)
+    {
+        recorded = double.NaN;
+        if (column is not { } c || !NumberCell(st, c, out double raw))
+        {
+            return null;
+        }
+
+        var f = c.Field;
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (!UnitSettling.ValueLooksLike(f, raw, c.Unit))
+        {
+            st.Problem(c, cell, IssueCodes.UnitDiffersInColumn, IntakeMessages.UnitDiffersInColumn(Label(f), ColumnUnits.Label(UnitSettling.LikelyUnit(f, raw)), ColumnUnits.Label(c.Unit)), f.Critical);
+            return null;
+        }
+
+        double min = f.Min ?? SugarReading.MinBrix, max = f.Max ?? SugarReading.MaxBrix;
+        if (!SugarReading.TryFrom(raw, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
+        {
+            st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
+            return null;
+        }
+
+        recorded = raw;
+        return reading;
+    }
+
+    internal static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));
+
+    internal static DateTime? DateField(RowState st, BoundColumn? column)
+    {
+        if (column is not { } c)
+        {
+            return null;
+        }
+
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        var problem = CellValues.Date(cell, c.DateOrder, out var value, out var dayFirst, out var monthFirst);
+        string label = Label(c.Field);
+        switch (problem)
+        {
+            case CellProblem.None:
+                return value;
+            case CellProblem.Blank:
+                return null;
+            case CellProblem.ErrorCell:
+                st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(label), c.Field.Critical);
+                return null;
+            case CellProblem.AmbiguousDate:
+                st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, dayFirst!, monthFirst!), c.Field.Critical);
+                return null;
+            default:
+                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label), c.Field.Critical);
+                return null;
+        }
+    }
+
+    internal static WineColour ColourField(RowState st)
+    {
+        if (st.Ctx.Column("colour") is not { } c)
+        {
+            return WineColour.Unknown;
+        }
+
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        string n = HeaderText.Normalise(CellValues.Text(cell));
+        switch (n)
+        {
+            case "":
+                return WineColour.Unknown;
+            case "red" or "r" or "rouge" or "rot" or "tinto" or "rosso" or "red wine":
+                return WineColour.Red;
+            case "white" or "w" or "blanc" or "blanco" or "weiss" or "bianco" or "white wine":
+                return WineColour.White;
+            case "rose" or "rosado" or "rosato" or "blush" or "pink" or "rose wine":
+                return WineColour.Rose;
+            default:
+                st.Problem(c, cell, IssueCodes.UnknownColour, IntakeMessages.UnknownColour(Label(c.Field)), false);
+                return WineColour.Unknown;
+        }
+    }
+}

@@ -1,0 +1,209 @@
+namespace YieldBench.Intake;
+
+/// <summary>
+/// Finds the header row of a sheet (the row naming most fields among the first <see cref="SearchRows"/>), decides
+/// whether the table holds lots or log readings, binds each header to a field with the unit it states, and reads a
+/// units row under the header.
+/// </summary>
+internal static class HeaderDetection
+{
+    /// <summary>Rows searched from the top of a sheet for the header row.</summary>
+    public const int SearchRows = 50;
+
+    public static bool Find(
+        IntakeRun run,
+        RawSheet sheet,
+        int lastRow,
+        out int headerRow,
+        out TableKind kind,
+        out List<BoundColumn> columns,
+        out List<(int Col, string Header)> unmatched,
+        out List<(int Col, string Header, BoundColumn First)> duplicates)
+    {
+        headerRow = -1;
+        kind = TableKind.Lots;
+        columns = [];
+        unmatched = [];
+        duplicates = [];
+        int bestScore = 1;
+        int searchTo = Math.Min(lastRow, SearchRows - 1);
+        for (int r = 0; r <= searchTo; r++)
+        {
+            var row = sheet.Rows[r];
+            var lotFields = new HashSet<string>();
+            var logFields = new HashSet<string>();
+            int texts = 0, matched = 0;
+            foreach (var cell in row)
+            {
+                if (cell is not string s || s.Trim().Length == 0)
+                {
+                    continue;
+                }
+
+                texts++;
+                bool any = false;
+                if (Match(run, s, TableKind.Lots, out _) is { } lf)
+                {
+                    lotFields.Add(lf.Name);
+                    any = true;
+                }
+
+                if (Match(run, s, TableKind.Log, out _) is { } gf)
+                {
+                    logFields.Add(gf.Name);
+                    any = true;
+                }
+
+                matched += any ? 1 : 0;
+            }
+
+            // A header row names at least two fields, and most of its cells are field names (a row of notes
+            // that happens to mention two field words is not a header).
+            int score = Math.Max(lotFields.Count, logFields.Count);
+            if (score > bestScore && (matched * 2 >= texts || score >= 4))
+            {
+                bestScore = score;
+                headerRow = r;
+                kind = Classify(lotFields, logFields);
+            }
+        }
+
+        if (headerRow < 0)
+        {
+            return false;
+        }
+
+        var header = sheet.Rows[headerRow];
+        for (int c = 0; c < header.Length; c++)
+        {
+            if (header[c] is not { } cell || CellValues.IsBlank(cell))
+            {
+                continue;
+            }
+
+            string text = CellValues.Text(cell);
+            var field = Match(run, text, kind, out var rule);
+            if (field is null)
+            {
+                unmatched.Add((c, text));
+                continue;
+            }
+
+            if (rule is not null)
+            {
+                rule.Used = true;
+            }
+
+            var unit = rule is { Unit: not ColumnUnit.None } ? rule.Unit : HeaderText.UnitFromHeader(text, field.Kind);
+            if (unit == ColumnUnit.None && field.Name == "residual_sugar_gl" && HeaderText.IsPercentHeader(text))
+            {
+                // "RS %" is the lab's g per 100 mL (common practice); read as g/L it would be ten times too dry.
+                unit = ColumnUnit.GramsPer100Millilitre;
+            }
+
+            var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None);
+            if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
+            {
+                duplicates.Add((c, text, first));
+                continue;
+            }
+
+            columns.Add(bound);
+        }
+
+        // A log with only a "time" column holding full timestamps reads it as the timestamp.
+        if (kind == TableKind.Log && !columns.Any(b => b.Field.Name is "timestamp" or "date") && columns.FirstOrDefault(b => b.Field.Name == "time") is { } timeOnly)
+        {
+            timeOnly.Field = Fields.LogField("timestamp");
+        }
+
+        return true;
+    }
+
+    private static TableKind Classify(HashSet<string> lotFields, HashSet<string> logFields)
+    {
+        bool lotSpecific = lotFields.Overlaps(["strain", "final_abv", "starting_sugar", "residual_sugar_gl", "vessel", "variety", "yan_mgl"]);
+        bool logShape = logFields.Overlaps(["timestamp", "date", "time"]) && logFields.Overlaps(["sugar", "temp_c"]);
+        if (logShape && !lotFields.Overlaps(["strain", "final_abv"]))
+        {
+            return TableKind.Log;
+        }
+
+        return lotSpecific || !logShape ? TableKind.Lots : TableKind.Log;
+    }
+
+    private static FieldDef? Match(IntakeRun run, string header, TableKind kind, out MappingRule? rule)
+    {
+        foreach (var r in run.Rules)
+        {
+            if (r.For(kind) is { } f && r.Matches(header))
+            {
+                rule = r;
+                return f;
+            }
+        }
+
+        rule = null;
+        var index = kind == TableKind.Lots ? ColumnRules.LotIndex : ColumnRules.LogIndex;
+        if (index.TryGetValue(HeaderText.FieldKey(header), out var field) || index.TryGetValue(HeaderText.Normalise(header), out field))
+        {
+            return field;
+        }
+
+        return null;
+    }
+
+    /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>
+    public static bool IsUnitsRow(object?[] row)
+    {
+        int units = 0;
+        foreach (var cell in row)
+        {
+            if (CellValues.IsBlank(cell))
+            {
+                continue;
+            }
+
+            if (cell is not string s || !HeaderText.IsUnitOnly(s))
+            {
+                return false;
+            }
+
+            units++;
+        }
+
+        return units >= 2;
+    }
+
+    /// <summary>
+    /// When the row right under the header holds only units ("°Bx", "%", "g/L"), takes each as its column's unit where
+    /// the header states none, reports the row once, and returns true (the row is then not a row read).
+    /// </summary>
+    public static bool ReadUnitsRow(IntakeRun run, string file, RawSheet sheet, int row, List<BoundColumn> columns)
+    {
+        if (!IsUnitsRow(sheet.Rows[row]))
+        {
+            return false;
+        }
+
+        var unitsRow = sheet.Rows[row];
+        for (int i = 0; i < columns.Count; i++)
+        {
+            var c = columns[i];
+            string unitText = c.Index < unitsRow.Length ? CellValues.Text(unitsRow[c.Index]) : "";
+            if (c.UnitStated || unitText.Length == 0)
+            {
+                continue;
+            }
+
+            var unit = HeaderText.UnitFromHeader($"{c.Header} ({unitText})", c.Field.Kind);
+            if (unit != ColumnUnit.None)
+            {
+                columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder };
+            }
+        }
+
+        run.Sink.Warning(file, sheet.Name, row + 1, null, null, IssueCodes.UnitsRowRead, IntakeMessages.UnitsRowRead());
+        return true;
+    }
+}

@@ -1,0 +1,27 @@
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>State shared by every sheet of one run: options, rules, issues, and what has been read so far.</summary>
+internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, IssueSink sink)
+{
+    public IntakeOptions Options { get; } = options;
+
+    public List<MappingRule> Rules { get; } = rules;
+
+    public IssueSink Sink { get; } = sink;
+
+    public List<Lot> Lots { get; } = [];
+
+    public List<RunningLot> RunningLots { get; } = [];
+
+    /// <summary>Where each lot key (season, lot) was first read, to report a second row of the same lot.</summary>
+    public Dictionary<LotKey, SourceRef> LotKeys { get; } = [];
+
+    /// <summary>Log readings in the order read, with the lot id and season they name; joined to lots at the end.</summary>
+    public List<(string LotId, int? Season, LogReading Reading)> Readings { get; } = [];
+
+    public List<SourceAccount> Accounts { get; } = [];
+
+    public List<HeaderMapping> Mappings { get; } = [];
+}

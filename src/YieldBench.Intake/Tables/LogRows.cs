@@ -1,0 +1,90 @@
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+using static YieldBench.Intake.FieldParsers;
+
+namespace YieldBench.Intake;
+
+/// <summary>Reads the rows of a fermentation-log table into readings, each named by lot id and season.</summary>
+internal static class LogRows
+{
+    public static void Read(SheetContext ctx, string fileStem)
+    {
+        var lotCol = ctx.Column("lot_id");
+        bool noTime = ctx.Column("timestamp") is null && ctx.Column("date") is null;
+        if (noTime)
+        {
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingTimeColumn());
+        }
+
+        // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
+        string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
+        var rowState = new RowState(ctx);
+        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime), r => Add(ctx, rowState, r, sheetLot));
+    }
+
+    /// <summary>Reads row <paramref name="r"/> as a reading and keeps it; false when it was reported instead.</summary>
+    private static bool Add(SheetContext ctx, RowState rowState, int r, string? sheetLot)
+    {
+        var run = ctx.Run;
+        var sink = run.Sink;
+        var lotCol = ctx.Column("lot_id");
+        var tsCol = ctx.Column("timestamp");
+        var dateCol = ctx.Column("date");
+        var timeCol = ctx.Column("time");
+        var sugarCol = ctx.Column("sugar");
+        var tempCol = ctx.Column("temp_c");
+        var seasonCol = ctx.Column("season");
+        var st = rowState.Start(r);
+        string? lotId = sheetLot ?? TextField(st, lotCol);
+        if (lotId is null && lotCol is not null && !st.Bad)
+        {
+            st.Problem(lotCol, null, IssueCodes.MissingValue, IntakeMessages.MissingValue("lot_id"), true);
+        }
+
+        int? season = SeasonField(st, seasonCol);
+        DateTime? when = null;
+        if (tsCol is not null)
+        {
+            when = DateField(st, tsCol);
+        }
+        else if (dateCol is not null)
+        {
+            when = DateField(st, dateCol);
+            if (when is not null && timeCol is not null)
+            {
+                object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
+                var tp = CellValues.TimeOfDay(tcell, out var tod);
+                if (tp == CellProblem.None)
+                {
+                    when = when.Value.Date + tod;
+                }
+                else if (tp != CellProblem.Blank)
+                {
+                    st.Problem(timeCol, tcell, tp == CellProblem.ErrorCell ? IssueCodes.ErrorCell : IssueCodes.NotATime, tp == CellProblem.ErrorCell ? IntakeMessages.ErrorCell("time") : IntakeMessages.NotATime("time"), true);
+                }
+            }
+        }
+
+        if (when is null && !st.Bad)
+        {
+            var c = tsCol ?? dateCol!;
+            st.Problem(c, ctx.Sheet.Cell(r, c.Index), IssueCodes.MissingTimestamp, IntakeMessages.MissingTimestamp(), true);
+        }
+
+        SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
+        double? temp = tempCol is null ? null : NumberField(st, tempCol);
+        if (!st.Bad && sugar is null && temp is null)
+        {
+            st.Bad = true;
+            sink.Error(ctx.File, ctx.SheetName, r + 1, (sugarCol ?? tempCol)?.Header, null, IssueCodes.NoReading, IntakeMessages.NoReading());
+        }
+
+        if (st.Bad || lotId is null || when is null)
+        {
+            return false;
+        }
+
+        run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, new SourceRef(ctx.File, ctx.SheetName, r + 1))));
+        return true;
+    }
+}

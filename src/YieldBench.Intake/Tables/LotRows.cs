@@ -1,0 +1,108 @@
+using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
+using static YieldBench.Intake.FieldParsers;
+
+namespace YieldBench.Intake;
+
+/// <summary>Reads the rows of a lots table into <see cref="Lot"/>s (or, with <see cref="IntakeOptions.RunningLots"/>, running lots).</summary>
+internal static class LotRows
+{
+    private static readonly string[] Required = ["lot_id", "strain", "starting_sugar", "final_abv"];
+
+    public static void Read(SheetContext ctx)
+    {
+        var sink = ctx.Run.Sink;
+        bool running = ctx.Run.Options.RunningLots;
+        var missing = Required.Where(f => ctx.Column(f) is null && !(running && f == "final_abv")).ToList();
+        if (running)
+        {
+            RunningLotRows.ReportFinalColumns(ctx);
+        }
+
+        foreach (var m in missing)
+        {
+            var f = Fields.Lot(m);
+            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingColumn(m, [f.TemplateHeader, .. f.Synonyms.Take(2)]));
+        }
+
+        var rowState = new RowState(ctx);
+        var plan = new RowAccounting.Plan(running ? "running lots" : "lots", Readings: false, NotesAreRows: true, Usable: missing.Count == 0);
+        RowAccounting.Read(ctx, plan, r => running ? RunningLotRows.Add(ctx, rowState, r) : Add(ctx, rowState, r));
+    }
+
+    /// <summary>Reads row <paramref name="r"/> as a lot and keeps it; false when it was reported instead.</summary>
+    private static bool Add(SheetContext ctx, RowState rowState, int r)
+    {
+        var run = ctx.Run;
+        if (ReadRow(ctx, rowState, r) is not { } lot)
+        {
+            return false;
+        }
+
+        if (run.LotKeys.TryGetValue(lot.Key, out var first))
+        {
+            run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.LotColumn!.Header, lot.LotId, IssueCodes.DuplicateLot, IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString()));
+            return false;
+        }
+
+        run.LotKeys[lot.Key] = lot.Source!;
+        run.Lots.Add(lot);
+        return true;
+    }
+
+    private static Lot? ReadRow(SheetContext ctx, RowState row, int r)
+    {
+        var st = row.Start(r);
+        string? lotId = TextField(st, "lot_id");
+        string? strain = TextField(st, "strain");
+        int? season = SeasonField(st);
+        var startScale = ColumnUnits.Scale(ctx.Column("starting_sugar")?.Unit ?? ColumnUnit.Brix);
+        SugarReading? start = SugarField(st, ctx.Column("starting_sugar"), out double startRecorded);
+        double? abv = NumberField(st, "final_abv");
+        var lot = st.Bad || lotId is null || strain is null || start is null || abv is null || season is null
+            ? null
+            : new Lot
+            {
+                LotId = lotId,
+                Season = season.Value,
+                Strain = strain,
+                StartingSugar = start.Value,
+                RecordedStartingSugar = new RecordedSugar(startRecorded, startScale),
+                FinalAlcohol = AlcoholContent.FromPercentVolume(abv.Value),
+                Vessel = TextField(st, "vessel"),
+                VesselCapacityL = NumberField(st, "vessel_capacity_l"),
+                Variety = TextField(st, "variety"),
+                Block = TextField(st, "block"),
+                Colour = ColourField(st),
+                Additions = new Additions(NumberField(st, "must_volume_l"), NumberField(st, "water_added_l"), NumberField(st, "sugar_added_kg")),
+                ResidualSugarGl = NumberField(st, "residual_sugar_gl"),
+                FinalSugar = SugarField(st, "final_sugar"),
+                YanMgL = NumberField(st, "yan_mgl"),
+                Ph = NumberField(st, "ph"),
+                TaGl = NumberField(st, "ta_gl"),
+                MeanFermentationTempC = NumberField(st, "mean_temp_c"),
+                PeakFermentationTempC = NumberField(st, "peak_temp_c"),
+                InoculationDate = DateField(st, "inoculation_date"),
+                DryDate = DateField(st, "dry_date"),
+                Notes = TextField(st, "notes"),
+                Source = new SourceRef(ctx.File, ctx.SheetName, r + 1),
+            };
+
+        if (lot is null)
+        {
+            // Read the remaining fields anyway so every problem of the row is reported at once.
+            foreach (var name in new[] { "vessel_capacity_l", "must_volume_l", "water_added_l", "sugar_added_kg", "residual_sugar_gl", "yan_mgl", "ph", "ta_gl", "mean_temp_c", "peak_temp_c" })
+            {
+                NumberField(st, name);
+            }
+
+            SugarField(st, "final_sugar");
+            DateField(st, "inoculation_date");
+            DateField(st, "dry_date");
+            ColourField(st);
+            return null;
+        }
+
+        return st.Bad ? null : lot;
+    }
+}

@@ -1,0 +1,169 @@
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>
+/// The one loop over a table's data rows, shared by lots and logs: every row read is counted once as used, reported,
+/// blank or a summary, so each sheet's <see cref="SourceAccount"/> balances. Blank rows, summary rows, note rows
+/// (lots tables only), rows of a table that lacks a required column and CSV records with broken quoting are settled
+/// here; any other row goes to the table's row reader.
+/// </summary>
+internal static class RowAccounting
+{
+    private static readonly HashSet<string> SummaryWords =
+    [
+        "average", "averages", "avg", "mean", "total", "totals", "sum", "count", "min", "minimum", "max", "maximum",
+        "median", "std", "stdev", "std dev", "standard deviation", "overall", "grand total", "subtotal", "sub total", "range",
+    ];
+
+    private static readonly HashSet<string> SummaryFollowers = new(["of", "for", "all", "season", "lots", "vintage", "pct"], StringComparer.Ordinal);
+
+    /// <summary>How a table's rows are accounted.</summary>
+    /// <param name="Kind">The account's kind ("lots", "running lots", "log").</param>
+    /// <param name="Readings">True when used rows are log readings, false when they are lots.</param>
+    /// <param name="NotesAreRows">True when a row holding only a note is reported as such (lots tables).</param>
+    /// <param name="Usable">False when the table lacks a required column: every row with content is then reported.</param>
+    public sealed record Plan(string Kind, bool Readings, bool NotesAreRows, bool Usable);
+
+    /// <summary>Reads every data row; <paramref name="readRow"/> returns true when it used the row, false when it reported it.</summary>
+    public static void Read(SheetContext ctx, Plan plan, Func<int, bool> readRow)
+    {
+        var sink = ctx.Run.Sink;
+        int read = 0, used = 0, reported = 0, blank = 0, summary = 0;
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
+        {
+            read++;
+            var row = ctx.Sheet.Rows[r];
+            if (AllBlank(row))
+            {
+                blank++;
+                continue;
+            }
+
+            if (IsSummaryRow(ctx, row, out var label))
+            {
+                summary++;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, ctx.LotColumn?.Header, label, IssueCodes.SummaryRowSkipped, IntakeMessages.SummaryRow());
+                continue;
+            }
+
+            if (plan.NotesAreRows && NoteText(row) is { } note)
+            {
+                reported++;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, note, IssueCodes.NoteRowSkipped, IntakeMessages.NoteRowSkipped());
+                continue;
+            }
+
+            if (!plan.Usable)
+            {
+                reported++;
+                continue;
+            }
+
+            if (ctx.Sheet.BadRows.TryGetValue(r, out var detail))
+            {
+                reported++;
+                sink.Error(ctx.File, ctx.SheetName, r + 1, null, null, IssueCodes.BadCsvRow, IntakeMessages.BadCsvRow(detail));
+                continue;
+            }
+
+            if (readRow(r))
+            {
+                used++;
+            }
+            else
+            {
+                reported++;
+            }
+        }
+
+        ctx.Run.Accounts.Add(plan.Readings
+            ? new SourceAccount(ctx.File, ctx.SheetName, plan.Kind, read, 0, used, reported, blank, summary)
+            : new SourceAccount(ctx.File, ctx.SheetName, plan.Kind, read, used, 0, reported, blank, summary));
+    }
+
+    /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
+    private static string? NoteText(object?[] row)
+    {
+        object? only = null;
+        int filled = 0;
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c) && ++filled == 1)
+            {
+                only = c;
+            }
+            else if (filled > 1)
+            {
+                return null;
+            }
+        }
+
+        return filled == 1 && only is string s && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+    }
+
+    public static bool AllBlank(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static object? FirstFilled(object?[] row)
+    {
+        foreach (var c in row)
+        {
+            if (!CellValues.IsBlank(c))
+            {
+                return c;
+            }
+        }
+
+        return null;
+    }
+
+    private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
+    {
+        label = null;
+        var lotCol = ctx.LotColumn;
+        object? candidate = lotCol is not null && lotCol.Index < row.Length && !CellValues.IsBlank(row[lotCol.Index])
+            ? row[lotCol.Index]
+            : FirstFilled(row);
+        if (candidate is not string s)
+        {
+            return false;
+        }
+
+        // Every summary word starts with a letter, so text starting with a digit (a lot id) is none.
+        var lead = s.AsSpan().TrimStart();
+        if (lead.Length > 0 && char.IsAsciiDigit(lead[0]))
+        {
+            return false;
+        }
+
+        string n = HeaderText.Normalise(s);
+        if (SummaryWords.Contains(n))
+        {
+            label = s.Trim();
+            return true;
+        }
+
+        foreach (var w in SummaryWords)
+        {
+            // "<word> <follower> ...": the word, a space, then a follower as the next whole word.
+            if (n.StartsWith(w + " ", StringComparison.Ordinal) && SummaryFollowers.Contains(n[(w.Length + 1)..].Split(' ')[0]))
+            {
+                label = s.Trim();
+                return true;
+            }
+        }
+
+        return false;
+    }
+}

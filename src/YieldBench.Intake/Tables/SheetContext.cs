@@ -1,0 +1,72 @@
+namespace YieldBench.Intake;
+
+/// <summary>A column bound to a field, with the unit its values are read in.</summary>
+internal sealed class BoundColumn(int index, FieldDef field, string header, ColumnUnit unit, bool unitStated)
+{
+    private double[]? _parsed;
+
+    public int Index { get; } = index;
+
+    public FieldDef Field { get; set; } = field;
+
+    public string Header { get; } = header;
+
+    public ColumnUnit Unit { get; set; } = unit;
+
+    /// <summary>True when the header, a units row or a mapping gave the unit (the values then do not settle it).</summary>
+    public bool UnitStated { get; } = unitStated;
+
+    public DateOrder DateOrder { get; set; }
+
+    /// <summary>Keeps the numbers read while the unit was settled (NaN where a cell held none), by data row.</summary>
+    public void KeepParsed(double[] numbers) => _parsed = numbers;
+
+    /// <summary>The number read for data row <paramref name="dataRow"/> while the unit was settled, if any.</summary>
+    public bool ParsedAt(int dataRow, out double value)
+    {
+        value = _parsed is { } p && dataRow >= 0 && dataRow < p.Length ? p[dataRow] : double.NaN;
+        return !double.IsNaN(value);
+    }
+}
+
+/// <summary>One table being read: its sheet, kind, bound columns and data rows.</summary>
+internal sealed record SheetContext(
+    IntakeRun Run,
+    string File,
+    RawSheet Sheet,
+    TableKind Kind,
+    List<BoundColumn> Columns,
+    int FirstData,
+    int LastRow,
+    int? DefaultSeason)
+{
+    private readonly Dictionary<string, BoundColumn> _byField = IndexByField(Columns);
+
+    public string? SheetName => Sheet.Name;
+
+    /// <summary>The lot id column, or null.</summary>
+    public BoundColumn? LotColumn => Column("lot_id");
+
+    /// <summary>The column bound to the field (the first one, when a header repeats), or null.</summary>
+    public BoundColumn? Column(string field) => _byField.GetValueOrDefault(field);
+
+    /// <summary>The column's cells from the first data row to the last.</summary>
+    public IEnumerable<object?> Values(BoundColumn c)
+    {
+        for (int r = FirstData; r <= LastRow; r++)
+        {
+            yield return Sheet.Cell(r, c.Index);
+        }
+    }
+
+    private static Dictionary<string, BoundColumn> IndexByField(List<BoundColumn> columns)
+    {
+        var index = new Dictionary<string, BoundColumn>(StringComparer.Ordinal);
+        foreach (var c in columns)
+        {
+            index.TryAdd(c.Field.Name, c);
+        }
+
+        return index;
+    }
+}

@@ -1,0 +1,77 @@
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>
+/// Reads one sheet (or CSV file) as a table: finds its header, reads a units row, settles units the header did not
+/// state, records the header mapping, and hands the rows to the lots or log reader.
+/// </summary>
+internal static class SheetReader
+{
+    /// <summary>What reading a sheet came to.</summary>
+    public enum Outcome
+    {
+        Read,
+        NoTable,
+        Empty,
+    }
+
+    public static Outcome Read(IntakeRun run, string file, string fullPath, RawSheet sheet)
+    {
+        string? sheetName = sheet.Name;
+        var sink = run.Sink;
+        int lastRow = sheet.Rows.FindLastIndex(r => r.Any(c => !CellValues.IsBlank(c)));
+        if (lastRow < 0)
+        {
+            return Outcome.Empty;
+        }
+
+        if (sheet.TooManyRows)
+        {
+            sink.Error(file, sheetName, null, null, null, IssueCodes.TooManyRows, IntakeMessages.TooManyRows(run.Options.MaxRows));
+            run.Accounts.Add(new SourceAccount(file, sheetName, "refused", 0, 0, 0, 0, 0, 0));
+            return Outcome.Read;
+        }
+
+        if (!HeaderDetection.Find(run, sheet, lastRow, out int headerRow, out var kind, out var columns, out var unmatched, out var duplicates))
+        {
+            return Outcome.NoTable;
+        }
+
+        foreach (var (_, header) in unmatched)
+        {
+            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.ColumnNotUsed, IntakeMessages.ColumnNotUsed());
+        }
+
+        foreach (var (_, header, first) in duplicates)
+        {
+            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn, IntakeMessages.DuplicateColumn(first.Field.Name, first.Header));
+        }
+
+        int firstData = headerRow + 1;
+        if (firstData <= lastRow && HeaderDetection.ReadUnitsRow(run, file, sheet, firstData, columns))
+        {
+            firstData++;
+        }
+
+        string fileStem = Path.GetFileNameWithoutExtension(fullPath);
+        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season);
+        UnitSettling.Settle(ctx);
+        foreach (var c in columns)
+        {
+            string unit = ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : c.Field.Unit;
+            run.Mappings.Add(new HeaderMapping(file, sheetName, c.Field.Name, c.Header, unit.Length > 0 ? unit : null));
+        }
+
+        if (kind == TableKind.Lots)
+        {
+            LotRows.Read(ctx);
+        }
+        else
+        {
+            LogRows.Read(ctx, fileStem);
+        }
+
+        return Outcome.Read;
+    }
+}

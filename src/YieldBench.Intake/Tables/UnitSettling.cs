@@ -1,0 +1,167 @@
+namespace YieldBench.Intake;
+
+/// <summary>
+/// The unit of each column whose header, units row or mapping gave none, settled from its values (always said in a
+/// warning); a stated °C column whose values read as °F; the day/month order of text dates. Columns with a stated unit
+/// are not looked through, except that one °C check.
+/// </summary>
+internal static class UnitSettling
+{
+    public static void Settle(SheetContext ctx)
+    {
+        foreach (var c in ctx.Columns)
+        {
+            switch (c.Field.Kind)
+            {
+                case FieldKind.Sugar or FieldKind.Alcohol or FieldKind.Temperature when c.Unit == ColumnUnit.None:
+                    FromValues(ctx, c);
+                    break;
+                case FieldKind.Temperature when c.Unit == ColumnUnit.Celsius:
+                    CheckCelsius(ctx, c);
+                    break;
+                case FieldKind.Volume:
+                case FieldKind.Mass:
+                    if (c.Unit == ColumnUnit.None)
+                    {
+                        c.Unit = ColumnUnits.DefaultFor(c.Field.Kind);
+                        ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitAssumed, IntakeMessages.UnitAssumed(ColumnUnits.Label(c.Unit), c.Field.TemplateHeader));
+                    }
+
+                    break;
+                case FieldKind.Plain when c.Field.Unit.Length > 0 && c.Unit == ColumnUnit.None && !PlainUnitStated(c):
+                    ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitAssumed, IntakeMessages.UnitAssumed(c.Field.Unit, c.Field.TemplateHeader));
+                    break;
+                case FieldKind.Date or FieldKind.DateTime:
+                    c.DateOrder = CellValues.ColumnDateOrder(ctx.Values(c));
+                    break;
+            }
+        }
+    }
+
+    /// <summary>
+    /// The column's numbers, sorted (null when it holds none); the numbers are kept on the column by row, so each cell
+    /// is parsed once.
+    /// </summary>
+    private static double[]? SortedNumbers(SheetContext ctx, BoundColumn c)
+    {
+        var byRow = new double[ctx.LastRow - ctx.FirstData + 1];
+        var found = new List<double>(byRow.Length);
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
+        {
+            bool number = CellValues.Number(ctx.Sheet.Cell(r, c.Index), ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None;
+            byRow[r - ctx.FirstData] = number ? d : double.NaN;
+            if (number)
+            {
+                found.Add(d);
+            }
+        }
+
+        c.KeepParsed(byRow);
+        if (found.Count == 0)
+        {
+            return null;
+        }
+
+        var sorted = found.ToArray();
+        Array.Sort(sorted);
+        return sorted;
+    }
+
+    private static void FromValues(SheetContext ctx, BoundColumn c)
+    {
+        if (SortedNumbers(ctx, c) is not { } sorted)
+        {
+            c.Unit = ColumnUnits.DefaultFor(c.Field.Kind);
+            return;
+        }
+
+        double low = sorted[0], median = sorted[sorted.Length / 2], high = sorted[^1];
+        var sink = ctx.Run.Sink;
+        switch (c.Field.Kind)
+        {
+            case FieldKind.Sugar:
+                c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
+                var fitting = Array.FindAll(sorted, v => ValueLooksLike(c.Field, v, c.Unit));
+                var (bandLow, bandHigh) = fitting.Length > 0 ? (fitting[0], fitting[^1]) : (low, high);
+                sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues,
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)));
+                break;
+            case FieldKind.Alcohol:
+                c.Unit = median > 30 ? ColumnUnit.AlcoholGramsPerLitre : ColumnUnit.PercentVolume;
+                sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues,
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, c.Unit == ColumnUnit.AlcoholGramsPerLitre ? "Final alcohol (g/L)" : "Final alcohol (% v/v)"));
+                break;
+            default:
+                c.Unit = median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;
+                sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues,
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, c.Field.TemplateHeader));
+                break;
+        }
+    }
+
+    /// <summary>A column headed °C whose middle value lies above 45 and up to 120 holds °F: read so, with a warning.</summary>
+    private static void CheckCelsius(SheetContext ctx, BoundColumn c)
+    {
+        if (SortedNumbers(ctx, c) is { } sorted && sorted[sorted.Length / 2] is > 45 and <= 120)
+        {
+            c.Unit = ColumnUnit.Fahrenheit;
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.TemperatureInFahrenheit, IntakeMessages.ColumnInFahrenheit(sorted[0], sorted[^1]));
+        }
+    }
+
+    internal static bool PlainUnitStated(BoundColumn c)
+    {
+        string n = " " + HeaderText.Normalise(c.Header) + " ";
+        return c.Field.Unit switch
+        {
+            "g/L" => n.Contains(" g l ", StringComparison.Ordinal) || n.Contains(" gl ", StringComparison.Ordinal) || n.Contains(" gpl ", StringComparison.Ordinal),
+            "mg N/L" => n.Contains(" mg ", StringComparison.Ordinal) || n.Contains(" mgl ", StringComparison.Ordinal) || n.Contains(" ppm ", StringComparison.Ordinal),
+            _ => true,
+        };
+    }
+
+    internal static string SugarHeaderExample(BoundColumn c) => c.Field.Name switch
+    {
+        "starting_sugar" => "Starting sugar (" + ColumnUnits.Label(c.Unit) + ")",
+        "final_sugar" => "Final sugar (" + ColumnUnits.Label(c.Unit) + ")",
+        _ => "Sugar (" + ColumnUnits.Label(c.Unit) + ")",
+    };
+
+    /// <summary>Starting-sugar scale from the column median: SG 0.95–1.3, °Oechsle 45–145, g/L above 145, else °Brix.</summary>
+    internal static ColumnUnit StartingSugarUnit(double median) => median switch
+    {
+        >= 0.95 and < 1.3 => ColumnUnit.SpecificGravity,
+        > 45 and <= 145 => ColumnUnit.Oechsle,
+        > 145 => ColumnUnit.SugarGramsPerLitre,
+        _ => ColumnUnit.Brix,
+    };
+
+    /// <summary>Scale of a reading column (logs, final sugar) that runs down to dryness: all values 0.95–1.3 mean SG.</summary>
+    internal static ColumnUnit ReadingSugarUnit(double low, double high) => (low, high) switch
+    {
+        ( >= 0.95, < 1.3) => ColumnUnit.SpecificGravity,
+        (_, > 145) => ColumnUnit.SugarGramsPerLitre,
+        (_, > 45) => ColumnUnit.Oechsle,
+        _ => ColumnUnit.Brix,
+    };
+
+    /// <summary>True when a value fits the column's scale; false names a value that looks like another scale.</summary>
+    internal static bool ValueLooksLike(FieldDef field, double v, ColumnUnit unit)
+    {
+        if (field.Name == "starting_sugar")
+        {
+            var band = StartingSugarUnit(v);
+            return unit is ColumnUnit.Baume ? band == ColumnUnit.Brix : band == unit;
+        }
+
+        return unit switch
+        {
+            ColumnUnit.SpecificGravity => v is >= 0.95 and < 1.3,
+            ColumnUnit.Brix or ColumnUnit.Baume => v <= 45,
+            _ => true,
+        };
+    }
+
+    internal static ColumnUnit LikelyUnit(FieldDef field, double v) =>
+        field.Name == "starting_sugar" ? StartingSugarUnit(v) : ReadingSugarUnit(v, v);
+}
