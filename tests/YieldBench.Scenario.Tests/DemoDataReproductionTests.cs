@@ -14,7 +14,7 @@ public class DemoDataReproductionTests
         // Given the files the generator renders for the demo scenario
         // When each is compared with the committed file of the same name
         var mismatched = Rendered
-            .Where(f => !File.Exists(Path.Combine(RepoPaths.DemoData, f.Name)) || !File.ReadAllBytes(Path.Combine(RepoPaths.DemoData, f.Name)).AsSpan().SequenceEqual(f.Bytes))
+            .Where(f => !File.Exists(PathOf(f.Name)) || !File.ReadAllBytes(PathOf(f.Name)).AsSpan().SequenceEqual(f.Bytes))
             .Select(f => f.Name)
             .ToArray();
 
@@ -25,8 +25,11 @@ public class DemoDataReproductionTests
     [Fact]
     public void Demo_folder_holds_only_the_generated_files_and_the_git_attributes()
     {
-        // Given the committed demo folder
-        var present = Directory.GetFiles(RepoPaths.DemoData).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray();
+        // Given the committed demo folder and its subfolders ('/'-separated names, as the generator gives them)
+        var present = Directory.GetFiles(RepoPaths.DemoData, "*", SearchOption.AllDirectories)
+            .Select(f => Path.GetRelativePath(RepoPaths.DemoData, f).Replace(Path.DirectorySeparatorChar, '/'))
+            .Order(StringComparer.Ordinal)
+            .ToArray();
 
         // When compared with the generator's file list
         var expected = Rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal).ToArray();
@@ -34,6 +37,8 @@ public class DemoDataReproductionTests
         // Then no stale or stray file sits beside them
         Assert.Equal(expected, present);
     }
+
+    private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name.Replace('/', Path.DirectorySeparatorChar));
 
     [Fact]
     public void Two_renderings_of_the_demo_give_identical_bytes()

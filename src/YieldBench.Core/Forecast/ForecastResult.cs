@@ -49,7 +49,10 @@ public sealed record LotForecast
     /// <summary>Heat released at the forecast peak rate, kW (what cooling must remove to hold the temperature there), or null without a volume.</summary>
     public required double? CoolingKw { get; init; }
 
-    /// <summary>Forecast peak consumption rate, °Brix/day (median).</summary>
+    /// <summary>Where the hydrometer is expected to settle, °Brix (posterior mean of F).</summary>
+    public required double SettlesAtBrix { get; init; }
+
+    /// <summary>Forecast peak consumption rate, °Brix/day (posterior mean).</summary>
     public required double PeakRateBrixPerDay { get; init; }
 
     /// <summary>Chance of a sluggish or stuck end: never dry, or dry later than the strain's slowest past lot.</summary>

@@ -126,6 +126,7 @@ internal static class PosteriorSummary
             PeakC = peakValue,
             ReachableC = reachable,
             CoolingKw = kw,
+            SettlesAtBrix = f,
             PeakRateBrixPerDay = rate * 24.0,
             StuckRisk = stuckRisk,
             NextReadingHours = nextAt,
@@ -208,9 +209,13 @@ internal static class PosteriorSummary
 
         double wSum = nodes.Sum(k => w[k]);
         double zMean = nodes.Select((k, i) => w[k] * z[i]).Sum() / wSum;
+        double zVar = nodes.Select((k, i) => w[k] * (z[i] - zMean) * (z[i] - zMean)).Sum() / wSum;
         double end = forThird ? Math.Max(now, Math.Min(now + settings.NextReadingHorizonHours, thirdLow)) : now + settings.NextReadingHorizonHours;
-        double best = now, bestGain = -1;
-        for (double t = Math.Ceiling(now); t <= end + 1e-9; t += 1.0)
+        var gains = new List<(double T, double Gain)>();
+        // Candidate times on the whole hours of the clock.
+        var clock = c.At(now);
+        double first = c.HoursOf(new DateTime(clock.Year, clock.Month, clock.Day, clock.Hour, 0, 0).AddHours(clock.Minute == 0 && clock.Second == 0 ? 0 : 1));
+        for (double t = first; t <= end + 1e-9; t += 1.0)
         {
             double ym = 0;
             var y = new double[nodes.Length];
@@ -233,13 +238,19 @@ internal static class PosteriorSummary
 
             // Linear-Gaussian variance reduction of the target time from one reading at t.
             double gain = cov * cov / (vy + noise);
-            if (gain > bestGain + 1e-12)
+            if (zVar > 0 && gain >= 0.5 * zVar)
             {
-                (best, bestGain) = (t, gain);
+                // A reading gains more the later it is taken; the earliest one that halves the variance is the answer.
+                return (t, forThird ? "one-third" : "dryness");
             }
+
+            gains.Add((t, gain));
         }
 
-        return (best, forThird ? "one-third" : "dryness");
+        // No reading in the window halves it: the earliest that gets 90 % of the window's largest gain.
+        double top = gains.Count > 0 ? gains.Max(g => g.Gain) : 0;
+        double at = gains.FirstOrDefault(g => g.Gain >= 0.9 * top, (now, 0)).T;
+        return (at, forThird ? "one-third" : "dryness");
     }
 
     private static ForecastCurve Curve(LotPosterior p, double[] w, double now, double s0, double f, ForecastValue? dry, ForecastValue? third, ForecastSettings settings)

@@ -1,0 +1,197 @@
+using System.CommandLine;
+using System.Globalization;
+using YieldBench.Core.Forecast;
+using YieldBench.Core.Lots;
+using YieldBench.Intake;
+using YieldBench.Reports.Forecast;
+
+namespace YieldBench.Cli.Commands;
+
+/// <summary>
+/// <c>yieldbench forecast [HISTORY…] --running FILE… [--out DIR]</c>: learn how each strain ferments from the finished
+/// lots and logs, backtest that by leaving each season out, forecast the lots still fermenting, print it in plain words
+/// and write forecast.json, forecast.xlsx and a chart per lot.
+/// </summary>
+internal static class ForecastCommand
+{
+    /// <summary>Default output folder.</summary>
+    public const string DefaultOutput = "yieldbench-forecast";
+
+    /// <summary>The demo's harvest in progress, under the demo folder.</summary>
+    public const string DemoRunning = "demo-data/running";
+
+    /// <summary>Said when no inputs are given.</summary>
+    public const string DemoNotice =
+        "No inputs given: forecasting the bundled demo's harvest in progress from its three past seasons (an invented winery, invented strain codes; not real data).";
+
+    public static Command Create(CliContext context)
+    {
+        var history = new Argument<string[]>("history") { Description = "Finished lots and their logs (what review reads): files or folders. None, with no --running: the bundled demo.", Arity = ArgumentArity.ZeroOrMore };
+        var running = new Option<string[]>("--running") { Description = "Lots still fermenting and their logs: a lots table (lot, strain, starting sugar; no final alcohol needed) and logs, files or folders.", AllowMultipleArgumentsPerToken = true };
+        var output = new Option<string>("--out") { Description = "Output folder (created when missing; this command's files in it are replaced, others left alone).", DefaultValueFactory = _ => DefaultOutput };
+        var quiet = new Option<bool>("--quiet") { Description = "Print nothing but errors." };
+        var columns = new Option<string[]>("--column") { Description = "Map a field to a header, FIELD=HEADER (repeatable), for history and running files alike.", AllowMultipleArgumentsPerToken = false };
+        var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one FIELD = HEADER a line." };
+        var command = new Command("forecast", "Forecast lots still fermenting from the cellar's own history: one-third depletion, dryness, peak temperature, cooling, stuck risk; with a backtest.");
+        command.Arguments.Add(history);
+        foreach (var option in new Option[] { running, output, quiet, columns, mapping })
+        {
+            command.Options.Add(option);
+        }
+
+        command.SetAction(parse => Run(context, new Request(
+            parse.GetValue(history) ?? [],
+            parse.GetValue(running) ?? [],
+            parse.GetValue(output) ?? DefaultOutput,
+            parse.GetValue(quiet),
+            parse.GetValue(columns) ?? [],
+            parse.GetValue(mapping))));
+        return command;
+    }
+
+    /// <summary>What the user asked for.</summary>
+    internal sealed record Request(IReadOnlyList<string> History, IReadOnlyList<string> Running, string Output, bool Quiet, IReadOnlyList<string> Columns, string? Mapping);
+
+    internal static int Run(CliContext context, Request request)
+    {
+        void Say(string line)
+        {
+            if (!request.Quiet)
+            {
+                context.Out.WriteLine(line);
+            }
+        }
+
+        var history = request.History.ToList();
+        var running = request.Running.ToList();
+        string root = context.WorkingDirectory;
+        if (history.Count == 0 && running.Count == 0)
+        {
+            string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
+            if (!Directory.Exists(Path.Combine(AppContext.BaseDirectory, DemoRunning)))
+            {
+                context.Error.WriteLine($"No inputs given and the bundled demo data is missing ({demo}); give the history and --running files.");
+                return ExitCodes.Usage;
+            }
+
+            root = AppContext.BaseDirectory;
+            history.Add("demo-data");
+            running.Add(DemoRunning);
+            Say(DemoNotice);
+        }
+        else if (running.Count == 0)
+        {
+            context.Error.WriteLine("forecast needs the lots still fermenting: give them with --running FILE… (a lots table and their logs).");
+            return ExitCodes.Usage;
+        }
+        else if (history.Count == 0)
+        {
+            context.Error.WriteLine("forecast needs the history the priors come from: give the past seasons' lots and logs (what review reads) before --running.");
+            return ExitCodes.Usage;
+        }
+
+        string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
+        if (ReviewCommand.OutputClash(history.Concat(running).Select(i => Path.GetFullPath(i, root)), outFolder) is { } clash)
+        {
+            context.Error.WriteLine(clash);
+            return ExitCodes.Usage;
+        }
+
+        var options = new IntakeOptions
+        {
+            ColumnMappings = request.Columns,
+            MappingFile = request.Mapping is null ? null : Path.GetFullPath(request.Mapping, context.WorkingDirectory),
+            WorkingDirectory = root,
+        };
+        var past = IntakeReader.Read(history, options);
+        var now = IntakeReader.Read(running, options with { RunningLots = true });
+        if (ReviewCommand.OutputClash(past.Files.Concat(now.Files).Select(f => Path.GetFullPath(f.Path, root)), outFolder) is { } fileClash)
+        {
+            context.Error.WriteLine(fileClash);
+            return ExitCodes.Usage;
+        }
+
+        ReportIssues(context, request.Quiet, past, now);
+        if (now.RunningLots.Count == 0)
+        {
+            context.Error.WriteLine("No running lot could be read from the --running files (a lots table with lot id, strain and starting sugar is needed; see the issues above).");
+            return ExitCodes.InputProblems;
+        }
+
+        ForecastReport report;
+        try
+        {
+            report = ForecastRunner.Run(past.Lots, past.Logs, now.RunningLots, now.Logs, ForecastSettings.Default);
+        }
+        catch (ArgumentException e)
+        {
+            context.Error.WriteLine($"The forecast cannot be made: {e.Message.Split(" (Parameter", StringSplitOptions.None)[0]}");
+            return ExitCodes.InputProblems;
+        }
+
+        var written = ForecastOutput.Write(report, outFolder, past.Issues.Concat(now.Issues).ToArray());
+        foreach (var line in ConsoleLines(report, outFolder, written, context.WorkingDirectory))
+        {
+            Say(line);
+        }
+
+        bool leftOut = past.Issues.Concat(now.Issues).Any(i => i.Severity == IssueSeverity.Error);
+        return leftOut ? ExitCodes.InputProblems : ExitCodes.Success;
+    }
+
+    /// <summary>
+    /// Intake issues: every issue of the running files (they are what is forecast), and the history's errors (its
+    /// warnings are counted; <c>yieldbench check</c> lists them).
+    /// </summary>
+    private static void ReportIssues(CliContext context, bool quiet, SeasonSet past, SeasonSet now)
+    {
+        var errors = past.Issues.Where(i => i.Severity == IssueSeverity.Error).Concat(now.Issues).ToArray();
+        foreach (var i in errors)
+        {
+            var writer = i.Severity == IssueSeverity.Error ? context.Error : context.Out;
+            if (quiet && i.Severity != IssueSeverity.Error)
+            {
+                continue;
+            }
+
+            string where = string.Join(", ", new[] { i.File, i.Sheet is null ? null : $"sheet {i.Sheet}", i.Row is { } r ? $"row {r.ToString(CultureInfo.InvariantCulture)}" : null, i.Column is null ? null : $"column {i.Column}", i.Value is null ? null : $"value '{i.Value}'" }.Where(s => s is not null));
+            writer.WriteLine($"{(i.Severity == IssueSeverity.Error ? "left out" : "note")}: {where}: {i.Message} [{i.Code}]");
+        }
+
+        int historyWarnings = past.Issues.Count(i => i.Severity == IssueSeverity.Warning);
+        if (historyWarnings > 0 && !quiet)
+        {
+            context.Out.WriteLine($"History: {historyWarnings} intake warning(s) (rows used); 'yieldbench check' on the history lists each with its fix. All are in forecast.xlsx, sheet \"Intake issues\".");
+        }
+    }
+
+    /// <summary>The console's lines: the lots in plain words, the backtest in short, the basis, the files, the cautions.</summary>
+    internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, string outFolder, IReadOnlyList<string> written, string workingDirectory)
+    {
+        var lines = new List<string>();
+        var seasons = report.Lots.Select(l => l.Course.Season).Distinct().Order().ToArray();
+        string stand = report.Now is { } t ? $" (readings stand at {ForecastSentences.When(t)})" : string.Empty;
+        lines.Add($"Forecast for {report.Lots.Count} running lot(s) of {string.Join(", ", seasons)}{stand}:");
+        foreach (var lot in report.Lots)
+        {
+            lines.AddRange(ForecastSentences.Lot(lot));
+        }
+
+        lines.Add(string.Empty);
+        lines.AddRange(ForecastSentences.Backtest(report.Backtest));
+        lines.Add(string.Empty);
+        lines.AddRange(ForecastSentences.Basis(report));
+        foreach (var note in report.Notes)
+        {
+            lines.Add(note.Message);
+        }
+
+        lines.Add(string.Empty);
+        string shown = Path.GetRelativePath(workingDirectory, outFolder);
+        int charts = written.Count(w => w.EndsWith(".png", StringComparison.Ordinal));
+        lines.Add($"Wrote {Path.Combine(shown, ForecastJson.FileName)}, {Path.Combine(shown, ForecastWorkbook.FileName)} and {charts} chart(s) in {Path.Combine(shown, ForecastOutput.ChartsFolder)}.");
+        lines.Add("Cautions:");
+        lines.AddRange(ForecastSentences.Cautions.Select(c => "  " + c));
+        return lines;
+    }
+}
