@@ -59,31 +59,41 @@ public static class ForecastBacktest
             return new BacktestResult([], [], seasons);
         }
 
+        // Each season held out gets its model; each (season, cut) is then forecast on its own, side by side, and the
+        // cases are put back in season and cut order.
+        var models = new Dictionary<int, ForecastModel>();
         foreach (int season in seasons)
         {
             var training = past.Where(p => p.Course.Season != season).ToArray();
-            if (training.Count(p => p.FitOf(form) is not null) < 3)
+            if (training.Count(p => p.FitOf(form) is not null) >= 3)
             {
-                continue;
+                models[season] = ForecastModel.Train(training, form, settings);
             }
+        }
 
-            var model = ForecastModel.Train(training, form, settings);
-            var held = past.Where(p => p.Course.Season == season).ToArray();
-            foreach (int cut in settings.BacktestCuts)
+        var jobs = models.Keys.Order().SelectMany(season => settings.BacktestCuts.Select(cut => (season, cut))).ToArray();
+        var results = new List<BacktestCase>[jobs.Length];
+        Parallel.For(0, jobs.Length, i =>
+        {
+            var (season, cut) = jobs[i];
+            var model = models[season];
+            var lots = past.Where(p => p.Course.Season == season && p.Course.SugarHours.Length > cut).ToArray();
+            var found = new List<BacktestCase>();
+            if (lots.Length > 0)
             {
-                var lots = held.Where(p => p.Course.SugarHours.Length > cut).ToArray();
-                if (lots.Length == 0)
-                {
-                    continue;
-                }
-
                 var courses = lots.Select(p => p.Course.Cut(cut)).ToArray();
                 var (forecasts, _, _) = SeasonForecaster.Run(model, courses, settings, null, withCurves: false);
-                for (int i = 0; i < lots.Length; i++)
+                for (int k = 0; k < lots.Length; k++)
                 {
-                    cases.AddRange(Score(lots[i], courses[i], forecasts[i], model, cut, settings));
+                    found.AddRange(Score(lots[k], courses[k], forecasts[k], model, cut, settings));
                 }
             }
+
+            results[i] = found;
+        });
+        foreach (var r in results)
+        {
+            cases.AddRange(r);
         }
 
         var rows = new List<BacktestRow>();

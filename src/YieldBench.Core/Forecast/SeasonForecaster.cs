@@ -5,12 +5,16 @@ namespace YieldBench.Core.Forecast;
 /// <summary>
 /// Forecasts lots running in the same season together: each lot's grid posterior depends on the season shift δ (a
 /// common time scale: a faster season raises every lot's rate by e^δ and shortens its lag by e^−δ), δ has the history's
-/// season spread as its prior, and its posterior comes from every lot's readings at once. Pure and deterministic.
+/// season spread as its prior, and its posterior comes from every lot's readings at once. Pure and deterministic; runs
+/// on the calling thread (the backtest runs its seasons and cuts side by side instead).
 /// </summary>
 public static class SeasonForecaster
 {
-    private const int ShiftNodes = 11;
-    private const double ShiftHalfWidth = 6.0;
+    /// <summary>Nodes of the 7-point Gauss–Hermite rule (weight e^(−x²); Abramowitz &amp; Stegun 1964, Table 25.10).</summary>
+    private static readonly double[] HermiteNodes = [-2.651961356835233, -1.673551628767471, -0.816287882858965, 0, 0.816287882858965, 1.673551628767471, 2.651961356835233];
+
+    /// <summary>Weights of the 7-point Gauss–Hermite rule.</summary>
+    private static readonly double[] HermiteWeights = [0.000971781245099519, 0.054515582819127, 0.425607252610128, 0.810264617556807, 0.425607252610128, 0.054515582819127, 0.000971781245099519];
 
     /// <summary>
     /// Forecasts every course (all of one season). <paramref name="now"/> is the moment the readings stand at (the
@@ -22,37 +26,42 @@ public static class SeasonForecaster
         ArgumentNullException.ThrowIfNull(courses);
         ArgumentNullException.ThrowIfNull(settings);
         var posts = new LotPosterior[courses.Count];
-        Parallel.For(0, courses.Count, i => posts[i] = LotPosterior.Build(courses[i], model, settings));
-
-        // The season shift: a grid over ±6 prior sd, then grids over ±4 posterior sd until the grid's step is small
-        // against the spread it finds; each lot's evidence at each δ.
-        double tau = Math.Max(model.SeasonSpread, 1e-6);
-        double centre = 0, half = tau * ShiftHalfWidth;
-        double[] deltas = [];
-        double[] shiftWeight = [];
-        double[][] evidence = [];
-        for (int stage = 0; stage < 5; stage++)
+        for (int i = 0; i < courses.Count; i++)
         {
-            double c0 = centre, h0 = half;
-            deltas = Enumerable.Range(0, ShiftNodes).Select(i => c0 + (h0 * ((2.0 * i / (ShiftNodes - 1)) - 1))).ToArray();
-            (shiftWeight, evidence) = ShiftPosterior(posts, deltas, tau);
-            double step = deltas[1] - deltas[0];
-            double m = deltas.Select((d, i) => d * shiftWeight[i]).Sum();
-            double sd = Math.Sqrt(deltas.Select((d, i) => (d - m) * (d - m) * shiftWeight[i]).Sum());
-            if (step <= sd)
-            {
-                break;
-            }
-
-            centre = m;
-            half = 4.0 * Math.Max(sd, step / 4.0);
+            posts[i] = LotPosterior.Build(courses[i], model, settings);
         }
+
+        // The season shift. Each lot's log evidence is nearly quadratic in δ: three evaluations (δ = −τ, 0, τ) give its
+        // slope and curvature, and with the N(0, τ²) prior a Gaussian approximation of δ's posterior. Seven
+        // Gauss–Hermite nodes of that Gaussian carry the exact posterior: each node's weight is corrected by the ratio
+        // of the exact posterior (prior × every lot's evidence there) to the approximation.
+        double tau = Math.Max(model.SeasonSpread, 1e-6);
+        var (_, probe) = ShiftPosterior(posts, [-tau, 0, tau], tau);
+        double precision = 1 / (tau * tau), slope = 0;
+        foreach (var e in probe)
+        {
+            slope += (e[2] - e[0]) / (2 * tau);
+            precision += Math.Max(0, -(e[2] - (2 * e[1]) + e[0]) / (tau * tau));
+        }
+
+        double approxMean = slope / precision, approxSd = 1 / Math.Sqrt(precision);
+        var deltas = HermiteNodes.Select(x => approxMean + (Math.Sqrt(2) * approxSd * x)).ToArray();
+        var (exact, evidence) = ShiftPosterior(posts, deltas, tau);
+        var logCorrected = new double[deltas.Length];
+        for (int i = 0; i < deltas.Length; i++)
+        {
+            // Weight of node i: its Gauss–Hermite weight × exact posterior ÷ approximating density (both up to constants).
+            double z = (deltas[i] - approxMean) / approxSd;
+            logCorrected[i] = Math.Log(HermiteWeights[i]) + exact[i] + (0.5 * z * z);
+        }
+
+        var shiftWeight = Normalise(logCorrected);
 
         double shift = deltas.Select((d, i) => d * shiftWeight[i]).Sum();
         double shiftSd = Math.Sqrt(deltas.Select((d, i) => (d - shift) * (d - shift) * shiftWeight[i]).Sum());
 
         var result = new LotForecast[courses.Count];
-        Parallel.For(0, courses.Count, j =>
+        for (int j = 0; j < courses.Count; j++)
         {
             var p = posts[j];
             var w = new double[p.Nodes];
@@ -79,16 +88,16 @@ public static class SeasonForecaster
 
             double nowHours = now is { } t ? p.Course.HoursOf(t) : LastHours(p.Course);
             result[j] = PosteriorSummary.Summarise(p, w, nowHours, shift, settings, withCurves);
-        });
+        }
 
         return (result, shift, shiftSd);
     }
 
-    /// <summary>The posterior of δ on the given nodes (prior N(0, τ²)) and each lot's log evidence at each node.</summary>
+    /// <summary>The log posterior of δ on the given nodes (prior N(0, τ²), unnormalised) and each lot's log evidence at each node.</summary>
     private static (double[] Weights, double[][] Evidence) ShiftPosterior(LotPosterior[] posts, double[] deltas, double tau)
     {
         var evidence = new double[posts.Length][];
-        Parallel.For(0, posts.Length, j =>
+        for (int j = 0; j < posts.Length; j++)
         {
             var p = posts[j];
             var e = new double[deltas.Length];
@@ -113,7 +122,7 @@ public static class SeasonForecaster
             }
 
             evidence[j] = e;
-        });
+        }
 
         var logShift = new double[deltas.Length];
         for (int d = 0; d < deltas.Length; d++)
@@ -125,7 +134,7 @@ public static class SeasonForecaster
             }
         }
 
-        return (Normalise(logShift), evidence);
+        return (logShift, evidence);
     }
 
     /// <summary>The hours of a course's last reading (0 when it has none).</summary>
