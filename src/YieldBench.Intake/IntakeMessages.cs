@@ -16,14 +16,30 @@ public static class IntakeMessages
     internal static string FileNotFound() => "The file or folder was not found. Check the path.";
 
     internal static string UnsupportedFileType(string extension) =>
-        $"Files ending in '{extension}' are not read. Save the sheet as .xlsx, .xls or .csv.";
+        $"Files ending in '{extension}' are not read. Save the sheet as .xlsx, .ods or .csv.";
 
-    internal static string FolderEmpty() => "The folder holds no .xlsx, .xls or .csv file; nothing was read from it.";
+    internal static string FolderEmpty() =>
+        "The folder (with its subfolders) holds no .xlsx, .xlsm, .xls, .ods, .csv, .txt or .tsv file; nothing was read from it.";
+
+    internal static string FileSkipped(string extension) =>
+        $"The file is not of a type read ({(extension.Length == 0 ? "no extension" : "'" + extension + "'")}); it was skipped. If it holds lots or readings, save it as .xlsx, .ods or .csv.";
+
+    internal static string FolderLinkSkipped() => "The folder is a link to another folder; it was not followed. Give the folder it points to, if it holds lots or readings.";
+
+    internal static string FolderTooDeep(int depth) =>
+        $"The folder lies more than {depth.ToString(Inv)} folders below the one given; it was not read. Give it by its own path.";
+
+    internal static string CannotOpenFolder(string reason) =>
+        $"The folder could not be listed ({reason}). Check the permissions.";
+
+    internal static string TextFileWithoutTable(int rowsSearched) =>
+        $"No header row naming lot or log columns was found in the first {rowsSearched.ToString(Inv)} rows of this text file; it was taken for notes and not read. If it holds lots or readings, give it a header row.";
 
     internal static string LockFileSkipped() =>
         "This is a spreadsheet program's lock file (its name starts with '~$'), not data; it was skipped.";
 
-    internal static string EmptyFile() => "The file is empty (0 bytes). Export the sheet again.";
+    internal static string EmptyFile() =>
+        "The file is empty (0 bytes), or it is not an ordinary file (a device, a pipe or a socket); nothing was read. Export the sheet again as a file.";
 
     internal static string FileTooLarge(long bytes, long limit) =>
         $"The file is {bytes.ToString(Inv)} bytes, above the limit of {limit.ToString(Inv)} bytes. Split it (for example one file per season).";
@@ -39,6 +55,9 @@ public static class IntakeMessages
 
     internal static string ZipBomb(long uncompressed, long compressed, double limit) =>
         $"The workbook would expand from {compressed.ToString(Inv)} to {uncompressed.ToString(Inv)} bytes, {Num(Math.Round((double)uncompressed / Math.Max(1, compressed), 1))} times its size, out of proportion for a spreadsheet (limit {Num(limit)} times); it was not opened. Save the data again from the spreadsheet program.";
+
+    internal static string ZipPartsOverlap(long claimed, long length) =>
+        $"The workbook's parts claim {claimed.ToString(Inv)} compressed bytes in a file of {length.ToString(Inv)} bytes, so parts share their data, as only a zip bomb's do; it was not opened. Save the data again from the spreadsheet program.";
 
     internal static string TooBigUncompressed(long uncompressed, long limit) =>
         $"The workbook would expand to {uncompressed.ToString(Inv)} bytes, above the limit of {limit.ToString(Inv)} bytes; it was not opened. Split it into smaller workbooks.";
@@ -102,11 +121,15 @@ public static class IntakeMessages
 
     internal static string MappingFileNotFound() => "The mapping file was not found. Check the path given to --mapping.";
 
+    internal static string MappingFileRefused(long bytes, long limit) => bytes == 0
+        ? "The mapping file is empty, or it is not an ordinary file (a device, a pipe or a socket); it was not read. Give a text file of 'FIELD = HEADER' lines."
+        : $"The mapping file is {bytes.ToString(Inv)} bytes, above the limit of {limit.ToString(Inv)} bytes for a list of mappings; it was not read. Check the path given to --mapping.";
+
     internal static string MappingLineNotUnderstood() =>
         "The line is not of the form FIELD = HEADER. Write one mapping a line, e.g. 'strain = Levure'; '#' starts a comment.";
 
-    internal static string MappingUnknownField(string field) =>
-        $"'{field}' is not a field name. Use one of the fields listed in docs/input-format.md, e.g. lot_id, strain, starting_sugar, final_abv.";
+    internal static string MappingUnknownField(string field, IEnumerable<string> names) =>
+        $"'{field}' is not a field name. Use one of: {string.Join(", ", names)} (docs/input-format.md says what each holds).";
 
     internal static string MappedHeaderNotFound(string field) =>
         $"No sheet has this header, so the mapping to {field} was not used. Check the spelling against the file's header row.";
@@ -121,6 +144,9 @@ public static class IntakeMessages
 
     internal static string AmbiguousDotNumber(string field, string asThousands, string asDecimal) =>
         $"{field} could be {asThousands} (dot as thousands separator, as this decimal-comma file may use) or {asDecimal} (decimal point). Write it without a thousands separator.";
+
+    internal static string AmbiguousDotNumberUnsettled(string field, string asThousands, string asDecimal) =>
+        $"{field} could be {asThousands} (dot as thousands separator, as files from European spreadsheets write it) or {asDecimal} (decimal point); nothing else in this file settles which. Write it without a thousands separator.";
 
     internal static string AmbiguousNumber(string field, string asThousands, string asDecimal) =>
         $"{field} could be {asThousands} (comma as thousands separator) or {asDecimal} (decimal comma). Write it without a thousands separator.";
@@ -145,6 +171,40 @@ public static class IntakeMessages
 
     internal static string ErrorCell(string field) =>
         $"{field} holds a spreadsheet error (a formula that failed). Fix the formula or type the value.";
+
+    internal static string ReadingDateImplausible(string log, string date, string basis) =>
+        $"The reading of {log} is dated {date}, more than a year from {basis}; it was left out (a ferment would seem to last for years). Check the date (a year typed wrong, or a date cell read as its serial number).";
+
+    internal static string LogTooShort(string log, int readings) => readings == 1
+        ? $"The log of {log} holds one reading, so no rate, lag or time to dryness can be measured; the kinetics review leaves it out. Add the other readings, or leave the log out."
+        : $"The log of {log} holds {readings.ToString(Inv)} readings all at one time, so no rate, lag or time to dryness can be measured; the kinetics review leaves it out. Check the dates and times.";
+
+    internal static string ResidualAboveStart(double residualGl, double startGl, string start) =>
+        $"The residual sugar, {Num(residualGl)} g/L, is more than the must held at the start ({Num(Math.Round(startGl, 1))} g/L of fermentable sugar at {start}, after recorded additions), which is impossible; the lot was left out. One of the two values is wrong (a unit, a misplaced decimal point, or another lot's value).";
+
+    internal static string AdditionsImplausible(string what, double effectiveBrix, double min, double max) =>
+        $"{what} would make {(double.IsNaN(effectiveBrix) ? "a must of more than " + Num(YieldBench.Core.Units.SugarReading.MaxBrix) + " °Brix" : "a must of " + Num(Math.Round(effectiveBrix, 1)) + " °Brix")}, outside any must ({Num(min)} to {Num(max)} °Brix); the lot was left out. One of the values is wrong (a unit, for example pounds or grams for kilograms, or a misplaced decimal point).";
+
+    internal static string AdditionsWithoutVolume() =>
+        "Water or sugar additions are recorded without a must volume, so the starting sugar cannot be corrected for them: the lot is reviewed on its measured starting sugar and its factor is off by the additions. Add the must volume (before the additions).";
+
+    internal static string DateOutsideSeason(string field, string date, int season) =>
+        $"{field} {date} lies more than a year from season {season.ToString(Inv)}.";
+
+    internal static string TimeZoneNotApplied(string field) =>
+        $"{field} values carry a time zone (Z or an offset such as +02:00); they were read as the clock time written, in the file's own clock, and the zone was not applied. Times are compared as written, so keep every log of a lot in one clock.";
+
+    internal static string ExtraFields(int fields, int headerFields) =>
+        $"The row has {fields.ToString(Inv)} fields but the header {headerFields.ToString(Inv)}, so its values have shifted and none was used: a value holding the delimiter without quotes splits in two (a number written 4,500 in a comma-separated file). Quote such a value (\"4,500\") or write numbers without a thousands separator.";
+
+    internal static string TextSettled(string field, bool notes) =>
+        $"{field} holds control characters (such as a vertical tab, which some database exports write for a line break, or an escape) that spreadsheets, charts and terminals cannot show; {(notes ? "line-break characters were read as line breaks and the others as spaces" : "they were read as spaces")}. Check the text in the file.";
+
+    internal static string TextTooLong(string field, int length, int limit) =>
+        $"{field} is {length.ToString("N0", Inv)} characters long, more than the {limit.ToString("N0", Inv)} a spreadsheet cell holds; it was cut to that length. Shorten the text in the file.";
+
+    internal static string FormulaWithoutValue(string field, string formula) =>
+        $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";
 
     internal static string NotADate(string field) =>
         $"{field} is not a date. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";

@@ -4,18 +4,23 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Intake;
 
 /// <summary>
-/// Reads seasons of lots and fermentation logs from .xlsx, .xls and .csv files and folders. Never throws for bad
+/// Reads seasons of lots and fermentation logs from .xlsx, .xlsm, .xls, .ods, .csv, .txt and .tsv files and folders of
+/// them. Never throws for bad
 /// input: every problem becomes an <see cref="IntakeIssue"/> naming file, sheet, row, column and value, and every row
 /// read is accounted for (<see cref="SourceAccount"/>).
 /// </summary>
-public static partial class IntakeReader
+public static class IntakeReader
 {
-    /// <summary>File name endings read from a folder and accepted as inputs.</summary>
-    public static IReadOnlyList<string> Extensions { get; } = [".xlsx", ".xlsm", ".xls", ".csv"];
+    /// <summary>File name endings that are read, from a folder or given by name.</summary>
+    public static IReadOnlyList<string> Extensions { get; } = [".xlsx", ".xlsm", ".xls", ".ods", ".csv", ".txt", ".tsv"];
+
+    /// <summary>Folders below a folder given that are looked into (deeper ones are reported, not read).</summary>
+    public const int MaxFolderDepth = 8;
 
     /// <summary>
-    /// Reads every input. <paramref name="paths"/> are files or folders (a folder means its .xlsx, .xlsm, .xls and .csv
-    /// files, not its subfolders, in ordinal name order). Results are in input order and do not depend on the clock.
+    /// Reads every input. <paramref name="paths"/> are files or folders (a folder means the files of the types read in
+    /// it and its subfolders, in ordinal order of their paths; every other file is reported as skipped). Results are in
+    /// input order and do not depend on the clock.
     /// </summary>
     /// <param name="paths">Input files and folders, absolute or relative to <see cref="IntakeOptions.WorkingDirectory"/>.</param>
     /// <param name="options">Mappings, season fallback and limits.</param>
@@ -41,12 +46,12 @@ public static partial class IntakeReader
             }
 
             var (display, full) = (step.Display!, step.Full!);
-            ReadFile(run, display, full, Readable(full) ? Load(display, full, options) : null, files);
+            ReadFile(run, step, Readable(full) ? Load(display, full, options) : null, files);
         }
 
         ColumnRules.ReportUnused(rules, sink);
         Spellings.Unify(run.Lots, sink);
-        var logs = JoinLogs(run);
+        var logs = LogJoin.Join(run);
         return new SeasonSet
         {
             Lots = run.Lots,
@@ -59,8 +64,11 @@ public static partial class IntakeReader
         };
     }
 
-    /// <summary>One input in order: a file to read (display name and full path), or an issue found listing the inputs.</summary>
-    private sealed record Step(string? Display, string? Full, IntakeIssue? Issue);
+    /// <summary>
+    /// One input in order: a file to read (display name, full path, and whether it was met in a folder rather than
+    /// named), or an issue found listing the inputs.
+    /// </summary>
+    private sealed record Step(string? Display, string? Full, IntakeIssue? Issue, bool InFolder = false);
 
     private static Step Found(string file, string code, string message, IssueSeverity severity) =>
         new(null, null, new IntakeIssue(file, null, null, null, null, code, message, severity));
@@ -72,30 +80,22 @@ public static partial class IntakeReader
             string full = Path.GetFullPath(p, root);
             if (Directory.Exists(full))
             {
-                var inFolder = Directory.EnumerateFiles(full)
-                    .Where(f => Extensions.Contains(Path.GetExtension(f).ToLowerInvariant()))
-                    .Order(StringComparer.Ordinal)
-                    .ToList();
-                if (inFolder.Count == 0)
+                var steps = new List<Step>();
+                int read = 0;
+                Walk(full, TextSettling.ForDisplay(p, int.MaxValue), 0, steps, ref read);
+                if (read == 0)
                 {
-                    yield return Found(p, IssueCodes.FolderEmpty, IntakeMessages.FolderEmpty(), IssueSeverity.Warning);
+                    steps.Insert(0, Found(p, IssueCodes.FolderEmpty, IntakeMessages.FolderEmpty(), IssueSeverity.Warning));
                 }
 
-                foreach (var f in inFolder)
+                foreach (var step in steps)
                 {
-                    string display = Path.Combine(p, Path.GetFileName(f));
-                    if (Path.GetFileName(f).StartsWith("~$", StringComparison.Ordinal))
-                    {
-                        yield return Found(display, IssueCodes.LockFileSkipped, IntakeMessages.LockFileSkipped(), IssueSeverity.Warning);
-                        continue;
-                    }
-
-                    yield return new Step(display, f, null);
+                    yield return step;
                 }
             }
             else if (File.Exists(full))
             {
-                yield return new Step(p, full, null);
+                yield return new Step(TextSettling.ForDisplay(p, int.MaxValue), full, null);
             }
             else
             {
@@ -104,12 +104,65 @@ public static partial class IntakeReader
         }
     }
 
-    /// <summary>True for a file of a type that is read (by its name's ending).</summary>
-    private static bool Readable(string full)
+    /// <summary>
+    /// The files of a folder and its subfolders in ordinal order of their names (a folder's files, then its
+    /// subfolders), each a file to read or a file skipped with the reason. Links to folders are not followed.
+    /// </summary>
+    private static void Walk(string folder, string display, int depth, List<Step> steps, ref int read)
     {
-        string ext = Path.GetExtension(full).ToLowerInvariant();
-        return Extensions.Contains(ext) || ext is ".txt" or ".tsv";
+        string[] files, folders;
+        try
+        {
+            files = Directory.GetFiles(folder);
+            folders = Directory.GetDirectories(folder);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            steps.Add(Found(display, IssueCodes.CannotOpen, IntakeMessages.CannotOpenFolder(ex.Message.TrimEnd('.')), IssueSeverity.Error));
+            return;
+        }
+
+        Array.Sort(files, StringComparer.Ordinal);
+        Array.Sort(folders, StringComparer.Ordinal);
+        foreach (var f in files)
+        {
+            string name = Path.GetFileName(f);
+            string shown = Path.Combine(display, TextSettling.ForDisplay(name, int.MaxValue));
+            if (name.StartsWith("~$", StringComparison.Ordinal) || (name.StartsWith(".~lock.", StringComparison.Ordinal) && name.EndsWith('#')))
+            {
+                steps.Add(Found(shown, IssueCodes.LockFileSkipped, IntakeMessages.LockFileSkipped(), IssueSeverity.Warning));
+            }
+            else if (!Extensions.Contains(Path.GetExtension(name).ToLowerInvariant()))
+            {
+                steps.Add(Found(shown, IssueCodes.FileSkipped, IntakeMessages.FileSkipped(Path.GetExtension(name)), IssueSeverity.Warning));
+            }
+            else
+            {
+                steps.Add(new Step(shown, f, null, InFolder: true));
+                read++;
+            }
+        }
+
+        foreach (var d in folders)
+        {
+            string shown = Path.Combine(display, TextSettling.ForDisplay(Path.GetFileName(d), int.MaxValue));
+            if (new DirectoryInfo(d).LinkTarget is not null)
+            {
+                steps.Add(Found(shown, IssueCodes.FileSkipped, IntakeMessages.FolderLinkSkipped(), IssueSeverity.Warning));
+            }
+            else if (depth + 1 > MaxFolderDepth)
+            {
+                steps.Add(Found(shown, IssueCodes.FileSkipped, IntakeMessages.FolderTooDeep(MaxFolderDepth), IssueSeverity.Warning));
+            }
+            else
+            {
+                Walk(d, shown, depth + 1, steps, ref read);
+            }
+        }
     }
+
+    /// <summary>True for a file of a type that is read (by its name's ending).</summary>
+    private static bool Readable(string full) => Extensions.Contains(Path.GetExtension(full).ToLowerInvariant());
 
     /// <summary>A file hashed and parsed into raw sheets, with the issues found doing so, not yet read as tables.</summary>
     private sealed record LoadedFile(InputFile? Hash, RawFile? Raw, IReadOnlyList<IntakeIssue> Issues, string? CannotOpen);
@@ -121,8 +174,13 @@ public static partial class IntakeReader
         InputFile? hash = null;
         try
         {
+            if (!SourceFiles.SizeAllowed(file, full, options, sink, out long length))
+            {
+                return new LoadedFile(null, SourceFiles.Refused, sink.Issues, null);
+            }
+
             hash = Hash(file, full);
-            var raw = SourceFiles.Read(file, full, options, sink);
+            var raw = SourceFiles.Read(file, full, length, options, sink);
             return new LoadedFile(hash, raw, sink.Issues, null);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -131,8 +189,9 @@ public static partial class IntakeReader
         }
     }
 
-    private static void ReadFile(IntakeRun run, string file, string full, LoadedFile? loaded, List<InputFile> files)
+    private static void ReadFile(IntakeRun run, Step step, LoadedFile? loaded, List<InputFile> files)
     {
+        var (file, full) = (step.Display!, step.Full!);
         var sink = run.Sink;
         string ext = Path.GetExtension(full).ToLowerInvariant();
         if (loaded is null)
@@ -189,7 +248,15 @@ public static partial class IntakeReader
 
         if (!anyTable)
         {
-            sink.Error(file, null, null, null, null, IssueCodes.NoTableFound, IntakeMessages.NoTableInFile(HeaderDetection.SearchRows));
+            if (step.InFolder && Path.GetExtension(full).Equals(".txt", StringComparison.OrdinalIgnoreCase))
+            {
+                // A .txt met in a folder is as likely a note as a table: without a header it is skipped, not an error.
+                sink.Warning(file, null, null, null, null, IssueCodes.NoTableFound, IntakeMessages.TextFileWithoutTable(HeaderDetection.SearchRows));
+            }
+            else
+            {
+                sink.Error(file, null, null, null, null, IssueCodes.NoTableFound, IntakeMessages.NoTableInFile(HeaderDetection.SearchRows));
+            }
         }
         else
         {
@@ -211,89 +278,4 @@ public static partial class IntakeReader
         byte[] hash = SHA256.HashData(stream);
         return new InputFile(display, Convert.ToHexStringLower(hash), stream.Length);
     }
-
-    private static List<FermentationLog> JoinLogs(IntakeRun run)
-    {
-        var logs = new List<FermentationLog>();
-        var index = new Dictionary<(string, int?), List<LogReading>>();
-        // Finished and running lots alike (a run reads one kind or the other).
-        var recorded = run.Lots.Select(l => (l.LotId, l.Season, l.Source)).Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.Source))).ToList();
-        var knownIds = recorded.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
-        string? lastId = null;
-        int? lastSeason = null;
-        List<LogReading>? lastList = null;
-        foreach (var (rawId, season, reading) in run.Readings)
-        {
-            // A log's readings mostly follow one another: the same lot and season as the reading before is its list.
-            if (lastList is not null && season == lastSeason && string.Equals(rawId, lastId, StringComparison.Ordinal))
-            {
-                lastList.Add(reading);
-                continue;
-            }
-
-            // A log sheet named "Lot 23-004" (or "Batch #7") is the log of lot 23-004 when no lot bears the full name.
-            string lotId = rawId;
-            if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
-            {
-                lotId = rawId[m.Length..];
-            }
-
-            if (!index.TryGetValue((lotId, season), out var list))
-            {
-                index[(lotId, season)] = list = [];
-                logs.Add(new FermentationLog(lotId, season, list));
-            }
-
-            list.Add(reading);
-            (lastId, lastSeason, lastList) = (rawId, season, list);
-        }
-
-        if (logs.Count == 0)
-        {
-            return logs;
-        }
-
-        var lotKeys = recorded.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
-        var lotIds = knownIds;
-
-        // Lots with a log, by lot id and season (what a lot's key is made of).
-        var withLog = new HashSet<(string, int)>();
-        ILookup<string, (string LotId, int Season, SourceRef? Source)>? lotsById = null;
-        foreach (var log in logs)
-        {
-            bool matched = log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
-            var first = log.Readings[0].Source!;
-            if (!matched)
-            {
-                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
-                    IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
-                continue;
-            }
-
-            if (log.Season is { } season)
-            {
-                // Lot keys are unique, so this is the one lot of that id and season.
-                withLog.Add((log.LotId, season));
-                continue;
-            }
-
-            lotsById ??= recorded.ToLookup(l => l.LotId, StringComparer.Ordinal);
-            foreach (var lot in lotsById[log.LotId])
-            {
-                withLog.Add((lot.LotId, lot.Season));
-            }
-        }
-
-        foreach (var group in recorded.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
-        {
-            var ids = group.Select(l => l.LotId).ToList();
-            var src = group.First().Source!;
-            run.Sink.Warning(src.File, src.Sheet, null, null, null, IssueCodes.LotsWithoutLog, IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
-        }
-
-        return logs;
-    }
-
-    [System.Text.RegularExpressions.GeneratedRegex(@"^(lot|batch)\s*(#|no\.?|nr\.?|number)?\s*[:#\-]?\s*", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant)]
-    private static partial System.Text.RegularExpressions.Regex LotWordPrefix();
 }

@@ -17,6 +17,9 @@ public static class IssueCodes
     /// <summary><c>lock-file-skipped</c>.</summary>
     public const string LockFileSkipped = "lock-file-skipped";
 
+    /// <summary><c>file-skipped</c>.</summary>
+    public const string FileSkipped = "file-skipped";
+
     /// <summary><c>unsupported-file-type</c>.</summary>
     public const string UnsupportedFileType = "unsupported-file-type";
 
@@ -79,6 +82,9 @@ public static class IssueCodes
     /// <summary><c>final-column-not-read</c>.</summary>
     public const string FinalColumnNotRead = "final-column-not-read";
 
+    /// <summary><c>extra-fields</c>.</summary>
+    public const string ExtraFields = "extra-fields";
+
     /// <summary><c>bad-csv-row</c>.</summary>
     public const string BadCsvRow = "bad-csv-row";
 
@@ -110,6 +116,9 @@ public static class IssueCodes
     /// <summary><c>mapping-file-not-found</c>.</summary>
     public const string MappingFileNotFound = "mapping-file-not-found";
 
+    /// <summary><c>mapping-file-refused</c>.</summary>
+    public const string MappingFileRefused = "mapping-file-refused";
+
     /// <summary><c>mapping-not-understood</c>.</summary>
     public const string MappingNotUnderstood = "mapping-not-understood";
 
@@ -136,8 +145,20 @@ public static class IssueCodes
     /// <summary><c>error-cell</c>.</summary>
     public const string ErrorCell = "error-cell";
 
+    /// <summary><c>text-settled</c>.</summary>
+    public const string TextSettled = "text-settled";
+
+    /// <summary><c>text-too-long</c>.</summary>
+    public const string TextTooLong = "text-too-long";
+
+    /// <summary><c>formula-without-value</c>.</summary>
+    public const string FormulaWithoutValue = "formula-without-value";
+
     /// <summary><c>not-a-date</c>.</summary>
     public const string NotADate = "not-a-date";
+
+    /// <summary><c>time-zone-not-applied</c>.</summary>
+    public const string TimeZoneNotApplied = "time-zone-not-applied";
 
     /// <summary><c>ambiguous-date</c>.</summary>
     public const string AmbiguousDate = "ambiguous-date";
@@ -167,6 +188,24 @@ public static class IssueCodes
 
     /// <summary><c>missing-timestamp</c>.</summary>
     public const string MissingTimestamp = "missing-timestamp";
+
+    /// <summary><c>reading-date-implausible</c>.</summary>
+    public const string ReadingDateImplausible = "reading-date-implausible";
+
+    /// <summary><c>log-too-short</c>.</summary>
+    public const string LogTooShort = "log-too-short";
+
+    /// <summary><c>residual-above-start</c>.</summary>
+    public const string ResidualAboveStart = "residual-above-start";
+
+    /// <summary><c>additions-implausible</c>.</summary>
+    public const string AdditionsImplausible = "additions-implausible";
+
+    /// <summary><c>additions-without-volume</c>.</summary>
+    public const string AdditionsWithoutVolume = "additions-without-volume";
+
+    /// <summary><c>date-outside-season</c>.</summary>
+    public const string DateOutsideSeason = "date-outside-season";
 
     /// <summary><c>log-without-lot</c>.</summary>
     public const string LogWithoutLot = "log-without-lot";

@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Review;
+using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports;
 

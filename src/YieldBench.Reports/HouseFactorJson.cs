@@ -23,7 +23,7 @@ public static class HouseFactorJson
     public const string FileName = "house-factor.json";
 
     /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
-    public const int FormatVersion = 3;
+    public const int FormatVersion = 4;
 
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -41,7 +41,7 @@ public static class HouseFactorJson
         var dto = new FileDto(
             FormatVersion,
             "house-factor",
-            new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowBoundary, review.Regime.ToleranceAboveBoundary, N(review.Regime.BoundaryAbv), review.Regime.NoCrossingBoundary, review.Regime.Source),
+            new RegimeDto(review.Regime.Id, review.Regime.Name, review.Regime.ToleranceAtOrBelowSwitch, review.Regime.ToleranceAboveSwitch, N(review.Regime.ToleranceSwitchAbv), N(review.Regime.NoCrossingLineAbv), review.Regime.Source, review.Regime.NoCrossingLineSource),
             review.ThresholdAbv,
             review.LotsUsed,
             review.FlaggedLotsIncluded,
@@ -255,7 +255,7 @@ public static class HouseFactorJson
         PlanningDto? Planning,
         IReadOnlyList<string> Explanation);
 
-    private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowBoundaryAbv, double ToleranceAboveBoundaryAbv, double? BoundaryAbv, bool NoCrossingBoundary, string Source);
+    private sealed record RegimeDto(string Id, string Name, double ToleranceAtOrBelowSwitchAbv, double ToleranceAboveSwitchAbv, double? ToleranceSwitchAbv, double? NoCrossingLineAbv, string Source, string NoCrossingLineSource);
 
     private sealed record MetricsDto(int Lots, double? MaeAbv, double? MaeStandardErrorAbv, double? BiasAbv, double? RmseAbv, double? P90AbsoluteErrorAbv, double? ShareWithinTolerance, double? ShareWrongSideOfThreshold);
 

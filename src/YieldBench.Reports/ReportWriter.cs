@@ -1,31 +1,25 @@
 using YieldBench.Core.Review;
-using YieldBench.Reports.Charts;
-using YieldBench.Reports.Data;
 using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Output;
-using YieldBench.Reports.Tables;
-using YieldBench.Reports.Workbook;
+using YieldBench.Reports.Parts;
 
 namespace YieldBench.Reports;
 
-/// <summary>What a report run wrote.</summary>
-/// <param name="Folder">Output folder (full path).</param>
-/// <param name="Files">Files written, relative to <paramref name="Folder"/>, with '/' separators, sorted.</param>
-/// <param name="Removed">Files of an earlier run that this run no longer makes and removed, relative, sorted.</param>
-public sealed record ReportOutput(string Folder, IReadOnlyList<string> Files, IReadOnlyList<string> Removed);
-
 /// <summary>
-/// Writes every output of a review into one folder: data files, PNG charts and report.xlsx. Each file is written
-/// atomically; a manifest (<see cref="ManifestName"/>) lists what was written so a later run replaces its own files
-/// and removes the ones it no longer makes, and never touches anything else in the folder.
+/// The review's report: its parts (data files, the meeting page, charts, workbook, console summary) written into one folder by
+/// <see cref="ReportPipeline"/> — whole or not at all, with a manifest (<see cref="ManifestName"/>) listing this tool's
+/// files so a later run replaces them and leaves everything else alone.
 /// </summary>
 public static class ReportWriter
 {
     /// <summary>The manifest file listing this tool's files in the folder.</summary>
-    public const string ManifestName = "yieldbench-files.txt";
+    public const string ManifestName = ReportFolder.ManifestName;
 
     /// <summary>Relative path of the workbook.</summary>
     public const string WorkbookName = "report.xlsx";
+
+    /// <summary>Relative path of the one-page review for the meeting room.</summary>
+    public const string PageName = Html.HtmlReport.FileName;
 
     /// <summary>Relative paths of the data files.</summary>
     public static class DataFiles
@@ -49,178 +43,22 @@ public static class ReportWriter
         public const string HouseFactor = "data/" + HouseFactorJson.FileName;
     }
 
-    /// <summary>Progress step of <see cref="Write"/> in which the data files, the charts and the workbook's layout are made side by side.</summary>
-    public const string ParallelStep = "data files, charts and workbook layout";
+    /// <summary>The parts of a report, in the order their jobs start (the workbook first: it waits for the charts).</summary>
+    /// <param name="console">Where the console summary goes once the report is in place; null: no summary.</param>
+    public static IReadOnlyList<IReportPart> Parts(TextWriter? console = null) =>
+        [new WorkbookPart(), new DataFilesPart(), new PagePart(), new ChartsPart(), new ConsolePart(console)];
 
-    /// <summary>Progress step of <see cref="Write"/> in which the workbook gets its pictures and is written.</summary>
-    public const string WorkbookStep = "workbook";
+    /// <summary>The files a report of <paramref name="review"/> holds (the parts' files and the manifest), sorted.</summary>
+    public static IReadOnlyList<string> Files(ReviewResult review) => ReportPipeline.Files(review, Parts());
 
     /// <summary>
-    /// Writes everything; <paramref name="progress"/> hears the name of each step (<see cref="ParallelStep"/>, then
-    /// <see cref="WorkbookStep"/>). The data files, the charts and the workbook do not depend on one another until the
-    /// workbook's pictures: they are made at the same time, each on its own thread (the charts on several). The
-    /// workbook is laid out and its sheets written while the charts are drawn; each picture goes in when the package
-    /// reaches it, after every sheet, once its chart exists. The second step is what remains of the workbook after
-    /// the data files and charts are done. Each output's bytes and the manifest do not depend on which thread
-    /// finished first.
+    /// Writes the whole report into <paramref name="folder"/>; <paramref name="progress"/> hears each step
+    /// (<see cref="ReportPipeline.WriteStep"/>, then <see cref="ReportPipeline.SwapStep"/>), <paramref name="console"/>
+    /// gets the summary.
     /// </summary>
-    public static ReportOutput Write(ReviewResult review, string folder, IProgress<string>? progress = null)
-    {
-        ArgumentNullException.ThrowIfNull(review);
-        ArgumentNullException.ThrowIfNull(folder);
-        string root = Path.GetFullPath(folder);
-        Directory.CreateDirectory(root);
-        var previous = ReadManifest(root);
-        var tables = new SharedTables(review);
-        var written = new List<string>();
-
-        progress?.Report(ParallelStep);
-        string chartFolder = Path.Combine(root, "charts");
-        var plan = ReviewCharts.Plan(review, chartFolder).ToList();
-        int reviewCharts = plan.Count;
-        IReadOnlyList<int> kineticsFirst = [];
-        if (review.Kinetics is not null)
-        {
-            var (kinetics, first) = KineticsCharts.Plan(review, chartFolder);
-
-            // The overview keeps to the charts that explain the review at a glance; per-lot kinetics charts stay on their sheet.
-            kineticsFirst = first;
-            plan.AddRange(kinetics.Select(c => c with { File = c.File with { OnOverview = Path.GetFileName(c.File.Path) == "kinetics-strain-curves.png" } }));
-        }
-
-        // Each chart's job, and the moment it is drawn: the workbook waits for a chart only when it needs its picture.
-        var charts = plan.Select(c => c.File).ToArray();
-        var drawn = plan.Select(_ => new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
-        var jobs = plan.Select((c, i) => (Func<ChartFile>)(() =>
-        {
-            c.Job();
-            drawn[i].SetResult();
-            return charts[i];
-        })).ToArray();
-        byte[] Picture(int i)
-        {
-            drawn[i].Task.GetAwaiter().GetResult();
-            return File.ReadAllBytes(charts[i].Path);
-        }
-
-        var dataFiles = Started(() => WriteDataFiles(review, root, tables));
-        var laidOut = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
-        var workbook = Started(() =>
-        {
-            LaidOutWorkbook layout;
-            try
-            {
-                layout = WorkbookWriter.Layout(review, tables: tables);
-            }
-            finally
-            {
-                laidOut.SetResult();
-            }
-
-            // The workbook replaces an earlier one only when the data files were written too (every chart was, or a
-            // picture would have failed it).
-            WorkbookWriter.Write(layout, charts, Picture, () => dataFiles.GetAwaiter().GetResult(), Full(root, WorkbookName));
-            return true;
-        });
-        bool chartsDrawn = false;
-        try
-        {
-            // The review's charts, then the kinetics charts (their two largest first), in two batches as WriteAll and RenderFiles draw them.
-            ChartImage.RenderAll(jobs[..reviewCharts]);
-            if (reviewCharts < jobs.Length)
-            {
-                ChartImage.RenderAll(jobs[reviewCharts..], kineticsFirst);
-            }
-
-            chartsDrawn = true;
-        }
-        catch (Exception e)
-        {
-            // A chart that was never drawn must not keep the workbook waiting for its picture.
-            foreach (var d in drawn)
-            {
-                d.TrySetException(e);
-            }
-
-            throw;
-        }
-        finally
-        {
-            // Nothing keeps writing into the folder after this method returns, whatever failed.
-            WaitQuietly(dataFiles);
-            WaitQuietly(laidOut.Task);
-            if (!chartsDrawn || !dataFiles.IsCompletedSuccessfully)
-            {
-                WaitQuietly(workbook);
-            }
-        }
-
-        written.AddRange(dataFiles.GetAwaiter().GetResult());
-        written.AddRange(charts.Select(c => Relative(root, c.Path)));
-
-        progress?.Report(WorkbookStep);
-        workbook.GetAwaiter().GetResult();
-        written.Add(WorkbookName);
-
-        var files = written.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
-        var removed = new List<string>();
-        foreach (var old in previous.Except(files, StringComparer.Ordinal).Order(StringComparer.Ordinal))
-        {
-            string path = Full(root, old);
-            if (File.Exists(path))
-            {
-                File.Delete(path);
-                removed.Add(old);
-            }
-        }
-
-        AtomicFile.WriteAllText(Path.Combine(root, ManifestName), string.Join("\n", files.Prepend(ManifestName)) + "\n");
-        return new ReportOutput(root, files, removed);
-    }
-
-    /// <summary>Writes the data files (tables streamed straight to their files) and returns their relative paths.</summary>
-    internal static IReadOnlyList<string> WriteDataFiles(ReviewResult review, string root, SharedTables tables)
-    {
-        var written = new List<string>();
-
-        // Tables stream straight to their files: at 100,000 lots a whole file held as one string cost hundreds of MB.
-        void Table(string relative, ReportTable table)
-        {
-            CsvText.WriteFile(table, Full(root, relative));
-            written.Add(relative);
-        }
-
-        Table(DataFiles.Lots, tables.Lots);
-        Table(DataFiles.Groups, ReviewTables.Groups(review));
-        Table(DataFiles.Flags, ReviewTables.Flags(review));
-        Table(DataFiles.IntakeIssues, ReviewTables.IntakeIssues(review));
-        AtomicFile.WriteAllText(Full(root, DataFiles.HouseFactor), HouseFactorJson.Write(review.HouseFactor));
-        written.Add(DataFiles.HouseFactor);
-        if (tables.KineticsLots is { } kinetics)
-        {
-            // The table of KineticsCsv.WriteFile, shared with the kinetics sheet.
-            Table(DataFiles.Kinetics, kinetics);
-        }
-
-        return written;
-    }
-
-    /// <summary>Runs <paramref name="work"/> on a thread of its own (not the pool's: the charts keep the pool's threads busy).</summary>
-    private static Task<T> Started<T>(Func<T> work) =>
-        Task.Factory.StartNew(work, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
-
-    /// <summary>Waits for <paramref name="task"/> to end; its failure, if any, is reported by whoever reads its result.</summary>
-    private static void WaitQuietly(Task task)
-    {
-        try
-        {
-            task.Wait();
-        }
-        catch (AggregateException)
-        {
-            // Read again (and rethrown unwrapped) where the result is used, unless an earlier failure is on its way.
-        }
-    }
+    /// <exception cref="ReportFolderException">The folder cannot take a report (not ours, or one of ours would write over a file of the user's).</exception>
+    public static ReportOutput Write(ReviewResult review, string folder, IProgress<string>? progress = null, TextWriter? console = null) =>
+        ReportPipeline.Write(review, folder, Parts(console), progress);
 
     /// <summary>
     /// Builds and discards a one-cell workbook and a small chart, so that the workbook and chart code are compiled
@@ -243,22 +81,5 @@ public static class ReportWriter
     }
 
     /// <summary>The files an earlier run listed in the folder's manifest (empty when none).</summary>
-    public static IReadOnlyList<string> ReadManifest(string folder)
-    {
-        string path = Path.Combine(Path.GetFullPath(folder), ManifestName);
-        if (!File.Exists(path))
-        {
-            return [];
-        }
-
-        // Only plain relative paths inside the folder are honoured, so an edited manifest cannot reach outside it.
-        return File.ReadAllLines(path)
-            .Select(l => l.Trim())
-            .Where(l => l.Length > 0 && l != ManifestName && !l.Contains("..", StringComparison.Ordinal) && !Path.IsPathRooted(l))
-            .ToArray();
-    }
-
-    private static string Full(string root, string relative) => Path.Combine(root, relative.Replace('/', Path.DirectorySeparatorChar));
-
-    private static string Relative(string root, string full) => Path.GetRelativePath(root, full).Replace(Path.DirectorySeparatorChar, '/');
+    public static IReadOnlyList<string> ReadManifest(string folder) => ReportFolder.ReadManifest(folder);
 }

@@ -83,7 +83,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
 
         // Then stages are plain lines with no carriage-return rewriting, and the quiet run exited cleanly
         Assert.Contains("review: reading inputs", lines);
-        Assert.Contains("review: workbook", lines);
+        Assert.Contains("review: " + YieldBench.Reports.Output.ReportPipeline.SwapStep, lines);
         Assert.DoesNotContain('\r', demo.Out.Replace("\r\n", "\n", StringComparison.Ordinal));
         Assert.Equal(0, demo.SecondExitCode);
         Assert.Equal(string.Empty, demo.QuietOut);
@@ -109,27 +109,26 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
     }
 
     [Fact]
-    public void Every_output_file_is_written()
+    public void The_folder_holds_exactly_the_files_the_report_s_parts_declare()
     {
-        // Given the demo review's folder
-        string[] expected =
-        [
-            "report.xlsx", "data/lots.csv", "data/groups.csv", "data/flags.csv", "data/intake-issues.csv", "data/kinetics.csv", "data/house-factor.json",
-            "charts/alcohol-vs-sugar.png", "charts/factor-by-strain.png", "charts/factor-by-season.png",
-            "charts/backtest-error.png", "charts/factor-histogram.png", "charts/kinetics-strain-curves.png", "yieldbench-files.txt",
-        ];
+        // Given the demo inputs reviewed in-process, and the files its report's parts declare for that review
+        var set = YieldBench.Intake.IntakeReader.Read(["demo-data"], new YieldBench.Intake.IntakeOptions { WorkingDirectory = AppContext.BaseDirectory });
+        var review = YieldBench.Core.Review.ReviewRunner.Run(set, new YieldBench.Core.Review.ReviewSettings(), "test");
+        var declared = YieldBench.Reports.ReportWriter.Files(review);
 
-        // When its files are listed
-        // Then each expected file is there and the manifest lists every file the folder holds
-        foreach (var file in expected)
-        {
-            Assert.True(File.Exists(Path.Combine(demo.First, file)), file + " is missing");
-        }
-
-        var manifest = File.ReadAllLines(Path.Combine(demo.First, "yieldbench-files.txt")).Order(StringComparer.Ordinal).ToArray();
+        // When the demo review's folder is listed
         var actual = Directory.EnumerateFiles(demo.First, "*", SearchOption.AllDirectories)
             .Select(f => Path.GetRelativePath(demo.First, f).Replace(Path.DirectorySeparatorChar, '/')).Order(StringComparer.Ordinal).ToArray();
-        Assert.Equal(actual, manifest);
+        var manifest = File.ReadAllLines(Path.Combine(demo.First, "yieldbench-files.txt")).Order(StringComparer.Ordinal).ToArray();
+
+        // Then it holds exactly the declared files, the manifest lists them, and the parts cover data, charts and workbook
+        Assert.Equal(declared, actual);
+        Assert.Equal(declared, manifest);
+        Assert.Contains("report.xlsx", declared);
+        Assert.Contains("report.html", declared);
+        Assert.Contains("data/kinetics.csv", declared);
+        Assert.Contains("charts/kinetics-strain-curves.png", declared);
+        Assert.Contains(declared, f => f.StartsWith("charts/kinetics-lot-", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -374,6 +373,45 @@ public sealed class ReviewCommandInputTests : IDisposable
         Assert.Single(Directory.GetFileSystemEntries(Path.Combine(root, "lots")));
     }
 
+
+    [Fact]
+    public void An_output_folder_reached_through_a_symbolic_link_to_the_inputs_is_refused()
+    {
+        // Given the inputs' folder and a link to it elsewhere
+        string input = Write("harvest-2024.csv", GoodLots(2024, 12));
+        string before = File.ReadAllText(input);
+        Directory.CreateSymbolicLink(Path.Combine(root, "out-link"), Path.Combine(root, "lots"));
+
+        // When the folder is reviewed with --out through the link
+        var (exit, _, error) = Cli.Run(root, "review", "lots", "--out", "out-link");
+
+        // Then the link is resolved, the clash is a usage error, and the input folder holds only the input
+        Assert.Equal(2, exit);
+        Assert.Contains("is also an input", error, StringComparison.Ordinal);
+        Assert.Equal(before, File.ReadAllText(input));
+        Assert.Single(Directory.GetFileSystemEntries(Path.Combine(root, "lots")));
+    }
+
+    [Fact]
+    public void A_folder_of_the_user_s_own_files_is_refused_before_any_work()
+    {
+        // Given a folder holding a workbook and a lots file of the user's (no manifest of ours)
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        string mine = Path.Combine(root, "mine");
+        Directory.CreateDirectory(Path.Combine(mine, "data"));
+        File.WriteAllText(Path.Combine(mine, "report.xlsx"), "my workbook");
+        File.WriteAllText(Path.Combine(mine, "data", "lots.csv"), "my lots");
+
+        // When reviewed into it
+        var (exit, output, error) = Cli.Run(root, "review", "lots", "--out", "mine");
+
+        // Then it is a usage error saying why, printed before any work, and the user's files are untouched
+        Assert.Equal(2, exit);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains("holds files this tool did not write", error, StringComparison.Ordinal);
+        Assert.Equal("my workbook", File.ReadAllText(Path.Combine(mine, "report.xlsx")));
+        Assert.Equal("my lots", File.ReadAllText(Path.Combine(mine, "data", "lots.csv")));
+    }
     [Fact]
     public void Logs_without_lot_records_say_there_is_no_usable_lot_rather_than_no_season()
     {
@@ -434,6 +472,24 @@ public sealed class ReviewCommandInputTests : IDisposable
         // Then the summary scores against it
         Assert.Equal(0, exit);
         Assert.Contains("within the User-defined ±0.8 % v/v tolerance", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_class_line_can_be_set_or_removed_and_nonsense_is_a_usage_error()
+    {
+        // Given good lots
+        Write("harvest-2024.csv", GoodLots(2024, 12));
+        Write("harvest-2025.csv", GoodLots(2025, 12));
+
+        // When reviewed with the class line at 14 %, and with a class line that is not a number
+        var (exit, output, _) = Cli.Run(root, "review", "lots", "--class-line", "14", "--out", "r");
+        var bad = Cli.Run(root, "review", "lots", "--class-line", "sixteen", "--out", "s");
+
+        // Then the first scores against the US rule with the line at 14 % and says so, and the second exits 2
+        Assert.Equal(0, exit);
+        Assert.Contains("within the United States (TTB), class line 14 % tolerance", output, StringComparison.Ordinal);
+        Assert.Equal(2, bad.Exit);
+        Assert.Contains("--class-line sixteen is not understood", bad.Error, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -40,7 +40,7 @@ internal static class Corpus
     public static IReadOnlyList<CorpusCase> Cases { get; } =
     [
         new("empty file", f => f.Bytes("empty.csv", []),
-            E("empty.csv", null, null, null, null, "empty-file", "The file is empty (0 bytes). Export the sheet again."), 0),
+            E("empty.csv", null, null, null, null, "empty-file", "The file is empty (0 bytes), or it is not an ordinary file (a device, a pipe or a socket); nothing was read. Export the sheet again as a file."), 0),
         new("binary file named csv", f => f.Bytes("binary.csv", [0x41, 0x42, 0x00, 0x01, 0x02, 0xFF]),
             E("binary.csv", null, null, null, null, "binary-file", "The file is named .csv but holds binary data (a zero byte at offset 2), not text. Export the sheet as CSV again, or give the workbook itself."), 0),
         new("text file named xlsx", f => f.Text("not-really.xlsx", "Lot,Yeast\nA,B\n"),
@@ -74,8 +74,8 @@ internal static class Corpus
             E("big.csv", null, null, null, "61", "file-too-large", "The file is 61 bytes, above the limit of 40 bytes. Split it (for example one file per season)."), 0, new IntakeOptions { MaxFileBytes = 40 }),
         new("sheet over the row limit", f => f.Text("long.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,24.0,14.0", "A-03,2023,QX-7,24.0,14.0")),
             E("long.csv", null, null, null, null, "too-many-rows", "The sheet has more than 3 rows, the limit; it was not read. Split it (for example one sheet per season)."), 0, new IntakeOptions { MaxRows = 3 }),
-        new("unsupported file type", f => f.Text("lots.ods", "x"),
-            E("lots.ods", null, null, null, null, "unsupported-file-type", "Files ending in '.ods' are not read. Save the sheet as .xlsx, .xls or .csv."), 0),
+        new("unsupported file type", f => f.Text("lots.numbers", "x"),
+            E("lots.numbers", null, null, null, null, "unsupported-file-type", "Files ending in '.numbers' are not read. Save the sheet as .xlsx, .ods or .csv."), 0),
         new("missing file", _ => "nowhere.csv",
             E("nowhere.csv", null, null, null, null, "file-not-found", "The file or folder was not found. Check the path."), 0),
         new("no header row", f => f.Text("prose.csv", Csv("These are our notes from harvest.", "Nothing tabular here.")),
@@ -144,7 +144,7 @@ f.Text("log-2023.csv", Csv("Lot,Date,Brix", "Z-99,2023-03-02,24.0", "Z-99,2023-0
         new("two columns for one field", f => f.Text("two-brix.csv", Csv(Header + ",Start Brix", GoodRow + ",24.1")),
             W("two-brix.csv", null, 1, "Start Brix", null, "duplicate-column", "This column maps to starting_sugar, as does the earlier column 'Brix'; only the earlier one was read. Rename one of them, or map the one you mean with --column starting_sugar=HEADER."), 1),
         new("mapping to an unknown field", f => f.Text("lots-2023b.csv", Csv(Header, GoodRow)),
-            E("--column", null, null, null, "yeast_brand", "mapping-unknown-field", "'yeast_brand' is not a field name. Use one of the fields listed in docs/input-format.md, e.g. lot_id, strain, starting_sugar, final_abv."), 1, new IntakeOptions { ColumnMappings = ["yeast_brand=Yeast"] }),
+            E("--column", null, null, null, "yeast_brand", "mapping-unknown-field", "'yeast_brand' is not a field name. Use one of: block, colour, date, dry_date, final_abv, final_alcohol_gl, final_baume, final_brix, final_oechsle, final_sg, final_sugar, final_sugar_gl, inoculation_date, lot_id, mean_temp_c, mean_temp_f, must_volume_gal, must_volume_hl, must_volume_l, notes, peak_temp_c, peak_temp_f, ph, residual_sugar_gl, season, starting_baume, starting_brix, starting_oechsle, starting_sg, starting_sugar, starting_sugar_gl, strain, sugar, sugar_added_g, sugar_added_kg, sugar_added_lb, sugar_baume, sugar_brix, sugar_gl, sugar_oechsle, sugar_sg, ta_gl, temp_c, temp_f, time, timestamp, variety, vessel, vessel_capacity_gal, vessel_capacity_hl, vessel_capacity_l, water_added_gal, water_added_hl, water_added_l, yan_mgl (docs/input-format.md says what each holds)."), 1, new IntakeOptions { ColumnMappings = ["yeast_brand=Yeast"] }),
         new("volume without a unit", f => f.Text("volume-unit.csv", Csv(Header + ",Must volume", GoodRow + ",3500")),
             W("volume-unit.csv", null, 1, "Must volume", null, "unit-assumed", "The header gives no unit; values were read as L. State the unit in the header, e.g. 'Must volume (L)'."), 1),
         new("alcohol in grams per litre by its values", f => f.Text("abv-gl.csv", Csv("Lot,Season,Yeast,Brix,Alcohol", "A-01,2023,QX-7,24.0,110.5", "A-02,2023,QX-7,23.0,106.1")),

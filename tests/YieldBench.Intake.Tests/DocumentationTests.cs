@@ -4,7 +4,7 @@ namespace YieldBench.Intake.Tests;
 
 public partial class DocumentationTests
 {
-    private static string RepoRoot()
+    internal static string RepoRoot()
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);
         while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "YieldBench.sln")))

@@ -88,6 +88,6 @@ public class TemplateTests
         }, lot);
         var reading = Assert.Single(Assert.Single(set.Logs).Readings);
         Assert.Equal((new DateTime(2024, 3, 10, 7, 45, 0), 20.9, 14.5), (reading.Timestamp, reading.Sugar!.Value.Brix, reading.TemperatureC!.Value));
-        Assert.Equal(["sheet-skipped"], set.Issues.Select(i => i.Code));
+        Assert.Equal(["sheet-skipped", "log-too-short"], set.Issues.Select(i => i.Code));
     }
 }

@@ -6,6 +6,7 @@ using YieldBench.Core.Review;
 using YieldBench.Intake;
 using YieldBench.Modeling;
 using YieldBench.Reports;
+using YieldBench.Reports.Output;
 
 namespace YieldBench.Cli.Commands;
 
@@ -26,10 +27,11 @@ internal static class ReviewCommand
         var regime = new Option<string>("--regime") { Description = "Label tolerance the backtest is scored against: us, eu, or custom:TOLERANCE (% v/v, e.g. custom:0.8).", DefaultValueFactory = _ => "us" };
         var threshold = new Option<double?>("--threshold") { Description = "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14)." };
         var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
+        var classLine = new Option<string?>("--class-line") { Description = "Alcohol (% v/v) a stated value may not cross in the label scoring, or 'none' (default: the regime's own; US 16, the tax-class boundary since 2018; 14 for the rule before)." };
         var includeFlagged = new Option<bool>("--include-flagged-lots") { Description = "Let lots flagged as likely errors or not fermented to dryness teach the house factor (by default they are left out; both versions are reported)." };
         var command = new Command("review", "Review finished lots: conversion by strain, odd lots, house factor, kinetics; writes a workbook, charts and data files.");
         command.Arguments.Add(inputs);
-        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged })
+        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged, classLine })
         {
             command.Options.Add(option);
         }
@@ -46,7 +48,8 @@ internal static class ReviewCommand
                 parse.GetValue(regime) ?? "us",
                 parse.GetValue(threshold),
                 parse.GetValue(seed),
-                parse.GetValue(includeFlagged))));
+                parse.GetValue(includeFlagged),
+                parse.GetValue(classLine))));
         return command;
     }
 
@@ -61,7 +64,8 @@ internal static class ReviewCommand
         string Regime,
         double? Threshold,
         int? Seed,
-        bool IncludeFlaggedLots = false);
+        bool IncludeFlaggedLots = false,
+        string? ClassLine = null);
 
     internal static int Run(CliContext context, Request request)
     {
@@ -70,6 +74,24 @@ internal static class ReviewCommand
         {
             context.Error.WriteLine(regimeError);
             return ExitCodes.Usage;
+        }
+
+        if (request.ClassLine is { } classLine)
+        {
+            string c = classLine.Trim();
+            if (string.Equals(c, "none", StringComparison.OrdinalIgnoreCase))
+            {
+                regime = regime.WithNoCrossingLine(null);
+            }
+            else if (double.TryParse(c, NumberStyles.Float, CultureInfo.InvariantCulture, out double line) && line > 0 && line <= 25)
+            {
+                regime = regime.WithNoCrossingLine(line);
+            }
+            else
+            {
+                context.Error.WriteLine($"--class-line {classLine} is not understood; give an alcohol above 0 and at most 25 % v/v (e.g. --class-line 16), or 'none'.");
+                return ExitCodes.Usage;
+            }
         }
 
         if (request.Threshold is { } t && (double.IsNaN(t) || t <= 0 || t > 25))
@@ -96,7 +118,7 @@ internal static class ReviewCommand
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
-        if (OutputClash(inputs.Select(i => Path.GetFullPath(i, inputRoot)), outFolder) is { } clash)
+        if (ReportFolder.Problem(outFolder, inputs.Select(i => Path.GetFullPath(i, inputRoot))) is { } clash)
         {
             context.Error.WriteLine(clash);
             return ExitCodes.Usage;
@@ -104,18 +126,9 @@ internal static class ReviewCommand
 
         console.Stage("reading inputs");
         // Reading the inputs keeps one core busy; the other compiles the workbook and chart code meanwhile (about 0.3 s
-        // off the demo review, docs/performance.md). The warm-up writes nothing, and a failure in it is ignored: the
-        // report writer would meet and report the same failure itself.
-        _ = Task.Run(() =>
-        {
-            try
-            {
-                ReportWriter.WarmUp();
-            }
-            catch (Exception)
-            {
-            }
-        });
+        // off the demo review, docs/performance.md). The warm-up writes nothing; it is awaited before the reports are
+        // written, so a failure in it is not hidden.
+        var warmUp = Task.Run(ReportWriter.WarmUp);
         var options = new IntakeOptions
         {
             ColumnMappings = request.Columns,
@@ -126,7 +139,7 @@ internal static class ReviewCommand
         var set = IntakeReader.Read(inputs, options);
 
         // The hashed file list is what was really read (folders expanded): check it too before writing anything.
-        if (OutputClash(set.Files.Select(f => Path.GetFullPath(f.Path, inputRoot)), outFolder) is { } fileClash)
+        if (ReportFolder.Problem(outFolder, set.Files.Select(f => Path.GetFullPath(f.Path, inputRoot))) is { } fileClash)
         {
             context.Error.WriteLine(fileClash);
             return ExitCodes.Usage;
@@ -144,33 +157,20 @@ internal static class ReviewCommand
         };
         var review = ReviewRunner.Run(set, settings, YieldBenchApp.Version, [new MultiVariableCandidate()], new Progress(console));
         console.Stage("writing reports");
-        var written = ReportWriter.Write(review, outFolder, new Progress(console));
-        console.Done();
-        console.Summary(review, written);
+        warmUp.GetAwaiter().GetResult();
+        try
+        {
+            ReportWriter.Write(review, outFolder, new Progress(console), console.SummaryWriter);
+        }
+        catch (ReportFolderException e)
+        {
+            console.Done();
+            context.Error.WriteLine(e.Message);
+            return ExitCodes.Usage;
+        }
 
         bool leftOut = set.Issues.Any(i => i.Severity == IssueSeverity.Error);
         return leftOut ? ExitCodes.InputProblems : ExitCodes.Success;
-    }
-
-    /// <summary>A message when the output folder would write over an input, else null.</summary>
-    internal static string? OutputClash(IEnumerable<string> inputFullPaths, string outFolder)
-    {
-        string outWithSep = Path.TrimEndingDirectorySeparator(outFolder) + Path.DirectorySeparatorChar;
-        foreach (string input in inputFullPaths)
-        {
-            string trimmed = Path.TrimEndingDirectorySeparator(input);
-            if (string.Equals(trimmed, Path.TrimEndingDirectorySeparator(outFolder), StringComparison.Ordinal))
-            {
-                return $"The output folder {outFolder} is also an input; choose another --out so no input can be written over.";
-            }
-
-            if (trimmed.StartsWith(outWithSep, StringComparison.Ordinal))
-            {
-                return $"The output folder {outFolder} contains the input {input}; choose another --out so no input can be written over.";
-            }
-        }
-
-        return null;
     }
 
     /// <summary>Parses <c>us</c>, <c>eu</c> or <c>custom:TOLERANCE</c>.</summary>
@@ -214,6 +214,9 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
 {
     private int width;
 
+    /// <summary>The command's output.</summary>
+    public TextWriter Out => context.Out;
+
     public void Line(string text)
     {
         if (!quiet)
@@ -244,18 +247,8 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
 
     public void Done() => Clear();
 
-    public void Summary(ReviewResult review, ReportOutput output)
-    {
-        if (quiet)
-        {
-            return;
-        }
-
-        foreach (var line in ConsoleSummary.Lines(review, output))
-        {
-            context.Out.WriteLine(line);
-        }
-    }
+    /// <summary>Where the report's console part prints its summary: the output (once the progress line is cleared), or nowhere with --quiet.</summary>
+    public TextWriter? SummaryWriter => quiet ? null : new ClearingWriter(this);
 
     private void Clear()
     {
@@ -263,6 +256,35 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
         {
             context.Out.Write("\r" + new string(' ', width) + "\r");
             width = 0;
+        }
+    }
+}
+
+/// <summary>Clears the progress line before the first summary line, then writes to the command's output.</summary>
+internal sealed class ClearingWriter(ConsoleReport console) : TextWriter
+{
+    private bool cleared;
+
+    public override System.Text.Encoding Encoding => System.Text.Encoding.UTF8;
+
+    public override void Write(char value)
+    {
+        Clear();
+        console.Out.Write(value);
+    }
+
+    public override void WriteLine(string? value)
+    {
+        Clear();
+        console.Out.WriteLine(value);
+    }
+
+    private void Clear()
+    {
+        if (!cleared)
+        {
+            console.Done();
+            cleared = true;
         }
     }
 }

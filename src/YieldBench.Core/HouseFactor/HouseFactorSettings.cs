@@ -6,7 +6,10 @@ public sealed record HouseFactorSettings
     /// <summary>Label regime the backtest is scored against (default: United States).</summary>
     public LabelRegime Regime { get; init; } = LabelRegime.UnitedStates;
 
-    /// <summary>Threshold for the wrong-side share, % v/v (default 14.0, the US class/tax boundary).</summary>
+    /// <summary>
+    /// Threshold of the "share on the wrong side" column, % v/v (default 14.0: where the US tolerance changes size and
+    /// the tax-class boundary before 2018). Its own measure, apart from the regime's no-crossing line.
+    /// </summary>
     public double ThresholdAbv { get; init; } = 14.0;
 
     /// <summary>Fixed ballpark factors offered as candidates, % v/v per °Brix (common practice: 0.55 and 0.59).</summary>

@@ -34,9 +34,27 @@ public sealed record ReviewOverview
     /// <summary>The cautions every report shows.</summary>
     public required IReadOnlyList<string> Cautions { get; init; }
 
+    /// <summary>The conversion factor to use next harvest, pooled and per strain, with ranges and held-out error; null without a recommendation.</summary>
+    public FactorsToUse? Factors { get; init; }
+
+    /// <summary>The planning table (highest picking °Brix per strain for each target and confidence); null without a planner.</summary>
+    public PlanningAtAGlance? Planning { get; init; }
+
+    /// <summary>The comparison's plain sentence: how much more alcohol the first-ranked strain makes than the last from the same sugar (null without an adjusted comparison).</summary>
+    public string? StrainHeadline { get; init; }
+
+    /// <summary>Per strain with logs, in the review's strain order: days to dry, peak temperature, troubled ferments (empty without logs).</summary>
+    public IReadOnlyList<StrainFerments> Ferments { get; init; } = [];
+
+    /// <summary>Rows left out by reason, most rows first.</summary>
+    public IReadOnlyList<ReasonCount> LeftOutReasons { get; init; } = [];
+
+    /// <summary>The lots to look at, one entry each: most serious first, then by lot key.</summary>
+    public IReadOnlyList<LotReview> FlaggedLots { get; init; } = [];
+
     /// <summary>Builds the overview from the rest of the review (pure).</summary>
     internal static ReviewOverview Build(
-        SeasonSet inputs, StrainReview strains, HouseFactor.HouseFactorReview h, Kinetics.KineticsReview? kineticsReview, IReadOnlyList<LotReview> lotReviews, ReviewFigures figures)
+        SeasonSet inputs, HouseFactor.HouseFactorSettings settings, StrainReview strains, HouseFactor.HouseFactorReview h, Kinetics.KineticsReview? kineticsReview, IReadOnlyList<LotReview> lotReviews, ReviewFigures figures)
     {
         var c = strains.Comparison;
         var names = h.Candidates.ToDictionary(x => x.Id, x => x.Name, StringComparer.Ordinal);
@@ -88,6 +106,12 @@ public sealed record ReviewOverview
             Lots = lots,
             Kinetics = kinetics,
             Cautions = ReviewTexts.Cautions,
+            Factors = OverviewDetails.Factors(h, OverviewDetails.ReferenceBrix(c.ReferenceBrix, lotReviews.Select(l => l.Conversion.EffectiveStartingBrix)), figures.StrainOrder, Name),
+            Planning = OverviewDetails.Planning(h, settings, figures.StrainOrder),
+            StrainHeadline = OverviewDetails.StrainHeadline(c, figures.Ranking),
+            Ferments = OverviewDetails.Ferments(kineticsReview, figures.StrainOrder),
+            LeftOutReasons = OverviewDetails.LeftOutReasons(inputs),
+            FlaggedLots = OverviewDetails.FlaggedLots(lotReviews),
         };
     }
 

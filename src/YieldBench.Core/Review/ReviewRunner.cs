@@ -63,7 +63,7 @@ public static class ReviewRunner
             LotReviews = lotReviews,
             FollowUps = followUps,
             Figures = figures,
-            Overview = ReviewOverview.Build(inputs, strains, house, kinetics, lotReviews, figures),
+            Overview = ReviewOverview.Build(inputs, settings.HouseFactor, strains, house, kinetics, lotReviews, figures),
             ToolVersion = toolVersion,
         };
     }

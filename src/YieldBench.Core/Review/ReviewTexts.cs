@@ -23,6 +23,33 @@ public static class ReviewTexts
         _ => severity.ToString(),
     };
 
+    /// <summary>A flag code in plain words (strain review and kinetics codes); an unknown code as it is.</summary>
+    public static string FlagName(string code) => code switch
+    {
+        FlagCodes.HighFactor => "high factor for its strain",
+        FlagCodes.LowFactor => "low factor for its strain",
+        FlagCodes.OutsideTukeyFence => "factor outside its strain's usual range",
+        FlagCodes.FarOutsideTukeyFence => "factor far outside its strain's usual range",
+        FlagCodes.OffStrainLine => "alcohol off its strain's line for its sugar",
+        FlagCodes.AboveTheoreticalYield => "more alcohol than its sugar can give",
+        FlagCodes.ImplausibleFactor => "factor outside the plausible range",
+        FlagCodes.NotDry => "not dry",
+        FlagCodes.SeasonDrift => "strain drifted this season",
+        FlagCodes.PossibleTransposedDigits => "starting sugar may have two digits swapped",
+        FlagCodes.PossibleUnrecordedWater => "water may have been added unrecorded",
+        FlagCodes.PossibleStrainMixUp => "may have been fermented by another strain",
+        "stuck" => "stuck ferment",
+        "sluggish" => "sluggish ferment",
+        "stalled-then-finished" => "stalled, then finished",
+        "not-dry-at-log-end" => "not dry when its log ended",
+        "above-danger-temp" => "above the danger temperature",
+        "above-caution-temp" => "above the caution temperature",
+        "out-of-order-timestamp" => "log readings out of time order",
+        "duplicate-timestamp" => "two log readings at one time",
+        "sugar-rose" => "sugar rose between readings",
+        _ => code,
+    };
+
     /// <summary>Plain name of a backtest scheme.</summary>
     public static string Scheme(BacktestScheme scheme) => scheme switch
     {

@@ -11,6 +11,7 @@ internal enum CellProblem
     NotANumber,
     AmbiguousNumber,
     ErrorCell,
+    FormulaWithoutValue,
     NotADate,
     AmbiguousDate,
     NotATime,
@@ -52,6 +53,7 @@ internal static partial class CellValues
         DateTime dt => dt.TimeOfDay == TimeSpan.Zero ? dt.ToString("yyyy-MM-dd", Inv) : dt.ToString("yyyy-MM-dd HH:mm:ss", Inv),
         bool b => b ? "TRUE" : "FALSE",
         ErrorCell e => e.Text,
+        FormulaCell f => "=" + f.Formula,
         IFormattable f => f.ToString(null, Inv),
         _ => v.ToString() ?? "",
     };
@@ -70,6 +72,8 @@ internal static partial class CellValues
                 return double.IsFinite(d) ? CellProblem.None : CellProblem.NotANumber;
             case ErrorCell:
                 return CellProblem.ErrorCell;
+            case FormulaCell:
+                return CellProblem.FormulaWithoutValue;
             case string s:
                 return ParseNumberText(s, decimalComma, out value, out alternative);
             default:
@@ -214,6 +218,8 @@ internal static partial class CellValues
                 return CellProblem.None;
             case ErrorCell:
                 return CellProblem.ErrorCell;
+            case FormulaCell:
+                return CellProblem.FormulaWithoutValue;
             case string s:
                 return ParseDateText(s.Trim(), order, out value, out dayFirst, out monthFirst);
             default:
@@ -351,6 +357,8 @@ internal static partial class CellValues
                 return CellProblem.None;
             case ErrorCell:
                 return CellProblem.ErrorCell;
+            case FormulaCell:
+                return CellProblem.FormulaWithoutValue;
             case string s:
                 var m = TimeText().Match(s.Trim());
                 if (!m.Success)
@@ -388,6 +396,22 @@ internal static partial class CellValues
 
     [GeneratedRegex(@"^[0-9]{1,3}(\.[0-9]{3})+$")]
     private static partial Regex ThousandsWithDot();
+
+    /// <summary>
+    /// A date-and-time text without its time zone ("2024-09-03T08:00:00Z" → "2024-09-03T08:00:00", "… 08:00+02:00" →
+    /// "… 08:00"), or null when it names none. Only a zone after a time of day is taken off.
+    /// </summary>
+    public static string? WithoutZone(string text)
+    {
+        var m = ZoneAfterTime().Match(text.Trim());
+        return m.Success ? m.Groups["local"].Value : null;
+    }
+
+    [GeneratedRegex(@"^(?<local>.*[0-9]:[0-9]{2}(?::[0-9]{2}(?:\.[0-9]+)?)?)\s*(?:Z|UTC|[+-][0-9]{2}(?::?[0-9]{2})?)$", RegexOptions.CultureInvariant)]
+    private static partial Regex ZoneAfterTime();
+
+    /// <summary>True for "4.200", "12.500.000": digits grouped by dots in threes, as thousands or as decimals.</summary>
+    public static bool DotThousands(string text) => ThousandsWithDot().IsMatch(text);
 
     [GeneratedRegex(@"^(?<y>[0-9]{4})[-/.](?<m>[0-9]{1,2})[-/.](?<d>[0-9]{1,2})(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2})(?::(?<s>[0-9]{2})(?:\.[0-9]+)?)?)?$")]
     private static partial Regex IsoDate();

@@ -18,6 +18,9 @@ internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDe
 /// <summary>Explicit column mappings and the synonym indexes the header matcher uses.</summary>
 internal static class ColumnRules
 {
+    /// <summary>Largest mapping file read, bytes (1 MiB: thousands of mapping lines).</summary>
+    public const long MaxMappingFileBytes = 1L << 20;
+
     public static readonly IReadOnlyDictionary<string, FieldDef> LotIndex = BuildIndex(Fields.Lots);
 
     public static readonly IReadOnlyDictionary<string, FieldDef> LogIndex = BuildIndex(Fields.Log);
@@ -94,6 +97,14 @@ internal static class ColumnRules
                 return rules;
             }
 
+            // Checked from the directory entry before opening: a pipe would block the open, a device would never end.
+            long length = SourceFiles.EntryLength(mappingFullPath);
+            if (length == 0 || length > MaxMappingFileBytes)
+            {
+                sink.Error(mappingDisplayPath, null, null, null, null, IssueCodes.MappingFileRefused, IntakeMessages.MappingFileRefused(length, MaxMappingFileBytes));
+                return rules;
+            }
+
             using var stream = SourceFiles.OpenShared(mappingFullPath);
             using var reader = new StreamReader(stream, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
             int lineNo = 0;
@@ -132,7 +143,7 @@ internal static class ColumnRules
 
         if (!FieldAliases.TryGetValue(field, out var alias))
         {
-            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field));
+            sink.Error(origin, null, line, null, field, IssueCodes.MappingUnknownField, IntakeMessages.MappingUnknownField(field, FieldAliases.Keys.Order(StringComparer.Ordinal)));
             return;
         }
 

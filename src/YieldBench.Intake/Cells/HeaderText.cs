@@ -55,7 +55,8 @@ internal static partial class HeaderText
 
     /// <summary>
     /// The header reduced to the words that name the field: bracketed text and unit words removed. When nothing is
-    /// left (a header that is only a unit, such as "% v/v"), the full normalised text is returned.
+    /// left, the header without its brackets ("Vol (gal)" → "vol", a word that is also a unit), or failing that the full
+    /// normalised text (a header that is only a unit, such as "(°Bx)").
     /// </summary>
     public static string FieldKey(string header)
     {
@@ -63,7 +64,7 @@ internal static partial class HeaderText
         string norm = Normalise(withoutBrackets);
         var words = norm.Split(' ', StringSplitOptions.RemoveEmptyEntries).Where(w => !UnitWords.Contains(w)).ToArray();
         string key = string.Join(' ', words);
-        return key.Length > 0 ? key : Normalise(header);
+        return key.Length > 0 ? key : norm.Length > 0 ? norm : Normalise(header);
     }
 
     // Scale and unit words a units row under the header may hold besides the unit words above.

@@ -7,8 +7,17 @@ internal sealed record ErrorCell(string Text)
 }
 
 /// <summary>
+/// A spreadsheet cell that holds a formula but no stored result (files written by scripts and some exporters store only
+/// the formula; a spreadsheet program computes and stores the result when it saves the file).
+/// </summary>
+internal sealed record FormulaCell(string Formula)
+{
+    public override string ToString() => "=" + Formula;
+}
+
+/// <summary>
 /// One sheet (or CSV file) as cells: row i of <see cref="Rows"/> is spreadsheet row i + 1. Cells are null, string,
-/// double, DateTime, bool or <see cref="ErrorCell"/>.
+/// double, DateTime, bool, <see cref="ErrorCell"/> or <see cref="FormulaCell"/>.
 /// </summary>
 internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalComma)
 {
@@ -21,6 +30,16 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
 
     /// <summary>True when the sheet had more rows than the limit and was cut short.</summary>
     public bool TooManyRows { get; init; }
+
+    /// <summary>True when the sheet is a text file's (CSV): its rows are split by a delimiter, so a row may hold more fields than its header.</summary>
+    public bool IsText { get; init; }
+
+    /// <summary>
+    /// True when nothing in a text file settles whether a dot groups thousands ("4.200" as 4200) or is a decimal
+    /// point: the delimiter is not a comma, no decimal comma was seen, and no number with a decimal point and other
+    /// than three decimals.
+    /// </summary>
+    public bool DotGroupingUnsettled { get; init; }
 
     /// <summary>True when the workbook hides the sheet (hidden or very hidden); such a sheet is not read.</summary>
     public bool Hidden { get; init; }

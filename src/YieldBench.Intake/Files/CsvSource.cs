@@ -110,7 +110,8 @@ internal static partial class CsvSource
         }
 
         bool decimalComma = delimiter != ',' && rows.Take(500).Any(r => r.Any(c => c is string s && DecimalCommaNumber().IsMatch(s)));
-        var sheet = new RawSheet(null, rows, decimalComma) { TooManyRows = tooMany };
+        bool dotUnsettled = delimiter != ',' && !decimalComma && !rows.Take(500).Any(r => r.Any(c => c is string s && DecimalPointNumber().IsMatch(s)));
+        var sheet = new RawSheet(null, rows, decimalComma) { TooManyRows = tooMany, IsText = true, DotGroupingUnsettled = dotUnsettled };
         foreach (var (k, v) in badRows)
         {
             sheet.BadRows[k] = v;
@@ -248,5 +249,9 @@ internal static partial class CsvSource
 
     [GeneratedRegex(@"^\s*[-+]?[0-9]+,[0-9]+\s*$")]
     private static partial Regex DecimalCommaNumber();
+
+    /// <summary>A number with a decimal point and other than three decimals ("24.3", "0.99", "1.0950"): the dot is a decimal point.</summary>
+    [GeneratedRegex(@"^\s*[-+]?[0-9]*\.([0-9]{1,2}|[0-9]{4,})\s*$")]
+    private static partial Regex DecimalPointNumber();
 
 }

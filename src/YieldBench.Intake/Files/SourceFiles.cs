@@ -14,22 +14,43 @@ internal static class SourceFiles
     public static FileStream OpenShared(string fullPath) =>
         new(fullPath, FileMode.Open, FileAccess.Read, FileShare.ReadWrite | FileShare.Delete, 1 << 16);
 
-    public static RawFile Read(string file, string fullPath, IntakeOptions options, IssueSink sink)
+    /// <summary>
+    /// True when the file may be read: it holds bytes and is within the size limit. Checked from the directory entry
+    /// alone, before the file is opened: a device (/dev/zero), a pipe or a socket reports no size, and opening a pipe
+    /// would wait for a writer, so they are refused here with the empty file.
+    /// </summary>
+    public static bool SizeAllowed(string file, string fullPath, IntakeOptions options, IssueSink sink, out long length)
     {
-        string ext = Path.GetExtension(fullPath).ToLowerInvariant();
-        long length = new FileInfo(fullPath).Length;
+        length = EntryLength(fullPath);
         if (length == 0)
         {
             sink.Error(file, null, null, null, null, IssueCodes.EmptyFile, IntakeMessages.EmptyFile());
-            return Refused;
+            return false;
         }
 
         if (length > options.MaxFileBytes)
         {
             sink.Error(file, null, null, null, length.ToString(CultureInfo.InvariantCulture), IssueCodes.FileTooLarge, IntakeMessages.FileTooLarge(length, options.MaxFileBytes));
-            return Refused;
+            return false;
         }
 
+        return true;
+    }
+
+    /// <summary>
+    /// The size the directory entry gives for the file a path names, through any links (the size of a link itself is
+    /// that of the path it holds). Devices, pipes and sockets give 0.
+    /// </summary>
+    public static long EntryLength(string fullPath)
+    {
+        var info = new FileInfo(fullPath);
+        return info.LinkTarget is not null && info.ResolveLinkTarget(returnFinalTarget: true) is FileInfo target ? (target.Exists ? target.Length : 0) : info.Length;
+    }
+
+    /// <summary>Reads a file whose size <see cref="SizeAllowed"/> accepted into raw sheets.</summary>
+    public static RawFile Read(string file, string fullPath, long length, IntakeOptions options, IssueSink sink)
+    {
+        string ext = Path.GetExtension(fullPath).ToLowerInvariant();
         byte[] head = new byte[Math.Min(length, BinaryProbeBytes)];
         using (var fs = OpenShared(fullPath))
         {
@@ -39,6 +60,7 @@ internal static class SourceFiles
         return ext switch
         {
             ".csv" or ".txt" or ".tsv" => CsvSource.Read(file, fullPath, head, options, sink),
+            ".ods" => OdsSource.Read(file, fullPath, head, options, sink),
             _ => WorkbookSource.Read(file, fullPath, ext, head, options, sink),
         };
     }

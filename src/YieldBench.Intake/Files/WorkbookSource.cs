@@ -13,12 +13,12 @@ namespace YieldBench.Intake;
 /// </summary>
 internal static class WorkbookSource
 {
-    private static readonly byte[] ZipMagic = [0x50, 0x4B, 0x03, 0x04];
+    internal static readonly byte[] ZipMagic = [0x50, 0x4B, 0x03, 0x04];
     private static readonly byte[] CompoundFileMagic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
 
     static WorkbookSource() => Encoding.RegisterProvider(CodePagesEncodingProvider.Instance);
 
-    private static bool StartsWith(byte[] data, byte[] magic) => data.Length >= magic.Length && data.AsSpan(0, magic.Length).SequenceEqual(magic);
+    internal static bool StartsWith(byte[] data, byte[] magic) => data.Length >= magic.Length && data.AsSpan(0, magic.Length).SequenceEqual(magic);
 
     public static RawFile Read(string file, string fullPath, string ext, byte[] head, IntakeOptions options, IssueSink sink)
     {
@@ -43,15 +43,15 @@ internal static class WorkbookSource
             return SourceFiles.Refused;
         }
 
-        Dictionary<string, List<(int Row, int Col, string Text)>> errorCells = [];
+        Dictionary<string, List<(int Row, int Col, object Cell)>> unreadCells = [];
         if (isZip)
         {
-            if (!CheckZip(file, fullPath, ext, options, sink))
+            if (!CheckZip(file, fullPath, ext, options, sink, "xl/workbook.xml", "xl/workbook.bin"))
             {
                 return SourceFiles.Refused;
             }
 
-            errorCells = FindErrorCells(fullPath, out string? damage);
+            unreadCells = FindUnreadCells(fullPath, out string? damage);
             if (damage is not null)
             {
                 // The spreadsheet reader stops quietly at damaged XML; a half-read sheet must not pass as whole.
@@ -91,10 +91,10 @@ internal static class WorkbookSource
                     rows.Add(cells);
                 }
 
-                string name = reader.Name ?? $"Sheet{sheets.Count + 1}";
-                if (errorCells.TryGetValue(name, out var errors))
+                string name = TextSettling.Settle(reader.Name ?? "", multiline: false, out _) is { Length: > 0 } n ? n : $"Sheet{sheets.Count + 1}";
+                if (unreadCells.TryGetValue(reader.Name ?? "", out var unread))
                 {
-                    foreach (var (row, col, text) in errors)
+                    foreach (var (row, col, cell) in unread)
                     {
                         while (rows.Count <= row)
                         {
@@ -108,7 +108,7 @@ internal static class WorkbookSource
                             rows[row] = wider;
                         }
 
-                        rows[row][col] = new ErrorCell(text);
+                        rows[row][col] = cell;
                     }
                 }
 
@@ -133,7 +133,12 @@ internal static class WorkbookSource
         return new RawFile(sheets, false);
     }
 
-    private static bool CheckZip(string file, string fullPath, string ext, IntakeOptions options, IssueSink sink)
+    /// <summary>
+    /// Checks a zip package from its central directory before anything in it is inflated: the sizes it claims (in
+    /// total and in proportion, and compressed parts that together claim more bytes than the file holds, which only
+    /// parts sharing their data do), and that it holds one of the parts <paramref name="anyOf"/> names.
+    /// </summary>
+    internal static bool CheckZip(string file, string fullPath, string ext, IntakeOptions options, IssueSink sink, params string[] anyOf)
     {
         try
         {
@@ -145,6 +150,12 @@ internal static class WorkbookSource
                 // Sizes come from the central directory; nothing is decompressed here.
                 compressed += entry.CompressedLength;
                 uncompressed += entry.Length;
+            }
+
+            if (compressed > fs.Length)
+            {
+                sink.Error(file, null, null, null, null, IssueCodes.ZipBomb, IntakeMessages.ZipPartsOverlap(compressed, fs.Length));
+                return false;
             }
 
             if (uncompressed > options.MaxUncompressedBytes)
@@ -159,7 +170,7 @@ internal static class WorkbookSource
                 return false;
             }
 
-            if (zip.GetEntry("xl/workbook.xml") is null && zip.GetEntry("xl/workbook.bin") is null)
+            if (!anyOf.Any(name => zip.GetEntry(name) is not null))
             {
                 sink.Error(file, null, null, null, null, IssueCodes.NotAWorkbook, IntakeMessages.NotAZip(ext));
                 return false;
@@ -185,12 +196,13 @@ internal static class WorkbookSource
     }
 
     /// <summary>
-    /// Cells of type "e" (formula errors) in each worksheet of an .xlsx, by sheet name. The spreadsheet reader shows
-    /// them as empty; this pass lets us report them instead.
+    /// Cells the spreadsheet reader shows as empty although they are not, in each worksheet of an .xlsx, by sheet name:
+    /// formula errors (cells of type "e", as <see cref="ErrorCell"/>) and formulas with no stored result (an
+    /// <c>f</c> element without a <c>v</c>, as <see cref="FormulaCell"/>). This pass lets us report them instead.
     /// </summary>
-    private static Dictionary<string, List<(int Row, int Col, string Text)>> FindErrorCells(string fullPath, out string? damage)
+    private static Dictionary<string, List<(int Row, int Col, object Cell)>> FindUnreadCells(string fullPath, out string? damage)
     {
-        var result = new Dictionary<string, List<(int, int, string)>>(StringComparer.Ordinal);
+        var result = new Dictionary<string, List<(int, int, object)>>(StringComparer.Ordinal);
         damage = null;
         string part = "xl/workbook.xml";
         try
@@ -237,44 +249,10 @@ internal static class WorkbookSource
             foreach (var (name, path) in sheets)
             {
                 part = $"sheet '{name}'";
-                var entry = zip.GetEntry(path);
-                if (entry is null)
+                if (zip.GetEntry(path) is { } entry)
                 {
-                    continue;
-                }
-
-                using var es = entry.Open();
-                using var xr = XmlReader.Create(es, SafeXml);
-                while (xr.Read())
-                {
-                    if (xr.NodeType != XmlNodeType.Element || xr.LocalName != "c" || xr.GetAttribute("t") != "e" || xr.GetAttribute("r") is not { } reference)
-                    {
-                        continue;
-                    }
-
-                    string text = "#ERROR";
-                    if (!xr.IsEmptyElement)
-                    {
-                        using var sub = xr.ReadSubtree();
-                        while (sub.Read())
-                        {
-                            if (sub.NodeType == XmlNodeType.Element && sub.LocalName == "v")
-                            {
-                                text = sub.ReadElementContentAsString();
-                                break;
-                            }
-                        }
-                    }
-
-                    if (TryParseReference(reference, out int row, out int col))
-                    {
-                        if (!result.TryGetValue(name, out var list))
-                        {
-                            result[name] = list = [];
-                        }
-
-                        list.Add((row, col, text));
-                    }
+                    using var es = entry.Open();
+                    ScanCells(es, name, result);
                 }
             }
         }
@@ -290,7 +268,64 @@ internal static class WorkbookSource
         return result;
     }
 
-    private static readonly XmlReaderSettings SafeXml = new() { DtdProcessing = DtdProcessing.Prohibit, XmlResolver = null, IgnoreWhitespace = true };
+    /// <summary>Streams one worksheet's XML, adding its error cells and formulas without a stored result.</summary>
+    private static void ScanCells(Stream sheetXml, string sheet, Dictionary<string, List<(int, int, object)>> result)
+    {
+        using var xr = XmlReader.Create(sheetXml, SafeXml);
+        string? reference = null;
+        bool error = false, hasFormula = false, hasValue = false;
+        string formula = "", value = "";
+        bool advanced = false;
+        while (advanced || xr.Read())
+        {
+            advanced = false;
+            if (xr.NodeType == XmlNodeType.Element && xr.LocalName == "c")
+            {
+                reference = xr.GetAttribute("r");
+                error = xr.GetAttribute("t") == "e";
+                hasFormula = hasValue = false;
+                formula = value = "";
+                if (xr.IsEmptyElement)
+                {
+                    reference = null;
+                }
+            }
+            else if (reference is not null && xr.NodeType == XmlNodeType.Element && xr.LocalName is "f" or "v")
+            {
+                bool isFormula = xr.LocalName == "f";
+                bool empty = xr.IsEmptyElement;
+                string text = empty ? "" : xr.ReadElementContentAsString();
+                advanced = !empty; // reading the content moved the reader past the element's end
+                if (isFormula)
+                {
+                    (hasFormula, formula) = (true, text);
+                }
+                else
+                {
+                    (hasValue, value) = (text.Length > 0, text);
+                }
+            }
+            else if (reference is not null && xr.NodeType == XmlNodeType.EndElement && xr.LocalName == "c")
+            {
+                object? cell = error ? new ErrorCell(value.Length > 0 ? value : "#ERROR")
+                    : hasFormula && !hasValue ? new FormulaCell(formula)
+                    : null;
+                if (cell is not null && TryParseReference(reference, out int row, out int col))
+                {
+                    if (!result.TryGetValue(sheet, out var list))
+                    {
+                        result[sheet] = list = [];
+                    }
+
+                    list.Add((row, col, cell));
+                }
+
+                reference = null;
+            }
+        }
+    }
+
+    internal static readonly XmlReaderSettings SafeXml = new() { DtdProcessing = DtdProcessing.Prohibit, XmlResolver = null, IgnoreWhitespace = true };
 
     /// <summary>"B4" → row 3, column 1 (both 0-based).</summary>
     internal static bool TryParseReference(string reference, out int row, out int col)

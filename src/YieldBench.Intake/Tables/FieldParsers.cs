@@ -48,6 +48,26 @@ internal static class FieldParsers
 
     internal static string Label(FieldDef f) => f.Name;
 
+    /// <summary>
+    /// Reports a cell that holds a formula error, or a formula with no stored result, and returns true; false for any
+    /// other cell. The season of a log row is only a warning; other values follow their field.
+    /// </summary>
+    internal static bool Unreadable(RowState st, BoundColumn c, object? cell)
+    {
+        bool critical = c.Field.Name == "season" ? st.Ctx.Kind == TableKind.Lots : c.Field.Critical;
+        switch (cell)
+        {
+            case ErrorCell:
+                st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(Label(c.Field)), critical);
+                return true;
+            case FormulaCell f:
+                st.Problem(c, cell, IssueCodes.FormulaWithoutValue, IntakeMessages.FormulaWithoutValue(Label(c.Field), f.Formula), critical);
+                return true;
+            default:
+                return false;
+        }
+    }
+
     internal static string? TextField(RowState st, string name) => TextField(st, st.Ctx.Column(name));
 
     internal static string? TextField(RowState st, BoundColumn? column)
@@ -58,13 +78,13 @@ internal static class FieldParsers
         }
 
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
-        if (cell is ErrorCell)
+        if (Unreadable(st, c, cell))
         {
-            st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(Label(c.Field)), c.Field.Critical);
             return null;
         }
 
-        string text = CellValues.Text(cell);
+        string raw = CellValues.Text(cell);
+        string text = TextSettling.Settle(raw, multiline: c.Field.Name == "notes", out var change);
         if (text.Length == 0)
         {
             if (c.Field.Required)
@@ -73,6 +93,17 @@ internal static class FieldParsers
             }
 
             return null;
+        }
+
+        var ctx = st.Ctx;
+        if (change.HasFlag(TextChange.Characters))
+        {
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, st.SheetRow, c.Header, raw, IssueCodes.TextSettled, IntakeMessages.TextSettled(Label(c.Field), c.Field.Name == "notes"));
+        }
+
+        if (change.HasFlag(TextChange.Cut))
+        {
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, st.SheetRow, c.Header, raw, IssueCodes.TextTooLong, IntakeMessages.TextTooLong(Label(c.Field), raw.Length, TextSettling.MaxCellText));
         }
 
         return text;
@@ -103,7 +134,11 @@ internal static class FieldParsers
                     return dt.Year;
                 }
 
-                st.Problem(c, cell, cell is ErrorCell ? IssueCodes.ErrorCell : IssueCodes.NotAYear, cell is ErrorCell ? IntakeMessages.ErrorCell("season") : IntakeMessages.NotAYear("season"), ctx.Kind == TableKind.Lots);
+                if (!Unreadable(st, c, cell))
+                {
+                    st.Problem(c, cell, IssueCodes.NotAYear, IntakeMessages.NotAYear("season"), ctx.Kind == TableKind.Lots);
+                }
+
                 return null;
             }
         }
@@ -129,6 +164,13 @@ internal static class FieldParsers
         var problem = c.ParsedAt(st.Row - st.Ctx.FirstData, out value)
             ? CellProblem.None
             : CellValues.Number(cell, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+        if (problem == CellProblem.None && st.Ctx.Sheet.DotGroupingUnsettled && cell is string dotted && CellValues.DotThousands(dotted.Trim()))
+        {
+            // "4.200" in a semicolon file that shows no decimal point elsewhere: 4200 as much as 4.2, never guessed.
+            problem = CellProblem.AmbiguousNumber;
+            alternative = dotted.Trim().Replace(".", "", StringComparison.Ordinal) + " or " + dotted.Trim();
+        }
+
         string label = Label(c.Field);
         if (problem == CellProblem.NotANumber && cell is string text && CellValues.SplitUnit(text) is var (number, unitText))
         {
@@ -176,8 +218,8 @@ internal static class FieldParsers
                 }
 
                 return false;
-            case CellProblem.ErrorCell:
-                st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(label), c.Field.Critical);
+            case CellProblem.ErrorCell or CellProblem.FormulaWithoutValue:
+                Unreadable(st, c, cell);
                 return false;
             case CellProblem.AmbiguousNumber:
                 var parts = alternative!.Split(" or ");
@@ -192,7 +234,8 @@ internal static class FieldParsers
 
                 st.Problem(c, cell, IssueCodes.AmbiguousNumber, shown.Contains(',', StringComparison.Ordinal)
                     ? IntakeMessages.AmbiguousNumber(label, parts[0], parts[1])
-                    : IntakeMessages.AmbiguousDotNumber(label, parts[0], parts[1]), c.Field.Critical);
+                    : st.Ctx.Sheet.DecimalComma ? IntakeMessages.AmbiguousDotNumber(label, parts[0], parts[1])
+                    : IntakeMessages.AmbiguousDotNumberUnsettled(label, parts[0], parts[1]), c.Field.Critical);
                 return false;
             default:
                 st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label), c.Field.Critical);
@@ -337,7 +380,15 @@ internal static class FieldParsers
         }
 
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
-        var problem = CellValues.Date(cell, c.DateOrder, out var value, out var dayFirst, out var monthFirst);
+        object? dateCell = cell;
+        if (cell is string text && CellValues.WithoutZone(text) is { } local)
+        {
+            // "2024-09-03T08:00:00Z", "…+02:00": read as the clock time written; the column says so once (SheetReader).
+            dateCell = local;
+            c.ZoneSeenAt ??= st.SheetRow;
+        }
+
+        var problem = CellValues.Date(dateCell, c.DateOrder, out var value, out var dayFirst, out var monthFirst);
         string label = Label(c.Field);
         switch (problem)
         {
@@ -345,8 +396,8 @@ internal static class FieldParsers
                 return value;
             case CellProblem.Blank:
                 return null;
-            case CellProblem.ErrorCell:
-                st.Problem(c, cell, IssueCodes.ErrorCell, IntakeMessages.ErrorCell(label), c.Field.Critical);
+            case CellProblem.ErrorCell or CellProblem.FormulaWithoutValue:
+                Unreadable(st, c, cell);
                 return null;
             case CellProblem.AmbiguousDate:
                 st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, dayFirst!, monthFirst!), c.Field.Critical);
@@ -365,6 +416,11 @@ internal static class FieldParsers
         }
 
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (Unreadable(st, c, cell))
+        {
+            return WineColour.Unknown;
+        }
+
         string n = HeaderText.Normalise(CellValues.Text(cell));
         switch (n)
         {

@@ -81,7 +81,7 @@ internal static class HeaderDetection
                 continue;
             }
 
-            string text = CellValues.Text(cell);
+            string text = TextSettling.Settle(CellValues.Text(cell), multiline: false, out _);
             var field = Match(run, text, kind, out var rule);
             if (field is null)
             {

@@ -15,7 +15,7 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public List<RunningLot> RunningLots { get; } = [];
 
-    /// <summary>Where each lot key (season, lot) was first read, to report a second row of the same lot.</summary>
+    /// <summary>Where each lot key (season, lot id) was first read, to report a second row of the same lot.</summary>
     public Dictionary<LotKey, SourceRef> LotKeys { get; } = [];
 
     /// <summary>Log readings in the order read, with the lot id and season they name; joined to lots at the end.</summary>

@@ -58,9 +58,9 @@ internal static class LogRows
                 {
                     when = when.Value.Date + tod;
                 }
-                else if (tp != CellProblem.Blank)
+                else if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
                 {
-                    st.Problem(timeCol, tcell, tp == CellProblem.ErrorCell ? IssueCodes.ErrorCell : IssueCodes.NotATime, tp == CellProblem.ErrorCell ? IntakeMessages.ErrorCell("time") : IntakeMessages.NotATime("time"), true);
+                    st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
                 }
             }
         }

@@ -34,7 +34,7 @@ internal static class LotRows
     private static bool Add(SheetContext ctx, RowState rowState, int r)
     {
         var run = ctx.Run;
-        if (ReadRow(ctx, rowState, r) is not { } lot)
+        if (ReadRow(ctx, rowState, r) is not { } read || LotPlausibility.Check(ctx, read, r) is not { } lot)
         {
             return false;
         }

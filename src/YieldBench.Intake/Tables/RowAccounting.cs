@@ -67,6 +67,15 @@ internal static class RowAccounting
                 continue;
             }
 
+            if (ctx.Sheet.IsText && FieldsBeyondHeader(row, ctx.HeaderWidth) is { } extra)
+            {
+                // An unquoted "4,500" in a comma file is two fields: the row's values have shifted, none can be trusted.
+                reported++;
+                int fields = Array.FindLastIndex(row, c => !CellValues.IsBlank(c)) + 1;
+                sink.Error(ctx.File, ctx.SheetName, r + 1, null, extra, IssueCodes.ExtraFields, IntakeMessages.ExtraFields(fields, ctx.HeaderWidth));
+                continue;
+            }
+
             if (readRow(r))
             {
                 used++;
@@ -80,6 +89,20 @@ internal static class RowAccounting
         ctx.Run.Accounts.Add(plan.Readings
             ? new SourceAccount(ctx.File, ctx.SheetName, plan.Kind, read, 0, used, reported, blank, summary)
             : new SourceAccount(ctx.File, ctx.SheetName, plan.Kind, read, used, 0, reported, blank, summary));
+    }
+
+    /// <summary>The row's fields as text (to show where it split), or null when nothing lies beyond the header's width.</summary>
+    private static string? FieldsBeyondHeader(object?[] row, int headerWidth)
+    {
+        for (int i = headerWidth; i < row.Length; i++)
+        {
+            if (!CellValues.IsBlank(row[i]))
+            {
+                return string.Join(" | ", row.Select(CellValues.Text));
+            }
+        }
+
+        return null;
     }
 
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>

@@ -18,6 +18,9 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
 
     public DateOrder DateOrder { get; set; }
 
+    /// <summary>The first sheet row whose date text carried a time zone (Z, +02:00), which was not applied.</summary>
+    public int? ZoneSeenAt { get; set; }
+
     /// <summary>Keeps the numbers read while the unit was settled (NaN where a cell held none), by data row.</summary>
     public void KeepParsed(double[] numbers) => _parsed = numbers;
 
@@ -29,7 +32,10 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
     }
 }
 
-/// <summary>One table being read: its sheet, kind, bound columns and data rows.</summary>
+/// <summary>
+/// One table being read: its sheet, kind, bound columns and data rows; <see cref="HeaderWidth"/> is the number of
+/// cells up to the header's last one that is not blank.
+/// </summary>
 internal sealed record SheetContext(
     IntakeRun Run,
     string File,
@@ -38,7 +44,8 @@ internal sealed record SheetContext(
     List<BoundColumn> Columns,
     int FirstData,
     int LastRow,
-    int? DefaultSeason)
+    int? DefaultSeason,
+    int HeaderWidth)
 {
     private readonly Dictionary<string, BoundColumn> _byField = IndexByField(Columns);
 

@@ -55,7 +55,8 @@ internal static class SheetReader
         }
 
         string fileStem = Path.GetFileNameWithoutExtension(fullPath);
-        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season);
+        int headerWidth = Array.FindLastIndex(sheet.Rows[headerRow], c => !CellValues.IsBlank(c)) + 1;
+        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth);
         UnitSettling.Settle(ctx);
         foreach (var c in columns)
         {
@@ -70,6 +71,11 @@ internal static class SheetReader
         else
         {
             LogRows.Read(ctx, fileStem);
+        }
+
+        foreach (var c in columns.Where(c => c.ZoneSeenAt is not null))
+        {
+            sink.Warning(file, sheetName, c.ZoneSeenAt, c.Header, null, IssueCodes.TimeZoneNotApplied, IntakeMessages.TimeZoneNotApplied(c.Field.Name));
         }
 
         return Outcome.Read;

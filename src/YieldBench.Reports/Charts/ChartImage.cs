@@ -13,21 +13,28 @@ namespace YieldBench.Reports.Charts;
 /// <param name="OnOverview">True when the overview sheet shows it too (keep it for the few charts that explain the review at a glance).</param>
 public sealed record ChartFile(string Path, string Title, int Width, int Height, string? Sheet = null, bool OnOverview = true);
 
-/// <summary>A chart to be drawn: the file it becomes, known before it is drawn, and the job that draws it and returns that file.</summary>
-/// <param name="File">The chart file the job writes.</param>
-/// <param name="Job">Draws the chart into <see cref="ChartFile.Path"/> and returns <paramref name="File"/>.</param>
-internal sealed record PlannedChart(ChartFile File, Func<ChartFile> Job)
+/// <summary>A chart to be drawn: the file it becomes, known before it is drawn, and how its PNG is drawn.</summary>
+/// <param name="File">The chart file (its path, title and where the workbook shows it).</param>
+/// <param name="Draw">Draws the chart and writes its PNG bytes to the stream given.</param>
+internal sealed record PlannedChart(ChartFile File, Action<Stream> Draw)
 {
-    /// <summary>A chart whose plot <paramref name="plot"/> builds, saved by <see cref="ChartImage.Save"/> to <paramref name="path"/>.</summary>
-    public static PlannedChart Of(Func<Plot> plot, string path, string title, string? sheet = null, bool onOverview = true)
-    {
-        var file = new ChartFile(System.IO.Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, sheet, onOverview);
-        return new PlannedChart(file, () =>
+    /// <summary>A chart whose plot <paramref name="plot"/> builds, rendered at the report's size.</summary>
+    public static PlannedChart Of(Func<Plot> plot, string path, string title, string? sheet = null, bool onOverview = true) =>
+        new(
+            new ChartFile(System.IO.Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, sheet, onOverview),
+            stream =>
+            {
+                using var png = ChartImage.RenderPngData(plot(), ChartStyle.Width, ChartStyle.Height);
+                stream.Write(png.AsSpan());
+            });
+
+    /// <summary>Draws the chart into its file (atomically), one chart after another: for callers outside a report.</summary>
+    public static IReadOnlyList<ChartFile> DrawAll(IEnumerable<PlannedChart> charts) =>
+        charts.Select(c =>
         {
-            ChartImage.Save(plot(), path, title, sheet, onOverview: onOverview);
-            return file;
-        });
-    }
+            AtomicFile.Write(c.File.Path, c.Draw);
+            return c.File;
+        }).ToArray();
 }
 
 /// <summary>Renders plots to PNG bytes and files.</summary>
@@ -115,68 +122,5 @@ public static class ChartImage
         }
 
         return new ChartFile(System.IO.Path.GetFullPath(path), title, width, height, sheet, onOverview);
-    }
-
-    /// <summary>
-    /// Runs independent chart jobs on all cores and returns their results in the jobs' order, so the files, their
-    /// bytes and the workbook's placement do not depend on which thread finished first.
-    /// </summary>
-    /// <param name="jobs">Each job builds its own plot and writes its own file; jobs share no mutable state.</param>
-    /// <param name="startFirst">
-    /// Indices of jobs to start before the others (the longest ones, so that no long job starts last and runs alone);
-    /// the rest start in their order. Results are in the jobs' order whatever the start order.
-    /// </param>
-    /// <exception cref="AggregateException">A job failed (the jobs not yet started are not run).</exception>
-    public static IReadOnlyList<ChartFile> RenderAll(IReadOnlyList<Func<ChartFile>> jobs, IReadOnlyList<int>? startFirst = null)
-    {
-        ArgumentNullException.ThrowIfNull(jobs);
-        var first = startFirst ?? [];
-        if (first.Any(i => i < 0 || i >= jobs.Count) || first.Distinct().Count() != first.Count)
-        {
-            throw new ArgumentException("The jobs to start first must be distinct indices of jobs.", nameof(startFirst));
-        }
-
-        var starts = first.Concat(Enumerable.Range(0, jobs.Count).Except(first)).ToArray();
-
-        // Font registration touches ScottPlot's global resolver list: do it once before any worker starts.
-        ReportFonts.EnsureRegistered();
-        var results = new ChartFile[jobs.Count];
-
-        // One worker more than there are cores: every job ends by writing its file and waiting for the disk to confirm
-        // it (AtomicFile), and while one worker waits another can draw. Workers take the next job in order.
-        int workers = Math.Min(jobs.Count, Environment.ProcessorCount + 1);
-        int next = -1;
-        var errors = new System.Collections.Concurrent.ConcurrentQueue<Exception>();
-        void Work()
-        {
-            int n;
-            while (errors.IsEmpty && (n = Interlocked.Increment(ref next)) < jobs.Count)
-            {
-                int i = starts[n];
-                try
-                {
-                    results[i] = jobs[i]();
-                }
-                catch (Exception e)
-                {
-                    errors.Enqueue(e);
-                }
-            }
-        }
-
-        var threads = new Thread[Math.Max(0, workers - 1)];
-        for (int t = 0; t < threads.Length; t++)
-        {
-            threads[t] = new Thread(Work) { IsBackground = true, Name = "chart worker" };
-            threads[t].Start();
-        }
-
-        Work();
-        foreach (var thread in threads)
-        {
-            thread.Join();
-        }
-
-        return errors.IsEmpty ? results : throw new AggregateException("A chart could not be drawn or written.", errors);
     }
 }

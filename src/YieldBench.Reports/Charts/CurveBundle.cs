@@ -70,7 +70,6 @@ public sealed class CurveBundle : IPlottable, IHasLegendText
     }
 
     /// <inheritdoc />
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public void Render(RenderPack rp)
     {
         ArgumentNullException.ThrowIfNull(rp);

@@ -12,7 +12,6 @@ internal struct FiniteBounds
     }
 
     /// <summary>Widens the bounds to the finite points of one series (x and y of equal length).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public void Add(double[] x, double[] y)
     {
         for (int i = 0; i < x.Length; i++)

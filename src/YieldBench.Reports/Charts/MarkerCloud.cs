@@ -93,7 +93,6 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
     }
 
     /// <inheritdoc />
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public void Render(RenderPack rp)
     {
         ArgumentNullException.ThrowIfNull(rp);

@@ -30,9 +30,8 @@ public static class ReviewCharts
         public const string FactorHistogram = "factor-histogram.png";
     }
 
-    /// <summary>Draws every review chart into <paramref name="folder"/> and returns them in placement order.</summary>
-    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder) =>
-        ChartImage.RenderAll(Plan(review, folder).Select(c => c.Job).ToArray());
+    /// <summary>Draws every review chart into <paramref name="folder"/> (one after another) and returns them in placement order.</summary>
+    public static IReadOnlyList<ChartFile> WriteAll(ReviewResult review, string folder) => PlannedChart.DrawAll(Plan(review, folder));
 
     /// <summary>The charts <see cref="WriteAll"/> draws, in placement order, each with its file known before it is drawn.</summary>
     internal static IReadOnlyList<PlannedChart> Plan(ReviewResult review, string folder)

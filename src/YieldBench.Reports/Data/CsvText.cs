@@ -31,7 +31,6 @@ public static class CsvText
     /// Streams the table as CSV to <paramref name="writer"/>, header first, cell by cell: no line or file is built as
     /// a string, so a 100,000-row table costs its bytes and not a copy of itself.
     /// </summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     public static void Write(ReportTable table, TextWriter writer)
     {
         ArgumentNullException.ThrowIfNull(table);
@@ -118,7 +117,6 @@ public static class CsvText
         t.TimeOfDay == TimeSpan.Zero && kind != CellKind.DateTime ? "yyyy-MM-dd" : "yyyy-MM-ddTHH:mm:ss";
 
     /// <summary>One cell as <see cref="Format"/> gives it, quoted as <see cref="WriteField"/> does, without building a string.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void WriteCell(TextWriter writer, object? cell, CellKind kind, Span<char> buffer)
     {
         int n;
@@ -168,7 +166,6 @@ public static class CsvText
     }
 
     /// <summary>A text cell: neutralised (leading apostrophe) and quoted when it holds a comma, quote or line break.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)]
     private static void WriteText(TextWriter writer, string text)
     {
         bool apostrophe = NeedsApostrophe(text);

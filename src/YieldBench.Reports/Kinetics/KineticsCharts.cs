@@ -47,10 +47,7 @@ public static class KineticsCharts
     /// <summary>As <see cref="Render"/>, with each chart's title for the workbook.</summary>
     public static IReadOnlyList<ChartFile> RenderFiles(ReviewResult review, string directory)
     {
-        var (charts, startFirst) = Plan(review, directory);
-
-        // The two charts of every lot grow with the lot count; they start first so that they do not run alone at the end.
-        return charts.Count == 0 ? [] : ChartImage.RenderAll(charts.Select(c => c.Job).ToArray(), startFirst);
+        return PlannedChart.DrawAll(Plan(review, directory).Charts);
     }
 
     /// <summary>
@@ -85,14 +82,10 @@ public static class KineticsCharts
             string path = Path.Combine(directory, $"kinetics-overview-{page + 1}.png");
             string title = OverviewTitle(page, pages, shown.Length, ordered.Length);
             var file = new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
-            charts.Add(new PlannedChart(file, () =>
+            charts.Add(new PlannedChart(file, stream =>
             {
-                using (var png = OverviewPng(chunk, title))
-                {
-                    ChartImage.WritePng(path, png);
-                }
-
-                return file;
+                using var png = OverviewPng(chunk, title);
+                stream.Write(png.AsSpan());
             }));
         }
 

@@ -38,6 +38,7 @@ public static class MethodsTable
         t.Add(["House-factor backtest", "Leave-one-season-out with two or more seasons, else leave-one-lot-out; MAE, bias, RMSE, 90th percentile |error|, share within label tolerance, share on the wrong side of " + review.HouseFactor.ThresholdAbv.ToString("0.0", CultureInfo.InvariantCulture) + " % v/v", "Cross-validation (docs/methods.md)"]);
         t.Add(["Recommendation", "Simplest candidate whose MAE is within one standard error of the best; intervals from the held-out errors' quantiles", "One-standard-error rule (Breiman et al. 1984; Hastie, Tibshirani & Friedman, Elements of Statistical Learning §7.10)"]);
         t.Add(["Label regime", review.HouseFactor.Regime.Name, review.HouseFactor.Regime.Source]);
+        t.Add(["Label class line a statement may not cross", review.HouseFactor.Regime.NoCrossingLineAbv is { } line ? line.ToString("0.##", CultureInfo.InvariantCulture) + " % v/v" : "none", review.HouseFactor.Regime.NoCrossingLineSource]);
         if (review.Kinetics is { } k)
         {
             var s = k.Settings;

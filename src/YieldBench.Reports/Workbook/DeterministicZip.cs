@@ -1,4 +1,5 @@
 using System.IO.Compression;
+using System.IO.Pipelines;
 using System.Text;
 using System.Text.RegularExpressions;
 
@@ -84,10 +85,7 @@ public static partial class DeterministicZip
                 }
                 else if (isStreamed)
                 {
-                    // Composed on this thread and deflated on another, in fixed-size chunks (the same bytes each run).
-                    using var pipe = new ChunkPipe(to);
-                    StreamedSheet.Write(from, pipe, streamed.Sheet, streamed.Bodies);
-                    pipe.Complete();
+                    WriteStreamedSheet(from, to, streamed.Sheet, streamed.Bodies);
                     spliced++;
                 }
                 else if (entry.FullName == "_rels/.rels")
@@ -116,6 +114,59 @@ public static partial class DeterministicZip
                 throw new InvalidOperationException("The package has no part " + string.Join(", ", missing) + " for the streamed tables.");
             }
         }
+    }
+
+    /// <summary>Bytes per write to a streamed sheet's compressor.</summary>
+    private const int DeflateChunk = 1 << 18;
+
+    /// <summary>
+    /// Composes a streamed sheet on this thread while another compresses it (a <see cref="Pipe"/> between them). The
+    /// compressor's output depends on the boundaries of the writes it is given, so it always gets writes of
+    /// <see cref="DeflateChunk"/> bytes (the last one shorter), whatever the pipe hands over: the bytes are the same
+    /// each run.
+    /// </summary>
+    private static void WriteStreamedSheet(Stream laidOut, Stream entry, string sheet, IReadOnlyList<DeferredBody> bodies)
+    {
+        var pipe = new Pipe(new PipeOptions(pauseWriterThreshold: 8 * DeflateChunk, resumeWriterThreshold: 4 * DeflateChunk, useSynchronizationContext: false));
+        var compress = Task.Run(() =>
+        {
+            try
+            {
+                using var composed = pipe.Reader.AsStream();
+                byte[] chunk = new byte[DeflateChunk];
+                int n;
+                while ((n = composed.ReadAtLeast(chunk, chunk.Length, throwOnEndOfStream: false)) > 0)
+                {
+                    entry.Write(chunk, 0, n);
+                }
+            }
+            catch (Exception e)
+            {
+                pipe.Reader.Complete(e);
+                throw;
+            }
+        });
+        try
+        {
+            using var writer = pipe.Writer.AsStream();
+            StreamedSheet.Write(laidOut, writer, sheet, bodies);
+        }
+        catch (Exception e)
+        {
+            pipe.Writer.Complete(e);
+            try
+            {
+                compress.Wait();
+            }
+            catch (AggregateException)
+            {
+                // The composing failure is the cause; the compressor's end followed from it.
+            }
+
+            throw;
+        }
+
+        compress.GetAwaiter().GetResult();
     }
 
     [GeneratedRegex("Id=\"R[0-9a-f]{16}\"")]

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Runtime.CompilerServices;
 using System.Text;
 using System.Xml;
 using ClosedXML.Excel;
@@ -135,7 +134,6 @@ public static class SheetLayout
     /// shows it, or its heading's longest word up to 24), and whether it holds text longer than
     /// <see cref="MaxColumnWidth"/>. One pass row by row: a large table's values are read once, in memory order.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double[] Widths, bool[] LongText) Measure(ReportTable table)
     {
         int cols = table.Columns.Count;
@@ -169,7 +167,6 @@ public static class SheetLayout
     /// <paramref name="text"/> without the characters XML 1.0 cannot carry (control characters other than tab and
     /// line breaks, unpaired surrogates, U+FFFE and U+FFFF), so no text can make the package unreadable.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static string XmlSafe(string text)
     {
         ArgumentNullException.ThrowIfNull(text);
@@ -204,7 +201,6 @@ public static class SheetLayout
     }
 
     // 1 for a valid character, 2 for a valid surrogate pair, 0 for a character XML cannot carry.
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int ValidAt(string text, int i)
     {
         char ch = text[i];
@@ -311,7 +307,6 @@ public static class SheetLayout
         return DisplayWidth(value, column, new NumberShape(column.EffectiveNumberFormat));
     }
 
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double DisplayWidth(object? value, ReportColumn column, NumberShape format) => value switch
     {
         null => 0,
@@ -352,7 +347,6 @@ public static class SheetLayout
             fixedFormat = "F" + decimals.ToString(CultureInfo.InvariantCulture);
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public double Width(double d)
         {
             double shown = Math.Round(Math.Abs(d) * (percent ? 100 : 1), decimals);

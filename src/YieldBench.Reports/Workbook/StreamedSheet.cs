@@ -1,6 +1,5 @@
 using System.Buffers;
 using System.Globalization;
-using System.Runtime.CompilerServices;
 using System.Text;
 using System.Xml;
 using System.Xml.Linq;
@@ -344,7 +343,6 @@ internal static class StreamedSheet
             writer.WriteNode(reader, defattr: true);
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Emit(DeferredBody body, Template? plainTemplate, Template? highlightedTemplate)
         {
             // The rows, millions of cells in a large review, go to the output as UTF-8 composed here: an XmlWriter's
@@ -377,10 +375,6 @@ internal static class StreamedSheet
     /// marked as meaningful where it would otherwise be trimmed; an empty value (or empty text) gives a cell only
     /// when it has a style, as ClosedXML writes it.
     /// </summary>
-    /// <remarks>
-    /// The methods run millions of times once per process, when the workbook is written: they are compiled optimised
-    /// at once (AggressiveOptimization) rather than starting as unoptimised code that the runtime replaces later.
-    /// </remarks>
     internal sealed class RowMarkup
     {
         /// <summary>Buffered bytes at which the caller should write them out.</summary>
@@ -445,7 +439,6 @@ internal static class StreamedSheet
         }
 
         /// <summary>Adds one row.</summary>
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Row(int rowNumber, PreparedTemplate template, object?[] cells)
         {
             ArgumentNullException.ThrowIfNull(template);
@@ -505,7 +498,6 @@ internal static class StreamedSheet
             return sb.ToString();
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Cell(int column, PreparedTemplate template, object? value)
         {
             switch (value)
@@ -573,7 +565,6 @@ internal static class StreamedSheet
             }
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Text(int column, PreparedTemplate template, string text)
         {
             // Inline strings are never read as formulas, whatever their first character.
@@ -610,7 +601,6 @@ internal static class StreamedSheet
             Append(cellClose);
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Start(int column, PreparedTemplate template)
         {
             Append(cellStarts[column]);
@@ -618,7 +608,6 @@ internal static class StreamedSheet
             Append(template.AfterReference[column]);
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Format<T>(T value)
             where T : ISpanFormattable
         {
@@ -646,7 +635,6 @@ internal static class StreamedSheet
             length += written;
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(byte b)
         {
             if (length == buffer.Length)
@@ -657,7 +645,6 @@ internal static class StreamedSheet
             buffer[length++] = b;
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(ReadOnlySpan<byte> bytes)
         {
             if (length + bytes.Length > buffer.Length)
@@ -669,7 +656,6 @@ internal static class StreamedSheet
             length += bytes.Length;
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void Append(ReadOnlySpan<char> text)
         {
             int most = Utf8.GetMaxByteCount(text.Length);

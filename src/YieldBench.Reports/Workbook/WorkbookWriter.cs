@@ -77,20 +77,6 @@ public static class WorkbookWriter
     internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, string path) =>
         AtomicFile.Write(path, stream => Finish(layout, charts, includePictures: true, stream));
 
-    /// <summary>
-    /// As <see cref="Write(LaidOutWorkbook, IReadOnlyList{ChartFile}, string)"/> for charts that may still be being
-    /// drawn: <paramref name="pictureBytes"/> gives chart i's PNG once it exists (waiting for it), and is asked only
-    /// when the package reaches that picture's part, after every sheet, so the sheets are written meanwhile.
-    /// <paramref name="beforeReplacing"/> runs once the package is complete and before it replaces the file; when it
-    /// throws, the file is left as it was.
-    /// </summary>
-    internal static void Write(LaidOutWorkbook layout, IReadOnlyList<ChartFile> charts, Func<int, byte[]> pictureBytes, Action beforeReplacing, string path) =>
-        AtomicFile.Write(path, stream =>
-        {
-            Finish(layout, charts, includePictures: true, stream, pictureBytes);
-            beforeReplacing();
-        });
-
     /// <summary>Writes the workbook atomically to <paramref name="path"/>.</summary>
     /// <remarks>The package goes straight into the file as it is compressed (the bytes of <see cref="Build(ReviewResult, IReadOnlyList{ChartFile}, bool)"/>).</remarks>
     public static void Write(ReviewResult review, IReadOnlyList<ChartFile> charts, string path)

@@ -28,15 +28,18 @@ public class BacktestTests
         // When they are scored against the US regime and the 14 % threshold
         var m = BacktestMetrics.Score(preds, LabelRegime.UnitedStates, 14.0);
 
-        // Then every metric is the hand value; lots 5 and 6 cross 14 %, so 4 of 6 meet the US rule and 2 of 6 are on the wrong side
+        // Then every metric is the hand value; every lot is within its tolerance and none crosses the 16 % class line, so
+        // 6 of 6 meet the US rule; lots 5 and 6 cross 14 %, so 2 of 6 are on the wrong side of the threshold, and with the
+        // class line set to 14 % (the rule before 2018) only 4 of 6 would meet it
         Assert.Equal(6, m.Lots);
         Assert.Equal(0.416666666667, m.Mae, 1e-9);
         Assert.Equal(0.104615698843, m.MaeStandardError, 1e-9);
         Assert.Equal(-0.116666666667, m.Bias, 1e-9);
         Assert.Equal(0.477842372894, m.Rmse, 1e-9);
         Assert.Equal(0.7, m.P90AbsoluteError, 1e-9);
-        Assert.Equal(4.0 / 6, m.ShareWithinTolerance, 1e-12);
+        Assert.Equal(6.0 / 6, m.ShareWithinTolerance, 1e-12);
         Assert.Equal(2.0 / 6, m.ShareWrongSideOfThreshold, 1e-12);
+        Assert.Equal(4.0 / 6, BacktestMetrics.Score(preds, LabelRegime.UnitedStates.WithNoCrossingLine(14.0), 14.0).ShareWithinTolerance, 1e-12);
     }
 
     [Fact]

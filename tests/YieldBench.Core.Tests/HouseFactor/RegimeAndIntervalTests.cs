@@ -5,15 +5,40 @@ namespace YieldBench.Core.Tests.HouseFactor;
 public class RegimeAndIntervalTests
 {
     [Theory]
-    [InlineData(12.6, 13.9, true)] // within 1.5 at or below 14 (27 CFR 4.36)
-    [InlineData(13.0, 14.6, false)] // beyond 1.5, and crosses 14
-    [InlineData(13.9, 14.1, false)] // within 1.5 but crosses the 14 % boundary ([memory] boundary)
+    [InlineData(12.6, 13.9, true)] // within 1.5 at or below 14 (27 CFR 4.36(b))
+    [InlineData(13.0, 14.6, false)] // beyond 1.5
+    [InlineData(13.9, 14.1, true)] // within 1.5; crossing 14 % no longer changes the tax class (26 U.S.C. 5041(b) since 2018)
     [InlineData(12.0, 13.5, true)] // exactly 1.5
     [InlineData(14.5, 15.4, true)] // within 1.0 above 14
     [InlineData(14.5, 15.6, false)] // beyond 1.0 above 14
-    public void The_US_regime_applies_its_two_tolerances_and_the_14_percent_boundary(double stated, double actual, bool accepted)
+    [InlineData(15.5, 16.5, false)] // the TTB bulletin's own example: labelled 15.5 % may not contain 16.5 % (crosses 16)
+    [InlineData(15.8, 16.2, false)] // within 1.0 but crosses the 16 % tax-class line
+    [InlineData(16.2, 16.9, true)] // both above 16
+    public void The_US_regime_switches_tolerance_at_14_percent_and_may_not_cross_the_16_percent_class_line(double stated, double actual, bool accepted)
     {
         Assert.Equal(accepted, LabelRegime.UnitedStates.Accepts(stated, actual));
+    }
+
+    [Fact]
+    public void The_class_line_is_a_setting_of_the_regime_with_its_source()
+    {
+        // Given the US regime as built in, and with the line set back to 14 % (the rule before 2018) or removed
+        var us = LabelRegime.UnitedStates;
+        var before2018 = us.WithNoCrossingLine(14.0);
+        var none = us.WithNoCrossingLine(null);
+
+        // Then the default line is 16 % with its sources, each version says local rules must be confirmed, and the line
+        // decides whether 13.9 stated / 14.1 actual passes; the tolerance still switches at 14
+        Assert.Equal(16.0, us.NoCrossingLineAbv);
+        Assert.Contains("26 U.S.C. 5041(b)", us.NoCrossingLineSource, StringComparison.Ordinal);
+        Assert.Contains("27 CFR 4.36(b)", us.Source, StringComparison.Ordinal);
+        Assert.All(new[] { us, before2018, LabelRegime.EuropeanUnion }, r => Assert.Contains(LabelRegime.ConfirmLocally, r.Source, StringComparison.Ordinal));
+        Assert.True(us.Accepts(13.9, 14.1));
+        Assert.False(before2018.Accepts(13.9, 14.1));
+        Assert.Equal("United States (TTB), class line 14 %", before2018.Name);
+        Assert.True(none.Accepts(15.8, 16.2));
+        Assert.False(none.Accepts(14.5, 15.6));
+        Assert.Throws<ArgumentOutOfRangeException>(() => us.WithNoCrossingLine(0));
     }
 
     [Theory]

@@ -16,7 +16,7 @@ public sealed class LotReviewTests
     /// An invented cellar of three strains (ST-A, ST-B, ST-C) over two seasons: L010 holds more alcohol than its sugar
     /// can give, L005 did not finish, and two lots have logs (L005 stalls at 10.6 °Brix; L020 runs through 41 °C).
     /// </summary>
-    private static readonly Lazy<ReviewResult> Sample = new(() =>
+    internal static readonly Lazy<ReviewResult> Sample = new(() =>
     {
         var lots = new List<Lot>();
         var rng = new Random(7);

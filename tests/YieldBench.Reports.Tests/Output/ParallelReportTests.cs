@@ -6,6 +6,7 @@ using YieldBench.Core.Units;
 using YieldBench.Reports.Charts;
 using YieldBench.Reports.Data;
 using YieldBench.Reports.Kinetics;
+using YieldBench.Reports.Output;
 using YieldBench.Reports.Tables;
 using YieldBench.Reports.Tests.Fixtures;
 using YieldBench.Reports.Tests.Kinetics;
@@ -14,8 +15,8 @@ using YieldBench.Reports.Workbook;
 namespace YieldBench.Reports.Tests.Output;
 
 /// <summary>
-/// ReportWriter makes the data files, the charts and the workbook's layout side by side; these tests hold it to the
-/// bytes the writers give when each is run on its own, one after another.
+/// The report pipeline runs the parts' jobs side by side into a staging folder and swaps it in: these tests hold it to
+/// the bytes the writers give when each is run on its own, and to a report folder that is whole or untouched.
 /// </summary>
 public sealed class ParallelReportTests
 {
@@ -71,22 +72,24 @@ public sealed class ParallelReportTests
             ["data/house-factor.json"] = Utf8NoBom.GetBytes(HouseFactorJson.Write(review.HouseFactor)),
             ["data/kinetics.csv"] = Utf8NoBom.GetBytes(Csv(w => KineticsCsv.Write(review.Kinetics!, w))),
             [ReportWriter.WorkbookName] = WorkbookWriter.Build(review, alone),
+            [ReportWriter.PageName] = Utf8NoBom.GetBytes(YieldBench.Reports.Html.HtmlReport.Render(review)),
         };
         foreach (var chart in alone)
         {
             expected["charts/" + Path.GetFileName(chart.Path)] = File.ReadAllBytes(chart.Path);
         }
 
-        // Then it wrote exactly those files, each with the same bytes, listed in order, after the two steps in order
-        Assert.Equal(expected.Keys.Order(StringComparer.Ordinal), output.Files);
+        // Then it wrote exactly those files (and the manifest), each with the same bytes, listed in order, after the two steps in order
+        Assert.Equal(expected.Keys.Append(ReportWriter.ManifestName).Order(StringComparer.Ordinal), output.Files);
+        Assert.Equal(ReportWriter.Files(review), output.Files);
         foreach (var (relative, bytes) in expected)
         {
             Assert.True(bytes.AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(output.Folder, relative))), relative + " differs");
         }
 
-        Assert.Equal([ReportWriter.ParallelStep, ReportWriter.WorkbookStep], steps);
+        Assert.Equal([ReportPipeline.WriteStep, ReportPipeline.SwapStep], steps);
         Assert.Equal(
-            [ReportWriter.ManifestName, .. output.Files],
+            [ReportWriter.ManifestName, .. output.Files.Where(f => f != ReportWriter.ManifestName)],
             File.ReadAllText(Path.Combine(output.Folder, ReportWriter.ManifestName)).Split('\n', StringSplitOptions.RemoveEmptyEntries));
     }
 
@@ -131,43 +134,139 @@ public sealed class ParallelReportTests
     }
 
     [Fact]
-    public void A_failing_data_file_fails_the_report_after_every_other_step_has_stopped()
+    public void A_failing_part_leaves_the_previous_report_as_it_was_and_no_staging_folder()
     {
-        // Given an output folder where the data folder cannot be made (a file stands in its place)
+        // Given a report written once, and its files' bytes
         using var temp = new TempFolder();
         string folder = temp["report"];
-        Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "data"), "in the way");
+        var review = ReviewWithLogs();
+        ReportWriter.Write(review, folder);
+        var before = Snapshot(folder);
 
-        // When the report is written, it fails with the file system's error, not a wrapped one
-        Assert.ThrowsAny<IOException>(() => ReportWriter.Write(ReviewWithLogs(), folder));
+        // When it is written again with a part that fails after the others have begun
+        var parts = ReportWriter.Parts().Append(new FailingPart("data/extra.csv", waitFor: null)).ToArray();
+        var error = Assert.Throws<IOException>(() => ReportPipeline.Write(review, folder, parts));
 
-        // Then no workbook or manifest was written, and no temporary file is left behind by any step
-        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.WorkbookName)));
-        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.ManifestName)));
-        Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
+        // Then the failure is the part's own, the folder holds the earlier report byte for byte, and nothing else was left beside it
+        Assert.Equal("disk full", error.Message);
+        Assert.Equal(before, Snapshot(folder));
+        Assert.Equal(["report"], Directory.GetFileSystemEntries(temp.Path).Select(Path.GetFileName));
     }
 
     [Fact]
-    public async Task A_failing_chart_fails_the_report_without_a_workbook_and_nothing_waits_for_its_picture()
+    public async Task A_failing_chart_fails_the_report_and_nothing_waits_for_its_picture()
     {
-        // Given an output folder where the charts folder cannot be made (a file stands in its place), while the
-        // workbook is laid out and its sheets written beside the charts, waiting only for their pictures
+        // Given the parts with the charts part replaced by one that declares the charts and fails before writing any,
+        // while the workbook is laid out beside it and waits for their pictures
         using var temp = new TempFolder();
         string folder = temp["report"];
-        Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "charts"), "in the way");
+        var review = ReviewWithLogs();
+        var parts = ReportWriter.Parts().Where(p => p is not Parts.ChartsPart).Append(new FailingCharts()).ToArray();
 
-        // When the report is written, it fails (and returns: no step is left waiting for a chart that never came)
-        var write = Task.Run(() => ReportWriter.Write(ReviewWithLogs(), folder));
+        // When the report is written, it fails (and returns: no job is left waiting for a chart that never came)
+        var write = Task.Run(() => ReportPipeline.Write(review, folder, parts));
         var ended = await Task.WhenAny(write, Task.Delay(TimeSpan.FromMinutes(2)));
         Assert.Same(write, ended);
-        await Assert.ThrowsAnyAsync<Exception>(() => write);
+        await Assert.ThrowsAsync<IOException>(() => write);
 
-        // Then no workbook or manifest was written, and no temporary file is left behind by any step
-        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.WorkbookName)));
-        Assert.False(File.Exists(Path.Combine(folder, ReportWriter.ManifestName)));
-        Assert.Empty(Directory.GetFiles(folder, "*.tmp", SearchOption.AllDirectories));
+        // Then no report folder was made and no staging folder is left
+        Assert.Empty(Directory.GetFileSystemEntries(temp.Path));
+    }
+
+    [Fact]
+    public void After_a_kill_the_next_run_puts_the_previous_report_back_and_clears_what_the_killed_run_left()
+    {
+        // Given what a run killed in the middle of its swap leaves: the earlier report renamed aside, the report folder
+        // missing, and a staging folder of another killed run
+        using var temp = new TempFolder();
+        string folder = temp["report"];
+        var review = ReviewWithLogs();
+        ReportWriter.Write(review, folder);
+        File.WriteAllText(Path.Combine(folder, "my-notes.txt"), "mine");
+        Directory.Move(folder, temp[".report.yieldbench-previous-0123"]);
+        Directory.CreateDirectory(temp[".report.yieldbench-staging-4567/data"]);
+        File.WriteAllText(temp[".report.yieldbench-staging-4567/data/lots.csv"], "half");
+
+        // When the next run writes the report
+        var output = ReportWriter.Write(review, folder);
+
+        // Then the report is whole, the user's file of the earlier folder is kept, and nothing of the killed runs is left
+        Assert.Equal(ReportWriter.Files(review), output.Files);
+        Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "my-notes.txt")));
+        Assert.Equal(["report"], Directory.GetFileSystemEntries(temp.Path).Select(Path.GetFileName));
+    }
+
+    [Fact]
+    public void A_folder_of_files_this_tool_did_not_write_is_refused_and_left_untouched()
+    {
+        // Given a folder holding a user's own workbook and lots file, with no manifest of ours
+        using var temp = new TempFolder();
+        string folder = temp["mine"];
+        Directory.CreateDirectory(Path.Combine(folder, "data"));
+        File.WriteAllText(Path.Combine(folder, "report.xlsx"), "my workbook");
+        File.WriteAllText(Path.Combine(folder, "data", "lots.csv"), "my lots");
+
+        // When a report is written there, it is refused before anything is written
+        var error = Assert.Throws<ReportFolderException>(() => ReportWriter.Write(ReviewWithLogs(), folder));
+
+        // Then the message says why, and the user's files are as they were, with nothing beside the folder
+        Assert.Contains("holds files this tool did not write", error.Message, StringComparison.Ordinal);
+        Assert.Equal("my workbook", File.ReadAllText(Path.Combine(folder, "report.xlsx")));
+        Assert.Equal("my lots", File.ReadAllText(Path.Combine(folder, "data", "lots.csv")));
+        Assert.Equal(["mine"], Directory.GetFileSystemEntries(temp.Path).Select(Path.GetFileName));
+    }
+
+    [Fact]
+    public void A_file_of_the_user_s_where_a_report_file_would_go_is_refused()
+    {
+        // Given a report folder of ours (its manifest) in which the user put a file where a chart of this report goes
+        using var temp = new TempFolder();
+        string folder = temp["report"];
+        var review = ReviewWithLogs();
+        ReportWriter.Write(review, folder);
+        string manifest = Path.Combine(folder, ReportWriter.ManifestName);
+        File.WriteAllLines(manifest, File.ReadAllLines(manifest).Where(l => l != "charts/factor-by-strain.png").ToArray());
+        File.WriteAllText(Path.Combine(folder, "charts", "factor-by-strain.png"), "my picture");
+
+        // When the report is written again, it is refused and the user's file is kept
+        var error = Assert.Throws<ReportFolderException>(() => ReportWriter.Write(review, folder));
+        Assert.Contains("charts/factor-by-strain.png", error.Message, StringComparison.Ordinal);
+        Assert.Equal("my picture", File.ReadAllText(Path.Combine(folder, "charts", "factor-by-strain.png")));
+    }
+
+    private static Dictionary<string, string> Snapshot(string folder) =>
+        Directory.GetFiles(folder, "*", SearchOption.AllDirectories)
+            .ToDictionary(f => Path.GetRelativePath(folder, f), f => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(File.ReadAllBytes(f))), StringComparer.Ordinal);
+
+    /// <summary>A part that declares one file and fails before writing it (optionally after another part's file is written).</summary>
+    private sealed class FailingPart(string file, string? waitFor) : IReportPart
+    {
+        public string Name => "failing";
+
+        public IReadOnlyList<string> Files(ReviewResult review) => [file];
+
+        public IReadOnlyList<Action> Jobs(PartContext context) =>
+        [
+            () =>
+            {
+                if (waitFor is not null)
+                {
+                    context.Read(waitFor);
+                }
+
+                throw new IOException("disk full");
+            },
+        ];
+    }
+
+    /// <summary>Declares the charts of the real charts part and fails before drawing any.</summary>
+    private sealed class FailingCharts : IReportPart
+    {
+        public string Name => "charts";
+
+        public IReadOnlyList<string> Files(ReviewResult review) => new Parts.ChartsPart().Files(review);
+
+        public IReadOnlyList<Action> Jobs(PartContext context) => [() => throw new IOException("no room for charts")];
     }
 
     private static string Csv(Action<TextWriter> write)

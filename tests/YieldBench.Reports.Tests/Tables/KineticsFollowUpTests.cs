@@ -3,6 +3,7 @@ using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
 using YieldBench.Core.Review.Strains;
 using YieldBench.Core.Units;
+using YieldBench.Reports.Output;
 using YieldBench.Reports.Tables;
 using YieldBench.Reports.Tests.Fixtures;
 using YieldBench.Reports.Tests.Kinetics;

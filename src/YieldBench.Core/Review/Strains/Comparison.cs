@@ -243,15 +243,19 @@ internal static class Comparison
         sentences.Add(Invariant($"Adjusted to {adjusted.ReferenceBrix:0.0} °Brix (the pooled median){(adjusted.WithVessel ? " and the cellar's vessel mix" : string.Empty)}, the factors are: {string.Join("; ", parts)}."));
         foreach (var d in adjusted.Differences)
         {
-            if (d.Interval.Contains(0))
-            {
-                sentences.Add(Invariant($"{d.First} and {d.Second} make the same alcohol from the same sugar within the noise (difference {R2(d.AbvDifference):+0.00;-0.00;0.00} % v/v, interval {R2(d.Interval.Low):0.00} to {R2(d.Interval.High):0.00})."));
-            }
-            else
-            {
-                string more = d.AbvDifference > 0 ? d.First : d.Second, less = d.AbvDifference > 0 ? d.Second : d.First;
-                sentences.Add(Invariant($"{more} makes {Math.Abs(d.AbvDifference):0.00} % v/v more alcohol than {less} from the same starting sugar (interval {Math.Min(Math.Abs(d.Interval.Low), Math.Abs(d.Interval.High)):0.00} to {Math.Max(Math.Abs(d.Interval.Low), Math.Abs(d.Interval.High)):0.00}) — larger than the noise."));
-            }
+            sentences.Add(DifferenceSentence(d));
         }
+    }
+
+    /// <summary>An adjusted difference in plain words: which strain makes how much more alcohol from the same sugar, or that they are the same within the noise.</summary>
+    internal static string DifferenceSentence(AdjustedDifference d)
+    {
+        if (d.Interval.Contains(0))
+        {
+            return Invariant($"{d.First} and {d.Second} make the same alcohol from the same sugar within the noise (difference {R2(d.AbvDifference):+0.00;-0.00;0.00} % v/v, interval {R2(d.Interval.Low):0.00} to {R2(d.Interval.High):0.00}).");
+        }
+
+        string more = d.AbvDifference > 0 ? d.First : d.Second, less = d.AbvDifference > 0 ? d.Second : d.First;
+        return Invariant($"{more} makes {Math.Abs(d.AbvDifference):0.00} % v/v more alcohol than {less} from the same starting sugar (interval {Math.Min(Math.Abs(d.Interval.Low), Math.Abs(d.Interval.High)):0.00} to {Math.Max(Math.Abs(d.Interval.Low), Math.Abs(d.Interval.High)):0.00}) — larger than the noise.");
     }
 }

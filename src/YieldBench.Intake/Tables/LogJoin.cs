@@ -1,0 +1,167 @@
+using System.Globalization;
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake;
+
+/// <summary>
+/// Joins log readings into one log per lot (by lot id and season), leaves out readings dated implausibly far from
+/// their lot's season, and reports logs that match no lot, logs too short to measure, and lots without a log.
+/// </summary>
+internal static partial class LogJoin
+{
+    /// <summary>Most days a reading may lie from the middle of its log when no season places it.</summary>
+    public const int MaxDaysFromLogMiddle = 366;
+
+    public static List<FermentationLog> Join(IntakeRun run)
+    {
+        var logs = new List<FermentationLog>();
+        var index = new Dictionary<(string, int?), List<LogReading>>();
+        // Finished and running lots alike (a run reads one kind or the other).
+        var recorded = run.Lots.Select(l => (l.LotId, l.Season, l.Source)).Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.Source))).ToList();
+        var knownIds = recorded.Select(l => l.LotId).ToHashSet(StringComparer.Ordinal);
+        string? lastId = null;
+        int? lastSeason = null;
+        List<LogReading>? lastList = null;
+        foreach (var (rawId, season, reading) in run.Readings)
+        {
+            // A log's readings mostly follow one another: the same lot and season as the reading before is its list.
+            if (lastList is not null && season == lastSeason && string.Equals(rawId, lastId, StringComparison.Ordinal))
+            {
+                lastList.Add(reading);
+                continue;
+            }
+
+            // A log sheet named "Lot 23-004" (or "Batch #7") is the log of lot 23-004 when no lot bears the full name.
+            string lotId = rawId;
+            if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
+            {
+                lotId = rawId[m.Length..];
+            }
+
+            if (!index.TryGetValue((lotId, season), out var list))
+            {
+                index[(lotId, season)] = list = [];
+                logs.Add(new FermentationLog(lotId, season, list));
+            }
+
+            list.Add(reading);
+            (lastId, lastSeason, lastList) = (rawId, season, list);
+        }
+
+        logs = DropImplausibleDates(run, logs, recorded);
+        if (logs.Count == 0)
+        {
+            return logs;
+        }
+
+        var lotKeys = recorded.Select(l => (l.LotId, (int?)l.Season)).ToHashSet();
+        var lotIds = knownIds;
+
+        // Lots with a log, by lot id and season (what a lot's key is made of).
+        var withLog = new HashSet<(string, int)>();
+        ILookup<string, (string LotId, int Season, SourceRef? Source)>? lotsById = null;
+        bool Matched(FermentationLog log) => log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
+        foreach (var log in logs)
+        {
+            bool matched = Matched(log);
+            var first = log.Readings[0].Source!;
+            if (!matched)
+            {
+                run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
+                    IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
+                continue;
+            }
+
+            if (log.Season is { } season)
+            {
+                // Lot keys are unique, so this is the one lot of that id and season.
+                withLog.Add((log.LotId, season));
+                continue;
+            }
+
+            lotsById ??= recorded.ToLookup(l => l.LotId, StringComparer.Ordinal);
+            foreach (var lot in lotsById[log.LotId])
+            {
+                withLog.Add((lot.LotId, lot.Season));
+            }
+        }
+
+        foreach (var log in logs.Where(l => Matched(l) && l.Readings.Select(r => r.Timestamp).Distinct().Count() < 2))
+        {
+            var first = log.Readings[0].Source!;
+            run.Sink.Warning(first.File, first.Sheet, first.Row, null, log.LotId, IssueCodes.LogTooShort, IntakeMessages.LogTooShort(log.Name, log.Readings.Count));
+        }
+
+        foreach (var group in recorded.Where(l => !withLog.Contains((l.LotId, l.Season))).GroupBy(l => l.Season).OrderBy(g => g.Key))
+        {
+            var ids = group.Select(l => l.LotId).ToList();
+            var src = group.First().Source!;
+            run.Sink.Warning(src.File, src.Sheet, null, null, null, IssueCodes.LotsWithoutLog, IntakeMessages.LotsWithoutLog(ids.Count, group.Key, ids.Take(10).ToList()));
+        }
+
+        return logs;
+    }
+
+    /// <summary>
+    /// Readings dated outside the year before to the year after their lot's season (or, for a log whose lot and
+    /// season are unknown, more than <see cref="MaxDaysFromLogMiddle"/> days from its middle reading) are left out
+    /// with an error, and their sheet's accounting moves them from used to reported.
+    /// </summary>
+    private static List<FermentationLog> DropImplausibleDates(IntakeRun run, List<FermentationLog> logs, List<(string LotId, int Season, SourceRef? Source)> recorded)
+    {
+        var seasonsById = recorded.ToLookup(l => l.LotId, l => l.Season, StringComparer.Ordinal);
+        var kept = new List<FermentationLog>(logs.Count);
+        foreach (var log in logs)
+        {
+            int[] seasons = log.Season is { } s ? [s] : seasonsById[log.LotId].ToArray();
+            DateTime middle = log.Readings.Select(r => r.Timestamp).Order().ElementAt(log.Readings.Count / 2);
+            bool Plausible(DateTime t) => seasons.Length > 0
+                ? t.Year >= seasons.Min() - 1 && t.Year <= seasons.Max() + 1
+                : Math.Abs((t - middle).TotalDays) <= MaxDaysFromLogMiddle;
+            if (log.Readings.All(r => Plausible(r.Timestamp)))
+            {
+                kept.Add(log);
+                continue;
+            }
+
+            string basis = seasons.Length > 0
+                ? "season " + string.Join(" or ", seasons.Order().Select(y => y.ToString(CultureInfo.InvariantCulture)))
+                : "the log's middle reading of " + middle.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+            var good = new List<LogReading>();
+            foreach (var reading in log.Readings)
+            {
+                if (Plausible(reading.Timestamp))
+                {
+                    good.Add(reading);
+                    continue;
+                }
+
+                var src = reading.Source!;
+                string shown = reading.Timestamp.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture);
+                run.Sink.Error(src.File, src.Sheet, src.Row, null, shown, IssueCodes.ReadingDateImplausible, IntakeMessages.ReadingDateImplausible(log.Name, shown, basis));
+                MoveToReported(run, src);
+            }
+
+            if (good.Count > 0)
+            {
+                kept.Add(log with { Readings = good });
+            }
+        }
+
+        return kept;
+    }
+
+    /// <summary>Counts a reading that was used as reported in its sheet's accounting.</summary>
+    private static void MoveToReported(IntakeRun run, SourceRef source)
+    {
+        int i = run.Accounts.FindIndex(a => a.File == source.File && a.Sheet == source.Sheet && a.Kind == "log");
+        if (i >= 0)
+        {
+            var a = run.Accounts[i];
+            run.Accounts[i] = a with { LogReadingsUsed = a.LogReadingsUsed - 1, RowsReported = a.RowsReported + 1 };
+        }
+    }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"^(lot|batch)\s*(#|no\.?|nr\.?|number)?\s*[:#\-]?\s*", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant)]
+    private static partial System.Text.RegularExpressions.Regex LotWordPrefix();
+}
