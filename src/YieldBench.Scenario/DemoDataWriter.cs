@@ -27,14 +27,46 @@ public static class DemoDataWriter
             : $"tallowmere-{season.Year}-lots.csv";
     }
 
-    /// <summary>Path (under the demo folder, '/'-separated) of the harvest-in-progress workbook.</summary>
-    public const string RunningFileName = "running/tallowmere-2026-harvest-in-progress.xlsx";
+    /// <summary>
+    /// Folder of the harvest in progress, beside the demo folder (not inside it: a folder given to intake is read with
+    /// its subfolders, and lots still fermenting are no finished lots for <c>review</c>).
+    /// </summary>
+    public const string RunningFolderName = "demo-running";
 
-    /// <summary>Every file name <see cref="Write"/> produces, in order ('/'-separated paths under the demo folder).</summary>
+    /// <summary>File name of the harvest-in-progress workbook in <see cref="RunningFolderName"/>.</summary>
+    public const string RunningFileName = "tallowmere-2026-harvest-in-progress.xlsx";
+
+    /// <summary>Every file name <see cref="Write"/> produces in the demo folder, in order.</summary>
     public static IReadOnlyList<string> FileNames(ScenarioData scenario)
     {
         ArgumentNullException.ThrowIfNull(scenario);
-        return [.. scenario.Seasons.Select(s => SeasonFileName(s.Profile)), LogsFileName, .. scenario.Running is null ? Array.Empty<string>() : [RunningFileName], "README.md"];
+        return [.. scenario.Seasons.Select(s => SeasonFileName(s.Profile)), LogsFileName, "README.md"];
+    }
+
+    /// <summary>
+    /// Writes the harvest in progress (when the scenario has one) into <paramref name="directory"/> (created if
+    /// missing); returns the paths written.
+    /// </summary>
+    public static IReadOnlyList<string> WriteRunning(ScenarioData scenario, string directory)
+    {
+        ArgumentNullException.ThrowIfNull(scenario);
+        var written = new List<string>();
+        foreach (var (name, bytes) in RenderRunning(scenario))
+        {
+            Directory.CreateDirectory(directory);
+            string path = Path.Combine(directory, name);
+            File.WriteAllBytes(path, bytes);
+            written.Add(path);
+        }
+
+        return written;
+    }
+
+    /// <summary>The harvest-in-progress files' names and bytes (none when the scenario has no harvest in progress).</summary>
+    public static IReadOnlyList<(string Name, byte[] Bytes)> RenderRunning(ScenarioData scenario)
+    {
+        ArgumentNullException.ThrowIfNull(scenario);
+        return scenario.Running is { } running ? [(RunningFileName, RunningWorkbook(scenario, running))] : [];
     }
 
     /// <summary>Writes every demo file into <paramref name="directory"/> (created if missing); returns the paths written.</summary>
@@ -45,8 +77,7 @@ public static class DemoDataWriter
         var written = new List<string>();
         foreach (var (name, bytes) in Render(scenario))
         {
-            string path = Path.Combine(directory, name.Replace('/', Path.DirectorySeparatorChar));
-            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
+            string path = Path.Combine(directory, name);
             File.WriteAllBytes(path, bytes);
             written.Add(path);
         }
@@ -68,10 +99,6 @@ public static class DemoDataWriter
         }
 
         files.Add((LogsFileName, LogsWorkbook(scenario)));
-        if (scenario.Running is { } running)
-        {
-            files.Add((RunningFileName, RunningWorkbook(scenario, running)));
-        }
 
         files.Add(("README.md", Encoding.UTF8.GetBytes(Readme(scenario))));
         return files;
@@ -445,7 +472,8 @@ public static class DemoDataWriter
         {
             L($"## The harvest in progress ({running.Season})");
             L();
-            L($"`{RunningFileName}` is the cellar's working book of the next season, caught on {running.Now.ToString("d MMMM yyyy", Inv)} after the evening round:");
+            L($"`../{RunningFolderName}/{RunningFileName}` (beside this folder, so that `review` never takes its lots for finished ones) is the");
+            L($"cellar's working book of the next season, caught on {running.Now.ToString("d MMMM yyyy", Inv)} after the evening round:");
             L("sheet \"Lots in progress\" lists the lots still fermenting (no final alcohol yet), sheet \"Logs " + running.Season.ToString(Inv) + "\" their readings so far.");
             L("`yieldbench forecast` with no inputs reads it with the three seasons above as history. Its lots are made the same way");
             L($"as the history's; {Catalog.TrialStrain.Code} is a strain on trial with no history (lag {Catalog.TrialStrain.LagHours.ToString("0", Inv)} h, maximum rate {Catalog.TrialStrain.MaxRateBrixPerHourAt25C.ToString("0.00", Inv)} °Brix/h at 25 °C).");

@@ -25,9 +25,9 @@ public class DemoDataReproductionTests
     [Fact]
     public void Demo_folder_holds_only_the_generated_files_and_the_git_attributes()
     {
-        // Given the committed demo folder and its subfolders ('/'-separated names, as the generator gives them)
+        // Given the committed demo folder and its subfolders
         var present = Directory.GetFiles(RepoPaths.DemoData, "*", SearchOption.AllDirectories)
-            .Select(f => Path.GetRelativePath(RepoPaths.DemoData, f).Replace(Path.DirectorySeparatorChar, '/'))
+            .Select(f => Path.GetRelativePath(RepoPaths.DemoData, f))
             .Order(StringComparer.Ordinal)
             .ToArray();
 
@@ -38,7 +38,21 @@ public class DemoDataReproductionTests
         Assert.Equal(expected, present);
     }
 
-    private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name.Replace('/', Path.DirectorySeparatorChar));
+    private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name);
+
+    [Fact]
+    public void Generator_reproduces_the_committed_harvest_in_progress_and_nothing_else_sits_beside_it()
+    {
+        // Given the harvest-in-progress files the generator renders, and the committed folder beside demo-data
+        string folder = Path.Combine(RepoPaths.Root, DemoDataWriter.RunningFolderName);
+        var rendered = DemoDataWriter.RenderRunning(ScenarioGenerator.Demo());
+        var present = Directory.GetFiles(folder, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(folder, f)).Order(StringComparer.Ordinal).ToArray();
+
+        // Then each matches byte for byte, and the folder holds them and its git attributes only
+        Assert.NotEmpty(rendered);
+        Assert.All(rendered, f => Assert.True(File.ReadAllBytes(Path.Combine(folder, f.Name)).AsSpan().SequenceEqual(f.Bytes), f.Name + " differs from the generator's"));
+        Assert.Equal(rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal), present);
+    }
 
     [Fact]
     public void Two_renderings_of_the_demo_give_identical_bytes()

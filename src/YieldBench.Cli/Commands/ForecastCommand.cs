@@ -4,6 +4,7 @@ using YieldBench.Core.Forecast;
 using YieldBench.Core.Lots;
 using YieldBench.Intake;
 using YieldBench.Reports.Forecast;
+using YieldBench.Reports.Output;
 
 namespace YieldBench.Cli.Commands;
 
@@ -17,8 +18,8 @@ internal static class ForecastCommand
     /// <summary>Default output folder.</summary>
     public const string DefaultOutput = "yieldbench-forecast";
 
-    /// <summary>The demo's harvest in progress, under the demo folder.</summary>
-    public const string DemoRunning = "demo-data/running";
+    /// <summary>The demo's harvest in progress, beside the demo folder.</summary>
+    public const string DemoRunning = "demo-running";
 
     /// <summary>Said when no inputs are given.</summary>
     public const string DemoNotice =
@@ -68,9 +69,10 @@ internal static class ForecastCommand
         if (history.Count == 0 && running.Count == 0)
         {
             string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
-            if (!Directory.Exists(Path.Combine(AppContext.BaseDirectory, DemoRunning)))
+            string demoRunning = Path.Combine(AppContext.BaseDirectory, DemoRunning);
+            if (!Directory.Exists(demo) || !Directory.Exists(demoRunning))
             {
-                context.Error.WriteLine($"No inputs given and the bundled demo data is missing ({demo}); give the history and --running files.");
+                context.Error.WriteLine($"No inputs given and the bundled demo data is missing ({demo}, {demoRunning}); give the history and --running files.");
                 return ExitCodes.Usage;
             }
 
@@ -91,7 +93,7 @@ internal static class ForecastCommand
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
-        if (ReviewCommand.OutputClash(history.Concat(running).Select(i => Path.GetFullPath(i, root)), outFolder) is { } clash)
+        if (ReportFolder.Problem(outFolder, history.Concat(running).Select(i => Path.GetFullPath(i, root))) is { } clash)
         {
             context.Error.WriteLine(clash);
             return ExitCodes.Usage;
@@ -105,7 +107,7 @@ internal static class ForecastCommand
         };
         var past = IntakeReader.Read(history, options);
         var now = IntakeReader.Read(running, options with { RunningLots = true });
-        if (ReviewCommand.OutputClash(past.Files.Concat(now.Files).Select(f => Path.GetFullPath(f.Path, root)), outFolder) is { } fileClash)
+        if (ReportFolder.Problem(outFolder, past.Files.Concat(now.Files).Select(f => Path.GetFullPath(f.Path, root))) is { } fileClash)
         {
             context.Error.WriteLine(fileClash);
             return ExitCodes.Usage;
@@ -129,8 +131,18 @@ internal static class ForecastCommand
             return ExitCodes.InputProblems;
         }
 
-        var written = ForecastOutput.Write(report, outFolder, past.Issues.Concat(now.Issues).ToArray());
-        foreach (var line in ConsoleLines(report, outFolder, written, context.WorkingDirectory))
+        ReportOutput written;
+        try
+        {
+            written = ForecastOutput.Write(report, outFolder, past.Issues.Concat(now.Issues).ToArray());
+        }
+        catch (ReportFolderException e)
+        {
+            context.Error.WriteLine(e.Message);
+            return ExitCodes.Usage;
+        }
+
+        foreach (var line in ConsoleLines(report, written, context.WorkingDirectory))
         {
             Say(line);
         }
@@ -166,7 +178,7 @@ internal static class ForecastCommand
     }
 
     /// <summary>The console's lines: the lots in plain words, the backtest in short, the basis, the files, the cautions.</summary>
-    internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, string outFolder, IReadOnlyList<string> written, string workingDirectory)
+    internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, ReportOutput written, string workingDirectory)
     {
         var lines = new List<string>();
         var seasons = report.Lots.Select(l => l.Course.Season).Distinct().Order().ToArray();
@@ -187,8 +199,8 @@ internal static class ForecastCommand
         }
 
         lines.Add(string.Empty);
-        string shown = Path.GetRelativePath(workingDirectory, outFolder);
-        int charts = written.Count(w => w.EndsWith(".png", StringComparison.Ordinal));
+        string shown = Path.GetRelativePath(workingDirectory, written.Folder);
+        int charts = written.Files.Count(w => w.EndsWith(".png", StringComparison.Ordinal));
         lines.Add($"Wrote {Path.Combine(shown, ForecastJson.FileName)}, {Path.Combine(shown, ForecastWorkbook.FileName)} and {charts} chart(s) in {Path.Combine(shown, ForecastOutput.ChartsFolder)}.");
         lines.Add("Cautions:");
         lines.AddRange(ForecastSentences.Cautions.Select(c => "  " + c));
