@@ -12,7 +12,8 @@ namespace YieldBench.Core.Forecast;
 /// <param name="Forecast">The forecast.</param>
 /// <param name="Line">Straight line through the last two readings.</param>
 /// <param name="StrainMedian">The strain's median course, no readings.</param>
-public sealed record BacktestCase(int Season, string LotId, string Target, int Readings, double Truth, ForecastValue Forecast, double Line, double StrainMedian)
+/// <param name="Colour">"red" or "white" (whites and rosés), the lot's colour bucket.</param>
+public sealed record BacktestCase(int Season, string LotId, string Target, int Readings, double Truth, ForecastValue Forecast, double Line, double StrainMedian, string Colour)
 {
     /// <summary>Absolute error of the forecast median.</summary>
     public double Error => Math.Abs(Forecast.Median - Truth);
@@ -34,7 +35,11 @@ public sealed record BacktestRow(
 /// <param name="Rows">One row per target and cut.</param>
 /// <param name="Cases">Every forecast scored.</param>
 /// <param name="Seasons">Seasons held out.</param>
-public sealed record BacktestResult(IReadOnlyList<BacktestRow> Rows, IReadOnlyList<BacktestCase> Cases, IReadOnlyList<int> Seasons);
+public sealed record BacktestResult(IReadOnlyList<BacktestRow> Rows, IReadOnlyList<BacktestCase> Cases, IReadOnlyList<int> Seasons)
+{
+    /// <summary>The same table for red lots and for white and rosé lots apart (whites ferment three times slower).</summary>
+    public IReadOnlyList<(string Colour, BacktestRow Row)> ByColour { get; init; } = [];
+}
 
 /// <summary>
 /// The honest measure: each season is held out in turn; the model learns from the other seasons; every held-out lot
@@ -96,6 +101,17 @@ public static class ForecastBacktest
             cases.AddRange(r);
         }
 
+        var byColour = new List<(string, BacktestRow)>();
+        foreach (var colour in new[] { "red", "white" })
+        {
+            byColour.AddRange(Table(cases.Where(c => c.Colour == colour).ToList(), settings).Select(r => (colour, r)));
+        }
+
+        return new BacktestResult(Table(cases, settings), cases, seasons) { ByColour = byColour };
+    }
+
+    private static List<BacktestRow> Table(List<BacktestCase> cases, ForecastSettings settings)
+    {
         var rows = new List<BacktestRow>();
         foreach (var target in Targets)
         {
@@ -122,7 +138,7 @@ public static class ForecastBacktest
             }
         }
 
-        return new BacktestResult(rows, cases, seasons);
+        return rows;
     }
 
     /// <summary>A forecast median used for scoring: an endless one is taken as 1000 h after the cut.</summary>
@@ -134,6 +150,7 @@ public static class ForecastBacktest
         var c = lot.Course;
         double cutAt = cut.SugarHours[^1];
         var med = model.MediansFor(c.Strain);
+        string colour = model.BucketOf(c);
         double firstAt = c.SugarHours[0];
         double Strain(double fromInoculation, double fromFirst) => c.FromInoculation ? fromInoculation : firstAt + fromFirst;
         double level = LoggedEvents.DepletionLevel(c, settings);
@@ -144,13 +161,13 @@ public static class ForecastBacktest
         if (lot.OneThirdHours is { } third && third > cutAt && f.OneThirdHours is { } ft)
         {
             double strain = Strain(med.OneThirdHours, med.OneThirdFromFirst);
-            yield return new BacktestCase(c.Season, c.LotId, "one_third", readings, third, Finite(ft, cutAt), Line(level, strain), strain);
+            yield return new BacktestCase(c.Season, c.LotId, "one_third", readings, third, Finite(ft, cutAt), Line(level, strain), strain, colour);
         }
 
         if (lot.DryHours is { } dry && dry > cutAt && f.DryHours is { } fd)
         {
             double strain = Strain(med.DryHours, med.DryFromFirst);
-            yield return new BacktestCase(c.Season, c.LotId, "dry", readings, dry, Finite(fd, cutAt), Line(settings.Kinetics.DryBrix, strain), strain);
+            yield return new BacktestCase(c.Season, c.LotId, "dry", readings, dry, Finite(fd, cutAt), Line(settings.Kinetics.DryBrix, strain), strain, colour);
         }
 
         double lastTemp = cut.TempHours.Length > 0 ? cut.TempHours[^1] : double.NegativeInfinity;
@@ -170,7 +187,7 @@ public static class ForecastBacktest
                 }
             }
 
-            yield return new BacktestCase(c.Season, c.LotId, "peak_temp", readings, peak, fp, line, med.PeakC);
+            yield return new BacktestCase(c.Season, c.LotId, "peak_temp", readings, peak, fp, line, med.PeakC, colour);
         }
     }
 }

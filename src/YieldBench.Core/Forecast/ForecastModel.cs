@@ -595,8 +595,22 @@ public sealed class ForecastModel
             mu += _betaMu[col];
             lag += _betaLag[col];
 
-            // The strain intercept's own uncertainty (it is an estimate from n lots).
-            double f = _inverse[col, col];
+            // The prediction's own uncertainty, xᵀ(XᵀX)⁻¹x times the lots' scatter (finite for a lot like the
+            // history's even where covariates and strains go together, as when each strain had one vessel type).
+            var x = new double[p0 + 2];
+            x[col] = 1;
+            x[p0] = xt;
+            x[p0 + 1] = xn;
+            double f = 0;
+            for (int i = 0; i < x.Length; i++)
+            {
+                for (int j = 0; j < x.Length; j++)
+                {
+                    f += x[i] * _inverse[i, j] * x[j];
+                }
+            }
+
+            f = Math.Clamp(f, 0, 1);
             vmm += f * Within.Vmm;
             vml += f * Within.Vml;
             vll += f * Within.Vll;

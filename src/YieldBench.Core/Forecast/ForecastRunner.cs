@@ -73,11 +73,38 @@ public static class ForecastRunner
         var (form, ratio) = ChooseForm(past, settings);
         var model = ForecastModel.Train(past, form, settings);
         var backtest = ForecastBacktest.Run(past, form, settings);
+        return Forecast(model, running, runningLogs, settings) with
+        {
+            Backtest = backtest,
+            FormLogRatio = ratio,
+            PastLogs = courses.Count,
+            PastLogsNotFitted = past.Count(p => p.FitOf(form) is null),
+        };
+    }
 
-        var runningCourses = LotCourses.FromRunning(running, runningLogs);
+    /// <summary>
+    /// Forecasts the running lots with a model already trained (the history's lots and logs are not read again, and
+    /// no backtest is run: its rows are empty).
+    /// </summary>
+    public static ForecastReport Run(IReadOnlyList<Lot> historyLots, IReadOnlyList<FermentationLog> historyLogs, IReadOnlyList<RunningLot> running, IReadOnlyList<FermentationLog> runningLogs, ForecastSettings settings, ForecastModel trained)
+    {
+        ArgumentNullException.ThrowIfNull(historyLots);
+        ArgumentNullException.ThrowIfNull(historyLogs);
+        ArgumentNullException.ThrowIfNull(trained);
+        return Forecast(trained, running, runningLogs, settings) with { PastLogs = trained.LotsUsed };
+    }
+
+    private static ForecastReport Forecast(ForecastModel model, IReadOnlyList<RunningLot> running, IReadOnlyList<FermentationLog> runningLogs, ForecastSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(running);
+        ArgumentNullException.ThrowIfNull(runningLogs);
+        ArgumentNullException.ThrowIfNull(settings);
+        var allCourses = LotCourses.FromRunning(running, runningLogs);
+        var unanchored = allCourses.Where(c => !c.HasClock).ToArray();
+        var runningCourses = allCourses.Where(c => c.HasClock).ToArray();
         var stamps = runningLogs.SelectMany(l => l.Readings).Select(r => r.Timestamp).ToArray();
         DateTime? now = stamps.Length > 0 ? stamps.Max() : null;
-        var forecasts = new LotForecast[runningCourses.Count];
+        var forecasts = new LotForecast[runningCourses.Length];
         var shifts = new Dictionary<int, (double, double)>();
         foreach (var season in runningCourses.Select((c, i) => (c, i)).GroupBy(x => x.c.Season).OrderBy(g => g.Key))
         {
@@ -93,15 +120,15 @@ public static class ForecastRunner
         return new ForecastReport
         {
             Lots = forecasts,
-            Backtest = backtest,
+            Backtest = new BacktestResult([], [], []),
             Model = model,
-            Form = form,
-            FormLogRatio = ratio,
-            PastLogs = courses.Count,
-            PastLogsNotFitted = past.Count(p => p.FitOf(form) is null),
+            Form = model.Form,
+            FormLogRatio = double.NaN,
+            PastLogs = 0,
+            PastLogsNotFitted = 0,
             Now = now,
             SeasonShifts = shifts,
-            Notes = Notes(forecasts, model),
+            Notes = [.. unanchored.Select(c => new ForecastNote(c.Season, c.LotId, "no-clock", $"Lot {c.LotId} has neither an inoculation time nor a reading, so nothing fixes its clock and it was not forecast; record its inoculation time or take a first reading.")), .. Notes(forecasts, model)],
             Settings = settings,
         };
     }
@@ -143,7 +170,7 @@ public static class ForecastRunner
 
             if (!c.FromInoculation)
             {
-                Note("no-inoculation-time", $"Lot {c.LotId} has no inoculation time: times count from its first reading, and the lag is taken as the history's usual time from inoculation to the first reading ({model.FirstReadingDelay.Median:0} h) shorter.");
+                Note("no-inoculation-time", $"Lot {c.LotId} has no inoculation time: times count from its first reading, and the lag is taken as the history's usual time from inoculation to the first reading ({model.FirstReadingDelay.Median.ToString("0", System.Globalization.CultureInfo.InvariantCulture)} h) shorter.");
             }
 
             if (c.VolumeL is null)
@@ -152,7 +179,7 @@ public static class ForecastRunner
             }
             else if (c.VolumeIsCapacity)
             {
-                Note("volume-from-capacity", $"Lot {c.LotId}: no must volume recorded; the cooling power uses the vessel capacity ({c.VolumeL:0} L), an upper bound.");
+                Note("volume-from-capacity", $"Lot {c.LotId}: no must volume recorded; the cooling power uses the vessel capacity ({c.VolumeL.Value.ToString("0", System.Globalization.CultureInfo.InvariantCulture)} L), an upper bound.");
             }
 
             if (c.TempC.Length == 0)

@@ -56,6 +56,9 @@ public sealed record LotCourse
     /// <summary>Temperature readings, °C.</summary>
     public required double[] TempC { get; init; }
 
+    /// <summary>False for a lot with neither an inoculation time nor any reading: nothing fixes its clock.</summary>
+    public bool HasClock => FromInoculation || SugarHours.Length > 0 || TempHours.Length > 0;
+
     /// <summary>Readings of one time that were merged (averaged).</summary>
     public int MergedReadings { get; init; }
 

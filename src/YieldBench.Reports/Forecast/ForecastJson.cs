@@ -87,6 +87,7 @@ public static class ForecastJson
         Number(w, "season_shift", f.SeasonShift, 3);
         Number(w, "settles_at_brix", f.SettlesAtBrix, 2);
         Number(w, "peak_rate_brix_per_day", f.PeakRateBrixPerDay, 2);
+        Number(w, "vessel_heat_removal_per_h", f.CoolingCoefficientPerHour, 4);
         w.WriteEndObject();
         w.WriteEndObject();
     }

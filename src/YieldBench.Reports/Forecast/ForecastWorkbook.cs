@@ -42,6 +42,7 @@ public static class ForecastWorkbook
             new("peak_temp_high80_c", "Peak, 80 % to (°C)", CellKind.Number, f => Num(f.PeakC?.High), "0.0"),
             new("reachable_without_cooling_c", "Reachable with no cooling from now (°C)", CellKind.Number, f => Num(f.ReachableC), "0.0"),
             new("cooling_kw", "Heat at the peak rate: cooling to hold it (kW)", CellKind.Number, f => Num(f.CoolingKw), "0.00"),
+            new("vessel_heat_removal_per_h", "Vessel type's usual heat removal at the peak (per h)", CellKind.Number, f => Num(f.CoolingCoefficientPerHour), "0.000"),
             new("stuck_risk", "Chance of a sluggish or stuck end", CellKind.Share, f => f.StuckRisk),
             new("next_reading_at", "Next reading most worth taking", CellKind.DateTime, f => At(f, f.NextReadingHours)),
             new("basis", "Basis", CellKind.Text, f => f.OwnStrainPrior ? $"{f.StrainLots} past lots of the strain" : "pooled prior (strain not in the history)"),
@@ -92,6 +93,25 @@ public static class ForecastWorkbook
         return ReportTable.Of(columns, issues, i => i.Severity == IssueSeverity.Error);
     }
 
+    /// <summary>The backtest by colour bucket.</summary>
+    public static ReportTable ByColour(ForecastReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        Column<(string Colour, BacktestRow Row)>[] columns =
+        [
+            new("colour", "Colour", CellKind.Text, x => x.Colour == "white" ? "white and rosé" : x.Colour),
+            new("target", "Target", CellKind.Text, x => x.Row.Target),
+            new("readings", "Readings before the cut", CellKind.Integer, x => x.Row.Readings),
+            new("lots", "Lots scored", CellKind.Integer, x => x.Row.Lots),
+            new("mae", "Mean absolute error (h or °C)", CellKind.Number, x => x.Row.Mae, "0.00"),
+            new("p90", "90th-percentile error (h or °C)", CellKind.Number, x => x.Row.P90, "0.00"),
+            new("coverage80", "80 % interval held the truth", CellKind.Share, x => x.Row.Coverage80),
+            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, x => x.Row.BaselineLineMae, "0.00"),
+            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, x => x.Row.BaselineStrainMae, "0.00"),
+        ];
+        return ReportTable.Of(columns, report.Backtest.ByColour);
+    }
+
     /// <summary>The workbook's bytes.</summary>
     public static byte[] Write(ForecastReport report, IReadOnlyList<IntakeIssue> issues)
     {
@@ -113,6 +133,10 @@ public static class ForecastWorkbook
         var backtest = wb.Worksheets.Add("Backtest");
         var placedBacktest = SheetLayout.WriteTable(backtest, Backtest(report));
         row = placedBacktest.LastRow + 2;
+        SheetLayout.SetText(backtest.Cell(row, 1), "By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger):");
+        backtest.Cell(row, 1).Style.Font.Bold = true;
+        var placedColour = SheetLayout.WriteTable(backtest, ByColour(report), row + 1, 1, freezeAndFilter: false);
+        row = placedColour.LastRow + 2;
         foreach (var line in ForecastSentences.Backtest(report.Backtest))
         {
             SheetLayout.SetText(backtest.Cell(row++, 1), line.Trim());
