@@ -11,10 +11,10 @@ namespace YieldBench.Core.Forecast;
 public static class SeasonForecaster
 {
     /// <summary>Nodes of the 7-point Gauss–Hermite rule (weight e^(−x²); Abramowitz &amp; Stegun 1964, Table 25.10).</summary>
-    private static readonly double[] HermiteNodes = [-2.651961356835233, -1.673551628767471, -0.816287882858965, 0, 0.816287882858965, 1.673551628767471, 2.651961356835233];
+    internal static readonly double[] HermiteNodes = [-2.651961356835233, -1.673551628767471, -0.816287882858965, 0, 0.816287882858965, 1.673551628767471, 2.651961356835233];
 
     /// <summary>Weights of the 7-point Gauss–Hermite rule.</summary>
-    private static readonly double[] HermiteWeights = [0.000971781245099519, 0.054515582819127, 0.425607252610128, 0.810264617556807, 0.425607252610128, 0.054515582819127, 0.000971781245099519];
+    internal static readonly double[] HermiteWeights = [0.000971781245099519, 0.054515582819127, 0.425607252610128, 0.810264617556807, 0.425607252610128, 0.054515582819127, 0.000971781245099519];
 
     /// <summary>
     /// Forecasts every course (all of one season). <paramref name="now"/> is the moment the readings stand at (the

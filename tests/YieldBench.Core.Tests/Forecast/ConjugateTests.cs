@@ -90,3 +90,27 @@ public class ConjugateTests
         return (inv, det);
     }
 }
+
+public class QuadratureTests
+{
+    [Fact]
+    public void The_seven_point_Gauss_Hermite_rule_integrates_polynomials_to_degree_13_exactly()
+    {
+        // ∫ x^k e^(−x²) dx over the line is Γ((k + 1)/2) for even k (√π, √π/2, 3√π/4, 15√π/8, 105√π/16, 945√π/32, 10395√π/64)
+        // and 0 for odd k; a 7-point rule is exact up to degree 2·7 − 1 = 13.
+        double[] even = [1, 0.5, 0.75, 1.875, 6.5625, 29.53125, 162.421875];
+        var x = SeasonForecaster.HermiteNodes;
+        var w = SeasonForecaster.HermiteWeights;
+        for (int k = 0; k <= 13; k++)
+        {
+            double sum = 0;
+            for (int i = 0; i < x.Length; i++)
+            {
+                sum += w[i] * Math.Pow(x[i], k);
+            }
+
+            double exact = k % 2 == 1 ? 0 : even[k / 2] * Math.Sqrt(Math.PI);
+            Assert.Equal(exact, sum, 9);
+        }
+    }
+}
