@@ -75,9 +75,13 @@ public static class IntakeReader
 
     private static IEnumerable<Step> Expand(IReadOnlyList<string> paths, string root)
     {
-        foreach (var p in paths)
+        foreach (var given in paths)
         {
-            string full = Path.GetFullPath(p, root);
+            string full = Path.GetFullPath(given, root);
+
+            // Shown relative to where the user stands when it lies there, as typed otherwise.
+            string relative = Path.GetRelativePath(root, full);
+            string p = Path.IsPathRooted(given) && !relative.StartsWith("..", StringComparison.Ordinal) && !Path.IsPathRooted(relative) ? relative : given;
             if (Directory.Exists(full))
             {
                 var steps = new List<Step>();

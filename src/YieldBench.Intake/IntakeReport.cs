@@ -15,60 +15,80 @@ public static class IntakeReport
         return set.Accounts.Any(a => a.RowsReported > 0) || set.Issues.Any(i => i.Severity == IssueSeverity.Error);
     }
 
-    /// <summary>Writes the header mapping, the accounting table, every issue and a one-line summary.</summary>
+    /// <summary>Width of a terminal the text fits in.</summary>
+    public const int Width = 100;
+
+    /// <summary>
+    /// Writes what was read, file by file (each path once, as the user gave it): its size and SHA-256, then per sheet
+    /// the row accounting and the header mapping, then the file's issues; issues of no file (the command's own
+    /// mappings) after them; then a one-line result. Lines fit <see cref="Width"/> columns.
+    /// </summary>
     public static void WriteText(SeasonSet set, TextWriter output)
     {
         ArgumentNullException.ThrowIfNull(set);
         ArgumentNullException.ThrowIfNull(output);
-        output.WriteLine("Files");
-        if (set.Files.Count == 0)
+        var files = set.Accounts.Select(a => a.File).Concat(set.Issues.Select(i => i.File)).Distinct(StringComparer.Ordinal).ToList();
+        foreach (string file in files)
         {
-            output.WriteLine("  (none read)");
-        }
-
-        foreach (var f in set.Files)
-        {
-            output.WriteLine($"  {f.Path}  {f.Bytes.ToString(Inv)} bytes  sha256 {f.Sha256}");
-        }
-
-        output.WriteLine();
-        output.WriteLine("Header mapping");
-        WriteTable(
-            output,
-            ["file", "sheet", "header", "field", "unit"],
-            set.Mappings.Select(m => new[] { m.File, m.Sheet ?? "", m.Header, m.Field, m.Unit ?? "" }).ToList());
-
-        output.WriteLine();
-        output.WriteLine("Rows");
-        WriteTable(
-            output,
-            ["file", "sheet", "kind", "rows read", "lots used", "readings used", "left out", "blank", "summary", "balances"],
-            set.Accounts.Select(a => new[]
+            output.WriteLine(file);
+            if (set.Files.FirstOrDefault(f => f.Path == file) is { } read)
             {
-                a.File, a.Sheet ?? "", a.Kind, N(a.RowsRead), N(a.LotsUsed), N(a.LogReadingsUsed), N(a.RowsReported),
-                N(a.BlankRowsSkipped), N(a.SummaryRowsSkipped), a.Balances ? "yes" : "NO",
-            }).ToList());
+                output.WriteLine($"  {read.Bytes.ToString("N0", Inv)} bytes, sha256 {read.Sha256}");
+            }
 
-        output.WriteLine();
+            foreach (var a in set.Accounts.Where(a => a.File == file))
+            {
+                WriteWrapped(output, "  ", "    ", Accounting(a));
+                var mappings = set.Mappings.Where(m => m.File == file && m.Sheet == a.Sheet).ToList();
+                if (mappings.Count > 0)
+                {
+                    WriteTable(output, ["header", "field", "unit"], mappings.Select(m => new[] { Cut(m.Header, 40), m.Field, m.Unit ?? "" }).ToList());
+                }
+            }
+
+            foreach (var issue in set.Issues.Where(i => i.File == file))
+            {
+                WriteWrapped(output, "  ", "      ", Describe(issue, withFile: false));
+            }
+
+            output.WriteLine();
+        }
+
         int errors = set.Issues.Count(i => i.Severity == IssueSeverity.Error);
         int warnings = set.Issues.Count - errors;
-        output.WriteLine($"Issues: {N(set.Issues.Count)} ({N(errors)} errors, {N(warnings)} warnings)");
-        foreach (var i in set.Issues)
-        {
-            output.WriteLine("  " + Describe(i));
-        }
-
-        output.WriteLine();
         int leftOut = set.Accounts.Sum(a => a.RowsReported);
         string seasons = set.Lots.Count == 0 ? "no usable lot rows" : set.Seasons.Count == 0 ? "no season" : string.Join(", ", set.Seasons.Select(N));
-        output.WriteLine($"Result: {N(set.Lots.Count)} lots ({seasons}), {N(set.Logs.Count)} fermentation logs with {N(set.Logs.Sum(l => l.Readings.Count))} readings; {N(leftOut)} rows left out.");
+        WriteWrapped(output, "", "  ", $"Issues: {N(set.Issues.Count)} ({N(errors)} errors, {N(warnings)} warnings).");
+        WriteWrapped(output, "", "  ", $"Result: {N(set.Lots.Count)} lots ({seasons}), {N(set.Logs.Count)} fermentation logs with {N(set.Logs.Sum(l => l.Readings.Count))} readings; {N(leftOut)} rows left out.");
     }
 
-    /// <summary>One issue as a line: severity, place, code and message.</summary>
-    public static string Describe(IntakeIssue issue)
+    /// <summary>A sheet's accounting as one sentence.</summary>
+    private static string Accounting(SourceAccount a)
+    {
+        string sheet = a.Sheet is null ? "" : $"sheet \"{a.Sheet}\", ";
+        if (a.Kind is "refused" or "hidden" or "empty" or "not read")
+        {
+            return $"{sheet}{a.Kind}: no rows read.";
+        }
+
+        string used = a.LogReadingsUsed > 0 || a.Kind == "log" ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
+        return $"{sheet}{a.Kind}: {N(a.RowsRead)} rows read = {used}, {N(a.RowsReported)} left out, {N(a.BlankRowsSkipped)} blank, " +
+            $"{N(a.SummaryRowsSkipped)} summary{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
+    }
+
+    /// <summary>One issue as a line: severity, place, code and message (the file left out when it heads the issue's group).</summary>
+    public static string Describe(IntakeIssue issue) => Describe(issue, withFile: true);
+
+    private static string Describe(IntakeIssue issue, bool withFile)
     {
         ArgumentNullException.ThrowIfNull(issue);
-        var place = new List<string> { issue.Sheet is null ? issue.File : $"{issue.File} [{issue.Sheet}]" };
+        var place = new List<string>();
+        if (withFile || issue.Sheet is not null)
+        {
+            string sheet = issue.Sheet is null ? "" : $"[{issue.Sheet}]";
+            place.Add(withFile ? (issue.Sheet is null ? issue.File : $"{issue.File} {sheet}") : sheet);
+        }
+
         if (issue.Row is { } r)
         {
             place.Add("row " + N(r));
@@ -76,16 +96,39 @@ public static class IntakeReport
 
         if (issue.Column is { } c)
         {
-            place.Add($"column \"{c}\"");
+            place.Add($"column \"{Cut(c, 40)}\"");
         }
 
         if (issue.Value is { Length: > 0 } v)
         {
-            place.Add($"value \"{v}\"");
+            place.Add($"value \"{Cut(v, 60)}\"");
         }
 
-        string severity = issue.Severity == IssueSeverity.Error ? "error  " : "warning";
-        return $"{severity} {string.Join(", ", place)}: {issue.Code}: {issue.Message}";
+        string severity = issue.Severity == IssueSeverity.Error ? "error" : "warning";
+        string where = place.Count == 0 ? "" : " " + string.Join(", ", place);
+        return $"{severity}{where}: {issue.Code}: {issue.Message}";
+    }
+
+    private static string Cut(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
+
+    /// <summary>Writes text wrapped at word boundaries to <see cref="Width"/> columns, the first line after <paramref name="first"/>, the rest after <paramref name="rest"/>.</summary>
+    private static void WriteWrapped(TextWriter output, string first, string rest, string text)
+    {
+        string indent = first;
+        var line = new System.Text.StringBuilder(indent);
+        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (line.Length > indent.Length && line.Length + 1 + word.Length > Width)
+            {
+                output.WriteLine(line.ToString());
+                indent = rest;
+                line.Clear().Append(indent);
+            }
+
+            line.Append(line.Length > indent.Length ? " " : "").Append(word);
+        }
+
+        output.WriteLine(line.ToString());
     }
 
     private static string N(int v) => v.ToString(Inv);
@@ -99,10 +142,10 @@ public static class IntakeReport
         }
 
         var widths = headers.Select((h, i) => Math.Max(h.Length, rows.Max(r => r[i].Length))).ToArray();
-        output.WriteLine("  " + string.Join("  ", headers.Select((h, i) => h.PadRight(widths[i]))).TrimEnd());
+        output.WriteLine("    " + string.Join("  ", headers.Select((h, i) => h.PadRight(widths[i]))).TrimEnd());
         foreach (var r in rows)
         {
-            output.WriteLine("  " + string.Join("  ", r.Select((c, i) => c.PadRight(widths[i]))).TrimEnd());
+            output.WriteLine("    " + string.Join("  ", r.Select((c, i) => c.PadRight(widths[i]))).TrimEnd());
         }
     }
 }

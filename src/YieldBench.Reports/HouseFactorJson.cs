@@ -23,7 +23,7 @@ public static class HouseFactorJson
     public const string FileName = "house-factor.json";
 
     /// <summary>Version of the file's layout; bumped when a field changes meaning.</summary>
-    public const int FormatVersion = 4;
+    public const int FormatVersion = 5;
 
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -52,7 +52,7 @@ public static class HouseFactorJson
                 c.Importance.Select(i => new ImportanceDto(i.Feature, N(i.MaeIncrease))).ToArray())).ToArray(),
             Recommendation(review.Overall),
             review.ByStrain.Select(r => Recommendation(r)!).ToArray(),
-            review.Planning is null ? null : new PlanningDto(Line(review.Planning.Pooled), review.Planning.Strains.Select(Line).ToArray(), review.Planning.Basis),
+            Planning(review.Planning),
             review.PlannerTable.Select(t => new ThresholdDto(t.Strain, t.TargetAbv, t.Confidence, N(t.HighestBrix), N(t.ErrorAllowance), t.Note)).ToArray(),
             Coverage(review.Coverage),
             review.ImportanceSentence,
@@ -64,7 +64,7 @@ public static class HouseFactorJson
                 other.LotsUsed,
                 Recommendation(other.Overall),
                 other.ByStrain.Select(r => Recommendation(r)!).ToArray(),
-                other.Planning is null ? null : new PlanningDto(Line(other.Planning.Pooled), other.Planning.Strains.Select(Line).ToArray(), other.Planning.Basis),
+                Planning(other.Planning),
                 other.Explanation) : null);
         return JsonSerializer.Serialize(dto, Options) + "\n";
     }
@@ -127,7 +127,13 @@ public static class HouseFactorJson
             return new HouseFactorFile(null, dto.Regime?.Name, $"{source}: {string.Join("; ", bad)}. Write the file again with 'yieldbench review'.");
         }
 
-        return new HouseFactorFile(new PlanningModel(pooled!, strains!, dto.Planning.Basis ?? "a house-factor file"), dto.Regime?.Name, null);
+        var model = new PlanningModel(pooled!, strains!, dto.Planning.Basis ?? "a house-factor file")
+        {
+            ReferenceBrix = dto.Planning.ReferenceBrix ?? double.NaN,
+            HistoryLowBrix = dto.Planning.HistoryBrixLow ?? double.NaN,
+            HistoryHighBrix = dto.Planning.HistoryBrixHigh ?? double.NaN,
+        };
+        return new HouseFactorFile(model, dto.Regime?.Name, null);
     }
 
     private static PlanningLine? ToLine(LineDto? d, string where, List<string> bad)
@@ -169,7 +175,15 @@ public static class HouseFactorJson
         return new PlanningLine(d.Strain ?? "*", d.CandidateId ?? "unknown", curve, d.InterceptAbv ?? double.NaN, d.SlopeAbvPerBrix ?? double.NaN, d.Lots, seasonErrors, d.ErrorBasis ?? "held-out errors");
     }
 
-    private static LineDto Line(PlanningLine l)
+    private static PlanningDto? Planning(PlanningModel? p) => p is null ? null : new(
+        N(p.ReferenceBrix),
+        N(p.HistoryLowBrix),
+        N(p.HistoryHighBrix),
+        Line(p.Pooled, p),
+        p.Strains.Select(l => Line(l, p)).ToArray(),
+        p.Basis);
+
+    private static LineDto Line(PlanningLine l, PlanningModel p)
     {
         var m = l.ErrorModel;
         var b80 = m.Band(0.80);
@@ -180,9 +194,10 @@ public static class HouseFactorJson
             l.Curve == SugarCurve.EuConvention ? "eu-convention" : "line",
             N(l.Intercept),
             N(l.SlopePerBrix),
+            N(p.FactorOf(l)),
             l.Lots,
             l.ErrorBasis,
-            new ErrorModelDto(m.Count, m.Clusters, m.Seasons, N(m.Mean), N(Math.Sqrt(m.WithinVariance)), N(Math.Sqrt(m.BetweenVariance)), N(m.StandardErrorOfMean), N(m.PredictiveSd), N(m.DegreesOfFreedom), N(b80.Low), N(b80.High), N(b95.Low), N(b95.High)),
+            new ErrorModelDto(m.Count, m.Clusters, m.Seasons, N(m.Mean), N(Math.Sqrt(m.WithinVariance)), N(Math.Sqrt(m.BetweenVariance)), N(Math.Sqrt(m.SeasonVariance)), N(m.StandardErrorOfMean), N(m.PredictiveSd), N(m.DegreesOfFreedom), N(b80.Low), N(b80.High), N(b95.Low), N(b95.High)),
             l.Errors.Select(e => new ErrorDto(e.Season, e.Strain, e.Error)).ToArray());
     }
 
@@ -207,6 +222,8 @@ public static class HouseFactorJson
         N(r.ErrorBand80.High),
         N(r.ErrorBand95.Low),
         N(r.ErrorBand95.High),
+        N(r.Factor),
+        N(r.ReferenceBrix),
         r.Explanation);
 
     private static MetricsDto? Metrics(BacktestMetrics? m) => m is null ? null : new(
@@ -274,6 +291,8 @@ public static class HouseFactorJson
         double? Error80HighAbv,
         double? Error95LowAbv,
         double? Error95HighAbv,
+        double? FactorAbvPerBrix,
+        double? ReferenceBrix,
         string Explanation);
 
     private sealed record LineDto(
@@ -282,6 +301,7 @@ public static class HouseFactorJson
         string Curve,
         double? InterceptAbv,
         double? SlopeAbvPerBrix,
+        double? FactorAbvPerBrix,
         int Lots,
         string ErrorBasis,
         ErrorModelDto? ErrorModel,
@@ -296,6 +316,7 @@ public static class HouseFactorJson
         double? MeanErrorAbv,
         double? WithinClusterSdAbv,
         double? BetweenClusterSdAbv,
+        double? SeasonSdAbv,
         double? MeanStandardErrorAbv,
         double? PredictiveSdAbv,
         double? DegreesOfFreedom,
@@ -308,7 +329,7 @@ public static class HouseFactorJson
 
     private sealed record CoverageRowDto(int? Season, int Lots, double? Share80, double? Share95, int OverallLots, double? OverallShare80, double? OverallShare95);
 
-    private sealed record PlanningDto(LineDto Pooled, IReadOnlyList<LineDto> Strains, string Basis);
+    private sealed record PlanningDto(double? ReferenceBrix, double? HistoryBrixLow, double? HistoryBrixHigh, LineDto Pooled, IReadOnlyList<LineDto> Strains, string Basis);
 
     private sealed record ThresholdDto(string Strain, double TargetAbv, double Confidence, double? HighestBrix, double? ErrorAllowanceAbv, string? Note);
 }

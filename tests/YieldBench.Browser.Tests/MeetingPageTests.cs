@@ -66,6 +66,32 @@ public sealed partial class MeetingPageTests(MeetingPage page, ITestOutputHelper
     }
 
     [BrowserFact]
+    public async Task Each_section_s_anchor_brings_its_heading_into_view()
+    {
+        // Given the page at 1280×720
+        page.RequireBrowser();
+        int mark = await page.Load(1280, 720);
+        var ids = (await page.Page.Evaluate("[...document.querySelectorAll('main > section')].map(s => s.id)")).EnumerateArray().Select(e => e.GetString()!).ToArray();
+        Assert.Equal(["decisions", "strains", "lots", "ferments", "inputs", "methods", "cautions"], ids);
+        double lastScroll = -1;
+        foreach (string id in ids)
+        {
+            // When the contents link of the section is followed
+            var where = await page.Page.Evaluate(
+                $"(() => {{ document.querySelector('nav a[href=\"#{id}\"]').click(); return [document.getElementById('{id}-h').getBoundingClientRect().top, window.scrollY]; }})()");
+            var shot = await page.Page.Send("Page.captureScreenshot", new JsonObject { ["format"] = "png" });
+            await File.WriteAllBytesAsync(Path.Combine(MeetingPage.Artifacts, $"section-{id}.png"), Convert.FromBase64String(shot.GetProperty("data").GetString()!));
+
+            // Then its heading is on the screen, and the page never scrolls back up from one section to the next
+            Assert.InRange(where[0].GetDouble(), 0, 700);
+            Assert.True(where[1].GetDouble() >= lastScroll, $"#{id} scrolled back up, above the section before");
+            lastScroll = where[1].GetDouble();
+        }
+
+        Assert.Empty(page.Errors(mark));
+    }
+
+    [BrowserFact]
     public async Task The_page_prints_to_at_most_eight_pages_on_A4_and_on_Letter()
     {
         // Given the demo review's page

@@ -133,10 +133,15 @@ public sealed class PlanCommandTests : IDisposable
         var (code, output, _) = Plan("--factor", "0.6", "--volume", "5000", "--sugar", "26", "--target", "14.5");
 
         // Then the add-back follows the solids balance: 5000 L × SG(26) × 0.9982 kg/L × 26 % = solids; mass after = solids / 24.1667 %
+        // and the volume afterwards is mass after over the density of a solution of the new °Brix (the review's balance)
         double mass = 5000 * SugarReading.FromBrix(26).SpecificGravity * 0.99820;
-        double water = ((mass * 0.26 / (14.5 / 0.6 / 100)) - mass) / 0.99820;
+        double massAfter = mass * 0.26 / (14.5 / 0.6 / 100);
+        double water = (massAfter - mass) / 0.99820;
+        double after = massAfter / (SugarReading.FromBrix(14.5 / 0.6).SpecificGravity * 0.99820);
         Assert.Equal(0, code);
-        Assert.Contains($"Add {water.ToString("0", CultureInfo.InvariantCulture)} L of water to bring the must to 24.2 °Brix; volume afterwards {(5000 + water).ToString("0", CultureInfo.InvariantCulture)} L", output, StringComparison.Ordinal);
+        Assert.Contains("Juice: 5000 L (the volume given is taken as juice; for must on skins give --pomace-share) at 26.0 °Brix", output, StringComparison.Ordinal);
+        Assert.Contains($"Add {water.ToString("0", CultureInfo.InvariantCulture)} L of water: the juice comes to 24.2 °Brix and {after.ToString("0", CultureInfo.InvariantCulture)} L by the review's mass balance", output, StringComparison.Ordinal);
+        Assert.Contains("Factor: 0.6000 % v/v per °Brix.", output, StringComparison.Ordinal);
         Assert.Contains("Rules on water additions and on labelling alcohol differ by country", output, StringComparison.Ordinal);
     }
 
@@ -214,13 +219,61 @@ public sealed class PlanCommandTests : IDisposable
     }
 
     [Fact]
-    public void A_strain_not_in_the_review_uses_the_pooled_line_and_says_so()
+    public void A_strain_is_matched_by_intakes_spelling_rules_and_an_unknown_one_is_an_error_listing_the_known()
     {
-        var (_, path) = FactorFile();
-        var (code, output, _) = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
-        Assert.Equal(0, code);
-        Assert.Contains("Strain SX-77 is not in the review; the line for all strains is used.", output, StringComparison.Ordinal);
-        Assert.Contains("Predictor for all strains (candidate ", output, StringComparison.Ordinal);
+        // Given a house-factor file of strains SX-01 and SX-02
+        var (review, path) = FactorFile();
+
+        // When the planner is asked with "sx 02" and with SX-77
+        var ok = Plan("--factor-file", path, "--strain", "sx 02", "--sugar", "24");
+        var bad = Plan("--factor-file", path, "--strain", "SX-77", "--sugar", "24");
+
+        // Then the first uses SX-02's line and shows its factor beside the pooled one; the second exits 2 naming the known strains
+        Assert.Equal(0, ok.Code);
+        Assert.Contains("Predictor for strain SX-02 (candidate ", ok.Out, StringComparison.Ordinal);
+        var model = review.Planning!;
+        string f4(double v) => v.ToString("0.0000", CultureInfo.InvariantCulture);
+        Assert.Contains($"Factor: {f4(model.FactorOf(model.For("SX-02")))} % v/v per °Brix at {model.ReferenceBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix (the lots' median starting sugar); all strains pooled: {f4(model.FactorOf(model.Pooled))}.", ok.Out, StringComparison.Ordinal);
+        Assert.InRange(model.FactorOf(model.For("SX-02")), 0.60, 0.62); // the true factor is 0.61
+        Assert.Equal(2, bad.Code);
+        Assert.Contains("plan: --strain SX-77 is not a strain of this house factor; known strains: SX-01, SX-02.", bad.Err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void An_impossible_sugar_is_a_usage_error_in_its_own_scale_and_one_outside_the_history_is_a_warning()
+    {
+        // Given a house-factor file learned from lots of 20–27 °Brix
+        var (review, path) = FactorFile();
+
+        // When the planner is asked at 5 °Brix, at SG 1.200 (44 °Brix), and at 29.0 °Brix
+        var low = Plan("--factor-file", path, "--sugar", "5");
+        var sg = Plan("--factor-file", path, "--sugar", "1.200", "--scale", "sg");
+        var high = Plan("--factor-file", path, "--sugar", "29");
+
+        // Then the first two exit 2 saying the range in the scale given (10 °Brix = SG 1.040, 40 °Brix = SG 1.179:
+        // Zoecklein et al. Table I-1 gives 1.04002 at 10 %), and the third answers with a warning
+        Assert.Equal(2, low.Code);
+        Assert.Contains("plan: --sugar 5 °Brix is outside 10–40 °Brix, the range of a must's starting sugar", low.Err, StringComparison.Ordinal);
+        Assert.Equal(2, sg.Code);
+        Assert.Contains("is outside 1.040–1.179 SG (10–40 °Brix)", sg.Err, StringComparison.Ordinal);
+        Assert.Equal(0, high.Code);
+        Assert.Contains($"Warning: 29.0 °Brix is outside the {review.Planning!.HistoryLowBrix.ToString("0.0", CultureInfo.InvariantCulture)}–{review.Planning.HistoryHighBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix of the lots the house factor learned from, so the prediction extrapolates", high.Out, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_juice_already_under_the_target_needs_no_water_and_a_pomace_share_leaves_the_skins_out_of_the_balance()
+    {
+        // Given a factor of 0.6
+        // When 1000 L at 22 °Brix is to come to 14.5 %, and 5000 L of must on skins (20 % skins and seeds) at 26 °Brix to 14.5 %
+        var none = Plan("--factor", "0.6", "--volume", "1000", "--sugar", "22", "--target", "14.5");
+        var skins = Plan("--factor", "0.6", "--volume", "5000", "--pomace-share", "0.2", "--sugar", "26", "--target", "14.5");
+        var juiceOnly = Plan("--factor", "0.6", "--volume", "4000", "--sugar", "26", "--target", "14.5");
+
+        // Then the first says no water is needed, and the second balances only its 4000 L of juice
+        Assert.Contains("No water needed: the juice's predicted alcohol, 13.2 % v/v, is already at or below the aim of 14.5 % v/v.", none.Out, StringComparison.Ordinal);
+        Assert.Contains("Juice: 4000 L (the 5000 L given less 20 % skins and seeds; only the juice enters the balance)", skins.Out, StringComparison.Ordinal);
+        string Add(string text) => text.Split('\n').First(l => l.StartsWith("Add ", StringComparison.Ordinal));
+        Assert.Equal(Add(juiceOnly.Out), Add(skins.Out));
     }
 
     [Fact]

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using YieldBench.Intake;
 using YieldBench.Reports.Data;
+using YieldBench.Cli.CommandLine;
 using YieldBench.Reports.Tables;
 
 namespace YieldBench.Cli.Commands;
@@ -10,10 +11,10 @@ internal static class CheckCommand
 {
     public static Command Create(CliContext context)
     {
-        var inputs = new Argument<string[]>("inputs") { Description = "Lot and log files or folders (.xlsx, .xls, .csv).", Arity = ArgumentArity.OneOrMore };
+        var inputs = new Argument<string[]>("inputs") { Description = "Lot and log files or folders (.xlsx, .xls, .ods, .csv, .txt, .tsv).", Arity = ArgumentArity.OneOrMore };
         var columns = new Option<string[]>("--column") { Description = "Map a header to a field: FIELD=HEADER (repeatable).", Arity = ArgumentArity.ZeroOrMore, AllowMultipleArgumentsPerToken = false };
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one 'FIELD = HEADER' a line, '#' comments." };
-        var season = new Option<int?>("--season") { Description = "Season (vintage year) for rows whose column, sheet name and file name give none." };
+        var season = UsageChecks.SeasonOption("Season (vintage year) for rows whose column, sheet name and file name give none.");
         var issuesCsv = new Option<string?>("--issues-csv") { Description = "Also write every issue to this CSV file (file, sheet, row, column, value, code, severity, message)." };
         var command = new Command("check", "Check input files without analysing them: header mapping, rows used and left out, and every problem found.");
         command.Arguments.Add(inputs);
@@ -23,39 +24,53 @@ internal static class CheckCommand
         command.Options.Add(issuesCsv);
         command.SetAction(parseResult =>
         {
-            int? year = parseResult.GetValue(season);
-            if (year is < 1900 or > 2100)
-            {
-                context.Error.WriteLine($"check: --season {year} is not a four-digit year between 1900 and 2100.");
-                return ExitCodes.Usage;
-            }
-
+            string[] paths = parseResult.GetValue(inputs) ?? [];
+            string[] mappings = parseResult.GetValue(columns) ?? [];
+            string? mappingFile = parseResult.GetValue(mapping);
             string? csvPath = parseResult.GetValue(issuesCsv);
             string? csvFull = csvPath is null ? null : Path.GetFullPath(csvPath, context.WorkingDirectory);
-            if (csvFull is not null && Path.GetDirectoryName(csvFull) is { } csvDir && !Directory.Exists(csvDir))
+            string? usage = UsageChecks.Inputs("check", paths, context.WorkingDirectory)
+                ?? UsageChecks.Columns("check", mappings)
+                ?? UsageChecks.MappingFile("check", mappingFile, context.WorkingDirectory)
+                ?? (csvFull is null ? null : UsageChecks.WritableFile("check", "--issues-csv", csvFull, csvPath!, paths.Select(p => Path.GetFullPath(p, context.WorkingDirectory)), IssueTableHeader()));
+            if (usage is not null)
             {
-                context.Error.WriteLine($"check: the folder of --issues-csv '{csvPath}' does not exist.");
+                TextWrap.WriteLine(context.Error, usage);
                 return ExitCodes.Usage;
             }
 
             var options = new IntakeOptions
             {
-                ColumnMappings = parseResult.GetValue(columns) ?? [],
-                MappingFile = parseResult.GetValue(mapping),
-                Season = year,
+                ColumnMappings = mappings,
+                MappingFile = mappingFile,
+                Season = parseResult.GetValue(season),
                 WorkingDirectory = context.WorkingDirectory,
             };
-            var set = IntakeReader.Read(parseResult.GetValue(inputs) ?? [], options);
+            var set = IntakeReader.Read(paths, options);
             IntakeReport.WriteText(set, context.Out);
             if (csvFull is not null)
             {
                 // The one issue table review writes to data/intake-issues.csv: same columns, line ends and neutralising.
                 CsvText.WriteFile(ReviewTables.IntakeIssues(set.Issues), csvFull);
-                context.Out.WriteLine($"Issues written to {csvPath}.");
+                context.Out.WriteLine($"Issues written to {UsageChecks.Shown(csvPath!)}.");
+            }
+
+            if (!set.Accounts.Any(a => a.Kind is "lots" or "log" or "running lots"))
+            {
+                TextWrap.WriteLine(context.Error, "check: no table of lots or log readings was found in the inputs; the issues above say why.");
+                return ExitCodes.InputProblems;
             }
 
             return IntakeReport.AnyRowLeftOut(set) ? ExitCodes.InputProblems : ExitCodes.Success;
         });
         return command;
+    }
+
+    /// <summary>The first line of the issue table, which marks a file this tool wrote.</summary>
+    internal static string IssueTableHeader()
+    {
+        using var writer = new StringWriter();
+        CsvText.Write(ReviewTables.IntakeIssues([]), writer);
+        return writer.ToString().Split('\n')[0].TrimEnd('\r');
     }
 }

@@ -37,9 +37,10 @@ internal static class PlanCommand
         var scale = new Option<string>("--scale") { Description = "Scale of --sugar: brix, sg, baume, oechsle or gl.", DefaultValueFactory = _ => "brix" };
         var target = new Option<string[]>("--target") { Description = "Target alcohol(s), % v/v; several may follow one --target.", AllowMultipleArgumentsPerToken = true };
         var confidence = new Option<string[]>("--confidence") { Description = "Confidence(s) that the wine stays at or under the target, 0.5–0.99 (default 0.8 and 0.95).", AllowMultipleArgumentsPerToken = true };
-        var volume = new Option<string?>("--volume") { Description = "Must volume, L: with --sugar and one --target, the water add-back is worked out." };
+        var volume = new Option<string?>("--volume") { Description = "Juice volume, L (the liquid the sugar reading is of): with --sugar and one --target, the water add-back is worked out. For must on skins give --pomace-share too." };
+        var pomace = new Option<string?>("--pomace-share") { Description = "Share of --volume that is skins and seeds, 0–0.5 (default 0: --volume is juice); the balance counts only the juice." };
         var command = new Command("plan", "Plan potential alcohol: predicted alcohol for a must, the highest harvest sugar under a target, or the water add-back to reach it.");
-        foreach (var o in new Option[] { factorFile, factor, lotFiles, strain, sugar, scale, target, confidence, volume })
+        foreach (var o in new Option[] { factorFile, factor, lotFiles, strain, sugar, scale, target, confidence, volume, pomace })
         {
             command.Options.Add(o);
         }
@@ -55,13 +56,14 @@ internal static class PlanCommand
                 parse.GetValue(scale) ?? "brix",
                 parse.GetValue(target) ?? [],
                 parse.GetValue(confidence) ?? [],
-                parse.GetValue(volume));
+                parse.GetValue(volume),
+                parse.GetValue(pomace));
             return Run(request, context);
         });
         return command;
     }
 
-    private sealed record Request(string? FactorFile, string? Factor, string[] LotFiles, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume);
+    private sealed record Request(string? FactorFile, string? Factor, string[] LotFiles, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume, string? PomaceShare = null);
 
     private static int Run(Request r, CliContext context)
     {
@@ -128,15 +130,27 @@ internal static class PlanCommand
                 return ExitCodes.Usage;
             }
 
+            // Checked as intake checks a starting-sugar cell: a must's starting sugar lies within 10–40 °Brix.
+            SugarReading? reading = null;
             try
             {
-                must = SugarReading.From(s, scale.Scale);
+                reading = SugarReading.From(s, scale.Scale);
             }
-            catch (ArgumentOutOfRangeException e)
+            catch (ArgumentOutOfRangeException)
             {
-                err.WriteLine($"plan: --sugar {r.Sugar} {scale.Unit}: {e.Message.Split(" (Parameter")[0]}");
+            }
+
+            if (reading is not { } read || read.Brix < Planner.LowestMustBrix || read.Brix > Planner.HighestMustBrix)
+            {
+                string range = scale.Scale == SugarScale.Brix
+                    ? $"{F(Planner.LowestMustBrix, "0")}–{F(Planner.HighestMustBrix, "0")} °Brix"
+                    : $"{ScaleValue(Planner.LowestMustBrix, scale.Scale)}–{ScaleValue(Planner.HighestMustBrix, scale.Scale)} {scale.Unit} ({F(Planner.LowestMustBrix, "0")}–{F(Planner.HighestMustBrix, "0")} °Brix)";
+                string was = reading is { } x && scale.Scale != SugarScale.Brix ? $" (= {F(x.Brix, "0.0#")} °Brix)" : string.Empty;
+                err.WriteLine($"plan: --sugar {r.Sugar} {scale.Unit}{was} is outside {range}, the range of a must's starting sugar; check the reading and that --scale names its scale.");
                 return ExitCodes.Usage;
             }
+
+            must = read;
         }
 
         var targets = new List<double>();
@@ -173,6 +187,27 @@ internal static class PlanCommand
             confidences.Add(v);
         }
 
+        double pomaceShare = 0;
+        if (r.PomaceShare is not null)
+        {
+            if (!TryNumber(r.PomaceShare, "--pomace-share", err, out pomaceShare))
+            {
+                return ExitCodes.Usage;
+            }
+
+            if (pomaceShare is < 0 or > 0.5)
+            {
+                err.WriteLine($"plan: --pomace-share {r.PomaceShare} is outside 0–0.5 (write 0.15 for 15 % of the volume as skins and seeds).");
+                return ExitCodes.Usage;
+            }
+
+            if (r.Volume is null)
+            {
+                err.WriteLine("plan: --pomace-share goes with --volume (the share of that volume that is skins and seeds).");
+                return ExitCodes.Usage;
+            }
+        }
+
         double? volumeL = null;
         if (r.Volume is not null)
         {
@@ -202,34 +237,58 @@ internal static class PlanCommand
             volumeL = v;
         }
 
-        var o = context.Out;
-        var line = model.For(r.Strain);
-        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null || model.Basis.Contains(regime, StringComparison.Ordinal) ? "." : $" (label tolerance scored: {regime})."));
-        if (r.Strain is not null && !model.Knows(r.Strain))
+        // A strain is matched with intake's spelling rules ("yb-r12" is YB-R12); one the model does not know is an error.
+        string? strain = null;
+        if (r.Strain is not null && model.Strains.Count > 0)
         {
-            o.WriteLine(model.Strains.Count == 0
-                ? $"Strain {r.Strain}: the factor applies to every strain."
-                : $"Strain {r.Strain} is not in the review; the line for all strains is used.");
+            strain = Spellings.Settle(r.Strain, model.Strains.Select(l => l.Strain));
+            if (strain is null)
+            {
+                err.WriteLine($"plan: --strain {r.Strain} is not a strain of this house factor; known strains: {string.Join(", ", model.Strains.Select(l => l.Strain))}. Leave --strain out for the line of all strains.");
+                return ExitCodes.Usage;
+            }
+        }
+
+        var o = context.Out;
+        var line = model.For(strain);
+        o.WriteLine($"Planner basis: {model.Basis}" + (regime is null || model.Basis.Contains(regime, StringComparison.Ordinal) ? "." : $" (label tolerance scored: {regime})."));
+        if (r.Strain is not null && model.Strains.Count == 0)
+        {
+            o.WriteLine($"Strain {r.Strain}: the factor applies to every strain.");
         }
 
         string who = line.Strain == "*" ? "all strains" : $"strain {line.Strain}";
         string from = line.CandidateId == "given" ? string.Empty : $" (candidate {line.CandidateId})";
         o.WriteLine($"Predictor for {who}{from}: {Describe(line)}; intervals from {line.ErrorBasis}.");
+        o.WriteLine(FactorText(model, line) + ".");
+        if (must is { } checkedMust && model.Extrapolates(checkedMust.Brix))
+        {
+            o.WriteLine($"Warning: {F(checkedMust.Brix, "0.0#")} °Brix is outside the {F(model.HistoryLowBrix, "0.0")}–{F(model.HistoryHighBrix, "0.0")} °Brix of the lots the house factor learned from, so the prediction extrapolates; trust it less.");
+        }
+
         o.WriteLine();
 
         // With no held-out errors only the central (50 %) answer exists, so that is the default then.
         var defaultConfidences = confidences.Count > 0 ? confidences : line.Errors.Count > 0 ? [0.80, 0.95] : [0.50];
         if (volumeL is { } vol)
         {
-            var answer = Planner.WaterAddBack(line, must!.Value, vol, targets[0], confidences.Count == 1 ? confidences[0] : null);
-            o.WriteLine($"Must: {F(vol, "0")} L at {SugarText(must.Value, r.Sugar!, scale)}; target {F(targets[0], "0.0#")} % v/v.");
+            double juice = vol * (1 - pomaceShare);
+            var answer = Planner.WaterAddBack(line, must!.Value, juice, targets[0], confidences.Count == 1 ? confidences[0] : null);
+            o.WriteLine(pomaceShare > 0
+                ? $"Juice: {F(juice, "0")} L (the {F(vol, "0")} L given less {F(100 * pomaceShare, "0.#")} % skins and seeds; only the juice enters the balance) at {SugarText(must.Value, r.Sugar!, scale)}; target {F(targets[0], "0.0#")} % v/v."
+                : $"Juice: {F(juice, "0")} L (the volume given is taken as juice; for must on skins give --pomace-share) at {SugarText(must.Value, r.Sugar!, scale)}; target {F(targets[0], "0.0#")} % v/v.");
             if (double.IsNaN(answer.WaterL))
             {
                 o.WriteLine($"No add-back could be worked out: {answer.Note}.");
             }
+            else if (answer.WaterL == 0)
+            {
+                o.WriteLine($"No water needed: {answer.Note}.");
+                o.WriteLine("As it is: " + EstimateText(answer.After!) + ".");
+            }
             else
             {
-                o.WriteLine($"Add {F(answer.WaterL, "0")} L of water to bring the must to {F(answer.TargetBrix, "0.0")} °Brix; volume afterwards {F(answer.VolumeAfterL, "0")} L ({answer.Note}).");
+                o.WriteLine($"Add {F(answer.WaterL, "0")} L of water: the juice comes to {F(answer.TargetBrix, "0.0")} °Brix and {F(answer.VolumeAfterL, "0")} L by the review's mass balance ({answer.Note}).");
                 o.WriteLine("After the addition: " + EstimateText(answer.After!) + ".");
             }
         }
@@ -291,6 +350,17 @@ internal static class PlanCommand
 
         return review.Planning with { Basis = review.Planning.Basis + $", from {lots.Length} lots read now" };
     }
+
+    /// <summary>The number a winemaker wants: the line's % v/v per °Brix, and the pooled one beside a strain's.</summary>
+    private static string FactorText(PlanningModel model, PlanningLine line)
+    {
+        string at = double.IsFinite(model.ReferenceBrix) ? $" at {F(model.ReferenceBrix, "0.0")} °Brix (the lots' median starting sugar)" : string.Empty;
+        string text = $"Factor: {F(model.FactorOf(line), "0.0000")} % v/v per °Brix{at}";
+        return line.Strain == "*" ? text : text + $"; all strains pooled: {F(model.FactorOf(model.Pooled), "0.0000")}";
+    }
+
+    private static string ScaleValue(double brix, SugarScale scale) =>
+        F(SugarReading.FromBrix(brix).In(scale), scale switch { SugarScale.SpecificGravity => "0.000", SugarScale.Brix or SugarScale.Baume => "0.0", _ => "0" });
 
     private static string Describe(PlanningLine l) => l.Curve == SugarCurve.EuConvention
         ? "potential alcohol = fermentable sugar (OIV must table) ÷ 16.83 g/L per % vol"

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using YieldBench.Cli.CommandLine;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
@@ -18,12 +19,12 @@ internal static class ReviewCommand
 
     public static Command Create(CliContext context)
     {
-        var inputs = new Argument<string[]>("inputs") { Description = "Lot and log files or folders (.xlsx, .xls, .csv). None: the bundled demo data.", Arity = ArgumentArity.ZeroOrMore };
+        var inputs = new Argument<string[]>("inputs") { Description = "Lot and log files or folders (.xlsx, .xls, .ods, .csv, .txt, .tsv). None: the bundled demo data.", Arity = ArgumentArity.ZeroOrMore };
         var output = new Option<string>("--out") { Description = "Output folder (created when missing; this tool's files in it are replaced).", DefaultValueFactory = _ => DefaultOutput };
-        var quiet = new Option<bool>("--quiet") { Description = "Print nothing but errors." };
+        var quiet = new Option<bool>("--quiet") { Description = "Print nothing but errors (on standard error)." };
         var columns = new Option<string[]>("--column") { Description = "Map a field to a header, FIELD=HEADER (repeatable), e.g. --column strain=Levure.", AllowMultipleArgumentsPerToken = false };
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one FIELD = HEADER a line." };
-        var season = new Option<int?>("--season") { Description = "Season (vintage year) for files whose season no column, sheet or file name gives." };
+        var season = UsageChecks.SeasonOption("Season (vintage year) for files whose season no column, sheet or file name gives.");
         var regime = new Option<string>("--regime") { Description = "Label tolerance the backtest is scored against: us, eu, or custom:TOLERANCE (% v/v, e.g. custom:0.8).", DefaultValueFactory = _ => "us" };
         var threshold = new Option<double?>("--threshold") { Description = "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14)." };
         var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
@@ -102,6 +103,14 @@ internal static class ReviewCommand
 
         var inputs = request.Inputs.ToList();
         string inputRoot = context.WorkingDirectory;
+        if ((UsageChecks.Inputs("review", inputs, context.WorkingDirectory)
+            ?? UsageChecks.Columns("review", request.Columns)
+            ?? UsageChecks.MappingFile("review", request.Mapping, context.WorkingDirectory)) is { } usage)
+        {
+            TextWrap.WriteLine(context.Error, usage);
+            return ExitCodes.Usage;
+        }
+
         if (inputs.Count == 0)
         {
             string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
@@ -118,9 +127,10 @@ internal static class ReviewCommand
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
-        if (ReportFolder.Problem(outFolder, inputs.Select(i => Path.GetFullPath(i, inputRoot))) is { } clash)
+        if (((ReportFolder.Problem(outFolder, inputs.Select(i => Path.GetFullPath(i, inputRoot))) is { } clash ? "review: " + clash : null)
+            ?? UsageChecks.WritableFolder("review", outFolder, request.Output)) is { } outProblem)
         {
-            context.Error.WriteLine(clash);
+            TextWrap.WriteLine(context.Error, outProblem);
             return ExitCodes.Usage;
         }
 
@@ -169,8 +179,9 @@ internal static class ReviewCommand
             return ExitCodes.Usage;
         }
 
+        console.Notices(set, Path.Combine(request.Output, "data", "intake-issues.csv"));
         bool leftOut = set.Issues.Any(i => i.Severity == IssueSeverity.Error);
-        return leftOut ? ExitCodes.InputProblems : ExitCodes.Success;
+        return leftOut || set.Lots.Count == 0 ? ExitCodes.InputProblems : ExitCodes.Success;
     }
 
     /// <summary>Parses <c>us</c>, <c>eu</c> or <c>custom:TOLERANCE</c>.</summary>
@@ -222,10 +233,11 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
         if (!quiet)
         {
             Clear();
-            context.Out.WriteLine(text);
+            TextWrap.WriteLine(context.Out, text);
         }
     }
 
+    /// <summary>A progress line, on standard error (results go to standard output).</summary>
     public void Stage(string name)
     {
         if (quiet)
@@ -236,12 +248,49 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
         if (context.IsTerminal)
         {
             string text = "review: " + name + "…";
-            context.Out.Write("\r" + text.PadRight(width));
+            context.Error.Write("\r" + text.PadRight(width));
             width = text.Length;
         }
         else
         {
-            context.Out.WriteLine("review: " + name);
+            context.Error.WriteLine("review: " + name);
+        }
+    }
+
+    /// <summary>
+    /// What intake found that changes the numbers, said on the console after the summary: rows left out (on standard
+    /// error, also with --quiet), and lots whose additions could not be corrected for lack of a must volume.
+    /// </summary>
+    public void Notices(SeasonSet set, string issuesFile)
+    {
+        int errors = set.Issues.Count(i => i.Severity == IssueSeverity.Error);
+        if (errors > 0)
+        {
+            Clear();
+            TextWrap.WriteLine(context.Error, $"review: {errors.ToString(CultureInfo.InvariantCulture)} input error(s): rows or files were left out; each is in {UsageChecks.Shown(issuesFile)} with its fix.");
+        }
+
+        if (set.Lots.Count == 0)
+        {
+            // A report of no lot says nothing about strains or factors; say why, also with --quiet.
+            Clear();
+            TextWrap.WriteLine(context.Error, $"review: no lot could be used, so nothing was reviewed ({set.Accounts.Sum(a => a.RowsReported).ToString(CultureInfo.InvariantCulture)} row(s) left out). The first problems:");
+            foreach (var issue in set.Issues.OrderBy(i => i.Severity == IssueSeverity.Error ? 0 : 1).Take(5))
+            {
+                TextWrap.WriteLine(context.Error, "  " + IntakeReport.Describe(issue));
+            }
+
+            if (set.Issues.Count == 0)
+            {
+                context.Error.WriteLine("  the inputs hold no lots table (a header naming lot, strain, starting sugar and final alcohol).");
+            }
+        }
+
+        int uncorrected = set.Issues.Count(i => i.Code == IssueCodes.AdditionsWithoutVolume);
+        if (uncorrected > 0 && !quiet)
+        {
+            Clear();
+            TextWrap.WriteLine(context.Out, $"Additions not corrected: {uncorrected.ToString(CultureInfo.InvariantCulture)} lot(s) record water or sugar added but no must volume, so their starting sugar could not be corrected and their factors are off by the additions (listed in {UsageChecks.Shown(issuesFile)}).");
         }
     }
 
@@ -254,37 +303,71 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
     {
         if (context.IsTerminal && width > 0)
         {
-            context.Out.Write("\r" + new string(' ', width) + "\r");
+            context.Error.Write("\r" + new string(' ', width) + "\r");
             width = 0;
         }
     }
 }
 
-/// <summary>Clears the progress line before the first summary line, then writes to the command's output.</summary>
+/// <summary>
+/// Clears the progress line before the first summary line, then writes to the command's output, each line wrapped to
+/// fit the terminal (<see cref="TextWrap"/>).
+/// </summary>
 internal sealed class ClearingWriter(ConsoleReport console) : TextWriter
 {
+    private readonly System.Text.StringBuilder line = new();
     private bool cleared;
 
     public override System.Text.Encoding Encoding => System.Text.Encoding.UTF8;
 
     public override void Write(char value)
     {
-        Clear();
-        console.Out.Write(value);
+        if (value == '\n')
+        {
+            EndLine();
+            return;
+        }
+
+        if (value != '\r')
+        {
+            line.Append(value);
+        }
+    }
+
+    public override void Write(string? value)
+    {
+        foreach (char c in value ?? "")
+        {
+            Write(c);
+        }
     }
 
     public override void WriteLine(string? value)
     {
-        Clear();
-        console.Out.WriteLine(value);
+        Write(value);
+        EndLine();
     }
 
-    private void Clear()
+    public override void WriteLine() => EndLine();
+
+    /// <summary>Writes a line begun but not ended; an ended line is written as it ends.</summary>
+    public override void Flush()
+    {
+        if (line.Length > 0)
+        {
+            EndLine();
+        }
+    }
+
+    private void EndLine()
     {
         if (!cleared)
         {
             console.Done();
             cleared = true;
         }
+
+        TextWrap.WriteLine(console.Out, line.ToString());
+        line.Clear();
     }
 }

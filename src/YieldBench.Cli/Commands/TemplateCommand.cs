@@ -1,4 +1,5 @@
 using System.CommandLine;
+using YieldBench.Cli.CommandLine;
 using YieldBench.Intake;
 
 namespace YieldBench.Cli.Commands;
@@ -18,26 +19,41 @@ internal static class TemplateCommand
             string path = parseResult.GetValue(output)!;
             if (!path.EndsWith(".xlsx", StringComparison.OrdinalIgnoreCase))
             {
-                context.Error.WriteLine($"template: '{path}' does not end in .xlsx; give a workbook name such as lots-template.xlsx.");
+                TextWrap.WriteLine(context.Error, $"template: '{UsageChecks.Shown(path)}' does not end in .xlsx; give a workbook name such as lots-template.xlsx.");
                 return ExitCodes.Usage;
             }
 
             string full = Path.GetFullPath(path, context.WorkingDirectory);
+            if (Directory.Exists(full))
+            {
+                TextWrap.WriteLine(context.Error, $"template: '{UsageChecks.Shown(path)}' is a folder; give a workbook name such as lots-template.xlsx.");
+                return ExitCodes.Usage;
+            }
+
             if (File.Exists(full) && !parseResult.GetValue(force))
             {
-                context.Error.WriteLine($"template: '{path}' already exists and was left as it is. Pass --force to replace it.");
-                return ExitCodes.InputProblems;
+                TextWrap.WriteLine(context.Error, $"template: '{UsageChecks.Shown(path)}' already exists and was left as it is. Pass --force to replace it, or give another name.");
+                return ExitCodes.Usage;
             }
 
             string? dir = Path.GetDirectoryName(full);
             if (dir is not null && !Directory.Exists(dir))
             {
-                context.Error.WriteLine($"template: the folder of '{path}' does not exist.");
+                TextWrap.WriteLine(context.Error, $"template: the folder of '{UsageChecks.Shown(path)}' does not exist.");
                 return ExitCodes.Usage;
             }
 
-            TemplateWriter.Write(full);
-            context.Out.WriteLine($"Wrote {path}: sheets '{TemplateWriter.LotsSheet}', '{TemplateWriter.LogSheet}' and '{TemplateWriter.ColumnsSheet}'. Fill in one row per lot; 'yieldbench check {path}' shows what would be read.");
+            try
+            {
+                TemplateWriter.Write(full);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                TextWrap.WriteLine(context.Error, $"template: '{UsageChecks.Shown(path)}' could not be written ({e.Message.TrimEnd('.')}); give another --out.");
+                return ExitCodes.Usage;
+            }
+
+            TextWrap.WriteLine(context.Out, $"Wrote {UsageChecks.Shown(path)}: sheets '{TemplateWriter.LotsSheet}', '{TemplateWriter.LogSheet}' and '{TemplateWriter.ColumnsSheet}'. Fill in one row per lot; 'yieldbench check {path}' shows what would be read.");
             return ExitCodes.Success;
         });
         return command;

@@ -155,7 +155,8 @@ public static class HouseFactorAnalysis
             };
         }
 
-        var overall = Choose("*", results, r => r.HeldOut, r => true, settings);
+        double referenceBrix = Statistics.Descriptive.Median(usable.Select(l => l.EffectiveStartingBrix));
+        var overall = Choose("*", results, r => r.HeldOut, r => true, settings, referenceBrix);
         var byStrain = new List<Recommendation>();
         var strainCounts = usable.GroupBy(l => l.Lot.Strain, StringComparer.Ordinal).OrderBy(g => g.Key, StringComparer.Ordinal)
             .Select(g => (Strain: g.Key, Count: g.Count())).ToArray();
@@ -167,7 +168,7 @@ public static class HouseFactorAnalysis
             }
 
             // Per-strain choices feed the planner, which needs a predictor of strain and sugar alone.
-            var rec = Choose(strain, results, r => r.HeldOut.Where(p => p.Strain == strain).ToArray(), r => r.FullFit is not null, settings);
+            var rec = Choose(strain, results, r => r.HeldOut.Where(p => p.Strain == strain).ToArray(), r => r.FullFit is not null, settings, referenceBrix);
             if (rec is not null)
             {
                 byStrain.Add(rec);
@@ -181,6 +182,15 @@ public static class HouseFactorAnalysis
         }
 
         var planning = BuildPlanning(results, overall!, byStrain, strainCounts.Select(s => s.Strain).ToArray(), primaryScheme, settings, explanation);
+        if (planning is not null)
+        {
+            planning = planning with
+            {
+                ReferenceBrix = referenceBrix,
+                HistoryLowBrix = usable.Min(l => l.EffectiveStartingBrix),
+                HistoryHighBrix = usable.Max(l => l.EffectiveStartingBrix),
+            };
+        }
         explanation.InsertRange(0, Explain(overall!, results, primaryScheme, settings));
         foreach (var r in byStrain)
         {
@@ -250,7 +260,8 @@ public static class HouseFactorAnalysis
         IReadOnlyList<CandidateResult> results,
         Func<CandidateResult, IReadOnlyList<HeldOutPrediction>> heldOut,
         Func<CandidateResult, bool> eligible,
-        HouseFactorSettings settings)
+        HouseFactorSettings settings,
+        double referenceBrix)
     {
         var pool = results.Where(eligible).ToArray();
         var preds = pool.Select(heldOut).ToArray();
@@ -271,7 +282,13 @@ public static class HouseFactorAnalysis
         string why = ch.Chosen == ch.Best
             ? $"{who}: {chosen.Name} has the lowest held-out error (MAE {F(m.Mae)} % v/v, standard error {F(ch.Limit - m.Mae)}) and no simpler candidate comes within one standard error of it."
             : $"{who}: {chosen.Name} is the simplest candidate within one standard error of the best ({best.Name}, MAE {F(metrics[ch.Best].Mae)}; limit {F(ch.Limit)}); it costs {F(m.Mae - metrics[ch.Best].Mae)} % v/v of MAE and {F(100 * (metrics[ch.Best].ShareWithinTolerance - m.ShareWithinTolerance), "0.#")} points of lots within tolerance.";
-        return new Recommendation(strain, m.Lots, chosen.Id, best.Id, m, ch.Limit, band80, band95, why);
+        double factor = chosen.FullFit is { } fit ? fit.Predict(strain, referenceBrix) / referenceBrix : double.NaN;
+        if (double.IsFinite(factor))
+        {
+            why += $" Its factor: {F(factor, "0.0000")} % v/v per °Brix at {F(referenceBrix, "0.0")} °Brix.";
+        }
+
+        return new Recommendation(strain, m.Lots, chosen.Id, best.Id, m, ch.Limit, band80, band95, why) { Factor = factor, ReferenceBrix = referenceBrix };
     }
 
     private static PlanningModel? BuildPlanning(

@@ -46,7 +46,18 @@ public sealed record Recommendation(
     double MaeLimit,
     (double Low, double High) ErrorBand80,
     (double Low, double High) ErrorBand95,
-    string Explanation);
+    string Explanation)
+{
+    /// <summary>
+    /// The number to use: the chosen candidate's alcohol per °Brix at <see cref="ReferenceBrix"/>, % v/v per °Brix
+    /// (its prediction there ÷ the sugar; for all lots, its pooled line). NaN for a model that needs more than strain
+    /// and sugar.
+    /// </summary>
+    public double Factor { get; init; } = double.NaN;
+
+    /// <summary>The starting sugar <see cref="Factor"/> is quoted at: the median effective starting sugar of the lots, °Brix.</summary>
+    public double ReferenceBrix { get; init; } = double.NaN;
+}
 
 /// <summary>The house-factor section of a review.</summary>
 public sealed record HouseFactorReview

@@ -13,10 +13,10 @@ namespace YieldBench.Core.HouseFactor;
 /// <param name="Note">Why there is no answer, or what it rests on; null when plain.</param>
 public sealed record ThresholdAnswer(string Strain, double TargetAbv, double Confidence, double HighestBrix, double ErrorAllowance, string? Note);
 
-/// <summary>Water add-back that brings a must to the sugar expected to give a target alcohol.</summary>
-/// <param name="TargetBrix">Starting °Brix aimed at.</param>
-/// <param name="WaterL">Water to add, L (0 when the must is already at or below the target).</param>
-/// <param name="VolumeAfterL">Must volume after the addition, L (mixing contraction ignored).</param>
+/// <summary>Water add-back that brings a juice to the sugar expected to give a target alcohol.</summary>
+/// <param name="TargetBrix">°Brix of the juice after the addition (the measured °Brix when no water is needed).</param>
+/// <param name="WaterL">Water to add, L (0 when the juice is already at or below the target).</param>
+/// <param name="VolumeAfterL">Juice volume after the addition, L, by the review's mass balance (mass over the density of a sucrose solution of the new °Brix).</param>
 /// <param name="After">Predicted alcohol of the diluted must, with intervals.</param>
 /// <param name="Note">What the answer rests on or why there is none; null when plain.</param>
 public sealed record AddBackAnswer(double TargetBrix, double WaterL, double VolumeAfterL, AlcoholEstimate? After, string? Note);
@@ -28,6 +28,12 @@ public sealed record AddBackAnswer(double TargetBrix, double WaterL, double Volu
 /// </summary>
 public static class Planner
 {
+    /// <summary>Lowest starting sugar the planner accepts, °Brix: the lower end intake accepts for a starting-sugar cell.</summary>
+    public const double LowestMustBrix = 10.0;
+
+    /// <summary>Highest starting sugar the planner accepts, °Brix: the upper end intake accepts for a starting-sugar cell.</summary>
+    public const double HighestMustBrix = 40.0;
+
     /// <summary>Predicted alcohol at a starting sugar, with season-aware 80 % and 95 % intervals from the line's held-out errors.</summary>
     public static AlcoholEstimate Estimate(PlanningLine line, SugarReading startingSugar)
     {
@@ -89,19 +95,23 @@ public static class Planner
     }
 
     /// <summary>
-    /// Water to add so the must's predicted alcohol comes to the target: the target °Brix is the sugar whose
-    /// prediction is the target (at <paramref name="confidence"/>, when given, the sugar of <see cref="HighestSugar"/>);
-    /// the water follows from the mass balance on dissolved solids in <see cref="AdditionBalance.WaterForTarget"/>.
+    /// Water to add to <paramref name="juiceVolumeL"/> litres of juice at <paramref name="measured"/> so that its
+    /// predicted alcohol comes to the target (at <paramref name="confidence"/>, when given: to the target less the
+    /// upper error bound of <see cref="HighestSugar"/>). The balance is the review's
+    /// (<see cref="AdditionBalance.Apply(SugarReading, Lots.Additions, SugarModel)"/>): dissolved solids are kept, water
+    /// adds mass, and for the EU convention the fermentable sugar after the addition is the juice's sugar (OIV table)
+    /// diluted by the new volume — not the table's value at the diluted °Brix, which assumes the non-sugar solids of a
+    /// riper must. For a line, the water brings the juice to the °Brix whose prediction is the aim.
     /// </summary>
-    public static AddBackAnswer WaterAddBack(PlanningLine line, SugarReading measured, double mustVolumeL, double targetAbv, double? confidence)
+    public static AddBackAnswer WaterAddBack(PlanningLine line, SugarReading measured, double juiceVolumeL, double targetAbv, double? confidence)
     {
         ArgumentNullException.ThrowIfNull(line);
-        if (double.IsNaN(mustVolumeL) || mustVolumeL <= 0 || mustVolumeL > 1e9)
+        if (double.IsNaN(juiceVolumeL) || juiceVolumeL <= 0 || juiceVolumeL > 1e9)
         {
-            throw new ArgumentOutOfRangeException(nameof(mustVolumeL), mustVolumeL, "A must volume must be above 0 and at most 1e9 L.");
+            throw new ArgumentOutOfRangeException(nameof(juiceVolumeL), juiceVolumeL, "A juice volume must be above 0 and at most 1e9 L.");
         }
 
-        double targetBrix;
+        double aim;
         string? note;
         if (confidence is { } conf)
         {
@@ -111,28 +121,80 @@ public static class Planner
                 return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, t.Note);
             }
 
-            targetBrix = t.HighestBrix;
-            note = $"aims at the sugar that keeps the wine at or under {Number(targetAbv)} % v/v with {Percent(conf)} confidence";
+            aim = targetAbv - t.ErrorAllowance;
+            note = $"aims at a central prediction of {Number(aim)} % v/v, which keeps the wine at or under {Number(targetAbv)} % v/v with {Percent(conf)} confidence";
         }
         else
         {
-            targetBrix = line.BrixFor(targetAbv);
+            aim = targetAbv;
+            note = $"aims at a central prediction of {Number(targetAbv)} % v/v";
+        }
+
+        double water;
+        if (line.Curve == SugarCurve.EuConvention)
+        {
+            double sugarAim = aim * OivMustTable.SugarGramsPerPercentVolume;
+            water = WaterForSugar(measured, juiceVolumeL, sugarAim);
+        }
+        else
+        {
+            double targetBrix = line.BrixFor(aim);
             if (double.IsNaN(targetBrix))
             {
                 return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, "the predictor cannot reach this target within 0–50 °Brix");
             }
 
-            note = $"aims at the sugar whose central prediction is {Number(targetAbv)} % v/v";
+            water = AdditionBalance.WaterForTarget(measured, juiceVolumeL, targetBrix).WaterL;
         }
 
-        var (water, after) = AdditionBalance.WaterForTarget(measured, mustVolumeL, targetBrix);
-        double effective = water > 0 ? targetBrix : measured.Brix;
-        if (water <= 0)
+        if (!(water > 0))
         {
-            note = "the must is already at or below the target sugar: no water is needed";
+            var now = Estimate(line, measured);
+            return new AddBackAnswer(measured.Brix, 0, juiceVolumeL, now,
+                $"the juice's predicted alcohol, {Number(now.Predicted)} % v/v, is already at or below the aim of {Number(aim)} % v/v");
         }
 
-        return new AddBackAnswer(targetBrix, water, after, AlcoholEstimate.From(line.Predict(effective), line.ErrorModel), note);
+        var after = AdditionBalance.Apply(measured, new Lots.Additions(juiceVolumeL, water, null), SugarModel.Default);
+        double predicted = line.Curve == SugarCurve.EuConvention
+            ? after.EffectiveSugarGl / OivMustTable.SugarGramsPerPercentVolume
+            : line.Predict(after.Effective.Brix);
+        return new AddBackAnswer(after.Effective.Brix, water, after.VolumeAfterL ?? juiceVolumeL + water, AlcoholEstimate.From(predicted, line.ErrorModel), note);
+    }
+
+    /// <summary>
+    /// Water (L) that brings the fermentable sugar of the juice, by the review's balance, down to
+    /// <paramref name="sugarGl"/>: the balance's sugar falls steadily as water is added, so bisection finds it
+    /// (to 1e-6 L); 0 when the juice already holds no more.
+    /// </summary>
+    internal static double WaterForSugar(SugarReading measured, double juiceVolumeL, double sugarGl)
+    {
+        double SugarAfter(double water) =>
+            AdditionBalance.Apply(measured, new Lots.Additions(juiceVolumeL, water, null), SugarModel.Default).EffectiveSugarGl;
+        if (SugarAfter(0) <= sugarGl || !(sugarGl > 0))
+        {
+            return 0;
+        }
+
+        double low = 0, high = juiceVolumeL;
+        while (SugarAfter(high) > sugarGl)
+        {
+            high *= 2;
+        }
+
+        while (high - low > 1e-6)
+        {
+            double mid = (low + high) / 2;
+            if (SugarAfter(mid) > sugarGl)
+            {
+                low = mid;
+            }
+            else
+            {
+                high = mid;
+            }
+        }
+
+        return (low + high) / 2;
     }
 
     /// <summary>The threshold table of one line for several targets and confidences (targets outer, confidences inner).</summary>

@@ -76,6 +76,29 @@ public sealed record PlanningLine(
 /// <param name="Basis">In words: which candidate(s) and backtest the model comes from.</param>
 public sealed record PlanningModel(PlanningLine Pooled, IReadOnlyList<PlanningLine> Strains, string Basis)
 {
+    /// <summary>
+    /// The starting sugar the factors are quoted at, °Brix: the median effective starting sugar of the lots the model
+    /// learned from (NaN for a factor typed directly, which is the same at every sugar).
+    /// </summary>
+    public double ReferenceBrix { get; init; } = double.NaN;
+
+    /// <summary>Lowest effective starting sugar among the lots the model learned from, °Brix (NaN when unknown).</summary>
+    public double HistoryLowBrix { get; init; } = double.NaN;
+
+    /// <summary>Highest effective starting sugar among the lots the model learned from, °Brix (NaN when unknown).</summary>
+    public double HistoryHighBrix { get; init; } = double.NaN;
+
+    /// <summary>True when <paramref name="brix"/> lies outside the lots' range, so a prediction there extrapolates.</summary>
+    public bool Extrapolates(double brix) =>
+        double.IsFinite(HistoryLowBrix) && double.IsFinite(HistoryHighBrix) && (brix < HistoryLowBrix || brix > HistoryHighBrix);
+
+    /// <summary>The % v/v per °Brix a line stands for at <see cref="ReferenceBrix"/> (its slope for a typed factor).</summary>
+    public double FactorOf(PlanningLine line)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        return double.IsFinite(ReferenceBrix) ? line.FactorAt(ReferenceBrix) : line.Intercept == 0 ? line.SlopePerBrix : double.NaN;
+    }
+
     /// <summary>The line for a strain (null or unknown: the pooled line).</summary>
     public PlanningLine For(string? strain) =>
         strain is null ? Pooled : Strains.FirstOrDefault(s => string.Equals(s.Strain, strain, StringComparison.Ordinal)) ?? Pooled;

@@ -24,13 +24,23 @@ public sealed record PredictionInput(
     double? Ph = null,
     double? FermentationTempC = null)
 {
+    /// <summary>
+    /// Fermentable sugar after recorded additions by the OIV must table and the review's mass balance, g/L
+    /// (<see cref="AdditionBalance.Apply(Units.SugarReading, Lots.Additions, SugarModel)"/>): the EU convention's
+    /// numerator. NaN when no addition was recorded (then the table at <see cref="StartingBrix"/> is the same).
+    /// </summary>
+    public double BalancedSugarGl { get; init; } = double.NaN;
+
     /// <summary>The inputs of a lot whose conversion measures were computed.</summary>
     public static PredictionInput From(LotConversion lot)
     {
         ArgumentNullException.ThrowIfNull(lot);
         var l = lot.Lot;
         return new PredictionInput(
-            lot.EffectiveStartingBrix, l.Strain, l.Vessel, l.VesselCapacityL, l.Variety, l.YanMgL, l.Ph, l.MeanFermentationTempC);
+            lot.EffectiveStartingBrix, l.Strain, l.Vessel, l.VesselCapacityL, l.Variety, l.YanMgL, l.Ph, l.MeanFermentationTempC)
+        {
+            BalancedSugarGl = lot.AdditionsApplied ? AdditionBalance.Apply(l.StartingSugar, l.Additions, SugarModel.Default).EffectiveSugarGl : double.NaN,
+        };
     }
 }
 
@@ -132,7 +142,12 @@ public sealed record SugarLines(SugarCurve Curve, StrainLine Pooled, IReadOnlyLi
     public double PredictAbv(PredictionInput input)
     {
         ArgumentNullException.ThrowIfNull(input);
-        return Predict(input.Strain, input.StartingBrix);
+
+        // The EU convention divides the must's fermentable sugar by 16.83: after a water or sugar addition, the sugar
+        // the review's mass balance gives, not the table's value at the diluted or raised °Brix.
+        return Curve == SugarCurve.EuConvention && double.IsFinite(input.BalancedSugarGl)
+            ? input.BalancedSugarGl / Units.OivMustTable.SugarGramsPerPercentVolume
+            : Predict(input.Strain, input.StartingBrix);
     }
 
     /// <inheritdoc />

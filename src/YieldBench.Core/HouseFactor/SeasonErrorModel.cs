@@ -16,14 +16,22 @@ public readonly record struct SeasonError(double Error, int Season, string Strai
 /// <para>
 /// Estimates are the ANOVA (method-of-moments) ones for unbalanced clusters: MSW = Σ(e − ē_g)²/(n − G),
 /// MSB = Σ n_g(ē_g − ē)²/(G − 1), n₀ = (n − Σn_g²/n)/(G − 1), σ²_w = MSW, σ²_b = max(0, (MSB − MSW)/n₀). The mean
-/// ē (each lot weighted once) has variance σ²_w/n + σ²_b·Σn_g²/n². A lot of a season not yet seen has error
-/// e_new − ē with variance V = σ²_w + σ²_b + Var(ē), and its interval is ē ± t_ν·√V, with ν the
-/// Welch–Satterthwaite degrees of freedom of V as a combination of MSW (n − G df) and MSB (G − 1 df) (Satterthwaite
-/// 1946, <i>Biometrics Bulletin</i> 2:110): few seasons give few degrees of freedom and a wider interval.
+/// ē (each lot weighted once) has variance σ²_w/n + σ²_b·Σn_g²/n² (the standard error of a mean of clustered values).
 /// </para>
 /// <para>
-/// With one cluster, or clusters of one lot each, the between-cluster variance cannot be separated: σ²_b = 0,
-/// σ²_w is the sample variance (n − 1) and ν = n − 1, the usual prediction interval for an independent sample.
+/// For a lot of a season not yet seen the errors are read as what they are here: with S ≥ 2 seasons they come from
+/// leave-one-season-out, where season s is predicted by a model of the other S − 1, so its shift is compared with the
+/// mean of theirs: its cluster mean carries u_s − ū₋ₛ = S/(S − 1)·(u_s − ū), and the ANOVA σ²_b estimates
+/// (S/(S − 1))² times the season-to-season variance τ². Hence τ² = σ²_b·((S − 1)/S)². The model used next season
+/// is fitted on all S seasons, so a new season's lot has error variance V = σ²_w(1 + 1/n) + τ²(1 + 1/S) about ē,
+/// and its interval is ē ± t_ν·√V, with ν the Welch–Satterthwaite degrees of freedom of V as a combination of MSW
+/// (n − G df) and MSB (G − 1 df) (Satterthwaite 1946, <i>Biometrics Bulletin</i> 2:110): few seasons give few
+/// degrees of freedom and a wider interval.
+/// </para>
+/// <para>
+/// With one season, one cluster, or clusters of one lot each, the between-cluster variance cannot be separated:
+/// the errors are taken as an independent sample (σ²_w the sample variance, τ² = 0, ν = n − 1), the usual
+/// prediction interval ē ± t_{n−1}·s·√(1 + 1/n).
 /// </para>
 /// </summary>
 /// <param name="Count">Errors used.</param>
@@ -31,9 +39,11 @@ public readonly record struct SeasonError(double Error, int Season, string Strai
 /// <param name="Seasons">Seasons among them.</param>
 /// <param name="Mean">Mean error ē, % v/v (positive: wines came out stronger than predicted).</param>
 /// <param name="WithinVariance">σ²_w, (% v/v)².</param>
-/// <param name="BetweenVariance">σ²_b, (% v/v)².</param>
-/// <param name="VarianceOfMean">Var(ē), (% v/v)².</param>
-/// <param name="DegreesOfFreedom">ν of the predictive variance (NaN when undefined).</param>
+/// <param name="BetweenVariance">σ²_b of the errors as given, (% v/v)².</param>
+/// <param name="VarianceOfMean">Var(ē) = σ²_w/n + σ²_b·Σn_g²/n², (% v/v)².</param>
+/// <param name="SeasonVariance">τ², the season-to-season variance a new season brings, (% v/v)².</param>
+/// <param name="PredictiveVariance">V, the variance of a new season's lot's error about ē, (% v/v)².</param>
+/// <param name="DegreesOfFreedom">ν of <paramref name="PredictiveVariance"/> (NaN when undefined).</param>
 public sealed record SeasonErrorModel(
     int Count,
     int Clusters,
@@ -42,6 +52,8 @@ public sealed record SeasonErrorModel(
     double WithinVariance,
     double BetweenVariance,
     double VarianceOfMean,
+    double SeasonVariance,
+    double PredictiveVariance,
     double DegreesOfFreedom)
 {
     /// <summary>Fewest errors for an interval (default rule; fewer give no interval and the output says so).</summary>
@@ -51,7 +63,7 @@ public sealed record SeasonErrorModel(
     public double StandardErrorOfMean => Math.Sqrt(VarianceOfMean);
 
     /// <summary>Standard deviation of a new season's lot's error about <see cref="Mean"/>, % v/v.</summary>
-    public double PredictiveSd => Math.Sqrt(WithinVariance + BetweenVariance + VarianceOfMean);
+    public double PredictiveSd => Math.Sqrt(PredictiveVariance);
 
     /// <summary>True when there are enough errors for intervals.</summary>
     public bool HasIntervals => Count >= MinimumErrors && DegreesOfFreedom >= 1 && double.IsFinite(PredictiveSd);
@@ -81,7 +93,7 @@ public sealed record SeasonErrorModel(
     }
 
     /// <summary>
-    /// Fits the model to values with a cluster id each (0-based, dense); <paramref name="seasons"/> is only recorded.
+    /// Fits the model to values with a cluster id each (0-based, dense) drawn from <paramref name="seasons"/> seasons.
     /// </summary>
     public static SeasonErrorModel Of(IReadOnlyList<double> values, IReadOnlyList<int> cluster, int seasons)
     {
@@ -90,7 +102,7 @@ public sealed record SeasonErrorModel(
         int n = values.Count;
         if (n == 0)
         {
-            return new SeasonErrorModel(0, 0, seasons, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
+            return new SeasonErrorModel(0, 0, seasons, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
         }
 
         int g = 0;
@@ -118,12 +130,12 @@ public sealed record SeasonErrorModel(
             ssw += d * d;
         }
 
-        if (used < 2 || n - used < 1)
+        if (used < 2 || n - used < 1 || seasons < 2)
         {
             // No between-cluster variance can be separated: an independent sample.
             double ss = values.Sum(v => (v - mean) * (v - mean));
             double s2 = n >= 2 ? ss / (n - 1) : double.NaN;
-            return new SeasonErrorModel(n, used, seasons, mean, s2, 0, s2 / n, n >= 2 ? n - 1 : double.NaN);
+            return new SeasonErrorModel(n, used, seasons, mean, s2, 0, s2 / n, 0, s2 * (1 + (1.0 / n)), n >= 2 ? n - 1 : double.NaN);
         }
 
         double ssb = 0, sumSquares = 0;
@@ -143,23 +155,26 @@ public sealed record SeasonErrorModel(
         double msb = ssb / (used - 1);
         double n0 = (n - (sumSquares / n)) / (used - 1);
         double between = Math.Max(0, (msb - msw) / n0);
-        double k = sumSquares / ((double)n * n);
-        double varianceOfMean = (msw / n) + (between * k);
+        double varianceOfMean = (msw / n) + (between * sumSquares / ((double)n * n));
+
+        // Leave-one-season-out inflates the season component by (S/(S − 1))² (see the class notes).
+        double shrink = (seasons - 1.0) / seasons;
+        double seasonVariance = between * shrink * shrink;
+        double predictive = (msw * (1 + (1.0 / n))) + (seasonVariance * (1 + (1.0 / seasons)));
         double df;
-        if (between > 0)
+        if (seasonVariance > 0)
         {
-            // V = σ²_w(1 + 1/n) + σ²_b(1 + k) = a·MSW + b·MSB.
-            double b = (1 + k) / n0;
+            // V = a·MSW + b·MSB with τ² = shrink²·(MSB − MSW)/n₀.
+            double b = shrink * shrink * (1 + (1.0 / seasons)) / n0;
             double a = 1 + (1.0 / n) - b;
-            double v = (a * msw) + (b * msb);
-            df = v * v / ((a * a * msw * msw / (n - used)) + (b * b * msb * msb / (used - 1)));
+            df = predictive * predictive / ((a * a * msw * msw / (n - used)) + (b * b * msb * msb / (used - 1)));
         }
         else
         {
             df = n - used;
         }
 
-        return new SeasonErrorModel(n, used, seasons, mean, msw, between, varianceOfMean, df);
+        return new SeasonErrorModel(n, used, seasons, mean, msw, between, varianceOfMean, seasonVariance, predictive, df);
     }
 
     /// <summary>The error quantile at probability p ∈ (0, 1) for a lot of a new season: ē + t_ν(p)·√V; NaN without intervals.</summary>

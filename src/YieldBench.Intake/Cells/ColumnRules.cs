@@ -15,6 +15,30 @@ internal sealed record MappingRule(string FieldName, FieldDef? LotField, FieldDe
     public bool Used { get; set; }
 }
 
+/// <summary>Checks one explicit mapping as typed on a command line, before anything is read.</summary>
+public static class ColumnMapping
+{
+    /// <summary>
+    /// What is wrong with a "FIELD=HEADER" mapping, or null when it is one: the same words intake reports for a bad
+    /// mapping line (an unknown field's message lists every field name).
+    /// </summary>
+    public static string? Problem(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        int eq = text.IndexOf('=');
+        string field = eq > 0 ? text[..eq].Trim() : "";
+        string header = eq > 0 ? text[(eq + 1)..].Trim() : "";
+        if (field.Length == 0 || header.Length == 0)
+        {
+            return $"'{TextSettling.ForDisplay(text)}': " + IntakeMessages.MappingLineNotUnderstood();
+        }
+
+        return ColumnRules.FieldAliases.ContainsKey(field)
+            ? null
+            : IntakeMessages.MappingUnknownField(TextSettling.ForDisplay(field), ColumnRules.FieldAliases.Keys.Order(StringComparer.Ordinal));
+    }
+}
+
 /// <summary>Explicit column mappings and the synonym indexes the header matcher uses.</summary>
 internal static class ColumnRules
 {

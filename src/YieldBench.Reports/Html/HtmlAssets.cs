@@ -51,7 +51,7 @@ td.factor { font-weight: 700; font-size: 1.08em; }
 .severity.check { background: {{HeaderFill}}; }
 .severity.note { border: 1px solid {{Hairline}}; }
 .cellar-note { display: block; color: {{Muted}}; font-size: 0.9em; margin-top: 2px; }
-table.lots td:nth-child(2), table.lots td:nth-child(3) { white-space: nowrap; }
+table.lots td:nth-child(2), table.lots td:nth-child(3), table.lots thead th { white-space: nowrap; }
 table.lots td:nth-child(4) { min-width: 9em; }
 table.lots td:nth-child(5) { min-width: 18em; }
 code { font-family: "DejaVu Sans Mono", Consolas, monospace; font-size: 0.88em; }

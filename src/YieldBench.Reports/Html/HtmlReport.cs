@@ -209,7 +209,7 @@ public static class HtmlReport
         page.Append(HtmlCharts.StrainFactors(s, "strain-chart", description));
         page.Append($"\n<figcaption>{Escape(description)} Where two bars do not overlap, the strains differ by more than the noise.</figcaption>\n</figure>\n");
 
-        page.Append("<div class=\"scroll\"><table class=\"numbers\">\n<caption>The strains ranked</caption>\n<thead><tr><th scope=\"col\">Rank</th><th scope=\"col\">Strain</th><th scope=\"col\">Lots</th>");
+        page.Append("<div class=\"scroll\"><table class=\"numbers\">\n<caption>The strains ranked</caption>\n<thead><tr><th scope=\"col\">Rank</th><th scope=\"col\" class=\"text\">Strain</th><th scope=\"col\">Lots</th>");
         if (s.Adjusted)
         {
             page.Append($"<th scope=\"col\">At {Number(s.ReferenceBrix, "0.0")} °Brix <span class=\"unit\">% v/v per °Brix</span></th><th scope=\"col\">95 % interval</th>");

@@ -47,6 +47,8 @@ public static partial class ReviewTables
         new("strain", "Strain", CellKind.Text, r => StrainName(r.Recommendation.Strain)),
         new("lots", "Lots", CellKind.Integer, r => r.Recommendation.Lots),
         new("candidate", "Recommended", CellKind.Text, r => r.Candidate),
+        new("factor_abv_per_brix", "Factor (% v/v per °Brix)", CellKind.Number, r => r.Recommendation.Factor, "0.0000"),
+        new("reference_brix", "At starting sugar (°Brix)", CellKind.Number, r => r.Recommendation.ReferenceBrix, "0.0"),
         new("best_candidate", "Lowest error", CellKind.Text, r => r.Best),
         new("mae_abv", "Mean absolute error (% v/v)", CellKind.Number, r => r.Recommendation.Metrics.Mae, "0.000"),
         new("mae_limit_abv", "Best MAE + 1 SE (% v/v)", CellKind.Number, r => r.Recommendation.MaeLimit, "0.000"),

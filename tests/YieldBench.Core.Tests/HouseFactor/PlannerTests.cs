@@ -1,4 +1,6 @@
+using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Lots;
 using YieldBench.Core.Units;
 
 namespace YieldBench.Core.Tests.HouseFactor;
@@ -34,7 +36,9 @@ public class PlannerTests
         double water = (massAfter - mass) / 0.99820;
         Assert.Equal(targetBrix, answer.TargetBrix, 1e-9);
         Assert.Equal(water, answer.WaterL, 1e-6);
-        Assert.Equal(5000 + water, answer.VolumeAfterL, 1e-6);
+
+        // and the volume afterwards is the review's: mass after over the density of a 24.17 °Brix solution
+        Assert.Equal(massAfter / (SugarReading.FromBrix(targetBrix).SpecificGravity * 0.99820), answer.VolumeAfterL, 1e-6);
         Assert.InRange(answer.WaterL, 420, 430); // order of magnitude: 26 → 24.17 °Bx dilutes ~7.6 % of ~5550 kg
         Assert.Equal(14.5, answer.After!.Predicted, 1e-9);
     }
@@ -94,7 +98,33 @@ public class PlannerTests
         var answer = Planner.WaterAddBack(LineWithErrors(0.6, SpreadErrors(50, 5)), SugarReading.FromBrix(22), 1000, 14.5, null);
         Assert.Equal(0, answer.WaterL);
         Assert.Equal(1000, answer.VolumeAfterL);
-        Assert.Equal("the must is already at or below the target sugar: no water is needed", answer.Note);
+        Assert.Equal("the juice's predicted alcohol, 13.2 % v/v, is already at or below the aim of 14.5 % v/v", answer.Note);
+    }
+
+    [Fact]
+    public void The_EU_convention_add_back_uses_the_reviews_mass_balance()
+    {
+        // Given the EU convention and 2000 L of juice at 120 °Oechsle (28.08 °Brix), to come to 14.0 % v/v
+        var line = new PlanningLine("*", "eu-convention", SugarCurve.EuConvention, double.NaN, double.NaN, 0, [], "none");
+        var must = SugarReading.FromOechsle(120);
+
+        // When the planner works out the add-back
+        var answer = Planner.WaterAddBack(line, must, 2000, 14.0, null);
+
+        // Then the review's balance of that addition (the juice's OIV sugar diluted into the new volume) gives exactly
+        // 14.0 % v/v: 14.0 × 16.83 = 235.62 g/L, and the planner says so
+        var balance = AdditionBalance.Apply(must, new Additions(2000, answer.WaterL, null), SugarModel.Default);
+        Assert.Equal(14.0 * 16.83, balance.EffectiveSugarGl, 1e-4);
+        Assert.Equal(14.0, answer.After!.Predicted, 1e-6);
+        Assert.Equal(balance.Effective.Brix, answer.TargetBrix, 1e-9);
+
+        // The table's value at the diluted °Brix assumes the non-sugar solids of a riper must and would have stopped
+        // short: water to the °Brix whose OIV potential is 14.0 (401 L) gives 14.15 % v/v by the balance
+        double tableBrix = line.BrixFor(14.0);
+        double tableWater = AdditionBalance.WaterForTarget(must, 2000, tableBrix).WaterL;
+        double byBalance = AdditionBalance.Apply(must, new Additions(2000, tableWater, null), SugarModel.Default).EffectiveSugarGl / 16.83;
+        Assert.True(answer.WaterL > tableWater + 10, $"balance {answer.WaterL} L, table {tableWater} L");
+        Assert.InRange(byBalance - 14.0, 0.1, 0.3);
     }
 
     [Fact]

@@ -71,23 +71,26 @@ public class RegimeAndIntervalTests
         // When the model is fitted
         var m = SeasonErrorModel.Of(y.Select((e, i) => new SeasonError(e, season[i], "SX-01")).ToArray());
 
-        // Then the mean squares are R's anova(lm(y ~ g)) and the variance components, variance of the mean,
-        // Satterthwaite degrees of freedom and t quantiles follow the formulas in the class's documentation
-        // (R 4.2.2, Debian r-base-core; script: msw, msb from anova(); n0 = (n − Σn²/n)/(G − 1); s2b = (msb − msw)/n0;
-        // V = msw(1 + 1/n) + s2b(1 + Σn²/n²); nu by Satterthwaite; mean(y) + qt(p, nu)·√V):
-        // msw 0.0116858333333333, s2b 0.0216214527027027, Var(mean) 0.00817839714714715, V 0.0414856831831832,
-        // nu 3.27440274698774, q10 −0.289504526648777, q90 0.36283785998211, q97.5 0.655195706517553
+        // Then the mean squares are R's anova(lm(y ~ g)) and the variance components, variance of the mean, season
+        // variance, predictive variance, Satterthwaite degrees of freedom and t quantiles follow the formulas in the
+        // class's documentation (R 4.2.2, Debian r-base-core; script: msw, msb from anova(); n0 = (n − Σn²/n)/(G − 1);
+        // s2b = (msb − msw)/n0; varmean = msw/n + s2b·Σn²/n²; tau2 = s2b·((S − 1)/S)²; V = msw(1 + 1/n) + tau2(1 + 1/S);
+        // b = ((S − 1)/S)²(1 + 1/S)/n0, a = 1 + 1/n − b, nu = V²/((a·msw)²/(n − G) + (b·msb)²/(G − 1));
+        // mean(y) + qt(p, nu)·√V): msw 0.0116858333333333, s2b 0.0216214527027027, varmean 0.00817839714714715,
+        // tau2 0.00960953453453453, V 0.0252776016016016, nu 5.74348321005259, q10 −0.193499570364222,
+        // q90 0.266832903697555, q97.5 0.429950335930742
         Assert.Equal(15, m.Count);
         Assert.Equal(3, m.Clusters);
         Assert.Equal(0.0366666666666667, m.Mean, 1e-12);
         Assert.Equal(0.0116858333333333, m.WithinVariance, 1e-12);
         Assert.Equal(0.0216214527027027, m.BetweenVariance, 1e-12);
         Assert.Equal(0.00817839714714715, m.VarianceOfMean, 1e-12);
-        Assert.Equal(0.0414856831831832, m.PredictiveSd * m.PredictiveSd, 1e-12);
-        Assert.Equal(3.27440274698774, m.DegreesOfFreedom, 1e-9);
-        Assert.Equal(-0.289504526648777, m.Quantile(0.10), 1e-7);
-        Assert.Equal(0.36283785998211, m.Quantile(0.90), 1e-7);
-        Assert.Equal(0.655195706517553, m.Quantile(0.975), 1e-7);
+        Assert.Equal(0.00960953453453453, m.SeasonVariance, 1e-12);
+        Assert.Equal(0.0252776016016016, m.PredictiveVariance, 1e-12);
+        Assert.Equal(5.74348321005259, m.DegreesOfFreedom, 1e-9);
+        Assert.Equal(-0.193499570364222, m.Quantile(0.10), 1e-7);
+        Assert.Equal(0.266832903697555, m.Quantile(0.90), 1e-7);
+        Assert.Equal(0.429950335930742, m.Quantile(0.975), 1e-7);
     }
 
     [Fact]

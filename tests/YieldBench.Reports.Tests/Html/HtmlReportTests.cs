@@ -217,6 +217,49 @@ public sealed partial class HtmlReportTests
         Assert.Contains("Defer to local codes and licensed practice.", cautions, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Rows_left_out_are_listed_by_reason_and_a_review_without_logs_says_so()
+    {
+        // Given the sample review without logs, whose intake left one row out (final_abv "13,2%")
+        var review = SampleReview.Build();
+        string page = HtmlReport.Render(review);
+
+        // Then the inputs give the reason with its count and example, and the ferments section says no log was read
+        string inputs = Regex.Match(page, "<section id=\"inputs\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("<caption>Rows left out, by reason</caption>", inputs, StringComparison.Ordinal);
+        Assert.Contains("<th scope=\"row\"><code>not-a-number</code></th><td class=\"num\">1</td><td>&#39;13,2%&#39; is not a number; write 13.2.</td>", inputs, StringComparison.Ordinal);
+        Assert.Contains("1 row left out", inputs, StringComparison.Ordinal);
+        string ferments = Regex.Match(page, "<section id=\"ferments\".*?</section>", RegexOptions.Singleline).Value;
+        Assert.Contains("No fermentation log was read", ferments, StringComparison.Ordinal);
+        Assert.Equal(1, Regex.Count(page, "<svg "));
+    }
+
+    [Fact]
+    public void A_review_too_small_for_a_recommendation_still_makes_a_whole_page()
+    {
+        // Given three lots of one strain in one season: too few to compare strains or recommend a factor
+        var lots = Review.Value.Inputs.Lots.Take(3).ToArray();
+        var review = ReviewRunner.Run(new SeasonSet { Lots = lots }, new ReviewSettings(), "9.9.9-test");
+        Assert.Null(review.Overview.Factors);
+
+        // When its page is written
+        string page = HtmlReport.Render(review);
+
+        // Then every section is there, the decisions say why there is no factor, and the page closes properly
+        foreach (var (id, _) in HtmlReport.Sections)
+        {
+            Assert.Contains($"<section id=\"{id}\"", page, StringComparison.Ordinal);
+        }
+
+        Assert.Contains("No conversion factor is recommended.", page, StringComparison.Ordinal);
+        foreach (string why in review.Overview.NoRecommendation)
+        {
+            Assert.Contains(HtmlText.Escape(why), page, StringComparison.Ordinal);
+        }
+
+        Assert.EndsWith("</html>\n", page, StringComparison.Ordinal);
+    }
+
     private static string Sha(string text) => Convert.ToBase64String(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
 
     [GeneratedRegex("<h([1-6])(?: id=\"([^\"]*)\")?")]
