@@ -62,15 +62,16 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         Assert.Equal(0, demo.ExitCode);
         Assert.Equal(string.Empty, demo.Error);
         Assert.StartsWith("No inputs given: forecasting the bundled demo's harvest in progress", demo.Out, StringComparison.Ordinal);
-        Assert.Contains("Forecast for 10 running lot(s) of 2026 (readings stand at Fri 18 Sep 17:", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("Forecast for 10 running lot(s) of 2026 (readings stand at Fri 18 Sep 17:", Cli.Flat(demo.Out), StringComparison.Ordinal);
         for (int i = 1; i <= 10; i++)
         {
             Assert.Contains($"Lot 26-{i:000} (", demo.Out, StringComparison.Ordinal);
         }
 
-        Assert.Contains("Backtest, each of 2023, 2024, 2025 held out in turn", demo.Out, StringComparison.Ordinal);
-        Assert.Contains("no substitute for the next reading", demo.Out, StringComparison.Ordinal);
-        Assert.Contains("carbon dioxide", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("Backtest, each of 2023, 2024, 2025 held out in turn", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.Contains("no substitute for the next reading", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.Contains("carbon dioxide", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.All(demo.Out.Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
         Assert.Equal(0, demo.SecondExitCode);
         Assert.Equal(string.Empty, demo.QuietOut);
     }
@@ -116,7 +117,7 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         Assert.True(hot.GetProperty("peak_temp_c").GetProperty("value").GetDouble() > 40);
         Assert.True(hot.GetProperty("cooling_kw").GetDouble() > 1);
         Assert.True(hot.GetProperty("reachable_without_cooling_c").GetDouble() > 50);
-        Assert.Contains("above the 40 °C danger threshold — cool it now", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("above the 40 °C danger threshold — cool it now", Cli.Flat(demo.Out), StringComparison.Ordinal);
 
         // The trial strain stands on the pooled prior; the lot without an inoculation time counts from its first reading
         Assert.Equal("pooled", demo.Lot("26-009").GetProperty("basis").GetProperty("strain_prior").GetString());
@@ -201,23 +202,28 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
 
         // Then the bad row is named with file, row and column and left out (exit 1), and the good lot forecast from its prior
         Assert.Equal(1, exit);
-        Assert.Contains("left out: r/lots-2026.csv, row 3, column Start Brix", error, StringComparison.Ordinal);
-        Assert.Contains("Lot 26-201 (YB-W22)", output, StringComparison.Ordinal);
-        Assert.Contains("has no sugar reading yet", output, StringComparison.Ordinal);
-        Assert.Contains("Lot 26-203 has neither an inoculation time nor a reading", output, StringComparison.Ordinal);
+        Assert.Contains("forecast: error r/lots-2026.csv, row 3, column \"Start Brix\"", Cli.Flat(error), StringComparison.Ordinal);
+        string flat = Cli.Flat(output);
+        Assert.Contains("Lot 26-201 (YB-W22)", flat, StringComparison.Ordinal);
+        Assert.Contains("has no sugar reading yet", flat, StringComparison.Ordinal);
+        Assert.Contains("Lot 26-203 has neither an inoculation time nor a reading", flat, StringComparison.Ordinal);
+        Assert.All(output.Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
     }
 
     [Theory]
-    [InlineData("forecast", "demo-data-copy")]
-    [InlineData("forecast", "--running", "x.csv")]
-    [InlineData("forecast", "--no-such-option")]
-    public void A_command_line_that_is_not_understood_exits_2_before_any_work(params string[] args)
+    [InlineData("the lots still fermenting are missing", "forecast", "demo-data-copy")]
+    [InlineData("the history is missing", "forecast", "--running", "demo-data-copy")]
+    [InlineData("'--no-such-option' is not an option of forecast", "forecast", "--no-such-option")]
+    [InlineData("the input 'x.csv' was not found", "forecast", "demo-data-copy", "--running", "x.csv")]
+    [InlineData("--season 20 is not a year", "forecast", "--season", "20")]
+    public void A_command_line_that_is_not_understood_exits_2_before_any_work(string expected, params string[] args)
     {
         using var folder = new Scratch();
         folder.Write("demo-data-copy/a.csv", "Lot,Yeast,Brix,Alcohol % v/v\n");
-        var (exit, _, error) = Cli.Run(folder.Root, args);
+        var (exit, output, error) = Cli.Run(folder.Root, args);
         Assert.Equal(2, exit);
-        Assert.NotEqual(string.Empty, error);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(expected, Cli.Flat(error), StringComparison.Ordinal);
         Assert.False(Directory.Exists(Path.Combine(folder.Root, "yieldbench-forecast")));
     }
 
@@ -228,7 +234,7 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         folder.Write("mine/notes.txt", "my notes");
         var (exit, _, error) = Cli.Run(folder.Root, "forecast", "--out", "mine", "--quiet");
         Assert.Equal(2, exit);
-        Assert.Contains("holds files this tool did not write", error, StringComparison.Ordinal);
+        Assert.Contains("holds files this tool did not write", Cli.Flat(error), StringComparison.Ordinal);
         Assert.Equal(["notes.txt"], Directory.GetFiles(Path.Combine(folder.Root, "mine")).Select(Path.GetFileName));
     }
 

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using YieldBench.Cli.CommandLine;
 using YieldBench.Core.Forecast;
 using YieldBench.Core.Lots;
 using YieldBench.Intake;
@@ -21,6 +22,9 @@ internal static class ForecastCommand
     /// <summary>The demo's harvest in progress, beside the demo folder.</summary>
     public const string DemoRunning = "demo-running";
 
+    /// <summary>The command's name, as messages start.</summary>
+    private const string Name = "forecast";
+
     /// <summary>Said when no inputs are given.</summary>
     public const string DemoNotice =
         "No inputs given: forecasting the bundled demo's harvest in progress from its three past seasons (an invented winery, invented strain codes; not real data).";
@@ -33,9 +37,10 @@ internal static class ForecastCommand
         var quiet = new Option<bool>("--quiet") { Description = "Print nothing but errors." };
         var columns = new Option<string[]>("--column") { Description = "Map a field to a header, FIELD=HEADER (repeatable), for history and running files alike.", AllowMultipleArgumentsPerToken = false };
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one FIELD = HEADER a line." };
+        var season = UsageChecks.SeasonOption("Season (vintage year) for files whose season no column, sheet or file name gives (history and running files alike).");
         var command = new Command("forecast", "Forecast lots still fermenting from the cellar's own history: one-third depletion, dryness, peak temperature, cooling, stuck risk; with a backtest.");
         command.Arguments.Add(history);
-        foreach (var option in new Option[] { running, output, quiet, columns, mapping })
+        foreach (var option in new Option[] { running, output, quiet, columns, mapping, season })
         {
             command.Options.Add(option);
         }
@@ -46,12 +51,13 @@ internal static class ForecastCommand
             parse.GetValue(output) ?? DefaultOutput,
             parse.GetValue(quiet),
             parse.GetValue(columns) ?? [],
-            parse.GetValue(mapping))));
+            parse.GetValue(mapping),
+            parse.GetValue(season))));
         return command;
     }
 
     /// <summary>What the user asked for.</summary>
-    internal sealed record Request(IReadOnlyList<string> History, IReadOnlyList<string> Running, string Output, bool Quiet, IReadOnlyList<string> Columns, string? Mapping);
+    internal sealed record Request(IReadOnlyList<string> History, IReadOnlyList<string> Running, string Output, bool Quiet, IReadOnlyList<string> Columns, string? Mapping, int? Season = null);
 
     internal static int Run(CliContext context, Request request)
     {
@@ -59,64 +65,80 @@ internal static class ForecastCommand
         {
             if (!request.Quiet)
             {
-                context.Out.WriteLine(line);
+                TextWrap.WriteLine(context.Out, UsageChecks.Shown(line));
             }
+        }
+
+        int Usage(string message)
+        {
+            TextWrap.WriteLine(context.Error, UsageChecks.Shown(message));
+            return ExitCodes.Usage;
         }
 
         var history = request.History.ToList();
         var running = request.Running.ToList();
+        if ((UsageChecks.Inputs(Name, history, context.WorkingDirectory)
+            ?? UsageChecks.Inputs(Name, running, context.WorkingDirectory)
+            ?? UsageChecks.Columns(Name, request.Columns)
+            ?? UsageChecks.MappingFile(Name, request.Mapping, context.WorkingDirectory)) is { } usage)
+        {
+            return Usage(usage);
+        }
+
         string root = context.WorkingDirectory;
-        if (history.Count == 0 && running.Count == 0)
+        bool demoRun = history.Count == 0 && running.Count == 0;
+        if (demoRun)
         {
             string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
             string demoRunning = Path.Combine(AppContext.BaseDirectory, DemoRunning);
             if (!Directory.Exists(demo) || !Directory.Exists(demoRunning))
             {
-                context.Error.WriteLine($"No inputs given and the bundled demo data is missing ({demo}, {demoRunning}); give the history and --running files.");
-                return ExitCodes.Usage;
+                return Usage($"{Name}: no inputs given and the bundled demo data is missing ({demo}, {demoRunning}); give the history and --running files.");
             }
 
             root = AppContext.BaseDirectory;
             history.Add("demo-data");
             running.Add(DemoRunning);
-            Say(DemoNotice);
         }
         else if (running.Count == 0)
         {
-            context.Error.WriteLine("forecast needs the lots still fermenting: give them with --running FILE… (a lots table and their logs).");
-            return ExitCodes.Usage;
+            return Usage($"{Name}: the lots still fermenting are missing; give them with --running FILE… (a lots table and their logs).");
         }
         else if (history.Count == 0)
         {
-            context.Error.WriteLine("forecast needs the history the priors come from: give the past seasons' lots and logs (what review reads) before --running.");
-            return ExitCodes.Usage;
+            return Usage($"{Name}: the history is missing; give the past seasons' lots and logs (what review reads) before --running.");
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);
-        if (ReportFolder.Problem(outFolder, history.Concat(running).Select(i => Path.GetFullPath(i, root))) is { } clash)
+        if (((ReportFolder.Problem(outFolder, history.Concat(running).Select(i => Path.GetFullPath(i, root))) is { } clash ? $"{Name}: " + clash : null)
+            ?? UsageChecks.WritableFolder(Name, outFolder, request.Output)) is { } outProblem)
         {
-            context.Error.WriteLine(clash);
-            return ExitCodes.Usage;
+            return Usage(outProblem);
+        }
+
+        if (demoRun)
+        {
+            Say(DemoNotice);
         }
 
         var options = new IntakeOptions
         {
             ColumnMappings = request.Columns,
             MappingFile = request.Mapping is null ? null : Path.GetFullPath(request.Mapping, context.WorkingDirectory),
+            Season = request.Season,
             WorkingDirectory = root,
         };
         var past = IntakeReader.Read(history, options);
         var now = IntakeReader.Read(running, options with { RunningLots = true });
         if (ReportFolder.Problem(outFolder, past.Files.Concat(now.Files).Select(f => Path.GetFullPath(f.Path, root))) is { } fileClash)
         {
-            context.Error.WriteLine(fileClash);
-            return ExitCodes.Usage;
+            return Usage($"{Name}: " + fileClash);
         }
 
-        ReportIssues(context, request.Quiet, past, now);
+        ReportIssues(context, request.Quiet, past, now, Path.Combine(request.Output, ForecastWorkbook.FileName));
         if (now.RunningLots.Count == 0)
         {
-            context.Error.WriteLine("No running lot could be read from the --running files (a lots table with lot id, strain and starting sugar is needed; see the issues above).");
+            TextWrap.WriteLine(context.Error, $"{Name}: no running lot could be read from the --running files (a lots table with lot id, strain and starting sugar is needed; the issues above say why).");
             return ExitCodes.InputProblems;
         }
 
@@ -127,7 +149,7 @@ internal static class ForecastCommand
         }
         catch (ArgumentException e)
         {
-            context.Error.WriteLine($"The forecast cannot be made: {e.Message.Split(" (Parameter", StringSplitOptions.None)[0]}");
+            TextWrap.WriteLine(context.Error, UsageChecks.Shown($"{Name}: the forecast cannot be made: {e.Message.Split(" (Parameter", StringSplitOptions.None)[0]}"));
             return ExitCodes.InputProblems;
         }
 
@@ -138,8 +160,7 @@ internal static class ForecastCommand
         }
         catch (ReportFolderException e)
         {
-            context.Error.WriteLine(e.Message);
-            return ExitCodes.Usage;
+            return Usage($"{Name}: " + e.Message);
         }
 
         foreach (var line in ConsoleLines(report, written, context.WorkingDirectory))
@@ -147,33 +168,37 @@ internal static class ForecastCommand
             Say(line);
         }
 
+
         bool leftOut = past.Issues.Concat(now.Issues).Any(i => i.Severity == IssueSeverity.Error);
         return leftOut ? ExitCodes.InputProblems : ExitCodes.Success;
     }
 
     /// <summary>
-    /// Intake issues: every issue of the running files (they are what is forecast), and the history's errors (its
-    /// warnings are counted; <c>yieldbench check</c> lists them).
+    /// Intake issues: every issue of the running files (they are what is forecast), each with its place and fix (errors
+    /// on standard error, notes on standard output unless quiet); the history's are counted, and all are in the
+    /// workbook's "Intake issues" sheet.
     /// </summary>
-    private static void ReportIssues(CliContext context, bool quiet, SeasonSet past, SeasonSet now)
+    private static void ReportIssues(CliContext context, bool quiet, SeasonSet past, SeasonSet now, string workbook)
     {
-        var errors = past.Issues.Where(i => i.Severity == IssueSeverity.Error).Concat(now.Issues).ToArray();
-        foreach (var i in errors)
+        foreach (var i in now.Issues)
         {
-            var writer = i.Severity == IssueSeverity.Error ? context.Error : context.Out;
-            if (quiet && i.Severity != IssueSeverity.Error)
+            bool error = i.Severity == IssueSeverity.Error;
+            if (error || !quiet)
             {
-                continue;
+                TextWrap.WriteLine(error ? context.Error : context.Out, UsageChecks.Shown($"{Name}: {IntakeReport.Describe(i)}"));
             }
-
-            string where = string.Join(", ", new[] { i.File, i.Sheet is null ? null : $"sheet {i.Sheet}", i.Row is { } r ? $"row {r.ToString(CultureInfo.InvariantCulture)}" : null, i.Column is null ? null : $"column {i.Column}", i.Value is null ? null : $"value '{i.Value}'" }.Where(s => s is not null));
-            writer.WriteLine($"{(i.Severity == IssueSeverity.Error ? "left out" : "note")}: {where}: {i.Message} [{i.Code}]");
         }
 
-        int historyWarnings = past.Issues.Count(i => i.Severity == IssueSeverity.Warning);
-        if (historyWarnings > 0 && !quiet)
+        int errors = past.Issues.Count(i => i.Severity == IssueSeverity.Error);
+        int warnings = past.Issues.Count - errors;
+        if (errors > 0)
         {
-            context.Out.WriteLine($"History: {historyWarnings} intake warning(s) (rows used); 'yieldbench check' on the history lists each with its fix. All are in forecast.xlsx, sheet \"Intake issues\".");
+            TextWrap.WriteLine(context.Error, $"{Name}: {errors.ToString(CultureInfo.InvariantCulture)} input error(s) in the history: rows or files were left out; each is in {UsageChecks.Shown(workbook)}, sheet \"Intake issues\", with its fix.");
+        }
+
+        if (warnings > 0 && !quiet)
+        {
+            TextWrap.WriteLine(context.Out, $"History: {warnings.ToString(CultureInfo.InvariantCulture)} intake warning(s), rows used; each with its fix in {UsageChecks.Shown(workbook)}, sheet \"Intake issues\".");
         }
     }
 

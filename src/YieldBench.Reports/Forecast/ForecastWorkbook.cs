@@ -75,24 +75,6 @@ public static class ForecastWorkbook
         return ReportTable.Of(columns, report.Backtest.Rows);
     }
 
-    /// <summary>Every intake issue of the history and the running files, each with where it was found and its fix.</summary>
-    public static ReportTable IntakeIssues(IReadOnlyList<IntakeIssue> issues)
-    {
-        ArgumentNullException.ThrowIfNull(issues);
-        Column<IntakeIssue>[] columns =
-        [
-            new("file", "File", CellKind.Text, i => i.File),
-            new("sheet", "Sheet", CellKind.Text, i => i.Sheet),
-            new("row", "Row", CellKind.Integer, i => i.Row),
-            new("column", "Column", CellKind.Text, i => i.Column),
-            new("value", "Value", CellKind.Text, i => i.Value),
-            new("code", "Code", CellKind.Text, i => i.Code),
-            new("severity", "Severity", CellKind.Text, i => i.Severity == IssueSeverity.Error ? "error" : "warning"),
-            new("message", "What is wrong and what would fix it", CellKind.Text, i => i.Message),
-        ];
-        return ReportTable.Of(columns, issues, i => i.Severity == IssueSeverity.Error);
-    }
-
     /// <summary>The backtest by colour bucket.</summary>
     public static ReportTable ByColour(ForecastReport report)
     {
@@ -161,7 +143,7 @@ public static class ForecastWorkbook
         }
 
         var issueSheet = wb.Worksheets.Add("Intake issues");
-        SheetLayout.WriteTable(issueSheet, IntakeIssues(issues));
+        SheetLayout.WriteTable(issueSheet, ReviewTables.IntakeIssues(issues));
 
         using var ms = new MemoryStream();
         wb.SaveAs(ms);
