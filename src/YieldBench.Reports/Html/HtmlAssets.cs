@@ -30,7 +30,7 @@ p { margin: 4px 0 8px; max-width: 72em; }
 .lead { font-size: 1.06rem; }
 .note { color: {{Muted}}; font-size: 0.92rem; }
 .unit { color: {{Muted}}; font-weight: normal; font-size: 0.85em; }
-thead .unit { display: block; }
+thead .unit { display: block; white-space: nowrap; }
 tbody th { white-space: nowrap; }
 .scroll { overflow-x: auto; }
 table { border-collapse: collapse; width: 100%; margin: 4px 0 10px; font-size: 0.95rem; }
