@@ -65,6 +65,7 @@ public static class YieldBenchApp
         yield return Commands.CheckCommand.Create(context);
         yield return Commands.TemplateCommand.Create(context);
         yield return Commands.PlanCommand.Create(context);
+        yield return Commands.ForecastCommand.Create(context);
     }
 
     private sealed class PrintVersion(CliContext context) : SynchronousCommandLineAction
