@@ -113,6 +113,9 @@ public static class IntakeMessages
     internal static string UnitFromValues(string unit, double low, double high, string example) =>
         $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
 
+    internal static string MaybeBaume() =>
+        " Values of 8 to 16 are also what °Baumé gives for a must; if these are °Baumé, head the column 'Starting sugar (°Baumé)', or every lot will read as making more alcohol than its sugar can.";
+
     internal static string ColumnInFahrenheit(double low, double high) =>
         $"The header says °C but the values ({Num(low)} to {Num(high)}) look like °F; they were converted from °F. Correct the header or the values.";
 

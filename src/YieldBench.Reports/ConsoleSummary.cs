@@ -4,99 +4,144 @@ using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports;
 
-/// <summary>The short console summary of a review, as plain lines (the command prints them): the review's overview, worded for a terminal.</summary>
+/// <summary>
+/// The console summary of a review, as plain lines of at most <see cref="Width"/> characters: the review's overview,
+/// decisions first — the factor to use, the strains compared, the lots to look at, how the strains fermented — then
+/// what was read, where the files went and the cautions.
+/// </summary>
 public static class ConsoleSummary
 {
-    /// <summary>The summary lines: lots used and left out, strains ranked, recommendation, flagged lots, where the files went, cautions.</summary>
+    /// <summary>Longest line, in characters (a terminal of 100 columns).</summary>
+    public const int Width = 100;
+
+    /// <summary>Lots listed one line each before the rest are left to the Follow-up sheet.</summary>
+    public const int LotLines = 12;
+
+    /// <summary>The summary lines.</summary>
     public static IReadOnlyList<string> Lines(ReviewResult review, ReportOutput output)
     {
         ArgumentNullException.ThrowIfNull(review);
         ArgumentNullException.ThrowIfNull(output);
         var o = review.Overview;
         var lines = new List<string>();
-        var inputs = o.Inputs;
-        // Seasons come from the lots, so with no usable lot there is no season to name (logs alone give none).
-        string seasons = inputs.LotsUsed == 0 ? "no usable lot rows" : inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", inputs.Seasons);
-        lines.Add($"Lots used: {inputs.LotsUsed} ({seasons}) from {inputs.Files} file(s); fermentation logs: {inputs.Logs}.");
-        if (inputs.Issues > 0)
+        void Say(string text, int indent = 0) => lines.AddRange(Wrap(text, indent));
+
+        Say(o.Title);
+        if (o.Factors is { } factors)
         {
-            lines.Add($"Left out: {inputs.RowsLeftOut} row(s){(inputs.FileProblems > 0 ? $" and {inputs.FileProblems} file or sheet problem(s)" : string.Empty)}; {inputs.Issues} intake issue(s) in total, each with its fix, in {ReportWriter.DataFiles.IntakeIssues}.");
+            Say($"Conversion factor for next harvest, shown at {F(factors.ReferenceBrix, "0.0")} °Brix (the median starting sugar of the lots compared):");
+            foreach (var f in factors.Strains.Prepend(factors.Pooled))
+            {
+                var e = f.Estimate;
+                Say($"{(f.Strain == "*" ? "all lots" : f.Strain)}: {F(f.Factor, "0.000")} % v/v per °Brix ({f.Candidate}) → {F(e.Predicted, "0.00")} % v/v; "
+                    + $"80 % of lots {Range(e.Low80, e.High80)}, 95 % {Range(e.Low95, e.High95)}; held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots).", 2);
+            }
         }
         else
         {
-            lines.Add("Left out: nothing; every row was used or was a blank or summary row.");
+            Say("Conversion factor: no recommendation. " + string.Join(" ", o.NoRecommendation));
+        }
+
+        if (o.HouseFactor is { } h)
+        {
+            Say($"Held out {h.Scheme}, {F(h.ShareWithinTolerance * 100, "0")} % of lots came within the {h.Regime} tolerance of the prediction.", 2);
         }
 
         var strains = o.Strains;
         if (strains.Ranking.Count > 0)
         {
-            lines.Add(strains.Adjusted
-                ? $"Strains ranked by conversion adjusted to {F(strains.ReferenceBrix, "0.0")} °Brix (% v/v per °Brix, 95 % interval):"
-                : $"Strains ranked by raw median {strains.Measure} (the adjusted comparison could not be fitted):");
-            int rank = 1;
-            foreach (var s in strains.Ranking)
+            string values = string.Join(", ", strains.Ranking.Select(s => $"{s.Strain} {F(s.Adjusted?.Factor ?? s.RawMedian, "0.000")}"));
+            Say(strains.Adjusted
+                ? $"Strains, best first, adjusted to the same starting sugar (% v/v per °Brix): {values}."
+                : $"Strains, best first, by raw median (the adjusted comparison could not be fitted): {values}.");
+            foreach (string sentence in strains.Plain)
             {
-                lines.Add(s.Adjusted is not { } adj
-                    ? $"  {rank++}. {s.Strain}  {F(s.RawMedian, "0.0000")}"
-                    : $"  {rank++}. {s.Strain}  {F(adj.Factor, "0.0000")}  ({F(adj.FactorInterval.Low, "0.0000")} to {F(adj.FactorInterval.High, "0.0000")}); raw median {F(s.RawMedian, "0.0000")}");
+                Say(sentence, 2);
             }
-
-            foreach (var sentence in strains.Sentences.Take(2))
-            {
-                lines.Add("  " + sentence);
-            }
-        }
-
-        if (o.HouseFactor is { } h)
-        {
-            lines.Add($"House factor: {h.Candidate}; backtest ({h.Scheme}) mean absolute error {F(h.Mae, "0.00")} % v/v, "
-                + $"{F(h.ShareWithinTolerance * 100, "0")} % of lots within the {h.Regime} tolerance.");
-            if (double.IsFinite(h.Band80.Low))
-            {
-                lines.Add($"  A lot of a new season should come out between {F(h.Band80.Low, "+0.00;-0.00")} and {F(h.Band80.High, "+0.00;-0.00")} % v/v of the prediction with 80 % confidence"
-                    + (double.IsFinite(h.Band95.Low) ? $", between {F(h.Band95.Low, "+0.00;-0.00")} and {F(h.Band95.High, "+0.00;-0.00")} with 95 %." : "."));
-            }
-
-            foreach (var s in h.ByStrain)
-            {
-                lines.Add($"  {s.Strain}: {s.Candidate}, mean absolute error {F(s.Mae, "0.00")} % v/v ({s.Lots} lots).");
-            }
-        }
-        else
-        {
-            lines.Add("House factor: no recommendation. " + string.Join(" ", o.NoRecommendation));
         }
 
         var lots = o.Lots;
         if (lots.Flagged == 0)
         {
-            lines.Add("Lots to look at: none flagged.");
+            Say("Lots to look at: none.");
         }
         else
         {
-            lines.Add($"Lots to look at: {lots.Flagged} flagged (strain review and kinetics) — by worst flag: {string.Join(", ", lots.ByWorstSeverity.Select(x => $"{ReviewTexts.Severity(x.Severity)} {x.Lots}"))}; reasons and follow-ups on the Follow-up sheet and in {ReportWriter.DataFiles.Flags}{(o.Kinetics is null ? string.Empty : " and " + ReportWriter.DataFiles.Kinetics)}.");
-            foreach (var f in lots.LikelyErrors.Take(5))
+            Say($"Lots to look at: {lots.Flagged} ({string.Join(", ", lots.ByWorstSeverity.Where(x => x.Lots > 0).Select(x => $"{ReviewTexts.Severity(x.Severity)} {x.Lots}"))}), one line each; all on the Follow-up sheet:");
+            var findings = o.FlaggedLots.Select(l => l.Finding).OfType<LotFinding>().ToArray();
+            foreach (var f in findings.Take(LotLines))
             {
-                lines.Add($"  {f.Season}/{f.LotId ?? f.Strain} {f.Code}: {f.Reason}");
+                Say($"{f.Key} {f.Strain} ({ReviewTexts.Severity(f.Severity)}): {f.Seen} {f.Explanation} {f.FollowUp}", 2);
+            }
+
+            if (findings.Length > LotLines)
+            {
+                Say($"… and {findings.Length - LotLines} more on the Follow-up sheet.", 2);
             }
         }
 
-        if (o.Kinetics is { } k)
+        if (o.Ferments.Count > 0)
         {
-            var kflags = k.Flags.Select(c => $"{c.Code} {c.Lots}").ToArray();
-            lines.Add($"Kinetics: {k.LotsWithLog} lots with a log; {k.Flagged} flagged{(kflags.Length > 0 ? " (" + string.Join(", ", kflags) + ")" : string.Empty)}.");
+            Say("How the strains fermented (lots with a log; median days to dry and peak temperature):");
+            foreach (var s in o.Ferments)
+            {
+                Say($"{s.Strain}: dry in {F(s.DaysToDry.Median, "0.0")} days, peak {F(s.PeakTemperatureC.Median, "0.0")} °C, {s.Troubled} of {s.Lots} troubled (stuck, sluggish or not dry; {F(s.TroubledShare * 100, "0")} %).", 2);
+            }
         }
 
-        lines.Add($"Files: {output.Files.Count} written to {output.Folder} (open {ReportWriter.WorkbookName}).");
+        var inputs = o.Inputs;
+        // Seasons come from the lots, so with no usable lot there is no season to name (logs alone give none).
+        string seasons = inputs.LotsUsed == 0 ? "no usable lot rows" : inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", inputs.Seasons);
+        Say($"Lots used: {inputs.LotsUsed} ({seasons}) from {inputs.Files} file(s); fermentation logs: {inputs.Logs}.");
+        Say(inputs.Issues > 0
+            ? $"Left out: {inputs.RowsLeftOut} row(s){(inputs.FileProblems > 0 ? $" and {inputs.FileProblems} file or sheet problem(s)" : string.Empty)}; {inputs.Issues} intake issue(s) in total, each with its fix, in {ReportWriter.DataFiles.IntakeIssues}."
+            : "Left out: nothing; every row was used or was a blank or summary row.");
+        Say($"Files: {output.Files.Count} written to {output.Folder} (open {ReportWriter.WorkbookName}).");
         if (output.Removed.Count > 0)
         {
-            lines.Add($"Removed {output.Removed.Count} file(s) of an earlier run that this run no longer makes.");
+            Say($"Removed {output.Removed.Count} file(s) of an earlier run that this run no longer makes.");
         }
 
-        lines.Add("Cautions:");
-        lines.AddRange(o.Cautions.Select(c => "  - " + c));
+        Say("Cautions:");
+        foreach (string caution in o.Cautions)
+        {
+            Say("- " + caution, 2);
+        }
+
         return lines;
     }
+
+    /// <summary>Words of <paramref name="text"/> in lines of at most <see cref="Width"/> characters, each indented; later lines two more.</summary>
+    internal static IEnumerable<string> Wrap(string text, int indent)
+    {
+        string pad = new(' ', indent), more = new(' ', indent + 2);
+        var line = new System.Text.StringBuilder(pad);
+        bool empty = true;
+        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (!empty && line.Length + 1 + word.Length > Width)
+            {
+                yield return line.ToString();
+                line.Clear().Append(more);
+                empty = true;
+            }
+
+            if (!empty)
+            {
+                line.Append(' ');
+            }
+
+            line.Append(word);
+            empty = false;
+        }
+
+        if (!empty)
+        {
+            yield return line.ToString();
+        }
+    }
+
+    private static string Range(double low, double high) => double.IsFinite(low) && double.IsFinite(high) ? $"{F(low, "0.00")}–{F(high, "0.00")}" : "n/a (too few lots)";
 
     private static string F(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "n/a";
 }

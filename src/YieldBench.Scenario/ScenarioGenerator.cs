@@ -9,7 +9,7 @@ namespace YieldBench.Scenario;
 /// Makes the invented scenario: seasons of lots with the truth behind them, fermentation logs, and planted cases.
 /// Deterministic: the same options give the same lots, digit for digit. No clock is read.
 /// </summary>
-public static class ScenarioGenerator
+public static partial class ScenarioGenerator
 {
     /// <summary>Hand-read log slots: morning and evening rounds, local time.</summary>
     private static readonly TimeSpan[] Rounds = [new(7, 30, 0), new(17, 30, 0)];
@@ -50,6 +50,7 @@ public static class ScenarioGenerator
             Strains = Catalog.Strains,
             Vessels = Catalog.Vessels,
             PlantedCases = cases,
+            Running = options.RunningHarvest ? HarvestInProgress(root.Fork("harvest-in-progress")) : null,
         };
     }
 
@@ -276,7 +277,8 @@ public static class ScenarioGenerator
         // Temperatures and kinetics (Zwietering modified Gompertz of °Brix consumed).
         double basePeak = (red ? p.Vessel.RedPeakC : p.Vessel.WhitePeakC) + strain.HeatRiseC;
         double peak = p.ForcedPeakC ?? (basePeak + rng.Normal(0, 1.0));
-        double startTemp = red ? rng.TruncatedNormal(19, 1.2, 15, 23) : rng.TruncatedNormal(13, 0.8, 10, 15.5);
+        double drawnStart = red ? rng.TruncatedNormal(19, 1.2, 15, 23) : rng.TruncatedNormal(13, 0.8, 10, 15.5);
+        double startTemp = p.ForcedStartC ?? drawnStart;
         double lag = strain.LagHours * Math.Exp(rng.Normal(0, 0.2)) * (yan < 150 ? 1.3 : 1.0);
         double rate = strain.MaxRateBrixPerHourAt25C * Math.Exp(0.07 * (Math.Min(peak, 34) - 25))
             * Math.Clamp(Math.Pow(yan / 220.0, 0.35), 0.6, 1.25) * Math.Exp(rng.Normal(0, 0.12));
@@ -536,6 +538,8 @@ public static class ScenarioGenerator
         public double? ExactRecordedBrix { get; set; }
 
         public double? ForcedPeakC { get; set; }
+
+        public double? ForcedStartC { get; set; }
 
         public double? ForcedResidualGl { get; set; }
 

@@ -13,7 +13,8 @@ public static class ScenarioProgram
         {
             string dir = args.Length >= 2 ? args[1] : "demo-data";
             var scenario = ScenarioGenerator.Demo();
-            foreach (var file in DemoDataWriter.Write(scenario, dir))
+            string running = Path.Combine(Path.GetDirectoryName(Path.GetFullPath(dir)) ?? ".", DemoDataWriter.RunningFolderName);
+            foreach (var file in DemoDataWriter.Write(scenario, dir).Concat(DemoDataWriter.WriteRunning(scenario, running)))
             {
                 output.WriteLine($"wrote {file}");
             }
@@ -27,7 +28,7 @@ public static class ScenarioProgram
             return 0;
         }
 
-        error.WriteLine("usage: demo-data [DIR]   rewrite the demo files (default folder: demo-data)");
+        error.WriteLine("usage: demo-data [DIR]   rewrite the demo files (default folder: demo-data; the harvest in progress goes to demo-running beside it)");
         error.WriteLine("       summary           print what is planted where");
         return 2;
     }

@@ -14,7 +14,7 @@ public class DemoDataReproductionTests
         // Given the files the generator renders for the demo scenario
         // When each is compared with the committed file of the same name
         var mismatched = Rendered
-            .Where(f => !File.Exists(Path.Combine(RepoPaths.DemoData, f.Name)) || !File.ReadAllBytes(Path.Combine(RepoPaths.DemoData, f.Name)).AsSpan().SequenceEqual(f.Bytes))
+            .Where(f => !File.Exists(PathOf(f.Name)) || !File.ReadAllBytes(PathOf(f.Name)).AsSpan().SequenceEqual(f.Bytes))
             .Select(f => f.Name)
             .ToArray();
 
@@ -25,14 +25,33 @@ public class DemoDataReproductionTests
     [Fact]
     public void Demo_folder_holds_only_the_generated_files_and_the_git_attributes()
     {
-        // Given the committed demo folder
-        var present = Directory.GetFiles(RepoPaths.DemoData).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray();
+        // Given the committed demo folder and its subfolders
+        var present = Directory.GetFiles(RepoPaths.DemoData, "*", SearchOption.AllDirectories)
+            .Select(f => Path.GetRelativePath(RepoPaths.DemoData, f))
+            .Order(StringComparer.Ordinal)
+            .ToArray();
 
         // When compared with the generator's file list
         var expected = Rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal).ToArray();
 
         // Then no stale or stray file sits beside them
         Assert.Equal(expected, present);
+    }
+
+    private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name);
+
+    [Fact]
+    public void Generator_reproduces_the_committed_harvest_in_progress_and_nothing_else_sits_beside_it()
+    {
+        // Given the harvest-in-progress files the generator renders, and the committed folder beside demo-data
+        string folder = Path.Combine(RepoPaths.Root, DemoDataWriter.RunningFolderName);
+        var rendered = DemoDataWriter.RenderRunning(ScenarioGenerator.Demo());
+        var present = Directory.GetFiles(folder, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(folder, f)).Order(StringComparer.Ordinal).ToArray();
+
+        // Then each matches byte for byte, and the folder holds them and its git attributes only
+        Assert.NotEmpty(rendered);
+        Assert.All(rendered, f => Assert.True(File.ReadAllBytes(Path.Combine(folder, f.Name)).AsSpan().SequenceEqual(f.Bytes), f.Name + " differs from the generator's"));
+        Assert.Equal(rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal), present);
     }
 
     [Fact]

@@ -4,7 +4,7 @@ namespace YieldBench.Scenario.Tests;
 public class ScenarioChemistryTests
 {
     [Theory]
-    // OIV-MA-AS2-02 Table II rows as reproduced in the Arrêté du 14 septembre 2011, Annexe IV (shared/design/references.md).
+    // OIV-MA-AS2-02 Table II rows as reproduced in the French Arrêté du 14 septembre 2011 relatif aux réfractomètres, Annexe IV.
     [InlineData(10.0, 82.2)]
     [InlineData(20.0, 191.9)]
     [InlineData(24.0, 237.8)]

@@ -50,6 +50,9 @@ public sealed record LotReview
 
     /// <summary>True when the lot is one to look at: a strain-review flag or a kinetics follow-up.</summary>
     public bool IsFlagged => WorstSeverity is not null;
+
+    /// <summary>The lot's flags merged into one line (what was seen, the likely explanation, what to do), or null when it has none.</summary>
+    public LotFinding? Finding { get; init; }
 }
 
 /// <summary>Builds the per-lot view from the review's parts (pure; the same parts give the same view).</summary>
@@ -98,6 +101,7 @@ internal static class LotReviews
                 KineticsFollowUps = ownItems,
                 FlagCodes = own.Select(f => f.Code).Concat(k?.Flags ?? []).Distinct(StringComparer.Ordinal).ToArray(),
                 WorstSeverity = worst,
+                Finding = LotFindings.Of(lots[i], own, ownItems, k),
             };
         }
 

@@ -1,5 +1,6 @@
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
+using static System.FormattableString;
 
 namespace YieldBench.Core.Review;
 
@@ -10,7 +11,7 @@ namespace YieldBench.Core.Review;
 /// </summary>
 public sealed record ReviewOverview
 {
-    /// <summary>The report's title.</summary>
+    /// <summary>The report's title, naming the inputs and the seasons.</summary>
     public required string Title { get; init; }
 
     /// <summary>What was read and what was left out.</summary>
@@ -25,7 +26,35 @@ public sealed record ReviewOverview
     /// <summary>Why no house factor is recommended (empty when one is).</summary>
     public IReadOnlyList<string> NoRecommendation { get; init; } = [];
 
-    /// <summary>The lots to look at.</summary>
+    /// <summary>The house-factor recommendation.</summary>
+/// <param name="Candidate">Plain name of the recommended candidate.</param>
+/// <param name="Scheme">Plain name of the backtest it was judged by.</param>
+/// <param name="Regime">The label regime's name.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="ShareWithinTolerance">Share of held-out lots within the label tolerance (0–1).</param>
+/// <param name="Band80">The 80 % band of held-out errors, % v/v.</param>
+/// <param name="Band95">The 95 % band of held-out errors, % v/v.</param>
+/// <param name="Explanation">Why it was chosen, in plain words.</param>
+/// <param name="ByStrain">The per-strain choices.</param>
+public sealed record HouseFactorAtAGlance(
+    string Candidate,
+    string Scheme,
+    string Regime,
+    double Mae,
+    double ShareWithinTolerance,
+    (double Low, double High) Band80,
+    (double Low, double High) Band95,
+    string Explanation,
+    IReadOnlyList<StrainAdvice> ByStrain);
+
+/// <summary>One strain's house-factor choice.</summary>
+/// <param name="Strain">Strain code.</param>
+/// <param name="Candidate">Plain name of the chosen candidate.</param>
+/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
+/// <param name="Lots">Lots scored.</param>
+public sealed record StrainAdvice(string Strain, string Candidate, double Mae, int Lots);
+
+/// <summary>The lots to look at.</summary>
     public required LotsToLookAt Lots { get; init; }
 
     /// <summary>The kinetics in numbers, or null when no log was read.</summary>
@@ -91,7 +120,7 @@ public sealed record ReviewOverview
 
         return new ReviewOverview
         {
-            Title = "YieldBench review",
+            Title = TitleOf(inputs),
             Inputs = new InputsAtAGlance(
                 inputs.Files.Count,
                 lotReviews.Count,
@@ -100,7 +129,7 @@ public sealed record ReviewOverview
                 inputs.Issues.Count,
                 inputs.Seasons,
                 inputs.Logs.Count),
-            Strains = new StrainsAtAGlance(c.Adjusted.Count > 0, c.ReferenceBrix, c.Measure, figures.Ranking, c.Sentences),
+            Strains = new StrainsAtAGlance(c.Adjusted.Count > 0, c.ReferenceBrix, c.Measure, figures.Ranking, c.Sentences) { Plain = Plain(figures.Ranking, c) },
             HouseFactor = house,
             NoRecommendation = house is null ? h.Explanation : [],
             Lots = lots,
@@ -113,6 +142,48 @@ public sealed record ReviewOverview
             LeftOutReasons = OverviewDetails.LeftOutReasons(inputs),
             FlaggedLots = OverviewDetails.FlaggedLots(lotReviews),
         };
+    }
+
+    /// <summary>"Review of … (seasons …)": the input files by name (their count past four) and the seasons of the lots.</summary>
+    private static string TitleOf(SeasonSet inputs)
+    {
+        var names = inputs.Files.Select(f => Path.GetFileName(f.Path)).ToArray();
+        string files = names.Length == 0 ? "no input file"
+            : names.Length <= 4 ? string.Join(", ", names)
+            : Invariant($"{names.Length} input files");
+        var seasons = inputs.Seasons;
+        string span = seasons.Count == 0 ? string.Empty : seasons.Count == 1 ? Invariant($" (season {seasons[0]})") : Invariant($" (seasons {seasons[0]}–{seasons[^1]})");
+        return $"Review of {files}{span}";
+    }
+
+    /// <summary>The ranking in plain words: the first strain against the last, then each strain against the next.</summary>
+    private static IReadOnlyList<string> Plain(IReadOnlyList<RankedStrain> ranking, StrainComparison c)
+    {
+        if (ranking.Count < 2 || c.Adjusted.Count == 0)
+        {
+            return [];
+        }
+
+        string? Say(string a, string b) =>
+            c.AdjustedDifferences.FirstOrDefault(x => (x.First == a && x.Second == b) || (x.First == b && x.Second == a)) is { } d
+                ? Comparison.DifferenceSentence(d)
+                : null;
+
+        var lines = new List<string>();
+        if (Say(ranking[0].Strain, ranking[^1].Strain) is { } ends)
+        {
+            lines.Add(ends);
+        }
+
+        for (int i = 0; ranking.Count > 2 && i + 1 < ranking.Count; i++)
+        {
+            if (Say(ranking[i].Strain, ranking[i + 1].Strain) is { } next)
+            {
+                lines.Add(next);
+            }
+        }
+
+        return lines;
     }
 
     /// <summary>
@@ -141,35 +212,11 @@ public sealed record InputsAtAGlance(int Files, int LotsUsed, int RowsLeftOut, i
 /// <param name="Measure">Data-file name of the factor compared.</param>
 /// <param name="Ranking">The compared strains, best first.</param>
 /// <param name="Sentences">The comparison's findings in plain words, in reading order.</param>
-public sealed record StrainsAtAGlance(bool Adjusted, double ReferenceBrix, string Measure, IReadOnlyList<RankedStrain> Ranking, IReadOnlyList<string> Sentences);
-
-/// <summary>The house-factor recommendation.</summary>
-/// <param name="Candidate">Plain name of the recommended candidate.</param>
-/// <param name="Scheme">Plain name of the backtest it was judged by.</param>
-/// <param name="Regime">The label regime's name.</param>
-/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
-/// <param name="ShareWithinTolerance">Share of held-out lots within the label tolerance (0–1).</param>
-/// <param name="Band80">The 80 % band of held-out errors, % v/v.</param>
-/// <param name="Band95">The 95 % band of held-out errors, % v/v.</param>
-/// <param name="Explanation">Why it was chosen, in plain words.</param>
-/// <param name="ByStrain">The per-strain choices.</param>
-public sealed record HouseFactorAtAGlance(
-    string Candidate,
-    string Scheme,
-    string Regime,
-    double Mae,
-    double ShareWithinTolerance,
-    (double Low, double High) Band80,
-    (double Low, double High) Band95,
-    string Explanation,
-    IReadOnlyList<StrainAdvice> ByStrain);
-
-/// <summary>One strain's house-factor choice.</summary>
-/// <param name="Strain">Strain code.</param>
-/// <param name="Candidate">Plain name of the chosen candidate.</param>
-/// <param name="Mae">Held-out mean absolute error, % v/v.</param>
-/// <param name="Lots">Lots scored.</param>
-public sealed record StrainAdvice(string Strain, string Candidate, double Mae, int Lots);
+public sealed record StrainsAtAGlance(bool Adjusted, double ReferenceBrix, string Measure, IReadOnlyList<RankedStrain> Ranking, IReadOnlyList<string> Sentences)
+{
+    /// <summary>The ranking in plain words: the first strain against the last, then each against the next (empty when not adjusted).</summary>
+    public IReadOnlyList<string> Plain { get; init; } = [];
+}
 
 /// <summary>The lots to look at.</summary>
 /// <param name="Flagged">Lots with a follow-up item (strain review or kinetics).</param>

@@ -36,6 +36,9 @@ public sealed record ReviewResult
     /// <summary>Every follow-up item: the strain review's flags, then the kinetics follow-ups (<see cref="KineticsFollowUps"/>).</summary>
     public required IReadOnlyList<LotFlag> FollowUps { get; init; }
 
+    /// <summary>One line per lot to look at: most serious first, then by season and lot.</summary>
+    public required IReadOnlyList<LotFinding> Findings { get; init; }
+
     /// <summary>The strain order, box-plot numbers, ranking and strain courses the renderers lay out.</summary>
     public required ReviewFigures Figures { get; init; }
 

@@ -61,6 +61,7 @@ public static class ReviewRunner
             HouseFactor = house,
             Kinetics = kinetics,
             LotReviews = lotReviews,
+            Findings = lotReviews.Select(l => l.Finding).OfType<LotFinding>().OrderByDescending(f => f.Severity).ThenBy(f => f.Key).ToArray(),
             FollowUps = followUps,
             Figures = figures,
             Overview = ReviewOverview.Build(inputs, settings.HouseFactor, strains, house, kinetics, lotReviews, figures),

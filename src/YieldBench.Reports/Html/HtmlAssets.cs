@@ -18,7 +18,7 @@ html { font-size: 17px; -webkit-text-size-adjust: 100%; }
 body { margin: 0; color: {{Ink}}; background: {{Paper}}; font-family: system-ui, "DejaVu Sans", "Segoe UI", Arial, sans-serif; line-height: 1.42; }
 .masthead, main, footer { max-width: 1220px; margin: 0 auto; padding-left: 28px; padding-right: 28px; }
 .masthead { padding-top: 14px; padding-bottom: 8px; border-bottom: 3px solid {{Accent}}; }
-h1 { font-size: 1.8rem; line-height: 1.2; margin: 0 0 2px; }
+h1 { font-size: 1.45rem; line-height: 1.25; margin: 0 0 2px; }
 .facts { margin: 0 0 6px; color: {{Muted}}; }
 nav ol { list-style: none; margin: 0; padding: 0; display: flex; flex-wrap: wrap; gap: 2px 20px; font-size: 0.95rem; }
 a { color: {{Accent}}; text-underline-offset: 2px; }
@@ -30,7 +30,7 @@ p { margin: 4px 0 8px; max-width: 72em; }
 .lead { font-size: 1.06rem; }
 .note { color: {{Muted}}; font-size: 0.92rem; }
 .unit { color: {{Muted}}; font-weight: normal; font-size: 0.85em; }
-thead .unit { display: block; }
+thead .unit { display: block; white-space: nowrap; }
 tbody th { white-space: nowrap; }
 .scroll { overflow-x: auto; }
 table { border-collapse: collapse; width: 100%; margin: 4px 0 10px; font-size: 0.95rem; }

@@ -15,7 +15,7 @@ public class GayLussacTests
         double co2 = 12.011 + (2 * 15.999);
 
         // When the constants are compared with the sums, and the mass yields are formed
-        // Then they match, and the yields are the published 0.5114 ethanol and 0.489 CO2 (references note, [read])
+        // Then they match, and the yields are the published 0.5114 ethanol and 0.489 CO2 (C6H12O6 → 2 C2H5OH + 2 CO2 with molar masses 180.16, 46.07, 44.01: 2 × 46.07 / 180.16 and 2 × 44.01 / 180.16)
         Assert.Equal(GayLussac.HexoseMolarMass, hexose, 1e-9);
         Assert.Equal(GayLussac.EthanolMolarMass, ethanol, 1e-9);
         Assert.Equal(GayLussac.CarbonDioxideMolarMass, co2, 1e-9);
@@ -31,7 +31,7 @@ public class GayLussacTests
         // When the sugar needed is computed
         double sugar = GayLussac.TheoreticalSugarPerPercentVolume;
 
-        // Then it is 7.8924 / 0.511435 = 15.4319 g/L (scipy-free arithmetic; references note 15.43)
+        // Then it is 7.8924 / 0.511435 = 15.4319 g/L (ethanol density 0.78924 g/mL, Council Directive 76/766/EEC Annex; arithmetic done here)
         Assert.Equal(15.431887108467732, sugar, 1e-9);
         Assert.Equal(15.43, sugar, 0.005);
     }
@@ -44,7 +44,7 @@ public class GayLussacTests
         double eu = GayLussac.TheoreticalSugarPerPercentVolume / OivMustTable.SugarGramsPerPercentVolume;
         double older = GayLussac.TheoreticalSugarPerPercentVolume / 17.5;
 
-        // Then they are 91.7 % and 88.2 % (references note, [computed])
+        // Then they are 91.7 % and 88.2 % (16.83 g/L, Arrêté du 3 mai 1996 art. 2, and 17.5 g/L against 15.43 g/L; arithmetic done here)
         Assert.Equal(0.917, eu, 5e-4);
         Assert.Equal(0.882, older, 5e-4);
     }

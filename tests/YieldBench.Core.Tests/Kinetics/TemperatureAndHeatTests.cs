@@ -97,7 +97,8 @@ public class TemperatureAndHeatTests
         // When the rise is computed
         double rise = FermentationHeat.PotentialRiseK(10.0, 1.0, 100.4, 4.0);
 
-        // Then it is the ≈ 1.39 K/°Brix (≈ 5.6 kJ/kg per °Brix) noted in the team's references (computed there, not read)
+        // Then it is ≈ 1.39 K/°Brix, ≈ 5.6 kJ/kg per °Brix: 10 g / 180.16 g/mol × 100.4 kJ/mol (24 kcal/mol, Colombié,
+        // Malherbe & Sablayrolles 2007, Food Control 18:953) ÷ 4.0 kJ/(kg·K) — arithmetic done here, not a published value
         Assert.Equal(1.39, rise, 2);
         Assert.Equal(5.57, 10.0 / 180.16 * 100.4, 2);
     }

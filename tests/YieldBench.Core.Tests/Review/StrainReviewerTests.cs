@@ -246,6 +246,22 @@ public class StrainReviewerTests
     }
 
     [Fact]
+    public void A_swap_across_the_decimal_point_is_not_offered_as_a_transposition()
+    {
+        // Given the planted lot recorded as 22.4 °Brix whose alcohol fits 24.2 °Brix (the 2 and the 4 either side of
+        // the point), and the one recorded as 32.1 whose alcohol fits 23.1 (both digits before the point)
+        var (_, review) = Scenario.Value;
+        var cross = review.Flags.Where(f => f.LotKey == new LotKey(2024, "P-CROSS")).Select(f => f.Code).ToArray();
+        var swap = review.Flags.Single(f => f.LotKey == new LotKey(2024, "P-SWAP-2") && f.Code == FlagCodes.PossibleTransposedDigits);
+
+        // Then the first is off its strain's line but no transposition is offered, and the second is one
+        Assert.Contains(FlagCodes.OffStrainLine, cross);
+        Assert.DoesNotContain(FlagCodes.PossibleTransposedDigits, cross);
+        Assert.Equal("23.1 °Brix", swap.Suggestion);
+        Assert.Equal("32.1 °Brix", swap.Recorded);
+    }
+
+    [Fact]
     public void Same_lots_settings_and_seed_give_the_same_review()
     {
         // Given the cellar reviewed twice with one seed

@@ -7,7 +7,8 @@ namespace YieldBench.Core.Tests.Review;
 /// <summary>
 /// An invented cellar with planted cases. Alcohol follows a straight line in starting sugar,
 /// ABV = −2.33 + 0.687·°Brix (the slope and intercept of the OIV table's potential alcohol between 20 and 26 °Brix
-/// at 16.83 g/L, references.md: 11.40 % at 20 °Bx, 15.52 % at 26 °Bx), plus a strain effect and noise N(0, 0.12).
+/// at 16.83 g/L: 11.40 % at 20 °Bx, 15.52 % at 26 °Bx, OIV-MA-AS2-02 Table II as reproduced in the French Arrêté du
+/// 14 septembre 2011 relatif aux réfractomètres, Annexe IV), plus a strain effect and noise N(0, 0.12).
 /// Strain codes, lots and numbers are invented.
 /// </summary>
 internal sealed class SyntheticCellar
@@ -94,7 +95,11 @@ internal sealed class SyntheticCellar
 
         double Abv(double brix, string strain) => Intercept + (Slope * brix) + Effects[strain];
         Add("P-SWAP-1", "Y-05", 42.2, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
-        Add("P-SWAP-2", "Y-05", 22.4, Abv(24.2, "Y-05"), FlagCodes.PossibleTransposedDigits);
+        Add("P-SWAP-2", "Y-05", 32.1, Abv(23.1, "Y-05"), FlagCodes.PossibleTransposedDigits);
+
+        // A swap across the decimal point (24.2 written as 22.4) is another number, not a transposition: it is planted
+        // for the alcohol it gives (off its strain's line) and must not be offered as swapped digits.
+        Add("P-CROSS", "Y-05", 22.4, Abv(24.2, "Y-05"), FlagCodes.OffStrainLine);
         var sugar = SugarModel.Default.SugarGramsPerLitre(23.0);
         double theoretical = sugar * GayLussac.EthanolMassYield / (10 * YieldBench.Core.Units.AlcoholContent.EthanolDensity20C);
         Add("P-OVER", "Y-22", 23.0, 1.05 * theoretical, FlagCodes.AboveTheoreticalYield);

@@ -105,7 +105,7 @@ public class SugarScalesTests
     [Fact]
     public void Baume_near_twenty_Brix_is_about_one_point_eight_Brix_per_degree()
     {
-        // Given the trade's rule of thumb "about 1.80 °Bx per °Bé near 20 °Bx" (references note, [read])
+        // Given the trade's rule of thumb "about 1.80 °Bx per °Bé near 20 °Bx" (common practice; consistent with Asadi, Beet-Sugar Handbook, 2006, Table A.1: 20 % → 11.1 °Bé)
         var low = SugarReading.FromBrix(19.0);
         var high = SugarReading.FromBrix(21.0);
 
@@ -120,7 +120,7 @@ public class SugarScalesTests
     public void Apparent_specific_gravity_in_air_converts_to_the_true_density_of_the_AOAC_fit()
     {
         // Given 20 °Bx: apparent SG 20/20 1.08297 (Zoecklein Table I-1, NBS, weights in air) and the AOAC-fitted
-        // polynomial's true SG 1.08287 (Hackbarth 2011, as cited in the references note)
+        // polynomial's true SG 1.08287 (Hackbarth 2011, an AOAC-fitted polynomial; value from memory of the design notes, not checked here)
         // When the apparent SG is corrected for air buoyancy (air 1.2 kg/m³, water 0.99820 g/mL)
         double trueSg = SugarScales.TrueSpecificGravity(1.08297);
 

@@ -70,18 +70,39 @@ public class KineticsSheetTests
     }
 
     [Fact]
-    public void The_filled_workbook_saves_without_a_graphics_library()
+    public void The_filled_workbook_saves_without_a_graphics_library_and_reads_back_whole()
     {
-        // Given a filled sheet
+        // Given a filled sheet and the review it shows
+        var (_, review) = KineticsReportData.Build();
         using var wb = new XLWorkbook();
         Filled(wb);
 
-        // When saved to memory
+        // When saved to memory and opened again
         using var ms = new MemoryStream();
         wb.SaveAs(ms);
+        ms.Position = 0;
+        using var again = new XLWorkbook(ms);
+        var sheet = again.Worksheet(KineticsSheet.SheetName);
 
-        // Then a non-empty workbook package was written
-        Assert.True(ms.Length > 5000);
+        // Then the per-lot table holds one row per analysed lot, in the review's order, each with its days to dry
+        var lotHeader = Find(sheet, "Lot");
+        int dryCol = sheet.Row(lotHeader.Address.RowNumber).CellsUsed().First(c => c.GetString() == "Days to dry").Address.ColumnNumber;
+        for (int i = 0; i < review.Lots.Count; i++)
+        {
+            int row = lotHeader.Address.RowNumber + 1 + i;
+            Assert.Equal(review.Lots[i].Lot.LotId, sheet.Cell(row, lotHeader.Address.ColumnNumber).GetString());
+            if (review.Lots[i].DaysToDry is { } days)
+            {
+                Assert.Equal(days, sheet.Cell(row, dryCol).GetValue<double>(), 9);
+            }
+            else
+            {
+                Assert.True(sheet.Cell(row, dryCol).IsEmpty());
+            }
+        }
+
+        Assert.Equal(string.Empty, sheet.Cell(lotHeader.Address.RowNumber + 1 + review.Lots.Count, lotHeader.Address.ColumnNumber).GetString());
+        Assert.Contains(review.Lots, k => k.DaysToDry is null);
     }
 
     [Fact]

@@ -62,6 +62,7 @@ internal static class Comparison
             Pairs = pairs,
             Regression = adjusted.Fit,
             ReferenceBrix = adjusted.ReferenceBrix,
+            ReferenceLots = adjusted.ReferenceLots,
             AdjustedForVessel = adjusted.WithVessel,
             Adjusted = adjusted.Strains,
             AdjustedDifferences = adjusted.Differences,
@@ -87,7 +88,7 @@ internal static class Comparison
         return strains[best];
     }
 
-    private sealed record AdjustedResult(RobustFit? Fit, double ReferenceBrix, bool WithVessel, IReadOnlyList<AdjustedStrain> Strains, IReadOnlyList<AdjustedDifference> Differences);
+    private sealed record AdjustedResult(RobustFit? Fit, double ReferenceBrix, int ReferenceLots, bool WithVessel, IReadOnlyList<AdjustedStrain> Strains, IReadOnlyList<AdjustedDifference> Differences);
 
     private static AdjustedResult Adjust(PreparedLot[] lots, string[] strains, StrainReviewSettings settings, List<string> notes)
     {
@@ -103,7 +104,7 @@ internal static class Comparison
         }
 
         double reference = Descriptive.Median(used.Select(l => l.Brix));
-        var empty = new AdjustedResult(null, reference, false, [], []);
+        var empty = new AdjustedResult(null, reference, used.Length, false, [], []);
         if (strains.Length < 2)
         {
             notes.Add("The adjusted comparison needs at least two strains with enough lots; it was not made.");
@@ -171,7 +172,7 @@ internal static class Comparison
                 }
             }
 
-            return new AdjustedResult(fit, reference, withVessel, adjustedStrains, differences);
+            return new AdjustedResult(fit, reference, used.Length, withVessel, adjustedStrains, differences);
         }
 
         notes.Add("The adjusted comparison could not be fitted: too few finished lots for the number of strains and vessel types.");
@@ -240,7 +241,7 @@ internal static class Comparison
         }
 
         var parts = adjusted.Strains.Select(a => Invariant($"{a.Strain} {a.Factor:0.0000} ({a.FactorInterval.Low:0.0000}–{a.FactorInterval.High:0.0000})"));
-        sentences.Add(Invariant($"Adjusted to {adjusted.ReferenceBrix:0.0} °Brix (the pooled median){(adjusted.WithVessel ? " and the cellar's vessel mix" : string.Empty)}, the factors are: {string.Join("; ", parts)}."));
+        sentences.Add(Invariant($"Adjusted to {adjusted.ReferenceBrix:0.0} °Brix (the median starting sugar of the {adjusted.ReferenceLots} finished lots kept in the comparison){(adjusted.WithVessel ? " and the cellar's vessel mix" : string.Empty)}, the factors are: {string.Join("; ", parts)}."));
         foreach (var d in adjusted.Differences)
         {
             sentences.Add(DifferenceSentence(d));

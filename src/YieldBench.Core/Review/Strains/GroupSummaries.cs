@@ -131,6 +131,7 @@ internal static class GroupSummaries
             Median = Descriptive.MedianOfSorted(sorted),
             Mad = Robust.Mad(sorted),
             Qn = Robust.Qn(sorted),
+            Sn = Robust.Sn(sorted),
             Iqr = iqr,
             Q1 = q1,
             Q3 = q3,

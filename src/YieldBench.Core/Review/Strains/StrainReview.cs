@@ -103,6 +103,9 @@ public sealed record GroupSummary
     /// <summary>Rousseeuw–Croux Qn.</summary>
     public required double Qn { get; init; }
 
+    /// <summary>Rousseeuw–Croux Sn.</summary>
+    public double Sn { get; init; } = double.NaN;
+
     /// <summary>Interquartile range (type 7): <see cref="Q3"/> − <see cref="Q1"/>.</summary>
     public required double Iqr { get; init; }
 
@@ -164,8 +167,14 @@ public sealed record StrainComparison
     /// <summary>The robust regression behind the adjusted comparison, or null when it could not be fitted.</summary>
     public RobustFit? Regression { get; init; }
 
-    /// <summary>Reference starting sugar of the adjusted comparison: the pooled median effective °Brix.</summary>
+    /// <summary>
+    /// Reference starting sugar of the adjusted comparison: the median effective °Brix of the lots kept in it (finished
+    /// lots with a plausible factor, <see cref="ReferenceLots"/> of them).
+    /// </summary>
     public required double ReferenceBrix { get; init; }
+
+    /// <summary>The finished lots kept in the adjusted comparison, whose median starting sugar is <see cref="ReferenceBrix"/>.</summary>
+    public int ReferenceLots { get; init; }
 
     /// <summary>True when vessel type entered the regression as a factor.</summary>
     public required bool AdjustedForVessel { get; init; }
@@ -272,6 +281,16 @@ public sealed record LotFlag
 
     /// <summary>Suggested follow-up in cellar terms.</summary>
     public required string FollowUp { get; init; }
+
+    /// <summary>
+    /// What an explaining flag proposes, in a few words: the starting sugar a transposition would give ("24.7 °Brix"),
+    /// the strain a lot behaves like ("strain YB-R31"), the water an addition would take ("about 11 L per 100 L of
+    /// must"); null for other flags.
+    /// </summary>
+    public string? Suggestion { get; init; }
+
+    /// <summary>For a transposition, the starting sugar as recorded ("27.4 °Brix"); null otherwise.</summary>
+    public string? Recorded { get; init; }
 }
 
 /// <summary>The flag codes, in their report order.</summary>

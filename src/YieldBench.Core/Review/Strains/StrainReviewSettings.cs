@@ -62,6 +62,13 @@ public sealed record StrainReviewSettings
     public double WaterShareHigh { get; init; } = 0.25;
 
     /// <summary>
+    /// From this share of unrecorded water (of the diluted volume) on, the flag is a likely error rather than a check:
+    /// 5 % is about 5 L per 100 L of must, 1.2 °Brix at 25 °Brix, so the recorded starting sugar is not the sugar that
+    /// fermented and the lot cannot teach a conversion factor (a judgement of common practice).
+    /// </summary>
+    public double WaterLikelyErrorShare { get; init; } = 0.05;
+
+    /// <summary>
     /// Smallest season drift worth a flag, in % v/v at the strain's median starting sugar: a season median outside the
     /// other seasons' interval but closer than this is within lab repeatability for alcohol and is not flagged.
     /// </summary>

@@ -32,6 +32,9 @@ internal sealed class StrainMixUpDetector : ILotDetector
             c.Lot.FactorName,
             factor,
             Invariant($"factor {factor:0.0000} is far from {c.Own.Name} (modified z {c.Score.Z:+0.0;-0.0}) but typical of {better.Ref.Name} (median {better.Ref.Median:0.0000}, modified z {better.Z:+0.0;-0.0})"),
-            FollowUps.ConfirmStrain);
+            FollowUps.ConfirmStrain) with
+        {
+            Suggestion = better.Ref.Name,
+        };
     }
 }

@@ -6,8 +6,8 @@ using static System.FormattableString;
 namespace YieldBench.Core.Review.Strains.Detectors;
 
 /// <summary>
-/// <c>possible-transposed-digits</c>: two neighbouring digits of the recorded starting sugar, swapped, would put an
-/// off-line lot back on its strain line. Tried on the value as recorded, in its own scale, with the lot's additions
+/// <c>possible-transposed-digits</c>: two neighbouring digits of the recorded starting sugar (on the same side of the
+/// decimal point), swapped, would put an off-line lot back on its strain line. Tried on the value as recorded, in its own scale, with the lot's additions
 /// applied under the review's sugar model.
 /// </summary>
 internal static class TranspositionDetector
@@ -35,10 +35,13 @@ internal static class TranspositionDetector
             return null;
         }
 
+        // A swap of the digits either side of the decimal point is not a transposition: a slip of the hand swaps two
+        // neighbouring keys, and the point between them is written too (27.3 → 23.7 is a different number, not a slip).
+        int lastWholeDigit = digits.Length - decimals - 1;
         (double Brix, double Z, string Text)? best = null;
         for (int i = 0; i + 1 < digits.Length; i++)
         {
-            if (digits[i] == digits[i + 1])
+            if (digits[i] == digits[i + 1] || (decimals > 0 && i == lastWholeDigit))
             {
                 continue;
             }
@@ -76,6 +79,10 @@ internal static class TranspositionDetector
             found.Brix,
             line.Scale,
             Invariant($"the starting sugar was recorded as {text} {unit}; with two neighbouring digits swapped ({found.Text} {unit}) the lot's {lot.Abv:0.00} % v/v would sit on the line of {line.Name} (residual {found.Z:+0.0;-0.0} scales instead of {c.LineZ:+0.0;-0.0})"),
-            FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip");
+            FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip") with
+        {
+            Suggestion = found.Text + " " + unit,
+            Recorded = text + " " + unit,
+        };
     }
 }

@@ -4,7 +4,9 @@ namespace YieldBench.Core.Review.Strains.Detectors;
 
 /// <summary>
 /// <c>possible-unrecorded-water</c>: a low factor in a finished lot without recorded additions, whose shortfall
-/// against its strain's median factor is a dilution share in the plausible add-back range.
+/// against its strain's median factor is a dilution share in the plausible add-back range. A share s of the diluted
+/// volume is s ÷ (1 − s) of the must before the water (10 % of the mix is 11 L per 100 L of must). From
+/// <see cref="StrainReviewSettings.WaterLikelyErrorShare"/> on, the recorded sugar is too far from what fermented: a likely error.
 /// </summary>
 internal sealed class UnrecordedWaterDetector : ILotDetector
 {
@@ -25,13 +27,17 @@ internal sealed class UnrecordedWaterDetector : ILotDetector
             yield break;
         }
 
+        double perHundred = share / (1 - share) * 100;
         yield return c.Against(
             c.Own,
             FlagCodes.PossibleUnrecordedWater,
-            FlagSeverity.Check,
+            share >= s.WaterLikelyErrorShare ? FlagSeverity.LikelyError : FlagSeverity.Check,
             lot.FactorName,
             lot.Factor,
-            Invariant($"the lot is dry yet made {lot.Abv:0.00} % v/v where {c.Own.Name}'s median factor predicts {expected:0.00} % v/v from {lot.Brix:0.0} °Brix; an unrecorded water addition of about {share * 100:0} % of the must would explain the shortfall"),
-            FollowUps.LookForWater + "; " + FollowUps.RecheckStartingSugar + "; " + FollowUps.Evaporation);
+            Invariant($"the lot is dry yet made {lot.Abv:0.00} % v/v where {c.Own.Name}'s median factor predicts {expected:0.00} % v/v from {lot.Brix:0.0} °Brix; an unrecorded water addition of about {perHundred:0} L per 100 L of must ({share * 100:0} % of the diluted volume) would explain the shortfall"),
+            FollowUps.LookForWater + "; " + FollowUps.RecheckStartingSugar + "; " + FollowUps.Evaporation) with
+        {
+            Suggestion = Invariant($"about {perHundred:0} L of water per 100 L of must"),
+        };
     }
 }
