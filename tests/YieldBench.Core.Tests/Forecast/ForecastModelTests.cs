@@ -142,9 +142,10 @@ public class ForecastModelTests
         var cut = whole.Readings.Take(2).ToArray();
         var known = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
         var unknown = known with { LotId = "30-002", Strain = "ZZ-9" };
+        var respelt = known with { LotId = "30-003", Strain = "sx 1" };
 
-        // When both are forecast
-        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [known, unknown], [new FermentationLog("30-001", 2030, cut), new FermentationLog("30-002", 2030, cut)], Settings, model);
+        // When both are forecast (and the known strain once more under another spelling)
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [known, unknown, respelt], [new FermentationLog("30-001", 2030, cut), new FermentationLog("30-002", 2030, cut), new FermentationLog("30-003", 2030, cut)], Settings, model);
 
         // Then the unknown strain stands on the pooled prior, with a wider interval, and a note says so
         var (a, b) = (report.Lots[0], report.Lots[1]);
@@ -153,6 +154,10 @@ public class ForecastModelTests
         Assert.Equal(0, b.StrainLots);
         Assert.True(b.OneThirdHours!.Value.High - b.OneThirdHours.Value.Low > a.OneThirdHours!.Value.High - a.OneThirdHours.Value.Low, $"{b.OneThirdHours} vs {a.OneThirdHours}");
         Assert.Contains(report.Notes, n => n.LotId == "30-002" && n.Code == "pooled-prior" && n.Message.Contains("ZZ-9", StringComparison.Ordinal));
+
+        // And a strain written in another case or with other punctuation is the same strain (intake's spelling rule)
+        Assert.True(report.Lots[2].OwnStrainPrior);
+        Assert.Equal(a.OneThirdHours, report.Lots[2].OneThirdHours);
     }
 
     [Fact]
