@@ -50,10 +50,10 @@ td.factor { font-weight: 700; font-size: 1.08em; }
 .severity.likely-error { background: {{FlaggedFill}}; border-left: 4px solid {{Warm}}; font-weight: 700; }
 .severity.check { background: {{HeaderFill}}; }
 .severity.note { border: 1px solid {{Hairline}}; }
-.cellar-note { display: block; color: {{Muted}}; font-size: 0.9em; margin-top: 2px; }
+.aside { display: block; color: {{Muted}}; font-size: 0.9em; margin-top: 2px; }
 table.lots td:nth-child(2), table.lots td:nth-child(3), table.lots thead th { white-space: nowrap; }
-table.lots td:nth-child(4) { min-width: 9em; }
-table.lots td:nth-child(5) { min-width: 18em; }
+table.lots td:nth-child(4) { min-width: 18em; }
+table.lots td:nth-child(5) { min-width: 12em; }
 code { font-family: "DejaVu Sans Mono", Consolas, monospace; font-size: 0.88em; }
 code.hash { word-break: break-all; }
 figure { margin: 8px 0 10px; break-inside: avoid; }
@@ -90,10 +90,10 @@ th[aria-sort="descending"] button.sort::after { content: " \25BC"; }
   table.lots td { min-width: 0; }
   table.lots th:nth-child(1) { width: 11%; }
   table.lots th:nth-child(2) { width: 8%; }
-  table.lots th:nth-child(3) { width: 11%; }
-  table.lots th:nth-child(4) { width: 16%; }
-  table.lots th:nth-child(5) { width: 27%; }
-  table.lots th:nth-child(6) { width: 27%; }
+  table.lots th:nth-child(3) { width: 10%; }
+  table.lots th:nth-child(4) { width: 31%; }
+  table.lots th:nth-child(5) { width: 21%; }
+  table.lots th:nth-child(6) { width: 19%; }
   table.lots .severity { white-space: normal; }
   footer { display: none; }
   button.sort { display: contents; }
