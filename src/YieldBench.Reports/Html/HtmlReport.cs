@@ -34,12 +34,17 @@ public static class HtmlReport
         ArgumentNullException.ThrowIfNull(review);
         var o = review.Overview;
         var page = new StringBuilder(64 * 1024);
-        string seasons = o.Inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", o.Inputs.Seasons);
+        string seasons = o.Inputs.Seasons.Count switch
+        {
+            0 => string.Empty,
+            1 => $" in season {Count(o.Inputs.Seasons[0])}",
+            _ => $" in seasons {string.Join(", ", o.Inputs.Seasons.Select(Count))}",
+        };
         page.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
         page.Append($"<meta http-equiv=\"Content-Security-Policy\" content=\"{HtmlAssets.ContentSecurityPolicy}\">\n");
         page.Append($"<meta name=\"generator\" content=\"YieldBench {Escape(review.ToolVersion)}\">\n");
-        page.Append($"<title>{Escape(o.Title)} — seasons {Escape(seasons)}</title>\n");
+        page.Append($"<title>{Escape(o.Title)}</title>\n");
         page.Append("<style>").Append(HtmlAssets.Css).Append("</style>\n</head>\n<body>\n");
 
         Header(page, review, seasons);
@@ -62,7 +67,7 @@ public static class HtmlReport
         var i = review.Overview.Inputs;
         page.Append("<header class=\"masthead\">\n");
         page.Append($"<h1>{Escape(review.Overview.Title)}</h1>\n");
-        page.Append($"<p class=\"facts\">Seasons {Escape(seasons)} · {Count(i.LotsUsed)} lots from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")} · {Count(i.Logs)} fermentation logs · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
+        page.Append($"<p class=\"facts\">{Count(i.LotsUsed)} lots from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")}{seasons} · {Count(i.Logs)} fermentation logs · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
         page.Append("<nav aria-label=\"Sections of this page\"><ol>");
         foreach (var (id, heading) in Sections)
         {
