@@ -289,7 +289,8 @@ public static partial class ScenarioGenerator
         // Residual sugar and alcohol: sugar consumed ÷ the strain's sugar per % v/v, less vessel and heat losses.
         double rs = p.ForcedResidualGl ?? (0.8 + (2.4 * Math.Pow(rng.NextDouble(), 2)));
         double heatLoss = 0.004 * Math.Max(0, peak - 32);
-        double abv = (ScenarioChemistry.SugarGramsPerLitre(effective) - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
+        double sugarGl = ScenarioChemistry.SugarAfterAdditions(p.TrueBrix, p.MustVolumeL, trueWater, sugar);
+        double abv = (sugarGl - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
         double labAbv = Math.Round(abv + rng.Normal(0, 0.07), 2);
         double labRs = Math.Round(Math.Max(0.3, rs + rng.Normal(0, 0.15)), 1);
 
