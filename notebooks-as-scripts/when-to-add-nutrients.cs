@@ -22,8 +22,8 @@ Console.WriteLine("reading the tank twice a day and extrapolating by eye. The fo
 Console.WriteLine("from past seasons' logs and updates that with every reading of the tank.");
 Console.WriteLine();
 
-var history = IntakeReader.Read([Path.Combine(root, "demo-data")], new IntakeOptions());
-var running = IntakeReader.Read([Path.Combine(root, "demo-running")], new IntakeOptions { RunningLots = true });
+var history = IntakeReader.Read([Path.Combine(root, "demo-data", "history")], new IntakeOptions());
+var running = IntakeReader.Read([Path.Combine(root, "demo-data", "running")], new IntakeOptions { RunningLots = true });
 Console.WriteLine($"History: {history.Lots.Count} finished lots of {string.Join(", ", history.Seasons)}, {history.Logs.Count} with a log. Running: {running.RunningLots.Count} lots of 2026.");
 
 // Learn once from the history (the whole-course fits and the priors), then forecast the tank as its readings come in.

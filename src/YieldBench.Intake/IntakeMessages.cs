@@ -92,6 +92,9 @@ public static class IntakeMessages
     internal static string TooManyRows(int limit) =>
         $"The sheet has more than {limit.ToString(Inv)} rows, the limit; it was not read. Split it (for example one sheet per season).";
 
+    internal static string TooManyCells(long limit) =>
+        $"The sheet spans more than {limit.ToString("N0", Inv)} cells (rows times columns), the limit; it was not read. Delete empty rows and columns at its end, or split it.";
+
     internal static string MissingColumn(string field, IReadOnlyList<string> examples) =>
         $"The sheet has no column for {field}, which is required; none of its rows could be used. Add a column headed for example {string.Join(", ", examples.Select(e => "'" + e + "'"))}, or map one with --column {field}=HEADER.";
 

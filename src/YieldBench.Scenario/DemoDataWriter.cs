@@ -28,56 +28,30 @@ public static class DemoDataWriter
     }
 
     /// <summary>
-    /// Folder of the harvest in progress, beside the demo folder (not inside it: a folder given to intake is read with
-    /// its subfolders, and lots still fermenting are no finished lots for <c>review</c>).
+    /// Subfolder of the demo folder holding the finished seasons (what <c>review</c> reads with no inputs). The harvest in
+    /// progress sits in its own subfolder beside it, not inside it: a folder given to intake is read with its
+    /// subfolders, and lots still fermenting are no finished lots for <c>review</c>.
     /// </summary>
-    public const string RunningFolderName = "demo-running";
+    public const string HistoryFolderName = "history";
+
+    /// <summary>Subfolder of the demo folder holding the harvest in progress (what <c>forecast</c> reads with no inputs, beside the history).</summary>
+    public const string RunningFolderName = "running";
 
     /// <summary>File name of the harvest-in-progress workbook in <see cref="RunningFolderName"/>.</summary>
     public const string RunningFileName = "tallowmere-2026-harvest-in-progress.xlsx";
 
-    /// <summary>Every file name <see cref="Write"/> produces in the demo folder, in order.</summary>
-    public static IReadOnlyList<string> FileNames(ScenarioData scenario)
-    {
-        ArgumentNullException.ThrowIfNull(scenario);
-        return [.. scenario.Seasons.Select(s => SeasonFileName(s.Profile)), LogsFileName, "README.md"];
-    }
+    /// <summary>Every file <see cref="Write"/> produces, as paths relative to the demo folder, in order.</summary>
+    public static IReadOnlyList<string> FileNames(ScenarioData scenario) => Render(scenario).Select(f => f.Name).ToArray();
 
-    /// <summary>
-    /// Writes the harvest in progress (when the scenario has one) into <paramref name="directory"/> (created if
-    /// missing); returns the paths written.
-    /// </summary>
-    public static IReadOnlyList<string> WriteRunning(ScenarioData scenario, string directory)
-    {
-        ArgumentNullException.ThrowIfNull(scenario);
-        var written = new List<string>();
-        foreach (var (name, bytes) in RenderRunning(scenario))
-        {
-            Directory.CreateDirectory(directory);
-            string path = Path.Combine(directory, name);
-            File.WriteAllBytes(path, bytes);
-            written.Add(path);
-        }
-
-        return written;
-    }
-
-    /// <summary>The harvest-in-progress files' names and bytes (none when the scenario has no harvest in progress).</summary>
-    public static IReadOnlyList<(string Name, byte[] Bytes)> RenderRunning(ScenarioData scenario)
-    {
-        ArgumentNullException.ThrowIfNull(scenario);
-        return scenario.Running is { } running ? [(RunningFileName, RunningWorkbook(scenario, running))] : [];
-    }
-
-    /// <summary>Writes every demo file into <paramref name="directory"/> (created if missing); returns the paths written.</summary>
+    /// <summary>Writes every demo file under <paramref name="directory"/> (created with its subfolders if missing); returns the paths written.</summary>
     public static IReadOnlyList<string> Write(ScenarioData scenario, string directory)
     {
         ArgumentNullException.ThrowIfNull(scenario);
-        Directory.CreateDirectory(directory);
         var written = new List<string>();
         foreach (var (name, bytes) in Render(scenario))
         {
             string path = Path.Combine(directory, name);
+            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
             File.WriteAllBytes(path, bytes);
             written.Add(path);
         }
@@ -85,7 +59,11 @@ public static class DemoDataWriter
         return written;
     }
 
-    /// <summary>Every demo file's name and bytes, without touching the disk.</summary>
+    /// <summary>
+    /// Every demo file's path relative to the demo folder and its bytes, without touching the disk: the README, the
+    /// finished seasons and their logs in <see cref="HistoryFolderName"/>, the harvest in progress (when the scenario
+    /// has one) in <see cref="RunningFolderName"/>.
+    /// </summary>
     public static IReadOnlyList<(string Name, byte[] Bytes)> Render(ScenarioData scenario)
     {
         ArgumentNullException.ThrowIfNull(scenario);
@@ -95,10 +73,14 @@ public static class DemoDataWriter
             byte[] bytes = season.Profile.Format == SeasonFileFormat.Workbook
                 ? SeasonWorkbook(scenario, season)
                 : SeasonCsv(season);
-            files.Add((SeasonFileName(season.Profile), bytes));
+            files.Add((Path.Combine(HistoryFolderName, SeasonFileName(season.Profile)), bytes));
         }
 
-        files.Add((LogsFileName, LogsWorkbook(scenario)));
+        files.Add((Path.Combine(HistoryFolderName, LogsFileName), LogsWorkbook(scenario)));
+        if (scenario.Running is { } running)
+        {
+            files.Add((Path.Combine(RunningFolderName, RunningFileName), RunningWorkbook(scenario, running)));
+        }
 
         files.Add(("README.md", Encoding.UTF8.GetBytes(Readme(scenario))));
         return files;
@@ -392,8 +374,15 @@ public static class DemoDataWriter
         L();
         L($"These files are generated. **{scenario.EstateName}**, its blocks, its cellar and the strain codes (`YB-…`) are");
         L("invented; no real winery, yeast product, person or measurement is behind them. They exist so that a new user can");
-        L("run `yieldbench review` with no inputs and see every part of the report work, and so that tests can check the");
-        L("tool finds what was planted.");
+        L("run `yieldbench review` (and `yieldbench forecast`) with no inputs and see every part of the report work, and so");
+        L("that tests can check the tool finds what was planted.");
+        L();
+        L($"- `{HistoryFolderName}/`: the finished seasons and their fermentation logs, what `review` reads with no inputs");
+        L($"  (the same as `review demo-data/{HistoryFolderName}`).");
+        L($"- `{RunningFolderName}/`: the harvest in progress, lots still fermenting; `forecast` with no inputs reads it with");
+        L($"  the history (the same as `forecast demo-data/{HistoryFolderName} --running demo-data/{RunningFolderName}`). It is kept");
+        L("  apart because a folder given to the tool is read with its subfolders, and lots still fermenting are no finished");
+        L("  lots for `review`.");
         L();
         L("Regenerate (byte for byte; a test checks it):");
         L();
@@ -403,7 +392,7 @@ public static class DemoDataWriter
         L();
         L($"Seed {scenario.Seed.ToString(Inv)}. Source: `src/YieldBench.Scenario` (`ScenarioGenerator.Demo()` exposes the truth below).");
         L();
-        L("## Files");
+        L($"## Files in `{HistoryFolderName}/`");
         L();
         L("| file | what | how it is kept |");
         L("|---|---|---|");
@@ -472,7 +461,7 @@ public static class DemoDataWriter
         {
             L($"## The harvest in progress ({running.Season})");
             L();
-            L($"`../{RunningFolderName}/{RunningFileName}` (beside this folder, so that `review` never takes its lots for finished ones) is the");
+            L($"`{RunningFolderName}/{RunningFileName}` (beside `{HistoryFolderName}/`, so that `review` never takes its lots for finished ones) is the");
             L($"cellar's working book of the next season, caught on {running.Now.ToString("d MMMM yyyy", Inv)} after the evening round:");
             L("sheet \"Lots in progress\" lists the lots still fermenting (no final alcohol yet), sheet \"Logs " + running.Season.ToString(Inv) + "\" their readings so far.");
             L("`yieldbench forecast` with no inputs reads it with the three seasons above as history. Its lots are made the same way");

@@ -170,7 +170,7 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         folder.Write("f/log-2026.csv", "Lot,Timestamp,Brix,Temp (°F)\n" + string.Concat(readings.Select(r => $"26-101,{r.Item1},{r.Item2.ToString(CultureInfo.InvariantCulture)},{F(r.Item3)}\n")));
         folder.Write("c/lots-2026.csv", lots);
         folder.Write("c/log-2026.csv", "Lot,Timestamp,Brix,Temp (°C)\n" + string.Concat(readings.Select(r => $"26-101,{r.Item1},{r.Item2.ToString(CultureInfo.InvariantCulture)},{C(r.Item3)}\n")));
-        string history = Path.Combine(AppContext.BaseDirectory, "demo-data");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
 
         // When both are forecast from the demo history
         var (fe, _, ferr) = Cli.Run(folder.Root, "forecast", history, "--running", "f", "--out", "outf", "--quiet");
@@ -195,7 +195,7 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         // Given a running table with one good lot and one without starting sugar
         using var folder = new Scratch();
         folder.Write("r/lots-2026.csv", "Lot,Yeast,Start Brix,Inoculated\n26-201,YB-W22,22.4,2026-09-17 10:00\n26-202,YB-W22,,\n26-203,YB-W22,21.9,\n");
-        string history = Path.Combine(AppContext.BaseDirectory, "demo-data");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
 
         // When forecast
         var (exit, output, error) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");

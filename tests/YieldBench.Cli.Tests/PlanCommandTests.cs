@@ -285,7 +285,7 @@ public sealed class PlanCommandTests : IDisposable
         }
 
         Assert.NotNull(root);
-        string demo = Path.Combine(root!, "demo-data");
+        string demo = Path.Combine(root!, "demo-data", "history");
 
         // When the planner is given them with a strain and a sugar
         var (code, output, _) = Plan("--lots", demo, "--sugar", "24");

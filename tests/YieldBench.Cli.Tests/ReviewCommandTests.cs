@@ -121,7 +121,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
     public void The_folder_holds_exactly_the_files_the_report_s_parts_declare()
     {
         // Given the demo inputs reviewed in-process, and the files its report's parts declare for that review
-        var set = YieldBench.Intake.IntakeReader.Read(["demo-data"], new YieldBench.Intake.IntakeOptions { WorkingDirectory = AppContext.BaseDirectory });
+        var set = YieldBench.Intake.IntakeReader.Read([Path.Combine("demo-data", "history")], new YieldBench.Intake.IntakeOptions { WorkingDirectory = AppContext.BaseDirectory });
         var review = YieldBench.Core.Review.ReviewRunner.Run(set, new YieldBench.Core.Review.ReviewSettings(), "test");
         var declared = YieldBench.Reports.ReportWriter.Files(review);
 
@@ -144,7 +144,7 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
     public void The_factors_the_overview_and_console_lead_with_are_those_of_the_house_factor_file()
     {
         // Given the demo reviewed in-process (its overview) and the demo review's data/house-factor.json
-        var set = YieldBench.Intake.IntakeReader.Read(["demo-data"], new YieldBench.Intake.IntakeOptions { WorkingDirectory = AppContext.BaseDirectory });
+        var set = YieldBench.Intake.IntakeReader.Read([Path.Combine("demo-data", "history")], new YieldBench.Intake.IntakeOptions { WorkingDirectory = AppContext.BaseDirectory });
         var review = YieldBench.Core.Review.ReviewRunner.Run(set, new YieldBench.Core.Review.ReviewSettings(), "test", [new YieldBench.Modeling.MultiVariableCandidate()]);
         using var json = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.First, "data", "house-factor.json")));
         var root = json.RootElement;
@@ -223,9 +223,9 @@ public sealed class ReviewCommandTests(DemoReviewFixture demo) : IClassFixture<D
         // When the file column is read
         var files = issues.Skip(1).Select(l => l.Split(',')[0]).Distinct().ToArray();
 
-        // Then every file is "demo-data/…"
+        // Then every file is "demo-data/history/…"
         Assert.NotEmpty(files);
-        Assert.All(files, f => Assert.StartsWith("demo-data" + Path.DirectorySeparatorChar, f, StringComparison.Ordinal));
+        Assert.All(files, f => Assert.StartsWith(Path.Combine("demo-data", "history") + Path.DirectorySeparatorChar, f, StringComparison.Ordinal));
     }
 
     [Fact]

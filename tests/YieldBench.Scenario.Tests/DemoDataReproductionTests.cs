@@ -3,7 +3,7 @@ using System.Text;
 
 namespace YieldBench.Scenario.Tests;
 
-/// <summary>The committed demo-data/ is exactly what the generator writes.</summary>
+/// <summary>The committed demo-data/ (its history/ and running/ subfolders and README) is exactly what the generator writes.</summary>
 public class DemoDataReproductionTests
 {
     private static readonly IReadOnlyList<(string Name, byte[] Bytes)> Rendered = DemoDataWriter.Render(ScenarioGenerator.Demo());
@@ -41,17 +41,16 @@ public class DemoDataReproductionTests
     private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name);
 
     [Fact]
-    public void Generator_reproduces_the_committed_harvest_in_progress_and_nothing_else_sits_beside_it()
+    public void Finished_seasons_and_the_harvest_in_progress_sit_in_separate_subfolders()
     {
-        // Given the harvest-in-progress files the generator renders, and the committed folder beside demo-data
-        string folder = Path.Combine(RepoPaths.Root, DemoDataWriter.RunningFolderName);
-        var rendered = DemoDataWriter.RenderRunning(ScenarioGenerator.Demo());
-        var present = Directory.GetFiles(folder, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(folder, f)).Order(StringComparer.Ordinal).ToArray();
+        // Given the generator's file list
+        var names = Rendered.Select(f => f.Name).ToArray();
 
-        // Then each matches byte for byte, and the folder holds them and its git attributes only
-        Assert.NotEmpty(rendered);
-        Assert.All(rendered, f => Assert.True(File.ReadAllBytes(Path.Combine(folder, f.Name)).AsSpan().SequenceEqual(f.Bytes), f.Name + " differs from the generator's"));
-        Assert.Equal(rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal), present);
+        // Then the README sits at the top, the season files and logs in history/, the lots still fermenting in running/ only
+        Assert.Contains("README.md", names);
+        Assert.Equal(4, names.Count(n => n.StartsWith(DemoDataWriter.HistoryFolderName + Path.DirectorySeparatorChar, StringComparison.Ordinal)));
+        Assert.Equal([Path.Combine(DemoDataWriter.RunningFolderName, DemoDataWriter.RunningFileName)], names.Where(n => n.StartsWith(DemoDataWriter.RunningFolderName + Path.DirectorySeparatorChar, StringComparison.Ordinal)));
+        Assert.Equal(1 + 4 + 1, names.Length);
     }
 
     [Fact]

@@ -19,9 +19,6 @@ internal static class ForecastCommand
     /// <summary>Default output folder.</summary>
     public const string DefaultOutput = "yieldbench-forecast";
 
-    /// <summary>The demo's harvest in progress, beside the demo folder.</summary>
-    public const string DemoRunning = "demo-running";
-
     /// <summary>The command's name, as messages start.</summary>
     private const string Name = "forecast";
 
@@ -89,16 +86,16 @@ internal static class ForecastCommand
         bool demoRun = history.Count == 0 && running.Count == 0;
         if (demoRun)
         {
-            string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
-            string demoRunning = Path.Combine(AppContext.BaseDirectory, DemoRunning);
+            string demo = DemoPaths.Full(DemoPaths.History);
+            string demoRunning = DemoPaths.Full(DemoPaths.Running);
             if (!Directory.Exists(demo) || !Directory.Exists(demoRunning))
             {
                 return Usage($"{Name}: no inputs given and the bundled demo data is missing ({demo}, {demoRunning}); give the history and --running files.");
             }
 
             root = AppContext.BaseDirectory;
-            history.Add("demo-data");
-            running.Add(DemoRunning);
+            history.Add(DemoPaths.History);
+            running.Add(DemoPaths.Running);
         }
         else if (running.Count == 0)
         {
