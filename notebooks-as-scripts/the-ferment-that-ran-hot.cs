@@ -59,7 +59,7 @@ Console.WriteLine();
 if (hot.PotentialPeak is { } pp)
 {
     Console.WriteLine($"At {T(pp.Time)}, with {F(pp.Brix)} °Brix left and the must at {F(pp.TemperatureC)} °C, this lot could have reached {F(pp.PotentialTemperatureC)} °C without cooling.");
-    Console.WriteLine($"The potential rise is sugar g/L ÷ 180.16 g/mol × {F(settings.HeatOfFermentationKjPerMol, "0.0")} kJ/mol ÷ (must density × {F(settings.MustHeatCapacityKjPerKgK, "0.0")} kJ/(kg·K)): {F(pp.SugarGl, "0")} g/L gives {F(pp.PotentialRiseK)} K.");
+    Console.WriteLine($"The potential rise is sugar g/L ÷ 180.16 g/mol × {F(settings.HeatOfFermentationKjPerMol, "0.0")} kJ/mol ÷ (must density × {F(settings.MustHeatCapacityAt(pp.Brix), "0.00")} kJ/(kg·K), the must's heat capacity at {F(pp.Brix)} °Brix): {F(pp.SugarGl, "0")} g/L gives {F(pp.PotentialRiseK)} K.");
 }
 
 if (hot.HeatRemovedK is { } removed)
