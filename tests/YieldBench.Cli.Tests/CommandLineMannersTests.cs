@@ -186,7 +186,8 @@ public sealed class CommandLineMannersTests : IDisposable
 
         // Then one line says what failed and that it is the tool's fault, with exit code 3
         Assert.Equal(ExitCodes.InternalError, exit);
-        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", error.ToString().Trim());
+        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", Cli.Flat(error.ToString()).Trim());
+        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100, l));
         Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
     }
 
