@@ -32,7 +32,7 @@ public static class YieldBenchApp
         {
             foreach (var error in parse.Errors)
             {
-                context.Error.WriteLine(error.Message);
+                CommandLine.TextWrap.WriteLine(context.Error, error.Message);
             }
 
             string command = parse.CommandResult.Command == root ? "" : parse.CommandResult.Command.Name + " ";
@@ -54,7 +54,7 @@ public static class YieldBenchApp
         {
             // No stack trace reaches a user: one line saying what failed, and that it is the tool's fault.
             string what = e.Message.Split('\n')[0].Trim().TrimEnd('.');
-            context.Error.WriteLine($"yieldbench: an internal error stopped the command ({e.GetType().Name}: {what}). This is a fault of the tool, not of your files; please report it with the command line you gave.");
+            CommandLine.TextWrap.WriteLine(context.Error, $"yieldbench: an internal error stopped the command ({e.GetType().Name}: {CommandLine.UsageChecks.Shown(what)}). This is a fault of the tool, not of your files; please report it with the command line you gave.");
             return ExitCodes.InternalError;
         }
     }

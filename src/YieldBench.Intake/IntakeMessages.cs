@@ -24,6 +24,9 @@ public static class IntakeMessages
     internal static string FileSkipped(string extension) =>
         $"The file is not of a type read ({(extension.Length == 0 ? "no extension" : "'" + extension + "'")}); it was skipped. If it holds lots or readings, save it as .xlsx, .ods or .csv.";
 
+    internal static string ReportFolderSkipped() =>
+        "The folder is a report this tool wrote (it holds yieldbench-files.txt); its files are results, not inputs, and were not read.";
+
     internal static string FolderLinkSkipped() => "The folder is a link to another folder; it was not followed. Give the folder it points to, if it holds lots or readings.";
 
     internal static string FolderTooDeep(int depth) =>

@@ -14,6 +14,12 @@ public static class IntakeReader
     /// <summary>File name endings that are read, from a folder or given by name.</summary>
     public static IReadOnlyList<string> Extensions { get; } = [".xlsx", ".xlsm", ".xls", ".ods", ".csv", ".txt", ".tsv"];
 
+    /// <summary>
+    /// The file that marks a folder as a report this tool wrote (the report writer's manifest); such a folder met below
+    /// an input folder is skipped, so a report kept beside the inputs is never read back as input.
+    /// </summary>
+    public const string ReportManifestName = "yieldbench-files.txt";
+
     /// <summary>Folders below a folder given that are looked into (deeper ones are reported, not read).</summary>
     public const int MaxFolderDepth = 8;
 
@@ -153,6 +159,11 @@ public static class IntakeReader
             if (new DirectoryInfo(d).LinkTarget is not null)
             {
                 steps.Add(Found(shown, IssueCodes.FileSkipped, IntakeMessages.FolderLinkSkipped(), IssueSeverity.Warning));
+            }
+            else if (File.Exists(Path.Combine(d, ReportManifestName)) || Path.GetFileName(d).StartsWith(".yieldbench-", StringComparison.Ordinal))
+            {
+                // A report this tool wrote (or its staging folder): its data files are results, not inputs.
+                steps.Add(Found(shown, IssueCodes.FileSkipped, IntakeMessages.ReportFolderSkipped(), IssueSeverity.Warning));
             }
             else if (depth + 1 > MaxFolderDepth)
             {

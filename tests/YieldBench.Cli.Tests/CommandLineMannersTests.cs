@@ -186,9 +186,31 @@ public sealed class CommandLineMannersTests : IDisposable
 
         // Then one line says what failed and that it is the tool's fault, with exit code 3
         Assert.Equal(ExitCodes.InternalError, exit);
-        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", error.ToString().Trim());
+        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", Cli.Flat(error.ToString()).Trim());
+        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100, l));
         Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
     }
 
     private static int Fail() => throw new InvalidOperationException("Sequence contains no elements");
+
+    [Fact]
+    public void A_report_kept_inside_the_input_folder_is_not_read_back_as_input()
+    {
+        // Given a cellar folder and a review written into a folder inside it
+        Directory.CreateDirectory(Path.Combine(_dir, "cellar"));
+        Write(Path.Combine("cellar", "lots-2023.csv"), Lots);
+        Assert.Equal(ExitCodes.Success, Run("review", "cellar", "--out", "cellar/report", "--quiet").Exit);
+
+        // When the folder is checked and reviewed again
+        var check = Run("check", "cellar");
+        var again = Run("review", "cellar", "--out", "cellar/report", "--quiet");
+
+        // Then the report folder is named as skipped (intake and the report writer agree on its mark), and only the
+        // lots file is read
+        Assert.Equal(YieldBench.Reports.Output.ReportFolder.ManifestName, YieldBench.Intake.IntakeReader.ReportManifestName);
+        Assert.Equal(ExitCodes.Success, check.Exit);
+        Assert.Contains("cellar/report: file-skipped: The folder is a report this tool wrote", Cli.Flat(check.Out), StringComparison.Ordinal);
+        Assert.Contains("Result: 3 lots (2023)", check.Out, StringComparison.Ordinal);
+        Assert.Equal(ExitCodes.Success, again.Exit);
+    }
 }
