@@ -36,8 +36,8 @@ public static partial class ReviewTables
         new("shift", "Shift, first − second (% v/v per °Brix)", CellKind.Number, p => p.Shift, "+0.0000;-0.0000;0.0000"),
         new("shift_low", "Interval low", CellKind.Number, p => p.Interval.Low, "+0.0000;-0.0000;0.0000"),
         new("shift_high", "Interval high", CellKind.Number, p => p.Interval.High, "+0.0000;-0.0000;0.0000"),
-        new("p", "Mann–Whitney p", CellKind.Number, p => p.P, "0.0000"),
-        new("holm_p", "Holm-adjusted p", CellKind.Number, p => p.HolmP, "0.0000"),
+        new("p", "Mann–Whitney p", CellKind.Number, p => p.P, YieldBench.Core.PValues.CellFormat),
+        new("holm_p", "Holm-adjusted p", CellKind.Number, p => p.HolmP, YieldBench.Core.PValues.CellFormat),
     ];
 
     /// <summary>Pairwise Hodges–Lehmann shifts with Holm-adjusted p-values; pairs under 0.05 highlighted.</summary>

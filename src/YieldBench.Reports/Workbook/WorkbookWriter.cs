@@ -449,7 +449,7 @@ public static class WorkbookWriter
         var kw = c.KruskalWallis;
         SheetLayout.SetText(ws.Cell(r++, 1), string.Create(
             CultureInfo.InvariantCulture,
-            $"Kruskal–Wallis across {c.Strains.Count} strains: H = {kw.H:0.00}, {kw.DegreesOfFreedom} degrees of freedom, p = {kw.P:0.0000}, {kw.N} lots.{(kw.Note is null ? string.Empty : " " + kw.Note)}"));
+            $"Kruskal–Wallis across {c.Strains.Count} strains: H = {kw.H:0.00}, {kw.DegreesOfFreedom} degrees of freedom, {YieldBench.Core.PValues.Text(kw.P)}, {kw.N} lots.{(kw.Note is null ? string.Empty : " " + kw.Note)}"));
         if (c.RankingsDisagree)
         {
             SheetLayout.SetText(ws.Cell(r++, 1), "Raw medians and the adjusted comparison put a different strain first: the raw ranking is confounded with starting sugar (or vessel).");

@@ -403,4 +403,37 @@ public class InferenceTests
         Assert.Equal(0.6, same.Low);
         Assert.Equal(0.6, same.High);
     }
+
+    [Fact]
+    public void P_values_far_in_the_tail_come_from_the_survival_function()
+    {
+        // Given three groups of 40 values that do not overlap, each value twice (so the normal approximation applies)
+        double[] a = [.. Enumerable.Range(0, 40).Select(i => (double)(i / 2))];
+        double[] b = [.. a.Select(v => v + 100)];
+        double[] c = [.. a.Select(v => v + 200)];
+
+        // When tested
+        var kw = RankTests.KruskalWallis([a, b, c]);
+        var mw = RankTests.MannWhitney(a, b);
+
+        // Then the p-values are scipy 1.10.1's, far below what 1 − CDF can hold (it would give 0):
+        // stats.kruskal(a, b, c) → H 105.80716865796053, p 1.0574631763174369e-23;
+        // stats.mannwhitneyu(a, b, method='asymptotic') → p 1.4149821894307883e-14
+        Assert.Equal(105.80716865796053, kw.H, 1e-9);
+        Assert.Equal(1.0574631763174369e-23, kw.P, 1.0574631763174369e-23 * 1e-9);
+        Assert.Equal(1.4149821894307883e-14, mw.P, 1.4149821894307883e-14 * 1e-6);
+        Assert.False(mw.Exact);
+    }
+
+    [Theory]
+    [InlineData(0.0123456, "p = 0.0123")]
+    [InlineData(0.0001, "p = 0.0001")]
+    [InlineData(0.0000999, "p < 0.0001")]
+    [InlineData(1.0574631763174369e-23, "p < 0.0001")]
+    [InlineData(double.NaN, "p not defined")]
+    public void P_values_below_0_0001_are_written_as_less_than_0_0001(double p, string text)
+    {
+        Assert.Equal(text, PValues.Text(p));
+        Assert.Equal("[<0.0001]\"< 0.0001\";0.0000", PValues.CellFormat);
+    }
 }

@@ -224,7 +224,7 @@ internal static class Comparison
             string verdict = kw.P < Alpha
                 ? "the strains' factors differ by more than the lot-to-lot noise would explain"
                 : "no difference between the strains' factors stands out from the lot-to-lot noise";
-            sentences.Add(Invariant($"Kruskal–Wallis across {strains.Length} strains ({kw.N} lots): H = {kw.H:0.00}, p = {kw.P:0.0000}; {verdict}."));
+            sentences.Add(Invariant($"Kruskal–Wallis across {strains.Length} strains ({kw.N} lots): H = {kw.H:0.00}, {PValues.Text(kw.P)}; {verdict}."));
         }
 
         foreach (var p in pairs)
@@ -232,7 +232,7 @@ internal static class Comparison
             string verdict = p.HolmP < Alpha && !p.Interval.Contains(0)
                 ? "larger than the noise"
                 : "within the noise";
-            sentences.Add(Invariant($"{p.First} − {p.Second}: raw shift {p.Shift:+0.0000;-0.0000;0.0000} % v/v per °Brix ({level} % interval {p.Interval.Low:0.0000} to {p.Interval.High:0.0000}; Holm-adjusted p = {p.HolmP:0.0000}) — {verdict}."));
+            sentences.Add(Invariant($"{p.First} − {p.Second}: raw shift {p.Shift:+0.0000;-0.0000;0.0000} % v/v per °Brix ({level} % interval {p.Interval.Low:0.0000} to {p.Interval.High:0.0000}; Holm-adjusted {PValues.Text(p.HolmP)}) — {verdict}."));
         }
 
         if (adjusted.Strains.Count == 0)
