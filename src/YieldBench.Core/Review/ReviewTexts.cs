@@ -47,8 +47,20 @@ public static class ReviewTexts
         "out-of-order-timestamp" => "log readings out of time order",
         "duplicate-timestamp" => "two log readings at one time",
         "sugar-rose" => "sugar rose between readings",
+        "heat-potential-above-danger" => "could have passed the danger temperature without cooling",
+        "drop-before-inoculation" => "sugar fell before the recorded inoculation",
+        "too-few-sugar-readings" => "too few sugar readings to analyse",
+        "no-sigmoid-fit" => "no fermentation curve could be fitted",
+        "several-logs-for-lot" => "several logs for one lot",
+        "log-without-lot" => "a log that matches no lot",
+        "log-matches-several-lots" => "a log that matches several lots",
+        "no-log" => "no fermentation log",
         _ => code,
     };
+
+    /// <summary>A p-value as reports print it: four decimals, or "&lt; 0.0001" below that (never "0.0000").</summary>
+    public static string P(double p) =>
+        double.IsNaN(p) ? "n/a" : p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", System.Globalization.CultureInfo.InvariantCulture);
 
     /// <summary>Plain name of a backtest scheme.</summary>
     public static string Scheme(BacktestScheme scheme) => scheme switch
