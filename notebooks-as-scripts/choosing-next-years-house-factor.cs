@@ -22,7 +22,7 @@ Console.WriteLine("the local rules (docs/cautions.md). The fair test of a rule i
 Console.WriteLine("so every candidate is fitted on all seasons but one and scored on the one left out, in turn.");
 Console.WriteLine();
 
-var set = IntakeReader.Read([Path.Combine(root, "demo-data")], new IntakeOptions());
+var set = IntakeReader.Read([Path.Combine(root, "demo-data", "history")], new IntakeOptions());
 var lots = set.Lots.Select(l => ConversionFactors.For(l, SugarModel.Default)).ToArray();
 var settings = new HouseFactorSettings();
 // As the review does: lots the strain review flags as likely errors or not dry do not teach the factor.

@@ -12,11 +12,11 @@ const int season = 2023;
 var inv = CultureInfo.InvariantCulture;
 string F(double v, string f = "0.00") => double.IsFinite(v) ? v.ToString(f, inv) : "n/a";
 string root = FindRoot();
-string demo = Path.Combine(root, "demo-data");
+string demo = Path.Combine(root, "demo-data", "history");
 
 Console.WriteLine($"# A first look at the {season} season of the invented demo cellar");
 Console.WriteLine();
-Console.WriteLine("Step 1. Read every file in demo-data/ with the same intake the review uses. Intake accounts for every row:");
+Console.WriteLine("Step 1. Read every file in demo-data/history/ with the same intake the review uses. Intake accounts for every row:");
 Console.WriteLine("each one is used as a lot or a log reading, reported as a problem, or skipped as blank or as a summary line.");
 var set = IntakeReader.Read([demo], new IntakeOptions());
 foreach (var a in set.Accounts)

@@ -30,7 +30,7 @@ Console.WriteLine($"comparison puts every strain at the same starting sugar: fit
 Console.WriteLine($"starting sugar (Theil–Sen, robust to a few odd lots), read it at a reference of {reference:0} °Brix, divide by {reference:0}.");
 Console.WriteLine();
 
-var set = IntakeReader.Read([Path.Combine(root, "demo-data")], new IntakeOptions());
+var set = IntakeReader.Read([Path.Combine(root, "demo-data", "history")], new IntakeOptions());
 var conv = set.Lots.Select(l => ConversionFactors.For(l, SugarModel.Default))
     .Where(c => c.ResidualSugarGl <= 4.0) // dry lots only (≤ 4 g/L, the OIV's dry wine limit), so unfinished ferments do not pull lines down
     .ToArray();

@@ -9,6 +9,7 @@ scripts=(
   notebooks-as-scripts/is-one-strain-really-better.cs
   notebooks-as-scripts/choosing-next-years-house-factor.cs
   notebooks-as-scripts/the-ferment-that-ran-hot.cs
+  notebooks-as-scripts/when-to-add-nutrients.cs
 )
 for script in "${scripts[@]}"; do
   echo "=== $script"

@@ -21,7 +21,7 @@ Console.WriteLine("a danger threshold (reds 35 / 40 °C, whites and rosés 20 / 
 Console.WriteLine("temperature the remaining sugar could still have reached with no cooling at all.");
 Console.WriteLine();
 
-var set = IntakeReader.Read([Path.Combine(root, "demo-data")], new IntakeOptions());
+var set = IntakeReader.Read([Path.Combine(root, "demo-data", "history")], new IntakeOptions());
 var lots = set.Lots.Select(l => ConversionFactors.For(l, SugarModel.Default)).ToArray();
 var settings = KineticsSettings.Default;
 var review = KineticsAnalysis.Run(lots, set.Logs, settings);

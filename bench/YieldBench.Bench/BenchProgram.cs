@@ -72,7 +72,7 @@ internal static class BenchProgram
         var sizes = opts.GetValueOrDefault("sizes", "1000,10000,100000").Split(',', StringSplitOptions.RemoveEmptyEntries).Select(s => int.Parse(s, Inv)).ToArray();
         string work = Path.GetFullPath(opts.GetValueOrDefault("work", Path.Combine(Path.GetTempPath(), "yieldbench-bench")));
         string results = Path.GetFullPath(opts.GetValueOrDefault("results", Path.Combine(root, "bench", "results")));
-        string demo = Path.GetFullPath(opts.GetValueOrDefault("demo", Path.Combine(root, "demo-data")));
+        string demo = Path.GetFullPath(opts.GetValueOrDefault("demo", Path.Combine(root, "demo-data", "history")));
         var budget = TimeSpan.FromSeconds(double.Parse(opts.GetValueOrDefault("budget", "1800"), Inv));
         Directory.CreateDirectory(work);
         Directory.CreateDirectory(results);
@@ -300,7 +300,7 @@ internal static class BenchProgram
             error.WriteLine(string.Create(Inv, $"bench:   review command run {i + 1}: {walls[^1]:0.00} s wall, {peak / 1048576.0:0} MB peak"));
         }
 
-        return new CommandTiming($"dotnet src/YieldBench.Cli/bin/{BuildConfiguration()}/net10.0/yieldbench.dll review demo-data --out DIR --quiet", walls, peaks);
+        return new CommandTiming($"dotnet src/YieldBench.Cli/bin/{BuildConfiguration()}/net10.0/yieldbench.dll review demo-data/history --out DIR --quiet", walls, peaks);
     }
 
     private static string BuildConfiguration() =>

@@ -9,6 +9,9 @@ public static class ExitCodes
     /// <summary>The inputs had problems, which were reported.</summary>
     public const int InputProblems = 1;
 
-    /// <summary>The command line was not understood.</summary>
+    /// <summary>The command line was not understood, or cannot be carried out (said before any work).</summary>
     public const int Usage = 2;
+
+    /// <summary>A fault of the tool stopped the command (one line says what failed; no stack trace).</summary>
+    public const int InternalError = 3;
 }

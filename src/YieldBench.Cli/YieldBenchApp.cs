@@ -35,11 +35,28 @@ public static class YieldBenchApp
                 context.Error.WriteLine(error.Message);
             }
 
-            context.Error.WriteLine("Run 'yieldbench --help' for usage.");
+            string command = parse.CommandResult.Command == root ? "" : parse.CommandResult.Command.Name + " ";
+            context.Error.WriteLine($"Run 'yieldbench {command}--help' for usage.");
             return ExitCodes.Usage;
         }
 
-        return parse.Invoke(new InvocationConfiguration { Output = context.Out, Error = context.Error });
+        return Invoke(parse, context);
+    }
+
+    /// <summary>Runs a parsed command; a fault inside it becomes one line on standard error and exit code 3.</summary>
+    internal static int Invoke(ParseResult parse, CliContext context)
+    {
+        try
+        {
+            return parse.Invoke(new InvocationConfiguration { Output = context.Out, Error = context.Error, EnableDefaultExceptionHandler = false });
+        }
+        catch (Exception e) when (e is not OutOfMemoryException)
+        {
+            // No stack trace reaches a user: one line saying what failed, and that it is the tool's fault.
+            string what = e.Message.Split('\n')[0].Trim().TrimEnd('.');
+            context.Error.WriteLine($"yieldbench: an internal error stopped the command ({e.GetType().Name}: {what}). This is a fault of the tool, not of your files; please report it with the command line you gave.");
+            return ExitCodes.InternalError;
+        }
     }
 
     private static IEnumerable<Command> AllCommands(CliContext context)
@@ -48,6 +65,7 @@ public static class YieldBenchApp
         yield return Commands.CheckCommand.Create(context);
         yield return Commands.TemplateCommand.Create(context);
         yield return Commands.PlanCommand.Create(context);
+        yield return Commands.ForecastCommand.Create(context);
     }
 
     private sealed class PrintVersion(CliContext context) : SynchronousCommandLineAction

@@ -92,6 +92,9 @@ public static class IntakeMessages
     internal static string TooManyRows(int limit) =>
         $"The sheet has more than {limit.ToString(Inv)} rows, the limit; it was not read. Split it (for example one sheet per season).";
 
+    internal static string TooManyCells(long limit) =>
+        $"The sheet spans more than {limit.ToString("N0", Inv)} cells (rows times columns), the limit; it was not read. Delete empty rows and columns at its end, or split it.";
+
     internal static string MissingColumn(string field, IReadOnlyList<string> examples) =>
         $"The sheet has no column for {field}, which is required; none of its rows could be used. Add a column headed for example {string.Join(", ", examples.Select(e => "'" + e + "'"))}, or map one with --column {field}=HEADER.";
 
@@ -112,6 +115,9 @@ public static class IntakeMessages
 
     internal static string UnitFromValues(string unit, double low, double high, string example) =>
         $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string MaybeBaume() =>
+        " Values of 8 to 16 are also what °Baumé gives for a must; if these are °Baumé, head the column 'Starting sugar (°Baumé)', or every lot will read as making more alcohol than its sugar can.";
 
     internal static string ColumnInFahrenheit(double low, double high) =>
         $"The header says °C but the values ({Num(low)} to {Num(high)}) look like °F; they were converted from °F. Correct the header or the values.";

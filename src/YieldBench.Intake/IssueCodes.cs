@@ -70,6 +70,9 @@ public static class IssueCodes
     /// <summary><c>too-many-rows</c>.</summary>
     public const string TooManyRows = "too-many-rows";
 
+    /// <summary><c>too-many-cells</c>.</summary>
+    public const string TooManyCells = "too-many-cells";
+
     /// <summary><c>missing-column</c>.</summary>
     public const string MissingColumn = "missing-column";
 

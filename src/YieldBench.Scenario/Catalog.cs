@@ -62,7 +62,13 @@ public static class Catalog
         new(2025, 84, 24.6, 22.0, new DateTime(2025, 9, 3), 45, SugarScale.Brix, SeasonFileFormat.SemicolonCsv),
     ];
 
-    /// <summary>The strain with the given code.</summary>
+    /// <summary>
+    /// A strain the cellar tries for the first time in the harvest in progress: no finished lot of it exists, so a
+    /// forecast for it must stand on the other strains (not in <see cref="Strains"/>, which lists the strains of the history).
+    /// </summary>
+    public static StrainProfile TrialStrain { get; } = new("YB-R44", "red strain on trial this harvest: no history in this cellar", 16.4, 12, 0.15, 1.0, true);
+
+    /// <summary>The strain with the given code (the trial strain included).</summary>
     public static StrainProfile Strain(string code) =>
-        Strains.FirstOrDefault(s => s.Code == code) ?? throw new ArgumentException($"No strain {code} in the catalog.", nameof(code));
+        Strains.FirstOrDefault(s => s.Code == code) ?? (code == TrialStrain.Code ? TrialStrain : throw new ArgumentException($"No strain {code} in the catalog.", nameof(code)));
 }

@@ -27,22 +27,31 @@ public static class DemoDataWriter
             : $"tallowmere-{season.Year}-lots.csv";
     }
 
-    /// <summary>Every file name <see cref="Write"/> produces, in order.</summary>
-    public static IReadOnlyList<string> FileNames(ScenarioData scenario)
-    {
-        ArgumentNullException.ThrowIfNull(scenario);
-        return [.. scenario.Seasons.Select(s => SeasonFileName(s.Profile)), LogsFileName, "README.md"];
-    }
+    /// <summary>
+    /// Subfolder of the demo folder holding the finished seasons (what <c>review</c> reads with no inputs). The harvest in
+    /// progress sits in its own subfolder beside it, not inside it: a folder given to intake is read with its
+    /// subfolders, and lots still fermenting are no finished lots for <c>review</c>.
+    /// </summary>
+    public const string HistoryFolderName = "history";
 
-    /// <summary>Writes every demo file into <paramref name="directory"/> (created if missing); returns the paths written.</summary>
+    /// <summary>Subfolder of the demo folder holding the harvest in progress (what <c>forecast</c> reads with no inputs, beside the history).</summary>
+    public const string RunningFolderName = "running";
+
+    /// <summary>File name of the harvest-in-progress workbook in <see cref="RunningFolderName"/>.</summary>
+    public const string RunningFileName = "tallowmere-2026-harvest-in-progress.xlsx";
+
+    /// <summary>Every file <see cref="Write"/> produces, as paths relative to the demo folder, in order.</summary>
+    public static IReadOnlyList<string> FileNames(ScenarioData scenario) => Render(scenario).Select(f => f.Name).ToArray();
+
+    /// <summary>Writes every demo file under <paramref name="directory"/> (created with its subfolders if missing); returns the paths written.</summary>
     public static IReadOnlyList<string> Write(ScenarioData scenario, string directory)
     {
         ArgumentNullException.ThrowIfNull(scenario);
-        Directory.CreateDirectory(directory);
         var written = new List<string>();
         foreach (var (name, bytes) in Render(scenario))
         {
             string path = Path.Combine(directory, name);
+            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
             File.WriteAllBytes(path, bytes);
             written.Add(path);
         }
@@ -50,7 +59,11 @@ public static class DemoDataWriter
         return written;
     }
 
-    /// <summary>Every demo file's name and bytes, without touching the disk.</summary>
+    /// <summary>
+    /// Every demo file's path relative to the demo folder and its bytes, without touching the disk: the README, the
+    /// finished seasons and their logs in <see cref="HistoryFolderName"/>, the harvest in progress (when the scenario
+    /// has one) in <see cref="RunningFolderName"/>.
+    /// </summary>
     public static IReadOnlyList<(string Name, byte[] Bytes)> Render(ScenarioData scenario)
     {
         ArgumentNullException.ThrowIfNull(scenario);
@@ -60,10 +73,15 @@ public static class DemoDataWriter
             byte[] bytes = season.Profile.Format == SeasonFileFormat.Workbook
                 ? SeasonWorkbook(scenario, season)
                 : SeasonCsv(season);
-            files.Add((SeasonFileName(season.Profile), bytes));
+            files.Add((Path.Combine(HistoryFolderName, SeasonFileName(season.Profile)), bytes));
         }
 
-        files.Add((LogsFileName, LogsWorkbook(scenario)));
+        files.Add((Path.Combine(HistoryFolderName, LogsFileName), LogsWorkbook(scenario)));
+        if (scenario.Running is { } running)
+        {
+            files.Add((Path.Combine(RunningFolderName, RunningFileName), RunningWorkbook(scenario, running)));
+        }
+
         files.Add(("README.md", Encoding.UTF8.GetBytes(Readme(scenario))));
         return files;
     }
@@ -234,6 +252,54 @@ public static class DemoDataWriter
         return Save(wb);
     }
 
+    private static byte[] RunningWorkbook(ScenarioData scenario, HarvestInProgress running)
+    {
+        // The cellar's working book of the harvest: the lots still fermenting (no final analysis yet) and their log.
+        using var wb = NewWorkbook(scenario.EstateName);
+        var lots = wb.Worksheets.Add("Lots in progress");
+        string[] headers = ["Lot", "Vintage", "Yeast", "Vessel", "Capacity (L)", "Variety", "Colour", "Start Brix (°Bx)", "Must volume (L)", "YAN (mg N/L)", "Inoculated", "Notes"];
+        string[] formats = ["@", "0", "@", "@", "0", "@", "@", "0.0", "0", "0", "yyyy-mm-dd hh:mm", "@"];
+        WriteHeader(lots, headers, [9, 8, 9, 15, 11, 18, 8, 15, 14, 12, 17, 34]);
+        int row = 2;
+        foreach (var g in running.Lots)
+        {
+            var l = g.Recorded;
+            object?[] values =
+            [
+                l.LotId, l.Season, l.Strain, l.Vessel, l.VesselCapacityL, l.Variety, ColourName(l.Colour),
+                Math.Round(l.StartingSugar.Brix, 1), l.Additions.MustVolumeL, l.YanMgL, l.InoculationDate, l.Notes,
+            ];
+            for (int c = 0; c < values.Length; c++)
+            {
+                SetCell(lots.Cell(row, c + 1), values[c], formats[c]);
+            }
+
+            row++;
+        }
+
+        lots.SheetView.FreezeRows(1);
+        var log = wb.Worksheets.Add($"Logs {running.Season}");
+        WriteHeader(log, ["Lot", "Date", "Time", "Brix", "Temp °C"], [9, 11, 7, 8, 9]);
+        row = 2;
+        foreach (var g in running.Lots)
+        {
+            for (int k = 0; k < g.Log.Readings.Count; k++)
+            {
+                var r = g.Log.Readings[k];
+                log.Cell(row, 1).Value = g.Recorded.LotId;
+                log.Cell(row, 1).Style.NumberFormat.Format = "@";
+                SetCell(log.Cell(row, 2), r.Timestamp.Date, "yyyy-mm-dd");
+                SetCell(log.Cell(row, 3), r.Timestamp.TimeOfDay.TotalDays, "hh:mm");
+                SetCell(log.Cell(row, 4), g.LogRecordedSugar[k], "0.0");
+                SetCell(log.Cell(row, 5), r.TemperatureC, "0.0");
+                row++;
+            }
+        }
+
+        log.SheetView.FreezeRows(1);
+        return Save(wb);
+    }
+
     private static void WriteHeader(IXLWorksheet ws, string[] headers, double[] widths)
     {
         for (int c = 0; c < headers.Length; c++)
@@ -308,8 +374,15 @@ public static class DemoDataWriter
         L();
         L($"These files are generated. **{scenario.EstateName}**, its blocks, its cellar and the strain codes (`YB-…`) are");
         L("invented; no real winery, yeast product, person or measurement is behind them. They exist so that a new user can");
-        L("run `yieldbench review` with no inputs and see every part of the report work, and so that tests can check the");
-        L("tool finds what was planted.");
+        L("run `yieldbench review` (and `yieldbench forecast`) with no inputs and see every part of the report work, and so");
+        L("that tests can check the tool finds what was planted.");
+        L();
+        L($"- `{HistoryFolderName}/`: the finished seasons and their fermentation logs, what `review` reads with no inputs");
+        L($"  (the same as `review demo-data/{HistoryFolderName}`).");
+        L($"- `{RunningFolderName}/`: the harvest in progress, lots still fermenting; `forecast` with no inputs reads it with");
+        L($"  the history (the same as `forecast demo-data/{HistoryFolderName} --running demo-data/{RunningFolderName}`). It is kept");
+        L("  apart because a folder given to the tool is read with its subfolders, and lots still fermenting are no finished");
+        L("  lots for `review`.");
         L();
         L("Regenerate (byte for byte; a test checks it):");
         L();
@@ -319,7 +392,7 @@ public static class DemoDataWriter
         L();
         L($"Seed {scenario.Seed.ToString(Inv)}. Source: `src/YieldBench.Scenario` (`ScenarioGenerator.Demo()` exposes the truth below).");
         L();
-        L("## Files");
+        L($"## Files in `{HistoryFolderName}/`");
         L();
         L("| file | what | how it is kept |");
         L("|---|---|---|");
@@ -384,6 +457,26 @@ public static class DemoDataWriter
         L();
         L("Any one of the listed lot-flag codes counts as detection; a kinetics code is expected as listed. Probe-logged lots: " + string.Join(", ", scenario.AllLots.Where(l => l.LogIsProbe).Select(l => l.Recorded.LotId)) + " (records cross the end of September).");
         L();
+        if (scenario.Running is { } running)
+        {
+            L($"## The harvest in progress ({running.Season})");
+            L();
+            L($"`{RunningFolderName}/{RunningFileName}` (beside `{HistoryFolderName}/`, so that `review` never takes its lots for finished ones) is the");
+            L($"cellar's working book of the next season, caught on {running.Now.ToString("d MMMM yyyy", Inv)} after the evening round:");
+            L("sheet \"Lots in progress\" lists the lots still fermenting (no final alcohol yet), sheet \"Logs " + running.Season.ToString(Inv) + "\" their readings so far.");
+            L("`yieldbench forecast` with no inputs reads it with the three seasons above as history. Its lots are made the same way");
+            L($"as the history's; {Catalog.TrialStrain.Code} is a strain on trial with no history (lag {Catalog.TrialStrain.LagHours.ToString("0", Inv)} h, maximum rate {Catalog.TrialStrain.MaxRateBrixPerHourAt25C.ToString("0.00", Inv)} °Brix/h at 25 °C).");
+            L();
+            L("| lot | strain | vessel | readings so far | what is planted |");
+            L("|---|---|---|---|---|");
+            foreach (var g in running.Lots)
+            {
+                L($"| {g.Recorded.LotId} | {g.Recorded.Strain} | {g.Recorded.Vessel} {g.Recorded.VesselCapacityL?.ToString("0", Inv)} L | {g.Log.Readings.Count} | {g.Story ?? "an ordinary lot"} |");
+            }
+
+            L();
+        }
+
         L("## Cautions");
         L();
         L("A predicted or reviewed alcohol is not a label statement: labels need a lab analysis and the local rules. Fermentation");

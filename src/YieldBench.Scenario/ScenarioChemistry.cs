@@ -11,9 +11,11 @@ namespace YieldBench.Scenario;
 /// <item>Fermentable sugar from °Brix: the OIV must table rows (OIV-MA-AS2-02 Table II as in the French Arrêté du
 /// 14 septembre 2011, Annexe IV) joined by a Fritsch–Carlson monotone cubic on g/L; outside 10–30 °Brix, the total
 /// solids times the sugar share of solids at the nearest table edge.</item>
-/// <item>Additions: a mass balance on dissolved solids; added sucrose counts one-for-one as °Brix solids and as
-/// fermentable sugar (the world ignores the 5.3 % mass gain of sucrose inversion — a simplification of the scenario that
-/// moves sugar_gl_per_abv of a chaptalized demo lot by about 1 %, and abv_per_brix not at all).</item>
+/// <item>Additions: a mass balance on dissolved solids; added sucrose counts one-for-one as °Brix solids when the
+/// must's °Brix after the addition is formed. The fermentable sugar the yeast meet is the must's own sugar plus the
+/// sucrose's, which inverts to 2 × 180.156 / 342.297 = 1.0526 times its mass of glucose and fructose, spread over the
+/// volume after (mass over the density at the solids °Brix after inversion): a chaptalized or watered must holds the
+/// non-sugar solids of the must it came from, not those of a natural must of its new °Brix.</item>
 /// </list>
 /// </summary>
 public static class ScenarioChemistry
@@ -97,6 +99,26 @@ public static class ScenarioChemistry
         double mass = volumeL * SpecificGravityFromBrix(brix) * WaterDensity20C;
         double solids = mass * brix / 100.0;
         return 100.0 * (solids + sucroseKg) / (mass + (WaterDensity20C * waterL) + sucroseKg);
+    }
+
+    /// <summary>
+    /// Fermentable sugar (g/L) of a must of <paramref name="volumeL"/> L at <paramref name="brix"/> after adding
+    /// <paramref name="waterL"/> L of water and <paramref name="sucroseKg"/> kg of sucrose (inverted).
+    /// </summary>
+    public static double SugarAfterAdditions(double brix, double volumeL, double waterL, double sucroseKg)
+    {
+        if (waterL <= 0 && sucroseKg <= 0)
+        {
+            return SugarGramsPerLitre(brix);
+        }
+
+        const double hexosePerSucrose = 2 * 180.156 / 342.297;
+        double mass = volumeL * SpecificGravityFromBrix(brix) * WaterDensity20C;
+        double solids = mass * brix / 100.0;
+        double massAfter = mass + (WaterDensity20C * waterL) + sucroseKg;
+        double solidsBrix = 100.0 * (solids + (hexosePerSucrose * sucroseKg)) / massAfter;
+        double volumeAfter = massAfter / (SpecificGravityFromBrix(solidsBrix) * WaterDensity20C);
+        return ((SugarGramsPerLitre(brix) * volumeL) + (1000.0 * hexosePerSucrose * sucroseKg)) / volumeAfter;
     }
 
     /// <summary>Water (L) that brings <paramref name="volumeL"/> L at <paramref name="brix"/> down to <paramref name="targetBrix"/> (0 when already at or below).</summary>

@@ -9,7 +9,7 @@ namespace YieldBench.Scenario;
 /// Makes the invented scenario: seasons of lots with the truth behind them, fermentation logs, and planted cases.
 /// Deterministic: the same options give the same lots, digit for digit. No clock is read.
 /// </summary>
-public static class ScenarioGenerator
+public static partial class ScenarioGenerator
 {
     /// <summary>Hand-read log slots: morning and evening rounds, local time.</summary>
     private static readonly TimeSpan[] Rounds = [new(7, 30, 0), new(17, 30, 0)];
@@ -50,6 +50,7 @@ public static class ScenarioGenerator
             Strains = Catalog.Strains,
             Vessels = Catalog.Vessels,
             PlantedCases = cases,
+            Running = options.RunningHarvest ? HarvestInProgress(root.Fork("harvest-in-progress")) : null,
         };
     }
 
@@ -276,7 +277,8 @@ public static class ScenarioGenerator
         // Temperatures and kinetics (Zwietering modified Gompertz of °Brix consumed).
         double basePeak = (red ? p.Vessel.RedPeakC : p.Vessel.WhitePeakC) + strain.HeatRiseC;
         double peak = p.ForcedPeakC ?? (basePeak + rng.Normal(0, 1.0));
-        double startTemp = red ? rng.TruncatedNormal(19, 1.2, 15, 23) : rng.TruncatedNormal(13, 0.8, 10, 15.5);
+        double drawnStart = red ? rng.TruncatedNormal(19, 1.2, 15, 23) : rng.TruncatedNormal(13, 0.8, 10, 15.5);
+        double startTemp = p.ForcedStartC ?? drawnStart;
         double lag = strain.LagHours * Math.Exp(rng.Normal(0, 0.2)) * (yan < 150 ? 1.3 : 1.0);
         double rate = strain.MaxRateBrixPerHourAt25C * Math.Exp(0.07 * (Math.Min(peak, 34) - 25))
             * Math.Clamp(Math.Pow(yan / 220.0, 0.35), 0.6, 1.25) * Math.Exp(rng.Normal(0, 0.12));
@@ -287,7 +289,8 @@ public static class ScenarioGenerator
         // Residual sugar and alcohol: sugar consumed ÷ the strain's sugar per % v/v, less vessel and heat losses.
         double rs = p.ForcedResidualGl ?? (0.8 + (2.4 * Math.Pow(rng.NextDouble(), 2)));
         double heatLoss = 0.004 * Math.Max(0, peak - 32);
-        double abv = (ScenarioChemistry.SugarGramsPerLitre(effective) - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
+        double sugarGl = ScenarioChemistry.SugarAfterAdditions(p.TrueBrix, p.MustVolumeL, trueWater, sugar);
+        double abv = (sugarGl - rs) / strain.SugarGlPerAbv * (1 - p.Vessel.EthanolLossShare) * (1 - heatLoss);
         double labAbv = Math.Round(abv + rng.Normal(0, 0.07), 2);
         double labRs = Math.Round(Math.Max(0.3, rs + rng.Normal(0, 0.15)), 1);
 
@@ -535,6 +538,8 @@ public static class ScenarioGenerator
         public double? ExactRecordedBrix { get; set; }
 
         public double? ForcedPeakC { get; set; }
+
+        public double? ForcedStartC { get; set; }
 
         public double? ForcedResidualGl { get; set; }
 

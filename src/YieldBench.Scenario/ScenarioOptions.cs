@@ -18,6 +18,9 @@ public sealed record ScenarioOptions
     /// <summary>When true, the demo's planted cases are placed (needs the demo seasons 2023–2025).</summary>
     public bool PlantCases { get; init; } = true;
 
+    /// <summary>When true, the next season's harvest in progress is made as well (needs the demo seasons; see <see cref="ScenarioData.Running"/>).</summary>
+    public bool RunningHarvest { get; init; }
+
     /// <summary>The demo scenario's options.</summary>
-    public static ScenarioOptions Demo { get; } = new();
+    public static ScenarioOptions Demo { get; } = new() { RunningHarvest = true };
 }

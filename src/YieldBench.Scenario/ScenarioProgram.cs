@@ -12,8 +12,7 @@ public static class ScenarioProgram
         if (args.Length >= 1 && args[0] == "demo-data")
         {
             string dir = args.Length >= 2 ? args[1] : "demo-data";
-            var scenario = ScenarioGenerator.Demo();
-            foreach (var file in DemoDataWriter.Write(scenario, dir))
+            foreach (var file in DemoDataWriter.Write(ScenarioGenerator.Demo(), dir))
             {
                 output.WriteLine($"wrote {file}");
             }
@@ -27,7 +26,7 @@ public static class ScenarioProgram
             return 0;
         }
 
-        error.WriteLine("usage: demo-data [DIR]   rewrite the demo files (default folder: demo-data)");
+        error.WriteLine("usage: demo-data [DIR]   rewrite the demo files (default folder: demo-data; the finished seasons go to its history/, the harvest in progress to its running/)");
         error.WriteLine("       summary           print what is planted where");
         return 2;
     }

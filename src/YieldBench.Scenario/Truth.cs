@@ -151,6 +151,9 @@ public sealed record ScenarioData
     /// <summary>The planted cases (empty for a scale scenario without them).</summary>
     public required IReadOnlyList<PlantedCase> PlantedCases { get; init; }
 
+    /// <summary>The next season's harvest in progress (lots still fermenting, logs up to "now"), or null.</summary>
+    public HarvestInProgress? Running { get; init; }
+
     /// <summary>Every lot of every season in order.</summary>
     public IEnumerable<GeneratedLot> AllLots => Seasons.SelectMany(s => s.Lots);
 

@@ -100,7 +100,7 @@ public sealed class CheckCommandTests : IDisposable
     {
         var (code, _, error) = Run("check");
         Assert.Equal(ExitCodes.Usage, code);
-        Assert.Contains("Run 'yieldbench --help' for usage.", error, StringComparison.Ordinal);
+        Assert.Contains("Run 'yieldbench check --help' for usage.", error, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -109,6 +109,6 @@ public sealed class CheckCommandTests : IDisposable
         Write("lots.csv", "Lot,Yeast,Brix,ABV\nA-01,QX-7,24.0,14.0\n");
         var (code, _, error) = Run("check", "lots.csv", "--season", "23");
         Assert.Equal(ExitCodes.Usage, code);
-        Assert.Equal("--season 23 is not a year between 1900 and 2100; give the vintage, e.g. --season 2024.\nRun 'yieldbench --help' for usage.\n", error.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal("--season 23 is not a year between 1900 and 2100; give the vintage, e.g. --season 2024.\nRun 'yieldbench check --help' for usage.\n", error.Replace("\r\n", "\n", StringComparison.Ordinal));
     }
 }

@@ -170,4 +170,25 @@ public sealed class CommandLineMannersTests : IDisposable
         Assert.Equal(ExitCodes.Usage, Run("template", "--out", "t.csv").Exit);
         Assert.Equal(ExitCodes.Usage, Run("no-such-command").Exit);
     }
+
+    [Fact]
+    public void A_fault_inside_a_command_is_one_line_with_exit_code_3_never_a_stack_trace()
+    {
+        // Given a command whose action fails with an exception (standing in for a fault of the tool)
+        var root = new System.CommandLine.RootCommand();
+        var broken = new System.CommandLine.Command("broken");
+        broken.SetAction((System.CommandLine.ParseResult _) => (int)Fail());
+        root.Subcommands.Add(broken);
+        var error = new StringWriter();
+
+        // When it runs through the app's own runner
+        int exit = YieldBenchApp.Invoke(root.Parse(["broken"]), new CliContext(TextWriter.Null, error, false, _dir));
+
+        // Then one line says what failed and that it is the tool's fault, with exit code 3
+        Assert.Equal(ExitCodes.InternalError, exit);
+        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", error.ToString().Trim());
+        Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+    }
+
+    private static int Fail() => throw new InvalidOperationException("Sequence contains no elements");
 }

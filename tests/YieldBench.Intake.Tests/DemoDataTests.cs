@@ -12,7 +12,7 @@ public class DemoDataTests
             dir = dir.Parent;
         }
 
-        return Path.Combine(dir?.FullName ?? throw new DirectoryNotFoundException("demo-data not found above the test folder"), "demo-data");
+        return Path.Combine(dir?.FullName ?? throw new DirectoryNotFoundException("demo-data not found above the test folder"), "demo-data", "history");
     }
 
     [Fact]

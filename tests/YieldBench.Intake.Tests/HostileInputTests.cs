@@ -142,4 +142,12 @@ public class HostileInputTests
         Assert.Equal(("Sugar added (kg)", "Water added (L)"), (sugar[0].Column, sugar[1].Column));
         Assert.StartsWith("5000 L of water added to 1000 L of must at 23.1 °Brix would make a must of 4.2 °Brix", sugar[1].Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void A_message_with_a_control_character_is_shown_whole_without_overflow()
+    {
+        // Found by the fuzz harness: a reader's exception message holding a control character, shown without a limit
+        string shown = TextSettling.ForDisplay("bad byte \u0001 here", int.MaxValue);
+        Assert.Equal("bad byte <U+0001> here", shown);
+    }
 }

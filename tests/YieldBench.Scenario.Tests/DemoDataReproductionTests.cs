@@ -3,7 +3,7 @@ using System.Text;
 
 namespace YieldBench.Scenario.Tests;
 
-/// <summary>The committed demo-data/ is exactly what the generator writes.</summary>
+/// <summary>The committed demo-data/ (its history/ and running/ subfolders and README) is exactly what the generator writes.</summary>
 public class DemoDataReproductionTests
 {
     private static readonly IReadOnlyList<(string Name, byte[] Bytes)> Rendered = DemoDataWriter.Render(ScenarioGenerator.Demo());
@@ -14,7 +14,7 @@ public class DemoDataReproductionTests
         // Given the files the generator renders for the demo scenario
         // When each is compared with the committed file of the same name
         var mismatched = Rendered
-            .Where(f => !File.Exists(Path.Combine(RepoPaths.DemoData, f.Name)) || !File.ReadAllBytes(Path.Combine(RepoPaths.DemoData, f.Name)).AsSpan().SequenceEqual(f.Bytes))
+            .Where(f => !File.Exists(PathOf(f.Name)) || !File.ReadAllBytes(PathOf(f.Name)).AsSpan().SequenceEqual(f.Bytes))
             .Select(f => f.Name)
             .ToArray();
 
@@ -25,14 +25,32 @@ public class DemoDataReproductionTests
     [Fact]
     public void Demo_folder_holds_only_the_generated_files_and_the_git_attributes()
     {
-        // Given the committed demo folder
-        var present = Directory.GetFiles(RepoPaths.DemoData).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray();
+        // Given the committed demo folder and its subfolders
+        var present = Directory.GetFiles(RepoPaths.DemoData, "*", SearchOption.AllDirectories)
+            .Select(f => Path.GetRelativePath(RepoPaths.DemoData, f))
+            .Order(StringComparer.Ordinal)
+            .ToArray();
 
         // When compared with the generator's file list
         var expected = Rendered.Select(f => f.Name).Append(".gitattributes").Order(StringComparer.Ordinal).ToArray();
 
         // Then no stale or stray file sits beside them
         Assert.Equal(expected, present);
+    }
+
+    private static string PathOf(string name) => Path.Combine(RepoPaths.DemoData, name);
+
+    [Fact]
+    public void Finished_seasons_and_the_harvest_in_progress_sit_in_separate_subfolders()
+    {
+        // Given the generator's file list
+        var names = Rendered.Select(f => f.Name).ToArray();
+
+        // Then the README sits at the top, the season files and logs in history/, the lots still fermenting in running/ only
+        Assert.Contains("README.md", names);
+        Assert.Equal(4, names.Count(n => n.StartsWith(DemoDataWriter.HistoryFolderName + Path.DirectorySeparatorChar, StringComparison.Ordinal)));
+        Assert.Equal([Path.Combine(DemoDataWriter.RunningFolderName, DemoDataWriter.RunningFileName)], names.Where(n => n.StartsWith(DemoDataWriter.RunningFolderName + Path.DirectorySeparatorChar, StringComparison.Ordinal)));
+        Assert.Equal(1 + 4 + 1, names.Length);
     }
 
     [Fact]

@@ -13,7 +13,7 @@ public class DemoFileLayoutTests
     public void Season_workbook_has_a_title_a_blank_row_the_header_on_row_3_the_lots_and_an_average_row()
     {
         // Given the committed 2023 workbook
-        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoData, "tallowmere-2023-lots.xlsx"));
+        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoHistory, "tallowmere-2023-lots.xlsx"));
         var ws = wb.Worksheet("Finished lots");
         var season = Demo.Seasons.Single(s => s.Profile.Year == 2023);
         int lastLotRow = 3 + season.Lots.Count;
@@ -37,7 +37,7 @@ public class DemoFileLayoutTests
     public void Season_workbook_cells_hold_the_recorded_values_and_real_dates()
     {
         // Given the 2024 workbook (specific gravity season) and its generated lots
-        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoData, "tallowmere-2024-lots.xlsx"));
+        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoHistory, "tallowmere-2024-lots.xlsx"));
         var ws = wb.Worksheet("Finished lots");
         var lots = Demo.Seasons.Single(s => s.Profile.Year == 2024).Lots;
 
@@ -58,7 +58,7 @@ public class DemoFileLayoutTests
     public void Semicolon_file_uses_decimal_commas_that_parse_back_to_the_recorded_values()
     {
         // Given the 2025 CSV and a parser set up for decimal commas
-        var bytes = File.ReadAllBytes(Path.Combine(RepoPaths.DemoData, "tallowmere-2025-lots.csv"));
+        var bytes = File.ReadAllBytes(Path.Combine(RepoPaths.DemoHistory, "tallowmere-2025-lots.csv"));
         var comma = new NumberFormatInfo { NumberDecimalSeparator = "," };
         var lines = Encoding.UTF8.GetString(bytes.AsSpan(3)).Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
         var lots = Demo.Seasons.Single(s => s.Profile.Year == 2025).Lots;
@@ -82,7 +82,7 @@ public class DemoFileLayoutTests
     public void Logs_workbook_has_a_long_sheet_per_season_and_a_sheet_per_probe_lot()
     {
         // Given the logs workbook
-        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoData, DemoDataWriter.LogsFileName));
+        using var wb = new XLWorkbook(Path.Combine(RepoPaths.DemoHistory, DemoDataWriter.LogsFileName));
         var probeIds = Demo.AllLots.Where(l => l.LogIsProbe).Select(l => l.Recorded.LotId).ToArray();
 
         // Then the sheets are the three season logs and one per probe lot

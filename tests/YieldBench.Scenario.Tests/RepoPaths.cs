@@ -7,6 +7,8 @@ internal static class RepoPaths
 
     public static string DemoData => Path.Combine(Root, "demo-data");
 
+    public static string DemoHistory => Path.Combine(DemoData, DemoDataWriter.HistoryFolderName);
+
     private static string FindRoot()
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);

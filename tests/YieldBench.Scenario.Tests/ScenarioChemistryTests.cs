@@ -56,4 +56,20 @@ public class ScenarioChemistryTests
         Assert.Equal(24.0, ScenarioChemistry.BrixAfterAdditions(26.0, 1000, water, 0), 9);
         Assert.Equal(22.0, ScenarioChemistry.BrixAfterAdditions(20.0, 1000, 0, ScenarioChemistry.SucroseForTarget(20.0, 1000, 22.0)), 9);
     }
+
+    [Fact]
+    public void Sugar_after_additions_counts_the_inversion_and_the_musts_own_non_sugar_solids()
+    {
+        // Given 1000 L at 20 °Brix (191.9 g/L, OIV row) with 20 kg of sucrose, the hand balance of the tool's
+        // AdditionBalanceTests (units_oracle.py: 210.4227 g/L with the Zoecklein SG 1.08297; the world's cubic SG
+        // differs by 4e-5)
+        double sugar = ScenarioChemistry.SugarAfterAdditions(20.0, 1000, 0, 20);
+
+        // Then the world's must holds 210.42 g/L: the sucrose's 21.05 kg of glucose and fructose over the volume after,
+        // about 2 g/L more than the table gives a natural must of the solids °Brix without inversion (21.45 °Brix, about
+        // 208.4 g/L): the added sucrose brings sugar but no non-sugar solids, and gains 5 % on inversion
+        Assert.Equal(210.4227, sugar, 0.02);
+        Assert.True(sugar > ScenarioChemistry.SugarGramsPerLitre(ScenarioChemistry.BrixAfterAdditions(20.0, 1000, 0, 20)) + 1.5);
+        Assert.Equal(ScenarioChemistry.SugarGramsPerLitre(23.0), ScenarioChemistry.SugarAfterAdditions(23.0, 1000, 0, 0));
+    }
 }

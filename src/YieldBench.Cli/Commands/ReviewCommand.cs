@@ -113,16 +113,16 @@ internal static class ReviewCommand
 
         if (inputs.Count == 0)
         {
-            string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
+            string demo = DemoPaths.Full(DemoPaths.History);
             if (!Directory.Exists(demo))
             {
                 context.Error.WriteLine($"No inputs given and the bundled demo data is missing ({demo}); give lot files or folders to review.");
                 return ExitCodes.Usage;
             }
 
-            // Read relative to the tool's folder, so reports name the files "demo-data/…" wherever the tool is installed.
+            // Read relative to the tool's folder, so reports name the files "demo-data/history/…" wherever the tool is installed.
             inputRoot = AppContext.BaseDirectory;
-            inputs.Add("demo-data");
+            inputs.Add(DemoPaths.History);
             console.Line(ReportTexts.DemoDataNotice);
         }
 

@@ -99,9 +99,10 @@ public static class Planner
     /// predicted alcohol comes to the target (at <paramref name="confidence"/>, when given: to the target less the
     /// upper error bound of <see cref="HighestSugar"/>). The balance is the review's
     /// (<see cref="AdditionBalance.Apply(SugarReading, Lots.Additions, SugarModel)"/>): dissolved solids are kept, water
-    /// adds mass, and for the EU convention the fermentable sugar after the addition is the juice's sugar (OIV table)
-    /// diluted by the new volume — not the table's value at the diluted °Brix, which assumes the non-sugar solids of a
-    /// riper must. For a line, the water brings the juice to the °Brix whose prediction is the aim.
+    /// adds mass, and the juice's fermentable sugar is diluted into the new volume; the °Brix after is the
+    /// sugar-equivalent °Brix the review's lots are judged on. For the EU convention this means the sugar after the
+    /// addition ÷ 16.83 is the aim — not the table's value at the diluted solids °Brix, which assumes the non-sugar
+    /// solids of a riper must.
     /// </summary>
     public static AddBackAnswer WaterAddBack(PlanningLine line, SugarReading measured, double juiceVolumeL, double targetAbv, double? confidence)
     {
@@ -130,23 +131,13 @@ public static class Planner
             note = $"aims at a central prediction of {Number(targetAbv)} % v/v";
         }
 
-        double water;
-        if (line.Curve == SugarCurve.EuConvention)
+        double targetBrix = line.BrixFor(aim);
+        if (double.IsNaN(targetBrix))
         {
-            double sugarAim = aim * OivMustTable.SugarGramsPerPercentVolume;
-            water = WaterForSugar(measured, juiceVolumeL, sugarAim);
-        }
-        else
-        {
-            double targetBrix = line.BrixFor(aim);
-            if (double.IsNaN(targetBrix))
-            {
-                return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, "the predictor cannot reach this target within 0–50 °Brix");
-            }
-
-            water = AdditionBalance.WaterForTarget(measured, juiceVolumeL, targetBrix).WaterL;
+            return new AddBackAnswer(double.NaN, double.NaN, double.NaN, null, "the predictor cannot reach this target within 0–50 °Brix");
         }
 
+        double water = AdditionBalance.WaterForTarget(measured, juiceVolumeL, targetBrix).WaterL;
         if (!(water > 0))
         {
             var now = Estimate(line, measured);
@@ -155,46 +146,7 @@ public static class Planner
         }
 
         var after = AdditionBalance.Apply(measured, new Lots.Additions(juiceVolumeL, water, null), SugarModel.Default);
-        double predicted = line.Curve == SugarCurve.EuConvention
-            ? after.EffectiveSugarGl / OivMustTable.SugarGramsPerPercentVolume
-            : line.Predict(after.Effective.Brix);
-        return new AddBackAnswer(after.Effective.Brix, water, after.VolumeAfterL ?? juiceVolumeL + water, AlcoholEstimate.From(predicted, line.ErrorModel), note);
-    }
-
-    /// <summary>
-    /// Water (L) that brings the fermentable sugar of the juice, by the review's balance, down to
-    /// <paramref name="sugarGl"/>: the balance's sugar falls steadily as water is added, so bisection finds it
-    /// (to 1e-6 L); 0 when the juice already holds no more.
-    /// </summary>
-    internal static double WaterForSugar(SugarReading measured, double juiceVolumeL, double sugarGl)
-    {
-        double SugarAfter(double water) =>
-            AdditionBalance.Apply(measured, new Lots.Additions(juiceVolumeL, water, null), SugarModel.Default).EffectiveSugarGl;
-        if (SugarAfter(0) <= sugarGl || !(sugarGl > 0))
-        {
-            return 0;
-        }
-
-        double low = 0, high = juiceVolumeL;
-        while (SugarAfter(high) > sugarGl)
-        {
-            high *= 2;
-        }
-
-        while (high - low > 1e-6)
-        {
-            double mid = (low + high) / 2;
-            if (SugarAfter(mid) > sugarGl)
-            {
-                low = mid;
-            }
-            else
-            {
-                high = mid;
-            }
-        }
-
-        return (low + high) / 2;
+        return new AddBackAnswer(after.Effective.Brix, water, after.VolumeAfterL ?? juiceVolumeL + water, AlcoholEstimate.From(line.Predict(after.Effective.Brix), line.ErrorModel), note);
     }
 
     /// <summary>The threshold table of one line for several targets and confidences (targets outer, confidences inner).</summary>

@@ -42,9 +42,6 @@ public sealed record LotReview
     /// <summary>The most serious follow-up item of the lot (strain review or kinetics), or null when it has none.</summary>
     public FlagSeverity? WorstSeverity { get; init; }
 
-    /// <summary>The lot's most serious follow-up item (the first of that severity, strain review before kinetics), or null when it has none.</summary>
-    public LotFlag? LeadFlag => WorstSeverity is { } worst ? StrainFlags.Concat(KineticsFollowUps).First(f => f.Severity == worst) : null;
-
     /// <summary>True when the strain review flagged the lot (conversion charts ring only these).</summary>
     public bool HasStrainFlag => StrainFlags.Count > 0;
 

@@ -7,7 +7,7 @@ using YieldBench.Core.Units;
 namespace YieldBench.Core.Review;
 
 /// <summary>The conversion factor to use next harvest: pooled and per strain, each at one typical starting sugar.</summary>
-/// <param name="ReferenceBrix">The typical starting sugar the factors and ranges are given at, °Brix (the strain comparison's reference: the median effective starting sugar).</param>
+/// <param name="ReferenceBrix">The typical starting sugar the factors and ranges are given at, °Brix: the planner's (the median effective starting sugar of the lots the house factor learned from).</param>
 /// <param name="Pooled">The factor for all lots (and for a strain without a line of its own).</param>
 /// <param name="Strains">Per-strain factors, in the review's strain order.</param>
 public sealed record FactorsToUse(double ReferenceBrix, FactorChoice Pooled, IReadOnlyList<FactorChoice> Strains);
@@ -18,7 +18,7 @@ public sealed record FactorsToUse(double ReferenceBrix, FactorChoice Pooled, IRe
 /// <param name="Curve">Line or EU convention.</param>
 /// <param name="Intercept">The line's intercept, % v/v (0 for a factor through the origin; NaN for the EU convention).</param>
 /// <param name="Slope">The line's slope, % v/v per °Brix, exactly as the planner and data/house-factor.json hold it (NaN for the EU convention).</param>
-/// <param name="Factor">% v/v per °Brix at the reference sugar: the slope itself for a line through the origin, else predicted alcohol ÷ °Brix there.</param>
+/// <param name="Factor">% v/v per °Brix at the reference sugar: predicted alcohol ÷ °Brix there (for a line through the origin, its slope), as data/house-factor.json writes it.</param>
 /// <param name="Estimate">Predicted alcohol at the reference sugar with its 80 % and 95 % intervals, % v/v.</param>
 /// <param name="HeldOutMae">Mean absolute error on held-out lots of this strain (all lots for the pooled factor), % v/v.</param>
 /// <param name="Lots">Lots it was scored on.</param>
@@ -60,10 +60,20 @@ public sealed record ReasonCount(string Code, int Rows, string Example);
 /// <summary>Builds the overview's detail tables (pure).</summary>
 internal static class OverviewDetails
 {
-    /// <summary>The factors to use, or null when the house factor made no planner.</summary>
-    public static FactorsToUse? Factors(HouseFactorReview h, double referenceBrix, IReadOnlyList<string> strainOrder, Func<string, string> candidateName)
+    /// <summary>
+    /// The factors to use, or null when the house factor made no planner. They are the planner's own: each line's factor
+    /// at the planner's reference sugar (<see cref="PlanningModel.FactorOf"/>, as data/house-factor.json writes it), or at
+    /// <paramref name="fallbackBrix"/> when the planner names none.
+    /// </summary>
+    public static FactorsToUse? Factors(HouseFactorReview h, double fallbackBrix, IReadOnlyList<string> strainOrder, Func<string, string> candidateName)
     {
-        if (h.Planning is not { } planning || h.Overall is not { } overall || !double.IsFinite(referenceBrix))
+        if (h.Planning is not { } planning || h.Overall is not { } overall)
+        {
+            return null;
+        }
+
+        double referenceBrix = double.IsFinite(planning.ReferenceBrix) ? planning.ReferenceBrix : fallbackBrix;
+        if (!double.IsFinite(referenceBrix))
         {
             return null;
         }
@@ -75,7 +85,7 @@ internal static class OverviewDetails
             line.Curve,
             line.Intercept,
             line.SlopePerBrix,
-            line.Curve == SugarCurve.Line && line.Intercept == 0 ? line.SlopePerBrix : line.Predict(referenceBrix) / referenceBrix,
+            double.IsFinite(planning.ReferenceBrix) ? planning.FactorOf(line) : line.FactorAt(referenceBrix),
             Planner.Estimate(line, sugar),
             r?.Metrics.Mae ?? double.NaN,
             r?.Lots ?? 0);

@@ -9,13 +9,11 @@ public readonly record struct OivMustRow(double Brix, double DensityKgPerL, doub
 
 /// <summary>
 /// Fermentable sugar of a must from its °Brix, by the OIV must table (OIV-MA-AS2-02, Table II, as reproduced in the
-/// French Arrêté du 14 septembre 2011 relatif aux réfractomètres, Annexe IV). Only nine of the table's 201 rows could
-/// be read for this build; between them the non-sugar solids (total solids − sugar, g/L) are interpolated with the
-/// monotone piecewise-cubic Hermite curve of Fritsch and Carlson (the same curve as scipy's PchipInterpolator), and
-/// sugar is total solids minus that. Leave-one-row-out, this reproduces the held-out rows within 0.05 g/L, the
-/// table's own rounding (docs/methods.md, "Sugar model").
-/// Outside 10–30 °Brix the non-sugar solids are held at the nearest edge row's value — a stated approximation that
-/// callers report as a warning.
+/// French Arrêté du 14 septembre 2011 relatif aux réfractomètres, Annexe IV): its sugar column, 10.0–30.0 °Brix in
+/// 0.1 steps, embedded as <c>Units/oiv-must-table.csv</c> with its source. Between rows the sugar is interpolated
+/// linearly (the curve bends so little that over 0.1 °Brix the chord is within 0.001 g/L of it, far inside the print's
+/// rounding of ±0.05 g/L). Outside 10–30 °Brix the non-sugar solids (total solids − sugar, g/L) are held at the
+/// nearest edge row's value — a stated approximation that callers report as a warning.
 /// </summary>
 public static class OivMustTable
 {
@@ -25,13 +23,20 @@ public static class OivMustTable
     /// <summary>Highest °Brix the table covers.</summary>
     public const double MaxBrix = 30.0;
 
+    /// <summary>Step of the table, °Brix.</summary>
+    public const double StepBrix = 0.1;
+
     /// <summary>Grams of sugar per litre taken as one % vol of potential alcohol in the OIV and EU convention.</summary>
     public const double SugarGramsPerPercentVolume = 16.83;
 
     /// <summary>Density of water at 20 °C, kg/L (g/mL); the same constant as <see cref="SugarScales.WaterDensity20C"/>.</summary>
     public const double WaterDensity20C = SugarScales.WaterDensity20C;
 
-    // Rows read in the Arrêté annex (% sucrose, must density kg/L, sugar g/L, % vol at 16.83 g/L).
+    /// <summary>Name of the embedded table.</summary>
+    internal const string ResourceName = "YieldBench.Core.Units.oiv-must-table.csv";
+
+    // Rows printed in full in the Arrêté annex (% sucrose, must density kg/L, sugar g/L, % vol at 16.83 g/L): the
+    // check values the embedded column is held to, and the table's must densities.
     private static readonly OivMustRow[] Rows =
     [
         new(10.0, 1.0391, 82.2, 4.88),
@@ -45,28 +50,25 @@ public static class OivMustTable
         new(30.0, 1.1287, 308.9, 18.35),
     ];
 
-    private static readonly double[] Knots = Rows.Select(r => r.Brix).ToArray();
+    private static readonly double[] Sugar = ReadSugarColumn();
 
-    // Non-sugar solids at each row: what the refractometer counts as sucrose-equivalent solids but is not sugar.
-    // Interpolating this smooth, slowly rising quantity is far more accurate than interpolating sugar itself
-    // (held-out row errors 0.05 g/L against 0.18 g/L).
-    private static readonly double[] NonSugar = Rows.Select(r => TotalSolidsGramsPerLitre(r.Brix) - r.SugarGl).ToArray();
+    // Non-sugar solids of the edge rows, held outside the table.
+    private static readonly double NonSugarLow = TotalSolidsGramsPerLitre(MinBrix) - Sugar[0];
+    private static readonly double NonSugarHigh = TotalSolidsGramsPerLitre(MaxBrix) - Sugar[^1];
 
-    private static readonly MonotoneCubic NonSugarCurve = new(Knots, NonSugar);
-
-    /// <summary>The published rows this build holds, in rising °Brix.</summary>
+    /// <summary>The rows printed in full (with density and potential alcohol), in rising °Brix.</summary>
     public static IReadOnlyList<OivMustRow> Table => Rows;
 
-    /// <summary>The table rows this build holds (°Brix, must density kg/L, sugar g/L).</summary>
-    public static IReadOnlyList<(double Brix, double Density, double SugarGl)> TableRows { get; } =
-        Rows.Select(r => (r.Brix, r.DensityKgPerL, r.SugarGl)).ToArray();
+    /// <summary>The whole sugar column as embedded: (°Brix, sugar g/L), 10.0–30.0 in 0.1 steps.</summary>
+    public static IReadOnlyList<(double Brix, double SugarGl)> SugarColumn { get; } =
+        Sugar.Select((g, i) => (Math.Round(MinBrix + (i * StepBrix), 1), g)).ToArray();
 
     /// <summary>True when <paramref name="brix"/> lies inside the table's 10–30 °Brix span.</summary>
     public static bool Covers(double brix) => brix is >= MinBrix and <= MaxBrix;
 
     /// <summary>
-    /// Non-sugar solids of a must, g/L: total sucrose-equivalent solids minus the table's sugar. Interpolated inside
-    /// 10–30 °Brix; outside, the edge value (21.6 g/L below, 29.2 g/L above).
+    /// Non-sugar solids of a must, g/L: total sucrose-equivalent solids minus the table's sugar inside 10–30 °Brix;
+    /// outside, the edge row's value (21.6 g/L below, 29.2 g/L above).
     /// </summary>
     public static double NonSugarSolidsGramsPerLitre(double brix)
     {
@@ -75,11 +77,11 @@ public static class OivMustTable
             return double.NaN;
         }
 
-        return NonSugarCurve.Evaluate(Math.Clamp(brix, MinBrix, MaxBrix));
+        return brix < MinBrix ? NonSugarLow : brix > MaxBrix ? NonSugarHigh : TotalSolidsGramsPerLitre(brix) - TableSugar(brix);
     }
 
     /// <summary>
-    /// Fermentable sugar (g/L) for a must of the given °Brix; never negative. Exact at the published rows.
+    /// Fermentable sugar (g/L) for a must of the given °Brix; never negative. Exact at every row of the table.
     /// Below about 2.1 °Brix the non-sugar allowance exceeds the solids and the result is 0.
     /// </summary>
     public static double SugarGramsPerLitre(double brix)
@@ -94,7 +96,54 @@ public static class OivMustTable
             return 0;
         }
 
-        return Math.Max(0, TotalSolidsGramsPerLitre(brix) - NonSugarSolidsGramsPerLitre(brix));
+        return Covers(brix) ? TableSugar(brix) : Math.Max(0, TotalSolidsGramsPerLitre(brix) - NonSugarSolidsGramsPerLitre(brix));
+    }
+
+    /// <summary>Linear interpolation in the sugar column (10–30 °Brix).</summary>
+    private static double TableSugar(double brix)
+    {
+        double position = (brix - MinBrix) / StepBrix;
+        int i = Math.Clamp((int)Math.Floor(position + 1e-9), 0, Sugar.Length - 2);
+        double f = position - i;
+        return f <= 1e-9 ? Sugar[i] : Sugar[i] + (f * (Sugar[i + 1] - Sugar[i]));
+    }
+
+    /// <summary>
+    /// Reads the embedded column: lines starting with '#' are the source note, then the header <c>brix,sugar_gl</c>,
+    /// then 201 rows from 10.0 to 30.0 °Brix in 0.1 steps. A build whose file breaks that shape fails at once.
+    /// </summary>
+    private static double[] ReadSugarColumn()
+    {
+        using var stream = typeof(OivMustTable).Assembly.GetManifestResourceStream(ResourceName)
+            ?? throw new InvalidOperationException($"The embedded OIV must table {ResourceName} is missing from the build.");
+        using var reader = new StreamReader(stream);
+        var values = new List<double>(201);
+        bool header = false;
+        while (reader.ReadLine() is { } line)
+        {
+            if (line.Length == 0 || line.StartsWith('#'))
+            {
+                continue;
+            }
+
+            if (!header)
+            {
+                header = line == "brix,sugar_gl" ? true : throw new InvalidOperationException($"The OIV must table's header is '{line}', not 'brix,sugar_gl'.");
+                continue;
+            }
+
+            var parts = line.Split(',');
+            double brix = double.Parse(parts[0], System.Globalization.CultureInfo.InvariantCulture);
+            double expected = MinBrix + (values.Count * StepBrix);
+            if (parts.Length != 2 || Math.Abs(brix - expected) > 1e-9)
+            {
+                throw new InvalidOperationException($"The OIV must table's row '{line}' is not the row for {expected:0.0} °Brix.");
+            }
+
+            values.Add(double.Parse(parts[1], System.Globalization.CultureInfo.InvariantCulture));
+        }
+
+        return values.Count == 201 ? values.ToArray() : throw new InvalidOperationException($"The OIV must table holds {values.Count} rows, not 201.");
     }
 
     /// <summary>Potential alcohol (% vol) by the OIV/EU convention: sugar g/L ÷ 16.83.</summary>

@@ -31,6 +31,9 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
     /// <summary>True when the sheet had more rows than the limit and was cut short.</summary>
     public bool TooManyRows { get; init; }
 
+    /// <summary>True when the sheet spanned more cells than the limit (a damaged file's declared width) and was not kept.</summary>
+    public bool TooManyCells { get; init; }
+
     /// <summary>True when the sheet is a text file's (CSV): its rows are split by a delimiter, so a row may hold more fields than its header.</summary>
     public bool IsText { get; init; }
 

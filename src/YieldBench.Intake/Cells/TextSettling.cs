@@ -106,7 +106,7 @@ internal static class TextSettling
             return text;
         }
 
-        var sb = new StringBuilder(Math.Min(text.Length, max + 40));
+        var sb = new StringBuilder((int)Math.Min(text.Length, (long)max + 40));
         for (int i = 0; i < text.Length && sb.Length < max; i++)
         {
             char c = text[i];

@@ -21,7 +21,7 @@ internal static class OdsSource
     private const string CalcExtNs = "urn:org:documentfoundation:names:experimental:calc:xmlns:calcext:1.0";
 
     /// <summary>Columns a row may span (that of the largest spreadsheets); cells beyond are not read.</summary>
-    private const int MaxColumns = 16384;
+    private const int MaxColumns = WorkbookSource.MaxColumns;
 
     public static RawFile Read(string file, string fullPath, byte[] head, IntakeOptions options, IssueSink sink)
     {

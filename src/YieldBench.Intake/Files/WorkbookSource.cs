@@ -16,6 +16,12 @@ internal static class WorkbookSource
     internal static readonly byte[] ZipMagic = [0x50, 0x4B, 0x03, 0x04];
     private static readonly byte[] CompoundFileMagic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
 
+    /// <summary>Columns a sheet may span (that of the largest spreadsheets, 16,384); cells beyond are not read.</summary>
+    public const int MaxColumns = 16_384;
+
+    /// <summary>Cells (rows × declared columns) read from one sheet at most; a larger sheet is refused whole.</summary>
+    public const long MaxCells = 50_000_000;
+
     static WorkbookSource() => Encoding.RegisterProvider(CodePagesEncodingProvider.Instance);
 
     internal static bool StartsWith(byte[] data, byte[] magic) => data.Length >= magic.Length && data.AsSpan(0, magic.Length).SequenceEqual(magic);
@@ -68,7 +74,12 @@ internal static class WorkbookSource
             do
             {
                 var rows = new List<object?[]>();
-                bool tooMany = false;
+                bool tooMany = false, tooLarge = false;
+                long visited = 0;
+
+                // A damaged file can declare any width: no sheet of a spreadsheet program is wider than MaxColumns.
+                int width = Math.Min(reader.FieldCount, MaxColumns);
+                var buffer = new object?[width];
                 while (reader.Read())
                 {
                     if (rows.Count >= options.MaxRows)
@@ -77,18 +88,34 @@ internal static class WorkbookSource
                         break;
                     }
 
-                    var cells = new object?[reader.FieldCount];
-                    for (int i = 0; i < cells.Length; i++)
+                    visited += width;
+                    if (visited > MaxCells)
                     {
-                        cells[i] = reader.GetValue(i);
-                        if (cells[i] is double d && IsPercentFormat(reader.GetNumberFormatString(i)))
-                        {
-                            // A percent-formatted 0.138 is shown as 13.8 %; read what the user sees, as text with its %.
-                            cells[i] = Math.Round(d * 100, 10).ToString("R", CultureInfo.InvariantCulture) + "%";
-                        }
+                        tooLarge = true;
+                        break;
                     }
 
-                    rows.Add(cells);
+                    int last = -1;
+                    for (int i = 0; i < width; i++)
+                    {
+                        object? cell = reader.GetValue(i);
+                        if (cell is double d && IsPercentFormat(reader.GetNumberFormatString(i)))
+                        {
+                            // A percent-formatted 0.138 is shown as 13.8 %; read what the user sees, as text with its %.
+                            cell = Math.Round(d * 100, 10).ToString("R", CultureInfo.InvariantCulture) + "%";
+                        }
+
+                        buffer[i] = cell;
+                        last = cell is null ? last : i;
+                    }
+
+                    // Only up to the row's last cell: empty cells a wide sheet declares take no room.
+                    rows.Add(buffer[..(last + 1)]);
+                }
+
+                if (tooLarge)
+                {
+                    rows.Clear();
                 }
 
                 string name = TextSettling.Settle(reader.Name ?? "", multiline: false, out _) is { Length: > 0 } n ? n : $"Sheet{sheets.Count + 1}";
@@ -113,7 +140,7 @@ internal static class WorkbookSource
                 }
 
                 bool hidden = !string.Equals(reader.VisibleState, "visible", StringComparison.OrdinalIgnoreCase) && !string.IsNullOrEmpty(reader.VisibleState);
-                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, Hidden = hidden });
+                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, TooManyCells = tooLarge, Hidden = hidden });
             }
             while (reader.NextResult());
         }

@@ -25,11 +25,12 @@ internal static class LotPlausibility
             var c = ctx.Column("water_added_l") ?? ctx.Column("sugar_added_kg");
             sink.Warning(ctx.File, ctx.SheetName, sheetRow, c?.Header, null, IssueCodes.AdditionsWithoutVolume, IntakeMessages.AdditionsWithoutVolume());
         }
-        else if (additions.Any && (!balance.Corrected || balance.Effective.Brix < startField.Min || balance.Effective.Brix > startField.Max))
+        else if (additions.Any && (!balance.Corrected || balance.SolidsBrix < startField.Min || balance.SolidsBrix > startField.Max))
         {
             // Negative additions are refused cell by cell and water cannot take a must below 0 °Brix, so an uncorrected
-            // balance here means a must above the highest °Brix a reading may have.
-            double effective = balance.Corrected ? balance.Effective.Brix : double.NaN;
+            // balance here means a must above the highest °Brix a reading may have. The °Brix judged is the one a
+            // refractometer would read after the additions (dissolved solids), as for a starting-sugar cell.
+            double effective = balance.Corrected ? balance.SolidsBrix : double.NaN;
             string what = Describe(lot);
             var c = additions.SugarAddedKg is > 0 ? ctx.Column("sugar_added_kg") : ctx.Column("water_added_l");
             sink.Error(ctx.File, ctx.SheetName, sheetRow, c?.Header, null, IssueCodes.AdditionsImplausible,

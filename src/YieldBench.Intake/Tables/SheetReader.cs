@@ -20,17 +20,18 @@ internal static class SheetReader
     {
         string? sheetName = sheet.Name;
         var sink = run.Sink;
+        if (sheet.TooManyRows || sheet.TooManyCells)
+        {
+            sink.Error(file, sheetName, null, null, null, sheet.TooManyRows ? IssueCodes.TooManyRows : IssueCodes.TooManyCells,
+                sheet.TooManyRows ? IntakeMessages.TooManyRows(run.Options.MaxRows) : IntakeMessages.TooManyCells(WorkbookSource.MaxCells));
+            run.Accounts.Add(new SourceAccount(file, sheetName, "refused", 0, 0, 0, 0, 0, 0));
+            return Outcome.Read;
+        }
+
         int lastRow = sheet.Rows.FindLastIndex(r => r.Any(c => !CellValues.IsBlank(c)));
         if (lastRow < 0)
         {
             return Outcome.Empty;
-        }
-
-        if (sheet.TooManyRows)
-        {
-            sink.Error(file, sheetName, null, null, null, IssueCodes.TooManyRows, IntakeMessages.TooManyRows(run.Options.MaxRows));
-            run.Accounts.Add(new SourceAccount(file, sheetName, "refused", 0, 0, 0, 0, 0, 0));
-            return Outcome.Read;
         }
 
         if (!HeaderDetection.Find(run, sheet, lastRow, out int headerRow, out var kind, out var columns, out var unmatched, out var duplicates))

@@ -83,8 +83,9 @@ internal static class UnitSettling
                 c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
                 var fitting = Array.FindAll(sorted, v => ValueLooksLike(c.Field, v, c.Unit));
                 var (bandLow, bandHigh) = fitting.Length > 0 ? (fitting[0], fitting[^1]) : (low, high);
+                bool maybeBaume = c.Field.Name == "starting_sugar" && c.Unit == ColumnUnit.Brix && median is >= 8 and <= 16;
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues,
-                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)));
+                    IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), bandLow, bandHigh, SugarHeaderExample(c)) + (maybeBaume ? IntakeMessages.MaybeBaume() : ""));
                 break;
             case FieldKind.Alcohol:
                 c.Unit = median > 30 ? ColumnUnit.AlcoholGramsPerLitre : ColumnUnit.PercentVolume;

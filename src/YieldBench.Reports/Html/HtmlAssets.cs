@@ -18,7 +18,7 @@ html { font-size: 17px; -webkit-text-size-adjust: 100%; }
 body { margin: 0; color: {{Ink}}; background: {{Paper}}; font-family: system-ui, "DejaVu Sans", "Segoe UI", Arial, sans-serif; line-height: 1.42; }
 .masthead, main, footer { max-width: 1220px; margin: 0 auto; padding-left: 28px; padding-right: 28px; }
 .masthead { padding-top: 14px; padding-bottom: 8px; border-bottom: 3px solid {{Accent}}; }
-h1 { font-size: 1.8rem; line-height: 1.2; margin: 0 0 2px; }
+h1 { font-size: 1.45rem; line-height: 1.25; margin: 0 0 2px; }
 .facts { margin: 0 0 6px; color: {{Muted}}; }
 nav ol { list-style: none; margin: 0; padding: 0; display: flex; flex-wrap: wrap; gap: 2px 20px; font-size: 0.95rem; }
 a { color: {{Accent}}; text-underline-offset: 2px; }
@@ -30,7 +30,7 @@ p { margin: 4px 0 8px; max-width: 72em; }
 .lead { font-size: 1.06rem; }
 .note { color: {{Muted}}; font-size: 0.92rem; }
 .unit { color: {{Muted}}; font-weight: normal; font-size: 0.85em; }
-thead .unit { display: block; }
+thead .unit { display: block; white-space: nowrap; }
 tbody th { white-space: nowrap; }
 .scroll { overflow-x: auto; }
 table { border-collapse: collapse; width: 100%; margin: 4px 0 10px; font-size: 0.95rem; }
@@ -50,10 +50,10 @@ td.factor { font-weight: 700; font-size: 1.08em; }
 .severity.likely-error { background: {{FlaggedFill}}; border-left: 4px solid {{Warm}}; font-weight: 700; }
 .severity.check { background: {{HeaderFill}}; }
 .severity.note { border: 1px solid {{Hairline}}; }
-.cellar-note { display: block; color: {{Muted}}; font-size: 0.9em; margin-top: 2px; }
+.aside { display: block; color: {{Muted}}; font-size: 0.9em; margin-top: 2px; }
 table.lots td:nth-child(2), table.lots td:nth-child(3), table.lots thead th { white-space: nowrap; }
-table.lots td:nth-child(4) { min-width: 9em; }
-table.lots td:nth-child(5) { min-width: 18em; }
+table.lots td:nth-child(4) { min-width: 18em; }
+table.lots td:nth-child(5) { min-width: 12em; }
 code { font-family: "DejaVu Sans Mono", Consolas, monospace; font-size: 0.88em; }
 code.hash { word-break: break-all; }
 figure { margin: 8px 0 10px; break-inside: avoid; }
@@ -90,10 +90,10 @@ th[aria-sort="descending"] button.sort::after { content: " \25BC"; }
   table.lots td { min-width: 0; }
   table.lots th:nth-child(1) { width: 11%; }
   table.lots th:nth-child(2) { width: 8%; }
-  table.lots th:nth-child(3) { width: 11%; }
-  table.lots th:nth-child(4) { width: 16%; }
-  table.lots th:nth-child(5) { width: 27%; }
-  table.lots th:nth-child(6) { width: 27%; }
+  table.lots th:nth-child(3) { width: 10%; }
+  table.lots th:nth-child(4) { width: 31%; }
+  table.lots th:nth-child(5) { width: 21%; }
+  table.lots th:nth-child(6) { width: 19%; }
   table.lots .severity { white-space: normal; }
   footer { display: none; }
   button.sort { display: contents; }

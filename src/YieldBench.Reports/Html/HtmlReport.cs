@@ -34,12 +34,17 @@ public static class HtmlReport
         ArgumentNullException.ThrowIfNull(review);
         var o = review.Overview;
         var page = new StringBuilder(64 * 1024);
-        string seasons = o.Inputs.Seasons.Count == 0 ? "no season" : string.Join(", ", o.Inputs.Seasons);
+        string seasons = o.Inputs.Seasons.Count switch
+        {
+            0 => string.Empty,
+            1 => $" in season {Count(o.Inputs.Seasons[0])}",
+            _ => $" in seasons {string.Join(", ", o.Inputs.Seasons.Select(Count))}",
+        };
         page.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
         page.Append($"<meta http-equiv=\"Content-Security-Policy\" content=\"{HtmlAssets.ContentSecurityPolicy}\">\n");
         page.Append($"<meta name=\"generator\" content=\"YieldBench {Escape(review.ToolVersion)}\">\n");
-        page.Append($"<title>{Escape(o.Title)} — seasons {Escape(seasons)}</title>\n");
+        page.Append($"<title>{Escape(o.Title)}</title>\n");
         page.Append("<style>").Append(HtmlAssets.Css).Append("</style>\n</head>\n<body>\n");
 
         Header(page, review, seasons);
@@ -62,7 +67,7 @@ public static class HtmlReport
         var i = review.Overview.Inputs;
         page.Append("<header class=\"masthead\">\n");
         page.Append($"<h1>{Escape(review.Overview.Title)}</h1>\n");
-        page.Append($"<p class=\"facts\">Seasons {Escape(seasons)} · {Count(i.LotsUsed)} lots from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")} · {Count(i.Logs)} fermentation logs · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
+        page.Append($"<p class=\"facts\">{Count(i.LotsUsed)} lots from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")}{seasons} · {Count(i.Logs)} fermentation logs · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
         page.Append("<nav aria-label=\"Sections of this page\"><ol>");
         foreach (var (id, heading) in Sections)
         {
@@ -246,25 +251,29 @@ public static class HtmlReport
         }
 
         var counts = string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{Count(c.Lots)} {ReviewTexts.Severity(c.Severity)}"));
-        page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count)} lots to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every finding.</p>\n");
+        page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count)} lots to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every flag.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"lots\" id=\"lots-table\" data-sortable=\"true\">\n<caption>Lots to look at</caption>\n<thead><tr>");
         page.Append("<th scope=\"col\">Lot</th><th scope=\"col\">Strain</th><th scope=\"col\">Severity</th><th scope=\"col\">What was seen</th><th scope=\"col\">Most likely explanation</th><th scope=\"col\">Follow-up</th></tr></thead>\n<tbody>\n");
         foreach (var lot in o.FlaggedLots)
         {
-            var lead = lot.LeadFlag!;
-            string severity = ReviewTexts.Severity(lead.Severity);
-            string seen = string.Join(", ", lot.StrainFlags.Concat(lot.KineticsFollowUps).Select(x => ReviewTexts.FlagName(x.Code)).Distinct(StringComparer.Ordinal));
-            page.Append($"<tr><th scope=\"row\" data-key=\"{Escape(lot.Key.ToString())}\">{Escape(lot.Key.ToString())}</th>");
-            page.Append($"<td>{Escape(lot.Lot.Strain)}</td>");
-            page.Append($"<td data-key=\"{Count((int)lead.Severity)}\"><span class=\"severity {SeverityClass(lead.Severity)}\">{Escape(severity)}</span></td>");
-            page.Append($"<td>{Escape(seen)}</td>");
-            page.Append($"<td>{Escape(lead.Reason)}");
-            if (!string.IsNullOrWhiteSpace(lot.Lot.Notes))
+            // The review's one line for the lot: what was seen, the most likely explanation, one follow-up.
+            var f = lot.Finding!;
+            page.Append($"<tr><th scope=\"row\" data-key=\"{Escape(f.Key.ToString())}\">{Escape(f.Key.ToString())}</th>");
+            page.Append($"<td>{Escape(f.Strain)}</td>");
+            page.Append($"<td data-key=\"{Count((int)f.Severity)}\"><span class=\"severity {SeverityClass(f.Severity)}\">{Escape(ReviewTexts.Severity(f.Severity))}</span></td>");
+            page.Append($"<td>{Escape(f.Seen)}<span class=\"aside\">Flags: {Escape(string.Join(", ", f.Flags))}</span></td>");
+            page.Append($"<td>{Escape(f.Explanation)}");
+            if (f.Otherwise is { } otherwise)
             {
-                page.Append($"<span class=\"cellar-note\">Cellar note: {Escape(lot.Lot.Notes)}</span>");
+                page.Append($"<span class=\"aside\">Less likely: {Escape(otherwise)}</span>");
             }
 
-            page.Append($"</td><td>{Escape(lead.FollowUp)}</td></tr>\n");
+            if (!string.IsNullOrWhiteSpace(lot.Lot.Notes))
+            {
+                page.Append($"<span class=\"aside\">Cellar note: {Escape(lot.Lot.Notes)}</span>");
+            }
+
+            page.Append($"</td><td>{Escape(f.FollowUp)}</td></tr>\n");
         }
 
         page.Append("</tbody></table></div>\n");

@@ -29,36 +29,29 @@ public interface IReportPart
     }
 }
 
-/// <summary>What a part's jobs write with: the staging folder, the review, the tables parts share, and the files written so far.</summary>
-public sealed class PartContext
+/// <summary>
+/// What output jobs write with: the staging folder and the files planned, each marked when written so that a job may
+/// wait for another's file. A review's parts get a <see cref="PartContext"/>; other reports (the forecast) this.
+/// </summary>
+public class OutputContext
 {
     private readonly ConcurrentDictionary<string, TaskCompletionSource> files = new(StringComparer.Ordinal);
-    private readonly Lazy<SharedTables> tables;
 
-    internal PartContext(ReviewResult review, string root, string folder, IEnumerable<string> planned)
+    internal OutputContext(string root, string folder, IEnumerable<string> planned)
     {
-        Review = review;
         Root = root;
         Folder = folder;
         foreach (string file in planned)
         {
             files[file] = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
         }
-
-        tables = new(() => new SharedTables(review), LazyThreadSafetyMode.ExecutionAndPublication);
     }
-
-    /// <summary>The review being written.</summary>
-    public ReviewResult Review { get; }
 
     /// <summary>The folder the jobs write into (the staging folder: the report folder's contents once it is swapped in).</summary>
     public string Root { get; }
 
     /// <summary>The report folder the files end up in (full path), for parts that name it.</summary>
     public string Folder { get; }
-
-    /// <summary>The long per-lot tables a data file and a sheet both show, built once.</summary>
-    internal SharedTables Tables => tables.Value;
 
     /// <summary>Full path in <see cref="Root"/> of a relative file name.</summary>
     public string PathOf(string relative) => Path.Combine(Root, relative.Replace('/', Path.DirectorySeparatorChar));
@@ -102,4 +95,23 @@ public sealed class PartContext
         files.TryGetValue(relative, out var done)
             ? done
             : throw new InvalidOperationException($"'{relative}' is not among the files the report's parts declared.");
+}
+
+/// <summary>What a part's jobs write with: the staging folder, the review, the tables parts share, and the files written so far.</summary>
+public sealed class PartContext : OutputContext
+{
+    private readonly Lazy<SharedTables> tables;
+
+    internal PartContext(ReviewResult review, string root, string folder, IEnumerable<string> planned)
+        : base(root, folder, planned)
+    {
+        Review = review;
+        tables = new(() => new SharedTables(review), LazyThreadSafetyMode.ExecutionAndPublication);
+    }
+
+    /// <summary>The review being written.</summary>
+    public ReviewResult Review { get; }
+
+    /// <summary>The long per-lot tables a data file and a sheet both show, built once.</summary>
+    internal SharedTables Tables => tables.Value;
 }

@@ -74,10 +74,46 @@ public static class ReportPipeline
     }
 
     /// <summary>
+    /// Writes the files of a report that is not a review's (the forecast's) into <paramref name="folder"/> the same way:
+    /// staging folder, jobs side by side, manifest, swap; the folder rules of <see cref="ReportFolder"/> apply.
+    /// </summary>
+    /// <param name="folder">The report folder.</param>
+    /// <param name="files">The files the jobs write, relative with '/' separators (the manifest is added).</param>
+    /// <param name="jobs">Makes the jobs that write those files into the context's staging folder.</param>
+    /// <exception cref="ReportFolderException">The folder is not one a report may be written into; nothing was written.</exception>
+    public static ReportOutput WriteFiles(string folder, IReadOnlyList<string> files, Func<OutputContext, IReadOnlyList<Action>> jobs)
+    {
+        ArgumentNullException.ThrowIfNull(folder);
+        ArgumentNullException.ThrowIfNull(files);
+        ArgumentNullException.ThrowIfNull(jobs);
+        var all = files.Append(ReportFolder.ManifestName).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToArray();
+        string target = ReportFolder.RealPath(folder);
+        var staging = ReportFolder.Begin(target, all);
+        try
+        {
+            var context = new OutputContext(staging.Folder, target, all.Where(f => f != ReportFolder.ManifestName));
+            Run(jobs(context), context);
+            if (context.Missing() is { Count: > 0 } missing)
+            {
+                throw new InvalidOperationException("The report's jobs did not write " + string.Join(", ", missing) + ".");
+            }
+
+            File.WriteAllText(Path.Combine(staging.Folder, ReportFolder.ManifestName), string.Join("\n", all.Where(f => f != ReportFolder.ManifestName).Prepend(ReportFolder.ManifestName)) + "\n");
+            var removed = ReportFolder.Commit(staging, all);
+            return new ReportOutput(target, all, removed);
+        }
+        catch
+        {
+            ReportFolder.Abandon(staging);
+            throw;
+        }
+    }
+
+    /// <summary>
     /// Runs the jobs on one thread more than there are cores (a job may wait for a file, or for the disk), each taking
     /// the next job in order; the first failure stops the rest and is rethrown as it was thrown.
     /// </summary>
-    private static void Run(IReadOnlyList<Action> jobs, PartContext context)
+    private static void Run(IReadOnlyList<Action> jobs, OutputContext context)
     {
         int workers = Math.Min(jobs.Count, Environment.ProcessorCount + 1);
         int next = -1;

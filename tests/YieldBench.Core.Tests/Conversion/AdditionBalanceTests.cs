@@ -6,8 +6,9 @@ namespace YieldBench.Core.Tests.Conversion;
 
 /// <summary>
 /// Water and sugar additions by mass balance. Each test writes the balance out by hand with the published SG of
-/// Zoecklein et al. Table I-1 (24 °Bx 1.10101, 22 °Bx 1.09193, 20 °Bx 1.08297), water 0.99820 kg/L at 20 °C and
-/// density = SG × 0.99820; tolerances cover the 4e-5 gap between those SGs and the NBS cubic the code uses.
+/// Zoecklein et al. Table I-1 (24 °Bx 1.10101, 22 °Bx 1.09193, 20 °Bx 1.08297), water 0.99820 kg/L at 20 °C,
+/// density = SG × 0.99820 and the OIV must table (the effective °Brix is the table's °Brix of the sugar after the
+/// additions); tolerances cover the 4e-5 gap between those SGs and the NBS cubic the code uses.
 /// The printed hand results are also in tests/YieldBench.Core.Tests/Units/Oracles/units_oracle.py.
 /// </summary>
 public class AdditionBalanceTests
@@ -17,115 +18,100 @@ public class AdditionBalanceTests
     private static double Density(double sg) => sg * Water;
 
     [Fact]
-    public void Water_addition_lowers_the_effective_starting_sugar()
+    public void Water_addition_lowers_the_effective_starting_sugar_to_the_table_Brix_of_its_diluted_sugar()
     {
-        // Given 1000 L of must at 24.0 °Bx with 100 L of water added
+        // Given 1000 L of must at 24.0 °Bx (237.8 g/L, OIV row) with 100 L of water added
         var additions = new Additions(MustVolumeL: 1000, WaterAddedL: 100, SugarAddedKg: null);
 
         // By hand: must mass 1000 × 1.10101 × 0.99820 = 1099.028 kg; solids 0.24 × that = 263.767 kg;
-        // mass after 1099.028 + 100 × 0.99820 = 1198.848 kg; °Bx after 100 × 263.767 / 1198.848 = 22.0017
+        // mass after 1099.028 + 100 × 0.99820 = 1198.848 kg; solids °Bx after 100 × 263.767 / 1198.848 = 22.0017;
+        // volume after 1198.848 ÷ (1.091944 × 0.99820) = 1099.88 L; sugar 237.8 × 1000 ÷ 1099.88 = 216.20 g/L —
+        // 1.5 g/L above the table's 214.7 at 22.0 °Bx, because water thins the non-sugar solids too — so the effective
+        // °Brix, the table's °Brix of 216.20 g/L, is 22.128 (units_oracle.py: 22.0017, 1099.883, 216.2049, 22.12772)
         double mass = 1000 * Density(1.10101);
-        double solids = mass * 0.24;
         double massAfter = mass + (100 * Water);
-        double handBrix = 100 * solids / massAfter;
+        double solidsBrix = 100 * mass * 0.24 / massAfter;
+        double volumeAfter = massAfter / Density(1.091944);
+        double sugar = 237.8 * 1000 / volumeAfter;
 
         // When the balance is applied
         var result = AdditionBalance.Apply(SugarReading.FromBrix(24.0), additions);
 
-        // Then the effective sugar is 22.0017 °Bx, and the correction is reported as made
-        Assert.Equal(22.001681917719253, handBrix, 1e-9);
-        Assert.Equal(handBrix, result.Effective.Brix, 1e-4);
+        // Then the solids, volume, sugar and effective °Brix are the hand values, and the correction is reported as made
+        Assert.Equal(22.001681917719253, solidsBrix, 1e-9);
+        Assert.Equal(solidsBrix, result.SolidsBrix, 1e-4);
+        Assert.Equal(1099.88, volumeAfter, 0.01);
+        Assert.Equal(volumeAfter, result.VolumeAfterL!.Value, 0.05);
+        Assert.Equal(216.20, sugar, 0.01);
+        Assert.Equal(sugar, result.EffectiveSugarGl, 0.01);
+        Assert.Equal(22.12771791792899, result.Effective.Brix, 1e-3);
+        Assert.Equal(result.EffectiveSugarGl, OivMustTable.SugarGramsPerLitre(result.Effective.Brix), 1e-8);
         Assert.True(result.Corrected);
         Assert.Null(result.Note);
     }
 
     [Fact]
-    public void Water_addition_dilutes_the_sugar_in_proportion_to_the_volume_after()
-    {
-        // Given the same 1000 L at 24.0 °Bx (237.8 g/L, OIV row) and 100 L of water
-        // By hand: volume after = 1198.848 kg ÷ density of 22.0017 °Bx (1.091944 × 0.99820 = 1.089978 kg/L)
-        //          = 1099.88 L; sugar = 237.8 g/L × 1000 L ÷ 1099.88 L = 216.20 g/L
-        double volumeAfter = 1198.848182 / Density(1.091944);
-        double handSugar = 237.8 * 1000 / volumeAfter;
-
-        // When the balance is applied under the OIV model
-        var result = AdditionBalance.Apply(SugarReading.FromBrix(24.0), new Additions(1000, 100, null), SugarModel.Default);
-
-        // Then sugar and volume match the hand values — and the sugar is 1.5 g/L above the table's 214.7 g/L at 22 °Bx,
-        // because dilution thins the non-sugar solids too
-        Assert.Equal(1099.88, volumeAfter, 0.01);
-        Assert.Equal(216.20, handSugar, 0.01);
-        Assert.Equal(handSugar, result.EffectiveSugarGl, 0.01);
-        Assert.Equal(volumeAfter, result.VolumeAfterL!.Value, 0.05);
-    }
-
-    [Fact]
-    public void Sugar_addition_raises_the_effective_starting_sugar_counting_inversion()
+    public void Sugar_addition_counts_the_mass_gained_on_inversion_and_the_musts_own_non_sugar_solids()
     {
         // Given 1000 L at 20.0 °Bx (191.9 g/L, OIV row) with 20 kg of sucrose
         var additions = new Additions(1000, null, 20);
 
-        // By hand: mass 1000 × 1.08297 × 0.99820 = 1081.021 kg; solids 216.204 kg; after: 1101.021 kg and
-        // 236.204 kg, so 21.4532 °Bx; volume 1101.021 ÷ (1.089472 × 0.99820) = 1012.42 L;
-        // sugar (191.9 kg + 20 kg × 1.052630 hexose per sucrose) ÷ 1012.42 L = 210.34 g/L
+        // By hand: mass 1000 × 1.08297 × 0.99820 = 1081.021 kg; solids 216.204 kg; the sucrose inverts to
+        // 20 × 1.052630 = 21.053 kg of glucose + fructose (2 × 180.156 / 342.297), the water taken from the must, so
+        // after: 1101.021 kg holding 237.257 kg of solids, 21.5488 °Bx; volume 1101.021 ÷ density at 21.5488 °Bx =
+        // 1012.02 L; sugar (191.9 kg + 21.053 kg) ÷ 1012.02 L = 210.42 g/L, whose table °Brix is 21.627
+        // (units_oracle.py: 21.54880, 1012.023, 210.4227, 21.62689)
         double mass = 1000 * Density(1.08297);
-        double handBrix = 100 * ((mass * 0.20) + 20) / (mass + 20);
-        double handSugar = ((191.9 * 1000) + (20000 * 1.052630)) / ((mass + 20) / Density(1.089472));
+        double solidsBrix = 100 * ((mass * 0.20) + (20 * 1.052630)) / (mass + 20);
 
         // When the balance is applied
         var result = AdditionBalance.Apply(SugarReading.FromBrix(20.0), additions);
 
-        // Then the effective values match the hand balance
-        Assert.Equal(21.453197080533606, handBrix, 1e-9);
-        Assert.Equal(handBrix, result.Effective.Brix, 1e-5);
-        Assert.Equal(210.34, handSugar, 0.005);
-        Assert.Equal(handSugar, result.EffectiveSugarGl, 0.01);
-        Assert.Equal(1012.42, result.VolumeAfterL!.Value, 0.01);
+        // Then the values are the hand balance's: the inversion adds 1.05 kg of solids (+0.10 °Bx of solids), and the
+        // added sucrose brings no non-sugar solids, so the must holds more sugar than a natural must of its solids °Brix
+        Assert.Equal(21.54879879996809, solidsBrix, 1e-6);
+        Assert.Equal(solidsBrix, result.SolidsBrix, 1e-4);
+        Assert.Equal(1012.023134175943, result.VolumeAfterL!.Value, 0.02);
+        Assert.Equal(210.42265486347114, result.EffectiveSugarGl, 0.01);
+        Assert.Equal(21.626887905289262, result.Effective.Brix, 1e-3);
+        Assert.True(OivMustTable.SugarGramsPerLitre(result.SolidsBrix) < result.EffectiveSugarGl - 0.8);
     }
 
     [Fact]
-    public void Water_for_a_target_matches_the_hand_balance_and_reaches_the_target_when_applied()
+    public void Water_for_a_target_reaches_the_target_when_applied()
     {
-        // Given 1000 L at 24.0 °Bx to be brought to 22.0 °Bx
+        // Given 1000 L at 24.0 °Bx to be brought to an effective 22.0 °Bx (214.7 g/L, the table's sugar there)
         var measured = SugarReading.FromBrix(24.0);
-
-        // By hand: solids 263.767 kg must be 22 % of the mass after: 1198.941 kg; water (1198.941 − 1099.028) ÷ 0.99820
-        // = 100.092 L; volume after, taken as additive, 1000 + 100.092 = 1100.092 L (by mass ÷ density it is 1099.98 L)
-        double mass = 1000 * Density(1.10101);
-        double massAfter = mass * 0.24 / 0.22;
-        double handWater = (massAfter - mass) / Water;
 
         // When the water is planned and then fed back through Apply
         var (water, volumeAfter) = AdditionBalance.WaterForTarget(measured, 1000, 22.0);
         var applied = AdditionBalance.Apply(measured, new Additions(1000, water, null));
 
-        // Then the plan matches the hand value, and applying it lands on 22.0 °Bx with the same volume
-        Assert.Equal(100.0918, handWater, 1e-4);
-        Assert.Equal(handWater, water, 0.005);
-        Assert.Equal(1000 + water, volumeAfter, 1e-9);
-        Assert.Equal(22.0, applied.Effective.Brix, 1e-9);
-        Assert.Equal(1099.98, applied.VolumeAfterL!.Value, 0.03);
-        Assert.InRange(volumeAfter / applied.VolumeAfterL!.Value, 1.0, 1.0002); // the two volume rules agree to 0.02 %
+        // Then it is the hand balance solved for the water (units_oracle.py, brentq: 107.716 L, 1107.59 L after — more
+        // than the 100.09 L a balance on solids alone gives, since the diluted must holds less non-sugar solids), and
+        // applying it lands on 22.0 °Bx and 214.7 g/L with the same volume
+        Assert.Equal(107.71609764526542, water, 0.05);
+        Assert.Equal(1107.591988821612, volumeAfter, 0.05);
+        Assert.Equal(22.0, applied.Effective.Brix, 1e-6);
+        Assert.Equal(214.7, applied.EffectiveSugarGl, 1e-5);
+        Assert.Equal(volumeAfter, applied.VolumeAfterL!.Value, 1e-9);
     }
 
     [Fact]
-    public void Sugar_for_a_target_matches_the_hand_balance_and_reaches_the_target_when_applied()
+    public void Sugar_for_a_target_reaches_the_target_when_applied()
     {
-        // Given 1000 L at 20.0 °Bx to be brought to 22.0 °Bx
+        // Given 1000 L at 20.0 °Bx to be brought to an effective 22.0 °Bx
         var measured = SugarReading.FromBrix(20.0);
-
-        // By hand: 100·(S + K) = 22·(M + K) ⇒ K = (22 × 1081.021 − 100 × 216.204) ÷ 78 = 27.718 kg
-        double mass = 1000 * Density(1.08297);
-        double handSugar = ((22 * mass) - (100 * mass * 0.20)) / 78;
 
         // When the sugar is planned and fed back through Apply
         var (sugar, _) = AdditionBalance.SugarForTarget(measured, 1000, 22.0);
         var applied = AdditionBalance.Apply(measured, new Additions(1000, null, sugar));
 
-        // Then the plan matches the hand value and applying it reaches 22.0 °Bx
-        Assert.Equal(27.718478, handSugar, 1e-6);
-        Assert.Equal(handSugar, sugar, 1e-4);
-        Assert.Equal(22.0, applied.Effective.Brix, 1e-9);
+        // Then it is the hand balance solved for the sucrose (units_oracle.py, brentq: 24.687 kg — less than the
+        // 27.72 kg a balance on solids alone gives, since sucrose is all sugar and gains 5 % on inversion), and
+        // applying it reaches 22.0 °Bx
+        Assert.Equal(24.6873617146406, sugar, 0.01);
+        Assert.Equal(22.0, applied.Effective.Brix, 1e-6);
     }
 
     [Fact]
@@ -168,13 +154,13 @@ public class AdditionBalanceTests
     public void Additions_that_would_leave_the_plausible_range_are_reported()
     {
         // Given 10 L of must with 900 kg of sugar recorded (a units mix-up);
-        // by hand 100 × (10 × 1.09193 × 0.99820 × 0.22 + 900) ÷ (10.8996 + 900) = 99.07 °Bx
+        // by hand 100 × (10 × 1.09193 × 0.99820 × 0.22 + 900 × 1.05263) ÷ (10.8996 + 900) = 104.27 °Bx (units_oracle.py)
         var result = AdditionBalance.Apply(SugarReading.FromBrix(22.0), new Additions(10, null, 900));
 
         // Then the correction is refused with the reason
         Assert.False(result.Corrected);
         Assert.Equal(
-            "the recorded additions would give 99.1 °Brix, outside -6 to 50 °Brix, so the starting sugar was not corrected; check must_volume_l, water_added_l and sugar_added_kg",
+            "the recorded additions would give 104.3 °Brix, outside -6 to 50 °Brix, so the starting sugar was not corrected; check must_volume_l, water_added_l and sugar_added_kg",
             result.Note);
     }
 

@@ -76,16 +76,17 @@ public class ConversionFactorsTests
     [Fact]
     public void Watered_lots_are_measured_from_the_effective_starting_sugar()
     {
-        // Given 1000 L at 24.0 °Bx with 100 L water (22.0017 °Bx, 216.20 g/L by the hand balance in AdditionBalanceTests)
+        // Given 1000 L at 24.0 °Bx with 100 L water (216.20 g/L, the table °Brix of which is 22.1277, by the hand
+        // balance in AdditionBalanceTests)
         var lot = MakeLot(24.0, 12.8, 1.5, new Additions(1000, 100, null));
 
         // When the measures are computed
         var c = ConversionFactors.For(lot, SugarModel.Default);
 
-        // Then they rest on the corrected values: 12.8 / 22.0017 = 0.58177; (216.20 − 1.5) / 12.8 = 16.773
+        // Then they rest on the corrected values: 12.8 / 22.1277 = 0.57846; (216.20 − 1.5) / 12.8 = 16.773
         Assert.True(c.AdditionsApplied);
-        Assert.Equal(22.0017, c.EffectiveStartingBrix, 1e-4);
-        Assert.Equal(0.58177, c.AbvPerBrix, 1e-5);
+        Assert.Equal(22.12771791792899, c.EffectiveStartingBrix, 1e-3);
+        Assert.Equal(0.57846, c.AbvPerBrix, 1e-4);
         Assert.Equal(16.773, c.SugarGlPerAbv, 1e-3);
     }
 
@@ -102,7 +103,7 @@ public class ConversionFactorsTests
     [Fact]
     public void Residual_sugar_above_the_starting_sugar_leaves_the_fermented_measures_empty_with_a_reason()
     {
-        // Given 12 °Bx must (103.54 g/L by the model; units_oracle.py 103.537370) and a residual sugar typed as 150 g/L
+        // Given 12 °Bx must (103.5 g/L, the OIV table's row) and a residual sugar typed as 150 g/L
         var c = ConversionFactors.For(MakeLot(12.0, 1.0, 150.0), SugarModel.Default);
 
         // Then the fermented measures are NaN and the note names both values
@@ -110,7 +111,7 @@ public class ConversionFactorsTests
         Assert.True(double.IsNaN(c.SugarGlPerAbv));
         Assert.True(double.IsNaN(c.GayLussacEfficiency));
         Assert.Equal(1.0 / 12.0, c.AbvPerBrix, 1e-12);
-        Assert.Equal(103.53737029826874, c.StartingSugarGl, 1e-9);
+        Assert.Equal(103.5, c.StartingSugarGl, 1e-9);
         Assert.Contains(
             string.Create(
                 CultureInfo.InvariantCulture,

@@ -26,20 +26,19 @@ public class PlannerTests
         // When the planner works out the add-back
         var answer = Planner.WaterAddBack(line, must, 5000, 14.5, null);
 
-        // Then it equals the hand balance on dissolved solids:
-        // target °Bx = 14.5 / 0.6 = 24.1667; must mass = 5000 L × SG(26 °Bx) × 0.99820 kg/L; solids = 26 % of it;
-        // mass after = solids ÷ 24.1667 %; water = (mass after − mass) ÷ 0.99820 kg/L
+        // Then the water passes the hand balance: target °Bx = 14.5 / 0.6 = 24.1667, whose table sugar is
+        // 239.0 + (2/3) × (240.1 − 239.0) = 239.733 g/L (OIV rows 24.1 and 24.2); must mass = 5000 L × SG(26 °Bx) ×
+        // 0.99820 kg/L; solids = 26 % of it; with W litres of water the mass is mass + 0.99820·W, the solids °Brix
+        // 100·solids ÷ that, the volume mass ÷ the density of that °Brix, and the sugar 261.2 g/L × 5000 L ÷ volume
         double targetBrix = 14.5 / 0.6;
         double mass = 5000 * must.SpecificGravity * 0.99820;
-        double solids = mass * 0.26;
-        double massAfter = solids / (targetBrix / 100);
-        double water = (massAfter - mass) / 0.99820;
-        Assert.Equal(targetBrix, answer.TargetBrix, 1e-9);
-        Assert.Equal(water, answer.WaterL, 1e-6);
-
-        // and the volume afterwards is the review's: mass after over the density of a 24.17 °Brix solution
-        Assert.Equal(massAfter / (SugarReading.FromBrix(targetBrix).SpecificGravity * 0.99820), answer.VolumeAfterL, 1e-6);
-        Assert.InRange(answer.WaterL, 420, 430); // order of magnitude: 26 → 24.17 °Bx dilutes ~7.6 % of ~5550 kg
+        double massAfter = mass + (0.99820 * answer.WaterL);
+        double solidsBrix = 100 * mass * 0.26 / massAfter;
+        double volumeAfter = massAfter / (SugarReading.FromBrix(solidsBrix).SpecificGravity * 0.99820);
+        Assert.Equal(239.0 + (2.0 / 3 * 1.1), 261.2 * 5000 / volumeAfter, 1e-4);
+        Assert.Equal(targetBrix, answer.TargetBrix, 1e-6);
+        Assert.Equal(volumeAfter, answer.VolumeAfterL, 1e-6);
+        Assert.InRange(answer.WaterL, 440, 460); // order of magnitude: 26 → 24.17 °Bx dilutes ~8 % of ~5550 kg
         Assert.Equal(14.5, answer.After!.Predicted, 1e-9);
     }
 
@@ -118,13 +117,15 @@ public class PlannerTests
         Assert.Equal(14.0, answer.After!.Predicted, 1e-6);
         Assert.Equal(balance.Effective.Brix, answer.TargetBrix, 1e-9);
 
-        // The table's value at the diluted °Brix assumes the non-sugar solids of a riper must and would have stopped
-        // short: water to the °Brix whose OIV potential is 14.0 (401 L) gives 14.15 % v/v by the balance
-        double tableBrix = line.BrixFor(14.0);
-        double tableWater = AdditionBalance.WaterForTarget(must, 2000, tableBrix).WaterL;
-        double byBalance = AdditionBalance.Apply(must, new Additions(2000, tableWater, null), SugarModel.Default).EffectiveSugarGl / 16.83;
-        Assert.True(answer.WaterL > tableWater + 10, $"balance {answer.WaterL} L, table {tableWater} L");
-        Assert.InRange(byBalance - 14.0, 0.1, 0.3);
+        // A balance on solids alone (water to the solids °Brix whose table sugar ÷ 16.83 is 14.0, 23.813 °Bx) assumes the
+        // non-sugar solids of a riper must and stops short: by hand its water is (100·S/23.813 − M)/0.99820 L, about
+        // 401 L, which gives 14.15 % v/v by the balance
+        double mass = 2000 * must.SpecificGravity * 0.99820;
+        double solidsWater = ((100 * mass * must.Brix / 100 / line.BrixFor(14.0)) - mass) / 0.99820;
+        double bySolids = AdditionBalance.Apply(must, new Additions(2000, solidsWater, null), SugarModel.Default).EffectiveSugarGl / 16.83;
+        Assert.Equal(401.46, solidsWater, 0.05);
+        Assert.InRange(answer.WaterL, 426.5, 427.0);
+        Assert.Equal(14.148, bySolids, 1e-3);
     }
 
     [Fact]

@@ -9,6 +9,8 @@ seeded generator, so the script makes the same files each time (LibreOffice's ow
 
     python3 tests/YieldBench.Intake.Tests/Regression/make-corpus.py
 
+Inputs the fuzz harness found (fuzz/run.sh) are kept in fuzz-found/ and copied in as they are.
+
 The expected codes and accounting of each file are in expected.tsv; after changing the corpus, run the tests with
 YB_UPDATE_CORPUS=1 to rewrite it, and read the difference before committing it.
 """
@@ -333,6 +335,10 @@ def main():
     text("folder-mixed/report.pdf", "%PDF-1.4")
     os.makedirs(path("folder-empty/sub"), exist_ok=True)
     text("folder-empty/sub/.keep", "")
+    # ---------------------------------------------------------------- inputs the fuzz harness found (fuzz/run.sh)
+    found = os.path.join(HERE, "fuzz-found")
+    for name in sorted(os.listdir(found)):
+        shutil.copy(os.path.join(found, name), path(name))
     print("corpus written to", OUT)
 
 

@@ -110,6 +110,31 @@ public sealed partial class HtmlReportTests
     }
 
     [Fact]
+    public void The_lots_table_has_one_row_per_finding_in_the_review_s_order_with_its_words()
+    {
+        // Given the sample review's one-line findings
+        var findings = Review.Value.Findings;
+        Assert.NotEmpty(findings);
+        string page = Page;
+
+        // When the lots table's rows are read
+        var rows = Regex.Matches(Regex.Match(page, "<table class=\"lots\".*?<tbody>(.*?)</tbody>", RegexOptions.Singleline).Groups[1].Value, "<tr>(.*?)</tr>", RegexOptions.Singleline)
+            .Select(m => m.Groups[1].Value).ToArray();
+
+        // Then there is a row per finding, in the review's order, holding what was seen, the explanation and the follow-up
+        Assert.Equal(findings.Count, rows.Length);
+        for (int i = 0; i < rows.Length; i++)
+        {
+            var f = findings[i];
+            Assert.StartsWith($"<th scope=\"row\" data-key=\"{HtmlText.Escape(f.Key.ToString())}\">", rows[i], StringComparison.Ordinal);
+            Assert.Contains(HtmlText.Escape(f.Seen), rows[i], StringComparison.Ordinal);
+            Assert.Contains(HtmlText.Escape(f.Explanation), rows[i], StringComparison.Ordinal);
+            Assert.Contains(HtmlText.Escape(f.FollowUp), rows[i], StringComparison.Ordinal);
+            Assert.Contains($"<span class=\"severity", rows[i], StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
     public void The_page_fetches_nothing_its_policy_allows_only_its_own_style_and_script()
     {
         // Given the page

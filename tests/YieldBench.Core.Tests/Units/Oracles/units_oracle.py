@@ -7,6 +7,9 @@ python3-numpy 1:1.24.2-1+deb12u1, python3-scipy 1.10.1-2):
 
 Every printed value is quoted beside its assertion in the C# tests.
 """
+import csv
+import os
+
 import numpy as np
 import scipy
 from scipy.interpolate import PchipInterpolator
@@ -23,6 +26,10 @@ def sg_from_brix(b):
     return brentq(lambda s: brix_from_sg(s) - b, 0.9, 1.4, xtol=1e-15, rtol=1e-15)
 
 
+def d(s):
+    return s * WATER
+
+
 def density(b):  # g/mL at 20 °C, the project's rule SG x 0.99820 (air buoyancy neglected)
     return sg_from_brix(b) * WATER
 
@@ -36,41 +43,63 @@ ROWS = [(10.0, 82.2), (15.0, 136.1), (20.0, 191.9), (22.0, 214.7), (24.0, 237.8)
 B = np.array([r[0] for r in ROWS])
 S = np.array([r[1] for r in ROWS])
 NS = np.array([solids(b) for b in B]) - S
-curve = PchipInterpolator(B, NS)
+curve = PchipInterpolator(B, NS)  # the earlier nine-row model
+
+
+def nine_row_sugar(x):
+    return max(0.0, solids(x) - float(curve(min(max(x, 10.0), 30.0))))
+
+
+# The full table (the project's model): the embedded sugar column, linear between 0.1 °Brix rows, edge non-sugar
+# solids held outside 10-30 °Brix.
+HERE = os.path.dirname(os.path.abspath(__file__))
+with open(os.path.join(HERE, "..", "..", "..", "..", "src", "YieldBench.Core", "Units", "oiv-must-table.csv")) as f:
+    rows = [r for r in csv.reader(line for line in f if not line.startswith("#"))][1:]
+TB = np.array([float(r[0]) for r in rows])
+TS = np.array([float(r[1]) for r in rows])
 
 
 def sugar(x):
-    return max(0.0, solids(x) - float(curve(min(max(x, 10.0), 30.0))))
+    if 10.0 <= x <= 30.0:
+        return float(np.interp(x, TB, TS))
+    edge = NS[0] if x < 10 else NS[-1]
+    return max(0.0, solids(x) - edge)
 
 
 print("scipy", scipy.__version__)
 print("S=1.040 ->", brix_from_sg(1.040))
-print("between rows", {x: sugar(x) for x in [10.5, 12.0, 12.5, 17.5, 21.0, 23.3, 25.5, 27.0, 29.0]})
 print("outside", {x: sugar(x) for x in [5.0, 40.0]})
 print("sugar starts at", brentq(lambda b: solids(b) - NS[0], 1, 5, xtol=1e-14))
-loo = []
-for k in range(1, len(B) - 1):
-    m = np.ones(len(B), bool)
-    m[k] = False
-    loo.append(solids(B[k]) - float(PchipInterpolator(B[m], NS[m])(B[k])) - S[k])
-print("leave-one-out worst", max(abs(e) for e in loo))
+diff = [(nine_row_sugar(b) - s, b) for b, s in zip(TB, TS)]
+print("nine-row model vs table, largest", max(diff, key=lambda t: abs(t[0])))
+print("nine-row model at", {b: round(nine_row_sugar(b), 5) for b in [25.4, 16.3, 25.1]})
 print("true SG of apparent 1.08297", (AIR + 1.08297 * (WATER - AIR)) / WATER)
 print("Bx of density 1.0391", brix_from_sg(1.0391 / WATER))
 print("alternative rule 22.7 Bx", (22.7 - 2.1) * 10 * density(22.7) / 17)
 
 
-def d(s):
-    return s * WATER
+# Hand balances of AdditionBalanceTests with the Zoecklein SGs (24 Bx 1.10101, 22 Bx 1.09193, 20 Bx 1.08297).
+# After additions: solids Brix counts the sucrose's inversion (x 2*180.156/342.297); volume = mass / density at that
+# Brix; sugar = (table sugar x V + 1000 x K x 1.0526) / V1; effective Brix = the table Brix of that sugar.
+HEX = 2 * 180.156 / 342.297
 
 
-# Hand balances of AdditionBalanceTests with the Zoecklein SGs (24 Bx 1.10101, 22 Bx 1.09193, 20 Bx 1.08297)
-m0 = 1000 * d(1.10101); m1 = m0 + 100 * WATER; b1 = 100 * m0 * 0.24 / m1
-print("water: B1", b1, "SG(B1)", sg_from_brix(b1), "V1", m1 / d(sg_from_brix(b1)), "sugar", 237.8 * 1000 / (m1 / d(sg_from_brix(b1))))
-m0 = 1000 * d(1.08297); m1 = m0 + 20; b1 = 100 * (m0 * 0.20 + 20) / m1; v1 = m1 / d(sg_from_brix(b1))
-print("sugar: B1", b1, "SG(B1)", sg_from_brix(b1), "V1", v1, "sugar", (191.9 * 1000 + 20000 * 2 * 180.156 / 342.297) / v1)
-m0 = 1000 * d(1.10101); ma = m0 * 0.24 / 0.22
-print("water for 22: W", (ma - m0) / WATER, "V+W", 1000 + (ma - m0) / WATER, "mass/density", ma / d(1.09193))
-m0 = 1000 * d(1.08297)
-print("sugar for 22: K", (22 * m0 - 100 * m0 * 0.20) / 78)
+def table_brix(g):  # inverse of the table's linear interpolation
+    return float(np.interp(g, TS, TB))
+
+
+def after(b0, sg0, s0, v, w, k, sg_solids=None):
+    m0 = v * d(sg0); m1 = m0 + w * WATER + k; bs = 100 * (m0 * b0 / 100 + k * HEX) / m1
+    v1 = m1 / d(sg_solids if sg_solids else sg_from_brix(bs))
+    g = (s0 * v + 1000 * k * HEX) / v1
+    return bs, v1, g, table_brix(g)
+
+
+print("water: solids Bx, V1, sugar, effective Bx", after(24, 1.10101, 237.8, 1000, 100, 0))
+print("sugar: solids Bx, V1, sugar, effective Bx", after(20, 1.08297, 191.9, 1000, 0, 20))
+w22 = brentq(lambda w: after(24, 1.10101, 237.8, 1000, w, 0)[3] - 22.0, 0, 500, xtol=1e-12)
+print("water for effective 22:", w22, after(24, 1.10101, 237.8, 1000, w22, 0))
+k22 = brentq(lambda k: after(20, 1.08297, 191.9, 1000, 0, k)[3] - 22.0, 0, 100, xtol=1e-12)
+print("sugar for effective 22:", k22, after(20, 1.08297, 191.9, 1000, 0, k22))
 m0 = 10 * d(1.09193)
-print("odd", 100 * (m0 * 0.22 + 900) / (m0 + 900))
+print("odd", 100 * (m0 * 0.22 + 900 * HEX) / (m0 + 900))

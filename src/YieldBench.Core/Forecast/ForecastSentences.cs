@@ -1,0 +1,171 @@
+using System.Globalization;
+
+namespace YieldBench.Core.Forecast;
+
+/// <summary>
+/// The forecast in plain words, for the console, the workbook and the worked scripts: one short paragraph per lot, the
+/// backtest in a few lines, and the cautions. Times are local clock times as in the logs ("Thu 17 Sep 14:00"). Pure.
+/// </summary>
+public static class ForecastSentences
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>The cautions every forecast output repeats.</summary>
+    public static IReadOnlyList<string> Cautions { get; } =
+    [
+        "A forecast guides when to measure and act; it is no substitute for the next reading. Take the reading before acting on a forecast time.",
+        "Fermentation makes heat: the temperature \"reachable with no cooling\" is where the must would go if no heat were removed from now on. Cool before the forecast peak, not after it.",
+        "Fermentation makes carbon dioxide, which collects in tanks, pits and closed or low spaces and can kill: ventilate, and follow local codes for gas monitoring and confined-space entry (docs/cautions.md).",
+        "Defer to local codes and licensed practice; a nutrient addition's timing and amount are the winemaker's call.",
+    ];
+
+    /// <summary>A clock time as the cellar reads it: "Thu 17 Sep 14:00".</summary>
+    public static string When(DateTime t) => ToMinute(t).ToString("ddd d MMM HH:mm", Inv);
+
+    /// <summary>The time rounded to the nearest minute (forecast times carry fractions of a second).</summary>
+    public static DateTime ToMinute(DateTime t) => new DateTime(t.Ticks - (t.Ticks % TimeSpan.TicksPerMinute), t.Kind).AddMinutes(t.Ticks % TimeSpan.TicksPerMinute >= TimeSpan.TicksPerMinute / 2 ? 1 : 0);
+
+    /// <summary>A time interval: the second end without its date when it falls on the same day.</summary>
+    public static string Span(DateTime low, DateTime high) =>
+        ToMinute(low).Date == ToMinute(high).Date ? $"{ToMinute(low).ToString("HH:mm", Inv)}–{ToMinute(high).ToString("HH:mm", Inv)}" : $"{When(low)} – {When(high)}";
+
+    /// <summary>The lot's paragraph: one-third, dryness, heat, risk, next reading, basis.</summary>
+    public static IReadOnlyList<string> Lot(LotForecast f)
+    {
+        ArgumentNullException.ThrowIfNull(f);
+        var c = f.Course;
+        var lines = new List<string>();
+        string vessel = c.Vessel is null ? string.Empty : $", {c.Vessel}";
+        string head = $"Lot {c.LotId} ({c.Strain}{vessel})";
+        if (f.OneThirdHours is not { } third)
+        {
+            lines.Add($"{head}: one-third at {N(f.OneThirdBrix)} °Brix could not be forecast.");
+        }
+        else if (f.OneThirdPassed)
+        {
+            lines.Add($"{head}: one-third ({N(f.OneThirdBrix)} °Brix) was passed {When(c.At(third.Median))} — the usual nutrient moment is behind it.");
+        }
+        else if (double.IsFinite(third.Median))
+        {
+            var at = c.At(third.Median);
+            string high = double.IsFinite(third.High) ? Span(c.At(third.Low), c.At(third.High)) : $"{When(c.At(third.Low))} or later";
+            string check = at.Hour < 12 ? "morning" : "evening";
+            lines.Add($"{head}: one-third at {N(f.OneThirdBrix)} °Brix expected {When(at)} (80 %: {high}) — plan the nutrient addition for the {at.ToString("ddd", Inv)} {check} check.");
+        }
+        else
+        {
+            lines.Add($"{head}: one-third at {N(f.OneThirdBrix)} °Brix is not expected: the ferment looks set to stop before it.");
+        }
+
+        var parts = new List<string>();
+        if (f.DryHours is { } dry && double.IsFinite(dry.Median))
+        {
+            // Within two days the hours matter; further out the day is what can be planned.
+            bool close = dry.High - dry.Low < 48 && double.IsFinite(dry.High);
+            string span = !double.IsFinite(dry.High) ? $"{c.At(dry.Low).ToString("d MMM", Inv)} or later"
+                : close ? Span(c.At(dry.Low), c.At(dry.High))
+                : $"{c.At(dry.Low).ToString("d MMM", Inv)}–{c.At(dry.High).ToString("d MMM", Inv)}";
+            parts.Add($"dry expected {(close ? When(c.At(dry.Median)) : c.At(dry.Median).ToString("ddd d MMM", Inv))} (80 %: {span})");
+        }
+        else
+        {
+            parts.Add($"dry not expected: the sugar looks set to settle near {N(f.SettlesAtBrix)} °Brix");
+        }
+
+        if (f.PeakC is { } peak)
+        {
+            string warn = peak.Median > f.DangerC ? $", above the {N(f.DangerC, "0")} °C danger threshold — cool it now"
+                : peak.High > f.DangerC ? $"; the top of the range passes the {N(f.DangerC, "0")} °C danger threshold"
+                : peak.Median > f.CautionC ? $", above the {N(f.CautionC, "0")} °C caution threshold" : string.Empty;
+            parts.Add($"peak {N(peak.Median)} °C (80 %: {N(peak.Low)}–{N(peak.High)}){warn}");
+        }
+
+        lines.Add("  " + Capital(string.Join("; ", parts)) + ".");
+        var heat = new List<string>();
+        if (f.ReachableC is { } reach)
+        {
+            heat.Add($"with no cooling from now it could reach {N(reach)} °C");
+        }
+
+        if (f.CoolingKw is { } kw)
+        {
+            heat.Add($"at the forecast peak rate ({N(f.PeakRateBrixPerDay)} °Brix/day) it makes {N(kw, kw < 1 ? "0.00" : kw < 10 ? "0.0" : "0")} kW of heat, what cooling must remove to hold it steady");
+        }
+
+        if (heat.Count > 0)
+        {
+            lines.Add("  " + Capital(string.Join("; ", heat)) + ".");
+        }
+
+        string risk = f.StuckRisk >= 0.5 ? " — act now: check nitrogen and temperature, and plan a restart"
+            : f.StuckRisk >= 0.2 ? " — watch it closely" : string.Empty;
+        string next = $"next reading: {When(c.At(f.NextReadingHours))} would narrow the {f.NextReadingFor} forecast most";
+        string basis = f.OwnStrainPrior
+            ? $"basis: {f.StrainLots} past lot(s) of {c.Strain}, {f.ReadingsUsed} reading(s) so far"
+            : $"basis: no own history for {c.Strain} (pooled prior of the other strains), {f.ReadingsUsed} reading(s) so far";
+        lines.Add($"  Chance of a sluggish or stuck end: {Percent(f.StuckRisk)}{risk}; {next}; {basis}.");
+        return lines;
+    }
+
+    /// <summary>What the whole forecast rests on: the history, the form chosen, the season shift and the noise.</summary>
+    public static IReadOnlyList<string> Basis(ForecastReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        var m = report.Model;
+        string form = report.Form == Kinetics.SigmoidModel.Gompertz ? "modified Gompertz" : "modified logistic";
+        var lines = new List<string>
+        {
+            $"History: {report.PastLogs} past lots with a log; {m.LotsUsed} fitted ({report.PastLogsNotFitted} too short or flat to fit). Sugar course: the {form} curve of Zwietering et al. (1990), chosen because it fits the past logs better (median log ratio of residual sums of squares, Gompertz over logistic, {N(report.FormLogRatio, "0.00")}).",
+            $"Reading noise from the past logs: {N(m.SugarSd, "0.00")} °Brix (hand readings), {N(m.DenseSugarSd, "0.00")} °Brix (probe), {N(m.TempSd, "0.00")} °C. Season-to-season spread of the time scale: {Percent(m.SeasonSpread)}; {Percent(m.RateOutlierShare)} of past lots ran far from their strain and are allowed for.",
+        };
+        foreach (var (season, (mean, sd)) in report.SeasonShifts.OrderBy(kv => kv.Key))
+        {
+            string pace = Math.Abs(mean) < 0.005 ? "at the history's usual pace" : mean > 0 ? $"about {Percent(Math.Exp(mean) - 1)} faster than the history" : $"about {Percent(1 - Math.Exp(mean))} slower than the history";
+            lines.Add($"The lots running in {season} so far ferment {pace} (season shift {N(mean, "0.000")} ± {N(sd, "0.000")} on the log time scale); every lot of the season shares it.");
+        }
+
+        if (report.Now is { } now)
+        {
+            lines.Add($"Readings stand at {When(now)} (the last reading of all running lots).");
+        }
+
+        return lines;
+    }
+
+    /// <summary>A few lines of the backtest: the model against the two baselines at each cut, per target.</summary>
+    public static IReadOnlyList<string> Backtest(BacktestResult backtest)
+    {
+        ArgumentNullException.ThrowIfNull(backtest);
+        if (backtest.Rows.Count == 0)
+        {
+            return ["Backtest: the history needs two or more seasons of fitted logs to hold one out; none was run."];
+        }
+
+        var lines = new List<string>
+        {
+            $"Backtest, each of {string.Join(", ", backtest.Seasons)} held out in turn (readings: mean error / 90th percentile / 80 % band held; baselines: last-two-readings line, strain median):",
+        };
+        foreach (var target in ForecastBacktest.Targets)
+        {
+            var rows = backtest.Rows.Where(r => r.Target == target).ToArray();
+            if (rows.Length == 0)
+            {
+                continue;
+            }
+
+            string unit = target == "peak_temp" ? "°C" : "h";
+            string name = target switch { "one_third" => "one-third", "dry" => "dry", _ => "peak temp" };
+            var cells = rows.Select(r => $"{r.Readings}: {N(r.Mae)}/{N(r.P90)} {unit} {Percent(r.Coverage80)} ({N(r.BaselineLineMae)}, {N(r.BaselineStrainMae)})");
+            lines.Add($"  {name,-10} {string.Join("  ", cells)}");
+        }
+
+        return lines;
+    }
+
+    private static string Capital(string s) => s.Length == 0 ? s : char.ToUpperInvariant(s[0]) + s[1..];
+
+    private static string N(double v, string format = "0.0") => v.ToString(format, Inv);
+
+    /// <summary>A share as a whole percentage ("7 %"), "&lt; 1 %" below half a percent.</summary>
+    public static string Percent(double share) => share < 0.005 ? "< 1 %" : (share * 100).ToString("0", Inv) + " %";
+}

@@ -1,0 +1,152 @@
+using ClosedXML.Excel;
+using YieldBench.Core.Forecast;
+using YieldBench.Core.Lots;
+using YieldBench.Reports.Tables;
+using YieldBench.Reports.Workbook;
+
+namespace YieldBench.Reports.Forecast;
+
+/// <summary>
+/// The forecast workbook: sheet "Forecast" with one row per running lot (times as the cellar clock reads them, 80 %
+/// intervals beside each), sheet "Backtest" with the leave-one-season-out table, and sheet "Notes and cautions".
+/// Column widths are set by hand (ClosedXML's automatic sizing needs libgdiplus). Same forecast, same bytes.
+/// </summary>
+public static class ForecastWorkbook
+{
+    /// <summary>File name in the output folder.</summary>
+    public const string FileName = "forecast.xlsx";
+
+    /// <summary>The one-row-per-lot table.</summary>
+    public static ReportTable Lots(ForecastReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        static object? At(LotForecast f, double? hours) => hours is { } h && double.IsFinite(h) ? f.Course.At(h) : null;
+        static double Num(double? v) => v is { } x && double.IsFinite(x) ? x : double.NaN;
+        Column<LotForecast>[] columns =
+        [
+            new("season", "Season", CellKind.Integer, f => f.Course.Season),
+            new("lot_id", "Lot", CellKind.Text, f => f.Course.LotId),
+            new("strain", "Strain", CellKind.Text, f => f.Course.Strain),
+            new("vessel", "Vessel", CellKind.Text, f => f.Course.Vessel),
+            new("readings_used", "Readings used", CellKind.Integer, f => f.ReadingsUsed),
+            new("one_third_brix", "One-third level (°Brix)", CellKind.Number, f => f.OneThirdBrix, "0.0"),
+            new("one_third_at", "One-third expected", CellKind.DateTime, f => At(f, f.OneThirdHours?.Median)),
+            new("one_third_low80", "One-third, 80 % from", CellKind.DateTime, f => At(f, f.OneThirdHours?.Low)),
+            new("one_third_high80", "One-third, 80 % to", CellKind.DateTime, f => At(f, f.OneThirdHours?.High)),
+            new("one_third_passed", "One-third already passed", CellKind.Boolean, f => f.OneThirdPassed),
+            new("dry_at", "Dry expected", CellKind.DateTime, f => At(f, f.DryHours?.Median)),
+            new("dry_low80", "Dry, 80 % from", CellKind.DateTime, f => At(f, f.DryHours?.Low)),
+            new("dry_high80", "Dry, 80 % to", CellKind.DateTime, f => At(f, f.DryHours?.High)),
+            new("peak_temp_c", "Peak temperature (°C)", CellKind.Number, f => Num(f.PeakC?.Median), "0.0"),
+            new("peak_temp_low80_c", "Peak, 80 % from (°C)", CellKind.Number, f => Num(f.PeakC?.Low), "0.0"),
+            new("peak_temp_high80_c", "Peak, 80 % to (°C)", CellKind.Number, f => Num(f.PeakC?.High), "0.0"),
+            new("reachable_without_cooling_c", "Reachable with no cooling from now (°C)", CellKind.Number, f => Num(f.ReachableC), "0.0"),
+            new("cooling_kw", "Heat at the peak rate: cooling to hold it (kW)", CellKind.Number, f => Num(f.CoolingKw), "0.00"),
+            new("vessel_heat_removal_per_h", "Vessel type's usual heat removal at the peak (per h)", CellKind.Number, f => Num(f.CoolingCoefficientPerHour), "0.000"),
+            new("stuck_risk", "Chance of a sluggish or stuck end", CellKind.Share, f => f.StuckRisk),
+            new("next_reading_at", "Next reading most worth taking", CellKind.DateTime, f => At(f, f.NextReadingHours)),
+            new("basis", "Basis", CellKind.Text, f => f.OwnStrainPrior ? $"{f.StrainLots} past lots of the strain" : "pooled prior (strain not in the history)"),
+            new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f).Select(s => s.Trim()))),
+        ];
+        return ReportTable.Of(columns, report.Lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
+    }
+
+    /// <summary>The backtest table, with the per-season coverage.</summary>
+    public static ReportTable Backtest(ForecastReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        var seasons = report.Backtest.Seasons;
+        var columns = new List<Column<BacktestRow>>
+        {
+            new("target", "Target", CellKind.Text, r => r.Target),
+            new("readings", "Readings before the cut", CellKind.Integer, r => r.Readings),
+            new("lots", "Lots scored", CellKind.Integer, r => r.Lots),
+            new("mae", "Mean absolute error (h or °C)", CellKind.Number, r => r.Mae, "0.00"),
+            new("p90", "90th-percentile error (h or °C)", CellKind.Number, r => r.P90, "0.00"),
+            new("coverage80", "80 % interval held the truth", CellKind.Share, r => r.Coverage80),
+            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, r => r.BaselineLineMae, "0.00"),
+            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, r => r.BaselineStrainMae, "0.00"),
+        };
+        foreach (int season in seasons)
+        {
+            columns.Add(new($"coverage80_{season}", $"80 % held, {season} held out", CellKind.Share, r => r.CoverageBySeason.TryGetValue(season, out var v) ? v : double.NaN));
+        }
+
+        return ReportTable.Of(columns, report.Backtest.Rows);
+    }
+
+    /// <summary>The backtest by colour bucket.</summary>
+    public static ReportTable ByColour(ForecastReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        Column<(string Colour, BacktestRow Row)>[] columns =
+        [
+            new("colour", "Colour", CellKind.Text, x => x.Colour == "white" ? "white and rosé" : x.Colour),
+            new("target", "Target", CellKind.Text, x => x.Row.Target),
+            new("readings", "Readings before the cut", CellKind.Integer, x => x.Row.Readings),
+            new("lots", "Lots scored", CellKind.Integer, x => x.Row.Lots),
+            new("mae", "Mean absolute error (h or °C)", CellKind.Number, x => x.Row.Mae, "0.00"),
+            new("p90", "90th-percentile error (h or °C)", CellKind.Number, x => x.Row.P90, "0.00"),
+            new("coverage80", "80 % interval held the truth", CellKind.Share, x => x.Row.Coverage80),
+            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, x => x.Row.BaselineLineMae, "0.00"),
+            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, x => x.Row.BaselineStrainMae, "0.00"),
+        ];
+        return ReportTable.Of(columns, report.Backtest.ByColour);
+    }
+
+    /// <summary>The workbook's bytes.</summary>
+    public static byte[] Write(ForecastReport report, IReadOnlyList<IntakeIssue> issues)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        ArgumentNullException.ThrowIfNull(issues);
+        using var wb = new XLWorkbook();
+        wb.Properties.Author = "YieldBench";
+        wb.Properties.Title = "YieldBench in-season forecast";
+        wb.Properties.Created = WorkbookWriter.FixedTimestamp;
+        wb.Properties.Modified = WorkbookWriter.FixedTimestamp;
+        var lots = wb.Worksheets.Add("Forecast");
+        var placed = SheetLayout.WriteTable(lots, Lots(report));
+        int row = placed.LastRow + 2;
+        foreach (var caution in ForecastSentences.Cautions)
+        {
+            SheetLayout.SetText(lots.Cell(row++, 1), caution);
+        }
+
+        var backtest = wb.Worksheets.Add("Backtest");
+        var placedBacktest = SheetLayout.WriteTable(backtest, Backtest(report));
+        row = placedBacktest.LastRow + 2;
+        SheetLayout.SetText(backtest.Cell(row, 1), "By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger):");
+        backtest.Cell(row, 1).Style.Font.Bold = true;
+        var placedColour = SheetLayout.WriteTable(backtest, ByColour(report), row + 1, 1, freezeAndFilter: false);
+        row = placedColour.LastRow + 2;
+        foreach (var line in ForecastSentences.Backtest(report.Backtest))
+        {
+            SheetLayout.SetText(backtest.Cell(row++, 1), line.Trim());
+        }
+
+        var notes = wb.Worksheets.Add("Notes and cautions");
+        notes.Column(1).Width = 140;
+        row = 1;
+        SheetLayout.SetText(notes.Cell(row, 1), "Cautions");
+        notes.Cell(row++, 1).Style.Font.Bold = true;
+        foreach (var caution in ForecastSentences.Cautions)
+        {
+            SheetLayout.SetText(notes.Cell(row++, 1), caution);
+        }
+
+        row++;
+        SheetLayout.SetText(notes.Cell(row, 1), "What the forecast rests on");
+        notes.Cell(row++, 1).Style.Font.Bold = true;
+        foreach (var note in ForecastSentences.Basis(report).Concat(report.Notes.Select(n => n.Message)))
+        {
+            SheetLayout.SetText(notes.Cell(row++, 1), note);
+        }
+
+        var issueSheet = wb.Worksheets.Add("Intake issues");
+        SheetLayout.WriteTable(issueSheet, ReviewTables.IntakeIssues(issues));
+
+        using var ms = new MemoryStream();
+        wb.SaveAs(ms);
+        return DeterministicZip.Normalise(ms.ToArray());
+    }
+}

@@ -1,0 +1,263 @@
+using System.Globalization;
+using System.Text.Json;
+using System.Text.RegularExpressions;
+
+namespace YieldBench.Cli.Tests;
+
+/// <summary>Runs the demo forecast twice (the second quietly, into another folder) for the tests that read its outputs.</summary>
+public sealed class DemoForecastFixture : IDisposable
+{
+    public DemoForecastFixture()
+    {
+        Root = Path.Combine(Path.GetTempPath(), "yb-forecast-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(Root);
+        (ExitCode, Out, Error) = Cli.Run(Root, "forecast", "--out", "first");
+        (SecondExitCode, QuietOut, _) = Cli.Run(Root, "forecast", "--out", "second", "--quiet");
+        Json = JsonDocument.Parse(File.ReadAllText(Path.Combine(First, "forecast.json")));
+    }
+
+    public string Root { get; }
+
+    public string First => Path.Combine(Root, "first");
+
+    public string Second => Path.Combine(Root, "second");
+
+    public int ExitCode { get; }
+
+    public int SecondExitCode { get; }
+
+    public string Out { get; }
+
+    public string QuietOut { get; }
+
+    public string Error { get; }
+
+    public JsonDocument Json { get; }
+
+    public JsonElement Lot(string id) => Json.RootElement.GetProperty("lots").EnumerateArray().Single(l => l.GetProperty("lot_id").GetString() == id);
+
+    public void Dispose()
+    {
+        Json.Dispose();
+        try
+        {
+            Directory.Delete(Root, recursive: true);
+        }
+        catch (IOException)
+        {
+        }
+    }
+}
+
+public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : IClassFixture<DemoForecastFixture>
+{
+    [GeneratedRegex(@"^\d{4}-\d\d-\d\dT\d\d:\d\d:00$")]
+    private static partial Regex LocalTime();
+
+    [Fact]
+    public void With_no_inputs_the_forecast_reads_the_demo_history_and_its_harvest_in_progress_and_says_so()
+    {
+        // Given no inputs (the fixture ran "forecast --out first")
+        // Then it said so, succeeded, and printed every running lot, the backtest and the cautions
+        Assert.Equal(0, demo.ExitCode);
+        Assert.Equal(string.Empty, demo.Error);
+        Assert.StartsWith("No inputs given: forecasting the bundled demo's harvest in progress", demo.Out, StringComparison.Ordinal);
+        Assert.Contains("Forecast for 10 running lot(s) of 2026 (readings stand at Fri 18 Sep 17:", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        for (int i = 1; i <= 10; i++)
+        {
+            Assert.Contains($"Lot 26-{i:000} (", demo.Out, StringComparison.Ordinal);
+        }
+
+        Assert.Contains("Backtest, each of 2023, 2024, 2025 held out in turn", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.Contains("no substitute for the next reading", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.Contains("carbon dioxide", Cli.Flat(demo.Out), StringComparison.Ordinal);
+        Assert.All(demo.Out.Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
+        Assert.Equal(0, demo.SecondExitCode);
+        Assert.Equal(string.Empty, demo.QuietOut);
+    }
+
+    [Fact]
+    public void The_json_has_exactly_the_documented_shape_with_local_times_and_hours()
+    {
+        var root = demo.Json.RootElement;
+        Assert.Equal(["lots", "backtest"], root.EnumerateObject().Select(p => p.Name));
+        string[] lotKeys = ["season", "lot_id", "strain", "readings_used", "one_third", "dry", "peak_temp_c", "reachable_without_cooling_c", "cooling_kw", "stuck_risk", "next_reading_at", "basis"];
+        Assert.Equal(10, root.GetProperty("lots").GetArrayLength());
+        foreach (var lot in root.GetProperty("lots").EnumerateArray())
+        {
+            Assert.Equal(lotKeys, lot.EnumerateObject().Select(p => p.Name));
+            Assert.Equal(["brix", "at", "low80", "high80"], lot.GetProperty("one_third").EnumerateObject().Select(p => p.Name));
+            Assert.Equal(["at", "low80", "high80"], lot.GetProperty("dry").EnumerateObject().Select(p => p.Name));
+            Assert.Equal(["value", "low80", "high80"], lot.GetProperty("peak_temp_c").EnumerateObject().Select(p => p.Name));
+            foreach (var time in new[] { lot.GetProperty("one_third").GetProperty("at"), lot.GetProperty("next_reading_at") })
+            {
+                Assert.Matches(LocalTime(), time.GetString()!);
+            }
+        }
+
+        string[] rowKeys = ["target", "readings", "lots", "mae", "p90", "coverage80", "baseline_line_mae", "baseline_strain_mae"];
+        var rows = root.GetProperty("backtest").EnumerateArray().ToArray();
+        Assert.Equal(12, rows.Length);
+        Assert.All(rows, r => Assert.Equal(rowKeys, r.EnumerateObject().Select(p => p.Name)));
+        Assert.Equal(["one_third", "dry", "peak_temp"], rows.Select(r => r.GetProperty("target").GetString()).Distinct());
+        Assert.Equal([2, 3, 4, 6], rows.Where(r => r.GetProperty("target").GetString() == "dry").Select(r => r.GetProperty("readings").GetInt32()));
+    }
+
+    [Fact]
+    public void The_planted_lots_of_the_harvest_in_progress_are_found()
+    {
+        // The lot heading for a stuck end: a high chance, and no dry time expected
+        var stuck = demo.Lot("26-005");
+        Assert.True(stuck.GetProperty("stuck_risk").GetDouble() >= 0.5);
+        Assert.Equal(JsonValueKind.Null, stuck.GetProperty("dry").GetProperty("at").ValueKind);
+
+        // The lot that will overheat without cooling: a forecast peak above the 40 °C red danger threshold, with the
+        // cooling power of a 10,000 L tank at its peak rate, and a reachable temperature far above that
+        var hot = demo.Lot("26-006");
+        Assert.True(hot.GetProperty("peak_temp_c").GetProperty("value").GetDouble() > 40);
+        Assert.True(hot.GetProperty("cooling_kw").GetDouble() > 1);
+        Assert.True(hot.GetProperty("reachable_without_cooling_c").GetDouble() > 50);
+        Assert.Contains("above the 40 °C danger threshold — cool it now", Cli.Flat(demo.Out), StringComparison.Ordinal);
+
+        // The trial strain stands on the pooled prior; the lot without an inoculation time counts from its first reading
+        Assert.Equal("pooled", demo.Lot("26-009").GetProperty("basis").GetProperty("strain_prior").GetString());
+        Assert.Equal("first reading", demo.Lot("26-008").GetProperty("basis").GetProperty("time_origin").GetString());
+
+        // And an ordinary lot is neither
+        var plain = demo.Lot("26-003");
+        Assert.True(plain.GetProperty("stuck_risk").GetDouble() < 0.1);
+        Assert.True(plain.GetProperty("peak_temp_c").GetProperty("value").GetDouble() < 20);
+    }
+
+    [Fact]
+    public void The_demo_backtest_beats_both_baselines_at_every_cut()
+    {
+        foreach (var row in demo.Json.RootElement.GetProperty("backtest").EnumerateArray())
+        {
+            double mae = row.GetProperty("mae").GetDouble();
+            Assert.True(mae < row.GetProperty("baseline_line_mae").GetDouble() && mae < row.GetProperty("baseline_strain_mae").GetDouble(), row.ToString());
+        }
+    }
+
+    [Fact]
+    public void Same_inputs_give_the_same_files_byte_for_byte_and_a_chart_per_running_lot()
+    {
+        var first = Directory.GetFiles(demo.First, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(demo.First, f)).Order(StringComparer.Ordinal).ToArray();
+        var second = Directory.GetFiles(demo.Second, "*", SearchOption.AllDirectories).Select(f => Path.GetRelativePath(demo.Second, f)).Order(StringComparer.Ordinal).ToArray();
+        Assert.Equal(first, second);
+        Assert.Equal(10, first.Count(f => f.StartsWith("charts", StringComparison.Ordinal) && f.EndsWith(".png", StringComparison.Ordinal)));
+        Assert.Contains("forecast.xlsx", first);
+        Assert.Contains("yieldbench-files.txt", first);
+        foreach (var f in first)
+        {
+            Assert.True(File.ReadAllBytes(Path.Combine(demo.First, f)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(demo.Second, f))), f + " differs between two runs");
+        }
+
+        byte[] png = File.ReadAllBytes(Path.Combine(demo.First, "charts", "forecast-2026-26-006.png"));
+        Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47 }, png[..4]);
+    }
+
+    [Fact]
+    public void A_running_log_in_fahrenheit_gives_the_forecast_of_the_same_log_in_celsius()
+    {
+        // Given a running lot whose log records temperatures in °F, and the same log in °C
+        using var folder = new Scratch();
+        string lots = "Lot,Vintage,Yeast,Vessel,Capacity (L),Start Brix,Inoculated,Colour\n26-101,2026,YB-R12,Stainless tank,5000,24.8,2026-09-15 08:00,red\n";
+        var readings = new[] { ("2026-09-15 17:30", 24.1, 19.6), ("2026-09-16 07:30", 22.9, 22.4), ("2026-09-16 17:30", 21.0, 25.5) };
+        string F(double c) => ((c * 9 / 5) + 32).ToString("0.00", CultureInfo.InvariantCulture);
+        string C(double c) => c.ToString("0.00", CultureInfo.InvariantCulture);
+        folder.Write("f/lots-2026.csv", lots);
+        folder.Write("f/log-2026.csv", "Lot,Timestamp,Brix,Temp (°F)\n" + string.Concat(readings.Select(r => $"26-101,{r.Item1},{r.Item2.ToString(CultureInfo.InvariantCulture)},{F(r.Item3)}\n")));
+        folder.Write("c/lots-2026.csv", lots);
+        folder.Write("c/log-2026.csv", "Lot,Timestamp,Brix,Temp (°C)\n" + string.Concat(readings.Select(r => $"26-101,{r.Item1},{r.Item2.ToString(CultureInfo.InvariantCulture)},{C(r.Item3)}\n")));
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When both are forecast from the demo history
+        var (fe, _, ferr) = Cli.Run(folder.Root, "forecast", history, "--running", "f", "--out", "outf", "--quiet");
+        var (ce, _, _) = Cli.Run(folder.Root, "forecast", history, "--running", "c", "--out", "outc", "--quiet");
+
+        // Then both succeed with the same lot forecast: the °F readings were read as the °C ones
+        Assert.True(fe == 0, ferr);
+        Assert.Equal(0, ce);
+        using var jf = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder.Root, "outf", "forecast.json")));
+        using var jc = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder.Root, "outc", "forecast.json")));
+        var lf = jf.RootElement.GetProperty("lots")[0];
+        var lc = jc.RootElement.GetProperty("lots")[0];
+        Assert.Equal(lc.GetProperty("peak_temp_c").GetProperty("value").GetDouble(), lf.GetProperty("peak_temp_c").GetProperty("value").GetDouble(), 1);
+        Assert.Equal(lc.GetProperty("reachable_without_cooling_c").GetDouble(), lf.GetProperty("reachable_without_cooling_c").GetDouble(), 1);
+        Assert.Equal(lc.GetProperty("one_third").GetProperty("at").GetString(), lf.GetProperty("one_third").GetProperty("at").GetString());
+        Assert.InRange(lf.GetProperty("reachable_without_cooling_c").GetDouble(), 40, 60);
+    }
+
+    [Fact]
+    public void Bad_running_rows_are_reported_with_their_place_and_fix_and_the_rest_forecast()
+    {
+        // Given a running table with one good lot and one without starting sugar
+        using var folder = new Scratch();
+        folder.Write("r/lots-2026.csv", "Lot,Yeast,Start Brix,Inoculated\n26-201,YB-W22,22.4,2026-09-17 10:00\n26-202,YB-W22,,\n26-203,YB-W22,21.9,\n");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When forecast
+        var (exit, output, error) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");
+
+        // Then the bad row is named with file, row and column and left out (exit 1), and the good lot forecast from its prior
+        Assert.Equal(1, exit);
+        Assert.Contains("forecast: error r/lots-2026.csv, row 3, column \"Start Brix\"", Cli.Flat(error), StringComparison.Ordinal);
+        string flat = Cli.Flat(output);
+        Assert.Contains("Lot 26-201 (YB-W22)", flat, StringComparison.Ordinal);
+        Assert.Contains("has no sugar reading yet", flat, StringComparison.Ordinal);
+        Assert.Contains("Lot 26-203 has neither an inoculation time nor a reading", flat, StringComparison.Ordinal);
+        Assert.All(output.Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
+    }
+
+    [Theory]
+    [InlineData("the lots still fermenting are missing", "forecast", "demo-data-copy")]
+    [InlineData("the history is missing", "forecast", "--running", "demo-data-copy")]
+    [InlineData("'--no-such-option' is not an option of forecast", "forecast", "--no-such-option")]
+    [InlineData("the input 'x.csv' was not found", "forecast", "demo-data-copy", "--running", "x.csv")]
+    [InlineData("--season 20 is not a year", "forecast", "--season", "20")]
+    public void A_command_line_that_is_not_understood_exits_2_before_any_work(string expected, params string[] args)
+    {
+        using var folder = new Scratch();
+        folder.Write("demo-data-copy/a.csv", "Lot,Yeast,Brix,Alcohol % v/v\n");
+        var (exit, output, error) = Cli.Run(folder.Root, args);
+        Assert.Equal(2, exit);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(expected, Cli.Flat(error), StringComparison.Ordinal);
+        Assert.False(Directory.Exists(Path.Combine(folder.Root, "yieldbench-forecast")));
+    }
+
+    [Fact]
+    public void A_folder_holding_the_users_own_files_is_not_written_into()
+    {
+        using var folder = new Scratch();
+        folder.Write("mine/notes.txt", "my notes");
+        var (exit, _, error) = Cli.Run(folder.Root, "forecast", "--out", "mine", "--quiet");
+        Assert.Equal(2, exit);
+        Assert.Contains("holds files this tool did not write", Cli.Flat(error), StringComparison.Ordinal);
+        Assert.Equal(["notes.txt"], Directory.GetFiles(Path.Combine(folder.Root, "mine")).Select(Path.GetFileName));
+    }
+
+    private sealed class Scratch : IDisposable
+    {
+        public string Root { get; } = Path.Combine(Path.GetTempPath(), "yb-fc-" + Guid.NewGuid().ToString("N"));
+
+        public void Write(string relative, string text)
+        {
+            string path = Path.Combine(Root, relative);
+            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
+            File.WriteAllText(path, text);
+        }
+
+        public void Dispose()
+        {
+            try
+            {
+                Directory.Delete(Root, recursive: true);
+            }
+            catch (IOException)
+            {
+            }
+        }
+    }
+}

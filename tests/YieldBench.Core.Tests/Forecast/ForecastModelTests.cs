@@ -1,0 +1,234 @@
+using YieldBench.Core.Forecast;
+using YieldBench.Core.Kinetics;
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Core.Tests.Forecast;
+
+public class ForecastModelTests
+{
+    private static readonly ForecastSettings Settings = ForecastSettings.Default;
+
+    [Theory]
+    [InlineData(SigmoidModel.Gompertz)]
+    [InlineData(SigmoidModel.Logistic)]
+    public void The_scaled_sigmoid_is_the_kinetics_codes_Zwietering_curve_divided_by_its_asymptote(SigmoidModel model)
+    {
+        // Given A = 25 °Brix, μm = 0.2 °Brix/h, λ = 12 h: κ = μm/A
+        double a = 25, mu = 0.2, lambda = 12;
+        foreach (double t in new[] { -5.0, 0, 12, 40, 90, 300 })
+        {
+            // Then h(t) = y(t)/A, and the time at a share inverts it
+            double y = ZwieteringFit.Evaluate(model, a, mu, lambda, t);
+            Assert.Equal(y / a, SigmoidShape.Value(model, mu / a, lambda, t), 12);
+            if (y / a is > 1e-9 and < 1 - 1e-9)
+            {
+                Assert.Equal(t, SigmoidShape.TimeAt(model, mu / a, lambda, y / a), 6);
+            }
+        }
+
+        // And the steepest slope of h is κ, at the steepest time
+        double steep = SigmoidShape.SteepestAt(model, mu / a, lambda);
+        Assert.Equal(mu / a, SigmoidShape.Slope(model, mu / a, lambda, steep), 12);
+        Assert.True(SigmoidShape.Slope(model, mu / a, lambda, steep + 1) < mu / a && SigmoidShape.Slope(model, mu / a, lambda, steep - 1) < mu / a);
+    }
+
+    [Fact]
+    public void A_whole_course_fit_recovers_the_start_the_end_the_rate_and_the_lag_of_a_synthetic_log()
+    {
+        // Given a synthetic log with known S0 24.6, F −1.9, μm 0.19 °Brix/h, λ 15 h and 0.15 °Brix of noise
+        var cellar = new SyntheticCellar(11);
+        var truth = new SyntheticCellar.Truth(24.6, -1.9, 0.19, 15, 19, 30);
+        var log = cellar.Log("T-1", 2030, truth, new DateTime(2030, 9, 1, 10, 0, 0), 1e9);
+        var course = LotCourses.FromHistory([cellar.Lot("T-1", 2030, "SX-1", WineColour.Red, truth, new DateTime(2030, 9, 1, 10, 0, 0))], [log])[0];
+
+        // When the modified Gompertz is fitted by variable projection
+        var fit = CourseFit.Fit(SigmoidModel.Gompertz, course.SugarHours, course.SugarBrix)!;
+
+        // Then each parameter comes back within what 0.15 °Brix of noise allows, and the residual is the noise
+        Assert.Equal(24.6, fit.StartBrix, 0.3);
+        Assert.Equal(-1.9, fit.FinalBrix, 0.3);
+        Assert.Equal(0.19, fit.MaxRateBrixPerHour, 0.012);
+        Assert.Equal(15, fit.LagHours, 2.5);
+        Assert.InRange(fit.Rmse, 0.08, 0.22);
+    }
+
+    [Fact]
+    public void The_model_learns_each_strains_rate_and_the_history_prefers_the_form_that_made_it()
+    {
+        // Given four seasons of a synthetic cellar whose courses are modified Gompertz curves
+        var cellar = new SyntheticCellar(3);
+        var (lots, logs, truths, _) = cellar.History(2020, 4, 36);
+        var past = LotCourses.FromHistory(lots, logs).Select(c => LoggedEvents.Read(c, Settings)).ToArray();
+
+        // When the form is chosen and the model trained
+        var (form, ratio) = ForecastRunner.ChooseForm(past, Settings);
+        var model = ForecastModel.Train(past, form, Settings);
+
+        // Then the Gompertz wins, and each strain's prior log rate is the mean log rate of its 48 lots, to 0.05
+        // (12 % scatter: the mean's sd is 0.02)
+        Assert.Equal(SigmoidModel.Gompertz, form);
+        Assert.True(ratio < 0);
+        foreach (var (strain, _, _, _, _) in SyntheticCellar.Strains)
+        {
+            var course = past.First(p => p.Course.Strain == strain).Course;
+            var prior = model.RatePriorFor(course);
+            double truth = lots.Where(l => l.Strain == strain).Average(l => Math.Log(truths[(l.Season, l.LotId)].Rate));
+            Assert.True(prior.OwnStrain);
+            Assert.True(Math.Abs(prior.LogMu - truth) < 0.05, $"{strain}: prior {prior.LogMu:0.000}, truth {truth:0.000}");
+        }
+
+        // And the reading noise is the 0.15 °Brix the logs were made with (rounded to 0.1 °Brix)
+        Assert.InRange(model.SugarSd, 0.13, 0.19);
+    }
+
+    [Fact]
+    public void The_interval_narrows_as_readings_arrive()
+    {
+        // Given the history and one new lot of a known strain
+        var (model, cellar) = Trained(5);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var whole = cellar.Log("30-001", 2030, truth, inoc, 1e9);
+        var running = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+
+        // When it is forecast after 1, 2, 3 and 4 readings (one-third comes near 60 h, after the fifth reading)
+        var widths = new List<double>();
+        foreach (int k in new[] { 1, 2, 3, 4 })
+        {
+            var cut = new FermentationLog("30-001", 2030, whole.Readings.Take(k).ToArray());
+            var course = LotCourses.FromRunning([running], [cut]);
+            var f = SeasonForecaster.Run(model, course, Settings, null, withCurves: false).Lots[0];
+            widths.Add(f.OneThirdHours!.Value.High - f.OneThirdHours.Value.Low);
+        }
+
+        // Then each reading narrows the 80 % interval of the one-third time
+        for (int i = 1; i < widths.Count; i++)
+        {
+            Assert.True(widths[i] < widths[i - 1], $"width after {i + 1} readings {widths[i]:0.0} h is not below {widths[i - 1]:0.0} h");
+        }
+
+        Assert.True(widths[^1] < 0.6 * widths[0]);
+    }
+
+    [Fact]
+    public void Intervals_hold_the_truth_about_80_percent_of_the_time_on_lots_drawn_from_a_known_prior()
+    {
+        // Given five seasons drawn from the model itself (season shifts of sd 0.10, lots scattered around their strain)
+        var cellar = new SyntheticCellar(17);
+        var (lots, logs, _, _) = cellar.History(2020, 5, 30);
+        var past = LotCourses.FromHistory(lots, logs).Select(c => LoggedEvents.Read(c, Settings)).ToArray();
+
+        // When each season is held out and its lots forecast after 2, 3, 4 and 6 readings
+        var result = ForecastBacktest.Run(past, SigmoidModel.Gompertz, Settings);
+
+        // Then the 80 % intervals hold the truth in about 80 % of cases (150 lots: a binomial sd of about 3 points)
+        foreach (var row in result.Rows.Where(r => r.Target is "one_third" or "dry"))
+        {
+            Assert.True(row.Coverage80 is >= 0.70 and <= 0.90, $"{row.Target} after {row.Readings}: coverage {row.Coverage80:0.00} ({string.Join(", ", result.Rows.Select(r => $"{r.Target}/{r.Readings} {r.Coverage80:0.00}"))})");
+        }
+
+        // And the forecast beats both baselines at every cut
+        Assert.All(result.Rows, r => Assert.True(r.Mae < r.BaselineLineMae && r.Mae < r.BaselineStrainMae, $"{r.Target} after {r.Readings}: {r.Mae:0.00} vs {r.BaselineLineMae:0.00} and {r.BaselineStrainMae:0.00}"));
+    }
+
+    [Fact]
+    public void A_running_lot_of_a_strain_the_history_lacks_gets_the_pooled_prior_a_wider_band_and_a_note()
+    {
+        // Given the history and two new lots with the same readings, one of a known strain and one of a strain never seen
+        var (model, cellar) = Trained(7);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.18, 16, 19, 30);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var whole = cellar.Log("x", 2030, truth, inoc, 1e9);
+        var cut = whole.Readings.Take(2).ToArray();
+        var known = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+        var unknown = known with { LotId = "30-002", Strain = "ZZ-9" };
+        var respelt = known with { LotId = "30-003", Strain = "sx 1" };
+
+        // When both are forecast (and the known strain once more under another spelling)
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [known, unknown, respelt], [new FermentationLog("30-001", 2030, cut), new FermentationLog("30-002", 2030, cut), new FermentationLog("30-003", 2030, cut)], Settings, model);
+
+        // Then the unknown strain stands on the pooled prior, with a wider interval, and a note says so
+        var (a, b) = (report.Lots[0], report.Lots[1]);
+        Assert.True(a.OwnStrainPrior);
+        Assert.False(b.OwnStrainPrior);
+        Assert.Equal(0, b.StrainLots);
+        Assert.True(b.OneThirdHours!.Value.High - b.OneThirdHours.Value.Low > a.OneThirdHours!.Value.High - a.OneThirdHours.Value.Low, $"{b.OneThirdHours} vs {a.OneThirdHours}");
+        Assert.Contains(report.Notes, n => n.LotId == "30-002" && n.Code == "pooled-prior" && n.Message.Contains("ZZ-9", StringComparison.Ordinal));
+
+        // And a strain written in another case or with other punctuation is the same strain (intake's spelling rule)
+        Assert.True(report.Lots[2].OwnStrainPrior);
+        Assert.Equal(a.OneThirdHours, report.Lots[2].OneThirdHours);
+    }
+
+    [Fact]
+    public void A_running_log_with_one_reading_and_a_lot_with_none_are_forecast_from_their_strain()
+    {
+        // Given a lot with one reading and one with no log at all
+        var (model, cellar) = Trained(9);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var one = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+        var none = one with { LotId = "30-002" };
+        var log = new FermentationLog("30-001", 2030, cellar.Log("30-001", 2030, truth, inoc, 1e9).Readings.Take(1).ToArray());
+
+        // When forecast
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [one, none], [log], Settings, model);
+
+        // Then both have finite one-third and dry times with intervals around them, the one reading counted
+        Assert.Equal(1, report.Lots[0].ReadingsUsed);
+        Assert.Equal(0, report.Lots[1].ReadingsUsed);
+        foreach (var f in report.Lots)
+        {
+            var third = f.OneThirdHours!.Value;
+            Assert.True(third.Low < third.Median && third.Median < third.High && double.IsFinite(third.High));
+            Assert.True(third.Median is > 30 and < 120, $"{f.Course.LotId}: {third}");
+        }
+
+        Assert.Contains(report.Notes, n => n.LotId == "30-002" && n.Code == "no-readings");
+    }
+
+    [Fact]
+    public void A_ferment_levelling_off_well_above_dry_gets_a_high_stuck_risk_and_an_ordinary_one_a_low_one()
+    {
+        // Given two lots after four days, one that will settle at 7 °Brix and one that finishes
+        var (model, cellar) = Trained(13);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var stuck = new SyntheticCellar.Truth(26, 7.0, 0.2, 12, 19, 30);
+        var fine = new SyntheticCellar.Truth(26, -1.8, 0.2, 12, 19, 30);
+        var lots = new[] { cellar.Running("30-001", 2030, "SX-1", WineColour.Red, stuck, inoc), cellar.Running("30-002", 2030, "SX-1", WineColour.Red, fine, inoc) };
+        var logs = new[] { cellar.Log("30-001", 2030, stuck, inoc, 100), cellar.Log("30-002", 2030, fine, inoc, 100) };
+
+        // When forecast
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], lots, logs, Settings, model);
+
+        // Then the first is called likely to stick, near where it settles, and the second not
+        Assert.True(report.Lots[0].StuckRisk > 0.5, $"stuck risk {report.Lots[0].StuckRisk:0.00}");
+        Assert.InRange(report.Lots[0].SettlesAtBrix, 5, 9);
+        Assert.True(report.Lots[1].StuckRisk < 0.1, $"stuck risk {report.Lots[1].StuckRisk:0.00}");
+    }
+
+    [Fact]
+    public void The_same_inputs_give_the_same_forecast()
+    {
+        var (model, cellar) = Trained(21);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var lot = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+        var log = cellar.Log("30-001", 2030, truth, inoc, 50);
+        var a = ForecastRunner.Run(Array.Empty<Lot>(), [], [lot], [log], Settings, model).Lots[0];
+        var b = ForecastRunner.Run(Array.Empty<Lot>(), [], [lot], [log], Settings, model).Lots[0];
+        Assert.Equal(a.OneThirdHours, b.OneThirdHours);
+        Assert.Equal(a.DryHours, b.DryHours);
+        Assert.Equal(a.PeakC, b.PeakC);
+        Assert.Equal(a.Curve.BrixMedian, b.Curve.BrixMedian);
+    }
+
+    /// <summary>A model trained on three seasons of a synthetic cellar, and the cellar to draw new lots from.</summary>
+    private static (ForecastModel Model, SyntheticCellar Cellar) Trained(int seed)
+    {
+        var cellar = new SyntheticCellar(seed);
+        var (lots, logs, _, _) = cellar.History(2020, 3, 30);
+        var past = LotCourses.FromHistory(lots, logs).Select(c => LoggedEvents.Read(c, Settings)).ToArray();
+        return (ForecastModel.Train(past, SigmoidModel.Gompertz, Settings), cellar);
+    }
+}
