@@ -20,6 +20,9 @@ internal sealed class SheetPlan(string name)
     /// <summary>Narrowest column, in width units.</summary>
     public const double MinColumnUnits = 5;
 
+    /// <summary>Width of a column added beside narrow tables so a paragraph has room, in width units.</summary>
+    public const double FillerColumnUnits = 10;
+
     /// <summary>Width a paragraph wraps within at least, px (about 100 characters).</summary>
     public const double ParagraphPixels = 760;
 
@@ -89,6 +92,19 @@ internal sealed class SheetPlan(string name)
     {
         ArgumentNullException.ThrowIfNull(ws);
         var widths = ColumnWidths(measure);
+        if (blocks.OfType<TextBlock>().Any())
+        {
+            // Paragraphs wrap across at least ParagraphPixels: a sheet whose tables are narrower gets columns of
+            // FillerColumnUnits beside them for its paragraphs, rather than paragraphs wrapped every few words.
+            var more = new List<double>(widths);
+            while (TextMeasure.TextPixels(more.Sum()) < ParagraphPixels)
+            {
+                more.Add(FillerColumnUnits);
+            }
+
+            widths = [.. more];
+        }
+
         for (int c = 0; c < widths.Length; c++)
         {
             ws.Column(c + 1).Width = widths[c];

@@ -114,14 +114,8 @@ public static class WorkbookWriter
         var measure = new TextMeasure();
         var pictureRows = new Dictionary<string, int>(StringComparer.Ordinal);
         byte[] laidOut;
-        using (var wb = new XLWorkbook())
+        using (var wb = NewWorkbook(review.Overview.Title))
         {
-            wb.Properties.Author = "YieldBench";
-            wb.Properties.Title = review.Overview.Title;
-            wb.Properties.Created = FixedTimestamp;
-            wb.Properties.Modified = FixedTimestamp;
-            wb.Style.Font.FontName = TextMeasure.FontName;
-            wb.Style.Font.FontSize = TextMeasure.BodySize;
             foreach (var plan in WorkbookSheets.All(review, tables))
             {
                 var ws = wb.Worksheets.Add(plan.Name);
@@ -150,6 +144,38 @@ public static class WorkbookWriter
         }
 
         return new LaidOutWorkbook(laidOut, streamed, pictureRows, lotsOrder);
+    }
+
+    /// <summary>
+    /// A workbook of <paramref name="sheets"/> alone (no pictures), laid out and finished as the review's is: the
+    /// workbook's font, fixed package properties, tables streamed, same input, same bytes.
+    /// </summary>
+    internal static byte[] Build(IEnumerable<SheetPlan> sheets, string title)
+    {
+        ArgumentNullException.ThrowIfNull(sheets);
+        var streamed = new StreamedTables();
+        var measure = new TextMeasure();
+        using var wb = NewWorkbook(title);
+        foreach (var plan in sheets)
+        {
+            plan.Render(wb.Worksheets.Add(plan.Name), streamed, measure);
+        }
+
+        using var ms = new MemoryStream();
+        wb.SaveAs(ms);
+        return Finish(ms.ToArray(), streamed, drawings: null);
+    }
+
+    private static XLWorkbook NewWorkbook(string title)
+    {
+        var wb = new XLWorkbook();
+        wb.Properties.Author = "YieldBench";
+        wb.Properties.Title = title;
+        wb.Properties.Created = FixedTimestamp;
+        wb.Properties.Modified = FixedTimestamp;
+        wb.Style.Font.FontName = TextMeasure.FontName;
+        wb.Style.Font.FontSize = TextMeasure.BodySize;
+        return wb;
     }
 
     /// <summary>The second half of writing: the pictures and native chart go in and the package is written to <paramref name="output"/> (seekable).</summary>
