@@ -27,7 +27,7 @@ public static class HeatBalance
     {
         ArgumentNullException.ThrowIfNull(settings);
         double density = FermentationHeat.MustDensityKgPerL(SugarReading.FromBrix(startBrix));
-        return FermentationHeat.PotentialRiseK(SugarPerBrix(startBrix, finalBrix), density, settings.HeatOfFermentationKjPerMol, settings.MustHeatCapacityKjPerKgK);
+        return FermentationHeat.PotentialRiseK(SugarPerBrix(startBrix, finalBrix), density, settings.HeatOfFermentationKjPerMol, settings.MustHeatCapacityAt(startBrix));
     }
 
     /// <summary>The rise still possible with no heat removed from a reading of <paramref name="brixNow"/> down to F, K.</summary>

@@ -12,7 +12,7 @@ public static class KineticsFollowUps
 {
     /// <summary>Kinetics flag codes that become follow-up items, in report order.</summary>
     public static IReadOnlyList<string> Codes { get; } =
-        ["stuck", "sluggish", "above-danger-temp", "above-caution-temp", "not-dry-at-log-end"];
+        [KineticsCodes.Stuck, KineticsCodes.Sluggish, KineticsCodes.AboveDangerTemp, KineticsCodes.AboveCautionTemp, KineticsCodes.NotDryAtLogEnd];
 
     /// <summary>
     /// One item per lot and follow-up code, lots in the review's order and codes in <see cref="Codes"/> order. Severity
@@ -57,15 +57,15 @@ public static class KineticsFollowUps
         const string Cooling = "Check cooling capacity and cap management for this vessel before next harvest; fermentation heat and CO2 in the cellar are hazards — ventilate and follow local safety rules.";
         var (severity, measure, value, reference, threshold, followUp) = code switch
         {
-            "stuck" => (FlagSeverity.Check, "rate_brix_per_day", k.Stuck?.MeanRateBrixPerDay ?? double.NaN, "stuck rule", s.StuckRateBrixPerDay,
+            KineticsCodes.Stuck => (FlagSeverity.Check, "rate_brix_per_day", k.Stuck?.MeanRateBrixPerDay ?? double.NaN, "stuck rule", s.StuckRateBrixPerDay,
                 "Taste and measure sugar now; check temperature, nutrients (YAN) and cap. " + CheckFinish),
-            "sluggish" => (FlagSeverity.Note, "rate_brix_per_day", k.Sluggish?.MeanRateBrixPerDay ?? double.NaN, "sluggish rule", s.SluggishRateFor(k.Lot.Colour),
+            KineticsCodes.Sluggish => (FlagSeverity.Note, "rate_brix_per_day", k.Sluggish?.MeanRateBrixPerDay ?? double.NaN, "sluggish rule", s.SluggishRateFor(k.Lot.Colour),
                 "Watch the lot until dry; check temperature and nutrients (YAN). " + CheckFinish),
-            "above-danger-temp" => (FlagSeverity.Check, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "danger temperature", k.Thresholds.DangerC,
+            KineticsCodes.AboveDangerTemp => (FlagSeverity.Check, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "danger temperature", k.Thresholds.DangerC,
                 Cooling + " " + CheckFinish),
-            "above-caution-temp" => (FlagSeverity.Note, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "caution temperature", k.Thresholds.CautionC,
+            KineticsCodes.AboveCautionTemp => (FlagSeverity.Note, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "caution temperature", k.Thresholds.CautionC,
                 Cooling),
-            "not-dry-at-log-end" => (FlagSeverity.Check, "final_brix", k.FinalBrix, "dry reading", s.DryBrix,
+            KineticsCodes.NotDryAtLogEnd => (FlagSeverity.Check, "final_brix", k.FinalBrix, "dry reading", s.DryBrix,
                 CheckFinish),
             _ => throw new ArgumentOutOfRangeException(nameof(code), code, "Not a kinetics follow-up code."),
         };

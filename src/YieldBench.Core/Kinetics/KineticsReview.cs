@@ -48,6 +48,16 @@ public enum RateMethod
     LocalLinearFit,
 }
 
+/// <summary>What one-third depletion is measured from.</summary>
+public enum OneThirdBasis
+{
+    /// <summary>The lot's effective starting sugar as its record gives it (after additions).</summary>
+    LotRecord,
+
+    /// <summary>The log's first sugar reading (the lot record gave no usable starting sugar).</summary>
+    FirstReading,
+}
+
 /// <summary>Where the analysis's time zero was taken.</summary>
 public enum TimeOrigin
 {
@@ -161,20 +171,38 @@ public sealed record LotKinetics
     /// <summary>Starting sugar: the first sugar reading, °Brix.</summary>
     public required double StartingBrix { get; init; }
 
+    /// <summary>The lot's effective starting sugar (after additions) as its record gives it, °Brix; null when not usable.</summary>
+    public double? LotStartingBrix { get; init; }
+
     /// <summary>Lag, h: from the origin to the first time the sugar falls <see cref="KineticsSettings.LagDropBrix"/> below the start and stays there.</summary>
     public double? LagHours { get; init; }
 
     /// <summary>When the lag ended.</summary>
     public DateTime? LagEnd { get; init; }
 
-    /// <summary>°Brix at which one-third of the starting °Brix is gone (two-thirds of the start).</summary>
+    /// <summary>What one-third depletion is measured from: the lot's recorded starting sugar, or (without one) the first reading.</summary>
+    public required OneThirdBasis OneThirdBasis { get; init; }
+
+    /// <summary>
+    /// °Brix at which one-third of the starting sugar is gone (two-thirds of the start), the start being the lot's
+    /// effective starting sugar from its record (<see cref="OneThirdBasis"/>).
+    /// </summary>
     public required double OneThirdBrix { get; init; }
 
-    /// <summary>When one-third of the starting sugar was gone (interpolated).</summary>
+    /// <summary>When one-third of the starting sugar was gone (interpolated; the first reading's time when it was already lower).</summary>
     public DateTime? OneThirdAt { get; init; }
 
     /// <summary>Hours from the origin to one-third depletion.</summary>
     public double? OneThirdHours { get; init; }
+
+    /// <summary>°Brix at which one-third of the first reading is gone (the earlier basis, kept for comparison).</summary>
+    public required double OneThirdFirstReadingBrix { get; init; }
+
+    /// <summary>When one-third of the first reading was gone (interpolated).</summary>
+    public DateTime? OneThirdFirstReadingAt { get; init; }
+
+    /// <summary>Hours from the origin to one-third of the first reading gone.</summary>
+    public double? OneThirdFirstReadingHours { get; init; }
 
     /// <summary>When the sugar first reached the dry reading (interpolated); null when not reached.</summary>
     public DateTime? DryAt { get; init; }
@@ -212,7 +240,11 @@ public sealed record LotKinetics
     /// </summary>
     public StallEpisode? Stuck { get; init; }
 
-    /// <summary>A stretch meeting the stuck rule after which the lot still finished (dry later in the log, or a dry lab residual sugar).</summary>
+    /// <summary>
+    /// A stretch meeting the stuck rule after which the ferment picked up again at a normal pace
+    /// (<see cref="KineticsSettings.RestartRateBrixPerDay"/>) and the lot finished (dry later in the log, or a dry lab
+    /// residual sugar). A slow end that only slowed further is neither this nor stuck.
+    /// </summary>
     public StallEpisode? StalledThenFinished { get; init; }
 
     /// <summary>Heat potential at every sugar reading with a temperature.</summary>

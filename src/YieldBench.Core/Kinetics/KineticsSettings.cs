@@ -36,11 +36,11 @@ public sealed record KineticsSettings
     /// <summary>Thresholds for whites and rosés (default 20 / 25 °C).</summary>
     public TemperatureThresholds WhiteThresholds { get; init; } = new(20.0, 25.0);
 
-    /// <summary>Sluggish: mean rate below this over <see cref="SluggishHours"/>, °Brix/day (default 1.0).</summary>
-    public double SluggishRateBrixPerDay { get; init; } = 1.0;
+    /// <summary>Sluggish: mean rate below this over <see cref="SluggishHours"/>, °Brix/day (default 0.5: half the low end of a normal rate).</summary>
+    public double SluggishRateBrixPerDay { get; init; } = 0.5;
 
-    /// <summary>Sluggish rate threshold for whites and rosés, which run cooler and slower, °Brix/day (default 0.5).</summary>
-    public double WhiteSluggishRateBrixPerDay { get; init; } = 0.5;
+    /// <summary>Sluggish rate threshold for whites and rosés, which run cooler and slower, °Brix/day (default 0.25).</summary>
+    public double WhiteSluggishRateBrixPerDay { get; init; } = 0.25;
 
     /// <summary>Sluggish only while the sugar stays above this, °Brix (default 5).</summary>
     public double SluggishAboveBrix { get; init; } = 5.0;
@@ -57,14 +57,27 @@ public sealed record KineticsSettings
     /// <summary>Window over which the stuck rule is judged, h (default 72).</summary>
     public double StuckHours { get; init; } = 72.0;
 
+    /// <summary>
+    /// A stall counts as stalled-then-finished only when, after it, the sugar fell at least this fast over a window of
+    /// <see cref="StuckHours"/> — the ferment came back to a normal pace — before it finished, °Brix/day (default 1.0,
+    /// the low end of a normal white rate). A slow tail that only slows further is not a stall.
+    /// </summary>
+    public double RestartRateBrixPerDay { get; init; } = 1.0;
+
     /// <summary>Residual sugar above which the finished wine is not dry, g/L (default 4, the OIV limit for dry).</summary>
     public double DryResidualSugarGl { get; init; } = 4.0;
 
     /// <summary>Heat released per mole of hexose fermented, kJ/mol (default 100.4, Colombié et al. 2007).</summary>
     public double HeatOfFermentationKjPerMol { get; init; } = FermentationHeat.DefaultHeatOfFermentationKjPerMol;
 
-    /// <summary>Specific heat capacity of the must, kJ/(kg·K) (default 3.9, within Geankoplis' 3.73–4.02 for juices).</summary>
-    public double MustHeatCapacityKjPerKgK { get; init; } = FermentationHeat.DefaultMustHeatCapacityKjPerKgK;
+    /// <summary>
+    /// Specific heat capacity of the must, kJ/(kg·K), when fixed by the user; null (the default) takes it from the
+    /// must's °Brix by <see cref="FermentationHeat.MustHeatCapacityKjPerKgK"/> (about 3.5–3.7 at 20–26 °Brix).
+    /// </summary>
+    public double? MustHeatCapacityKjPerKgK { get; init; }
+
+    /// <summary>The must's specific heat at <paramref name="brix"/> °Brix, kJ/(kg·K): the fixed value when one is set, else from its composition.</summary>
+    public double MustHeatCapacityAt(double brix) => MustHeatCapacityKjPerKgK ?? FermentationHeat.MustHeatCapacityKjPerKgK(brix);
 
     /// <summary>A sugar reading takes the temperature interpolated between temperature readings at most this far away, h (default 6).</summary>
     public double TemperaturePairingHours { get; init; } = 6.0;
@@ -107,7 +120,12 @@ public sealed record KineticsSettings
         Positive(StuckRateBrixPerDay, nameof(StuckRateBrixPerDay));
         Positive(StuckHours, nameof(StuckHours));
         Positive(HeatOfFermentationKjPerMol, nameof(HeatOfFermentationKjPerMol));
-        Positive(MustHeatCapacityKjPerKgK, nameof(MustHeatCapacityKjPerKgK));
+        if (MustHeatCapacityKjPerKgK is { } cp)
+        {
+            Positive(cp, nameof(MustHeatCapacityKjPerKgK));
+        }
+
+        Positive(RestartRateBrixPerDay, nameof(RestartRateBrixPerDay));
         Positive(TemperaturePairingHours, nameof(TemperaturePairingHours));
         Positive(MinConsumedBrixForFit, nameof(MinConsumedBrixForFit));
         Positive(SugarRiseBrix, nameof(SugarRiseBrix));

@@ -65,7 +65,7 @@ public static class MethodsTable
         if (review.Kinetics is { } k)
         {
             var s = k.Settings;
-            t.Add(["Fermentation heat", $"rise (K) = remaining sugar (g/L) ÷ density × {s.HeatOfFermentationKjPerMol.ToString("0.0", CultureInfo.InvariantCulture)} kJ/mol ÷ 180.16 g/mol ÷ {s.MustHeatCapacityKjPerKgK.ToString("0.00", CultureInfo.InvariantCulture)} kJ/(kg·K)", "Colombié, Malherbe & Sablayrolles 2007, Food Control 18:953 (≈24 kcal/mol); Geankoplis, Transport Processes, App. A.4-1 (cp of juices)"]);
+            t.Add(["Fermentation heat", $"rise (K) = remaining sugar (g/L) ÷ density × {s.HeatOfFermentationKjPerMol.ToString("0.0", CultureInfo.InvariantCulture)} kJ/mol ÷ 180.16 g/mol ÷ {(s.MustHeatCapacityKjPerKgK is { } cp ? cp.ToString("0.00", CultureInfo.InvariantCulture) + " kJ/(kg·K) (set)" : "cp of the must at its °Brix (3.66 at 20 °Brix, 3.56 at 24 kJ/(kg·K))")}", "Colombié, Malherbe & Sablayrolles 2007, Food Control 18:953 (≈24 kcal/mol); cp by the composition model of Choi & Okos 1986 (water and carbohydrate at the must's °Brix)"]);
             t.Add(["Sugar curves", "Modified Gompertz and logistic of sugar consumed against time, Levenberg–Marquardt", "Zwietering et al. 1990, Appl Environ Microbiol 56:1875"]);
         }
 
@@ -100,7 +100,8 @@ public static class MethodsTable
         t.Add(["Sluggish: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.SluggishRateBrixPerDay) + " / " + F(k.SluggishAboveBrix) + " / " + F(k.SluggishHours)]);
         t.Add(["Stuck: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.StuckRateBrixPerDay) + " / " + F(k.StuckAboveBrix) + " / " + F(k.StuckHours)]);
         t.Add(["Heat of fermentation (kJ/mol sugar)", F(k.HeatOfFermentationKjPerMol)]);
-        t.Add(["Must heat capacity (kJ/(kg·K))", F(k.MustHeatCapacityKjPerKgK)]);
+        t.Add(["Must heat capacity (kJ/(kg·K))", k.MustHeatCapacityKjPerKgK is { } cpSet ? F(cpSet) : "from the must's °Brix (Choi & Okos 1986)"]);
+        t.Add(["Stall restarted: rate at least (°Brix/day) over the stuck window", F(k.RestartRateBrixPerDay)]);
         return t;
     }
 

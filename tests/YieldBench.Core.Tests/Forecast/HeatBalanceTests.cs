@@ -28,10 +28,12 @@ public class HeatBalanceTests
         // Given the same must, read at 12 °Brix
         // By hand: sugar still to ferment = 9.14615 g/L per °Brix × (12 − (−2)) = 128.046 g/L; heat = 128.046 / 180.16 ×
         // 100.4 = 71.357 kJ per litre; the litre's mass is the must's density at 24 °Brix, SG 1.10103 by the NBS cubic
-        // (1.10101 in Zoecklein et al., Appendix I) × 0.99820 = 1.09905 kg; its heat capacity the kinetics default; the
+        // (1.10101 in Zoecklein et al., Appendix I) × 0.99820 = 1.09905 kg; its heat capacity the kinetics default at the
+        // must's 24 °Brix (Choi & Okos composition model: 0.76 × 4.17657 + 0.24 × 1.58567 = 3.55476 kJ/(kg·K)); the
         // rise is heat ÷ (mass × cp).
         double density = SugarReading.FromBrix(24.0).SpecificGravity * 0.99820;
-        double cp = Kinetics.MustHeatCapacityKjPerKgK;
+        double cp = Kinetics.MustHeatCapacityAt(24.0);
+        Assert.Equal(3.55476, cp, 5);
         double byHand = 237.8 / 26 * 14 / 180.16 * 100.4 / (density * cp);
 
         // Then the forecast's reachable rise is that, and per °Brix it is a fourteenth of it
@@ -51,6 +53,6 @@ public class HeatBalanceTests
         double density = FermentationHeat.MustDensityKgPerL(SugarReading.FromBrix(24.0));
 
         // Then the two heat balances are one
-        Assert.Equal(FermentationHeat.PotentialRiseK(perBrixGl, density, Kinetics.HeatOfFermentationKjPerMol, Kinetics.MustHeatCapacityKjPerKgK), HeatBalance.AdiabaticRisePerBrix(24.0, -2.0, Kinetics), 12);
+        Assert.Equal(FermentationHeat.PotentialRiseK(perBrixGl, density, Kinetics.HeatOfFermentationKjPerMol, Kinetics.MustHeatCapacityAt(24.0)), HeatBalance.AdiabaticRisePerBrix(24.0, -2.0, Kinetics), 12);
     }
 }

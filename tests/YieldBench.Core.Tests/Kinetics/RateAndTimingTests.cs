@@ -69,6 +69,27 @@ public class RateAndTimingTests
     }
 
     [Fact]
+    public void One_third_depletion_is_measured_from_the_lots_starting_sugar_and_from_the_first_reading_beside_it()
+    {
+        // Given a lot whose record gives 25.5 °Brix, logged from a first reading of 24.0 °Brix (taken after the sugar had
+        // started to fall)
+        var review = KineticsAnalysis.Run([Lot(startingBrix: 25.5)], [Log("T-101", 2025, Rows)], KineticsSettings.Default);
+        var lot = Assert.Single(review.Lots);
+
+        // When one-third is measured from the lot's 25.5: two-thirds is 17.0 °Brix, between 19.5 (1 Oct 20:00) and 15.0
+        // (2 Oct 08:00): (19.5 − 17) / 4.5 × 12 h = 6.667 h after 20:00, 30.667 h after the first reading; from the first
+        // reading, 16.0 °Brix at 33.333 h as before (hand-worked)
+        // Then both are given, the lot's first, 2.67 h earlier
+        Assert.Equal(OneThirdBasis.LotRecord, lot.OneThirdBasis);
+        Assert.Equal(25.5, lot.LotStartingBrix);
+        Assert.Equal(17.0, lot.OneThirdBrix, 9);
+        Assert.Equal(30.0 + (2.0 / 3.0), lot.OneThirdHours!.Value, 6);
+        Assert.Equal(16.0, lot.OneThirdFirstReadingBrix, 9);
+        Assert.Equal(33.0 + (1.0 / 3.0), lot.OneThirdFirstReadingHours!.Value, 6);
+        Assert.Equal(24.0, lot.StartingBrix);
+    }
+
+    [Fact]
     public void Time_to_dryness_is_interpolated_to_the_dry_reading()
     {
         // Given the log falls from 5.0 (3 Oct 08:00) to −0.5 °Brix (4 Oct 08:00)

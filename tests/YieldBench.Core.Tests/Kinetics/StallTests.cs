@@ -90,15 +90,32 @@ public class StallTests
         // When analysed
         var review = KineticsAnalysis.Run([Lot()], [log], KineticsSettings.Default);
 
-        // Then the stall (day 3 → day 6, 0.2 °Brix in 72 h) is reported as stalled-then-finished, not stuck; dryness is
-        // reached (hand-worked) 0.5 / 1.5 × 24 h = 8 h after day 9, i.e. 10 October 16:00
+        // Then the stall (day 3 → day 6, 0.2 °Brix in 72 h) is reported as stalled-then-finished, not stuck: after it the
+        // ferment picked up again, fastest over 72 h from day 7 to day 10 (5.8 → −1.0 °Brix, 2.27 °Brix/day, above the
+        // 1.0 restart rate); dryness is reached (hand-worked) 0.5 / 1.5 × 24 h = 8 h after day 9, i.e. 10 October 16:00
         var lot = Assert.Single(review.Lots);
         Assert.Null(lot.Stuck);
         Assert.Equal(Day0.AddDays(6), lot.StalledThenFinished!.End);
-        Assert.Contains("stalled-then-finished", lot.Flags);
-        Assert.DoesNotContain("stuck", lot.Flags);
-        var f = Assert.Single(review.Findings, x => x.Code == "stalled-then-finished");
-        Assert.Contains("then the log reached 0.0 °Brix afterwards (2025-10-10 16:00), so it is not counted as stuck.", f.Message);
+        Assert.Contains(KineticsCodes.StalledThenFinished, lot.Flags);
+        Assert.DoesNotContain(KineticsCodes.Stuck, lot.Flags);
+        var f = Assert.Single(review.Findings, x => x.Code == KineticsCodes.StalledThenFinished);
+        Assert.Contains("then it picked up again (2.27 °Brix/day over 72 h) and the log reached 0.0 °Brix afterwards (2025-10-10 16:00), so it is not counted as stuck.", f.Message);
+    }
+
+    [Fact]
+    public void A_slow_end_that_only_slows_further_is_neither_stuck_nor_stalled()
+    {
+        // Given a white whose tail slows as its sugar runs out — 0.9 → 0.25 °Brix over days 7–10 (0.22 °Brix/day, under the
+        // stall rate) — and then reaches dry without ever picking up again
+        var log = Regular("T-101", 2025, Day0, 24.0, [22.0, 18.0, 14.0, 10.0, 6.0, 3.0, 1.5, 0.9, 0.6, 0.4, 0.25, 0.1, -0.1]);
+
+        // When analysed
+        var lot = Assert.Single(KineticsAnalysis.Run([Lot(colour: YieldBench.Core.Lots.WineColour.White, residualSugarGl: 1.2)], [log], KineticsSettings.Default).Lots);
+
+        // Then nothing is flagged: a tail is not a stall
+        Assert.Null(lot.Stuck);
+        Assert.Null(lot.StalledThenFinished);
+        Assert.Empty(lot.Flags);
     }
 
     [Fact]
@@ -110,26 +127,27 @@ public class StallTests
         // When analysed
         var lot = Assert.Single(KineticsAnalysis.Run([Lot(residualSugarGl: 2.1)], [log], KineticsSettings.Default).Lots);
 
-        // Then the lot finished after the log ended: not stuck
+        // Then the lot finished after the log ended: not stuck, and with no restart seen not stalled-then-finished either
         Assert.Null(lot.Stuck);
-        Assert.NotNull(lot.StalledThenFinished);
+        Assert.Null(lot.StalledThenFinished);
+        Assert.DoesNotContain(KineticsCodes.Stuck, lot.Flags);
     }
 
     [Fact]
     public void Whites_are_judged_sluggish_against_their_own_lower_rate()
     {
-        // Given a slow ferment running at 0.8 °Brix/day above 5 °Brix, after a peak of 2 °Brix/day
-        var brix = new[] { 22.0, 21.0, 19.0, 17.0, 16.2, 15.4, 14.6, 13.8 };
+        // Given a slow ferment running at 0.4 °Brix/day above 5 °Brix, after a peak of 2 °Brix/day
+        var brix = new[] { 22.0, 21.0, 19.0, 17.0, 16.6, 16.2, 15.8, 15.4 };
         var settings = KineticsSettings.Default;
 
         // When analysed as a red and as a white lot
         var red = Assert.Single(KineticsAnalysis.Run([Lot(startingBrix: 22)], [Regular("T-101", 2025, Day0, 24.0, brix)], settings).Lots);
         var white = Assert.Single(KineticsAnalysis.Run([Lot(colour: YieldBench.Core.Lots.WineColour.White, startingBrix: 22)], [Regular("T-101", 2025, Day0, 24.0, brix)], settings).Lots);
 
-        // Then only the red is sluggish: 0.8 is under the red threshold of 1.0 but not under the white 0.5
-        Assert.Equal(0.8, red.Sluggish!.MeanRateBrixPerDay, 9);
+        // Then only the red is sluggish: 0.4 is under the red threshold of 0.5 but not under the white 0.25
+        Assert.Equal(0.4, red.Sluggish!.MeanRateBrixPerDay, 9);
         Assert.Null(white.Sluggish);
-        Assert.Equal(0.5, settings.SluggishRateFor(YieldBench.Core.Lots.WineColour.Rose));
+        Assert.Equal(0.25, settings.SluggishRateFor(YieldBench.Core.Lots.WineColour.Rose));
     }
 
     [Fact]
