@@ -115,9 +115,9 @@ internal static class UsageChecks
 
         if (File.Exists(full))
         {
-            if (SourceLength(full) == 0 && !IsOwnFile(full, ownHeader))
+            if (SourceLength(full) == 0)
             {
-                return $"{command}: {option} '{Shown(shown)}' is not an ordinary file; give a file name.";
+                return $"{command}: {option} '{Shown(shown)}' is an empty file or not an ordinary one (a device such as /dev/null); give a new file name.";
             }
 
             if (!IsOwnFile(full, ownHeader))

@@ -170,6 +170,7 @@ internal static class ReviewCommand
         warmUp.GetAwaiter().GetResult();
         try
         {
+            console.ShowPathAs(outFolder, request.Output);
             ReportWriter.Write(review, outFolder, new Progress(console), console.SummaryWriter);
         }
         catch (ReportFolderException e)
@@ -299,6 +300,12 @@ internal sealed class ConsoleReport(CliContext context, bool quiet)
     /// <summary>Where the report's console part prints its summary: the output (once the progress line is cleared), or nowhere with --quiet.</summary>
     public TextWriter? SummaryWriter => quiet ? null : new ClearingWriter(this);
 
+    /// <summary>A full path the summary prints, and how the user gave it (shown instead).</summary>
+    public (string Full, string Shown)? PathShown { get; private set; }
+
+    /// <summary>Makes the summary show <paramref name="full"/> as the user gave it.</summary>
+    public void ShowPathAs(string full, string shown) => PathShown = (full, UsageChecks.Shown(shown));
+
     private void Clear()
     {
         if (context.IsTerminal && width > 0)
@@ -367,7 +374,14 @@ internal sealed class ClearingWriter(ConsoleReport console) : TextWriter
             cleared = true;
         }
 
-        TextWrap.WriteLine(console.Out, line.ToString());
+        string text = line.ToString();
+        if (console.PathShown is var (full, shown))
+        {
+            // Paths as the user gave them (relative to where they stand), not as resolved.
+            text = text.Replace(full, shown, StringComparison.Ordinal);
+        }
+
+        TextWrap.WriteLine(console.Out, text);
         line.Clear();
     }
 }

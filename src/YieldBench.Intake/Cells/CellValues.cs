@@ -403,7 +403,16 @@ internal static partial class CellValues
     /// </summary>
     public static string? WithoutZone(string text)
     {
-        var m = ZoneAfterTime().Match(text.Trim());
+        // A zone is a 'Z', 'UTC' or a signed offset at the end: text whose last six characters hold none of them
+        // (every plain timestamp) is not matched against the expression.
+        string t = text.Trim();
+        var tail = t.AsSpan(Math.Max(0, t.Length - 6));
+        if (!tail.EndsWith("Z") && !tail.EndsWith("UTC") && tail.IndexOfAny('+', '-') < 0)
+        {
+            return null;
+        }
+
+        var m = ZoneAfterTime().Match(t);
         return m.Success ? m.Groups["local"].Value : null;
     }
 

@@ -86,7 +86,7 @@ internal static partial class LogJoin
             }
         }
 
-        foreach (var log in logs.Where(l => Matched(l) && l.Readings.Select(r => r.Timestamp).Distinct().Count() < 2))
+        foreach (var log in logs.Where(l => Matched(l) && l.Readings.All(r => r.Timestamp == l.Readings[0].Timestamp)))
         {
             var first = log.Readings[0].Source!;
             run.Sink.Warning(first.File, first.Sheet, first.Row, null, log.LotId, IssueCodes.LogTooShort, IntakeMessages.LogTooShort(log.Name, log.Readings.Count));
@@ -109,14 +109,17 @@ internal static partial class LogJoin
     /// </summary>
     private static List<FermentationLog> DropImplausibleDates(IntakeRun run, List<FermentationLog> logs, List<(string LotId, int Season, SourceRef? Source)> recorded)
     {
-        var seasonsById = recorded.ToLookup(l => l.LotId, l => l.Season, StringComparer.Ordinal);
+        ILookup<string, int>? seasonsById = null;
         var kept = new List<FermentationLog>(logs.Count);
         foreach (var log in logs)
         {
-            int[] seasons = log.Season is { } s ? [s] : seasonsById[log.LotId].ToArray();
-            DateTime middle = log.Readings.Select(r => r.Timestamp).Order().ElementAt(log.Readings.Count / 2);
+            // The seasons the log may belong to: its own, or those of the lots of its id; none for a log of no lot.
+            int[] seasons = log.Season is { } s ? [s]
+                : (seasonsById ??= recorded.ToLookup(l => l.LotId, l => l.Season, StringComparer.Ordinal))[log.LotId].ToArray();
+            DateTime middle = seasons.Length > 0 ? default : log.Readings.Select(r => r.Timestamp).Order().ElementAt(log.Readings.Count / 2);
+            int first = seasons.Length > 0 ? seasons.Min() - 1 : 0, last = seasons.Length > 0 ? seasons.Max() + 1 : 0;
             bool Plausible(DateTime t) => seasons.Length > 0
-                ? t.Year >= seasons.Min() - 1 && t.Year <= seasons.Max() + 1
+                ? t.Year >= first && t.Year <= last
                 : Math.Abs((t - middle).TotalDays) <= MaxDaysFromLogMiddle;
             if (log.Readings.All(r => Plausible(r.Timestamp)))
             {
