@@ -33,11 +33,17 @@ public static class ReportWriter
         /// <summary>Odd-lot flags.</summary>
         public const string Flags = "data/flags.csv";
 
+        /// <summary>One row per lot to look at (the Follow-up sheet).</summary>
+        public const string FollowUp = "data/follow-up.csv";
+
         /// <summary>Intake issues.</summary>
         public const string IntakeIssues = "data/intake-issues.csv";
 
         /// <summary>Kinetics per lot (when logs were read).</summary>
         public const string Kinetics = "data/" + KineticsCsv.FileName;
+
+        /// <summary>Every kinetics finding with its details and log row (when logs were read).</summary>
+        public const string KineticsFindings = "data/kinetics-findings.csv";
 
         /// <summary>The house-factor section, which <c>yieldbench plan --factor-file</c> reads back.</summary>
         public const string HouseFactor = "data/" + HouseFactorJson.FileName;

@@ -58,9 +58,9 @@ public static class KineticsFollowUps
         var (severity, measure, value, reference, threshold, followUp) = code switch
         {
             KineticsCodes.Stuck => (FlagSeverity.Check, "rate_brix_per_day", k.Stuck?.MeanRateBrixPerDay ?? double.NaN, "stuck rule", s.StuckRateBrixPerDay,
-                "Taste and measure sugar now; check temperature, nutrients (YAN) and cap; " + CheckFinish),
+                "Taste and measure sugar now; check temperature, nutrients (YAN) and cap. " + CheckFinish),
             KineticsCodes.Sluggish => (FlagSeverity.Note, "rate_brix_per_day", k.Sluggish?.MeanRateBrixPerDay ?? double.NaN, "sluggish rule", s.SluggishRateFor(k.Lot.Colour),
-                "Watch the lot until dry; check temperature and nutrients (YAN); " + CheckFinish),
+                "Watch the lot until dry; check temperature and nutrients (YAN). " + CheckFinish),
             KineticsCodes.AboveDangerTemp => (FlagSeverity.Check, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "danger temperature", k.Thresholds.DangerC,
                 Cooling + " " + CheckFinish),
             KineticsCodes.AboveCautionTemp => (FlagSeverity.Note, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "caution temperature", k.Thresholds.CautionC,

@@ -198,7 +198,8 @@ public static class LotFindings
         FlagCodes.PossibleTransposedDigits => "Check the starting sugar in the original harvest or crush record.",
         FlagCodes.ImplausibleFactor => "Re-check the starting sugar and re-run the alcohol analysis on a fresh sample.",
         FlagCodes.PossibleStrainMixUp => "Confirm the strain in the inoculation records.",
-        _ => FirstSentence(f.FollowUp),
+        // The kinetics follow-ups and the rest are kept whole: they carry the heat and CO2 cautions and the restart advice.
+        _ => Sentence(f.FollowUp),
     };
 
     private static string SymptomExplanation(bool low) => low
@@ -209,11 +210,9 @@ public static class LotFindings
         ? "Re-check the starting-sugar sampling; if it was sound, look for unrecorded water and re-run the alcohol analysis."
         : "Re-check the starting-sugar sampling; if it was sound, look for unrecorded sugar and re-run the alcohol analysis.";
 
-    private static string FirstSentence(string text)
+    private static string Sentence(string text)
     {
-        int semicolon = text.IndexOf("; ", StringComparison.Ordinal);
-        string first = semicolon > 0 ? text[..semicolon] : text;
-        first = first.TrimEnd('.', ' ');
-        return first.Length == 0 ? first : char.ToUpperInvariant(first[0]) + first[1..] + ".";
+        string t = text.Trim().TrimEnd('.');
+        return t.Length == 0 ? t : char.ToUpperInvariant(t[0]) + t[1..] + ".";
     }
 }

@@ -1,4 +1,5 @@
 using YieldBench.Core.HouseFactor;
+using YieldBench.Core.Kinetics;
 using YieldBench.Core.Review.Strains;
 
 namespace YieldBench.Core.Review;
@@ -38,17 +39,29 @@ public static class ReviewTexts
         FlagCodes.PossibleTransposedDigits => "starting sugar may have two digits swapped",
         FlagCodes.PossibleUnrecordedWater => "water may have been added unrecorded",
         FlagCodes.PossibleStrainMixUp => "may have been fermented by another strain",
-        "stuck" => "stuck ferment",
-        "sluggish" => "sluggish ferment",
-        "stalled-then-finished" => "stalled, then finished",
-        "not-dry-at-log-end" => "not dry when its log ended",
-        "above-danger-temp" => "above the danger temperature",
-        "above-caution-temp" => "above the caution temperature",
-        "out-of-order-timestamp" => "log readings out of time order",
-        "duplicate-timestamp" => "two log readings at one time",
-        "sugar-rose" => "sugar rose between readings",
+        KineticsCodes.Stuck => "stuck ferment",
+        KineticsCodes.Sluggish => "sluggish ferment",
+        KineticsCodes.StalledThenFinished => "stalled, then finished",
+        KineticsCodes.NotDryAtLogEnd => "not dry when its log ended",
+        KineticsCodes.AboveDangerTemp => "above the danger temperature",
+        KineticsCodes.AboveCautionTemp => "above the caution temperature",
+        KineticsCodes.OutOfOrderTimestamp => "log readings out of time order",
+        KineticsCodes.DuplicateTimestamp => "two log readings at one time",
+        KineticsCodes.SugarRose => "sugar rose between readings",
+        KineticsCodes.HeatPotentialAboveDanger => "could have passed the danger temperature without cooling",
+        KineticsCodes.DropBeforeInoculation => "sugar fell before the recorded inoculation",
+        KineticsCodes.TooFewSugarReadings => "too few sugar readings to analyse",
+        KineticsCodes.NoSigmoidFit => "no fermentation curve could be fitted",
+        KineticsCodes.SeveralLogsForLot => "several logs for one lot",
+        KineticsCodes.LogWithoutLot => "a log that matches no lot",
+        KineticsCodes.LogMatchesSeveralLots => "a log that matches several lots",
+        "no-log" => "no fermentation log",
         _ => code,
     };
+
+    /// <summary>A p-value as reports print it: four decimals, or "&lt; 0.0001" below that (never "0.0000").</summary>
+    public static string P(double p) =>
+        double.IsNaN(p) ? "n/a" : p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", System.Globalization.CultureInfo.InvariantCulture);
 
     /// <summary>Plain name of a backtest scheme.</summary>
     public static string Scheme(BacktestScheme scheme) => scheme switch

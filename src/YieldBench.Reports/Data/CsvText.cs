@@ -7,7 +7,8 @@ namespace YieldBench.Reports.Data;
 
 /// <summary>
 /// Writes report tables as CSV: RFC 4180 quoting, CRLF line ends, UTF-8 without byte-order mark, invariant culture,
-/// numbers in round-trip precision. Formula-injection rule: a TEXT cell whose first character is <c>=</c>, <c>+</c>,
+/// numbers at the precision their column states (<see cref="ReportColumn.CsvDecimals"/>: °Brix 2 decimals, factors 4,
+/// % v/v 2 …; a column without one in round-trip precision). Formula-injection rule: a TEXT cell whose first character is <c>=</c>, <c>+</c>,
 /// <c>-</c>, <c>@</c>, a tab or a carriage return gets a leading apostrophe (<c>'</c>), so a spreadsheet opening the
 /// file shows it as text and never evaluates it; numeric cells are written as numbers and never altered (a negative
 /// number is data, not a formula).
@@ -37,8 +38,10 @@ public static class CsvText
         ArgumentNullException.ThrowIfNull(writer);
         var columns = table.Columns;
         var kinds = new CellKind[columns.Count];
+        var formats = new string?[columns.Count];
         for (int i = 0; i < columns.Count; i++)
         {
+            formats[i] = columns[i].CsvDecimals is { } d ? "F" + d.ToString(CultureInfo.InvariantCulture) : null;
             if (i > 0)
             {
                 writer.Write(',');
@@ -59,7 +62,7 @@ public static class CsvText
                     writer.Write(',');
                 }
 
-                WriteCell(writer, row[i], kinds[i], buffer);
+                WriteCell(writer, row[i], kinds[i], formats[i], buffer);
             }
 
             writer.Write("\r\n");
@@ -117,7 +120,7 @@ public static class CsvText
         t.TimeOfDay == TimeSpan.Zero && kind != CellKind.DateTime ? "yyyy-MM-dd" : "yyyy-MM-ddTHH:mm:ss";
 
     /// <summary>One cell as <see cref="Format"/> gives it, quoted as <see cref="WriteField"/> does, without building a string.</summary>
-    private static void WriteCell(TextWriter writer, object? cell, CellKind kind, Span<char> buffer)
+    private static void WriteCell(TextWriter writer, object? cell, CellKind kind, string? fixedFormat, Span<char> buffer)
     {
         int n;
         switch (cell)
@@ -130,9 +133,11 @@ public static class CsvText
             case double d when double.IsNaN(d) || double.IsInfinity(d):
                 return;
             case double d:
-                if (!d.TryFormat(buffer, out n, "R", CultureInfo.InvariantCulture))
+                // At a fixed precision the value is rounded first, and a negative zero written as 0.
+                double v = fixedFormat is null ? d : Math.Round(d, fixedFormat[1] - '0', MidpointRounding.AwayFromZero) + 0.0;
+                if (!v.TryFormat(buffer, out n, fixedFormat ?? "R", CultureInfo.InvariantCulture))
                 {
-                    WriteField(writer, d.ToString("R", CultureInfo.InvariantCulture));
+                    WriteField(writer, v.ToString(fixedFormat ?? "R", CultureInfo.InvariantCulture));
                     return;
                 }
 

@@ -1,4 +1,3 @@
-using ClosedXML.Excel;
 using YieldBench.Core.Forecast;
 using YieldBench.Core.Lots;
 using YieldBench.Reports.Tables;
@@ -9,7 +8,8 @@ namespace YieldBench.Reports.Forecast;
 /// <summary>
 /// The forecast workbook: sheet "Forecast" with one row per running lot (times as the cellar clock reads them, 80 %
 /// intervals beside each), sheet "Backtest" with the leave-one-season-out table, and sheet "Notes and cautions".
-/// Column widths are set by hand (ClosedXML's automatic sizing needs libgdiplus). Same forecast, same bytes.
+/// The sheets lay themselves out as the review's do (widths and heights measured with the shipped font, frozen and
+/// filtered headers, print setup). Same forecast, same bytes.
 /// </summary>
 public static class ForecastWorkbook
 {
@@ -94,59 +94,32 @@ public static class ForecastWorkbook
         return ReportTable.Of(columns, report.Backtest.ByColour);
     }
 
-    /// <summary>The workbook's bytes.</summary>
+    /// <summary>The workbook's bytes, laid out as the review's workbook is (<see cref="SheetPlan"/>).</summary>
     public static byte[] Write(ForecastReport report, IReadOnlyList<IntakeIssue> issues)
     {
         ArgumentNullException.ThrowIfNull(report);
         ArgumentNullException.ThrowIfNull(issues);
-        using var wb = new XLWorkbook();
-        wb.Properties.Author = "YieldBench";
-        wb.Properties.Title = "YieldBench in-season forecast";
-        wb.Properties.Created = WorkbookWriter.FixedTimestamp;
-        wb.Properties.Modified = WorkbookWriter.FixedTimestamp;
-        var lots = wb.Worksheets.Add("Forecast");
-        var placed = SheetLayout.WriteTable(lots, Lots(report));
-        int row = placed.LastRow + 2;
-        foreach (var caution in ForecastSentences.Cautions)
-        {
-            SheetLayout.SetText(lots.Cell(row++, 1), caution);
-        }
-
-        var backtest = wb.Worksheets.Add("Backtest");
-        var placedBacktest = SheetLayout.WriteTable(backtest, Backtest(report));
-        row = placedBacktest.LastRow + 2;
-        SheetLayout.SetText(backtest.Cell(row, 1), "By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger):");
-        backtest.Cell(row, 1).Style.Font.Bold = true;
-        var placedColour = SheetLayout.WriteTable(backtest, ByColour(report), row + 1, 1, freezeAndFilter: false);
-        row = placedColour.LastRow + 2;
-        foreach (var line in ForecastSentences.Backtest(report.Backtest))
-        {
-            SheetLayout.SetText(backtest.Cell(row++, 1), line.Trim());
-        }
-
-        var notes = wb.Worksheets.Add("Notes and cautions");
-        notes.Column(1).Width = 140;
-        row = 1;
-        SheetLayout.SetText(notes.Cell(row, 1), "Cautions");
-        notes.Cell(row++, 1).Style.Font.Bold = true;
-        foreach (var caution in ForecastSentences.Cautions)
-        {
-            SheetLayout.SetText(notes.Cell(row++, 1), caution);
-        }
-
-        row++;
-        SheetLayout.SetText(notes.Cell(row, 1), "What the forecast rests on");
-        notes.Cell(row++, 1).Style.Font.Bold = true;
-        foreach (var note in ForecastSentences.Basis(report).Concat(report.Notes.Select(n => n.Message)))
-        {
-            SheetLayout.SetText(notes.Cell(row++, 1), note);
-        }
-
-        var issueSheet = wb.Worksheets.Add("Intake issues");
-        SheetLayout.WriteTable(issueSheet, ReviewTables.IntakeIssues(issues));
-
-        using var ms = new MemoryStream();
-        wb.SaveAs(ms);
-        return DeterministicZip.Normalise(ms.ToArray());
+        SheetPlan[] sheets =
+        [
+            new SheetPlan("Forecast") { WrapUnits = 40 }
+                .Table(Lots(report), freeze: true)
+                .Gap()
+                .Texts(ForecastSentences.Cautions),
+            new SheetPlan("Backtest")
+                .Table(Backtest(report), freeze: true)
+                .Gap()
+                .Heading("By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger)")
+                .Table(ByColour(report))
+                .Gap()
+                .Texts(ForecastSentences.Backtest(report.Backtest).Select(l => l.Trim())),
+            new SheetPlan("Notes and cautions")
+                .Heading("Cautions")
+                .Texts(ForecastSentences.Cautions)
+                .Gap()
+                .Heading("What the forecast rests on")
+                .Texts(ForecastSentences.Basis(report).Concat(report.Notes.Select(n => n.Message))),
+            new SheetPlan("Intake issues").Table(ReviewTables.IntakeIssues(issues), freeze: true),
+        ];
+        return WorkbookWriter.Build(sheets, "YieldBench in-season forecast");
     }
 }

@@ -93,10 +93,15 @@ public static class KineticsCharts
         charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains, courses), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
         charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
-        foreach (var k in ordered.Where(k => k.Flagged).Take(MaxLotCharts))
+        // A chart for each lot to look at for its ferment (a kinetics follow-up: stuck, sluggish, too hot, not dry when
+        // its log ends), titled with what was seen in plain words; these stay in the charts folder, not the workbook.
+        var followUps = review.LotReviews.Where(l => l.KineticsFollowUps.Count > 0)
+            .ToDictionary(l => l.Key, l => string.Join(", ", l.KineticsFollowUps.Select(f => Core.Review.ReviewTexts.FlagName(f.Code))));
+        foreach (var k in ordered.Where(k => followUps.ContainsKey(k.LotKey)).Take(MaxLotCharts))
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
-            charts.Add(PlannedChart.Of(() => LotChart(k), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", Sheet));
+            string title = $"Lot {k.LotKey} ({k.Lot.Strain}): {followUps[k.LotKey]}";
+            charts.Add(PlannedChart.Of(() => LotChart(k, title), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", sheet: null, onOverview: false));
         }
 
         return (charts, [strainJob, strainJob + 1]);
@@ -112,12 +117,12 @@ public static class KineticsCharts
     }
 
     /// <summary>Sugar (left axis) and temperature (right axis) against days from time zero for one lot.</summary>
-    public static Plot LotChart(LotKinetics k)
+    public static Plot LotChart(LotKinetics k, string? title = null)
     {
         ArgumentNullException.ThrowIfNull(k);
         string origin = k.OriginKind == TimeOrigin.Inoculation ? "inoculation" : "first reading";
         var plot = ChartStyle.NewPlot(
-            $"Lot {k.LotKey} ({k.Lot.Strain}): {(k.Flags.Count > 0 ? string.Join(", ", k.Flags) : "no flags")}",
+            title ?? $"Lot {k.LotKey} ({k.Lot.Strain}): {(k.Flags.Count > 0 ? string.Join(", ", k.Flags.Select(Core.Review.ReviewTexts.FlagName)) : "no flags")}",
             $"Days from {origin}",
             "Sugar (°Brix)");
         var sugarColor = ChartPalette.ForIndex(0);

@@ -9,18 +9,7 @@ public static class KineticsCsv
     /// <summary>Conventional file name inside the output's data folder.</summary>
     public const string FileName = "kinetics.csv";
 
-    /// <summary>Conventional file name of the per-reading data file.</summary>
-    public const string ReadingsFileName = "kinetics-readings.csv";
-
-    /// <summary>Writes one row per sugar reading (rates, smoothed rate, sugar g/L and heat potential) as CSV.</summary>
-    public static void WriteReadings(KineticsReview review, TextWriter writer)
-    {
-        ArgumentNullException.ThrowIfNull(review);
-        ArgumentNullException.ThrowIfNull(writer);
-        CsvText.Write(KineticsTables.Readings(review), writer);
-    }
-
-    /// <summary>Writes the per-lot table as CSV (RFC 4180, CRLF, round-trip numbers; see <see cref="CsvText"/>).</summary>
+    /// <summary>Writes the per-lot table as CSV (RFC 4180, CRLF, numbers at each column's precision; see <see cref="CsvText"/>).</summary>
     public static void Write(KineticsReview review, TextWriter writer)
     {
         ArgumentNullException.ThrowIfNull(review);

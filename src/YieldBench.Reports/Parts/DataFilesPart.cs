@@ -32,12 +32,14 @@ public sealed class DataFilesPart : IReportPart
         yield return (ReportWriter.DataFiles.Lots, c => Csv(c.Tables.Lots));
         yield return (ReportWriter.DataFiles.Groups, c => Csv(ReviewTables.Groups(c.Review)));
         yield return (ReportWriter.DataFiles.Flags, c => Csv(ReviewTables.Flags(c.Review)));
+        yield return (ReportWriter.DataFiles.FollowUp, c => Csv(ReviewTables.Findings(c.Review)));
         yield return (ReportWriter.DataFiles.IntakeIssues, c => Csv(ReviewTables.IntakeIssues(c.Review)));
         yield return (ReportWriter.DataFiles.HouseFactor, c => stream => stream.Write(Utf8NoBom.GetBytes(HouseFactorJson.Write(c.Review.HouseFactor))));
         if (review.Kinetics is not null)
         {
             // The table of KineticsCsv.WriteFile, shared with the kinetics sheet.
             yield return (ReportWriter.DataFiles.Kinetics, c => Csv(c.Tables.KineticsLots!));
+            yield return (ReportWriter.DataFiles.KineticsFindings, c => Csv(KineticsTables.Findings(c.Review.Kinetics!)));
         }
     }
 

@@ -25,7 +25,7 @@ public sealed class WorkbookPart : IReportPart
             () =>
             {
                 var charts = ChartsPart.Plan(context.Review, context.Root).Select(c => c.File).ToArray();
-                var layout = WorkbookWriter.Layout(context.Review, tables: context.Tables);
+                var layout = WorkbookWriter.Layout(context.Review, charts, context.Tables);
                 context.Write(ReportWriter.WorkbookName, stream => WorkbookWriter.Finish(
                     layout, charts, includePictures: true, stream, i => context.Read(ChartsPart.Folder + "/" + Path.GetFileName(charts[i].Path))));
             },

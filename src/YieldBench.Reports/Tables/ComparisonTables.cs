@@ -20,11 +20,11 @@ public static partial class ReviewTables
             new("rank", "Rank", CellKind.Integer, r => r.Rank),
             new("strain", "Strain", CellKind.Text, r => r.Strain.Strain),
             new("lots", "Lots", CellKind.Integer, r => r.Strain.Lots),
-            new("raw_median", "Raw median " + c.Measure, CellKind.Number, r => r.Strain.RawMedian, "0.0000"),
+            new("raw_median", "Raw median factor (% v/v per °Brix)", CellKind.Number, r => r.Strain.RawMedian, "0.0000"),
             new("adjusted_factor", "Adjusted factor at " + c.ReferenceBrix.ToString("0.0", CultureInfo.InvariantCulture) + " °Brix", CellKind.Number, r => r.Strain.Adjusted?.Factor ?? double.NaN, "0.0000"),
-            new("adjusted_low", "Interval low", CellKind.Number, r => r.Strain.Adjusted?.FactorInterval.Low ?? double.NaN, "0.0000"),
-            new("adjusted_high", "Interval high", CellKind.Number, r => r.Strain.Adjusted?.FactorInterval.High ?? double.NaN, "0.0000"),
-            new("predicted_abv", "Predicted alcohol at the reference sugar (% v/v)", CellKind.Number, r => r.Strain.Adjusted?.PredictedAbv ?? double.NaN, "0.00"),
+            new("adjusted_low", "95 % interval: low", CellKind.Number, r => r.Strain.Adjusted?.FactorInterval.Low ?? double.NaN, "0.0000"),
+            new("adjusted_high", "95 % interval: high", CellKind.Number, r => r.Strain.Adjusted?.FactorInterval.High ?? double.NaN, "0.0000"),
+            new("predicted_abv", "Alcohol from " + c.ReferenceBrix.ToString("0.0", CultureInfo.InvariantCulture) + " °Brix (% v/v)", CellKind.Number, r => r.Strain.Adjusted?.PredictedAbv ?? double.NaN, "0.00"),
         ];
         return ReportTable.Of(columns, review.Figures.Ranking.Select((r, i) => (r, i + 1)));
     }
@@ -36,8 +36,8 @@ public static partial class ReviewTables
         new("shift", "Shift, first − second (% v/v per °Brix)", CellKind.Number, p => p.Shift, "+0.0000;-0.0000;0.0000"),
         new("shift_low", "Interval low", CellKind.Number, p => p.Interval.Low, "+0.0000;-0.0000;0.0000"),
         new("shift_high", "Interval high", CellKind.Number, p => p.Interval.High, "+0.0000;-0.0000;0.0000"),
-        new("p", "Mann–Whitney p", CellKind.Number, p => p.P, YieldBench.Core.PValues.CellFormat),
-        new("holm_p", "Holm-adjusted p", CellKind.Number, p => p.HolmP, YieldBench.Core.PValues.CellFormat),
+        new("p", "Mann–Whitney p", CellKind.Number, p => p.P, ReportColumn.PValueFormat),
+        new("holm_p", "Holm-adjusted p", CellKind.Number, p => p.HolmP, ReportColumn.PValueFormat),
     ];
 
     /// <summary>Pairwise Hodges–Lehmann shifts with Holm-adjusted p-values; pairs under 0.05 highlighted.</summary>

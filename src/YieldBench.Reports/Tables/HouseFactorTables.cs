@@ -57,10 +57,9 @@ public static partial class ReviewTables
         new("error_95_low_abv", "95 % band low (% v/v)", CellKind.Number, r => r.Recommendation.ErrorBand95.Low, "+0.00;-0.00;0.00"),
         new("error_95_high_abv", "95 % band high (% v/v)", CellKind.Number, r => r.Recommendation.ErrorBand95.High, "+0.00;-0.00;0.00"),
         new("share_within_tolerance", "Within label tolerance", CellKind.Share, r => r.Recommendation.Metrics.ShareWithinTolerance),
-        new("explanation", "Why", CellKind.Text, r => r.Recommendation.Explanation),
     ];
 
-    /// <summary>The recommendation overall and per strain.</summary>
+    /// <summary>The recommendation overall and per strain (why each was chosen is in the house factor's explanation sentences, which the sheet shows above the table).</summary>
     public static ReportTable Recommendations(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
@@ -169,6 +168,52 @@ public static partial class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         return ReportTable.Of(PlannerTable, review.HouseFactor.PlannerTable);
+    }
+
+    /// <summary>
+    /// The planner table as the sheet shows it: one row per strain and confidence, one column per target alcohol, each
+    /// cell the highest harvest sugar (°Brix) that keeps the predicted alcohol under that target (the long table of
+    /// <see cref="Planner"/> is the same answers, one per row, as data/house-factor.json holds them).
+    /// </summary>
+    public static ReportTable PlannerByTarget(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var answers = review.HouseFactor.PlannerTable;
+        var targets = answers.Select(a => a.TargetAbv).Distinct().Order().ToArray();
+        var columns = new List<ReportColumn>
+        {
+            new("strain", "Strain", CellKind.Text),
+            new("confidence", "With confidence", CellKind.Share, "0%"),
+            new("error_allowance_abv", "Allowance for error (% v/v)", CellKind.Number, "0.00"),
+        };
+        columns.AddRange(targets.Select(t => new ReportColumn(
+            "highest_brix_under_" + t.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture),
+            "Under " + t.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture) + " % v/v (°Brix)",
+            CellKind.Number,
+            "0.0")));
+        columns.Add(new("note", "Note", CellKind.Text));
+        var table = new ReportTable(columns);
+        foreach (var row in answers.GroupBy(a => (a.Strain, a.Confidence)))
+        {
+            var byTarget = row.ToDictionary(a => a.TargetAbv);
+            object?[] cells =
+            [
+                StrainName(row.Key.Strain), row.Key.Confidence, Allowance(row),
+                .. targets.Select(t => (object?)(byTarget.TryGetValue(t, out var a) ? a.HighestBrix : double.NaN)),
+                string.Join(" ", row.Select(a => a.Note).Where(n => !string.IsNullOrEmpty(n)).Distinct(StringComparer.Ordinal)),
+            ];
+            table.Add(cells);
+        }
+
+        return table;
+    }
+
+    // The row's error allowance when it is the same for every target (it is: the season-aware error quantile does not
+    // depend on the target), else empty rather than one target's value under every target.
+    private static double Allowance(IEnumerable<ThresholdAnswer> answers)
+    {
+        var values = answers.Select(a => a.ErrorAllowance).ToArray();
+        return values.Max() - values.Min() <= 1e-9 ? values[0] : double.NaN;
     }
 
     /// <summary>A strain as the house-factor tables name it (<c>*</c> is all lots).</summary>

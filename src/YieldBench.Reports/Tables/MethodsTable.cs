@@ -8,6 +8,29 @@ namespace YieldBench.Reports.Tables;
 /// <summary>The methods-and-cautions content: each formula or setting with its value and its source.</summary>
 public static class MethodsTable
 {
+    /// <summary>
+    /// The flag codes this review wrote (on the Lots and Kinetics by lot sheets and in the data files), each with its
+    /// plain meaning as the Follow-up sheet words it.
+    /// </summary>
+    public static ReportTable FlagGlossary(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var t = new ReportTable(
+        [
+            new("code", "Code", CellKind.Text),
+            new("meaning", "Meaning", CellKind.Text),
+        ]);
+        var codes = review.Strains.Flags.Select(f => f.Code)
+            .Concat(review.Kinetics?.Lots.SelectMany(k => k.Flags) ?? [])
+            .Concat(review.Kinetics?.Findings.Select(f => f.Code) ?? []);
+        foreach (string code in codes.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal))
+        {
+            t.Add([code, ReviewTexts.FlagName(code)]);
+        }
+
+        return t;
+    }
+
     /// <summary>Formulas with their sources.</summary>
     public static ReportTable Formulas(ReviewResult review)
     {

@@ -29,6 +29,39 @@ public enum CellKind
 /// <param name="NumberFormat">Spreadsheet number format (null: by kind).</param>
 public sealed record ReportColumn(string Name, string Heading, CellKind Kind, string? NumberFormat = null)
 {
+    /// <summary>
+    /// Decimals a data file writes this column's numbers with: those its number format shows (a share two more, as it
+    /// is written as the share and shown as a percentage), or null for a number without a format of its own, written
+    /// in full (round-trip) precision.
+    /// </summary>
+    public int? CsvDecimals => Kind switch
+    {
+        CellKind.Number when NumberFormat is { } f => Decimals(f),
+        CellKind.Share => Decimals(EffectiveNumberFormat) + 2,
+        _ => null,
+    };
+
+    /// <summary>
+    /// The format of a p-value: four decimals, and "&lt; 0.0001" below that (a conditional format: never "0.0000").
+    /// A data file writes the value at four decimals.
+    /// </summary>
+    public const string PValueFormat = "[<0.0001]\"< 0.0001\";0.0000";
+
+    /// <summary>The section of a number format that shows an ordinary number: the last of a conditional format (one starting with a [condition]), else the first.</summary>
+    public static string PlainSection(string format)
+    {
+        ArgumentNullException.ThrowIfNull(format);
+        var sections = format.Split(';');
+        return format.StartsWith('[') ? sections[^1] : sections[0];
+    }
+
+    private static int Decimals(string format)
+    {
+        string first = PlainSection(format);
+        int dot = first.IndexOf('.', StringComparison.Ordinal);
+        return dot < 0 ? 0 : first.Skip(dot + 1).TakeWhile(c => c == '0').Count();
+    }
+
     /// <summary>The number format the workbook uses for this column.</summary>
     public string EffectiveNumberFormat => NumberFormat ?? Kind switch
     {

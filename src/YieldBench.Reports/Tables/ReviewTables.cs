@@ -19,23 +19,26 @@ public static partial class ReviewTables
     /// <summary>The lots table's final alcohol (the native chart's y values).</summary>
     internal static readonly Column<LotReview> FinalAbv = new("final_abv", "Final alcohol (% v/v)", CellKind.Number, l => l.Lot.FinalAlcohol.PercentVolume, "0.00");
 
-    /// <summary>The columns of data/lots.csv and the Lots sheet, each with the accessor that reads it from a lot's review.</summary>
+    /// <summary>
+    /// The columns of data/lots.csv and the Lots sheet, each with the accessor that reads it from a lot's review, the
+    /// most-read first: the lot, its flags, its sugar, alcohol and factor, then the rest of what was recorded.
+    /// </summary>
     internal static IReadOnlyList<Column<LotReview>> LotTable { get; } =
     [
         new("lot_id", "Lot", CellKind.Text, l => l.Lot.LotId),
         new("season", "Season", CellKind.Integer, l => Cells.Season(l.Lot.Season)),
         new("strain", "Strain", CellKind.Text, l => l.Lot.Strain),
-        new("vessel", "Vessel", CellKind.Text, l => l.Lot.Vessel),
-        new("variety", "Variety", CellKind.Text, l => l.Lot.Variety),
+        new("flags", "Flags", CellKind.Text, l => l.FlagCodes.Count == 0 ? null : string.Join(';', l.FlagCodes)),
         StartingBrix,
         FinalAbv,
-        new("residual_sugar_gl", "Residual sugar (g/L)", CellKind.Number, l => Cells.Number(l.Lot.ResidualSugarGl), "0.0"),
         new("abv_per_brix", "Alcohol per °Brix (% v/v per °Brix)", CellKind.Number, l => l.Conversion.AbvPerBrix, "0.0000"),
+        new("residual_sugar_gl", "Residual sugar (g/L)", CellKind.Number, l => Cells.Number(l.Lot.ResidualSugarGl), "0.0"),
+        new("vessel", "Vessel", CellKind.Text, l => l.Lot.Vessel),
+        new("variety", "Variety", CellKind.Text, l => l.Lot.Variety),
+        new("robust_z", "Robust z within strain", CellKind.Number, l => Cells.Number(l.Score?.Z), "0.00"),
         new("abv_per_brix_fermented", "Alcohol per °Brix fermented", CellKind.Number, l => l.Conversion.AbvPerBrixFermented, "0.0000"),
         new("sugar_gl_per_abv", "Sugar per % alcohol (g/L per % v/v)", CellKind.Number, l => l.Conversion.SugarGlPerAbv, "0.00"),
         new("gay_lussac_efficiency", "Share of Gay-Lussac yield", CellKind.Share, l => l.Conversion.GayLussacEfficiency, "0.0%"),
-        new("robust_z", "Robust z within strain", CellKind.Number, l => Cells.Number(l.Score?.Z), "0.00"),
-        new("flags", "Flags", CellKind.Text, l => l.FlagCodes.Count == 0 ? null : string.Join(';', l.FlagCodes)),
         new("measured_starting_brix", "Starting sugar as measured (°Brix)", CellKind.Number, l => l.Lot.StartingSugar.Brix, "0.00"),
         new("starting_sugar_scale", "Scale recorded", CellKind.Text, l => l.Lot.RecordedStartingSugar.Label),
         new("starting_sugar_as_recorded", "Starting sugar in the recorded scale", CellKind.Number, l => l.Lot.RecordedStartingSugar.Value, "0.000"),
@@ -125,10 +128,10 @@ public static partial class ReviewTables
         new("code", "Flag", CellKind.Text, f => f.Code),
         new("severity", "Severity", CellKind.Text, f => ReviewTexts.Severity(f.Severity)),
         new("measure", "Measure judged", CellKind.Text, f => f.Measure),
-        new("value", "Value", CellKind.Number, f => f.Value, "0.000"),
+        new("value", "Value", CellKind.Number, f => f.Value, "0.0000"),
         new("reference_group", "Judged against", CellKind.Text, f => f.ReferenceGroup),
-        new("reference_median", "Reference median", CellKind.Number, f => f.ReferenceMedian, "0.000"),
-        new("reference_scale", "Reference scale", CellKind.Number, f => f.ReferenceScale, "0.000"),
+        new("reference_median", "Reference median", CellKind.Number, f => f.ReferenceMedian, "0.0000"),
+        new("reference_scale", "Reference scale", CellKind.Number, f => f.ReferenceScale, "0.0000"),
         new("reason", "Why", CellKind.Text, f => f.Reason),
         new("follow_up", "Suggested follow-up", CellKind.Text, f => f.FollowUp),
     ];
@@ -141,31 +144,6 @@ public static partial class ReviewTables
     {
         ArgumentNullException.ThrowIfNull(review);
         return ReportTable.Of(FlagTable, review.Strains.Flags);
-    }
-
-    private static IReadOnlyList<Column<LotFlag>> FollowUpTable { get; } =
-    [
-        new("severity", "Severity", CellKind.Text, f => ReviewTexts.Severity(f.Severity)),
-        new("lot_id", "Lot", CellKind.Text, f => f.LotId ?? "(whole strain)"),
-        new("season", "Season", CellKind.Integer, f => f.Season),
-        new("strain", "Strain", CellKind.Text, f => f.Strain),
-        new("code", "Flag", CellKind.Text, f => f.Code),
-        new("reason", "Why", CellKind.Text, f => f.Reason),
-        new("follow_up", "Suggested follow-up", CellKind.Text, f => f.FollowUp),
-        new("value", "Value", CellKind.Number, f => f.Value, "0.000"),
-        new("reference_group", "Judged against", CellKind.Text, f => f.ReferenceGroup),
-    ];
-
-    /// <summary>
-    /// The follow-up list: the review's follow-up items (strain-review flags, then kinetics follow-ups) by severity,
-    /// likely errors first, each severity in the review's order.
-    /// </summary>
-    public static ReportTable FollowUp(ReviewResult review)
-    {
-        ArgumentNullException.ThrowIfNull(review);
-        var bySeverity = review.FollowUps.Select((f, i) => (Flag: f, Index: i))
-            .OrderByDescending(x => x.Flag.Severity).ThenBy(x => x.Index).Select(x => x.Flag);
-        return ReportTable.Of(FollowUpTable, bySeverity, f => f.Severity == FlagSeverity.LikelyError);
     }
 
     /// <summary>Cells a per-lot table repeats on most rows, boxed once (a box is never changed, so rows can share it).</summary>

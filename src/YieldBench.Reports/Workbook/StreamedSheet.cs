@@ -356,7 +356,7 @@ internal static class StreamedSheet
             var highlightedRow = rows.Prepare(highlightedTemplate ?? Template.Default(body));
             for (int i = 0; i < table.Rows.Count; i++)
             {
-                rows.Row(body.FirstDataRow + i, table.Highlighted[i] ? highlightedRow : plainRow, table.Rows[i]);
+                rows.Row(body.FirstDataRow + i, table.Highlighted[i] ? highlightedRow : plainRow, table.Rows[i], body.RowHeights?[i]);
                 if (rows.Length >= RowMarkup.FlushBytes)
                 {
                     rows.WriteTo(output);
@@ -425,7 +425,8 @@ internal static class StreamedSheet
         {
             ArgumentNullException.ThrowIfNull(template);
             var attributes = new StringBuilder();
-            foreach (var (name, value) in template.RowAttributes)
+            // A row's height is its own (given per row), never the template row's.
+            foreach (var (name, value) in template.RowAttributes.Where(a => a.Name is not ("ht" or "customHeight")))
             {
                 attributes.Append(' ').Append(name).Append("=\"").Append(Escape(value, EscapedInAttributes)).Append('"');
             }
@@ -439,7 +440,7 @@ internal static class StreamedSheet
         }
 
         /// <summary>Adds one row.</summary>
-        public void Row(int rowNumber, PreparedTemplate template, object?[] cells)
+        public void Row(int rowNumber, PreparedTemplate template, object?[] cells, double? height = null)
         {
             ArgumentNullException.ThrowIfNull(template);
             ArgumentNullException.ThrowIfNull(cells);
@@ -455,6 +456,13 @@ internal static class StreamedSheet
             Append(rowDigits.AsSpan(0, rowDigitCount));
             Append((byte)'"');
             Append(template.RowAttributes);
+            if (height is { } h)
+            {
+                Append(" ht=\""u8);
+                Format(h);
+                Append("\" customHeight=\"1\""u8);
+            }
+
             Append((byte)'>');
             for (int c = 0; c < cells.Length; c++)
             {

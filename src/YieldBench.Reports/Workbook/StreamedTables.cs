@@ -13,60 +13,48 @@ namespace YieldBench.Reports.Workbook;
 /// <param name="Table">The table; its rows are written as they are when the package is finished.</param>
 internal sealed record DeferredBody(string SheetName, int FirstDataRow, int FirstColumn, ReportTable Table)
 {
+    /// <summary>Each row's own height in points, or null for the sheet's default (null: every row the default).</summary>
+    public IReadOnlyList<double?>? RowHeights { get; init; }
+
     /// <summary>1-based last data row.</summary>
     public int LastDataRow => FirstDataRow + Table.Rows.Count - 1;
 
     /// <summary>1-based last column.</summary>
     public int LastColumn => FirstColumn + Table.Columns.Count - 1;
 
+    /// <summary>The last row the table holds in the laid-out sheet: its last data row, or the highlighted template row of a one-row table.</summary>
+    public int LastRowHeld => Math.Max(LastDataRow, HighlightedTemplateRow);
+
     /// <summary>Row of the highlighted template.</summary>
     public int HighlightedTemplateRow => FirstDataRow + 1;
 }
 
 /// <summary>
-/// The tables of one workbook that are too long to lay out cell by cell in ClosedXML (its cell objects made 100,000
-/// lots cost gigabytes): <see cref="SheetLayout"/> registers them here and the workbook writer streams their rows into
-/// the finished package.
+/// The tables of one workbook, whose rows ClosedXML never holds (its cell objects made 100,000 lots cost gigabytes):
+/// <see cref="SheetPlan"/> registers every table here and the workbook writer streams their rows into the finished
+/// package. One path for every table, short or long, so the demo exercises what a large review gets.
 /// </summary>
 internal sealed class StreamedTables
 {
-    /// <summary>Tables with more data rows than this are streamed; shorter ones stay in ClosedXML's cell model.</summary>
-    public const int DefaultRowThreshold = 2000;
-
     private readonly List<DeferredBody> bodies = [];
-
-    /// <summary>Creates an empty register.</summary>
-    /// <param name="rowThreshold">Tables with more data rows than this are streamed (at least 2: the template rows need the room).</param>
-    public StreamedTables(int rowThreshold = DefaultRowThreshold)
-    {
-        ArgumentOutOfRangeException.ThrowIfLessThan(rowThreshold, 2);
-        RowThreshold = rowThreshold;
-    }
-
-    /// <summary>Tables with more data rows than this are streamed.</summary>
-    public int RowThreshold { get; }
 
     /// <summary>Every registered table, in the order registered.</summary>
     public IReadOnlyList<DeferredBody> Bodies => bodies;
 
-    /// <summary>Whether <paramref name="table"/> is long enough to stream.</summary>
-    public bool ShouldStream(ReportTable table)
-    {
-        ArgumentNullException.ThrowIfNull(table);
-        return table.Rows.Count > RowThreshold;
-    }
-
-    /// <summary>Registers a table; it may not share rows with another streamed table on the same sheet.</summary>
+    /// <summary>
+    /// Registers a table; it may not share rows with another streamed table on the same sheet. A table of one row still
+    /// has two template rows: nothing may be written in the row after it.
+    /// </summary>
     public void Add(DeferredBody body)
     {
         ArgumentNullException.ThrowIfNull(body);
-        if (body.Table.Rows.Count < 2)
+        if (body.Table.Rows.Count < 1)
         {
-            throw new ArgumentException("A streamed table needs at least two data rows (the two template rows).", nameof(body));
+            throw new ArgumentException("A streamed table needs at least one data row.", nameof(body));
         }
 
         var clash = bodies.FirstOrDefault(b => string.Equals(b.SheetName, body.SheetName, StringComparison.Ordinal)
-            && b.FirstDataRow <= body.LastDataRow && body.FirstDataRow <= b.LastDataRow);
+            && b.FirstDataRow <= body.LastRowHeld && body.FirstDataRow <= b.LastRowHeld);
         if (clash is not null)
         {
             throw new InvalidOperationException(

@@ -77,12 +77,38 @@ public sealed class CsvTextTests
         // When the lots table is written
         string header = CsvText.Write(ReviewTables.Lots(review)).Split("\r\n")[0];
 
-        // Then its first fourteen columns are the contract of data/lots.csv
+        // Then its first fourteen columns are the contract of data/lots.csv, the most-read first
         Assert.StartsWith(
-            "lot_id,season,strain,vessel,variety,starting_brix,final_abv,residual_sugar_gl,abv_per_brix,abv_per_brix_fermented,"
-            + "sugar_gl_per_abv,gay_lussac_efficiency,robust_z,flags,",
+            "lot_id,season,strain,flags,starting_brix,final_abv,abv_per_brix,residual_sugar_gl,vessel,variety,robust_z,"
+            + "abv_per_brix_fermented,sugar_gl_per_abv,gay_lussac_efficiency,",
             header,
             StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Numbers_are_written_at_their_column_s_stated_precision_and_never_as_negative_zero()
+    {
+        // Given a table of a °Brix column (2 decimals), a factor column (4), a share column (shown 0.0 %, written to
+        // 3 decimals) and a number without a stated precision
+        var table = new ReportTable(
+        [
+            new("brix", "Brix", CellKind.Number, "0.00"),
+            new("factor", "Factor", CellKind.Number, "+0.0000;-0.0000;0.0000"),
+            new("share", "Share", CellKind.Share),
+            new("raw", "Raw", CellKind.Number),
+        ]);
+        table.Add([16.503677254353796, 0.61165159915492, 0.9547994563673388, 1.0 / 3]);
+        table.Add([-0.0004, -0.00004, 1.0, -2.5]);
+        table.Add([2.625, 0.03125, 0.0625, double.NaN]);
+
+        // When written
+        var lines = CsvText.Write(table).Split("\r\n");
+
+        // Then each column keeps its decimals (an exact half rounds away from zero), a rounded negative zero is 0, and the
+        // unstated column keeps full precision
+        Assert.Equal("16.50,0.6117,0.955,0.3333333333333333", lines[1]);
+        Assert.Equal("0.00,0.0000,1.000,-2.5", lines[2]);
+        Assert.Equal("2.63,0.0313,0.063,", lines[3]);
     }
 
     [Fact]

@@ -15,13 +15,20 @@ public class KineticsCsvTests
         KineticsCsv.Write(review, w);
         var lines = w.ToString().Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
 
-        // Then the header lists the stable columns and each lot has one row in lot order
+        // Then the header lists the stable columns, the most-read first, each lot has one row in lot order, and numbers
+        // carry their column's precision (days 1 decimal, rates 2, °Brix 1)
         Assert.Equal(5, lines.Length);
-        Assert.StartsWith("season,lot_id,strain,colour,time_origin,time_origin_at,sugar_readings,median_spacing_h,rate_method,starting_brix,final_brix,max_rate_brix_per_day,", lines[0]);
-        Assert.EndsWith(",logistic_note,flags", lines[0]);
+        Assert.StartsWith("season,lot_id,strain,colour,flags,days_to_dry,peak_temp_c,max_rate_brix_per_day,lag_h,one_third_h,", lines[0]);
+        Assert.EndsWith(",logistic_rmse_brix,logistic_r2,logistic_note", lines[0]);
         Assert.All(lines[0].Split(','), c => Assert.Matches("^[a-z0-9_]+$", c));
-        Assert.StartsWith("2025,R-01,KX-11,red,inoculation,2025-09-28T02:00:00,11,12,between readings,24,-1.5,", lines[1]);
-        Assert.StartsWith("2025,R-04,BR-4,red,inoculation,", lines[4]);
+        var header = lines[0].Split(',');
+        var r01 = lines[1].Split(',');
+        Assert.StartsWith("2025,R-01,KX-11,red,,", lines[1]);
+        Assert.Equal("24.0", r01[Array.IndexOf(header, "starting_brix")]);
+        Assert.Equal("-1.5", r01[Array.IndexOf(header, "final_brix")]);
+        Assert.Equal("31.0", r01[Array.IndexOf(header, "peak_temp_c")]);
+        Assert.Equal("inoculation", r01[Array.IndexOf(header, "time_origin")]);
+        Assert.StartsWith("2025,R-04,BR-4,red,,", lines[4]);
     }
 
     [Fact]
@@ -40,10 +47,39 @@ public class KineticsCsvTests
 
         // Then its stuck flag, the stretch start and the lab's residual sugar are in the row
         Assert.Equal("true", Col("stuck"));
-        Assert.Equal("38", Col("residual_sugar_gl"));
-        Assert.Equal("20", Col("caution_temp_c"));
-        Assert.Contains("stuck", Col("flags").Split(' '));
+        Assert.Equal("38.0", Col("residual_sugar_gl"));
+        Assert.Equal("20.0", Col("caution_temp_c"));
+        Assert.Contains("stuck", Col("flags").Split(';'));
         Assert.Equal("2025-10-03T08:00:00", Col("stuck_from"));
+    }
+
+    [Fact]
+    public void The_findings_summary_counts_each_kind_once_per_lot_and_names_it_plainly()
+    {
+        // Given four lots with logs and one without, the stuck white W-03 among them
+        var (_, review) = KineticsReportData.Build();
+        var strains = new Dictionary<YieldBench.Core.Lots.LotKey, string>
+        {
+            [new(2025, "W-03")] = "W-STRAIN",
+        };
+
+        // When summarised by kind
+        var table = KineticsTables.FindingKinds(review, strains);
+        var rows = table.Rows.ToDictionary(r => (string)r[1]!);
+
+        // Then each kind has one row with the number of distinct lots or logs it concerns, most frequent first, in plain
+        // words; the lot without a log has its own row; a lot the map does not know counts as "no lot"
+        foreach (var kind in review.Findings.GroupBy(f => f.Code))
+        {
+            Assert.Equal(kind.Select(f => f.Subject).Distinct().Count(), (int)rows[kind.Key][2]!);
+            Assert.Equal(YieldBench.Core.Review.ReviewTexts.FlagName(kind.Key), rows[kind.Key][0]);
+        }
+
+        Assert.Equal(review.LotsWithoutLog.Count, (int)rows["no-log"][2]!);
+        Assert.Equal("stuck ferment", rows["stuck"][0]);
+        Assert.Contains("W-STRAIN 1", (string)rows["stuck"][3]!, StringComparison.Ordinal);
+        var counts = table.Rows.Select(r => (int)r[2]!).ToArray();
+        Assert.Equal(counts.OrderDescending(), counts);
     }
 
     [Fact]
@@ -60,31 +96,5 @@ public class KineticsCsvTests
 
         // Then the texts are identical (no timestamps, fixed order)
         Assert.Equal(a.ToString(), b.ToString());
-    }
-
-    [Fact]
-    public void The_readings_file_has_one_row_per_sugar_reading_with_its_rate_and_heat_potential()
-    {
-        // Given the review (R-01: 24.0 → 23.6 °Brix in the first 12 h, at 18 °C and 21 °C)
-        var (_, review) = KineticsReportData.Build();
-
-        // When the readings file is written
-        using var w = new StringWriter();
-        KineticsCsv.WriteReadings(review, w);
-        var lines = w.ToString().Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
-        var header = lines[0].Split(',');
-
-        // Then every sugar reading has a row; the second R-01 row carries (24.0 − 23.6) / 12 h × 24 = 0.8 °Brix/day
-        Assert.Equal(1 + review.Lots.Sum(l => l.Sugar.Count), lines.Length);
-        Assert.Equal("season,lot_id,time,hours_from_time_zero_h,sugar_brix,temp_c,rate_since_previous_brix_per_day,smoothed_rate_brix_per_day,sugar_remaining_gl,potential_rise_k,reachable_temp_c", lines[0]);
-        var first = lines[1].Split(',');
-        var second = lines[2].Split(',');
-        Assert.Equal("2025-09-28T08:00:00", first[2]);
-        Assert.Equal("6", first[3]);
-        Assert.Equal(string.Empty, first[Array.IndexOf(header, "rate_since_previous_brix_per_day")]);
-        Assert.Equal(0.8, double.Parse(second[Array.IndexOf(header, "rate_since_previous_brix_per_day")], System.Globalization.CultureInfo.InvariantCulture), 9);
-        double rise = double.Parse(first[Array.IndexOf(header, "potential_rise_k")], System.Globalization.CultureInfo.InvariantCulture);
-        double reach = double.Parse(first[Array.IndexOf(header, "reachable_temp_c")], System.Globalization.CultureInfo.InvariantCulture);
-        Assert.Equal(18.0 + rise, reach, 9);
     }
 }

@@ -68,9 +68,11 @@ public sealed class ParallelReportTests
             ["data/lots.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Lots(review))),
             ["data/groups.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Groups(review))),
             ["data/flags.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Flags(review))),
+            ["data/follow-up.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.Findings(review))),
             ["data/intake-issues.csv"] = Utf8NoBom.GetBytes(CsvText.Write(ReviewTables.IntakeIssues(review))),
             ["data/house-factor.json"] = Utf8NoBom.GetBytes(HouseFactorJson.Write(review.HouseFactor)),
             ["data/kinetics.csv"] = Utf8NoBom.GetBytes(Csv(w => KineticsCsv.Write(review.Kinetics!, w))),
+            ["data/kinetics-findings.csv"] = Utf8NoBom.GetBytes(CsvText.Write(KineticsTables.Findings(review.Kinetics!))),
             [ReportWriter.WorkbookName] = WorkbookWriter.Build(review, alone),
             [ReportWriter.PageName] = Utf8NoBom.GetBytes(YieldBench.Reports.Html.HtmlReport.Render(review)),
         };

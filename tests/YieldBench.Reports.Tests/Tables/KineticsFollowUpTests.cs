@@ -22,19 +22,22 @@ public sealed class KineticsFollowUpTests
         table.Rows.Select(r => table.Columns.Select((c, i) => (c.Name, r[i])).ToDictionary(p => p.Name, p => p.Item2));
 
     [Fact]
-    public void A_stuck_ferment_is_on_the_follow_up_list_with_its_reason_and_a_restart_follow_up()
+    public void A_stuck_ferment_is_on_the_follow_up_list_with_what_was_seen_and_a_restart_follow_up()
     {
         // Given a review whose lot L005 stalled above dry and did not finish by the lab's residual sugar
         var review = ReviewWithLogs();
         Assert.Contains("stuck", review.Kinetics!.Lots.Single(k => k.LotKey == new LotKey(2024, "L005")).Flags);
 
-        // When the follow-up table is built
-        var stuck = Rows(ReviewTables.FollowUp(review)).Single(r => (string?)r["lot_id"] == "L005" && (string?)r["code"] == "stuck");
+        // When the follow-up table (one row per lot) is built
+        var stuck = Rows(ReviewTables.Findings(review)).Single(r => (string?)r["lot_id"] == "L005");
 
-        // Then it carries the analysis's reason, a check severity and a follow-up naming restart protocols and licensed practice
+        // Then its row says what was seen with the numbers, the stall as the explanation, and a follow-up naming
+        // restart protocols and licensed practice
         Assert.Equal("check", stuck["severity"]);
-        Assert.Contains("10.6", (string)stuck["reason"]!, StringComparison.Ordinal);
+        Assert.Contains("stuck at 10.6 °Brix", (string)stuck["seen"]!, StringComparison.Ordinal);
+        Assert.Equal("The ferment stopped before it was dry.", stuck["explanation"]);
         Assert.Contains("restart protocol per licensed practice", (string)stuck["follow_up"]!, StringComparison.Ordinal);
+        Assert.Contains("stuck ferment", (string)stuck["flags"]!, StringComparison.Ordinal);
         Assert.Equal("ST-A", stuck["strain"]);
     }
 
@@ -45,10 +48,10 @@ public sealed class KineticsFollowUpTests
         var review = ReviewWithLogs();
 
         // When the follow-up table is built
-        var hot = Rows(ReviewTables.FollowUp(review)).Single(r => (string?)r["lot_id"] == "L020" && (string?)r["code"] == "above-danger-temp");
+        var hot = Rows(ReviewTables.Findings(review)).Single(r => (string?)r["lot_id"] == "L020");
 
-        // Then the value is the logged peak and the follow-up points at cooling, cap management and the CO2 hazard
-        Assert.Equal(41.0, (double)hot["value"]!, 6);
+        // Then what was seen is the logged peak and the follow-up points at cooling, cap management and the CO2 hazard
+        Assert.StartsWith("Peaked at 41.0 °C, above the 40 °C danger line", (string)hot["seen"]!, StringComparison.Ordinal);
         Assert.Equal("check", hot["severity"]);
         Assert.Contains("cooling capacity and cap management", (string)hot["follow_up"]!, StringComparison.Ordinal);
         Assert.Contains("CO2", (string)hot["follow_up"]!, StringComparison.Ordinal);

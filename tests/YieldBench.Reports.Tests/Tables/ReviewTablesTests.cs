@@ -1,3 +1,4 @@
+using YieldBench.Core.Review;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
 using YieldBench.Reports.Data;
@@ -65,21 +66,23 @@ public sealed class ReviewTablesTests
     }
 
     [Fact]
-    public void The_follow_up_list_puts_likely_errors_first()
+    public void The_follow_up_list_has_one_row_per_lot_to_look_at_likely_errors_first()
     {
         // Given a review whose flags have several severities
-        var table = ReviewTables.FollowUp(Review);
+        var table = ReviewTables.Findings(Review);
         var order = new[] { "likely error", "check", "note" };
 
         // When the severities are read down the list
         var ranks = table.Rows.Select(r => Array.IndexOf(order, (string)r[0]!)).ToArray();
 
-        // Then they never go up again once they have gone down (the sample plants a likely error and a note)
-        Assert.Equal(Review.Strains.Flags.Count, table.Rows.Count);
-        Assert.Contains(0, ranks);
-        Assert.Contains(2, ranks);
-        Assert.Contains(table.Rows, r => (string)r[1]! == "L010" && (string)r[4]! == FlagCodes.AboveTheoreticalYield);
-        Assert.Contains(table.Rows, r => (string)r[1]! == "L005" && (string)r[4]! == FlagCodes.NotDry);
+        // Then there is one row per lot to look at, the severities never go up again once they have gone down (the
+        // sample plants a likely error, L010), and each lot appears once
+        Assert.Equal(Review.LotReviews.Count(l => l.IsFlagged), table.Rows.Count);
+        Assert.Equal(table.Rows.Count, table.Rows.Select(r => ((int)r[2]!, (string)r[1]!)).Distinct().Count());
+        Assert.Equal(0, ranks[0]);
+        Assert.Contains(1, ranks);
+        Assert.Contains(table.Rows, r => (string)r[1]! == "L010" && ((string)r[8]!).Contains(ReviewTexts.FlagName(FlagCodes.AboveTheoreticalYield), StringComparison.Ordinal));
+        Assert.Contains(table.Rows, r => (string)r[1]! == "L005" && ((string)r[8]!).Contains(ReviewTexts.FlagName(FlagCodes.NotDry), StringComparison.Ordinal));
         Assert.Equal(ranks.Order().ToArray(), ranks);
     }
 
@@ -111,5 +114,45 @@ public sealed class ReviewTablesTests
         Assert.Equal(["not-dry", "above-theoretical-yield"], flagged.Rows.Select(r => (string)r[flagged.IndexOf("codes")]!));
         var overall = versions.Rows.Where(r => (string)r[versions.IndexOf("strain")]! == "all lots").ToArray();
         Assert.Equal([("left out", true, 34), ("included", false, 36)], overall.Select(r => ((string)r[0]!, (bool)r[1]!, (int)r[3]!)));
+    }
+
+    [Fact]
+    public void The_planner_sheet_shows_each_answer_once_under_its_target()
+    {
+        // Given the sample review's planner answers (strain × target × confidence)
+        var answers = Review.HouseFactor.PlannerTable;
+        var targets = answers.Select(a => a.TargetAbv).Distinct().Order().ToArray();
+
+        // When laid out one row per strain and confidence, one column per target
+        var table = ReviewTables.PlannerByTarget(Review);
+
+        // Then every answer's highest sugar is in its row under its target's column, and nothing else is there
+        Assert.True(targets.Length >= 2);
+        Assert.Equal(answers.Count, table.Rows.Count * targets.Length);
+        foreach (var a in answers)
+        {
+            var row = table.Rows.Single(r => (string)r[0]! == (a.Strain == "*" ? "all lots" : a.Strain) && (double)r[1]! == a.Confidence);
+            Assert.Equal(a.HighestBrix, (double)row[3 + Array.IndexOf(targets, a.TargetAbv)]!);
+            Assert.Equal(a.ErrorAllowance, (double)row[2]!, 9);
+        }
+    }
+
+    [Fact]
+    public void Every_flag_code_the_review_wrote_has_plain_words_in_the_glossary()
+    {
+        // Given the sample review with fermentation logs (strain flags, kinetics flags and log findings)
+        var review = SampleReview.WithLogs();
+
+        // When the methods sheet's glossary is laid out
+        var glossary = MethodsTable.FlagGlossary(review);
+        var codes = glossary.Rows.Select(r => (string)r[0]!).ToArray();
+
+        // Then it holds every code the lots table writes, each once, each with words other than the code itself
+        var written = ReviewTables.Lots(review).Rows.Select(r => (string?)r[ReviewTables.Lots(review).IndexOf("flags")])
+            .Where(f => f is not null).SelectMany(f => f!.Split(';')).Distinct().ToArray();
+        Assert.NotEmpty(written);
+        Assert.Subset(codes.ToHashSet(), written.ToHashSet());
+        Assert.Equal(codes.Distinct().Count(), codes.Length);
+        Assert.All(glossary.Rows, r => Assert.NotEqual(r[0], r[1]));
     }
 }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using YieldBench.Core.Lots;
 using System.Data;
 using ClosedXML.Excel;
@@ -67,11 +68,12 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
         string[] names = doc.WorkbookPart!.Workbook.Sheets!.Elements<DocumentFormat.OpenXml.Spreadsheet.Sheet>().Select(s => s.Name!.Value!).ToArray();
 
-        // Then they are ours, in order (no kinetics sheet without logs)
+        // Then they are ours, in reading order: the decisions and the lots to look at first (no kinetics sheets without logs)
         Assert.Equal(
             [
-                "Overview", "Lots", "By strain", "By vessel", "By sugar band", "By variety", "By season", "Strain by vessel", "Strain by season",
-                "Strain comparison", "Follow-up", "House factor", "Planner", "Intake issues", "Methods and cautions",
+                "Overview", "Follow-up", "Lots", "Strain comparison", "House factor", "Planner",
+                "By strain", "By vessel", "By sugar band", "By variety", "By season", "Strain by vessel", "Strain by season",
+                "Intake issues", "Methods and cautions",
             ],
             names);
     }
@@ -89,13 +91,14 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         // Then every lot is there, grouped by strain, with its numbers unchanged
         Assert.Equal(review.Lots.Count, lots.Rows.Count - 1);
         Assert.Equal("Lot", lots.Rows[0][0]);
-        Assert.Equal("Starting sugar after additions (°Brix)", lots.Rows[0][5]);
+        Assert.Equal("Flags", lots.Rows[0][3]);
+        Assert.Equal("Starting sugar after additions (°Brix)", lots.Rows[0][4]);
         var first = review.Lots.Where(l => l.Lot.Strain == "ST-A").OrderBy(l => l.Lot.Season).ThenBy(l => l.Lot.LotId, StringComparer.Ordinal).First();
         Assert.Equal(first.Lot.LotId, lots.Rows[1][0]);
         Assert.Equal("ST-A", lots.Rows[1][2]);
-        Assert.Equal(first.EffectiveStartingBrix, (double)lots.Rows[1][5], 12);
-        Assert.Equal(first.Lot.FinalAlcohol.PercentVolume, (double)lots.Rows[1][6], 12);
-        Assert.Equal(first.AbvPerBrix, (double)lots.Rows[1][8], 12);
+        Assert.Equal(first.EffectiveStartingBrix, (double)lots.Rows[1][4], 12);
+        Assert.Equal(first.Lot.FinalAlcohol.PercentVolume, (double)lots.Rows[1][5], 12);
+        Assert.Equal(first.AbvPerBrix, (double)lots.Rows[1][6], 12);
         Assert.Equal(2024.0, (double)lots.Rows[1][1]);
     }
 
@@ -131,10 +134,10 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         var xRefs = series.Select(s => s.GetFirstChild<C.XValues>()!.Descendants<C.Formula>().Single().Text).ToArray();
         var yRefs = series.Select(s => s.GetFirstChild<C.YValues>()!.Descendants<C.Formula>().Single().Text).ToArray();
 
-        // Then each strain is a block of rows of columns F (starting sugar) and G (final alcohol) of 'Lots'
+        // Then each strain is a block of rows of columns E (starting sugar) and F (final alcohol) of 'Lots'
         Assert.Equal(["ST-A", "ST-B", "ST-C"], names);
-        Assert.Equal(["'Lots'!$F$2:$F$13", "'Lots'!$F$14:$F$25", "'Lots'!$F$26:$F$37"], xRefs);
-        Assert.Equal(["'Lots'!$G$2:$G$13", "'Lots'!$G$14:$G$25", "'Lots'!$G$26:$G$37"], yRefs);
+        Assert.Equal(["'Lots'!$E$2:$E$13", "'Lots'!$E$14:$E$25", "'Lots'!$E$26:$E$37"], xRefs);
+        Assert.Equal(["'Lots'!$F$2:$F$13", "'Lots'!$F$14:$F$25", "'Lots'!$F$26:$F$37"], yRefs);
     }
 
     [Fact]
@@ -233,10 +236,11 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         Assert.Equal(1, lots.SheetView.SplitRow);
         Assert.True(lots.AutoFilter.IsEnabled);
         Assert.Equal(review.Lots.Count + 1, lots.LastRowUsed()!.RowNumber());
-        Assert.Equal("0.00", lots.Cell(2, 6).Style.NumberFormat.Format);
-        Assert.StartsWith("Review of lots-2024.csv, lots-2025.csv (seasons 2024–2025)", wb.Worksheet("Overview").Cell(1, 1).GetString(), StringComparison.Ordinal);
-        Assert.Equal("Lots used", wb.Worksheet("Overview").Cell(7, 1).GetString());
-        Assert.Equal(review.Lots.Count, wb.Worksheet("Overview").Cell(7, 2).GetValue<int>());
+        Assert.Equal("0.00", lots.Cell(2, 5).Style.NumberFormat.Format);
+        var overview = wb.Worksheet("Overview");
+        Assert.StartsWith("Review of lots-2024.csv, lots-2025.csv (seasons 2024–2025)", overview.Cell(1, 1).GetString(), StringComparison.Ordinal);
+        var used = overview.Column(1).CellsUsed().Single(c => c.GetString() == "Lots used");
+        Assert.Equal(review.Lots.Count, used.CellRight().GetValue<int>());
     }
 
     [Fact]
@@ -272,13 +276,16 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
             .Where(r => r[0] is string && r[1] is not DBNull)
             .GroupBy(r => (string)r[0]).ToDictionary(g => g.Key, g => g.First()[1]);
 
-        // Then the counts match the review (36 lots, 1 row left out, 2 issues, the flagged lots)
+        // Then the counts match the review (36 lots, 1 row left out, 2 issues, the flagged lots: one line each)
         Assert.Equal(36.0, Convert.ToDouble(pairs["Lots used"], System.Globalization.CultureInfo.InvariantCulture));
-        Assert.Equal(1.0, Convert.ToDouble(pairs["Rows left out (see Intake issues)"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(1.0, Convert.ToDouble(pairs["Rows left out"], System.Globalization.CultureInfo.InvariantCulture));
         Assert.Equal(2.0, Convert.ToDouble(pairs["Intake issues"], System.Globalization.CultureInfo.InvariantCulture));
         int flagged = review.Lots.Count(l => review.Strains.Flags.Any(f => f.LotKey == l.Lot.Key));
         Assert.True(flagged >= 2);
-        Assert.Equal((double)flagged, Convert.ToDouble(pairs["Flagged lots, strain review or kinetics (highlighted on Lots)"], System.Globalization.CultureInfo.InvariantCulture));
+        var texts = overview.Rows.Cast<DataRow>().Select(r => r[0]).OfType<string>().ToArray();
+        Assert.Contains(texts, t => t.StartsWith($"{flagged} lot(s), one line each", StringComparison.Ordinal));
+        Assert.Equal(flagged, review.Findings.Count);
+        Assert.All(review.Findings, f => Assert.Contains(texts, t => t.StartsWith($"{f.Key} {f.Strain} (", StringComparison.Ordinal)));
         Assert.Equal("2024, 2025", pairs["Seasons"]);
     }
 
@@ -300,6 +307,37 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
 
             // Then flagged rows carry the highlight colour and the others none
             Assert.Equal(flagged, fill.HasValue && (fill.Color.R, fill.Color.G, fill.Color.B) == (0xFB, 0xE8, 0xC4));
+        }
+    }
+
+    [Fact]
+    public void The_native_chart_points_at_the_lots_rows_that_hold_its_values()
+    {
+        // Given the workbook with pictures (its lots rows streamed into the package)
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(fixture.Bytes), false);
+        var series = SheetPart(doc, WorkbookWriter.Sheets.Overview).DrawingsPart!.ChartParts.Single().ChartSpace.Descendants<C.ScatterChartSeries>().ToArray();
+        var lots = WorkbookTests.ReadSheet(fixture.Bytes, WorkbookWriter.Sheets.Lots);
+
+        // When each series' X and Y ranges are resolved against the lots sheet
+        Assert.Equal(3, series.Length);
+        foreach (var s in series)
+        {
+            foreach (var values in new C.NumberReference[] { s.GetFirstChild<C.XValues>()!.NumberReference!, s.GetFirstChild<C.YValues>()!.NumberReference! })
+            {
+                string range = values.Formula!.Text;
+                var m = System.Text.RegularExpressions.Regex.Match(range, @"^'Lots'!\$([A-Z]+)\$(\d+):\$\1\$(\d+)$");
+                Assert.True(m.Success, range);
+                int column = StreamedSheet.ParseReference(m.Groups[1].Value + "1").Column - 1;
+                int first = int.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture), last = int.Parse(m.Groups[3].Value, CultureInfo.InvariantCulture);
+                var cached = values.NumberingCache!.Elements<C.NumericPoint>().Select(p => double.Parse(p.NumericValue!.Text, CultureInfo.InvariantCulture)).ToArray();
+
+                // Then the cells there hold the chart's cached values, row for row
+                Assert.Equal(last - first + 1, cached.Length);
+                for (int i = 0; i < cached.Length; i++)
+                {
+                    Assert.Equal(cached[i], Convert.ToDouble(lots.Rows[first - 1 + i][column], CultureInfo.InvariantCulture));
+                }
+            }
         }
     }
 

@@ -55,7 +55,7 @@ internal static class Comparison
 
         return new StrainComparison
         {
-            Measure = "abv_per_brix (abv_per_brix_fermented for lots that are not dry)",
+            Measure = "alcohol per °Brix (for a lot that is not dry, per °Brix of the sugar that fermented)",
             Strains = strains,
             RawMedians = medians,
             KruskalWallis = kw,
@@ -224,7 +224,7 @@ internal static class Comparison
             string verdict = kw.P < Alpha
                 ? "the strains' factors differ by more than the lot-to-lot noise would explain"
                 : "no difference between the strains' factors stands out from the lot-to-lot noise";
-            sentences.Add(Invariant($"Kruskal–Wallis across {strains.Length} strains ({kw.N} lots): H = {kw.H:0.00}, {PValues.Text(kw.P)}; {verdict}."));
+            sentences.Add(Invariant($"Kruskal–Wallis rank test across {strains.Length} strains ({kw.N} lots): H = {kw.H:0.00}, {kw.DegreesOfFreedom} degrees of freedom, p {PText(kw.P)}; {verdict}."));
         }
 
         foreach (var p in pairs)
@@ -232,7 +232,7 @@ internal static class Comparison
             string verdict = p.HolmP < Alpha && !p.Interval.Contains(0)
                 ? "larger than the noise"
                 : "within the noise";
-            sentences.Add(Invariant($"{p.First} − {p.Second}: raw shift {p.Shift:+0.0000;-0.0000;0.0000} % v/v per °Brix ({level} % interval {p.Interval.Low:0.0000} to {p.Interval.High:0.0000}; Holm-adjusted {PValues.Text(p.HolmP)}) — {verdict}."));
+            sentences.Add(Invariant($"{p.First} − {p.Second}: raw shift {p.Shift:+0.0000;-0.0000;0.0000} % v/v per °Brix ({level} % interval {p.Interval.Low:0.0000} to {p.Interval.High:0.0000}; Holm-adjusted p {PText(p.HolmP)}) — {verdict}."));
         }
 
         if (adjusted.Strains.Count == 0)
@@ -246,6 +246,13 @@ internal static class Comparison
         {
             sentences.Add(DifferenceSentence(d));
         }
+    }
+
+    // "= 0.0123" or "< 0.0001": a p-value is never printed as 0.0000.
+    private static string PText(double p)
+    {
+        string text = ReviewTexts.P(p);
+        return text.StartsWith('<') ? text : "= " + text;
     }
 
     /// <summary>An adjusted difference in plain words: which strain makes how much more alcohol from the same sugar, or that they are the same within the noise.</summary>
