@@ -62,7 +62,8 @@ public static class TheilSen
 
         // x values equal but for floating-point noise (24.999999999999996 and 25, as sugar conversions and addition
         // balances produce) are ties: compared unrounded they make pairs with slopes of ±10¹⁴ that mean nothing.
-        x = x.Select(SnapNoise).ToArray();
+        var snapped = x.Select(SnapNoise).ToArray();
+        x = snapped;
         var xs = Descriptive.ToSortedArray(x);
         long tiedXPairs = TiedPairs(xs);
         long pairs = ((long)n * (n - 1) / 2) - tiedXPairs;
@@ -71,7 +72,7 @@ public static class TheilSen
             return new TheilSenLine(double.NaN, double.NaN, Interval.Undefined(level), n, 0, n < 2 ? "fewer than two points" : "all x values are equal");
         }
 
-        Func<long, long, double[]> select = n <= DirectLimit ? DirectSelector(x, y) : new SlopeSelector(x, y, seed).SelectRange;
+        Func<long, long, double[]> select = n <= DirectLimit ? DirectSelector(snapped, y.ToArray(), pairs) : new SlopeSelector(x, y, seed).SelectRange;
         double slope;
         if (pairs % 2 == 1)
         {
@@ -115,24 +116,25 @@ public static class TheilSen
         return decimals is >= 0 and <= 15 ? Math.Round(v, decimals, MidpointRounding.ToEven) : v;
     }
 
-    private static Func<long, long, double[]> DirectSelector(IReadOnlyList<double> x, IReadOnlyList<double> y)
+    private static Func<long, long, double[]> DirectSelector(double[] x, double[] y, long pairs)
     {
-        int n = x.Count;
-        var slopes = new List<double>();
+        int n = x.Length;
+        var a = new double[pairs];
+        int m = 0;
         for (int i = 0; i < n; i++)
         {
+            double xi = x[i], yi = y[i];
             for (int j = i + 1; j < n; j++)
             {
-                if (x[i] != x[j])
+                if (xi != x[j])
                 {
-                    slopes.Add((y[j] - y[i]) / (x[j] - x[i]));
+                    a[m++] = (y[j] - yi) / (x[j] - xi);
                 }
             }
         }
 
         // Selection, not a sort: the fit needs two to four order statistics of up to a million slopes, and the house
         // factor's nested backtests fit some hundred lines (docs/performance.md). The values are the sort's exactly.
-        var a = slopes.ToArray();
         return (kLow, kHigh) =>
         {
             var result = new double[kHigh - kLow + 1];
