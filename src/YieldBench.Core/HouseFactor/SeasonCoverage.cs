@@ -91,18 +91,30 @@ public static class SeasonCoverage
         var planning = inner.Planning;
         var overall = inner.Overall;
         var overallFit = overall is null ? null : inner.Candidates.First(c => c.Id == overall.CandidateId).FullFit;
+
+        // A line's interval is its prediction plus its error bands (Planner.Estimate); the bands (four Student-t
+        // quantiles) depend on the line alone, so they are taken once per line, not once per lot.
+        var bands = new Dictionary<PlanningLine, ((double Low, double High) B80, (double Low, double High) B95)>(ReferenceEqualityComparer.Instance);
         foreach (var l in test)
         {
             double actual = l.Lot.FinalAlcohol.PercentVolume;
             double brix = l.EffectiveStartingBrix;
             if (planning is not null)
             {
-                var e = Planner.Estimate(planning.For(l.Lot.Strain), Units.SugarReading.FromBrix(brix));
-                if (double.IsFinite(e.Low80) && double.IsFinite(e.Low95))
+                var line = planning.For(l.Lot.Strain);
+                if (!bands.TryGetValue(line, out var b))
+                {
+                    var model = line.ErrorModel;
+                    bands[line] = b = (model.Band(0.80), model.Band(0.95));
+                }
+
+                double predicted = line.Predict(Units.SugarReading.FromBrix(brix).Brix);
+                double low80 = predicted + b.B80.Low, high80 = predicted + b.B80.High, low95 = predicted + b.B95.Low, high95 = predicted + b.B95.High;
+                if (double.IsFinite(low80) && double.IsFinite(low95))
                 {
                     lots++;
-                    in80 += actual >= e.Low80 && actual <= e.High80 ? 1 : 0;
-                    in95 += actual >= e.Low95 && actual <= e.High95 ? 1 : 0;
+                    in80 += actual >= low80 && actual <= high80 ? 1 : 0;
+                    in95 += actual >= low95 && actual <= high95 ? 1 : 0;
                 }
             }
 

@@ -25,7 +25,7 @@ public sealed record TheilSenLine(double Slope, double Intercept, Interval Slope
 /// σ² = [n(n−1)(2n+5) − Σₓ t(t−1)(2t+5) − Σᵧ t(t−1)(2t+5)]/18 over tie groups in x and in y (Sen 1968, eq. 2.6,
 /// as scipy 1.10 <c>theilslopes</c>, rounding half to even). Policies: fewer than two points, or all x equal, give
 /// NaN with a note.
-/// Up to <see cref="DirectLimit"/> points every slope is formed and the needed ones selected (Hoare's FIND). Beyond it each needed order statistic is
+/// Up to <see cref="DirectLimit"/> points every slope is formed and the needed ones selected (quickselect). Beyond it each needed order statistic is
 /// selected exactly in expected O(n log n) time per round: the number of slopes ≤ t equals a count of inversions
 /// between the x order and the order of y − t·x (merge sort), a seeded random sample of slopes gives a first bracket,
 /// interpolation on the counts narrows it until few slopes remain inside, and those are listed and sorted.
@@ -142,59 +142,12 @@ public static class TheilSen
             {
                 // After selecting rank k every later slope sits to its right, so the next rank is the least of those.
                 int k = (int)(kLow - 1) + r;
-                SelectInPlace(a, k, r == 0 ? 0 : k, a.Length - 1);
-                result[r] = a[k];
+                int from = r == 0 ? 0 : k;
+                result[r] = Descriptive.SelectInPlace(a.AsSpan(from), k - from);
             }
 
             return result;
         };
-    }
-
-    /// <summary>
-    /// Hoare's selection (FIND, 1961) with a median-of-three pivot: rearranges a[left..right] so that a[k] holds the
-    /// value a sort would put there, everything before it no greater and everything after it no smaller.
-    /// </summary>
-    internal static void SelectInPlace(double[] a, int k, int left, int right)
-    {
-        while (right > left)
-        {
-            int mid = left + ((right - left) / 2);
-            double p = a[left], q = a[mid], r = a[right];
-            double pivot = Math.Max(Math.Min(p, q), Math.Min(Math.Max(p, q), r));
-            int i = left, j = right;
-            while (i <= j)
-            {
-                while (a[i] < pivot)
-                {
-                    i++;
-                }
-
-                while (a[j] > pivot)
-                {
-                    j--;
-                }
-
-                if (i <= j)
-                {
-                    (a[i], a[j]) = (a[j], a[i]);
-                    i++;
-                    j--;
-                }
-            }
-
-            if (k <= j)
-            {
-                right = j;
-            }
-            else if (k >= i)
-            {
-                left = i;
-            }
-            else
-            {
-                return;
-            }
-        }
     }
 
     private static long TiedPairs(double[] sorted)
