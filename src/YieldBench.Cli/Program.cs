@@ -1,3 +1,5 @@
 using YieldBench.Cli;
 
-return YieldBenchApp.Run(args, CliContext.FromConsole());
+var context = CliContext.FromConsole();
+YieldBenchApp.HandleUnobservedFaults(args, context);
+return YieldBenchApp.Run(args, context);

@@ -172,7 +172,7 @@ public sealed class CommandLineMannersTests : IDisposable
     }
 
     [Fact]
-    public void A_fault_inside_a_command_is_one_line_with_exit_code_3_never_a_stack_trace()
+    public void A_fault_inside_a_command_is_a_short_message_naming_a_details_file_with_exit_code_3_never_a_stack_trace()
     {
         // Given a command whose action fails with an exception (standing in for a fault of the tool)
         var root = new System.CommandLine.RootCommand();
@@ -180,18 +180,66 @@ public sealed class CommandLineMannersTests : IDisposable
         broken.SetAction((System.CommandLine.ParseResult _) => (int)Fail());
         root.Subcommands.Add(broken);
         var error = new StringWriter();
+        string logs = Directory.CreateDirectory(Path.Combine(_dir, "logs")).FullName;
 
         // When it runs through the app's own runner
-        int exit = YieldBenchApp.Invoke(root.Parse(["broken"]), new CliContext(TextWriter.Null, error, false, _dir));
+        int exit = YieldBenchApp.Invoke(root.Parse(["broken"]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
 
-        // Then one line says what failed and that it is the tool's fault, with exit code 3
+        // Then a short message says what failed, that it is the tool's fault, and where the details went, with exit code 3
+        string details = Assert.Single(Directory.GetFiles(logs));
         Assert.Equal(ExitCodes.InternalError, exit);
-        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", Cli.Flat(error.ToString()).Trim());
-        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100, l));
+        Assert.Equal($"yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave. Details (for a bug report): {details}", Cli.Flat(error.ToString()).Trim());
+        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100 || !l.Trim().Contains(' ', StringComparison.Ordinal), l));
+        Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+
+        // And the details file holds the command line and the stack trace
+        string text = File.ReadAllText(details);
+        Assert.Contains("command line: yieldbench broken", text, StringComparison.Ordinal);
+        Assert.Contains("   at ", text, StringComparison.Ordinal);
+        Assert.Contains(nameof(Fail), text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_file_that_cannot_be_written_mid_command_is_said_as_such_not_as_a_fault_of_the_tool()
+    {
+        // Given a command that fails because the disk is full
+        var root = new System.CommandLine.RootCommand();
+        var full = new System.CommandLine.Command("full");
+        full.SetAction((System.CommandLine.ParseResult _) => (int)DiskFull());
+        root.Subcommands.Add(full);
+        var error = new StringWriter();
+
+        // When it runs, with a details folder that cannot be written either
+        int exit = YieldBenchApp.Invoke(root.Parse(["full"]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = Path.Combine(_dir, "no", "such", "folder") });
+
+        // Then the message says what stopped and what to do, and that the details could not be saved; exit code 3
+        string said = Cli.Flat(error.ToString()).Trim();
+        Assert.Equal(ExitCodes.InternalError, exit);
+        Assert.StartsWith("yieldbench: the command stopped because a file could not be read or written (No space left on device). Free space on the disk or fix the file's permissions, then run it again. (The details could not be saved: ", said, StringComparison.Ordinal);
+        Assert.DoesNotContain("fault of the tool", said, StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_fault_while_parsing_goes_through_the_same_handler()
+    {
+        // Given a null argument list (an exception before any command is chosen)
+        var error = new StringWriter();
+        string logs = Directory.CreateDirectory(Path.Combine(_dir, "parse-logs")).FullName;
+
+        // When the app runs it
+        int exit = YieldBenchApp.Run(["check", null!], new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
+
+        // Then it is the short message with its details file, exit code 3
+        Assert.Equal(ExitCodes.InternalError, exit);
+        Assert.Contains("yieldbench: an internal error stopped the command", Cli.Flat(error.ToString()), StringComparison.Ordinal);
+        Assert.Single(Directory.GetFiles(logs));
         Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
     }
 
     private static int Fail() => throw new InvalidOperationException("Sequence contains no elements");
+
+    private static int DiskFull() => throw new IOException("No space left on device");
 
     [Fact]
     public void A_report_kept_inside_the_input_folder_is_not_read_back_as_input()

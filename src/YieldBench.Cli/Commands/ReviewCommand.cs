@@ -137,7 +137,8 @@ internal static class ReviewCommand
         console.Stage("reading inputs");
         // Reading the inputs keeps one core busy; the other compiles the workbook and chart code meanwhile (about 0.3 s
         // off the demo review, docs/performance.md). The warm-up writes nothing; it is awaited before the reports are
-        // written, so a failure in it is not hidden.
+        // written (or before returning early), so a failure in it is not hidden; when the command fails before then, that
+        // failure is the one reported.
         var warmUp = Task.Run(ReportWriter.WarmUp);
         var options = new IntakeOptions
         {
@@ -151,7 +152,8 @@ internal static class ReviewCommand
         // The hashed file list is what was really read (folders expanded): check it too before writing anything.
         if (ReportFolder.Problem(outFolder, set.Files.Select(f => Path.GetFullPath(f.Path, inputRoot))) is { } fileClash)
         {
-            context.Error.WriteLine(fileClash);
+            warmUp.GetAwaiter().GetResult();
+            TextWrap.WriteLine(context.Error, "review: " + fileClash);
             return ExitCodes.Usage;
         }
 
@@ -176,7 +178,7 @@ internal static class ReviewCommand
         catch (ReportFolderException e)
         {
             console.Done();
-            context.Error.WriteLine(e.Message);
+            TextWrap.WriteLine(context.Error, "review: " + e.Message);
             return ExitCodes.Usage;
         }
 
