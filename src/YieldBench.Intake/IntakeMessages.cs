@@ -212,6 +212,9 @@ public static class IntakeMessages
     internal static string TextTooLong(string field, int length, int limit) =>
         $"{field} is {length.ToString("N0", Inv)} characters long, more than the {limit.ToString("N0", Inv)} a spreadsheet cell holds; it was cut to that length. Shorten the text in the file.";
 
+    internal static string MergedCells(string range, int fromRow, int toRow) =>
+        $"The cells {range} are merged: a spreadsheet program shows their value once, but the file stores it only in the first cell, so it was read for each of rows {fromRow}–{toRow}. If that is wrong, unmerge the cells and type each row's own value.";
+
     internal static string FormulaWithoutValue(string field, string formula) =>
         $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";
 
