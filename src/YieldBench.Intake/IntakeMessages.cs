@@ -71,6 +71,9 @@ public static class IntakeMessages
     internal static string BinaryCsv(long offset) =>
         $"The file is named .csv but holds binary data (a zero byte at offset {offset.ToString(Inv)}), not text. Export the sheet as CSV again, or give the workbook itself.";
 
+    internal static string Utf16Assumed(bool bigEndian) =>
+        $"The file has no byte-order mark, but its bytes are UTF-16 text ({(bigEndian ? "big" : "little")}-endian), and it was read as such. If letters look wrong, save it again as UTF-8 CSV.";
+
     internal static string EncodingAssumed() =>
         "The file is not valid UTF-8; it was read as Windows-1252. If letters look wrong, save it again as UTF-8 CSV.";
 

@@ -51,6 +51,28 @@ public class HostileInputTests
     }
 
     [Theory]
+    [InlineData("utf16le-no-bom-2023.csv", "UTF-16 text (little-endian)")]
+    [InlineData("utf16be-no-bom-2023.csv", "UTF-16 text (big-endian)")]
+    [InlineData("utf32-bom-2023.csv", null)]
+    public async Task Unicode_text_without_a_byte_order_mark_or_in_utf32_is_read_not_refused_as_binary(string name, string? said)
+    {
+        // Given the same three lots written as UTF-16 without a mark, or as UTF-32 with one
+        var set = await Read(name);
+
+        // Then the lots and their accented note are read, and a guessed encoding is said
+        Assert.Equal(["A-01", "A-02", "A-03"], set.Lots.Select(l => l.LotId));
+        Assert.Equal("levée à froid 12 °C", set.Lots[2].Notes);
+        if (said is null)
+        {
+            Assert.Empty(set.Issues);
+        }
+        else
+        {
+            Assert.Contains(said, Assert.Single(set.Issues, i => i.Code == "encoding-assumed").Message, StringComparison.Ordinal);
+        }
+    }
+
+    [Theory]
     [InlineData("merged-cells-2023.xlsx")]
     [InlineData("merged-cells-2023.ods")]
     public async Task A_strain_merged_over_three_lots_is_read_for_each_with_a_warning_naming_the_block(string name)

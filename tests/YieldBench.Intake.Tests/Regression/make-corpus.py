@@ -200,6 +200,7 @@ def main():
     # ---------------------------------------------------------------- encodings and CSV shapes
     with open(path("utf16-bom-2023.csv"), "wb") as f:
         f.write("\ufeff".encode("utf-16-le") + "\n".join([LOTS] + GOOD).encode("utf-16-le"))
+    unicode_without_mark()
     text("latin1-2023.csv", LOTS + ",Notes\nA-01,2023,QX-7,24.0,14.0,levée à froid\n", encoding="latin-1")
     text("crlf-2023.csv", "\r\n".join([LOTS] + GOOD) + "\r\n", newline="")
     csv("unquoted-thousands-2023.csv", "Lot,Vintage,Yeast,Brix,Alcohol % v/v,Must volume (L)", "A-01,2023,QX-7,24.0,14.0,4500", "A-02,2023,QX-9,23.1,13.4,4,500", "A-03,2023,QX-7,25.2,14.9,\"4,500\"")
@@ -345,6 +346,14 @@ def main():
     for name in sorted(os.listdir(found)):
         shutil.copy(os.path.join(found, name), path(name))
     print("corpus written to", OUT)
+
+
+def unicode_without_mark():
+    """UTF-16 without a byte-order mark (little- and big-endian), and UTF-32 with one."""
+    body = LOTS + ",Notes\n" + "\n".join(GOOD) + ",levée à froid 12 °C\n"
+    text("utf16le-no-bom-2023.csv", body, encoding="utf-16-le")
+    text("utf16be-no-bom-2023.csv", body, encoding="utf-16-be")
+    text("utf32-bom-2023.csv", body, encoding="utf-32")
 
 
 def merged_cells():
