@@ -56,9 +56,17 @@ public static class YieldBenchApp
         }
 
         var parse = root.Parse(args);
+        if (CommandLine.Suggestions.Misspelt(parse, context.WorkingDirectory) is { } misspelt)
+        {
+            CommandLine.TextWrap.WriteLine(context.Error, misspelt);
+            return ExitCodes.Usage;
+        }
+
         if (parse.Errors.Count > 0)
         {
-            foreach (var error in parse.Errors)
+            // A word not understood says more than "Required command was not provided", which it causes.
+            bool unmatched = parse.UnmatchedTokens.Count > 0;
+            foreach (var error in parse.Errors.Where(e => !unmatched || e.Message != "Required command was not provided."))
             {
                 CommandLine.TextWrap.WriteLine(context.Error, error.Message);
             }
