@@ -5,12 +5,11 @@ namespace YieldBench.Core.Forecast;
 /// <summary>
 /// Turns a lot's weighted grid into the forecast: one-third and dry times, the peak, the stuck risk, the next reading,
 /// the heat figures and the chart courses. Each node's quantities are Gaussian (S0, F, Ta and P are Gaussian there;
-/// times by the delta method) and enter the mixture as three Gauss–Hermite points.
+/// times by the delta method) and the forecast is their mixture over nodes, its quantiles found exactly
+/// (<see cref="NormalMixture"/>).
 /// </summary>
 internal static class PosteriorSummary
 {
-    private static readonly double Root3 = Math.Sqrt(3.0);
-
     public static LotForecast Summarise(LotPosterior p, double[] w, double nowHours, double shift, ForecastSettings settings, bool withCurves)
     {
         var c = p.Course;
@@ -19,11 +18,11 @@ internal static class PosteriorSummary
         double level = LoggedEvents.DepletionLevel(c, settings);
         double dry = settings.Kinetics.DryBrix;
         double lo = (1 - settings.IntervalLevel) / 2, hi = 1 - lo;
-        var thirds = new WeightedPoints(p.Nodes * LotPosterior.Parts * 3);
-        var drys = new WeightedPoints(p.Nodes * LotPosterior.Parts * 4);
-        var peaks = new WeightedPoints(p.Nodes * LotPosterior.TempParts * 3);
-        double rateSum = 0, startSum = 0, finalSum = 0, partSum = 0;
+        var thirds = new NormalMixture(p.Nodes * LotPosterior.Parts);
+        var drys = new NormalMixture(p.Nodes * LotPosterior.Parts);
         double observedMax = c.TempC.Length > 0 ? c.TempC.Max() : double.NegativeInfinity;
+        var peaks = new NormalMixture(p.Nodes * LotPosterior.TempParts) { Floor = observedMax };
+        double rateSum = 0, startSum = 0, finalSum = 0, partSum = 0;
         bool peakModel = c.TempC.Length > 0 || m.MustTemp.Count > 0;
         double neverDry = 0;
         double noise = LotPosterior.SugarVariance(c, m);
@@ -60,10 +59,7 @@ internal static class PosteriorSummary
                     AddTime(drys, form, kappa, lambda, truncated, dry, wk * pDry, noise);
                 }
 
-                if (pDry < 1)
-                {
-                    drys.Add(double.PositiveInfinity, wk * (1 - pDry));
-                }
+                drys.Add(double.PositiveInfinity, 0, wk * (1 - pDry));
 
                 rateSum += wk * kappa * (g.A - g.B);
                 startSum += wk * g.A;
@@ -78,13 +74,17 @@ internal static class PosteriorSummary
                     var t = p.Temp[(k * LotPosterior.TempParts) + part];
                     double mean = t.B + offset.Mean;
                     double sd = Math.Sqrt(t.Vbb + (offset.Sd * offset.Sd));
-                    AddPoints(peaks, mean, sd, w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part], observedMax);
+                    peaks.Add(mean, sd, w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
                 }
             }
         }
 
         double oneThirdPassedAt = c.SugarBrix.Length > 0 && c.SugarBrix.Min() <= level ? LoggedEvents.FirstCrossing(c.SugarHours, c.SugarBrix, level)!.Value : double.NaN;
         bool passed = !double.IsNaN(oneThirdPassedAt);
+        // Components carrying together 0.1 % of the weight move no quantile by more than that share: leave them out.
+        thirds.Compact(1e-3);
+        drys.Compact(1e-3);
+        peaks.Compact(1e-3);
         var third = passed ? new ForecastValue(oneThirdPassedAt, oneThirdPassedAt, oneThirdPassedAt) : Interval(thirds, lo, hi);
         var dryValue = Interval(drys, lo, hi);
         var peakValue = peaks.Count > 0 ? Interval(peaks, lo, hi) : (ForecastValue?)null;
@@ -95,8 +95,8 @@ internal static class PosteriorSummary
         // Sluggish or stuck: never dry, or dry later than the strain's slowest past lot.
         var med = m.MediansFor(c.Strain);
         double slowest = med.SlowestDryHours - (c.FromInoculation ? 0 : m.FirstReadingDelay.Median);
-        double late = double.IsNaN(slowest) ? 0 : drys.WeightAbove(slowest, finiteOnly: true);
-        double stuckRisk = Math.Clamp(neverDry + (late / Math.Max(1e-12, drys.TotalWeight)), 0, 1);
+        double late = double.IsNaN(slowest) ? 0 : drys.ShareAbove(slowest, finiteOnly: true);
+        double stuckRisk = Math.Clamp(neverDry + late, 0, 1);
 
         // Heat: what is left to ferment could still raise the must this much with no heat removed.
         double? reachable = null;
@@ -146,19 +146,19 @@ internal static class PosteriorSummary
     /// Adds the time the readings will show the curve reaching <paramref name="level"/> at this node: the delta-method
     /// spread from S0 and F, and a reading's own noise (σ²) turned into time by the rate there.
     /// </summary>
-    private static void AddTime(WeightedPoints points, SigmoidModel form, double kappa, double lambda, Gaussian2 g, double level, double weight, double noiseVar)
+    private static void AddTime(NormalMixture mixture, SigmoidModel form, double kappa, double lambda, Gaussian2 g, double level, double weight, double noiseVar)
     {
         double a = g.A - g.B;
         if (!(a > 0))
         {
-            points.Add(double.PositiveInfinity, weight);
+            mixture.Add(double.PositiveInfinity, 0, weight);
             return;
         }
 
         double share = (g.A - level) / a;
         if (share >= 1)
         {
-            points.Add(double.PositiveInfinity, weight);
+            mixture.Add(double.PositiveInfinity, 0, weight);
             return;
         }
 
@@ -166,27 +166,18 @@ internal static class PosteriorSummary
         double t = SigmoidShape.TimeAt(form, kappa, lambda, share);
         double slope = SigmoidShape.Slope(form, kappa, lambda, t);
         double gs = (level - g.B) / (a * a), gf = (g.A - level) / (a * a);
-        double sd = slope > 1e-12 ? Math.Sqrt(Math.Max(0, g.VarianceOf(gs, gf) + (noiseVar / (a * a)))) / slope : 0;
-        AddPoints(points, t, Math.Min(sd, 500), weight, double.NegativeInfinity);
+        double variance = slope > 1e-12 ? Math.Max(0, g.VarianceOf(gs, gf) + (noiseVar / (a * a))) / (slope * slope) : 0;
+        mixture.Add(t, Math.Min(Math.Sqrt(variance), 500), weight);
     }
 
-    /// <summary>Three-point Gauss–Hermite rule for a normal: mean and mean ± √3·sd with weights 2/3 and 1/6 (each at least <paramref name="floor"/>).</summary>
-    private static void AddPoints(WeightedPoints points, double mean, double sd, double weight, double floor)
+    private static ForecastValue? Interval(NormalMixture mixture, double lo, double hi)
     {
-        points.Add(Math.Max(mean - (Root3 * sd), floor), weight / 6);
-        points.Add(Math.Max(mean, floor), weight * 2 / 3);
-        points.Add(Math.Max(mean + (Root3 * sd), floor), weight / 6);
-    }
-
-    private static ForecastValue? Interval(WeightedPoints points, double lo, double hi)
-    {
-        if (points.Count == 0)
+        if (mixture.Count == 0)
         {
             return null;
         }
 
-        points.Sort();
-        return new ForecastValue(points.QuantileOfSorted(0.5), points.QuantileOfSorted(lo), points.QuantileOfSorted(hi));
+        return new ForecastValue(mixture.Quantile(0.5), mixture.Quantile(lo), mixture.Quantile(hi));
     }
 
     private static (double At, string For) NextReading(LotPosterior p, double[] w, double now, bool forThird, double thirdLow, double level, double dry, ForecastSettings settings)
