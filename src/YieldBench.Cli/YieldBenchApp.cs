@@ -40,6 +40,41 @@ public static class YieldBenchApp
             Environment.Exit(ExitCodes.InternalError);
         };
 
+    /// <summary>
+    /// Says in one line that Ctrl-C or a stop signal ended the command, which then ends as the signal asks (exit code
+    /// 130, or 143 for SIGTERM). Every file is written whole or not at all (reports through a staging folder, single
+    /// files through a hidden partial file renamed into place), so there is nothing else to undo.
+    /// </summary>
+    public static void SayWhenStopped(CliContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        _stopSignals =
+        [
+            System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGINT, _ => Stopped(context, "Ctrl-C")),
+            System.Runtime.InteropServices.PosixSignalRegistration.Create(System.Runtime.InteropServices.PosixSignal.SIGTERM, _ => Stopped(context, "a stop signal")),
+        ];
+    }
+
+    /// <summary>The line said when a signal stops the command.</summary>
+    internal static string StoppedMessage(string by) =>
+        $"yieldbench: stopped by {by}. Nothing half-written was left in place: a report folder keeps its previous report until a run finishes, and the next run clears away an unfinished copy.";
+
+    private static System.Runtime.InteropServices.PosixSignalRegistration[]? _stopSignals;
+
+    private static void Stopped(CliContext context, string by)
+    {
+        try
+        {
+            context.Error.WriteLine();
+            CommandLine.TextWrap.WriteLine(context.Error, StoppedMessage(by));
+            context.Error.Flush();
+        }
+        catch (Exception e) when (e is IOException or ObjectDisposedException)
+        {
+            // Standard error is gone: the exit code still says the command was stopped.
+        }
+    }
+
     private static int ParseAndInvoke(string[] args, CliContext context)
     {
         var root = new RootCommand(
@@ -56,9 +91,17 @@ public static class YieldBenchApp
         }
 
         var parse = root.Parse(args);
+        if (CommandLine.Suggestions.Misspelt(parse, context.WorkingDirectory) is { } misspelt)
+        {
+            CommandLine.TextWrap.WriteLine(context.Error, misspelt);
+            return ExitCodes.Usage;
+        }
+
         if (parse.Errors.Count > 0)
         {
-            foreach (var error in parse.Errors)
+            // A word not understood says more than "Required command was not provided", which it causes.
+            bool unmatched = parse.UnmatchedTokens.Count > 0;
+            foreach (var error in parse.Errors.Where(e => !unmatched || e.Message != "Required command was not provided."))
             {
                 CommandLine.TextWrap.WriteLine(context.Error, error.Message);
             }

@@ -49,7 +49,27 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["check", "lots-2023.csv", "--column", "strain"], "is not of the form FIELD = HEADER" },
         { ["review", "lots-2023.csv", "--mapping", "nope.txt"], "the mapping file 'nope.txt' was not found" },
         { ["template", "--out", "notes.txt.xlsx"], "already exists" },
+        { ["revew", "lots-2023.csv"], "yieldbench: 'revew' is not a command; did you mean 'review'? Run 'yieldbench --help' for usage." },
+        { ["chek", "lots-2023.csv"], "yieldbench: 'chek' is not a command; did you mean 'check'?" },
+        { ["review", "lots-2023.csv", "--outt", "x"], "review: '--outt' is not an option of review; did you mean '--out'? Run 'yieldbench review --help' for usage." },
+        { ["review", "lots-2023.csv", "--seeed", "3"], "did you mean '--seed'?" },
+        { ["check", "lots-2023.csv", "--colum", "strain=Yeast"], "check: '--colum' is not an option of check; did you mean '--column'?" },
+        { ["forecast", "--quite"], "forecast: '--quite' is not an option of forecast; did you mean '--quiet'?" },
     };
+
+    [Fact]
+    public void A_word_far_from_every_name_gets_no_suggestion_and_a_word_not_understood_is_said_alone()
+    {
+        // Given a command that is no near miss
+        var (exit, _, error) = Run("harvest-now");
+
+        // Then the parser's own words say so, without the "required command" line it causes, and without a guess
+        Assert.Equal(ExitCodes.Usage, exit);
+        Assert.Equal("Unrecognized command or argument 'harvest-now'. Run 'yieldbench --help' for usage.", Cli.Flat(error).Trim());
+        Assert.Null(CommandLine.Suggestions.Nearest("-q", ["--quiet", "-?"]));
+        Assert.Equal(2, CommandLine.Suggestions.Distance("--quite", "--quiet"));
+        Assert.Equal(3, CommandLine.Suggestions.Distance("kitten", "sitting"));
+    }
 
     [Theory]
     [MemberData(nameof(UsageErrors))]
@@ -175,15 +195,10 @@ public sealed class CommandLineMannersTests : IDisposable
     public void A_fault_inside_a_command_is_a_short_message_naming_a_details_file_with_exit_code_3_never_a_stack_trace()
     {
         // Given a command whose action fails with an exception (standing in for a fault of the tool)
-        var root = new System.CommandLine.RootCommand();
-        var broken = new System.CommandLine.Command("broken");
-        broken.SetAction((System.CommandLine.ParseResult _) => (int)Fail());
-        root.Subcommands.Add(broken);
-        var error = new StringWriter();
         string logs = Directory.CreateDirectory(Path.Combine(_dir, "logs")).FullName;
 
         // When it runs through the app's own runner
-        int exit = YieldBenchApp.Invoke(root.Parse(["broken"]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
+        var (exit, error) = RunThrowing("broken", Fail, logs);
 
         // Then a short message says what failed, that it is the tool's fault, and where the details went, with exit code 3
         string details = Assert.Single(Directory.GetFiles(logs));
@@ -202,15 +217,11 @@ public sealed class CommandLineMannersTests : IDisposable
     [Fact]
     public void A_file_that_cannot_be_written_mid_command_is_said_as_such_not_as_a_fault_of_the_tool()
     {
-        // Given a command that fails because the disk is full
-        var root = new System.CommandLine.RootCommand();
-        var full = new System.CommandLine.Command("full");
-        full.SetAction((System.CommandLine.ParseResult _) => (int)DiskFull());
-        root.Subcommands.Add(full);
-        var error = new StringWriter();
+        // Given a command that fails because the disk is full, and a details folder that cannot be written either
+        string logs = Path.Combine(_dir, "no", "such", "folder");
 
-        // When it runs, with a details folder that cannot be written either
-        int exit = YieldBenchApp.Invoke(root.Parse(["full"]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = Path.Combine(_dir, "no", "such", "folder") });
+        // When it runs through the app's own runner
+        var (exit, error) = RunThrowing("full", DiskFull, logs);
 
         // Then the message says what stopped and what to do, and that the details could not be saved; exit code 3
         string said = Cli.Flat(error.ToString()).Trim();
@@ -235,6 +246,18 @@ public sealed class CommandLineMannersTests : IDisposable
         Assert.Contains("yieldbench: an internal error stopped the command", Cli.Flat(error.ToString()), StringComparison.Ordinal);
         Assert.Single(Directory.GetFiles(logs));
         Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+    }
+
+    /// <summary>Runs a one-command tree whose action is <paramref name="action"/> through the app's runner.</summary>
+    private (int Exit, StringWriter Error) RunThrowing(string name, Func<int> action, string logs)
+    {
+        var root = new System.CommandLine.RootCommand();
+        var command = new System.CommandLine.Command(name);
+        command.SetAction((System.CommandLine.ParseResult _) => action());
+        root.Subcommands.Add(command);
+        var error = new StringWriter();
+        int exit = YieldBenchApp.Invoke(root.Parse([name]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
+        return (exit, error);
     }
 
     private static int Fail() => throw new InvalidOperationException("Sequence contains no elements");

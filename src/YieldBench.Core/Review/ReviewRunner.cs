@@ -51,7 +51,7 @@ public static class ReviewRunner
         var kinetics = kineticsTask.GetAwaiter().GetResult();
 
         var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps);
-        var figures = ReviewFigures.Build(lots, strains, kinetics);
+        var figures = ReviewFigures.Build(lots, strains, kinetics, house.Planning);
         return new ReviewResult
         {
             Inputs = inputs,

@@ -64,17 +64,30 @@ public static class KineticsCharts
             return (charts, []);
         }
 
-        // Lots are drawn in the order of the lot records (the kinetics review keeps it) so pages and colours are stable.
+        // Lots keep the order of the lot records (the kinetics review keeps it) for the other charts; the overview pages
+        // take the review's panel order (by strain, then length of log) so each page holds ferments of like length on
+        // one shared time axis.
         var ordered = kinetics.Lots.ToArray();
         var strains = review.Figures.StrainOrder;
         var courses = review.Figures.Courses;
+        var panels = review.Figures.KineticsPanels.Count == ordered.Length
+            ? review.Figures.KineticsPanels.Select(i => ordered[i]).ToArray()
+            : ordered;
 
         // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
-        // first when the pages cannot hold every lot, and every lot stays in the Kinetics table.
+        // first when the pages cannot hold every lot (then in panel order), and every lot stays in the Kinetics table.
         int capacity = MaxOverviewPages * OverviewPanels;
-        var shown = ordered.Length <= capacity
-            ? ordered
-            : ordered.Where(k => k.Flagged).Concat(ordered.Where(k => !k.Flagged)).Take(capacity).ToArray();
+        LotKinetics[] shown;
+        if (panels.Length <= capacity)
+        {
+            shown = panels;
+        }
+        else
+        {
+            var kept = panels.Where(k => k.Flagged).Concat(panels.Where(k => !k.Flagged)).Take(capacity).ToHashSet(ReferenceEqualityComparer.Instance);
+            shown = panels.Where(kept.Contains).ToArray();
+        }
+
         int pages = (shown.Length + OverviewPanels - 1) / OverviewPanels;
         for (int page = 0; page < pages; page++)
         {
@@ -91,7 +104,7 @@ public static class KineticsCharts
 
         int strainJob = charts.Count;
         charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains, courses), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
-        charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
+        charts.Add(PlannedChart.Of(() => RateAgainstSugar(review.Figures.RateCourses, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         // A chart for each lot to look at for its ferment (a kinetics follow-up: stuck, sluggish, too hot, not dry when
         // its log ends), titled with what was seen in plain words; these stay in the charts folder, not the workbook.
@@ -145,7 +158,7 @@ public static class KineticsCharts
             curve.LineWidth = 2;
             curve.LinePattern = LinePattern.Dashed;
             curve.MarkerSize = 0;
-            curve.LegendText = $"Gompertz fit (λ {fit.LagHours:0} h, μm {fit.MaxRateBrixPerDay:0.0} °Brix/day)";
+            curve.LegendText = $"Gompertz fit (lag {fit.LagHours:0} h, maximum rate {fit.MaxRateBrixPerDay:0.0} °Brix/day)";
         }
 
         if (k.Stuck is { } stuck)
@@ -177,7 +190,7 @@ public static class KineticsCharts
                 line.Color = tempColor.WithAlpha(0.7);
                 line.LinePattern = pattern;
                 line.LineWidth = 1.5f;
-                line.LegendText = $"{label} {level:0} °C";
+                line.LegendText = $"{label} temperature {level:0} °C (right axis)";
             }
 
             double top = Math.Max(k.Thresholds.DangerC + 2, k.Temperatures.Max(p => p.Celsius) + 2);
@@ -353,75 +366,57 @@ public static class KineticsCharts
         return plot;
     }
 
-    /// <summary>Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs), coloured by strain.</summary>
-    public static Plot RateAgainstSugar(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
+    /// <summary>
+    /// Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs): each strain's
+    /// course (<paramref name="courses"/>, in <paramref name="strains"/> order): the median over its lots as a line and
+    /// the band from the lower to the upper quartile.
+    /// </summary>
+    public static Plot RateAgainstSugar(IReadOnlyList<RateCourse> courses, IReadOnlyList<string> strains)
     {
-        ArgumentNullException.ThrowIfNull(lots);
+        ArgumentNullException.ThrowIfNull(courses);
         ArgumentNullException.ThrowIfNull(strains);
         var plot = ChartStyle.NewPlot("Fermentation rate against remaining sugar", "Sugar remaining (°Brix; the ferment runs left to right)", "Rate (°Brix/day)");
-        for (int si = 0; si < strains.Count; si++)
+        ChartStyle.Subtitle(plot, string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"Line: the strain's median rate over its lots in each {RateCourses.BinBrix:0.#} °Brix step; band: from the lower to the upper quartile (steps with at least {RateCourses.MinLots} lots)"));
+        bool any = false;
+        for (int si = 0; si < courses.Count && si < strains.Count; si++)
         {
-            // Counted first, then filled: at 100,000 lots a strain has hundreds of thousands of rates, and growing lists
-            // would copy them over and over on the large-object heap.
-            var mine = lots.Where(l => string.Equals(l.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();
-            int count = 0;
-            foreach (var k in mine)
-            {
-                ForEachRate(k, (_, _) => count++);
-            }
-
-            if (count == 0)
+            var c = courses[si];
+            if (c.Brix.Count == 0)
             {
                 continue;
             }
 
-            var xs = new double[count];
-            var ys = new double[count];
-            int n = 0;
-            foreach (var k in mine)
+            any = true;
+            var color = ChartPalette.ForIndex(si);
+            if (c.Brix.Count >= 2)
             {
-                ForEachRate(k, (brix, rate) =>
-                {
-                    xs[n] = brix;
-                    ys[n++] = rate;
-                });
+                var upper = c.Brix.Select((b, i) => new Coordinates(b, c.Q3[i]));
+                var lower = c.Brix.Select((b, i) => new Coordinates(b, c.Q1[i])).Reverse();
+                var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
+                band.FillColor = color.WithAlpha(0.22);
+                band.LineWidth = 0;
             }
 
-            var s = ChartStyle.AddMarkers(plot, xs, ys, MarkerShape.FilledCircle, 8, ChartPalette.ForIndex(si).WithAlpha(0.8));
-            s.LegendText = strains[si];
+            var median = plot.Add.Scatter(c.Brix.ToArray(), c.Median.ToArray(), color);
+            median.LineWidth = 4;
+            median.MarkerSize = c.Brix.Count >= 2 ? 0 : 12;
+            median.LegendText = string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{strains[si]} ({c.Lots:N0} lots)");
+        }
+
+        if (!any)
+        {
+            ChartStyle.Subtitle(plot, "Too few lots with rates per strain for a median: nothing to draw.");
+            return plot;
         }
 
         plot.Axes.AutoScale();
         var lim = plot.Axes.GetLimits();
         plot.Axes.SetLimitsX(lim.Right, lim.Left);
+        plot.Axes.SetLimitsY(Math.Min(0, lim.Bottom), lim.Top);
         ChartStyle.ShowLegend(plot, Alignment.UpperLeft);
         return plot;
-    }
-
-    /// <summary>
-    /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
-    /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
-    /// </summary>
-    private static void ForEachRate(LotKinetics k, Action<double, double> point)
-    {
-        if (k.Dense)
-        {
-            int step = Math.Max(1, (int)Math.Round(1.0 / Math.Max(k.MedianSpacingHours ?? 1.0, 1e-3)));
-            for (int i = 0; i < k.SmoothedRates.Count; i += step)
-            {
-                if (k.SmoothedRates[i].BrixPerDay is { } r)
-                {
-                    point(k.SmoothedRates[i].Brix, r);
-                }
-            }
-        }
-        else
-        {
-            foreach (var r in k.Rates)
-            {
-                point(0.5 * (r.BrixStart + r.BrixEnd), r.BrixPerDay);
-            }
-        }
     }
 
     /// <summary>Sugar axis of every overview panel, °Brix (fixed so panels compare at a glance).</summary>
@@ -462,22 +457,56 @@ public static class KineticsCharts
         }
 
         using var painter = new PanelPainter(regular, bold, small);
+        var days = SharedDays(lots);
         for (int i = 0; i < lots.Count; i++)
         {
             float left = (i % columns) * pw, top = header + ((i / columns) * ph);
             var cell = new SKRect(left, top, left + pw, top + ph);
             canvas.Save();
             canvas.ClipRect(cell);
-            painter.Draw(canvas, lots[i], cell);
+            painter.Draw(canvas, lots[i], cell, days);
             canvas.Restore();
         }
 
         using (var font = new SKFont(regular, ChartStyle.TickSize * 0.8f))
         {
-            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
+            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero, the same on every panel of the page; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
         }
 
         return ChartImage.EncodePngData(surface);
+    }
+
+    /// <summary>
+    /// The day range every panel of a page shares: from the earliest to the latest reading of the page's lots, with a
+    /// 3 % margin each side (a page of one reading gets a day around it).
+    /// </summary>
+    public static (double Low, double High) SharedDays(IReadOnlyList<LotKinetics> lots)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        foreach (var k in lots)
+        {
+            foreach (var p in k.Sugar)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+
+            foreach (var p in k.Temperatures)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+        }
+
+        if (!(hi > lo))
+        {
+            lo = double.IsFinite(lo) ? lo - 0.5 : 0;
+            hi = lo + 1;
+        }
+
+        double margin = (hi - lo) * 0.03;
+        return (lo - margin, hi + margin);
     }
 
     /// <summary>
@@ -529,7 +558,7 @@ public static class KineticsCharts
             temperature = new SKPaint { Color = new SKColor(vermillion.R, vermillion.G, vermillion.B, vermillion.A), IsAntialias = true, Style = SKPaintStyle.Stroke, StrokeWidth = 1.5f, StrokeJoin = SKStrokeJoin.Round };
         }
 
-        public void Draw(SKCanvas canvas, LotKinetics k, SKRect cell)
+        public void Draw(SKCanvas canvas, LotKinetics k, SKRect cell, (double Low, double High) days)
         {
             var inv = System.Globalization.CultureInfo.InvariantCulture;
             bool hasTemp = k.Temperatures.Count > 0;
@@ -546,29 +575,8 @@ public static class KineticsCharts
                 return;
             }
 
-            // x: the data's day range with a small margin.
-            double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
-            foreach (var p in k.Sugar)
-            {
-                lo = Math.Min(lo, p.Hours / 24.0);
-                hi = Math.Max(hi, p.Hours / 24.0);
-            }
-
-            foreach (var p in k.Temperatures)
-            {
-                lo = Math.Min(lo, p.Hours / 24.0);
-                hi = Math.Max(hi, p.Hours / 24.0);
-            }
-
-            if (!(hi > lo))
-            {
-                lo = double.IsFinite(lo) ? lo - 0.5 : 0;
-                hi = lo + 1;
-            }
-
-            double margin = (hi - lo) * 0.03;
-            lo -= margin;
-            hi += margin;
+            // x: the page's shared day range, so fast and slow ferments look different at a glance.
+            double lo = days.Low, hi = days.High;
             float X(double d) => data.Left + (float)((d - lo) / (hi - lo) * data.Width);
             float YBrix(double b) => data.Bottom - (float)((b - OverviewBrixMin) / (OverviewBrixMax - OverviewBrixMin) * data.Height);
             float YTemp(double c) => data.Bottom - (float)((c - OverviewTempMin) / (OverviewTempMax - OverviewTempMin) * data.Height);
