@@ -7,6 +7,12 @@ namespace YieldBench.Cli;
 /// <param name="WorkingDirectory">Directory relative paths are resolved against.</param>
 public sealed record CliContext(TextWriter Out, TextWriter Error, bool IsTerminal, string WorkingDirectory)
 {
+    /// <summary>
+    /// The folder a details file goes to when a fault stops a command (the exception with its stack trace, the command
+    /// line and the version, for a bug report); the system's temporary folder unless set.
+    /// </summary>
+    public string FaultLogFolder { get; init; } = Path.GetTempPath();
+
     /// <summary>The real console.</summary>
     public static CliContext FromConsole() =>
         new(Console.Out, Console.Error, !Console.IsOutputRedirected, Environment.CurrentDirectory);

@@ -1,3 +1,6 @@
 using YieldBench.Cli;
 
-return YieldBenchApp.Run(args, CliContext.FromConsole());
+var context = CliContext.FromConsole();
+YieldBenchApp.HandleUnobservedFaults(args, context);
+YieldBenchApp.SayWhenStopped(context);
+return YieldBenchApp.Run(args, context);

@@ -71,6 +71,9 @@ public static class IntakeMessages
     internal static string BinaryCsv(long offset) =>
         $"The file is named .csv but holds binary data (a zero byte at offset {offset.ToString(Inv)}), not text. Export the sheet as CSV again, or give the workbook itself.";
 
+    internal static string Utf16Assumed(bool bigEndian) =>
+        $"The file has no byte-order mark, but its bytes are UTF-16 text ({(bigEndian ? "big" : "little")}-endian), and it was read as such. If letters look wrong, save it again as UTF-8 CSV.";
+
     internal static string EncodingAssumed() =>
         "The file is not valid UTF-8; it was read as Windows-1252. If letters look wrong, save it again as UTF-8 CSV.";
 
@@ -211,6 +214,9 @@ public static class IntakeMessages
 
     internal static string TextTooLong(string field, int length, int limit) =>
         $"{field} is {length.ToString("N0", Inv)} characters long, more than the {limit.ToString("N0", Inv)} a spreadsheet cell holds; it was cut to that length. Shorten the text in the file.";
+
+    internal static string MergedCells(string range, int fromRow, int toRow) =>
+        $"The cells {range} are merged: a spreadsheet program shows their value once, but the file stores it only in the first cell, so it was read for each of rows {fromRow}–{toRow}. If that is wrong, unmerge the cells and type each row's own value.";
 
     internal static string FormulaWithoutValue(string field, string formula) =>
         $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";

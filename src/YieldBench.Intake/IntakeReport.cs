@@ -58,8 +58,8 @@ public static class IntakeReport
         int warnings = set.Issues.Count - errors;
         int leftOut = set.Accounts.Sum(a => a.RowsReported);
         string seasons = set.Lots.Count == 0 ? "no usable lot rows" : set.Seasons.Count == 0 ? "no season" : string.Join(", ", set.Seasons.Select(N));
-        WriteWrapped(output, "", "  ", $"Issues: {N(set.Issues.Count)} ({N(errors)} errors, {N(warnings)} warnings).");
-        WriteWrapped(output, "", "  ", $"Result: {N(set.Lots.Count)} lots ({seasons}), {N(set.Logs.Count)} fermentation logs with {N(set.Logs.Sum(l => l.Readings.Count))} readings; {N(leftOut)} rows left out.");
+        WriteWrapped(output, "", "  ", $"Issues: {N(set.Issues.Count)} ({Counted(errors, "error")}, {Counted(warnings, "warning")}).");
+        WriteWrapped(output, "", "  ", $"Result: {Counted(set.Lots.Count, "lot")} ({seasons}), {Counted(set.Logs.Count, "fermentation log")} with {Counted(set.Logs.Sum(l => l.Readings.Count), "reading")}; {Counted(leftOut, "row")} left out.");
     }
 
     /// <summary>A sheet's accounting as one sentence.</summary>
@@ -132,6 +132,9 @@ public static class IntakeReport
     }
 
     private static string N(int v) => v.ToString(Inv);
+
+    /// <summary>"1 error", "2 errors", "0 errors".</summary>
+    private static string Counted(int n, string noun) => $"{N(n)} {noun}{(n == 1 ? "" : "s")}";
 
     private static void WriteTable(TextWriter output, string[] headers, List<string[]> rows)
     {

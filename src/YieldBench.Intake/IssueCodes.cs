@@ -157,6 +157,9 @@ public static class IssueCodes
     /// <summary><c>formula-without-value</c>.</summary>
     public const string FormulaWithoutValue = "formula-without-value";
 
+    /// <summary><c>merged-cells</c>.</summary>
+    public const string MergedCells = "merged-cells";
+
     /// <summary><c>not-a-date</c>.</summary>
     public const string NotADate = "not-a-date";
 

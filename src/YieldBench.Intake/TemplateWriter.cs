@@ -29,16 +29,35 @@ public static class TemplateWriter
 
     private static IEnumerable<FieldDef> LogFieldsUsed => Fields.Log.Where(f => f.Name is not "date" and not "time");
 
-    /// <summary>Writes the template to <paramref name="path"/> (replacing any file there; the caller decides whether it may).</summary>
+    /// <summary>
+    /// Writes the template to <paramref name="path"/> (replacing any file there; the caller decides whether it may), whole
+    /// or not at all: it is saved beside the target under a hidden name and renamed over it only when complete, so a
+    /// failure or a kill never leaves a half-written workbook in place of the file that was there.
+    /// </summary>
     public static void Write(string path)
     {
+        ArgumentNullException.ThrowIfNull(path);
         using var wb = new XLWorkbook();
         var lots = wb.Worksheets.Add(LotsSheet);
         WriteHeaders(lots, Fields.Lots.ToList());
         var log = wb.Worksheets.Add(LogSheet);
         WriteHeaders(log, LogFieldsUsed.ToList());
         WriteColumnsSheet(wb.Worksheets.Add(ColumnsSheet));
-        wb.SaveAs(path);
+        string full = Path.GetFullPath(path);
+        string partial = Path.Combine(Path.GetDirectoryName(full) ?? ".", "." + Path.GetFileName(full) + ".yieldbench-partial-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            using (var stream = new FileStream(partial, FileMode.CreateNew, FileAccess.Write))
+            {
+                wb.SaveAs(stream);
+            }
+
+            File.Move(partial, full, overwrite: true);
+        }
+        finally
+        {
+            File.Delete(partial);
+        }
     }
 
     private static void WriteHeaders(IXLWorksheet ws, List<FieldDef> fields)

@@ -50,7 +50,7 @@ public sealed class CheckCommandTests : IDisposable
             output,
             StringComparison.Ordinal);
         Assert.All(output.Split('\n'), l => Assert.True(l.Length <= 100, l));
-        Assert.Contains("1 rows left out.", output, StringComparison.Ordinal);
+        Assert.Contains("1 row left out.", output, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -92,7 +92,7 @@ public sealed class CheckCommandTests : IDisposable
         Write("lots.csv", "Lot,Levure,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\n");
         var (code, output, _) = Run("check", "lots.csv", "--column", "strain=Levure", "--season", "2021");
         Assert.Equal(ExitCodes.Success, code);
-        Assert.Contains("Result: 1 lots (2021)", output, StringComparison.Ordinal);
+        Assert.Contains("Result: 1 lot (2021)", output, StringComparison.Ordinal);
     }
 
     [Fact]

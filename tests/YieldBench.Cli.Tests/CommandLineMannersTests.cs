@@ -49,7 +49,27 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["check", "lots-2023.csv", "--column", "strain"], "is not of the form FIELD = HEADER" },
         { ["review", "lots-2023.csv", "--mapping", "nope.txt"], "the mapping file 'nope.txt' was not found" },
         { ["template", "--out", "notes.txt.xlsx"], "already exists" },
+        { ["revew", "lots-2023.csv"], "yieldbench: 'revew' is not a command; did you mean 'review'? Run 'yieldbench --help' for usage." },
+        { ["chek", "lots-2023.csv"], "yieldbench: 'chek' is not a command; did you mean 'check'?" },
+        { ["review", "lots-2023.csv", "--outt", "x"], "review: '--outt' is not an option of review; did you mean '--out'? Run 'yieldbench review --help' for usage." },
+        { ["review", "lots-2023.csv", "--seeed", "3"], "did you mean '--seed'?" },
+        { ["check", "lots-2023.csv", "--colum", "strain=Yeast"], "check: '--colum' is not an option of check; did you mean '--column'?" },
+        { ["forecast", "--quite"], "forecast: '--quite' is not an option of forecast; did you mean '--quiet'?" },
     };
+
+    [Fact]
+    public void A_word_far_from_every_name_gets_no_suggestion_and_a_word_not_understood_is_said_alone()
+    {
+        // Given a command that is no near miss
+        var (exit, _, error) = Run("harvest-now");
+
+        // Then the parser's own words say so, without the "required command" line it causes, and without a guess
+        Assert.Equal(ExitCodes.Usage, exit);
+        Assert.Equal("Unrecognized command or argument 'harvest-now'. Run 'yieldbench --help' for usage.", Cli.Flat(error).Trim());
+        Assert.Null(CommandLine.Suggestions.Nearest("-q", ["--quiet", "-?"]));
+        Assert.Equal(2, CommandLine.Suggestions.Distance("--quite", "--quiet"));
+        Assert.Equal(3, CommandLine.Suggestions.Distance("kitten", "sitting"));
+    }
 
     [Theory]
     [MemberData(nameof(UsageErrors))]
@@ -172,26 +192,77 @@ public sealed class CommandLineMannersTests : IDisposable
     }
 
     [Fact]
-    public void A_fault_inside_a_command_is_one_line_with_exit_code_3_never_a_stack_trace()
+    public void A_fault_inside_a_command_is_a_short_message_naming_a_details_file_with_exit_code_3_never_a_stack_trace()
     {
         // Given a command whose action fails with an exception (standing in for a fault of the tool)
-        var root = new System.CommandLine.RootCommand();
-        var broken = new System.CommandLine.Command("broken");
-        broken.SetAction((System.CommandLine.ParseResult _) => (int)Fail());
-        root.Subcommands.Add(broken);
-        var error = new StringWriter();
+        string logs = Directory.CreateDirectory(Path.Combine(_dir, "logs")).FullName;
 
         // When it runs through the app's own runner
-        int exit = YieldBenchApp.Invoke(root.Parse(["broken"]), new CliContext(TextWriter.Null, error, false, _dir));
+        var (exit, error) = RunThrowing("broken", Fail, logs);
 
-        // Then one line says what failed and that it is the tool's fault, with exit code 3
+        // Then a short message says what failed, that it is the tool's fault, and where the details went, with exit code 3
+        string details = Assert.Single(Directory.GetFiles(logs));
         Assert.Equal(ExitCodes.InternalError, exit);
-        Assert.Equal("yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave.", Cli.Flat(error.ToString()).Trim());
-        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100, l));
+        Assert.Equal($"yieldbench: an internal error stopped the command (InvalidOperationException: Sequence contains no elements). This is a fault of the tool, not of your files; please report it with the command line you gave. Details (for a bug report): {details}", Cli.Flat(error.ToString()).Trim());
+        Assert.All(error.ToString().Split('\n'), l => Assert.True(l.Length <= 100 || !l.Trim().Contains(' ', StringComparison.Ordinal), l));
+        Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+
+        // And the details file holds the command line and the stack trace
+        string text = File.ReadAllText(details);
+        Assert.Contains("command line: yieldbench broken", text, StringComparison.Ordinal);
+        Assert.Contains("   at ", text, StringComparison.Ordinal);
+        Assert.Contains(nameof(Fail), text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_file_that_cannot_be_written_mid_command_is_said_as_such_not_as_a_fault_of_the_tool()
+    {
+        // Given a command that fails because the disk is full, and a details folder that cannot be written either
+        string logs = Path.Combine(_dir, "no", "such", "folder");
+
+        // When it runs through the app's own runner
+        var (exit, error) = RunThrowing("full", DiskFull, logs);
+
+        // Then the message says what stopped and what to do, and that the details could not be saved; exit code 3
+        string said = Cli.Flat(error.ToString()).Trim();
+        Assert.Equal(ExitCodes.InternalError, exit);
+        Assert.StartsWith("yieldbench: the command stopped because a file could not be read or written (No space left on device). Free space on the disk or fix the file's permissions, then run it again. (The details could not be saved: ", said, StringComparison.Ordinal);
+        Assert.DoesNotContain("fault of the tool", said, StringComparison.Ordinal);
         Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_fault_while_parsing_goes_through_the_same_handler()
+    {
+        // Given a null argument list (an exception before any command is chosen)
+        var error = new StringWriter();
+        string logs = Directory.CreateDirectory(Path.Combine(_dir, "parse-logs")).FullName;
+
+        // When the app runs it
+        int exit = YieldBenchApp.Run(["check", null!], new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
+
+        // Then it is the short message with its details file, exit code 3
+        Assert.Equal(ExitCodes.InternalError, exit);
+        Assert.Contains("yieldbench: an internal error stopped the command", Cli.Flat(error.ToString()), StringComparison.Ordinal);
+        Assert.Single(Directory.GetFiles(logs));
+        Assert.DoesNotContain("   at ", error.ToString(), StringComparison.Ordinal);
+    }
+
+    /// <summary>Runs a one-command tree whose action is <paramref name="action"/> through the app's runner.</summary>
+    private (int Exit, StringWriter Error) RunThrowing(string name, Func<int> action, string logs)
+    {
+        var root = new System.CommandLine.RootCommand();
+        var command = new System.CommandLine.Command(name);
+        command.SetAction((System.CommandLine.ParseResult _) => action());
+        root.Subcommands.Add(command);
+        var error = new StringWriter();
+        int exit = YieldBenchApp.Invoke(root.Parse([name]), new CliContext(TextWriter.Null, error, false, _dir) { FaultLogFolder = logs });
+        return (exit, error);
+    }
+
     private static int Fail() => throw new InvalidOperationException("Sequence contains no elements");
+
+    private static int DiskFull() => throw new IOException("No space left on device");
 
     [Fact]
     public void A_report_kept_inside_the_input_folder_is_not_read_back_as_input()

@@ -141,6 +141,110 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
     }
 
     [Fact]
+    public void Console_overview_follow_up_sheet_and_file_count_the_same_lots_one_row_each()
+    {
+        // Given the demo review's console, its follow-up file and its workbook's Overview and Follow-up sheets
+        var console = System.Text.RegularExpressions.Regex.Match(demo.Out, @"Lots to look at: (\d+) \(");
+        var file = Cli.CsvLines(Path.Combine(demo.First, "data", "follow-up.csv"));
+        int lotColumn = Array.IndexOf(file[0].Split(','), "lot_id"), seasonColumn = Array.IndexOf(file[0].Split(','), "season");
+        var fileLots = file.Skip(1).Select(l => l.Split(',')).Select(f => f[seasonColumn] + "/" + f[lotColumn]).ToArray();
+        var overview = Sheet("Overview");
+        var followUp = Sheet("Follow-up");
+
+        // When the lots each counts are read: the console's number, the Overview's "N lot(s), one line each" and its
+        // one line per lot, the Follow-up sheet's rows up to its first blank row (strain notes follow it)
+        int consoleCount = int.Parse(console.Groups[1].Value, CultureInfo.InvariantCulture);
+        var overviewCount = overview.SelectMany(r => r).Select(c => System.Text.RegularExpressions.Regex.Match(c, @"^(\d+) lot\(s\), one line each")).Single(m => m.Success);
+        int overviewLines = overview.Count(r => r.Length > 0 && System.Text.RegularExpressions.Regex.IsMatch(r[0], @"^\d{4}/\S+ \S+ \((likely error|check|note)\):"));
+        int header = Array.FindIndex(followUp, r => r.Contains("Lot"));
+        var sheetLots = followUp.Skip(header + 1).TakeWhile(r => r.Any(c => c.Length > 0)).ToArray();
+
+        // Then all agree with the file, which has one row per lot (no lot twice), and the demo has lots to look at
+        Assert.True(console.Success, "the console names the lots to look at");
+        Assert.True(consoleCount > 0);
+        Assert.Equal(consoleCount, fileLots.Length);
+        Assert.Equal(fileLots.Length, fileLots.Distinct(StringComparer.Ordinal).Count());
+        Assert.Equal(consoleCount, int.Parse(overviewCount.Groups[1].Value, CultureInfo.InvariantCulture));
+        Assert.Equal(consoleCount, overviewLines);
+        Assert.Equal(consoleCount, sheetLots.Length);
+    }
+
+    // The sheet's rows as text (ExcelDataReader, a reader independent of the writer).
+    private string[][] Sheet(string name)
+    {
+        // ExcelDataReader asks for code page 1252 even for .xlsx; .NET ships it behind this provider.
+        System.Text.Encoding.RegisterProvider(System.Text.CodePagesEncodingProvider.Instance);
+        using var stream = File.OpenRead(Path.Combine(demo.First, "report.xlsx"));
+        using var reader = ExcelDataReader.ExcelReaderFactory.CreateReader(stream);
+        do
+        {
+            if (reader.Name != name)
+            {
+                continue;
+            }
+
+            var rows = new List<string[]>();
+            while (reader.Read())
+            {
+                rows.Add(Enumerable.Range(0, reader.FieldCount).Select(i => Convert.ToString(reader.GetValue(i), CultureInfo.InvariantCulture) ?? string.Empty).ToArray());
+            }
+
+            return rows.ToArray();
+        }
+        while (reader.NextResult());
+        throw new InvalidOperationException("no sheet " + name);
+    }
+
+    [Fact]
+    public void With_fahrenheit_the_console_and_data_files_give_temperatures_in_degrees_fahrenheit()
+    {
+        // Given the demo reviewed again with --fahrenheit
+        var (exit, output, _) = Cli.Run(demo.Root, "review", "--out", "fahrenheit", "--fahrenheit");
+        var celsius = Cli.CsvLines(Path.Combine(demo.First, "data", "kinetics.csv"));
+        var fahrenheit = Cli.CsvLines(Path.Combine(demo.Root, "fahrenheit", "data", "kinetics.csv"));
+
+        // When the peak-temperature column of the same lot is read in both files
+        int c = Array.IndexOf(celsius[0].Split(','), "peak_temp_c"), f = Array.IndexOf(fahrenheit[0].Split(','), "peak_temp_f");
+        double pc = double.Parse(celsius[1].Split(',')[c], CultureInfo.InvariantCulture);
+        double pf = double.Parse(fahrenheit[1].Split(',')[f], CultureInfo.InvariantCulture);
+
+        // Then the file names the unit in its column (no _c temperature column is left), its value is 1.8·°C + 32 to the
+        // written decimal, and the console's ferments and follow-up lines read in °F
+        Assert.Equal(demo.ExitCode, exit);
+        Assert.True(c >= 0 && f == c, "peak_temp_f takes the place of peak_temp_c");
+        Assert.DoesNotContain(fahrenheit[0].Split(','), n => n.EndsWith("temp_c", StringComparison.Ordinal));
+        Assert.Equal((pc * 1.8) + 32, pf, 1);
+        Assert.Matches(@"YB-R31: dry in [\d.]+ days, peak [\d.]+ °F", Cli.Flat(output));
+        Assert.Contains("above the 104 °F danger line", Cli.Flat(output), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void The_guides_chart_images_are_the_charts_the_demo_review_draws()
+    {
+        // Given the chart images of docs/report-guide.md (the page screenshot comes from the browser tests, not here)
+        string? root = AppContext.BaseDirectory;
+        while (root is not null && !File.Exists(Path.Combine(root, "YieldBench.sln")))
+        {
+            root = Path.GetDirectoryName(root);
+        }
+
+        Assert.NotNull(root);
+        var images = Directory.GetFiles(Path.Combine(root!, "docs", "images"), "*.png").Where(f => Path.GetFileName(f) != "report-html.png").ToArray();
+
+        // When each is compared with the chart of the same name the demo review drew
+        var stale = images.Where(f =>
+        {
+            string drawn = Path.Combine(demo.First, "charts", Path.GetFileName(f));
+            return !File.Exists(drawn) || !File.ReadAllBytes(drawn).AsSpan().SequenceEqual(File.ReadAllBytes(f));
+        }).Select(Path.GetFileName).ToArray();
+
+        // Then every one is byte for byte the chart the code draws now (the charts are deterministic), so the guide shows
+        // what a user gets; when a chart changes, regenerate them as the guide's last section says
+        Assert.True(images.Length >= 10, $"only {images.Length} chart images in docs/images");
+        Assert.True(stale.Length == 0, "docs/images is out of date for " + string.Join(", ", stale) + ": regenerate it (docs/report-guide.md, 'Regenerating the images of this guide')");
+    }
+
+    [Fact]
     public void The_factors_the_overview_and_console_lead_with_are_those_of_the_house_factor_file()
     {
         // Given the demo reviewed in-process (its overview) and the demo review's data/house-factor.json

@@ -50,6 +50,45 @@ public class HostileInputTests
         Assert.Contains(set.Issues, i => i.Row == 6 && i.Column == "pH" && i.Message.StartsWith("ph holds the formula =(shared with a cell above)", StringComparison.Ordinal));
     }
 
+    [Theory]
+    [InlineData("utf16le-no-bom-2023.csv", "UTF-16 text (little-endian)")]
+    [InlineData("utf16be-no-bom-2023.csv", "UTF-16 text (big-endian)")]
+    [InlineData("utf32-bom-2023.csv", null)]
+    public async Task Unicode_text_without_a_byte_order_mark_or_in_utf32_is_read_not_refused_as_binary(string name, string? said)
+    {
+        // Given the same three lots written as UTF-16 without a mark, or as UTF-32 with one
+        var set = await Read(name);
+
+        // Then the lots and their accented note are read, and a guessed encoding is said
+        Assert.Equal(["A-01", "A-02", "A-03"], set.Lots.Select(l => l.LotId));
+        Assert.Equal("levée à froid 12 °C", set.Lots[2].Notes);
+        if (said is null)
+        {
+            Assert.Empty(set.Issues);
+        }
+        else
+        {
+            Assert.Contains(said, Assert.Single(set.Issues, i => i.Code == "encoding-assumed").Message, StringComparison.Ordinal);
+        }
+    }
+
+    [Theory]
+    [InlineData("merged-cells-2023.xlsx")]
+    [InlineData("merged-cells-2023.ods")]
+    public async Task A_strain_merged_over_three_lots_is_read_for_each_with_a_warning_naming_the_block(string name)
+    {
+        // Given a strain merged over rows 3-5 (stored once, in C3) under a title merged across the sheet
+        var set = await Read(name);
+
+        // Then each of the three lots has the strain shown, the fourth its own
+        Assert.Equal(["A-01 QX-7", "A-02 QX-7", "A-03 QX-7", "A-04 QX-9"], set.Lots.Select(l => l.LotId + " " + l.Strain));
+
+        // And one warning names the block, its first cell and the value, and says how to undo it; the title gives none
+        var merged = Assert.Single(set.Issues);
+        Assert.Equal(("merged-cells", IssueSeverity.Warning, "Lots", 3, "C", "QX-7"), (merged.Code, merged.Severity, merged.Sheet, merged.Row, merged.Column, merged.Value));
+        Assert.Equal("The cells C3:C5 are merged: a spreadsheet program shows their value once, but the file stores it only in the first cell, so it was read for each of rows 3–5. If that is wrong, unmerge the cells and type each row's own value.", merged.Message);
+    }
+
     [Fact]
     public async Task Control_characters_are_settled_in_the_values_and_shown_written_out_in_issues()
     {

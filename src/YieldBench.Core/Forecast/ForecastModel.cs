@@ -80,8 +80,17 @@ public sealed class ForecastModel
     /// <summary>How much wider (in sd) the wide part of a contaminated prior is (our definition).</summary>
     public const double WideFactor = 4.0;
 
-    /// <summary>Within-season, within-strain covariance of (log μm, λ).</summary>
+    /// <summary>
+    /// Within-season, within-strain covariance of (log μm, λ/λ̂), λ̂ the lot's predicted lag (at least
+    /// <see cref="MinLagScale"/>): the lag's scatter is taken in proportion to the lag.
+    /// </summary>
     public (double Vmm, double Vml, double Vll) Within { get; private init; }
+
+    /// <summary>Least lag, h, that the lag's relative scatter is scaled by (our definition: about a third of a reading interval).</summary>
+    public const double MinLagScale = 4.0;
+
+    /// <summary>The scale of a lot's lag scatter: its predicted lag, at least <see cref="MinLagScale"/> hours.</summary>
+    private static double LagScale(double predictedLag) => Math.Max(predictedLag, MinLagScale);
 
     /// <summary>Median and sd of hours from inoculation to the first reading.</summary>
     public (double Median, double Sd) FirstReadingDelay { get; private init; }
@@ -136,6 +145,7 @@ public sealed class ForecastModel
     private (double Vmm, double Vml, double Vll) _between;
     private Dictionary<string, string> _strainColour = [];
     private double[] _peakBeta = [];
+    private double[,] _peakInverse = new double[0, 0];
     private string[] _peakGroups = [], _peakStrains = [];
     private Dictionary<string, StrainMedians> _medians = [];
     private StrainMedians _pooledMedians = new(double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
@@ -292,11 +302,14 @@ public sealed class ForecastModel
             var el = eLag;
             shifts = seasons.ToDictionary(g => g.Key, g => g.Where(x => keep[x.i]).Select(x => em[x.i]).DefaultIfEmpty(0).Average());
             var lagShifts = seasons.ToDictionary(g => g.Key, g => g.Where(x => keep[x.i]).Select(x => el[x.i]).DefaultIfEmpty(0).Average());
+            // The lag's scatter grows with the lag (a strain that starts in 9 h does not vary by the 6 h a 30-hour strain
+            // does): lag residuals are taken relative to the lot's predicted lag (at least MinLagScale hours).
             double sMm = 0, sMl = 0, sLl = 0;
             var centred = new (double A, double B)[fitted.Length];
             for (int i = 0; i < fitted.Length; i++)
             {
-                centred[i] = (eMu[i] - shifts[fitted[i].Course.Season], eLag[i] - lagShifts[fitted[i].Course.Season]);
+                double scale = LagScale(Predict(bl, rows[i]));
+                centred[i] = (eMu[i] - shifts[fitted[i].Course.Season], (eLag[i] - lagShifts[fitted[i].Course.Season]) / scale);
                 if (keep[i])
                 {
                     sMm += centred[i].A * centred[i].A;
@@ -345,10 +358,11 @@ public sealed class ForecastModel
         }
 
         int kDof = Math.Max(1, devs.Count - colourIntercept.Count);
+        double typicalLag = LagScale(colourIntercept.Count > 0 ? colourIntercept.Values.Average(v => v.Item2) : betaLag.Take(p0).Average());
         var betweenStrains = (
             Math.Max(devs.Sum(d => d.Mu * d.Mu) / kDof, within.Item1),
             devs.Sum(d => d.Mu * d.Lag) / kDof,
-            Math.Max(devs.Sum(d => d.Lag * d.Lag) / kDof, within.Item3));
+            Math.Max(devs.Sum(d => d.Lag * d.Lag) / kDof, within.Item3 * typicalLag * typicalLag));
 
         // First reading after inoculation.
         var delays = fitted.Where(p => p.Course.FromInoculation).Select(p => p.Course.SugarHours[0]).ToArray();
@@ -405,6 +419,7 @@ public sealed class ForecastModel
             _between = betweenStrains,
             _strainColour = strainColour,
             _peakBeta = temp.Beta,
+            _peakInverse = temp.Inverse,
             _peakGroups = temp.Groups,
             _peakStrains = temp.Strains,
             _medians = medians,
@@ -454,7 +469,8 @@ public sealed class ForecastModel
         double PeakOutlierShare,
         (double Mean, double Sd) Offset,
         Dictionary<string, (double Mean, double Sd)> OffsetByColour,
-        Dictionary<string, double> Cooling);
+        Dictionary<string, double> Cooling,
+        double[,] Inverse);
 
     private static TemperatureTraining TrainTemperature(Fitted[] fitted, Func<LotCourse, string> group, Func<LotCourse, string> bucket, ForecastSettings settings)
     {
@@ -497,7 +513,7 @@ public sealed class ForecastModel
             .Where(x => x.Fit is not null && x.Fit.PeakC > x.Fit.MustC).Select(x => (x.Lot, Fit: x.Fit!)).ToArray();
         if (fits.Length < 3)
         {
-            return new TemperatureTraining(0.5, delay, [], [], [], [], 2.0, [], 0.05, (0, 1.0), [], []);
+            return new TemperatureTraining(0.5, delay, [], [], [], [], 2.0, [], 0.05, (0, 1.0), [], [], new double[0, 0]);
         }
 
         double sd = Descriptive.Median(fits.Select(x => x.Fit.Rmse * Math.Sqrt(x.Fit.Points / (double)Math.Max(1, x.Fit.Points - 2))));
@@ -516,7 +532,7 @@ public sealed class ForecastModel
 
         double[] Row(LotCourse c, double mustC, double logMu) => PeakRow(groups, strains, group(c), Key(c.Strain), bucket(c), mustC, logMu);
         var rows = fits.Select(x => Row(x.Lot.Course, x.Fit.MustC, Math.Log(x.Lot.Fit!.MaxRateBrixPerHour))).ToArray();
-        var (beta, _, _) = SmallLeastSquares.Fit(rows, fits.Select(x => x.Fit.PeakC).ToArray(), ridge: 0.1, penalised: penal);
+        var (beta, _, peakInverse) = SmallLeastSquares.Fit(rows, fits.Select(x => x.Fit.PeakC).ToArray(), ridge: 0.1, penalised: penal);
         var offsets = fits.Where(x => x.Lot.PeakC is not null).Select(x => x.Lot.PeakC!.Value - x.Fit.PeakC).ToArray();
         var offsetByColour = fits.Where(x => x.Lot.PeakC is not null).GroupBy(x => bucket(x.Lot.Course)).Where(g => g.Count() >= 5)
             .ToDictionary(g => g.Key, g => (g.Average(x => x.Lot.PeakC!.Value - x.Fit.PeakC), Descriptive.StandardDeviation(g.Select(x => x.Lot.PeakC!.Value - x.Fit.PeakC))));
@@ -551,7 +567,7 @@ public sealed class ForecastModel
         }
 
         return new TemperatureTraining(sd, delay, must, beta, groups, strains, peakSd, byColour, (peakOutliers + 1.0) / (fits.Length + 2.0),
-            offsets.Length > 1 ? (offsets.Average(), Descriptive.StandardDeviation(offsets)) : (0, 0.5), offsetByColour, cooling);
+            offsets.Length > 1 ? (offsets.Average(), Descriptive.StandardDeviation(offsets)) : (0, 0.5), offsetByColour, cooling, peakInverse);
     }
 
     private static double[] PeakRow(string[] groups, string[] strains, string group, string strain, string bucket, double mustC, double logMu)
@@ -588,8 +604,8 @@ public sealed class ForecastModel
         double xn = yanKnown ? Math.Log(course.YanMgL!.Value) - _xnCentre : 0;
         double mu = (_betaMu[p0] * xt) + (_betaMu[p0 + 1] * xn);
         double lag = (_betaLag[p0] * xt) + (_betaLag[p0 + 1] * xn);
-        var (vmm, vml, vll) = Within;
         bool own = col >= 0;
+        double fShare = 0;
         if (own)
         {
             mu += _betaMu[col];
@@ -601,19 +617,15 @@ public sealed class ForecastModel
             x[col] = 1;
             x[p0] = xt;
             x[p0 + 1] = xn;
-            double f = 0;
             for (int i = 0; i < x.Length; i++)
             {
                 for (int j = 0; j < x.Length; j++)
                 {
-                    f += x[i] * _inverse[i, j] * x[j];
+                    fShare += x[i] * _inverse[i, j] * x[j];
                 }
             }
 
-            f = Math.Clamp(f, 0, 1);
-            vmm += f * Within.Vmm;
-            vml += f * Within.Vml;
-            vll += f * Within.Vll;
+            fShare = Math.Clamp(fShare, 0, 1);
         }
         else
         {
@@ -623,6 +635,13 @@ public sealed class ForecastModel
                 : (_betaMu.Take(p0).Average(), _betaLag.Take(p0).Average());
             mu += cm;
             lag += cl;
+        }
+
+        // The lots' scatter, its lag part in proportion to the lot's prior lag.
+        double scale = LagScale(lag);
+        double vmm = Within.Vmm * (1 + fShare), vml = Within.Vml * scale * (1 + fShare), vll = Within.Vll * scale * scale * (1 + fShare);
+        if (!own)
+        {
             vmm += _between.Vmm;
             vml += _between.Vml;
             vll += _between.Vll;
@@ -654,6 +673,31 @@ public sealed class ForecastModel
         }
 
         return s;
+    }
+
+    /// <summary>
+    /// The peak regression's own uncertainty for a lot, as a share of its residual variance: xᵀ(XᵀX + R)⁻¹x at the
+    /// given must temperature and log maximum rate (0 without a regression; at most 1).
+    /// </summary>
+    public double PeakPredictionShare(LotCourse course, double mustC, double logMu)
+    {
+        ArgumentNullException.ThrowIfNull(course);
+        if (_peakBeta.Length == 0)
+        {
+            return 0;
+        }
+
+        var x = PeakRow(_peakGroups, _peakStrains, GroupOf(course), Key(course.Strain), BucketOf(course), mustC, logMu);
+        double f = 0;
+        for (int i = 0; i < x.Length; i++)
+        {
+            for (int j = 0; j < x.Length; j++)
+            {
+                f += x[i] * _peakInverse[i, j] * x[j];
+            }
+        }
+
+        return Math.Clamp(f, 0, 1);
     }
 
     /// <summary>The peak regression for a lot as P = base + PeakMustSlope·Ta + PeakRateSlope·log μm: its base.</summary>

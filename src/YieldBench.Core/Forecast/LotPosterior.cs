@@ -278,7 +278,9 @@ internal sealed class LotPosterior
         _peakBase = m.PeakBase(c);
         _peakMust = m.PeakMustSlope;
         _peakRate = m.PeakRateSlope;
-        _peakVar = m.PeakSdFor(c) * m.PeakSdFor(c);
+        // The lot's scatter around the peak regression, plus the regression's own uncertainty at the lot's usual must
+        // temperature and prior rate (the lot is not one the regression was fitted on).
+        _peakVar = m.PeakSdFor(c) * m.PeakSdFor(c) * (1 + m.PeakPredictionShare(c, mt, Prior.LogMu));
         var (off, sd) = m.StartOffsetFor(c);
         double s0 = c.StartBrix + off;
         for (int part = 0; part < Parts; part++)

@@ -5,12 +5,11 @@ namespace YieldBench.Core.Forecast;
 /// <summary>
 /// Turns a lot's weighted grid into the forecast: one-third and dry times, the peak, the stuck risk, the next reading,
 /// the heat figures and the chart courses. Each node's quantities are Gaussian (S0, F, Ta and P are Gaussian there;
-/// times by the delta method) and enter the mixture as three Gauss–Hermite points.
+/// times by the delta method) and the forecast is their mixture over nodes, its quantiles found exactly
+/// (<see cref="NormalMixture"/>).
 /// </summary>
 internal static class PosteriorSummary
 {
-    private static readonly double Root3 = Math.Sqrt(3.0);
-
     public static LotForecast Summarise(LotPosterior p, double[] w, double nowHours, double shift, ForecastSettings settings, bool withCurves)
     {
         var c = p.Course;
@@ -19,11 +18,11 @@ internal static class PosteriorSummary
         double level = LoggedEvents.DepletionLevel(c, settings);
         double dry = settings.Kinetics.DryBrix;
         double lo = (1 - settings.IntervalLevel) / 2, hi = 1 - lo;
-        var thirds = new WeightedPoints(p.Nodes * LotPosterior.Parts * 3);
-        var drys = new WeightedPoints(p.Nodes * LotPosterior.Parts * 4);
-        var peaks = new WeightedPoints(p.Nodes * LotPosterior.TempParts * 3);
-        double rateSum = 0, startSum = 0, finalSum = 0, partSum = 0;
+        var thirds = new NormalMixture(p.Nodes * LotPosterior.Parts);
+        var drys = new NormalMixture(p.Nodes * LotPosterior.Parts);
         double observedMax = c.TempC.Length > 0 ? c.TempC.Max() : double.NegativeInfinity;
+        var peaks = new NormalMixture(p.Nodes * LotPosterior.TempParts) { Floor = observedMax };
+        double rateSum = 0, startSum = 0, finalSum = 0, partSum = 0;
         bool peakModel = c.TempC.Length > 0 || m.MustTemp.Count > 0;
         double neverDry = 0;
         double noise = LotPosterior.SugarVariance(c, m);
@@ -60,10 +59,7 @@ internal static class PosteriorSummary
                     AddTime(drys, form, kappa, lambda, truncated, dry, wk * pDry, noise);
                 }
 
-                if (pDry < 1)
-                {
-                    drys.Add(double.PositiveInfinity, wk * (1 - pDry));
-                }
+                drys.Add(double.PositiveInfinity, 0, wk * (1 - pDry));
 
                 rateSum += wk * kappa * (g.A - g.B);
                 startSum += wk * g.A;
@@ -78,13 +74,17 @@ internal static class PosteriorSummary
                     var t = p.Temp[(k * LotPosterior.TempParts) + part];
                     double mean = t.B + offset.Mean;
                     double sd = Math.Sqrt(t.Vbb + (offset.Sd * offset.Sd));
-                    AddPoints(peaks, mean, sd, w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part], observedMax);
+                    peaks.Add(mean, sd, w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
                 }
             }
         }
 
         double oneThirdPassedAt = c.SugarBrix.Length > 0 && c.SugarBrix.Min() <= level ? LoggedEvents.FirstCrossing(c.SugarHours, c.SugarBrix, level)!.Value : double.NaN;
         bool passed = !double.IsNaN(oneThirdPassedAt);
+        // Components carrying together 0.1 % of the weight move no quantile by more than that share: leave them out.
+        thirds.Compact(1e-3);
+        drys.Compact(1e-3);
+        peaks.Compact(1e-3);
         var third = passed ? new ForecastValue(oneThirdPassedAt, oneThirdPassedAt, oneThirdPassedAt) : Interval(thirds, lo, hi);
         var dryValue = Interval(drys, lo, hi);
         var peakValue = peaks.Count > 0 ? Interval(peaks, lo, hi) : (ForecastValue?)null;
@@ -95,8 +95,8 @@ internal static class PosteriorSummary
         // Sluggish or stuck: never dry, or dry later than the strain's slowest past lot.
         var med = m.MediansFor(c.Strain);
         double slowest = med.SlowestDryHours - (c.FromInoculation ? 0 : m.FirstReadingDelay.Median);
-        double late = double.IsNaN(slowest) ? 0 : drys.WeightAbove(slowest, finiteOnly: true);
-        double stuckRisk = Math.Clamp(neverDry + (late / Math.Max(1e-12, drys.TotalWeight)), 0, 1);
+        double late = double.IsNaN(slowest) ? 0 : drys.ShareAbove(slowest, finiteOnly: true);
+        double stuckRisk = Math.Clamp(neverDry + late, 0, 1);
 
         // Heat: what is left to ferment could still raise the must this much with no heat removed.
         double? reachable = null;
@@ -146,19 +146,19 @@ internal static class PosteriorSummary
     /// Adds the time the readings will show the curve reaching <paramref name="level"/> at this node: the delta-method
     /// spread from S0 and F, and a reading's own noise (σ²) turned into time by the rate there.
     /// </summary>
-    private static void AddTime(WeightedPoints points, SigmoidModel form, double kappa, double lambda, Gaussian2 g, double level, double weight, double noiseVar)
+    private static void AddTime(NormalMixture mixture, SigmoidModel form, double kappa, double lambda, Gaussian2 g, double level, double weight, double noiseVar)
     {
         double a = g.A - g.B;
         if (!(a > 0))
         {
-            points.Add(double.PositiveInfinity, weight);
+            mixture.Add(double.PositiveInfinity, 0, weight);
             return;
         }
 
         double share = (g.A - level) / a;
         if (share >= 1)
         {
-            points.Add(double.PositiveInfinity, weight);
+            mixture.Add(double.PositiveInfinity, 0, weight);
             return;
         }
 
@@ -166,27 +166,18 @@ internal static class PosteriorSummary
         double t = SigmoidShape.TimeAt(form, kappa, lambda, share);
         double slope = SigmoidShape.Slope(form, kappa, lambda, t);
         double gs = (level - g.B) / (a * a), gf = (g.A - level) / (a * a);
-        double sd = slope > 1e-12 ? Math.Sqrt(Math.Max(0, g.VarianceOf(gs, gf) + (noiseVar / (a * a)))) / slope : 0;
-        AddPoints(points, t, Math.Min(sd, 500), weight, double.NegativeInfinity);
+        double variance = slope > 1e-12 ? Math.Max(0, g.VarianceOf(gs, gf) + (noiseVar / (a * a))) / (slope * slope) : 0;
+        mixture.Add(t, Math.Min(Math.Sqrt(variance), 500), weight);
     }
 
-    /// <summary>Three-point Gauss–Hermite rule for a normal: mean and mean ± √3·sd with weights 2/3 and 1/6 (each at least <paramref name="floor"/>).</summary>
-    private static void AddPoints(WeightedPoints points, double mean, double sd, double weight, double floor)
+    private static ForecastValue? Interval(NormalMixture mixture, double lo, double hi)
     {
-        points.Add(Math.Max(mean - (Root3 * sd), floor), weight / 6);
-        points.Add(Math.Max(mean, floor), weight * 2 / 3);
-        points.Add(Math.Max(mean + (Root3 * sd), floor), weight / 6);
-    }
-
-    private static ForecastValue? Interval(WeightedPoints points, double lo, double hi)
-    {
-        if (points.Count == 0)
+        if (mixture.Count == 0)
         {
             return null;
         }
 
-        points.Sort();
-        return new ForecastValue(points.QuantileOfSorted(0.5), points.QuantileOfSorted(lo), points.QuantileOfSorted(hi));
+        return new ForecastValue(mixture.Quantile(0.5), mixture.Quantile(lo), mixture.Quantile(hi));
     }
 
     private static (double At, string For) NextReading(LotPosterior p, double[] w, double now, bool forThird, double thirdLow, double level, double dry, ForecastSettings settings)
@@ -260,8 +251,12 @@ internal static class PosteriorSummary
         double start = Math.Min(0, c.SugarHours.Length > 0 ? c.SugarHours[0] : 0);
         double endAt = new[] { dry?.High, dry?.Median, third?.High, now + 72 }.Where(v => v is { } x && double.IsFinite(x)).Max(v => v!.Value);
         endAt = Math.Max(endAt, now + 24) + 24;
-        const int points = 121;
+        const int points = 61;
         var hours = Enumerable.Range(0, points).Select(i => start + ((endAt - start) * i / (points - 1))).ToArray();
+
+        // The grid point nearest now moves onto it, so the reachable course starts at the last reading.
+        int nearest = Enumerable.Range(0, points).MinBy(i => Math.Abs(hours[i] - now));
+        hours[nearest] = now;
         var bMed = new double[points];
         var bLo = new double[points];
         var bHi = new double[points];
@@ -272,8 +267,10 @@ internal static class PosteriorSummary
         double delay = m.DelayFor(c);
         double lo = (1 - settings.IntervalLevel) / 2, hi = 1 - lo;
         var nodes = Enumerable.Range(0, p.Nodes).Where(k => w[k] > 1e-7).ToArray();
-        var sugar = new WeightedPoints(nodes.Length * LotPosterior.Parts);
-        var temp = new WeightedPoints(nodes.Length * LotPosterior.TempParts);
+        // At each time every node and part gives a normal (S0 and F, Ta and P are Gaussian there): the bands are the
+        // quantiles of their mixture, as for the forecast's intervals.
+        var sugar = new NormalMixture(nodes.Length * LotPosterior.Parts);
+        var temp = new NormalMixture(nodes.Length * LotPosterior.TempParts);
         for (int i = 0; i < points; i++)
         {
             sugar.Clear();
@@ -286,22 +283,26 @@ internal static class PosteriorSummary
                 for (int part = 0; part < LotPosterior.Parts; part++)
                 {
                     var g = p.Comp[(k * LotPosterior.Parts) + part];
-                    sugar.Add(g.A - ((g.A - g.B) * h), w[k] * p.CompWeight[(k * LotPosterior.Parts) + part]);
+                    sugar.Add(g.A - ((g.A - g.B) * h), Math.Sqrt(Math.Max(0, g.VarianceOf(1 - h, h))), w[k] * p.CompWeight[(k * LotPosterior.Parts) + part]);
                 }
 
                 double s = SigmoidShape.Slope(m.Form, kappa, p.Lag[k], t - delay) / kappa;
                 for (int part = 0; part < LotPosterior.TempParts; part++)
                 {
                     var tp = p.Temp[(k * LotPosterior.TempParts) + part];
-                    temp.Add((tp.A * (1 - s)) + (tp.B * s), w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
+                    temp.Add((tp.A * (1 - s)) + (tp.B * s), Math.Sqrt(Math.Max(0, tp.VarianceOf(1 - s, s))), w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
                 }
-
             }
 
-            sugar.Sort();
-            temp.Sort();
-            (bMed[i], bLo[i], bHi[i]) = (sugar.QuantileOfSorted(0.5), sugar.QuantileOfSorted(lo), sugar.QuantileOfSorted(hi));
-            (tMed[i], tLo[i], tHi[i]) = (temp.QuantileOfSorted(0.5), temp.QuantileOfSorted(lo), temp.QuantileOfSorted(hi));
+            sugar.Compact(1e-2);
+            temp.Compact(1e-2);
+            // (A chart band: components holding 1 % of the weight are dropped, so a band end lies between the 9 % and
+            // 11 % points; each search starts from the same quantile at the time before, the courses being smooth.)
+            double Before(double[] v) => i > 0 ? v[i - 1] : double.NaN;
+            (bMed[i], bLo[i], bHi[i]) = (sugar.Quantile(0.5, Before(bMed)), sugar.Quantile(lo, Before(bLo)), sugar.Quantile(hi, Before(bHi)));
+            (tMed[i], tLo[i], tHi[i]) = temp.Count > 0
+                ? (temp.Quantile(0.5, Before(tMed)), temp.Quantile(lo, Before(tLo)), temp.Quantile(hi, Before(tHi)))
+                : (double.NaN, double.NaN, double.NaN);
         }
 
         // The reachable course: the last temperature plus the heat of what is fermented from now on, none removed.

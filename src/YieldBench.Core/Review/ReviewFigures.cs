@@ -1,4 +1,5 @@
 using YieldBench.Core.Conversion;
+using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Review.Strains;
 using YieldBench.Core.Statistics;
@@ -33,17 +34,30 @@ public sealed record ReviewFigures
     /// <summary>Median abv_per_brix of every lot with one (NaN when none).</summary>
     public required double PooledFactorMedian { get; init; }
 
-    /// <summary>The histogram of abv_per_brix, stacked by strain; null when no lot has a factor.</summary>
-    public FactorHistogram? FactorHistogram { get; init; }
-
     /// <summary>The compared strains, ranked by adjusted conversion (by raw median when the adjusted comparison could not be fitted).</summary>
     public required IReadOnlyList<RankedStrain> Ranking { get; init; }
 
     /// <summary>Each strain's course of sugar over time, in <see cref="StrainOrder"/> (empty without logs).</summary>
     public required IReadOnlyList<StrainCourse> Courses { get; init; }
 
+    /// <summary>Each strain's course of fermentation rate against remaining sugar, in <see cref="StrainOrder"/> (empty without logs).</summary>
+    public IReadOnlyList<RateCourse> RateCourses { get; init; } = [];
+
+    /// <summary>
+    /// Indices into <see cref="KineticsReview.Lots"/> in the order the small-multiples pages show them: by strain
+    /// (<see cref="StrainOrder"/>), then by how long the log runs (shortest first), then review order; so a page holds
+    /// ferments of like length and its panels can share one time axis (empty without logs).
+    /// </summary>
+    public IReadOnlyList<int> KineticsPanels { get; init; } = [];
+
+    /// <summary>abv_per_brix of each strain × vessel group with lots, by strain order then vessel (ordinal).</summary>
+    public IReadOnlyList<GroupSummary> FactorByStrainAndVessel { get; init; } = [];
+
+    /// <summary>The planning chart's curves: the pooled line, then each strain's (empty without a planning model).</summary>
+    public IReadOnlyList<PlanningCurve> Planning { get; init; } = [];
+
     /// <summary>Builds the figures from the review's parts.</summary>
-    internal static ReviewFigures Build(IReadOnlyList<LotConversion> lots, StrainReview strains, KineticsReview? kinetics)
+    internal static ReviewFigures Build(IReadOnlyList<LotConversion> lots, StrainReview strains, KineticsReview? kinetics, PlanningModel? planning = null)
     {
         var counts = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var l in lots)
@@ -63,6 +77,10 @@ public sealed record ReviewFigures
             .Where(g => g.Grouping == Groupings.StrainBySeason && g.Measure == ConversionMeasure.AbvPerBrix && g.N > 0 && g.Strain is not null && rank.ContainsKey(g.Strain))
             .OrderBy(g => rank[g.Strain!]).ThenBy(g => g.Season)
             .ToArray();
+        var byVessel = strains.Groups
+            .Where(g => g.Grouping == Groupings.StrainByVessel && g.Measure == ConversionMeasure.AbvPerBrix && g.N > 0 && g.Strain is not null && rank.ContainsKey(g.Strain))
+            .OrderBy(g => rank[g.Strain!]).ThenBy(g => g.Group, StringComparer.Ordinal)
+            .ToArray();
 
         var byKinetics = (kinetics?.Lots ?? []).GroupBy(k => k.Lot.Strain, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
         return new ReviewFigures
@@ -73,10 +91,30 @@ public sealed record ReviewFigures
             FactorByStrain = order.Select(s => byStrain.GetValueOrDefault(s)).ToArray(),
             FactorByStrainAndSeason = bySeason,
             PooledFactorMedian = Descriptive.Median(lots.Select(l => l.AbvPerBrix).Where(double.IsFinite)),
-            FactorHistogram = FactorHistogram.Of(lots, order),
             Ranking = Ranked(strains.Comparison, counts),
             Courses = kinetics is null ? [] : order.Select(s => SugarCourse.Of(s, byKinetics.GetValueOrDefault(s, []))).ToArray(),
+            RateCourses = kinetics is null ? [] : order.Select(s => Review.RateCourses.Of(s, byKinetics.GetValueOrDefault(s, []))).ToArray(),
+            KineticsPanels = kinetics is null ? [] : Panels(kinetics.Lots, rank),
+            FactorByStrainAndVessel = byVessel,
+            Planning = PlanningCurves.Of(planning, order),
         };
+    }
+
+    // A stable sort: strain (display order), length of the log, then review order.
+    private static int[] Panels(IReadOnlyList<LotKinetics> lots, Dictionary<string, int> rank)
+    {
+        var order = Enumerable.Range(0, lots.Count).ToArray();
+        Array.Sort(order, (a, b) =>
+        {
+            int c = rank.GetValueOrDefault(lots[a].Lot.Strain, int.MaxValue).CompareTo(rank.GetValueOrDefault(lots[b].Lot.Strain, int.MaxValue));
+            if (c == 0)
+            {
+                c = lots[a].DurationHours.CompareTo(lots[b].DurationHours);
+            }
+
+            return c == 0 ? a.CompareTo(b) : c;
+        });
+        return order;
     }
 
     // A stable sort: strain (display order), season, lot id, then input order.
@@ -109,46 +147,3 @@ public sealed record ReviewFigures
 /// <param name="RawMedian">Raw median factor (the comparison's measure).</param>
 /// <param name="Adjusted">Its conversion adjusted to the reference sugar, or null when the adjusted comparison could not be fitted.</param>
 public sealed record RankedStrain(string Strain, int Lots, double RawMedian, AdjustedStrain? Adjusted);
-
-/// <summary>
-/// A histogram of abv_per_brix in bins of <see cref="BinWidth"/>, each bin's lots counted per strain so a chart can
-/// stack them. Bin i covers [<see cref="Low"/> + i·w, <see cref="Low"/> + (i + 1)·w); the bins run from the bin of the
-/// smallest factor to that of the largest, so a single lot (or many equal factors) makes one bin.
-/// </summary>
-/// <param name="Low">Left edge of the first bin.</param>
-/// <param name="BinWidth">Bin width, % v/v per °Brix.</param>
-/// <param name="Strains">Strains, in the review's strain order.</param>
-/// <param name="Counts">Counts[s][i]: lots of strain s in bin i.</param>
-public sealed record FactorHistogram(double Low, double BinWidth, IReadOnlyList<string> Strains, IReadOnlyList<IReadOnlyList<int>> Counts)
-{
-    /// <summary>Bins of 0.005 % v/v per °Brix: fine enough to show a shoulder, coarse enough for a few dozen lots per season.</summary>
-    public const double DefaultBinWidth = 0.005;
-
-    /// <summary>Number of bins.</summary>
-    public int Bins => Counts.Count == 0 ? 0 : Counts[0].Count;
-
-    /// <summary>Lots in bin <paramref name="bin"/>, all strains.</summary>
-    public int Total(int bin) => Counts.Sum(c => c[bin]);
-
-    /// <summary>The histogram of the lots' finite abv_per_brix by strain (in <paramref name="strains"/> order), or null when there is none.</summary>
-    internal static FactorHistogram? Of(IReadOnlyList<LotConversion> lots, IReadOnlyList<string> strains, double binWidth = DefaultBinWidth)
-    {
-        var values = lots.Where(l => double.IsFinite(l.AbvPerBrix)).ToArray();
-        if (values.Length == 0)
-        {
-            return null;
-        }
-
-        double low = Math.Floor(values.Min(l => l.AbvPerBrix) / binWidth) * binWidth;
-        int bins = Math.Max(1, (int)Math.Floor((values.Max(l => l.AbvPerBrix) - low) / binWidth) + 1);
-        var index = strains.Select((s, i) => (s, i)).ToDictionary(x => x.s, x => x.i, StringComparer.Ordinal);
-        var counts = strains.Select(_ => new int[bins]).ToArray();
-        foreach (var l in values)
-        {
-            int bin = Math.Clamp((int)Math.Floor((l.AbvPerBrix - low) / binWidth), 0, bins - 1);
-            counts[index[l.Lot.Strain]][bin]++;
-        }
-
-        return new FactorHistogram(low, binWidth, strains, counts);
-    }
-}

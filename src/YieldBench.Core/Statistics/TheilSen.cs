@@ -1,4 +1,3 @@
-using System.Runtime.CompilerServices;
 using MathNet.Numerics.Distributions;
 
 namespace YieldBench.Core.Statistics;
@@ -303,7 +302,6 @@ public static class TheilSen
         public double Select(long k) => SelectRange(k, k)[0];
 
         /// <summary>The kLow-th to kHigh-th smallest slopes (a short run of ranks, e.g. the two middle ones), ascending.</summary>
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public double[] SelectRange(long kLow, long kHigh)
         {
             int n = px.Length;
@@ -442,7 +440,6 @@ public static class TheilSen
         }
 
         /// <summary>Number of pairs with distinct x whose slope is at most t.</summary>
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private long CountAtOrBelow(double t)
         {
             for (int i = 0; i < px.Length; i++)
@@ -455,7 +452,6 @@ public static class TheilSen
         }
 
         /// <summary>Sorts a[from..to) ascending and returns the number of pairs i &lt; j with a[i] ≥ a[j].</summary>
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private static long CountInversions(double[] a, double[] tmp, int from, int to)
         {
             int len = to - from;
@@ -516,7 +512,6 @@ public static class TheilSen
             return result;
         }
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         private void ListInversions(int[] idx, int[] tmp, double[] a, double[] b, int from, int to, List<double> result, int limit)
         {
             int len = to - from;

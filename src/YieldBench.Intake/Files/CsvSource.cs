@@ -47,8 +47,8 @@ internal static partial class CsvSource
 
     public static RawFile Read(string file, string fullPath, byte[] head, IntakeOptions options, IssueSink sink)
     {
-        bool utf16 = head.Length >= 2 && ((head[0] == 0xFF && head[1] == 0xFE) || (head[0] == 0xFE && head[1] == 0xFF));
-        if (!utf16)
+        var unicode = UnicodeForm(head, out int skip, out bool guessed);
+        if (unicode is null)
         {
             int zero = Array.IndexOf(head, (byte)0);
             if (zero >= 0)
@@ -57,16 +57,18 @@ internal static partial class CsvSource
                 return SourceFiles.Refused;
             }
         }
+        else if (guessed)
+        {
+            sink.Warning(file, null, null, null, null, IssueCodes.EncodingAssumed, IntakeMessages.Utf16Assumed(unicode is UnicodeEncoding { } u && u.GetPreamble()[0] == 0xFE));
+        }
 
         // The file is streamed: read once to settle its encoding, then decoded and split as it is read again.
         Encoding encoding;
-        int skip;
         using (var fs = SourceFiles.OpenShared(fullPath))
         {
-            if (utf16)
+            if (unicode is not null)
             {
-                encoding = new UnicodeEncoding(bigEndian: head[0] == 0xFE, byteOrderMark: false);
-                skip = 2;
+                encoding = unicode;
             }
             else if (IsValidUtf8(fs))
             {
@@ -118,6 +120,53 @@ internal static partial class CsvSource
         }
 
         return new RawFile([sheet], false);
+    }
+
+    /// <summary>
+    /// The UTF-32 or UTF-16 encoding the start of the file shows, or null: by its byte-order mark (<paramref name="skip"/>
+    /// bytes), or, with no mark, by its bytes — text in UTF-16 written without a mark (as some exports do) has a zero
+    /// byte beside nearly every character of the Latin alphabets and never a zero pair (<paramref name="guessed"/>).
+    /// </summary>
+    internal static Encoding? UnicodeForm(byte[] head, out int skip, out bool guessed)
+    {
+        (skip, guessed) = (0, false);
+        if (head is [0xFF, 0xFE, 0x00, 0x00, ..] or [0x00, 0x00, 0xFE, 0xFF, ..])
+        {
+            skip = 4;
+            return new UTF32Encoding(bigEndian: head[0] == 0x00, byteOrderMark: true);
+        }
+
+        if (head is [0xFF, 0xFE, ..] or [0xFE, 0xFF, ..])
+        {
+            skip = 2;
+            return new UnicodeEncoding(bigEndian: head[0] == 0xFE, byteOrderMark: true);
+        }
+
+        int pairs = Math.Min(head.Length / 2, 4096);
+        if (pairs < 2)
+        {
+            return null;
+        }
+
+        foreach (bool bigEndian in (bool[])[false, true])
+        {
+            int zeroHigh = 0;
+            bool zeroPair = false;
+            for (int i = 0; i < pairs && !zeroPair; i++)
+            {
+                byte high = head[(2 * i) + (bigEndian ? 0 : 1)], low = head[(2 * i) + (bigEndian ? 1 : 0)];
+                zeroPair = high == 0 && low == 0;
+                zeroHigh += high == 0 ? 1 : 0;
+            }
+
+            if (!zeroPair && zeroHigh >= pairs * 0.9)
+            {
+                guessed = true;
+                return new UnicodeEncoding(bigEndian, byteOrderMark: true);
+            }
+        }
+
+        return null;
     }
 
     /// <summary>The file's text from after its byte-order mark, decoded as it is read.</summary>

@@ -77,22 +77,29 @@ internal static class OdsSource
                 string name = TextSettling.Settle(xr.GetAttribute("name", TableNs) ?? "", multiline: false, out _) is { Length: > 0 } n ? n : $"Sheet{sheets.Count + 1}";
                 bool hidden = xr.GetAttribute("style-name", TableNs) is { } style && hiddenStyles.Contains(style);
                 (List<object?[]> rows, bool tooMany) = ([], false);
+                var spans = new List<CellSpan>();
                 if (!xr.IsEmptyElement)
                 {
                     using var table = xr.ReadSubtree();
-                    (rows, tooMany) = ReadTable(table, options.MaxRows);
+                    (rows, tooMany) = ReadTable(table, options.MaxRows, spans);
                 }
 
-                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, Hidden = hidden });
+                var sheet = new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, Hidden = hidden };
+                sheet.Merged.AddRange(spans);
+                sheets.Add(sheet);
             }
         }
 
         return sheets;
     }
 
-    /// <summary>The rows of one <c>table:table</c>, with empty repeats written out only where content follows.</summary>
-    private static (List<object?[]> Rows, bool TooMany) ReadTable(XmlReader xr, int maxRows)
+    /// <summary>
+    /// The rows of one <c>table:table</c>, with empty repeats written out only where content follows; the blocks of
+    /// merged cells (a cell spanning rows or columns) are added to <paramref name="spans"/>.
+    /// </summary>
+    private static (List<object?[]> Rows, bool TooMany) ReadTable(XmlReader xr, int maxRows, List<CellSpan> spans)
     {
+        var rowSpans = new List<(int Column, int Rows, int Columns)>();
         var rows = new List<object?[]>();
         long pendingBlank = 0;
         xr.Read();
@@ -117,10 +124,11 @@ internal static class OdsSource
 
             long repeat = Repeat(xr.GetAttribute("number-rows-repeated", TableNs));
             object?[] cells = [];
+            rowSpans.Clear();
             if (!xr.IsEmptyElement)
             {
                 using var row = xr.ReadSubtree();
-                cells = ReadRow(row);
+                cells = ReadRow(row, rowSpans);
             }
 
             if (cells.Length == 0)
@@ -140,6 +148,11 @@ internal static class OdsSource
             }
 
             pendingBlank = 0;
+            foreach (var (column, down, across) in rowSpans)
+            {
+                spans.Add(new CellSpan(rows.Count, column, rows.Count + down - 1, column + across - 1));
+            }
+
             for (long i = 0; i < repeat; i++)
             {
                 rows.Add(i == 0 ? cells : (object?[])cells.Clone());
@@ -149,8 +162,8 @@ internal static class OdsSource
         return (rows, false);
     }
 
-    /// <summary>The cells of one row, up to its last cell with content.</summary>
-    private static object?[] ReadRow(XmlReader xr)
+    /// <summary>The cells of one row, up to its last cell with content; cells spanning others are added to <paramref name="spans"/>.</summary>
+    private static object?[] ReadRow(XmlReader xr, List<(int Column, int Rows, int Columns)> spans)
     {
         var cells = new List<object?>();
         long pendingEmpty = 0;
@@ -163,7 +176,14 @@ internal static class OdsSource
             }
 
             long repeat = Repeat(xr.GetAttribute("number-columns-repeated", TableNs));
+            long down = Repeat(xr.GetAttribute("number-rows-spanned", TableNs));
+            long across = Repeat(xr.GetAttribute("number-columns-spanned", TableNs));
+            long column = cells.Count + pendingEmpty;
             object? value = xr.LocalName == "covered-table-cell" ? null : Cell(xr);
+            if (value is not null && (down > 1 || across > 1) && column < MaxColumns)
+            {
+                spans.Add(((int)column, (int)Math.Min(down, int.MaxValue / 2), (int)Math.Min(across, MaxColumns)));
+            }
             if (value is null)
             {
                 pendingEmpty += repeat;

@@ -57,12 +57,14 @@ internal static class SourceFiles
             fs.ReadExactly(head);
         }
 
-        return ext switch
+        var raw = ext switch
         {
             ".csv" or ".txt" or ".tsv" => CsvSource.Read(file, fullPath, head, options, sink),
             ".ods" => OdsSource.Read(file, fullPath, head, options, sink),
             _ => WorkbookSource.Read(file, fullPath, ext, head, options, sink),
         };
+        MergedCells.Settle(raw, file, sink);
+        return raw;
     }
 
     /// <summary>A file refused (already reported): no sheets.</summary>

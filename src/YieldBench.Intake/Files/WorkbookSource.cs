@@ -140,7 +140,13 @@ internal static class WorkbookSource
                 }
 
                 bool hidden = !string.Equals(reader.VisibleState, "visible", StringComparison.OrdinalIgnoreCase) && !string.IsNullOrEmpty(reader.VisibleState);
-                sheets.Add(new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, TooManyCells = tooLarge, Hidden = hidden });
+                var sheet = new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, TooManyCells = tooLarge, Hidden = hidden };
+                foreach (var range in reader.MergeCells ?? [])
+                {
+                    sheet.Merged.Add(new CellSpan(range.FromRow, range.FromColumn, range.ToRow, range.ToColumn));
+                }
+
+                sheets.Add(sheet);
             }
             while (reader.NextResult());
         }

@@ -26,8 +26,23 @@ public static class ReviewCharts
         /// <summary>Backtest error per candidate.</summary>
         public const string BacktestError = "backtest-error.png";
 
-        /// <summary>Histogram of factors.</summary>
-        public const string FactorHistogram = "factor-histogram.png";
+        /// <summary>Strain factors adjusted to the same starting sugar, with intervals.</summary>
+        public const string StrainFactors = "strain-factors.png";
+
+        /// <summary>Conversion factor by strain and vessel.</summary>
+        public const string StrainByVessel = "strain-by-vessel.png";
+
+        /// <summary>Days to dry by strain.</summary>
+        public const string DaysToDry = "days-to-dry.png";
+
+        /// <summary>Peak temperature by strain.</summary>
+        public const string PeakTemperature = "peak-temperature.png";
+
+        /// <summary>Predicted against actual alcohol in the backtest.</summary>
+        public const string PredictedVsActual = "backtest-predicted-vs-actual.png";
+
+        /// <summary>Highest picking sugar for a target alcohol.</summary>
+        public const string Planning = "planning.png";
     }
 
     /// <summary>Draws every review chart into <paramref name="folder"/> (one after another) and returns them in placement order.</summary>
@@ -43,18 +58,45 @@ public static class ReviewCharts
             return [];
         }
 
+        // The overview shows the charts that answer the meeting's questions; the others go on the sheet they explain.
+        const string comparison = Workbook.WorkbookWriter.Sheets.StrainComparison, house = Workbook.WorkbookWriter.Sheets.HouseFactor, planner = Workbook.WorkbookWriter.Sheets.Planner;
         var charts = new List<PlannedChart>
         {
             PlannedChart.Of(() => AlcoholVsSugar(review), Path.Combine(folder, Files.AlcoholVsSugar), "Final alcohol vs starting sugar", "Lots", onOverview: true),
-            PlannedChart.Of(() => FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain"),
-            PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain"),
         };
-        if (review.HouseFactor.Candidates.Count > 0)
+        if (review.Figures.Ranking.Any(r => r.Adjusted is not null))
         {
-            charts.Add(PlannedChart.Of(() => BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", "House factor"));
+            charts.Add(PlannedChart.Of(() => StrainCharts.AdjustedFactors(review), Path.Combine(folder, Files.StrainFactors), "Strains compared from the same starting sugar", sheet: null, onOverview: true));
         }
 
-        charts.Add(PlannedChart.Of(() => FactorHistogram(review), Path.Combine(folder, Files.FactorHistogram), "Histogram of conversion factors"));
+        if (review.Kinetics is not null && review.Overview.Ferments.Count > 0)
+        {
+            charts.Add(PlannedChart.Of(() => StrainCharts.DaysToDry(review)!, Path.Combine(folder, Files.DaysToDry), "Days to dry by strain", sheet: null, onOverview: true));
+            charts.Add(PlannedChart.Of(() => StrainCharts.PeakTemperature(review)!, Path.Combine(folder, Files.PeakTemperature), "Peak temperature by strain", sheet: null, onOverview: true));
+        }
+
+        charts.Add(PlannedChart.Of(() => FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain", comparison, onOverview: false));
+        charts.Add(PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain", comparison, onOverview: false));
+        if (review.Figures.FactorByStrainAndVessel.Count > 0)
+        {
+            charts.Add(PlannedChart.Of(() => StrainCharts.ByVessel(review), Path.Combine(folder, Files.StrainByVessel), "Conversion factor by strain and vessel", comparison, onOverview: false));
+        }
+
+        if (review.HouseFactor.Candidates.Count > 0)
+        {
+            charts.Add(PlannedChart.Of(() => BacktestError(review), Path.Combine(folder, Files.BacktestError), "Backtest error per candidate", house, onOverview: false));
+        }
+
+        if (review.HouseFactor.Overall is not null)
+        {
+            charts.Add(PlannedChart.Of(() => PlanningCharts.PredictedAgainstActual(review), Path.Combine(folder, Files.PredictedVsActual), "Predicted against actual alcohol, seasons held out", house, onOverview: false));
+        }
+
+        if (review.Figures.Planning.Count > 0)
+        {
+            charts.Add(PlannedChart.Of(() => PlanningCharts.HighestPickingSugar(review), Path.Combine(folder, Files.Planning), "Highest picking sugar for a target alcohol", planner, onOverview: false));
+        }
+
         return charts;
     }
 
@@ -264,61 +306,6 @@ public static class ReviewCharts
         plot.Axes.Left.TickGenerator = ticks;
         plot.Axes.Left.MajorTickStyle.Length = 0;
         plot.Axes.SetLimitsX(0, Math.Max(0.1, candidates.Select(c => c.Primary.Mae + (double.IsFinite(c.Primary.MaeStandardError) ? c.Primary.MaeStandardError : 0)).Where(double.IsFinite).DefaultIfEmpty(1).Max() * 1.15));
-        return plot;
-    }
-
-    /// <summary>
-    /// Histogram of abv_per_brix over all lots, each bin's bar stacked by strain in the strain colours, with the pooled
-    /// median marked. With no factor to show the chart says so instead of drawing axes without data.
-    /// </summary>
-    public static Plot FactorHistogram(ReviewResult review)
-    {
-        ArgumentNullException.ThrowIfNull(review);
-        var plot = ChartStyle.NewPlot("Histogram of conversion factors, stacked by strain", "Alcohol per °Brix (% v/v per °Brix)", "Lots");
-        if (review.Figures.FactorHistogram is not { } h)
-        {
-            ChartStyle.Subtitle(plot, "No lot has a conversion factor (no starting sugar or no alcohol to divide): nothing to draw.");
-            return plot;
-        }
-
-        var below = new double[h.Bins];
-        for (int s = 0; s < h.Strains.Count; s++)
-        {
-            var bars = new List<Bar>();
-            for (int i = 0; i < h.Bins; i++)
-            {
-                int n = h.Counts[s][i];
-                if (n == 0)
-                {
-                    continue;
-                }
-
-                bars.Add(new Bar
-                {
-                    Position = h.Low + ((i + 0.5) * h.BinWidth),
-                    ValueBase = below[i],
-                    Value = below[i] + n,
-                    Size = h.BinWidth * 0.9,
-                    FillColor = ChartPalette.ForIndex(s).WithAlpha(0.85),
-                    LineWidth = 0,
-                });
-                below[i] += n;
-            }
-
-            if (bars.Count > 0)
-            {
-                var plotted = plot.Add.Bars(bars);
-                plotted.LegendText = h.Strains[s];
-            }
-        }
-
-        double median = review.Figures.PooledFactorMedian;
-        var line = plot.Add.VerticalLine(median, 3, ChartPalette.Reference, LinePattern.Dashed);
-        line.LegendText = "median of all lots " + median.ToString("0.000", System.Globalization.CultureInfo.InvariantCulture);
-        ChartStyle.ShowLegend(plot, Alignment.UpperRight);
-        double hi = h.Low + (h.Bins * h.BinWidth);
-        plot.Axes.SetLimitsX(h.Low - h.BinWidth, hi + h.BinWidth);
-        plot.Axes.SetLimitsY(0, Math.Max(1, below.Max()) * 1.15);
         return plot;
     }
 

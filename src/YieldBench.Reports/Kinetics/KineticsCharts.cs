@@ -2,6 +2,7 @@ using ScottPlot;
 using SkiaSharp;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Charts;
 
 namespace YieldBench.Reports.Kinetics;
@@ -64,17 +65,31 @@ public static class KineticsCharts
             return (charts, []);
         }
 
-        // Lots are drawn in the order of the lot records (the kinetics review keeps it) so pages and colours are stable.
+        // Lots keep the order of the lot records (the kinetics review keeps it) for the other charts; the overview pages
+        // take the review's panel order (by strain, then length of log) so each page holds ferments of like length on
+        // one shared time axis.
         var ordered = kinetics.Lots.ToArray();
         var strains = review.Figures.StrainOrder;
         var courses = review.Figures.Courses;
+        var unit = review.Settings.TemperatureUnit;
+        var panels = review.Figures.KineticsPanels.Count == ordered.Length
+            ? review.Figures.KineticsPanels.Select(i => ordered[i]).ToArray()
+            : ordered;
 
         // Past a few pages the overview stops helping a reader and costs most of the charting time; flagged lots come
-        // first when the pages cannot hold every lot, and every lot stays in the Kinetics table.
+        // first when the pages cannot hold every lot (then in panel order), and every lot stays in the Kinetics table.
         int capacity = MaxOverviewPages * OverviewPanels;
-        var shown = ordered.Length <= capacity
-            ? ordered
-            : ordered.Where(k => k.Flagged).Concat(ordered.Where(k => !k.Flagged)).Take(capacity).ToArray();
+        LotKinetics[] shown;
+        if (panels.Length <= capacity)
+        {
+            shown = panels;
+        }
+        else
+        {
+            var kept = panels.Where(k => k.Flagged).Concat(panels.Where(k => !k.Flagged)).Take(capacity).ToHashSet(ReferenceEqualityComparer.Instance);
+            shown = panels.Where(kept.Contains).ToArray();
+        }
+
         int pages = (shown.Length + OverviewPanels - 1) / OverviewPanels;
         for (int page = 0; page < pages; page++)
         {
@@ -84,14 +99,14 @@ public static class KineticsCharts
             var file = new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
             charts.Add(new PlannedChart(file, stream =>
             {
-                using var png = OverviewPng(chunk, title);
+                using var png = OverviewPng(chunk, title, unit);
                 stream.Write(png.AsSpan());
             }));
         }
 
         int strainJob = charts.Count;
         charts.Add(PlannedChart.Of(() => StrainOverlay(ordered, strains, courses), Path.Combine(directory, "kinetics-strain-curves.png"), "Normalised sugar curves by strain", Sheet));
-        charts.Add(PlannedChart.Of(() => RateAgainstSugar(ordered, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
+        charts.Add(PlannedChart.Of(() => RateAgainstSugar(review.Figures.RateCourses, strains), Path.Combine(directory, "kinetics-rate-vs-sugar.png"), "Fermentation rate against remaining sugar", Sheet));
 
         // A chart for each lot to look at for its ferment (a kinetics follow-up: stuck, sluggish, too hot, not dry when
         // its log ends), titled with what was seen in plain words; these stay in the charts folder, not the workbook.
@@ -101,7 +116,7 @@ public static class KineticsCharts
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
             string title = $"Lot {k.LotKey} ({k.Lot.Strain}): {followUps[k.LotKey]}";
-            charts.Add(PlannedChart.Of(() => LotChart(k, title), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", sheet: null, onOverview: false));
+            charts.Add(PlannedChart.Of(() => LotChart(k, title, unit), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", sheet: null, onOverview: false));
         }
 
         return (charts, [strainJob, strainJob + 1]);
@@ -117,7 +132,7 @@ public static class KineticsCharts
     }
 
     /// <summary>Sugar (left axis) and temperature (right axis) against days from time zero for one lot.</summary>
-    public static Plot LotChart(LotKinetics k, string? title = null)
+    public static Plot LotChart(LotKinetics k, string? title = null, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(k);
         string origin = k.OriginKind == TimeOrigin.Inoculation ? "inoculation" : "first reading";
@@ -145,7 +160,7 @@ public static class KineticsCharts
             curve.LineWidth = 2;
             curve.LinePattern = LinePattern.Dashed;
             curve.MarkerSize = 0;
-            curve.LegendText = $"Gompertz fit (λ {fit.LagHours:0} h, μm {fit.MaxRateBrixPerDay:0.0} °Brix/day)";
+            curve.LegendText = $"Gompertz fit (lag {fit.LagHours:0} h, maximum rate {fit.MaxRateBrixPerDay:0.0} °Brix/day)";
         }
 
         if (k.Stuck is { } stuck)
@@ -163,26 +178,27 @@ public static class KineticsCharts
 
         if (k.Temperatures.Count > 0)
         {
-            var temp = plot.Add.Scatter(k.Temperatures.Select(p => p.Hours / 24.0).ToArray(), k.Temperatures.Select(p => p.Celsius).ToArray());
+            string symbol = unit.Symbol();
+            var temp = plot.Add.Scatter(k.Temperatures.Select(p => p.Hours / 24.0).ToArray(), k.Temperatures.Select(p => unit.FromCelsius(p.Celsius)).ToArray());
             temp.Color = tempColor;
             temp.LineWidth = 2;
             temp.MarkerSize = k.Dense ? 0 : 7;
             temp.MarkerShape = MarkerShape.FilledSquare;
-            temp.LegendText = "Temperature (°C, right axis)";
+            temp.LegendText = $"Temperature ({symbol}, right axis)";
             temp.Axes.YAxis = plot.Axes.Right;
             foreach (var (level, label, pattern) in new[] { (k.Thresholds.CautionC, "caution", LinePattern.Dashed), (k.Thresholds.DangerC, "danger", LinePattern.Solid) })
             {
-                var line = plot.Add.HorizontalLine(level);
+                var line = plot.Add.HorizontalLine(unit.FromCelsius(level));
                 line.Axes.YAxis = plot.Axes.Right;
                 line.Color = tempColor.WithAlpha(0.7);
                 line.LinePattern = pattern;
                 line.LineWidth = 1.5f;
-                line.LegendText = $"{label} {level:0} °C";
+                line.LegendText = $"{label} temperature {unit.Show(level, "0")} (right axis)";
             }
 
-            double top = Math.Max(k.Thresholds.DangerC + 2, k.Temperatures.Max(p => p.Celsius) + 2);
-            double bottom = Math.Min(0, k.Temperatures.Min(p => p.Celsius) - 2);
-            plot.Axes.Right.Label.Text = "Temperature (°C)";
+            double top = unit.FromCelsius(Math.Max(k.Thresholds.DangerC + 2, k.Temperatures.Max(p => p.Celsius) + 2));
+            double bottom = unit.FromCelsius(Math.Min(0, k.Temperatures.Min(p => p.Celsius) - 2));
+            plot.Axes.Right.Label.Text = $"Temperature ({symbol})";
             plot.Axes.Right.Label.FontName = ReportFonts.FamilyName;
             plot.Axes.Right.Label.FontSize = ChartStyle.LabelSize;
             plot.Axes.AutoScale();
@@ -353,75 +369,57 @@ public static class KineticsCharts
         return plot;
     }
 
-    /// <summary>Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs), coloured by strain.</summary>
-    public static Plot RateAgainstSugar(IReadOnlyList<LotKinetics> lots, IReadOnlyList<string> strains)
+    /// <summary>
+    /// Rate (°Brix/day) against remaining sugar (°Brix, decreasing to the right as the ferment runs): each strain's
+    /// course (<paramref name="courses"/>, in <paramref name="strains"/> order): the median over its lots as a line and
+    /// the band from the lower to the upper quartile.
+    /// </summary>
+    public static Plot RateAgainstSugar(IReadOnlyList<RateCourse> courses, IReadOnlyList<string> strains)
     {
-        ArgumentNullException.ThrowIfNull(lots);
+        ArgumentNullException.ThrowIfNull(courses);
         ArgumentNullException.ThrowIfNull(strains);
         var plot = ChartStyle.NewPlot("Fermentation rate against remaining sugar", "Sugar remaining (°Brix; the ferment runs left to right)", "Rate (°Brix/day)");
-        for (int si = 0; si < strains.Count; si++)
+        ChartStyle.Subtitle(plot, string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"Line: the strain's median rate over its lots in each {RateCourses.BinBrix:0.#} °Brix step; band: from the lower to the upper quartile (steps with at least {RateCourses.MinLots} lots)"));
+        bool any = false;
+        for (int si = 0; si < courses.Count && si < strains.Count; si++)
         {
-            // Counted first, then filled: at 100,000 lots a strain has hundreds of thousands of rates, and growing lists
-            // would copy them over and over on the large-object heap.
-            var mine = lots.Where(l => string.Equals(l.Lot.Strain, strains[si], StringComparison.Ordinal)).ToArray();
-            int count = 0;
-            foreach (var k in mine)
-            {
-                ForEachRate(k, (_, _) => count++);
-            }
-
-            if (count == 0)
+            var c = courses[si];
+            if (c.Brix.Count == 0)
             {
                 continue;
             }
 
-            var xs = new double[count];
-            var ys = new double[count];
-            int n = 0;
-            foreach (var k in mine)
+            any = true;
+            var color = ChartPalette.ForIndex(si);
+            if (c.Brix.Count >= 2)
             {
-                ForEachRate(k, (brix, rate) =>
-                {
-                    xs[n] = brix;
-                    ys[n++] = rate;
-                });
+                var upper = c.Brix.Select((b, i) => new Coordinates(b, c.Q3[i]));
+                var lower = c.Brix.Select((b, i) => new Coordinates(b, c.Q1[i])).Reverse();
+                var band = plot.Add.Polygon(upper.Concat(lower).ToArray());
+                band.FillColor = color.WithAlpha(0.22);
+                band.LineWidth = 0;
             }
 
-            var s = ChartStyle.AddMarkers(plot, xs, ys, MarkerShape.FilledCircle, 8, ChartPalette.ForIndex(si).WithAlpha(0.8));
-            s.LegendText = strains[si];
+            var median = plot.Add.Scatter(c.Brix.ToArray(), c.Median.ToArray(), color);
+            median.LineWidth = 4;
+            median.MarkerSize = c.Brix.Count >= 2 ? 0 : 12;
+            median.LegendText = string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{strains[si]} ({c.Lots:N0} lots)");
+        }
+
+        if (!any)
+        {
+            ChartStyle.Subtitle(plot, "Too few lots with rates per strain for a median: nothing to draw.");
+            return plot;
         }
 
         plot.Axes.AutoScale();
         var lim = plot.Axes.GetLimits();
         plot.Axes.SetLimitsX(lim.Right, lim.Left);
+        plot.Axes.SetLimitsY(Math.Min(0, lim.Bottom), lim.Top);
         ChartStyle.ShowLegend(plot, Alignment.UpperLeft);
         return plot;
-    }
-
-    /// <summary>
-    /// The (sugar, rate) points a lot puts on the rate chart. Dense probe logs: the smoothed rate, thinned to one point
-    /// per hour or so to keep the chart legible; hand-read logs: each interval's rate at its middle sugar.
-    /// </summary>
-    private static void ForEachRate(LotKinetics k, Action<double, double> point)
-    {
-        if (k.Dense)
-        {
-            int step = Math.Max(1, (int)Math.Round(1.0 / Math.Max(k.MedianSpacingHours ?? 1.0, 1e-3)));
-            for (int i = 0; i < k.SmoothedRates.Count; i += step)
-            {
-                if (k.SmoothedRates[i].BrixPerDay is { } r)
-                {
-                    point(k.SmoothedRates[i].Brix, r);
-                }
-            }
-        }
-        else
-        {
-            foreach (var r in k.Rates)
-            {
-                point(0.5 * (r.BrixStart + r.BrixEnd), r.BrixPerDay);
-            }
-        }
     }
 
     /// <summary>Sugar axis of every overview panel, °Brix (fixed so panels compare at a glance).</summary>
@@ -435,14 +433,14 @@ public static class KineticsCharts
     /// 0 to 45 °C) against days from time zero. The panels are drawn straight onto the page with SkiaSharp: with 144
     /// panels a full plotting-library layout per panel (automatic ticks, measured labels) cost most of the page.
     /// </summary>
-    public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title)
+    public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
-        using var png = OverviewPng(lots, title);
+        using var png = OverviewPng(lots, title, unit);
         return png.ToArray();
     }
 
     /// <summary>As <see cref="Overview"/>, the PNG left in SkiaSharp's native memory (dispose it).</summary>
-    public static SKData OverviewPng(IReadOnlyList<LotKinetics> lots, string title)
+    public static SKData OverviewPng(IReadOnlyList<LotKinetics> lots, string title, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ReportFonts.EnsureRegistered();
@@ -461,23 +459,57 @@ public static class KineticsCharts
             canvas.DrawText(title, width / 2f, 48, SKTextAlign.Center, font, ink);
         }
 
-        using var painter = new PanelPainter(regular, bold, small);
+        using var painter = new PanelPainter(regular, bold, small, unit);
+        var days = SharedDays(lots);
         for (int i = 0; i < lots.Count; i++)
         {
             float left = (i % columns) * pw, top = header + ((i / columns) * ph);
             var cell = new SKRect(left, top, left + pw, top + ph);
             canvas.Save();
             canvas.ClipRect(cell);
-            painter.Draw(canvas, lots[i], cell);
+            painter.Draw(canvas, lots[i], cell, days);
             canvas.Restore();
         }
 
         using (var font = new SKFont(regular, ChartStyle.TickSize * 0.8f))
         {
-            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
+            canvas.DrawText($"Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature ({unit.Symbol()}, right, {unit.FromCelsius(OverviewTempMin):0} to {unit.FromCelsius(OverviewTempMax):0}); x: days from time zero, the same on every panel of the page; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
         }
 
         return ChartImage.EncodePngData(surface);
+    }
+
+    /// <summary>
+    /// The day range every panel of a page shares: from the earliest to the latest reading of the page's lots, with a
+    /// 3 % margin each side (a page of one reading gets a day around it).
+    /// </summary>
+    public static (double Low, double High) SharedDays(IReadOnlyList<LotKinetics> lots)
+    {
+        ArgumentNullException.ThrowIfNull(lots);
+        double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        foreach (var k in lots)
+        {
+            foreach (var p in k.Sugar)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+
+            foreach (var p in k.Temperatures)
+            {
+                lo = Math.Min(lo, p.Hours / 24.0);
+                hi = Math.Max(hi, p.Hours / 24.0);
+            }
+        }
+
+        if (!(hi > lo))
+        {
+            lo = double.IsFinite(lo) ? lo - 0.5 : 0;
+            hi = lo + 1;
+        }
+
+        double margin = (hi - lo) * 0.03;
+        return (lo - margin, hi + margin);
     }
 
     /// <summary>
@@ -518,8 +550,11 @@ public static class KineticsCharts
         private readonly SKPaint sugarMarks;
         private readonly SKPaint temperature;
 
-        public PanelPainter(SKTypeface regular, SKTypeface bold, float size)
+        private readonly TemperatureUnit unit;
+
+        public PanelPainter(SKTypeface regular, SKTypeface bold, float size, TemperatureUnit unit)
         {
+            this.unit = unit;
             tickFont = new SKFont(regular, size);
             titleFont = new SKFont(bold, size * 1.3f);
             var blue = ChartPalette.ForIndex(0);
@@ -529,7 +564,7 @@ public static class KineticsCharts
             temperature = new SKPaint { Color = new SKColor(vermillion.R, vermillion.G, vermillion.B, vermillion.A), IsAntialias = true, Style = SKPaintStyle.Stroke, StrokeWidth = 1.5f, StrokeJoin = SKStrokeJoin.Round };
         }
 
-        public void Draw(SKCanvas canvas, LotKinetics k, SKRect cell)
+        public void Draw(SKCanvas canvas, LotKinetics k, SKRect cell, (double Low, double High) days)
         {
             var inv = System.Globalization.CultureInfo.InvariantCulture;
             bool hasTemp = k.Temperatures.Count > 0;
@@ -538,7 +573,7 @@ public static class KineticsCharts
             var data = new SKRect(
                 cell.Left + pad + tickFont.MeasureText("30") + TickLength + 4,
                 cell.Top + (titleFont.Size * 1.6f),
-                cell.Right - pad - (hasTemp ? tickFont.MeasureText("40") + TickLength + 4 : 0),
+                cell.Right - pad - (hasTemp ? tickFont.MeasureText(unit == TemperatureUnit.Fahrenheit ? "100" : "40") + TickLength + 4 : 0),
                 cell.Bottom - pad - tickH - TickLength - 4);
             canvas.DrawText($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", cell.MidX, cell.Top + (titleFont.Size * 1.15f), SKTextAlign.Center, titleFont, text);
             if (data.Width < 10 || data.Height < 10)
@@ -546,29 +581,8 @@ public static class KineticsCharts
                 return;
             }
 
-            // x: the data's day range with a small margin.
-            double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
-            foreach (var p in k.Sugar)
-            {
-                lo = Math.Min(lo, p.Hours / 24.0);
-                hi = Math.Max(hi, p.Hours / 24.0);
-            }
-
-            foreach (var p in k.Temperatures)
-            {
-                lo = Math.Min(lo, p.Hours / 24.0);
-                hi = Math.Max(hi, p.Hours / 24.0);
-            }
-
-            if (!(hi > lo))
-            {
-                lo = double.IsFinite(lo) ? lo - 0.5 : 0;
-                hi = lo + 1;
-            }
-
-            double margin = (hi - lo) * 0.03;
-            lo -= margin;
-            hi += margin;
+            // x: the page's shared day range, so fast and slow ferments look different at a glance.
+            double lo = days.Low, hi = days.High;
             float X(double d) => data.Left + (float)((d - lo) / (hi - lo) * data.Width);
             float YBrix(double b) => data.Bottom - (float)((b - OverviewBrixMin) / (OverviewBrixMax - OverviewBrixMin) * data.Height);
             float YTemp(double c) => data.Bottom - (float)((c - OverviewTempMin) / (OverviewTempMax - OverviewTempMin) * data.Height);
@@ -595,9 +609,13 @@ public static class KineticsCharts
 
             if (hasTemp)
             {
-                for (int c = 0; c <= 40; c += 10)
+                // Ticks every 10 °C (0 to 40) or every 20 °F (40 to 100), placed on the panel's °C scale.
+                var ticks = unit == TemperatureUnit.Fahrenheit
+                    ? new[] { 40, 60, 80, 100 }.Select(f => (Label: f, Celsius: (f - 32) * 5.0 / 9.0))
+                    : new[] { 0, 10, 20, 30, 40 }.Select(c => (Label: c, Celsius: (double)c));
+                foreach (var (c, celsius) in ticks)
                 {
-                    float y = MathF.Round(YTemp(c)) + 0.5f;
+                    float y = MathF.Round(YTemp(celsius)) + 0.5f;
                     canvas.DrawLine(data.Right, y, data.Right + TickLength, y, frame);
                     canvas.DrawText(c.ToString(inv), data.Right + TickLength + 2, y + (tickH * 0.36f), SKTextAlign.Left, tickFont, text);
                 }

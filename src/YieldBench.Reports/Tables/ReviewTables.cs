@@ -80,7 +80,7 @@ public static partial class ReviewTables
     public static ReportTable Lots(ReviewResult review, IEnumerable<LotReview>? order = null)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return ReportTable.Of(LotTable, order ?? review.LotReviews, l => l.IsFlagged);
+        return ReportTable.Of(TemperatureColumns.In(LotTable, review.Settings.TemperatureUnit), order ?? review.LotReviews, l => l.IsFlagged);
     }
 
     /// <summary>The review's lots in the Lots sheet's order (<see cref="ReviewFigures.LotsInStrainOrder"/>).</summary>
@@ -102,6 +102,7 @@ public static partial class ReviewTables
         new("median", "Median", CellKind.Number, g => g.Median, "0.0000"),
         new("mad", "MAD (scaled)", CellKind.Number, g => g.Mad, "0.0000"),
         new("qn", "Qn", CellKind.Number, g => g.Qn, "0.0000"),
+        new("sn", "Sn", CellKind.Number, g => g.Sn, "0.0000"),
         new("iqr", "IQR", CellKind.Number, g => g.Iqr, "0.0000"),
         new("mean", "Mean", CellKind.Number, g => g.Mean, "0.0000"),
         new("sd", "SD", CellKind.Number, g => g.Sd, "0.0000"),

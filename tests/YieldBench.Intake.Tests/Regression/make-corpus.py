@@ -67,7 +67,8 @@ def col(i):
 def xlsx(name, sheets, zip_writer=None):
     """sheets: [(name, rows, hidden)] where a cell is None, a number, a str, or a tuple:
     ('f', formula) formula without value; ('fv', formula, value) formula with value; ('e', formula, '#DIV/0!') error;
-    ('pct', number) percent-formatted; ('shared', index) a shared formula without value."""
+    ('pct', number) percent-formatted; ('shared', index) a shared formula without value. A fourth element of a sheet,
+    when given, lists its merged blocks ("C3:C5")."""
     files = {}
     files["[Content_Types].xml"] = ('<?xml version="1.0" encoding="UTF-8"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types">'
         '<Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/>'
@@ -113,7 +114,10 @@ def xlsx(name, sheets, zip_writer=None):
                 else:
                     x.append(f'<c r="{ref}" t="inlineStr"><is><t xml:space="preserve">{esc(v)}</t></is></c>')
             x.append("</row>")
-        x.append("</sheetData></worksheet>")
+        x.append("</sheetData>")
+        if len(s) > 3 and s[3]:
+            x.append(f'<mergeCells count="{len(s[3])}">' + "".join(f'<mergeCell ref="{m}"/>' for m in s[3]) + "</mergeCells>")
+        x.append("</worksheet>")
         files[f"xl/worksheets/sheet{i+1}.xml"] = "".join(x)
     with zipfile.ZipFile(path(name), "w", zipfile.ZIP_DEFLATED) as z:
         for k, v in files.items():
@@ -196,6 +200,7 @@ def main():
     # ---------------------------------------------------------------- encodings and CSV shapes
     with open(path("utf16-bom-2023.csv"), "wb") as f:
         f.write("\ufeff".encode("utf-16-le") + "\n".join([LOTS] + GOOD).encode("utf-16-le"))
+    unicode_without_mark()
     text("latin1-2023.csv", LOTS + ",Notes\nA-01,2023,QX-7,24.0,14.0,levée à froid\n", encoding="latin-1")
     text("crlf-2023.csv", "\r\n".join([LOTS] + GOOD) + "\r\n", newline="")
     csv("unquoted-thousands-2023.csv", "Lot,Vintage,Yeast,Brix,Alcohol % v/v,Must volume (L)", "A-01,2023,QX-7,24.0,14.0,4500", "A-02,2023,QX-9,23.1,13.4,4,500", "A-03,2023,QX-7,25.2,14.9,\"4,500\"")
@@ -281,6 +286,7 @@ def main():
              '<table:table-cell office:value-type="date" office:date-value="2023-09-03T08:30:00"><text:p>03/09/23 08:30</text:p></table:table-cell>'),
         orow(ostr("A-02"), onum(2023), ostr("QX-9"), onum(23.1), onum(13.4), '<table:covered-table-cell/>', '<table:table-cell office:value-type="boolean" office:boolean-value="true"><text:p>TRUE</text:p></table:table-cell>'),
     ]), None)])
+    merged_cells()
     ods("damaged-content.ods", [("Lots", orow(ostr("Lot"), ostr("Yeast")), None)])
     with zipfile.ZipFile(path("damaged-content.ods")) as zin, zipfile.ZipFile(path("damaged-content.tmp"), "w") as zout:
         for item in zin.infolist():
@@ -340,6 +346,38 @@ def main():
     for name in sorted(os.listdir(found)):
         shutil.copy(os.path.join(found, name), path(name))
     print("corpus written to", OUT)
+
+
+def unicode_without_mark():
+    """UTF-16 without a byte-order mark (little- and big-endian), and UTF-32 with one."""
+    body = LOTS + ",Notes\n" + "\n".join(GOOD) + ",levée à froid 12 °C\n"
+    text("utf16le-no-bom-2023.csv", body, encoding="utf-16-le")
+    text("utf16be-no-bom-2023.csv", body, encoding="utf-16-be")
+    text("utf32-bom-2023.csv", body, encoding="utf-32")
+
+
+def merged_cells():
+    """A strain merged over three lots, under a title merged across the sheet, as .xlsx and .ods."""
+    header = ["Lot", "Vintage", "Yeast", "Brix", "Alcohol % v/v"]
+    xlsx("merged-cells-2023.xlsx", [("Lots", [
+        ["Tallowmere Estate lots 2023"],
+        header,
+        ["A-01", 2023, "QX-7", 24.0, 14.0],
+        ["A-02", 2023, None, 23.1, 13.4],
+        ["A-03", 2023, None, 25.2, 14.9],
+        ["A-04", 2023, "QX-9", 22.8, 13.2],
+    ], False, ["A1:E1", "C3:C5"])])
+    spanned = '<table:table-cell table:number-rows-spanned="3" office:value-type="string"><text:p>QX-7</text:p></table:table-cell>'
+    title = '<table:table-cell table:number-columns-spanned="5" office:value-type="string"><text:p>Tallowmere Estate lots 2023</text:p></table:table-cell>'
+    covered = "<table:covered-table-cell/>"
+    ods("merged-cells-2023.ods", [("Lots", "".join([
+        orow(title, '<table:covered-table-cell table:number-columns-repeated="4"/>'),
+        orow(*[ostr(h) for h in header]),
+        orow(ostr("A-01"), onum(2023), spanned, onum(24.0), onum(14.0)),
+        orow(ostr("A-02"), onum(2023), covered, onum(23.1), onum(13.4)),
+        orow(ostr("A-03"), onum(2023), covered, onum(25.2), onum(14.9)),
+        orow(ostr("A-04"), onum(2023), ostr("QX-9"), onum(22.8), onum(13.2)),
+    ]), None)])
 
 
 def make_overlapping_zip():

@@ -6,8 +6,22 @@ namespace YieldBench.Reports.Tests.Charts;
 public sealed class ReviewChartsTests
 {
     private static readonly Core.Review.ReviewResult Review = SampleReview.Build();
+    private static readonly Lazy<Core.Review.ReviewResult> WithLogs = new(SampleReview.WithLogs);
 
-    public static TheoryData<string> ChartNames => new() { "alcohol-vs-sugar", "factor-by-strain", "factor-by-season", "backtest-error", "factor-histogram" };
+    private static readonly string[] Full =
+    [
+        "alcohol-vs-sugar", "factor-by-strain", "factor-by-season", "backtest-error", "strain-factors",
+        "backtest-predicted-vs-actual", "planning", "peak-temperature",
+    ];
+
+    // Charts that draw few marks on the small sample (six groups; two lots with logs, one of them dry).
+    private static readonly string[] Sparse = ["strain-by-vessel", "days-to-dry"];
+
+    public static TheoryData<string> ChartNames => new(Full);
+
+    public static TheoryData<string> SparseChartNames => new(Sparse);
+
+    public static TheoryData<string> AllChartNames => new(Full.Concat(Sparse));
 
     private static ScottPlot.Plot Make(string name) => name switch
     {
@@ -15,7 +29,12 @@ public sealed class ReviewChartsTests
         "factor-by-strain" => ReviewCharts.FactorByStrain(Review),
         "factor-by-season" => ReviewCharts.FactorBySeason(Review),
         "backtest-error" => ReviewCharts.BacktestError(Review),
-        "factor-histogram" => ReviewCharts.FactorHistogram(Review),
+        "strain-factors" => StrainCharts.AdjustedFactors(Review),
+        "strain-by-vessel" => StrainCharts.ByVessel(Review),
+        "backtest-predicted-vs-actual" => PlanningCharts.PredictedAgainstActual(Review),
+        "planning" => PlanningCharts.HighestPickingSugar(Review),
+        "days-to-dry" => StrainCharts.DaysToDry(WithLogs.Value)!,
+        "peak-temperature" => StrainCharts.PeakTemperature(WithLogs.Value)!,
         _ => throw new ArgumentOutOfRangeException(nameof(name)),
     };
 
@@ -39,7 +58,25 @@ public sealed class ReviewChartsTests
     }
 
     [Theory]
-    [MemberData(nameof(ChartNames))]
+    [MemberData(nameof(SparseChartNames))]
+    public void A_chart_of_few_marks_still_decodes_with_a_title_and_marks_beyond_the_empty_grid(string name)
+    {
+        // Given a chart that has few marks on the sample review
+        byte[] png = ChartImage.RenderPng(Make(name));
+
+        // When decoded and probed
+        int titleInk = PngProbe.DarkPixels(png, 200, 0, 1200, 60);
+        double plotVariance = PngProbe.GreyVariance(png, 200, 100, 1300, 750);
+        double emptyVariance = PngProbe.GreyVariance(ChartImage.RenderPng(ChartStyle.NewPlot("Empty", "x", "y")), 200, 100, 1300, 750);
+
+        // Then it has the report size, a title, and clearly more than an empty chart's grid (half as much again)
+        Assert.Equal((1600, 1000), PngProbe.Size(png));
+        Assert.True(titleInk > 1500, $"{name}: {titleInk} dark pixels in the title band");
+        Assert.True(plotVariance > 1.5 * emptyVariance, $"{name}: plot-area variance {plotVariance:0}, empty chart {emptyVariance:0}");
+    }
+
+    [Theory]
+    [MemberData(nameof(AllChartNames))]
     public void The_same_review_draws_the_same_chart_bytes(string name)
     {
         // Given one chart drawn twice, and an empty chart of the same size as a reference

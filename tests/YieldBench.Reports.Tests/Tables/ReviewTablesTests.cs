@@ -19,7 +19,34 @@ public sealed class ReviewTablesTests
         string header = CsvText.Write(ReviewTables.Groups(Review)).Split("\r\n")[0];
 
         // Then the header is the data-file contract
-        Assert.Equal("grouping,group,measure,n,median,mad,qn,iqr,mean,sd,trimmed_mean,huber,min,max,ci_low,ci_high", header);
+        Assert.Equal("grouping,group,measure,n,median,mad,qn,sn,iqr,mean,sd,trimmed_mean,huber,min,max,ci_low,ci_high", header);
+    }
+
+    [Fact]
+    public void The_groups_file_writes_each_groups_Sn_as_methods_md_promises()
+    {
+        // Given a review and its groups file
+        string[] lines = CsvText.Write(ReviewTables.Groups(Review)).Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
+        int sn = Array.IndexOf(lines[0].Split(','), "sn");
+
+        // Then every row's sn is its group's Sn (Rousseeuw & Croux; Robust.Sn is checked against R robustbase in
+        // RobustTests), at the file's 4 decimals, and differs from Qn somewhere (it is not a copy of the column before)
+        var groups = Review.Strains.Groups.ToArray();
+        Assert.Equal(groups.Length, lines.Length - 1);
+        for (int i = 0; i < groups.Length; i++)
+        {
+            string cell = lines[i + 1].Split(',')[sn];
+            if (double.IsNaN(groups[i].Sn))
+            {
+                Assert.Equal(string.Empty, cell);
+            }
+            else
+            {
+                Assert.Equal(groups[i].Sn, double.Parse(cell, System.Globalization.CultureInfo.InvariantCulture), 4);
+            }
+        }
+
+        Assert.Contains(groups, g => Math.Abs(g.Sn - g.Qn) > 1e-3);
     }
 
     [Fact]
@@ -62,7 +89,7 @@ public sealed class ReviewTablesTests
         var first = Review.Strains.Groups.First(g => g.Grouping == Groupings.Strain);
         Assert.Equal(first.Group, table.Rows[0][1]);
         Assert.Equal(first.Median, (double)table.Rows[0][4]!);
-        Assert.Equal(first.MedianInterval.High, (double)table.Rows[0][15]!);
+        Assert.Equal(first.MedianInterval.High, (double)table.Rows[0][16]!);
     }
 
     [Fact]

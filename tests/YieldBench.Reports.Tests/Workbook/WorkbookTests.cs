@@ -150,11 +150,16 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
         int Pictures(string sheet) => SheetPart(doc, sheet).DrawingsPart?.WorksheetDrawing?.Descendants<DocumentFormat.OpenXml.Drawing.Spreadsheet.Picture>().Count() ?? 0;
 
-        // Then the overview shows the five review charts, the lots sheet its alcohol-vs-sugar chart and the house-factor sheet its backtest chart
-        Assert.Equal(5, charts.Count);
-        Assert.Equal(5, Pictures("Overview"));
+        // Then the overview shows the two charts that answer its questions without logs (alcohol against sugar, the
+        // strains compared), and each other chart is on the sheet it explains: the lots sheet its alcohol-vs-sugar
+        // chart, the strain comparison its three factor charts, the house-factor sheet its two backtest charts, the
+        // planner its planning chart
+        Assert.Equal(8, charts.Count);
+        Assert.Equal(2, Pictures("Overview"));
         Assert.Equal(1, Pictures("Lots"));
-        Assert.Equal(1, Pictures("House factor"));
+        Assert.Equal(3, Pictures("Strain comparison"));
+        Assert.Equal(2, Pictures("House factor"));
+        Assert.Equal(1, Pictures("Planner"));
         Assert.Equal(0, Pictures("Methods and cautions"));
     }
 
@@ -190,7 +195,7 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
             }
         }
 
-        Assert.Equal(7, checkedPictures);
+        Assert.Equal(9, checkedPictures);
     }
 
     [Fact]

@@ -1,0 +1,117 @@
+using System.Diagnostics;
+using System.Security.Cryptography;
+
+namespace YieldBench.Cli.Tests;
+
+/// <summary>
+/// The tool run as a user runs it, in a process of its own, and stopped part way: by Ctrl-C (SIGINT) and by a kill
+/// that gives it no chance to tidy up (SIGKILL). The report folder must be whole or untouched whatever the moment.
+/// </summary>
+public sealed class KilledRunTests : IDisposable
+{
+    private readonly string _dir = Directory.CreateTempSubdirectory("yieldbench-killed-").FullName;
+
+    public void Dispose() => Directory.Delete(_dir, recursive: true);
+
+    [Fact]
+    public void A_review_stopped_at_any_moment_leaves_the_report_folder_whole_or_as_it_was()
+    {
+        if (OperatingSystem.IsWindows())
+        {
+            return; // Signals are POSIX; the staging swap itself is tested in-process on every platform.
+        }
+
+        // Given a finished report of the demo (every output is deterministic, so a finished rerun is byte-identical)
+        string report = Path.Combine(_dir, "report");
+        var (first, _) = RunToEnd("review", "--out", report, "--quiet");
+        Assert.Equal(ExitCodes.Success, first);
+        var before = Snapshot(report);
+        Assert.Contains("report.xlsx", before.Keys);
+
+        // When a review is stopped by Ctrl-C part way
+        var (interrupted, said) = Stop("SIGINT", TimeSpan.FromSeconds(1.5));
+
+        // Then it says so in plain words, with no stack trace, and ends as Ctrl-C asks
+        Assert.Equal(130, interrupted);
+        Assert.Contains(YieldBenchApp.StoppedMessage("Ctrl-C"), Cli.Flat(said), StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", said, StringComparison.Ordinal);
+        AssertWholeOrAsItWas(report, before);
+
+        // And reviews killed outright at several moments leave it whole or as it was each time
+        foreach (double seconds in new[] { 0.5, 1, 2, 3, 4, 6 })
+        {
+            var (killed, _) = Stop("SIGKILL", TimeSpan.FromSeconds(seconds));
+            Assert.True(killed is 137 or 0, $"exit {killed} after {seconds} s");
+            AssertWholeOrAsItWas(report, before);
+        }
+
+        // And the next run puts back a report a kill left set aside, and clears away every unfinished copy
+        var (last, _) = RunToEnd("review", "--out", report, "--quiet");
+        Assert.Equal(ExitCodes.Success, last);
+        Assert.Equal(before, Snapshot(report));
+        Assert.Equal(["report"], Directory.GetFileSystemEntries(_dir).Select(Path.GetFileName));
+    }
+
+    private void AssertWholeOrAsItWas(string report, Dictionary<string, string> before)
+    {
+        if (Directory.Exists(report))
+        {
+            Assert.Equal(before, Snapshot(report));
+        }
+        else
+        {
+            // Killed between the two renames of the swap: the previous report waits under its hidden name.
+            string aside = Assert.Single(Directory.GetDirectories(_dir, ".report.yieldbench-previous-*"));
+            Assert.Equal(before, Snapshot(aside));
+        }
+    }
+
+    /// <summary>Every file below <paramref name="folder"/> by relative path, with its SHA-256.</summary>
+    private static Dictionary<string, string> Snapshot(string folder) =>
+        Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories)
+            .ToDictionary(f => Path.GetRelativePath(folder, f).Replace('\\', '/'), f => Convert.ToHexString(SHA256.HashData(File.ReadAllBytes(f))));
+
+    private (int Exit, string Error) RunToEnd(params string[] args)
+    {
+        using var process = Start(args);
+        _ = process.StandardOutput.ReadToEndAsync();
+        var error = process.StandardError.ReadToEndAsync();
+        Assert.True(process.WaitForExit(TimeSpan.FromMinutes(5)), "the review took more than 5 minutes");
+        return (process.ExitCode, error.Result);
+    }
+
+    /// <summary>Starts a review of the demo and sends <paramref name="signal"/> after <paramref name="after"/>.</summary>
+    private (int Exit, string Error) Stop(string signal, TimeSpan after)
+    {
+        using var process = Start("review", "--out", Path.Combine(_dir, "report"));
+        _ = process.StandardOutput.ReadToEndAsync();
+        var error = process.StandardError.ReadToEndAsync();
+        if (!process.WaitForExit(after))
+        {
+            using var kill = Process.Start("kill", ["-s", signal.Replace("SIG", "", StringComparison.Ordinal), process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]);
+            kill.WaitForExit();
+        }
+
+        Assert.True(process.WaitForExit(TimeSpan.FromMinutes(5)), "the review did not stop");
+        return (process.ExitCode, error.Result);
+    }
+
+    private Process Start(params string[] args)
+    {
+        // The tool as built beside the tests (yieldbench.dll, with the demo data copied next to it).
+        var start = new ProcessStartInfo("dotnet")
+        {
+            WorkingDirectory = _dir,
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add(typeof(YieldBenchApp).Assembly.Location);
+        foreach (string a in args)
+        {
+            start.ArgumentList.Add(a);
+        }
+
+        return Process.Start(start)!;
+    }
+}
