@@ -75,6 +75,7 @@ public sealed class SelectionTests
     [InlineData(40, 3)]
     [InlineData(301, 4)]
     [InlineData(900, 5)]
+    [InlineData(1400, 6)]
     public void Theil_Sen_slopes_by_selection_equal_the_sorted_slopes(int n, int seed)
     {
         // Given sugars rounded to 0.1 and alcohols to 0.01, so that tied x values and tied slopes are common
