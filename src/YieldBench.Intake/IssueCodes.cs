@@ -41,6 +41,9 @@ public static class IssueCodes
     /// <summary><c>not-a-workbook</c>.</summary>
     public const string NotAWorkbook = "not-a-workbook";
 
+    /// <summary><c>content-differs-from-name</c>.</summary>
+    public const string ContentDiffersFromName = "content-differs-from-name";
+
     /// <summary><c>zip-bomb</c>.</summary>
     public const string ZipBomb = "zip-bomb";
 
