@@ -20,6 +20,9 @@ public static class IssueCodes
     /// <summary><c>file-skipped</c>.</summary>
     public const string FileSkipped = "file-skipped";
 
+    /// <summary><c>same-content-again</c>.</summary>
+    public const string SameContentAgain = "same-content-again";
+
     /// <summary><c>unsupported-file-type</c>.</summary>
     public const string UnsupportedFileType = "unsupported-file-type";
 
