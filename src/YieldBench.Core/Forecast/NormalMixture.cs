@@ -26,6 +26,14 @@ public sealed class NormalMixture(int capacity)
     /// <summary>The quantity is max(X, Floor) (−∞: no floor).</summary>
     public double Floor { get; set; } = double.NegativeInfinity;
 
+    /// <summary>Empties the mixture (the floor stays).</summary>
+    public void Clear()
+    {
+        Count = 0;
+        _finite = 0;
+        NeverWeight = 0;
+    }
+
     /// <summary>Adds N(mean, sd²) with the given weight; a mean of +∞ adds the weight at +∞.</summary>
     public void Add(double mean, double sd, double weight)
     {
@@ -174,8 +182,11 @@ public sealed class NormalMixture(int capacity)
         Count = keep.Length;
     }
 
-    /// <summary>The q-quantile (0 &lt; q &lt; 1); +∞ when more than 1 − q of the weight is at +∞; NaN when empty.</summary>
-    public double Quantile(double q)
+    /// <summary>
+    /// The q-quantile (0 &lt; q &lt; 1); +∞ when more than 1 − q of the weight is at +∞; NaN when empty. A finite
+    /// <paramref name="guess"/> (e.g. the same quantile a moment earlier on a course) starts the search there.
+    /// </summary>
+    public double Quantile(double q, double guess = double.NaN)
     {
         double total = TotalWeight;
         if (Count == 0 || total <= 0)
@@ -216,7 +227,7 @@ public sealed class NormalMixture(int capacity)
         // (the start's z is the logistic's with the normal's variance, ln(p / (1 − p))·√3/π: within 0.1 of the normal's
         // quantile for 0.05 ≤ p ≤ 0.95; it is only a start).
         double p = Math.Clamp(target / _finite, 1e-9, 1 - 1e-9);
-        double x = Math.Clamp(mean + (sd * Math.Log(p / (1 - p)) * Math.Sqrt(3) / Math.PI), lo, hi);
+        double x = Math.Clamp(double.IsFinite(guess) ? guess : mean + (sd * Math.Log(p / (1 - p)) * Math.Sqrt(3) / Math.PI), lo, hi);
         double tolerance = 1e-9 * Math.Max(1.0, hi - lo);
         for (int it = 0; it < 100 && hi - lo > tolerance; it++)
         {

@@ -251,8 +251,12 @@ internal static class PosteriorSummary
         double start = Math.Min(0, c.SugarHours.Length > 0 ? c.SugarHours[0] : 0);
         double endAt = new[] { dry?.High, dry?.Median, third?.High, now + 72 }.Where(v => v is { } x && double.IsFinite(x)).Max(v => v!.Value);
         endAt = Math.Max(endAt, now + 24) + 24;
-        const int points = 121;
+        const int points = 61;
         var hours = Enumerable.Range(0, points).Select(i => start + ((endAt - start) * i / (points - 1))).ToArray();
+
+        // The grid point nearest now moves onto it, so the reachable course starts at the last reading.
+        int nearest = Enumerable.Range(0, points).MinBy(i => Math.Abs(hours[i] - now));
+        hours[nearest] = now;
         var bMed = new double[points];
         var bLo = new double[points];
         var bHi = new double[points];
@@ -263,8 +267,10 @@ internal static class PosteriorSummary
         double delay = m.DelayFor(c);
         double lo = (1 - settings.IntervalLevel) / 2, hi = 1 - lo;
         var nodes = Enumerable.Range(0, p.Nodes).Where(k => w[k] > 1e-7).ToArray();
-        var sugar = new WeightedPoints(nodes.Length * LotPosterior.Parts);
-        var temp = new WeightedPoints(nodes.Length * LotPosterior.TempParts);
+        // At each time every node and part gives a normal (S0 and F, Ta and P are Gaussian there): the bands are the
+        // quantiles of their mixture, as for the forecast's intervals.
+        var sugar = new NormalMixture(nodes.Length * LotPosterior.Parts);
+        var temp = new NormalMixture(nodes.Length * LotPosterior.TempParts);
         for (int i = 0; i < points; i++)
         {
             sugar.Clear();
@@ -277,22 +283,26 @@ internal static class PosteriorSummary
                 for (int part = 0; part < LotPosterior.Parts; part++)
                 {
                     var g = p.Comp[(k * LotPosterior.Parts) + part];
-                    sugar.Add(g.A - ((g.A - g.B) * h), w[k] * p.CompWeight[(k * LotPosterior.Parts) + part]);
+                    sugar.Add(g.A - ((g.A - g.B) * h), Math.Sqrt(Math.Max(0, g.VarianceOf(1 - h, h))), w[k] * p.CompWeight[(k * LotPosterior.Parts) + part]);
                 }
 
                 double s = SigmoidShape.Slope(m.Form, kappa, p.Lag[k], t - delay) / kappa;
                 for (int part = 0; part < LotPosterior.TempParts; part++)
                 {
                     var tp = p.Temp[(k * LotPosterior.TempParts) + part];
-                    temp.Add((tp.A * (1 - s)) + (tp.B * s), w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
+                    temp.Add((tp.A * (1 - s)) + (tp.B * s), Math.Sqrt(Math.Max(0, tp.VarianceOf(1 - s, s))), w[k] * p.TempWeight[(k * LotPosterior.TempParts) + part]);
                 }
-
             }
 
-            sugar.Sort();
-            temp.Sort();
-            (bMed[i], bLo[i], bHi[i]) = (sugar.QuantileOfSorted(0.5), sugar.QuantileOfSorted(lo), sugar.QuantileOfSorted(hi));
-            (tMed[i], tLo[i], tHi[i]) = (temp.QuantileOfSorted(0.5), temp.QuantileOfSorted(lo), temp.QuantileOfSorted(hi));
+            sugar.Compact(1e-2);
+            temp.Compact(1e-2);
+            // (A chart band: components holding 1 % of the weight are dropped, so a band end lies between the 9 % and
+            // 11 % points; each search starts from the same quantile at the time before, the courses being smooth.)
+            double Before(double[] v) => i > 0 ? v[i - 1] : double.NaN;
+            (bMed[i], bLo[i], bHi[i]) = (sugar.Quantile(0.5, Before(bMed)), sugar.Quantile(lo, Before(bLo)), sugar.Quantile(hi, Before(bHi)));
+            (tMed[i], tLo[i], tHi[i]) = temp.Count > 0
+                ? (temp.Quantile(0.5, Before(tMed)), temp.Quantile(lo, Before(tLo)), temp.Quantile(hi, Before(tHi)))
+                : (double.NaN, double.NaN, double.NaN);
         }
 
         // The reachable course: the last temperature plus the heat of what is fermented from now on, none removed.

@@ -208,6 +208,33 @@ public class ForecastModelTests
     }
 
     [Fact]
+    public void The_charts_temperature_band_carries_the_peaks_own_uncertainty()
+    {
+        // Given a lot with its first readings (20 h), its peak still far ahead
+        var (model, cellar) = Trained(5);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var lot = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+        var log = cellar.Log("30-001", 2030, truth, inoc, 20);
+        var f = ForecastRunner.Run(Array.Empty<Lot>(), [], [lot], [log], Settings, model).Lots[0];
+
+        // When the chart's course is laid out
+        var curve = f.Curve;
+        int top = Array.IndexOf(curve.TempMedian, curve.TempMedian.Max());
+
+        // Then its temperature band at the forecast top is about as wide as the peak's own 80 % interval (the interval
+        // adds how far the highest reading falls from the curve's top), not only the spread of the rate and lag
+        double band = curve.TempHigh[top] - curve.TempLow[top];
+        double interval = f.PeakC!.Value.High - f.PeakC.Value.Low;
+        Assert.True(band > 0.6 * interval && band < 1.3 * interval, $"band {band:0.00} °C at the top, peak interval {interval:0.00} °C");
+
+        // And the grid holds the moment of the last reading, where the reachable course starts
+        double now = f.Course.SugarHours[^1];
+        int at = Array.IndexOf(curve.Hours, now);
+        Assert.True(at > 0 && double.IsFinite(curve.ReachableC[at]) && double.IsNaN(curve.ReachableC[at - 1]), $"reachable course starts at {curve.Hours.Zip(curve.ReachableC).FirstOrDefault(x => double.IsFinite(x.Second)).First:0.0} h, last reading {now:0.0} h");
+    }
+
+    [Fact]
     public void The_same_inputs_give_the_same_forecast()
     {
         var (model, cellar) = Trained(21);
