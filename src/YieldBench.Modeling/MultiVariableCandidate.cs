@@ -48,7 +48,7 @@ public sealed class MultiVariableCandidate : ICandidateTrainer
     public string Id => "multi-variable";
 
     /// <inheritdoc />
-    public string Name => "Multi-variable model (ML.NET SDCA)";
+    public string Name => "Multi-variable model (sugar, strain, vessel and more)";
 
     /// <inheritdoc />
     public string Description => "A linear model of final alcohol on starting sugar, strain, vessel, variety, YAN, pH and fermentation temperature where recorded.";

@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Output;
 
 namespace YieldBench.Reports;
@@ -85,7 +86,7 @@ public static class ConsoleSummary
             Say("How the strains fermented (lots with a log; median days to dry and peak temperature):");
             foreach (var s in o.Ferments)
             {
-                Say($"{s.Strain}: dry in {F(s.DaysToDry.Median, "0.0")} days, peak {F(s.PeakTemperatureC.Median, "0.0")} °C, {s.Troubled} of {s.Lots} troubled (stuck, sluggish or not dry; {F(s.TroubledShare * 100, "0")} %).", 2);
+                Say($"{s.Strain}: dry in {F(s.DaysToDry.Median, "0.0")} days, peak {review.Settings.TemperatureUnit.Show(s.PeakTemperatureC.Median)}, {s.Troubled} of {s.Lots} troubled (stuck, sluggish or not dry; {F(s.TroubledShare * 100, "0")} %).", 2);
             }
         }
 

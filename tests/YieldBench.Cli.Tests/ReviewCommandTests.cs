@@ -196,6 +196,29 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
     }
 
     [Fact]
+    public void With_fahrenheit_the_console_and_data_files_give_temperatures_in_degrees_fahrenheit()
+    {
+        // Given the demo reviewed again with --fahrenheit
+        var (exit, output, _) = Cli.Run(demo.Root, "review", "--out", "fahrenheit", "--fahrenheit");
+        var celsius = Cli.CsvLines(Path.Combine(demo.First, "data", "kinetics.csv"));
+        var fahrenheit = Cli.CsvLines(Path.Combine(demo.Root, "fahrenheit", "data", "kinetics.csv"));
+
+        // When the peak-temperature column of the same lot is read in both files
+        int c = Array.IndexOf(celsius[0].Split(','), "peak_temp_c"), f = Array.IndexOf(fahrenheit[0].Split(','), "peak_temp_f");
+        double pc = double.Parse(celsius[1].Split(',')[c], CultureInfo.InvariantCulture);
+        double pf = double.Parse(fahrenheit[1].Split(',')[f], CultureInfo.InvariantCulture);
+
+        // Then the file names the unit in its column (no _c temperature column is left), its value is 1.8·°C + 32 to the
+        // written decimal, and the console's ferments and follow-up lines read in °F
+        Assert.Equal(demo.ExitCode, exit);
+        Assert.True(c >= 0 && f == c, "peak_temp_f takes the place of peak_temp_c");
+        Assert.DoesNotContain(fahrenheit[0].Split(','), n => n.EndsWith("temp_c", StringComparison.Ordinal));
+        Assert.Equal((pc * 1.8) + 32, pf, 1);
+        Assert.Matches(@"YB-R31: dry in [\d.]+ days, peak [\d.]+ °F", Cli.Flat(output));
+        Assert.Contains("above the 104 °F danger line", Cli.Flat(output), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void The_guides_chart_images_are_the_charts_the_demo_review_draws()
     {
         // Given the chart images of docs/report-guide.md (the page screenshot comes from the browser tests, not here)

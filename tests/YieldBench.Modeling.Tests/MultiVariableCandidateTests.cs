@@ -158,7 +158,7 @@ public class MultiVariableCandidateTests
         Assert.Equal(BacktestScheme.TenFoldByLot, ml.ByLotScheme);
         Assert.Equal(BacktestScheme.LeaveOneLotOut, review.Candidates.Single(c => c.Id == "pooled-median").ByLotScheme);
         Assert.Null(ml.FullFit);
-        Assert.StartsWith("Multi-variable model (ML.NET SDCA): Starting sugar explains most", review.ImportanceSentence, StringComparison.Ordinal);
+        Assert.StartsWith("Multi-variable model (sugar, strain, vessel and more): Starting sugar explains most", review.ImportanceSentence, StringComparison.Ordinal);
         Assert.NotNull(review.Planning);
         Assert.NotEqual("multi-variable", review.Planning!.Pooled.CandidateId);
     }

@@ -4,6 +4,7 @@ using YieldBench.Cli.CommandLine;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 using YieldBench.Intake;
 using YieldBench.Modeling;
 using YieldBench.Reports;
@@ -30,9 +31,10 @@ internal static class ReviewCommand
         var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
         var classLine = new Option<string?>("--class-line") { Description = "Alcohol (% v/v) a stated value may not cross in the label scoring, or 'none' (default: the regime's own; US 16, the tax-class boundary since 2018; 14 for the rule before)." };
         var includeFlagged = new Option<bool>("--include-flagged-lots") { Description = "Let lots flagged as likely errors or not fermented to dryness teach the house factor (by default they are left out; both versions are reported)." };
+        var fahrenheit = new Option<bool>("--fahrenheit") { Description = "Show temperatures in °F (charts, workbook, page, console and data files, whose temperature columns then end in _f)." };
         var command = new Command("review", "Review finished lots: conversion by strain, odd lots, house factor, kinetics; writes a workbook, charts and data files.");
         command.Arguments.Add(inputs);
-        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged, classLine })
+        foreach (var option in new Option[] { output, quiet, columns, mapping, season, regime, threshold, seed, includeFlagged, classLine, fahrenheit })
         {
             command.Options.Add(option);
         }
@@ -50,7 +52,8 @@ internal static class ReviewCommand
                 parse.GetValue(threshold),
                 parse.GetValue(seed),
                 parse.GetValue(includeFlagged),
-                parse.GetValue(classLine))));
+                parse.GetValue(classLine),
+                parse.GetValue(fahrenheit))));
         return command;
     }
 
@@ -66,7 +69,8 @@ internal static class ReviewCommand
         double? Threshold,
         int? Seed,
         bool IncludeFlaggedLots = false,
-        string? ClassLine = null);
+        string? ClassLine = null,
+        bool Fahrenheit = false);
 
     internal static int Run(CliContext context, Request request)
     {
@@ -160,6 +164,7 @@ internal static class ReviewCommand
         var settings = new ReviewSettings
         {
             Seed = request.Seed ?? new ReviewSettings().Seed,
+            TemperatureUnit = request.Fahrenheit ? TemperatureUnit.Fahrenheit : TemperatureUnit.Celsius,
             HouseFactor = new HouseFactorSettings
             {
                 Regime = regime,

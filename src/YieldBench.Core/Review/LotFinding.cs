@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review.Strains;
+using YieldBench.Core.Units;
 using static System.FormattableString;
 
 namespace YieldBench.Core.Review;
@@ -67,7 +68,7 @@ public static class LotFindings
     ];
 
     /// <summary>The finding of a lot with follow-up items, or null when it has none.</summary>
-    public static LotFinding? Of(LotConversion lot, IReadOnlyList<LotFlag> strainFlags, IReadOnlyList<LotFlag> kineticsItems, LotKinetics? kinetics = null)
+    public static LotFinding? Of(LotConversion lot, IReadOnlyList<LotFlag> strainFlags, IReadOnlyList<LotFlag> kineticsItems, LotKinetics? kinetics = null, Units.TemperatureUnit unit = Units.TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(lot);
         var all = strainFlags.Concat(kineticsItems).ToArray();
@@ -92,7 +93,7 @@ public static class LotFindings
             Severity = all.Max(f => f.Severity),
             Codes = codes,
             Flags = codes.Select(ReviewTexts.FlagName).ToArray(),
-            Seen = Seen(lot, symptoms, explanations, kinetics),
+            Seen = Seen(lot, symptoms, explanations, kinetics, unit),
             Explanation = lead is null ? SymptomExplanation(low) : Explain(lead, lot),
             Otherwise = second is null ? null : Explain(second, lot),
             FollowUp = lead is null ? SymptomFollowUp(low) : Act(lead, lot),
@@ -107,7 +108,7 @@ public static class LotFindings
         (a.Code == FlagCodes.AboveTheoreticalYield && b.Code == FlagCodes.PossibleUnrecordedWater)
         || (b.Code == FlagCodes.AboveTheoreticalYield && a.Code == FlagCodes.PossibleUnrecordedWater);
 
-    private static string Seen(LotConversion lot, LotFlag[] symptoms, LotFlag[] explanations, LotKinetics? k)
+    private static string Seen(LotConversion lot, LotFlag[] symptoms, LotFlag[] explanations, LotKinetics? k, Units.TemperatureUnit unit)
     {
         var parts = new List<string>();
         double abv = lot.Lot.FinalAlcohol.PercentVolume;
@@ -140,10 +141,10 @@ public static class LotFindings
                     parts.Add(Invariant($"sluggish from {slow.BrixStart:0.0} to {slow.BrixEnd:0.0} °Brix ({slow.MeanRateBrixPerDay:0.00} °Brix/day)"));
                     break;
                 case "above-danger-temp" when k?.PeakTemperatureC is { } peak:
-                    parts.Add(Invariant($"peaked at {peak:0.0} °C, above the {k.Thresholds.DangerC:0} °C danger line for about {k.HoursAboveDanger:0} h"));
+                    parts.Add(Invariant($"peaked at {unit.Show(peak)}, above the {unit.Show(k.Thresholds.DangerC, "0")} danger line for about {k.HoursAboveDanger:0} h"));
                     break;
                 case "above-caution-temp" when k?.PeakTemperatureC is { } peak:
-                    parts.Add(Invariant($"peaked at {peak:0.0} °C, above the {k.Thresholds.CautionC:0} °C caution line for about {k.HoursAboveCaution:0} h"));
+                    parts.Add(Invariant($"peaked at {unit.Show(peak)}, above the {unit.Show(k.Thresholds.CautionC, "0")} caution line for about {k.HoursAboveCaution:0} h"));
                     break;
                 case "not-dry-at-log-end" when k is not null:
                     parts.Add(Invariant($"the log ends at {k.FinalBrix:0.0} °Brix"));

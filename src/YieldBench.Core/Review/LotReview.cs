@@ -57,7 +57,7 @@ internal static class LotReviews
 {
     /// <summary>One entry per lot, in the order of <paramref name="lots"/>; <paramref name="followUps"/> is every follow-up item.</summary>
     public static IReadOnlyList<LotReview> Build(
-        IReadOnlyList<LotConversion> lots, StrainReview strains, KineticsReview? kinetics, out IReadOnlyList<LotFlag> followUps)
+        IReadOnlyList<LotConversion> lots, StrainReview strains, KineticsReview? kinetics, out IReadOnlyList<LotFlag> followUps, Units.TemperatureUnit unit = Units.TemperatureUnit.Celsius)
     {
         var kineticsItems = kinetics is null ? [] : Kinetics.KineticsFollowUps.For(kinetics);
         followUps = [.. strains.Flags, .. kineticsItems];
@@ -98,7 +98,7 @@ internal static class LotReviews
                 KineticsFollowUps = ownItems,
                 FlagCodes = own.Select(f => f.Code).Concat(k?.Flags ?? []).Distinct(StringComparer.Ordinal).ToArray(),
                 WorstSeverity = worst,
-                Finding = LotFindings.Of(lots[i], own, ownItems, k),
+                Finding = LotFindings.Of(lots[i], own, ownItems, k, unit),
             };
         }
 

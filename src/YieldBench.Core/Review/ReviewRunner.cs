@@ -50,7 +50,7 @@ public static class ReviewRunner
         var house = HouseFactorAnalysis.Run(lots, strains.Flags, settings.HouseFactor, extraCandidates ?? [], settings.Seed);
         var kinetics = kineticsTask.GetAwaiter().GetResult();
 
-        var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps);
+        var lotReviews = LotReviews.Build(lots, strains, kinetics, out var followUps, settings.TemperatureUnit);
         var figures = ReviewFigures.Build(lots, strains, kinetics, house.Planning);
         return new ReviewResult
         {

@@ -2,6 +2,7 @@ using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Review.Strains;
+using YieldBench.Core.Units;
 
 namespace YieldBench.Core.Review;
 
@@ -22,4 +23,10 @@ public sealed record ReviewSettings
 
     /// <summary>Kinetics thresholds (dryness, stalls, temperatures, heat constants).</summary>
     public KineticsSettings Kinetics { get; init; } = KineticsSettings.Default;
+
+    /// <summary>
+    /// The unit the outputs show temperatures in (charts, workbook, page, console, data files); the review itself
+    /// computes and keeps °C.
+    /// </summary>
+    public TemperatureUnit TemperatureUnit { get; init; } = TemperatureUnit.Celsius;
 }

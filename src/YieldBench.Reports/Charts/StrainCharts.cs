@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 
 namespace YieldBench.Reports.Charts;
 
@@ -173,7 +174,7 @@ public static class StrainCharts
 
         var plot = ChartStyle.NewPlot("Days to dry by strain", string.Empty, "Days from time zero to dry");
         var lots = k.Lots.Where(l => l.HoursToDry is not null).ToLookup(l => l.Lot.Strain, l => l.HoursToDry!.Value / 24.0, StringComparer.Ordinal);
-        Boxes(plot, review, f => f.DaysToDry, s => lots[s].ToArray());
+        Boxes(plot, review, f => f.DaysToDry, s => lots[s].ToArray(), d => d);
         ChartStyle.Subtitle(plot, "Box: from the lower to the upper quartile, line: the median; dots: each lot that reached dry");
         return plot;
     }
@@ -190,9 +191,10 @@ public static class StrainCharts
             return null;
         }
 
-        var plot = ChartStyle.NewPlot("Peak temperature by strain", string.Empty, "Peak temperature (°C)");
+        var unit = review.Settings.TemperatureUnit;
+        var plot = ChartStyle.NewPlot("Peak temperature by strain", string.Empty, $"Peak temperature ({unit.Symbol()})");
         var lots = k.Lots.Where(l => l.PeakTemperatureC is not null).ToLookup(l => l.Lot.Strain, StringComparer.Ordinal);
-        var ferments = Boxes(plot, review, f => f.PeakTemperatureC, s => lots[s].Select(l => l.PeakTemperatureC!.Value).ToArray());
+        var ferments = Boxes(plot, review, f => f.PeakTemperatureC, s => lots[s].Select(l => unit.FromCelsius(l.PeakTemperatureC!.Value)).ToArray(), c => unit.FromCelsius(c));
         bool cautionNamed = false, dangerNamed = false;
         for (int i = 0; i < ferments.Count; i++)
         {
@@ -200,7 +202,7 @@ public static class StrainCharts
                 .SelectMany(l => new[] { (l.Thresholds.CautionC, true), (l.Thresholds.DangerC, false) })
                 .Distinct())
             {
-                var line = plot.Add.Line(i - 0.45, level, i + 0.45, level);
+                var line = plot.Add.Line(i - 0.45, unit.FromCelsius(level), i + 0.45, unit.FromCelsius(level));
                 line.Color = ChartPalette.ForIndex(5).WithAlpha(0.9);
                 line.LineWidth = 2.5f;
                 line.LinePattern = caution ? LinePattern.Dashed : LinePattern.Solid;
@@ -225,7 +227,8 @@ public static class StrainCharts
     }
 
     // Quartile boxes per strain (those with logs, in the overview's order) and each lot's value beside its box.
-    private static IReadOnlyList<StrainFerments> Boxes(Plot plot, ReviewResult review, Func<StrainFerments, Core.Kinetics.MetricSummary> metric, Func<string, double[]> values)
+    private static IReadOnlyList<StrainFerments> Boxes(
+        Plot plot, ReviewResult review, Func<StrainFerments, Core.Kinetics.MetricSummary> metric, Func<string, double[]> values, Func<double, double> shown)
     {
         var ferments = review.Overview.Ferments;
         var ticks = new ScottPlot.TickGenerators.NumericManual();
@@ -239,7 +242,7 @@ public static class StrainCharts
             ticks.AddMajor(i, $"{f.Strain}\n{mine.Length} lots");
             if (m.N > 0 && double.IsFinite(m.Median))
             {
-                var box = new Box { Position = i - 0.12, BoxMin = m.Q1, BoxMax = m.Q3, BoxMiddle = m.Median, WhiskerMin = m.Q1, WhiskerMax = m.Q3, Width = 0.4 };
+                var box = new Box { Position = i - 0.12, BoxMin = shown(m.Q1), BoxMax = shown(m.Q3), BoxMiddle = shown(m.Median), WhiskerMin = shown(m.Q1), WhiskerMax = shown(m.Q3), Width = 0.4 };
                 plot.Add.Box(box);
                 box.FillColor = color.WithAlpha(0.30);
                 box.LineColor = color;

@@ -1,6 +1,7 @@
 using System.Text;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 using static YieldBench.Reports.Html.HtmlText;
 
 namespace YieldBench.Reports.Html;
@@ -299,11 +300,12 @@ public static class HtmlReport
         }
 
         page.Append($"<p class=\"lead\">From {Count(k.LotsWithLog)} lots with a fermentation log. A ferment counts as troubled when it went sluggish or stuck, or was not dry when its log ended.</p>\n");
-        page.Append("<div class=\"scroll\"><table class=\"numbers\">\n<caption>Ferments by strain: median, with the middle half of lots in brackets</caption>\n<thead><tr><th scope=\"col\">Strain</th><th scope=\"col\">Logged lots</th><th scope=\"col\">Days to dry</th><th scope=\"col\">Peak temperature <span class=\"unit\">°C</span></th><th scope=\"col\">Troubled ferments</th></tr></thead>\n<tbody>\n");
+        var unit = review.Settings.TemperatureUnit;
+        page.Append($"<div class=\"scroll\"><table class=\"numbers\">\n<caption>Ferments by strain: median, with the middle half of lots in brackets</caption>\n<thead><tr><th scope=\"col\">Strain</th><th scope=\"col\">Logged lots</th><th scope=\"col\">Days to dry</th><th scope=\"col\">Peak temperature <span class=\"unit\">{unit.Symbol()}</span></th><th scope=\"col\">Troubled ferments</th></tr></thead>\n<tbody>\n");
         foreach (var f in o.Ferments)
         {
             page.Append($"<tr><th scope=\"row\">{Escape(f.Strain)}</th><td>{Count(f.Lots)}</td>");
-            page.Append($"<td>{Summary(f.DaysToDry, "0.0")}</td><td>{Summary(f.PeakTemperatureC, "0.0")}</td>");
+            page.Append($"<td>{Summary(f.DaysToDry, "0.0")}</td><td>{Summary(InUnit(f.PeakTemperatureC, unit), "0.0")}</td>");
             page.Append($"<td>{Count(f.Troubled)} <span class=\"unit\">({Percent(f.TroubledShare)})</span></td></tr>\n");
         }
 
@@ -382,4 +384,8 @@ public static class HtmlReport
         page.Append($"<li>{Escape(HtmlTexts.Defer)}</li>\n</ul>\n");
         Close(page);
     }
+
+    // A temperature summary given in °C, shown in the review's unit.
+    private static Core.Kinetics.MetricSummary InUnit(Core.Kinetics.MetricSummary m, TemperatureUnit unit) =>
+        new(m.N, unit.FromCelsius(m.Median), unit.FromCelsius(m.Q1), unit.FromCelsius(m.Q3));
 }

@@ -2,6 +2,7 @@ using ScottPlot;
 using SkiaSharp;
 using YieldBench.Core.Kinetics;
 using YieldBench.Core.Review;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Charts;
 
 namespace YieldBench.Reports.Kinetics;
@@ -70,6 +71,7 @@ public static class KineticsCharts
         var ordered = kinetics.Lots.ToArray();
         var strains = review.Figures.StrainOrder;
         var courses = review.Figures.Courses;
+        var unit = review.Settings.TemperatureUnit;
         var panels = review.Figures.KineticsPanels.Count == ordered.Length
             ? review.Figures.KineticsPanels.Select(i => ordered[i]).ToArray()
             : ordered;
@@ -97,7 +99,7 @@ public static class KineticsCharts
             var file = new ChartFile(Path.GetFullPath(path), title, ChartStyle.Width, ChartStyle.Height, Sheet);
             charts.Add(new PlannedChart(file, stream =>
             {
-                using var png = OverviewPng(chunk, title);
+                using var png = OverviewPng(chunk, title, unit);
                 stream.Write(png.AsSpan());
             }));
         }
@@ -114,7 +116,7 @@ public static class KineticsCharts
         {
             string name = $"kinetics-lot-{Safe(k.Lot.Season.ToString(System.Globalization.CultureInfo.InvariantCulture))}-{Safe(k.Lot.LotId)}.png";
             string title = $"Lot {k.LotKey} ({k.Lot.Strain}): {followUps[k.LotKey]}";
-            charts.Add(PlannedChart.Of(() => LotChart(k, title), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", sheet: null, onOverview: false));
+            charts.Add(PlannedChart.Of(() => LotChart(k, title, unit), Path.Combine(directory, name), $"Lot {k.LotKey}: sugar and temperature", sheet: null, onOverview: false));
         }
 
         return (charts, [strainJob, strainJob + 1]);
@@ -130,7 +132,7 @@ public static class KineticsCharts
     }
 
     /// <summary>Sugar (left axis) and temperature (right axis) against days from time zero for one lot.</summary>
-    public static Plot LotChart(LotKinetics k, string? title = null)
+    public static Plot LotChart(LotKinetics k, string? title = null, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(k);
         string origin = k.OriginKind == TimeOrigin.Inoculation ? "inoculation" : "first reading";
@@ -176,26 +178,27 @@ public static class KineticsCharts
 
         if (k.Temperatures.Count > 0)
         {
-            var temp = plot.Add.Scatter(k.Temperatures.Select(p => p.Hours / 24.0).ToArray(), k.Temperatures.Select(p => p.Celsius).ToArray());
+            string symbol = unit.Symbol();
+            var temp = plot.Add.Scatter(k.Temperatures.Select(p => p.Hours / 24.0).ToArray(), k.Temperatures.Select(p => unit.FromCelsius(p.Celsius)).ToArray());
             temp.Color = tempColor;
             temp.LineWidth = 2;
             temp.MarkerSize = k.Dense ? 0 : 7;
             temp.MarkerShape = MarkerShape.FilledSquare;
-            temp.LegendText = "Temperature (°C, right axis)";
+            temp.LegendText = $"Temperature ({symbol}, right axis)";
             temp.Axes.YAxis = plot.Axes.Right;
             foreach (var (level, label, pattern) in new[] { (k.Thresholds.CautionC, "caution", LinePattern.Dashed), (k.Thresholds.DangerC, "danger", LinePattern.Solid) })
             {
-                var line = plot.Add.HorizontalLine(level);
+                var line = plot.Add.HorizontalLine(unit.FromCelsius(level));
                 line.Axes.YAxis = plot.Axes.Right;
                 line.Color = tempColor.WithAlpha(0.7);
                 line.LinePattern = pattern;
                 line.LineWidth = 1.5f;
-                line.LegendText = $"{label} temperature {level:0} °C (right axis)";
+                line.LegendText = $"{label} temperature {unit.Show(level, "0")} (right axis)";
             }
 
-            double top = Math.Max(k.Thresholds.DangerC + 2, k.Temperatures.Max(p => p.Celsius) + 2);
-            double bottom = Math.Min(0, k.Temperatures.Min(p => p.Celsius) - 2);
-            plot.Axes.Right.Label.Text = "Temperature (°C)";
+            double top = unit.FromCelsius(Math.Max(k.Thresholds.DangerC + 2, k.Temperatures.Max(p => p.Celsius) + 2));
+            double bottom = unit.FromCelsius(Math.Min(0, k.Temperatures.Min(p => p.Celsius) - 2));
+            plot.Axes.Right.Label.Text = $"Temperature ({symbol})";
             plot.Axes.Right.Label.FontName = ReportFonts.FamilyName;
             plot.Axes.Right.Label.FontSize = ChartStyle.LabelSize;
             plot.Axes.AutoScale();
@@ -430,14 +433,14 @@ public static class KineticsCharts
     /// 0 to 45 °C) against days from time zero. The panels are drawn straight onto the page with SkiaSharp: with 144
     /// panels a full plotting-library layout per panel (automatic ticks, measured labels) cost most of the page.
     /// </summary>
-    public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title)
+    public static byte[] Overview(IReadOnlyList<LotKinetics> lots, string title, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
-        using var png = OverviewPng(lots, title);
+        using var png = OverviewPng(lots, title, unit);
         return png.ToArray();
     }
 
     /// <summary>As <see cref="Overview"/>, the PNG left in SkiaSharp's native memory (dispose it).</summary>
-    public static SKData OverviewPng(IReadOnlyList<LotKinetics> lots, string title)
+    public static SKData OverviewPng(IReadOnlyList<LotKinetics> lots, string title, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ReportFonts.EnsureRegistered();
@@ -456,7 +459,7 @@ public static class KineticsCharts
             canvas.DrawText(title, width / 2f, 48, SKTextAlign.Center, font, ink);
         }
 
-        using var painter = new PanelPainter(regular, bold, small);
+        using var painter = new PanelPainter(regular, bold, small, unit);
         var days = SharedDays(lots);
         for (int i = 0; i < lots.Count; i++)
         {
@@ -470,7 +473,7 @@ public static class KineticsCharts
 
         using (var font = new SKFont(regular, ChartStyle.TickSize * 0.8f))
         {
-            canvas.DrawText("Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature (°C, right, 0 to 45); x: days from time zero, the same on every panel of the page; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
+            canvas.DrawText($"Blue: sugar (°Brix, left, −4 to 32); vermillion: temperature ({unit.Symbol()}, right, {unit.FromCelsius(OverviewTempMin):0} to {unit.FromCelsius(OverviewTempMax):0}); x: days from time zero, the same on every panel of the page; * flagged lot", width / 2f, height - 6, SKTextAlign.Center, font, ink);
         }
 
         return ChartImage.EncodePngData(surface);
@@ -547,8 +550,11 @@ public static class KineticsCharts
         private readonly SKPaint sugarMarks;
         private readonly SKPaint temperature;
 
-        public PanelPainter(SKTypeface regular, SKTypeface bold, float size)
+        private readonly TemperatureUnit unit;
+
+        public PanelPainter(SKTypeface regular, SKTypeface bold, float size, TemperatureUnit unit)
         {
+            this.unit = unit;
             tickFont = new SKFont(regular, size);
             titleFont = new SKFont(bold, size * 1.3f);
             var blue = ChartPalette.ForIndex(0);
@@ -567,7 +573,7 @@ public static class KineticsCharts
             var data = new SKRect(
                 cell.Left + pad + tickFont.MeasureText("30") + TickLength + 4,
                 cell.Top + (titleFont.Size * 1.6f),
-                cell.Right - pad - (hasTemp ? tickFont.MeasureText("40") + TickLength + 4 : 0),
+                cell.Right - pad - (hasTemp ? tickFont.MeasureText(unit == TemperatureUnit.Fahrenheit ? "100" : "40") + TickLength + 4 : 0),
                 cell.Bottom - pad - tickH - TickLength - 4);
             canvas.DrawText($"{k.LotKey} {k.Lot.Strain}{(k.Flagged ? " *" : string.Empty)}", cell.MidX, cell.Top + (titleFont.Size * 1.15f), SKTextAlign.Center, titleFont, text);
             if (data.Width < 10 || data.Height < 10)
@@ -603,9 +609,13 @@ public static class KineticsCharts
 
             if (hasTemp)
             {
-                for (int c = 0; c <= 40; c += 10)
+                // Ticks every 10 °C (0 to 40) or every 20 °F (40 to 100), placed on the panel's °C scale.
+                var ticks = unit == TemperatureUnit.Fahrenheit
+                    ? new[] { 40, 60, 80, 100 }.Select(f => (Label: f, Celsius: (f - 32) * 5.0 / 9.0))
+                    : new[] { 0, 10, 20, 30, 40 }.Select(c => (Label: c, Celsius: (double)c));
+                foreach (var (c, celsius) in ticks)
                 {
-                    float y = MathF.Round(YTemp(c)) + 0.5f;
+                    float y = MathF.Round(YTemp(celsius)) + 0.5f;
                     canvas.DrawLine(data.Right, y, data.Right + TickLength, y, frame);
                     canvas.DrawText(c.ToString(inv), data.Right + TickLength + 2, y + (tickH * 0.36f), SKTextAlign.Left, tickFont, text);
                 }

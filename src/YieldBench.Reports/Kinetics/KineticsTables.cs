@@ -3,6 +3,7 @@ using YieldBench.Core.Kinetics;
 using YieldBench.Core.Lots;
 using YieldBench.Core.Review;
 using YieldBench.Core.Review.Strains;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports.Kinetics;
@@ -143,21 +144,21 @@ public static class KineticsTables
         return t;
     }
 
-    /// <summary>One row per analysed lot; flagged lots are highlighted.</summary>
-    public static ReportTable Lots(KineticsReview review)
+    /// <summary>One row per analysed lot, temperatures in <paramref name="unit"/>; flagged lots are highlighted.</summary>
+    public static ReportTable Lots(KineticsReview review, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return ReportTable.Of(LotTable, review.Lots, k => k.Flagged);
+        return ReportTable.Of(TemperatureColumns.In(LotTable, unit), review.Lots, k => k.Flagged);
     }
 
     /// <summary>
     /// One row per strain. With <paramref name="strains"/> (the review's strain review), each strain's lots reviewed
     /// and median conversion are appended from its group summaries, so a sheet shows each strain's whole performance.
     /// </summary>
-    public static ReportTable Strains(KineticsReview review, StrainReview? strains = null)
+    public static ReportTable Strains(KineticsReview review, StrainReview? strains = null, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(review);
-        var t = new ReportTable(strains is null ? StrainColumns : [.. StrainColumns, .. StrainConversionColumns]);
+        var t = new ReportTable(TemperatureColumns.In(strains is null ? StrainColumns : [.. StrainColumns, .. StrainConversionColumns], unit));
         foreach (var s in review.Strains)
         {
             object?[] cells =
@@ -166,7 +167,7 @@ public static class KineticsTables
                 s.MaxRateBrixPerDay.Median, s.MaxRateBrixPerDay.Iqr,
                 s.LagHours.Median, s.LagHours.Iqr,
                 s.DaysToDry.Median, s.DaysToDry.Iqr, s.DaysToDry.N,
-                s.PeakTemperatureC.Median, s.PeakTemperatureC.Iqr,
+                unit.FromCelsius(s.PeakTemperatureC.Median), unit.Difference(s.PeakTemperatureC.Iqr),
                 s.SluggishShare, s.StuckShare,
             ];
             if (strains is not null)

@@ -95,8 +95,10 @@ public static class MethodsTable
         t.Add(["Planner confidences", string.Join(", ", s.HouseFactor.PlannerConfidences.Select(c => (c * 100).ToString("0", CultureInfo.InvariantCulture) + " %"))]);
         var k = s.Kinetics;
         t.Add(["Dry at or below (°Brix)", F(k.DryBrix)]);
-        t.Add(["Red caution / danger temperature (°C)", F(k.RedThresholds.CautionC) + " / " + F(k.RedThresholds.DangerC)]);
-        t.Add(["White caution / danger temperature (°C)", F(k.WhiteThresholds.CautionC) + " / " + F(k.WhiteThresholds.DangerC)]);
+        var unit = s.TemperatureUnit;
+        t.Add([$"Red caution / danger temperature ({unit.Symbol()})", F(unit.FromCelsius(k.RedThresholds.CautionC)) + " / " + F(unit.FromCelsius(k.RedThresholds.DangerC))]);
+        t.Add([$"White caution / danger temperature ({unit.Symbol()})", F(unit.FromCelsius(k.WhiteThresholds.CautionC)) + " / " + F(unit.FromCelsius(k.WhiteThresholds.DangerC))]);
+        t.Add(["Temperatures shown in", unit == TemperatureUnit.Fahrenheit ? "°F (°C × 9/5 + 32; the review computes in °C)" : "°C"]);
         t.Add(["Sluggish: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.SluggishRateBrixPerDay) + " / " + F(k.SluggishAboveBrix) + " / " + F(k.SluggishHours)]);
         t.Add(["Stuck: rate below (°Brix/day) with sugar above (°Brix) for (h)", F(k.StuckRateBrixPerDay) + " / " + F(k.StuckAboveBrix) + " / " + F(k.StuckHours)]);
         t.Add(["Heat of fermentation (kJ/mol sugar)", F(k.HeatOfFermentationKjPerMol)]);

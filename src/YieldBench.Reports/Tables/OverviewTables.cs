@@ -113,6 +113,6 @@ public static partial class ReviewTables
             new("troubled", "Stuck, sluggish or not dry", CellKind.Integer, s => s.Troubled),
             new("troubled_share", "Share troubled", CellKind.Share, s => s.TroubledShare, "0%"),
         ];
-        return ReportTable.Of(columns, review.Overview.Ferments);
+        return ReportTable.Of(TemperatureColumns.In(columns, review.Settings.TemperatureUnit), review.Overview.Ferments);
     }
 }

@@ -80,7 +80,7 @@ public static partial class ReviewTables
     public static ReportTable Lots(ReviewResult review, IEnumerable<LotReview>? order = null)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return ReportTable.Of(LotTable, order ?? review.LotReviews, l => l.IsFlagged);
+        return ReportTable.Of(TemperatureColumns.In(LotTable, review.Settings.TemperatureUnit), order ?? review.LotReviews, l => l.IsFlagged);
     }
 
     /// <summary>The review's lots in the Lots sheet's order (<see cref="ReviewFigures.LotsInStrainOrder"/>).</summary>

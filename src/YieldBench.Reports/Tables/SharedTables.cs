@@ -20,7 +20,7 @@ internal sealed class SharedTables
         Review = review;
         lots = new(() => ReviewTables.Lots(review), LazyThreadSafetyMode.ExecutionAndPublication);
         lotsByStrain = new(() => lots.Value.Reordered(review.Figures.LotsInStrainOrder), LazyThreadSafetyMode.ExecutionAndPublication);
-        kineticsLots = new(() => review.Kinetics is { } k ? KineticsTables.Lots(k) : null, LazyThreadSafetyMode.ExecutionAndPublication);
+        kineticsLots = new(() => review.Kinetics is { } k ? KineticsTables.Lots(k, review.Settings.TemperatureUnit) : null, LazyThreadSafetyMode.ExecutionAndPublication);
     }
 
     /// <summary>The review the tables show.</summary>

@@ -164,7 +164,7 @@ internal static class WorkbookSheets
             .Texts(KineticsSheet.Cautions)
             .Gap()
             .Heading("By strain (median and interquartile range across lots with a log)")
-            .Table(KineticsTables.Strains(k, review.Strains))
+            .Table(KineticsTables.Strains(k, review.Strains, review.Settings.TemperatureUnit))
             .Heading("What the logs showed, by kind")
             .TableOrNone(KineticsTables.FindingKinds(k, review.Lots.ToDictionary(l => l.Lot.Key, l => l.Lot.Strain)), "Nothing: no log showed a stall, a temperature above the thresholds or a gap.")
             .Text("The lots to look at are on the Follow-up sheet; every lot's kinetics are on the Kinetics by lot sheet; every finding, with its details and log row, is in data/kinetics-findings.csv; a chart of each lot to look at is in the charts folder (kinetics-lot-….png).", italic: true);

@@ -15,7 +15,7 @@ internal static class SampleReview
 
     public static ReviewResult Build(bool withIssues = true) => Build(withIssues, []);
 
-    private static ReviewResult Build(bool withIssues, IReadOnlyList<FermentationLog> logs)
+    private static ReviewResult Build(bool withIssues, IReadOnlyList<FermentationLog> logs, ReviewSettings? settings = null)
     {
         var lots = new List<Lot>();
         var rng = new Random(7);
@@ -70,14 +70,17 @@ internal static class SampleReview
             Issues = issues,
             Files = [new InputFile("lots-2024.csv", new string('a', 64), 1234), new InputFile("lots-2025.csv", new string('b', 64), 2345)],
         };
-        return ReviewRunner.Run(inputs, new ReviewSettings(), "9.9.9-test");
+        return ReviewRunner.Run(inputs, settings ?? new ReviewSettings(), "9.9.9-test");
     }
 
     /// <summary>
     /// The sample review with invented logs for two lots, so kinetics data, charts and sheets are made too: L005 (2024)
     /// stalls at 10.6 °Brix, L020 (2025) ferments through 41 °C.
     /// </summary>
-    public static ReviewResult WithLogs()
+    public static ReviewResult WithLogs() => WithLogs(new ReviewSettings());
+
+    /// <summary>As <see cref="WithLogs()"/>, reviewed with <paramref name="settings"/>.</summary>
+    public static ReviewResult WithLogs(ReviewSettings settings)
     {
         FermentationLog Log(string id, int season, double step, double[] brix, double[] temps) =>
             new(id, season, brix.Select((b, i) => new LogReading(Kinetics.KineticsReportData.Start.AddHours(i * step), SugarReading.FromBrix(b), temps[i], new SourceRef("logs.csv", null, i + 2))).ToArray());
@@ -86,6 +89,6 @@ internal static class SampleReview
             Log("L005", 2024, 24, [24.0, 22.5, 19.5, 16.0, 13.0, 11.0, 10.8, 10.7, 10.6, 10.6], [13, 15, 17, 18, 18, 17, 16, 15, 15, 15]),
             Log("L020", 2025, 12, [24.0, 23.0, 20.0, 15.5, 10.5, 6.0, 2.5, 0.0, -1.2], [24, 27, 31, 35, 38, 41, 38, 33, 28]),
         };
-        return Build(withIssues: true, logs);
+        return Build(withIssues: true, logs, settings);
     }
 }
