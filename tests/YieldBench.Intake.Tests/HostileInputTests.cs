@@ -95,6 +95,7 @@ public class HostileInputTests
     [Theory]
     [InlineData("merged-cells-2023.xlsx")]
     [InlineData("merged-cells-2023.ods")]
+    [InlineData("merged-cells-2023.xls")]
     public async Task A_strain_merged_over_three_lots_is_read_for_each_with_a_warning_naming_the_block(string name)
     {
         // Given a strain merged over rows 3-5 (stored once, in C3) under a title merged across the sheet

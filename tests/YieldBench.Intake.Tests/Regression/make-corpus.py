@@ -329,6 +329,11 @@ def main():
     convert("lo-source-2023.csv", "xlsx", "libreoffice-2023.xlsx")
     convert("lo-source-2023.csv", "xls", "libreoffice-2023.xls")
     shutil.copy(path("libreoffice-2023.xls"), path("old-workbook-named-xlsx-2023.xlsx"))
+    with tempfile.TemporaryDirectory() as d:
+        # The merged blocks as an Excel 97-2003 workbook, as LibreOffice saves one.
+        shutil.copy(path("merged-cells-2023.xlsx"), d)
+        subprocess.run(["soffice", "--headless", "--convert-to", "xls", "--outdir", d, os.path.join(d, "merged-cells-2023.xlsx")], check=True, capture_output=True, timeout=180)
+        shutil.copy(os.path.join(d, "merged-cells-2023.xls"), path("merged-cells-2023.xls"))
     os.remove(path("lo-source-2023.csv"))
 
     # ---------------------------------------------------------------- a folder of mixed files
