@@ -141,6 +141,34 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
     }
 
     [Fact]
+    public void The_overview_sheets_factor_table_holds_the_house_factor_files_numbers()
+    {
+        // Given the demo workbook's Overview sheet and data/house-factor.json
+        using var json = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.First, "data", "house-factor.json")));
+        var root = json.RootElement;
+        var overview = Sheet("Overview");
+        int header = Array.FindIndex(overview, r => r.Contains("Factor (% v/v per °Brix)"));
+        string[] heads = overview[header];
+        int strain = Array.IndexOf(heads, "Strain"), factor = Array.IndexOf(heads, "Factor (% v/v per °Brix)"), error = Array.IndexOf(heads, "Error on held-out seasons (% v/v)");
+
+        // When each row of the factor table under it is read (up to the first row without a strain)
+        var rows = overview.Skip(header + 1).TakeWhile(r => r.Length > strain && r[strain].Length > 0).ToArray();
+
+        // Then there is a row for all lots and one per strain of the file, and each row's factor (as stored, before the
+        // sheet's three decimals) and held-out error are the file's, to 1e-9
+        Assert.True(header >= 0 && strain >= 0 && factor >= 0 && error >= 0, "the Overview has the factor table");
+        Assert.Equal(1 + root.GetProperty("planning").GetProperty("strains").GetArrayLength(), rows.Length);
+        foreach (var r in rows)
+        {
+            bool all = r[strain].StartsWith("All", StringComparison.OrdinalIgnoreCase);
+            var line = all ? root.GetProperty("planning").GetProperty("pooled") : root.GetProperty("planning").GetProperty("strains").EnumerateArray().Single(s => s.GetProperty("strain").GetString() == r[strain]);
+            var rec = all ? root.GetProperty("recommendation") : root.GetProperty("by_strain").EnumerateArray().Single(s => s.GetProperty("strain").GetString() == r[strain]);
+            Assert.Equal(line.GetProperty("factor_abv_per_brix").GetDouble(), double.Parse(r[factor], CultureInfo.InvariantCulture), 9);
+            Assert.Equal(rec.GetProperty("metrics").GetProperty("mae_abv").GetDouble(), double.Parse(r[error], CultureInfo.InvariantCulture), 9);
+        }
+    }
+
+    [Fact]
     public void Console_overview_follow_up_sheet_and_file_count_the_same_lots_one_row_each()
     {
         // Given the demo review's console, its follow-up file and its workbook's Overview and Follow-up sheets
