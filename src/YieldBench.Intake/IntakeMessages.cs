@@ -50,6 +50,18 @@ public static class IntakeMessages
     internal static string CannotOpen(string reason) =>
         $"The file could not be opened ({reason}). Close any program that locks it and check the permissions.";
 
+    internal static string SameContentAgain(string first) =>
+        $"The file holds exactly the same bytes as {first}, read already (the same file given twice, met again in a folder given, or a copy), so it was read once. Remove the repeat if it is not wanted.";
+
+    internal static string OldWorkbookNamedNew(string extension) =>
+        $"The file is named {extension} but holds an Excel 97–2003 workbook (.xls); it was read as one. Save it again as {extension} (or rename it .xls) so other programs are not misled.";
+
+    internal static string TextNamedWorkbook(string extension) =>
+        $"The file is named {extension} but holds text (a CSV or tab-separated table, as some programs export 'for Excel'); it was read as a CSV file. Rename it .csv, or open it in a spreadsheet program and save it as .xlsx.";
+
+    internal static string WebPageNamedWorkbook(string extension) =>
+        $"The file is named {extension} but holds a web page (an HTML table, as some programs export 'for Excel'); it was not read. Open it in a spreadsheet program and save it as .xlsx.";
+
     internal static string NotAZip(string extension) =>
         $"The file is not a readable {extension} workbook (its zip structure is missing or damaged). Open it in a spreadsheet program and save it again as .xlsx.";
 

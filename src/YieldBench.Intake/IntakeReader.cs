@@ -218,7 +218,16 @@ public static class IntakeReader
 
         if (loaded.Hash is { } hash)
         {
+            // The same bytes again (a file given twice, met again in a folder given, or a copy) would only repeat its
+            // lots as duplicates: it is read once, and the repeat is said.
+            var same = files.FirstOrDefault(f => f.Sha256 == hash.Sha256 && f.Bytes == hash.Bytes);
             files.Add(hash);
+            if (same is not null)
+            {
+                sink.Warning(file, null, null, null, null, IssueCodes.SameContentAgain, IntakeMessages.SameContentAgain(same.Path));
+                run.Accounts.Add(new SourceAccount(file, null, "not read", 0, 0, 0, 0, 0, 0));
+                return;
+            }
         }
 
         sink.AddRange(loaded.Issues);

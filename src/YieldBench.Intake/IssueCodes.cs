@@ -20,6 +20,9 @@ public static class IssueCodes
     /// <summary><c>file-skipped</c>.</summary>
     public const string FileSkipped = "file-skipped";
 
+    /// <summary><c>same-content-again</c>.</summary>
+    public const string SameContentAgain = "same-content-again";
+
     /// <summary><c>unsupported-file-type</c>.</summary>
     public const string UnsupportedFileType = "unsupported-file-type";
 
@@ -40,6 +43,9 @@ public static class IssueCodes
 
     /// <summary><c>not-a-workbook</c>.</summary>
     public const string NotAWorkbook = "not-a-workbook";
+
+    /// <summary><c>content-differs-from-name</c>.</summary>
+    public const string ContentDiffersFromName = "content-differs-from-name";
 
     /// <summary><c>zip-bomb</c>.</summary>
     public const string ZipBomb = "zip-bomb";

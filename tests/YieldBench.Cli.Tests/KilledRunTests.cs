@@ -28,8 +28,8 @@ public sealed class KilledRunTests : IDisposable
         var before = Snapshot(report);
         Assert.Contains("report.xlsx", before.Keys);
 
-        // When a review is stopped by Ctrl-C part way
-        var (interrupted, said) = Stop("SIGINT", TimeSpan.FromSeconds(1.5));
+        // When a review is stopped by Ctrl-C part way (just after it starts reading)
+        var (interrupted, said) = Stop("SIGINT", TimeSpan.FromSeconds(0.2));
 
         // Then it says so in plain words, with no stack trace, and ends as Ctrl-C asks
         Assert.Equal(130, interrupted);
@@ -38,10 +38,10 @@ public sealed class KilledRunTests : IDisposable
         AssertWholeOrAsItWas(report, before);
 
         // And reviews killed outright at several moments leave it whole or as it was each time
-        foreach (double seconds in new[] { 0.5, 1, 2, 3, 4, 6 })
+        foreach (double seconds in new[] { 0, 0.5, 1, 2, 3, 5 })
         {
             var (killed, _) = Stop("SIGKILL", TimeSpan.FromSeconds(seconds));
-            Assert.True(killed is 137 or 0, $"exit {killed} after {seconds} s");
+            Assert.True(killed is 137 or -1, $"exit {killed} after {seconds} s");
             AssertWholeOrAsItWas(report, before);
         }
 
@@ -80,21 +80,51 @@ public sealed class KilledRunTests : IDisposable
         return (process.ExitCode, error.Result);
     }
 
-    /// <summary>Starts a review of the demo and sends <paramref name="signal"/> after <paramref name="after"/>.</summary>
+    /// <summary>
+    /// Starts a review of the demo and sends <paramref name="signal"/> <paramref name="after"/> the review said its first
+    /// stage (so the tool is running its own code, whatever the machine's load), unless it finished before.
+    /// </summary>
     private (int Exit, string Error) Stop(string signal, TimeSpan after)
     {
         using var process = Start("review", "--out", Path.Combine(_dir, "report"));
-        _ = process.StandardOutput.ReadToEndAsync();
-        var error = process.StandardError.ReadToEndAsync();
-        if (!process.WaitForExit(after))
+        var error = new System.Text.StringBuilder();
+        using var started = new ManualResetEventSlim();
+        process.ErrorDataReceived += (_, e) =>
         {
-            using var kill = Process.Start("kill", ["-s", signal.Replace("SIG", "", StringComparison.Ordinal), process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)]);
-            kill.WaitForExit();
+            if (e.Data is null)
+            {
+                return;
+            }
+
+            lock (error)
+            {
+                error.AppendLine(e.Data);
+            }
+
+            if (e.Data.StartsWith("review: ", StringComparison.Ordinal))
+            {
+                started.Set();
+            }
+        };
+        process.BeginErrorReadLine();
+        _ = process.StandardOutput.ReadToEndAsync();
+        bool running = started.Wait(TimeSpan.FromMinutes(2)) && !process.WaitForExit(after);
+        if (running)
+        {
+            Assert.Equal(0, Kill(process.Id, signal == "SIGINT" ? 2 : 9));
         }
 
         Assert.True(process.WaitForExit(TimeSpan.FromMinutes(5)), "the review did not stop");
-        return (process.ExitCode, error.Result);
+        process.WaitForExit();
+        lock (error)
+        {
+            return (running ? process.ExitCode : -1, error.ToString());
+        }
     }
+
+    /// <summary>POSIX kill(2): sends a signal (2 SIGINT, 9 SIGKILL) without needing a kill program on the machine.</summary>
+    [System.Runtime.InteropServices.DllImport("libc", EntryPoint = "kill", SetLastError = true)]
+    private static extern int Kill(int pid, int signal);
 
     private Process Start(params string[] args)
     {

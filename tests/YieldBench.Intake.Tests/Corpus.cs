@@ -44,7 +44,7 @@ internal static class Corpus
         new("binary file named csv", f => f.Bytes("binary.csv", [0x41, 0x42, 0x00, 0x01, 0x02, 0xFF]),
             E("binary.csv", null, null, null, null, "binary-file", "The file is named .csv but holds binary data (a zero byte at offset 2), not text. Export the sheet as CSV again, or give the workbook itself."), 0),
         new("text file named xlsx", f => f.Text("not-really.xlsx", "Lot,Yeast\nA,B\n"),
-            E("not-really.xlsx", null, null, null, null, "not-a-workbook", "The file is not a readable .xlsx workbook (its zip structure is missing or damaged). Open it in a spreadsheet program and save it again as .xlsx."), 0),
+            W("not-really.xlsx", null, null, null, null, "content-differs-from-name", "The file is named .xlsx but holds text (a CSV or tab-separated table, as some programs export 'for Excel'); it was read as a CSV file. Rename it .csv, or open it in a spreadsheet program and save it as .xlsx."), 0),
         new("truncated zip", f => f.Bytes("truncated.xlsx", [0x50, 0x4B, 0x03, 0x04, 0x14, 0x00, 0x00, 0x00, 0x08, 0x00, 0x01, 0x02]),
             E("truncated.xlsx", null, null, null, null, "not-a-workbook", "The file is not a readable .xlsx workbook (its zip structure is missing or damaged). Open it in a spreadsheet program and save it again as .xlsx."), 0),
         new("zip bomb", f => { Workbooks.WriteZipBomb(f.PathOf("bomb.xlsx"), 4_000_000); return "bomb.xlsx"; },

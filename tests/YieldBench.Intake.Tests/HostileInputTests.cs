@@ -72,9 +72,30 @@ public class HostileInputTests
         }
     }
 
+    [Fact]
+    public async Task A_file_whose_content_is_not_what_its_name_says_is_read_by_its_content_or_refused_with_the_fix()
+    {
+        // Given a tab-separated export named .xls, an .xls workbook named .xlsx and a web page named .xls
+        var text = await Read("tab-text-named-2023.xls");
+        var old = await Read("old-workbook-named-xlsx-2023.xlsx");
+        var page = await Read("web-page-named-2023.xls");
+
+        // Then the first two are read, each with a warning saying what the file holds
+        Assert.Equal(["A-01", "A-02", "A-03"], text.Lots.Select(l => l.LotId));
+        Assert.StartsWith("The file is named .xls but holds text (a CSV or tab-separated table", Assert.Single(text.Issues).Message, StringComparison.Ordinal);
+        Assert.Equal(3, old.Lots.Count);
+        Assert.StartsWith("The file is named .xlsx but holds an Excel 97–2003 workbook (.xls); it was read as one.", Assert.Single(old.Issues).Message, StringComparison.Ordinal);
+
+        // And the web page is refused with what to do
+        var refused = Assert.Single(page.Issues);
+        Assert.Equal(("not-a-workbook", IssueSeverity.Error), (refused.Code, refused.Severity));
+        Assert.EndsWith("it was not read. Open it in a spreadsheet program and save it as .xlsx.", refused.Message, StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData("merged-cells-2023.xlsx")]
     [InlineData("merged-cells-2023.ods")]
+    [InlineData("merged-cells-2023.xls")]
     public async Task A_strain_merged_over_three_lots_is_read_for_each_with_a_warning_naming_the_block(string name)
     {
         // Given a strain merged over rows 3-5 (stored once, in C3) under a title merged across the sheet

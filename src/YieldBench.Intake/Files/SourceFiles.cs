@@ -57,6 +57,21 @@ internal static class SourceFiles
             fs.ReadExactly(head);
         }
 
+        if (ext is ".xlsx" or ".xlsm" or ".xls" && IsText(head))
+        {
+            // Some programs "export to Excel" as text (a CSV or tab-separated table, or a web page) named .xls.
+            if (System.Text.Encoding.Latin1.GetString(head).Contains("<table", StringComparison.OrdinalIgnoreCase))
+            {
+                sink.Error(file, null, null, null, null, IssueCodes.NotAWorkbook, IntakeMessages.WebPageNamedWorkbook(ext));
+                return Refused;
+            }
+
+            sink.Warning(file, null, null, null, null, IssueCodes.ContentDiffersFromName, IntakeMessages.TextNamedWorkbook(ext));
+            var text = CsvSource.Read(file, fullPath, head, options, sink);
+            MergedCells.Settle(text, file, sink);
+            return text;
+        }
+
         var raw = ext switch
         {
             ".csv" or ".txt" or ".tsv" => CsvSource.Read(file, fullPath, head, options, sink),
@@ -66,6 +81,15 @@ internal static class SourceFiles
         MergedCells.Settle(raw, file, sink);
         return raw;
     }
+
+    /// <summary>
+    /// True when the start of a file is text, not a workbook: no zip or compound-file signature, and either a UTF-16 or
+    /// UTF-32 form (which CsvSource reads) or no control byte but tab, line ends and form feed (damaged or random
+    /// bytes hold many).
+    /// </summary>
+    private static bool IsText(byte[] head) =>
+        !WorkbookSource.StartsWith(head, WorkbookSource.ZipMagic) && !WorkbookSource.StartsWith(head, WorkbookSource.CompoundFileMagic)
+        && (CsvSource.UnicodeForm(head, out _, out _) is not null || !head.Any(b => b < 0x20 && b is not ((byte)'\t' or (byte)'\n' or (byte)'\r' or 0x0C)));
 
     /// <summary>A file refused (already reported): no sheets.</summary>
     public static RawFile Refused => new([], true);

@@ -14,7 +14,7 @@ namespace YieldBench.Intake;
 internal static class WorkbookSource
 {
     internal static readonly byte[] ZipMagic = [0x50, 0x4B, 0x03, 0x04];
-    private static readonly byte[] CompoundFileMagic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
+    internal static readonly byte[] CompoundFileMagic = [0xD0, 0xCF, 0x11, 0xE0, 0xA1, 0xB1, 0x1A, 0xE1];
 
     /// <summary>Columns a sheet may span (that of the largest spreadsheets, 16,384); cells beyond are not read.</summary>
     public const int MaxColumns = 16_384;
@@ -37,7 +37,12 @@ internal static class WorkbookSource
             return SourceFiles.Refused;
         }
 
-        if (ext is ".xlsx" or ".xlsm" && !isZip)
+        if (ext is ".xlsx" or ".xlsm" && isCompound)
+        {
+            // An Excel 97–2003 workbook saved under a newer name: the reader tells the two apart by their content.
+            sink.Warning(file, null, null, null, null, IssueCodes.ContentDiffersFromName, IntakeMessages.OldWorkbookNamedNew(ext));
+        }
+        else if (ext is ".xlsx" or ".xlsm" && !isZip)
         {
             sink.Error(file, null, null, null, null, IssueCodes.NotAWorkbook, IntakeMessages.NotAZip(ext));
             return SourceFiles.Refused;

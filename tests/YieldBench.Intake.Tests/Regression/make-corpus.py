@@ -201,6 +201,7 @@ def main():
     with open(path("utf16-bom-2023.csv"), "wb") as f:
         f.write("\ufeff".encode("utf-16-le") + "\n".join([LOTS] + GOOD).encode("utf-16-le"))
     unicode_without_mark()
+    named_wrong()
     text("latin1-2023.csv", LOTS + ",Notes\nA-01,2023,QX-7,24.0,14.0,levée à froid\n", encoding="latin-1")
     text("crlf-2023.csv", "\r\n".join([LOTS] + GOOD) + "\r\n", newline="")
     csv("unquoted-thousands-2023.csv", "Lot,Vintage,Yeast,Brix,Alcohol % v/v,Must volume (L)", "A-01,2023,QX-7,24.0,14.0,4500", "A-02,2023,QX-9,23.1,13.4,4,500", "A-03,2023,QX-7,25.2,14.9,\"4,500\"")
@@ -327,6 +328,12 @@ def main():
     convert("lo-source-2023.csv", "ods", "libreoffice-2023.ods")
     convert("lo-source-2023.csv", "xlsx", "libreoffice-2023.xlsx")
     convert("lo-source-2023.csv", "xls", "libreoffice-2023.xls")
+    shutil.copy(path("libreoffice-2023.xls"), path("old-workbook-named-xlsx-2023.xlsx"))
+    with tempfile.TemporaryDirectory() as d:
+        # The merged blocks as an Excel 97-2003 workbook, as LibreOffice saves one.
+        shutil.copy(path("merged-cells-2023.xlsx"), d)
+        subprocess.run(["soffice", "--headless", "--convert-to", "xls", "--outdir", d, os.path.join(d, "merged-cells-2023.xlsx")], check=True, capture_output=True, timeout=180)
+        shutil.copy(os.path.join(d, "merged-cells-2023.xls"), path("merged-cells-2023.xls"))
     os.remove(path("lo-source-2023.csv"))
 
     # ---------------------------------------------------------------- a folder of mixed files
@@ -354,6 +361,12 @@ def unicode_without_mark():
     text("utf16le-no-bom-2023.csv", body, encoding="utf-16-le")
     text("utf16be-no-bom-2023.csv", body, encoding="utf-16-be")
     text("utf32-bom-2023.csv", body, encoding="utf-32")
+
+
+def named_wrong():
+    """A tab-separated export and a web page named .xls ("for Excel"); .xls and .xlsx content under each other's name."""
+    text("tab-text-named-2023.xls", "Lot\tVintage\tYeast\tBrix\tAlcohol % v/v\n" + "\n".join(g.replace(",", "\t") for g in GOOD) + "\n")
+    text("web-page-named-2023.xls", "<html><body><table><tr><td>Lot</td><td>Yeast</td></tr><tr><td>A-01</td><td>QX-7</td></tr></table></body></html>\n")
 
 
 def merged_cells():
