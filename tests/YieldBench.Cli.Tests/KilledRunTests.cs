@@ -23,8 +23,8 @@ public sealed class KilledRunTests : IDisposable
 
         // Given a finished report of the demo (every output is deterministic, so a finished rerun is byte-identical)
         string report = Path.Combine(_dir, "report");
-        var (first, _) = RunToEnd("review", "--out", report, "--quiet");
-        Assert.Equal(ExitCodes.Success, first);
+        var (first, firstSaid) = RunToEnd("review", "--out", report, "--quiet");
+        Assert.True(first == ExitCodes.Success, $"exit {first}: {firstSaid}");
         var before = Snapshot(report);
         Assert.Contains("report.xlsx", before.Keys);
 
@@ -32,7 +32,7 @@ public sealed class KilledRunTests : IDisposable
         var (interrupted, said) = Stop("SIGINT", TimeSpan.FromSeconds(0.2));
 
         // Then it says so in plain words, with no stack trace, and ends as Ctrl-C asks
-        Assert.Equal(130, interrupted);
+        Assert.True(interrupted == 130, $"exit {interrupted} after Ctrl-C; standard error: {said}");
         Assert.Contains(YieldBenchApp.StoppedMessage("Ctrl-C"), Cli.Flat(said), StringComparison.Ordinal);
         Assert.DoesNotContain("   at ", said, StringComparison.Ordinal);
         AssertWholeOrAsItWas(report, before);
@@ -40,14 +40,14 @@ public sealed class KilledRunTests : IDisposable
         // And reviews killed outright at several moments leave it whole or as it was each time
         foreach (double seconds in new[] { 0, 0.5, 1, 2, 3, 5 })
         {
-            var (killed, _) = Stop("SIGKILL", TimeSpan.FromSeconds(seconds));
-            Assert.True(killed is 137 or -1, $"exit {killed} after {seconds} s");
+            var (killed, killedSaid) = Stop("SIGKILL", TimeSpan.FromSeconds(seconds));
+            Assert.True(killed is 137 or -1, $"exit {killed} after {seconds} s: {killedSaid}");
             AssertWholeOrAsItWas(report, before);
         }
 
         // And the next run puts back a report a kill left set aside, and clears away every unfinished copy
-        var (last, _) = RunToEnd("review", "--out", report, "--quiet");
-        Assert.Equal(ExitCodes.Success, last);
+        var (last, lastSaid) = RunToEnd("review", "--out", report, "--quiet");
+        Assert.True(last == ExitCodes.Success, $"exit {last}: {lastSaid}");
         Assert.Equal(before, Snapshot(report));
         Assert.Equal(["report"], Directory.GetFileSystemEntries(_dir).Select(Path.GetFileName));
     }
@@ -56,7 +56,10 @@ public sealed class KilledRunTests : IDisposable
     {
         if (Directory.Exists(report))
         {
-            Assert.Equal(before, Snapshot(report));
+            var now = Snapshot(report);
+            var differ = before.Keys.Union(now.Keys).Where(k => before.GetValueOrDefault(k) != now.GetValueOrDefault(k)).Order(StringComparer.Ordinal).ToArray();
+            Assert.True(differ.Length == 0, "files that differ from the finished report: " + string.Join(", ", differ)
+                + "; beside it: " + string.Join(", ", Directory.GetFileSystemEntries(_dir).Select(Path.GetFileName)));
         }
         else
         {
