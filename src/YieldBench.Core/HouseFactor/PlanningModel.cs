@@ -25,8 +25,14 @@ public sealed record PlanningLine(
     IReadOnlyList<SeasonError> Errors,
     string ErrorBasis)
 {
-    /// <summary>The random-effects model of <see cref="Errors"/> the intervals come from (fitted on each call).</summary>
-    public SeasonErrorModel ErrorModel => SeasonErrorModel.Of(Errors);
+    /// <summary>
+    /// The random-effects model of <see cref="Errors"/> the intervals come from, fitted once per error list: the
+    /// coverage check asks for it for every held-out lot, and refitting it each time made that quadratic in the lots
+    /// (docs/performance.md). Kept beside the record, not in it, so a line's equality stays that of its data.
+    /// </summary>
+    public SeasonErrorModel ErrorModel => FittedModels.GetValue(Errors, SeasonErrorModel.Of);
+
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<IReadOnlyList<SeasonError>, SeasonErrorModel> FittedModels = new();
 
     /// <summary>
     /// The conversion factor this line stands for, % v/v per °Brix, at <paramref name="brix"/> °Brix: predicted

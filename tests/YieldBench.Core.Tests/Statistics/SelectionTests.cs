@@ -69,6 +69,46 @@ public sealed class SelectionTests
         }
     }
 
+    [Theory]
+    [InlineData(2, 1)]
+    [InlineData(3, 2)]
+    [InlineData(40, 3)]
+    [InlineData(301, 4)]
+    [InlineData(900, 5)]
+    [InlineData(1400, 6)]
+    public void Theil_Sen_slopes_by_selection_equal_the_sorted_slopes(int n, int seed)
+    {
+        // Given sugars rounded to 0.1 and alcohols to 0.01, so that tied x values and tied slopes are common
+        var random = new Random(seed);
+        var x = Enumerable.Range(0, n).Select(_ => Math.Round(20 + (random.NextDouble() * 6), 1)).ToArray();
+        var y = x.Select(v => Math.Round((0.6 * v) + (random.NextDouble() - 0.5), 2)).ToArray();
+
+        // When the line (and its interval) is fitted by selecting order statistics
+        var line = TheilSen.Fit(x, y);
+
+        // Then slope and interval are the sorted slopes' own values at the ranks scipy's theilslopes takes
+        var slopes = new List<double>();
+        for (int i = 0; i < n; i++)
+        {
+            for (int j = i + 1; j < n; j++)
+            {
+                if (x[i] != x[j])
+                {
+                    slopes.Add((y[j] - y[i]) / (x[j] - x[i]));
+                }
+            }
+        }
+
+        slopes.Sort();
+        int m = slopes.Count;
+        double median = m % 2 == 1 ? slopes[m / 2] : 0.5 * (slopes[(m / 2) - 1] + slopes[m / 2]);
+        Assert.Equal(m, line.Pairs);
+        Assert.Equal(median, line.Slope);
+        Assert.Contains(line.SlopeInterval.Low, slopes);
+        Assert.Contains(line.SlopeInterval.High, slopes);
+        Assert.True(slopes.IndexOf(line.SlopeInterval.Low) <= m / 2 && slopes.LastIndexOf(line.SlopeInterval.High) >= (m - 1) / 2);
+    }
+
     [Fact]
     public void Theil_Sen_treats_x_values_equal_but_for_rounding_noise_as_ties()
     {
