@@ -1,3 +1,5 @@
+using YieldBench.Core.Units;
+
 namespace YieldBench.Reports.Kinetics;
 
 /// <summary>
@@ -17,4 +19,10 @@ public static class KineticsSheet
         "Temperature thresholds are common-practice defaults (reds 35/40 °C, whites 20/25 °C); set them to your own practice and your winemaker's judgement.",
         "Sugar readings during fermentation are hydrometer or refractometer readings distorted by alcohol; times to dryness are taken from them. Dryness and any alcohol on a label need a lab analysis under the local rules.",
     ];
+
+    /// <summary>The cautions with the default thresholds also given in °F when the review shows °F.</summary>
+    public static IReadOnlyList<string> CautionsIn(TemperatureUnit unit) =>
+        unit == TemperatureUnit.Fahrenheit
+            ? Cautions.Select(c => c.Replace("(reds 35/40 °C, whites 20/25 °C)", "(reds 35/40 °C = 95/104 °F, whites 20/25 °C = 68/77 °F)", StringComparison.Ordinal)).ToArray()
+            : Cautions;
 }

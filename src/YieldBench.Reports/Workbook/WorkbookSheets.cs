@@ -161,7 +161,7 @@ internal static class WorkbookSheets
     private static SheetPlan KineticsSummary(ReviewResult review, Core.Kinetics.KineticsReview k) =>
         new SheetPlan(WorkbookWriter.Sheets.Kinetics) { WrapUnits = 50 }
             .Title("Fermentation kinetics and heat")
-            .Texts(KineticsSheet.Cautions)
+            .Texts(KineticsSheet.CautionsIn(review.Settings.TemperatureUnit))
             .Gap()
             .Heading("By strain (median and interquartile range across lots with a log)")
             .Table(KineticsTables.Strains(k, review.Strains, review.Settings.TemperatureUnit))

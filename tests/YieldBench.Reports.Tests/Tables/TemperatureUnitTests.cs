@@ -86,6 +86,8 @@ public sealed class TemperatureUnitTests
         Assert.Contains("°F", console, StringComparison.Ordinal);
         Assert.DoesNotContain(" °C", console.Split("Cautions:")[0], StringComparison.Ordinal);
         Assert.Contains(lots.Columns, x => x.Name == "peak_temp_f");
+        Assert.Contains(KineticsSheet.CautionsIn(TemperatureUnit.Fahrenheit), c => c.Contains("95/104 °F", StringComparison.Ordinal));
+        Assert.Equal(KineticsSheet.Cautions, KineticsSheet.CautionsIn(TemperatureUnit.Celsius));
         Assert.DoesNotContain(lots.Columns, x => x.Name.EndsWith("temp_c", StringComparison.Ordinal));
     }
 }
