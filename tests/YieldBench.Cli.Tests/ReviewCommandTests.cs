@@ -195,6 +195,13 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
         Assert.Equal(consoleCount, int.Parse(overviewCount.Groups[1].Value, CultureInfo.InvariantCulture));
         Assert.Equal(consoleCount, overviewLines);
         Assert.Equal(consoleCount, sheetLots.Length);
+
+        // And the Overview's "At a glance" line, above everything else, names the same count and every one of the lots
+        var glance = overview.SelectMany(r => r).Single(c => c.StartsWith("Lots to look at: ", StringComparison.Ordinal) && c.Contains(" — ", StringComparison.Ordinal));
+        int glanceRow = Array.FindIndex(overview, r => r.Contains(glance));
+        Assert.StartsWith($"Lots to look at: {consoleCount} — ", glance, StringComparison.Ordinal);
+        Assert.All(fileLots, l => Assert.Contains(l + " (", glance, StringComparison.Ordinal));
+        Assert.True(glanceRow < Array.FindIndex(overview, r => r.Contains("The factor to use next harvest")), "the summary comes first");
     }
 
     // The sheet's rows as text (ExcelDataReader, a reader independent of the writer).

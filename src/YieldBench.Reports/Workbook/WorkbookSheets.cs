@@ -1,6 +1,7 @@
 using System.Globalization;
 using YieldBench.Core.Review;
 using YieldBench.Core.Review.Strains;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Kinetics;
 using YieldBench.Reports.Tables;
 
@@ -45,6 +46,9 @@ internal static class WorkbookSheets
             .Title(o.Title)
             .Text("Predicted alcohol here is an estimate from past lots, not a label statement; fermentation heat and CO2 are hazards. See the cautions at the end.", italic: true)
             .Gap()
+            .Heading("At a glance")
+            .Texts(AtAGlance(review))
+            .Gap()
             .Heading("The factor to use next harvest");
         if (o.Factors is { } f)
         {
@@ -88,6 +92,45 @@ internal static class WorkbookSheets
             ("Tool version", review.ToolVersion, null),
         ]);
         return plan.Gap().Heading("Cautions").Texts(o.Cautions);
+    }
+
+    /// <summary>
+    /// The four answers in one line each, so the first screen holds them all: the factor to use, the strains compared,
+    /// the lots to look at, how the strains fermented. The sections below give each in full.
+    /// </summary>
+    internal static IReadOnlyList<string> AtAGlance(ReviewResult review)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        var o = review.Overview;
+        var lines = new List<string>();
+        if (o.Factors is { } f)
+        {
+            var p = f.Pooled;
+            string strains = string.Join(", ", f.Strains.Select(s => string.Create(inv, $"{s.Strain} {s.Factor:0.000}")));
+            lines.Add(string.Create(inv, $"Factor to use next harvest: {p.Factor:0.000} % v/v per °Brix for all lots ({p.Estimate.Predicted:0.00} % v/v from {f.ReferenceBrix:0.0} °Brix; 80 % of lots {p.Estimate.Low80:0.00}–{p.Estimate.High80:0.00}; error on held-out seasons {p.HeldOutMae:0.00} % v/v). By strain: {strains}."));
+        }
+        else
+        {
+            lines.Add("Factor to use next harvest: none is recommended (see below).");
+        }
+
+        var ranking = o.Strains.Ranking;
+        if (ranking.Count >= 2)
+        {
+            lines.Add("Strains, most alcohol from the same sugar first: " + string.Join(", ", ranking.Select(r => r.Strain)) + "." + (o.StrainHeadline is { } h ? " " + h : string.Empty));
+        }
+
+        lines.Add(o.Lots.Flagged == 0
+            ? "Lots to look at: none."
+            : $"Lots to look at: {o.Lots.Flagged} — " + string.Join(", ", review.Findings.Select(l => $"{l.Key} ({ReviewTexts.Severity(l.Severity)})")) + ".");
+        if (o.Ferments.Count > 0)
+        {
+            var unit = review.Settings.TemperatureUnit;
+            lines.Add("Ferments (median days to dry, peak temperature, troubled): " + string.Join("; ", o.Ferments.Select(x =>
+                string.Create(inv, $"{x.Strain} {x.DaysToDry.Median:0.0} days, {unit.Show(x.PeakTemperatureC.Median)}, {x.Troubled} of {x.Lots}"))) + ".");
+        }
+
+        return lines;
     }
 
     /// <summary>One row per lot to look at, then the strain-level notes.</summary>
