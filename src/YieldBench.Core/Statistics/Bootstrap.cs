@@ -42,43 +42,48 @@ public static class Bootstrap
 
         var random = new Random(seed);
         var medians = n <= DirectLimit ? ResampledMedians(x, resamples, random) : MedianLawMedians(x, resamples, random);
-        Array.Sort(medians);
         double tail = (1 - level) / 2;
-        return new Interval(Descriptive.QuantileOfSorted(medians, tail), Descriptive.QuantileOfSorted(medians, 1 - tail), level);
+
+        // The two quantiles by selection (Descriptive.Quantile): the values a sort would give, without sorting.
+        return new Interval(Descriptive.Quantile(medians, tail), Descriptive.Quantile(medians, 1 - tail), level);
     }
 
     private static double[] ResampledMedians(double[] x, int resamples, Random random)
     {
         int n = x.Length;
-        var ranks = new int[n];
+        var counts = new int[n];
         var medians = new double[resamples];
         for (int b = 0; b < resamples; b++)
         {
+            // The drawn ranks are counted, not stored and selected: their middle one(s) are where the running count
+            // first passes the middle (the same ranks a selection gives, in O(n) with no reordering).
+            Array.Clear(counts);
             for (int i = 0; i < n; i++)
             {
-                ranks[i] = random.Next(n);
+                counts[random.Next(n)]++;
             }
 
-            if (n % 2 == 1)
-            {
-                medians[b] = x[Descriptive.SelectInPlace<int>(ranks, n / 2)];
-            }
-            else
-            {
-                int upper = Descriptive.SelectInPlace<int>(ranks, n / 2);
-
-                // After selection every rank left of n/2 is at most the upper one; the largest of them is the lower middle.
-                int lower = ranks[0];
-                for (int i = 1; i < n / 2; i++)
-                {
-                    lower = Math.Max(lower, ranks[i]);
-                }
-
-                medians[b] = 0.5 * (x[lower] + x[upper]);
-            }
+            int upper = RankAt(counts, n / 2);
+            medians[b] = n % 2 == 1 ? x[upper] : 0.5 * (x[RankAt(counts, (n / 2) - 1)] + x[upper]);
         }
 
         return medians;
+    }
+
+    /// <summary>The k-th smallest (0-based) of the ranks counted in <paramref name="counts"/>.</summary>
+    private static int RankAt(int[] counts, int k)
+    {
+        int seen = 0;
+        for (int r = 0; r < counts.Length; r++)
+        {
+            seen += counts[r];
+            if (seen > k)
+            {
+                return r;
+            }
+        }
+
+        throw new InvalidOperationException("Fewer ranks were counted than asked for.");
     }
 
     private static double[] MedianLawMedians(double[] x, int resamples, Random random)
