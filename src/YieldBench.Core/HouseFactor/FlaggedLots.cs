@@ -69,14 +69,21 @@ public static class FlaggedLots
         return result;
     }
 
-    /// <summary>One sentence naming the flagged lots and what was done with them.</summary>
+    /// <summary>Most flagged lots <see cref="Sentence"/> names; the others are counted (every one is in the review's flags).</summary>
+    public const int SentenceLots = 25;
+
+    /// <summary>
+    /// One sentence naming the flagged lots (the first <see cref="SentenceLots"/>, the rest counted: at 100,000 lots
+    /// the sentence ran past what a workbook cell holds) and what was done with them.
+    /// </summary>
     public static string Sentence(IReadOnlyList<FlaggedLot> flagged, bool included)
     {
         ArgumentNullException.ThrowIfNull(flagged);
         int errors = flagged.Count(f => f.Codes.Any(c => c != FlagCodes.NotDry));
         int notDry = flagged.Count(f => f.Codes.Contains(FlagCodes.NotDry));
         string what = $"{flagged.Count} lot(s) — {errors} flagged as likely errors, {notDry} not fermented to dryness — ";
-        string lots = string.Join("; ", flagged.Select(f => $"{f.LotKey} ({f.Strain}): {f.Reason}"));
+        string lots = string.Join("; ", flagged.Take(SentenceLots).Select(f => $"{f.LotKey} ({f.Strain}): {f.Reason}"))
+            + (flagged.Count > SentenceLots ? string.Create(CultureInfo.InvariantCulture, $"; and {flagged.Count - SentenceLots} more, each among the review's flags") : string.Empty);
         return included
             ? what + $"are included in training, selection and intervals because the setting to include flagged lots is on: {lots}."
             : what + $"are left out of training, selection and intervals (a setting includes them; both versions are reported): {lots}.";

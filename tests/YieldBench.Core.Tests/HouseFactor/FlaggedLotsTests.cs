@@ -95,4 +95,23 @@ public class FlaggedLotsTests
         Assert.Null(review.OtherVersion);
         Assert.Equal(lots.Count, review.LotsUsed);
     }
+
+    [Fact]
+    public void The_sentence_names_the_first_flagged_lots_and_counts_the_rest()
+    {
+        // Given 1,342 flagged lots, as the benchmark's 100,000 lots gave
+        var flagged = Enumerable.Range(0, 1342)
+            .Select(i => new FlaggedLot(new LotKey(2020, $"L{i:000000}"), 2020, $"L{i:000000}", "SX-01", [FlagCodes.AboveTheoreticalYield], "flagged as a likely error (above-theoretical-yield)"))
+            .ToArray();
+
+        // When the house factor's sentence about them is written
+        string sentence = FlaggedLots.Sentence(flagged, included: false);
+
+        // Then it names the first ones, counts the others, and stays short enough for a workbook cell
+        Assert.Contains("1342 lot(s) — 1342 flagged as likely errors", sentence, StringComparison.Ordinal);
+        Assert.Contains($"2020/L{FlaggedLots.SentenceLots - 1:000000} (SX-01)", sentence, StringComparison.Ordinal);
+        Assert.DoesNotContain($"2020/L{FlaggedLots.SentenceLots:000000} (SX-01)", sentence, StringComparison.Ordinal);
+        Assert.EndsWith($"; and {1342 - FlaggedLots.SentenceLots} more, each among the review's flags.", sentence, StringComparison.Ordinal);
+        Assert.True(sentence.Length < 32_767);
+    }
 }
