@@ -94,12 +94,16 @@ internal static class WorkbookSheets
         return plan.Gap().Heading("Cautions").Texts(o.Cautions);
     }
 
+    /// <summary>Most lots the "At a glance" line names; the rest are counted and listed on the Follow-up sheet.</summary>
+    internal const int AtAGlanceLots = 30;
+
     /// <summary>
     /// The four answers in one line each, so the first screen holds them all: the factor to use, the strains compared,
     /// the lots to look at, how the strains fermented. The sections below give each in full.
     /// </summary>
     internal static IReadOnlyList<string> AtAGlance(ReviewResult review)
     {
+        ArgumentNullException.ThrowIfNull(review);
         var inv = CultureInfo.InvariantCulture;
         var o = review.Overview;
         var lines = new List<string>();
@@ -120,9 +124,15 @@ internal static class WorkbookSheets
             lines.Add("Strains, most alcohol from the same sugar first: " + string.Join(", ", ranking.Select(r => r.Strain)) + "." + (o.StrainHeadline is { } h ? " " + h : string.Empty));
         }
 
+        // The line names the first lots only (a cell holds at most 32,767 characters: 100,000 lots flagged some
+        // thousands, and the workbook failed); the Follow-up sheet and data/follow-up.csv list them all.
+        var named = review.Findings.Take(AtAGlanceLots).Select(l => $"{l.Key} ({ReviewTexts.Severity(l.Severity)})");
+        string more = review.Findings.Count > AtAGlanceLots
+            ? string.Create(inv, $", and {review.Findings.Count - AtAGlanceLots} more on the Follow-up sheet")
+            : string.Empty;
         lines.Add(o.Lots.Flagged == 0
             ? "Lots to look at: none."
-            : $"Lots to look at: {o.Lots.Flagged} — " + string.Join(", ", review.Findings.Select(l => $"{l.Key} ({ReviewTexts.Severity(l.Severity)})")) + ".");
+            : $"Lots to look at: {o.Lots.Flagged} — " + string.Join(", ", named) + more + ".");
         if (o.Ferments.Count > 0)
         {
             var unit = review.Settings.TemperatureUnit;
