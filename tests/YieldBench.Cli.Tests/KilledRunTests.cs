@@ -43,7 +43,9 @@ public sealed class KilledRunTests : IDisposable
         foreach (double seconds in new[] { 0, 0.5, 1, 2, 3, 5 })
         {
             var (killed, killedSaid) = Stop("SIGKILL", TimeSpan.FromSeconds(seconds));
-            Assert.True(killed is 137 or -1, $"exit {killed} after {seconds} s: {killedSaid}");
+            // 137 killed; -1 finished before the moment came; 0 finished in the instant between that check and the
+            // signal (a finished process can still be signalled until it is reaped) — the folder is checked either way
+            Assert.True(killed is 137 or -1 or 0, $"exit {killed} after {seconds} s: {killedSaid}");
             AssertWholeOrAsItWas(report, before);
         }
 
