@@ -88,7 +88,7 @@ public static class PlanningCharts
             return plot;
         }
 
-        ChartStyle.Subtitle(plot, "Line: pick at or below it to stay at or under the target 4 times in 5 (80 %); band: from 19 in 20 (95 %) to even odds. An estimate, not a label statement");
+        ChartStyle.Subtitle(plot, "Line: stay at or under the target 4 times in 5 (80 %); band: 19 in 20 (95 %) to even odds. An estimate, not a label statement.");
         var strains = review.Figures.StrainOrder;
         foreach (var c in curves)
         {
