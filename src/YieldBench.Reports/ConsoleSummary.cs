@@ -35,7 +35,8 @@ public static class ConsoleSummary
             {
                 var e = f.Estimate;
                 Say($"{(f.Strain == "*" ? "all lots" : f.Strain)}: {F(f.Factor, "0.000")} % v/v per °Brix ({f.Candidate}) → {F(e.Predicted, "0.00")} % v/v; "
-                    + $"80 % of lots {Range(e.Low80, e.High80)}, 95 % {Range(e.Low95, e.High95)}; held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots).", 2);
+                    + $"80 % of lots {Range(e.Low80, e.High80)}, 95 % {Range(e.Low95, e.High95)}; "
+                    + (f.ScoredAlone ? $"held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots)." : $"ranges from {f.RangesFrom}."), 2);
             }
         }
         else
@@ -118,7 +119,7 @@ public static class ConsoleSummary
         string pad = new(' ', indent), more = new(' ', indent + 2);
         var line = new System.Text.StringBuilder(pad);
         bool empty = true;
-        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        foreach (string word in Words(text))
         {
             if (!empty && line.Length + 1 + word.Length > Width)
             {
@@ -140,6 +141,29 @@ public static class ConsoleSummary
         {
             yield return line.ToString();
         }
+    }
+
+    /// <summary>
+    /// The words of a line for wrapping: split at spaces, except that a unit or percent sign stays with the number
+    /// before it ("95 %", "24.3 °Brix" never break across lines).
+    /// </summary>
+    public static IReadOnlyList<string> Words(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        var words = new List<string>();
+        foreach (string word in text.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (words.Count > 0 && word[0] is '%' or '°' && words[^1].Length > 0 && char.IsDigit(words[^1][^1]))
+            {
+                words[^1] += " " + word;
+            }
+            else
+            {
+                words.Add(word);
+            }
+        }
+
+        return words;
     }
 
     private static string Range(double low, double high) => double.IsFinite(low) && double.IsFinite(high) ? $"{F(low, "0.00")}–{F(high, "0.00")}" : "n/a (too few lots)";

@@ -8,7 +8,7 @@ internal static class TextWrap
 
     /// <summary>
     /// The line wrapped at spaces to <see cref="Width"/> columns; continuation lines are indented two columns deeper
-    /// than the line's own indent. A single word longer than the width stays whole.
+    /// than the line's own indent. A single word longer than the width stays whole; a unit stays with its number.
     /// </summary>
     public static IEnumerable<string> Lines(string line)
     {
@@ -22,7 +22,7 @@ internal static class TextWrap
         string rest = new(' ', indent + 2);
         var current = new System.Text.StringBuilder(line[..indent]);
         int start = current.Length;
-        foreach (string word in line[indent..].Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        foreach (string word in Reports.ConsoleSummary.Words(line[indent..]))
         {
             if (current.Length > start && current.Length + 1 + word.Length > Width)
             {

@@ -18,6 +18,9 @@ public static class KineticsCodes
     /// <summary>Flag: the log ends above the dry reading.</summary>
     public const string NotDryAtLogEnd = "not-dry-at-log-end";
 
+    /// <summary>Finding (not a flag): the log ends above the dry reading, but the lab's residual sugar shows the lot finished.</summary>
+    public const string LogEndedBeforeDry = "log-ended-before-dry";
+
     /// <summary>Flag: the peak temperature passed the danger threshold.</summary>
     public const string AboveDangerTemp = "above-danger-temp";
 
@@ -65,6 +68,6 @@ public static class KineticsCodes
     public static IReadOnlyList<string> All { get; } =
     [
         .. Flags, LogMatchesSeveralLots, LogWithoutLot, SeveralLogsForLot, TooFewSugarReadings, DropBeforeInoculation,
-        HeatPotentialAboveDanger, NoSigmoidFit,
+        HeatPotentialAboveDanger, NoSigmoidFit, LogEndedBeforeDry,
     ];
 }

@@ -81,9 +81,15 @@ internal static class LotAnalysis
 
         var (dryH, dryAt) = FirstCrossing(hrs, bx, s.DryBrix, origin);
         double final = bx[^1];
-        if (dryAt is null)
+        if (dryAt is null && lot.ResidualSugarGl is { } labRs && labRs <= s.DryResidualSugarGl)
         {
-            string rs = lot.ResidualSugarGl is { } r ? $"; the lab recorded {F(r)} g/L residual sugar" : string.Empty;
+            // The lab's residual sugar says the lot finished: the log was simply not kept to the end (common: readings
+            // stop once the cellar sees it is nearly dry). Said as a finding, not a flag, as the stall rules do.
+            cx.Report(KineticsCodes.LogEndedBeforeDry, $"Lot {cx.Key}: the log ends at {F(final)} °Brix on {Stamp(sugar[^1].Time)}, above the dry reading of {F(s.DryBrix)} °Brix, but the lab recorded {F(labRs)} g/L residual sugar, within the {F(s.DryResidualSugarGl)} g/L dry limit: the lot finished after its last reading.", sugar[^1].Source, flag: false);
+        }
+        else if (dryAt is null)
+        {
+            string rs = lot.ResidualSugarGl is { } r ? $"; the lab recorded {F(r)} g/L residual sugar, above the {F(s.DryResidualSugarGl)} g/L dry limit" : "; no residual sugar was recorded for the lot";
             cx.Report(KineticsCodes.NotDryAtLogEnd, $"Lot {cx.Key}: the log ends at {F(final)} °Brix on {Stamp(sugar[^1].Time)}, above the dry reading of {F(s.DryBrix)} °Brix{rs}.", sugar[^1].Source);
         }
 

@@ -21,9 +21,14 @@ public sealed record FactorsToUse(double ReferenceBrix, FactorChoice Pooled, IRe
 /// <param name="Factor">% v/v per °Brix at the reference sugar: predicted alcohol ÷ °Brix there (for a line through the origin, its slope), as data/house-factor.json writes it.</param>
 /// <param name="Estimate">Predicted alcohol at the reference sugar with its 80 % and 95 % intervals, % v/v.</param>
 /// <param name="HeldOutMae">Mean absolute error on held-out lots of this strain (all lots for the pooled factor), % v/v.</param>
-/// <param name="Lots">Lots it was scored on.</param>
+/// <param name="Lots">Lots it was scored on (0 for a strain with too few lots for a backtest of its own).</param>
+/// <param name="RangesFrom">Which held-out errors the ranges come from, in words (the planning line's error basis, e.g. "all 48 lots held out by leave-one-season-out (this strain has 13, too few for intervals of its own)").</param>
 public sealed record FactorChoice(
-    string Strain, string Candidate, SugarCurve Curve, double Intercept, double Slope, double Factor, AlcoholEstimate Estimate, double HeldOutMae, int Lots);
+    string Strain, string Candidate, SugarCurve Curve, double Intercept, double Slope, double Factor, AlcoholEstimate Estimate, double HeldOutMae, int Lots, string RangesFrom)
+{
+    /// <summary>Whether the factor was scored on held-out lots of its own (false: a strain with too few lots).</summary>
+    public bool ScoredAlone => Lots > 0 && double.IsFinite(HeldOutMae);
+}
 
 /// <summary>The planning table: the highest picking °Brix that keeps a wine under each target alcohol at each confidence.</summary>
 /// <param name="Targets">Target alcohols, % v/v, in the settings' order.</param>
@@ -88,7 +93,8 @@ internal static class OverviewDetails
             double.IsFinite(planning.ReferenceBrix) ? planning.FactorOf(line) : line.FactorAt(referenceBrix),
             Planner.Estimate(line, sugar),
             r?.Metrics.Mae ?? double.NaN,
-            r?.Lots ?? 0);
+            r?.Lots ?? 0,
+            line.ErrorBasis);
 
         var byStrain = h.ByStrain.ToDictionary(r => r.Strain, StringComparer.Ordinal);
         var strains = strainOrder.Where(planning.Knows).Select(s => Choice(planning.For(s), byStrain.GetValueOrDefault(s))).ToArray();

@@ -52,6 +52,7 @@ public static class ReviewTexts
         KineticsCodes.DropBeforeInoculation => "sugar fell before the recorded inoculation",
         KineticsCodes.TooFewSugarReadings => "too few sugar readings to analyse",
         KineticsCodes.NoSigmoidFit => "no fermentation curve could be fitted",
+        KineticsCodes.LogEndedBeforeDry => "log ended before dry; the lab found it dry",
         KineticsCodes.SeveralLogsForLot => "several logs for one lot",
         KineticsCodes.LogWithoutLot => "a log that matches no lot",
         KineticsCodes.LogMatchesSeveralLots => "a log that matches several lots",

@@ -49,6 +49,30 @@ internal static class ColumnRules
 
     public static readonly IReadOnlyDictionary<string, FieldDef> LogIndex = BuildIndex(Fields.Log);
 
+    // Sugar scale words a header may end with after the field's name, as a unit written without brackets
+    // ("Mostgewicht °Oe", "Start sugar °Bx").
+    private static readonly HashSet<string> TrailingScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "be", "baume", "bau"];
+
+    /// <summary>
+    /// The field a header names, or null: its field key (brackets and unit words dropped), else its whole normalised
+    /// text, else — for a sugar field only — its field key without a trailing scale word ("Mostgewicht °Oe" is
+    /// "mostgewicht"; the scale itself is read from the header as before).
+    /// </summary>
+    public static FieldDef? Find(string header, TableKind kind)
+    {
+        var index = kind == TableKind.Lots ? LotIndex : LogIndex;
+        string key = HeaderText.FieldKey(header);
+        if (index.TryGetValue(key, out var field) || index.TryGetValue(HeaderText.Normalise(header), out field))
+        {
+            return field;
+        }
+
+        int last = key.LastIndexOf(' ');
+        return last > 0 && TrailingScaleWords.Contains(key[(last + 1)..]) && index.TryGetValue(key[..last], out field) && field.Kind == FieldKind.Sugar
+            ? field
+            : null;
+    }
+
     private static Dictionary<string, FieldDef> BuildIndex(IEnumerable<FieldDef> fields)
     {
         var index = new Dictionary<string, FieldDef>(StringComparer.Ordinal);

@@ -53,7 +53,7 @@ internal static class Fields
     [
         "lot", "lot id", "lotid", "lot no", "lot nr", "lot num", "lot number", "lot code", "lot name", "lot ref",
         "lot reference", "wine lot", "batch", "batch id", "batch no", "batch number", "batch code", "id", "ferment id",
-        "fermentation id", "fermentation lot", "lot label", "code",
+        "fermentation id", "fermentation lot", "lot label", "code", "los", "partie",
     ];
 
     private static readonly string[] SeasonWords =
@@ -124,7 +124,7 @@ internal static class Fields
             new("colour", TableKind.Lots, FieldKind.Colour, false, "", null, null, "Colour", "Wine colour: red, white or rosé (sets temperature defaults).", "red",
                 ["colour", "color", "style", "type", "wine type", "wine colour", "wine color", "wine style", "colour style"]),
             new("vessel", TableKind.Lots, FieldKind.Text, false, "", null, null, "Vessel", "Vessel type (tank, barrel, bin, concrete…).", "tank",
-                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no", "tank vessel", "vessel tank", "tank or vessel", "vessel or tank"]),
+                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no", "tank vessel", "vessel tank", "tank or vessel", "vessel or tank", "behalter", "gebinde", "fass"]),
             new("vessel_capacity_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Vessel capacity (L)", "Capacity of the vessel.", "5000",
                 ["capacity", "vessel capacity", "vessel size", "tank size", "tank capacity", "size", "vessel volume", "fermenter size", "fermenter capacity"]),
             new("variety", TableKind.Lots, FieldKind.Text, false, "", null, null, "Variety", "Grape variety.", "Syrah",

@@ -144,13 +144,7 @@ internal static class HeaderDetection
         }
 
         rule = null;
-        var index = kind == TableKind.Lots ? ColumnRules.LotIndex : ColumnRules.LogIndex;
-        if (index.TryGetValue(HeaderText.FieldKey(header), out var field) || index.TryGetValue(HeaderText.Normalise(header), out field))
-        {
-            return field;
-        }
-
-        return null;
+        return ColumnRules.Find(header, kind);
     }
 
     /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>

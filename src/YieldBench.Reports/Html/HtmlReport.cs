@@ -122,7 +122,9 @@ public static class HtmlReport
             page.Append($"<td>{Number(c.Estimate.Predicted, "0.00")}</td>");
             page.Append($"<td>{Range(c.Estimate.Low80, c.Estimate.High80)}</td>");
             page.Append($"<td>{Range(c.Estimate.Low95, c.Estimate.High95)}</td>");
-            page.Append($"<td>{Number(c.HeldOutMae, "0.00")} <span class=\"unit\">({Count(c.Lots)} lots)</span></td>");
+            page.Append(c.ScoredAlone
+                ? $"<td>{Number(c.HeldOutMae, "0.00")} <span class=\"unit\">({Count(c.Lots)} lots)</span></td>"
+                : $"<td class=\"text\"><span class=\"unit\">not scored alone; ranges from {Escape(c.RangesFrom)}</span></td>");
             page.Append($"<td class=\"text\">{Escape(c.Candidate)}{Formula(c)}</td></tr>\n");
         }
 

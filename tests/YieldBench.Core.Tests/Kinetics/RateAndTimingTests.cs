@@ -117,8 +117,26 @@ public class RateAndTimingTests
         Assert.Null(lot.HoursToDry);
         Assert.Contains("not-dry-at-log-end", lot.Flags);
         var f = Assert.Single(review.Findings, x => x.Code == "not-dry-at-log-end");
-        Assert.Equal("Lot 2025/T-101: the log ends at 1.5 °Brix on 2025-10-02 20:00, above the dry reading of 0.0 °Brix; the lab recorded 21.0 g/L residual sugar.", f.Message);
+        Assert.Equal("Lot 2025/T-101: the log ends at 1.5 °Brix on 2025-10-02 20:00, above the dry reading of 0.0 °Brix; the lab recorded 21.0 g/L residual sugar, above the 4.0 g/L dry limit.", f.Message);
         Assert.Equal(4, f.Source!.Row);
+    }
+
+    [Fact]
+    public void A_log_that_stops_before_dry_on_a_lot_the_lab_found_dry_is_a_finding_not_a_flag()
+    {
+        // Given the same log ending at 1.5 °Brix, on a lot whose lab residual sugar is 1.2 g/L (within the 4 g/L dry limit)
+        var log = Log("T-101", 2025, ("2025-09-30 20:00", 24.0, null), ("2025-10-01 20:00", 18.0, null), ("2025-10-02 20:00", 1.5, null));
+
+        // When analysed
+        var review = KineticsAnalysis.Run([Lot(residualSugarGl: 1.2)], [log], KineticsSettings.Default);
+
+        // Then it has no dry time from the log, carries no not-dry flag, and the finding says the lot finished after its log
+        var lot = Assert.Single(review.Lots);
+        Assert.Null(lot.HoursToDry);
+        Assert.DoesNotContain("not-dry-at-log-end", lot.Flags);
+        Assert.DoesNotContain(review.Findings, x => x.Code == "not-dry-at-log-end");
+        var f = Assert.Single(review.Findings, x => x.Code == "log-ended-before-dry");
+        Assert.Equal("Lot 2025/T-101: the log ends at 1.5 °Brix on 2025-10-02 20:00, above the dry reading of 0.0 °Brix, but the lab recorded 1.2 g/L residual sugar, within the 4.0 g/L dry limit: the lot finished after its last reading.", f.Message);
     }
 
     [Fact]

@@ -43,7 +43,26 @@ public sealed class OverviewDetailsTests
             Assert.Equal(estimate, choice.Estimate);
             Assert.InRange(choice.Estimate.Predicted, choice.Estimate.Low80, choice.Estimate.High80);
             Assert.True(choice.Estimate.Low95 <= choice.Estimate.Low80 && choice.Estimate.High80 <= choice.Estimate.High95);
+
+            // Its ranges say which held-out errors they come from, and it counts as scored alone exactly when the house
+            // factor scored it (the pooled line, or a strain with a recommendation of its own)
+            Assert.Equal(line.ErrorBasis, choice.RangesFrom);
+            bool own = choice.Strain == "*" || review.HouseFactor.ByStrain.Any(r => r.Strain == choice.Strain);
+            Assert.Equal(own, choice.ScoredAlone);
         }
+    }
+
+    [Fact]
+    public void A_strain_too_small_for_a_backtest_of_its_own_is_not_scored_alone_and_says_where_its_ranges_come_from()
+    {
+        // Given a choice for a strain with no recommendation of its own (13 lots; 15 are needed), as the overview builds it
+        var estimate = new AlcoholEstimate(14.05, 13.93, 14.24, 13.84, 14.32, 48);
+        var choice = new FactorChoice("MB-2", "Per-strain median factor", SugarCurve.Line, 0, 0.58, 0.58, estimate, double.NaN, 0,
+            "all 48 lots held out by leave-one-season-out (this strain has 13, too few for intervals of its own)");
+
+        // Then it is not scored alone, and the console says where its ranges come from instead of an error of "n/a (0 lots)"
+        Assert.False(choice.ScoredAlone);
+        Assert.True(new FactorChoice("*", "x", SugarCurve.Line, 0, 0.6, 0.6, estimate, 0.1, 48, "all 48 lots").ScoredAlone);
     }
 
     [Fact]

@@ -135,7 +135,15 @@ internal static class OddLots
                 return null;
             }
 
-            var residuals = Descriptive.ToSortedArray(group.Select(l => l.Abv - line.Predict(l.Brix)));
+            // The line is moved to pass through the middle of the strain's lots: intercept median(y − slope·x) (scipy's
+            // "joint" intercept) instead of median(y) − slope·median(x). The residual scale (MAD) is measured about the
+            // residuals' median, so the residual judged against it must be measured from there too: with discrete
+            // readings (SG to 0.001, alcohol to 0.1) the two intercepts can differ by more than the scale itself, which
+            // put most of a small strain's lots "off its line".
+            var raw = Descriptive.ToSortedArray(group.Select(l => l.Abv - line.Predict(l.Brix)));
+            double middle = Descriptive.MedianOfSorted(raw);
+            line = line with { Intercept = line.Intercept + middle };
+            var residuals = raw.Select(r => r - middle).ToArray();
             double scale = RobustScale(residuals).Scale;
 
             return scale > 0 ? new StrainLine(name, line, scale) : null;
