@@ -131,6 +131,16 @@ public static class IntakeMessages
     internal static string UnitAssumed(string unit, string example) =>
         $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";
 
+    internal static string OneColumnPerLot(int lots, IEnumerable<string> ids)
+    {
+        var list = ids.ToList();
+        string shown = string.Join(", ", list.Take(8)) + (list.Count > 8 ? $" and {list.Count - 8} more" : "");
+        return $"The sheet was read as a fermentation log with one column per lot ({lots} lots: {shown}): each column's header is taken as the lot id, its numbers as that lot's sugar readings (temperatures where the header says temp, °C or °F), and the date and time on the left as the time of each. If a column is no lot, delete it or move it to another sheet; a layout with one row per reading (Lot, Date, Time, Brix, Temp) needs no guessing.";
+    }
+
+    internal static string ForEveryLotColumn(int columns) =>
+        columns > 1 ? $" The same unit was taken for all {columns} lot columns that state none." : "";
+
     internal static string UnitFromValues(string unit, double low, double high, string example) =>
         $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
 

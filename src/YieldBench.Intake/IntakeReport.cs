@@ -71,7 +71,9 @@ public static class IntakeReport
             return $"{sheet}{a.Kind}: no rows read.";
         }
 
-        string used = a.LogReadingsUsed > 0 || a.Kind == "log" ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
+        string used = a.ReadingsInRows is { } held
+            ? $"{N(a.LogReadingsUsed)} rows used ({N(held)} readings)"
+            : a.LogReadingsUsed > 0 || a.Kind == "log" ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
         return $"{sheet}{a.Kind}: {N(a.RowsRead)} rows read = {used}, {N(a.RowsReported)} left out, {N(a.BlankRowsSkipped)} blank, " +
             $"{N(a.SummaryRowsSkipped)} summary{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
     }

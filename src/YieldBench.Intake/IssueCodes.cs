@@ -85,6 +85,9 @@ public static class IssueCodes
     /// <summary><c>column-not-used</c>.</summary>
     public const string ColumnNotUsed = "column-not-used";
 
+    /// <summary><c>one-column-per-lot</c>.</summary>
+    public const string OneColumnPerLot = "one-column-per-lot";
+
     /// <summary><c>duplicate-column</c>.</summary>
     public const string DuplicateColumn = "duplicate-column";
 

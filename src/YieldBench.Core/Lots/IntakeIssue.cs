@@ -46,6 +46,12 @@ public sealed record SourceAccount(
     int BlankRowsSkipped,
     int SummaryRowsSkipped)
 {
+    /// <summary>
+    /// Readings the used rows held when one row holds several (a log with one column per lot); null when each used
+    /// row of a log is one reading.
+    /// </summary>
+    public int? ReadingsInRows { get; init; }
+
     /// <summary>True when the accounting identity holds.</summary>
     public bool Balances => RowsRead == LotsUsed + LogReadingsUsed + RowsReported + BlankRowsSkipped + SummaryRowsSkipped;
 }

@@ -160,6 +160,9 @@ internal static partial class HeaderText
         }
     }
 
+    /// <summary>The text with bracketed parts ("(SG)", "[°C]") replaced by spaces.</summary>
+    public static string WithoutBrackets(string text) => Brackets().Replace(text, " ");
+
     private static string CollapseSpaces(string s)
     {
         var sb = new StringBuilder(s.Length);

@@ -28,9 +28,6 @@ internal static class LogRows
         var run = ctx.Run;
         var sink = run.Sink;
         var lotCol = ctx.Column("lot_id");
-        var tsCol = ctx.Column("timestamp");
-        var dateCol = ctx.Column("date");
-        var timeCol = ctx.Column("time");
         var sugarCol = ctx.Column("sugar");
         var tempCol = ctx.Column("temp_c");
         var seasonCol = ctx.Column("season");
@@ -42,6 +39,33 @@ internal static class LogRows
         }
 
         int? season = SeasonField(st, seasonCol);
+        var when = When(ctx, st, r);
+        SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
+        double? temp = tempCol is null ? null : NumberField(st, tempCol);
+        if (!st.Bad && sugar is null && temp is null)
+        {
+            st.Bad = true;
+            sink.Error(ctx.File, ctx.SheetName, r + 1, (sugarCol ?? tempCol)?.Header, null, IssueCodes.NoReading, IntakeMessages.NoReading());
+        }
+
+        if (st.Bad || lotId is null || when is null)
+        {
+            return false;
+        }
+
+        run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, new SourceRef(ctx.File, ctx.SheetName, r + 1))));
+        return true;
+    }
+
+    /// <summary>
+    /// The time of row <paramref name="r"/>: its timestamp, or its date with its time of day; null when it has none
+    /// (reported as an error that leaves the row out).
+    /// </summary>
+    internal static DateTime? When(SheetContext ctx, RowState st, int r)
+    {
+        var tsCol = ctx.Column("timestamp");
+        var dateCol = ctx.Column("date");
+        var timeCol = ctx.Column("time");
         DateTime? when = null;
         if (tsCol is not null)
         {
@@ -65,26 +89,11 @@ internal static class LogRows
             }
         }
 
-        if (when is null && !st.Bad)
+        if (when is null && !st.Bad && (tsCol ?? dateCol) is { } c)
         {
-            var c = tsCol ?? dateCol!;
             st.Problem(c, ctx.Sheet.Cell(r, c.Index), IssueCodes.MissingTimestamp, IntakeMessages.MissingTimestamp(), true);
         }
 
-        SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
-        double? temp = tempCol is null ? null : NumberField(st, tempCol);
-        if (!st.Bad && sugar is null && temp is null)
-        {
-            st.Bad = true;
-            sink.Error(ctx.File, ctx.SheetName, r + 1, (sugarCol ?? tempCol)?.Header, null, IssueCodes.NoReading, IntakeMessages.NoReading());
-        }
-
-        if (st.Bad || lotId is null || when is null)
-        {
-            return false;
-        }
-
-        run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, new SourceRef(ctx.File, ctx.SheetName, r + 1))));
-        return true;
+        return when;
     }
 }

@@ -36,7 +36,8 @@ internal static class SheetReader
 
         if (!HeaderDetection.Find(run, sheet, lastRow, out int headerRow, out var kind, out var columns, out var unmatched, out var duplicates))
         {
-            return Outcome.NoTable;
+            // Not an ordinary table: perhaps a log with one column per lot.
+            return WideLogRows.TryRead(run, file, fullPath, sheet, lastRow) ? Outcome.Read : Outcome.NoTable;
         }
 
         foreach (var (_, header) in unmatched)

@@ -1,0 +1,99 @@
+using ClosedXML.Excel;
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake.Tests;
+
+/// <summary>Fermentation logs kept with one column per lot (a date, perhaps a time, then a column for each tank).</summary>
+public class OneColumnPerLotTests
+{
+    private const string Lots = "Lot,Vintage,Yeast,Brix,ABV %,RS g/L\nC1,2025,ZR-3,24.0,14.1,1.2\nC2,2025,ZR-9,25.5,15.0,1.4\nC3,2025,ZR-3,24.4,14.4,1.1\n";
+
+    [Fact]
+    public void A_board_with_a_column_per_lot_gives_each_lot_its_readings_at_the_row_times()
+    {
+        // Given a board: date and time, then one sugar column per lot, a lot not read at one time (empty cell)
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", Lots);
+        folder.Text("board.csv", "Date,Time,C1,C2,C3\n2025-09-10,09:00 AM,24.0,25.5,24.4\n2025-09-10,09:00 PM,23.5,,23.9\n2025-09-11,09:00 AM,21.0,23.1,20.2\n");
+
+        // When it is read with the lots
+        var set = folder.Read("lots.csv", "board.csv");
+
+        // Then each lot has its own log with the readings of its column, at the row's date and time, joined to its lot
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal(["C1", "C2", "C3"], logs.Keys.Order());
+        Assert.Equal([24.0, 23.5, 21.0], logs["C1"].Readings.Select(r => r.Sugar!.Value.Brix));
+        Assert.Equal([25.5, 23.1], logs["C2"].Readings.Select(r => r.Sugar!.Value.Brix));
+        Assert.Equal([new DateTime(2025, 9, 10, 9, 0, 0), new DateTime(2025, 9, 11, 9, 0, 0)], logs["C2"].Readings.Select(r => r.Timestamp));
+        Assert.Equal(4, logs["C1"].Readings[2].Source!.Row);
+
+        // and the sheet's account counts rows (all used) and the readings they held, with the layout said in a warning
+        var account = Assert.Single(set.Accounts, a => a.File.EndsWith("board.csv", StringComparison.Ordinal));
+        Assert.Equal((3, 3, 0), (account.RowsRead, account.LogReadingsUsed, account.RowsReported));
+        Assert.Equal(8, account.ReadingsInRows);
+        Assert.True(account.Balances);
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.OneColumnPerLot && i.Severity == IssueSeverity.Warning);
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Fact]
+    public void Sugar_and_temperature_columns_of_a_lot_make_one_reading_and_a_bad_cell_leaves_out_only_its_lot()
+    {
+        // Given a workbook board with a title row, Excel dates, per lot a °Bx or SG column and a °F column, a note column,
+        // and the word "racked" in one lot's sugar cell
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", Lots);
+        string path = folder.PathOf("board.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.Worksheets.Add("Ferments 2025");
+            Workbooks.Fill(ws, ["Tank board, 2025 reds"], [], ["Date", "C1 Brix", "C1 °F", "C2 (SG)", "C2 temp °F", "Notes"],
+                [new DateTime(2025, 9, 20, 8, 0, 0), 24.0, 62.6, 1.104, 64.4, "punched down"],
+                [new DateTime(2025, 9, 21, 8, 0, 0), 21.8, 68.0, "racked", 70.0, null]);
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lots.csv", "board.xlsx");
+
+        // Then C1 has two readings with sugar and temperature (62.6 °F = 17.0 °C), C2 one (1.104 SG, 64.4 °F = 18.0 °C);
+        // the "racked" cell is an error naming its row, column and value; the notes column is reported as not used
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal([24.0, 21.8], logs["C1"].Readings.Select(r => r.Sugar!.Value.Brix));
+        Assert.Equal(17.0, logs["C1"].Readings[0].TemperatureC!.Value, 9);
+        var c2 = Assert.Single(logs["C2"].Readings);
+        Assert.Equal(1.104, c2.Sugar!.Value.SpecificGravity, 6);
+        Assert.Equal(18.0, c2.TemperatureC!.Value, 9);
+        var errors = set.Issues.Where(i => i.Severity == IssueSeverity.Error).ToArray();
+        var racked = Assert.Single(errors);
+        Assert.Equal((5, "C2 (SG)", "racked"), (racked.Row!.Value, racked.Column, racked.Value));
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed && i.Column == "Notes");
+        var account = Assert.Single(set.Accounts, a => a.File.EndsWith("board.xlsx", StringComparison.Ordinal));
+        Assert.Equal((2, 2, 3), (account.RowsRead, account.LogReadingsUsed, account.ReadingsInRows!.Value));
+    }
+
+    [Theory]
+    [InlineData("C04", "C04", false)]
+    [InlineData("C04 °Bx", "C04", false)]
+    [InlineData("Tank 6 (SG)", "Tank 6", false)]
+    [InlineData("T6 temp °F", "T6", true)]
+    [InlineData("T6 °C", "T6", true)]
+    [InlineData("Tank C", "Tank C", false)]
+    public void A_lot_columns_header_gives_the_lot_id_and_whether_it_holds_temperatures(string header, string lot, bool temperature)
+    {
+        Assert.Equal((lot, temperature), WideLogRows.Parse(header));
+    }
+
+    [Fact]
+    public void A_sheet_with_one_numeric_column_beside_the_date_is_not_taken_for_a_board()
+    {
+        // Given a date column and one column of numbers under a header that names no field (it could be anything)
+        using var folder = new TestFolder();
+        folder.Text("misc.csv", "Date,Pressings\n2025-09-10,4\n2025-09-11,6\n");
+
+        // When it is read / Then nothing is guessed: no table is found, as before
+        var set = folder.Read("misc.csv");
+        Assert.Empty(set.Logs);
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.NoTableFound);
+    }
+}
