@@ -125,16 +125,22 @@ internal static class ForecastCommand
             Season = request.Season,
             WorkingDirectory = root,
         };
+        // Reading the inputs keeps one core busy; the other loads and compiles the workbook and chart code meanwhile
+        // (it writes nothing; it is awaited before the files are written, or before returning early, so a failure in it
+        // is not hidden).
+        var warmUp = Task.Run(ForecastOutput.WarmUp);
         var past = IntakeReader.Read(history, options);
         var now = IntakeReader.Read(running, options with { RunningLots = true });
         if (ReportFolder.Problem(outFolder, past.Files.Concat(now.Files).Select(f => Path.GetFullPath(f.Path, root))) is { } fileClash)
         {
+            warmUp.GetAwaiter().GetResult();
             return Usage($"{Name}: " + fileClash);
         }
 
         ReportIssues(context, request.Quiet, past, now, Path.Combine(request.Output, ForecastWorkbook.FileName));
         if (now.RunningLots.Count == 0)
         {
+            warmUp.GetAwaiter().GetResult();
             TextWrap.WriteLine(context.Error, $"{Name}: no running lot could be read from the --running files (a lots table with lot id, strain and starting sugar is needed; the issues above say why).");
             return ExitCodes.InputProblems;
         }
@@ -146,10 +152,12 @@ internal static class ForecastCommand
         }
         catch (ArgumentException e)
         {
+            warmUp.GetAwaiter().GetResult();
             TextWrap.WriteLine(context.Error, UsageChecks.Shown($"{Name}: the forecast cannot be made: {e.Message.Split(" (Parameter", StringSplitOptions.None)[0]}"));
             return ExitCodes.InputProblems;
         }
 
+        warmUp.GetAwaiter().GetResult();
         ReportOutput written;
         try
         {

@@ -123,11 +123,14 @@ public static class CourseFit
     /// <summary>Sum of squares at (κ, λ) with S0 and F solved by least squares.</summary>
     public static double Projected(SigmoidModel model, double[] hours, double[] brix, double kappa, double lambda, out double s0, out double f)
     {
-        // y = S0·(1 − h) + F·h: normal equations of the two columns.
+        // y = S0·(1 − h) + F·h: normal equations of the two columns (each h worked out once, kept for the residuals).
+        int n = hours.Length;
+        Span<double> hs = n <= 512 ? stackalloc double[n] : new double[n];
         double a11 = 0, a12 = 0, a22 = 0, b1 = 0, b2 = 0;
-        for (int i = 0; i < hours.Length; i++)
+        for (int i = 0; i < n; i++)
         {
             double h = SigmoidShape.Value(model, kappa, lambda, hours[i]);
+            hs[i] = h;
             double g = 1.0 - h;
             a11 += g * g;
             a12 += g * h;
@@ -146,9 +149,9 @@ public static class CourseFit
         s0 = ((a22 * b1) - (a12 * b2)) / det;
         f = ((a11 * b2) - (a12 * b1)) / det;
         double ss = 0;
-        for (int i = 0; i < hours.Length; i++)
+        for (int i = 0; i < n; i++)
         {
-            double r = brix[i] - (s0 - ((s0 - f) * SigmoidShape.Value(model, kappa, lambda, hours[i])));
+            double r = brix[i] - (s0 - ((s0 - f) * hs[i]));
             ss += r * r;
         }
 
@@ -164,7 +167,7 @@ public static class CourseFit
         p[2] = (x0, y0 + dy, f(x0, y0 + dy));
         for (int it = 0; it < maxIterations; it++)
         {
-            Array.Sort(p, (a, b) => a.V.CompareTo(b.V));
+            SortThree(p);
             double size = Math.Abs(p[1].X - p[0].X) + Math.Abs(p[2].X - p[0].X) + ((Math.Abs(p[1].Y - p[0].Y) + Math.Abs(p[2].Y - p[0].Y)) / Math.Max(dy, 1e-9) * dx);
             if (size < sizeTolerance * Math.Max(1.0, dx) || Math.Abs(p[2].V - p[0].V) <= Math.Max(valueTolerance, 1e-14 * Math.Max(1e-12, Math.Abs(p[0].V))))
             {
@@ -201,7 +204,23 @@ public static class CourseFit
             }
         }
 
-        Array.Sort(p, (a, b) => a.V.CompareTo(b.V));
+        SortThree(p);
         return (p[0].X, p[0].Y);
+    }
+
+    /// <summary>Orders the simplex by value with the three compare-and-swaps Array.Sort uses for three items.</summary>
+    private static void SortThree((double X, double Y, double V)[] p)
+    {
+        static void SwapIfGreater((double X, double Y, double V)[] p, int i, int j)
+        {
+            if (p[i].V.CompareTo(p[j].V) > 0)
+            {
+                (p[i], p[j]) = (p[j], p[i]);
+            }
+        }
+
+        SwapIfGreater(p, 0, 1);
+        SwapIfGreater(p, 0, 2);
+        SwapIfGreater(p, 1, 2);
     }
 }

@@ -66,13 +66,22 @@ public static class ForecastBacktest
 
         // Each season held out gets its model; each (season, cut) is then forecast on its own, side by side, and the
         // cases are put back in season and cut order.
-        var models = new Dictionary<int, ForecastModel>();
-        foreach (int season in seasons)
+        // The seasons' models are trained side by side too (each into its own slot).
+        var trained = new ForecastModel?[seasons.Length];
+        Parallel.For(0, seasons.Length, i =>
         {
-            var training = past.Where(p => p.Course.Season != season).ToArray();
+            var training = past.Where(p => p.Course.Season != seasons[i]).ToArray();
             if (training.Count(p => p.FitOf(form) is not null) >= 3)
             {
-                models[season] = ForecastModel.Train(training, form, settings);
+                trained[i] = ForecastModel.Train(training, form, settings);
+            }
+        });
+        var models = new Dictionary<int, ForecastModel>();
+        for (int i = 0; i < seasons.Length; i++)
+        {
+            if (trained[i] is { } m)
+            {
+                models[seasons[i]] = m;
             }
         }
 

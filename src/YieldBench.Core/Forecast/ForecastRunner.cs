@@ -71,11 +71,32 @@ public static class ForecastRunner
         var past = new PastLot[courses.Count];
         Parallel.For(0, courses.Count, i => past[i] = LoggedEvents.Read(courses[i], settings));
         var (form, ratio) = ChooseForm(past, settings);
-        var model = ForecastModel.Train(past, form, settings);
-        var backtest = ForecastBacktest.Run(past, form, settings);
-        return Forecast(model, running, runningLogs, settings) with
+
+        // The model of the whole history with the running lots' forecast, and the backtest (its own models), side by
+        // side: neither reads what the other makes. A failure of the first (too few fitted logs) is the one reported.
+        ForecastReport? forecast = null;
+        BacktestResult? backtest = null;
+        var failed = new System.Runtime.ExceptionServices.ExceptionDispatchInfo?[2];
+        Parallel.Invoke(
+            () => Guard(0, () => forecast = Forecast(ForecastModel.Train(past, form, settings), running, runningLogs, settings)),
+            () => Guard(1, () => backtest = ForecastBacktest.Run(past, form, settings)));
+        void Guard(int slot, Action work)
         {
-            Backtest = backtest,
+            try
+            {
+                work();
+            }
+            catch (Exception e)
+            {
+                failed[slot] = System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e);
+            }
+        }
+
+        failed[0]?.Throw();
+        failed[1]?.Throw();
+        return forecast! with
+        {
+            Backtest = backtest!,
             FormLogRatio = ratio,
             PastLogs = courses.Count,
             PastLogsNotFitted = past.Count(p => p.FitOf(form) is null),

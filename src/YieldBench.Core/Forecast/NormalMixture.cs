@@ -142,23 +142,46 @@ public sealed class NormalMixture(int capacity)
     /// </summary>
     public void Compact(double share)
     {
+        if (CompactPlan(share) is { } plan)
+        {
+            Apply(plan);
+        }
+    }
+
+    /// <summary>
+    /// What <see cref="Compact"/> would do with the weights held now: the components kept, in order, and the factor on
+    /// their weights; null when it would change nothing. A mixture later filled with the same weights in the same order
+    /// (a chart course's mixture at another time) is compacted alike by <see cref="Apply"/>, with no sort.
+    /// </summary>
+    public (int[] Keep, double Scale)? CompactPlan(double share)
+    {
         if (Count < 8)
         {
-            return;
+            return null;
         }
 
-        var order = new int[Count];
-        var weights = new double[Count];
+        // Only a component no heavier than the whole budget can be dropped: those are sorted by weight, the lightest first.
+        double budget = share * TotalWeight, dropped = 0;
+        int light = 0;
         for (int i = 0; i < Count; i++)
         {
-            order[i] = i;
-            weights[i] = _weight[i];
+            light += _weight[i] <= budget ? 1 : 0;
+        }
+
+        var order = new int[light];
+        var weights = new double[light];
+        for (int i = 0, m = 0; i < Count; i++)
+        {
+            if (_weight[i] <= budget)
+            {
+                (order[m], weights[m]) = (i, _weight[i]);
+                m++;
+            }
         }
 
         Array.Sort(weights, order);
-        double budget = share * TotalWeight, dropped = 0;
         int cut = 0;
-        while (cut < Count && dropped + weights[cut] <= budget)
+        while (cut < light && dropped + weights[cut] <= budget)
         {
             dropped += weights[cut];
             cut++;
@@ -166,12 +189,31 @@ public sealed class NormalMixture(int capacity)
 
         if (cut == 0)
         {
-            return;
+            return null;
         }
 
-        var keep = order[cut..];
-        Array.Sort(keep);
-        double scale = _finite / (_finite - dropped);
+        var gone = new bool[Count];
+        for (int i = 0; i < cut; i++)
+        {
+            gone[order[i]] = true;
+        }
+
+        var keep = new int[Count - cut];
+        for (int i = 0, m = 0; i < Count; i++)
+        {
+            if (!gone[i])
+            {
+                keep[m++] = i;
+            }
+        }
+
+        return (keep, _finite / (_finite - dropped));
+    }
+
+    /// <summary>Keeps the components of <paramref name="plan"/> (from <see cref="CompactPlan"/> on the same weights) and scales their weights.</summary>
+    public void Apply((int[] Keep, double Scale) plan)
+    {
+        var (keep, scale) = plan;
         for (int k = 0; k < keep.Length; k++)
         {
             _mean[k] = _mean[keep[k]];

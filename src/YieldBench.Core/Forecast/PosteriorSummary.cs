@@ -271,6 +271,10 @@ internal static class PosteriorSummary
         // quantiles of their mixture, as for the forecast's intervals.
         var sugar = new NormalMixture(nodes.Length * LotPosterior.Parts);
         var temp = new NormalMixture(nodes.Length * LotPosterior.TempParts);
+
+        // The components' weights are the same at every time (only their means and sds move), so which of them the
+        // compaction drops is worked out once, at the first time, and applied alike at the others.
+        (int[], double)? sugarPlan = null, tempPlan = null;
         for (int i = 0; i < points; i++)
         {
             sugar.Clear();
@@ -294,8 +298,21 @@ internal static class PosteriorSummary
                 }
             }
 
-            sugar.Compact(1e-2);
-            temp.Compact(1e-2);
+            if (i == 0)
+            {
+                (sugarPlan, tempPlan) = (sugar.CompactPlan(1e-2), temp.CompactPlan(1e-2));
+            }
+
+            if (sugarPlan is { } sugarKeep)
+            {
+                sugar.Apply(sugarKeep);
+            }
+
+            if (tempPlan is { } tempKeep)
+            {
+                temp.Apply(tempKeep);
+            }
+
             // (A chart band: components holding 1 % of the weight are dropped, so a band end lies between the 9 % and
             // 11 % points; each search starts from the same quantile at the time before, the courses being smooth.)
             double Before(double[] v) => i > 0 ? v[i - 1] : double.NaN;

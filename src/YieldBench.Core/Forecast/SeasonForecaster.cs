@@ -25,11 +25,11 @@ public static class SeasonForecaster
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(courses);
         ArgumentNullException.ThrowIfNull(settings);
+        // The lots' grids, and below their summaries, are each independent: with the chart courses (the running lots)
+        // they are made side by side, each into its own slot; the backtest runs its (season, cut) jobs side by side
+        // instead.
         var posts = new LotPosterior[courses.Count];
-        for (int i = 0; i < courses.Count; i++)
-        {
-            posts[i] = LotPosterior.Build(courses[i], model, settings);
-        }
+        For(withCurves, courses.Count, i => posts[i] = LotPosterior.Build(courses[i], model, settings));
 
         // The season shift. Each lot's log evidence is nearly quadratic in δ: three evaluations (δ = −τ, 0, τ) give its
         // slope and curvature, and with the N(0, τ²) prior a Gaussian approximation of δ's posterior. Seven
@@ -61,7 +61,7 @@ public static class SeasonForecaster
         double shiftSd = Math.Sqrt(deltas.Select((d, i) => (d - shift) * (d - shift) * shiftWeight[i]).Sum());
 
         var result = new LotForecast[courses.Count];
-        for (int j = 0; j < courses.Count; j++)
+        For(withCurves, courses.Count, j =>
         {
             var p = posts[j];
             var w = new double[p.Nodes];
@@ -88,9 +88,23 @@ public static class SeasonForecaster
 
             double nowHours = now is { } t ? p.Course.HoursOf(t) : LastHours(p.Course);
             result[j] = PosteriorSummary.Summarise(p, w, nowHours, shift, settings, withCurves);
-        }
+        });
 
         return (result, shift, shiftSd);
+    }
+
+    private static void For(bool sideBySide, int count, Action<int> body)
+    {
+        if (sideBySide)
+        {
+            Parallel.For(0, count, body);
+            return;
+        }
+
+        for (int i = 0; i < count; i++)
+        {
+            body(i);
+        }
     }
 
     /// <summary>The log posterior of δ on the given nodes (prior N(0, τ²), unnormalised) and each lot's log evidence at each node.</summary>

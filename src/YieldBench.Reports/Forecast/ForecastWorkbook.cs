@@ -20,6 +20,12 @@ public static class ForecastWorkbook
     public static ReportTable Lots(ForecastReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
+        return Lots(report.Lots);
+    }
+
+    /// <summary>The one-row-per-lot table of <paramref name="lots"/>.</summary>
+    internal static ReportTable Lots(IReadOnlyList<LotForecast> lots)
+    {
         static object? At(LotForecast f, double? hours) => hours is { } h && double.IsFinite(h) ? f.Course.At(h) : null;
         static double Num(double? v) => v is { } x && double.IsFinite(x) ? x : double.NaN;
         Column<LotForecast>[] columns =
@@ -48,7 +54,7 @@ public static class ForecastWorkbook
             new("basis", "Basis", CellKind.Text, f => f.OwnStrainPrior ? $"{f.StrainLots} past lots of the strain" : "pooled prior (strain not in the history)"),
             new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f).Select(s => s.Trim()))),
         ];
-        return ReportTable.Of(columns, report.Lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
+        return ReportTable.Of(columns, lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
     }
 
     /// <summary>The backtest table, with the per-season coverage.</summary>

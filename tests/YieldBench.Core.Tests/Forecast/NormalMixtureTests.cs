@@ -127,4 +127,41 @@ public class NormalMixtureTests
             Assert.InRange(x, m.Quantile(q - 1e-3) - 1e-9, m.Quantile(q + 1e-3) + 1e-9);
         }
     }
+
+    [Fact]
+    public void Compacting_drops_the_lightest_components_whose_weights_fit_the_share_and_a_plan_repeats_it()
+    {
+        // Given twelve components: ten of weight 1 and two light ones (0.004 and 0.007; total 10.011)
+        var m = new NormalMixture(12);
+        for (int i = 0; i < 12; i++)
+        {
+            m.Add(i, 1, i == 3 ? 0.004 : i == 8 ? 0.007 : 1);
+        }
+
+        // When the plan for a share of 0.1 % (budget 0.010011) is made
+        var plan = m.CompactPlan(1e-3);
+
+        // Then only the lightest fits the budget (0.004 + 0.007 would not): eleven stay, in their order, scaled by
+        // 10.011 / 10.007
+        Assert.NotNull(plan);
+        Assert.Equal(new[] { 0, 1, 2, 4, 5, 6, 7, 8, 9, 10, 11 }, plan!.Value.Keep);
+        Assert.Equal(10.011 / 10.007, plan.Value.Scale, 1e-15);
+
+        // And a mixture filled alike at another moment (means moved) and compacted by the plan is what Compact makes
+        var moved = new NormalMixture(12);
+        var again = new NormalMixture(12);
+        for (int i = 0; i < 12; i++)
+        {
+            moved.Add((2 * i) + 0.5, 1.5, i == 3 ? 0.004 : i == 8 ? 0.007 : 1);
+            again.Add((2 * i) + 0.5, 1.5, i == 3 ? 0.004 : i == 8 ? 0.007 : 1);
+        }
+
+        moved.Apply(plan.Value);
+        again.Compact(1e-3);
+        Assert.Equal(11, moved.Count);
+        foreach (double q in new[] { 0.1, 0.5, 0.9 })
+        {
+            Assert.Equal(again.Quantile(q), moved.Quantile(q));
+        }
+    }
 }
