@@ -116,6 +116,9 @@ public static class IntakeMessages
     internal static string MissingColumn(string field, IReadOnlyList<string> examples) =>
         $"The sheet has no column for {field}, which is required; none of its rows could be used. Add a column headed for example {string.Join(", ", examples.Select(e => "'" + e + "'"))}, or map one with --column {field}=HEADER.";
 
+    internal static string VesselAsLotId(string header) =>
+        $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
+
     internal static string MissingTimeColumn() =>
         "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";
 
@@ -149,6 +152,9 @@ public static class IntakeMessages
 
     internal static string ColumnInFahrenheit(double low, double high) =>
         $"The header says °C but the values ({Num(low)} to {Num(high)}) look like °F; they were converted from °F. Correct the header or the values.";
+
+    internal static string SeasonFromDate(int year) =>
+        $"No season for this row (no season value, no year in the sheet or file name, no --season); the inoculation date gives {year}, which was taken. Add a season column or pass --season YEAR if the vintage differs.";
 
     internal static string NoSeason() =>
         "No season for this row: no season value, no four-digit year in the sheet or file name, and no --season. Add a season column, put the year in the sheet or file name, or pass --season YEAR.";

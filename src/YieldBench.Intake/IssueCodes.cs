@@ -187,6 +187,9 @@ public static class IssueCodes
     /// <summary><c>no-season</c>.</summary>
     public const string NoSeason = "no-season";
 
+    /// <summary><c>season-from-date</c>.</summary>
+    public const string SeasonFromDate = "season-from-date";
+
     /// <summary><c>unknown-colour</c>.</summary>
     public const string UnknownColour = "unknown-colour";
 

@@ -73,13 +73,25 @@ public static class CourseFit
 
         double kappa = Math.Exp(logKappa);
         double sumSq = Projected(model, hours, brix, kappa, lag, out double s0, out double f);
-        if (!double.IsFinite(sumSq) || !(s0 > f))
+        if (!double.IsFinite(sumSq) || !(s0 > f) || !Plausible(s0, f, brix))
         {
             return null;
         }
 
         return new CurveFit(model, s0, f, kappa, lag, Math.Sqrt(sumSq / n), n);
     }
+
+    /// <summary>Most °Brix the fitted must may lie above the log's highest reading (a first reading taken a day late).</summary>
+    public const double MostStartAboveReadings = 8.0;
+
+    /// <summary>
+    /// A fit is kept only when its must and settling point are sugars a hydrometer reads (−6 to 50 °Brix, as
+    /// <see cref="Units.SugarReading"/>) and its must lies at most <see cref="MostStartAboveReadings"/> above the highest
+    /// reading. A log that falls in a straight line, or stops long before dry, can be fitted by a sigmoid whose must lies
+    /// far above anything measured (100 °Brix was seen): such a curve says nothing about the lot.
+    /// </summary>
+    private static bool Plausible(double s0, double f, double[] brix) =>
+        s0 <= Units.SugarReading.MaxBrix && f >= Units.SugarReading.MinBrix && s0 <= brix.Max() + MostStartAboveReadings;
 
     private static (double[] Hours, double[] Brix) Thinned(double[] hours, double[] brix, int most)
     {

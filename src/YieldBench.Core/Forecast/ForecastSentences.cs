@@ -115,7 +115,7 @@ public static class ForecastSentences
         string form = report.Form == Kinetics.SigmoidModel.Gompertz ? "modified Gompertz" : "modified logistic";
         var lines = new List<string>
         {
-            $"History: {report.PastLogs} past lots with a log; {m.LotsUsed} fitted ({report.PastLogsNotFitted} too short or flat to fit). Sugar course: the {form} curve of Zwietering et al. (1990), chosen because it fits the past logs better (median log ratio of residual sums of squares, Gompertz over logistic, {N(report.FormLogRatio, "0.00")}).",
+            $"History: {report.PastLogs} past lots with a log; {m.LotsUsed} fitted ({report.PastLogsNotFitted} too short, too flat, or not shaped like a fermentation curve, so left out). Sugar course: the {form} curve of Zwietering et al. (1990), chosen because it fits the past logs better (median log ratio of residual sums of squares, Gompertz over logistic, {N(report.FormLogRatio, "0.00")}).",
             $"Reading noise from the past logs: {N(m.SugarSd, "0.00")} °Brix (hand readings), {N(m.DenseSugarSd, "0.00")} °Brix (probe), {N(m.TempSd, "0.00")} °C. Season-to-season spread of the time scale: {Percent(m.SeasonSpread)}; {Percent(m.RateOutlierShare)} of past lots ran far from their strain and are allowed for.",
         };
         var spreads = new[] { ("red", "reds"), ("white", "whites and rosés") }

@@ -148,7 +148,9 @@ public static class Backtest
 /// The folds of one backtest scheme over a set of lots, in ascending fold order: for each fold the lots it trains on
 /// (in input order), the indices of the lots it predicts and their prediction inputs. Folds of the grouped schemes
 /// (by season, ten folds) are built once on first use and kept, so candidates sharing them do not rebuild them;
-/// leave-one-lot-out folds are built on demand (keeping n copies of n − 1 lots would cost n² memory). Thread-safe.
+/// leave-one-lot-out folds are built on demand (keeping n copies of n − 1 lots would cost n² memory). A fold that
+/// would train on more than <see cref="MaximumTrainingLots"/> lots trains on a seeded sample of that many
+/// (<see cref="TrainingSample"/>); every lot is still held out and predicted once. Thread-safe.
 /// </summary>
 public sealed class BacktestFolds
 {
@@ -157,12 +159,16 @@ public sealed class BacktestFolds
     private readonly Lazy<(LotConversion[] Train, int[] Test, PredictionInput[] Inputs)>[]? kept;
     private readonly Lazy<PredictionInput[]> inputs;
     private readonly Lazy<LotKey[]> keys;
+    private readonly int maximumTrainingLots;
+    private readonly int seed;
 
-    private BacktestFolds(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int[] foldOf)
+    private BacktestFolds(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int[] foldOf, int maximumTrainingLots, int seed)
     {
         Lots = lots;
         Scheme = scheme;
         this.foldOf = foldOf;
+        this.maximumTrainingLots = maximumTrainingLots;
+        this.seed = seed;
         foldIds = scheme == BacktestScheme.LeaveOneLotOut ? foldOf : foldOf.Distinct().Order().ToArray();
         inputs = new Lazy<PredictionInput[]>(() => lots.Select(PredictionInput.From).ToArray());
         keys = new Lazy<LotKey[]>(() => lots.Select(l => l.Lot.Key).ToArray());
@@ -171,6 +177,16 @@ public sealed class BacktestFolds
             kept = foldIds.Select(id => new Lazy<(LotConversion[], int[], PredictionInput[])>(() => Build(id))).ToArray();
         }
     }
+
+    /// <summary>
+    /// Most lots a fold trains on; a fold with more trains on a seeded sample of this many, in input order (the same
+    /// size and sampling as the coverage check's inner analyses, <see cref="SeasonCoverage.MaximumInnerLots"/>). The
+    /// candidates are lines and medians of a few parameters each, estimated to within a few thousandths of % v/v from
+    /// 20,000 lots, while their training time grows with every lot (at 100,000 lots the two main analyses' folds were
+    /// most of the house factor's time). Histories of up to about 22,000 lots are not sampled at all (the largest fold
+    /// trains on all lots but one season or one tenth).
+    /// </summary>
+    public const int MaximumTrainingLots = SeasonCoverage.MaximumInnerLots;
 
     /// <summary>The lots, in input order.</summary>
     public IReadOnlyList<LotConversion> Lots { get; }
@@ -185,13 +201,18 @@ public sealed class BacktestFolds
     internal IReadOnlyList<LotKey> Keys => keys.Value;
 
     /// <summary>Deals the lots into the folds of <paramref name="scheme"/> (ten folds by a shuffle seeded with <paramref name="seed"/>).</summary>
-    public static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)
+    public static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed) =>
+        Of(lots, scheme, seed, MaximumTrainingLots);
+
+    /// <summary>As <see cref="Of(IReadOnlyList{LotConversion}, BacktestScheme, int)"/> with another cap on the lots a fold trains on.</summary>
+    internal static BacktestFolds Of(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed, int maximumTrainingLots)
     {
         ArgumentNullException.ThrowIfNull(lots);
-        return new BacktestFolds(lots, scheme, FoldsOf(lots, scheme, seed));
+        ArgumentOutOfRangeException.ThrowIfLessThan(maximumTrainingLots, 1);
+        return new BacktestFolds(lots, scheme, FoldsOf(lots, scheme, seed), maximumTrainingLots, seed);
     }
 
-    /// <summary>The <paramref name="index"/>-th fold (ascending fold id): training lots, held-out indices and their inputs.</summary>
+    /// <summary>The <paramref name="index"/>-th fold (ascending fold id): training lots (sampled above <see cref="MaximumTrainingLots"/>), held-out indices and their inputs.</summary>
     public (IReadOnlyList<LotConversion> Train, int[] Test, IReadOnlyList<PredictionInput> Inputs) Fold(int index)
     {
         var fold = kept is null ? Build(foldIds[index]) : kept[index].Value;
@@ -227,7 +248,7 @@ public sealed class BacktestFolds
             }
         }
 
-        return (train, test, testInputs);
+        return (train.Length > maximumTrainingLots ? [.. TrainingSample.Of(train, maximumTrainingLots, seed)] : train, test, testInputs);
     }
 
     private static int[] FoldsOf(IReadOnlyList<LotConversion> lots, BacktestScheme scheme, int seed)

@@ -213,6 +213,9 @@ public static class HouseFactorAnalysis
             explanation.Add(SeasonCoverage.Sentence(measured));
         }
 
+        // Every candidate is scored and every choice made: only the recommended candidate's held-out predictions are
+        // read from here on (the predicted-against-actual chart). At 100,000 lots the others' held some 100 MB.
+        var kept = results.Select(r => r.Id == overall!.CandidateId ? r : r with { HeldOut = [] }).ToArray();
         return new HouseFactorReview
         {
             Regime = settings.Regime,
@@ -220,7 +223,7 @@ public static class HouseFactorAnalysis
             LotsUsed = usable.Count,
             Seasons = seasons,
             PrimaryScheme = primaryScheme,
-            Candidates = results,
+            Candidates = kept,
             Overall = overall,
             ByStrain = byStrain,
             Planning = planning,

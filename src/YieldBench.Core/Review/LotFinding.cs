@@ -114,7 +114,7 @@ public static class LotFindings
         double abv = lot.Lot.FinalAlcohol.PercentVolume;
         if (symptoms.FirstOrDefault(f => f.Code == FlagCodes.OffStrainLine) is { } line)
         {
-            parts.Add(Invariant($"made {abv:0.00} % v/v from {lot.EffectiveStartingBrix:0.0} °Brix, {Math.Abs(abv - line.ReferenceMedian):0.00} % v/v {(abv < line.ReferenceMedian ? "less" : "more")} than its strain's line gives ({line.ReferenceMedian:0.00} % v/v)"));
+            parts.Add(Invariant($"made {abv:0.00} % v/v from {lot.EffectiveStartingBrix:0.0} °Brix, {Math.Abs(abv - line.ReferenceMedian):0.00} % v/v {(abv < line.ReferenceMedian ? "less" : "more")} than {(line.ReferenceGroup.StartsWith("strain ", StringComparison.Ordinal) ? "its strain's line" : "the line of all finished lots")} gives ({line.ReferenceMedian:0.00} % v/v)"));
         }
         else if (symptoms.FirstOrDefault() is { } s)
         {

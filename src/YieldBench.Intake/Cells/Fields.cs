@@ -56,6 +56,9 @@ internal static class Fields
         "fermentation id", "fermentation lot", "lot label", "code", "los", "partie",
     ];
 
+    // In a fermentation log the tank a reading was taken from is how the cellar names the lot (a log has no vessel field).
+    private static readonly string[] LogTankWords = ["tank", "tank no", "tank nr", "tank number", "tank id", "vessel", "vessel id", "fermenter", "fermentor", "cuve", "behalter"];
+
     private static readonly string[] SeasonWords =
     [
         "season", "vintage", "year", "harvest", "harvest year", "vintage year", "crop year", "crush year", "season year", "millesime", "jahrgang",
@@ -165,7 +168,7 @@ internal static class Fields
 
     private static List<FieldDef> BuildLogFields() =>
     [
-        new("lot_id", TableKind.Log, FieldKind.Text, false, "", null, null, "Lot", "Lot the reading belongs to (leave out on a sheet named after the lot).", "R23-014", LotIdWords),
+        new("lot_id", TableKind.Log, FieldKind.Text, false, "", null, null, "Lot", "Lot the reading belongs to (leave out on a sheet named after the lot); in a log, the tank a reading was taken from names its lot.", "R23-014", [.. LotIdWords, .. LogTankWords]),
         new("season", TableKind.Log, FieldKind.Season, false, "", 1900, 2100, "Season", "Season (vintage year); may be left empty when the sheet or file name holds it.", "2024", SeasonWords),
         new("timestamp", TableKind.Log, FieldKind.DateTime, false, "", null, null, "Timestamp", "Date and time of the reading (or use separate date and time columns).", "2024-03-04 08:30",
             ["timestamp", "time stamp", "date time", "datetime", "date and time", "reading time", "measured at", "logged at", "sampled at", "when"]),

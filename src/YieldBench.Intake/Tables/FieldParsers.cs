@@ -148,6 +148,15 @@ internal static class FieldParsers
             return def;
         }
 
+        if (ctx.Kind == TableKind.Lots && InoculationYear(st) is { } year)
+        {
+            // The vintage is the year the grapes were picked, which is the year the must was inoculated in either
+            // hemisphere (common practice); said in a warning so a different vintage can be given.
+            var inoc = ctx.Column("inoculation_date")!;
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, st.SheetRow, inoc.Header, CellValues.Text(ctx.Sheet.Cell(st.Row, inoc.Index)), IssueCodes.SeasonFromDate, IntakeMessages.SeasonFromDate(year));
+            return year;
+        }
+
         if (ctx.Kind == TableKind.Lots)
         {
             st.Bad = true;
@@ -155,6 +164,19 @@ internal static class FieldParsers
         }
 
         return null;
+    }
+
+    /// <summary>The year of the row's inoculation date when it reads as a date without doubt (nothing is reported here).</summary>
+    private static int? InoculationYear(RowState st)
+    {
+        if (st.Ctx.Column("inoculation_date") is not { } c)
+        {
+            return null;
+        }
+
+        object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        object? dateCell = cell is string text && CellValues.WithoutZone(text) is { } local ? local : cell;
+        return CellValues.Date(dateCell, c.DateOrder, out var value, out _, out _) == CellProblem.None && value.Year is >= 1900 and <= 2100 ? value.Year : null;
     }
 
     internal static bool NumberCell(RowState st, BoundColumn c, out double value)

@@ -22,7 +22,14 @@ internal static class LotRows
         foreach (var m in missing)
         {
             var f = Fields.Lot(m);
-            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingColumn(m, [f.TemplateHeader, .. f.Synonyms.Take(2)]));
+            string message = IntakeMessages.MissingColumn(m, [f.TemplateHeader, .. f.Synonyms.Take(2)]);
+            if (m == "lot_id" && ctx.Column("vessel") is { } vessel)
+            {
+                // Cellars that name each lot by its tank: the tank column was read as the vessel.
+                message += IntakeMessages.VesselAsLotId(vessel.Header);
+            }
+
+            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, message);
         }
 
         var rowState = new RowState(ctx);

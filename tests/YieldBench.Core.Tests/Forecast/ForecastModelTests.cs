@@ -52,6 +52,28 @@ public class ForecastModelTests
         Assert.InRange(fit.Rmse, 0.08, 0.22);
     }
 
+    [Theory]
+    [InlineData(SigmoidModel.Gompertz)]
+    [InlineData(SigmoidModel.Logistic)]
+    public void A_log_that_falls_in_a_straight_line_gets_no_curve_whose_must_lies_far_above_its_readings(SigmoidModel model)
+    {
+        // Given a log read twice a day for 7 days that falls nearly in a straight line from 24.6 to 3.1 °Brix and stops
+        // there (a cellar's log of 2025; such a log once gave a fitted must of 101 °Brix, which stopped the forecast)
+        double[] hours = Enumerable.Range(0, 14).Select(k => 12.0 * k).ToArray();
+        double[] brix = [24.6, 24.1, 22.9, 21.2, 19.6, 17.9, 16.2, 14.6, 12.9, 11.1, 9.4, 7.8, 5.2, 3.1];
+
+        // When it is fitted
+        var fit = CourseFit.Fit(model, hours, brix);
+
+        // Then there is no fit, or one whose must lies within 8 °Brix of the highest reading and whose settling point a
+        // hydrometer can read
+        if (fit is not null)
+        {
+            Assert.InRange(fit.StartBrix, 20, 24.6 + CourseFit.MostStartAboveReadings);
+            Assert.True(fit.FinalBrix >= -6, $"settling point {fit.FinalBrix}");
+        }
+    }
+
     [Fact]
     public void The_model_learns_each_strains_rate_and_the_history_prefers_the_form_that_made_it()
     {

@@ -96,6 +96,39 @@ public class BacktestTests
         Assert.All(heldBy, n => Assert.Equal(1, n));
     }
 
+    [Theory]
+    [InlineData(BacktestScheme.TenFoldByLot)]
+    [InlineData(BacktestScheme.LeaveOneSeasonOut)]
+    public void A_fold_with_more_training_lots_than_the_cap_trains_on_a_seeded_sample_and_still_predicts_every_lot(BacktestScheme scheme)
+    {
+        // Given three seeded seasons of 60 lots, and folds capped at 25 training lots
+        var lots = SyntheticLots.Seasons(5, SameStrains, seasons: 3, lotsPerStrainPerSeason: 5, noiseSd: 0.15);
+        var capped = BacktestFolds.Of(lots, scheme, 3, maximumTrainingLots: 25);
+        var again = BacktestFolds.Of(lots, scheme, 3, maximumTrainingLots: 25);
+        var full = BacktestFolds.Of(lots, scheme, 3);
+
+        for (int f = 0; f < capped.Count; f++)
+        {
+            var (train, test, _) = capped.Fold(f);
+            var (fullTrain, fullTest, _) = full.Fold(f);
+
+            // Then each fold trains on 25 distinct lots of its own full training set, in input order, never on a lot it predicts
+            Assert.Equal(25, train.Count);
+            Assert.Equal(25, train.Distinct().Count());
+            Assert.All(train, l => Assert.Contains(l, fullTrain));
+            var positions = train.Select(l => lots.ToList().IndexOf(l)).ToArray();
+            Assert.Equal(positions.Order().ToArray(), positions);
+            Assert.DoesNotContain(positions, test.Contains);
+
+            // And the held-out lots are those of the uncapped fold, and the sample is the same every time
+            Assert.Equal(fullTest, test);
+            Assert.Equal(train, again.Fold(f).Train);
+        }
+
+        // And below the default cap (20,000) nothing is sampled: a fold trains on all lots outside it
+        Assert.Equal(lots.Count - full.Fold(0).Test.Length, full.Fold(0).Train.Count);
+    }
+
     [Fact]
     public void Shared_folds_give_the_same_predictions_as_folds_dealt_for_one_candidate()
     {

@@ -47,7 +47,10 @@ public class FlaggedLotsTests
         Assert.Contains("30.0 g/L residual sugar", review.FlaggedLots[1].Reason, StringComparison.Ordinal);
         Assert.False(review.FlaggedLotsIncluded);
         Assert.Equal(lots.Count - 2, review.LotsUsed);
-        Assert.All(review.Candidates, c => Assert.DoesNotContain(c.HeldOut, p => p.LotKey.ToString() is "2022/BAD-1" or "2023/SWEET-1"));
+        Assert.All(review.Candidates, c => Assert.Equal(lots.Count - 2, c.Primary.Lots));
+        var chosen = review.Candidates.Single(c => c.Id == review.Overall!.CandidateId);
+        Assert.Equal(lots.Count - 2, chosen.HeldOut.Count);
+        Assert.DoesNotContain(chosen.HeldOut, p => p.LotKey.ToString() is "2022/BAD-1" or "2023/SWEET-1");
         Assert.Contains(review.Explanation, s => s.Contains("left out of training, selection and intervals", StringComparison.Ordinal) && s.Contains("2022/BAD-1", StringComparison.Ordinal));
         var other = review.OtherVersion!;
         Assert.True(other.FlaggedLotsIncluded);

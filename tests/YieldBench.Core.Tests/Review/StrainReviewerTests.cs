@@ -401,4 +401,17 @@ public class StrainReviewerTests
         Assert.Equal("R-14", flag.LotId);
         Assert.Equal(13.912121212121214, flag.ReferenceMedian, 9);
     }
+    [Fact]
+    public void Three_lots_are_too_few_for_a_line_to_judge_them_against()
+    {
+        // Given a cellar's first three lots (two strains, 24–25 °Brix, ordinary alcohols)
+        double[] brix = [24.4, 23.7, 25.2];
+        double[] abv = [14.2, 13.9, 14.9];
+        var lots = brix.Select((b, i) => LotBuilder.Convert(LotBuilder.Lot($"A{i + 1}", 2025, i == 2 ? "QX-2" : "QX-7", b, abv[i]))).ToArray();
+
+        // When the strain review judges them / Then no lot is put off a line (a robust scale of three residuals says
+        // nothing: before, A1 was "0.14 % v/v less than its strain's line" at 14 scales)
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+        Assert.DoesNotContain(review.Flags, f => f.Code == FlagCodes.OffStrainLine);
+    }
 }

@@ -150,7 +150,9 @@ internal static class OddLots
         }
 
         // Fitted only when a strain needs it (one with too few finished lots): at 100,000 lots it is the largest fit here.
-        var pooled = new Lazy<StrainLine?>(() => finished.Length >= 2 ? Fit("all finished lots (pooled line)", finished) : null);
+        // The pooled line needs as many finished lots as a strain's own: a robust residual scale from three lots
+        // would put ordinary lots "off the line".
+        var pooled = new Lazy<StrainLine?>(() => finished.Length >= settings.MinLotsForStrainLine ? Fit("all finished lots (pooled line)", finished) : null);
         var byStrain = finished.GroupBy(l => l.Strain, StringComparer.Ordinal)
             .Where(g => g.Count() >= settings.MinLotsForStrainLine)
             .ToDictionary(g => g.Key, g => Fit("strain " + g.Key, g.ToArray()), StringComparer.Ordinal);

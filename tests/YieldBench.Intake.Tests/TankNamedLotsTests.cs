@@ -1,0 +1,55 @@
+using YieldBench.Core.Lots;
+
+namespace YieldBench.Intake.Tests;
+
+/// <summary>Cellars that know a lot by its tank, and lots whose season only their inoculation date gives.</summary>
+public class TankNamedLotsTests
+{
+    [Fact]
+    public void A_logs_tank_column_names_the_lot_of_each_reading()
+    {
+        // Given a log of two tanks in one sheet, the tank in a column headed "Tank" (a log has no vessel field)
+        using var folder = new TestFolder();
+        folder.Text("log.csv", "Tank,Date,Time,Brix,Temp F\nR1,2026-09-14,08:00,24.6,64\nR1,2026-09-14,20:00,24.1,66\nR2,2026-09-15,18:00,25.8,66\n");
+
+        // When it is read
+        var set = folder.Read("log.csv");
+
+        // Then each tank's readings are that lot's log (before, the column was not used and both tanks' readings were
+        // one log named after the file)
+        Assert.Equal(["R1", "R2"], set.Logs.Select(l => l.LotId).Order());
+        Assert.Equal(2, set.Logs.Single(l => l.LotId == "R1").Readings.Count);
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
+    }
+
+    [Fact]
+    public void A_lots_table_without_a_lot_column_but_with_a_tank_column_says_how_to_map_it()
+    {
+        // Given lots known by their tank, whose only identifier is the column "Tank" (read as the vessel)
+        using var folder = new TestFolder();
+        folder.Text("lots 2025.csv", "Tank,Yeast,Brix,Alc\nR1,ZR-3,24.6,14.4\n");
+
+        // When it is read / Then the missing lot id says which column to map, with the exact option
+        var set = folder.Read("lots 2025.csv");
+        var missing = Assert.Single(set.Issues, i => i.Code == IssueCodes.MissingColumn);
+        Assert.Contains("--column lot_id=\"Tank\"", missing.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_lot_with_no_season_anywhere_takes_the_year_of_its_inoculation_date_with_a_warning()
+    {
+        // Given lots with no season column, no year in the file name, no --season, but an inoculation date
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", "Lot,Yeast,Brix,Alc,Inoculated\nA1,ZR-3,24.6,14.4,2025-09-14\nA2,ZR-3,24.0,14.0,\n");
+
+        // When it is read
+        var set = folder.Read("lots.csv");
+
+        // Then A1 is of season 2025, said in a warning naming its row and date; A2, with no date, is still no-season
+        var a1 = Assert.Single(set.Lots);
+        Assert.Equal(("A1", 2025), (a1.LotId, a1.Season));
+        var warning = Assert.Single(set.Issues, i => i.Code == IssueCodes.SeasonFromDate);
+        Assert.Equal((IssueSeverity.Warning, 2, "Inoculated"), (warning.Severity, warning.Row!.Value, warning.Column));
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.NoSeason && i.Row == 3);
+    }
+}
