@@ -258,6 +258,24 @@ public sealed class PlanCommandTests : IDisposable
         Assert.Contains($"Warning: 29.0 °Brix is outside the {review.Planning!.HistoryLowBrix.ToString("0.0", CultureInfo.InvariantCulture)}–{review.Planning.HistoryHighBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix of the lots the house factor learned from, so the prediction extrapolates", high.Out, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("1.104", "1.104 looks like a specific gravity: add --scale sg.")]
+    [InlineData("92", "92 looks like °Oechsle: add --scale oechsle.")]
+    [InlineData("245", "245 looks like sugar in g/L: add --scale gl.")]
+    [InlineData("5", "check the reading and that --scale names its scale.")]
+    public void A_sugar_given_in_another_scale_than_brix_is_refused_with_the_scale_it_looks_like(string sugar, string hint)
+    {
+        // Given a house-factor file / When --sugar is given a value of another scale without --scale (the bands intake
+        // reads an unlabelled starting sugar by: SG 0.95–1.3, °Oechsle 45–145, g/L above 145)
+        var (_, path) = FactorFile();
+        var run = Plan("--factor-file", path, "--sugar", sugar);
+
+        // Then it exits 2 naming the likely scale and the option that says it (a value that looks like none keeps the
+        // general advice)
+        Assert.Equal(2, run.Code);
+        Assert.Contains(hint, run.Err, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void A_juice_already_under_the_target_needs_no_water_and_a_pomace_share_leaves_the_skins_out_of_the_balance()
     {

@@ -146,7 +146,16 @@ internal static class PlanCommand
                     ? $"{F(Planner.LowestMustBrix, "0")}–{F(Planner.HighestMustBrix, "0")} °Brix"
                     : $"{ScaleValue(Planner.LowestMustBrix, scale.Scale)}–{ScaleValue(Planner.HighestMustBrix, scale.Scale)} {scale.Unit} ({F(Planner.LowestMustBrix, "0")}–{F(Planner.HighestMustBrix, "0")} °Brix)";
                 string was = reading is { } x && scale.Scale != SugarScale.Brix ? $" (= {F(x.Brix, "0.0#")} °Brix)" : string.Empty;
-                err.WriteLine($"plan: --sugar {r.Sugar} {scale.Unit}{was} is outside {range}, the range of a must's starting sugar; check the reading and that --scale names its scale.");
+                // The value bands intake reads an unlabelled starting sugar by (docs/input-format.md, Units).
+                string? likely = (scale.Scale, s) switch
+                {
+                    (not SugarScale.SpecificGravity, >= 0.95 and < 1.3) => "a specific gravity: add --scale sg",
+                    (not SugarScale.Oechsle, > 45 and <= 145) => "°Oechsle: add --scale oechsle",
+                    (not SugarScale.GramsPerLitre, > 145 and <= 400) => "sugar in g/L: add --scale gl",
+                    _ => null,
+                };
+                string hint = likely is null ? "check the reading and that --scale names its scale" : $"{r.Sugar} looks like {likely}";
+                err.WriteLine($"plan: --sugar {r.Sugar} {scale.Unit}{was} is outside {range}, the range of a must's starting sugar; {hint}.");
                 return ExitCodes.Usage;
             }
 

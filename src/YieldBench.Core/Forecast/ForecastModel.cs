@@ -86,6 +86,19 @@ public sealed partial class ForecastModel
     /// </summary>
     public (double Vmm, double Vml, double Vll) Within { get; private init; }
 
+    /// <summary>
+    /// <see cref="Within"/> learnt from each colour's lots apart (whites and rosés scatter otherwise than reds), for a
+    /// colour with at least <see cref="MinColourLots"/> kept lots.
+    /// </summary>
+    public IReadOnlyDictionary<string, (double Vmm, double Vml, double Vll)> WithinByColour { get; private init; } = new Dictionary<string, (double, double, double)>();
+
+    /// <summary>Fewest kept lots of a colour for a scatter of its own (our definition).</summary>
+    public const int MinColourLots = 10;
+
+    /// <summary>The within-season scatter of the lot's colour (all lots' when the colour has too few).</summary>
+    public (double Vmm, double Vml, double Vll) WithinFor(LotCourse course) =>
+        WithinByColour.TryGetValue(BucketOf(course), out var w) ? w : Within;
+
     /// <summary>Least lag, h, that the lag's relative scatter is scaled by (our definition: about a third of a reading interval).</summary>
     public const double MinLagScale = 4.0;
 
@@ -286,6 +299,7 @@ public sealed partial class ForecastModel
         var seasons = fitted.Select((p, i) => (p.Course.Season, i)).GroupBy(x => x.Season).OrderBy(g => g.Key).ToArray();
         var shifts = new Dictionary<int, double>();
         (double, double, double) within = (0, 0, 0);
+        var byColour = new Dictionary<string, (double, double, double)>(StringComparer.Ordinal);
         double Predict(double[] beta, double[] x) => x.Select((v, i) => v * beta[i]).Sum();
         for (int pass = 0; pass < 3; pass++)
         {
@@ -321,9 +335,32 @@ public sealed partial class ForecastModel
             int dof = Math.Max(1, idx.Length - p0 - 2 - seasons.Length);
             double trim = pass == 0 ? 1.0 : 0.9535;
             within = (sMm / dof / trim, sMl / dof / trim, sLl / dof / trim);
-            var g2 = new Gaussian2(0, 0, within.Item1, within.Item2, within.Item3);
+
+            // Per colour: the same sums over the colour's kept lots, with the colour's share of the degrees of freedom.
+            byColour.Clear();
+            foreach (var bucket in new[] { "red", "white" })
+            {
+                double bMm = 0, bMl = 0, bLl = 0;
+                int nb = 0;
+                for (int i = 0; i < fitted.Length; i++)
+                {
+                    if (keep[i] && Bucket(fitted[i].Course) == bucket)
+                    {
+                        (bMm, bMl, bLl, nb) = (bMm + (centred[i].A * centred[i].A), bMl + (centred[i].A * centred[i].B), bLl + (centred[i].B * centred[i].B), nb + 1);
+                    }
+                }
+
+                if (nb >= MinColourLots)
+                {
+                    double bDof = Math.Max(1.0, nb * (double)dof / idx.Length);
+                    byColour[bucket] = (bMm / bDof / trim, bMl / bDof / trim, bLl / bDof / trim);
+                }
+            }
+
             for (int i = 0; i < fitted.Length; i++)
             {
+                var w2 = byColour.TryGetValue(Bucket(fitted[i].Course), out var own) ? own : within;
+                var g2 = new Gaussian2(0, 0, w2.Item1, w2.Item2, w2.Item3);
                 double det = (g2.Vaa * g2.Vbb) - (g2.Vab * g2.Vab);
                 double d2 = ((g2.Vbb * centred[i].A * centred[i].A) - (2 * g2.Vab * centred[i].A * centred[i].B) + (g2.Vaa * centred[i].B * centred[i].B)) / det;
                 keep[i] = d2 <= 9.21;
@@ -394,6 +431,7 @@ public sealed partial class ForecastModel
             RateTemperatureSlope = betaMu[p0],
             RateNitrogenSlope = useYan ? betaMu[p0 + 1] : 0,
             Within = within,
+            WithinByColour = byColour.ToDictionary(kv => kv.Key, kv => (kv.Value.Item1, kv.Value.Item2, kv.Value.Item3), StringComparer.Ordinal),
             RateOutlierShare = (rateOutliers + 1.0) / (fitted.Length + 2.0),
             FirstReadingDelay = firstDelay,
             TempDelay = temp.Delay,
@@ -505,7 +543,8 @@ public sealed partial class ForecastModel
 
         // The lots' scatter, its lag part in proportion to the lot's prior lag.
         double scale = LagScale(lag);
-        double vmm = Within.Vmm * (1 + fShare), vml = Within.Vml * scale * (1 + fShare), vll = Within.Vll * scale * scale * (1 + fShare);
+        var within = WithinFor(course);
+        double vmm = within.Vmm * (1 + fShare), vml = within.Vml * scale * (1 + fShare), vll = within.Vll * scale * scale * (1 + fShare);
         if (!own)
         {
             vmm += _between.Vmm;

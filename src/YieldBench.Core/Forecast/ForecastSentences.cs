@@ -118,6 +118,15 @@ public static class ForecastSentences
             $"History: {report.PastLogs} past lots with a log; {m.LotsUsed} fitted ({report.PastLogsNotFitted} too short, too flat, or not shaped like a fermentation curve, so left out). Sugar course: the {form} curve of Zwietering et al. (1990), chosen because it fits the past logs better (median log ratio of residual sums of squares, Gompertz over logistic, {N(report.FormLogRatio, "0.00")}).",
             $"Reading noise from the past logs: {N(m.SugarSd, "0.00")} °Brix (hand readings), {N(m.DenseSugarSd, "0.00")} °Brix (probe), {N(m.TempSd, "0.00")} °C. Season-to-season spread of the time scale: {Percent(m.SeasonSpread)}; {Percent(m.RateOutlierShare)} of past lots ran far from their strain and are allowed for.",
         };
+        var spreads = new[] { ("red", "reds"), ("white", "whites and rosés") }
+            .Where(x => m.WithinByColour.ContainsKey(x.Item1))
+            .Select(x => $"{x.Item2} {Percent(Math.Sqrt(m.WithinByColour[x.Item1].Vmm))} in maximum rate and {Percent(Math.Sqrt(m.WithinByColour[x.Item1].Vll))} of the lag")
+            .ToArray();
+        if (spreads.Length > 0)
+        {
+            lines.Add($"Lot-to-lot spread within a strain and season, learnt per colour: {string.Join("; ", spreads)}.");
+        }
+
         foreach (var (season, (mean, sd)) in report.SeasonShifts.OrderBy(kv => kv.Key))
         {
             string pace = Math.Abs(mean) < 0.005 ? "at the history's usual pace" : mean > 0 ? $"about {Percent(Math.Exp(mean) - 1)} faster than the history" : $"about {Percent(1 - Math.Exp(mean))} slower than the history";

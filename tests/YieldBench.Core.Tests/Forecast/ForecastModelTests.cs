@@ -104,6 +104,27 @@ public class ForecastModelTests
     }
 
     [Fact]
+    public void Each_colour_gets_the_lot_to_lot_rate_scatter_of_its_own_lots()
+    {
+        // Given four seasons of a synthetic cellar whose whites scatter by 25 % in log rate and reds by 10 %
+        var cellar = new SyntheticCellar(5) { RateSd = 0.10, WhiteRateSd = 0.25 };
+        var (lots, logs, _, _) = cellar.History(2020, 4, 36);
+        var past = LotCourses.FromHistory(lots, logs).Select(c => LoggedEvents.Read(c, Settings)).ToArray();
+
+        // When the model is trained
+        var model = ForecastModel.Train(past, SigmoidModel.Gompertz, Settings);
+
+        // Then each colour's scatter of log μm is near its own (48 whites, 96 reds: the sd of an sd estimate is
+        // about sd/√(2n), 0.026 and 0.007), the pooled one between them, and a white lot's prior is the wider
+        var white = past.First(p => p.Course.Colour == WineColour.White).Course;
+        var red = past.First(p => p.Course.Colour == WineColour.Red).Course;
+        Assert.InRange(Math.Sqrt(model.WithinFor(white).Vmm), 0.19, 0.31);
+        Assert.InRange(Math.Sqrt(model.WithinFor(red).Vmm), 0.08, 0.125);
+        Assert.InRange(Math.Sqrt(model.Within.Vmm), Math.Sqrt(model.WithinFor(red).Vmm), Math.Sqrt(model.WithinFor(white).Vmm));
+        Assert.True(model.RatePriorFor(white).Vmm > 2 * model.RatePriorFor(red).Vmm);
+    }
+
+    [Fact]
     public void The_interval_narrows_as_readings_arrive()
     {
         // Given the history and one new lot of a known strain

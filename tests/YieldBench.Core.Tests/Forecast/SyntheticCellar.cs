@@ -23,6 +23,9 @@ internal sealed class SyntheticCellar(int seed)
 
     public double RateSd { get; init; } = 0.12;
 
+    /// <summary>Lot scatter of the whites' log rate (null: <see cref="RateSd"/>, as the reds').</summary>
+    public double? WhiteRateSd { get; init; }
+
     public double LagSd { get; init; } = 3.0;
 
     public double SeasonSd { get; init; } = 0.10;
@@ -54,7 +57,7 @@ internal sealed class SyntheticCellar(int seed)
                 var truth = new Truth(
                     24 + Normal(),
                     -1.8 + (0.2 * Normal()),
-                    rate * Math.Exp((RateSd * Normal()) + shift),
+                    rate * Math.Exp((((colour == WineColour.White ? WhiteRateSd : null) ?? RateSd) * Normal()) + shift),
                     lag * Math.Exp(-shift) + (LagSd * Normal()),
                     (colour == WineColour.White ? 13 : 19) + (0.8 * Normal()),
                     peak + Normal());
