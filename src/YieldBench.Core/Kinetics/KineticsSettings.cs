@@ -18,6 +18,12 @@ public sealed record KineticsSettings
     /// <summary>Default settings.</summary>
     public static KineticsSettings Default { get; } = new();
 
+    /// <summary>
+    /// The unit temperatures are written in inside the findings' sentences (°C by default; the review's --fahrenheit
+    /// sets °F). Every value the analysis computes stays in °C.
+    /// </summary>
+    public Units.TemperatureUnit SentenceUnit { get; init; } = Units.TemperatureUnit.Celsius;
+
     /// <summary>°Brix at or below which a lot counts as dry on the hydrometer (default 0 °Brix, as the brief of the tool sets).</summary>
     public double DryBrix { get; init; }
 

@@ -351,11 +351,11 @@ internal static class LotAnalysis
         double aboveDanger = KineticsAnalysis.HoursAbove(tH, tC, th.DangerC);
         if (peak > th.DangerC)
         {
-            cx.Report(KineticsCodes.AboveDangerTemp, $"Lot {cx.Key} reached {F(peak!.Value)} °C at {Stamp(peakAt!.Value)}, above the danger threshold of {F(th.DangerC)} °C, for about {F(aboveDanger)} h; yeast die near this temperature and the ferment may stop.", peakSource);
+            cx.Report(KineticsCodes.AboveDangerTemp, $"Lot {cx.Key} reached {T(cx, peak!.Value)} at {Stamp(peakAt!.Value)}, above the danger threshold of {T(cx, th.DangerC)}, for about {F(aboveDanger)} h; yeast die near this temperature and the ferment may stop.", peakSource);
         }
         else if (peak > th.CautionC)
         {
-            cx.Report(KineticsCodes.AboveCautionTemp, $"Lot {cx.Key} reached {F(peak!.Value)} °C at {Stamp(peakAt!.Value)}, above the caution threshold of {F(th.CautionC)} °C, for about {F(aboveCaution)} h.", peakSource);
+            cx.Report(KineticsCodes.AboveCautionTemp, $"Lot {cx.Key} reached {T(cx, peak!.Value)} at {Stamp(peakAt!.Value)}, above the caution threshold of {T(cx, th.CautionC)}, for about {F(aboveCaution)} h.", peakSource);
         }
 
         return new Exposure(peak, peakAt, aboveCaution, aboveDanger);
@@ -435,8 +435,8 @@ internal static class LotAnalysis
             // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
             // reminder of the cooling the lot depended on, not a sign that something went wrong.
             var hot = heat[hotIndex];
-            string observed = peak is { } pk ? $" The logged peak was {F(pk)} °C, so about {F(removed!.Value)} K of the potential was removed by the vessel, cap management and cooling." : string.Empty;
-            cx.Report(KineticsCodes.HeatPotentialAboveDanger, $"Lot {cx.Key}: at {F(hot.Brix)} °Brix and {F(hot.TemperatureC)} °C this lot could have reached {F(hot.PotentialTemperatureC)} °C without cooling ({Stamp(hot.Time)}; {hotReadings} reading(s) above the {F(th.DangerC)} °C danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source, flag: false);
+            string observed = peak is { } pk ? $" The logged peak was {T(cx, pk)}, so about {Rise(cx, removed!.Value)} of the potential was removed by the vessel, cap management and cooling." : string.Empty;
+            cx.Report(KineticsCodes.HeatPotentialAboveDanger, $"Lot {cx.Key}: at {F(hot.Brix)} °Brix and {T(cx, hot.TemperatureC)} this lot could have reached {T(cx, hot.PotentialTemperatureC)} without cooling ({Stamp(hot.Time)}; {hotReadings} reading(s) above the {T(cx, th.DangerC)} danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source, flag: false);
         }
 
         return new HeatResult(heat, potentialPeak, removed, hotReadings);
@@ -445,4 +445,11 @@ internal static class LotAnalysis
     private static string Stamp(DateTime t) => t.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture);
 
     private static string F(double v, string format = "0.0") => v.ToString(format, CultureInfo.InvariantCulture);
+
+    /// <summary>A temperature (°C) as the sentences show it, in the settings' unit.</summary>
+    private static string T(Context cx, double celsius) => cx.Settings.SentenceUnit.Show(celsius);
+
+    /// <summary>A temperature difference (K) as the sentences show it: "12.3 K", or in °F degrees.</summary>
+    private static string Rise(Context cx, double kelvin) =>
+        cx.Settings.SentenceUnit == Units.TemperatureUnit.Fahrenheit ? F(kelvin * 9.0 / 5.0) + " °F" : F(kelvin) + " K";
 }

@@ -38,7 +38,7 @@ public static class ReviewRunner
         // strain review and the house factor gives the same results as running it after them.
         progress?.Report(Stages[1]);
         var kineticsTask = inputs.Logs.Count > 0
-            ? Task.Run<KineticsReview?>(() => KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics))
+            ? Task.Run<KineticsReview?>(() => KineticsAnalysis.Run(lots, inputs.Logs, settings.Kinetics with { SentenceUnit = settings.TemperatureUnit }))
             : Task.FromResult<KineticsReview?>(null);
         var strains = StrainReviewer.Run(lots, settings.Strains, settings.Seed, settings.SugarModel);
         if (inputs.Logs.Count > 0)

@@ -48,6 +48,23 @@ public class TemperatureAndHeatTests
     }
 
     [Fact]
+    public void A_cellar_that_works_in_Fahrenheit_reads_the_findings_sentences_in_Fahrenheit()
+    {
+        // Given the same °F probe log (peak 41 °C = 105.8 °F; red danger threshold 40 °C = 104 °F)
+        double C(double f) => Temperature.FromFahrenheit(f).Celsius;
+        var log = Log("T-101", 2025, ("2025-10-01 00:00", 24.0, C(86.0)), ("2025-10-01 12:00", 20.0, C(105.8)), ("2025-10-02 00:00", 14.0, C(86.0)), ("2025-10-03 00:00", 4.0, C(77.0)));
+
+        // When it is analysed with the sentences in °F
+        var review = KineticsAnalysis.Run([Lot()], [log], KineticsSettings.Default with { SentenceUnit = YieldBench.Core.Units.TemperatureUnit.Fahrenheit });
+
+        // Then the finding says the peak and the threshold in °F, and no °C is left in any finding; the values stay °C
+        var danger = Assert.Single(review.Findings, f => f.Code == "above-danger-temp");
+        Assert.StartsWith("Lot 2025/T-101 reached 105.8 °F at 2025-10-01 12:00, above the danger threshold of 104.0 °F", danger.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(review.Findings, f => f.Message.Contains("°C", StringComparison.Ordinal));
+        Assert.Equal(41.0, Assert.Single(review.Lots).PeakTemperatureC!.Value, 9);
+    }
+
+    [Fact]
     public void Whites_use_the_lower_thresholds()
     {
         // Given the same log peaking at 24 °C for a white and for a red lot
