@@ -53,8 +53,10 @@ public static class HouseFactorAnalysis
         // The two versions share only the immutable lots and are each seeded, so running them side by side gives the
         // same results as one after the other.
         bool includeInUse = settings.IncludeFlaggedLots;
-        var withoutTask = Task.Run(() => Analyse(kept, settings, extraCandidates, seed, coverage: !includeInUse, nested: false));
-        var with = Analyse(lots, settings, extraCandidates, seed, coverage: includeInUse, nested: false);
+        // The version not in use is reported by its recommendations, intervals and planner only (the candidates' table,
+        // with their by-lot backtests, is the version in use), so it skips the by-lot backtests.
+        var withoutTask = Task.Run(() => Analyse(kept, settings, extraCandidates, seed, coverage: !includeInUse, byLotReported: !includeInUse));
+        var with = Analyse(lots, settings, extraCandidates, seed, coverage: includeInUse, byLotReported: includeInUse);
         var without = withoutTask.GetAwaiter().GetResult();
         without = without with
         {
@@ -80,15 +82,17 @@ public static class HouseFactorAnalysis
     /// <param name="seed">Seed for every random step.</param>
     public static HouseFactorReview Run(
         IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed) =>
-        Analyse(lots, settings, extraCandidates, seed, coverage: true, nested: false);
+        Analyse(lots, settings, extraCandidates, seed, coverage: true, byLotReported: true);
 
     /// <summary>
     /// The analysis. <paramref name="coverage"/>: also measure the intervals' coverage by nested leave-one-season-out
-    /// (<see cref="SeasonCoverage"/>). <paramref name="nested"/>: an inner run of that measurement, which needs only
-    /// what the planner uses (no leave-one-lot-out backtest when seasons can be held out).
+    /// (<see cref="SeasonCoverage"/>). <paramref name="byLotReported"/>: false for an analysis whose candidates' by-lot
+    /// backtests nobody reads (an inner run of that measurement, or the version with or without the flagged lots that
+    /// is not in use): with seasons to hold out, each candidate's by-lot metrics then repeat its season backtest
+    /// (<see cref="CandidateResult.ByLotScheme"/> says so) instead of training it again fold by fold.
     /// </summary>
     internal static HouseFactorReview Analyse(
-        IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed, bool coverage, bool nested)
+        IReadOnlyList<LotConversion> lots, HouseFactorSettings settings, IReadOnlyList<ICandidateTrainer> extraCandidates, int seed, bool coverage, bool byLotReported)
     {
         ArgumentNullException.ThrowIfNull(lots);
         ArgumentNullException.ThrowIfNull(settings);
@@ -125,7 +129,7 @@ public static class HouseFactorAnalysis
             Parallel.ForEach(
                 System.Collections.Concurrent.Partitioner.Create(order, System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering),
                 new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount },
-                i => evaluated[i] = Evaluate(candidates[i], usable, s => folds[s].Value, seasons.Length, settings, seed, nested));
+                i => evaluated[i] = Evaluate(candidates[i], usable, s => folds[s].Value, seasons.Length, settings, seed, byLotReported));
             results.AddRange(evaluated);
         }
 
@@ -236,24 +240,26 @@ public static class HouseFactorAnalysis
     }
 
     private static CandidateResult Evaluate(
-        ICandidateTrainer c, IReadOnlyList<LotConversion> lots, Func<BacktestScheme, BacktestFolds> folds, int seasonCount, HouseFactorSettings settings, int seed, bool nested)
+        ICandidateTrainer c, IReadOnlyList<LotConversion> lots, Func<BacktestScheme, BacktestFolds> folds, int seasonCount, HouseFactorSettings settings, int seed, bool byLotReported)
     {
         int limit = c.IsCostly ? settings.MaximumLotsForCostlyLeaveOneLotOut : settings.MaximumLotsForLeaveOneLotOut;
         var lotScheme = lots.Count > limit ? BacktestScheme.TenFoldByLot : BacktestScheme.LeaveOneLotOut;
         IReadOnlyList<HeldOutPrediction>? bySeason = seasonCount >= 2 ? Backtest.Run(c, folds(BacktestScheme.LeaveOneSeasonOut), seed) : null;
+        var seasonMetrics = bySeason is null ? null : BacktestMetrics.Score(bySeason, settings.Regime, settings.ThresholdAbv);
 
-        // An inner run of the coverage measurement reports nothing, so the leave-one-lot-out backtest it would not use is skipped.
-        var byLot = nested && bySeason is not null ? bySeason : Backtest.Run(c, folds(lotScheme), seed);
+        // Where the by-lot backtest is not reported, it is not run: the season backtest stands in for it, and says so.
+        bool skipByLot = !byLotReported && bySeason is not null;
+        var byLot = skipByLot ? null : Backtest.Run(c, folds(lotScheme), seed);
         var fit = c.Train(lots, seed);
         return new CandidateResult(
             c.Id,
             c.Name,
             c.Description,
             c.Complexity,
-            bySeason is null ? null : BacktestMetrics.Score(bySeason, settings.Regime, settings.ThresholdAbv),
-            BacktestMetrics.Score(byLot, settings.Regime, settings.ThresholdAbv),
-            lotScheme,
-            bySeason ?? byLot,
+            seasonMetrics,
+            byLot is null ? seasonMetrics! : BacktestMetrics.Score(byLot, settings.Regime, settings.ThresholdAbv),
+            byLot is null ? BacktestScheme.LeaveOneSeasonOut : lotScheme,
+            bySeason ?? byLot!,
             fit.AsSugarLines(),
             fit.Importance(lots, seed));
     }

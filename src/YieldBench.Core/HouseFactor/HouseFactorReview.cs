@@ -7,7 +7,7 @@ namespace YieldBench.Core.HouseFactor;
 /// <param name="Complexity">Rank of simplicity (lower is simpler).</param>
 /// <param name="BySeason">Leave-one-season-out metrics, or null with fewer than two seasons.</param>
 /// <param name="ByLot">Leave-one-lot-out metrics (or ten-fold, see <paramref name="ByLotScheme"/>).</param>
-/// <param name="ByLotScheme">Leave-one-lot-out, or ten folds on large data.</param>
+/// <param name="ByLotScheme">Leave-one-lot-out, or ten folds on large data; leave-one-season-out where the by-lot backtest was not run and <paramref name="ByLot"/> repeats the season backtest (an analysis whose candidates are not reported: the version with or without the flagged lots that is not in use, the coverage check's inner analyses).</param>
 /// <param name="HeldOut">The held-out predictions of the backtest the recommendation uses: kept for the recommended candidate only (empty for the others once the analysis has scored them and made its choices, so a large history does not hold every candidate's predictions of every lot).</param>
 /// <param name="FullFit">The candidate trained on all lots, as strain lines, or null for a multi-variable model.</param>
 /// <param name="Importance">Permutation importance on all lots (multi-variable model only; else empty).</param>

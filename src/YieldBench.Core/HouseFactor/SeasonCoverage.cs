@@ -66,7 +66,7 @@ public static class SeasonCoverage
         {
             int held = seasons[i];
             var train = TrainingSample.Of(lots.Where(l => l.Lot.Season != held).ToArray(), MaximumInnerLots, seed);
-            var inner = HouseFactorAnalysis.Analyse(train, settings, [], seed, coverage: false, nested: true);
+            var inner = HouseFactorAnalysis.Analyse(train, settings, [], seed, coverage: false, byLotReported: false);
             rows[i] = Score(held, lots.Where(l => l.Lot.Season == held), inner);
         });
 

@@ -30,6 +30,35 @@ public class FlaggedLotsTests
     }
 
     [Fact]
+    public void The_version_not_in_use_skips_the_by_lot_backtests_and_changes_nothing_it_reports()
+    {
+        // Given three seasons with two flagged lots
+        var lots = LotsWithTwoBadOnes();
+        var flags = StrainReviewer.Run(lots, new StrainReviewSettings(), 3).Flags;
+
+        // When the house factor runs (flagged lots left out; the version with them beside it), and the version with
+        // them also runs alone, where its candidates are reported
+        var review = HouseFactorAnalysis.Run(lots, flags, new HouseFactorSettings(), [], 7);
+        var other = review.OtherVersion!;
+        var alone = HouseFactorAnalysis.Run(lots, new HouseFactorSettings(), [], 7);
+
+        // Then the version in use ran its by-lot backtests, the other did not and says so (its by-lot metrics repeat
+        // the season backtest) ...
+        Assert.All(review.Candidates, c => Assert.NotEqual(BacktestScheme.LeaveOneSeasonOut, c.ByLotScheme));
+        Assert.All(other.Candidates, c => Assert.Equal(BacktestScheme.LeaveOneSeasonOut, c.ByLotScheme));
+        Assert.All(other.Candidates, c => Assert.Equal(c.BySeason, c.ByLot));
+        Assert.Contains(alone.Candidates, c => c.BySeason != c.ByLot);
+
+        // ... and what the other version reports (its recommendations, intervals and planner) is what it gives alone
+        Assert.Equal(lots.Count, other.LotsUsed);
+        Assert.Equal(alone.Overall, other.Overall);
+        Assert.Equal(alone.ByStrain, other.ByStrain);
+        Assert.Equal(alone.Planning!.Pooled.SlopePerBrix, other.Planning!.Pooled.SlopePerBrix);
+        Assert.Equal(alone.Planning.Pooled.Errors.Select(e => e.Error), other.Planning.Pooled.Errors.Select(e => e.Error));
+        Assert.Equal(alone.Candidates.Select(c => c.BySeason), other.Candidates.Select(c => c.BySeason));
+    }
+
+    [Fact]
     public void Lots_flagged_as_likely_errors_or_not_dry_are_left_out_by_default_and_named()
     {
         // Given three seasons with a lot whose factor (0.45) is outside the plausible band and a lot left at 30 g/L sugar
