@@ -77,6 +77,23 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void A_cellar_that_works_in_Fahrenheit_reads_the_forecast_in_Fahrenheit_while_the_json_keeps_Celsius()
+    {
+        // Given the demo forecast run again with --fahrenheit
+        var (exit, output, error) = Cli.Run(demo.Root, "forecast", "--out", "fahrenheit", "--fahrenheit");
+
+        // Then it succeeds; the console gives every temperature in °F (lot 26-001's peak is the json's °C × 9/5 + 32),
+        // and forecast.json is byte for byte the °C run's (its keys end in _c)
+        Assert.Equal((0, string.Empty), (exit, error));
+        string flat = Cli.Flat(output);
+        Assert.DoesNotContain("°C", flat, StringComparison.Ordinal);
+        double peakC = demo.Lot("26-001").GetProperty("peak_temp_c").GetProperty("value").GetDouble();
+        string peakF = ((peakC * 9 / 5) + 32).ToString("0.0", CultureInfo.InvariantCulture);
+        Assert.Matches($@"Lot 26-001 \(.*?peak {Regex.Escape(peakF)} °F \(80 %", flat);
+        Assert.Equal(File.ReadAllBytes(Path.Combine(demo.First, "forecast.json")), File.ReadAllBytes(Path.Combine(demo.Root, "fahrenheit", "forecast.json")));
+    }
+
+    [Fact]
     public void The_json_has_exactly_the_documented_shape_with_local_times_and_hours()
     {
         var root = demo.Json.RootElement;

@@ -3,6 +3,7 @@ using System.Globalization;
 using YieldBench.Cli.CommandLine;
 using YieldBench.Core.Forecast;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
 using YieldBench.Intake;
 using YieldBench.Reports.Forecast;
 using YieldBench.Reports.Output;
@@ -35,9 +36,10 @@ internal static class ForecastCommand
         var columns = new Option<string[]>("--column") { Description = "Map a field to a header, FIELD=HEADER (repeatable), for history and running files alike.", AllowMultipleArgumentsPerToken = false };
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one FIELD = HEADER a line." };
         var season = UsageChecks.SeasonOption("Season (vintage year) for files whose season no column, sheet or file name gives (history and running files alike).");
+        var fahrenheit = new Option<bool>("--fahrenheit") { Description = "Show temperatures in °F (console, charts and workbook; forecast.json keeps °C, its keys end in _c)." };
         var command = new Command("forecast", "Forecast lots still fermenting from the cellar's own history: one-third depletion, dryness, peak temperature, cooling, stuck risk; with a backtest.");
         command.Arguments.Add(history);
-        foreach (var option in new Option[] { running, output, quiet, columns, mapping, season })
+        foreach (var option in new Option[] { running, output, quiet, columns, mapping, season, fahrenheit })
         {
             command.Options.Add(option);
         }
@@ -49,12 +51,17 @@ internal static class ForecastCommand
             parse.GetValue(quiet),
             parse.GetValue(columns) ?? [],
             parse.GetValue(mapping),
-            parse.GetValue(season))));
+            parse.GetValue(season),
+            parse.GetValue(fahrenheit))));
         return command;
     }
 
     /// <summary>What the user asked for.</summary>
-    internal sealed record Request(IReadOnlyList<string> History, IReadOnlyList<string> Running, string Output, bool Quiet, IReadOnlyList<string> Columns, string? Mapping, int? Season = null);
+    internal sealed record Request(IReadOnlyList<string> History, IReadOnlyList<string> Running, string Output, bool Quiet, IReadOnlyList<string> Columns, string? Mapping, int? Season = null, bool Fahrenheit = false)
+    {
+        /// <summary>The unit temperatures are shown in.</summary>
+        public TemperatureUnit Unit => Fahrenheit ? TemperatureUnit.Fahrenheit : TemperatureUnit.Celsius;
+    }
 
     internal static int Run(CliContext context, Request request)
     {
@@ -161,14 +168,14 @@ internal static class ForecastCommand
         ReportOutput written;
         try
         {
-            written = ForecastOutput.Write(report, outFolder, past.Issues.Concat(now.Issues).ToArray());
+            written = ForecastOutput.Write(report, outFolder, past.Issues.Concat(now.Issues).ToArray(), request.Unit);
         }
         catch (ReportFolderException e)
         {
             return Usage($"{Name}: " + e.Message);
         }
 
-        foreach (var line in ConsoleLines(report, written, context.WorkingDirectory))
+        foreach (var line in ConsoleLines(report, written, context.WorkingDirectory, request.Unit))
         {
             Say(line);
         }
@@ -208,7 +215,7 @@ internal static class ForecastCommand
     }
 
     /// <summary>The console's lines: the lots in plain words, the backtest in short, the basis, the files, the cautions.</summary>
-    internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, ReportOutput written, string workingDirectory)
+    internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, ReportOutput written, string workingDirectory, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         var lines = new List<string>();
         var seasons = report.Lots.Select(l => l.Course.Season).Distinct().Order().ToArray();
@@ -216,13 +223,13 @@ internal static class ForecastCommand
         lines.Add($"Forecast for {report.Lots.Count} running lot(s) of {string.Join(", ", seasons)}{stand}:");
         foreach (var lot in report.Lots)
         {
-            lines.AddRange(ForecastSentences.Lot(lot));
+            lines.AddRange(ForecastSentences.Lot(lot, unit));
         }
 
         lines.Add(string.Empty);
-        lines.AddRange(ForecastSentences.Backtest(report.Backtest));
+        lines.AddRange(ForecastSentences.Backtest(report.Backtest, unit));
         lines.Add(string.Empty);
-        lines.AddRange(ForecastSentences.Basis(report));
+        lines.AddRange(ForecastSentences.Basis(report, unit));
         foreach (var note in report.Notes)
         {
             lines.Add(note.Message);

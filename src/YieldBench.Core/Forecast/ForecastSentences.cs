@@ -1,4 +1,5 @@
 using System.Globalization;
+using YieldBench.Core.Units;
 
 namespace YieldBench.Core.Forecast;
 
@@ -29,8 +30,8 @@ public static class ForecastSentences
     public static string Span(DateTime low, DateTime high) =>
         ToMinute(low).Date == ToMinute(high).Date ? $"{ToMinute(low).ToString("HH:mm", Inv)}–{ToMinute(high).ToString("HH:mm", Inv)}" : $"{When(low)} – {When(high)}";
 
-    /// <summary>The lot's paragraph: one-third, dryness, heat, risk, next reading, basis.</summary>
-    public static IReadOnlyList<string> Lot(LotForecast f)
+    /// <summary>The lot's paragraph: one-third, dryness, heat, risk, next reading, basis; temperatures in <paramref name="unit"/>.</summary>
+    public static IReadOnlyList<string> Lot(LotForecast f, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(f);
         var c = f.Course;
@@ -74,17 +75,17 @@ public static class ForecastSentences
 
         if (f.PeakC is { } peak)
         {
-            string warn = peak.Median > f.DangerC ? $", above the {N(f.DangerC, "0")} °C danger threshold — cool it now"
-                : peak.High > f.DangerC ? $"; the top of the range passes the {N(f.DangerC, "0")} °C danger threshold"
-                : peak.Median > f.CautionC ? $", above the {N(f.CautionC, "0")} °C caution threshold" : string.Empty;
-            parts.Add($"peak {N(peak.Median)} °C (80 %: {N(peak.Low)}–{N(peak.High)}){warn}");
+            string warn = peak.Median > f.DangerC ? $", above the {unit.Show(f.DangerC, "0")} danger threshold — cool it now"
+                : peak.High > f.DangerC ? $"; the top of the range passes the {unit.Show(f.DangerC, "0")} danger threshold"
+                : peak.Median > f.CautionC ? $", above the {unit.Show(f.CautionC, "0")} caution threshold" : string.Empty;
+            parts.Add($"peak {unit.Show(peak.Median)} (80 %: {N(unit.FromCelsius(peak.Low))}–{N(unit.FromCelsius(peak.High))}){warn}");
         }
 
         lines.Add("  " + Capital(string.Join("; ", parts)) + ".");
         var heat = new List<string>();
         if (f.ReachableC is { } reach)
         {
-            heat.Add($"with no cooling from now it could reach {N(reach)} °C");
+            heat.Add($"with no cooling from now it could reach {unit.Show(reach)}");
         }
 
         if (f.CoolingKw is { } kw)
@@ -108,7 +109,7 @@ public static class ForecastSentences
     }
 
     /// <summary>What the whole forecast rests on: the history, the form chosen, the season shift and the noise.</summary>
-    public static IReadOnlyList<string> Basis(ForecastReport report)
+    public static IReadOnlyList<string> Basis(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
         var m = report.Model;
@@ -116,7 +117,7 @@ public static class ForecastSentences
         var lines = new List<string>
         {
             $"History: {report.PastLogs} past lots with a log; {m.LotsUsed} fitted ({report.PastLogsNotFitted} too short, too flat, or not shaped like a fermentation curve, so left out). Sugar course: the {form} curve of Zwietering et al. (1990), chosen because it fits the past logs better (median log ratio of residual sums of squares, Gompertz over logistic, {N(report.FormLogRatio, "0.00")}).",
-            $"Reading noise from the past logs: {N(m.SugarSd, "0.00")} °Brix (hand readings), {N(m.DenseSugarSd, "0.00")} °Brix (probe), {N(m.TempSd, "0.00")} °C. Season-to-season spread of the time scale: {Percent(m.SeasonSpread)}; {Percent(m.RateOutlierShare)} of past lots ran far from their strain and are allowed for.",
+            $"Reading noise from the past logs: {N(m.SugarSd, "0.00")} °Brix (hand readings), {N(m.DenseSugarSd, "0.00")} °Brix (probe), {N(unit.Difference(m.TempSd), "0.00")} {(unit == TemperatureUnit.Fahrenheit ? "°F" : "°C")}. Season-to-season spread of the time scale: {Percent(m.SeasonSpread)}; {Percent(m.RateOutlierShare)} of past lots ran far from their strain and are allowed for.",
         };
         var spreads = new[] { ("red", "reds"), ("white", "whites and rosés") }
             .Where(x => m.WithinByColour.ContainsKey(x.Item1))
@@ -142,7 +143,7 @@ public static class ForecastSentences
     }
 
     /// <summary>A few lines of the backtest: the model against the two baselines at each cut, per target.</summary>
-    public static IReadOnlyList<string> Backtest(BacktestResult backtest)
+    public static IReadOnlyList<string> Backtest(BacktestResult backtest, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(backtest);
         if (backtest.Rows.Count == 0)
@@ -162,9 +163,11 @@ public static class ForecastSentences
                 continue;
             }
 
-            string unit = target == "peak_temp" ? "°C" : "h";
+            bool peak = target == "peak_temp";
+            string symbol = peak ? unit.Symbol() : "h";
+            double E(double v) => peak ? unit.Difference(v) : v;
             string name = target switch { "one_third" => "one-third", "dry" => "dry", _ => "peak temp" };
-            var cells = rows.Select(r => $"{r.Readings}: {N(r.Mae)}/{N(r.P90)} {unit} {Percent(r.Coverage80)} ({N(r.BaselineLineMae)}, {N(r.BaselineStrainMae)})");
+            var cells = rows.Select(r => $"{r.Readings}: {N(E(r.Mae))}/{N(E(r.P90))} {symbol} {Percent(r.Coverage80)} ({N(E(r.BaselineLineMae))}, {N(E(r.BaselineStrainMae))})");
             lines.Add($"  {name,-10} {string.Join("  ", cells)}");
         }
 

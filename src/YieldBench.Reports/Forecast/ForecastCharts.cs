@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using YieldBench.Core.Forecast;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Charts;
 
 namespace YieldBench.Reports.Forecast;
@@ -19,8 +20,8 @@ public static class ForecastCharts
         return $"forecast-{f.Course.Season.ToString(CultureInfo.InvariantCulture)}-{Safe(f.Course.LotId)}.png";
     }
 
-    /// <summary>The lot's chart.</summary>
-    public static Plot LotChart(LotForecast f)
+    /// <summary>The lot's chart, temperatures in <paramref name="unit"/>.</summary>
+    public static Plot LotChart(LotForecast f, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(f);
         var c = f.Course;
@@ -28,6 +29,7 @@ public static class ForecastCharts
         var plot = ChartStyle.NewPlot($"Lot {c.LotId} ({c.Strain}{(c.Vessel is null ? string.Empty : ", " + c.Vessel)}): forecast with 80 % bands", "Date and time (cellar clock)", "Sugar (°Brix)");
         ChartStyle.Subtitle(plot, $"{f.ReadingsUsed} reading(s); one-third at {f.OneThirdBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix; a forecast is no substitute for the next reading");
         double X(double hours) => c.At(hours).ToOADate();
+        double[] Temps(IReadOnlyList<double> celsius) => celsius.Select(v => unit.FromCelsius(v)).ToArray();
         var sugarColor = ChartPalette.ForIndex(0);
         var tempColor = ChartPalette.ForIndex(5);
         var xs = curve.Hours.Select(X).ToArray();
@@ -73,12 +75,12 @@ public static class ForecastCharts
         {
             if (xs.Length > 1)
             {
-                var tBand = plot.Add.FillY(xs, curve.TempLow, curve.TempHigh);
+                var tBand = plot.Add.FillY(xs, Temps(curve.TempLow), Temps(curve.TempHigh));
                 tBand.FillStyle.Color = tempColor.WithAlpha(0.15);
                 tBand.LineStyle.Width = 0;
                 tBand.Axes.YAxis = plot.Axes.Right;
                 tBand.LegendText = "Temperature, 80 % band";
-                var tMedian = plot.Add.Scatter(xs, curve.TempMedian);
+                var tMedian = plot.Add.Scatter(xs, Temps(curve.TempMedian));
                 tMedian.Color = tempColor;
                 tMedian.LineWidth = 2;
                 tMedian.MarkerSize = 0;
@@ -86,7 +88,7 @@ public static class ForecastCharts
                 tMedian.Axes.YAxis = plot.Axes.Right;
                 tMedian.LegendText = "Temperature, forecast median (right axis)";
                 var reachX = xs.Where((_, i) => double.IsFinite(curve.ReachableC[i])).ToArray();
-                var reachY = curve.ReachableC.Where(double.IsFinite).ToArray();
+                var reachY = Temps(curve.ReachableC.Where(double.IsFinite).ToArray());
                 if (reachX.Length > 1)
                 {
                     var reach = plot.Add.Scatter(reachX, reachY);
@@ -100,7 +102,7 @@ public static class ForecastCharts
 
             if (c.TempC.Length > 0)
             {
-                var tReadings = plot.Add.ScatterPoints(c.TempHours.Select(X).ToArray(), c.TempC);
+                var tReadings = plot.Add.ScatterPoints(c.TempHours.Select(X).ToArray(), Temps(c.TempC));
                 tReadings.Color = tempColor;
                 tReadings.MarkerShape = MarkerShape.FilledSquare;
                 tReadings.MarkerSize = 9;
@@ -110,15 +112,15 @@ public static class ForecastCharts
 
             foreach (var (level, label, pattern) in new[] { (f.CautionC, "caution", LinePattern.Dashed), (f.DangerC, "danger", LinePattern.Solid) })
             {
-                var line = plot.Add.HorizontalLine(level);
+                var line = plot.Add.HorizontalLine(unit.FromCelsius(level));
                 line.Axes.YAxis = plot.Axes.Right;
                 line.Color = tempColor.WithAlpha(0.7);
                 line.LinePattern = pattern;
                 line.LineWidth = 1.5f;
-                line.LegendText = $"{label} {level.ToString("0", CultureInfo.InvariantCulture)} °C";
+                line.LegendText = $"{label} {unit.Show(level, "0")}";
             }
 
-            plot.Axes.Right.Label.Text = "Temperature (°C)";
+            plot.Axes.Right.Label.Text = $"Temperature ({unit.Symbol()})";
             plot.Axes.Right.Label.FontName = ReportFonts.FamilyName;
             plot.Axes.Right.Label.FontSize = ChartStyle.LabelSize;
         }

@@ -25,18 +25,18 @@ public static class ForecastOutput
 
     /// <summary>Writes every file; returns what was written.</summary>
     /// <exception cref="ReportFolderException">The folder may not be written into (it holds files of the user's, or an input); nothing was written.</exception>
-    public static ReportOutput Write(ForecastReport report, string folder, IReadOnlyList<IntakeIssue> issues)
+    public static ReportOutput Write(ForecastReport report, string folder, IReadOnlyList<IntakeIssue> issues, Core.Units.TemperatureUnit unit = Core.Units.TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(issues);
         return ReportPipeline.WriteFiles(folder, Files(report), context =>
         [
-            () => context.Write(ForecastWorkbook.FileName, s => s.Write(ForecastWorkbook.Write(report, issues))),
+            () => context.Write(ForecastWorkbook.FileName, s => s.Write(ForecastWorkbook.Write(report, issues, unit))),
             () => context.Write(ForecastJson.FileName, s => s.Write(new System.Text.UTF8Encoding(false).GetBytes(ForecastJson.Write(report)))),
             .. report.Lots.Select(f => (Action)(() => context.Write(ChartFile(f), s =>
             {
-                using var png = ChartImage.RenderPngData(ForecastCharts.LotChart(f));
+                using var png = ChartImage.RenderPngData(ForecastCharts.LotChart(f, unit));
                 s.Write(png.AsSpan());
             }))),
         ]);

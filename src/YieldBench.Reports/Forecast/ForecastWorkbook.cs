@@ -1,5 +1,6 @@
 using YieldBench.Core.Forecast;
 using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
 using YieldBench.Reports.Tables;
 using YieldBench.Reports.Workbook;
 
@@ -17,17 +18,19 @@ public static class ForecastWorkbook
     public const string FileName = "forecast.xlsx";
 
     /// <summary>The one-row-per-lot table.</summary>
-    public static ReportTable Lots(ForecastReport report)
+    public static ReportTable Lots(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
-        return Lots(report.Lots);
+        return Lots(report.Lots, unit);
     }
 
     /// <summary>The one-row-per-lot table of <paramref name="lots"/>.</summary>
-    internal static ReportTable Lots(IReadOnlyList<LotForecast> lots)
+    internal static ReportTable Lots(IReadOnlyList<LotForecast> lots, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         static object? At(LotForecast f, double? hours) => hours is { } h && double.IsFinite(h) ? f.Course.At(h) : null;
         static double Num(double? v) => v is { } x && double.IsFinite(x) ? x : double.NaN;
+        double Temp(double? celsius) => unit.FromCelsius(Num(celsius));
+        string u = unit.Symbol(), x = unit.Suffix();
         Column<LotForecast>[] columns =
         [
             new("season", "Season", CellKind.Integer, f => f.Course.Season),
@@ -43,35 +46,37 @@ public static class ForecastWorkbook
             new("dry_at", "Dry expected", CellKind.DateTime, f => At(f, f.DryHours?.Median)),
             new("dry_low80", "Dry, 80 % from", CellKind.DateTime, f => At(f, f.DryHours?.Low)),
             new("dry_high80", "Dry, 80 % to", CellKind.DateTime, f => At(f, f.DryHours?.High)),
-            new("peak_temp_c", "Peak temperature (°C)", CellKind.Number, f => Num(f.PeakC?.Median), "0.0"),
-            new("peak_temp_low80_c", "Peak, 80 % from (°C)", CellKind.Number, f => Num(f.PeakC?.Low), "0.0"),
-            new("peak_temp_high80_c", "Peak, 80 % to (°C)", CellKind.Number, f => Num(f.PeakC?.High), "0.0"),
-            new("reachable_without_cooling_c", "Reachable with no cooling from now (°C)", CellKind.Number, f => Num(f.ReachableC), "0.0"),
+            new($"peak_temp_{x}", $"Peak temperature ({u})", CellKind.Number, f => Temp(f.PeakC?.Median), "0.0"),
+            new($"peak_temp_low80_{x}", $"Peak, 80 % from ({u})", CellKind.Number, f => Temp(f.PeakC?.Low), "0.0"),
+            new($"peak_temp_high80_{x}", $"Peak, 80 % to ({u})", CellKind.Number, f => Temp(f.PeakC?.High), "0.0"),
+            new($"reachable_without_cooling_{x}", $"Reachable with no cooling from now ({u})", CellKind.Number, f => Temp(f.ReachableC), "0.0"),
             new("cooling_kw", "Heat at the peak rate: cooling to hold it (kW)", CellKind.Number, f => Num(f.CoolingKw), "0.00"),
             new("vessel_heat_removal_per_h", "Vessel type's usual heat removal at the peak (per h)", CellKind.Number, f => Num(f.CoolingCoefficientPerHour), "0.000"),
             new("stuck_risk", "Chance of a sluggish or stuck end", CellKind.Share, f => f.StuckRisk),
             new("next_reading_at", "Next reading most worth taking", CellKind.DateTime, f => At(f, f.NextReadingHours)),
             new("basis", "Basis", CellKind.Text, f => f.OwnStrainPrior ? $"{f.StrainLots} past lots of the strain" : "pooled prior (strain not in the history)"),
-            new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f).Select(s => s.Trim()))),
+            new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f, unit).Select(s => s.Trim()))),
         ];
         return ReportTable.Of(columns, lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
     }
 
     /// <summary>The backtest table, with the per-season coverage.</summary>
-    public static ReportTable Backtest(ForecastReport report)
+    public static ReportTable Backtest(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
         var seasons = report.Backtest.Seasons;
+        double E(BacktestRow r, double v) => r.Target == "peak_temp" ? unit.Difference(v) : v;
+        string hOr = $"h or {unit.Symbol()}";
         var columns = new List<Column<BacktestRow>>
         {
             new("target", "Target", CellKind.Text, r => r.Target),
             new("readings", "Readings before the cut", CellKind.Integer, r => r.Readings),
             new("lots", "Lots scored", CellKind.Integer, r => r.Lots),
-            new("mae", "Mean absolute error (h or °C)", CellKind.Number, r => r.Mae, "0.00"),
-            new("p90", "90th-percentile error (h or °C)", CellKind.Number, r => r.P90, "0.00"),
+            new("mae", $"Mean absolute error ({hOr})", CellKind.Number, r => E(r, r.Mae), "0.00"),
+            new("p90", $"90th-percentile error ({hOr})", CellKind.Number, r => E(r, r.P90), "0.00"),
             new("coverage80", "80 % interval held the truth", CellKind.Share, r => r.Coverage80),
-            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, r => r.BaselineLineMae, "0.00"),
-            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, r => r.BaselineStrainMae, "0.00"),
+            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, r => E(r, r.BaselineLineMae), "0.00"),
+            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, r => E(r, r.BaselineStrainMae), "0.00"),
         };
         foreach (int season in seasons)
         {
@@ -82,48 +87,50 @@ public static class ForecastWorkbook
     }
 
     /// <summary>The backtest by colour bucket.</summary>
-    public static ReportTable ByColour(ForecastReport report)
+    public static ReportTable ByColour(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
+        double E(BacktestRow r, double v) => r.Target == "peak_temp" ? unit.Difference(v) : v;
+        string hOr = $"h or {unit.Symbol()}";
         Column<(string Colour, BacktestRow Row)>[] columns =
         [
             new("colour", "Colour", CellKind.Text, x => x.Colour == "white" ? "white and rosé" : x.Colour),
             new("target", "Target", CellKind.Text, x => x.Row.Target),
             new("readings", "Readings before the cut", CellKind.Integer, x => x.Row.Readings),
             new("lots", "Lots scored", CellKind.Integer, x => x.Row.Lots),
-            new("mae", "Mean absolute error (h or °C)", CellKind.Number, x => x.Row.Mae, "0.00"),
-            new("p90", "90th-percentile error (h or °C)", CellKind.Number, x => x.Row.P90, "0.00"),
+            new("mae", $"Mean absolute error ({hOr})", CellKind.Number, x => E(x.Row, x.Row.Mae), "0.00"),
+            new("p90", $"90th-percentile error ({hOr})", CellKind.Number, x => E(x.Row, x.Row.P90), "0.00"),
             new("coverage80", "80 % interval held the truth", CellKind.Share, x => x.Row.Coverage80),
-            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, x => x.Row.BaselineLineMae, "0.00"),
-            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, x => x.Row.BaselineStrainMae, "0.00"),
+            new("baseline_line_mae", "Line through the last two readings: mean error", CellKind.Number, x => E(x.Row, x.Row.BaselineLineMae), "0.00"),
+            new("baseline_strain_mae", "Strain median, no readings: mean error", CellKind.Number, x => E(x.Row, x.Row.BaselineStrainMae), "0.00"),
         ];
         return ReportTable.Of(columns, report.Backtest.ByColour);
     }
 
     /// <summary>The workbook's bytes, laid out as the review's workbook is (<see cref="SheetPlan"/>).</summary>
-    public static byte[] Write(ForecastReport report, IReadOnlyList<IntakeIssue> issues)
+    public static byte[] Write(ForecastReport report, IReadOnlyList<IntakeIssue> issues, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
         ArgumentNullException.ThrowIfNull(issues);
         SheetPlan[] sheets =
         [
             new SheetPlan("Forecast") { WrapUnits = 40 }
-                .Table(Lots(report), freeze: true)
+                .Table(Lots(report, unit), freeze: true)
                 .Gap()
                 .Texts(ForecastSentences.Cautions),
             new SheetPlan("Backtest")
-                .Table(Backtest(report), freeze: true)
+                .Table(Backtest(report, unit), freeze: true)
                 .Gap()
                 .Heading("By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger)")
-                .Table(ByColour(report))
+                .Table(ByColour(report, unit))
                 .Gap()
-                .Texts(ForecastSentences.Backtest(report.Backtest).Select(l => l.Trim())),
+                .Texts(ForecastSentences.Backtest(report.Backtest, unit).Select(l => l.Trim())),
             new SheetPlan("Notes and cautions")
                 .Heading("Cautions")
                 .Texts(ForecastSentences.Cautions)
                 .Gap()
                 .Heading("What the forecast rests on")
-                .Texts(ForecastSentences.Basis(report).Concat(report.Notes.Select(n => n.Message))),
+                .Texts(ForecastSentences.Basis(report, unit).Concat(report.Notes.Select(n => n.Message))),
             new SheetPlan("Intake issues").Table(ReviewTables.IntakeIssues(issues), freeze: true),
         ];
         return WorkbookWriter.Build(sheets, "YieldBench in-season forecast");
