@@ -73,4 +73,24 @@ public class RunningLotTests
         Assert.Empty(set.RunningLots);
         Assert.Contains(set.Issues, i => i.Code == "missing-column" && i.Message.Contains("final_abv", StringComparison.Ordinal));
     }
+    [Fact]
+    public void A_running_lot_with_one_reading_so_far_is_no_short_log_but_a_finished_lot_with_one_is()
+    {
+        // Given the same log of one reading, once for a lot still fermenting and once for a finished lot
+        using var folder = new TestFolder();
+        var running = folder.Text("running-2026.csv", "Lot,Yeast,Brix\n26-001,YB-R12,24.0\n");
+        var finished = folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc\n25-001,YB-R12,24.0,14.1\n");
+        var log1 = folder.Text("log-2026.csv", "Lot,Timestamp,Brix\n26-001,2026-09-10 17:30,23.6\n");
+        var log2 = folder.Text("log-2025.csv", "Lot,Timestamp,Brix\n25-001,2025-09-10 17:30,23.6\n");
+
+        // When each is read
+        var now = folder.Read(new IntakeOptions { RunningLots = true }, running, log1);
+        var past = folder.Read(finished, log2);
+
+        // Then the running lot's single reading is read with no warning (the forecast starts from it); the finished
+        // lot's is log-too-short (the kinetics review cannot use it)
+        Assert.Single(Assert.Single(now.Logs).Readings);
+        Assert.DoesNotContain(now.Issues, i => i.Code == IssueCodes.LogTooShort);
+        Assert.Contains(past.Issues, i => i.Code == IssueCodes.LogTooShort);
+    }
 }

@@ -86,7 +86,9 @@ internal static partial class LogJoin
             }
         }
 
-        foreach (var log in logs.Where(l => Matched(l) && l.Readings.All(r => r.Timestamp == l.Readings[0].Timestamp)))
+        // A running lot's log of one reading is a ferment just begun, which the forecast reads; only a finished lot's is short.
+        bool oneIsEnough = run.Options.RunningLots;
+        foreach (var log in logs.Where(l => Matched(l) && l.Readings.All(r => r.Timestamp == l.Readings[0].Timestamp) && !(oneIsEnough && l.Readings.Count == 1)))
         {
             var first = log.Readings[0].Source!;
             run.Sink.Warning(first.File, first.Sheet, first.Row, null, log.LotId, IssueCodes.LogTooShort, IntakeMessages.LogTooShort(log.Name, log.Readings.Count));
