@@ -174,13 +174,15 @@ public static class IntakeMessages
     internal static string MappedHeaderNotFound(string field) =>
         $"No sheet has this header, so the mapping to {field} was not used. Check the spelling against the file's header row.";
 
-    internal static string MissingValue(string field) => $"{field} is empty; it is required, so the row was left out. Fill it in.";
+    internal static string MissingValue(string field) => field == "final_abv"
+        ? "final_abv is empty; it is required, so the row was left out. Fill in the lab's final alcohol; a lot still fermenting belongs in a later review, or in 'yieldbench forecast --running' now."
+        : $"{field} is empty; it is required, so the row was left out. Fill it in.";
 
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
 
-    internal static string NotANumber(string field) =>
-        $"{field} is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).";
+    internal static string NotANumber(string field, string example = "24.3") =>
+        $"{field} is not a number. Enter a plain number such as {example} (a decimal comma is read too, in files that use it).";
 
     internal static string AmbiguousDotNumber(string field, string asThousands, string asDecimal) =>
         $"{field} could be {asThousands} (dot as thousands separator, as this decimal-comma file may use) or {asDecimal} (decimal point). Write it without a thousands separator.";

@@ -46,7 +46,7 @@ public sealed class CheckCommandTests : IDisposable
         var (code, output, _) = Run("check", "lots-2023.csv");
         Assert.Equal(ExitCodes.InputProblems, code);
         Assert.Contains(
-            "  error row 3, column \"Brix\", value \"abc\": not-a-number: starting_sugar is not a number. Enter a\n      plain number such as 24.3 (a decimal comma is read too, in files that use it).\n",
+            "  error row 3, column \"Brix\", value \"abc\": not-a-number: starting_sugar is not a number. Enter a\n      plain number such as 24.2 (a decimal comma is read too, in files that use it).\n",
             output,
             StringComparison.Ordinal);
         Assert.All(output.Split('\n'), l => Assert.True(l.Length <= 100, l));
@@ -61,7 +61,7 @@ public sealed class CheckCommandTests : IDisposable
         Assert.Equal(ExitCodes.InputProblems, code);
         Assert.Equal(
             "file,sheet,row,column,value,code,severity,message\r\n" +
-            "lots-2023.csv,,3,Brix,abc,not-a-number,error,\"starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it).\"\r\n",
+            "lots-2023.csv,,3,Brix,abc,not-a-number,error,\"starting_sugar is not a number. Enter a plain number such as 24.2 (a decimal comma is read too, in files that use it).\"\r\n",
             File.ReadAllText(Path.Combine(_dir, "issues.csv")));
     }
 

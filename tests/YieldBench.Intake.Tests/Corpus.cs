@@ -85,7 +85,7 @@ internal static class Corpus
         new("required value empty", f => f.Text("no-strain.csv", Csv(Header, GoodRow, "A-02,2023,,23.0,13.5")),
             E("no-strain.csv", null, 3, "Yeast", "", "missing-value", "strain is empty; it is required, so the row was left out. Fill it in."), 1),
         new("not a number", f => f.Text("text-brix.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,twenty,13.5")),
-            E("text-brix.csv", null, 3, "Brix", "twenty", "not-a-number", "starting_sugar is not a number. Enter a plain number such as 24.3 (a decimal comma is read too, in files that use it)."), 1),
+            E("text-brix.csv", null, 3, "Brix", "twenty", "not-a-number", "starting_sugar is not a number. Enter a plain number such as 24.2 (a decimal comma is read too, in files that use it)."), 1),
         new("ambiguous thousands comma", f => f.Text("volume.csv", Csv(Header + ",Must volume (L)", GoodRow + ",3500", "A-02,2023,QX-7,23.0,13.5,\"4,200\"")),
             E("volume.csv", null, 3, "Must volume (L)", "4,200", "ambiguous-number", "must_volume_l could be 4200 (comma as thousands separator) or 4.200 (decimal comma). Write it without a thousands separator."), 1),
         new("starting sugar out of range", f => f.Text("high-brix.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,42.5,13.5")),

@@ -260,7 +260,7 @@ internal static class FieldParsers
                     : IntakeMessages.AmbiguousDotNumberUnsettled(label, parts[0], parts[1]), c.Field.Critical);
                 return false;
             default:
-                st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label), c.Field.Critical);
+                st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label, double.TryParse(c.Field.Example, System.Globalization.NumberStyles.Float, Inv, out _) ? c.Field.Example : "24.3"), c.Field.Critical);
                 return false;
         }
     }
