@@ -119,6 +119,9 @@ public static class IntakeMessages
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
 
+    internal static string DayNumbersNotDates(string header, double lastDay) =>
+        $"The column '{header}' holds day numbers (0 to {Num(lastDay)}), not dates, so no reading can be placed in time and none of the rows could be used. Add a Date column (the inoculation date plus the day, e.g. =DATE(2025,9,10)+A2 in a spreadsheet), with a Time column if readings were taken more than once a day.";
+
     internal static string MissingTimeColumn() =>
         "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";
 

@@ -207,6 +207,9 @@ public static class IssueCodes
     /// <summary><c>missing-timestamp</c>.</summary>
     public const string MissingTimestamp = "missing-timestamp";
 
+    /// <summary><c>day-numbers-not-dates</c>.</summary>
+    public const string DayNumbersNotDates = "day-numbers-not-dates";
+
     /// <summary><c>reading-date-implausible</c>.</summary>
     public const string ReadingDateImplausible = "reading-date-implausible";
 

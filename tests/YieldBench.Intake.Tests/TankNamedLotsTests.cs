@@ -69,4 +69,23 @@ public class TankNamedLotsTests
         var word = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotANumber);
         Assert.Contains("such as 13.9", word.Message, StringComparison.Ordinal);
     }
+    [Fact]
+    public void A_log_counted_in_day_numbers_is_said_once_with_how_to_give_dates()
+    {
+        // Given a lot's log kept by day of ferment (Day 0 … 7) instead of dates
+        using var folder = new TestFolder();
+        folder.Text("A1.csv", "Day,Brix,Temp\n0,24.5,18\n1,23.0,21\n2,19.5,25\n3,14.0,28\n4,8.5,27\n5,3.0,24\n6,-0.5,21\n7,-1.5,19\n");
+
+        // When it is read
+        var set = folder.Read("A1.csv");
+
+        // Then one error names the column, the first value and the fix (before: eight not-a-date errors), and the eight
+        // rows are counted as left out
+        var error = Assert.Single(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Equal((IssueCodes.DayNumbersNotDates, 2, "Day", "0"), (error.Code, error.Row!.Value, error.Column, error.Value));
+        Assert.Contains("day numbers (0 to 7)", error.Message, StringComparison.Ordinal);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((8, 0, 8), (account.RowsRead, account.LogReadingsUsed, account.RowsReported));
+        Assert.Empty(set.Logs);
+    }
 }

@@ -16,10 +16,47 @@ internal static class LogRows
             ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingTimeColumn());
         }
 
+        // A "Day" column of day numbers (0, 1, 2…) counts days from inoculation; it gives no time a reading can be
+        // placed at, so it is said once for the column instead of once a row.
+        double lastDay = double.NaN;
+        bool dayNumbers = !noTime && ctx.Column("timestamp") is null && ctx.Column("date") is { } dateCol && DayNumbers(ctx, dateCol, out lastDay);
+        if (dayNumbers)
+        {
+            var c = ctx.Column("date")!;
+            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData + 1, c.Header, CellValues.Text(ctx.Sheet.Cell(ctx.FirstData, c.Index)), IssueCodes.DayNumbersNotDates, IntakeMessages.DayNumbersNotDates(c.Header, lastDay));
+        }
+
         // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
         string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
         var rowState = new RowState(ctx);
-        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime), r => Add(ctx, rowState, r, sheetLot));
+        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime && !dayNumbers), r => Add(ctx, rowState, r, sheetLot));
+    }
+
+    /// <summary>
+    /// True when every filled cell of the date column is a whole number from 0 to 400 (a day count, not a date: a date
+    /// cell is read as a date, and an unformatted date serial is above 400), with at least two of them.
+    /// </summary>
+    private static bool DayNumbers(SheetContext ctx, BoundColumn c, out double last)
+    {
+        last = double.NaN;
+        int count = 0;
+        foreach (var cell in ctx.Values(c))
+        {
+            if (CellValues.IsBlank(cell))
+            {
+                continue;
+            }
+
+            if (CellValues.Number(cell, ctx.Sheet.DecimalComma, out double d, out _) != CellProblem.None || d < 0 || d > 400 || d != Math.Floor(d))
+            {
+                return false;
+            }
+
+            last = double.IsNaN(last) ? d : Math.Max(last, d);
+            count++;
+        }
+
+        return count >= 2;
     }
 
     /// <summary>Reads row <paramref name="r"/> as a reading and keeps it; false when it was reported instead.</summary>
