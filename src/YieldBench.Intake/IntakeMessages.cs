@@ -119,8 +119,11 @@ public static class IntakeMessages
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
 
-    internal static string DayNumbersNotDates(string header, double lastDay) =>
-        $"The column '{header}' holds day numbers (0 to {Num(lastDay)}), not dates, so no reading can be placed in time and none of the rows could be used. Add a Date column (the inoculation date plus the day, e.g. =DATE(2025,9,10)+A2 in a spreadsheet), with a Time column if readings were taken more than once a day.";
+    internal static string DaysFromInoculation(string header, double lastDay) =>
+        $"The column '{header}' holds day numbers (0 to {Num(lastDay)}), not dates: each reading is placed at its lot's inoculation date plus that many days (day 0 is the inoculation day; a Time column gives the hour). Check that the lots table has each lot's inoculation date; a Date column instead would need no inoculation date.";
+
+    internal static string DaysWithoutInoculation(string lot) =>
+        $"The log of {lot} counts days (a Day column of numbers), but the lot has no inoculation date to count them from, so its readings were left out. Add the lot's inoculation date to the lots table, or dates to the log.";
 
     internal static string MissingTimeColumn() =>
         "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";

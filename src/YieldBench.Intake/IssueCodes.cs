@@ -207,8 +207,11 @@ public static class IssueCodes
     /// <summary><c>missing-timestamp</c>.</summary>
     public const string MissingTimestamp = "missing-timestamp";
 
-    /// <summary><c>day-numbers-not-dates</c>.</summary>
-    public const string DayNumbersNotDates = "day-numbers-not-dates";
+    /// <summary><c>days-from-inoculation</c>.</summary>
+    public const string DaysFromInoculation = "days-from-inoculation";
+
+    /// <summary><c>days-without-inoculation</c>.</summary>
+    public const string DaysWithoutInoculation = "days-without-inoculation";
 
     /// <summary><c>reading-date-implausible</c>.</summary>
     public const string ReadingDateImplausible = "reading-date-implausible";

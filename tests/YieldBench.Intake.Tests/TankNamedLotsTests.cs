@@ -70,22 +70,29 @@ public class TankNamedLotsTests
         Assert.Contains("such as 13.9", word.Message, StringComparison.Ordinal);
     }
     [Fact]
-    public void A_log_counted_in_day_numbers_is_said_once_with_how_to_give_dates()
+    public void A_log_counted_in_day_numbers_is_placed_from_its_lots_inoculation_date()
     {
-        // Given a lot's log kept by day of ferment (Day 0 … 7) instead of dates
+        // Given a lot inoculated on 10 Sep 2025 at 10:00 and its log kept by day of ferment (Day 0 … 7), and a second
+        // lot with the same kind of log but no inoculation date
         using var folder = new TestFolder();
+        folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc,Inoculated\nA1,QX-7,24.5,14.2,2025-09-10 10:00\nA2,QX-7,24.0,14.0,\n");
         folder.Text("A1.csv", "Day,Brix,Temp\n0,24.5,18\n1,23.0,21\n2,19.5,25\n3,14.0,28\n4,8.5,27\n5,3.0,24\n6,-0.5,21\n7,-1.5,19\n");
+        folder.Text("A2.csv", "Day,Time,Brix\n0,08:00,24.0\n1,08:00,22.5\n");
 
-        // When it is read
-        var set = folder.Read("A1.csv");
+        // When they are read
+        var set = folder.Read("lots-2025.csv", "A1.csv", "A2.csv");
 
-        // Then one error names the column, the first value and the fix (before: eight not-a-date errors), and the eight
-        // rows are counted as left out
-        var error = Assert.Single(set.Issues, i => i.Severity == IssueSeverity.Error);
-        Assert.Equal((IssueCodes.DayNumbersNotDates, 2, "Day", "0"), (error.Code, error.Row!.Value, error.Column, error.Value));
-        Assert.Contains("day numbers (0 to 7)", error.Message, StringComparison.Ordinal);
-        var account = Assert.Single(set.Accounts);
-        Assert.Equal((8, 0, 8), (account.RowsRead, account.LogReadingsUsed, account.RowsReported));
-        Assert.Empty(set.Logs);
+        // Then A1's readings lie day by day from the inoculation (day 3 = 13 Sep 10:00), said once for the column; A2's
+        // log is left out with an error saying the lot has no inoculation date to count from
+        var a1 = Assert.Single(set.Logs);
+        Assert.Equal("A1", a1.LotId);
+        Assert.Equal(new DateTime(2025, 9, 13, 10, 0, 0), a1.Readings[3].Timestamp);
+        Assert.Equal(new DateTime(2025, 9, 17, 10, 0, 0), a1.Readings[^1].Timestamp);
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.DaysFromInoculation && i.File == "A1.csv");
+        Assert.Equal((IssueSeverity.Warning, 2, "Day"), (said.Severity, said.Row!.Value, said.Column));
+        Assert.Contains("day numbers (0 to 7)", said.Message, StringComparison.Ordinal);
+        var none = Assert.Single(set.Issues, i => i.Code == IssueCodes.DaysWithoutInoculation);
+        Assert.Equal(("A2.csv", "A2"), (none.File, none.Value));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.NotADate);
     }
 }

@@ -48,6 +48,7 @@ internal static partial class LogJoin
             (lastId, lastSeason, lastList) = (rawId, season, list);
         }
 
+        logs = PlaceDayCounts(run, logs);
         logs = DropImplausibleDates(run, logs, recorded);
         if (logs.Count == 0)
         {
@@ -109,6 +110,57 @@ internal static partial class LogJoin
     /// season are unknown, more than <see cref="MaxDaysFromLogMiddle"/> days from its middle reading) are left out
     /// with an error, and their sheet's accounting moves them from used to reported.
     /// </summary>
+    /// <summary>
+    /// A log counted in days (<see cref="LogRows.DayZero"/>) is placed at its lot's inoculation date (day 0 = the
+    /// inoculation day); a log whose lot has none is reported and left out (one of no lot is reported as such later).
+    /// </summary>
+    private static List<FermentationLog> PlaceDayCounts(IntakeRun run, List<FermentationLog> logs)
+    {
+        if (!logs.Any(l => LogRows.CountedInDays(l.Readings[0].Timestamp)))
+        {
+            return logs;
+        }
+
+        var inoculated = run.Lots.Select(l => (l.LotId, (int?)l.Season, l.InoculationDate))
+            .Concat(run.RunningLots.Select(l => (l.LotId, (int?)l.Season, l.InoculationDate)))
+            .Where(x => x.InoculationDate is not null)
+            .ToList();
+        var kept = new List<FermentationLog>(logs.Count);
+        foreach (var log in logs)
+        {
+            if (!LogRows.CountedInDays(log.Readings[0].Timestamp))
+            {
+                kept.Add(log);
+                continue;
+            }
+
+            bool lotKnown = run.Lots.Any(l => l.LotId == log.LotId) || run.RunningLots.Any(l => l.LotId == log.LotId);
+            var dates = inoculated.Where(x => x.LotId == log.LotId && (log.Season is null || x.Item2 == log.Season)).Select(x => x.InoculationDate!.Value).Distinct().ToList();
+            if (!lotKnown)
+            {
+                // Reported below as a log of no lot.
+                kept.Add(log);
+                continue;
+            }
+
+            if (dates.Count != 1)
+            {
+                var first = log.Readings[0].Source!;
+                run.Sink.Error(first.File, first.Sheet, first.Row, null, log.LotId, IssueCodes.DaysWithoutInoculation, IntakeMessages.DaysWithoutInoculation(log.LotId));
+                continue;
+            }
+
+            // With times of day in the log, day d is the inoculation's date + d at those times; without, each reading
+            // is d days after the inoculation's own clock time.
+            bool timed = log.Readings.Any(r => r.Timestamp.TimeOfDay != TimeSpan.Zero);
+            var origin = timed ? dates[0].Date : dates[0];
+            var placed = log.Readings.Select(r => r with { Timestamp = origin + (r.Timestamp - LogRows.DayZero) }).ToList();
+            kept.Add(log with { Readings = placed });
+        }
+
+        return kept;
+    }
+
     private static List<FermentationLog> DropImplausibleDates(IntakeRun run, List<FermentationLog> logs, List<(string LotId, int Season, SourceRef? Source)> recorded)
     {
         ILookup<string, int>? seasonsById = null;

@@ -16,20 +16,59 @@ internal static class LogRows
             ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingTimeColumn());
         }
 
-        // A "Day" column of day numbers (0, 1, 2…) counts days from inoculation; it gives no time a reading can be
-        // placed at, so it is said once for the column instead of once a row.
+        // A "Day" column of day numbers (0, 1, 2…) counts days from inoculation: each reading is kept at that many days
+        // after DayZero, and the join places it from its lot's inoculation date (LogJoin). Said once for the column.
         double lastDay = double.NaN;
         bool dayNumbers = !noTime && ctx.Column("timestamp") is null && ctx.Column("date") is { } dateCol && DayNumbers(ctx, dateCol, out lastDay);
         if (dayNumbers)
         {
             var c = ctx.Column("date")!;
-            ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData + 1, c.Header, CellValues.Text(ctx.Sheet.Cell(ctx.FirstData, c.Index)), IssueCodes.DayNumbersNotDates, IntakeMessages.DayNumbersNotDates(c.Header, lastDay));
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData + 1, c.Header, CellValues.Text(ctx.Sheet.Cell(ctx.FirstData, c.Index)), IssueCodes.DaysFromInoculation, IntakeMessages.DaysFromInoculation(c.Header, lastDay));
         }
 
         // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
         string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
         var rowState = new RowState(ctx);
-        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime && !dayNumbers), r => Add(ctx, rowState, r, sheetLot));
+        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime), r => Add(ctx, rowState, r, sheetLot, dayNumbers));
+    }
+
+    /// <summary>
+    /// The origin of a log counted in days: a reading of day d (and time of day t) is kept at DayZero + d + t until the
+    /// join places it at its lot's inoculation date + d + t. No real reading falls in year 1.
+    /// </summary>
+    public static readonly DateTime DayZero = DateTime.MinValue;
+
+    /// <summary>True when a reading's time is still counted from <see cref="DayZero"/> (not yet placed).</summary>
+    public static bool CountedInDays(DateTime t) => t.Year == DayZero.Year;
+
+    /// <summary>The time of row <paramref name="r"/> of a log counted in days: DayZero + its day + its time of day.</summary>
+    private static DateTime? DayCount(SheetContext ctx, RowState st, int r)
+    {
+        var dayCol = ctx.Column("date")!;
+        object? cell = ctx.Sheet.Cell(r, dayCol.Index);
+        if (CellValues.Number(cell, ctx.Sheet.DecimalComma, out double day, out _) != CellProblem.None)
+        {
+            st.Problem(dayCol, cell, IssueCodes.MissingTimestamp, IntakeMessages.MissingTimestamp(), true);
+            return null;
+        }
+
+        var when = DayZero.AddDays(day);
+        if (ctx.Column("time") is { } timeCol)
+        {
+            object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
+            var tp = CellValues.TimeOfDay(tcell, out var tod);
+            if (tp == CellProblem.None)
+            {
+                when += tod;
+            }
+            else if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
+            {
+                st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
+                return null;
+            }
+        }
+
+        return when;
     }
 
     /// <summary>
@@ -60,7 +99,7 @@ internal static class LogRows
     }
 
     /// <summary>Reads row <paramref name="r"/> as a reading and keeps it; false when it was reported instead.</summary>
-    private static bool Add(SheetContext ctx, RowState rowState, int r, string? sheetLot)
+    private static bool Add(SheetContext ctx, RowState rowState, int r, string? sheetLot, bool dayNumbers)
     {
         var run = ctx.Run;
         var sink = run.Sink;
@@ -76,7 +115,7 @@ internal static class LogRows
         }
 
         int? season = SeasonField(st, seasonCol);
-        var when = When(ctx, st, r);
+        var when = dayNumbers ? DayCount(ctx, st, r) : When(ctx, st, r);
         SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
         double? temp = tempCol is null ? null : NumberField(st, tempCol);
         if (!st.Bad && sugar is null && temp is null)
