@@ -53,7 +53,9 @@ public static class ConsoleSummary
         if (strains.Ranking.Count > 0)
         {
             string values = string.Join(", ", strains.Ranking.Select(s => $"{s.Strain} {F(s.Adjusted?.Factor ?? s.RawMedian, "0.000")}"));
-            Say(strains.Adjusted
+            Say(strains.Ranking.Count == 1
+                ? $"One strain only: {values} % v/v per °Brix; there is no other strain to compare it with."
+                : strains.Adjusted
                 ? $"Strains, best first, adjusted to the same starting sugar (% v/v per °Brix): {values}."
                 : $"Strains, best first, by raw median (the adjusted comparison could not be fitted): {values}.");
             foreach (string sentence in strains.Plain)

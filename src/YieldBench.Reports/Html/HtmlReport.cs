@@ -209,7 +209,9 @@ public static class HtmlReport
         var points = s.Ranking.Select(r => r.Adjusted is { } a
             ? $"{r.Strain} {Number(a.Factor, "0.0000")} (95 % interval {Number(a.FactorInterval.Low, "0.0000")} to {Number(a.FactorInterval.High, "0.0000")})"
             : $"{r.Strain} {Number(r.RawMedian, "0.0000")}");
-        string description = (s.Adjusted
+        string description = (s.Ranking.Count == 1
+            ? "One strain only, so there is nothing to compare; its raw median alcohol per degree of sugar: "
+            : s.Adjusted
             ? $"Alcohol made per degree of sugar by each strain, compared at the same starting sugar of {Number(s.ReferenceBrix, "0.0")} °Brix, highest first: "
             : "Raw median alcohol per degree of sugar by strain (the comparison at the same sugar could not be fitted), highest first: ")
             + string.Join("; ", points) + ".";
