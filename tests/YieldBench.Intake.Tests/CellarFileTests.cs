@@ -33,6 +33,34 @@ public class CellarFileTests
         Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
     }
 
+    [Fact]
+    public void Group_labels_over_two_header_rows_tell_the_musts_sugar_from_the_wines()
+    {
+        // Given a lab book with "Must" merged over Brix and pH and "Wine" merged over Alc, RS and Brix
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lab book.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.Worksheets.Add("Vintage 2025");
+            Workbooks.Fill(ws, [null, null, "Must", null, "Wine", null, null], ["Lot", "Yeast", "Brix", "pH", "Alc", "RS", "Brix"],
+                ["V1", "QX-7", 24.1, 3.5, 14.0, 1.2, -1.6], ["V2", "QX-7", 25.0, 3.4, 14.6, 1.0, -1.8]);
+            ws.Range("C1:D1").Merge();
+            ws.Range("E1:G1").Merge();
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lab book.xlsx");
+
+        // Then the first Brix is the starting sugar and the second the final sugar (before, the second was a duplicate
+        // of the first and not read), each mapping named with its group
+        Assert.Equal([24.1, 25.0], set.Lots.Select(l => l.StartingSugar.Brix));
+        Assert.Equal([-1.6, -1.8], set.Lots.Select(l => l.FinalSugar!.Value.Brix));
+        Assert.Contains(set.Mappings, m => m.Field == "final_sugar" && m.Header == "Wine Brix");
+        Assert.Contains(set.Mappings, m => m.Field == "starting_sugar" && m.Header == "Must Brix");
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+    }
+
     [Theory]
     [InlineData("0.0%", true)]
     [InlineData("0.00 %", true)]

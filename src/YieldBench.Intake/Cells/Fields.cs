@@ -146,7 +146,7 @@ internal static class Fields
             new("residual_sugar_gl", TableKind.Lots, FieldKind.Plain, false, "g/L", 0, 300, "Residual sugar (g/L)", "Residual sugar (glucose + fructose) of the finished wine.", "1.8",
                 ["rs", "residual sugar", "residual sugars", "residual", "res sugar", "final rs", "rs final", "glu fru", "glucose fructose", "gf", "g f", "reducing sugar", "reducing sugars", "r s", "sucres residuels", "sucre residuel", "restzucker"]),
             new("final_sugar", TableKind.Lots, FieldKind.Sugar, false, "°Brix", -6, 40, "Final sugar (°Brix)", "Hydrometer reading of the finished wine, °Brix or SG.", "-1.8",
-                ["final sugar", "final brix", "end brix", "final bx", "finish brix", "finishing brix", "dry brix", "final sg", "end sg", "finish sg", "final density", "final gravity", "fg", "final hydrometer", "final reading", "brix final", "sg final", "brix end", "sg end"]),
+                ["final sugar", "final brix", "end brix", "final bx", "wine brix", "wine bx", "wine sg", "wine density", "wine gravity", "wine sugar", "finish brix", "finishing brix", "dry brix", "final sg", "end sg", "finish sg", "final density", "final gravity", "fg", "final hydrometer", "final reading", "brix final", "sg final", "brix end", "sg end"]),
             new("yan_mgl", TableKind.Lots, FieldKind.Plain, false, "mg N/L", 0, 1000, "YAN (mg N/L)", "Yeast assimilable nitrogen of the must.", "210",
                 ["yan", "yeast assimilable nitrogen", "assimilable nitrogen", "nitrogen", "must yan", "juice yan", "yan must", "initial yan", "fan"]),
             new("ph", TableKind.Lots, FieldKind.Plain, false, "", 2.5, 4.5, "pH", "Must pH.", "3.45",

@@ -83,6 +83,15 @@ internal static class HeaderDetection
 
             string text = TextSettling.Settle(CellValues.Text(cell), multiline: false, out _);
             var field = Match(run, text, kind, out var rule);
+
+            // Two header rows: a group label above ("Must" over Brix and pH, "Wine" over Alc, RS and Brix) says which
+            // reading a header is. The label and the header together win when they name a field ("Wine Brix" is the
+            // final sugar; "Must Brix" the starting sugar); otherwise the header alone is read, as before.
+            if (GroupLabel(sheet, headerRow, c) is { } group
+                && Match(run, group + " " + text, kind, out var groupRule) is { } grouped)
+            {
+                (field, rule, text) = (grouped, groupRule, group + " " + text);
+            }
             if (field is null)
             {
                 unmatched.Add((c, text));
@@ -145,6 +154,29 @@ internal static class HeaderDetection
 
         rule = null;
         return ColumnRules.Find(header, kind);
+    }
+
+    /// <summary>
+    /// The text right above a header cell when it labels a group of columns: a merged block over the cell (its first
+    /// cell's text) or the cell itself; null when there is none.
+    /// </summary>
+    private static string? GroupLabel(RawSheet sheet, int headerRow, int column)
+    {
+        if (headerRow == 0)
+        {
+            return null;
+        }
+
+        int r = headerRow - 1;
+        foreach (var span in sheet.Merged)
+        {
+            if (span.FromRow <= r && r <= span.ToRow && span.FromColumn <= column && column <= span.ToColumn)
+            {
+                return sheet.Cell(span.FromRow, span.FromColumn) is string merged && merged.Trim().Length > 0 ? merged.Trim() : null;
+            }
+        }
+
+        return sheet.Cell(r, column) is string s && s.Trim().Length > 0 ? s.Trim() : null;
     }
 
     /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>
