@@ -52,23 +52,8 @@ internal static class LogRows
             return null;
         }
 
-        var when = DayZero.AddDays(day);
-        if (ctx.Column("time") is { } timeCol)
-        {
-            object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
-            var tp = CellValues.TimeOfDay(tcell, out var tod);
-            if (tp == CellProblem.None)
-            {
-                when += tod;
-            }
-            else if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
-            {
-                st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
-                return null;
-            }
-        }
-
-        return when;
+        var tod = TimeOfDay(ctx, st, r);
+        return st.Bad ? null : DayZero.AddDays(day) + (tod ?? TimeSpan.Zero);
     }
 
     /// <summary>
@@ -141,7 +126,6 @@ internal static class LogRows
     {
         var tsCol = ctx.Column("timestamp");
         var dateCol = ctx.Column("date");
-        var timeCol = ctx.Column("time");
         DateTime? when = null;
         if (tsCol is not null)
         {
@@ -150,18 +134,9 @@ internal static class LogRows
         else if (dateCol is not null)
         {
             when = DateField(st, dateCol);
-            if (when is not null && timeCol is not null)
+            if (when is not null && TimeOfDay(ctx, st, r) is { } tod)
             {
-                object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
-                var tp = CellValues.TimeOfDay(tcell, out var tod);
-                if (tp == CellProblem.None)
-                {
-                    when = when.Value.Date + tod;
-                }
-                else if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
-                {
-                    st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
-                }
+                when = when.Value.Date + tod;
             }
         }
 
@@ -171,5 +146,28 @@ internal static class LogRows
         }
 
         return when;
+    }
+
+    /// <summary>The time of day of row <paramref name="r"/>'s Time column; null when there is none or it is blank, or when it is no time (reported, leaving the row out).</summary>
+    private static TimeSpan? TimeOfDay(SheetContext ctx, RowState st, int r)
+    {
+        if (ctx.Column("time") is not { } timeCol)
+        {
+            return null;
+        }
+
+        object? tcell = ctx.Sheet.Cell(r, timeCol.Index);
+        var tp = CellValues.TimeOfDay(tcell, out var tod);
+        if (tp == CellProblem.None)
+        {
+            return tod;
+        }
+
+        if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
+        {
+            st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
+        }
+
+        return null;
     }
 }

@@ -93,7 +93,7 @@ internal static class UnitSettling
                     IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, c.Unit == ColumnUnit.AlcoholGramsPerLitre ? "Final alcohol (g/L)" : "Final alcohol (% v/v)"));
                 break;
             default:
-                c.Unit = median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;
+                c.Unit = TemperatureUnitOf(median);
                 sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues,
                     IntakeMessages.UnitFromValues(ColumnUnits.Label(c.Unit), low, high, c.Field.TemplateHeader));
                 break;
@@ -127,6 +127,9 @@ internal static class UnitSettling
         "final_sugar" => "Final sugar (" + ColumnUnits.Label(c.Unit) + ")",
         _ => "Sugar (" + ColumnUnits.Label(c.Unit) + ")",
     };
+
+    /// <summary>Temperature scale from a column's median: above 45 no must is in °C, so °F.</summary>
+    internal static ColumnUnit TemperatureUnitOf(double median) => median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;
 
     /// <summary>Starting-sugar scale from the column median: SG 0.95–1.3, °Oechsle 45–145, g/L above 145, else °Brix.</summary>
     internal static ColumnUnit StartingSugarUnit(double median) => median switch

@@ -267,7 +267,7 @@ internal static class WideLogRows
         }
 
         double low = values[0], high = values[^1], median = values[values.Count / 2];
-        var unit = sugar ? UnitSettling.ReadingSugarUnit(low, high) : median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;
+        var unit = sugar ? UnitSettling.ReadingSugarUnit(low, high) : UnitSettling.TemperatureUnitOf(median);
         columns.ForEach(c => c.Unit = unit);
         string example = $"{columns[0].Header} ({ColumnUnits.Label(unit)})";
         ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, columns[0].Header, null, IssueCodes.UnitFromValues,
