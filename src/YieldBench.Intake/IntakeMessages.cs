@@ -187,6 +187,12 @@ public static class IntakeMessages
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
 
+    internal static string BelowLabLimit(string field) =>
+        $"{field} is recorded as below the lab's limit (not detected, or dry); the review takes a {field} left empty as 0 g/L (dry). Enter the lab's number if it gave one.";
+
+    internal static string LabLimitTooHigh(string field, string limit, string dry) =>
+        $"{field} is recorded only as below {limit} g/L, which cannot tell a dry wine from one that stopped short (the review counts a wine as dry up to {dry} g/L), so the row was left out. Enter the lab's number.";
+
     internal static string NotANumber(string field, string example = "24.3") =>
         $"{field} is not a number. Enter a plain number such as {example} (a decimal comma is read too, in files that use it).";
 
