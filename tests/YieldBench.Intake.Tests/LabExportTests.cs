@@ -48,4 +48,37 @@ public class LabExportTests
         Assert.Equal(IssueSeverity.Error, issue.Severity);
         Assert.Contains("below 10 g/L", issue.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Hydrometer_readings_noted_as_SG_before_the_number_are_read_in_a_column_with_no_stated_scale()
+    {
+        // Given a log whose Reading column notes every gravity as "SG 1.045", down to below 1
+        using var folder = new TestFolder();
+        folder.Text("log-2025.csv", "Lot,Date,Reading\nW1,2025-09-20,SG 1.098\nW1,2025-09-23,SG 1.060\nW1,2025-09-26,SG: 1.012\nW1,2025-09-29,sg 0.996\n");
+
+        // When it is read
+        var set = folder.Read("log-2025.csv");
+
+        // Then all four readings are used, in SG, the column's scale said once from its values
+        var log = Assert.Single(set.Logs);
+        Assert.Equal([1.098, 1.060, 1.012, 0.996], log.Readings.Select(r => Math.Round(r.Sugar!.Value.SpecificGravity, 3)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Single(set.Issues, i => i.Code == IssueCodes.UnitFromValues);
+    }
+
+    [Fact]
+    public void A_reading_written_in_another_scale_than_its_column_is_still_refused()
+    {
+        // Given a gravity column with one reading noted as "Bx 12"
+        using var folder = new TestFolder();
+        folder.Text("log-2025.csv", "Lot,Date,Reading\nW1,2025-09-20,SG 1.098\nW1,2025-09-23,Bx 12\nW1,2025-09-26,1.012\n");
+
+        // When it is read
+        var set = folder.Read("log-2025.csv");
+
+        // Then that reading is reported, naming the unit written and the column's, and the others are used
+        var issue = Assert.Single(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Equal((IssueCodes.UnitInCellDiffers, 3, "Bx 12"), (issue.Code, issue.Row, issue.Value));
+        Assert.Equal(2, Assert.Single(set.Logs).Readings.Count);
+    }
 }

@@ -46,14 +46,29 @@ internal static class UnitSettling
     {
         var byRow = new double[ctx.LastRow - ctx.FirstData + 1];
         var found = new List<double>(byRow.Length);
+        var withUnits = new List<double>();
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
-            bool number = CellValues.Number(ctx.Sheet.Cell(r, c.Index), ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None;
+            object? cell = ctx.Sheet.Cell(r, c.Index);
+            bool number = CellValues.Number(cell, ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None;
             byRow[r - ctx.FirstData] = number ? d : double.NaN;
             if (number)
             {
                 found.Add(d);
             }
+            else if (c.Field.Kind == FieldKind.Sugar && cell is string text && CellValues.SplitUnit(text) is var (written, _)
+                && CellValues.Number(written, ctx.Sheet.DecimalComma, out double withUnit, out _) == CellProblem.None)
+            {
+                // "SG 1.045", "12 Bx": when no plain number settles the scale, these numbers do; the unit written with
+                // each is checked against the scale when the row is read (not kept here, so the row reader sees the
+                // cell as written).
+                withUnits.Add(withUnit);
+            }
+        }
+
+        if (found.Count == 0)
+        {
+            found = withUnits;
         }
 
         c.KeepParsed(byRow);
