@@ -81,4 +81,20 @@ public class LabExportTests
         Assert.Equal((IssueCodes.UnitInCellDiffers, 3, "Bx 12"), (issue.Code, issue.Row, issue.Value));
         Assert.Equal(2, Assert.Single(set.Logs).Readings.Count);
     }
+
+    [Fact]
+    public void Dates_a_spreadsheet_saved_to_csv_as_serial_numbers_are_read_as_dates()
+    {
+        // Given a lots CSV whose inoculation dates are the spreadsheet's day numbers (45920 is 2025-09-20 in the 1900
+        // date system: Excel DATE(2025,9,20), common practice), one with a time of day
+        using var folder = new TestFolder();
+        folder.Text("lots-2025.csv", "Lot,Yeast,SG,ABV,Inoculated\nW1,WR-1,1.098,13.6,45920\nW2,WR-1,1.102,14.0,45921.375\n");
+
+        // When it is read
+        var set = folder.Read("lots-2025.csv");
+
+        // Then the dates are read, with no issue
+        Assert.Equal([new DateTime(2025, 9, 20), new DateTime(2025, 9, 21, 9, 0, 0)], set.Lots.Select(l => l.InoculationDate));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.NotADate);
+    }
 }

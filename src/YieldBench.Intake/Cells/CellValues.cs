@@ -260,6 +260,15 @@ internal static partial class CellValues
     {
         value = default;
         dayFirst = monthFirst = null;
+        if (SerialText().IsMatch(s) && double.TryParse(s.Replace(',', '.'), NumberStyles.Float, CultureInfo.InvariantCulture, out double serial)
+            && serial is >= MinSerialDate and <= MaxSerialDate)
+        {
+            // A date column saved to CSV by a spreadsheet that held its dates as plain numbers ("45920"): the serial
+            // day number, as in a workbook cell.
+            value = DateTime.FromOADate(serial);
+            return CellProblem.None;
+        }
+
         if (IsoDate().Match(s) is { Success: true } iso)
         {
             return MakeDate(iso.Groups["y"].Value, iso.Groups["m"].Value, iso.Groups["d"].Value, iso, out value) ? CellProblem.None : CellProblem.NotADate;
@@ -401,6 +410,9 @@ internal static partial class CellValues
                 return CellProblem.NotATime;
         }
     }
+
+    [GeneratedRegex(@"^[0-9]{5}(?:[.,][0-9]+)?$")]
+    private static partial Regex SerialText();
 
     [GeneratedRegex(@"^[0-9]{1,3}(,[0-9]{3})+$")]
     private static partial Regex ThousandsWithComma();
