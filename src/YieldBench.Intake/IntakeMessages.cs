@@ -150,8 +150,12 @@ public static class IntakeMessages
     internal static string ForEveryLotColumn(int columns) =>
         columns > 1 ? $" The same unit was taken for all {columns} lot columns that state none." : "";
 
-    internal static string UnitFromValues(string unit, double low, double high, string example) =>
-        $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+    internal static string UnitFromValues(string unit, double low, double high, string example) => unit == "SG × 1000"
+        ? $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like specific gravity written in thousandths (1090 for SG 1.090, as cellars often note must density; no must holds that much sugar in g/L), so they were read as SG × 1000. To make it certain, write them as SG (1.090) under a header such as '{example.Replace("SG × 1000", "SG", StringComparison.Ordinal)}'."
+        : $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string GravityInThousandths(double low, double high) =>
+        $"The header names specific gravity and the values ({Num(low)} to {Num(high)}) are SG written in thousandths (1090 for SG 1.090), so they were read so. Write them as 1.090 to make it certain.";
 
     internal static string MaybeBaume() =>
         " Values of 8 to 16 are also what °Baumé gives for a must; if these are °Baumé, head the column 'Starting sugar (°Baumé)', or every lot will read as making more alcohol than its sugar can.";

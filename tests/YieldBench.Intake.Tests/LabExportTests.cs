@@ -97,4 +97,37 @@ public class LabExportTests
         Assert.Equal([new DateTime(2025, 9, 20), new DateTime(2025, 9, 21, 9, 0, 0)], set.Lots.Select(l => l.InoculationDate));
         Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.NotADate);
     }
+
+    [Fact]
+    public void A_must_density_noted_in_thousandths_is_read_as_specific_gravity_and_said()
+    {
+        // Given a French cellar export whose "Densité moût" holds 1090, 1104 (SG 1.090, 1.104) with no unit, tab-separated
+        using var folder = new TestFolder();
+        folder.Text("cave-2024.csv", "Lot\tLevure\tDensité moût\tTAV (% vol)\n24-01\tLV-21\t1090\t12,6\n24-02\tLV-21\t1104\t14,3\n");
+
+        // When it is read
+        var set = folder.Read("cave-2024.csv");
+
+        // Then the lots are used at SG 1.090 and 1.104 (kept as SG), and the reading of the column is said once
+        Assert.Equal([1.090, 1.104], set.Lots.Select(l => Math.Round(l.StartingSugar.SpecificGravity, 4)));
+        Assert.Equal([1.090, 1.104], set.Lots.Select(l => l.RecordedStartingSugar.Value));
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.UnitFromValues);
+        Assert.Contains("SG × 1000", issue.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Fact]
+    public void A_log_of_densities_in_thousandths_down_to_below_1000_is_read_as_specific_gravity()
+    {
+        // Given a log whose density column runs from 1092 down to 994 (SG 1.092 to 0.994)
+        using var folder = new TestFolder();
+        folder.Text("suivi-2024.csv", "Lot;Date;Density\n24-01;2024-09-10;1092\n24-01;2024-09-14;1040\n24-01;2024-09-20;994\n");
+
+        // When it is read
+        var set = folder.Read("suivi-2024.csv");
+
+        // Then every reading is used, as SG
+        Assert.Equal([1.092, 1.040, 0.994], Assert.Single(set.Logs).Readings.Select(r => Math.Round(r.Sugar!.Value.SpecificGravity, 4)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
 }

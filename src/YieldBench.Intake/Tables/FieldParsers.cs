@@ -429,13 +429,14 @@ internal static class FieldParsers
         }
 
         double min = f.Min ?? SugarReading.MinBrix, max = f.Max ?? SugarReading.MaxBrix;
-        if (!SugarReading.TryFrom(raw, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
+        double onScale = ColumnUnits.OnScale(raw, c.Unit);
+        if (!SugarReading.TryFrom(onScale, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
         {
             st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
             return null;
         }
 
-        recorded = raw;
+        recorded = onScale;
         return reading;
     }
 
