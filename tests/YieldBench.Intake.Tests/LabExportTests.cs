@@ -1,4 +1,5 @@
 using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
 
 namespace YieldBench.Intake.Tests;
 
@@ -129,5 +130,43 @@ public class LabExportTests
         // Then every reading is used, as SG
         Assert.Equal([1.092, 1.040, 0.994], Assert.Single(set.Logs).Readings.Select(r => Math.Round(r.Sugar!.Value.SpecificGravity, 4)));
         Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Fact]
+    public void A_spanish_lots_sheet_in_baume_is_read_from_its_own_headers()
+    {
+        // Given a Spanish cellar's lots with Baumé, a water addition and a sowing (inoculation) date
+        using var folder = new TestFolder();
+        folder.Text("lotes.csv", "Lote;Añada;Depósito;Levadura;Grado Baumé;Volumen (L);Agua añadida (L);Grado alcohólico;Azúcares residuales (g/L);Fecha siembra\n"
+            + "0121;2023;D1;TN-5;13,4;5000;0;14,3;1,8;2023-09-06\n");
+
+        // When it is read
+        var set = folder.Read("lotes.csv");
+
+        // Then every column is mapped to its field and the lot is read with its values
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal(("0121", 2023, "D1", "TN-5", 14.3, 1.8), (lot.LotId, lot.Season, lot.Vessel, lot.Strain, lot.FinalAlcohol.PercentVolume, lot.ResidualSugarGl));
+        Assert.Equal((13.4, SugarScale.Baume), (lot.RecordedStartingSugar.Value, lot.RecordedStartingSugar.Scale));
+        Assert.Equal(new DateTime(2023, 9, 6), lot.InoculationDate);
+        Assert.Equal((5000.0, 0.0), (lot.Additions.MustVolumeL, lot.Additions.WaterAddedL));
+    }
+
+    [Fact]
+    public void An_italian_sheet_with_must_and_wine_groups_is_read_from_its_own_headers()
+    {
+        // Given an Italian lab book: "Mosto" over must sugar (g/L), water and sucrose; "Vino" over alcohol and residual sugar
+        using var folder = new TestFolder();
+        folder.Text("cantina-2024.csv", ",,,Mosto,,,Vino,\nLotto,Vasca,Lievito,Zuccheri (g/L),Acqua aggiunta (L),Saccarosio (kg),Alcol (% vol),Zuccheri residui (g/L)\n"
+            + "IT01,V1,VR-8,228,0,0,13.3,1.5\n");
+
+        // When it is read
+        var set = folder.Read("cantina-2024.csv");
+
+        // Then must sugar is the starting sugar in g/L and the wine's sugar the residual sugar
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal((228.0, SugarScale.GramsPerLitre), (lot.RecordedStartingSugar.Value, lot.RecordedStartingSugar.Scale));
+        Assert.Equal((13.3, 1.5, "V1", "VR-8"), (lot.FinalAlcohol.PercentVolume, lot.ResidualSugarGl, lot.Vessel, lot.Strain));
     }
 }
