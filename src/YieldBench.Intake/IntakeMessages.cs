@@ -299,6 +299,9 @@ public static class IntakeMessages
     internal static string LogWithoutLot(string lotId, string season) =>
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
 
+    internal static string LeadingZeroTwin(string lotId, string logId) =>
+        $" Lot '{lotId}' differs only in leading zeros: a spreadsheet drops them from an id typed as a number. If it is the same lot, write the id the same way in both files (as text, e.g. '{lotId}, to keep the zero).";
+
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
         $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";
 

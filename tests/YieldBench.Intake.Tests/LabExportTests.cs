@@ -169,4 +169,21 @@ public class LabExportTests
         Assert.Equal((228.0, SugarScale.GramsPerLitre), (lot.RecordedStartingSugar.Value, lot.RecordedStartingSugar.Scale));
         Assert.Equal((13.3, 1.5, "V1", "VR-8"), (lot.FinalAlcohol.PercentVolume, lot.ResidualSugarGl, lot.Vessel, lot.Strain));
     }
+
+    [Fact]
+    public void A_log_whose_lot_id_lost_its_leading_zero_names_the_lot_it_may_be()
+    {
+        // Given lots typed as text "0122" and a log where the same id was typed as a number, 122
+        using var folder = new TestFolder();
+        folder.Text("lots-2023.csv", "Lot,Yeast,Brix,Alcohol\n0122,QX-7,24.0,14.1\n");
+        folder.Text("log-2023.csv", "Lot,Date,Brix\n122,2023-09-06,24.0\n122,2023-09-12,0.5\n");
+
+        // When both are read
+        var set = folder.Read("lots-2023.csv", "log-2023.csv");
+
+        // Then the log is not joined by a guess, and the warning names lot 0122 and the fix
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.LogWithoutLot);
+        Assert.Contains("Lot '0122' differs only in leading zeros", issue.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(set.Logs, l => l.LotId == "0122");
+    }
 }
