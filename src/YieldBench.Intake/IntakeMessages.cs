@@ -284,6 +284,9 @@ public static class IntakeMessages
     internal static string DuplicateLot(string lotId, int season, string firstAt) =>
         $"Lot '{lotId}' of season {season.ToString(Inv)} was already read at {firstAt}; this row was left out. Give each lot its own id, or delete the repeated row.";
 
+    internal static string DuplicateLotInOtherVessel(string lotId, string firstVessel, string vessel) =>
+        $" The two rows name different vessels ({firstVessel} and {vessel}): if the lot was split across them, give each part its own id (e.g. {lotId}-{vessel}) so both are reviewed, or enter the lot once.";
+
     internal static string SummaryRow() =>
         "The row looks like a summary (average, total…), not a lot; it was skipped.";
 

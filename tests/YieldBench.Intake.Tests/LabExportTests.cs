@@ -186,4 +186,22 @@ public class LabExportTests
         Assert.Contains("Lot '0122' differs only in leading zeros", issue.Message, StringComparison.Ordinal);
         Assert.DoesNotContain(set.Logs, l => l.LotId == "0122");
     }
+
+    [Fact]
+    public void A_lot_split_into_two_tanks_under_one_id_is_reported_with_how_to_keep_both()
+    {
+        // Given lot 22CS03 entered twice, once for tank T3A and once for T3B
+        using var folder = new TestFolder();
+        folder.Text("lab-2022.csv", "Lot,Tank,Yeast,Brix,Alcohol\n22CS03,T3A,BK-11,25.4,15.0\n22CS03,T3B,BK-11,25.4,15.0\n");
+
+        // When it is read
+        var set = folder.Read("lab-2022.csv");
+
+        // Then the first is kept, and the error on the second names both tanks and a split id to give
+        Assert.Equal("T3A", Assert.Single(set.Lots).Vessel);
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateLot);
+        Assert.Equal(3, issue.Row);
+        Assert.Contains("different vessels (T3A and T3B)", issue.Message, StringComparison.Ordinal);
+        Assert.Contains("22CS03-T3B", issue.Message, StringComparison.Ordinal);
+    }
 }
