@@ -267,8 +267,12 @@ public static class IntakeMessages
     internal static string FormulaWithoutValue(string field, string formula) =>
         $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";
 
-    internal static string NotADate(string field) =>
-        $"{field} is not a date. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+    internal static string NotADate(string field, string? why = null) =>
+        $"{field} is not a date{why}. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+
+    internal const string WeekdayWithoutDate = ": it names a day of the week but no date, and a weekday does not say which week";
+
+    internal const string DateWithoutYear = ": it has a day and month but no year";
 
     internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>
         $"{field} could be {dayFirst} (day first) or {monthFirst} (month first), and no other date in the column settles the order. Write it as year-month-day.";

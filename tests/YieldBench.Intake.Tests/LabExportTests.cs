@@ -204,4 +204,23 @@ public class LabExportTests
         Assert.Contains("different vessels (T3A and T3B)", issue.Message, StringComparison.Ordinal);
         Assert.Contains("22CS03-T3B", issue.Message, StringComparison.Ordinal);
     }
+
+    [Theory]
+    [InlineData("Mon 8am", "is not a date: it names a day of the week but no date")]
+    [InlineData("9/15 8am", "is not a date: it has a day and month but no year")]
+    [InlineData("someday", "is not a date. Write dates")]
+    public void An_inoculation_written_without_a_full_date_says_what_it_lacks(string text, string expected)
+    {
+        // Given a running-lots table whose inoculation is typed as on a whiteboard
+        using var folder = new TestFolder();
+        folder.Text("now-2026.csv", $"Lot,Yeast,Brix,Inoculated\nR1,QX-7,24.8,{text}\n");
+
+        // When it is read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, "now-2026.csv");
+
+        // Then the lot is used without an inoculation date, and the warning says what the text lacks
+        Assert.Null(Assert.Single(set.RunningLots).InoculationDate);
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotADate);
+        Assert.Contains("inoculation_date " + expected, issue.Message, StringComparison.Ordinal);
+    }
 }
