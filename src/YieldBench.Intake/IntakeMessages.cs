@@ -150,8 +150,12 @@ public static class IntakeMessages
     internal static string ForEveryLotColumn(int columns) =>
         columns > 1 ? $" The same unit was taken for all {columns} lot columns that state none." : "";
 
-    internal static string UnitFromValues(string unit, double low, double high, string example) =>
-        $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+    internal static string UnitFromValues(string unit, double low, double high, string example) => unit == "SG × 1000"
+        ? $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like specific gravity written in thousandths (1090 for SG 1.090, as cellars often note must density; no must holds that much sugar in g/L), so they were read as SG × 1000. To make it certain, write them as SG (1.090) under a header such as '{example.Replace("SG × 1000", "SG", StringComparison.Ordinal)}'."
+        : $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string GravityInThousandths(double low, double high) =>
+        $"The header names specific gravity and the values ({Num(low)} to {Num(high)}) are SG written in thousandths (1090 for SG 1.090), so they were read so. Write them as 1.090 to make it certain.";
 
     internal static string MaybeBaume() =>
         " Values of 8 to 16 are also what °Baumé gives for a must; if these are °Baumé, head the column 'Starting sugar (°Baumé)', or every lot will read as making more alcohol than its sugar can.";
@@ -186,6 +190,12 @@ public static class IntakeMessages
 
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
+
+    internal static string BelowLabLimit(string field) =>
+        $"{field} is recorded as below the lab's limit (not detected, or dry); the review takes a {field} left empty as 0 g/L (dry). Enter the lab's number if it gave one.";
+
+    internal static string LabLimitTooHigh(string field, string limit, string dry) =>
+        $"{field} is recorded only as below {limit} g/L, which cannot tell a dry wine from one that stopped short (the review counts a wine as dry up to {dry} g/L), so the row was left out. Enter the lab's number.";
 
     internal static string NotANumber(string field, string example = "24.3") =>
         $"{field} is not a number. Enter a plain number such as {example} (a decimal comma is read too, in files that use it).";
@@ -288,6 +298,9 @@ public static class IntakeMessages
 
     internal static string LogWithoutLot(string lotId, string season) =>
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
+
+    internal static string LeadingZeroTwin(string lotId, string logId) =>
+        $" Lot '{lotId}' differs only in leading zeros: a spreadsheet drops them from an id typed as a number. If it is the same lot, write the id the same way in both files (as text, e.g. '{lotId}, to keep the zero).";
 
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
         $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";
