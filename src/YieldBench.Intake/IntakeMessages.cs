@@ -150,8 +150,12 @@ public static class IntakeMessages
     internal static string ForEveryLotColumn(int columns) =>
         columns > 1 ? $" The same unit was taken for all {columns} lot columns that state none." : "";
 
-    internal static string UnitFromValues(string unit, double low, double high, string example) =>
-        $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+    internal static string UnitFromValues(string unit, double low, double high, string example) => unit == "SG × 1000"
+        ? $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like specific gravity written in thousandths (1090 for SG 1.090, as cellars often note must density; no must holds that much sugar in g/L), so they were read as SG × 1000. To make it certain, write them as SG (1.090) under a header such as '{example.Replace("SG × 1000", "SG", StringComparison.Ordinal)}'."
+        : $"The header gives no unit; the values ({Num(low)} to {Num(high)}) look like {unit}, so they were read as {unit}. State the unit in the header, e.g. '{example}'.";
+
+    internal static string GravityInThousandths(double low, double high) =>
+        $"The header names specific gravity and the values ({Num(low)} to {Num(high)}) are SG written in thousandths (1090 for SG 1.090), so they were read so. Write them as 1.090 to make it certain.";
 
     internal static string MaybeBaume() =>
         " Values of 8 to 16 are also what °Baumé gives for a must; if these are °Baumé, head the column 'Starting sugar (°Baumé)', or every lot will read as making more alcohol than its sugar can.";
@@ -186,6 +190,12 @@ public static class IntakeMessages
 
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
+
+    internal static string BelowLabLimit(string field) =>
+        $"{field} is recorded as below the lab's limit (not detected, or dry); the review takes a {field} left empty as 0 g/L (dry). Enter the lab's number if it gave one.";
+
+    internal static string LabLimitTooHigh(string field, string limit, string dry) =>
+        $"{field} is recorded only as below {limit} g/L, which cannot tell a dry wine from one that stopped short (the review counts a wine as dry up to {dry} g/L), so the row was left out. Enter the lab's number.";
 
     internal static string NotANumber(string field, string example = "24.3") =>
         $"{field} is not a number. Enter a plain number such as {example} (a decimal comma is read too, in files that use it).";
@@ -257,8 +267,12 @@ public static class IntakeMessages
     internal static string FormulaWithoutValue(string field, string formula) =>
         $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";
 
-    internal static string NotADate(string field) =>
-        $"{field} is not a date. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+    internal static string NotADate(string field, string? why = null) =>
+        $"{field} is not a date{why}. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+
+    internal const string WeekdayWithoutDate = ": it names a day of the week but no date, and a weekday does not say which week";
+
+    internal const string DateWithoutYear = ": it has a day and month but no year";
 
     internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>
         $"{field} could be {dayFirst} (day first) or {monthFirst} (month first), and no other date in the column settles the order. Write it as year-month-day.";
@@ -274,6 +288,9 @@ public static class IntakeMessages
     internal static string DuplicateLot(string lotId, int season, string firstAt) =>
         $"Lot '{lotId}' of season {season.ToString(Inv)} was already read at {firstAt}; this row was left out. Give each lot its own id, or delete the repeated row.";
 
+    internal static string DuplicateLotInOtherVessel(string lotId, string firstVessel, string vessel) =>
+        $" The two rows name different vessels ({firstVessel} and {vessel}): if the lot was split across them, give each part its own id (e.g. {lotId}-{vessel}) so both are reviewed, or enter the lot once.";
+
     internal static string SummaryRow() =>
         "The row looks like a summary (average, total…), not a lot; it was skipped.";
 
@@ -288,6 +305,9 @@ public static class IntakeMessages
 
     internal static string LogWithoutLot(string lotId, string season) =>
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
+
+    internal static string LeadingZeroTwin(string lotId, string logId) =>
+        $" Lot '{lotId}' differs only in leading zeros: a spreadsheet drops them from an id typed as a number. If it is the same lot, write the id the same way in both files (as text, e.g. '{lotId}, to keep the zero).";
 
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
         $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";

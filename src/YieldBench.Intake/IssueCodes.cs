@@ -120,6 +120,9 @@ public static class IssueCodes
     /// <summary><c>unit-in-cell-differs</c>.</summary>
     public const string UnitInCellDiffers = "unit-in-cell-differs";
 
+    /// <summary><c>below-lab-limit</c>.</summary>
+    public const string BelowLabLimit = "below-lab-limit";
+
     /// <summary><c>fahrenheit-in-celsius-column</c>.</summary>
     public const string FahrenheitInCelsiusColumn = "fahrenheit-in-celsius-column";
 

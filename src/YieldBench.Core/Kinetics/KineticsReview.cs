@@ -135,6 +135,9 @@ public sealed record LotKinetics
     /// <summary>Thresholds applied (by colour).</summary>
     public required TemperatureThresholds Thresholds { get; init; }
 
+    /// <summary>The settings the lot was analysed with (the smoothing window and heat constants the series below are made with).</summary>
+    public required KineticsSettings Settings { get; init; }
+
     /// <summary>Time zero.</summary>
     public required DateTime Origin { get; init; }
 
@@ -147,11 +150,17 @@ public sealed record LotKinetics
     /// <summary>Temperature readings, sorted, duplicates merged.</summary>
     public required IReadOnlyList<TemperaturePoint> Temperatures { get; init; }
 
-    /// <summary>Rates between consecutive sugar readings.</summary>
-    public required IReadOnlyList<RateInterval> Rates { get; init; }
+    /// <summary>
+    /// Rates between consecutive sugar readings, made from <see cref="Sugar"/> on each call (not held: at 100,000 lots
+    /// the held per-reading series were a large part of the review's memory).
+    /// </summary>
+    public IReadOnlyList<RateInterval> Rates => LotAnalysis.RatesBetween(Sugar);
 
-    /// <summary>Smoothed rates at each sugar reading (local linear fit over <see cref="KineticsSettings.SmoothingWindowHours"/>).</summary>
-    public required IReadOnlyList<SmoothedRate> SmoothedRates { get; init; }
+    /// <summary>
+    /// Smoothed rates at each sugar reading (local linear fit over <see cref="KineticsSettings.SmoothingWindowHours"/>),
+    /// made from <see cref="Sugar"/> on each call.
+    /// </summary>
+    public IReadOnlyList<SmoothedRate> SmoothedRates => LotAnalysis.SmoothedRates(Sugar, Settings.SmoothingWindowHours);
 
     /// <summary>True when the log is dense probe data (median spacing at or below the setting).</summary>
     public required bool Dense { get; init; }
@@ -247,8 +256,8 @@ public sealed record LotKinetics
     /// </summary>
     public StallEpisode? StalledThenFinished { get; init; }
 
-    /// <summary>Heat potential at every sugar reading with a temperature.</summary>
-    public required IReadOnlyList<HeatPoint> Heat { get; init; }
+    /// <summary>Heat potential at every sugar reading with a temperature, made from <see cref="Sugar"/> on each call.</summary>
+    public IReadOnlyList<HeatPoint> Heat => LotAnalysis.HeatPoints(Sugar, Settings);
 
     /// <summary>Sugar readings at which the temperature reachable without cooling passes the danger threshold.</summary>
     public required int ReadingsWithPotentialAboveDanger { get; init; }

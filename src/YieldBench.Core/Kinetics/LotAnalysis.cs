@@ -34,7 +34,7 @@ internal static class LotAnalysis
         SourceRef? FirstSource);
 
     /// <summary>The maximum rate and how it was taken.</summary>
-    private sealed record MaxRate(RateInterval[] Rates, SmoothedRate[] Smoothed, bool Dense, double MedianSpacing, RateMethod Method, double? Rate, DateTime? At);
+    private sealed record MaxRate(bool Dense, double MedianSpacing, RateMethod Method, double? Rate, DateTime? At);
 
     /// <summary>Peak temperature and the time above the thresholds.</summary>
     private sealed record Exposure(double? Peak, DateTime? PeakAt, double AboveCaution, double AboveDanger);
@@ -43,7 +43,7 @@ internal static class LotAnalysis
     private sealed record Stalls(StallEpisode? Stuck, StallEpisode? Restarted, StallEpisode? Sluggish);
 
     /// <summary>The heat potential along the log.</summary>
-    private sealed record HeatResult(List<HeatPoint> Points, HeatPoint? PotentialPeak, double? Removed, int ReadingsAboveDanger);
+    private sealed record HeatResult(HeatPoint? PotentialPeak, double? Removed, int ReadingsAboveDanger);
 
     /// <summary>Analyses one lot's readings; null (with a finding) when fewer than two sugar readings remain.</summary>
     public static LotKinetics? Analyse(LotConversion conversion, IReadOnlyList<LogReading> raw, KineticsSettings s, List<KineticsFinding> findings)
@@ -66,7 +66,7 @@ internal static class LotAnalysis
         var bx = sugar.Select(p => p.Brix).ToArray();
 
         CheckRises(sugar, cx);
-        var rate = FastestRate(sugar, hrs, bx, s);
+        var rate = FastestRate(sugar, s);
         double start = bx[0];
         var (lagHours, lagEnd) = Lag(sugar, hrs, bx, origin, cx);
 
@@ -126,10 +126,9 @@ internal static class LotAnalysis
             Thresholds = th,
             Origin = origin,
             OriginKind = originKind,
+            Settings = s,
             Sugar = sugar,
             Temperatures = temps,
-            Rates = rate.Rates,
-            SmoothedRates = rate.Smoothed,
             Dense = rate.Dense,
             MedianSpacingHours = rate.MedianSpacing,
             MaxRateMethod = rate.Method,
@@ -157,7 +156,6 @@ internal static class LotAnalysis
             Sluggish = stalls.Sluggish,
             Stuck = stalls.Stuck,
             StalledThenFinished = stalls.Restarted,
-            Heat = heat.Points,
             ReadingsWithPotentialAboveDanger = heat.ReadingsAboveDanger,
             PotentialPeak = heat.PotentialPeak,
             HeatRemovedK = heat.Removed,
@@ -261,19 +259,13 @@ internal static class LotAnalysis
     /// The rates between readings, the smoothed rates, and the maximum: from the smoothed rate on dense probe logs, else
     /// (or when no window held three readings) from the rates between readings.
     /// </summary>
-    private static MaxRate FastestRate(SugarPoint[] sugar, double[] hrs, double[] bx, KineticsSettings s)
+    private static MaxRate FastestRate(SugarPoint[] sugar, KineticsSettings s)
     {
-        var rates = new RateInterval[sugar.Length - 1];
-        for (int i = 1; i < sugar.Length; i++)
-        {
-            rates[i - 1] = new RateInterval(sugar[i - 1].Time, sugar[i].Time, hrs[i] - hrs[i - 1], bx[i - 1], bx[i]);
-        }
-
+        var rates = RatesBetween(sugar);
         var gaps = Descriptive.ToSortedArray(rates.Select(r => r.ElapsedHours));
         double medianSpacing = Descriptive.MedianOfSorted(gaps);
         bool dense = medianSpacing <= s.DenseSpacingHours;
-        var local = KineticsAnalysis.LocalLinearRates(hrs, bx, s.SmoothingWindowHours);
-        var smoothed = sugar.Select((p, i) => new SmoothedRate(p.Time, p.Brix, local[i])).ToArray();
+        var smoothed = dense ? SmoothedRates(sugar, s.SmoothingWindowHours) : [];
 
         double? maxRate = null;
         DateTime? maxAt = null;
@@ -303,7 +295,7 @@ internal static class LotAnalysis
             }
         }
 
-        return new MaxRate(rates, smoothed, dense, medianSpacing, method, maxRate, maxAt);
+        return new MaxRate(dense, medianSpacing, method, maxRate, maxAt);
     }
 
     /// <summary>Lag: the sugar first falls <see cref="KineticsSettings.LagDropBrix"/> below the start and never comes back above that level.</summary>
@@ -412,8 +404,49 @@ internal static class LotAnalysis
     /// </summary>
     private static HeatResult Heat(SugarPoint[] sugar, double? peak, TemperatureThresholds th, Context cx)
     {
-        var s = cx.Settings;
-        var heat = new List<HeatPoint>(sugar.Length);
+        var heat = HeatPoints(sugar, cx.Settings);
+        HeatPoint? potentialPeak = heat.Length == 0 ? null : heat.Aggregate((a, b) => b.PotentialTemperatureC > a.PotentialTemperatureC ? b : a);
+        double? removed = potentialPeak is { } pp && peak is not null ? pp.PotentialTemperatureC - peak.Value : null;
+        int hotIndex = Array.FindIndex(heat, h => h.PotentialTemperatureC > th.DangerC);
+        int hotReadings = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
+        if (hotIndex >= 0)
+        {
+            // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
+            // reminder of the cooling the lot depended on, not a sign that something went wrong.
+            var hot = heat[hotIndex];
+            string observed = peak is { } pk ? $" The logged peak was {T(cx, pk)}, so about {Rise(cx, removed!.Value)} of the potential was removed by the vessel, cap management and cooling." : string.Empty;
+            cx.Report(KineticsCodes.HeatPotentialAboveDanger, $"Lot {cx.Key}: at {F(hot.Brix)} °Brix and {T(cx, hot.TemperatureC)} this lot could have reached {T(cx, hot.PotentialTemperatureC)} without cooling ({Stamp(hot.Time)}; {hotReadings} reading(s) above the {T(cx, th.DangerC)} danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source, flag: false);
+        }
+
+        return new HeatResult(potentialPeak, removed, hotReadings);
+    }
+
+    /// <summary>The rates between consecutive sugar readings, on the real time between them.</summary>
+    internal static RateInterval[] RatesBetween(IReadOnlyList<SugarPoint> sugar)
+    {
+        var rates = new RateInterval[Math.Max(0, sugar.Count - 1)];
+        for (int i = 1; i < sugar.Count; i++)
+        {
+            rates[i - 1] = new RateInterval(sugar[i - 1].Time, sugar[i].Time, sugar[i].Hours - sugar[i - 1].Hours, sugar[i - 1].Brix, sugar[i].Brix);
+        }
+
+        return rates;
+    }
+
+    /// <summary>The smoothed rate at each sugar reading: a local linear fit over a centred window of <paramref name="windowHours"/>.</summary>
+    internal static SmoothedRate[] SmoothedRates(IReadOnlyList<SugarPoint> sugar, double windowHours)
+    {
+        var local = KineticsAnalysis.LocalLinearRates(sugar.Select(p => p.Hours).ToArray(), sugar.Select(p => p.Brix).ToArray(), windowHours);
+        return sugar.Select((p, i) => new SmoothedRate(p.Time, p.Brix, local[i])).ToArray();
+    }
+
+    /// <summary>
+    /// The temperature each sugar reading with a temperature could reach if its remaining sugar fermented with no heat
+    /// removed, the must's heat capacity taken at the reading's °Brix (lowest at the start, so the rise is not understated).
+    /// </summary>
+    internal static HeatPoint[] HeatPoints(IReadOnlyList<SugarPoint> sugar, KineticsSettings s)
+    {
+        var heat = new List<HeatPoint>(sugar.Count);
         foreach (var p in sugar)
         {
             if (p.TemperatureC is not { } c)
@@ -426,20 +459,7 @@ internal static class LotAnalysis
             heat.Add(new HeatPoint(p.Time, p.Brix, c, gl, FermentationHeat.PotentialRiseK(gl, FermentationHeat.MustDensityKgPerL(reading), s.HeatOfFermentationKjPerMol, s.MustHeatCapacityAt(p.Brix))));
         }
 
-        HeatPoint? potentialPeak = heat.Count == 0 ? null : heat.Aggregate((a, b) => b.PotentialTemperatureC > a.PotentialTemperatureC ? b : a);
-        double? removed = potentialPeak is { } pp && peak is not null ? pp.PotentialTemperatureC - peak.Value : null;
-        int hotIndex = heat.FindIndex(h => h.PotentialTemperatureC > th.DangerC);
-        int hotReadings = heat.Count(h => h.PotentialTemperatureC > th.DangerC);
-        if (hotIndex >= 0)
-        {
-            // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
-            // reminder of the cooling the lot depended on, not a sign that something went wrong.
-            var hot = heat[hotIndex];
-            string observed = peak is { } pk ? $" The logged peak was {T(cx, pk)}, so about {Rise(cx, removed!.Value)} of the potential was removed by the vessel, cap management and cooling." : string.Empty;
-            cx.Report(KineticsCodes.HeatPotentialAboveDanger, $"Lot {cx.Key}: at {F(hot.Brix)} °Brix and {T(cx, hot.TemperatureC)} this lot could have reached {T(cx, hot.PotentialTemperatureC)} without cooling ({Stamp(hot.Time)}; {hotReadings} reading(s) above the {T(cx, th.DangerC)} danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source, flag: false);
-        }
-
-        return new HeatResult(heat, potentialPeak, removed, hotReadings);
+        return [.. heat];
     }
 
     private static string Stamp(DateTime t) => t.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture);

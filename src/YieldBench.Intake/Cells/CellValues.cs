@@ -82,14 +82,25 @@ internal static partial class CellValues
     }
 
     /// <summary>
-    /// A number followed by a unit in one text cell ("24.5 Bx", "1.4 g/L", "13.8 % vol"): the number and the unit text,
-    /// or null when the text is not of that form.
+    /// A number followed by a unit in one text cell ("24.5 Bx", "1.4 g/L", "13.8 % vol"), or a sugar scale written
+    /// before the number as hydrometer readings are often noted ("SG 1.045", "Bx 12", "°Oe: 85"): the number and the
+    /// unit text, or null when the text is not of that form.
     /// </summary>
     public static (string Number, string Unit)? SplitUnit(string text)
     {
-        var m = NumberThenUnit().Match(text.Trim());
-        return m.Success ? (m.Groups[1].Value, m.Groups[2].Value.Trim()) : null;
+        string t = text.Trim();
+        var m = NumberThenUnit().Match(t);
+        if (m.Success)
+        {
+            return (m.Groups[1].Value, m.Groups[2].Value.Trim());
+        }
+
+        m = ScaleThenNumber().Match(t);
+        return m.Success ? (m.Groups[2].Value, m.Groups[1].Value.Trim()) : null;
     }
+
+    [GeneratedRegex(@"^([°º]?\s*(?:sg|bx|brix|be|baum[eé]|oe|oechsle))\s*[:=]?\s*([-+\u2212]?[0-9][0-9.,]*)$", RegexOptions.CultureInvariant | RegexOptions.IgnoreCase)]
+    private static partial Regex ScaleThenNumber();
 
     [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0 ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
     private static partial Regex NumberThenUnit();
@@ -249,6 +260,15 @@ internal static partial class CellValues
     {
         value = default;
         dayFirst = monthFirst = null;
+        if (SerialText().IsMatch(s) && double.TryParse(s.Replace(',', '.'), NumberStyles.Float, CultureInfo.InvariantCulture, out double serial)
+            && serial is >= MinSerialDate and <= MaxSerialDate)
+        {
+            // A date column saved to CSV by a spreadsheet that held its dates as plain numbers ("45920"): the serial
+            // day number, as in a workbook cell.
+            value = DateTime.FromOADate(serial);
+            return CellProblem.None;
+        }
+
         if (IsoDate().Match(s) is { Success: true } iso)
         {
             return MakeDate(iso.Groups["y"].Value, iso.Groups["m"].Value, iso.Groups["d"].Value, iso, out value) ? CellProblem.None : CellProblem.NotADate;
@@ -390,6 +410,9 @@ internal static partial class CellValues
                 return CellProblem.NotATime;
         }
     }
+
+    [GeneratedRegex(@"^[0-9]{5}(?:[.,][0-9]+)?$")]
+    private static partial Regex SerialText();
 
     [GeneratedRegex(@"^[0-9]{1,3}(,[0-9]{3})+$")]
     private static partial Regex ThousandsWithComma();

@@ -24,6 +24,9 @@ internal enum ColumnUnit
 
     /// <summary>Residual sugar written as a percentage, g per 100 mL (× 10 → g/L).</summary>
     GramsPer100Millilitre,
+
+    /// <summary>Specific gravity written in thousandths, as many cellars note must density ("1090" for SG 1.090).</summary>
+    GravityThousandths,
 }
 
 /// <summary>Unit labels and conversions to the unit each field is held in.</summary>
@@ -50,12 +53,13 @@ internal static class ColumnUnits
         ColumnUnit.Gram => "g",
         ColumnUnit.Pound => "lb",
         ColumnUnit.GramsPer100Millilitre => "g/100 mL",
+        ColumnUnit.GravityThousandths => "SG × 1000",
         _ => "",
     };
 
     public static SugarScale Scale(ColumnUnit unit) => unit switch
     {
-        ColumnUnit.SpecificGravity => SugarScale.SpecificGravity,
+        ColumnUnit.SpecificGravity or ColumnUnit.GravityThousandths => SugarScale.SpecificGravity,
         ColumnUnit.Baume => SugarScale.Baume,
         ColumnUnit.Oechsle => SugarScale.Oechsle,
         ColumnUnit.SugarGramsPerLitre => SugarScale.GramsPerLitre,
@@ -74,6 +78,9 @@ internal static class ColumnUnits
         ColumnUnit.GramsPer100Millilitre => Math.Round(value * 10.0, 10), // drops the binary error of × 10 (0.09 → 0.9, not 0.8999…)
         _ => value,
     };
+
+    /// <summary>A sugar value in the number its scale reads (SG for SG × 1000); other units pass through.</summary>
+    public static double OnScale(double value, ColumnUnit unit) => unit == ColumnUnit.GravityThousandths ? value / 1000.0 : value;
 
     /// <summary>The unit assumed when a header states none.</summary>
     public static ColumnUnit DefaultFor(FieldKind kind) => kind switch

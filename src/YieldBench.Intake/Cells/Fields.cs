@@ -53,32 +53,34 @@ internal static class Fields
     [
         "lot", "lot id", "lotid", "lot no", "lot nr", "lot num", "lot number", "lot code", "lot name", "lot ref",
         "lot reference", "wine lot", "batch", "batch id", "batch no", "batch number", "batch code", "id", "ferment id",
-        "fermentation id", "fermentation lot", "lot label", "code", "los", "partie",
+        "fermentation id", "fermentation lot", "lot label", "code", "los", "partie", "lote", "lotto", "partida",
     ];
 
     // In a fermentation log the tank a reading was taken from is how the cellar names the lot (a log has no vessel field).
-    private static readonly string[] LogTankWords = ["tank", "tank no", "tank nr", "tank number", "tank id", "vessel", "vessel id", "fermenter", "fermentor", "cuve", "behalter"];
+    private static readonly string[] LogTankWords = ["tank", "tank no", "tank nr", "tank number", "tank id", "vessel", "vessel id", "fermenter", "fermentor", "cuve", "behalter", "deposito", "vasca", "cuba", "tina"];
 
     private static readonly string[] SeasonWords =
     [
         "season", "vintage", "year", "harvest", "harvest year", "vintage year", "crop year", "crush year", "season year", "millesime", "jahrgang",
+        "anada", "cosecha", "vendimia", "annata", "vendemmia", "millesimo", "vendange",
     ];
 
     private static readonly string[] StartPrefixes =
     [
         "", "start", "starting", "initial", "init", "must", "juice", "harvest", "crush", "at crush", "original",
         "beginning", "begin", "pre ferment", "pre fermentation", "prefermentation", "incoming", "fruit", "grape",
-        "receival", "intake", "inoculation", "pre", "mout",
+        "receival", "intake", "inoculation", "pre", "mout", "mosto", "grado", "grados",
     ];
 
     private static readonly string[] SugarCores =
     [
         "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "degrees brix", "deg brix", "degre brix", "degres brix", "mostgewicht",
         "sugar", "sugars", "density", "gravity", "must weight", "sugar content", "densite",
+        "densidad", "densita", "azucar", "azucares", "zuccheri", "zucchero",
     ];
 
     // Bare words that alone are too vague for a starting sugar (they could equally be a final reading).
-    private static readonly HashSet<string> VagueBareSugar = ["sugar", "sugars", "density", "gravity", "sugar content", "densite"];
+    private static readonly HashSet<string> VagueBareSugar = ["sugar", "sugars", "density", "gravity", "sugar content", "densite", "densidad", "densita", "azucar", "azucares", "zuccheri", "zucchero"];
 
     private static readonly string[] StartSuffixes = ["start", "initial", "at crush", "crush", "must", "in", "harvest", "at harvest", "juice", "mout"];
 
@@ -123,28 +125,28 @@ internal static class Fields
             new("lot_id", TableKind.Lots, FieldKind.Text, true, "", null, null, "Lot", "The cellar's lot identifier, unique within a season.", "R23-014", LotIdWords),
             new("season", TableKind.Lots, FieldKind.Season, false, "", 1900, 2100, "Season", "Season (vintage year). May be left empty when the sheet or file name holds the year.", "2024", SeasonWords),
             new("strain", TableKind.Lots, FieldKind.Text, true, "", null, null, "Strain", "Yeast strain code as the cellar records it.", "QX-7",
-                ["yeast", "strain", "culture", "yeast strain", "strain code", "yeast code", "yeast used", "yeast culture", "inoculum", "starter", "levure", "levures", "hefe", "hefestamm", "yeast name", "strain name", "yeast type"]),
+                ["yeast", "strain", "culture", "yeast strain", "strain code", "yeast code", "yeast used", "yeast culture", "inoculum", "starter", "levure", "levures", "hefe", "hefestamm", "yeast name", "strain name", "yeast type", "levadura", "lievito", "lieviti", "ceppo"]),
             new("colour", TableKind.Lots, FieldKind.Colour, false, "", null, null, "Colour", "Wine colour: red, white or rosé (sets temperature defaults).", "red",
                 ["colour", "color", "style", "type", "wine type", "wine colour", "wine color", "wine style", "colour style"]),
             new("vessel", TableKind.Lots, FieldKind.Text, false, "", null, null, "Vessel", "Vessel type (tank, barrel, bin, concrete…).", "tank",
-                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no", "tank vessel", "vessel tank", "tank or vessel", "vessel or tank", "behalter", "gebinde", "fass"]),
+                ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no", "tank vessel", "vessel tank", "tank or vessel", "vessel or tank", "behalter", "gebinde", "fass", "deposito", "vasca", "cuba", "tina", "serbatoio"]),
             new("vessel_capacity_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Vessel capacity (L)", "Capacity of the vessel.", "5000",
                 ["capacity", "vessel capacity", "vessel size", "tank size", "tank capacity", "size", "vessel volume", "fermenter size", "fermenter capacity"]),
             new("variety", TableKind.Lots, FieldKind.Text, false, "", null, null, "Variety", "Grape variety.", "Syrah",
-                ["variety", "varietal", "grape", "grape variety", "cultivar", "cepage", "grapes", "rebsorte", "sorte"]),
+                ["variety", "varietal", "grape", "grape variety", "cultivar", "cepage", "grapes", "rebsorte", "sorte", "variedad", "vitigno", "varieta"]),
             new("block", TableKind.Lots, FieldKind.Text, false, "", null, null, "Block", "Vineyard block the fruit came from.", "North 3",
                 ["block", "vineyard block", "vineyard", "site", "parcel", "plot", "source block", "vineyard site", "source"]),
             new("must_volume_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Must volume (L)", "Must volume before any addition.", "4200",
-                ["must volume", "volume", "juice volume", "must vol", "vol", "starting volume", "initial volume", "volume must", "must quantity"]),
+                ["must volume", "volume", "juice volume", "must vol", "vol", "starting volume", "initial volume", "volume must", "must quantity", "juice vol", "volumen", "volume mosto", "volumen mosto"]),
             new("water_added_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Water added (L)", "Water added before fermentation (add-back); 0 or empty when none.", "0",
-                ["water added", "water", "water addition", "added water", "add back", "addback", "water add", "h2o added", "h2o", "dilution", "water addback", "eau ajoutee", "ajout eau", "wasserzugabe"]),
+                ["water added", "water", "water addition", "added water", "add back", "addback", "water add", "h2o added", "h2o", "dilution", "water addback", "eau ajoutee", "ajout eau", "ajout d eau", "wasserzugabe", "water back", "waterback", "agua anadida", "agua", "acqua aggiunta", "acqua"]),
             new("sugar_added_kg", TableKind.Lots, FieldKind.Mass, false, "kg", 0, null, "Sugar added (kg)", "Sucrose added before fermentation (chaptalization); 0 or empty when none.", "0",
-                ["sugar added", "sugar addition", "added sugar", "sucrose added", "sugar add", "chaptalization", "chaptalisation", "chapt", "sucrose"]),
+                ["sugar added", "sugar addition", "added sugar", "sucrose added", "sugar add", "chaptalization", "chaptalisation", "chapt", "sucrose", "sucre ajoute", "azucar anadido", "chaptalizacion", "saccarosio", "zucchero aggiunto"]),
             new("starting_sugar", TableKind.Lots, FieldKind.Sugar, true, "°Brix", 10, 40, "Starting sugar (°Brix)", "Must sugar before any addition, in °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "24.2", startingSugar),
             new("final_abv", TableKind.Lots, FieldKind.Alcohol, true, "% v/v", 3, 20, "Final alcohol (% v/v)", "The lab's final alcohol of the finished wine.", "13.9",
-                ["alcohol", "abv", "alc", "final alcohol", "final abv", "final alc", "alcohol final", "abv final", "alcohol content", "alcohol by volume", "ethanol", "etoh", "alc vol", "lab alcohol", "alcohol lab", "measured alcohol", "actual alcohol", "wine alcohol", "finished alcohol", "pct v v", "pct vol", "pct alc", "pct abv", "pct alcohol", "v v", "alcool", "alkohol", "alcool final", "tav", "tav acquis", "titre alcoometrique"]),
+                ["alcohol", "abv", "alc", "final alcohol", "final abv", "final alc", "alcohol final", "abv final", "alcohol content", "alcohol by volume", "ethanol", "etoh", "alc vol", "lab alcohol", "alcohol lab", "measured alcohol", "actual alcohol", "wine alcohol", "finished alcohol", "pct v v", "pct vol", "pct alc", "pct abv", "pct alcohol", "v v", "alcool", "alkohol", "alcool final", "tav", "tav acquis", "titre alcoometrique", "grado alcoholico", "grado alcohol", "alcol", "alcol svolto", "grado alcolico", "titolo alcolometrico", "gradazione alcolica"]),
             new("residual_sugar_gl", TableKind.Lots, FieldKind.Plain, false, "g/L", 0, 300, "Residual sugar (g/L)", "Residual sugar (glucose + fructose) of the finished wine.", "1.8",
-                ["rs", "residual sugar", "residual sugars", "residual", "res sugar", "final rs", "rs final", "glu fru", "glucose fructose", "gf", "g f", "reducing sugar", "reducing sugars", "r s", "sucres residuels", "sucre residuel", "restzucker"]),
+                ["rs", "residual sugar", "residual sugars", "residual", "res sugar", "final rs", "rs final", "glu fru", "glucose fructose", "gf", "g f", "reducing sugar", "reducing sugars", "r s", "sucres residuels", "sucre residuel", "restzucker", "azucares residuales", "azucar residual", "zuccheri residui", "zucchero residuo"]),
             new("final_sugar", TableKind.Lots, FieldKind.Sugar, false, "°Brix", -6, 40, "Final sugar (°Brix)", "Hydrometer reading of the finished wine, °Brix or SG.", "-1.8",
                 ["final sugar", "final brix", "end brix", "final bx", "wine brix", "wine bx", "wine sg", "wine density", "wine gravity", "wine sugar", "finish brix", "finishing brix", "dry brix", "final sg", "end sg", "finish sg", "final density", "final gravity", "fg", "final hydrometer", "final reading", "brix final", "sg final", "brix end", "sg end"]),
             new("yan_mgl", TableKind.Lots, FieldKind.Plain, false, "mg N/L", 0, 1000, "YAN (mg N/L)", "Yeast assimilable nitrogen of the must.", "210",
@@ -158,11 +160,11 @@ internal static class Fields
             new("peak_temp_c", TableKind.Lots, FieldKind.Temperature, false, "°C", -5, 45, "Peak temp (°C)", "Peak fermentation temperature.", "29.5",
                 ["peak temp", "peak temperature", "max temp", "max temperature", "maximum temp", "maximum temperature", "temp max", "temp peak", "highest temp", "peak ferment temp", "peak fermentation temp", "peak"]),
             new("inoculation_date", TableKind.Lots, FieldKind.Date, false, "", null, null, "Inoculation date", "Date (and time) the yeast was added.", "2024-03-02",
-                ["inoculated", "inoculation", "inoculation date", "date inoculated", "inoc", "inoc date", "inoculated on", "pitch date", "pitched", "date pitched", "yeast added", "ferment start", "fermentation start", "start date"]),
+                ["inoculated", "inoculation", "inoculation date", "date inoculated", "inoc", "inoc date", "inoculated on", "pitch date", "pitched", "date pitched", "yeast added", "ferment start", "fermentation start", "start date", "levurage", "date levurage", "date de levurage", "siembra", "fecha siembra", "fecha de siembra", "inoculacion", "fecha inoculacion", "inoculo", "data inoculo", "inoculazione", "data inoculazione"]),
             new("dry_date", TableKind.Lots, FieldKind.Date, false, "", null, null, "Dry date", "Date the lot was declared dry.", "2024-03-14",
                 ["dry date", "dry", "date dry", "dry on", "went dry", "dryness date", "end date", "ferment end", "fermentation end", "finished", "date finished", "completion date"]),
             new("notes", TableKind.Lots, FieldKind.Text, false, "", null, null, "Notes", "Free-text notes.", "Punch-downs twice daily",
-                ["notes", "note", "comments", "comment", "remarks", "remark", "observations", "memo"]),
+                ["notes", "note", "comments", "comment", "remarks", "remark", "observations", "memo", "notas", "observaciones", "remarques", "commentaires"]),
         ];
     }
 
@@ -173,12 +175,12 @@ internal static class Fields
         new("timestamp", TableKind.Log, FieldKind.DateTime, false, "", null, null, "Timestamp", "Date and time of the reading (or use separate date and time columns).", "2024-03-04 08:30",
             ["timestamp", "time stamp", "date time", "datetime", "date and time", "reading time", "measured at", "logged at", "sampled at", "when"]),
         new("date", TableKind.Log, FieldKind.Date, false, "", null, null, "Date", "Date of the reading (with a time column, or alone).", "2024-03-04",
-            ["date", "day", "sample date", "reading date", "log date", "measurement date"]),
+            ["date", "day", "sample date", "reading date", "log date", "measurement date", "fecha", "data"]),
         new("time", TableKind.Log, FieldKind.Time, false, "", null, null, "Time", "Time of day of the reading.", "08:30",
-            ["time", "hour", "sample time", "time of day", "clock"]),
+            ["time", "hour", "sample time", "time of day", "clock", "hora", "ora", "heure"]),
         new("sugar", TableKind.Log, FieldKind.Sugar, false, "°Brix", -6, 45, "Sugar (°Brix)", "Sugar reading: °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "18.4",
-            ["brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "sugar", "sugars", "density", "gravity", "must weight", "reading", "sugar reading", "brix reading", "sg reading", "hydrometer", "current brix", "degrees brix", "deg brix"]),
+            ["brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "sugar", "sugars", "density", "gravity", "must weight", "reading", "sugar reading", "brix reading", "sg reading", "hydrometer", "current brix", "degrees brix", "deg brix", "densite", "densidad", "densita", "grado baume"]),
         new("temp_c", TableKind.Log, FieldKind.Temperature, false, "°C", -5, 45, "Temperature (°C)", "Must or cap temperature at the reading.", "26.5",
-            ["temp", "temperature", "must temp", "juice temp", "cap temp", "tank temp", "wine temp", "ferment temp", "fermentation temp", "must temperature", "t"]),
+            ["temp", "temperature", "must temp", "juice temp", "cap temp", "tank temp", "wine temp", "ferment temp", "fermentation temp", "must temperature", "t", "temperatura"]),
     ];
 }

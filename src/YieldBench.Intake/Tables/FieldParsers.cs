@@ -42,7 +42,7 @@ internal sealed class RowState(SheetContext ctx)
 /// converted once and range-checked once; a bad value is reported where it is found (an error leaving the row out for
 /// a value that enters the conversion, else a warning leaving only the value empty).
 /// </summary>
-internal static class FieldParsers
+internal static partial class FieldParsers
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
@@ -213,6 +213,24 @@ internal static class FieldParsers
             problem = inner;
         }
 
+        if (problem == CellProblem.NotANumber && c.Field.Name == "residual_sugar_gl" && cell is string limitText
+            && BelowLabLimit(limitText, st.Ctx.Sheet.DecimalComma, out double? limit))
+        {
+            // "<1", "ND", "dry": the lab found less than it measures. Up to the review's dryness limit that says the
+            // wine is dry, which is what an empty residual sugar is taken as; a higher limit does not say it.
+            double dry = new YieldBench.Core.Review.Strains.StrainReviewSettings().DryThresholdGl;
+            if (limit is { } l && l > dry)
+            {
+                st.Problem(c, cell, IssueCodes.BelowLabLimit, IntakeMessages.LabLimitTooHigh(label, IntakeMessages.Num(l), IntakeMessages.Num(dry)), c.Field.Critical);
+            }
+            else
+            {
+                st.Problem(c, cell, IssueCodes.BelowLabLimit, IntakeMessages.BelowLabLimit(label), false);
+            }
+
+            return false;
+        }
+
         if (problem == CellProblem.None && cell is string pct && pct.TrimEnd().EndsWith('%'))
         {
             // A percent sign (typed, or from a percent-formatted cell) is % v/v for alcohol and % by mass for °Brix;
@@ -263,6 +281,35 @@ internal static class FieldParsers
                 st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label, double.TryParse(c.Field.Example, System.Globalization.NumberStyles.Float, Inv, out _) ? c.Field.Example : "24.3"), c.Field.Critical);
                 return false;
         }
+    }
+
+    private static readonly HashSet<string> NotDetectedWords =
+        ["nd", "n d", "bdl", "lod", "loq", "not detected", "below detection", "below detection limit", "dry", "sec", "seco", "secco", "trocken"];
+
+    /// <summary>
+    /// True for a residual sugar the lab gave only as below its limit: "&lt;1", "&lt; 0,5 g/L", "ND", "n.d.", "BDL",
+    /// "&lt;LOD", "dry" (also sec, seco, secco, trocken); <paramref name="limit"/> is the number after "&lt;", if any.
+    /// </summary>
+    internal static bool BelowLabLimit(string text, bool decimalComma, out double? limit)
+    {
+        limit = null;
+        string t = text.Trim();
+        if (t.StartsWith('<') || t.StartsWith('\u2264'))
+        {
+            t = t[1..].Trim();
+            if (CellValues.SplitUnit(t) is var (number, unit) && HeaderText.Normalise(unit) is "g l" or "gl" or "gpl")
+            {
+                t = number;
+            }
+
+            if (CellValues.Number(t, decimalComma, out double v, out _) == CellProblem.None && v > 0)
+            {
+                limit = v;
+                return true;
+            }
+        }
+
+        return NotDetectedWords.Contains(HeaderText.Normalise(t));
     }
 
     /// <summary>True when a unit written after a number in a cell names the unit the column is read in.</summary>
@@ -382,13 +429,14 @@ internal static class FieldParsers
         }
 
         double min = f.Min ?? SugarReading.MinBrix, max = f.Max ?? SugarReading.MaxBrix;
-        if (!SugarReading.TryFrom(raw, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
+        double onScale = ColumnUnits.OnScale(raw, c.Unit);
+        if (!SugarReading.TryFrom(onScale, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
         {
             st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
             return null;
         }
 
-        recorded = raw;
+        recorded = onScale;
         return reading;
     }
 
@@ -425,10 +473,26 @@ internal static class FieldParsers
                 st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, dayFirst!, monthFirst!), c.Field.Critical);
                 return null;
             default:
-                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label), c.Field.Critical);
+                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label, cell is string t ? WhyNoDate(t) : null), c.Field.Critical);
                 return null;
         }
     }
+
+    /// <summary>What a text that is no date lacks, when it is a day of the week ("Mon 8am") or a day and month with no year ("9/15 8am").</summary>
+    internal static string? WhyNoDate(string text)
+    {
+        string first = HeaderText.Normalise(text).Split(' ')[0];
+        if (first is "mon" or "monday" or "tue" or "tues" or "tuesday" or "wed" or "wednesday" or "thu" or "thur" or "thurs" or "thursday"
+            or "fri" or "friday" or "sat" or "saturday" or "sun" or "sunday")
+        {
+            return IntakeMessages.WeekdayWithoutDate;
+        }
+
+        return DayMonthOnly().IsMatch(text.Trim()) ? IntakeMessages.DateWithoutYear : null;
+    }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"^[0-9]{1,2}[/.-][0-9]{1,2}\.?(?:\s.*)?$")]
+    private static partial System.Text.RegularExpressions.Regex DayMonthOnly();
 
     internal static WineColour ColourField(RowState st)
     {

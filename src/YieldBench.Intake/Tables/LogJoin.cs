@@ -68,8 +68,13 @@ internal static partial class LogJoin
             var first = log.Readings[0].Source!;
             if (!matched)
             {
+                // "122" and "0122": a spreadsheet drops the leading zero of an id typed as a number. Which one is
+                // meant is the cellar's to say; the message names the lot that differs only so.
+                string? zeroTwin = recorded.Where(l => log.Season is null || l.Season == log.Season)
+                    .Select(l => l.LotId).FirstOrDefault(id => SameButLeadingZeros(id, log.LotId));
                 run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
-                    IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season"));
+                    IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season")
+                    + (zeroTwin is null ? "" : IntakeMessages.LeadingZeroTwin(zeroTwin, log.LotId)));
                 continue;
             }
 
@@ -104,6 +109,11 @@ internal static partial class LogJoin
 
         return logs;
     }
+
+    /// <summary>True for two ids of digits that differ only in leading zeros ("0122" and "122").</summary>
+    internal static bool SameButLeadingZeros(string a, string b) =>
+        !string.Equals(a, b, StringComparison.Ordinal) && a.Length > 0 && b.Length > 0 && a.All(char.IsAsciiDigit) && b.All(char.IsAsciiDigit)
+        && string.Equals(a.TrimStart('0'), b.TrimStart('0'), StringComparison.Ordinal);
 
     /// <summary>
     /// Readings dated outside the year before to the year after their lot's season (or, for a log whose lot and

@@ -19,6 +19,9 @@ internal static class UnitSettling
                 case FieldKind.Temperature when c.Unit == ColumnUnit.Celsius:
                     CheckCelsius(ctx, c);
                     break;
+                case FieldKind.Sugar when c.Unit == ColumnUnit.SpecificGravity:
+                    CheckGravityThousandths(ctx, c);
+                    break;
                 case FieldKind.Volume:
                 case FieldKind.Mass:
                     if (c.Unit == ColumnUnit.None)
@@ -46,14 +49,29 @@ internal static class UnitSettling
     {
         var byRow = new double[ctx.LastRow - ctx.FirstData + 1];
         var found = new List<double>(byRow.Length);
+        var withUnits = new List<double>();
         for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
-            bool number = CellValues.Number(ctx.Sheet.Cell(r, c.Index), ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None;
+            object? cell = ctx.Sheet.Cell(r, c.Index);
+            bool number = CellValues.Number(cell, ctx.Sheet.DecimalComma, out double d, out _) == CellProblem.None;
             byRow[r - ctx.FirstData] = number ? d : double.NaN;
             if (number)
             {
                 found.Add(d);
             }
+            else if (c.Field.Kind == FieldKind.Sugar && cell is string text && CellValues.SplitUnit(text) is var (written, _)
+                && CellValues.Number(written, ctx.Sheet.DecimalComma, out double withUnit, out _) == CellProblem.None)
+            {
+                // "SG 1.045", "12 Bx": when no plain number settles the scale, these numbers do; the unit written with
+                // each is checked against the scale when the row is read (not kept here, so the row reader sees the
+                // cell as written).
+                withUnits.Add(withUnit);
+            }
+        }
+
+        if (found.Count == 0)
+        {
+            found = withUnits;
         }
 
         c.KeepParsed(byRow);
@@ -110,6 +128,19 @@ internal static class UnitSettling
         }
     }
 
+    /// <summary>
+    /// A column headed SG (or density, gravity) whose numbers all lie from 950 to 1300 holds SG in thousandths ("1090"
+    /// for 1.090, as gravities are often noted): read so, with a warning.
+    /// </summary>
+    private static void CheckGravityThousandths(SheetContext ctx, BoundColumn c)
+    {
+        if (SortedNumbers(ctx, c) is { } sorted && sorted[0] >= 950 && sorted[^1] < 1300)
+        {
+            c.Unit = ColumnUnit.GravityThousandths;
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitFromValues, IntakeMessages.GravityInThousandths(sorted[0], sorted[^1]));
+        }
+    }
+
     internal static bool PlainUnitStated(BoundColumn c)
     {
         string n = " " + HeaderText.Normalise(c.Header) + " ";
@@ -131,19 +162,24 @@ internal static class UnitSettling
     /// <summary>Temperature scale from a column's median: above 45 no must is in °C, so °F.</summary>
     internal static ColumnUnit TemperatureUnitOf(double median) => median > 45 ? ColumnUnit.Fahrenheit : ColumnUnit.Celsius;
 
-    /// <summary>Starting-sugar scale from the column median: SG 0.95–1.3, °Oechsle 45–145, g/L above 145, else °Brix.</summary>
+    /// <summary>
+    /// Starting-sugar scale from the column median: SG 0.95–1.3, °Oechsle 45–145, SG × 1000 from 950 to 1300 (no must
+    /// holds that much sugar in g/L: 40 °Brix is about 470 g/L), g/L above 145, else °Brix.
+    /// </summary>
     internal static ColumnUnit StartingSugarUnit(double median) => median switch
     {
         >= 0.95 and < 1.3 => ColumnUnit.SpecificGravity,
         > 45 and <= 145 => ColumnUnit.Oechsle,
+        >= 950 and < 1300 => ColumnUnit.GravityThousandths,
         > 145 => ColumnUnit.SugarGramsPerLitre,
         _ => ColumnUnit.Brix,
     };
 
-    /// <summary>Scale of a reading column (logs, final sugar) that runs down to dryness: all values 0.95–1.3 mean SG.</summary>
+    /// <summary>Scale of a reading column (logs, final sugar) that runs down to dryness: all values 0.95–1.3 mean SG, all 950–1300 SG × 1000.</summary>
     internal static ColumnUnit ReadingSugarUnit(double low, double high) => (low, high) switch
     {
         ( >= 0.95, < 1.3) => ColumnUnit.SpecificGravity,
+        ( >= 950, < 1300) => ColumnUnit.GravityThousandths,
         (_, > 145) => ColumnUnit.SugarGramsPerLitre,
         (_, > 45) => ColumnUnit.Oechsle,
         _ => ColumnUnit.Brix,
@@ -161,6 +197,7 @@ internal static class UnitSettling
         return unit switch
         {
             ColumnUnit.SpecificGravity => v is >= 0.95 and < 1.3,
+            ColumnUnit.GravityThousandths => v is >= 950 and < 1300,
             ColumnUnit.Brix or ColumnUnit.Baume => v <= 45,
             _ => true,
         };

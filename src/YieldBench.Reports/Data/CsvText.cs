@@ -53,16 +53,16 @@ public static class CsvText
 
         writer.Write("\r\n");
         Span<char> buffer = stackalloc char[64];
-        foreach (var row in table.Rows)
+        for (int r = 0; r < table.RowCount; r++)
         {
-            for (int i = 0; i < row.Length; i++)
+            for (int i = 0; i < kinds.Length; i++)
             {
                 if (i > 0)
                 {
                     writer.Write(',');
                 }
 
-                WriteCell(writer, row[i], kinds[i], formats[i], buffer);
+                WriteCell(writer, table.Cell(r, i), kinds[i], formats[i], buffer);
             }
 
             writer.Write("\r\n");

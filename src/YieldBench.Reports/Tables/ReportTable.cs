@@ -91,10 +91,16 @@ public sealed record Column<T>(ReportColumn Definition, Func<T, object?> Value)
 /// data file and its sheet cannot disagree. Cells hold <see cref="string"/>, <see cref="double"/> (NaN: empty),
 /// <see cref="int"/>, <see cref="long"/>, <see cref="bool"/>, <see cref="System.DateTime"/>, or null (empty).
 /// </summary>
+/// <remarks>
+/// Cells are kept by column, typed (a number as its eight bytes and a one-byte type; a text as its string), not as
+/// boxed objects: at 100,000 lots the per-lot tables held about three million boxed numbers for the whole report.
+/// <see cref="Cell"/> reads one cell; <see cref="Rows"/> makes each row when asked, for small tables and tests.
+/// </remarks>
 public sealed class ReportTable
 {
-    private readonly List<object?[]> rows = [];
-    private readonly List<bool> highlighted = [];
+    private readonly CellStore store;
+    private readonly int[]? order;
+    private readonly bool[]? reorderedHighlights;
 
     /// <summary>Creates an empty table.</summary>
     public ReportTable(IReadOnlyList<ReportColumn> columns)
@@ -112,6 +118,17 @@ public sealed class ReportTable
         }
 
         Columns = columns;
+        store = new CellStore(columns.Count);
+        Rows = new RowView(this);
+    }
+
+    private ReportTable(IReadOnlyList<ReportColumn> columns, CellStore store, int[] order)
+    {
+        Columns = columns;
+        this.store = store;
+        this.order = order;
+        reorderedHighlights = order.Select(i => store.Highlighted[i]).ToArray();
+        Rows = new RowView(this);
     }
 
     /// <summary>
@@ -123,15 +140,18 @@ public sealed class ReportTable
         ArgumentNullException.ThrowIfNull(columns);
         ArgumentNullException.ThrowIfNull(items);
         var table = new ReportTable(columns.Select(c => c.Definition).ToArray());
+        if (items.TryGetNonEnumeratedCount(out int count))
+        {
+            table.store.Reserve(count);
+        }
+
         foreach (var item in items)
         {
-            var cells = new object?[columns.Count];
-            for (int c = 0; c < cells.Length; c++)
+            int row = table.store.AddRow(highlight?.Invoke(item) ?? false);
+            for (int c = 0; c < columns.Count; c++)
             {
-                cells[c] = columns[c].Value(item);
+                table.store.Set(row, c, Checked(columns[c].Value(item)));
             }
-
-            table.Add(cells, highlight?.Invoke(item) ?? false);
         }
 
         return table;
@@ -140,11 +160,20 @@ public sealed class ReportTable
     /// <summary>The columns in their stable order.</summary>
     public IReadOnlyList<ReportColumn> Columns { get; }
 
-    /// <summary>The rows, each with one cell per column.</summary>
-    public IReadOnlyList<object?[]> Rows => rows;
+    /// <summary>The number of rows.</summary>
+    public int RowCount => order?.Length ?? store.Count;
+
+    /// <summary>
+    /// The rows, each with one cell per column, made when asked (a new array each time: writers of large tables read
+    /// cells with <see cref="Cell"/>).
+    /// </summary>
+    public IReadOnlyList<object?[]> Rows { get; }
 
     /// <summary>Whether each row is highlighted in the workbook (flagged lots).</summary>
-    public IReadOnlyList<bool> Highlighted => highlighted;
+    public IReadOnlyList<bool> Highlighted => reorderedHighlights ?? store.Highlighted;
+
+    /// <summary>The cell at <paramref name="row"/> and <paramref name="column"/> (0-based), of a type <see cref="Add"/> accepts.</summary>
+    public object? Cell(int row, int column) => store.Get(order is null ? row : order[row], column);
 
     /// <summary>Index of a column by its data-file name.</summary>
     public int IndexOf(string name)
@@ -164,6 +193,11 @@ public sealed class ReportTable
     public void Add(object?[] cells, bool highlight = false)
     {
         ArgumentNullException.ThrowIfNull(cells);
+        if (order is not null)
+        {
+            throw new InvalidOperationException("A reordered table shares its rows and takes none of its own.");
+        }
+
         if (cells.Length != Columns.Count)
         {
             throw new ArgumentException($"A row has {cells.Length} cells but the table has {Columns.Count} columns.", nameof(cells));
@@ -171,32 +205,168 @@ public sealed class ReportTable
 
         foreach (var cell in cells)
         {
-            if (cell is not (null or string or double or int or long or bool or System.DateTime))
-            {
-                throw new ArgumentException($"Unsupported cell type {cell.GetType().Name}.", nameof(cells));
-            }
+            Checked(cell);
         }
 
-        rows.Add(cells);
-        highlighted.Add(highlight);
+        int row = store.AddRow(highlight);
+        for (int c = 0; c < cells.Length; c++)
+        {
+            store.Set(row, c, cells[c]);
+        }
     }
 
     /// <summary>
-    /// A table of the same columns holding this table's rows (the same cell arrays, not copies) and highlights in the
-    /// order <paramref name="order"/> gives by index; the rows are shared, so neither table may change afterwards.
+    /// A table of the same columns holding this table's rows (shared, not copied) and highlights in the order
+    /// <paramref name="order"/> gives by index; the rows are shared, so neither table may change afterwards.
     /// </summary>
     internal ReportTable Reordered(IReadOnlyList<int> order)
     {
         ArgumentNullException.ThrowIfNull(order);
-        var table = new ReportTable(Columns);
-        table.rows.Capacity = order.Count;
-        table.highlighted.Capacity = order.Count;
-        foreach (int i in order)
+        return new ReportTable(Columns, store, order.Select(i => this.order is null ? i : this.order[i]).ToArray());
+    }
+
+    private static object? Checked(object? cell) => cell is null or string or double or int or long or bool or System.DateTime
+        ? cell
+        : throw new ArgumentException($"Unsupported cell type {cell.GetType().Name}.", nameof(cell));
+
+    /// <summary>The rows as arrays, made when asked.</summary>
+    private sealed class RowView(ReportTable table) : IReadOnlyList<object?[]>
+    {
+        public int Count => table.RowCount;
+
+        public object?[] this[int index]
         {
-            table.rows.Add(rows[i]);
-            table.highlighted.Add(highlighted[i]);
+            get
+            {
+                ArgumentOutOfRangeException.ThrowIfNegative(index);
+                ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual(index, Count);
+                var cells = new object?[table.Columns.Count];
+                for (int c = 0; c < cells.Length; c++)
+                {
+                    cells[c] = table.Cell(index, c);
+                }
+
+                return cells;
+            }
         }
 
-        return table;
+        public IEnumerator<object?[]> GetEnumerator()
+        {
+            for (int i = 0; i < Count; i++)
+            {
+                yield return this[i];
+            }
+        }
+
+        System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
+    }
+
+    /// <summary>Cells by column: a type byte per cell, a number's eight bytes, a text's string (each array made when a column first needs it).</summary>
+    private sealed class CellStore(int columns)
+    {
+        private const long TicksMask = (1L << 62) - 1;
+        private readonly CellType[][] types = new CellType[columns][];
+        private readonly long[]?[] bits = new long[]?[columns];
+        private readonly string?[]?[] texts = new string?[]?[columns];
+        private bool[] highlighted = [];
+        private int capacity;
+
+        private enum CellType : byte
+        {
+            Empty,
+            Text,
+            Number,
+            Integer,
+            Long,
+            Boolean,
+            DateTime,
+        }
+
+        public int Count { get; private set; }
+
+        public IReadOnlyList<bool> Highlighted => new ArraySegment<bool>(highlighted, 0, Count);
+
+        public void Reserve(int rows)
+        {
+            if (rows > capacity)
+            {
+                capacity = rows;
+                Array.Resize(ref highlighted, rows);
+                for (int c = 0; c < types.Length; c++)
+                {
+                    Array.Resize(ref types[c], rows);
+                    if (bits[c] is not null)
+                    {
+                        Array.Resize(ref bits[c], rows);
+                    }
+
+                    if (texts[c] is not null)
+                    {
+                        Array.Resize(ref texts[c], rows);
+                    }
+                }
+            }
+        }
+
+        public int AddRow(bool highlight)
+        {
+            if (Count == capacity)
+            {
+                Reserve(Math.Max(4, capacity * 2));
+            }
+
+            highlighted[Count] = highlight;
+            return Count++;
+        }
+
+        public void Set(int row, int column, object? cell)
+        {
+            switch (cell)
+            {
+                case null:
+                    types[column][row] = CellType.Empty;
+                    return;
+                case string s:
+                    (texts[column] ??= new string?[capacity])[row] = s;
+                    types[column][row] = CellType.Text;
+                    return;
+                case double d:
+                    Number(row, column, CellType.Number, BitConverter.DoubleToInt64Bits(d));
+                    return;
+                case int i:
+                    Number(row, column, CellType.Integer, i);
+                    return;
+                case long l:
+                    Number(row, column, CellType.Long, l);
+                    return;
+                case bool b:
+                    Number(row, column, CellType.Boolean, b ? 1 : 0);
+                    return;
+                case System.DateTime t:
+                    Number(row, column, CellType.DateTime, t.Ticks | ((long)t.Kind << 62));
+                    return;
+            }
+        }
+
+        public object? Get(int row, int column)
+        {
+            long v = types[column][row] is CellType.Empty or CellType.Text ? 0 : bits[column]![row];
+            return types[column][row] switch
+            {
+                CellType.Text => texts[column]![row],
+                CellType.Number => BitConverter.Int64BitsToDouble(v),
+                CellType.Integer => (int)v,
+                CellType.Long => v,
+                CellType.Boolean => v != 0,
+                CellType.DateTime => new System.DateTime(v & TicksMask, (DateTimeKind)(v >>> 62)),
+                _ => null,
+            };
+        }
+
+        private void Number(int row, int column, CellType type, long value)
+        {
+            (bits[column] ??= new long[capacity])[row] = value;
+            types[column][row] = type;
+        }
     }
 }

@@ -5,7 +5,7 @@ namespace YieldBench.Reports.Tables;
 
 /// <summary>
 /// The long tables a report shows twice, once as a data file and once on a sheet: built once, on whichever thread asks
-/// first, and shared read-only (at 100,000 lots each per-lot table is about a hundred megabytes of cells, and building
+/// first, and shared read-only (at 100,000 lots the lots table holds four million cells, and building
 /// it was a second of the report's time). The lots sheet's rows are the data file's rows in the sheet's order.
 /// </summary>
 internal sealed class SharedTables

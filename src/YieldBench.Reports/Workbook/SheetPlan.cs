@@ -73,7 +73,7 @@ internal sealed class SheetPlan(string name)
     public SheetPlan Table(ReportTable table, bool freeze = false) => Add(new TableBlock(table, freeze));
 
     /// <summary>A table, or a line saying there is nothing when it has no rows.</summary>
-    public SheetPlan TableOrNone(ReportTable table, string none) => table.Rows.Count == 0 ? Text(none, italic: true) : Table(table);
+    public SheetPlan TableOrNone(ReportTable table, string none) => table.RowCount == 0 ? Text(none, italic: true) : Table(table);
 
     /// <summary>An empty row.</summary>
     public SheetPlan Gap() => Add(new GapBlock());
@@ -240,7 +240,7 @@ internal sealed class SheetPlan(string name)
         ws.Row(headerRow).Height = Math.Max(DefaultRowHeight, (headerLines * TextMeasure.LineHeight(TextMeasure.BodySize)) + 3);
 
         int first = headerRow + 1;
-        if (table.Rows.Count == 0)
+        if (table.RowCount == 0)
         {
             SheetLayout.SetText(ws.Cell(first, 1), "(none)");
             ws.Cell(first, 1).Style.Font.Italic = true;
@@ -267,13 +267,13 @@ internal sealed class SheetPlan(string name)
         }
 
         ws.Range(first + 1, 1, first + 1, cols).Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.FlaggedRowFillHex);
-        var heights = new double?[table.Rows.Count];
-        for (int r = 0; r < table.Rows.Count; r++)
+        var heights = new double?[table.RowCount];
+        for (int r = 0; r < table.RowCount; r++)
         {
             int lines = 1;
             for (int c = 0; c < cols; c++)
             {
-                if (wraps[c] && table.Rows[r][c] is string s && s.Length > 0)
+                if (wraps[c] && table.Cell(r, c) is string s && s.Length > 0)
                 {
                     double px = TextMeasure.TextPixels(widths[c]);
                     lines = Math.Max(lines, measure.Width(s) <= px && s.IndexOf('\n', StringComparison.Ordinal) < 0 ? 1 : measure.Lines(s, px));
@@ -284,7 +284,7 @@ internal sealed class SheetPlan(string name)
         }
 
         streamed.Add(new DeferredBody(ws.Name, first, 1, table) { RowHeights = heights });
-        int last = first + table.Rows.Count - 1;
+        int last = first + table.RowCount - 1;
         if (tb.Freeze)
         {
             ws.Range(headerRow, 1, last, cols).SetAutoFilter();
@@ -382,9 +382,9 @@ internal sealed class SheetPlan(string name)
                         double heading = column.Heading.Split(' ').Max(w => measure.Width(w, bold: true));
                         double widest = Math.Min(heading, 24 * TextMeasure.PixelsPerWidthUnit);
                         string format = column.EffectiveNumberFormat;
-                        foreach (var row in table.Rows)
+                        for (int r = 0; r < table.RowCount; r++)
                         {
-                            widest = Math.Max(widest, CellWidth(measure, row[c], column.Kind, format));
+                            widest = Math.Max(widest, CellWidth(measure, table.Cell(r, c), column.Kind, format));
                         }
 
                         // Room the column has already (from the main table) that a text of this table wraps within.

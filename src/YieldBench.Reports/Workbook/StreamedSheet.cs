@@ -354,9 +354,10 @@ internal static partial class StreamedSheet
             var rows = new RowMarkup(prefix, body.FirstColumn, table.Columns.Count);
             var plainRow = rows.Prepare(plainTemplate ?? Template.Default(body));
             var highlightedRow = rows.Prepare(highlightedTemplate ?? Template.Default(body));
-            for (int i = 0; i < table.Rows.Count; i++)
+            var highlighted = table.Highlighted;
+            for (int i = 0; i < table.RowCount; i++)
             {
-                rows.Row(body.FirstDataRow + i, table.Highlighted[i] ? highlightedRow : plainRow, table.Rows[i], body.RowHeights?[i]);
+                rows.Row(body.FirstDataRow + i, highlighted[i] ? highlightedRow : plainRow, table, i, body.RowHeights?[i]);
                 if (rows.Length >= RowMarkup.FlushBytes)
                 {
                     rows.WriteTo(output);

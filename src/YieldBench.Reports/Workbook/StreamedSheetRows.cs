@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text;
 using System.Xml;
 using System.Xml.Linq;
+using YieldBench.Reports.Tables;
 
 namespace YieldBench.Reports.Workbook;
 
@@ -81,10 +82,10 @@ internal static partial class StreamedSheet
         }
 
         /// <summary>Adds one row.</summary>
-        public void Row(int rowNumber, PreparedTemplate template, object?[] cells, double? height = null)
+        public void Row(int rowNumber, PreparedTemplate template, ReportTable table, int row, double? height = null)
         {
             ArgumentNullException.ThrowIfNull(template);
-            ArgumentNullException.ThrowIfNull(cells);
+            ArgumentNullException.ThrowIfNull(table);
             // The row number, which every cell's reference repeats, is formatted once.
             Span<char> digits = stackalloc char[16];
             rowNumber.TryFormat(digits, out rowDigitCount, default, CultureInfo.InvariantCulture);
@@ -105,9 +106,9 @@ internal static partial class StreamedSheet
             }
 
             Append((byte)'>');
-            for (int c = 0; c < cells.Length; c++)
+            for (int c = 0; c < table.Columns.Count; c++)
             {
-                Cell(c, template, cells[c]);
+                Cell(c, template, table.Cell(row, c));
             }
 
             Append(rowClose);

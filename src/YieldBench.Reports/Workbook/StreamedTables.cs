@@ -17,7 +17,7 @@ internal sealed record DeferredBody(string SheetName, int FirstDataRow, int Firs
     public IReadOnlyList<double?>? RowHeights { get; init; }
 
     /// <summary>1-based last data row.</summary>
-    public int LastDataRow => FirstDataRow + Table.Rows.Count - 1;
+    public int LastDataRow => FirstDataRow + Table.RowCount - 1;
 
     /// <summary>1-based last column.</summary>
     public int LastColumn => FirstColumn + Table.Columns.Count - 1;
@@ -48,7 +48,7 @@ internal sealed class StreamedTables
     public void Add(DeferredBody body)
     {
         ArgumentNullException.ThrowIfNull(body);
-        if (body.Table.Rows.Count < 1)
+        if (body.Table.RowCount < 1)
         {
             throw new ArgumentException("A streamed table needs at least one data row.", nameof(body));
         }
