@@ -194,7 +194,8 @@ public sealed partial class ForecastModel
 
     /// <summary>
     /// Learns from past lots (those with a whole-course fit). Throws <see cref="ArgumentException"/> when fewer than
-    /// three lots can be fitted: the forecast then has nothing to stand on.
+    /// three lots can be fitted (the forecast then has nothing to stand on), or fewer than two more than the quantities
+    /// the rate and lag regression learns (the lot-to-lot scatter could not be measured).
     /// </summary>
     public static ForecastModel Train(IReadOnlyList<PastLot> past, SigmoidModel form, ForecastSettings settings)
     {
