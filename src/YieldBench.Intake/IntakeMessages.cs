@@ -191,6 +191,9 @@ public static class IntakeMessages
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
 
+    internal static string SeasonHeading(int year) =>
+        $"The row is a season heading: the lots below it, up to the next heading, were read as season {year.ToString(Inv)} where their own season cell is empty. A season column makes this certain.";
+
     internal static string BelowLabLimit(string field) =>
         $"{field} is recorded as below the lab's limit (not detected, or dry); the review takes a {field} left empty as 0 g/L (dry). Enter the lab's number if it gave one.";
 

@@ -223,4 +223,31 @@ public class LabExportTests
         var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotADate);
         Assert.Contains("inoculation_date " + expected, issue.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Season_headings_dividing_one_sheet_give_the_season_of_the_lots_below_them()
+    {
+        // Given one lots sheet with no season column, divided by heading rows "Vintage 2023" and "2024 harvest"
+        using var folder = new TestFolder();
+        folder.Text("ferment records.csv", "Lot,Yeast,Brix,Alc %\nVintage 2023,,,\nH1,HG-2,24.0,14.1\nH2,HG-5,23.0,13.5\n,,,\n2024 harvest,,,\nH1,HG-2,25.0,14.7\n");
+
+        // When it is read
+        var set = folder.Read("ferment records.csv");
+
+        // Then each lot takes the season of the heading above it (H1 is two lots, one per season), and each heading
+        // is said once and counted as left out
+        Assert.Equal([("H1", 2023), ("H2", 2023), ("H1", 2024)], set.Lots.Select(l => (l.LotId, l.Season)));
+        Assert.Equal([2, 6], set.Issues.Where(i => i.Code == IssueCodes.SeasonHeading).Select(i => i.Row ?? 0));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((6, 3, 2, 1), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped));
+    }
+
+    [Theory]
+    [InlineData("2023")]
+    [InlineData("Tank 2023 topped up")]
+    public void A_year_without_a_season_word_is_no_season_heading(string text)
+    {
+        Assert.Null(RowAccounting.SeasonHeading([text, null, null]));
+    }
 }

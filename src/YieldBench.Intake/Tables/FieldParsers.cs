@@ -143,6 +143,11 @@ internal static partial class FieldParsers
             }
         }
 
+        if (ctx.HeadingSeason is { } heading)
+        {
+            return heading;
+        }
+
         if (ctx.DefaultSeason is { } def)
         {
             return def;

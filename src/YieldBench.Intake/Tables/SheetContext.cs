@@ -51,6 +51,9 @@ internal sealed record SheetContext(
 
     public string? SheetName => Sheet.Name;
 
+    /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
+    public int? HeadingSeason { get; set; }
+
     /// <summary>The lot id column, or null.</summary>
     public BoundColumn? LotColumn => Column("lot_id");
 
