@@ -52,7 +52,7 @@ internal static class BenchProgram
             case "compare":
                 return Compare.Run(opts, FindRoot(), output, error);
             default:
-                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR] [--budget SECONDS per run] [--skip-demo yes]; measure --name N --inputs 'a|b' --out DIR [--reports no] (one run, for profiling); compare [--sizes 1000,10000,100000] [--runs 3] [--peer DIR] [--python PATH] [--peer-budget SECONDS] [--tool PATH] [--alone yes|no] (the peer and YieldBench side by side as processes)");
+                error.WriteLine("usage: YieldBench.Bench [run] [--sizes 1000,10000,100000] [--work DIR] [--results DIR] [--demo DIR] [--budget SECONDS per run] [--skip-demo yes]; measure --name N --inputs 'a|b' --out DIR [--reports no] (one run, for profiling); compare [--sizes 1000,10000,100000] [--runs 3] [--peer DIR] [--python PATH] [--peer-budget SECONDS] [--tool PATH | --build tool|self-contained] [--alone yes|no] (the peer and YieldBench side by side as processes)");
                 return 2;
         }
     }

@@ -35,13 +35,23 @@ internal static class Compare
             return 2;
         }
 
-        // The tool as a user installs it: published for this platform, compiled ahead of time (the csproj's setting).
+        // The tool as a user installs it: published for this platform, compiled ahead of time (the csproj's setting);
+        // with --build self-contained, README.md's self-contained build (framework and tool in one composite image).
         string tool = opts.GetValueOrDefault("tool", string.Empty);
+        string build = opts.GetValueOrDefault("build", "tool");
+        if (build is not ("tool" or "self-contained"))
+        {
+            error.WriteLine($"compare: --build {build} is not known; use tool or self-contained");
+            return 2;
+        }
+
         if (tool.Length == 0)
         {
-            tool = Path.Combine(work, "tool", "yieldbench");
-            output.WriteLine("compare: publishing the tool (dotnet publish src/YieldBench.Cli -c Release --use-current-runtime)");
-            var publish = Time(["dotnet", "publish", Path.Combine(root, "src", "YieldBench.Cli"), "-c", "Release", "--use-current-runtime", "-o", Path.GetDirectoryName(tool)!], work, TimeSpan.FromMinutes(20), error);
+            tool = Path.Combine(work, build, "yieldbench");
+            string[] publishArgs = ["dotnet", "publish", Path.Combine(root, "src", "YieldBench.Cli"), "-c", "Release", "--use-current-runtime",
+                .. build == "self-contained" ? new[] { "--self-contained", "-p:PublishReadyToRunComposite=true" } : [], "-o", Path.GetDirectoryName(tool)!];
+            output.WriteLine("compare: publishing the tool (" + string.Join(' ', publishArgs[..2]) + " src/YieldBench.Cli " + string.Join(' ', publishArgs[3..^2]) + ")");
+            var publish = Time(publishArgs, work, TimeSpan.FromMinutes(30), error);
             if (publish.Exit != 0)
             {
                 error.WriteLine("compare: publishing the tool failed");

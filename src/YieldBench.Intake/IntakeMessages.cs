@@ -191,6 +191,9 @@ public static class IntakeMessages
     internal static string UnitInCellDiffers(string field, string cellUnit, string columnUnit) =>
         $"{field} is written with the unit '{cellUnit}', but the column is read in {columnUnit}, so the value was not used. Convert it to {columnUnit}, or write the number alone and state the unit in the header.";
 
+    internal static string SeasonHeading(int year) =>
+        $"The row is a season heading: the lots below it, up to the next heading, were read as season {year.ToString(Inv)} where their own season cell is empty. A season column makes this certain.";
+
     internal static string BelowLabLimit(string field) =>
         $"{field} is recorded as below the lab's limit (not detected, or dry); the review takes a {field} left empty as 0 g/L (dry). Enter the lab's number if it gave one.";
 
@@ -267,8 +270,12 @@ public static class IntakeMessages
     internal static string FormulaWithoutValue(string field, string formula) =>
         $"{field} holds the formula ={(formula.Length == 0 ? "(shared with a cell above)" : formula)} but no stored result (files written by scripts and some exporters keep only the formula), so its value is unknown. Open the file in a spreadsheet program and save it, which stores the results, or type the value.";
 
-    internal static string NotADate(string field) =>
-        $"{field} is not a date. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+    internal static string NotADate(string field, string? why = null) =>
+        $"{field} is not a date{why}. Write dates as year-month-day, e.g. 2024-03-02 (a date cell, or 2024-03-02 14:30 with a time).";
+
+    internal const string WeekdayWithoutDate = ": it names a day of the week but no date, and a weekday does not say which week";
+
+    internal const string DateWithoutYear = ": it has a day and month but no year";
 
     internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>
         $"{field} could be {dayFirst} (day first) or {monthFirst} (month first), and no other date in the column settles the order. Write it as year-month-day.";
@@ -283,6 +290,9 @@ public static class IntakeMessages
 
     internal static string DuplicateLot(string lotId, int season, string firstAt) =>
         $"Lot '{lotId}' of season {season.ToString(Inv)} was already read at {firstAt}; this row was left out. Give each lot its own id, or delete the repeated row.";
+
+    internal static string DuplicateLotInOtherVessel(string lotId, string firstVessel, string vessel) =>
+        $" The two rows name different vessels ({firstVessel} and {vessel}): if the lot was split across them, give each part its own id (e.g. {lotId}-{vessel}) so both are reviewed, or enter the lot once.";
 
     internal static string SummaryRow() =>
         "The row looks like a summary (average, total…), not a lot; it was skipped.";

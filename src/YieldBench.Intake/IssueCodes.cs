@@ -117,6 +117,9 @@ public static class IssueCodes
     /// <summary><c>unit-differs-in-column</c>.</summary>
     public const string UnitDiffersInColumn = "unit-differs-in-column";
 
+    /// <summary><c>season-heading</c>.</summary>
+    public const string SeasonHeading = "season-heading";
+
     /// <summary><c>unit-in-cell-differs</c>.</summary>
     public const string UnitInCellDiffers = "unit-in-cell-differs";
 

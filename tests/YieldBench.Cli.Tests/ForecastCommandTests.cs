@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using System.Text.RegularExpressions;
+using SkiaSharp;
 
 namespace YieldBench.Cli.Tests;
 
@@ -172,7 +173,17 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
 
         byte[] png = File.ReadAllBytes(Path.Combine(demo.First, "charts", "forecast-2026-26-006.png"));
         Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47 }, png[..4]);
+
+        // The legend under the plot is framed whole: its frame's bottom line is drawn (a dark row near the bottom)
+        // and does not sit on the picture's edge (the last rows are blank).
+        using var bitmap = SKBitmap.Decode(png);
+        int DarkIn(int y) => Enumerable.Range(0, bitmap.Width).Count(x => Grey(bitmap.GetPixel(x, y)) < 128);
+        int frameRow = Enumerable.Range(bitmap.Height - 60, 60).Last(y => DarkIn(y) > bitmap.Width / 2);
+        Assert.True(bitmap.Height - 1 - frameRow >= 6, $"the legend frame is {bitmap.Height - 1 - frameRow} px from the bottom edge");
+        Assert.All(Enumerable.Range(bitmap.Height - 4, 4), y => Assert.Equal(0, DarkIn(y)));
     }
+
+    private static double Grey(SKColor c) => (0.299 * c.Red) + (0.587 * c.Green) + (0.114 * c.Blue);
 
     [Fact]
     public void A_running_log_in_fahrenheit_gives_the_forecast_of_the_same_log_in_celsius()

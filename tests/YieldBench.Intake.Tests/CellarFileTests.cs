@@ -394,4 +394,23 @@ public class CellarFileTests
         Assert.Equal(["hidden-sheet-skipped"], set.Issues.Select(i => i.Code));
         Assert.Equal("old calc", set.Issues[0].Sheet);
     }
+
+    [Fact]
+    public void Two_header_rows_typed_without_merging_take_each_columns_header_from_the_row_it_is_in()
+    {
+        // Given "Lot" and "Yeast" typed in the upper row only, beside "Must" over Brix and "Wine" over Alc and RS,
+        // whose headers are in the lower row (nothing merged)
+        using var folder = new TestFolder();
+        folder.Text("lab book 2025.csv", "Lot,Yeast,Must,Wine,\n,,Brix,Alc,RS\nV1,QX-7,24.1,14.0,1.2\nV2,QX-7,25.0,14.6,1.0\n");
+
+        // When it is read
+        var set = folder.Read("lab book 2025.csv");
+
+        // Then the lower row is the header, each empty cell taking the header above it, and both lots are read
+        Assert.Equal(["V1", "V2"], set.Lots.Select(l => l.LotId));
+        Assert.Equal([24.1, 25.0], set.Lots.Select(l => l.StartingSugar.Brix));
+        Assert.Equal([1.2, 1.0], set.Lots.Select(l => l.ResidualSugarGl));
+        Assert.Contains(set.Mappings, m => m.Field == "strain" && m.Header == "Yeast");
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
 }

@@ -186,4 +186,68 @@ public class LabExportTests
         Assert.Contains("Lot '0122' differs only in leading zeros", issue.Message, StringComparison.Ordinal);
         Assert.DoesNotContain(set.Logs, l => l.LotId == "0122");
     }
+
+    [Fact]
+    public void A_lot_split_into_two_tanks_under_one_id_is_reported_with_how_to_keep_both()
+    {
+        // Given lot 22CS03 entered twice, once for tank T3A and once for T3B
+        using var folder = new TestFolder();
+        folder.Text("lab-2022.csv", "Lot,Tank,Yeast,Brix,Alcohol\n22CS03,T3A,BK-11,25.4,15.0\n22CS03,T3B,BK-11,25.4,15.0\n");
+
+        // When it is read
+        var set = folder.Read("lab-2022.csv");
+
+        // Then the first is kept, and the error on the second names both tanks and a split id to give
+        Assert.Equal("T3A", Assert.Single(set.Lots).Vessel);
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateLot);
+        Assert.Equal(3, issue.Row);
+        Assert.Contains("different vessels (T3A and T3B)", issue.Message, StringComparison.Ordinal);
+        Assert.Contains("22CS03-T3B", issue.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("Mon 8am", "is not a date: it names a day of the week but no date")]
+    [InlineData("9/15 8am", "is not a date: it has a day and month but no year")]
+    [InlineData("someday", "is not a date. Write dates")]
+    public void An_inoculation_written_without_a_full_date_says_what_it_lacks(string text, string expected)
+    {
+        // Given a running-lots table whose inoculation is typed as on a whiteboard
+        using var folder = new TestFolder();
+        folder.Text("now-2026.csv", $"Lot,Yeast,Brix,Inoculated\nR1,QX-7,24.8,{text}\n");
+
+        // When it is read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, "now-2026.csv");
+
+        // Then the lot is used without an inoculation date, and the warning says what the text lacks
+        Assert.Null(Assert.Single(set.RunningLots).InoculationDate);
+        var issue = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotADate);
+        Assert.Contains("inoculation_date " + expected, issue.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Season_headings_dividing_one_sheet_give_the_season_of_the_lots_below_them()
+    {
+        // Given one lots sheet with no season column, divided by heading rows "Vintage 2023" and "2024 harvest"
+        using var folder = new TestFolder();
+        folder.Text("ferment records.csv", "Lot,Yeast,Brix,Alc %\nVintage 2023,,,\nH1,HG-2,24.0,14.1\nH2,HG-5,23.0,13.5\n,,,\n2024 harvest,,,\nH1,HG-2,25.0,14.7\n");
+
+        // When it is read
+        var set = folder.Read("ferment records.csv");
+
+        // Then each lot takes the season of the heading above it (H1 is two lots, one per season), and each heading
+        // is said once and counted as left out
+        Assert.Equal([("H1", 2023), ("H2", 2023), ("H1", 2024)], set.Lots.Select(l => (l.LotId, l.Season)));
+        Assert.Equal([2, 6], set.Issues.Where(i => i.Code == IssueCodes.SeasonHeading).Select(i => i.Row ?? 0));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((6, 3, 2, 1), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped));
+    }
+
+    [Theory]
+    [InlineData("2023")]
+    [InlineData("Tank 2023 topped up")]
+    public void A_year_without_a_season_word_is_no_season_heading(string text)
+    {
+        Assert.Null(RowAccounting.SeasonHeading([text, null, null]));
+    }
 }

@@ -42,7 +42,7 @@ internal sealed class RowState(SheetContext ctx)
 /// converted once and range-checked once; a bad value is reported where it is found (an error leaving the row out for
 /// a value that enters the conversion, else a warning leaving only the value empty).
 /// </summary>
-internal static class FieldParsers
+internal static partial class FieldParsers
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
@@ -141,6 +141,11 @@ internal static class FieldParsers
 
                 return null;
             }
+        }
+
+        if (ctx.HeadingSeason is { } heading)
+        {
+            return heading;
         }
 
         if (ctx.DefaultSeason is { } def)
@@ -473,10 +478,26 @@ internal static class FieldParsers
                 st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, dayFirst!, monthFirst!), c.Field.Critical);
                 return null;
             default:
-                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label), c.Field.Critical);
+                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label, cell is string t ? WhyNoDate(t) : null), c.Field.Critical);
                 return null;
         }
     }
+
+    /// <summary>What a text that is no date lacks, when it is a day of the week ("Mon 8am") or a day and month with no year ("9/15 8am").</summary>
+    internal static string? WhyNoDate(string text)
+    {
+        string first = HeaderText.Normalise(text).Split(' ')[0];
+        if (first is "mon" or "monday" or "tue" or "tues" or "tuesday" or "wed" or "wednesday" or "thu" or "thur" or "thurs" or "thursday"
+            or "fri" or "friday" or "sat" or "saturday" or "sun" or "sunday")
+        {
+            return IntakeMessages.WeekdayWithoutDate;
+        }
+
+        return DayMonthOnly().IsMatch(text.Trim()) ? IntakeMessages.DateWithoutYear : null;
+    }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"^[0-9]{1,2}[/.-][0-9]{1,2}\.?(?:\s.*)?$")]
+    private static partial System.Text.RegularExpressions.Regex DayMonthOnly();
 
     internal static WineColour ColourField(RowState st)
     {

@@ -29,32 +29,30 @@ internal static class HeaderDetection
         int searchTo = Math.Min(lastRow, SearchRows - 1);
         for (int r = 0; r <= searchTo; r++)
         {
-            var row = sheet.Rows[r];
             var lotFields = new HashSet<string>();
             var logFields = new HashSet<string>();
             int texts = 0, matched = 0;
-            foreach (var cell in row)
+            int width = Math.Max(sheet.Rows[r].Length, r > 0 ? sheet.Rows[r - 1].Length : 0);
+            for (int c = 0; c < width; c++)
             {
-                if (cell is not string s || s.Trim().Length == 0)
+                if (HeaderAt(sheet, r, c) is not var (s, fromAbove) || (!fromAbove && sheet.Cell(r, c) is not string))
                 {
                     continue;
                 }
 
+                string? group = fromAbove ? null : GroupLabel(sheet, r, c);
+                var lf = (group is null ? null : Match(run, group + " " + s, TableKind.Lots, out _)) ?? Match(run, s, TableKind.Lots, out _);
+                var gf = (group is null ? null : Match(run, group + " " + s, TableKind.Log, out _)) ?? Match(run, s, TableKind.Log, out _);
+                if (fromAbove && lf is null && gf is null)
+                {
+                    // Text above an empty header cell counts only when it names a field (a title above is no header).
+                    continue;
+                }
+
                 texts++;
-                bool any = false;
-                if (Match(run, s, TableKind.Lots, out _) is { } lf)
-                {
-                    lotFields.Add(lf.Name);
-                    any = true;
-                }
-
-                if (Match(run, s, TableKind.Log, out _) is { } gf)
-                {
-                    logFields.Add(gf.Name);
-                    any = true;
-                }
-
-                matched += any ? 1 : 0;
+                lotFields.UnionWith(lf is null ? [] : [lf.Name]);
+                logFields.UnionWith(gf is null ? [] : [gf.Name]);
+                matched += lf is not null || gf is not null ? 1 : 0;
             }
 
             // A header row names at least two fields, and most of its cells are field names (a row of notes
@@ -73,28 +71,33 @@ internal static class HeaderDetection
             return false;
         }
 
-        var header = sheet.Rows[headerRow];
-        for (int c = 0; c < header.Length; c++)
+        int headerWidth = Math.Max(sheet.Rows[headerRow].Length, headerRow > 0 ? sheet.Rows[headerRow - 1].Length : 0);
+        for (int c = 0; c < headerWidth; c++)
         {
-            if (header[c] is not { } cell || CellValues.IsBlank(cell))
+            if (HeaderAt(sheet, headerRow, c) is not var (cellText, fromAbove))
             {
                 continue;
             }
 
-            string text = TextSettling.Settle(CellValues.Text(cell), multiline: false, out _);
+            string text = TextSettling.Settle(cellText, multiline: false, out _);
             var field = Match(run, text, kind, out var rule);
 
             // Two header rows: a group label above ("Must" over Brix and pH, "Wine" over Alc, RS and Brix) says which
             // reading a header is. The label and the header together win when they name a field ("Wine Brix" is the
             // final sugar; "Must Brix" the starting sugar); otherwise the header alone is read, as before.
-            if (GroupLabel(sheet, headerRow, c) is { } group
+            if (!fromAbove && GroupLabel(sheet, headerRow, c) is { } group
                 && Match(run, group + " " + text, kind, out var groupRule) is { } grouped)
             {
                 (field, rule, text) = (grouped, groupRule, group + " " + text);
             }
+
             if (field is null)
             {
-                unmatched.Add((c, text));
+                if (!fromAbove)
+                {
+                    unmatched.Add((c, text));
+                }
+
                 continue;
             }
 
@@ -154,6 +157,22 @@ internal static class HeaderDetection
 
         rule = null;
         return ColumnRules.Find(header, kind);
+    }
+
+    /// <summary>
+    /// The header text of column <paramref name="column"/> in row <paramref name="row"/>: the cell's own text, or, when
+    /// the cell is empty, the text right above it (two header rows typed without merging: "Lot" and "Yeast" in the
+    /// upper row beside the group labels, the grouped headers in the lower one); null when both are empty.
+    /// </summary>
+    private static (string Text, bool FromAbove)? HeaderAt(RawSheet sheet, int row, int column)
+    {
+        object? cell = sheet.Cell(row, column);
+        if (!CellValues.IsBlank(cell))
+        {
+            return cell is string s ? (s, false) : (CellValues.Text(cell), false);
+        }
+
+        return row > 0 && sheet.Cell(row - 1, column) is string above && above.Trim().Length > 0 ? (above, true) : null;
     }
 
     /// <summary>

@@ -18,6 +18,9 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
     /// <summary>Where each lot key (season, lot id) was first read, to report a second row of the same lot.</summary>
     public Dictionary<LotKey, SourceRef> LotKeys { get; } = [];
 
+    /// <summary>Each lot's vessel by key, made at the first repeated lot (so a split tank can be named) and kept from then on.</summary>
+    public Dictionary<LotKey, string?>? VesselsByKey { get; set; }
+
     /// <summary>Log readings in the order read, with the lot id and season they name; joined to lots at the end.</summary>
     public List<(string LotId, int? Season, LogReading Reading)> Readings { get; } = [];
 

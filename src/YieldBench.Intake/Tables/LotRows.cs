@@ -48,12 +48,21 @@ internal static class LotRows
 
         if (run.LotKeys.TryGetValue(lot.Key, out var first))
         {
-            run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.LotColumn!.Header, lot.LotId, IssueCodes.DuplicateLot, IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString()));
+            string message = IntakeMessages.DuplicateLot(lot.LotId, lot.Season, first.ToString());
+            run.VesselsByKey ??= run.Lots.ToDictionary(l => l.Key, l => l.Vessel);
+            if (lot.Vessel is { } vessel && run.VesselsByKey.GetValueOrDefault(lot.Key) is { } firstVessel && !string.Equals(vessel, firstVessel, StringComparison.Ordinal))
+            {
+                // A lot split across tanks under one id (22CS03 in T3A and T3B) is read as a repeat; say how to keep both.
+                message += IntakeMessages.DuplicateLotInOtherVessel(lot.LotId, firstVessel, vessel);
+            }
+
+            run.Sink.Error(ctx.File, ctx.SheetName, r + 1, ctx.LotColumn!.Header, lot.LotId, IssueCodes.DuplicateLot, message);
             return false;
         }
 
         run.LotKeys[lot.Key] = lot.Source!;
         run.Lots.Add(lot);
+        run.VesselsByKey?.Add(lot.Key, lot.Vessel);
         return true;
     }
 

@@ -47,6 +47,15 @@ internal static class RowAccounting
                 continue;
             }
 
+            if (plan.NotesAreRows && SeasonHeading(row) is var (heading, year))
+            {
+                // "Vintage 2023" over the lots of that season: the season of the rows below it, up to the next heading.
+                reported++;
+                ctx.HeadingSeason = year;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, heading, IssueCodes.SeasonHeading, IntakeMessages.SeasonHeading(year));
+                continue;
+            }
+
             if (plan.NotesAreRows && NoteText(row) is { } note)
             {
                 reported++;
@@ -105,8 +114,50 @@ internal static class RowAccounting
         return null;
     }
 
+    private static readonly HashSet<string> SeasonHeadingWords = new(
+        ["vintage", "season", "harvest", "year", "crush", "lots", "millesime", "jahrgang", "vendange", "vendimia", "cosecha", "anada", "vendemmia", "annata"],
+        StringComparer.Ordinal);
+
+    /// <summary>
+    /// A row whose only content is a season heading — a year with a season word, "Vintage 2023", "2024 harvest",
+    /// "Vendimia 2023/24" — as its text and year; null for any other row (a year alone could be a lot id).
+    /// </summary>
+    internal static (string Text, int Year)? SeasonHeading(object?[] row)
+    {
+        if (NoteText(row, minWords: 2) is not { } text)
+        {
+            return null;
+        }
+
+        var words = HeaderText.Normalise(text).Split(' ', StringSplitOptions.RemoveEmptyEntries);
+        int? year = null;
+        bool seasonWord = false;
+        for (int i = 0; i < words.Length; i++)
+        {
+            string w = words[i];
+            if (w.Length == 4 && w.All(char.IsAsciiDigit) && int.Parse(w, System.Globalization.CultureInfo.InvariantCulture) is >= 1900 and <= 2100 and var y && year is null)
+            {
+                year = y;
+            }
+            else if (year is not null && i > 0 && words[i - 1].Length == 4 && w.Length is 2 or 4 && w.All(char.IsAsciiDigit))
+            {
+                // "2023/24": the second year of a southern-hemisphere or split season; the vintage is the first.
+            }
+            else if (SeasonHeadingWords.Contains(w))
+            {
+                seasonWord = true;
+            }
+            else
+            {
+                return null;
+            }
+        }
+
+        return year is { } found && seasonWord ? (text, found) : null;
+    }
+
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
-    private static string? NoteText(object?[] row)
+    private static string? NoteText(object?[] row, int minWords = 2)
     {
         object? only = null;
         int filled = 0;
@@ -122,7 +173,7 @@ internal static class RowAccounting
             }
         }
 
-        return filled == 1 && only is string s && s.Trim().Contains(' ', StringComparison.Ordinal) ? s.Trim() : null;
+        return filled == 1 && only is string s && s.Trim().Split(' ', StringSplitOptions.RemoveEmptyEntries).Length >= minWords ? s.Trim() : null;
     }
 
     public static bool AllBlank(object?[] row)

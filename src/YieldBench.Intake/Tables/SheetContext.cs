@@ -56,6 +56,9 @@ internal sealed record SheetContext(
     /// <summary>The file and sheet as the log readings of this table share them.</summary>
     public SourcePlace Place { get; } = new(File, Sheet.Name);
 
+    /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
+    public int? HeadingSeason { get; set; }
+
     /// <summary>The lot id column, or null.</summary>
     public BoundColumn? LotColumn => Column("lot_id");
 

@@ -110,7 +110,7 @@ public static class ForecastCharts
                 tReadings.LegendText = "Temperature readings (right axis)";
             }
 
-            foreach (var (level, label, pattern) in new[] { (f.CautionC, "caution", LinePattern.Dashed), (f.DangerC, "danger", LinePattern.Solid) })
+            foreach (var (level, label, pattern) in new[] { (f.CautionC, "Caution", LinePattern.Dashed), (f.DangerC, "Danger", LinePattern.Solid) })
             {
                 var line = plot.Add.HorizontalLine(unit.FromCelsius(level));
                 line.Axes.YAxis = plot.Axes.Right;
@@ -146,7 +146,11 @@ public static class ForecastCharts
 
         plot.Legend.FontName = ReportFonts.FamilyName;
         plot.Legend.FontSize = ChartStyle.TickSize - 2;
-        plot.ShowLegend(Edge.Bottom);
+        // Centred in its panel, the legend's frame touched the picture's bottom edge (the panel is measured a little
+        // shorter than the legend draws): the legend hangs from the panel's top with room left below it.
+        var legendPanel = plot.ShowLegend(Edge.Bottom);
+        legendPanel.Alignment = Alignment.UpperCenter;
+        legendPanel.Padding = new PixelPadding(20, 20, 40, 8);
         return plot;
     }
 
