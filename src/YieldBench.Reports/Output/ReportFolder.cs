@@ -16,6 +16,7 @@ public static class ReportFolder
 
     private const string StagingTag = ".yieldbench-staging-";
     private const string PreviousTag = ".yieldbench-previous-";
+    private const string LockTag = ".yieldbench-lock";
 
     /// <summary>How paths are compared on this platform's usual file systems.</summary>
     public static StringComparison PathComparison { get; } =
@@ -105,6 +106,38 @@ public static class ReportFolder
         string parent = Path.GetDirectoryName(target) ?? throw new ReportFolderException($"The output {target} has no parent folder.");
         Directory.CreateDirectory(parent);
         string name = Path.GetFileName(target);
+        var held = Lock(parent, name, target);
+        try
+        {
+            return Prepare(target, planned, parent, name, held);
+        }
+        catch
+        {
+            held.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>
+    /// Takes the report folder's lock, a hidden file beside it held (exclusively) until the report is swapped in or
+    /// abandoned, and gone afterwards: a second run writing the same folder at the same time is refused instead of
+    /// clearing the first one's staging folder as stale. The system releases it when a run is killed.
+    /// </summary>
+    private static FileStream Lock(string parent, string name, string target)
+    {
+        string path = Path.Combine(parent, "." + name + LockTag);
+        try
+        {
+            return new FileStream(path, FileMode.OpenOrCreate, FileAccess.ReadWrite, FileShare.None, 1, FileOptions.DeleteOnClose);
+        }
+        catch (IOException)
+        {
+            throw new ReportFolderException($"Another run is writing a report into {target} now; wait for it to finish, or give another --out.");
+        }
+    }
+
+    private static Staging Prepare(string target, IReadOnlyList<string> planned, string parent, string name, FileStream held)
+    {
         Recover(parent, name, target);
         if (Problem(target, []) is { } problem)
         {
@@ -123,7 +156,7 @@ public static class ReportFolder
 
         string staging = Path.Combine(parent, "." + name + StagingTag + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(staging);
-        return new Staging(target, staging, previous);
+        return new Staging(target, staging, previous, held);
     }
 
     /// <summary>
@@ -132,6 +165,18 @@ public static class ReportFolder
     /// run that this run no longer makes.
     /// </summary>
     internal static IReadOnlyList<string> Commit(Staging staging, IReadOnlyList<string> written)
+    {
+        try
+        {
+            return Swap(staging, written);
+        }
+        finally
+        {
+            staging.Lock.Dispose();
+        }
+    }
+
+    private static IReadOnlyList<string> Swap(Staging staging, IReadOnlyList<string> written)
     {
         string target = staging.Target;
         var removed = staging.Previous.Except(written, StringComparer.Ordinal).Where(f => File.Exists(Full(target, f))).Order(StringComparer.Ordinal).ToArray();
@@ -167,6 +212,10 @@ public static class ReportFolder
         }
         catch (UnauthorizedAccessException)
         {
+        }
+        finally
+        {
+            staging.Lock.Dispose();
         }
     }
 
@@ -222,6 +271,6 @@ public static class ReportFolder
 
     private static string Full(string root, string relative) => Path.Combine(root, relative.Replace('/', Path.DirectorySeparatorChar));
 
-    /// <summary>A report being written: the real target, its staging folder, and the files an earlier run listed.</summary>
-    internal sealed record Staging(string Target, string Folder, IReadOnlyList<string> Previous);
+    /// <summary>A report being written: the real target, its staging folder, the files an earlier run listed, and the folder's lock (released by <see cref="Commit"/> or <see cref="Abandon"/>).</summary>
+    internal sealed record Staging(string Target, string Folder, IReadOnlyList<string> Previous, FileStream Lock);
 }
