@@ -250,4 +250,23 @@ public class LabExportTests
     {
         Assert.Null(RowAccounting.SeasonHeading([text, null, null]));
     }
+
+    [Fact]
+    public void A_lab_export_with_units_under_its_headers_states_the_units_of_residual_sugar_ta_and_yan()
+    {
+        // Given a tab-separated lab export with a UTF-8 byte-order mark, a "Sample ID" column, and the units in a
+        // second row: g/L under RS and TA, mg/L under YAN, % under a second sheet's RS
+        using var folder = new TestFolder();
+        folder.Text("lims 2024.txt", "\uFEFFSample ID\tStrain\tBrix\tEthanol\tRS\tTA\tYAN\n\t\t°Bx\t% v/v\tg/L\tg/L\tmg/L\nK24-01\tKR-3\t24.1\t14.2\t1.5\t6.1\t210\n");
+        folder.Text("lims pct 2024.txt", "Sample ID\tStrain\tBrix\tEthanol\tRS\n\t\t°Bx\t% v/v\t%\nK24-02\tKR-3\t24.1\t14.2\t0.15\n");
+
+        // When they are read
+        var set = folder.Read("lims 2024.txt", "lims pct 2024.txt");
+
+        // Then the sample id is the lot, no unit is said to be assumed, and RS in % is g per 100 mL (0.15 % = 1.5 g/L)
+        Assert.Equal(["K24-01", "K24-02"], set.Lots.Select(l => l.LotId));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.UnitAssumed);
+        Assert.Equal([1.5, 1.5], set.Lots.Select(l => l.ResidualSugarGl));
+        Assert.Equal((6.1, 210.0), (set.Lots[0].TaGl, set.Lots[0].YanMgL));
+    }
 }
