@@ -269,4 +269,39 @@ public class LabExportTests
         Assert.Equal([1.5, 1.5], set.Lots.Select(l => l.ResidualSugarGl));
         Assert.Equal((6.1, 210.0), (set.Lots[0].TaGl, set.Lots[0].YanMgL));
     }
+
+    [Theory]
+    [InlineData("n/a")]
+    [InlineData("-")]
+    [InlineData("NA")]
+    [InlineData("\u2014")]
+    public void A_mark_for_not_measured_is_an_empty_value_not_a_lost_lot(string mark)
+    {
+        // Given a lab export writing a mark instead of residual sugar, pH and YAN it did not measure
+        using var folder = new TestFolder();
+        folder.Text("lab-2024.csv", $"Lot,Yeast,Brix,Alcohol % v/v,RS g/L,pH,YAN mg/L\nL1,QX-7,24.0,14.1,{mark},{mark},{mark}\n");
+
+        // When it is read
+        var set = folder.Read("lab-2024.csv");
+
+        // Then the lot is used with those values empty, and nothing is reported (as for empty cells)
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal((null, null, null), (lot.ResidualSugarGl, lot.Ph, lot.YanMgL));
+        Assert.Empty(set.Issues);
+    }
+
+    [Fact]
+    public void A_mark_for_not_measured_in_a_required_value_is_a_missing_value()
+    {
+        // Given a lot whose final alcohol is "n/a"
+        using var folder = new TestFolder();
+        folder.Text("lab-2024.csv", "Lot,Yeast,Brix,Alcohol\nL1,QX-7,24.0,n/a\n");
+
+        // When it is read
+        var set = folder.Read("lab-2024.csv");
+
+        // Then the lot is left out as missing its alcohol, the value shown as written
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal((IssueCodes.MissingValue, "n/a"), (issue.Code, issue.Value));
+    }
 }
