@@ -134,8 +134,9 @@ public static class IntakeMessages
     internal static string FinalColumnNotRead(string field) =>
         $"The column is read as {field}, a value of the finished wine; lots still fermenting have none yet, so it was not read.";
 
-    internal static string DuplicateColumn(string field, string first) =>
-        $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
+    internal static string DuplicateColumn(string field, string first, bool potential = false) => potential
+        ? $"This column of potential alcohol maps to {field}, as does the sugar reading '{first}', which was read instead (a potential alcohol is mostly worked out from the reading). Map the one you mean with --column {field}=HEADER."
+        : $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
 
     internal static string UnitAssumed(string unit, string example) =>
         $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";

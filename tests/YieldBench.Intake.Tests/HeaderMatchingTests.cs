@@ -69,7 +69,6 @@ public class HeaderMatchingTests
     }
 
     [Theory]
-    [InlineData("Potential alcohol")]
     [InlineData("Picker crew")]
     [InlineData("Sugar")]
     [InlineData("Sugar °Bx")]

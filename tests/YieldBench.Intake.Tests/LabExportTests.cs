@@ -304,4 +304,40 @@ public class LabExportTests
         var issue = Assert.Single(set.Issues);
         Assert.Equal((IssueCodes.MissingValue, "n/a"), (issue.Code, issue.Value));
     }
+
+    [Fact]
+    public void Must_sugar_written_as_potential_alcohol_is_read_through_the_eu_convention()
+    {
+        // Given a French cellar's "Degré potentiel (% vol)" of 13.5 and 14.0: 227.2 and 235.6 g/L of sugar at 16.83 g/L
+        // per % vol (OIV/EU convention), which the OIV must table puts at about 24.3 and 25.0 °Brix
+        using var folder = new TestFolder();
+        folder.Text("cave-2024.csv", "Lot;Levure;Degré potentiel (% vol);TAV (% vol)\nA1;LV-21;13,5;13,2\nA2;LV-21;14,0;13,6\n");
+
+        // When it is read
+        var set = folder.Read("cave-2024.csv");
+
+        // Then the starting sugar is that sugar, kept as g/L
+        Assert.Equal([227.2, 235.6], set.Lots.Select(l => Math.Round(l.RecordedStartingSugar.Value, 1)));
+        Assert.All(set.Lots, l => Assert.Equal(SugarScale.GramsPerLitre, l.RecordedStartingSugar.Scale));
+        Assert.Equal([227.2, 235.6], set.Lots.Select(l => Math.Round(l.StartingSugar.GramsPerLitre, 1)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Contains(set.Mappings, m => m.Field == "starting_sugar" && m.Unit == "% vol potential");
+    }
+
+    [Fact]
+    public void A_potential_alcohol_worked_out_beside_the_brix_gives_way_to_the_brix()
+    {
+        // Given a lab book with "Potential alcohol" (the sheet's own Brix × 0.55) left of the Brix it was worked from
+        using var folder = new TestFolder();
+        folder.Text("lab-2024.csv", "Lot,Yeast,Potential alcohol,Brix,Alcohol % v/v\nA1,QX-7,13.2,24.0,14.1\n");
+
+        // When it is read
+        var set = folder.Read("lab-2024.csv");
+
+        // Then the Brix is the starting sugar, and the potential alcohol is named as the column not read
+        Assert.Equal(24.0, Assert.Single(set.Lots).StartingSugar.Brix);
+        var dup = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+        Assert.Equal("Potential alcohol", dup.Column);
+        Assert.Contains("sugar reading 'Brix', which was read instead", dup.Message, StringComparison.Ordinal);
+    }
 }

@@ -27,6 +27,9 @@ internal enum ColumnUnit
 
     /// <summary>Specific gravity written in thousandths, as many cellars note must density ("1090" for SG 1.090).</summary>
     GravityThousandths,
+
+    /// <summary>Must sugar written as potential alcohol, % vol at 16.83 g/L of sugar per % vol (the OIV/EU convention).</summary>
+    PotentialAlcohol,
 }
 
 /// <summary>Unit labels and conversions to the unit each field is held in.</summary>
@@ -54,6 +57,7 @@ internal static class ColumnUnits
         ColumnUnit.Pound => "lb",
         ColumnUnit.GramsPer100Millilitre => "g/100 mL",
         ColumnUnit.GravityThousandths => "SG × 1000",
+        ColumnUnit.PotentialAlcohol => "% vol potential",
         _ => "",
     };
 
@@ -62,7 +66,7 @@ internal static class ColumnUnits
         ColumnUnit.SpecificGravity or ColumnUnit.GravityThousandths => SugarScale.SpecificGravity,
         ColumnUnit.Baume => SugarScale.Baume,
         ColumnUnit.Oechsle => SugarScale.Oechsle,
-        ColumnUnit.SugarGramsPerLitre => SugarScale.GramsPerLitre,
+        ColumnUnit.SugarGramsPerLitre or ColumnUnit.PotentialAlcohol => SugarScale.GramsPerLitre,
         _ => SugarScale.Brix,
     };
 
@@ -79,8 +83,13 @@ internal static class ColumnUnits
         _ => value,
     };
 
-    /// <summary>A sugar value in the number its scale reads (SG for SG × 1000); other units pass through.</summary>
-    public static double OnScale(double value, ColumnUnit unit) => unit == ColumnUnit.GravityThousandths ? value / 1000.0 : value;
+    /// <summary>A sugar value in the number its scale reads (SG for SG × 1000, g/L for potential alcohol); other units pass through.</summary>
+    public static double OnScale(double value, ColumnUnit unit) => unit switch
+    {
+        ColumnUnit.GravityThousandths => value / 1000.0,
+        ColumnUnit.PotentialAlcohol => value * OivMustTable.SugarGramsPerPercentVolume,
+        _ => value,
+    };
 
     /// <summary>The unit assumed when a header states none.</summary>
     public static ColumnUnit DefaultFor(FieldKind kind) => kind switch

@@ -121,6 +121,11 @@ internal static class Fields
 
         startingSugar.AddRange(["starting sugar", "must sugar", "start sugar", "initial sugar", "potential sugar"]);
 
+        // Must sugar written as potential alcohol (% vol at 16.83 g/L per % vol), as French, Spanish and Italian cellars do.
+        startingSugar.AddRange(["potential alcohol", "potential abv", "potential alc", "degre potentiel", "degre probable", "alcool potentiel", "alcool probable",
+            "tap", "tavp", "titre alcoometrique potentiel", "grado probable", "grado alcoholico probable", "alcohol probable", "grado potencial",
+            "alcohol potencial", "alcol potenziale", "grado alcolico potenziale", "titolo alcolometrico potenziale"]);
+
         return
         [
             new("lot_id", TableKind.Lots, FieldKind.Text, true, "", null, null, "Lot", "The cellar's lot identifier, unique within a season.", "R23-014", LotIdWords),

@@ -114,6 +114,13 @@ internal static partial class HeaderText
                     return ColumnUnit.SpecificGravity;
                 }
 
+                if ((Has("potentiel") || Has("potential") || Has("probable") || Has("potencial") || Has("potenziale") || Has("tap") || Has("tavp"))
+                    && !Has("sugar") && !Has("g l") && !Has("gl") && !Has("gpl"))
+                {
+                    // "Degré potentiel", "Potential alcohol": must sugar as the alcohol it could give (% vol).
+                    return ColumnUnit.PotentialAlcohol;
+                }
+
                 return Has("g l") || Has("gl") || Has("gpl") ? ColumnUnit.SugarGramsPerLitre : ColumnUnit.None;
             case FieldKind.Alcohol:
                 if (Has("g l") || Has("gl"))

@@ -72,6 +72,7 @@ internal static class HeaderDetection
         }
 
         int headerWidth = Math.Max(sheet.Rows[headerRow].Length, headerRow > 0 ? sheet.Rows[headerRow - 1].Length : 0);
+        var mapped = new HashSet<int>(); // columns bound by an explicit mapping
         for (int c = 0; c < headerWidth; c++)
         {
             if (HeaderAt(sheet, headerRow, c) is not var (cellText, fromAbove))
@@ -104,6 +105,7 @@ internal static class HeaderDetection
             if (rule is not null)
             {
                 rule.Used = true;
+                mapped.Add(c);
             }
 
             var unit = rule is { Unit: not ColumnUnit.None } ? rule.Unit : HeaderText.UnitFromHeader(text, field.Kind);
@@ -116,6 +118,15 @@ internal static class HeaderDetection
             var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None);
             if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
             {
+                if (first.Unit == ColumnUnit.PotentialAlcohol && unit != ColumnUnit.PotentialAlcohol && !mapped.Contains(first.Index))
+                {
+                    // A potential alcohol beside a sugar reading is mostly worked out from it by the sheet's own rule:
+                    // the reading is read, the potential alcohol named as the repeat.
+                    columns[columns.IndexOf(first)] = bound;
+                    duplicates.Add((first.Index, first.Header, bound));
+                    continue;
+                }
+
                 duplicates.Add((c, text, first));
                 continue;
             }

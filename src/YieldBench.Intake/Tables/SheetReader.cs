@@ -47,7 +47,8 @@ internal static class SheetReader
 
         foreach (var (_, header, first) in duplicates)
         {
-            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn, IntakeMessages.DuplicateColumn(first.Field.Name, first.Header));
+            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn, IntakeMessages.DuplicateColumn(first.Field.Name, first.Header,
+                potential: first.Unit != ColumnUnit.PotentialAlcohol && HeaderText.UnitFromHeader(header, first.Field.Kind) == ColumnUnit.PotentialAlcohol));
         }
 
         int firstData = headerRow + 1;

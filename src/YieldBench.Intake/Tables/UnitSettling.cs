@@ -194,7 +194,7 @@ internal static class UnitSettling
         if (field.Name == "starting_sugar")
         {
             var band = StartingSugarUnit(v);
-            return unit is ColumnUnit.Baume ? band == ColumnUnit.Brix : band == unit;
+            return unit is ColumnUnit.Baume or ColumnUnit.PotentialAlcohol ? band == ColumnUnit.Brix : band == unit;
         }
 
         return unit switch
