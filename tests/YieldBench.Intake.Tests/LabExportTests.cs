@@ -340,4 +340,22 @@ public class LabExportTests
         Assert.Equal("Potential alcohol", dup.Column);
         Assert.Contains("sugar reading 'Brix', which was read instead", dup.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Alcohol_and_temperature_written_in_degrees_are_read_but_a_bare_degree_on_sugar_is_not_a_scale()
+    {
+        // Given alcohol written "13,5°" and "13.8 °" in a decimal-comma file, and one starting sugar written "24°"
+        using var folder = new TestFolder();
+        folder.Text("cave-2024.csv", "Lot;Levure;Brix;TAV (% vol);Temp. max (°C)\nA1;LV-21;23,1;13,5°;26°\nA2;LV-21;23,6;13.8 °;27,5\nA3;LV-21;24°;14,0;25\n");
+
+        // When it is read
+        var set = folder.Read("cave-2024.csv");
+
+        // Then the alcohols and the "26°" peak (°C, the column's own) are read, and the sugar's degree is refused as
+        // naming no scale the column is read in
+        Assert.Equal([13.5, 13.8], set.Lots.Select(l => l.FinalAlcohol.PercentVolume));
+        Assert.Equal([26.0, 27.5], set.Lots.Select(l => l.PeakFermentationTempC));
+        var issue = Assert.Single(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Equal((IssueCodes.UnitInCellDiffers, 4, "24°"), (issue.Code, issue.Row, issue.Value));
+    }
 }

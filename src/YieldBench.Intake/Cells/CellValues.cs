@@ -96,8 +96,18 @@ internal static partial class CellValues
         }
 
         m = ScaleThenNumber().Match(t);
-        return m.Success ? (m.Groups[2].Value, m.Groups[1].Value.Trim()) : null;
+        if (m.Success)
+        {
+            return (m.Groups[2].Value, m.Groups[1].Value.Trim());
+        }
+
+        // "13,5°": a bare degree sign, as alcohol is written in degrees in France, Spain and Italy.
+        m = NumberThenDegree().Match(t);
+        return m.Success ? (m.Groups[1].Value, "°") : null;
     }
+
+    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,]*)\s*[°º]$", RegexOptions.CultureInvariant)]
+    private static partial Regex NumberThenDegree();
 
     [GeneratedRegex(@"^([°º]?\s*(?:sg|bx|brix|be|baum[eé]|oe|oechsle))\s*[:=]?\s*([-+\u2212]?[0-9][0-9.,]*)$", RegexOptions.CultureInvariant | RegexOptions.IgnoreCase)]
     private static partial Regex ScaleThenNumber();

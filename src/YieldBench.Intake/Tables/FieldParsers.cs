@@ -339,6 +339,14 @@ internal static partial class FieldParsers
             _ => null,
         };
         bool gramsPerLitre = u is "g/l" or "gl" or "gpl";
+        if (unitText.Trim() is "°" or "º")
+        {
+            // A bare degree is % vol on alcohol ("13,5°" in the trade's usage in France, Spain and Italy: common
+            // practice) and the column's own scale on a temperature ("18°" under °C); on a sugar it could be °Brix,
+            // °Baumé or °Oechsle, so it is refused there.
+            return (c.Field.Kind == FieldKind.Alcohol && c.Unit == ColumnUnit.PercentVolume) || c.Field.Kind == FieldKind.Temperature;
+        }
+
         return c.Field.Name switch
         {
             "residual_sugar_gl" or "ta_gl" => gramsPerLitre,
