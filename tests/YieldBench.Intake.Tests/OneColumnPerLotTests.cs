@@ -37,6 +37,28 @@ public class OneColumnPerLotTests
     }
 
     [Fact]
+    public void Readings_of_one_sheet_share_its_file_and_sheet_and_each_names_its_own_row()
+    {
+        // Given the lots and a workbook log with two sheets, one per lot
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", Lots);
+        Workbooks.WriteRaw(folder.PathOf("logs.xlsx"),
+            ("C1", [["Lot", "Vintage", "Date", "Brix"], ["C1", 2025, "2025-09-10 09:00", 24.0], ["C1", 2025, "2025-09-11 09:00", 21.0]]),
+            ("C3", [["Lot", "Vintage", "Date", "Brix"], ["C3", 2025, "2025-09-10 09:00", 24.4], ["C3", 2025, "2025-09-11 09:00", 20.2], ["C3", 2025, "2025-09-12 09:00", 15.1]]));
+
+        // When they are read
+        var logs = folder.Read("lots.csv", "logs.xlsx").Logs.ToDictionary(l => l.LotId);
+
+        // Then each reading names the file, its sheet and its row, as messages show them,
+        Assert.Equal(["logs.xlsx [C3] row 2", "logs.xlsx [C3] row 3", "logs.xlsx [C3] row 4"], logs["C3"].Readings.Select(r => r.Source!.ToString()!.Replace(folder.Root + Path.DirectorySeparatorChar, string.Empty, StringComparison.Ordinal)));
+        Assert.Equal(new SourceRef(logs["C1"].Readings[1].Place!.File, "C1", 3), logs["C1"].Readings[1].Source);
+
+        // and the readings of one sheet share one place rather than each holding its own
+        Assert.All(logs["C3"].Readings, r => Assert.Same(logs["C3"].Readings[0].Place, r.Place));
+        Assert.NotSame(logs["C1"].Readings[0].Place, logs["C3"].Readings[0].Place);
+    }
+
+    [Fact]
     public void Sugar_and_temperature_columns_of_a_lot_make_one_reading_and_a_bad_cell_leaves_out_only_its_lot()
     {
         // Given a workbook board with a title row, Excel dates, per lot a °Bx or SG column and a °F column, a note column,

@@ -194,7 +194,8 @@ public sealed partial class ForecastModel
 
     /// <summary>
     /// Learns from past lots (those with a whole-course fit). Throws <see cref="ArgumentException"/> when fewer than
-    /// three lots can be fitted: the forecast then has nothing to stand on.
+    /// three lots can be fitted (the forecast then has nothing to stand on), or fewer than two more than the quantities
+    /// the rate and lag regression learns (the lot-to-lot scatter could not be measured).
     /// </summary>
     public static ForecastModel Train(IReadOnlyList<PastLot> past, SigmoidModel form, ForecastSettings settings)
     {
@@ -297,6 +298,15 @@ public sealed partial class ForecastModel
         double[] betaMu = [], betaLag = [], eMu = [], eLag = [];
         double[,] inverse = new double[0, 0];
         var seasons = fitted.Select((p, i) => (p.Course.Season, i)).GroupBy(x => x.Season).OrderBy(g => g.Key).ToArray();
+        int covariates = Enumerable.Range(p0, 2).Count(j => rows.Any(x => x[j] != 0));
+        int learnt = p0 + covariates + seasons.Length;
+        if (fitted.Length - learnt < 2)
+        {
+            // The lot-to-lot scatter of rate and lag (a 2 × 2 covariance) needs two degrees of freedom left over;
+            // with fewer it is zero or singular, and every interval would be 0 wide or undefined.
+            throw new ArgumentException($"The forecast needs at least {learnt + 2} past lots whose logs can be fitted here; {fitted.Length} could be. It learns {learnt} things from them ({p0} strain or colour group(s), {covariates} of peak temperature and YAN, {seasons.Length} season(s)) and needs two lots more than that to measure how much lots differ. Add the logs of more past lots.", nameof(past));
+        }
+
         var shifts = new Dictionary<int, double>();
         (double, double, double) within = (0, 0, 0);
         var byColour = new Dictionary<string, (double, double, double)>(StringComparer.Ordinal);
@@ -363,7 +373,7 @@ public sealed partial class ForecastModel
                 var g2 = new Gaussian2(0, 0, w2.Item1, w2.Item2, w2.Item3);
                 double det = (g2.Vaa * g2.Vbb) - (g2.Vab * g2.Vab);
                 double d2 = ((g2.Vbb * centred[i].A * centred[i].A) - (2 * g2.Vab * centred[i].A * centred[i].B) + (g2.Vaa * centred[i].B * centred[i].B)) / det;
-                keep[i] = d2 <= 9.21;
+                keep[i] = !(det > 0) || d2 <= 9.21; // a covariance that is not positive sets no lot aside
             }
         }
 

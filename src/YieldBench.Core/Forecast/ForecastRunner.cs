@@ -52,7 +52,7 @@ public static class ForecastRunner
 {
     /// <summary>
     /// Forecasts the running lots from the history's finished lots and logs. Throws <see cref="ArgumentException"/>
-    /// when the settings are unusable or the history has fewer than three logs that can be fitted.
+    /// when the settings are unusable or the history has too few logs that can be fitted (<see cref="ForecastModel.Train"/>).
     /// </summary>
     public static ForecastReport Run(IReadOnlyList<Lot> historyLots, IReadOnlyList<FermentationLog> historyLogs, IReadOnlyList<RunningLot> running, IReadOnlyList<FermentationLog> runningLogs, ForecastSettings settings)
     {

@@ -244,5 +244,5 @@ public static class KineticsAnalysis
         return total;
     }
 
-    private static SourceRef? FirstSource(FermentationLog log) => log.Readings.FirstOrDefault(r => r.Source is not null)?.Source;
+    private static SourceRef? FirstSource(FermentationLog log) => log.Readings.FirstOrDefault(r => r.Place is not null)?.Source;
 }

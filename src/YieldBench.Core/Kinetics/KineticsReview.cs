@@ -73,11 +73,23 @@ public enum TimeOrigin
 /// <param name="Hours">Hours since the analysis's time origin (negative before it).</param>
 /// <param name="Brix">Sugar, °Brix.</param>
 /// <param name="TemperatureC">Temperature at the reading (logged with it, or interpolated), °C; null when none is near.</param>
-/// <param name="Source">The log row.</param>
-public readonly record struct SugarPoint(DateTime Time, double Hours, double Brix, double? TemperatureC, SourceRef? Source);
+/// <param name="Reading">The log reading it comes from (the first, when readings of one time were merged).</param>
+public readonly record struct SugarPoint(DateTime Time, double Hours, double Brix, double? TemperatureC, LogReading? Reading)
+{
+    /// <summary>The log row (made when asked).</summary>
+    public SourceRef? Source => Reading?.Source;
+}
 
 /// <summary>A temperature reading after sorting and merging duplicates.</summary>
-public readonly record struct TemperaturePoint(DateTime Time, double Hours, double Celsius, SourceRef? Source);
+/// <param name="Time">Timestamp as logged.</param>
+/// <param name="Hours">Hours since the analysis's time origin.</param>
+/// <param name="Celsius">Temperature, °C.</param>
+/// <param name="Reading">The log reading it comes from (the first, when readings of one time were merged).</param>
+public readonly record struct TemperaturePoint(DateTime Time, double Hours, double Celsius, LogReading? Reading)
+{
+    /// <summary>The log row (made when asked).</summary>
+    public SourceRef? Source => Reading?.Source;
+}
 
 /// <summary>The rate between two consecutive sugar readings, on the real time between them.</summary>
 /// <param name="Start">Earlier reading's time.</param>

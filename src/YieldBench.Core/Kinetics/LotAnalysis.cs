@@ -29,8 +29,8 @@ internal static class LotAnalysis
 
     /// <summary>The lot's readings sorted by time, equal times merged.</summary>
     private sealed record Readings(
-        List<(DateTime T, double Brix, SourceRef? Src)> Sugar,
-        List<(DateTime T, double C, SourceRef? Src)> Temperature,
+        List<(DateTime T, double Brix, LogReading Src)> Sugar,
+        List<(DateTime T, double C, LogReading Src)> Temperature,
         SourceRef? FirstSource);
 
     /// <summary>The maximum rate and how it was taken.</summary>
@@ -192,8 +192,8 @@ internal static class LotAnalysis
         }
 
         // Readings of one time are merged: sugar and temperature each averaged over the readings that hold them.
-        var sugarRaw = new List<(DateTime T, double Brix, SourceRef? Src)>(sorted.Length);
-        var tempRaw = new List<(DateTime T, double C, SourceRef? Src)>(sorted.Length);
+        var sugarRaw = new List<(DateTime T, double Brix, LogReading Src)>(sorted.Length);
+        var tempRaw = new List<(DateTime T, double C, LogReading Src)>(sorted.Length);
         for (int from = 0, to; from < sorted.Length; from = to)
         {
             var time = sorted[from].Timestamp;
@@ -210,20 +210,20 @@ internal static class LotAnalysis
 
             double sugarSum = 0, tempSum = 0;
             int sugarCount = 0, tempCount = 0;
-            SourceRef? sugarSource = null, tempSource = null;
+            LogReading? sugarSource = null, tempSource = null;
             for (int i = from; i < to; i++)
             {
                 var r = sorted[i];
                 if (r.Sugar is { } sr)
                 {
-                    sugarSource = sugarCount == 0 ? r.Source : sugarSource;
+                    sugarSource = sugarCount == 0 ? r : sugarSource;
                     sugarSum += sr.Brix;
                     sugarCount++;
                 }
 
                 if (r.TemperatureC is { } c)
                 {
-                    tempSource = tempCount == 0 ? r.Source : tempSource;
+                    tempSource = tempCount == 0 ? r : tempSource;
                     tempSum += c;
                     tempCount++;
                 }
@@ -231,12 +231,12 @@ internal static class LotAnalysis
 
             if (sugarCount > 0)
             {
-                sugarRaw.Add((time, sugarSum / sugarCount, sugarSource));
+                sugarRaw.Add((time, sugarSum / sugarCount, sugarSource!));
             }
 
             if (tempCount > 0)
             {
-                tempRaw.Add((time, tempSum / tempCount, tempSource));
+                tempRaw.Add((time, tempSum / tempCount, tempSource!));
             }
         }
 

@@ -114,7 +114,7 @@ internal static class LogRows
             return false;
         }
 
-        run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, new SourceRef(ctx.File, ctx.SheetName, r + 1))));
+        run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, ctx.Place, r + 1)));
         return true;
     }
 

@@ -1,3 +1,5 @@
+using YieldBench.Core.Lots;
+
 namespace YieldBench.Intake;
 
 /// <summary>A column bound to a field, with the unit its values are read in.</summary>
@@ -50,6 +52,9 @@ internal sealed record SheetContext(
     private readonly Dictionary<string, BoundColumn> _byField = IndexByField(Columns);
 
     public string? SheetName => Sheet.Name;
+
+    /// <summary>The file and sheet as the log readings of this table share them.</summary>
+    public SourcePlace Place { get; } = new(File, Sheet.Name);
 
     /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
     public int? HeadingSeason { get; set; }

@@ -104,7 +104,7 @@ internal static class WideLogRows
                 continue;
             }
 
-            ctx.Run.Readings.Add((lot.LotId, season, new LogReading(when.Value, sugar, temp, new SourceRef(ctx.File, ctx.SheetName, r + 1))));
+            ctx.Run.Readings.Add((lot.LotId, season, new LogReading(when.Value, sugar, temp, ctx.Place, r + 1)));
             kept++;
         }
 

@@ -231,6 +231,24 @@ public class ForecastModelTests
     }
 
     [Fact]
+    public void A_history_too_small_to_measure_how_lots_differ_is_refused_with_how_many_lots_are_needed()
+    {
+        // Given a small cellar's history: one season of three lots with logs, one of each strain (a Spanish cellar's
+        // three logged lots once stopped the forecast with "Index was out of range")
+        var cellar = new SyntheticCellar(21);
+        var (lots, logs, _, _) = cellar.History(2025, 1, 3);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var running = cellar.Running("26-001", 2026, "SX-1", WineColour.Red, truth, new DateTime(2026, 9, 10, 9, 0, 0));
+
+        // When a forecast is asked for
+        var e = Assert.Throws<ArgumentException>(() => ForecastRunner.Run(lots, logs, [running], [], Settings));
+
+        // Then it is refused in words, naming the lots needed, not with an index error or NaN intervals
+        Assert.Contains("needs at least", e.Message, StringComparison.Ordinal);
+        Assert.Contains("3 could be", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_ferment_levelling_off_well_above_dry_gets_a_high_stuck_risk_and_an_ordinary_one_a_low_one()
     {
         // Given two lots after four days, one that will settle at 7 °Brix and one that finishes
