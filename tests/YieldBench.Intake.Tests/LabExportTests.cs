@@ -250,4 +250,58 @@ public class LabExportTests
     {
         Assert.Null(RowAccounting.SeasonHeading([text, null, null]));
     }
+
+    [Fact]
+    public void A_lab_export_with_units_under_its_headers_states_the_units_of_residual_sugar_ta_and_yan()
+    {
+        // Given a tab-separated lab export with a UTF-8 byte-order mark, a "Sample ID" column, and the units in a
+        // second row: g/L under RS and TA, mg/L under YAN, % under a second sheet's RS
+        using var folder = new TestFolder();
+        folder.Text("lims 2024.txt", "\uFEFFSample ID\tStrain\tBrix\tEthanol\tRS\tTA\tYAN\n\t\t°Bx\t% v/v\tg/L\tg/L\tmg/L\nK24-01\tKR-3\t24.1\t14.2\t1.5\t6.1\t210\n");
+        folder.Text("lims pct 2024.txt", "Sample ID\tStrain\tBrix\tEthanol\tRS\n\t\t°Bx\t% v/v\t%\nK24-02\tKR-3\t24.1\t14.2\t0.15\n");
+
+        // When they are read
+        var set = folder.Read("lims 2024.txt", "lims pct 2024.txt");
+
+        // Then the sample id is the lot, no unit is said to be assumed, and RS in % is g per 100 mL (0.15 % = 1.5 g/L)
+        Assert.Equal(["K24-01", "K24-02"], set.Lots.Select(l => l.LotId));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.UnitAssumed);
+        Assert.Equal([1.5, 1.5], set.Lots.Select(l => l.ResidualSugarGl));
+        Assert.Equal((6.1, 210.0), (set.Lots[0].TaGl, set.Lots[0].YanMgL));
+    }
+
+    [Theory]
+    [InlineData("n/a")]
+    [InlineData("-")]
+    [InlineData("NA")]
+    [InlineData("\u2014")]
+    public void A_mark_for_not_measured_is_an_empty_value_not_a_lost_lot(string mark)
+    {
+        // Given a lab export writing a mark instead of residual sugar, pH and YAN it did not measure
+        using var folder = new TestFolder();
+        folder.Text("lab-2024.csv", $"Lot,Yeast,Brix,Alcohol % v/v,RS g/L,pH,YAN mg/L\nL1,QX-7,24.0,14.1,{mark},{mark},{mark}\n");
+
+        // When it is read
+        var set = folder.Read("lab-2024.csv");
+
+        // Then the lot is used with those values empty, and nothing is reported (as for empty cells)
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal((null, null, null), (lot.ResidualSugarGl, lot.Ph, lot.YanMgL));
+        Assert.Empty(set.Issues);
+    }
+
+    [Fact]
+    public void A_mark_for_not_measured_in_a_required_value_is_a_missing_value()
+    {
+        // Given a lot whose final alcohol is "n/a"
+        using var folder = new TestFolder();
+        folder.Text("lab-2024.csv", "Lot,Yeast,Brix,Alcohol\nL1,QX-7,24.0,n/a\n");
+
+        // When it is read
+        var set = folder.Read("lab-2024.csv");
+
+        // Then the lot is left out as missing its alcohol, the value shown as written
+        var issue = Assert.Single(set.Issues);
+        Assert.Equal((IssueCodes.MissingValue, "n/a"), (issue.Code, issue.Value));
+    }
 }

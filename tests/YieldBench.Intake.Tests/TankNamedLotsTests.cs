@@ -55,15 +55,15 @@ public class TankNamedLotsTests
     [Fact]
     public void A_lot_without_its_alcohol_yet_is_told_where_it_belongs_and_a_word_for_alcohol_gets_an_alcohol_example()
     {
-        // Given a season's lots, one still without the lab's alcohol and one with "n/a" in its place
+        // Given a season's lots, one still without the lab's alcohol and one with "pending" in its place
         using var folder = new TestFolder();
-        folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc\nA1,QX-7,24.5,14.2\nA2,QX-7,23.9,\nA4,QX-7,24.1,n/a\n");
+        folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc\nA1,QX-7,24.5,14.2\nA2,QX-7,23.9,\nA4,QX-7,24.1,pending\n");
 
         // When it is read
         var set = folder.Read("lots-2025.csv");
 
-        // Then the empty alcohol says the lot belongs in a later review or the forecast, and "n/a" is asked for as a
-        // number like the field's own example (13.9 % v/v), not a sugar (24.3)
+        // Then the empty alcohol says the lot belongs in a later review or the forecast, and "pending" is asked for as a
+        // number like the field's own example (13.9 % v/v), not a sugar (24.3) ("n/a" would be an empty cell)
         var missing = Assert.Single(set.Issues, i => i.Code == IssueCodes.MissingValue);
         Assert.Contains("a lot still fermenting belongs in a later review, or in 'yieldbench forecast --running' now", missing.Message, StringComparison.Ordinal);
         var word = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotANumber);

@@ -116,14 +116,17 @@ internal static partial class CellValues
         return ParseNumberTextGeneral(s, decimalComma, out value, out alternative);
     }
 
+    private static readonly HashSet<string> NoValueMarks = new(["-", "--", "\u2013", "\u2014", "n/a", "na", "n.a.", "?"], StringComparer.OrdinalIgnoreCase);
+
     /// <summary>Any number text: grouping, decimal commas, signs, spaces, percent; the reference for the fast path.</summary>
     internal static CellProblem ParseNumberTextGeneral(string s, bool decimalComma, out double value, out string? alternative)
     {
         value = double.NaN;
         alternative = null;
         string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal);
-        if (t.Length == 0)
+        if (t.Length == 0 || NoValueMarks.Contains(t))
         {
+            // "-", "n/a", "NA": the sheet's way of writing that nothing was measured, which is an empty cell.
             return CellProblem.Blank;
         }
 

@@ -54,6 +54,7 @@ internal static class Fields
         "lot", "lot id", "lotid", "lot no", "lot nr", "lot num", "lot number", "lot code", "lot name", "lot ref",
         "lot reference", "wine lot", "batch", "batch id", "batch no", "batch number", "batch code", "id", "ferment id",
         "fermentation id", "fermentation lot", "lot label", "code", "los", "partie", "lote", "lotto", "partida",
+        "sample id", "sample name", "sample code", "sample no",
     ];
 
     // In a fermentation log the tank a reading was taken from is how the cellar names the lot (a log has no vessel field).

@@ -241,9 +241,17 @@ internal static class HeaderDetection
                 continue;
             }
 
-            var unit = HeaderText.UnitFromHeader($"{c.Header} ({unitText})", c.Field.Kind);
-            if (unit != ColumnUnit.None)
+            string withUnit = $"{c.Header} ({unitText})";
+            var unit = HeaderText.UnitFromHeader(withUnit, c.Field.Kind);
+            if (c.Field.Name == "residual_sugar_gl" && HeaderText.IsPercentHeader(withUnit))
             {
+                // "%" under RS is the lab's g per 100 mL, as in the header "RS %".
+                unit = ColumnUnit.GramsPer100Millilitre;
+            }
+
+            if (unit != ColumnUnit.None || (c.Field.Kind == FieldKind.Plain && c.Field.Unit.Length > 0 && UnitSettling.PlainUnitIn(withUnit, c.Field.Unit)))
+            {
+                // A plain field whose units-row unit is its own (g/L under RS, mg/L under YAN) keeps its unit, now stated.
                 columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder };
             }
         }

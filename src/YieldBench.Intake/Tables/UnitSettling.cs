@@ -141,10 +141,13 @@ internal static class UnitSettling
         }
     }
 
-    internal static bool PlainUnitStated(BoundColumn c)
+    internal static bool PlainUnitStated(BoundColumn c) => c.UnitStated || PlainUnitIn(c.Header, c.Field.Unit);
+
+    /// <summary>True when the text (a header, or a header with its units-row unit) names the field's held unit, g/L or mg N/L.</summary>
+    internal static bool PlainUnitIn(string text, string fieldUnit)
     {
-        string n = " " + HeaderText.Normalise(c.Header) + " ";
-        return c.Field.Unit switch
+        string n = " " + HeaderText.Normalise(text) + " ";
+        return fieldUnit switch
         {
             "g/L" => n.Contains(" g l ", StringComparison.Ordinal) || n.Contains(" gl ", StringComparison.Ordinal) || n.Contains(" gpl ", StringComparison.Ordinal),
             "mg N/L" => n.Contains(" mg ", StringComparison.Ordinal) || n.Contains(" mgl ", StringComparison.Ordinal) || n.Contains(" ppm ", StringComparison.Ordinal),
