@@ -1,4 +1,5 @@
 using YieldBench.Core.Lots;
+using YieldBench.Core.Units;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.Review.Strains;
 
@@ -27,6 +28,35 @@ public class StrainReviewerTests
         var missed = cellar.Planted.Where(p => !codes.TryGetValue(p.Key, out var c) || !c.Contains(p.Value)).Select(p => p.Key + " " + p.Value).ToArray();
         Assert.Empty(missed);
         Assert.True(cellar.Planted.Count >= 30, "a tenth of about 400 lots plus six special plants");
+    }
+
+    [Theory]
+    [InlineData(13.6, false)]
+    [InlineData(14.3, true)]
+    public void A_small_cellar_whose_lots_agree_to_the_readings_precision_flags_only_what_a_lab_could_tell_apart(double firstAbv, bool flagged)
+    {
+        // Given a winery of five lots of one strain, sugar read as specific gravity to 0.001 and alcohol to 0.1 % v/v: the
+        // factors agree within a few thousandths, so the lots' own robust scale (MAD 0.0005 % v/v per °Brix) is far below
+        // what the readings can resolve (about 0.003: 0.05 % v/v of alcohol and 0.1 °Brix of sugar at 13.6 and 23 °Brix)
+        var rows = new[] { (1.098, firstAbv), (1.102, 14.0), (1.090, 12.5), (1.105, 14.4), (1.094, 13.0) };
+        var lots = rows.Select((r, i) => LotBuilder.Convert(LotBuilder.Lot("W" + (i + 1), 2025, "WR-1", SugarReading.FromSpecificGravity(r.Item1).Brix, r.Item2, residualSugarGl: 1.0))).ToArray();
+
+        // When the strains are reviewed
+        var review = StrainReviewer.Run(lots, new StrainReviewSettings(), Seed);
+
+        // Then W1 at 13.6 % v/v (0.08 % v/v above what the strain's median factor gives; it had been flagged at a modified
+        // z of 7.7) raises no factor flag, while W1 at 14.3 % v/v (0.78 above) still does, judged by the readings' precision
+        var factorFlags = review.Flags.Where(f => f.LotKey is { LotId: "W1" } && f.Code is FlagCodes.HighFactor or FlagCodes.FarOutsideTukeyFence or FlagCodes.OutsideTukeyFence).ToArray();
+        Assert.Equal(flagged, factorFlags.Any(f => f.Code == FlagCodes.HighFactor));
+        if (!flagged)
+        {
+            Assert.Empty(factorFlags);
+            Assert.DoesNotContain(review.Flags, f => f.LotKey is not null);
+        }
+        else
+        {
+            Assert.Contains("by reading precision", factorFlags.First(f => f.Code == FlagCodes.HighFactor).Reason, StringComparison.Ordinal);
+        }
     }
 
     [Fact]

@@ -95,10 +95,10 @@ internal static class OddLots
     private static Func<string, FactorReference> FactorReferences(IReadOnlyList<PreparedLot> lots, StrainReviewSettings settings)
     {
         var usable = lots.Where(l => !double.IsNaN(l.Factor)).ToArray();
-        var pooled = FactorReference.Of(StrainReviewer.Pooled, usable.Select(l => l.Factor));
+        var pooled = FactorReference.Of(StrainReviewer.Pooled, usable, settings);
         var byStrain = usable.GroupBy(l => l.Strain, StringComparer.Ordinal)
             .Where(g => g.Count() >= settings.MinLotsForStrainReference)
-            .ToDictionary(g => g.Key, g => FactorReference.Of("strain " + g.Key, g.Select(l => l.Factor)), StringComparer.Ordinal);
+            .ToDictionary(g => g.Key, g => FactorReference.Of("strain " + g.Key, g.ToArray(), settings), StringComparer.Ordinal);
         return strain => byStrain.TryGetValue(strain, out var r) ? r : pooled;
     }
 
@@ -144,7 +144,8 @@ internal static class OddLots
             double middle = Descriptive.MedianOfSorted(raw);
             line = line with { Intercept = line.Intercept + middle };
             var residuals = raw.Select(r => r - middle).ToArray();
-            double scale = RobustScale(residuals).Scale;
+            // Never below what the readings' precision allows (StrainReviewSettings.MinimumLineScale).
+            double scale = Math.Max(RobustScale(residuals).Scale, settings.MinimumLineScale(line.Slope));
 
             return scale > 0 ? new StrainLine(name, line, scale) : null;
         }

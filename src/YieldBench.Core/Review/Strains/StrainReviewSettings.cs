@@ -74,6 +74,33 @@ public sealed record StrainReviewSettings
     /// </summary>
     public double DriftMinimumAbv { get; init; } = 0.15;
 
+    /// <summary>
+    /// The spread of a lab's final-alcohol result, % v/v (standard deviation), below which no group's spread is taken to
+    /// be: alcohol is reported to 0.1 % v/v and a lab's repeated results differ by about that much (common practice; the
+    /// figure is ours, from memory of lab practice, not from a cited standard).
+    /// </summary>
+    public double AlcoholReadingSd { get; init; } = 0.05;
+
+    /// <summary>
+    /// The spread of a starting-sugar reading, °Brix (standard deviation): refractometers and hydrometers are read to
+    /// 0.1 °Brix (or 0.001 SG, about 0.25 °Brix) and a must sample is rarely better than that (common practice).
+    /// </summary>
+    public double SugarReadingSd { get; init; } = 0.1;
+
+    /// <summary>
+    /// The least robust scale of a group's conversion factors (% v/v per °Brix) that readings of this precision allow, at
+    /// the group's median factor, alcohol and starting sugar: f·√((σA/A)² + (σB/B)²) (first-order propagation of the two
+    /// readings' errors into their ratio). A group whose lots agree more closely than this (five lots read to the same
+    /// tenths) would otherwise flag a lot for a difference no lab could tell apart.
+    /// </summary>
+    public double MinimumFactorScale(double medianFactor, double medianAbv, double medianBrix) =>
+        medianAbv > 0 && medianBrix > 0
+            ? Math.Abs(medianFactor) * Math.Sqrt(Math.Pow(AlcoholReadingSd / medianAbv, 2) + Math.Pow(SugarReadingSd / medianBrix, 2))
+            : 0;
+
+    /// <summary>The least robust scale of residuals from a strain's alcohol-on-sugar line of <paramref name="slope"/>, % v/v: √(σA² + (slope·σB)²).</summary>
+    public double MinimumLineScale(double slope) => Math.Sqrt((AlcoholReadingSd * AlcoholReadingSd) + Math.Pow(slope * SugarReadingSd, 2));
+
     /// <summary>Checks the settings; returns the first problem in plain words, or null.</summary>
     public string? Problem()
     {

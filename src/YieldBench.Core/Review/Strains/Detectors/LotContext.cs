@@ -11,15 +11,29 @@ internal interface ILotDetector
     IEnumerable<LotFlag> Flags(LotContext lot);
 }
 
-/// <summary>Robust reference of a group's factors: median, normal-consistent scale and its name, quartiles, size.</summary>
-internal sealed record FactorReference(string Name, double Median, double Scale, string ScaleName, double Q1, double Q3, int N)
+/// <summary>
+/// Robust reference of a group's factors: median, normal-consistent scale and its name, quartiles, size, and the least
+/// scale the readings' precision allows (<see cref="StrainReviewSettings.MinimumFactorScale"/>), which the scale is never
+/// below.
+/// </summary>
+internal sealed record FactorReference(string Name, double Median, double Scale, string ScaleName, double Q1, double Q3, int N, double MinimumScale = 0)
 {
-    /// <summary>The reference of <paramref name="values"/>.</summary>
-    public static FactorReference Of(string name, IEnumerable<double> values)
+    /// <summary>The name of the scale when the readings' precision, not the lots' spread, sets it.</summary>
+    public const string ReadingPrecision = "reading precision";
+
+    /// <summary>The reference of <paramref name="lots"/>' factors.</summary>
+    public static FactorReference Of(string name, IReadOnlyList<PreparedLot> lots, StrainReviewSettings settings)
     {
-        var sorted = Descriptive.ToSortedArray(values);
+        var sorted = Descriptive.ToSortedArray(lots.Select(l => l.Factor));
         var (scale, scaleName) = OddLots.RobustScale(sorted);
-        return new FactorReference(name, Descriptive.MedianOfSorted(sorted), scale, scaleName, Descriptive.QuantileOfSorted(sorted, 0.25), Descriptive.QuantileOfSorted(sorted, 0.75), sorted.Length);
+        double median = Descriptive.MedianOfSorted(sorted);
+        double floor = settings.MinimumFactorScale(median, Descriptive.Median(lots.Select(l => l.Abv).Where(double.IsFinite)), Descriptive.Median(lots.Select(l => l.Brix).Where(double.IsFinite)));
+        if (!(scale >= floor))
+        {
+            (scale, scaleName) = (floor, ReadingPrecision);
+        }
+
+        return new FactorReference(name, median, scale, scaleName, Descriptive.QuantileOfSorted(sorted, 0.25), Descriptive.QuantileOfSorted(sorted, 0.75), sorted.Length, floor);
     }
 
     /// <summary>(value − median)/scale: with the scaled MAD this is the Iglewicz–Hoaglin modified z (NaN when the scale is 0).</summary>

@@ -8,7 +8,9 @@ internal sealed class TukeyFenceDetector : ILotDetector
     public IEnumerable<LotFlag> Flags(LotContext c)
     {
         var own = c.Own;
-        double iqr = own.Q3 - own.Q1;
+
+        // Never narrower than the readings' precision allows: a normal's interquartile range is 1.349 standard deviations.
+        double iqr = Math.Max(own.Q3 - own.Q1, 1.349 * own.MinimumScale);
         if (own.N < 4 || !(iqr > 0))
         {
             yield break;
