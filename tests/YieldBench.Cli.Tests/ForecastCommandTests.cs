@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using SkiaSharp;
@@ -184,6 +185,67 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     private static double Grey(SKColor c) => (0.299 * c.Red) + (0.587 * c.Green) + (0.114 * c.Blue);
+
+    [Fact]
+    public void A_peak_forecast_stays_between_the_warmest_reading_and_what_the_must_could_reach_with_no_cooling()
+    {
+        // Given a small cellar's history of five lots whose temperatures (°F, hand-read) jump about and say little about
+        // heat, and three running lots with one to three readings (invented; sugar as SG)
+        using var folder = new Scratch();
+        var sg = new[]
+        {
+            "1.088 1.086 1.082 1.074 1.061 1.043 1.025 1.012 1.004 1.000 0.998 0.997 0.996",
+            "1.092 1.090 1.086 1.078 1.064 1.045 1.026 1.012 1.004 1.000 0.998 0.997 0.996",
+            "1.080 1.079 1.075 1.068 1.055 1.039 1.023 1.010 1.003 0.999 0.998 0.997 0.996",
+            "1.095 1.093 1.089 1.080 1.066 1.046 1.027 1.013 1.004 1.000 0.998 0.997 0.996",
+            "1.084 1.082 1.079 1.071 1.058 1.041 1.024 1.011 1.003 1.000 0.998 0.997 0.996",
+        };
+        var tempF = new[]
+        {
+            "79 63 66 68 73 71 76 77 78 71 70 64 70",
+            "75 80 65 77 73 74 65 62 71 70 77 63 67",
+            "76 67 77 78 78 77 72 78 73 65 73 72 74",
+            "76 78 66 63 71 76 70 74 71 71 75 79 77",
+            "69 70 74 63 76 79 65 79 75 69 65 65 80",
+        };
+        var log = new StringBuilder("Lot,Date,Reading,Temp F\n");
+        for (int i = 0; i < 5; i++)
+        {
+            var day = new DateTime(2025, 9, 20 + i);
+            foreach (var (g, t) in sg[i].Split(' ').Zip(tempF[i].Split(' ')))
+            {
+                log.Append(CultureInfo.InvariantCulture, $"W{i + 1},{day:yyyy-MM-dd},{g},{t}\n");
+                day = day.AddDays(1);
+            }
+        }
+
+        folder.Write("h/lots-2025.csv", "Lot,Yeast,SG,ABV,RS g/L,Inoculated\nW1,WR-1,1.098,13.6,1.0,2025-09-20\nW2,WR-1,1.102,14.0,1.0,2025-09-21\nW3,WR-1,1.090,12.5,1.0,2025-09-22\nW4,WR-1,1.105,14.4,1.0,2025-09-23\nW5,WR-1,1.094,13.0,1.0,2025-09-24\n");
+        folder.Write("h/log-2025.csv", log.ToString());
+        folder.Write("r/now-2026.csv", "Lot,Yeast,SG,Inoculated\nW26-1,WR-1,1.100,2026-09-14 08:00\nW26-2,WR-1,1.096,2026-09-15 08:00\nW26-3,WR-1,1.092,2026-09-16 08:00\n");
+        folder.Write("r/log-2026.csv", "Lot,Date,Time,Reading,Temp F\nW26-1,2026-09-14,08:00,1.100,62\nW26-1,2026-09-15,08:00,1.097,66\nW26-1,2026-09-16,08:00,1.088,72\nW26-2,2026-09-15,08:00,1.096,63\nW26-2,2026-09-16,08:00,1.094,65\nW26-3,2026-09-16,08:00,1.092,61\n");
+
+        // When the running lots are forecast
+        var (exit, _, err) = Cli.Run(folder.Root, "forecast", "h", "--running", "r", "--out", "out", "--quiet");
+
+        // Then every peak and its 80 % interval lie between the lot's warmest reading and the temperature it could reach
+        // with no heat removed (before, the history's loose heat model gave intervals up to 82.6 °C against 49.8 °C
+        // reachable)
+        Assert.True(exit == 0, err);
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder.Root, "out", "forecast.json")));
+        var warmest = new Dictionary<string, double> { ["W26-1"] = (72 - 32) / 1.8, ["W26-2"] = (65 - 32) / 1.8, ["W26-3"] = (61 - 32) / 1.8 };
+        var lots = json.RootElement.GetProperty("lots").EnumerateArray().ToArray();
+        Assert.Equal(3, lots.Length);
+        foreach (var lot in lots)
+        {
+            string id = lot.GetProperty("lot_id").GetString()!;
+            double reach = lot.GetProperty("reachable_without_cooling_c").GetDouble();
+            var peak = lot.GetProperty("peak_temp_c");
+            foreach (string part in new[] { "low80", "value", "high80" })
+            {
+                Assert.InRange(peak.GetProperty(part).GetDouble(), warmest[id] - 0.05, reach + 0.05);
+            }
+        }
+    }
 
     [Fact]
     public void A_running_log_in_fahrenheit_gives_the_forecast_of_the_same_log_in_celsius()

@@ -106,6 +106,15 @@ internal static class PosteriorSummary
             reachable = c.TempC[^1] + HeatBalance.RemainingRiseK(s0, f, brixNow, settings.Kinetics);
         }
 
+        // The peak is never below the warmest reading so far, nor above what the must could reach with no heat removed
+        // at all (a history whose temperatures say little about heat can otherwise put an interval's end past physics).
+        if (peakValue is { } pv && c.TempC.Length > 0)
+        {
+            double floor = c.TempC.Max();
+            double ceiling = reachable is { } r ? Math.Max(r, floor) : double.PositiveInfinity;
+            peakValue = new ForecastValue(Math.Clamp(pv.Median, floor, ceiling), Math.Clamp(pv.Low, floor, ceiling), Math.Clamp(pv.High, floor, ceiling));
+        }
+
         double? kw = c.VolumeL is { } v && s0 > f ? HeatBalance.HeatPowerKw(rate, s0, f, v, settings.Kinetics) : null;
         var th = settings.Kinetics.ThresholdsFor(c.Colour == Lots.WineColour.Unknown && m.BucketOf(c) == "white" ? Lots.WineColour.White : c.Colour);
 
