@@ -75,7 +75,7 @@ public static class IntakeReport
             ? $"{N(a.LogReadingsUsed)} rows used ({N(held)} readings)"
             : a.LogReadingsUsed > 0 || a.Kind == "log" ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
         return $"{sheet}{a.Kind}: {N(a.RowsRead)} rows read = {used}, {N(a.RowsReported)} left out, {N(a.BlankRowsSkipped)} blank, " +
-            $"{N(a.SummaryRowsSkipped)} summary{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
+            $"{N(a.SummaryRowsSkipped)} summary or heading{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
     }
 
     /// <summary>One issue as a line: severity, place, code and message (the file left out when it heads the issue's group).</summary>

@@ -235,12 +235,14 @@ public class LabExportTests
         var set = folder.Read("ferment records.csv");
 
         // Then each lot takes the season of the heading above it (H1 is two lots, one per season), and each heading
-        // is said once and counted as left out
+        // is said once and counted with the summary rows (structure), so no row is left out and check reports none
         Assert.Equal([("H1", 2023), ("H2", 2023), ("H1", 2024)], set.Lots.Select(l => (l.LotId, l.Season)));
         Assert.Equal([2, 6], set.Issues.Where(i => i.Code == IssueCodes.SeasonHeading).Select(i => i.Row ?? 0));
         Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
         var account = Assert.Single(set.Accounts);
-        Assert.Equal((6, 3, 2, 1), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped));
+        Assert.Equal((6, 3, 0, 1, 2), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped, account.SummaryRowsSkipped));
+        Assert.True(account.Balances);
+        Assert.False(IntakeReport.AnyRowLeftOut(set));
     }
 
     [Theory]

@@ -32,7 +32,7 @@ public sealed record IntakeIssue(
     IssueSeverity Severity);
 
 /// <summary>
-/// Row accounting for one sheet (or CSV file): every row read is used, reported, or skipped as blank or summary.
+/// Row accounting for one sheet (or CSV file): every row read is used, reported, or skipped as blank or summary (an Average or Total row, or a season heading such as "Vintage 2023" over its lots).
 /// Identity: <c>RowsRead = LotsUsed + LogReadingsUsed + RowsReported + BlankRowsSkipped + SummaryRowsSkipped</c>.
 /// </summary>
 public sealed record SourceAccount(

@@ -50,7 +50,8 @@ internal static class RowAccounting
             if (plan.NotesAreRows && SeasonHeading(row) is var (heading, year))
             {
                 // "Vintage 2023" over the lots of that season: the season of the rows below it, up to the next heading.
-                reported++;
+                // Used as a heading, so counted with the summary rows (structure, not data), not as a row left out.
+                summary++;
                 ctx.HeadingSeason = year;
                 sink.Warning(ctx.File, ctx.SheetName, r + 1, null, heading, IssueCodes.SeasonHeading, IntakeMessages.SeasonHeading(year));
                 continue;

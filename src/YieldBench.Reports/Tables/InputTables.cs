@@ -60,7 +60,7 @@ public static partial class ReviewTables
         new("log_readings", "Log readings", CellKind.Integer, a => a.ReadingsInRows ?? a.LogReadingsUsed),
         new("rows_reported", "Rows reported", CellKind.Integer, a => a.RowsReported),
         new("blank_rows_skipped", "Blank rows", CellKind.Integer, a => a.BlankRowsSkipped),
-        new("summary_rows_skipped", "Summary rows", CellKind.Integer, a => a.SummaryRowsSkipped),
+        new("summary_rows_skipped", "Summary or heading rows", CellKind.Integer, a => a.SummaryRowsSkipped),
     ];
 
     /// <summary>Row accounting per file and sheet; a sheet whose rows do not balance is highlighted.</summary>
