@@ -213,7 +213,7 @@ public sealed class PlanCommandTests : IDisposable
     {
         var (code, _, err) = Plan("--factor", "0.6", "--sugar", "24", "--scale", "plato");
         Assert.Equal(2, code);
-        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle or gl.", err, StringComparison.Ordinal);
+        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle, kmw or gl.", err, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -40,6 +40,8 @@ public class HeaderMatchingTests
     [InlineData("Style", "colour")]
     [InlineData("Notes", "notes")]
     [InlineData("Mostgewicht °Oe", "starting_sugar")]
+    [InlineData("Mostgewicht °KMW", "starting_sugar")]
+    [InlineData("Babo", "starting_sugar")]
     [InlineData("Start sugar °Bx", "starting_sugar")]
     [InlineData("Final sugar SG", "final_sugar")]
     [InlineData("Los", "lot_id")]

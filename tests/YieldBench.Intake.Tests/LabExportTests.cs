@@ -225,6 +225,25 @@ public class LabExportTests
     }
 
     [Fact]
+    public void An_Austrian_lots_sheet_in_KMW_is_read_through_Oechsle()
+    {
+        // Given a lots table whose must weight is in °KMW (°Babo), as Austrian and Italian cellars record it (invented lots)
+        using var folder = new TestFolder();
+        folder.Text("lese-2024.csv", "Los;Hefe;Mostgewicht (°KMW);Alkohol % vol\nL1;AT-3;19,5;13,2\nL2;AT-3;21,0;14,1\n");
+
+        // When it is read
+        var set = folder.Read("lese-2024.csv");
+
+        // Then both lots are used with the °Brix of their °KMW (through °Oe = KMW·(0.022·KMW + 4.54)), the recorded
+        // value keeps its scale, and no unit had to be guessed from the values (°KMW overlaps °Brix)
+        Assert.Equal(2, set.Lots.Count);
+        Assert.Equal(SugarReading.FromKmw(19.5).Brix, set.Lots[0].StartingSugar.Brix, 1e-9);
+        Assert.Equal(SugarReading.FromOechsle(21.0 * ((0.022 * 21.0) + 4.54)).Brix, set.Lots[1].StartingSugar.Brix, 1e-9);
+        Assert.Equal(SugarScale.Kmw, set.Lots[0].StartingSugarScale);
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.UnitFromValues || i.Severity == IssueSeverity.Error);
+    }
+
+    [Fact]
     public void Season_headings_dividing_one_sheet_give_the_season_of_the_lots_below_them()
     {
         // Given one lots sheet with no season column, divided by heading rows "Vintage 2023" and "2024 harvest"

@@ -24,6 +24,7 @@ internal static class PlanCommand
         ["sg"] = (SugarScale.SpecificGravity, "SG"),
         ["baume"] = (SugarScale.Baume, "°Baumé"),
         ["oechsle"] = (SugarScale.Oechsle, "°Oechsle"),
+        ["kmw"] = (SugarScale.Kmw, "°KMW"),
         ["gl"] = (SugarScale.GramsPerLitre, "g/L sugar"),
     };
 
@@ -34,7 +35,7 @@ internal static class PlanCommand
         var lotFiles = new Option<string[]>("--lots") { Description = "Or lot files or folders of past seasons: the house factor is chosen from them first (as 'yieldbench review' does, without the multi-variable model).", AllowMultipleArgumentsPerToken = true };
         var strain = new Option<string?>("--strain") { Description = "Yeast strain code (default: the pooled line for all strains)." };
         var sugar = new Option<string?>("--sugar") { Description = "Starting must sugar, on the scale given by --scale." };
-        var scale = new Option<string>("--scale") { Description = "Scale of --sugar: brix, sg, baume, oechsle or gl.", DefaultValueFactory = _ => "brix" };
+        var scale = new Option<string>("--scale") { Description = "Scale of --sugar: brix, sg, baume, oechsle, kmw or gl.", DefaultValueFactory = _ => "brix" };
         var target = new Option<string[]>("--target") { Description = "Target alcohol(s), % v/v; several may follow one --target.", AllowMultipleArgumentsPerToken = true };
         var confidence = new Option<string[]>("--confidence") { Description = "Confidence(s) that the wine stays at or under the target, 0.5–0.99 (default 0.8 and 0.95).", AllowMultipleArgumentsPerToken = true };
         var volume = new Option<string?>("--volume") { Description = "Juice volume, L (the liquid the sugar reading is of): with --sugar and one --target, the water add-back is worked out. For must on skins give --pomace-share too." };
@@ -118,7 +119,7 @@ internal static class PlanCommand
 
         if (!Scales.TryGetValue(r.Scale, out var scale))
         {
-            err.WriteLine($"plan: --scale {r.Scale} is not known; use brix, sg, baume, oechsle or gl.");
+            err.WriteLine($"plan: --scale {r.Scale} is not known; use brix, sg, baume, oechsle, kmw or gl.");
             return ExitCodes.Usage;
         }
 

@@ -57,6 +57,12 @@ public readonly record struct SugarReading : IComparable<SugarReading>
     /// <summary>Highest °Oechsle accepted (231.8).</summary>
     public static double MaxOechsle { get; } = Math.Floor(SugarScales.OechsleFromSpecificGravity(MaxSpecificGravity) * 10) / 10;
 
+    /// <summary>Lowest °KMW accepted (the KMW of <see cref="MinOechsle"/>, rounded inward to 2 decimals).</summary>
+    public static double MinKmw { get; } = Math.Ceiling(SugarScales.KmwFromOechsle(MinOechsle) * 100) / 100;
+
+    /// <summary>Highest °KMW accepted (the KMW of <see cref="MaxOechsle"/>, rounded inward).</summary>
+    public static double MaxKmw { get; } = Math.Floor(SugarScales.KmwFromOechsle(MaxOechsle) * 100) / 100;
+
     /// <summary>Highest must sugar accepted, g/L: the sugar model at <see cref="MaxBrix"/>, rounded down to 0.1 g/L.</summary>
     public static double MaxGramsPerLitre { get; } = Math.Floor(OivMustTable.SugarGramsPerLitre(MaxBrix) * 10) / 10;
 
@@ -93,6 +99,13 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(oechsle)));
     }
 
+    /// <summary>Makes a reading from °KMW (°Babo), through °Oechsle.</summary>
+    public static SugarReading FromKmw(double kmw)
+    {
+        Check.InRange(kmw, MinKmw, MaxKmw, "Sugar", "°KMW");
+        return new SugarReading(SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(SugarScales.OechsleFromKmw(kmw))));
+    }
+
     /// <summary>
     /// Makes a reading from a must's fermentable sugar in g/L (inverse of the OIV must table): the °Brix whose
     /// sugar is the value. Sugar is 0 up to 2.147 °Brix (non-sugar solids), so 0 g/L reads as 2.147 °Brix.
@@ -111,6 +124,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         SugarScale.Baume => FromBaume(value),
         SugarScale.Oechsle => FromOechsle(value),
         SugarScale.GramsPerLitre => FromGramsPerLitre(value),
+        SugarScale.Kmw => FromKmw(value),
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
 
@@ -125,6 +139,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         SugarScale.Baume => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromBaume(value)),
         SugarScale.Oechsle => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(value)),
         SugarScale.GramsPerLitre => OivMustTable.BrixFromSugarGramsPerLitre(value),
+        SugarScale.Kmw => SugarScales.BrixFromSpecificGravity(SugarScales.SpecificGravityFromOechsle(SugarScales.OechsleFromKmw(value))),
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
 
@@ -155,6 +170,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
             SugarScale.Baume => Check.Problem(value, MinBaume, MaxBaume, "Sugar", "°Baumé"),
             SugarScale.Oechsle => Check.Problem(value, MinOechsle, MaxOechsle, "Sugar", "°Oechsle"),
             SugarScale.GramsPerLitre => Check.Problem(value, 0, MaxGramsPerLitre, "Sugar", "g/L"),
+            SugarScale.Kmw => Check.Problem(value, MinKmw, MaxKmw, "Sugar", "°KMW"),
             _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
         };
         reading = problem is null ? From(value, scale) : default;
@@ -169,6 +185,7 @@ public readonly record struct SugarReading : IComparable<SugarReading>
         SugarScale.Baume => Baume,
         SugarScale.Oechsle => Oechsle,
         SugarScale.GramsPerLitre => GramsPerLitre,
+        SugarScale.Kmw => SugarScales.KmwFromOechsle(Oechsle),
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
 

@@ -17,4 +17,10 @@ public enum SugarScale
 
     /// <summary>Fermentable sugar in grams per litre of must (OIV must table).</summary>
     GramsPerLitre,
+
+    /// <summary>
+    /// °KMW (Klosterneuburger Mostwaage, also called °Babo): sugar in g per 100 g of must as the Klosterneuburg
+    /// hydrometer reads it, used in Austria, Italy, Hungary and neighbouring countries; °Oechsle = KMW·(0.022·KMW + 4.54).
+    /// </summary>
+    Kmw,
 }

@@ -76,6 +76,16 @@ public static class SugarScales
     public static double OechsleFromSpecificGravity(double sg) => (sg - 1.0) * 1000.0;
 
     /// <summary>
+    /// °Oechsle from °KMW: Oe = KMW·(0.022·KMW + 4.54) (Ambrosi, H., *Wein A bis Z*, Gräfe und Unzer 1994, entry
+    /// "Klosterneuburger Mostwaage"; the same relation is printed in hydrometer and refractometer makers' manuals).
+    /// The rule of thumb 1 °KMW ≈ 5 °Oe holds near 20 °KMW.
+    /// </summary>
+    public static double OechsleFromKmw(double kmw) => kmw * ((0.022 * kmw) + 4.54);
+
+    /// <summary>°KMW from °Oechsle: the root of 0.022·k² + 4.54·k − Oe = 0 that is 0 at 0 °Oe.</summary>
+    public static double KmwFromOechsle(double oechsle) => (-4.54 + Math.Sqrt((4.54 * 4.54) + (4 * 0.022 * oechsle))) / (2 * 0.022);
+
+    /// <summary>
     /// The short label of a scale, the one every message, data file, sheet and chart prints: °Brix, SG, °Baumé,
     /// °Oechsle, g/L.
     /// </summary>
@@ -86,6 +96,7 @@ public static class SugarScales
         SugarScale.Baume => "°Baumé",
         SugarScale.Oechsle => "°Oechsle",
         SugarScale.GramsPerLitre => "g/L",
+        SugarScale.Kmw => "°KMW",
         _ => throw new ArgumentOutOfRangeException(nameof(scale), scale, "Unknown sugar scale."),
     };
 }

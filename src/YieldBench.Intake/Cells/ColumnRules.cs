@@ -51,7 +51,7 @@ internal static class ColumnRules
 
     // Sugar scale words a header may end with after the field's name, as a unit written without brackets
     // ("Mostgewicht °Oe", "Start sugar °Bx").
-    private static readonly HashSet<string> TrailingScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "be", "baume", "bau"];
+    private static readonly HashSet<string> TrailingScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "kmw", "babo", "be", "baume", "bau"];
 
     /// <summary>
     /// The field a header names, or null: its field key (brackets and unit words dropped), else its whole normalised
@@ -121,6 +121,7 @@ internal static class ColumnRules
             a.TryAdd(stem + "_sg", (field, ColumnUnit.SpecificGravity));
             a.TryAdd(stem + "_baume", (field, ColumnUnit.Baume));
             a.TryAdd(stem + "_oechsle", (field, ColumnUnit.Oechsle));
+            a.TryAdd(stem + "_kmw", (field, ColumnUnit.Kmw));
             a.TryAdd(stem + (stem == "sugar" ? "_gl" : "_sugar_gl"), (field, ColumnUnit.SugarGramsPerLitre));
         }
 

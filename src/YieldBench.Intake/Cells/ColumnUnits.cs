@@ -30,6 +30,9 @@ internal enum ColumnUnit
 
     /// <summary>Must sugar written as potential alcohol, % vol at 16.83 g/L of sugar per % vol (the OIV/EU convention).</summary>
     PotentialAlcohol,
+
+    /// <summary>°KMW (°Babo): only a header or a cell's unit says so, as its values overlap °Brix.</summary>
+    Kmw,
 }
 
 /// <summary>Unit labels and conversions to the unit each field is held in.</summary>
@@ -44,7 +47,7 @@ internal static class ColumnUnits
     /// <summary>The unit's label in messages and the mapping table; sugar scales take Core's one label.</summary>
     public static string Label(ColumnUnit unit) => unit switch
     {
-        ColumnUnit.Brix or ColumnUnit.SpecificGravity or ColumnUnit.Baume or ColumnUnit.Oechsle or ColumnUnit.SugarGramsPerLitre => SugarScales.Label(Scale(unit)),
+        ColumnUnit.Brix or ColumnUnit.SpecificGravity or ColumnUnit.Baume or ColumnUnit.Oechsle or ColumnUnit.SugarGramsPerLitre or ColumnUnit.Kmw => SugarScales.Label(Scale(unit)),
         ColumnUnit.PercentVolume => "% v/v",
         ColumnUnit.AlcoholGramsPerLitre => "g/L ethanol",
         ColumnUnit.Celsius => "°C",
@@ -66,6 +69,7 @@ internal static class ColumnUnits
         ColumnUnit.SpecificGravity or ColumnUnit.GravityThousandths => SugarScale.SpecificGravity,
         ColumnUnit.Baume => SugarScale.Baume,
         ColumnUnit.Oechsle => SugarScale.Oechsle,
+        ColumnUnit.Kmw => SugarScale.Kmw,
         ColumnUnit.SugarGramsPerLitre or ColumnUnit.PotentialAlcohol => SugarScale.GramsPerLitre,
         _ => SugarScale.Brix,
     };

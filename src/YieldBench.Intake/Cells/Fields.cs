@@ -75,7 +75,7 @@ internal static class Fields
 
     private static readonly string[] SugarCores =
     [
-        "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "degrees brix", "deg brix", "degre brix", "degres brix", "mostgewicht",
+        "brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "kmw", "babo", "klosterneuburger", "degrees brix", "deg brix", "degre brix", "degres brix", "mostgewicht",
         "sugar", "sugars", "density", "gravity", "must weight", "sugar content", "densite",
         "densidad", "densita", "azucar", "azucares", "zuccheri", "zucchero",
     ];
@@ -148,7 +148,7 @@ internal static class Fields
                 ["water added", "water", "water addition", "added water", "add back", "addback", "water add", "h2o added", "h2o", "dilution", "water addback", "eau ajoutee", "ajout eau", "ajout d eau", "wasserzugabe", "water back", "waterback", "agua anadida", "agua", "acqua aggiunta", "acqua"]),
             new("sugar_added_kg", TableKind.Lots, FieldKind.Mass, false, "kg", 0, null, "Sugar added (kg)", "Sucrose added before fermentation (chaptalization); 0 or empty when none.", "0",
                 ["sugar added", "sugar addition", "added sugar", "sucrose added", "sugar add", "chaptalization", "chaptalisation", "chapt", "sucrose", "sucre ajoute", "azucar anadido", "chaptalizacion", "saccarosio", "zucchero aggiunto"]),
-            new("starting_sugar", TableKind.Lots, FieldKind.Sugar, true, "°Brix", 10, 40, "Starting sugar (°Brix)", "Must sugar before any addition, in °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "24.2", startingSugar),
+            new("starting_sugar", TableKind.Lots, FieldKind.Sugar, true, "°Brix", 10, 40, "Starting sugar (°Brix)", "Must sugar before any addition, in °Brix, SG, °Baumé, °Oechsle, °KMW or g/L (say which in the header).", "24.2", startingSugar),
             new("final_abv", TableKind.Lots, FieldKind.Alcohol, true, "% v/v", 3, 20, "Final alcohol (% v/v)", "The lab's final alcohol of the finished wine.", "13.9",
                 ["alcohol", "abv", "alc", "final alcohol", "final abv", "final alc", "alcohol final", "abv final", "alcohol content", "alcohol by volume", "ethanol", "etoh", "alc vol", "lab alcohol", "alcohol lab", "measured alcohol", "actual alcohol", "wine alcohol", "finished alcohol", "pct v v", "pct vol", "pct alc", "pct abv", "pct alcohol", "v v", "alcool", "alkohol", "alcool final", "tav", "tav acquis", "titre alcoometrique", "grado alcoholico", "grado alcohol", "alcol", "alcol svolto", "grado alcolico", "titolo alcolometrico", "gradazione alcolica"]),
             new("residual_sugar_gl", TableKind.Lots, FieldKind.Plain, false, "g/L", 0, 300, "Residual sugar (g/L)", "Residual sugar (glucose + fructose) of the finished wine.", "1.8",
@@ -184,8 +184,8 @@ internal static class Fields
             ["date", "day", "sample date", "reading date", "log date", "measurement date", "fecha", "data"]),
         new("time", TableKind.Log, FieldKind.Time, false, "", null, null, "Time", "Time of day of the reading.", "08:30",
             ["time", "hour", "sample time", "time of day", "clock", "hora", "ora", "heure"]),
-        new("sugar", TableKind.Log, FieldKind.Sugar, false, "°Brix", -6, 45, "Sugar (°Brix)", "Sugar reading: °Brix, SG, °Baumé, °Oechsle or g/L (say which in the header).", "18.4",
-            ["brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "sugar", "sugars", "density", "gravity", "must weight", "reading", "sugar reading", "brix reading", "sg reading", "hydrometer", "current brix", "degrees brix", "deg brix", "densite", "densidad", "densita", "grado baume"]),
+        new("sugar", TableKind.Log, FieldKind.Sugar, false, "°Brix", -6, 45, "Sugar (°Brix)", "Sugar reading: °Brix, SG, °Baumé, °Oechsle, °KMW or g/L (say which in the header).", "18.4",
+            ["brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "kmw", "babo", "sugar", "sugars", "density", "gravity", "must weight", "reading", "sugar reading", "brix reading", "sg reading", "hydrometer", "current brix", "degrees brix", "deg brix", "densite", "densidad", "densita", "grado baume"]),
         new("temp_c", TableKind.Log, FieldKind.Temperature, false, "°C", -5, 45, "Temperature (°C)", "Must or cap temperature at the reading.", "26.5",
             ["temp", "temperature", "must temp", "juice temp", "cap temp", "tank temp", "wine temp", "ferment temp", "fermentation temp", "must temperature", "t", "temperatura"]),
     ];

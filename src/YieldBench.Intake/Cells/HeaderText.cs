@@ -70,7 +70,7 @@ internal static partial class HeaderText
     // Scale and unit words a units row under the header may hold besides the unit words above.
     private static readonly HashSet<string> UnitRowWords =
     [
-        "bx", "brix", "sg", "oe", "oechsle", "be", "baume", "bau", "ppm", "abv", "gpl", "hl", "degrees", "s", "ntu",
+        "bx", "brix", "sg", "oe", "oechsle", "kmw", "babo", "be", "baume", "bau", "ppm", "abv", "gpl", "hl", "degrees", "s", "ntu",
     ];
 
     /// <summary>True when the header has a % sign or the word percent (e.g. "RS %", "Residual sugar (%)").</summary>
@@ -102,6 +102,11 @@ internal static partial class HeaderText
                 if (Has("oechsle") || Has("oe"))
                 {
                     return ColumnUnit.Oechsle;
+                }
+
+                if (Has("kmw") || Has("babo") || Has("klosterneuburger"))
+                {
+                    return ColumnUnit.Kmw;
                 }
 
                 if (Has("baume") || Has("be") || Has("bau"))

@@ -327,6 +327,7 @@ internal static partial class FieldParsers
             "bx" or "brix" => ColumnUnit.Brix,
             "sg" => ColumnUnit.SpecificGravity,
             "oe" or "oechsle" => ColumnUnit.Oechsle,
+            "kmw" or "babo" => ColumnUnit.Kmw,
             "be" or "baume" => ColumnUnit.Baume,
             "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
             "c" => ColumnUnit.Celsius,

@@ -194,14 +194,15 @@ internal static class UnitSettling
         if (field.Name == "starting_sugar")
         {
             var band = StartingSugarUnit(v);
-            return unit is ColumnUnit.Baume or ColumnUnit.PotentialAlcohol ? band == ColumnUnit.Brix : band == unit;
+            // °Baumé, potential alcohol and °KMW values lie in °Brix's band (smaller numbers, but no band of their own).
+            return unit is ColumnUnit.Baume or ColumnUnit.PotentialAlcohol or ColumnUnit.Kmw ? band == ColumnUnit.Brix : band == unit;
         }
 
         return unit switch
         {
             ColumnUnit.SpecificGravity => v is >= 0.95 and < 1.3,
             ColumnUnit.GravityThousandths => v is >= 950 and < 1300,
-            ColumnUnit.Brix or ColumnUnit.Baume => v <= 45,
+            ColumnUnit.Brix or ColumnUnit.Baume or ColumnUnit.Kmw => v <= 45,
             _ => true,
         };
     }

@@ -15,7 +15,7 @@ internal static class WideLogRows
     /// <summary>Share of a lot column's filled cells below the header that must be numbers (at least half: a word such as "racked" in a few cells is reported where it stands).</summary>
     private const double NumericShare = 0.5;
 
-    private static readonly HashSet<string> ScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "be", "baume", "bau", "density", "gravity", "sugar"];
+    private static readonly HashSet<string> ScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "kmw", "babo", "be", "baume", "bau", "density", "gravity", "sugar"];
 
     private static readonly HashSet<string> TemperatureWords = ["temp", "temperature", "degc", "degf", "celsius", "fahrenheit"];
 

@@ -14,6 +14,35 @@ public class SugarScalesTests
     };
 
     [Theory]
+    [InlineData(10.0, 47.6)]
+    [InlineData(16.0, 78.272)]
+    [InlineData(20.0, 99.6)]
+    [InlineData(25.0, 127.25)]
+    public void Kmw_becomes_Oechsle_by_the_Klosterneuburg_relation_and_back(double kmw, double oechsle)
+    {
+        // Given a reading in °KMW (°Babo)
+        // When it is made a reading and shown in °Oechsle and back in °KMW
+        var reading = SugarReading.FromKmw(kmw);
+
+        // Then °Oe = KMW·(0.022·KMW + 4.54) (Ambrosi, Wein A bis Z, 1994; worked by hand: 20 → 20 × 4.98 = 99.6, the
+        // "1 °KMW is about 5 °Oe near 20 °KMW" rule of thumb), and the reading returns to its °KMW
+        Assert.Equal(oechsle, reading.Oechsle, 1e-9);
+        Assert.Equal(kmw, reading.In(SugarScale.Kmw), 1e-9);
+        Assert.Equal(SugarReading.FromOechsle(oechsle).Brix, reading.Brix, 1e-12);
+    }
+
+    [Fact]
+    public void Kmw_accepts_the_Brix_range_written_in_KMW_and_refuses_beyond_it()
+    {
+        // Given the accepted °Brix range −6 to 50 written in °KMW through °Oechsle (−22.7 to 231.8), rounded inward
+        // Then its ends are −5.12 and 42.36 °KMW (hand: (−4.54 + √(4.54² + 0.088·Oe)) / 0.044), and a value beyond is refused
+        Assert.Equal(-5.12, SugarReading.MinKmw, 1e-9);
+        Assert.Equal(42.36, SugarReading.MaxKmw, 1e-9);
+        Assert.False(SugarReading.TryFrom(43, SugarScale.Kmw, out _, out string? problem));
+        Assert.Contains("°KMW", problem, StringComparison.Ordinal);
+    }
+
+    [Theory]
     [MemberData(nameof(ZoeckleinTableI1))]
     public void Brix_from_specific_gravity_matches_Zoecklein_table_I_1_within_a_hundredth_of_a_degree(double brix, double sg)
     {
