@@ -34,9 +34,10 @@ public static class ConsoleSummary
             foreach (var f in factors.Strains.Prepend(factors.Pooled))
             {
                 var e = f.Estimate;
-                Say($"{(f.Strain == "*" ? "all lots" : f.Strain)}: {F(f.Factor, "0.000")} % v/v per °Brix ({f.Candidate}) → {F(e.Predicted, "0.00")} % v/v; "
+                Say($"{(f.Strain == "*" ? "all lots" : f.Strain)}: {F(f.Factor, "0.000")} % v/v per °Brix → {F(e.Predicted, "0.00")} % v/v; "
                     + $"80 % of lots {Range(e.Low80, e.High80)}, 95 % {Range(e.Low95, e.High95)}; "
-                    + (f.ScoredAlone ? $"held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots)." : $"ranges from {f.RangesFrom}."), 2);
+                    + (f.ScoredAlone ? $"held-out error {F(f.HeldOutMae, "0.00")} % v/v ({f.Lots} lots)" : $"ranges from {f.RangesFrom}")
+                    + $"; method: {f.Candidate}.", 2);
             }
         }
         else

@@ -381,7 +381,11 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
         // Then it is the candidate the console named, over the demo's 222 lots less the four flagged as likely errors
         // (23-016 and 23-018 as unrecorded water, 25-017 above the theoretical yield) or not dry (24-020), named and
         // counted in the other version, and the planner reads it back
-        Assert.Matches(@"\n  all lots: 0\.\d{3} % v/v per °Brix \(" + System.Text.RegularExpressions.Regex.Escape(name) + @"\)", demo.Out.Replace("\r\n", "\n", StringComparison.Ordinal));
+        // (the console wraps a line with a four-space indent: joined back before matching; the method's name, with its
+        // own brackets, closes the line instead of sitting in brackets after the factor)
+        string console = demo.Out.Replace("\r\n", "\n", StringComparison.Ordinal).Replace("\n    ", " ", StringComparison.Ordinal);
+        Assert.Matches(@"\n  all lots: 0\.\d{3} % v/v per °Brix → [^\n]*; method: " + System.Text.RegularExpressions.Regex.Escape(name) + @"\.\n", console);
+        Assert.DoesNotContain("per °Brix (", console, StringComparison.Ordinal);
         Assert.Equal(218, root.GetProperty("lots_used").GetInt32());
         Assert.False(root.GetProperty("flagged_lots_included").GetBoolean());
         string[] flagged = root.GetProperty("flagged_lots").EnumerateArray().Select(f => f.GetProperty("lot_id").GetString()!).ToArray();
