@@ -32,6 +32,7 @@ internal static class WideLogRows
 
         var sink = run.Sink;
         string? sheetName = sheet.Name;
+        MergedCells.Warn(sheet, file, sink, headerRow + 1);
         foreach (var (_, header) in notUsed)
         {
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.ColumnNotUsed, IntakeMessages.ColumnNotUsed());
