@@ -119,6 +119,9 @@ public static class IntakeMessages
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
 
+    internal static string PerhapsRunningLots() =>
+        " If these lots are still fermenting (the sheet has no column of the finished wine), read them as lots still fermenting: yieldbench check --running FILES, or forecast HISTORY --running FILES.";
+
     internal static string DaysFromInoculation(string header, double lastDay) =>
         $"The column '{header}' holds day numbers (0 to {Num(lastDay)}), not dates: each reading is placed at its lot's inoculation date plus that many days (day 0 is the inoculation day; a Time column gives the hour). Check that the lots table has each lot's inoculation date; a Date column instead would need no inoculation date.";
 

@@ -29,6 +29,12 @@ internal static class LotRows
                 message += IntakeMessages.VesselAsLotId(vessel.Header);
             }
 
+            if (m == "final_abv" && RunningLotRows.FinalFields.All(name => ctx.Column(name) is null))
+            {
+                // No column of the finished wine at all: most likely lots still fermenting.
+                message += IntakeMessages.PerhapsRunningLots();
+            }
+
             sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, message);
         }
 

@@ -7,7 +7,7 @@ namespace YieldBench.Intake;
 internal static class RunningLotRows
 {
     /// <summary>Fields of the finished wine's analysis, which a lot still fermenting cannot have yet.</summary>
-    private static readonly string[] FinalFields = ["final_abv", "residual_sugar_gl", "final_sugar", "dry_date", "mean_temp_c", "peak_temp_c"];
+    internal static readonly string[] FinalFields = ["final_abv", "residual_sugar_gl", "final_sugar", "dry_date", "mean_temp_c", "peak_temp_c"];
 
     /// <summary>One warning per final-analysis column of a running-lots table: it is not read.</summary>
     public static void ReportFinalColumns(SheetContext ctx)
