@@ -125,6 +125,33 @@ public static class IntakeMessages
     internal static string DaysWithoutInoculation(string lot) =>
         $"The log of {lot} counts days (a Day column of numbers), but the lot has no inoculation date to count them from, so its readings were left out. Add the lot's inoculation date to the lots table, or dates to the log.";
 
+    internal static string NearInoculation(DateTime inoculation) =>
+        $"in the year that puts each nearest the lot's inoculation on {inoculation.ToString("yyyy-MM-dd", Inv)}";
+
+    internal static string NearDatedReadings(DateTime middle) =>
+        $"in the year that puts each nearest the log's readings dated with a year (their middle one {middle.ToString("yyyy-MM-dd", Inv)})";
+
+    internal static string InSeason(int season) =>
+        $"from the lot's season {season.ToString(Inv)}: the ferment starts in that year (the vintage is the year of picking) and runs into the next only where its dates cross the new year";
+
+    internal static string FarBeforeInoculation(DateTime inoculation, int days) =>
+        $"the nearest year would put it more than {days.ToString(Inv)} days before the lot's inoculation on {inoculation.ToString("yyyy-MM-dd", Inv)}, so which year is meant is not clear";
+
+    internal static string SpanTooLongWithoutYear(int days) =>
+        $"the log's dates without a year span more than {days.ToString(Inv)} days, so where the year turns is not clear (and the lot has no inoculation date to place them by)";
+
+    internal static string SeveralSeasonsWithoutYear(string lot, IReadOnlyList<int> seasons) =>
+        $"lots named '{lot}' were read in seasons {string.Join(" and ", seasons.Select(y => y.ToString(Inv)))}, so the year cannot be taken from the lot (a season column in the log would say which)";
+
+    internal static string NothingToPlaceYear(string lot) =>
+        $"no lot '{lot}' with a season or inoculation date was read, nor a reading of its log dated with a year, to take the year from";
+
+    internal static string DateWithoutYearRefused(string log, string shown, string why) =>
+        $"The reading of {log} is dated '{shown}', a day and month with no year, and {why}; it was left out. Write the date with its year (year-month-day, e.g. 2024-09-12).";
+
+    internal static string DatesWithoutYearPlaced(string log, int count, IReadOnlyList<int> years, string basis, DateTime first) =>
+        $"The log of {log} dates {count.ToString(Inv)} reading(s) by day and month with no year; they were placed in {string.Join(" and ", years.Select(y => y.ToString(Inv)))}, {basis} (the first, '{CellValues.DayMonthText(first.Month, first.Day)}', as {first.ToString("yyyy-MM-dd", Inv)}). If that is wrong, write each date with its year (e.g. {first.ToString("yyyy-MM-dd", Inv)}).";
+
     internal static string MissingTimeColumn() =>
         "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";
 

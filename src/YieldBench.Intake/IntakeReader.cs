@@ -251,12 +251,17 @@ public static class IntakeReader
             if (sheet.Hidden)
             {
                 // Hidden sheets usually hold old workings or lookups; reading them unasked would mix them into the lots.
+                MergedCells.Warn(sheet, file, sink, 0);
                 sink.Warning(file, sheet.Name, null, null, null, IssueCodes.HiddenSheetSkipped, IntakeMessages.HiddenSheetSkipped());
                 run.Accounts.Add(new SourceAccount(file, sheet.Name, "hidden", 0, 0, 0, 0, 0, 0));
                 continue;
             }
 
-            switch (SheetReader.Read(run, file, full, sheet))
+            var outcome = SheetReader.Read(run, file, full, sheet);
+
+            // A sheet read as no table (or refused) warns of every merged block it holds.
+            MergedCells.Warn(sheet, file, sink, 0);
+            switch (outcome)
             {
                 case SheetReader.Outcome.Read:
                     anyTable = true;

@@ -219,6 +219,9 @@ public static class IssueCodes
     /// <summary><c>days-without-inoculation</c>.</summary>
     public const string DaysWithoutInoculation = "days-without-inoculation";
 
+    /// <summary><c>date-without-year</c>.</summary>
+    public const string DateWithoutYear = "date-without-year";
+
     /// <summary><c>reading-date-implausible</c>.</summary>
     public const string ReadingDateImplausible = "reading-date-implausible";
 

@@ -110,6 +110,24 @@ public class HostileInputTests
         Assert.Equal("The cells C3:C5 are merged: a spreadsheet program shows their value once, but the file stores it only in the first cell, so it was read for each of rows 3–5. If that is wrong, unmerge the cells and type each row's own value.", merged.Message);
     }
 
+    [Theory]
+    [InlineData("merged-header-2026.xlsx", "A3:A5")]
+    [InlineData("merged-header-2026.ods", null)]
+    public async Task Headers_merged_down_over_the_second_header_row_are_read_without_a_warning(string name, string? dataBlock)
+    {
+        // Given a log whose Lot, Date and Time headers are merged down two rows beside "Must" over Brix and Temp
+        // (and, in the .xlsx, the lot id merged over its three data rows)
+        var set = await Read(name);
+
+        // Then the header is read (Must Temp °C is the temperature, Cap Temp °C the duplicate), every reading is lot M1's
+        Assert.Equal([(23.5, 18.0), (21.0, 22.0), (17.2, 25.5)], Assert.Single(set.Logs, l => l.LotId == "M1").Readings.Select(r => (r.Sugar!.Value.Brix, r.TemperatureC!.Value)));
+        Assert.Contains(set.Issues, i => i.Code == "duplicate-column" && i.Column == "Cap Temp °C");
+
+        // And only a block reaching the data rows is warned of; the header blocks give no data row their value
+        var merged = set.Issues.Where(i => i.Code == "merged-cells").ToList();
+        Assert.Equal(dataBlock is null ? [] : [dataBlock], merged.Select(i => i.Message.Split(' ')[2]));
+    }
+
     [Fact]
     public async Task Control_characters_are_settled_in_the_values_and_shown_written_out_in_issues()
     {

@@ -13,7 +13,8 @@ public class MergedCellsTests
         var sink = new IssueSink();
 
         // When the merged blocks are settled
-        MergedCells.Settle(new RawFile([sheet], false), "lots.xlsx", sink);
+        MergedCells.Settle(new RawFile([sheet], false));
+        MergedCells.Warn(sheet, "lots.xlsx", sink, 0);
 
         // Then the block's value fills the rows and columns that exist, and nothing more is made
         Assert.Equal(3, sheet.Rows.Count);
@@ -34,7 +35,8 @@ public class MergedCellsTests
         var sink = new IssueSink();
 
         // When the merged blocks are settled
-        MergedCells.Settle(new RawFile([sheet], false), "lots.xlsx", sink);
+        MergedCells.Settle(new RawFile([sheet], false));
+        MergedCells.Warn(sheet, "lots.xlsx", sink, 0);
 
         // Then nothing changes and nothing is said
         Assert.Equal(new object?[] { "Tallowmere lots", null, null }, sheet.Rows[0]);

@@ -101,9 +101,34 @@ public class OneColumnPerLotTests
     [InlineData("T6 temp °F", "T6", true)]
     [InlineData("T6 °C", "T6", true)]
     [InlineData("Tank C", "Tank C", false)]
+    [InlineData("Brix T4", "T4", false)]
+    [InlineData("SG Tank 6", "Tank 6", false)]
+    [InlineData("Temp T4", "T4", true)]
+    [InlineData("°F T4", "T4", true)]
+    [InlineData("Must temp T4", "T4", true)]
     public void A_lot_columns_header_gives_the_lot_id_and_whether_it_holds_temperatures(string header, string lot, bool temperature)
     {
         Assert.Equal((lot, temperature), WideLogRows.Parse(header));
+    }
+
+    [Fact]
+    public void A_board_headed_by_measurement_first_gives_each_tank_its_sugar_and_temperature()
+    {
+        // Given a board typed "Brix T4, Brix T5, Temp T4, Temp T5" (the measurement before the tank), with notes
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Brix\nT4,ZR-3,25.2\nT5,ZR-9,24.0\n");
+        var board = folder.Text("board-2026.csv",
+            "Date,Time,Brix T4,Brix T5,Temp T4,Temp T5,Notes\n2026-09-14,18:00,24.9,23.8,19.0,18.2,\n2026-09-15,08:00,23.6,22.9,21.5,20.0,PO both\n");
+
+        // When they are read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, board);
+
+        // Then the lots are T4 and T5 (not "Brix T4" and "Temp T4"), each reading holding its sugar and temperature
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal(["T4", "T5"], logs.Keys.Order());
+        Assert.Equal([(24.9, 19.0), (23.6, 21.5)], logs["T4"].Readings.Select(r => (r.Sugar!.Value.Brix, r.TemperatureC!.Value)));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.LogWithoutLot);
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.OneColumnPerLot && i.Message.Contains("2 lots: T4, T5", StringComparison.Ordinal));
     }
 
     [Fact]

@@ -200,7 +200,7 @@ internal static partial class CellValues
         bool dayFirst = false, monthFirst = false;
         foreach (var c in cells)
         {
-            if (c is string s && !StartsWithThreeDigits(s.Trim()) && SlashDate().Match(s.Trim()) is { Success: true } m)
+            if (c is string s && !StartsWithThreeDigits(s.Trim()) && (SlashDate().Match(s.Trim()) is { Success: true } m || (m = NumericDayMonth().Match(s.Trim())).Success))
             {
                 if (m.Groups["sep"].Value == ".")
                 {
@@ -327,6 +327,104 @@ internal static partial class CellValues
 
         return DateTime.TryParseExact(s, MonthNameFormats, Inv, DateTimeStyles.AllowWhiteSpaces, out value) ? CellProblem.None : CellProblem.NotADate;
     }
+
+    /// <summary>
+    /// A day and month written without a year, as on a hand-kept tank board: "12-Sep", "12 Sept", "Sep 12", "12/9" or
+    /// "9/12" (order settled by the column, as for dates with a year), "12.9." (dots: day first), each perhaps followed
+    /// by a time ("12-Sep 08:00"). <see cref="CellProblem.AmbiguousDate"/> when "12/9" could be either and the column
+    /// does not settle it (<paramref name="dayFirst"/> and <paramref name="monthFirst"/> then name both, "12 Sep" and
+    /// "9 Dec"); <see cref="CellProblem.NotADate"/> for any other text. The year is the caller's to settle.
+    /// </summary>
+    public static CellProblem DayMonth(string s, DateOrder order, out int month, out int day, out TimeSpan time, out string? dayFirst, out string? monthFirst)
+    {
+        month = day = 0;
+        time = TimeSpan.Zero;
+        dayFirst = monthFirst = null;
+        Match m;
+        if ((m = NamedDayMonth().Match(s)).Success || (m = MonthNameDay().Match(s)).Success)
+        {
+            month = MonthNumber(m.Groups["mon"].Value);
+            day = int.Parse(m.Groups["d"].Value, Inv);
+        }
+        else if ((m = NumericDayMonth().Match(s)).Success && !StartsWithThreeDigits(s))
+        {
+            int a = int.Parse(m.Groups["a"].Value, Inv), b = int.Parse(m.Groups["b"].Value, Inv);
+            bool asDayFirst = ValidDayMonth(b, a), asMonthFirst = ValidDayMonth(a, b);
+            if (m.Groups["sep"].Value == "." || order == DateOrder.DayFirst || (asDayFirst && !asMonthFirst))
+            {
+                (month, day) = (b, a);
+            }
+            else if (order == DateOrder.MonthFirst || (asMonthFirst && !asDayFirst))
+            {
+                (month, day) = (a, b);
+            }
+            else if (asDayFirst && asMonthFirst && a != b)
+            {
+                dayFirst = DayMonthText(b, a);
+                monthFirst = DayMonthText(a, b);
+                return CellProblem.AmbiguousDate;
+            }
+            else
+            {
+                (month, day) = (b, a);
+            }
+        }
+        else
+        {
+            return CellProblem.NotADate;
+        }
+
+        if (!ValidDayMonth(month, day))
+        {
+            return CellProblem.NotADate;
+        }
+
+        if (m.Groups["h"].Success)
+        {
+            int h = int.Parse(m.Groups["h"].Value, Inv), min = int.Parse(m.Groups["min"].Value, Inv);
+            if (h > 23 || min > 59)
+            {
+                return CellProblem.NotADate;
+            }
+
+            time = new TimeSpan(h, min, 0);
+        }
+
+        return CellProblem.None;
+    }
+
+    /// <summary>"12 Sep": a day and month as messages show them (English month abbreviations, as the readers accept).</summary>
+    public static string DayMonthText(int month, int day) =>
+        day.ToString(Inv) + " " + CultureInfo.InvariantCulture.DateTimeFormat.GetAbbreviatedMonthName(month);
+
+    /// <summary>True when <paramref name="day"/> exists in <paramref name="month"/> of some year (29 February included).</summary>
+    private static bool ValidDayMonth(int month, int day) => month is >= 1 and <= 12 && day >= 1 && day <= DateTime.DaysInMonth(2024, month);
+
+    private static int MonthNumber(string name) => name.ToLowerInvariant() switch
+    {
+        "jan" or "january" => 1,
+        "feb" or "february" => 2,
+        "mar" or "march" => 3,
+        "apr" or "april" => 4,
+        "may" => 5,
+        "jun" or "june" => 6,
+        "jul" or "july" => 7,
+        "aug" or "august" => 8,
+        "sep" or "sept" or "september" => 9,
+        "oct" or "october" => 10,
+        "nov" or "november" => 11,
+        "dec" or "december" => 12,
+        _ => 0,
+    };
+
+    [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th)?[\s-]*(?<mon>[A-Za-z]{3,9})\.?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
+    private static partial Regex NamedDayMonth();
+
+    [GeneratedRegex(@"^(?<mon>[A-Za-z]{3,9})\.?[\s-]*(?<d>[0-9]{1,2})(?:st|nd|rd|th)?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
+    private static partial Regex MonthNameDay();
+
+    [GeneratedRegex(@"^(?<a>[0-9]{1,2})(?<sep>[/.-])(?<b>[0-9]{1,2})\.?(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2}))?$")]
+    private static partial Regex NumericDayMonth();
 
     /// <summary>A day and month cannot follow "d/" or "dd/" when the text starts with three digits.</summary>
     private static bool StartsWithThreeDigits(string s) =>

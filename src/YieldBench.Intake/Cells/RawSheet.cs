@@ -50,6 +50,9 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
     /// <summary>The blocks of merged cells the workbook declares (read as seen by <see cref="MergedCells"/>).</summary>
     public List<CellSpan> Merged { get; } = [];
 
+    /// <summary>The row-spanning blocks filled as seen, each with the last row it filled and its value, until warned of (<see cref="MergedCells.Warn"/>).</summary>
+    public List<(CellSpan Span, int ToRow, object Value)> MergedFilled { get; } = [];
+
     /// <summary>CSV rows (0-based index) the parser could not split cleanly, with what was wrong.</summary>
     public Dictionary<int, string> BadRows { get; } = [];
 

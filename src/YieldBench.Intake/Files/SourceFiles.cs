@@ -68,7 +68,7 @@ internal static class SourceFiles
 
             sink.Warning(file, null, null, null, null, IssueCodes.ContentDiffersFromName, IntakeMessages.TextNamedWorkbook(ext));
             var text = CsvSource.Read(file, fullPath, head, options, sink);
-            MergedCells.Settle(text, file, sink);
+            MergedCells.Settle(text);
             return text;
         }
 
@@ -78,7 +78,7 @@ internal static class SourceFiles
             ".ods" => OdsSource.Read(file, fullPath, head, options, sink),
             _ => WorkbookSource.Read(file, fullPath, ext, head, options, sink),
         };
-        MergedCells.Settle(raw, file, sink);
+        MergedCells.Settle(raw);
         return raw;
     }
 

@@ -456,7 +456,11 @@ internal static partial class FieldParsers
 
     internal static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));
 
-    internal static DateTime? DateField(RowState st, BoundColumn? column)
+    /// <param name="withoutYear">
+    /// True for a log's date: a day and month with no year ("12-Sep", "12/9") is kept at that day and month in
+    /// <see cref="LogRows.YearUnknown"/>, for the join to place in its lot's year (<c>LogJoin</c>).
+    /// </param>
+    internal static DateTime? DateField(RowState st, BoundColumn? column, bool withoutYear = false)
     {
         if (column is not { } c)
         {
@@ -487,7 +491,22 @@ internal static partial class FieldParsers
                 st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, dayFirst!, monthFirst!), c.Field.Critical);
                 return null;
             default:
-                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label, cell is string t ? WhyNoDate(t) : null), c.Field.Critical);
+                if (cell is string t)
+                {
+                    var dm = CellValues.DayMonth(t.Trim(), c.DateOrder, out int month, out int day, out var time, out var df, out var mf);
+                    if (withoutYear && dm == CellProblem.None)
+                    {
+                        return new DateTime(LogRows.YearUnknown, month, day, 0, 0, 0, DateTimeKind.Unspecified) + time;
+                    }
+
+                    if (dm == CellProblem.AmbiguousDate)
+                    {
+                        st.Problem(c, cell, IssueCodes.AmbiguousDate, IntakeMessages.AmbiguousDate(label, df!, mf!), c.Field.Critical);
+                        return null;
+                    }
+                }
+
+                st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label, cell is string t2 ? WhyNoDate(t2) : null), c.Field.Critical);
                 return null;
         }
     }
@@ -502,7 +521,8 @@ internal static partial class FieldParsers
             return IntakeMessages.WeekdayWithoutDate;
         }
 
-        return DayMonthOnly().IsMatch(text.Trim()) ? IntakeMessages.DateWithoutYear : null;
+        return DayMonthOnly().IsMatch(text.Trim()) || CellValues.DayMonth(text.Trim(), DateOrder.Unknown, out _, out _, out _, out _, out _) != CellProblem.NotADate
+            ? IntakeMessages.DateWithoutYear : null;
     }
 
     [System.Text.RegularExpressions.GeneratedRegex(@"^[0-9]{1,2}[/.-][0-9]{1,2}\.?(?:\s.*)?$")]

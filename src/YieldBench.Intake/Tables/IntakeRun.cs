@@ -24,6 +24,9 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
     /// <summary>Log readings in the order read, with the lot id and season they name; joined to lots at the end.</summary>
     public List<(string LotId, int? Season, LogReading Reading)> Readings { get; } = [];
 
+    /// <summary>Readings still used per sheet row of a log with one column per lot, made when the join first leaves one out.</summary>
+    public Dictionary<(string File, string? Sheet, int Row), int>? ReadingsLeftInRow { get; set; }
+
     public List<SourceAccount> Accounts { get; } = [];
 
     public List<HeaderMapping> Mappings { get; } = [];

@@ -49,6 +49,7 @@ internal static partial class LogJoin
         }
 
         logs = PlaceDayCounts(run, logs);
+        logs = PlaceDatesWithoutYear(run, logs);
         logs = DropImplausibleDates(run, logs, recorded);
         if (logs.Count == 0)
         {
@@ -171,6 +172,188 @@ internal static partial class LogJoin
         return kept;
     }
 
+    /// <summary>Most days before its lot's inoculation a reading dated without a year is placed (a juice reading before inoculation); further back it is refused.</summary>
+    public const int MaxDaysBeforeInoculation = 31;
+
+    /// <summary>Most days a log's dates without a year may span when only the season places them (half a year: beyond it the order is no longer clear).</summary>
+    public const int MaxSpanWithoutYear = 183;
+
+    /// <summary>
+    /// Places readings dated by day and month alone ("12-Sep", kept in <see cref="LogRows.YearUnknown"/>) in their
+    /// lot's year: nearest the lot's inoculation date when it has one (refused when that falls more than
+    /// <see cref="MaxDaysBeforeInoculation"/> days before it); else nearest the log's own dated readings; else in the
+    /// lot's season, the ferment starting in the season's year and running on into the next when its dates cross the
+    /// new year (the vintage is the year of picking: common practice). One warning per log says where they were
+    /// placed; a reading that cannot be placed is an error and left out.
+    /// </summary>
+    private static List<FermentationLog> PlaceDatesWithoutYear(IntakeRun run, List<FermentationLog> logs)
+    {
+        if (!logs.Any(l => l.Readings.Any(r => LogRows.WithoutYear(r.Timestamp))))
+        {
+            return logs;
+        }
+
+        var lots = run.Lots.Select(l => (l.LotId, l.Season, l.InoculationDate))
+            .Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.InoculationDate))).ToList();
+        var kept = new List<FermentationLog>(logs.Count);
+        foreach (var log in logs)
+        {
+            var undated = log.Readings.Where(r => LogRows.WithoutYear(r.Timestamp)).ToList();
+            if (undated.Count == 0)
+            {
+                kept.Add(log);
+                continue;
+            }
+
+            var matches = lots.Where(l => l.LotId == log.LotId && (log.Season is null || l.Season == log.Season)).ToList();
+            var inoculations = matches.Select(l => l.InoculationDate).OfType<DateTime>().Distinct().ToList();
+            var dated = log.Readings.Select(r => r.Timestamp).Where(t => !LogRows.WithoutYear(t) && !LogRows.CountedInDays(t)).Order().ToList();
+            int[] seasons = log.Season is { } ls ? [ls] : matches.Select(l => l.Season).Distinct().Order().ToArray();
+            var placed = new Dictionary<LogReading, DateTime>(ReferenceEqualityComparer.Instance);
+            string basis, refusal = "";
+            if (inoculations.Count == 1)
+            {
+                var inoc = inoculations[0];
+                basis = IntakeMessages.NearInoculation(inoc);
+                foreach (var r in undated)
+                {
+                    if (Nearest(r.Timestamp, inoc) is { } t && t >= inoc.Date.AddDays(-MaxDaysBeforeInoculation))
+                    {
+                        placed[r] = t;
+                    }
+                }
+
+                refusal = IntakeMessages.FarBeforeInoculation(inoc, MaxDaysBeforeInoculation);
+            }
+            else if (dated.Count > 0)
+            {
+                var middle = dated[dated.Count / 2];
+                basis = IntakeMessages.NearDatedReadings(middle);
+                foreach (var r in undated)
+                {
+                    if (Nearest(r.Timestamp, middle) is { } t)
+                    {
+                        placed[r] = t;
+                    }
+                }
+            }
+            else if (seasons.Length == 1)
+            {
+                basis = IntakeMessages.InSeason(seasons[0]);
+                refusal = IntakeMessages.SpanTooLongWithoutYear(MaxSpanWithoutYear);
+                foreach (var (r, t) in InSeason(undated, seasons[0]))
+                {
+                    placed[r] = t;
+                }
+            }
+            else
+            {
+                basis = "";
+                refusal = seasons.Length > 1
+                    ? IntakeMessages.SeveralSeasonsWithoutYear(log.LotId, seasons)
+                    : IntakeMessages.NothingToPlaceYear(log.LotId);
+            }
+
+            var readings = new List<LogReading>(log.Readings.Count);
+            foreach (var r in log.Readings)
+            {
+                if (!LogRows.WithoutYear(r.Timestamp))
+                {
+                    readings.Add(r);
+                }
+                else if (placed.TryGetValue(r, out var t))
+                {
+                    readings.Add(r with { Timestamp = t });
+                }
+                else
+                {
+                    var src = r.Source!;
+                    string shown = DayMonthShown(r.Timestamp);
+                    run.Sink.Error(src.File, src.Sheet, src.Row, null, shown, IssueCodes.DateWithoutYear, IntakeMessages.DateWithoutYearRefused(log.Name, shown, refusal));
+                    MoveToReported(run, src);
+                }
+            }
+
+            if (placed.Count > 0)
+            {
+                var first = undated.First(placed.ContainsKey);
+                var src = first.Source!;
+                var years = placed.Values.Select(t => t.Year).Distinct().Order().ToList();
+                run.Sink.Warning(src.File, src.Sheet, src.Row, null, DayMonthShown(first.Timestamp), IssueCodes.DateWithoutYear,
+                    IntakeMessages.DatesWithoutYearPlaced(log.Name, placed.Count, years, basis, placed[first]));
+            }
+
+            if (readings.Count > 0)
+            {
+                kept.Add(log with { Readings = readings });
+            }
+        }
+
+        return kept;
+    }
+
+    /// <summary>"12 Sep 08:00": a reading's day and month (and time, when it has one) as the sheet gave them.</summary>
+    private static string DayMonthShown(DateTime t) =>
+        CellValues.DayMonthText(t.Month, t.Day) + (t.TimeOfDay == TimeSpan.Zero ? "" : t.ToString(" HH:mm", CultureInfo.InvariantCulture));
+
+    /// <summary>The day and month of <paramref name="undated"/> in the year that puts it nearest <paramref name="anchor"/> (within half a year); null for 29 February in a year without one.</summary>
+    private static DateTime? Nearest(DateTime undated, DateTime anchor)
+    {
+        DateTime? best = null;
+        for (int y = anchor.Year - 1; y <= anchor.Year + 1; y++)
+        {
+            if (InYear(undated, y) is { } t && (best is null || Math.Abs((t - anchor).Ticks) < Math.Abs((best.Value - anchor).Ticks)))
+            {
+                best = t;
+            }
+        }
+
+        // 29 February nearest in a year without one: not placed by a guess at the next nearest.
+        return best is { } b && undated.Month == 2 && undated.Day == 29 && !DateTime.IsLeapYear(b.Year) ? null : best;
+    }
+
+    private static DateTime? InYear(DateTime undated, int year) =>
+        undated.Month == 2 && undated.Day == 29 && !DateTime.IsLeapYear(year) ? null
+            : new DateTime(year, undated.Month, undated.Day, 0, 0, 0, DateTimeKind.Unspecified) + undated.TimeOfDay;
+
+    /// <summary>
+    /// Readings dated without a year, placed from the season alone: the dates are laid on the calendar's circle, the
+    /// longest gap between them is taken for the time with no ferment, and the ferment starts after it in the season's
+    /// year (running into the next when it crosses the new year). None is placed when they span more than
+    /// <see cref="MaxSpanWithoutYear"/> days.
+    /// </summary>
+    private static IEnumerable<(LogReading Reading, DateTime When)> InSeason(List<LogReading> undated, int season)
+    {
+        var sorted = undated.OrderBy(r => r.Timestamp).ToList();
+        double Day(LogReading r) => (r.Timestamp - new DateTime(LogRows.YearUnknown, 1, 1)).TotalDays;
+        const double YearDays = 366;
+        int gapAfter = sorted.Count - 1;
+        double largest = Day(sorted[0]) + YearDays - Day(sorted[^1]);
+        for (int i = 0; i + 1 < sorted.Count; i++)
+        {
+            double gap = Day(sorted[i + 1]) - Day(sorted[i]);
+            if (gap > largest)
+            {
+                (largest, gapAfter) = (gap, i);
+            }
+        }
+
+        if (YearDays - largest > MaxSpanWithoutYear)
+        {
+            yield break;
+        }
+
+        for (int i = 0; i < sorted.Count; i++)
+        {
+            // Readings after the gap start the ferment in the season's year; those up to it follow in the next year.
+            int year = i > gapAfter || gapAfter == sorted.Count - 1 ? season : season + 1;
+            if (InYear(sorted[i].Timestamp, year) is { } t)
+            {
+                yield return (sorted[i], t);
+            }
+        }
+    }
+
     private static List<FermentationLog> DropImplausibleDates(IntakeRun run, List<FermentationLog> logs, List<(string LotId, int Season, SourceRef? Source)> recorded)
     {
         ILookup<string, int>? seasonsById = null;
@@ -218,15 +401,32 @@ internal static partial class LogJoin
         return kept;
     }
 
-    /// <summary>Counts a reading that was used as reported in its sheet's accounting.</summary>
+    /// <summary>
+    /// Counts a reading that was used as reported in its sheet's accounting. On a sheet with one column per lot a row
+    /// holds several readings: the reading leaves the row's count, and the row moves to reported with its last one.
+    /// </summary>
     private static void MoveToReported(IntakeRun run, SourceRef source)
     {
-        int i = run.Accounts.FindIndex(a => a.File == source.File && a.Sheet == source.Sheet && a.Kind == "log");
-        if (i >= 0)
+        int i = run.Accounts.FindIndex(a => a.File == source.File && a.Sheet == source.Sheet && a.Kind.StartsWith("log", StringComparison.Ordinal));
+        if (i < 0)
         {
-            var a = run.Accounts[i];
-            run.Accounts[i] = a with { LogReadingsUsed = a.LogReadingsUsed - 1, RowsReported = a.RowsReported + 1 };
+            return;
         }
+
+        var a = run.Accounts[i];
+        if (a.ReadingsInRows is { } inRows)
+        {
+            run.ReadingsLeftInRow ??= run.Readings.Where(x => x.Reading.Place is not null)
+                .GroupBy(x => (x.Reading.Place!.File, x.Reading.Place.Sheet, x.Reading.Row)).ToDictionary(g => g.Key, g => g.Count());
+            var key = (source.File, source.Sheet, source.Row);
+            int left = run.ReadingsLeftInRow[key] = run.ReadingsLeftInRow.GetValueOrDefault(key, 1) - 1;
+            run.Accounts[i] = left > 0
+                ? a with { ReadingsInRows = inRows - 1 }
+                : a with { ReadingsInRows = inRows - 1, LogReadingsUsed = a.LogReadingsUsed - 1, RowsReported = a.RowsReported + 1 };
+            return;
+        }
+
+        run.Accounts[i] = a with { LogReadingsUsed = a.LogReadingsUsed - 1, RowsReported = a.RowsReported + 1 };
     }
 
     [System.Text.RegularExpressions.GeneratedRegex(@"^(lot|batch)\s*(#|no\.?|nr\.?|number)?\s*[:#\-]?\s*", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant)]

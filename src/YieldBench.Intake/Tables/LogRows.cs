@@ -38,6 +38,15 @@ internal static class LogRows
     /// </summary>
     public static readonly DateTime DayZero = DateTime.MinValue;
 
+    /// <summary>
+    /// The year a reading dated by day and month alone ("12-Sep") is kept in until the join places it in its lot's
+    /// year. Year 4 is a leap year (29 February is kept), and no real reading falls in it.
+    /// </summary>
+    public const int YearUnknown = 4;
+
+    /// <summary>True when a reading's date had no year and is not yet placed.</summary>
+    public static bool WithoutYear(DateTime t) => t.Year == YearUnknown;
+
     /// <summary>True when a reading's time is still counted from <see cref="DayZero"/> (not yet placed).</summary>
     public static bool CountedInDays(DateTime t) => t.Year == DayZero.Year;
 
@@ -129,11 +138,11 @@ internal static class LogRows
         DateTime? when = null;
         if (tsCol is not null)
         {
-            when = DateField(st, tsCol);
+            when = DateField(st, tsCol, withoutYear: true);
         }
         else if (dateCol is not null)
         {
-            when = DateField(st, dateCol);
+            when = DateField(st, dateCol, withoutYear: true);
             if (when is not null && TimeOfDay(ctx, st, r) is { } tod)
             {
                 when = when.Value.Date + tod;

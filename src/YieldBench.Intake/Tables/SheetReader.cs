@@ -57,6 +57,7 @@ internal static class SheetReader
             firstData++;
         }
 
+        MergedCells.Warn(sheet, file, sink, firstData);
         string fileStem = Path.GetFileNameWithoutExtension(fullPath);
         int headerWidth = Array.FindLastIndex(sheet.Rows[headerRow], c => !CellValues.IsBlank(c)) + 1;
         var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth);

@@ -6,8 +6,8 @@ namespace YieldBench.Intake;
 /// <summary>
 /// A fermentation log kept with one column per lot (a "brix board": a date, perhaps a time, then a column for each
 /// tank): the header names a date or timestamp and at least two columns that name no field but hold numbers below.
-/// Each such column's header is read as a lot id, with an optional scale or temperature word after it ("C04", "C04 °Bx",
-/// "T6 (SG)", "T6 temp °F"); a lot's sugar and temperature columns make one reading per row. Tried only on a sheet in
+/// Each such column's header is read as a lot id, with an optional scale or temperature word after or before it ("C04",
+/// "C04 °Bx", "T6 (SG)", "T6 temp °F", "Brix T6", "Temp T6"); a lot's sugar and temperature columns make one reading per row. Tried only on a sheet in
 /// which no ordinary header was found, so it never changes how a table of another layout is read.
 /// </summary>
 internal static class WideLogRows
@@ -32,6 +32,7 @@ internal static class WideLogRows
 
         var sink = run.Sink;
         string? sheetName = sheet.Name;
+        MergedCells.Warn(sheet, file, sink, headerRow + 1);
         foreach (var (_, header) in notUsed)
         {
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.ColumnNotUsed, IntakeMessages.ColumnNotUsed());
@@ -208,8 +209,18 @@ internal static class WideLogRows
             words.RemoveAt(words.Count - 1);
         }
 
+        // The word may also come first ("Brix T4", "Temp T4", "°F T4", "Must temp T4"), as a board headed by
+        // measurement is typed.
+        while (words.Count > 1 && (IsUnitWord(words[0]) || (Qualifiers.Contains(HeaderText.Normalise(words[0])) && words.Count > 2 && TemperatureWords.Contains(HeaderText.Normalise(words[1])))))
+        {
+            words.RemoveAt(0);
+        }
+
         return (string.Join(' ', words), temperature);
     }
+
+    /// <summary>Words naming where a temperature is taken, before the temperature word ("Must temp T4", "Cap temp T4").</summary>
+    private static readonly HashSet<string> Qualifiers = ["must", "cap", "juice", "wine", "tank"];
 
     /// <summary>A scale or temperature word after a lot id ("°Bx", "SG", "temp", "°F"); a bare "C" or "F" is not one (it could be the lot's name).</summary>
     private static bool IsUnitWord(string word)

@@ -288,6 +288,7 @@ def main():
         orow(ostr("A-02"), onum(2023), ostr("QX-9"), onum(23.1), onum(13.4), '<table:covered-table-cell/>', '<table:table-cell office:value-type="boolean" office:boolean-value="true"><text:p>TRUE</text:p></table:table-cell>'),
     ]), None)])
     merged_cells()
+    merged_header()
     ods("damaged-content.ods", [("Lots", orow(ostr("Lot"), ostr("Yeast")), None)])
     with zipfile.ZipFile(path("damaged-content.ods")) as zin, zipfile.ZipFile(path("damaged-content.tmp"), "w") as zout:
         for item in zin.infolist():
@@ -391,6 +392,22 @@ def merged_cells():
         orow(ostr("A-03"), onum(2023), covered, onum(25.2), onum(14.9)),
         orow(ostr("A-04"), onum(2023), ostr("QX-9"), onum(22.8), onum(13.2)),
     ]), None)])
+
+
+def merged_header():
+    """A log whose headers are merged down two rows (Lot, Date, Time) beside group labels over the second header row
+    ("Must" over Brix and Temp), as .xlsx and .ods: a block within the header rows is read with no merged-cells
+    warning; in the .xlsx a lot id merged over its three data rows still gives one."""
+    top = ["Lot", "Date", "Time", "Must", None, "Cap"]
+    second = [None, None, None, "Brix", "Temp °C", "Temp °C"]
+    data = [["M1", "2026-09-05", "08:00", 23.5, 18.0, 19.5], [None, "2026-09-06", "08:00", 21.0, 22.0, 25.0], [None, "2026-09-07", "08:00", 17.2, 25.5, 29.0]]
+    xlsx("merged-header-2026.xlsx", [("Log 2026", [top, second] + data, False, ["A1:A2", "B1:B2", "C1:C2", "D1:E1", "A3:A5"])])
+    down = lambda v: f'<table:table-cell table:number-rows-spanned="2" office:value-type="string"><text:p>{esc(v)}</text:p></table:table-cell>'
+    covered = "<table:covered-table-cell/>"
+    ods("merged-header-2026.ods", [("Log 2026", "".join([
+        orow(down("Lot"), down("Date"), down("Time"), '<table:table-cell table:number-columns-spanned="2" office:value-type="string"><text:p>Must</text:p></table:table-cell>', covered, ostr("Cap")),
+        orow(covered, covered, covered, ostr("Brix"), ostr("Temp °C"), ostr("Temp °C")),
+    ] + [orow(ostr("M1"), ostr(d[1]), ostr(d[2]), onum(d[3]), onum(d[4]), onum(d[5])) for d in data]), None)])
 
 
 def make_overlapping_zip():
