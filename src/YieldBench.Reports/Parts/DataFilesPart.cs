@@ -34,7 +34,7 @@ public sealed class DataFilesPart : IReportPart
         yield return (ReportWriter.DataFiles.Flags, c => Csv(ReviewTables.Flags(c.Review)));
         yield return (ReportWriter.DataFiles.FollowUp, c => Csv(ReviewTables.Findings(c.Review)));
         yield return (ReportWriter.DataFiles.IntakeIssues, c => Csv(ReviewTables.IntakeIssues(c.Review)));
-        yield return (ReportWriter.DataFiles.HouseFactor, c => stream => stream.Write(Utf8NoBom.GetBytes(HouseFactorJson.Write(c.Review.HouseFactor))));
+        yield return (ReportWriter.DataFiles.HouseFactor, c => stream => HouseFactorJson.Write(c.Review.HouseFactor, stream));
         if (review.Kinetics is not null)
         {
             // The table of KineticsCsv.WriteFile, shared with the kinetics sheet.
