@@ -149,6 +149,11 @@ public static class IntakeMessages
     internal static string NothingToPlaceYear(string lot) =>
         $"no lot '{lot}' with a season or inoculation date was read, nor a reading of its log dated with a year, to take the year from";
 
+    internal static string NoLeapDay(int year) => $": it has a day and month but no year, and {year.ToString(Inv)}, its season, has no 29 February";
+
+    internal static string InoculationInSeason(string header, int count, string first, DateTime read) =>
+        $"The column '{header}' gives {count.ToString(Inv)} date(s) by day and month with no year; each was read in its lot's season (the vintage is the year of picking, and so of inoculation), the first, '{first}', as {read.ToString("yyyy-MM-dd", Inv)}. Write the year where a lot was inoculated in another year (a must picked after the new year).";
+
     internal static string DateWithoutYearRefused(string log, string shown, string why) =>
         $"The reading of {log} is dated '{shown}', a day and month with no year, and {why}; it was left out. Write the date with its year (year-month-day, e.g. 2024-09-12).";
 

@@ -511,6 +511,34 @@ internal static partial class FieldParsers
         }
     }
 
+    /// <summary>
+    /// A lot's inoculation date; a day and month with no year ("11-Sep") is read in the row's
+    /// <paramref name="season"/> (the vintage is the year of picking, and so of inoculation: common practice), said
+    /// once for the column after its rows are read (<see cref="SheetReader"/>).
+    /// </summary>
+    internal static DateTime? InoculationField(RowState st, int? season)
+    {
+        var c = st.Ctx.Column("inoculation_date");
+        var date = DateField(st, c, withoutYear: season is not null);
+        if (date is null || !LogRows.WithoutYear(date.Value))
+        {
+            return date;
+        }
+
+        int year = season!.Value;
+        if (date.Value.Month == 2 && date.Value.Day == 29 && !DateTime.IsLeapYear(year))
+        {
+            object? cell = st.Ctx.Sheet.Cell(st.Row, c!.Index);
+            st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(Label(c.Field), IntakeMessages.NoLeapDay(year)), c.Field.Critical);
+            return null;
+        }
+
+        var read = new DateTime(year, date.Value.Month, date.Value.Day, 0, 0, 0, DateTimeKind.Unspecified) + date.Value.TimeOfDay;
+        c!.YearFromSeasonAt ??= (st.SheetRow, CellValues.Text(st.Ctx.Sheet.Cell(st.Row, c.Index)), read);
+        c.YearsFromSeason++;
+        return read;
+    }
+
     /// <summary>What a text that is no date lacks, when it is a day of the week ("Mon 8am") or a day and month with no year ("9/15 8am").</summary>
     internal static string? WhyNoDate(string text)
     {

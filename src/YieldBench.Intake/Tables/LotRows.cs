@@ -104,7 +104,7 @@ internal static class LotRows
                 TaGl = NumberField(st, "ta_gl"),
                 MeanFermentationTempC = NumberField(st, "mean_temp_c"),
                 PeakFermentationTempC = NumberField(st, "peak_temp_c"),
-                InoculationDate = DateField(st, "inoculation_date"),
+                InoculationDate = InoculationField(st, season),
                 DryDate = DateField(st, "dry_date"),
                 Notes = TextField(st, "notes"),
                 Source = new SourceRef(ctx.File, ctx.SheetName, r + 1),
@@ -119,7 +119,7 @@ internal static class LotRows
             }
 
             SugarField(st, "final_sugar");
-            DateField(st, "inoculation_date");
+            InoculationField(st, season);
             DateField(st, "dry_date");
             ColourField(st);
             return null;

@@ -33,7 +33,7 @@ internal static class RunningLotRows
         double? capacity = NumberField(st, "vessel_capacity_l");
         var additions = new Additions(NumberField(st, "must_volume_l"), NumberField(st, "water_added_l"), NumberField(st, "sugar_added_kg"));
         double? yan = NumberField(st, "yan_mgl");
-        var inoculated = DateField(st, "inoculation_date");
+        var inoculated = InoculationField(st, season);
         var colour = ColourField(st);
         if (st.Bad || lotId is null || strain is null || start is null || season is null)
         {

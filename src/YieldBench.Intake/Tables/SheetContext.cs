@@ -20,6 +20,12 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
 
     public DateOrder DateOrder { get; set; }
 
+    /// <summary>The first sheet row whose date was a day and month with no year, read in its row's season, and that date.</summary>
+    public (int Row, string Text, DateTime Read)? YearFromSeasonAt { get; set; }
+
+    /// <summary>How many dates of the column were read in their row's season for want of a year.</summary>
+    public int YearsFromSeason { get; set; }
+
     /// <summary>The first sheet row whose date text carried a time zone (Z, +02:00), which was not applied.</summary>
     public int? ZoneSeenAt { get; set; }
 

@@ -77,6 +77,12 @@ internal static class SheetReader
             LogRows.Read(ctx, fileStem);
         }
 
+        foreach (var c in columns.Where(c => c.YearFromSeasonAt is not null))
+        {
+            var (row, text, read) = c.YearFromSeasonAt!.Value;
+            sink.Warning(file, sheetName, row, c.Header, text, IssueCodes.DateWithoutYear, IntakeMessages.InoculationInSeason(c.Header, c.YearsFromSeason, text, read));
+        }
+
         foreach (var c in columns.Where(c => c.ZoneSeenAt is not null))
         {
             sink.Warning(file, sheetName, c.ZoneSeenAt, c.Header, null, IssueCodes.TimeZoneNotApplied, IntakeMessages.TimeZoneNotApplied(c.Field.Name));
