@@ -154,6 +154,9 @@ public static class IntakeMessages
     internal static string InoculationInSeason(string header, int count, string first, DateTime read) =>
         $"The column '{header}' gives {count.ToString(Inv)} date(s) by day and month with no year; each was read in its lot's season (the vintage is the year of picking, and so of inoculation), the first, '{first}', as {read.ToString("yyyy-MM-dd", Inv)}. Write the year where a lot was inoculated in another year (a must picked after the new year).";
 
+    internal static string GravityBothWays(string header, int count, string first, double sg) =>
+        $"The column '{header}' holds specific gravity written both ways, as SG (1.088) and in thousandths (1088): {count.ToString(Inv)} value(s) differ from the column's form (the first, '{first}', read as SG {sg.ToString("0.000###", Inv)}). Each was read as the gravity it is; write them one way to make it certain.";
+
     internal static string DateWithoutYearRefused(string log, string shown, string why) =>
         $"The reading of {log} is dated '{shown}', a day and month with no year, and {why}; it was left out. Write the date with its year (year-month-day, e.g. 2024-09-12).";
 

@@ -23,6 +23,12 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
     /// <summary>The first sheet row whose date was a day and month with no year, read in its row's season, and that date.</summary>
     public (int Row, string Text, DateTime Read)? YearFromSeasonAt { get; set; }
 
+    /// <summary>The first sheet row of an SG column whose value was written the other way (1090 among 1.088s), its text and the SG read.</summary>
+    public (int Row, string Text, double Sg)? OtherGravityFormAt { get; set; }
+
+    /// <summary>How many values of an SG column were written the other way.</summary>
+    public int OtherGravityForms { get; set; }
+
     /// <summary>How many dates of the column were read in their row's season for want of a year.</summary>
     public int YearsFromSeason { get; set; }
 

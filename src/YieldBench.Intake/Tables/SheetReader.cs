@@ -77,6 +77,7 @@ internal static class SheetReader
             LogRows.Read(ctx, fileStem);
         }
 
+        GravityBothWays(sink, file, sheetName, columns);
         foreach (var c in columns.Where(c => c.YearFromSeasonAt is not null))
         {
             var (row, text, read) = c.YearFromSeasonAt!.Value;
@@ -89,5 +90,15 @@ internal static class SheetReader
         }
 
         return Outcome.Read;
+    }
+
+    /// <summary>Says once for each SG column that held gravity written both ways (1090 among 1.088s) how it was read.</summary>
+    internal static void GravityBothWays(IssueSink sink, string file, string? sheetName, IEnumerable<BoundColumn> columns)
+    {
+        foreach (var c in columns.Where(c => c.OtherGravityFormAt is not null))
+        {
+            var (row, text, sg) = c.OtherGravityFormAt!.Value;
+            sink.Warning(file, sheetName, row, c.Header, text, IssueCodes.UnitDiffersInColumn, IntakeMessages.GravityBothWays(c.Header, c.OtherGravityForms, text, sg));
+        }
     }
 }
