@@ -101,6 +101,10 @@ public static class IntakeMessages
     internal static string NoteRowSkipped() =>
         "The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.";
 
+    internal static string NoteInReading(string field, bool rowLeftOut) => rowLeftOut
+        ? $"The {field} cell holds a note, not a reading, and the row has no other reading; it was left out. A note belongs in a notes column (not read); a reading needs its number (a dry wine's hydrometer reading, such as -1.5 °Brix or 0.994 SG, is read as it is)."
+        : $"The {field} cell holds a note, not a reading; it was left empty and the row's other reading was used. A note belongs in a notes column (not read).";
+
     internal static string HiddenSheetSkipped() =>
         "The sheet is hidden in the workbook, so it was not read. If it holds lots or readings, unhide it and check again.";
 

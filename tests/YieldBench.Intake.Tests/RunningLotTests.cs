@@ -69,6 +69,31 @@ public class RunningLotTests
     }
 
     [Fact]
+    public void Notes_typed_in_a_logs_reading_cells_are_no_readings_and_leave_the_rest_of_the_row_used()
+    {
+        // Given a log with a note in the Brix cell of a row without temperature, "stuck?" in a temperature cell beside
+        // a Brix, "dry" in a Brix cell beside a temperature, a blank row and a legitimate -1.5 °Brix near dryness
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Brix\nN1,QX-7,24.0\n");
+        var log = folder.Text("N1.csv",
+            "Date,Brix,Temp °C\n2026-09-02,23.0,20\n2026-09-03,pumped over,\n,,\n2026-09-08,1.2,stuck?\n2026-09-10,-1.5,21\n2026-09-12,dry,19\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then the note-only row is left out with a warning, the others keep their readings, and no error is raised
+        var readings = Assert.Single(set.Logs).Readings;
+        Assert.Equal([(23.0, 20.0), (1.2, double.NaN), (-1.5, 21.0), (double.NaN, 19.0)],
+            readings.Select(r => (r.Sugar?.Brix ?? double.NaN, r.TemperatureC ?? double.NaN)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var skipped = Assert.Single(set.Issues, i => i.Code == IssueCodes.NoteRowSkipped);
+        Assert.Equal((3, "Brix", "pumped over"), (skipped.Row!.Value, skipped.Column, skipped.Value));
+        Assert.Equal([("stuck?", "Temp °C"), ("dry", "Brix")], set.Issues.Where(i => i.Code == IssueCodes.NotANumber).Select(i => (i.Value!, i.Column!)));
+        var account = Assert.Single(set.Accounts, a => a.File == "N1.csv");
+        Assert.Equal((6, 4, 1, 1), (account.RowsRead, account.LogReadingsUsed, account.RowsReported, account.BlankRowsSkipped));
+    }
+
+    [Fact]
     public void Columns_of_the_finished_wine_are_named_and_not_read_and_bad_rows_are_reported()
     {
         // Given a running table that still carries a final-alcohol column and a row without starting sugar

@@ -128,6 +128,9 @@ internal static partial class CellValues
 
     private static readonly HashSet<string> NoValueMarks = new(["-", "--", "\u2013", "\u2014", "n/a", "na", "n.a.", "?"], StringComparer.OrdinalIgnoreCase);
 
+    /// <summary>True for a mark of "not measured" ("-", "n/a", "NA"), read as an empty cell where a number is expected.</summary>
+    public static bool IsNoValueMark(string text) => NoValueMarks.Contains(text.Trim());
+
     /// <summary>Any number text: grouping, decimal commas, signs, spaces, percent; the reference for the fast path.</summary>
     internal static CellProblem ParseNumberTextGeneral(string s, bool decimalComma, out double value, out string? alternative)
     {
