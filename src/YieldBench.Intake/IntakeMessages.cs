@@ -123,6 +123,9 @@ public static class IntakeMessages
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
 
+    internal static string VagueSugarHeader(string header) =>
+        $" The column '{header}' names a sugar reading without saying whether it is the must's at the start or the wine's at the end; if it holds the must's, map it with --column starting_sugar=\"{header}\".";
+
     internal static string PerhapsRunningLots() =>
         " If these lots are still fermenting (the sheet has no column of the finished wine), read them as lots still fermenting: yieldbench check --running FILES, or forecast HISTORY --running FILES.";
 

@@ -29,6 +29,12 @@ internal static class LotRows
                 message += IntakeMessages.VesselAsLotId(vessel.Header);
             }
 
+            if (m == "starting_sugar" && ctx.Unmatched.FirstOrDefault(h => ColumnRules.Find(h, TableKind.Log)?.Name == "sugar") is { } sugarWord)
+            {
+                // A bare "Densité", "Sugar" or "Gravity": too vague in a lots table (start or end?), but most likely the must's.
+                message += IntakeMessages.VagueSugarHeader(sugarWord);
+            }
+
             if (m == "final_abv" && RunningLotRows.FinalFields.All(name => ctx.Column(name) is null))
             {
                 // No column of the finished wine at all: most likely lots still fermenting.

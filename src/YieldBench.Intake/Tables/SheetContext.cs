@@ -68,6 +68,9 @@ internal sealed record SheetContext(
     /// <summary>The file and sheet as the log readings of this table share them.</summary>
     public SourcePlace Place { get; } = new(File, Sheet.Name);
 
+    /// <summary>Headers of the table that matched no field, for hints in the messages of missing columns.</summary>
+    public IReadOnlyList<string> Unmatched { get; init; } = [];
+
     /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
     public int? HeadingSeason { get; set; }
 

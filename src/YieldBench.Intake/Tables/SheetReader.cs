@@ -60,7 +60,10 @@ internal static class SheetReader
         MergedCells.Warn(sheet, file, sink, firstData);
         string fileStem = Path.GetFileNameWithoutExtension(fullPath);
         int headerWidth = Array.FindLastIndex(sheet.Rows[headerRow], c => !CellValues.IsBlank(c)) + 1;
-        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth);
+        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth)
+        {
+            Unmatched = unmatched.Select(u => u.Header).ToList(),
+        };
         UnitSettling.Settle(ctx);
         foreach (var c in columns)
         {
