@@ -101,6 +101,10 @@ public static class IntakeMessages
     internal static string NoteRowSkipped() =>
         "The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.";
 
+    internal static string NoteInReading(string field, bool rowLeftOut) => rowLeftOut
+        ? $"The {field} cell holds a note, not a reading, and the row has no other reading; it was left out. A note belongs in a notes column (not read); a reading needs its number (a dry wine's hydrometer reading, such as -1.5 °Brix or 0.994 SG, is read as it is)."
+        : $"The {field} cell holds a note, not a reading; it was left empty and the row's other reading was used. A note belongs in a notes column (not read).";
+
     internal static string HiddenSheetSkipped() =>
         "The sheet is hidden in the workbook, so it was not read. If it holds lots or readings, unhide it and check again.";
 
@@ -118,6 +122,12 @@ public static class IntakeMessages
 
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
+
+    internal static string VagueSugarHeader(string header) =>
+        $" The column '{header}' names a sugar reading without saying whether it is the must's at the start or the wine's at the end; if it holds the must's, map it with --column starting_sugar=\"{header}\".";
+
+    internal static string PerhapsRunningLots() =>
+        " If these lots are still fermenting (the sheet has no column of the finished wine), read them as lots still fermenting: yieldbench check --running FILES, or forecast HISTORY --running FILES.";
 
     internal static string DaysFromInoculation(string header, double lastDay) =>
         $"The column '{header}' holds day numbers (0 to {Num(lastDay)}), not dates: each reading is placed at its lot's inoculation date plus that many days (day 0 is the inoculation day; a Time column gives the hour). Check that the lots table has each lot's inoculation date; a Date column instead would need no inoculation date.";
@@ -145,6 +155,14 @@ public static class IntakeMessages
 
     internal static string NothingToPlaceYear(string lot) =>
         $"no lot '{lot}' with a season or inoculation date was read, nor a reading of its log dated with a year, to take the year from";
+
+    internal static string NoLeapDay(int year) => $": it has a day and month but no year, and {year.ToString(Inv)}, its season, has no 29 February";
+
+    internal static string InoculationInSeason(string header, int count, string first, DateTime read) =>
+        $"The column '{header}' gives {count.ToString(Inv)} date(s) by day and month with no year; each was read in its lot's season (the vintage is the year of picking, and so of inoculation), the first, '{first}', as {read.ToString("yyyy-MM-dd", Inv)}. Write the year where a lot was inoculated in another year (a must picked after the new year).";
+
+    internal static string GravityBothWays(string header, int count, string first, double sg) =>
+        $"The column '{header}' holds specific gravity written both ways, as SG (1.088) and in thousandths (1088): {count.ToString(Inv)} value(s) differ from the column's form (the first, '{first}', read as SG {sg.ToString("0.000###", Inv)}). Each was read as the gravity it is; write them one way to make it certain.";
 
     internal static string DateWithoutYearRefused(string log, string shown, string why) =>
         $"The reading of {log} is dated '{shown}', a day and month with no year, and {why}; it was left out. Write the date with its year (year-month-day, e.g. 2024-09-12).";

@@ -64,8 +64,16 @@ public static class IntakeReport
         int warnings = set.Issues.Count - errors;
         int leftOut = set.Accounts.Sum(a => a.RowsReported);
         string seasons = set.Lots.Count == 0 ? "no usable lot rows" : set.Seasons.Count == 0 ? "no season" : string.Join(", ", set.Seasons.Select(N));
+        string lots = $"{Counted(set.Lots.Count, "lot")} ({seasons})";
+        if (set.Accounts.Any(a => a.Kind == "running lots"))
+        {
+            // Lots still fermenting (check --running): counted as such, with their seasons.
+            var running = set.RunningLots.Select(l => l.Season).Distinct().Order().ToList();
+            lots = $"{Counted(set.RunningLots.Count, "running lot")} ({(running.Count == 0 ? "no usable lot rows" : string.Join(", ", running.Select(N)))})";
+        }
+
         WriteWrapped(output, "", "  ", $"Issues: {N(set.Issues.Count)} ({Counted(errors, "error")}, {Counted(warnings, "warning")}).");
-        WriteWrapped(output, "", "  ", $"Result: {Counted(set.Lots.Count, "lot")} ({seasons}), {Counted(set.Logs.Count, "fermentation log")} with {Counted(set.Logs.Sum(l => l.Readings.Count), "reading")}; {Counted(leftOut, "row")} left out.");
+        WriteWrapped(output, "", "  ", $"Result: {lots}, {Counted(set.Logs.Count, "fermentation log")} with {Counted(set.Logs.Sum(l => l.Readings.Count), "reading")}; {Counted(leftOut, "row")} left out.");
     }
 
     /// <summary>A sheet's accounting as one sentence.</summary>
@@ -79,7 +87,7 @@ public static class IntakeReport
 
         string used = a.ReadingsInRows is { } held
             ? $"{N(a.LogReadingsUsed)} rows used ({N(held)} readings)"
-            : a.LogReadingsUsed > 0 || a.Kind == "log" ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
+            : a.LogReadingsUsed > 0 || a.Kind.StartsWith("log", StringComparison.Ordinal) ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
         return $"{sheet}{a.Kind}: {N(a.RowsRead)} rows read = {used}, {N(a.RowsReported)} left out, {N(a.BlankRowsSkipped)} blank, " +
             $"{N(a.SummaryRowsSkipped)} summary or heading{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
     }

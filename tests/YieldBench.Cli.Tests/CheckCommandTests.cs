@@ -40,6 +40,42 @@ public sealed class CheckCommandTests : IDisposable
     }
 
     [Fact]
+    public void Check_of_a_board_with_one_column_per_lot_alone_finds_its_table_and_exits_zero()
+    {
+        // Given only a tank board: a date, then one column of readings per tank
+        Write("board-2026.csv", "Date,Time,T1,T2\n2026-09-14,08:00,24.0,22.5\n2026-09-15,08:00,21.5,21.0\n");
+
+        // When checked
+        var (code, output, error) = Run("check", "board-2026.csv");
+
+        // Then the board is a table: exit 0, no word of "no table", and its two logs counted
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Equal("", error);
+        Assert.EndsWith("Result: 0 lots (no usable lot rows), 2 fermentation logs with 4 readings; 0 rows left out.\n", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_running_reads_lots_still_fermenting_and_without_it_the_refusal_names_the_option()
+    {
+        // Given a table of lots still fermenting (no column of the finished wine) and their log, times typed "8am"
+        Write("harvest-2026.csv", "Lot,Yeast,Brix,Inoculated\nR1,QX-7,25.0,2026-09-20 08:00\n");
+        Write("harvest-2026-log.csv", "Lot,Date,Time,Brix,Temp °F\nR1,2026-09-20,6pm,24.6,66\nR1,2026-09-21,8am,23.1,72\n");
+
+        // When checked with --running, and without it
+        var (code, output, _) = Run("check", "--running", "harvest-2026.csv", "harvest-2026-log.csv");
+        var (plainCode, plainOutput, _) = Run("check", "harvest-2026.csv", "harvest-2026-log.csv");
+
+        // Then with it every row is used and the result counts a running lot of 2026
+        Assert.Equal(ExitCodes.Success, code);
+        Assert.Contains("running lots: 1 rows read = 1 lots used", output, StringComparison.Ordinal);
+        Assert.EndsWith("Result: 1 running lot (2026), 1 fermentation log with 2 readings; 0 rows left out.\n", output, StringComparison.Ordinal);
+
+        // and without it the missing final alcohol is refused with the way to read such lots
+        Assert.Equal(ExitCodes.InputProblems, plainCode);
+        Assert.Contains("check --running FILES", string.Join(" ", plainOutput.Split('\n').Select(l => l.Trim())), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Check_exits_one_and_names_the_place_when_a_row_is_left_out()
     {
         Write("lots-2023.csv", "Lot,Yeast,Brix,Alcohol % v/v\nA-01,QX-7,24.0,14.0\nA-02,QX-9,abc,13.5\n");

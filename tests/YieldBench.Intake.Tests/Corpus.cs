@@ -81,7 +81,7 @@ internal static class Corpus
         new("no header row", f => f.Text("prose.csv", Csv("These are our notes from harvest.", "Nothing tabular here.")),
             E("prose.csv", null, null, null, null, "no-table-found", "No header row naming lot or log columns was found (searched the first 50 rows of every sheet). Add a header row such as the one in 'yieldbench template', or map your headers with --column FIELD=HEADER."), 0),
         new("required column missing", f => f.Text("no-alcohol.csv", Csv("Lot,Season,Yeast,Brix", "A-01,2023,QX-7,24.0")),
-            E("no-alcohol.csv", null, 1, null, null, "missing-column", "The sheet has no column for final_abv, which is required; none of its rows could be used. Add a column headed for example 'Final alcohol (% v/v)', 'alcohol', 'abv', or map one with --column final_abv=HEADER."), 0),
+            E("no-alcohol.csv", null, 1, null, null, "missing-column", "The sheet has no column for final_abv, which is required; none of its rows could be used. Add a column headed for example 'Final alcohol (% v/v)', 'alcohol', 'abv', or map one with --column final_abv=HEADER. If these lots are still fermenting (the sheet has no column of the finished wine), read them as lots still fermenting: yieldbench check --running FILES, or forecast HISTORY --running FILES."), 0),
         new("required value empty", f => f.Text("no-strain.csv", Csv(Header, GoodRow, "A-02,2023,,23.0,13.5")),
             E("no-strain.csv", null, 3, "Yeast", "", "missing-value", "strain is empty; it is required, so the row was left out. Fill it in."), 1),
         new("not a number", f => f.Text("text-brix.csv", Csv(Header, GoodRow, "A-02,2023,QX-7,twenty,13.5")),

@@ -47,6 +47,36 @@ public class DatesWithoutYearTests
     }
 
     [Fact]
+    public void An_inoculation_date_without_a_year_is_read_in_its_lots_season_and_said_once_for_the_column()
+    {
+        // Given running lots of season 2026 (from the file name) inoculated "11-Sep" and "12/9 15:00", one "29-Feb"
+        // (2026 has none), and a log dated without years
+        using var folder = new TestFolder();
+        var lots = folder.Text("tanks-2026.csv", "Lot,Yeast,Brix,Inoculated\nT1,QX-7,24.6,11-Sep\nT2,QX-9,21.8,13/9 15:00\nT3,QX-9,21.8,29-Feb\n");
+        var log = folder.Text("T1.csv", "Date,Brix\n12-Sep,24.0\n14-Sep,20.0\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then the dates are 2026-09-11 and 2026-09-13 15:00, said in one warning naming the column and the first
+        var lot = set.RunningLots.ToDictionary(l => l.LotId);
+        Assert.Equal(new DateTime(2026, 9, 11), lot["T1"].InoculationDate);
+        Assert.Equal(new DateTime(2026, 9, 13, 15, 0, 0), lot["T2"].InoculationDate);
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.DateWithoutYear && i.File == "tanks-2026.csv" && i.Severity == IssueSeverity.Warning);
+        Assert.Equal((2, "Inoculated", "11-Sep"), (said.Row!.Value, said.Column, said.Value));
+        Assert.StartsWith("The column 'Inoculated' gives 2 date(s) by day and month with no year; each was read in its lot's season", said.Message, StringComparison.Ordinal);
+
+        // and 29 February, which 2026 lacks, leaves that date empty with a warning (the lot is kept)
+        var leap = Assert.Single(set.Issues, i => i.Code == IssueCodes.NotADate);
+        Assert.Equal((4, "29-Feb"), (leap.Row!.Value, leap.Value));
+        Assert.Contains("2026, its season, has no 29 February", leap.Message, StringComparison.Ordinal);
+        Assert.Null(lot["T3"].InoculationDate);
+
+        // and the log is placed nearest T1's inoculation
+        Assert.Equal([new DateTime(2026, 9, 12), new DateTime(2026, 9, 14)], Assert.Single(set.Logs).Readings.Select(r => r.Timestamp));
+    }
+
+    [Fact]
     public void Without_an_inoculation_date_a_ferment_starts_in_its_season_and_runs_into_the_next_year()
     {
         // Given a late ferment of season 2025 (no inoculation date) logged from 28 Dec to 3 Jan without years

@@ -116,4 +116,23 @@ public class HeaderMatchingTests
     {
         Assert.Equal(Enum.Parse<ColumnUnit>(unit), HeaderText.UnitFromHeader(header, Enum.Parse<FieldKind>(kind)));
     }
+
+    [Fact]
+    public void A_lots_table_whose_only_sugar_header_is_a_bare_density_word_names_it_in_the_missing_column_message()
+    {
+        // Given a French lots table headed "Densité" (the must's density, but the word alone could be the wine's too)
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot;Millésime;Levure;Densité;Levurage\nV1;2026;QX-7;1094;13/09/2026 10:00\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots);
+
+        // Then the missing starting sugar is reported with the mapping that would read that column
+        var missing = Assert.Single(set.Issues, i => i.Code == IssueCodes.MissingColumn);
+        Assert.EndsWith("The column 'Densité' names a sugar reading without saying whether it is the must's at the start or the wine's at the end; if it holds the must's, map it with --column starting_sugar=\"Densité\".", missing.Message, StringComparison.Ordinal);
+
+        // and with that mapping the lot is read: 1094 as SG 1.094 (thousandths, from the values)
+        var mapped = folder.Read(new IntakeOptions { RunningLots = true, ColumnMappings = ["starting_sugar=Densité"] }, lots);
+        Assert.Equal(1.094, Assert.Single(mapped.RunningLots).StartingSugar.SpecificGravity, 1e-9);
+    }
 }

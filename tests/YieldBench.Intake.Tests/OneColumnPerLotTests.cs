@@ -112,6 +112,23 @@ public class OneColumnPerLotTests
     }
 
     [Fact]
+    public void A_board_of_two_tanks_beside_a_date_and_a_time_is_read_as_a_board_not_as_an_empty_lots_table()
+    {
+        // Given a small cellar's board: Date, Time and two tank columns (the date and time alone name two fields)
+        using var folder = new TestFolder();
+        var board = folder.Text("board-2026.csv", "Date,Time,T1,T2\n2026-09-14,08:00,24.0,22.5\n2026-09-15,08:00,21.5,21.0\n");
+
+        // When it is read
+        var set = folder.Read(board);
+
+        // Then it is a log with a column per tank: two logs of two readings, both rows used, nothing refused
+        Assert.Equal([("T1", 2), ("T2", 2)], set.Logs.Select(l => (l.LotId, l.Readings.Count)).Order());
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal(("log, one column per lot", 2, 2, 0), (account.Kind, account.RowsRead, account.LogReadingsUsed, account.RowsReported));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Fact]
     public void A_board_headed_by_measurement_first_gives_each_tank_its_sugar_and_temperature()
     {
         // Given a board typed "Brix T4, Brix T5, Temp T4, Temp T5" (the measurement before the tank), with notes

@@ -39,6 +39,61 @@ public class RunningLotTests
     }
 
     [Fact]
+    public void Specific_gravity_written_both_ways_in_one_column_is_read_as_the_gravity_each_value_is()
+    {
+        // Given a must-SG column holding 1092 (thousandths) beside 1.088, and a log's SG column holding 1090 and 1086
+        // beside 1.087 and 1.084 (two people typing one sheet)
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Must SG\nC6,QX-7,1092\nC7,QX-9,1.088\n");
+        var log = folder.Text("log-2026.csv", "Lot,Date,SG\nC6,2026-09-10,1090\nC6,2026-09-11,1086\nC7,2026-09-10,1.087\nC7,2026-09-11,1.084\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then every value is used at the gravity it is: °Brix by the NBS-fitted cubic of docs/methods.md, evaluated in
+        // python3: f=lambda S: ((182.4601*S-775.6821)*S+1262.7794)*S-669.5622 → f(1.092)=22.014119, f(1.088)=21.125576,
+        // f(1.090)=21.570564, f(1.087)=20.902543
+        var lot = set.RunningLots.ToDictionary(l => l.LotId);
+        Assert.Equal(22.014119, lot["C6"].StartingSugar.Brix, 1e-6);
+        Assert.Equal(21.125576, lot["C7"].StartingSugar.Brix, 1e-6);
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal(21.570564, logs["C6"].Readings[0].Sugar!.Value.Brix, 1e-6);
+        Assert.Equal(20.902543, logs["C7"].Readings[0].Sugar!.Value.Brix, 1e-6);
+        Assert.All(set.Accounts, a => Assert.Equal(0, a.RowsReported));
+
+        // and each column says once, as a warning, that it held both forms, naming the first value of the other form
+        var said = set.Issues.Where(i => i.Code == IssueCodes.UnitDiffersInColumn).OrderBy(i => i.File).ToList();
+        Assert.All(said, i => Assert.Equal(IssueSeverity.Warning, i.Severity));
+        Assert.Equal([("lots-2026.csv", 2, "1092"), ("log-2026.csv", 2, "1090")], said.OrderByDescending(i => i.File).Select(i => (i.File, i.Row!.Value, i.Value!)));
+        Assert.Contains("1 value(s) differ from the column's form (the first, '1092', read as SG 1.092)", said.Single(i => i.File == "lots-2026.csv").Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Notes_typed_in_a_logs_reading_cells_are_no_readings_and_leave_the_rest_of_the_row_used()
+    {
+        // Given a log with a note in the Brix cell of a row without temperature, "stuck?" in a temperature cell beside
+        // a Brix, "dry" in a Brix cell beside a temperature, a blank row and a legitimate -1.5 °Brix near dryness
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Brix\nN1,QX-7,24.0\n");
+        var log = folder.Text("N1.csv",
+            "Date,Brix,Temp °C\n2026-09-02,23.0,20\n2026-09-03,pumped over,\n,,\n2026-09-08,1.2,stuck?\n2026-09-10,-1.5,21\n2026-09-12,dry,19\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then the note-only row is left out with a warning, the others keep their readings, and no error is raised
+        var readings = Assert.Single(set.Logs).Readings;
+        Assert.Equal([(23.0, 20.0), (1.2, double.NaN), (-1.5, 21.0), (double.NaN, 19.0)],
+            readings.Select(r => (r.Sugar?.Brix ?? double.NaN, r.TemperatureC ?? double.NaN)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var skipped = Assert.Single(set.Issues, i => i.Code == IssueCodes.NoteRowSkipped);
+        Assert.Equal((3, "Brix", "pumped over"), (skipped.Row!.Value, skipped.Column, skipped.Value));
+        Assert.Equal([("stuck?", "Temp °C"), ("dry", "Brix")], set.Issues.Where(i => i.Code == IssueCodes.NotANumber).Select(i => (i.Value!, i.Column!)));
+        var account = Assert.Single(set.Accounts, a => a.File == "N1.csv");
+        Assert.Equal((6, 4, 1, 1), (account.RowsRead, account.LogReadingsUsed, account.RowsReported, account.BlankRowsSkipped));
+    }
+
+    [Fact]
     public void Columns_of_the_finished_wine_are_named_and_not_read_and_bad_rows_are_reported()
     {
         // Given a running table that still carries a final-alcohol column and a row without starting sugar

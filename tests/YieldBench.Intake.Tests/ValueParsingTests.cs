@@ -64,10 +64,28 @@ public class ValueParsingTests
     [InlineData("8.30", 8, 30)]
     [InlineData("2:15 PM", 14, 15)]
     [InlineData("12:05 am", 0, 5)]
+    [InlineData("8am", 8, 0)]
+    [InlineData("5 pm", 17, 0)]
+    [InlineData("8 a.m.", 8, 0)]
+    [InlineData("12pm", 12, 0)]
+    [InlineData("17h30", 17, 30)]
+    [InlineData("8h", 8, 0)]
     public void Times_of_day_are_read_from_text(string text, int h, int m)
     {
         Assert.Equal(CellProblem.None, CellValues.TimeOfDay(text, out var t));
         Assert.Equal(new TimeSpan(h, m, 0), t);
+    }
+
+    [Theory]
+    [InlineData("8")]
+    [InlineData("13pm")]
+    [InlineData("25h")]
+    [InlineData("8h75")]
+    [InlineData("am")]
+    [InlineData("morning")]
+    public void A_bare_hour_or_an_impossible_time_is_no_time_of_day(string text)
+    {
+        Assert.Equal(CellProblem.NotATime, CellValues.TimeOfDay(text, out _));
     }
 
     [Theory]

@@ -15,12 +15,14 @@ internal static class CheckCommand
         var columns = new Option<string[]>("--column") { Description = "Map a header to a field: FIELD=HEADER (repeatable).", Arity = ArgumentArity.ZeroOrMore, AllowMultipleArgumentsPerToken = false };
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one 'FIELD = HEADER' a line, '#' comments." };
         var season = UsageChecks.SeasonOption("Season (vintage year) for rows whose column, sheet name and file name give none.");
+        var running = new Option<bool>("--running") { Description = "Read the inputs as lots still fermenting and their logs, as forecast --running does: a lots table needs lot, strain and starting sugar, no final alcohol." };
         var issuesCsv = new Option<string?>("--issues-csv") { Description = "Also write every issue to this CSV file (file, sheet, row, column, value, code, severity, message)." };
         var command = new Command("check", "Check input files without analysing them: header mapping, rows used and left out, and every problem found.");
         command.Arguments.Add(inputs);
         command.Options.Add(columns);
         command.Options.Add(mapping);
         command.Options.Add(season);
+        command.Options.Add(running);
         command.Options.Add(issuesCsv);
         command.SetAction(parseResult =>
         {
@@ -44,6 +46,7 @@ internal static class CheckCommand
                 ColumnMappings = mappings,
                 MappingFile = mappingFile,
                 Season = parseResult.GetValue(season),
+                RunningLots = parseResult.GetValue(running),
                 WorkingDirectory = context.WorkingDirectory,
             };
             var set = IntakeReader.Read(paths, options);
@@ -55,7 +58,8 @@ internal static class CheckCommand
                 context.Out.WriteLine($"Issues written to {UsageChecks.Shown(csvPath!)}.");
             }
 
-            if (!set.Accounts.Any(a => a.Kind is "lots" or "log" or "running lots"))
+            // A log with one column per lot is a table too (kind "log, one column per lot").
+            if (!set.Accounts.Any(a => a.Kind is "lots" or "running lots" || a.Kind.StartsWith("log", StringComparison.Ordinal)))
             {
                 TextWrap.WriteLine(context.Error, "check: no table of lots or log readings was found in the inputs; the issues above say why.");
                 return ExitCodes.InputProblems;

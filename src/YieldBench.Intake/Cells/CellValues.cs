@@ -128,6 +128,9 @@ internal static partial class CellValues
 
     private static readonly HashSet<string> NoValueMarks = new(["-", "--", "\u2013", "\u2014", "n/a", "na", "n.a.", "?"], StringComparer.OrdinalIgnoreCase);
 
+    /// <summary>True for a mark of "not measured" ("-", "n/a", "NA"), read as an empty cell where a number is expected.</summary>
+    public static bool IsNoValueMark(string text) => NoValueMarks.Contains(text.Trim());
+
     /// <summary>Any number text: grouping, decimal commas, signs, spaces, percent; the reference for the fast path.</summary>
     internal static CellProblem ParseNumberTextGeneral(string s, bool decimalComma, out double value, out string? alternative)
     {
@@ -472,7 +475,7 @@ internal static partial class CellValues
         return true;
     }
 
-    /// <summary>A time of day from a time cell, a day fraction, or text "14:30", "14:30:05", "2:30 PM".</summary>
+    /// <summary>A time of day from a time cell, a day fraction, or text "14:30", "14:30:05", "2:30 PM", "8am", "17h30".</summary>
     public static CellProblem TimeOfDay(object? v, out TimeSpan value)
     {
         value = default;
@@ -497,7 +500,7 @@ internal static partial class CellValues
                     return string.IsNullOrWhiteSpace(s) ? CellProblem.Blank : CellProblem.NotATime;
                 }
 
-                int h = int.Parse(m.Groups["h"].Value, Inv), min = int.Parse(m.Groups["min"].Value, Inv);
+                int h = int.Parse(m.Groups["h"].Value, Inv), min = m.Groups["min"].Success ? int.Parse(m.Groups["min"].Value, Inv) : 0;
                 int sec = m.Groups["s"].Success ? int.Parse(m.Groups["s"].Value, Inv) : 0;
                 if (m.Groups["ampm"].Success)
                 {
@@ -562,6 +565,10 @@ internal static partial class CellValues
     [GeneratedRegex(@"^(?<a>[0-9]{1,2})(?<sep>[/.-])(?<b>[0-9]{1,2})\k<sep>(?<y>[0-9]{4}|[0-9]{2})(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2})(?::(?<s>[0-9]{2}))?)?$")]
     private static partial Regex SlashDate();
 
-    [GeneratedRegex(@"^(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2})(?::(?<s>[0-9]{2}))?\s*(?<ampm>[AaPp]\.?[Mm]\.?)?$")]
+    /// <summary>
+    /// "14:30", "14:30:05", "8.30", "2:30 PM"; and as cellar boards write them "8am", "5 pm", "8 a.m." (an hour with
+    /// a.m. or p.m.), "17h30", "8h" (an hour marked h, as in French and Spanish cellars). A bare hour ("8") is not one.
+    /// </summary>
+    [GeneratedRegex(@"^(?<h>[0-9]{1,2})(?:[:.](?<min>[0-9]{2})(?::(?<s>[0-9]{2}))?|\s?[Hh](?<min>[0-9]{2})?|(?=\s*[AaPp]\.?\s?[Mm]))\s*(?<ampm>[AaPp]\.?\s?[Mm]\.?)?$")]
     private static partial Regex TimeText();
 }

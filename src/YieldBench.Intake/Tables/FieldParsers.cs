@@ -436,23 +436,45 @@ internal static partial class FieldParsers
 
         var f = c.Field;
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
-        if (!UnitSettling.ValueLooksLike(f, raw, c.Unit))
+        var unit = c.Unit;
+        if (OtherGravityForm(unit, raw) is { } other)
+        {
+            // SG written both ways in one column ("1090" beside "1.088"): one scale, so each is read in its own form;
+            // said once for the column (SheetReader).
+            unit = other;
+            c.OtherGravityFormAt ??= (st.SheetRow, CellValues.Text(cell), ColumnUnits.OnScale(raw, other));
+            c.OtherGravityForms++;
+        }
+
+        if (!UnitSettling.ValueLooksLike(f, raw, unit))
         {
             st.Problem(c, cell, IssueCodes.UnitDiffersInColumn, IntakeMessages.UnitDiffersInColumn(Label(f), ColumnUnits.Label(UnitSettling.LikelyUnit(f, raw)), ColumnUnits.Label(c.Unit)), f.Critical);
             return null;
         }
 
         double min = f.Min ?? SugarReading.MinBrix, max = f.Max ?? SugarReading.MaxBrix;
-        double onScale = ColumnUnits.OnScale(raw, c.Unit);
-        if (!SugarReading.TryFrom(onScale, ColumnUnits.Scale(c.Unit), min, max, out var reading, out double brix))
+        double onScale = ColumnUnits.OnScale(raw, unit);
+        if (!SugarReading.TryFrom(onScale, ColumnUnits.Scale(unit), min, max, out var reading, out double brix))
         {
-            st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, c.Unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
+            st.Problem(c, cell, IssueCodes.OutOfRange, IntakeMessages.OutOfRange(Label(f), ConvertedShown(raw, unit, brix, "°Brix"), min, max, "°Brix"), f.Critical);
             return null;
         }
 
         recorded = onScale;
         return reading;
     }
+
+    /// <summary>
+    /// The other way of writing specific gravity when <paramref name="raw"/> is written so in a column read as SG
+    /// (1090 in an SG column: thousandths; 1.088 in a column of thousandths: SG); null otherwise. No other scale
+    /// reaches either band, so the value cannot be anything else.
+    /// </summary>
+    private static ColumnUnit? OtherGravityForm(ColumnUnit unit, double raw) => unit switch
+    {
+        ColumnUnit.SpecificGravity when raw is >= 950 and < 1300 => ColumnUnit.GravityThousandths,
+        ColumnUnit.GravityThousandths when raw is >= 0.95 and < 1.3 => ColumnUnit.SpecificGravity,
+        _ => null,
+    };
 
     internal static DateTime? DateField(RowState st, string name) => DateField(st, st.Ctx.Column(name));
 
@@ -509,6 +531,34 @@ internal static partial class FieldParsers
                 st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(label, cell is string t2 ? WhyNoDate(t2) : null), c.Field.Critical);
                 return null;
         }
+    }
+
+    /// <summary>
+    /// A lot's inoculation date; a day and month with no year ("11-Sep") is read in the row's
+    /// <paramref name="season"/> (the vintage is the year of picking, and so of inoculation: common practice), said
+    /// once for the column after its rows are read (<see cref="SheetReader"/>).
+    /// </summary>
+    internal static DateTime? InoculationField(RowState st, int? season)
+    {
+        var c = st.Ctx.Column("inoculation_date");
+        var date = DateField(st, c, withoutYear: season is not null);
+        if (date is null || !LogRows.WithoutYear(date.Value))
+        {
+            return date;
+        }
+
+        int year = season!.Value;
+        if (date.Value.Month == 2 && date.Value.Day == 29 && !DateTime.IsLeapYear(year))
+        {
+            object? cell = st.Ctx.Sheet.Cell(st.Row, c!.Index);
+            st.Problem(c, cell, IssueCodes.NotADate, IntakeMessages.NotADate(Label(c.Field), IntakeMessages.NoLeapDay(year)), c.Field.Critical);
+            return null;
+        }
+
+        var read = new DateTime(year, date.Value.Month, date.Value.Day, 0, 0, 0, DateTimeKind.Unspecified) + date.Value.TimeOfDay;
+        c!.YearFromSeasonAt ??= (st.SheetRow, CellValues.Text(st.Ctx.Sheet.Cell(st.Row, c.Index)), read);
+        c.YearsFromSeason++;
+        return read;
     }
 
     /// <summary>What a text that is no date lacks, when it is a day of the week ("Mon 8am") or a day and month with no year ("9/15 8am").</summary>

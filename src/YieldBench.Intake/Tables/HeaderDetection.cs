@@ -10,6 +10,9 @@ internal static class HeaderDetection
     /// <summary>Rows searched from the top of a sheet for the header row.</summary>
     public const int SearchRows = 50;
 
+    /// <summary>Fields that say when a row was taken, not what was read.</summary>
+    private static bool WhenField(string name) => name is "timestamp" or "date" or "time" or "season";
+
     public static bool Find(
         IntakeRun run,
         RawSheet sheet,
@@ -57,7 +60,9 @@ internal static class HeaderDetection
 
             // A header row names at least two fields, and most of its cells are field names (a row of notes
             // that happens to mention two field words is not a header).
-            int score = Math.Max(lotFields.Count, logFields.Count);
+            // A row naming only when (date, time, season) and nothing read then is no ordinary header: it is a board
+            // with a column per tank ("Date, Time, T1, T2"), left to WideLogRows.
+            int score = lotFields.Concat(logFields).All(WhenField) ? 0 : Math.Max(lotFields.Count, logFields.Count);
             if (score > bestScore && (matched * 2 >= texts || score >= 4))
             {
                 bestScore = score;

@@ -110,8 +110,21 @@ internal static class LogRows
 
         int? season = SeasonField(st, seasonCol);
         var when = dayNumbers ? DayCount(ctx, st, r) : When(ctx, st, r);
-        SugarReading? sugar = sugarCol is null ? null : SugarField(st, sugarCol);
-        double? temp = tempCol is null ? null : NumberField(st, tempCol);
+        // A note typed in a reading's cell ("pumped over", "stuck?", "dry"): no reading, and no error of its own.
+        var (sugarNote, tempNote) = (NoteIn(ctx, r, sugarCol), NoteIn(ctx, r, tempCol));
+        SugarReading? sugar = sugarCol is null || sugarNote is not null ? null : SugarField(st, sugarCol);
+        double? temp = tempCol is null || tempNote is not null ? null : NumberField(st, tempCol);
+        if ((sugarNote ?? tempNote) is { } note && !st.Bad)
+        {
+            var noteCol = sugarNote is not null ? sugarCol! : tempCol!;
+            bool none = sugar is null && temp is null;
+            sink.Warning(ctx.File, ctx.SheetName, r + 1, noteCol.Header, note, none ? IssueCodes.NoteRowSkipped : IssueCodes.NotANumber, IntakeMessages.NoteInReading(noteCol.Field.Name, none));
+            if (none)
+            {
+                return false;
+            }
+        }
+
         if (!st.Bad && sugar is null && temp is null)
         {
             st.Bad = true;
@@ -125,6 +138,21 @@ internal static class LogRows
 
         run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, ctx.Place, r + 1)));
         return true;
+    }
+
+    /// <summary>
+    /// The text of row <paramref name="r"/>'s cell in a reading column when it is a note, not a value: words (at least
+    /// two letters) and no digit ("pumped over", "stuck?", "dry"); a mark for "not measured" ("n/a", "-") is no note.
+    /// </summary>
+    private static string? NoteIn(SheetContext ctx, int r, BoundColumn? c)
+    {
+        if (c is null || ctx.Sheet.Cell(r, c.Index) is not string s || s.Any(char.IsDigit) || s.Count(char.IsLetter) < 2)
+        {
+            return null;
+        }
+
+        string t = s.Trim();
+        return CellValues.IsNoValueMark(t) ? null : TextSettling.Settle(t, multiline: false, out _);
     }
 
     /// <summary>

@@ -29,6 +29,18 @@ internal static class LotRows
                 message += IntakeMessages.VesselAsLotId(vessel.Header);
             }
 
+            if (m == "starting_sugar" && ctx.Unmatched.FirstOrDefault(h => ColumnRules.Find(h, TableKind.Log)?.Name == "sugar") is { } sugarWord)
+            {
+                // A bare "Densité", "Sugar" or "Gravity": too vague in a lots table (start or end?), but most likely the must's.
+                message += IntakeMessages.VagueSugarHeader(sugarWord);
+            }
+
+            if (m == "final_abv" && RunningLotRows.FinalFields.All(name => ctx.Column(name) is null))
+            {
+                // No column of the finished wine at all: most likely lots still fermenting.
+                message += IntakeMessages.PerhapsRunningLots();
+            }
+
             sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, message);
         }
 
@@ -98,7 +110,7 @@ internal static class LotRows
                 TaGl = NumberField(st, "ta_gl"),
                 MeanFermentationTempC = NumberField(st, "mean_temp_c"),
                 PeakFermentationTempC = NumberField(st, "peak_temp_c"),
-                InoculationDate = DateField(st, "inoculation_date"),
+                InoculationDate = InoculationField(st, season),
                 DryDate = DateField(st, "dry_date"),
                 Notes = TextField(st, "notes"),
                 Source = new SourceRef(ctx.File, ctx.SheetName, r + 1),
@@ -113,7 +125,7 @@ internal static class LotRows
             }
 
             SugarField(st, "final_sugar");
-            DateField(st, "inoculation_date");
+            InoculationField(st, season);
             DateField(st, "dry_date");
             ColourField(st);
             return null;

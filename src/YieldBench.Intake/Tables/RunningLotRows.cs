@@ -7,7 +7,7 @@ namespace YieldBench.Intake;
 internal static class RunningLotRows
 {
     /// <summary>Fields of the finished wine's analysis, which a lot still fermenting cannot have yet.</summary>
-    private static readonly string[] FinalFields = ["final_abv", "residual_sugar_gl", "final_sugar", "dry_date", "mean_temp_c", "peak_temp_c"];
+    internal static readonly string[] FinalFields = ["final_abv", "residual_sugar_gl", "final_sugar", "dry_date", "mean_temp_c", "peak_temp_c"];
 
     /// <summary>One warning per final-analysis column of a running-lots table: it is not read.</summary>
     public static void ReportFinalColumns(SheetContext ctx)
@@ -33,7 +33,7 @@ internal static class RunningLotRows
         double? capacity = NumberField(st, "vessel_capacity_l");
         var additions = new Additions(NumberField(st, "must_volume_l"), NumberField(st, "water_added_l"), NumberField(st, "sugar_added_kg"));
         double? yan = NumberField(st, "yan_mgl");
-        var inoculated = DateField(st, "inoculation_date");
+        var inoculated = InoculationField(st, season);
         var colour = ColourField(st);
         if (st.Bad || lotId is null || strain is null || start is null || season is null)
         {

@@ -20,6 +20,18 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
 
     public DateOrder DateOrder { get; set; }
 
+    /// <summary>The first sheet row whose date was a day and month with no year, read in its row's season, and that date.</summary>
+    public (int Row, string Text, DateTime Read)? YearFromSeasonAt { get; set; }
+
+    /// <summary>The first sheet row of an SG column whose value was written the other way (1090 among 1.088s), its text and the SG read.</summary>
+    public (int Row, string Text, double Sg)? OtherGravityFormAt { get; set; }
+
+    /// <summary>How many values of an SG column were written the other way.</summary>
+    public int OtherGravityForms { get; set; }
+
+    /// <summary>How many dates of the column were read in their row's season for want of a year.</summary>
+    public int YearsFromSeason { get; set; }
+
     /// <summary>The first sheet row whose date text carried a time zone (Z, +02:00), which was not applied.</summary>
     public int? ZoneSeenAt { get; set; }
 
@@ -55,6 +67,9 @@ internal sealed record SheetContext(
 
     /// <summary>The file and sheet as the log readings of this table share them.</summary>
     public SourcePlace Place { get; } = new(File, Sheet.Name);
+
+    /// <summary>Headers of the table that matched no field, for hints in the messages of missing columns.</summary>
+    public IReadOnlyList<string> Unmatched { get; init; } = [];
 
     /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
     public int? HeadingSeason { get; set; }

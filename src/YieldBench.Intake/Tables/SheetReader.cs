@@ -60,7 +60,10 @@ internal static class SheetReader
         MergedCells.Warn(sheet, file, sink, firstData);
         string fileStem = Path.GetFileNameWithoutExtension(fullPath);
         int headerWidth = Array.FindLastIndex(sheet.Rows[headerRow], c => !CellValues.IsBlank(c)) + 1;
-        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth);
+        var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth)
+        {
+            Unmatched = unmatched.Select(u => u.Header).ToList(),
+        };
         UnitSettling.Settle(ctx);
         foreach (var c in columns)
         {
@@ -77,11 +80,28 @@ internal static class SheetReader
             LogRows.Read(ctx, fileStem);
         }
 
+        GravityBothWays(sink, file, sheetName, columns);
+        foreach (var c in columns.Where(c => c.YearFromSeasonAt is not null))
+        {
+            var (row, text, read) = c.YearFromSeasonAt!.Value;
+            sink.Warning(file, sheetName, row, c.Header, text, IssueCodes.DateWithoutYear, IntakeMessages.InoculationInSeason(c.Header, c.YearsFromSeason, text, read));
+        }
+
         foreach (var c in columns.Where(c => c.ZoneSeenAt is not null))
         {
             sink.Warning(file, sheetName, c.ZoneSeenAt, c.Header, null, IssueCodes.TimeZoneNotApplied, IntakeMessages.TimeZoneNotApplied(c.Field.Name));
         }
 
         return Outcome.Read;
+    }
+
+    /// <summary>Says once for each SG column that held gravity written both ways (1090 among 1.088s) how it was read.</summary>
+    internal static void GravityBothWays(IssueSink sink, string file, string? sheetName, IEnumerable<BoundColumn> columns)
+    {
+        foreach (var c in columns.Where(c => c.OtherGravityFormAt is not null))
+        {
+            var (row, text, sg) = c.OtherGravityFormAt!.Value;
+            sink.Warning(file, sheetName, row, c.Header, text, IssueCodes.UnitDiffersInColumn, IntakeMessages.GravityBothWays(c.Header, c.OtherGravityForms, text, sg));
+        }
     }
 }

@@ -68,6 +68,8 @@ internal static class WideLogRows
             return added > 0;
         });
 
+        SheetReader.GravityBothWays(sink, file, sheetName, lotBound);
+
         // The account counts rows; say how many readings its used rows held.
         int last = run.Accounts.Count - 1;
         run.Accounts[last] = run.Accounts[last] with { ReadingsInRows = readings };
