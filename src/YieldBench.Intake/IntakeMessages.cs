@@ -138,6 +138,15 @@ public static class IntakeMessages
     internal static string NearInoculation(DateTime inoculation) =>
         $"in the year that puts each nearest the lot's inoculation on {inoculation.ToString("yyyy-MM-dd", Inv)}";
 
+    internal const string NearEachInoculation = "in the year that puts each nearest its lot's inoculation date";
+
+    internal const string NearEachLogsDatedReadings = "in the year that puts each nearest its log's readings dated with a year";
+
+    internal const string InEachSeason = "from each lot's season: a ferment starts in that year (the vintage is the year of picking) and runs into the next only where its dates cross the new year";
+
+    internal static string DatesWithoutYearPlacedForLots(IReadOnlyList<string> logs, int count, IReadOnlyList<int> years, string rule, string firstLog, DateTime first) =>
+        $"The logs of {logs.Count.ToString(Inv)} lots ({string.Join(", ", logs.Take(10))}{(logs.Count > 10 ? $" and {(logs.Count - 10).ToString(Inv)} more" : "")}) date {count.ToString(Inv)} reading(s) by day and month with no year; they were placed in {string.Join(" and ", years.Select(y => y.ToString(Inv)))}, {rule} (the first, '{CellValues.DayMonthText(first.Month, first.Day)}' of {firstLog}, as {first.ToString("yyyy-MM-dd", Inv)}). If that is wrong, write each date with its year (e.g. {first.ToString("yyyy-MM-dd", Inv)}).";
+
     internal static string NearDatedReadings(DateTime middle) =>
         $"in the year that puts each nearest the log's readings dated with a year (their middle one {middle.ToString("yyyy-MM-dd", Inv)})";
 

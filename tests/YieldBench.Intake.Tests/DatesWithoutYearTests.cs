@@ -77,6 +77,26 @@ public class DatesWithoutYearTests
     }
 
     [Fact]
+    public void The_logs_of_many_lots_on_one_sheet_are_said_in_one_warning_naming_the_lots()
+    {
+        // Given one log sheet holding three lots' readings dated without years, each lot with an inoculation date
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Inoculated\nC1,QX-7,22.0,2025-09-11\nC2,QX-7,22.5,2025-09-12\nC3,QX-9,23.0,2025-09-13\n");
+        var log = folder.Text("log.csv", "Lot,Date,Brix\nC1,11/9,21.9\nC1,13/9,17.0\nC2,12/9,22.3\nC2,14/9,18.0\nC3,13/9,22.8\nC3,15/9,19.0\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then every reading is in 2025, and one warning at the sheet's first such reading names the three lots
+        Assert.All(set.Logs.SelectMany(l => l.Readings), r => Assert.Equal(2025, r.Timestamp.Year));
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.DateWithoutYear);
+        Assert.Equal((2, "11 Sep"), (said.Row!.Value, said.Value));
+        Assert.Equal(
+            "The logs of 3 lots (C1, C2, C3) date 6 reading(s) by day and month with no year; they were placed in 2025, in the year that puts each nearest its lot's inoculation date (the first, '11 Sep' of C1, as 2025-09-11). If that is wrong, write each date with its year (e.g. 2025-09-11).",
+            said.Message);
+    }
+
+    [Fact]
     public void Without_an_inoculation_date_a_ferment_starts_in_its_season_and_runs_into_the_next_year()
     {
         // Given a late ferment of season 2025 (no inoculation date) logged from 28 Dec to 3 Jan without years

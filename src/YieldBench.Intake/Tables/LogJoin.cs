@@ -196,6 +196,7 @@ internal static partial class LogJoin
         var lots = run.Lots.Select(l => (l.LotId, l.Season, l.InoculationDate))
             .Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.InoculationDate))).ToList();
         var kept = new List<FermentationLog>(logs.Count);
+        var said = new List<(SourceRef First, string Log, int Count, List<int> Years, string Rule, string Basis, DateTime FirstPlaced, string FirstShown)>();
         foreach (var log in logs)
         {
             var undated = log.Readings.Where(r => LogRows.WithoutYear(r.Timestamp)).ToList();
@@ -210,11 +211,11 @@ internal static partial class LogJoin
             var dated = log.Readings.Select(r => r.Timestamp).Where(t => !LogRows.WithoutYear(t) && !LogRows.CountedInDays(t)).Order().ToList();
             int[] seasons = log.Season is { } ls ? [ls] : matches.Select(l => l.Season).Distinct().Order().ToArray();
             var placed = new Dictionary<LogReading, DateTime>(ReferenceEqualityComparer.Instance);
-            string basis, refusal = "";
+            string basis, rule = "", refusal = "";
             if (inoculations.Count == 1)
             {
                 var inoc = inoculations[0];
-                basis = IntakeMessages.NearInoculation(inoc);
+                (basis, rule) = (IntakeMessages.NearInoculation(inoc), IntakeMessages.NearEachInoculation);
                 foreach (var r in undated)
                 {
                     if (Nearest(r.Timestamp, inoc) is { } t && t >= inoc.Date.AddDays(-MaxDaysBeforeInoculation))
@@ -228,7 +229,7 @@ internal static partial class LogJoin
             else if (dated.Count > 0)
             {
                 var middle = dated[dated.Count / 2];
-                basis = IntakeMessages.NearDatedReadings(middle);
+                (basis, rule) = (IntakeMessages.NearDatedReadings(middle), IntakeMessages.NearEachLogsDatedReadings);
                 foreach (var r in undated)
                 {
                     if (Nearest(r.Timestamp, middle) is { } t)
@@ -239,7 +240,7 @@ internal static partial class LogJoin
             }
             else if (seasons.Length == 1)
             {
-                basis = IntakeMessages.InSeason(seasons[0]);
+                (basis, rule) = (IntakeMessages.InSeason(seasons[0]), IntakeMessages.InEachSeason);
                 refusal = IntakeMessages.SpanTooLongWithoutYear(MaxSpanWithoutYear);
                 foreach (var (r, t) in InSeason(undated, seasons[0]))
                 {
@@ -277,16 +278,24 @@ internal static partial class LogJoin
             if (placed.Count > 0)
             {
                 var first = undated.First(placed.ContainsKey);
-                var src = first.Source!;
-                var years = placed.Values.Select(t => t.Year).Distinct().Order().ToList();
-                run.Sink.Warning(src.File, src.Sheet, src.Row, null, DayMonthShown(first.Timestamp), IssueCodes.DateWithoutYear,
-                    IntakeMessages.DatesWithoutYearPlaced(log.Name, placed.Count, years, basis, placed[first]));
+                said.Add((first.Source!, log.Name, placed.Count, placed.Values.Select(t => t.Year).Distinct().Order().ToList(), rule, basis, placed[first], DayMonthShown(first.Timestamp)));
             }
 
             if (readings.Count > 0)
             {
                 kept.Add(log with { Readings = readings });
             }
+        }
+
+        // Said once per sheet and rule (a board of a hundred tanks gives one warning, not a hundred), at its first reading.
+        foreach (var group in said.GroupBy(x => (x.First.File, x.First.Sheet, x.Rule)))
+        {
+            var first = group.First();
+            var years = group.SelectMany(x => x.Years).Distinct().Order().ToList();
+            string message = group.Count() == 1
+                ? IntakeMessages.DatesWithoutYearPlaced(first.Log, first.Count, years, first.Basis, first.FirstPlaced)
+                : IntakeMessages.DatesWithoutYearPlacedForLots(group.Select(x => x.Log).ToList(), group.Sum(x => x.Count), years, first.Rule, first.Log, first.FirstPlaced);
+            run.Sink.Warning(first.First.File, first.First.Sheet, first.First.Row, null, first.FirstShown, IssueCodes.DateWithoutYear, message);
         }
 
         return kept;
