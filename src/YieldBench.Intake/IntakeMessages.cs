@@ -165,6 +165,8 @@ public static class IntakeMessages
     internal static string NothingToPlaceYear(string lot) =>
         $"no lot '{lot}' with a season or inoculation date was read, nor a reading of its log dated with a year, to take the year from";
 
+    internal const string NoLeapDayNearest = "the year it would be placed in has no 29 February";
+
     internal static string NoLeapDay(int year) => $": it has a day and month but no year, and {year.ToString(Inv)}, its season, has no 29 February";
 
     internal static string InoculationInSeason(string header, int count, string first, DateTime read) =>

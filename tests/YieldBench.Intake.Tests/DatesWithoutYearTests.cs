@@ -144,6 +144,24 @@ public class DatesWithoutYearTests
     }
 
     [Fact]
+    public void The_29th_of_february_without_a_year_is_refused_when_its_year_has_none()
+    {
+        // Given a southern-hemisphere lot of season 2026 (no inoculation date) logged from 27 Feb to 3 Mar without years
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Brix\nS1,QX-7,23.0\n");
+        var log = folder.Text("S1.csv", "Date,Brix\n27-Feb,22.5\n29-Feb,19.0\n3-Mar,12.0\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then 27 Feb and 3 Mar are 2026 and 29 Feb, which 2026 lacks, is refused at its row for that reason
+        Assert.Equal([new DateTime(2026, 2, 27), new DateTime(2026, 3, 3)], Assert.Single(set.Logs).Readings.Select(r => r.Timestamp));
+        var refused = Assert.Single(set.Issues, i => i.Code == IssueCodes.DateWithoutYear && i.Severity == IssueSeverity.Error);
+        Assert.Equal((3, "29 Feb"), (refused.Row!.Value, refused.Value));
+        Assert.Contains("the year it would be placed in has no 29 February", refused.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_day_and_month_that_reads_both_ways_is_ambiguous_unless_the_column_settles_it()
     {
         // Given two logs: one whose only slash date is "12/9" (12 Sep or 9 Dec), one where "13/9" settles day first

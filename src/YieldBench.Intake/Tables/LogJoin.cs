@@ -217,6 +217,7 @@ internal static partial class LogJoin
             var dated = log.Readings.Select(r => r.Timestamp).Where(t => !LogRows.WithoutYear(t) && !LogRows.CountedInDays(t)).Order().ToList();
             int[] seasons = log.Season is { } ls ? [ls] : matches.Select(l => l.Season).Distinct().Order().ToArray();
             var placed = new Dictionary<LogReading, DateTime>(ReferenceEqualityComparer.Instance);
+            var noLeapDay = new HashSet<LogReading>(ReferenceEqualityComparer.Instance);
             string basis, rule = "", refusal = "";
             if (inoculations.Count == 1)
             {
@@ -224,7 +225,11 @@ internal static partial class LogJoin
                 (basis, rule) = (IntakeMessages.NearInoculation(inoc), IntakeMessages.NearEachInoculation);
                 foreach (var r in undated)
                 {
-                    if (Nearest(r.Timestamp, inoc) is { } t && t >= inoc.Date.AddDays(-MaxDaysBeforeInoculation))
+                    if (Nearest(r.Timestamp, inoc) is not { } t)
+                    {
+                        noLeapDay.Add(r);
+                    }
+                    else if (t >= inoc.Date.AddDays(-MaxDaysBeforeInoculation))
                     {
                         placed[r] = t;
                     }
@@ -242,6 +247,10 @@ internal static partial class LogJoin
                     {
                         placed[r] = t;
                     }
+                    else
+                    {
+                        noLeapDay.Add(r);
+                    }
                 }
             }
             else if (seasons.Length == 1)
@@ -250,7 +259,14 @@ internal static partial class LogJoin
                 refusal = IntakeMessages.SpanTooLongWithoutYear(MaxSpanWithoutYear);
                 foreach (var (r, t) in InSeason(undated, seasons[0]))
                 {
-                    placed[r] = t;
+                    if (t is { } when)
+                    {
+                        placed[r] = when;
+                    }
+                    else
+                    {
+                        noLeapDay.Add(r);
+                    }
                 }
             }
             else
@@ -276,7 +292,8 @@ internal static partial class LogJoin
                 {
                     var src = r.Source!;
                     string shown = DayMonthShown(r.Timestamp);
-                    run.Sink.Error(src.File, src.Sheet, src.Row, null, shown, IssueCodes.DateWithoutYear, IntakeMessages.DateWithoutYearRefused(log.Name, shown, refusal));
+                    string why = noLeapDay.Contains(r) ? IntakeMessages.NoLeapDayNearest : refusal;
+                    run.Sink.Error(src.File, src.Sheet, src.Row, null, shown, IssueCodes.DateWithoutYear, IntakeMessages.DateWithoutYearRefused(log.Name, shown, why));
                     MoveToReported(run, src);
                 }
             }
@@ -334,10 +351,11 @@ internal static partial class LogJoin
     /// <summary>
     /// Readings dated without a year, placed from the season alone: the dates are laid on the calendar's circle, the
     /// longest gap between them is taken for the time with no ferment, and the ferment starts after it in the season's
-    /// year (running into the next when it crosses the new year). None is placed when they span more than
+    /// year (running into the next when it crosses the new year); 29 February in a year without one comes with no
+    /// date. None is placed when they span more than
     /// <see cref="MaxSpanWithoutYear"/> days.
     /// </summary>
-    private static IEnumerable<(LogReading Reading, DateTime When)> InSeason(List<LogReading> undated, int season)
+    private static IEnumerable<(LogReading Reading, DateTime? When)> InSeason(List<LogReading> undated, int season)
     {
         var sorted = undated.OrderBy(r => r.Timestamp).ToList();
         double Day(LogReading r) => (r.Timestamp - new DateTime(LogRows.YearUnknown, 1, 1)).TotalDays;
@@ -362,10 +380,8 @@ internal static partial class LogJoin
         {
             // Readings after the gap start the ferment in the season's year; those up to it follow in the next year.
             int year = i > gapAfter || gapAfter == sorted.Count - 1 ? season : season + 1;
-            if (InYear(sorted[i].Timestamp, year) is { } t)
-            {
-                yield return (sorted[i], t);
-            }
+            // Null for 29 February in a year without one.
+            yield return (sorted[i], InYear(sorted[i].Timestamp, year));
         }
     }
 
