@@ -34,6 +34,32 @@ public class CellarFileTests
     }
 
     [Fact]
+    public void Headers_merged_down_over_a_units_row_leave_it_a_units_row()
+    {
+        // Given Lot and Yeast merged down over the units row (°Bx, % v/v, g/L under the other headers)
+        using var folder = new TestFolder();
+        string path = folder.PathOf("lots 2025.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.Worksheets.Add("Lots");
+            Workbooks.Fill(ws, ["Lot", "Yeast", "Start sugar", "Alcohol", "RS"], [null, null, "°Bx", "% v/v", "g/L"],
+                ["U1", "QX-7", 24.1, 14.2, 1.1], ["U2", "QX-9", 23.5, 13.8, 0.9]);
+            ws.Range("A1:A2").Merge();
+            ws.Range("B1:B2").Merge();
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("lots 2025.xlsx");
+
+        // Then row 2 is the units row (not a lot of three errors), both lots are used, and the merged header blocks,
+        // which give no data row their value, raise no merged-cells warning
+        Assert.Equal(["U1", "U2"], set.Lots.Select(l => l.LotId));
+        Assert.Equal([IssueCodes.UnitsRowRead], set.Issues.Select(i => i.Code));
+        Assert.Equal((2, 2, 0), (set.Accounts[0].RowsRead, set.Accounts[0].LotsUsed, set.Accounts[0].RowsReported));
+    }
+
+    [Fact]
     public void Group_labels_over_two_header_rows_tell_the_musts_sugar_from_the_wines()
     {
         // Given a lab book with "Must" merged over Brix and pH and "Wine" merged over Alc, RS and Brix

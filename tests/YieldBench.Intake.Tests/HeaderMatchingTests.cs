@@ -1,3 +1,5 @@
+using YieldBench.Core.Lots;
+
 namespace YieldBench.Intake.Tests;
 
 public class HeaderMatchingTests
@@ -134,5 +136,25 @@ public class HeaderMatchingTests
         // and with that mapping the lot is read: 1094 as SG 1.094 (thousandths, from the values)
         var mapped = folder.Read(new IntakeOptions { RunningLots = true, ColumnMappings = ["starting_sugar=Densité"] }, lots);
         Assert.Equal(1.094, Assert.Single(mapped.RunningLots).StartingSugar.SpecificGravity, 1e-9);
+    }
+
+    [Fact]
+    public void A_german_fermentation_log_with_datum_uhrzeit_and_temperatur_is_read()
+    {
+        // Given a German cellar's log (Tank, Datum, Uhrzeit, °Oe, Temperatur; semicolons and decimal commas) and its lots
+        using var folder = new TestFolder();
+        var lots = folder.Text("lose-2026.csv", "Los;Jahrgang;Hefe;Mostgewicht (°Oe)\nF3;2026;QX-7;93\n");
+        var log = folder.Text("gaerprotokoll-2026.csv", "Tank;Datum;Uhrzeit;°Oe;Temperatur\nF3;14.09.2026;08:00;92;16,5\nF3;15.09.2026;17:30;88;18,0\n");
+
+        // When read as lots still fermenting
+        var set = folder.Read(new IntakeOptions { RunningLots = true }, lots, log);
+
+        // Then the log is the lot's, at its dates and times; 92 °Oe is SG 1.092, 22.014119 °Brix by the NBS-fitted cubic
+        // of docs/methods.md (python3: f=lambda S: ((182.4601*S-775.6821)*S+1262.7794)*S-669.5622; f(1.092))
+        var readings = Assert.Single(set.Logs).Readings;
+        Assert.Equal([new DateTime(2026, 9, 14, 8, 0, 0), new DateTime(2026, 9, 15, 17, 30, 0)], readings.Select(r => r.Timestamp));
+        Assert.Equal(22.014119, readings[0].Sugar!.Value.Brix, 1e-6);
+        Assert.Equal([16.5, 18.0], readings.Select(r => r.TemperatureC!.Value));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
     }
 }

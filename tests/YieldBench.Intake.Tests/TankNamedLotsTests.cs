@@ -94,5 +94,9 @@ public class TankNamedLotsTests
         var none = Assert.Single(set.Issues, i => i.Code == IssueCodes.DaysWithoutInoculation);
         Assert.Equal(("A2.csv", "A2"), (none.File, none.Value));
         Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.NotADate);
+
+        // and A2's two rows are counted as left out, not as readings used (they were counted used before)
+        var a2 = Assert.Single(set.Accounts, a => a.File == "A2.csv");
+        Assert.Equal((2, 0, 2), (a2.RowsRead, a2.LogReadingsUsed, a2.RowsReported));
     }
 }

@@ -181,12 +181,12 @@ internal static class Fields
         new("timestamp", TableKind.Log, FieldKind.DateTime, false, "", null, null, "Timestamp", "Date and time of the reading (or use separate date and time columns).", "2024-03-04 08:30",
             ["timestamp", "time stamp", "date time", "datetime", "date and time", "reading time", "measured at", "logged at", "sampled at", "when"]),
         new("date", TableKind.Log, FieldKind.Date, false, "", null, null, "Date", "Date of the reading (with a time column, or alone).", "2024-03-04",
-            ["date", "day", "sample date", "reading date", "log date", "measurement date", "fecha", "data"]),
+            ["date", "day", "sample date", "reading date", "log date", "measurement date", "fecha", "data", "datum", "jour", "dia", "giorno"]),
         new("time", TableKind.Log, FieldKind.Time, false, "", null, null, "Time", "Time of day of the reading.", "08:30",
-            ["time", "hour", "sample time", "time of day", "clock", "hora", "ora", "heure"]),
+            ["time", "hour", "sample time", "time of day", "clock", "hora", "ora", "heure", "uhrzeit", "zeit"]),
         new("sugar", TableKind.Log, FieldKind.Sugar, false, "°Brix", -6, 45, "Sugar (°Brix)", "Sugar reading: °Brix, SG, °Baumé, °Oechsle, °KMW or g/L (say which in the header).", "18.4",
             ["brix", "bx", "sg", "specific gravity", "baume", "be", "oechsle", "oe", "kmw", "babo", "sugar", "sugars", "density", "gravity", "must weight", "reading", "sugar reading", "brix reading", "sg reading", "hydrometer", "current brix", "degrees brix", "deg brix", "densite", "densidad", "densita", "grado baume"]),
         new("temp_c", TableKind.Log, FieldKind.Temperature, false, "°C", -5, 45, "Temperature (°C)", "Must or cap temperature at the reading.", "26.5",
-            ["temp", "temperature", "must temp", "juice temp", "cap temp", "tank temp", "wine temp", "ferment temp", "fermentation temp", "must temperature", "t", "temperatura"]),
+            ["temp", "temperature", "must temp", "juice temp", "cap temp", "tank temp", "wine temp", "ferment temp", "fermentation temp", "must temperature", "t", "temperatura", "temperatur"]),
     ];
 }

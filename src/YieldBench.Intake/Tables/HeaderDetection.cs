@@ -215,13 +215,16 @@ internal static class HeaderDetection
     }
 
     /// <summary>True when every non-blank cell of the row is text naming only a unit (and at least two are).</summary>
-    public static bool IsUnitsRow(object?[] row)
+    public static bool IsUnitsRow(RawSheet sheet, int r)
     {
         int units = 0;
-        foreach (var cell in row)
+        var row = sheet.Rows[r];
+        for (int c = 0; c < row.Length; c++)
         {
-            if (CellValues.IsBlank(cell))
+            var cell = row[c];
+            if (CellValues.IsBlank(cell) || MergedFromAbove(sheet, r, c))
             {
+                // A header merged down over the units row ("Lot" over its empty units cell) is no value of the row.
                 continue;
             }
 
@@ -236,13 +239,17 @@ internal static class HeaderDetection
         return units >= 2;
     }
 
+    /// <summary>True when cell (<paramref name="r"/>, <paramref name="c"/>) holds the value of a merged block that starts in a row above.</summary>
+    private static bool MergedFromAbove(RawSheet sheet, int r, int c) =>
+        sheet.MergedFilled.Any(m => m.Span.FromRow < r && m.ToRow >= r && c >= m.Span.FromColumn && c <= m.Span.ToColumn);
+
     /// <summary>
     /// When the row right under the header holds only units ("°Bx", "%", "g/L"), takes each as its column's unit where
     /// the header states none, reports the row once, and returns true (the row is then not a row read).
     /// </summary>
     public static bool ReadUnitsRow(IntakeRun run, string file, RawSheet sheet, int row, List<BoundColumn> columns)
     {
-        if (!IsUnitsRow(sheet.Rows[row]))
+        if (!IsUnitsRow(sheet, row))
         {
             return false;
         }
@@ -251,7 +258,7 @@ internal static class HeaderDetection
         for (int i = 0; i < columns.Count; i++)
         {
             var c = columns[i];
-            string unitText = c.Index < unitsRow.Length ? CellValues.Text(unitsRow[c.Index]) : "";
+            string unitText = c.Index < unitsRow.Length && !MergedFromAbove(sheet, row, c.Index) ? CellValues.Text(unitsRow[c.Index]) : "";
             if (c.UnitStated || unitText.Length == 0)
             {
                 continue;

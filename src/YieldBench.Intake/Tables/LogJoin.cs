@@ -158,6 +158,12 @@ internal static partial class LogJoin
             {
                 var first = log.Readings[0].Source!;
                 run.Sink.Error(first.File, first.Sheet, first.Row, null, log.LotId, IssueCodes.DaysWithoutInoculation, IntakeMessages.DaysWithoutInoculation(log.LotId));
+                foreach (var reading in log.Readings)
+                {
+                    // Left out: counted with the rows reported, not the readings used.
+                    MoveToReported(run, reading.Source!);
+                }
+
                 continue;
             }
 
