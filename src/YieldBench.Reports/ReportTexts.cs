@@ -1,3 +1,5 @@
+using YieldBench.Core.HouseFactor;
+
 namespace YieldBench.Reports;
 
 /// <summary>User-facing texts of the report, kept in one place so tests can assert them.</summary>
@@ -10,4 +12,10 @@ public static class ReportTexts
     /// <summary>Said when the review runs on the bundled demo data.</summary>
     public const string DemoDataNotice =
         "No inputs given: reviewing the bundled demo data (an invented winery, invented strain codes; not real data).";
+
+    /// <summary>
+    /// What the house factor's backtest held out, for headings: "seasons" when each season was held out in turn, "lots"
+    /// when it held out lots (a history of one season, or lots dealt into folds).
+    /// </summary>
+    public static string HeldOut(BacktestScheme scheme) => scheme == BacktestScheme.LeaveOneSeasonOut ? "seasons" : "lots";
 }

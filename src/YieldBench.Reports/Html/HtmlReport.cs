@@ -104,7 +104,7 @@ public static class HtmlReport
         }
 
         string at = Number(f.ReferenceBrix, "0.0");
-        page.Append($"<p class=\"lead\">Conversion factor to use next harvest, per strain and for all strains. At a typical starting sugar of {at} °Brix each factor predicts the alcohol shown; on held-out seasons, 80 % and 95 % of wines came out within the ranges beside it.</p>\n");
+        page.Append($"<p class=\"lead\">Conversion factor to use next harvest, per strain and for all strains. At a typical starting sugar of {at} °Brix each factor predicts the alcohol shown; on held-out {ReportTexts.HeldOut(review.HouseFactor.PrimaryScheme)}, 80 % and 95 % of wines came out within the ranges beside it.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"numbers decisions\">\n");
         page.Append($"<caption>Conversion factor to use, with what it predicts at {at} °Brix</caption>\n");
         page.Append("<thead><tr><th scope=\"col\">Strain</th>");

@@ -111,7 +111,7 @@ internal static class WorkbookSheets
         {
             var p = f.Pooled;
             string strains = string.Join(", ", f.Strains.Select(s => string.Create(inv, $"{s.Strain} {s.Factor:0.000}")));
-            lines.Add(string.Create(inv, $"Factor to use next harvest: {p.Factor:0.000} % v/v per °Brix for all lots ({p.Estimate.Predicted:0.00} % v/v from {f.ReferenceBrix:0.0} °Brix; 80 % of lots {p.Estimate.Low80:0.00}–{p.Estimate.High80:0.00}; error on held-out seasons {p.HeldOutMae:0.00} % v/v). By strain: {strains}."));
+            lines.Add(string.Create(inv, $"Factor to use next harvest: {p.Factor:0.000} % v/v per °Brix for all lots ({p.Estimate.Predicted:0.00} % v/v from {f.ReferenceBrix:0.0} °Brix; 80 % of lots {p.Estimate.Low80:0.00}–{p.Estimate.High80:0.00}; error on held-out {ReportTexts.HeldOut(review.HouseFactor.PrimaryScheme)} {p.HeldOutMae:0.00} % v/v). By strain: {strains}."));
         }
         else
         {

@@ -285,6 +285,27 @@ public sealed partial class HtmlReportTests
         Assert.EndsWith("</html>\n", page, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_review_of_one_season_says_it_held_out_lots_not_seasons()
+    {
+        // Given the sample's lots of one season only (18 lots, three strains): the backtest can only hold out lots
+        var lots = Review.Value.Inputs.Lots.Where(l => l.Season == 2025).ToArray();
+        var review = ReviewRunner.Run(new SeasonSet { Lots = lots }, new ReviewSettings(), "9.9.9-test");
+        Assert.NotEqual(YieldBench.Core.HouseFactor.BacktestScheme.LeaveOneSeasonOut, review.HouseFactor.PrimaryScheme);
+        Assert.NotNull(review.Overview.Factors);
+
+        // When the page and the factor table are made
+        string page = HtmlReport.Render(review);
+        var headings = YieldBench.Reports.Tables.ReviewTables.Factors(review).Columns.Select(c => c.Heading).ToArray();
+
+        // Then both speak of held-out lots, as the console does; the two-season sample still speaks of seasons
+        Assert.Contains("on held-out lots, 80 % and 95 % of wines", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("held-out seasons", page, StringComparison.Ordinal);
+        Assert.Contains("Error on held-out lots (% v/v)", headings);
+        Assert.Contains("on held-out seasons, 80 % and 95 % of wines", Page, StringComparison.Ordinal);
+        Assert.Contains("Error on held-out seasons (% v/v)", YieldBench.Reports.Tables.ReviewTables.Factors(Review.Value).Columns.Select(c => c.Heading));
+    }
+
     private static string Sha(string text) => Convert.ToBase64String(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
 
     [GeneratedRegex("<h([1-6])(?: id=\"([^\"]*)\")?")]
