@@ -37,6 +37,15 @@ public sealed record LotForecast
     /// <summary>Hours to the dry reading; the median or high end is +∞ when the lot may never get there.</summary>
     public required ForecastValue? DryHours { get; init; }
 
+    /// <summary>
+    /// True when the readings already reached the dry reading: <see cref="DryHours"/> is then when they crossed it, the
+    /// chance of a stuck end is 0, and what is left to say is to confirm it with a lab analysis.
+    /// </summary>
+    public bool DryReached { get; init; }
+
+    /// <summary>The dry reading, °Brix (the kinetics setting the forecast used).</summary>
+    public double DryBrix { get; init; }
+
     /// <summary>Chance the lot never reaches the dry reading.</summary>
     public required double NeverDryChance { get; init; }
 

@@ -59,7 +59,11 @@ public static class ForecastSentences
         }
 
         var parts = new List<string>();
-        if (f.DryHours is { } dry && double.IsFinite(dry.Median))
+        if (f.DryReached && f.DryHours is { } reached)
+        {
+            parts.Add($"dry: the readings passed {N(f.DryBrix)} °Brix {When(c.At(reached.Median))}");
+        }
+        else if (f.DryHours is { } dry && double.IsFinite(dry.Median))
         {
             // Within two days the hours matter; further out the day is what can be planned.
             bool close = dry.High - dry.Low < 48 && double.IsFinite(dry.High);
@@ -73,7 +77,11 @@ public static class ForecastSentences
             parts.Add($"dry not expected: the sugar looks set to settle near {N(f.SettlesAtBrix)} °Brix");
         }
 
-        if (f.PeakC is { } peak)
+        if (f.DryReached && f.PeakC is { } warmest)
+        {
+            parts.Add($"its warmest reading {unit.Show(warmest.Median)}");
+        }
+        else if (f.PeakC is { } peak)
         {
             string warn = peak.Median > f.DangerC ? $", above the {unit.Show(f.DangerC, "0")} danger threshold — cool it now"
                 : peak.High > f.DangerC ? $"; the top of the range passes the {unit.Show(f.DangerC, "0")} danger threshold"
@@ -83,12 +91,12 @@ public static class ForecastSentences
 
         lines.Add("  " + Capital(string.Join("; ", parts)) + ".");
         var heat = new List<string>();
-        if (f.ReachableC is { } reach)
+        if (f.ReachableC is { } reach && !f.DryReached)
         {
             heat.Add($"with no cooling from now it could reach {unit.Show(reach)}");
         }
 
-        if (f.CoolingKw is { } kw)
+        if (f.CoolingKw is { } kw && !f.DryReached)
         {
             heat.Add($"at the forecast peak rate ({N(f.PeakRateBrixPerDay)} °Brix/day) it makes {N(kw, kw < 1 ? "0.00" : kw < 10 ? "0.0" : "0")} kW of heat, what cooling must remove to hold it steady");
         }
@@ -100,11 +108,13 @@ public static class ForecastSentences
 
         string risk = f.StuckRisk >= 0.5 ? " — act now: check nitrogen and temperature, and plan a restart"
             : f.StuckRisk >= 0.2 ? " — watch it closely" : string.Empty;
-        string next = $"next reading: {When(c.At(f.NextReadingHours))} would narrow the {f.NextReadingFor} forecast most";
+        string next = f.DryReached
+            ? "next: confirm it with a lab residual-sugar analysis before treating it as finished (a hydrometer reads alcohol as well as sugar)"
+            : $"next reading: {When(c.At(f.NextReadingHours))} would narrow the {f.NextReadingFor} forecast most";
         string basis = f.OwnStrainPrior
             ? $"basis: {f.StrainLots} past lot(s) of {c.Strain}, {f.ReadingsUsed} reading(s) so far"
             : $"basis: no own history for {c.Strain} (pooled prior of the other strains), {f.ReadingsUsed} reading(s) so far";
-        lines.Add($"  Chance of a sluggish or stuck end: {Percent(f.StuckRisk)}{risk}; {next}; {basis}.");
+        lines.Add(f.DryReached ? $"  {Capital(next)}; {basis}." : $"  Chance of a sluggish or stuck end: {Percent(f.StuckRisk)}{risk}; {next}; {basis}.");
         return lines;
     }
 

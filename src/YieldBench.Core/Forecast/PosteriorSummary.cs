@@ -86,7 +86,11 @@ internal static class PosteriorSummary
         drys.Compact(1e-3);
         peaks.Compact(1e-3);
         var third = passed ? new ForecastValue(oneThirdPassedAt, oneThirdPassedAt, oneThirdPassedAt) : Interval(thirds, lo, hi);
-        var dryValue = Interval(drys, lo, hi);
+        // A lot whose readings already reached the dry reading is dry: the time is when the readings crossed it (as for
+        // one-third), not a forecast that may fall before the readings that showed it.
+        double dryReachedAt = c.SugarBrix.Length > 0 && c.SugarBrix.Min() <= dry ? LoggedEvents.FirstCrossing(c.SugarHours, c.SugarBrix, dry)!.Value : double.NaN;
+        bool dryReached = !double.IsNaN(dryReachedAt);
+        var dryValue = dryReached ? new ForecastValue(dryReachedAt, dryReachedAt, dryReachedAt) : Interval(drys, lo, hi);
         var peakValue = peaks.Count > 0 ? Interval(peaks, lo, hi) : (ForecastValue?)null;
 
         // Posterior means of the peak rate, S0 and F (for the heat figures).
@@ -96,7 +100,7 @@ internal static class PosteriorSummary
         var med = m.MediansFor(c.Strain);
         double slowest = med.SlowestDryHours - (c.FromInoculation ? 0 : m.FirstReadingDelay.Median);
         double late = double.IsNaN(slowest) ? 0 : drys.ShareAbove(slowest, finiteOnly: true);
-        double stuckRisk = Math.Clamp(neverDry + late, 0, 1);
+        double stuckRisk = dryReached ? 0 : Math.Clamp(neverDry + late, 0, 1);
 
         // Heat: what is left to ferment could still raise the must this much with no heat removed.
         double? reachable = null;
@@ -131,7 +135,9 @@ internal static class PosteriorSummary
             OneThirdHours = third,
             OneThirdPassed = passed,
             DryHours = dryValue,
-            NeverDryChance = Math.Clamp(neverDry, 0, 1),
+            NeverDryChance = dryReached ? 0 : Math.Clamp(neverDry, 0, 1),
+            DryReached = dryReached,
+            DryBrix = dry,
             PeakC = peakValue,
             ReachableC = reachable,
             CoolingKw = kw,

@@ -46,6 +46,7 @@ public static class ForecastWorkbook
             new("dry_at", "Dry expected", CellKind.DateTime, f => At(f, f.DryHours?.Median)),
             new("dry_low80", "Dry, 80 % from", CellKind.DateTime, f => At(f, f.DryHours?.Low)),
             new("dry_high80", "Dry, 80 % to", CellKind.DateTime, f => At(f, f.DryHours?.High)),
+            new("dry_reached", "Dry already reached", CellKind.Boolean, f => f.DryReached),
             new($"peak_temp_{x}", $"Peak temperature ({u})", CellKind.Number, f => Temp(f.PeakC?.Median), "0.0"),
             new($"peak_temp_low80_{x}", $"Peak, 80 % from ({u})", CellKind.Number, f => Temp(f.PeakC?.Low), "0.0"),
             new($"peak_temp_high80_{x}", $"Peak, 80 % to ({u})", CellKind.Number, f => Temp(f.PeakC?.High), "0.0"),

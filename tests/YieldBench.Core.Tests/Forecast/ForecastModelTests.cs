@@ -269,6 +269,44 @@ public class ForecastModelTests
     }
 
     [Fact]
+    public void A_lot_whose_readings_already_went_dry_is_dry_since_they_crossed_the_dry_reading_not_forecast()
+    {
+        // Given a lot logged until a day after it went dry (the synthetic log stops one day past dryness)
+        var (model, cellar) = Trained(17);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var lot = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc);
+        var log = cellar.Log("30-001", 2030, truth, inoc, 900);
+        Assert.True(log.Readings[^1].Sugar!.Value.Brix <= 0, "the log ends dry");
+
+        // When forecast
+        var f = ForecastRunner.Run(Array.Empty<Lot>(), [], [lot], [log], Settings, model).Lots[0];
+
+        // Then the dry time is where the readings first crossed 0 °Brix (linear between the two readings around it),
+        // with no spread, no stuck risk and no heat still to come in the sentences; the next step is the lab analysis
+        var hours = log.Readings.Select(r => (r.Timestamp - inoc).TotalHours).ToArray();
+        var brix = log.Readings.Select(r => r.Sugar!.Value.Brix).ToArray();
+        int k = Array.FindIndex(brix, b => b <= 0);
+        double crossing = hours[k - 1] + ((hours[k] - hours[k - 1]) * brix[k - 1] / (brix[k - 1] - brix[k]));
+        Assert.True(f.DryReached);
+        Assert.Equal(crossing, f.DryHours!.Value.Median, 6);
+        Assert.Equal(f.DryHours.Value.Median, f.DryHours.Value.Low);
+        Assert.Equal(f.DryHours.Value.Median, f.DryHours.Value.High);
+        Assert.Equal(0, f.StuckRisk);
+        string text = string.Join("\n", ForecastSentences.Lot(f));
+        Assert.Contains($"Dry: the readings passed 0.0 °Brix {ForecastSentences.When(inoc.AddHours(crossing))}", text, StringComparison.Ordinal);
+        Assert.Contains("confirm it with a lab residual-sugar analysis", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("could reach", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("stuck end", text, StringComparison.Ordinal);
+
+        // And a lot cut before it went dry is still forecast, with a spread
+        var early = new FermentationLog("30-001", 2030, log.Readings.Take(k).ToArray());
+        var g = ForecastRunner.Run(Array.Empty<Lot>(), [], [lot], [early], Settings, model).Lots[0];
+        Assert.False(g.DryReached);
+        Assert.True(g.DryHours!.Value.High > g.DryHours.Value.Low);
+    }
+
+    [Fact]
     public void The_charts_temperature_band_carries_the_peaks_own_uncertainty()
     {
         // Given a lot with its first readings (20 h), its peak still far ahead
