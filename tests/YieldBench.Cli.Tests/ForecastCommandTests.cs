@@ -280,6 +280,28 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void The_running_files_issues_follow_the_historys_count_under_a_heading_of_their_own()
+    {
+        // Given a running log whose temperature header gives no unit (a warning), forecast from the demo history (which
+        // has intake warnings of its own, counted on one line)
+        using var folder = new Scratch();
+        folder.Write("r/lots-2026.csv", "Lot,Yeast,Start Brix,Inoculated\n26-301,YB-R12,24.6,2026-09-15 08:00\n");
+        folder.Write("r/log-2026.csv", "Lot,Timestamp,Brix,Temp\n26-301,2026-09-15 17:30,24.0,19.8\n26-301,2026-09-16 07:30,22.6,22.9\n");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When forecast
+        var (exit, output, _) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");
+
+        // Then the history's line comes first, then a heading for the running files, then their warning with its place
+        Assert.Equal(0, exit);
+        string flat = Cli.Flat(output);
+        int historyLine = flat.IndexOf("History: ", StringComparison.Ordinal);
+        int heading = flat.IndexOf("Running lots' files: 1 intake issue(s), each with its place and fix:", StringComparison.Ordinal);
+        int warning = flat.IndexOf("forecast: warning r/log-2026.csv, row 1, column \"Temp\"", StringComparison.Ordinal);
+        Assert.True(historyLine >= 0 && heading > historyLine && warning > heading, $"history at {historyLine}, heading at {heading}, warning at {warning}:\n{flat}");
+    }
+
+    [Fact]
     public void Bad_running_rows_are_reported_with_their_place_and_fix_and_the_rest_forecast()
     {
         // Given a running table with one good lot and one without starting sugar

@@ -192,15 +192,6 @@ internal static class ForecastCommand
     /// </summary>
     private static void ReportIssues(CliContext context, bool quiet, SeasonSet past, SeasonSet now, string workbook)
     {
-        foreach (var i in now.Issues)
-        {
-            bool error = i.Severity == IssueSeverity.Error;
-            if (error || !quiet)
-            {
-                TextWrap.WriteLine(error ? context.Error : context.Out, UsageChecks.Shown($"{Name}: {IntakeReport.Describe(i)}"));
-            }
-        }
-
         int errors = past.Issues.Count(i => i.Severity == IssueSeverity.Error);
         int warnings = past.Issues.Count - errors;
         if (errors > 0)
@@ -211,6 +202,20 @@ internal static class ForecastCommand
         if (warnings > 0 && !quiet)
         {
             TextWrap.WriteLine(context.Out, $"History: {warnings.ToString(CultureInfo.InvariantCulture)} intake warning(s), rows used; each with its fix in {UsageChecks.Shown(workbook)}, sheet \"Intake issues\".");
+        }
+
+        // The running files' issues after the history's counts, under a heading of their own, so none reads as the
+        // history's.
+        var shown = now.Issues.Where(i => i.Severity == IssueSeverity.Error || !quiet).ToArray();
+        if (shown.Length > 0 && !quiet)
+        {
+            TextWrap.WriteLine(context.Out, $"Running lots' files: {shown.Length.ToString(CultureInfo.InvariantCulture)} intake issue(s), each with its place and fix:");
+        }
+
+        foreach (var i in shown)
+        {
+            bool error = i.Severity == IssueSeverity.Error;
+            TextWrap.WriteLine(error ? context.Error : context.Out, UsageChecks.Shown($"{Name}: {IntakeReport.Describe(i)}"));
         }
     }
 
