@@ -157,4 +157,24 @@ public class HeaderMatchingTests
         Assert.Equal([16.5, 18.0], readings.Select(r => r.TemperatureC!.Value));
         Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
     }
+
+    [Theory]
+    [InlineData("Cap temp (°C),Must temp (°C)", "31.5,26.0", "34.0,28.5")]
+    [InlineData("Must temp (°C),Cap temp (°C)", "26.0,31.5", "28.5,34.0")]
+    public void Beside_a_cap_temperature_the_musts_is_read_whichever_comes_first(string headers, string first, string second)
+    {
+        // Given a log with a cap and a must temperature column, in either order
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", "Lot,Season,Strain,Brix,ABV\nC1,2025,QV-7,24.0,14.1\n");
+        folder.Text("log.csv", $"Lot,Timestamp,Brix,{headers}\nC1,2025-09-10 08:00,22.0,{first}\nC1,2025-09-11 08:00,17.5,{second}\n");
+
+        // When it is read
+        var set = folder.Read("lots.csv", "log.csv");
+
+        // Then the readings carry the must's temperatures (26.0 and 28.5 °C), and the cap column is named as not read
+        Assert.Equal([26.0, 28.5], set.Logs.Single().Readings.Select(r => r.TemperatureC!.Value));
+        var dup = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+        Assert.Equal("Cap temp (°C)", dup.Column);
+        Assert.StartsWith("This column is the cap's temperature; the must's, 'Must temp (°C)', was read instead", dup.Message, StringComparison.Ordinal);
+    }
 }

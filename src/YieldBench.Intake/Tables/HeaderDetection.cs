@@ -132,6 +132,15 @@ internal static class HeaderDetection
                     continue;
                 }
 
+                if (field.Name == "temp_c" && IsCapHeader(first.Header) && !IsCapHeader(text) && !mapped.Contains(first.Index))
+                {
+                    // Cap and must temperature side by side: the must's is read, whichever comes first (the heat
+                    // balance and the temperature figures are of the whole must; a cap runs warmer).
+                    columns[columns.IndexOf(first)] = bound;
+                    duplicates.Add((first.Index, first.Header, bound));
+                    continue;
+                }
+
                 duplicates.Add((c, text, first));
                 continue;
             }
@@ -282,4 +291,8 @@ internal static class HeaderDetection
         run.Sink.Warning(file, sheet.Name, row + 1, null, null, IssueCodes.UnitsRowRead, IntakeMessages.UnitsRowRead());
         return true;
     }
+
+    /// <summary>True for a cap temperature's header ("Cap temp", "Cap °C"): the word cap on its own.</summary>
+    internal static bool IsCapHeader(string header) =>
+        System.Text.RegularExpressions.Regex.IsMatch(header, @"(?<![A-Za-z])cap(?![A-Za-z])", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant);
 }

@@ -47,8 +47,11 @@ internal static class SheetReader
 
         foreach (var (_, header, first) in duplicates)
         {
-            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn, IntakeMessages.DuplicateColumn(first.Field.Name, first.Header,
-                potential: first.Unit != ColumnUnit.PotentialAlcohol && HeaderText.UnitFromHeader(header, first.Field.Kind) == ColumnUnit.PotentialAlcohol));
+            sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn,
+                first.Field.Name == "temp_c" && HeaderDetection.IsCapHeader(header) && !HeaderDetection.IsCapHeader(first.Header)
+                    ? IntakeMessages.CapTemperatureNotRead(first.Header)
+                    : IntakeMessages.DuplicateColumn(first.Field.Name, first.Header,
+                        potential: first.Unit != ColumnUnit.PotentialAlcohol && HeaderText.UnitFromHeader(header, first.Field.Kind) == ColumnUnit.PotentialAlcohol));
         }
 
         int firstData = headerRow + 1;
