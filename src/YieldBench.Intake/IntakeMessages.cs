@@ -193,8 +193,9 @@ public static class IntakeMessages
     internal static string FinalColumnNotRead(string field) =>
         $"The column is read as {field}, a value of the finished wine; lots still fermenting have none yet, so it was not read.";
 
-    internal static string CapTemperatureNotRead(string must) =>
-        $"This column is the cap's temperature; the must's, '{must}', was read instead, since the heat balance and the temperature figures are of the whole must (a cap runs warmer: check it by hand at each punch-down). Map the one you mean with --column temp_c=HEADER.";
+    internal static string CapTemperatureNotRead(string must, bool oneColumnPerLot = false) =>
+        $"This column is the cap's temperature; the must's, '{must}', was read instead, since the heat balance and the temperature figures are of the whole must (a cap runs warmer: check it by hand at each punch-down). "
+        + (oneColumnPerLot ? "To read the cap's instead, move the must's column to another sheet." : "Map the one you mean with --column temp_c=HEADER.");
 
     internal static string DuplicateColumn(string field, string first, bool potential = false) => potential
         ? $"This column of potential alcohol maps to {field}, as does the sugar reading '{first}', which was read instead (a potential alcohol is mostly worked out from the reading). Map the one you mean with --column {field}=HEADER."

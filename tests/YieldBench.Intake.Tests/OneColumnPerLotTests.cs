@@ -160,4 +160,23 @@ public class OneColumnPerLotTests
         Assert.Empty(set.Logs);
         Assert.Contains(set.Issues, i => i.Code == IssueCodes.NoTableFound);
     }
+
+    [Fact]
+    public void A_tanks_must_temperature_is_read_beside_its_cap_temperature()
+    {
+        // Given a board with one column per tank: its Brix, its cap and its must temperature
+        using var folder = new TestFolder();
+        folder.Text("lots.csv", "Lot,Season,Strain,Brix,ABV\nT4,2025,QV-7,24.0,14.1\n");
+        folder.Text("log.csv", "Date,Brix T4,Cap temp T4,Must temp T4\n2025-09-10 08:00,22.0,31.5,26.0\n2025-09-11 08:00,17.5,34.0,28.5\n");
+
+        // When it is read
+        var set = folder.Read("lots.csv", "log.csv");
+
+        // Then T4's readings carry the must's temperatures, and the cap column is named as not read, with why
+        Assert.Equal([26.0, 28.5], set.Logs.Single().Readings.Select(r => r.TemperatureC!.Value));
+        var dup = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+        Assert.Equal("Cap temp T4", dup.Column);
+        Assert.Contains("the must's, 'Must temp T4', was read instead", dup.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
+    }
 }

@@ -35,6 +35,13 @@ internal static class WideLogRows
         MergedCells.Warn(sheet, file, sink, headerRow + 1);
         foreach (var (_, header) in notUsed)
         {
+            // A lot's cap temperature beside its must temperature (read instead: the heat figures are of the must).
+            if (HeaderDetection.IsCapHeader(header) && lots.FirstOrDefault(l => l.LotId == Parse(header).LotId)?.Temperature is { } must && !HeaderDetection.IsCapHeader(must.Header))
+            {
+                sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn, IntakeMessages.CapTemperatureNotRead(must.Header, oneColumnPerLot: true));
+                continue;
+            }
+
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.ColumnNotUsed, IntakeMessages.ColumnNotUsed());
         }
 
@@ -179,7 +186,8 @@ internal static class WideLogRows
                 .Select(g => new LotColumns(
                     g.Key,
                     g.Where(x => !x.Parsed.Temperature).Select(x => Bind(x.Column, "sugar", x.Column.Header, FieldKind.Sugar)).FirstOrDefault(),
-                    g.Where(x => x.Parsed.Temperature).Select(x => Bind(x.Column, "temp_c", x.Column.Header, FieldKind.Temperature)).FirstOrDefault()))
+                    g.Where(x => x.Parsed.Temperature).OrderBy(x => HeaderDetection.IsCapHeader(x.Column.Header) ? 1 : 0)
+                        .Select(x => Bind(x.Column, "temp_c", x.Column.Header, FieldKind.Temperature)).FirstOrDefault()))
                 .ToList();
             notUsed.AddRange(numeric.Where(o => !found.Any(l => l.Sugar?.Index == o.Col || l.Temperature?.Index == o.Col)));
             lots = found;
