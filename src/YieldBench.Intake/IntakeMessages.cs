@@ -184,6 +184,9 @@ public static class IntakeMessages
     internal static string MissingTimeColumn() =>
         "The log sheet has no timestamp or date column; none of its rows could be used. Add a 'Timestamp' column (or 'Date' and 'Time'), or map one with --column timestamp=HEADER.";
 
+    internal static string SameColumnOnOtherSheets(IReadOnlyList<string> sheets) =>
+        $"The same column on {sheets.Count.ToString(Inv)} more sheet(s) of this file was not read either: {string.Join(", ", sheets.Take(8).Select(s => $"\"{s}\""))}{(sheets.Count > 8 ? $" and {(sheets.Count - 8).ToString(Inv)} more" : "")}.";
+
     internal static string ColumnNotUsed() =>
         "The column matches no field and was not read. If it holds one, map it with --column FIELD=HEADER (fields are listed in docs/input-format.md).";
 

@@ -63,11 +63,49 @@ public static class IntakeReader
             Lots = run.Lots,
             RunningLots = run.RunningLots,
             Logs = logs,
-            Issues = sink.Issues.ToArray(),
+            Issues = FoldUnusedColumns(sink.Issues),
             Accounts = run.Accounts,
             Files = files,
             Mappings = run.Mappings,
         };
+    }
+
+    /// <summary>
+    /// A column no field reads, repeated on many sheets of one file (a "Notes" column on every tank's sheet), is said
+    /// once, at its first sheet, naming the other sheets, instead of once per sheet.
+    /// </summary>
+    internal static IntakeIssue[] FoldUnusedColumns(IReadOnlyList<IntakeIssue> issues)
+    {
+        var repeats = issues.Where(i => i.Code == IssueCodes.ColumnNotUsed && i.Column is not null)
+            .GroupBy(i => (i.File, i.Column))
+            .Where(g => g.Select(i => i.Sheet).Distinct(StringComparer.Ordinal).Count() > 1)
+            .ToDictionary(g => g.First(), g => g.Skip(1).ToArray(), new ReferenceComparer());
+        if (repeats.Count == 0)
+        {
+            return [.. issues];
+        }
+
+        var dropped = repeats.Values.SelectMany(v => v).ToHashSet(new ReferenceComparer());
+        var result = new List<IntakeIssue>(issues.Count);
+        foreach (var issue in issues)
+        {
+            if (dropped.Contains(issue))
+            {
+                continue;
+            }
+
+            result.Add(repeats.TryGetValue(issue, out var others) ? issue with { Message = issue.Message + " " + IntakeMessages.SameColumnOnOtherSheets(others.Select(o => o.Sheet ?? "").ToArray()) } : issue);
+        }
+
+        return [.. result];
+    }
+
+    /// <summary>Issues by identity (two issues may be equal in every field and still be two).</summary>
+    private sealed class ReferenceComparer : IEqualityComparer<IntakeIssue>
+    {
+        public bool Equals(IntakeIssue? x, IntakeIssue? y) => ReferenceEquals(x, y);
+
+        public int GetHashCode(IntakeIssue obj) => System.Runtime.CompilerServices.RuntimeHelpers.GetHashCode(obj);
     }
 
     /// <summary>

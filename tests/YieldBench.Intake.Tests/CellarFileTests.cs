@@ -34,6 +34,35 @@ public class CellarFileTests
     }
 
     [Fact]
+    public void A_notes_column_on_every_tanks_sheet_is_said_once_naming_the_other_sheets()
+    {
+        // Given a lots sheet and one log sheet per tank, each log with a "Notes" column no field reads
+        using var folder = new TestFolder();
+        string path = folder.PathOf("board 2026.xlsx");
+        using (var wb = new XLWorkbook())
+        {
+            Workbooks.Fill(wb.Worksheets.Add("Lots"), ["Lot", "Strain", "Brix", "ABV"], ["T1", "QV-7", 24.0, 14.1], ["T2", "QV-7", 23.6, 13.9], ["T3", "QV-7", 23.1, 13.6]);
+            foreach (string tank in new[] { "T1", "T2", "T3" })
+            {
+                Workbooks.Fill(wb.Worksheets.Add(tank), ["Lot", "Timestamp", "Brix", "Temp (°C)", "Notes"],
+                    [tank, "2026-09-10 08:00", 23.0, 18.5, "pumped over"], [tank, "2026-09-11 08:00", 19.5, 22.0, null]);
+            }
+
+            wb.SaveAs(path);
+        }
+
+        // When it is read
+        var set = folder.Read("board 2026.xlsx");
+
+        // Then one column-not-used warning stands for the three sheets, at the first, naming the other two
+        var notes = set.Issues.Where(i => i.Code == IssueCodes.ColumnNotUsed).ToArray();
+        var only = Assert.Single(notes);
+        Assert.Equal(("T1", "Notes"), (only.Sheet, only.Column));
+        Assert.EndsWith("The same column on 2 more sheet(s) of this file was not read either: \"T2\", \"T3\".", only.Message, StringComparison.Ordinal);
+        Assert.Equal(3, set.Logs.Count);
+    }
+
+    [Fact]
     public void Headers_merged_down_over_a_units_row_leave_it_a_units_row()
     {
         // Given Lot and Yeast merged down over the units row (°Bx, % v/v, g/L under the other headers)
