@@ -189,7 +189,11 @@ public static class ForecastRunner
                 Note("no-readings", $"Lot {c.LotId} has no sugar reading yet: its forecast is the strain's usual course from the inoculation.");
             }
 
-            if (!c.FromInoculation)
+            if (c.InoculationSetAside is { } recorded)
+            {
+                Note("inoculation-far-from-log", Kinetics.InoculationClock.Message(c.LotId, recorded, c.Origin));
+            }
+            else if (!c.FromInoculation)
             {
                 Note("no-inoculation-time", $"Lot {c.LotId} has no inoculation time: times count from its first reading, and the lag is taken as the history's usual time from inoculation to the first reading ({model.FirstReadingDelay.Median.ToString("0", System.Globalization.CultureInfo.InvariantCulture)} h) shorter.");
             }

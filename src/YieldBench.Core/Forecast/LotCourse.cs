@@ -41,6 +41,12 @@ public sealed record LotCourse
     /// <summary>True when <see cref="Origin"/> is the recorded inoculation.</summary>
     public required bool FromInoculation { get; init; }
 
+    /// <summary>
+    /// The recorded inoculation when it was set aside because the log's first reading lies too far from it
+    /// (<see cref="Kinetics.InoculationClock"/>); times then count from the first reading. Null otherwise.
+    /// </summary>
+    public DateTime? InoculationSetAside { get; init; }
+
     /// <summary>Sugar readings: hours from the origin, ascending.</summary>
     public required double[] SugarHours { get; init; }
 

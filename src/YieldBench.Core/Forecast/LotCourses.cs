@@ -68,6 +68,12 @@ public static class LotCourses
     {
         var balance = AdditionBalance.Apply(start, additions);
         var firstTime = readings.Count == 0 ? (DateTime?)null : readings.Min(r => r.Timestamp);
+        DateTime? setAside = null;
+        if (inoculated is { } recorded && firstTime is { } first && !Kinetics.InoculationClock.Fits(recorded, first))
+        {
+            (setAside, inoculated) = (recorded, null);
+        }
+
         var origin = inoculated ?? firstTime ?? DateTime.MinValue;
         var (sh, sb, ss, th, tc, merged) = LotCourse.Prepare(readings, origin);
         double? volume = balance.VolumeAfterL ?? additions.MustVolumeL;
@@ -84,6 +90,7 @@ public static class LotCourses
             StartBrix = balance.Effective.Brix,
             Origin = origin,
             FromInoculation = inoculated is not null,
+            InoculationSetAside = setAside,
             SugarHours = sh,
             SugarBrix = sb,
             SugarSources = ss,

@@ -51,6 +51,9 @@ public static class KineticsCodes
     /// <summary>Finding: the sugar had already fallen before the recorded inoculation.</summary>
     public const string DropBeforeInoculation = "drop-before-inoculation";
 
+    /// <summary>Finding: the log's first reading is too far from the recorded inoculation to start its clock (<see cref="InoculationClock"/>).</summary>
+    public const string InoculationFarFromLog = "inoculation-far-from-log";
+
     /// <summary>Finding: the temperature reachable without cooling passes the danger threshold (not a flag).</summary>
     public const string HeatPotentialAboveDanger = "heat-potential-above-danger";
 
@@ -67,7 +70,7 @@ public static class KineticsCodes
     /// <summary>Every code: the flags, then the findings that are not flags.</summary>
     public static IReadOnlyList<string> All { get; } =
     [
-        .. Flags, LogMatchesSeveralLots, LogWithoutLot, SeveralLogsForLot, TooFewSugarReadings, DropBeforeInoculation,
+        .. Flags, LogMatchesSeveralLots, LogWithoutLot, SeveralLogsForLot, TooFewSugarReadings, DropBeforeInoculation, InoculationFarFromLog,
         HeatPotentialAboveDanger, NoSigmoidFit, LogEndedBeforeDry,
     ];
 }

@@ -57,7 +57,14 @@ internal static class LotAnalysis
             return null;
         }
 
-        var (origin, originKind) = lot.InoculationDate is { } inoc ? (inoc, TimeOrigin.Inoculation) : (readings.Sugar[0].T, TimeOrigin.FirstReading);
+        var inoculation = lot.InoculationDate;
+        if (inoculation is { } recorded && !InoculationClock.Fits(recorded, readings.Sugar[0].T))
+        {
+            cx.Report(KineticsCodes.InoculationFarFromLog, InoculationClock.Message(cx.Key.ToString(), recorded, readings.Sugar[0].T), readings.Sugar[0].Src.Source, flag: false);
+            inoculation = null;
+        }
+
+        var (origin, originKind) = inoculation is { } inoc ? (inoc, TimeOrigin.Inoculation) : (readings.Sugar[0].T, TimeOrigin.FirstReading);
         double H(DateTime t) => (t - origin).TotalHours;
         var th = s.ThresholdsFor(lot.Colour);
         var temps = readings.Temperature.Select(t => new TemperaturePoint(t.T, H(t.T), t.C, t.Src)).ToArray();

@@ -50,6 +50,7 @@ public static class ReviewTexts
         KineticsCodes.SugarRose => "sugar rose between readings",
         KineticsCodes.HeatPotentialAboveDanger => "could have passed the danger temperature without cooling",
         KineticsCodes.DropBeforeInoculation => "sugar fell before the recorded inoculation",
+        KineticsCodes.InoculationFarFromLog => "log too far from the recorded inoculation",
         KineticsCodes.TooFewSugarReadings => "too few sugar readings to analyse",
         KineticsCodes.NoSigmoidFit => "no fermentation curve could be fitted",
         KineticsCodes.LogEndedBeforeDry => "log ended before dry; the lab found it dry",

@@ -307,6 +307,29 @@ public class ForecastModelTests
     }
 
     [Fact]
+    public void A_running_lot_whose_inoculation_lies_a_year_from_its_readings_counts_from_its_first_reading_and_says_so()
+    {
+        // Given a running lot whose log is dated 2030 but whose inoculation was typed as 2029
+        var (model, cellar) = Trained(19);
+        var inoc = new DateTime(2030, 9, 10, 9, 0, 0);
+        var truth = new SyntheticCellar.Truth(24, -1.8, 0.2, 14, 19, 30);
+        var typed = cellar.Running("30-001", 2030, "SX-1", WineColour.Red, truth, inoc.AddYears(-1));
+        var log = cellar.Log("30-001", 2030, truth, inoc, 30);
+
+        // When forecast
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [typed], [log], Settings, model);
+
+        // Then its clock starts at its first reading, a note names the gap and what to check, and it is forecast
+        var f = Assert.Single(report.Lots);
+        Assert.False(f.Course.FromInoculation);
+        Assert.Equal(log.Readings.Min(r => r.Timestamp), f.Course.Origin);
+        var note = Assert.Single(report.Notes, n => n.Code == "inoculation-far-from-log");
+        Assert.Contains("365 days after the recorded inoculation (2029-09-10 09:00)", note.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(report.Notes, n => n.Code == "no-inoculation-time");
+        Assert.True(double.IsFinite(f.OneThirdHours!.Value.Median) && f.OneThirdHours.Value.Median < 200, $"one-third at {f.OneThirdHours.Value.Median:0} h");
+    }
+
+    [Fact]
     public void The_charts_temperature_band_carries_the_peaks_own_uncertainty()
     {
         // Given a lot with its first readings (20 h), its peak still far ahead

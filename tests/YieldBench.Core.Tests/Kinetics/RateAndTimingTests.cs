@@ -179,6 +179,38 @@ public class RateAndTimingTests
         Assert.Equal(90.0, lot.DurationHours, 9);
     }
 
+    [Theory]
+    [InlineData("2024-09-30 14:00", 365)] // the inoculation's year typed one too low: a year before the first reading
+    [InlineData("2025-07-20 14:00", 72)] // more than the 60 days no first reading waits for
+    [InlineData("2025-11-15 14:00", -46)] // a first reading more than 31 days before the inoculation
+    public void An_inoculation_too_far_from_the_log_is_set_aside_and_said_with_its_gap(string inoculation, int days)
+    {
+        // Given the inoculation recorded far from the log's first reading (2025-09-30 20:00)
+        var review = KineticsAnalysis.Run([Lot(inoculation: At(inoculation))], [Log("T-101", 2025, Rows)], KineticsSettings.Default);
+
+        // When analysed
+        var lot = Assert.Single(review.Lots);
+
+        // Then the clock starts at the first reading, as with no inoculation (the lag of 8 h worked by hand above), and
+        // a finding names the lot, the gap in days and what to check
+        Assert.Equal(TimeOrigin.FirstReading, lot.OriginKind);
+        Assert.Equal(8.0, lot.LagHours!.Value, 9);
+        var finding = Assert.Single(review.Findings, f => f.Code == KineticsCodes.InoculationFarFromLog);
+        string gap = days > 0 ? $"{days} days after" : $"{-days} days before";
+        Assert.Contains($"Lot 2025/T-101: the log's first reading (2025-09-30 20:00) is {gap} the recorded inoculation", finding.Message, StringComparison.Ordinal);
+        Assert.Contains("Check the year", finding.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("2025-08-01 20:00")] // 60 days before the first reading: still this ferment's clock
+    [InlineData("2025-10-31 20:00")] // 31 days after it (a juice reading a month before inoculation)
+    public void An_inoculation_within_the_bounds_still_starts_the_clock(string inoculation)
+    {
+        var review = KineticsAnalysis.Run([Lot(inoculation: At(inoculation))], [Log("T-101", 2025, Rows)], KineticsSettings.Default);
+        Assert.Equal(TimeOrigin.Inoculation, Assert.Single(review.Lots).OriginKind);
+        Assert.DoesNotContain(review.Findings, f => f.Code == KineticsCodes.InoculationFarFromLog);
+    }
+
     [Fact]
     public void A_dip_that_recovers_does_not_end_the_lag()
     {
