@@ -156,11 +156,52 @@ public sealed class PlanCommandTests : IDisposable
     }
 
     [Fact]
-    public void A_missing_factor_file_is_an_input_problem_with_a_fix()
+    public void A_missing_factor_file_is_a_command_line_that_cannot_be_carried_out_named_as_given()
     {
+        // README, Exit codes: a missing input is exit 2, and paths are shown as the user gave them
         var (code, _, err) = Plan("--factor-file", "nowhere.json", "--sugar", "24");
+        Assert.Equal(2, code);
+        Assert.Equal("plan: --factor-file nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.\n", err.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_factor_file_given_as_a_review_folder_names_the_house_factor_inside_it()
+    {
+        // Given a review folder holding data/house-factor.json, and an empty folder
+        string review = Path.Combine(dir, "review 2025");
+        Directory.CreateDirectory(Path.Combine(review, "data"));
+        HouseFactorJson.WriteFile(HouseFactorAnalysis.Run(Lots(), new HouseFactorSettings(), [], 3), Path.Combine(review, "data", HouseFactorJson.FileName));
+        Directory.CreateDirectory(Path.Combine(dir, "empty"));
+
+        // When each is given as the factor file
+        var a = Plan("--factor-file", "review 2025", "--sugar", "24");
+        var b = Plan("--factor-file", "empty", "--sugar", "24");
+
+        // Then both are exit 2 in one line; the first says which file to give
+        Assert.Equal(2, a.Code);
+        Assert.Equal($"plan: --factor-file review 2025 is a folder, not a file; give --factor-file {Path.Combine("review 2025", "data", "house-factor.json")}.\n", a.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal(2, b.Code);
+        Assert.Equal("plan: --factor-file empty is a folder, not a house-factor.json; give the house-factor.json in a review's data folder.\n", b.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_hand_edited_factor_file_with_a_number_in_quotes_names_the_property_not_a_type()
+    {
+        // Given a house-factor file whose pooled slope was typed in quotes
+        var (_, path) = FactorFile();
+        string text = File.ReadAllText(path);
+        int at = text.IndexOf("\"slope_abv_per_brix\": ", StringComparison.Ordinal) + "\"slope_abv_per_brix\": ".Length;
+        int end = text.IndexOf(',', at);
+        File.WriteAllText(path, text[..at] + "\"" + text[at..end] + "\"" + text[end..]);
+
+        // When the planner reads it
+        var (code, _, err) = Plan("--factor-file", HouseFactorJson.FileName, "--sugar", "24");
+
+        // Then it names the property and the line, and no reader type name
         Assert.Equal(1, code);
-        Assert.Contains("nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.", err, StringComparison.Ordinal);
+        Assert.Contains("house-factor.json: not a readable house-factor file at line ", err, StringComparison.Ordinal);
+        Assert.Contains("(the value of planning.pooled.slope_abv_per_brix is not of the kind this file holds there). Write it again with 'yieldbench review'.", err, StringComparison.Ordinal);
+        Assert.DoesNotContain("YieldBench", err.Replace("'yieldbench review'", string.Empty, StringComparison.Ordinal), StringComparison.Ordinal);
     }
 
     [Fact]
