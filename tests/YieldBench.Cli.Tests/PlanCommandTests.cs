@@ -120,9 +120,23 @@ public sealed class PlanCommandTests : IDisposable
         Assert.Equal(0, code);
         foreach (double t in new[] { 14.0, 14.5 })
         {
-            double b = Planner.HighestSugar(line, t, 0.95).HighestBrix;
+            double b = Planner.HighestSugar(line, t, 0.95).PickAtOrBelowBrix;
             Assert.Contains($"{t.ToString("0.0", CultureInfo.InvariantCulture),14} | {b.ToString("0.0", CultureInfo.InvariantCulture)} °Brix", output, StringComparison.Ordinal);
         }
+    }
+
+    [Fact]
+    public void The_highest_harvest_sugar_is_shown_rounded_down_so_it_never_exceeds_the_limit()
+    {
+        // Given a factor of 0.6 typed directly (a central answer, 50 %)
+        // When the highest sugar for 13.84 % and for 13.86 % is asked
+        var (code, output, _) = Plan("--factor", "0.6", "--target", "13.84", "13.86", "--confidence", "0.5");
+
+        // Then 13.84 / 0.6 = 23.0667 °Brix is shown as 23.0 (to the nearest it read 23.1, which predicts 13.86 %,
+        // over the target), 13.86 / 0.6 = 23.1 exactly stays 23.1, and each target is shown as typed
+        Assert.Equal(0, code);
+        Assert.Contains("         13.84 | 23.0 °Brix", output, StringComparison.Ordinal);
+        Assert.Contains("         13.86 | 23.1 °Brix", output, StringComparison.Ordinal);
     }
 
     [Fact]

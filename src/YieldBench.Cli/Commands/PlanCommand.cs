@@ -340,7 +340,7 @@ internal static class PlanCommand
                 foreach (double t in ts)
                 {
                     var cells = defaultConfidences.Select(c => Planner.HighestSugar(line, t, c)).ToArray();
-                    o.WriteLine($"  {F(t, "0.0"),12} | " + string.Join(" | ", cells.Select(a => double.IsNaN(a.HighestBrix) ? "no answer" : F(a.HighestBrix, "0.0") + " °Brix")));
+                    o.WriteLine($"  {F(t, "0.0#"),12} | " + string.Join(" | ", cells.Select(a => double.IsNaN(a.HighestBrix) ? "no answer" : F(a.PickAtOrBelowBrix, "0.0") + " °Brix")));
                 }
 
                 foreach (string? note in defaultConfidences.Select(c => Planner.HighestSugar(line, ts[0], c).Note).Where(n => n is not null).Distinct())
