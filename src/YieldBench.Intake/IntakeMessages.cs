@@ -123,6 +123,9 @@ public static class IntakeMessages
     internal static string VesselAsLotId(string header) =>
         $" If each lot is known by its tank, the column '{header}' (read as the vessel) names the lots: map it with --column lot_id=\"{header}\".";
 
+    internal static string LotIdFromTank(string header, bool bySeason) =>
+        $"The sheet has no lot column; each of its tanks in column '{header}' appears once{(bySeason ? " per season" : "")}, so the tank names the lot (as --column lot_id=\"{header}\" would{(bySeason ? ": T1 of one season and T1 of the next are two lots" : "")}) and is not read as the vessel. If a tank held more than one lot in a season, add a 'Lot' column.";
+
     internal static string VagueSugarHeader(string header) =>
         $" The column '{header}' names a sugar reading without saying whether it is the must's at the start or the wine's at the end; if it holds the must's, map it with --column starting_sugar=\"{header}\".";
 

@@ -82,6 +82,9 @@ public static class IssueCodes
     /// <summary><c>missing-column</c>.</summary>
     public const string MissingColumn = "missing-column";
 
+    /// <summary><c>lot-id-from-tank</c>.</summary>
+    public const string LotIdFromTank = "lot-id-from-tank";
+
     /// <summary><c>column-not-used</c>.</summary>
     public const string ColumnNotUsed = "column-not-used";
 

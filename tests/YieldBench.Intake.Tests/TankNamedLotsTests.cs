@@ -23,14 +23,42 @@ public class TankNamedLotsTests
     }
 
     [Fact]
-    public void A_lots_table_without_a_lot_column_but_with_a_tank_column_says_how_to_map_it()
+    public void A_lots_table_without_a_lot_column_whose_tanks_appear_once_per_season_is_named_by_its_tanks()
     {
-        // Given lots known by their tank, whose only identifier is the column "Tank" (read as the vessel)
+        // Given lots known by their tank: no lot column, each tank once per season (T1 in both seasons)
         using var folder = new TestFolder();
-        folder.Text("lots 2025.csv", "Tank,Yeast,Brix,Alc\nR1,ZR-3,24.6,14.4\n");
+        folder.Text("lots.csv", "Vintage,Tank,Yeast,Brix,Alc\n2024,T1,ZR-3,24.6,14.4\n2024,T2,ZR-3,23.9,14.0\n2025,T1,QX-7,24.1,14.2\n");
 
-        // When it is read / Then the missing lot id says which column to map, with the exact option
+        // When it is read
+        var set = folder.Read("lots.csv");
+
+        // Then every row is a lot named by its tank (before: none was used, with a hint to map the column), T1 of 2024
+        // and T1 of 2025 are two lots, and the tank is the lot's name, not its vessel, as the hinted mapping would read it
+        Assert.Equal([("T1", 2024), ("T1", 2025), ("T2", 2024)], set.Lots.Select(l => (l.LotId, l.Season)).Order());
+        Assert.All(set.Lots, l => Assert.Null(l.Vessel));
+        Assert.Contains(set.Mappings, m => m.Header == "Tank" && m.Field == "lot_id");
+        Assert.DoesNotContain(set.Mappings, m => m.Field == "vessel");
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.LotIdFromTank);
+        Assert.Equal((IssueSeverity.Warning, 1, "Tank"), (said.Severity, said.Row!.Value, said.Column));
+        Assert.Contains("once per season", said.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
+
+    [Theory]
+    [InlineData("Tank,Yeast,Brix,Alc\nBarrel,ZR-3,24.6,14.4\nBarrel,ZR-3,24.0,14.1\n")] // vessel kinds, not names
+    [InlineData("Vintage,Tank,Yeast,Brix,Alc\n2025,R1,ZR-3,24.6,14.4\n2025,r1,ZR-3,24.0,14.1\n")] // one tank, two lots of a season
+    public void A_tank_column_that_repeats_within_a_season_names_no_lot_and_says_how_to_map_it(string text)
+    {
+        // Given a lots table with no lot column whose tank column repeats a value within a season
+        using var folder = new TestFolder();
+        folder.Text("lots 2025.csv", text);
+
+        // When it is read
         var set = folder.Read("lots 2025.csv");
+
+        // Then no lot is made up from it: the missing lot id is an error that says which column to map, with the option
+        Assert.Empty(set.Lots);
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.LotIdFromTank);
         var missing = Assert.Single(set.Issues, i => i.Code == IssueCodes.MissingColumn);
         Assert.Contains("--column lot_id=\"Tank\"", missing.Message, StringComparison.Ordinal);
     }

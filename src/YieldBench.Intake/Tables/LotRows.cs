@@ -49,6 +49,47 @@ internal static class LotRows
         RowAccounting.Read(ctx, plan, r => running ? RunningLotRows.Add(ctx, rowState, r) : Add(ctx, rowState, r));
     }
 
+    /// <summary>
+    /// A lots table with no lot column whose tank (vessel) column holds each tank once, or once per season where a season
+    /// column says it, is a cellar that knows each lot by its tank: the tank column names the lots, as the hinted
+    /// mapping would, with a warning. A column of vessel kinds ("Barrel" on many rows) names no lot and stays the vessel.
+    /// </summary>
+    internal static void TankNamesLots(SheetContext ctx)
+    {
+        if (ctx.LotColumn is not null || ctx.Column("vessel") is not { } tank)
+        {
+            return;
+        }
+
+        var season = ctx.Column("season");
+        var seen = new HashSet<(string Season, string Tank)>();
+        int named = 0;
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
+        {
+            string name = CellValues.Text(ctx.Sheet.Cell(r, tank.Index)).Trim();
+            if (name.Length == 0)
+            {
+                continue;
+            }
+
+            string year = season is null ? "" : CellValues.Text(ctx.Sheet.Cell(r, season.Index)).Trim();
+            if (!seen.Add((year, name.ToUpperInvariant())))
+            {
+                return;
+            }
+
+            named++;
+        }
+
+        if (named == 0)
+        {
+            return;
+        }
+
+        ctx.Rebind(tank, Fields.Lot("lot_id"));
+        ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, tank.Header, null, IssueCodes.LotIdFromTank, IntakeMessages.LotIdFromTank(tank.Header, season is not null));
+    }
+
     /// <summary>Reads row <paramref name="r"/> as a lot and keeps it; false when it was reported instead.</summary>
     private static bool Add(SheetContext ctx, RowState rowState, int r)
     {

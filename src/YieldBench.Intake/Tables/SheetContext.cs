@@ -77,6 +77,21 @@ internal sealed record SheetContext(
     /// <summary>The lot id column, or null.</summary>
     public BoundColumn? LotColumn => Column("lot_id");
 
+    /// <summary>
+    /// Binds <paramref name="column"/> to <paramref name="field"/> instead of the field it was read for (a lots table's
+    /// tank column naming its lots), as a <c>--column</c> mapping would have.
+    /// </summary>
+    public void Rebind(BoundColumn column, FieldDef field)
+    {
+        if (_byField.GetValueOrDefault(column.Field.Name) == column)
+        {
+            _byField.Remove(column.Field.Name);
+        }
+
+        column.Field = field;
+        _byField[field.Name] = column;
+    }
+
     /// <summary>The column bound to the field (the first one, when a header repeats), or null.</summary>
     public BoundColumn? Column(string field) => _byField.GetValueOrDefault(field);
 

@@ -67,6 +67,11 @@ internal static class SheetReader
         {
             Unmatched = unmatched.Select(u => u.Header).ToList(),
         };
+        if (kind == TableKind.Lots)
+        {
+            LotRows.TankNamesLots(ctx);
+        }
+
         UnitSettling.Settle(ctx);
         foreach (var c in columns)
         {
