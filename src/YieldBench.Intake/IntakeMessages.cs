@@ -319,6 +319,9 @@ public static class IntakeMessages
     internal static string DateOutsideSeason(string field, string date, int season) =>
         $"{field} {date} lies more than a year from season {season.ToString(Inv)}.";
 
+    internal static string HalfDayTime(int count, TimeSpan morning, TimeSpan evening) =>
+        $"{count.ToString(Inv)} time(s) of this column name only the half of the day of the check (AM or PM); they were read as {morning.ToString(@"hh\:mm", Inv)} and {evening.ToString(@"hh\:mm", Inv)}, a morning and an afternoon check (an assumption), so the hours between readings, and the rates worked out from them, may be off by a few hours. Write the hour of each check (8:15, 17:40) for exact rates.";
+
     internal static string TimeZoneNotApplied(string field) =>
         $"{field} values carry a time zone (Z or an offset such as +02:00); they were read as the clock time written, in the file's own clock, and the zone was not applied. Times are compared as written, so keep every log of a lot in one clock.";
 

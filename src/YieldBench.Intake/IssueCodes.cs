@@ -181,6 +181,9 @@ public static class IssueCodes
     /// <summary><c>not-a-date</c>.</summary>
     public const string NotADate = "not-a-date";
 
+    /// <summary><c>half-day-time</c>.</summary>
+    public const string HalfDayTime = "half-day-time";
+
     /// <summary><c>time-zone-not-applied</c>.</summary>
     public const string TimeZoneNotApplied = "time-zone-not-applied";
 

@@ -475,6 +475,32 @@ internal static partial class CellValues
         return true;
     }
 
+    /// <summary>The hour a morning check is taken to stand for when a log gives only "AM" (common practice, assumed).</summary>
+    public static readonly TimeSpan MorningCheck = new(8, 0, 0);
+
+    /// <summary>The hour an afternoon or evening check is taken to stand for when a log gives only "PM" (common practice, assumed).</summary>
+    public static readonly TimeSpan EveningCheck = new(17, 0, 0);
+
+    /// <summary>
+    /// A time cell that names only the half of the day of a twice-daily check ("AM", "p.m.", "morning", "soir",
+    /// "abends"): the morning or the evening check's assumed hour; null for anything else.
+    /// </summary>
+    public static TimeSpan? HalfDay(object? v)
+    {
+        if (v is not string s)
+        {
+            return null;
+        }
+
+        string t = s.Trim().Replace(".", "", StringComparison.Ordinal).Replace(" ", "", StringComparison.Ordinal).ToLowerInvariant();
+        return t switch
+        {
+            "am" or "morning" or "morn" or "matin" or "morgen" or "morgens" or "vormittag" or "manana" or "mañana" or "mattina" or "mattino" => MorningCheck,
+            "pm" or "afternoon" or "evening" or "eve" or "soir" or "apres-midi" or "après-midi" or "abend" or "abends" or "nachmittag" or "tarde" or "pomeriggio" or "sera" => EveningCheck,
+            _ => null,
+        };
+    }
+
     /// <summary>A time of day from a time cell, a day fraction, or text "14:30", "14:30:05", "2:30 PM", "8am", "17h30".</summary>
     public static CellProblem TimeOfDay(object? v, out TimeSpan value)
     {

@@ -175,6 +175,11 @@ internal static class LogRows
             {
                 when = when.Value.Date + tod;
             }
+            else if (st.Bad)
+            {
+                // A time that is no time (reported): the row has no time to stand at, not midnight.
+                when = null;
+            }
         }
 
         if (when is null && !st.Bad && (tsCol ?? dateCol) is { } c)
@@ -200,11 +205,28 @@ internal static class LogRows
             return tod;
         }
 
+        if (tp == CellProblem.NotATime && CellValues.HalfDay(tcell) is { } check)
+        {
+            // A twice-daily check noted as "AM" or "PM": read at the check's assumed hour, said once for the column.
+            timeCol.HalfDayAt ??= (r + 1, CellValues.Text(tcell));
+            timeCol.HalfDays++;
+            return check;
+        }
+
         if (tp != CellProblem.Blank && !Unreadable(st, timeCol, tcell))
         {
             st.Problem(timeCol, tcell, IssueCodes.NotATime, IntakeMessages.NotATime("time"), true);
         }
 
         return null;
+    }
+
+    /// <summary>Says once for the table's time column that times written only "AM" or "PM" were read at assumed hours.</summary>
+    internal static void ReportHalfDays(SheetContext ctx)
+    {
+        if (ctx.Column("time") is { HalfDayAt: { } first } timeCol)
+        {
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, first.Row, timeCol.Header, first.Text, IssueCodes.HalfDayTime, IntakeMessages.HalfDayTime(timeCol.HalfDays, CellValues.MorningCheck, CellValues.EveningCheck));
+        }
     }
 }

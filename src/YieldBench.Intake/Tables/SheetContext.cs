@@ -32,6 +32,12 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
     /// <summary>How many dates of the column were read in their row's season for want of a year.</summary>
     public int YearsFromSeason { get; set; }
 
+    /// <summary>The first sheet row of a time column holding only the half of the day ("AM", "PM"), and its text.</summary>
+    public (int Row, string Text)? HalfDayAt { get; set; }
+
+    /// <summary>How many times of the column named only the half of the day.</summary>
+    public int HalfDays { get; set; }
+
     /// <summary>The first sheet row whose date text carried a time zone (Z, +02:00), which was not applied.</summary>
     public int? ZoneSeenAt { get; set; }
 

@@ -86,6 +86,7 @@ internal static class SheetReader
         else
         {
             LogRows.Read(ctx, fileStem);
+            LogRows.ReportHalfDays(ctx);
         }
 
         GravityBothWays(sink, file, sheetName, columns);

@@ -76,6 +76,7 @@ internal static class WideLogRows
         });
 
         SheetReader.GravityBothWays(sink, file, sheetName, lotBound);
+        LogRows.ReportHalfDays(ctx);
 
         // The account counts rows; say how many readings its used rows held.
         int last = run.Accounts.Count - 1;
