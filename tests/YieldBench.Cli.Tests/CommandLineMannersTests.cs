@@ -60,6 +60,9 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["review", "lots-2023.csv", "--seeed", "3"], "did you mean '--seed'?" },
         { ["check", "lots-2023.csv", "--colum", "strain=Yeast"], "check: '--colum' is not an option of check; did you mean '--column'?" },
         { ["forecast", "--quite"], "forecast: '--quite' is not an option of forecast; did you mean '--quiet'?" },
+        { ["forecast", "lots-2023.csv", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' is also given as history, so finished lots would be read as running or running lots as finished; keep the lots still fermenting in a folder of their own, apart from the history." },
+        { ["forecast", ".", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' lies in the history's '.'" },
+        { ["forecast", "lots-2023.csv", "--running", "."], "forecast: --running '.' holds the history's 'lots-2023.csv'" },
     };
 
     [Fact]
