@@ -119,7 +119,12 @@ public static class HouseFactorJson
         catch (JsonException e)
         {
             string where = e.LineNumber is { } line ? $" at line {line + 1}" : string.Empty;
-            return new HouseFactorFile(null, null, $"{source}: not a readable house-factor file{where} ({e.Message.Split('.')[0]}). Write it again with 'yieldbench review'.");
+
+            // A value of the wrong kind (a number typed in quotes) names the property, not the reader's type names.
+            string why = e.Path is { Length: > 2 } jsonPath && e.Message.StartsWith("The JSON value could not be converted", StringComparison.Ordinal)
+                ? $"the value of {jsonPath[2..]} is not of the kind this file holds there"
+                : e.Message.Split('.')[0];
+            return new HouseFactorFile(null, null, $"{source}: not a readable house-factor file{where} ({why}). Write it again with 'yieldbench review'.");
         }
 
         if (dto is null || dto.Kind != "house-factor")

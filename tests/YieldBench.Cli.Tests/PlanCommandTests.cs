@@ -120,9 +120,23 @@ public sealed class PlanCommandTests : IDisposable
         Assert.Equal(0, code);
         foreach (double t in new[] { 14.0, 14.5 })
         {
-            double b = Planner.HighestSugar(line, t, 0.95).HighestBrix;
+            double b = Planner.HighestSugar(line, t, 0.95).PickAtOrBelowBrix;
             Assert.Contains($"{t.ToString("0.0", CultureInfo.InvariantCulture),14} | {b.ToString("0.0", CultureInfo.InvariantCulture)} °Brix", output, StringComparison.Ordinal);
         }
+    }
+
+    [Fact]
+    public void The_highest_harvest_sugar_is_shown_rounded_down_so_it_never_exceeds_the_limit()
+    {
+        // Given a factor of 0.6 typed directly (a central answer, 50 %)
+        // When the highest sugar for 13.84 % and for 13.86 % is asked
+        var (code, output, _) = Plan("--factor", "0.6", "--target", "13.84", "13.86", "--confidence", "0.5");
+
+        // Then 13.84 / 0.6 = 23.0667 °Brix is shown as 23.0 (to the nearest it read 23.1, which predicts 13.86 %,
+        // over the target), 13.86 / 0.6 = 23.1 exactly stays 23.1, and each target is shown as typed
+        Assert.Equal(0, code);
+        Assert.Contains("         13.84 | 23.0 °Brix", output, StringComparison.Ordinal);
+        Assert.Contains("         13.86 | 23.1 °Brix", output, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -156,11 +170,52 @@ public sealed class PlanCommandTests : IDisposable
     }
 
     [Fact]
-    public void A_missing_factor_file_is_an_input_problem_with_a_fix()
+    public void A_missing_factor_file_is_a_command_line_that_cannot_be_carried_out_named_as_given()
     {
+        // README, Exit codes: a missing input is exit 2, and paths are shown as the user gave them
         var (code, _, err) = Plan("--factor-file", "nowhere.json", "--sugar", "24");
+        Assert.Equal(2, code);
+        Assert.Equal("plan: --factor-file nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.\n", err.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_factor_file_given_as_a_review_folder_names_the_house_factor_inside_it()
+    {
+        // Given a review folder holding data/house-factor.json, and an empty folder
+        string review = Path.Combine(dir, "review 2025");
+        Directory.CreateDirectory(Path.Combine(review, "data"));
+        HouseFactorJson.WriteFile(HouseFactorAnalysis.Run(Lots(), new HouseFactorSettings(), [], 3), Path.Combine(review, "data", HouseFactorJson.FileName));
+        Directory.CreateDirectory(Path.Combine(dir, "empty"));
+
+        // When each is given as the factor file
+        var a = Plan("--factor-file", "review 2025", "--sugar", "24");
+        var b = Plan("--factor-file", "empty", "--sugar", "24");
+
+        // Then both are exit 2 in one line; the first says which file to give
+        Assert.Equal(2, a.Code);
+        Assert.Equal($"plan: --factor-file review 2025 is a folder, not a file; give --factor-file {Path.Combine("review 2025", "data", "house-factor.json")}.\n", a.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal(2, b.Code);
+        Assert.Equal("plan: --factor-file empty is a folder, not a house-factor.json; give the house-factor.json in a review's data folder.\n", b.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_hand_edited_factor_file_with_a_number_in_quotes_names_the_property_not_a_type()
+    {
+        // Given a house-factor file whose pooled slope was typed in quotes
+        var (_, path) = FactorFile();
+        string text = File.ReadAllText(path);
+        int at = text.IndexOf("\"slope_abv_per_brix\": ", StringComparison.Ordinal) + "\"slope_abv_per_brix\": ".Length;
+        int end = text.IndexOf(',', at);
+        File.WriteAllText(path, text[..at] + "\"" + text[at..end] + "\"" + text[end..]);
+
+        // When the planner reads it
+        var (code, _, err) = Plan("--factor-file", HouseFactorJson.FileName, "--sugar", "24");
+
+        // Then it names the property and the line, and no reader type name
         Assert.Equal(1, code);
-        Assert.Contains("nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.", err, StringComparison.Ordinal);
+        Assert.Contains("house-factor.json: not a readable house-factor file at line ", err, StringComparison.Ordinal);
+        Assert.Contains("(the value of planning.pooled.slope_abv_per_brix is not of the kind this file holds there). Write it again with 'yieldbench review'.", err, StringComparison.Ordinal);
+        Assert.DoesNotContain("YieldBench", err.Replace("'yieldbench review'", string.Empty, StringComparison.Ordinal), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -64,6 +64,21 @@ internal static class PlanCommand
         return command;
     }
 
+    /// <summary>The message for a --factor-file that is no file: a folder holding a review's house factor names it.</summary>
+    private static string MissingFactorFile(string given, string path)
+    {
+        string name = HouseFactorJson.FileName;
+        if (Directory.Exists(path))
+        {
+            string? inside = new[] { name, Path.Combine("data", name) }.FirstOrDefault(p => File.Exists(Path.Combine(path, p)));
+            return inside is null
+                ? $"--factor-file {given} is a folder, not a {name}; give the {name} in a review's data folder."
+                : $"--factor-file {given} is a folder, not a file; give --factor-file {Path.Combine(given, inside)}.";
+        }
+
+        return $"--factor-file {given}: no such file. Give the {name} written by 'yieldbench review' in its output's data folder.";
+    }
+
     private sealed record Request(string? FactorFile, string? Factor, string[] LotFiles, string? Strain, string? Sugar, string Scale, string[] Targets, string[] Confidences, string? Volume, string? PomaceShare = null);
 
     private static int Run(Request r, CliContext context)
@@ -91,7 +106,14 @@ internal static class PlanCommand
         else if (r.FactorFile is not null)
         {
             string path = Path.IsPathRooted(r.FactorFile) ? r.FactorFile : Path.Combine(context.WorkingDirectory, r.FactorFile);
-            var file = HouseFactorJson.ReadFile(path);
+            if (!File.Exists(path))
+            {
+                // A missing input is a command line that cannot be carried out (README, Exit codes), named as given.
+                err.WriteLine("plan: " + MissingFactorFile(r.FactorFile, path));
+                return ExitCodes.Usage;
+            }
+
+            var file = HouseFactorJson.Read(File.ReadAllText(path, System.Text.Encoding.UTF8), r.FactorFile);
             if (file.Model is null)
             {
                 err.WriteLine("plan: " + file.Error);
@@ -318,7 +340,7 @@ internal static class PlanCommand
                 foreach (double t in ts)
                 {
                     var cells = defaultConfidences.Select(c => Planner.HighestSugar(line, t, c)).ToArray();
-                    o.WriteLine($"  {F(t, "0.0"),12} | " + string.Join(" | ", cells.Select(a => double.IsNaN(a.HighestBrix) ? "no answer" : F(a.HighestBrix, "0.0") + " °Brix")));
+                    o.WriteLine($"  {F(t, "0.0#"),12} | " + string.Join(" | ", cells.Select(a => double.IsNaN(a.HighestBrix) ? "no answer" : F(a.PickAtOrBelowBrix, "0.0") + " °Brix")));
                 }
 
                 foreach (string? note in defaultConfidences.Select(c => Planner.HighestSugar(line, ts[0], c).Note).Where(n => n is not null).Distinct())

@@ -11,7 +11,18 @@ namespace YieldBench.Core.HouseFactor;
 /// <param name="HighestBrix">The answer, °Brix (effective starting sugar), or NaN with a <paramref name="Note"/>.</param>
 /// <param name="ErrorAllowance">Upper error bound at the confidence (season-aware, <see cref="SeasonErrorModel.Quantile"/>) subtracted from the target, % v/v (0 at 50 % with no errors).</param>
 /// <param name="Note">Why there is no answer, or what it rests on; null when plain.</param>
-public sealed record ThresholdAnswer(string Strain, double TargetAbv, double Confidence, double HighestBrix, double ErrorAllowance, string? Note);
+public sealed record ThresholdAnswer(string Strain, double TargetAbv, double Confidence, double HighestBrix, double ErrorAllowance, string? Note)
+{
+    /// <summary>
+    /// The answer as it is shown to one decimal: <see cref="HighestBrix"/> rounded <em>down</em> to 0.1 °Brix (NaN
+    /// stays NaN). It is a highest sugar, so it is never shown above itself: rounded to the nearest, 23.06 °Brix read
+    /// 23.1, a must that finishes over the target at the confidence.
+    /// </summary>
+    public double PickAtOrBelowBrix => RoundDownToTenth(HighestBrix);
+
+    /// <summary>Rounds a °Brix down to 0.1 (a value within 1e-6 of a tenth counts as that tenth, against binary rounding).</summary>
+    public static double RoundDownToTenth(double brix) => double.IsFinite(brix) ? Math.Floor(Math.Round(brix * 10, 6)) / 10 : brix;
+}
 
 /// <summary>Water add-back that brings a juice to the sugar expected to give a target alcohol.</summary>
 /// <param name="TargetBrix">°Brix of the juice after the addition (the measured °Brix when no water is needed).</param>

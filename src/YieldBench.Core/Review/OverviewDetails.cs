@@ -38,7 +38,7 @@ public sealed record PlanningAtAGlance(IReadOnlyList<double> Targets, IReadOnlyL
 
 /// <summary>One row of the planning table.</summary>
 /// <param name="Strain">Strain code, or <c>*</c> for the pooled line.</param>
-/// <param name="HighestBrix">HighestBrix[t][c]: the answer for target t at confidence c, °Brix (NaN when there is none).</param>
+/// <param name="HighestBrix">HighestBrix[t][c]: the answer for target t at confidence c as shown, °Brix rounded down to 0.1 (<see cref="HouseFactor.ThresholdAnswer.PickAtOrBelowBrix"/>; NaN when there is none).</param>
 public sealed record PlanningRow(string Strain, IReadOnlyList<IReadOnlyList<double>> HighestBrix);
 
 /// <summary>How one strain's ferments ran, from the lots with a log.</summary>
@@ -112,7 +112,7 @@ internal static class OverviewDetails
         var answers = new Dictionary<(string, double, double), double>();
         foreach (var a in h.PlannerTable)
         {
-            answers.TryAdd((a.Strain, a.TargetAbv, a.Confidence), a.HighestBrix);
+            answers.TryAdd((a.Strain, a.TargetAbv, a.Confidence), a.PickAtOrBelowBrix);
         }
 
         var known = h.PlannerTable.Select(a => a.Strain).ToHashSet(StringComparer.Ordinal);

@@ -158,7 +158,7 @@ public static partial class ReviewTables
         new("strain", "Strain", CellKind.Text, t => StrainName(t.Strain)),
         new("target_abv", "Keep alcohol under (% v/v)", CellKind.Number, t => t.TargetAbv, "0.0"),
         new("confidence", "With confidence", CellKind.Share, t => t.Confidence, "0%"),
-        new("highest_brix", "Pick at or below (°Brix)", CellKind.Number, t => t.HighestBrix, "0.0"),
+        new("highest_brix", "Pick at or below (°Brix)", CellKind.Number, t => t.PickAtOrBelowBrix, "0.0"),
         new("error_allowance_abv", "Allowance for error (% v/v)", CellKind.Number, t => t.ErrorAllowance, "0.00"),
         new("note", "Note", CellKind.Text, t => t.Note),
     ];
@@ -199,7 +199,7 @@ public static partial class ReviewTables
             object?[] cells =
             [
                 StrainName(row.Key.Strain), row.Key.Confidence, Allowance(row),
-                .. targets.Select(t => (object?)(byTarget.TryGetValue(t, out var a) ? a.HighestBrix : double.NaN)),
+                .. targets.Select(t => (object?)(byTarget.TryGetValue(t, out var a) ? a.PickAtOrBelowBrix : double.NaN)),
                 string.Join(" ", row.Select(a => a.Note).Where(n => !string.IsNullOrEmpty(n)).Distinct(StringComparer.Ordinal)),
             ];
             table.Add(cells);

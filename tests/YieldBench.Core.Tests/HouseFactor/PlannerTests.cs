@@ -60,6 +60,25 @@ public class PlannerTests
         Assert.True(t.HighestBrix < 14.0 / 0.59);
     }
 
+    [Theory]
+    [InlineData(13.84, 23.0)] // 23.0667 °Brix: to the nearest tenth 23.1, whose prediction (13.86 %) is over the target
+    [InlineData(13.86, 23.1)] // 23.1 exactly (23.099999… in binary) stays 23.1
+    [InlineData(14.5, 24.1)] // 24.1667
+    public void The_answer_is_shown_rounded_down_to_a_tenth_so_the_sugar_shown_keeps_the_promise(double target, double shown)
+    {
+        // Given a line of 0.6 % v/v per °Brix with no held-out errors (a central answer)
+        var line = LineWithErrors(0.6, []);
+
+        // When the highest sugar for the target is asked
+        var t = Planner.HighestSugar(line, target, 0.5);
+
+        // Then the value shown is the answer rounded down, and its prediction is at or under the target
+        Assert.Equal(target / 0.6, t.HighestBrix, 1e-9);
+        Assert.Equal(shown, t.PickAtOrBelowBrix);
+        Assert.True(line.Predict(t.PickAtOrBelowBrix) <= target + 1e-12);
+        Assert.True(double.IsNaN(ThresholdAnswer.RoundDownToTenth(double.NaN)));
+    }
+
     [Fact]
     public void The_EU_convention_threshold_inverts_the_OIV_table()
     {

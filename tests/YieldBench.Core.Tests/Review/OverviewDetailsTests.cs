@@ -102,7 +102,7 @@ public sealed class OverviewDetailsTests
                 for (int c = 0; c < planning.Confidences.Count; c++)
                 {
                     var answer = table.Single(a => a.Strain == row.Strain && a.TargetAbv == planning.Targets[t] && a.Confidence == planning.Confidences[c]);
-                    Assert.Equal(answer.HighestBrix, row.HighestBrix[t][c]);
+                    Assert.Equal(answer.PickAtOrBelowBrix, row.HighestBrix[t][c]);
                     cells++;
                 }
             }

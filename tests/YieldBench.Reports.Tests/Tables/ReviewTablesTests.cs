@@ -159,7 +159,7 @@ public sealed class ReviewTablesTests
         foreach (var a in answers)
         {
             var row = table.Rows.Single(r => (string)r[0]! == (a.Strain == "*" ? "all lots" : a.Strain) && (double)r[1]! == a.Confidence);
-            Assert.Equal(a.HighestBrix, (double)row[3 + Array.IndexOf(targets, a.TargetAbv)]!);
+            Assert.Equal(a.PickAtOrBelowBrix, (double)row[3 + Array.IndexOf(targets, a.TargetAbv)]!);
             Assert.Equal(a.ErrorAllowance, (double)row[2]!, 9);
         }
     }
