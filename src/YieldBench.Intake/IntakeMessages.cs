@@ -379,6 +379,9 @@ public static class IntakeMessages
     internal static string LogWithoutLot(string lotId, string season) =>
         $"The fermentation log of lot '{lotId}' ({season}) matches no lot read. Check the lot id, or add the lot to the lots sheet.";
 
+    internal static string LogsWithoutAnyLot(IReadOnlyList<string> lotIds) =>
+        $"No lot was read (no lots table among the inputs, or none of its rows could be used), so the fermentation logs of {lotIds.Count.ToString(Inv)} lots on this sheet ({string.Join(", ", lotIds.Take(10))}{(lotIds.Count > 10 ? $" and {(lotIds.Count - 10).ToString(Inv)} more" : "")}) match none. Give the lots file with the logs, or fix the lots table's errors listed here.";
+
     internal static string LeadingZeroTwin(string lotId, string logId) =>
         $" Lot '{lotId}' differs only in leading zeros: a spreadsheet drops them from an id typed as a number. If it is the same lot, write the id the same way in both files (as text, e.g. '{lotId}, to keep the zero).";
 

@@ -37,6 +37,11 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["review", "lots-2023.csv", "--season", "99999"], "--season 99999 is not a year between 1900 and 2100" },
         { ["review", "lots-2023.csv", "--season", "99999999999"], "--season 99999999999 is not a year between 1900 and 2100" },
         { ["check", "lots-2023.csv", "--season", "twenty"], "--season twenty is not a year between 1900 and 2100" },
+        { ["review", "lots-2023.csv", "--seed", "abc"], "--seed abc is not a whole number from -2147483648 to 2147483647; give one like --seed 7." },
+        { ["review", "lots-2023.csv", "--seed", "1.5"], "--seed 1.5 is not a whole number" },
+        { ["review", "lots-2023.csv", "--seed", "99999999999"], "--seed 99999999999 is not a whole number" },
+        { ["review", "lots-2023.csv", "--threshold", "fourteen"], "--threshold fourteen is not a number; write it like --threshold 14.5 (a decimal comma is also read)." },
+        { ["review", "lots-2023.csv", "--threshold", "14,5", "--out", "/dev/null"], "is a file, not a folder" }, // 14,5 is 14.5 (it was read as 145)
         { ["review", "lots-2023.csv", "--out", "/dev/null"], "is a file, not a folder" },
         { ["review", "lots-2023.csv", "--out", "lots-2023.csv"], "is also an input" },
         { ["review", "lots-2023.csv", "--out", "notes.txt"], "is a file, not a folder" },
@@ -55,6 +60,9 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["review", "lots-2023.csv", "--seeed", "3"], "did you mean '--seed'?" },
         { ["check", "lots-2023.csv", "--colum", "strain=Yeast"], "check: '--colum' is not an option of check; did you mean '--column'?" },
         { ["forecast", "--quite"], "forecast: '--quite' is not an option of forecast; did you mean '--quiet'?" },
+        { ["forecast", "lots-2023.csv", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' is also given as history, so finished lots would be read as running or running lots as finished; keep the lots still fermenting in a folder of their own, apart from the history." },
+        { ["forecast", ".", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' lies in the history's '.'" },
+        { ["forecast", "lots-2023.csv", "--running", "."], "forecast: --running '.' holds the history's 'lots-2023.csv'" },
     };
 
     [Fact]
@@ -88,6 +96,7 @@ public sealed class CommandLineMannersTests : IDisposable
         Assert.Equal(ExitCodes.Usage, exit);
         Assert.Equal(string.Empty, output);
         Assert.Contains(expected, Cli.Flat(error), StringComparison.Ordinal);
+        Assert.DoesNotContain("System.", error, StringComparison.Ordinal); // no .NET type name (was 'System.Nullable`1[System.Int32]')
         Assert.All(error.Split('\n'), l => Assert.True(l.Length <= 100, l));
         Assert.Equal(["lots-2023.csv", "notes.txt", "notes.txt.xlsx"], Directory.GetFileSystemEntries(_dir).Select(Path.GetFileName).Order(StringComparer.Ordinal));
         Assert.Equal("my notes", File.ReadAllText(Path.Combine(_dir, "notes.txt")));

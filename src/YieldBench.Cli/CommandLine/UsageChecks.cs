@@ -30,6 +30,50 @@ internal static class UsageChecks
     }
 
     /// <summary>
+    /// An option holding a decimal number, checked while parsing: written with a point, or with a decimal comma when no
+    /// point is present (14,5), as plan reads its numbers. Anything else is one line naming the option and an example
+    /// (the parser's own message named a .NET type, and read 14,5 as 145).
+    /// </summary>
+    public static Option<double?> DecimalOption(string name, string description, string example)
+    {
+        var option = new Option<double?>(name) { Description = description };
+        option.CustomParser = result =>
+        {
+            string text = result.Tokens.Count > 0 ? result.Tokens[0].Value : "";
+            string t = text.Trim();
+            var comma = new NumberFormatInfo { NumberDecimalSeparator = "," };
+            if ((double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v)
+                    || (!t.Contains('.', StringComparison.Ordinal) && double.TryParse(t, NumberStyles.Float, comma, out v)))
+                && double.IsFinite(v))
+            {
+                return v;
+            }
+
+            result.AddError($"{name} {text} is not a number; write it like {name} {example} (a decimal comma is also read).");
+            return null;
+        };
+        return option;
+    }
+
+    /// <summary>The --seed option: a whole number, checked while parsing (one line naming the option, not a .NET type).</summary>
+    public static Option<int?> SeedOption(string description)
+    {
+        var option = new Option<int?>("--seed") { Description = description };
+        option.CustomParser = result =>
+        {
+            string text = result.Tokens.Count > 0 ? result.Tokens[0].Value : "";
+            if (int.TryParse(text.Trim(), NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int seed))
+            {
+                return seed;
+            }
+
+            result.AddError($"--seed {text} is not a whole number from {int.MinValue.ToString(CultureInfo.InvariantCulture)} to {int.MaxValue.ToString(CultureInfo.InvariantCulture)}; give one like --seed 7.");
+            return null;
+        };
+        return option;
+    }
+
+    /// <summary>
     /// The first problem with the inputs, or null: a word starting with '-' that is no file (a misspelt option, which
     /// would otherwise be read as an input), or a path that is neither a file nor a folder.
     /// </summary>

@@ -63,6 +63,35 @@ internal static class ForecastCommand
         public TemperatureUnit Unit => Fahrenheit ? TemperatureUnit.Fahrenheit : TemperatureUnit.Celsius;
     }
 
+    /// <summary>
+    /// A --running input that is a history input, lies inside a history folder or holds a history input, or null. Read
+    /// both ways, finished lots would be forecast as running (or running lots read as finished lots missing their
+    /// final alcohol): a folder is read with its subfolders.
+    /// </summary>
+    private static string? Overlap(IReadOnlyList<string> history, IReadOnlyList<string> running, string root)
+    {
+        static bool Within(string inner, string outer) =>
+            string.Equals(inner, outer, StringComparison.Ordinal)
+            || inner.StartsWith(Path.TrimEndingDirectorySeparator(outer) + Path.DirectorySeparatorChar, StringComparison.Ordinal);
+
+        foreach (string r in running)
+        {
+            string rf = Path.TrimEndingDirectorySeparator(Path.GetFullPath(r, root));
+            foreach (string h in history)
+            {
+                string hf = Path.TrimEndingDirectorySeparator(Path.GetFullPath(h, root));
+                if (Within(rf, hf) || Within(hf, rf))
+                {
+                    string how = string.Equals(rf, hf, StringComparison.Ordinal) ? "is also given as history"
+                        : Within(rf, hf) ? $"lies in the history's '{h}'" : $"holds the history's '{h}'";
+                    return $"{Name}: --running '{r}' {how}, so finished lots would be read as running or running lots as finished; keep the lots still fermenting in a folder of their own, apart from the history.";
+                }
+            }
+        }
+
+        return null;
+    }
+
     internal static int Run(CliContext context, Request request)
     {
         void Say(string line)
@@ -111,6 +140,11 @@ internal static class ForecastCommand
         else if (history.Count == 0)
         {
             return Usage($"{Name}: the history is missing; give the past seasons' lots and logs (what review reads) before --running.");
+        }
+
+        if (Overlap(history, running, root) is { } overlap)
+        {
+            return Usage(overlap);
         }
 
         string outFolder = Path.GetFullPath(request.Output, context.WorkingDirectory);

@@ -27,8 +27,8 @@ internal static class ReviewCommand
         var mapping = new Option<string?>("--mapping") { Description = "A column-mapping file: one FIELD = HEADER a line." };
         var season = UsageChecks.SeasonOption("Season (vintage year) for files whose season no column, sheet or file name gives.");
         var regime = new Option<string>("--regime") { Description = "Label tolerance the backtest is scored against: us, eu, or custom:TOLERANCE (% v/v, e.g. custom:0.8).", DefaultValueFactory = _ => "us" };
-        var threshold = new Option<double?>("--threshold") { Description = "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14)." };
-        var seed = new Option<int?>("--seed") { Description = "Seed for every random step (default 20261)." };
+        var threshold = UsageChecks.DecimalOption("--threshold", "Alcohol (% v/v) for the wrong-side-of-threshold share (default 14).", "14.5");
+        var seed = UsageChecks.SeedOption("Seed for every random step (default 20261).");
         var classLine = new Option<string?>("--class-line") { Description = "Alcohol (% v/v) a stated value may not cross in the label scoring, or 'none' (default: the regime's own; US 16, the tax-class boundary since 2018; 14 for the rule before)." };
         var includeFlagged = new Option<bool>("--include-flagged-lots") { Description = "Let lots flagged as likely errors or not fermented to dryness teach the house factor (by default they are left out; both versions are reported)." };
         var fahrenheit = new Option<bool>("--fahrenheit") { Description = "Show temperatures in °F (charts, workbook, page, console and data files, whose temperature columns then end in _f)." };

@@ -37,7 +37,7 @@ public sealed record BacktestRow(
 /// <param name="Seasons">Seasons held out.</param>
 public sealed record BacktestResult(IReadOnlyList<BacktestRow> Rows, IReadOnlyList<BacktestCase> Cases, IReadOnlyList<int> Seasons)
 {
-    /// <summary>The same table for red lots and for white and rosé lots apart (whites ferment three times slower).</summary>
+    /// <summary>The same table for red lots and for white and rosé lots apart (their pace differs: <see cref="ForecastSentences.ByColourHeading"/>).</summary>
     public IReadOnlyList<(string Colour, BacktestRow Row)> ByColour { get; init; } = [];
 }
 

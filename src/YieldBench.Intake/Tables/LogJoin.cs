@@ -63,6 +63,24 @@ internal static partial class LogJoin
         var withLog = new HashSet<(string, int)>();
         ILookup<string, (string LotId, int Season, SourceRef? Source)>? lotsById = null;
         bool Matched(FermentationLog log) => log.Season is null ? lotIds.Contains(log.LotId) : lotKeys.Contains((log.LotId, log.Season));
+
+        // With no lot read at all (a logs file checked alone, or a lots table none of whose rows could be used), no log
+        // can match: one warning per sheet says why and names the logs, instead of one per log saying the same thing.
+        if (recorded.Count == 0 && logs.Count > 1)
+        {
+            foreach (var sheet in logs.GroupBy(l => (l.Readings[0].Source!.File, l.Readings[0].Source!.Sheet)))
+            {
+                var first = sheet.First().Readings[0].Source!;
+                var names = sheet.Select(l => l.LotId).ToArray();
+                run.Sink.Warning(first.File, first.Sheet, null, null, names[0], IssueCodes.LogWithoutLot,
+                    names.Length == 1
+                        ? IntakeMessages.LogWithoutLot(names[0], sheet.First().Season is { } s1 ? "season " + s1.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season")
+                        : IntakeMessages.LogsWithoutAnyLot(names));
+            }
+
+            return logs;
+        }
+
         foreach (var log in logs)
         {
             bool matched = Matched(log);

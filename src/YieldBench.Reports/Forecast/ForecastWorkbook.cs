@@ -122,7 +122,7 @@ public static class ForecastWorkbook
             new SheetPlan("Backtest")
                 .Table(Backtest(report, unit), freeze: true)
                 .Gap()
-                .Heading("By colour (whites and rosés ferment about three times slower than reds, so their errors in hours are larger)")
+                .Heading(ForecastSentences.ByColourHeading(report.Backtest))
                 .Table(ByColour(report, unit))
                 .Gap()
                 .Texts(ForecastSentences.Backtest(report.Backtest, unit).Select(l => l.Trim())),
