@@ -230,8 +230,10 @@ public static partial class ScenarioGenerator
         double recordedFactor = r.FinalAlcohol.PercentVolume / recordedBrix;
         return kind switch
         {
-            PlantedKind.TransposedDigits => new(kind, r.Season, r.LotId, ["possible-transposed-digits", "low-factor"],
-                $"starting sugar written {Fmt(recordedBrix)} °Brix for {Fmt(t.StartingBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)} against the strain's {Fmt(Catalog.Strain(t.Strain).TrueFactorAt(t.StartingBrix), 3)}",
+            // The swap crosses the decimal point (24.7 written 27.4), which possible-transposed-digits does not offer (another
+            // number, not a slip of two keys): the review finds the lot low and explains it as likely unrecorded water.
+            PlantedKind.TransposedDigits => new(kind, r.Season, r.LotId, ["low-factor", "possible-unrecorded-water"],
+                $"starting sugar written {Fmt(recordedBrix)} °Brix for {Fmt(t.StartingBrix)}, the digits either side of the point swapped; abv_per_brix reads {Fmt(recordedFactor, 3)} against the strain's {Fmt(Catalog.Strain(t.Strain).TrueFactorAt(t.StartingBrix), 3)}",
                 "starting sugar, °Brix", recordedBrix, t.StartingBrix),
             PlantedKind.UnrecordedWater => new(kind, r.Season, r.LotId, ["possible-unrecorded-water", "low-factor"],
                 $"{Fmt(t.WaterAddedL, 0)} L of water added to {Fmt(r.Additions.MustVolumeL ?? 0, 0)} L of must was not recorded; the must really fermented from {Fmt(t.EffectiveBrix)} °Brix, not {Fmt(recordedBrix)}; abv_per_brix reads {Fmt(recordedFactor, 3)}",
