@@ -56,6 +56,9 @@ public sealed class PlanCommandTests : IDisposable
         var o = new StringWriter(CultureInfo.InvariantCulture);
         var e = new StringWriter(CultureInfo.InvariantCulture);
         int code = YieldBenchApp.Run(["plan", .. args], new CliContext(o, e, false, dir));
+
+        // Every line fits a 100-column terminal, as README's Console promises (plan's lines ran to 250 columns)
+        Assert.All((o.ToString() + e.ToString()).Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
         return (code, o.ToString(), e.ToString());
     }
 
@@ -100,10 +103,10 @@ public sealed class PlanCommandTests : IDisposable
         string f2(double v) => v.ToString("0.00", CultureInfo.InvariantCulture);
         Assert.Contains(
             $"Starting sugar 1.102 SG = {must.Brix.ToString("0.0#", CultureInfo.InvariantCulture)} °Brix: predicted alcohol {f2(expected.Predicted)} % v/v; 80 % interval {f2(expected.Low80)}–{f2(expected.High80)}; 95 % interval {f2(expected.Low95)}–{f2(expected.High95)}.",
-            output,
+            Cli.Flat(output),
             StringComparison.Ordinal);
         Assert.InRange(expected.Predicted, 0.61 * must.Brix - 0.1, 0.61 * must.Brix + 0.1);
-        Assert.All(HouseFactorTexts.PlannerCautions, c => Assert.Contains("- " + c, output, StringComparison.Ordinal));
+        Assert.All(HouseFactorTexts.PlannerCautions, c => Assert.Contains("- " + c, Cli.Flat(output), StringComparison.Ordinal));
     }
 
     [Fact]
@@ -150,11 +153,11 @@ public sealed class PlanCommandTests : IDisposable
         // the juice's sugar, 261.2 g/L × 5000 L, diluted into the volume after, is the table's 239.73 g/L at 24.17 °Brix)
         var answer = Planner.WaterAddBack(PlanningModel.FromFactor(0.6).Pooled, SugarReading.FromBrix(26), 5000, 14.5, null);
         Assert.Equal(0, code);
-        Assert.Contains("Juice: 5000 L (the volume given is taken as juice; for must on skins give --pomace-share) at 26.0 °Brix", output, StringComparison.Ordinal);
-        Assert.Contains($"Add {answer.WaterL.ToString("0", CultureInfo.InvariantCulture)} L of water: the juice comes to 24.2 °Brix and {answer.VolumeAfterL.ToString("0", CultureInfo.InvariantCulture)} L by the review's mass balance", output, StringComparison.Ordinal);
+        Assert.Contains("Juice: 5000 L (the volume given is taken as juice; for must on skins give --pomace-share) at 26.0 °Brix", Cli.Flat(output), StringComparison.Ordinal);
+        Assert.Contains($"Add {answer.WaterL.ToString("0", CultureInfo.InvariantCulture)} L of water: the juice comes to 24.2 °Brix and {answer.VolumeAfterL.ToString("0", CultureInfo.InvariantCulture)} L by the review's mass balance", Cli.Flat(output), StringComparison.Ordinal);
         Assert.InRange(answer.WaterL, 440, 460);
-        Assert.Contains("Factor: 0.6000 % v/v per °Brix.", output, StringComparison.Ordinal);
-        Assert.Contains("Rules on water additions and on labelling alcohol differ by country", output, StringComparison.Ordinal);
+        Assert.Contains("Factor: 0.6000 % v/v per °Brix.", Cli.Flat(output), StringComparison.Ordinal);
+        Assert.Contains("Rules on water additions and on labelling alcohol differ by country", Cli.Flat(output), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -162,11 +165,11 @@ public sealed class PlanCommandTests : IDisposable
     {
         var ok = Plan("--factor", "0,6", "--sugar", "24,0");
         Assert.Equal(0, ok.Code);
-        Assert.Contains("predicted alcohol 14.40 % v/v", ok.Out, StringComparison.Ordinal);
+        Assert.Contains("predicted alcohol 14.40 % v/v", Cli.Flat(ok.Out), StringComparison.Ordinal);
 
         var bad = Plan("--factor", "0.6", "--sugar", "twenty");
         Assert.Equal(2, bad.Code);
-        Assert.Equal("plan: --sugar twenty is not a number; write it like 24.5 (a decimal comma, 24,5, is also read).\n", bad.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal("plan: --sugar twenty is not a number; write it like 24.5 (a decimal comma, 24,5, is also read).", Cli.Flat(bad.Err).Trim());
     }
 
     [Fact]
@@ -175,7 +178,7 @@ public sealed class PlanCommandTests : IDisposable
         // README, Exit codes: a missing input is exit 2, and paths are shown as the user gave them
         var (code, _, err) = Plan("--factor-file", "nowhere.json", "--sugar", "24");
         Assert.Equal(2, code);
-        Assert.Equal("plan: --factor-file nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.\n", err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal("plan: --factor-file nowhere.json: no such file. Give the house-factor.json written by 'yieldbench review' in its output's data folder.", Cli.Flat(err).Trim());
     }
 
     [Fact]
@@ -193,9 +196,9 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then both are exit 2 in one line; the first says which file to give
         Assert.Equal(2, a.Code);
-        Assert.Equal($"plan: --factor-file review 2025 is a folder, not a file; give --factor-file {Path.Combine("review 2025", "data", "house-factor.json")}.\n", a.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal($"plan: --factor-file review 2025 is a folder, not a file; give --factor-file {Path.Combine("review 2025", "data", "house-factor.json")}.", Cli.Flat(a.Err).Trim());
         Assert.Equal(2, b.Code);
-        Assert.Equal("plan: --factor-file empty is a folder, not a house-factor.json; give the house-factor.json in a review's data folder.\n", b.Err.Replace("\r\n", "\n", StringComparison.Ordinal));
+        Assert.Equal("plan: --factor-file empty is a folder, not a house-factor.json; give the house-factor.json in a review's data folder.", Cli.Flat(b.Err).Trim());
     }
 
     [Fact]
@@ -213,8 +216,8 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then it names the property and the line, and no reader type name
         Assert.Equal(1, code);
-        Assert.Contains("house-factor.json: not a readable house-factor file at line ", err, StringComparison.Ordinal);
-        Assert.Contains("(the value of planning.pooled.slope_abv_per_brix is not of the kind this file holds there). Write it again with 'yieldbench review'.", err, StringComparison.Ordinal);
+        Assert.Contains("house-factor.json: not a readable house-factor file at line ", Cli.Flat(err), StringComparison.Ordinal);
+        Assert.Contains("(the value of planning.pooled.slope_abv_per_brix is not of the kind this file holds there). Write it again with 'yieldbench review'.", Cli.Flat(err), StringComparison.Ordinal);
         Assert.DoesNotContain("YieldBench", err.Replace("'yieldbench review'", string.Empty, StringComparison.Ordinal), StringComparison.Ordinal);
     }
 
@@ -223,7 +226,7 @@ public sealed class PlanCommandTests : IDisposable
     {
         var (code, _, err) = Plan("--factor-file", "x.json", "--factor", "0.6");
         Assert.Equal(2, code);
-        Assert.StartsWith("plan: give one of --factor-file", err, StringComparison.Ordinal);
+        Assert.StartsWith("plan: give one of --factor-file", Cli.Flat(err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -239,7 +242,7 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then it is an input problem naming the reason
         Assert.Equal(1, code);
-        Assert.Contains("the review chose no house factor, so there is nothing to plan with. Too few lots to choose a house factor: 5 usable", err, StringComparison.Ordinal);
+        Assert.Contains("the review chose no house factor, so there is nothing to plan with. Too few lots to choose a house factor: 5 usable", Cli.Flat(err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -257,10 +260,10 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then both are input problems that say what to do
         Assert.Equal(1, a.Code);
-        Assert.Contains("other.json: not a house-factor file (its \"kind\" is not \"house-factor\"). Give the house-factor.json written by 'yieldbench review'.", a.Err, StringComparison.Ordinal);
+        Assert.Contains("other.json: not a house-factor file (its \"kind\" is not \"house-factor\"). Give the house-factor.json written by 'yieldbench review'.", Cli.Flat(a.Err), StringComparison.Ordinal);
         Assert.Equal(1, b.Code);
-        Assert.Contains("broken.json: not a readable house-factor file at line 1", b.Err, StringComparison.Ordinal);
-        Assert.Contains("Write it again with 'yieldbench review'.", b.Err, StringComparison.Ordinal);
+        Assert.Contains("broken.json: not a readable house-factor file at line 1", Cli.Flat(b.Err), StringComparison.Ordinal);
+        Assert.Contains("Write it again with 'yieldbench review'.", Cli.Flat(b.Err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -268,7 +271,7 @@ public sealed class PlanCommandTests : IDisposable
     {
         var (code, _, err) = Plan("--factor", "0.6", "--sugar", "24", "--scale", "plato");
         Assert.Equal(2, code);
-        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle, kmw or gl.", err, StringComparison.Ordinal);
+        Assert.Contains("plan: --scale plato is not known; use brix, sg, baume, oechsle, kmw or gl.", Cli.Flat(err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -283,13 +286,13 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then the first uses SX-02's line and shows its factor beside the pooled one; the second exits 2 naming the known strains
         Assert.Equal(0, ok.Code);
-        Assert.Contains("Predictor for strain SX-02 (candidate ", ok.Out, StringComparison.Ordinal);
+        Assert.Contains("Predictor for strain SX-02 (candidate ", Cli.Flat(ok.Out), StringComparison.Ordinal);
         var model = review.Planning!;
         string f4(double v) => v.ToString("0.0000", CultureInfo.InvariantCulture);
-        Assert.Contains($"Factor: {f4(model.FactorOf(model.For("SX-02")))} % v/v per °Brix at {model.ReferenceBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix (the lots' median starting sugar); all strains pooled: {f4(model.FactorOf(model.Pooled))}.", ok.Out, StringComparison.Ordinal);
+        Assert.Contains($"Factor: {f4(model.FactorOf(model.For("SX-02")))} % v/v per °Brix at {model.ReferenceBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix (the lots' median starting sugar); all strains pooled: {f4(model.FactorOf(model.Pooled))}.", Cli.Flat(ok.Out), StringComparison.Ordinal);
         Assert.InRange(model.FactorOf(model.For("SX-02")), 0.60, 0.62); // the true factor is 0.61
         Assert.Equal(2, bad.Code);
-        Assert.Contains("plan: --strain SX-77 is not a strain of this house factor; known strains: SX-01, SX-02.", bad.Err, StringComparison.Ordinal);
+        Assert.Contains("plan: --strain SX-77 is not a strain of this house factor; known strains: SX-01, SX-02.", Cli.Flat(bad.Err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -306,11 +309,11 @@ public sealed class PlanCommandTests : IDisposable
         // Then the first two exit 2 saying the range in the scale given (10 °Brix = SG 1.040, 40 °Brix = SG 1.179:
         // Zoecklein et al. Table I-1 gives 1.04002 at 10 %), and the third answers with a warning
         Assert.Equal(2, low.Code);
-        Assert.Contains("plan: --sugar 5 °Brix is outside 10–40 °Brix, the range of a must's starting sugar", low.Err, StringComparison.Ordinal);
+        Assert.Contains("plan: --sugar 5 °Brix is outside 10–40 °Brix, the range of a must's starting sugar", Cli.Flat(low.Err), StringComparison.Ordinal);
         Assert.Equal(2, sg.Code);
-        Assert.Contains("is outside 1.040–1.179 SG (10–40 °Brix)", sg.Err, StringComparison.Ordinal);
+        Assert.Contains("is outside 1.040–1.179 SG (10–40 °Brix)", Cli.Flat(sg.Err), StringComparison.Ordinal);
         Assert.Equal(0, high.Code);
-        Assert.Contains($"Warning: 29.0 °Brix is outside the {review.Planning!.HistoryLowBrix.ToString("0.0", CultureInfo.InvariantCulture)}–{review.Planning.HistoryHighBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix of the lots the house factor learned from, so the prediction extrapolates", high.Out, StringComparison.Ordinal);
+        Assert.Contains($"Warning: 29.0 °Brix is outside the {review.Planning!.HistoryLowBrix.ToString("0.0", CultureInfo.InvariantCulture)}–{review.Planning.HistoryHighBrix.ToString("0.0", CultureInfo.InvariantCulture)} °Brix of the lots the house factor learned from, so the prediction extrapolates", Cli.Flat(high.Out), StringComparison.Ordinal);
     }
 
     [Theory]
@@ -328,7 +331,7 @@ public sealed class PlanCommandTests : IDisposable
         // Then it exits 2 naming the likely scale and the option that says it (a value that looks like none keeps the
         // general advice)
         Assert.Equal(2, run.Code);
-        Assert.Contains(hint, run.Err, StringComparison.Ordinal);
+        Assert.Contains(hint, Cli.Flat(run.Err), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -341,8 +344,8 @@ public sealed class PlanCommandTests : IDisposable
         var juiceOnly = Plan("--factor", "0.6", "--volume", "4000", "--sugar", "26", "--target", "14.5");
 
         // Then the first says no water is needed, and the second balances only its 4000 L of juice
-        Assert.Contains("No water needed: the juice's predicted alcohol, 13.2 % v/v, is already at or below the aim of 14.5 % v/v.", none.Out, StringComparison.Ordinal);
-        Assert.Contains("Juice: 4000 L (the 5000 L given less 20 % skins and seeds; only the juice enters the balance)", skins.Out, StringComparison.Ordinal);
+        Assert.Contains("No water needed: the juice's predicted alcohol, 13.2 % v/v, is already at or below the aim of 14.5 % v/v.", Cli.Flat(none.Out), StringComparison.Ordinal);
+        Assert.Contains("Juice: 4000 L (the 5000 L given less 20 % skins and seeds; only the juice enters the balance)", Cli.Flat(skins.Out), StringComparison.Ordinal);
         string Add(string text) => text.Split('\n').First(l => l.StartsWith("Add ", StringComparison.Ordinal));
         Assert.Equal(Add(juiceOnly.Out), Add(skins.Out));
     }
@@ -365,8 +368,8 @@ public sealed class PlanCommandTests : IDisposable
 
         // Then it chooses a house factor from them and answers with intervals
         Assert.Equal(0, code);
-        Assert.Matches(@"chosen by the one-standard-error rule on leave-one-season-out, .* from \d+ lots read now\.", output);
-        Assert.Matches(@"Starting sugar 24\.0 °Brix: predicted alcohol \d+\.\d\d % v/v; 80 % interval ", output);
+        Assert.Matches(@"chosen by the one-standard-error rule on leave-one-season-out, .* from \d+ lots read now\.", Cli.Flat(output));
+        Assert.Matches(@"Starting sugar 24\.0 °Brix: predicted alcohol \d+\.\d\d % v/v; 80 % interval ", Cli.Flat(output));
     }
 
     [Fact]
@@ -374,6 +377,6 @@ public sealed class PlanCommandTests : IDisposable
     {
         var (code, _, err) = Plan("--lots", "x.csv", "--factor", "0.6");
         Assert.Equal(2, code);
-        Assert.StartsWith("plan: give one of --factor-file", err, StringComparison.Ordinal);
+        Assert.StartsWith("plan: give one of --factor-file", Cli.Flat(err), StringComparison.Ordinal);
     }
 }

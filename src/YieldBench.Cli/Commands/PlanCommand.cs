@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using YieldBench.Cli.CommandLine;
 using YieldBench.Core.Conversion;
 using YieldBench.Core.HouseFactor;
 using YieldBench.Core.Lots;
@@ -83,7 +84,7 @@ internal static class PlanCommand
 
     private static int Run(Request r, CliContext context)
     {
-        var err = context.Error;
+        using var err = new WrappingWriter(context.Error); // lines fit a 100-column terminal (README, Console)
         int sources = (r.FactorFile is null ? 0 : 1) + (r.Factor is null ? 0 : 1) + (r.LotFiles.Length == 0 ? 0 : 1);
         if (sources != 1)
         {
@@ -281,7 +282,7 @@ internal static class PlanCommand
             }
         }
 
-        var o = context.Out;
+        using var o = new WrappingWriter(context.Out);
         var line = model.For(strain);
         o.WriteLine($"Planner basis: {model.Basis}" + (regime is null || model.Basis.Contains(regime, StringComparison.Ordinal) ? "." : $" (label tolerance scored: {regime})."));
         if (r.Strain is not null && model.Strains.Count == 0)
@@ -366,7 +367,7 @@ internal static class PlanCommand
         int leftOut = set.Issues.Count(i => i.Severity == IssueSeverity.Error);
         if (set.Issues.Count > 0)
         {
-            context.Error.WriteLine($"plan: {set.Issues.Count} intake issue(s), {leftOut} of them leaving a row or file out; run 'yieldbench check' or 'yieldbench review' on the same files to see each with its fix.");
+            TextWrap.WriteLine(context.Error, $"plan: {set.Issues.Count} intake issue(s), {leftOut} of them leaving a row or file out; run 'yieldbench check' or 'yieldbench review' on the same files to see each with its fix.");
         }
 
         var settings = new ReviewSettings();
@@ -376,7 +377,7 @@ internal static class PlanCommand
         var review = HouseFactorAnalysis.Run(lots, flags, settings.HouseFactor, [], settings.Seed);
         if (review.Planning is null)
         {
-            context.Error.WriteLine("plan: no house factor could be chosen from these lots. " + string.Join(" ", review.Explanation));
+            TextWrap.WriteLine(context.Error, "plan: no house factor could be chosen from these lots. " + string.Join(" ", review.Explanation));
             return null;
         }
 
