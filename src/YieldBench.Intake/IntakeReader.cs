@@ -327,7 +327,7 @@ public static class IntakeReader
         }
         else
         {
-            foreach (var sheet in notTables)
+            foreach (var sheet in notTables.Where(s => !TemplateWriter.IsColumnsGuide(s)))
             {
                 sink.Warning(file, sheet.Name, null, null, null, IssueCodes.SheetSkipped, IntakeMessages.SheetSkipped(HeaderDetection.SearchRows));
             }

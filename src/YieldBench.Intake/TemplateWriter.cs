@@ -18,6 +18,17 @@ public static class TemplateWriter
     /// <summary>Name of the sheet explaining the columns.</summary>
     public const string ColumnsSheet = "Columns";
 
+    /// <summary>The header row of the <see cref="ColumnsSheet"/>, the template's guide to its columns.</summary>
+    internal static readonly string[] ColumnsSheetHeaders = ["Sheet", "Column", "Field name", "Unit", "Required", "Meaning", "Example"];
+
+    /// <summary>
+    /// True for the template's own guide sheet (named <see cref="ColumnsSheet"/>, its first row these headers): it holds
+    /// no lots or readings, so intake passes it over without a sheet-skipped warning (a filled-in template warned of it).
+    /// </summary>
+    internal static bool IsColumnsGuide(RawSheet sheet) =>
+        string.Equals(sheet.Name, ColumnsSheet, StringComparison.OrdinalIgnoreCase) && sheet.Rows.Count > 0
+        && ColumnsSheetHeaders.Select((h, i) => (h, i)).All(x => sheet.Cell(0, x.i) is string s && string.Equals(s.Trim(), x.h, StringComparison.OrdinalIgnoreCase));
+
     /// <summary>Rows given data validation and number formats below each header.</summary>
     public const int PreparedRows = 2000;
 
@@ -125,7 +136,7 @@ public static class TemplateWriter
 
     private static void WriteColumnsSheet(IXLWorksheet ws)
     {
-        string[] headers = ["Sheet", "Column", "Field name", "Unit", "Required", "Meaning", "Example"];
+        string[] headers = ColumnsSheetHeaders;
         for (int i = 0; i < headers.Length; i++)
         {
             ws.Cell(1, i + 1).Value = headers[i];

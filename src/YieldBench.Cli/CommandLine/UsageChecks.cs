@@ -173,7 +173,7 @@ internal static class UsageChecks
         string? folder = Path.GetDirectoryName(full);
         if (folder is null || !Directory.Exists(folder))
         {
-            return $"{command}: the folder of {option} '{Shown(shown)}' does not exist.";
+            return $"{command}: the folder of {option} '{Shown(shown)}' does not exist; create it first, or give a file in a folder that exists.";
         }
 
         return CanCreateIn(folder) ? null : $"{command}: cannot write in '{Shown(folder)}' (read-only, or no permission); give another {option}.";

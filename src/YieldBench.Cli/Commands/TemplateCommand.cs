@@ -39,7 +39,7 @@ internal static class TemplateCommand
             string? dir = Path.GetDirectoryName(full);
             if (dir is not null && !Directory.Exists(dir))
             {
-                TextWrap.WriteLine(context.Error, $"template: the folder of '{UsageChecks.Shown(path)}' does not exist.");
+                TextWrap.WriteLine(context.Error, $"template: the folder of '{UsageChecks.Shown(path)}' does not exist; create it first, or give a file in a folder that exists.");
                 return ExitCodes.Usage;
             }
 
