@@ -272,7 +272,7 @@ public class StrainReviewerTests
         var flag = review.Flags.Single(f => f.LotKey == new LotKey(2024, "P-SWAP-1") && f.Code == FlagCodes.PossibleTransposedDigits);
         Assert.StartsWith("the starting sugar was recorded as 42.2 °Brix; with two neighbouring digits swapped (24.2 °Brix)", flag.Reason, StringComparison.Ordinal);
         Assert.Equal(FlagSeverity.LikelyError, flag.Severity);
-        Assert.Equal(FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip", flag.FollowUp);
+        Assert.Equal(FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a copying slip", flag.FollowUp);
     }
 
     [Fact]

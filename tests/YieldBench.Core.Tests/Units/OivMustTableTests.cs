@@ -61,7 +61,7 @@ public class OivMustTableTests
     [Fact]
     public void Every_step_of_the_table_follows_its_neighbours_trend()
     {
-        // Given the embedded column (a transcription: a mistyped row would break the trend)
+        // Given the embedded column (copied by hand: a mistyped row would break the trend)
         var sugar = OivMustTable.SugarColumn.Select(c => c.SugarGl).ToArray();
 
         // When the steps and the changes between steps are taken

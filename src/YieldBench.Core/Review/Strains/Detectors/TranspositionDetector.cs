@@ -79,7 +79,7 @@ internal static class TranspositionDetector
             found.Brix,
             line.Scale,
             Invariant($"the starting sugar was recorded as {text} {unit}; with two neighbouring digits swapped ({found.Text} {unit}) the lot's {lot.Abv:0.00} % v/v would sit on the line of {line.Name} (residual {found.Z:+0.0;-0.0} scales instead of {c.LineZ:+0.0;-0.0})"),
-            FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a transcription slip") with
+            FollowUps.RecheckStartingSugar + "; check the original harvest or crush record for a copying slip") with
         {
             Suggestion = found.Text + " " + unit,
             Recorded = text + " " + unit,
