@@ -229,10 +229,18 @@ internal sealed class SheetPlan(string name)
         {
             var cell = ws.Cell(headerRow, c + 1);
             SheetLayout.SetText(cell, table.Columns[c].Heading);
-            headerLines = Math.Max(headerLines, measure.Lines(table.Columns[c].Heading, TextMeasure.TextPixels(widths[c]), TextMeasure.BodySize, bold: true));
+            headerLines = Math.Max(headerLines, measure.Lines(table.Columns[c].Heading, TextMeasure.TextPixels(widths[c]) - IndentPixels(measure, table, c), TextMeasure.BodySize, bold: true));
         }
 
         var header = ws.Range(headerRow, 1, headerRow, cols);
+        for (int c = 0; c < cols; c++)
+        {
+            if (IndentedAfterNumber(table, c))
+            {
+                Indent(ws.Cell(headerRow, c + 1));
+            }
+        }
+
         header.Style.Font.Bold = true;
         header.Style.Fill.BackgroundColor = XLColor.FromHtml("#" + ChartPalette.HeaderFillHex);
         header.Style.Alignment.WrapText = true;
@@ -259,6 +267,11 @@ internal sealed class SheetPlan(string name)
                 Template(cell, column);
                 cell.Style.Alignment.Vertical = XLAlignmentVerticalValues.Top;
                 cell.Style.Alignment.WrapText = wraps[c];
+                if (IndentedAfterNumber(table, c))
+                {
+                    Indent(cell);
+                }
+
                 if (column.Kind != CellKind.Text)
                 {
                     cell.Style.NumberFormat.Format = column.EffectiveNumberFormat;
@@ -275,7 +288,7 @@ internal sealed class SheetPlan(string name)
             {
                 if (wraps[c] && table.Cell(r, c) is string s && s.Length > 0)
                 {
-                    double px = TextMeasure.TextPixels(widths[c]);
+                    double px = TextMeasure.TextPixels(widths[c]) - IndentPixels(measure, table, c);
                     lines = Math.Max(lines, measure.Width(s) <= px && s.IndexOf('\n', StringComparison.Ordinal) < 0 ? 1 : measure.Lines(s, px));
                 }
             }
@@ -292,6 +305,22 @@ internal sealed class SheetPlan(string name)
 
         // Rows after a table start below both template rows, also for a table of one row.
         return Math.Max(last, first + 1) + 2;
+    }
+
+    /// <summary>
+    /// A text column right of a number column starts one indent in (three spaces, ECMA-376's unit), so a right-aligned
+    /// number and the text beside it do not run together ("218all 218 lots…" in a spreadsheet application).
+    /// </summary>
+    internal static bool IndentedAfterNumber(ReportTable table, int c) =>
+        c > 0 && table.Columns[c].Kind == CellKind.Text && table.Columns[c - 1].Kind != CellKind.Text;
+
+    private static double IndentPixels(TextMeasure measure, ReportTable table, int c) =>
+        IndentedAfterNumber(table, c) ? measure.Width("   ") : 0;
+
+    private static void Indent(IXLCell cell)
+    {
+        cell.Style.Alignment.Horizontal = XLAlignmentHorizontalValues.Left;
+        cell.Style.Alignment.Indent = 1;
     }
 
     // A value of the column's kind, so the template cell gets the style a real value would; empty text leaves no
@@ -386,6 +415,8 @@ internal sealed class SheetPlan(string name)
                         {
                             widest = Math.Max(widest, CellWidth(measure, table.Cell(r, c), column.Kind, format));
                         }
+
+                        widest += IndentPixels(measure, table, c);
 
                         // Room the column has already (from the main table) that a text of this table wraps within.
                         double room = t != main ? Math.Max(px[c], ReadableWrapPixels) : wrapPx;

@@ -29,6 +29,8 @@ public sealed class LayoutTests
         return WorkbookWriter.Build(review, [], includePictures: false);
     });
 
+    private static readonly TextMeasure Measure = new();
+
     /// <summary>Every written cell of every sheet, with the room the sheet gives it, as the package states it.</summary>
     private static IEnumerable<(string Sheet, string Address, string Text, bool Wrap, double Size, bool Bold, double WidthPx, double HeightPt, bool Numeric)> Cells(byte[] bytes)
     {
@@ -71,7 +73,9 @@ public sealed class LayoutTests
                     bool bold = font.Bold is not null;
                     bool wrap = xf.Alignment?.WrapText?.Value ?? false;
                     var (column, rowNumber) = StreamedSheet.ParseReference(reference);
-                    double width = Px(column);
+                    // An indent (ECMA-376: each level is three spaces of the body font) takes room from the text.
+                    double indent = (xf.Alignment?.Indent?.Value ?? 0) * Measure.Width("   ");
+                    double width = Px(column) - indent;
                     if (merged.TryGetValue(reference, out var end))
                     {
                         int last = StreamedSheet.ParseReference(end).Column;
@@ -103,6 +107,32 @@ public sealed class LayoutTests
                 }
             }
         }
+    }
+
+    [Fact]
+    public void A_text_column_right_of_a_number_column_starts_one_indent_in_and_others_do_not()
+    {
+        // Given the demo's workbook, whose Overview factor table has "Held-out lots scored" (numbers, right-aligned)
+        // followed by "Ranges from" (text), and "Strain" (text) first
+        using var doc = SpreadsheetDocument.Open(new MemoryStream(DemoWorkbook.Value), false);
+        var wb = doc.WorkbookPart!;
+        var xfs = wb.WorkbookStylesPart!.Stylesheet.CellFormats!.Elements<CellFormat>().ToArray();
+        var shared = wb.SharedStringTablePart!.SharedStringTable.Elements<SharedStringItem>().Select(i => i.InnerText).ToArray();
+        var sheet = wb.Workbook.Sheets!.Elements<Sheet>().First();
+        var cells = ((WorksheetPart)wb.GetPartById(sheet.Id!)).Worksheet.Descendants<Cell>().ToArray();
+        string? Text(Cell c) => c.DataType?.Value == CellValues.SharedString && c.CellValue is { } v ? shared[int.Parse(v.Text, CultureInfo.InvariantCulture)] : c.InlineString?.InnerText;
+        uint Indent(Cell c) => xfs[(int)(c.StyleIndex?.Value ?? 0)].Alignment?.Indent?.Value ?? 0;
+        Cell Below(Cell header) => cells.First(c => c.CellReference!.Value == WorkbookWriter.ColumnLetter(StreamedSheet.ParseReference(header.CellReference!.Value!).Column) + (StreamedSheet.ParseReference(header.CellReference!.Value!).Row + 1).ToString(CultureInfo.InvariantCulture));
+
+        // When the headings and the first row under them are read
+        var ranges = cells.First(c => Text(c) == "Ranges from");
+        var strain = cells.First(c => Text(c) == "Strain");
+
+        // Then the text after the numbers is indented one level, heading and values alike (before: "218all 218 lots…"
+        // in LibreOffice), and the first column is not
+        Assert.Equal((1u, 1u), (Indent(ranges), Indent(Below(ranges))));
+        Assert.StartsWith("all ", Text(Below(ranges)), StringComparison.Ordinal);
+        Assert.Equal((0u, 0u), (Indent(strain), Indent(Below(strain))));
     }
 
     [Theory]
