@@ -106,6 +106,17 @@ public static class YieldBenchApp
                 CommandLine.TextWrap.WriteLine(context.Error, error.Message);
             }
 
+            // A word left over right after an option's value is most often the rest of a value with a space in it.
+            foreach (var token in parse.UnmatchedTokens)
+            {
+                int i = Array.IndexOf(args, token);
+                if (i >= 2 && args[i - 2].StartsWith("--", StringComparison.Ordinal) && !args[i - 1].StartsWith('-'))
+                {
+                    CommandLine.TextWrap.WriteLine(context.Error, $"'{token}' follows the value of {args[i - 2]}: a value with a space in it is written in quotes, {args[i - 2]} \"{args[i - 1]} {token}\".");
+                    break;
+                }
+            }
+
             string command = parse.CommandResult.Command == root ? "" : parse.CommandResult.Command.Name + " ";
             context.Error.WriteLine($"Run 'yieldbench {command}--help' for usage.");
             return ExitCodes.Usage;

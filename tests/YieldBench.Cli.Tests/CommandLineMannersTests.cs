@@ -63,6 +63,7 @@ public sealed class CommandLineMannersTests : IDisposable
         { ["forecast", "--quite"], "forecast: '--quite' is not an option of forecast; did you mean '--quiet'?" },
         { ["forecast", "lots-2023.csv", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' is also given as history, so finished lots would be read as running or running lots as finished; keep the lots still fermenting in a folder of their own, apart from the history." },
         { ["forecast", ".", "--running", "lots-2023.csv"], "forecast: --running 'lots-2023.csv' lies in the history's '.'" },
+        { ["plan", "--factor", "0.59", "--strain", "QX", "7", "--sugar", "24"], "'7' follows the value of --strain: a value with a space in it is written in quotes, --strain \"QX 7\"." },
         { ["forecast", "lots-2023.csv", "--running", "."], "forecast: --running '.' holds the history's 'lots-2023.csv'" },
     };
 

@@ -678,8 +678,12 @@ public sealed class ReviewCommandInputTests : IDisposable
         // When reviewed with the class line at 14 %, and with a class line that is not a number
         var (exit, output, _) = Cli.Run(root, "review", "lots", "--class-line", "14", "--out", "r");
         var bad = Cli.Run(root, "review", "lots", "--class-line", "sixteen", "--out", "s");
+        var comma = Cli.Run(root, "review", "lots", "--class-line", "14,5", "--out", "c");
 
-        // Then the first scores against the US rule with the line at 14 % and says so, and the second exits 2
+        // Then the first scores against the US rule with the line at 14 % and says so, and the second exits 2; a decimal
+        // comma is read as --threshold reads it (14,5 was refused as not understood)
+        Assert.Equal(0, comma.Exit);
+        Assert.Contains("class line 14.5 % tolerance", System.Text.RegularExpressions.Regex.Replace(comma.Out, @"\s+", " "), StringComparison.Ordinal);
         Assert.Equal(0, exit);
         // (the summary wraps at 100 columns: read it as one line of words)
         Assert.Contains("within the United States (TTB), class line 14 % tolerance", System.Text.RegularExpressions.Regex.Replace(output, @"\s+", " "), StringComparison.Ordinal);

@@ -40,11 +40,7 @@ internal static class UsageChecks
         option.CustomParser = result =>
         {
             string text = result.Tokens.Count > 0 ? result.Tokens[0].Value : "";
-            string t = text.Trim();
-            var comma = new NumberFormatInfo { NumberDecimalSeparator = "," };
-            if ((double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v)
-                    || (!t.Contains('.', StringComparison.Ordinal) && double.TryParse(t, NumberStyles.Float, comma, out v)))
-                && double.IsFinite(v))
+            if (TryDecimal(text, out double v))
             {
                 return v;
             }
@@ -53,6 +49,16 @@ internal static class UsageChecks
             return null;
         };
         return option;
+    }
+
+    /// <summary>A decimal number written with a point, or with a decimal comma when no point is present (14,5).</summary>
+    public static bool TryDecimal(string text, out double value)
+    {
+        string t = text.Trim();
+        var comma = new NumberFormatInfo { NumberDecimalSeparator = "," };
+        return (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out value)
+                || (!t.Contains('.', StringComparison.Ordinal) && double.TryParse(t, NumberStyles.Float, comma, out value)))
+            && double.IsFinite(value);
     }
 
     /// <summary>The --seed option: a whole number, checked while parsing (one line naming the option, not a .NET type).</summary>

@@ -88,7 +88,7 @@ internal static class ReviewCommand
             {
                 regime = regime.WithNoCrossingLine(null);
             }
-            else if (double.TryParse(c, NumberStyles.Float, CultureInfo.InvariantCulture, out double line) && line > 0 && line <= 25)
+            else if (UsageChecks.TryDecimal(c, out double line) && line > 0 && line <= 25)
             {
                 regime = regime.WithNoCrossingLine(line);
             }
