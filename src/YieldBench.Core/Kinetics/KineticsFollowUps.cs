@@ -51,20 +51,49 @@ public static class KineticsFollowUps
         return items;
     }
 
+    /// <summary>
+    /// What to check for cooling next harvest. Cap management is named for reds only: a white or rosé ferments as juice,
+    /// with no cap of skins to manage (common practice); for a lot of unknown colour it is named as depending on it.
+    /// </summary>
+    public static string CoolingFollowUp(WineColour colour) => colour switch
+    {
+        WineColour.Red => "Check cooling capacity and cap management for this vessel before next harvest;" + Hazards,
+        WineColour.White or WineColour.Rose => "Check cooling capacity for this vessel before next harvest;" + Hazards,
+        _ => "Check cooling capacity for this vessel (and cap management, if the must ferments on its skins) before next harvest;" + Hazards,
+    };
+
+    /// <summary>What a stuck ferment's follow-up asks to check, the cap only where there is one.</summary>
+    public static string StuckChecks(WineColour colour) => colour switch
+    {
+        WineColour.Red => "check temperature, nutrients (YAN) and cap.",
+        WineColour.White or WineColour.Rose => "check temperature and nutrients (YAN).",
+        _ => "check temperature, nutrients (YAN) and, on skins, the cap.",
+    };
+
+    /// <summary>What took heat away between the potential and the logged peak, the cap only where there is one.</summary>
+    public static string WhatRemovedHeat(WineColour colour) => colour switch
+    {
+        WineColour.Red => "the vessel, cap management and cooling",
+        WineColour.White or WineColour.Rose => "the vessel and cooling",
+        _ => "the vessel, cooling and (on skins) cap management",
+    };
+
+    private const string Hazards = " fermentation heat and CO2 in the cellar are hazards — ventilate and follow local safety rules.";
+
     private static LotFlag Item(LotKinetics k, string code, string reason, KineticsSettings s)
     {
         const string CheckFinish = "Confirm the lot finished (lab residual sugar); if it did not, consider a restart protocol per licensed practice.";
-        const string Cooling = "Check cooling capacity and cap management for this vessel before next harvest; fermentation heat and CO2 in the cellar are hazards — ventilate and follow local safety rules.";
+        string cooling = CoolingFollowUp(k.Lot.Colour);
         var (severity, measure, value, reference, threshold, followUp) = code switch
         {
             KineticsCodes.Stuck => (FlagSeverity.Check, "rate_brix_per_day", k.Stuck?.MeanRateBrixPerDay ?? double.NaN, "stuck rule", s.StuckRateBrixPerDay,
-                "Taste and measure sugar now; check temperature, nutrients (YAN) and cap. " + CheckFinish),
+                "Taste and measure sugar now; " + StuckChecks(k.Lot.Colour) + " " + CheckFinish),
             KineticsCodes.Sluggish => (FlagSeverity.Note, "rate_brix_per_day", k.Sluggish?.MeanRateBrixPerDay ?? double.NaN, "sluggish rule", s.SluggishRateFor(k.Lot.Colour),
                 "Watch the lot until dry; check temperature and nutrients (YAN). " + CheckFinish),
             KineticsCodes.AboveDangerTemp => (FlagSeverity.Check, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "danger temperature", k.Thresholds.DangerC,
-                Cooling + " " + CheckFinish),
+                cooling + " " + CheckFinish),
             KineticsCodes.AboveCautionTemp => (FlagSeverity.Note, "peak_temperature_c", k.PeakTemperatureC ?? double.NaN, "caution temperature", k.Thresholds.CautionC,
-                Cooling),
+                cooling),
             KineticsCodes.NotDryAtLogEnd => (FlagSeverity.Check, "final_brix", k.FinalBrix, "dry reading", s.DryBrix,
                 CheckFinish),
             _ => throw new ArgumentOutOfRangeException(nameof(code), code, "Not a kinetics follow-up code."),

@@ -14,7 +14,7 @@ namespace YieldBench.Core.Kinetics;
 internal static class LotAnalysis
 {
     /// <summary>What one step passes on: the lot's key, flags and findings so far, settings.</summary>
-    private sealed record Context(LotKey Key, HashSet<string> Flags, List<KineticsFinding> Findings, KineticsSettings Settings)
+    private sealed record Context(LotKey Key, HashSet<string> Flags, List<KineticsFinding> Findings, KineticsSettings Settings, WineColour Colour)
     {
         public void Report(string code, string message, SourceRef? source, bool flag = true)
         {
@@ -49,7 +49,7 @@ internal static class LotAnalysis
     public static LotKinetics? Analyse(LotConversion conversion, IReadOnlyList<LogReading> raw, KineticsSettings s, List<KineticsFinding> findings)
     {
         var lot = conversion.Lot;
-        var cx = new Context(lot.Key, new HashSet<string>(StringComparer.Ordinal), findings, s);
+        var cx = new Context(lot.Key, new HashSet<string>(StringComparer.Ordinal), findings, s, lot.Colour);
         var readings = Prepare(raw, cx);
         if (readings.Sugar.Count < 2)
         {
@@ -421,7 +421,7 @@ internal static class LotAnalysis
             // Not a lot flag: at ordinary must sugar nearly every lot passes the danger level on paper; the finding is a
             // reminder of the cooling the lot depended on, not a sign that something went wrong.
             var hot = heat[hotIndex];
-            string observed = peak is { } pk ? $" The logged peak was {T(cx, pk)}, so about {Rise(cx, removed!.Value)} of the potential was removed by the vessel, cap management and cooling." : string.Empty;
+            string observed = peak is { } pk ? $" The logged peak was {T(cx, pk)}, so about {Rise(cx, removed!.Value)} of the potential was removed by {KineticsFollowUps.WhatRemovedHeat(cx.Colour)}." : string.Empty;
             cx.Report(KineticsCodes.HeatPotentialAboveDanger, $"Lot {cx.Key}: at {F(hot.Brix)} °Brix and {T(cx, hot.TemperatureC)} this lot could have reached {T(cx, hot.PotentialTemperatureC)} without cooling ({Stamp(hot.Time)}; {hotReadings} reading(s) above the {T(cx, th.DangerC)} danger threshold).{observed}", sugar.First(p => p.Time == hot.Time).Source, flag: false);
         }
 

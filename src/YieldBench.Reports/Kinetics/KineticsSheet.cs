@@ -15,7 +15,7 @@ public static class KineticsSheet
     public static IReadOnlyList<string> Cautions { get; } =
     [
         "Fermentation releases heat and carbon dioxide. CO2 displaces air in cellars, pits and tanks and can kill: ventilate, monitor, and follow your local confined-space and workplace-safety rules.",
-        "'Reachable without cooling' is an estimate of the temperature the remaining sugar could still cause with no heat removed (adiabatic); it is a warning sign, not a prediction. Cooling capacity and cap management decide what happens.",
+        "'Reachable without cooling' is an estimate of the temperature the remaining sugar could still cause with no heat removed (adiabatic); it is a warning sign, not a prediction. Cooling capacity (and, for a must on its skins, cap management) decides what happens.",
         "Temperature thresholds are common-practice defaults (reds 35/40 °C, whites 20/25 °C); set them to your own practice and your winemaker's judgement.",
         "Sugar readings during fermentation are hydrometer or refractometer readings distorted by alcohol; times to dryness are taken from them. Dryness and any alcohol on a label need a lab analysis under the local rules.",
     ];

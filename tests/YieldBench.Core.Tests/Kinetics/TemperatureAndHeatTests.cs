@@ -82,6 +82,28 @@ public class TemperatureAndHeatTests
     }
 
     [Fact]
+    public void A_white_lots_follow_ups_and_heat_sentence_name_no_cap_and_a_reds_do()
+    {
+        // Given the same hot log (peak 41 °C: above both colours' danger lines) for a white and a red lot
+        var rows = new[] { ("2025-10-01 00:00", (double?)22.0, (double?)24.0), ("2025-10-02 00:00", 16.0, 36.0), ("2025-10-03 00:00", 8.0, 41.0), ("2025-10-04 00:00", 2.0, 33.0) };
+
+        // When each is analysed and its follow-ups made
+        var whiteReview = KineticsAnalysis.Run([Lot(colour: WineColour.White)], [Log("T-101", 2025, rows)], KineticsSettings.Default);
+        var redReview = KineticsAnalysis.Run([Lot(colour: WineColour.Red)], [Log("T-101", 2025, rows)], KineticsSettings.Default);
+        var white = Assert.Single(KineticsFollowUps.For(whiteReview), f => f.Code == KineticsCodes.AboveDangerTemp);
+        var red = Assert.Single(KineticsFollowUps.For(redReview), f => f.Code == KineticsCodes.AboveDangerTemp);
+
+        // Then a white, fermented as juice, is told to check cooling only (before, also its "cap management", which a
+        // white has none of), and a red cooling and its cap; the heat sentence likewise
+        Assert.StartsWith("Check cooling capacity for this vessel before next harvest; fermentation heat and CO2", white.FollowUp, StringComparison.Ordinal);
+        Assert.StartsWith("Check cooling capacity and cap management for this vessel before next harvest;", red.FollowUp, StringComparison.Ordinal);
+        Assert.DoesNotContain(whiteReview.Findings, f => f.Message.Contains("cap", StringComparison.OrdinalIgnoreCase));
+        Assert.Contains(redReview.Findings, f => f.Code == KineticsCodes.HeatPotentialAboveDanger && f.Message.EndsWith("removed by the vessel, cap management and cooling.", StringComparison.Ordinal));
+        Assert.Equal("check temperature and nutrients (YAN).", KineticsFollowUps.StuckChecks(WineColour.Rose));
+        Assert.Equal("check temperature, nutrients (YAN) and cap.", KineticsFollowUps.StuckChecks(WineColour.Red));
+    }
+
+    [Fact]
     public void The_heat_constants_match_their_sources()
     {
         // Given the published values
