@@ -186,7 +186,9 @@ public static class LotFindings
         FlagCodes.NotDry => "The lot has not finished: its factor uses the sugar actually fermented.",
         "stuck" => "The ferment stopped before it was dry.",
         "not-dry-at-log-end" => "The ferment may not have finished: the log stops above dry.",
-        "above-danger-temp" => "Too little cooling for this vessel: yeast suffer near this temperature and the ferment may stop.",
+        "above-danger-temp" => lot.Lot.Colour is Lots.WineColour.White or Lots.WineColour.Rose
+            ? "Too little cooling for this vessel: a white or rosé this warm loses the fresh aroma it is fermented cool to keep."
+            : "Too little cooling for this vessel: yeast suffer near this temperature and the ferment may stop.",
         "above-caution-temp" => "Warmer than the caution line for its colour.",
         "sluggish" => "A slow stretch late in the ferment.",
         _ => char.ToUpperInvariant(ReviewTexts.FlagName(f.Code)[0]) + ReviewTexts.FlagName(f.Code)[1..] + ".",

@@ -86,6 +86,23 @@ public sealed class LotFindingTests
     }
 
     [Fact]
+    public void A_white_past_its_danger_line_is_told_of_lost_aroma_and_a_red_of_suffering_yeast()
+    {
+        // Given the same danger-temperature flag on a white lot (danger line 25 °C) and on a red one (40 °C)
+        var white = ConversionFactors.For(Lot.Lot with { Colour = WineColour.White }, SugarModel.Default);
+        var red = ConversionFactors.For(Lot.Lot with { Colour = WineColour.Red }, SugarModel.Default);
+        var hot = Flag("above-danger-temp", FlagSeverity.Check, value: 27.0, reference: 25.0);
+
+        // When each lot's line is made
+        var w = LotFindings.Of(white, [], [hot])!;
+        var r = LotFindings.Of(red, [], [hot])!;
+
+        // Then the white is not told that yeast suffer at 27 °C (before it was), but what a warm white loses; the red is
+        Assert.Equal("Too little cooling for this vessel: a white or rosé this warm loses the fresh aroma it is fermented cool to keep.", w.Explanation);
+        Assert.Equal("Too little cooling for this vessel: yeast suffer near this temperature and the ferment may stop.", r.Explanation);
+    }
+
+    [Fact]
     public void Symptoms_alone_are_explained_by_their_direction_and_a_lot_without_flags_has_no_line()
     {
         // Given a lot only unusually high for its strain
