@@ -161,7 +161,8 @@ public sealed partial class ForecastModel
     private double[,] _peakInverse = new double[0, 0];
     private string[] _peakGroups = [], _peakStrains = [];
     private Dictionary<string, StrainMedians> _medians = [];
-    private StrainMedians _pooledMedians = new(double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN);
+    private StrainMedians _pooledMedians = new(double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, 0);
+    private double _slowestOverMedian = double.NaN;
 
     /// <summary>Strain medians of the training lots (hours from the inoculation, and from the first reading).</summary>
     /// <param name="OneThirdHours">Median hours to one-third depletion.</param>
@@ -170,7 +171,29 @@ public sealed partial class ForecastModel
     /// <param name="OneThirdFromFirst">Median hours from the first reading to one-third depletion.</param>
     /// <param name="DryFromFirst">Median hours from the first reading to dryness.</param>
     /// <param name="SlowestDryHours">The slowest time to dryness among the strain's lots, h.</param>
-    public sealed record StrainMedians(double OneThirdHours, double DryHours, double PeakC, double OneThirdFromFirst, double DryFromFirst, double SlowestDryHours);
+    /// <param name="DryCount">The strain's lots with a time to dryness.</param>
+    public sealed record StrainMedians(double OneThirdHours, double DryHours, double PeakC, double OneThirdFromFirst, double DryFromFirst, double SlowestDryHours, int DryCount);
+
+    /// <summary>Lots with a time to dryness a strain needs before its own slowest lot marks a late finish.</summary>
+    public const int SlowestNeedsLots = 10;
+
+    /// <summary>
+    /// Hours from the inoculation after which reaching dry counts as a sluggish end: the strain's slowest past lot when
+    /// it has at least <see cref="SlowestNeedsLots"/> with a time to dryness (about its 95th percentile or beyond).
+    /// With fewer, its slowest lot is no such mark (of two lots, the slower is a typical lot), so its median time is
+    /// taken times the ratio of slowest to median that strains with enough lots show (or the whole history, when none
+    /// has), and never less than its own slowest. A strain the history does not know takes the history's slowest lot.
+    /// </summary>
+    public double SluggishAfterHours(string strain)
+    {
+        var own = MediansFor(strain);
+        if (ReferenceEquals(own, _pooledMedians) || own.DryCount >= SlowestNeedsLots || double.IsNaN(own.DryHours) || double.IsNaN(_slowestOverMedian))
+        {
+            return own.SlowestDryHours;
+        }
+
+        return Math.Max(own.SlowestDryHours, own.DryHours * _slowestOverMedian);
+    }
 
     /// <summary>The key a strain code or vessel type is matched by: letters and digits, upper case (intake's rule).</summary>
     public static string Key(string? text) =>
@@ -422,6 +445,8 @@ public sealed partial class ForecastModel
             medians[g.Key] = Medians(g.ToArray());
         }
 
+        var pooledMedians = Medians(fitted);
+
         return new ForecastModel
         {
             Form = form,
@@ -471,7 +496,8 @@ public sealed partial class ForecastModel
             _peakGroups = temp.Groups,
             _peakStrains = temp.Strains,
             _medians = medians,
-            _pooledMedians = Medians(fitted),
+            _pooledMedians = pooledMedians,
+            _slowestOverMedian = SlowestOverMedian(medians.Values, pooledMedians),
         };
     }
 
@@ -502,7 +528,18 @@ public sealed partial class ForecastModel
             Med(lots.Select(p => p.PeakC)),
             Med(lots.Select(p => p.OneThirdHours - p.Course.SugarHours[0])),
             Med(lots.Select(p => p.DryHours - p.Course.SugarHours[0])),
-            dryTimes.Length == 0 ? double.NaN : dryTimes.Max());
+            dryTimes.Length == 0 ? double.NaN : dryTimes.Max(),
+            dryTimes.Length);
+    }
+
+    /// <summary>
+    /// How far the slowest lot lies beyond the median, as a ratio of hours to dryness: the median over strains with at
+    /// least <see cref="SlowestNeedsLots"/> such lots, else the whole history's.
+    /// </summary>
+    private static double SlowestOverMedian(IEnumerable<StrainMedians> strains, StrainMedians pooled)
+    {
+        var ratios = strains.Where(m => m.DryCount >= SlowestNeedsLots && m.DryHours > 0).Select(m => m.SlowestDryHours / m.DryHours).ToArray();
+        return ratios.Length > 0 ? Descriptive.Median(ratios) : pooled.DryHours > 0 ? pooled.SlowestDryHours / pooled.DryHours : double.NaN;
     }
 
     /// <summary>The lot's prior on (log μm, λ) before the season shift, and whether it is the strain's own.</summary>

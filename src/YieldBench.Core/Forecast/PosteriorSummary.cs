@@ -96,9 +96,8 @@ internal static class PosteriorSummary
         // Posterior means of the peak rate, S0 and F (for the heat figures).
         double rate = rateSum / partSum, s0 = startSum / partSum, f = finalSum / partSum;
 
-        // Sluggish or stuck: never dry, or dry later than the strain's slowest past lot.
-        var med = m.MediansFor(c.Strain);
-        double slowest = med.SlowestDryHours - (c.FromInoculation ? 0 : m.FirstReadingDelay.Median);
+        // Sluggish or stuck: never dry, or dry later than the strain's slowest past lot (ForecastModel.SluggishAfterHours).
+        double slowest = m.SluggishAfterHours(c.Strain) - (c.FromInoculation ? 0 : m.FirstReadingDelay.Median);
         double late = double.IsNaN(slowest) ? 0 : drys.ShareAbove(slowest, finiteOnly: true);
         double stuckRisk = dryReached ? 0 : Math.Clamp(neverDry + late, 0, 1);
 

@@ -373,6 +373,42 @@ public class ForecastModelTests
     }
 
     /// <summary>A model trained on three seasons of a synthetic cellar, and the cellar to draw new lots from.</summary>
+    [Fact]
+    public void A_strain_with_two_past_lots_does_not_make_an_ordinary_lot_look_sluggish()
+    {
+        // Given three seasons of 30 lots, and two more lots of a strain new to the cellar (SX-9) that ferments like SX-1
+        var cellar = new SyntheticCellar(17);
+        var (lots, logs, _, _) = cellar.History(2020, 3, 30);
+        var like = SyntheticCellar.Strains[0];
+        foreach (int i in new[] { 1, 2 })
+        {
+            var t = new SyntheticCellar.Truth(24, -1.8, like.Rate, like.Lag, 19, like.Peak);
+            var inoc = new DateTime(2022, 9, 20 + i, 10, 0, 0);
+            lots.Add(cellar.Lot($"22-9{i:00}", 2022, "SX-9", WineColour.Red, t, inoc));
+            logs.Add(cellar.Log($"22-9{i:00}", 2022, t, inoc, 1e9));
+        }
+
+        var past = LotCourses.FromHistory(lots, logs).Select(c => LoggedEvents.Read(c, Settings)).ToArray();
+        var model = ForecastModel.Train(past, SigmoidModel.Gompertz, Settings);
+
+        // When a running SX-9 lot a little slower than its two past lots (7 % lower rate, well within a strain's usual
+        // 12 % scatter) is forecast after five readings
+        var truth = new SyntheticCellar.Truth(24, -1.8, like.Rate * 0.93, like.Lag, 19, like.Peak);
+        var start = new DateTime(2030, 9, 10, 9, 0, 0);
+        var running = cellar.Running("30-001", 2030, "SX-9", WineColour.Red, truth, start);
+        var cut = new FermentationLog("30-001", 2030, cellar.Log("30-001", 2030, truth, start, 1e9).Readings.Take(5).ToArray());
+        var report = ForecastRunner.Run(Array.Empty<Lot>(), [], [running], [cut], Settings, model);
+
+        // Then a late finish is measured against more than the slower of its two past lots (about a typical lot): the
+        // strain's median time times the slowest-to-median ratio of the strains with enough lots, so the ordinary lot is
+        // not called likely sluggish (with the slower of two lots as the mark, most of its dry times lay beyond it)
+        var medians = model.MediansFor("SX-9");
+        Assert.Equal(2, medians.DryCount);
+        Assert.True(model.SluggishAfterHours("SX-9") > medians.SlowestDryHours * 1.05, $"{model.SluggishAfterHours("SX-9"):0.0} h against {medians.SlowestDryHours:0.0} h");
+        Assert.Equal(model.MediansFor("SX-1").SlowestDryHours, model.SluggishAfterHours("SX-1"));
+        Assert.True(report.Lots[0].StuckRisk < 0.15, $"stuck risk {report.Lots[0].StuckRisk:0.00} dry {report.Lots[0].DryHours} after {model.SluggishAfterHours("SX-9"):0.0} slowest {medians.SlowestDryHours:0.0} median {medians.DryHours:0.0}");
+    }
+
     private static (ForecastModel Model, SyntheticCellar Cellar) Trained(int seed)
     {
         var cellar = new SyntheticCellar(seed);
