@@ -410,6 +410,14 @@ internal sealed class SheetPlan(string name)
                         // A heading wraps: its longest word (at most 24 characters' worth) sets the floor.
                         double heading = column.Heading.Split(' ').Max(w => measure.Width(w, bold: true));
                         double widest = Math.Min(heading, 24 * TextMeasure.PixelsPerWidthUnit);
+
+                        // ...and wide enough that the heading wraps to at most MostHeadingLines lines: a column of short
+                        // numbers under a long heading ("95 % of lots: high (% v/v)") otherwise made the header row six
+                        // lines tall for the whole table.
+                        while (widest < 24 * TextMeasure.PixelsPerWidthUnit && measure.Lines(column.Heading, widest, TextMeasure.BodySize, bold: true) > MostHeadingLines)
+                        {
+                            widest += 2;
+                        }
                         string format = column.EffectiveNumberFormat;
                         for (int r = 0; r < table.RowCount; r++)
                         {
@@ -435,6 +443,9 @@ internal sealed class SheetPlan(string name)
 
         return px.Select(p => Math.Clamp(TextMeasure.WidthUnits(p), MinColumnUnits, MaxColumnUnits)).ToArray();
     }
+
+    /// <summary>Most lines a table heading wraps to; its column is widened until it fits (within 24 characters).</summary>
+    internal const int MostHeadingLines = 4;
 
     /// <summary>Narrowest a column a later table's text wraps within is made, px (about 20 characters).</summary>
     private const double ReadableWrapPixels = 150;

@@ -109,6 +109,25 @@ public sealed class LayoutTests
         }
     }
 
+    [Theory]
+    [InlineData("sample")]
+    [InlineData("demo")]
+    public void No_table_heading_wraps_to_more_than_four_lines(string workbook)
+    {
+        // Given every bold body-size cell that wraps (the tables' headings; section titles are larger)
+        var measure = new TextMeasure();
+        var headings = Cells(workbook == "demo" ? DemoWorkbook.Value : Workbook.Value).Where(c => c.Bold && c.Wrap && c.Size == TextMeasure.BodySize).ToArray();
+        Assert.Contains(headings, c => c.Text == "95 % of lots: high (% v/v)");
+
+        // When each is measured at the width its column was given
+        var tall = headings.Where(c => measure.Lines(c.Text, c.WidthPx, c.Size, bold: true) > SheetPlan.MostHeadingLines)
+            .Select(c => $"{c.Sheet}!{c.Address}: {measure.Lines(c.Text, c.WidthPx, c.Size, bold: true)} lines in {c.WidthPx:0} px: '{c.Text}'").ToArray();
+
+        // Then none takes more than four lines (the Overview's "95 % of lots: high (% v/v)" took six in a 46 px column,
+        // and made its table's header row six lines tall)
+        Assert.True(tall.Length == 0, string.Join("\n", tall));
+    }
+
     [Fact]
     public void A_text_column_right_of_a_number_column_starts_one_indent_in_and_others_do_not()
     {
