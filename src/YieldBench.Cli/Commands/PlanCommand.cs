@@ -17,7 +17,6 @@ namespace YieldBench.Cli.Commands;
 /// </summary>
 internal static class PlanCommand
 {
-    private static readonly NumberFormatInfo DecimalComma = new() { NumberDecimalSeparator = ",", NumberGroupSeparator = "\u00a0" };
 
     private static readonly Dictionary<string, (SugarScale Scale, string Unit)> Scales = new(StringComparer.OrdinalIgnoreCase)
     {
@@ -419,13 +418,7 @@ internal static class PlanCommand
 
     private static bool TryNumber(string text, string option, TextWriter err, out double value)
     {
-        string t = text.Trim();
-        if (double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value))
-        {
-            return true;
-        }
-
-        if (!t.Contains('.', StringComparison.Ordinal) && double.TryParse(t, NumberStyles.Float, DecimalComma, out value) && double.IsFinite(value))
+        if (UsageChecks.TryDecimal(text, out value))
         {
             return true;
         }

@@ -55,27 +55,35 @@ public static class KineticsFollowUps
     /// What to check for cooling next harvest. Cap management is named for reds only: a white or rosé ferments as juice,
     /// with no cap of skins to manage (common practice); for a lot of unknown colour it is named as depending on it.
     /// </summary>
-    public static string CoolingFollowUp(WineColour colour) => colour switch
+    public static string CoolingFollowUp(WineColour colour) => OnSkins(colour) switch
     {
-        WineColour.Red => "Check cooling capacity and cap management for this vessel before next harvest;" + Hazards,
-        WineColour.White or WineColour.Rose => "Check cooling capacity for this vessel before next harvest;" + Hazards,
-        _ => "Check cooling capacity for this vessel (and cap management, if the must ferments on its skins) before next harvest;" + Hazards,
+        true => "Check cooling capacity and cap management for this vessel before next harvest;" + Hazards,
+        false => "Check cooling capacity for this vessel before next harvest;" + Hazards,
+        null => "Check cooling capacity for this vessel (and cap management, if the must ferments on its skins) before next harvest;" + Hazards,
     };
 
     /// <summary>What a stuck ferment's follow-up asks to check, the cap only where there is one.</summary>
-    public static string StuckChecks(WineColour colour) => colour switch
+    public static string StuckChecks(WineColour colour) => OnSkins(colour) switch
     {
-        WineColour.Red => "check temperature, nutrients (YAN) and cap.",
-        WineColour.White or WineColour.Rose => "check temperature and nutrients (YAN).",
-        _ => "check temperature, nutrients (YAN) and, on skins, the cap.",
+        true => "check temperature, nutrients (YAN) and cap.",
+        false => "check temperature and nutrients (YAN).",
+        null => "check temperature, nutrients (YAN) and, on skins, the cap.",
     };
 
     /// <summary>What took heat away between the potential and the logged peak, the cap only where there is one.</summary>
-    public static string WhatRemovedHeat(WineColour colour) => colour switch
+    public static string WhatRemovedHeat(WineColour colour) => OnSkins(colour) switch
     {
-        WineColour.Red => "the vessel, cap management and cooling",
-        WineColour.White or WineColour.Rose => "the vessel and cooling",
-        _ => "the vessel, cooling and (on skins) cap management",
+        true => "the vessel, cap management and cooling",
+        false => "the vessel and cooling",
+        null => "the vessel, cooling and (on skins) cap management",
+    };
+
+    /// <summary>Whether the must ferments on its skins, under a cap: a red does, a white or rosé does not, an unrecorded colour may.</summary>
+    private static bool? OnSkins(WineColour colour) => colour switch
+    {
+        WineColour.Red => true,
+        WineColour.White or WineColour.Rose => false,
+        _ => null,
     };
 
     private const string Hazards = " fermentation heat and CO2 in the cellar are hazards — ventilate and follow local safety rules.";
