@@ -204,6 +204,9 @@ public static class IntakeMessages
         ? $"This column of potential alcohol maps to {field}, as does the sugar reading '{first}', which was read instead (a potential alcohol is mostly worked out from the reading). Map the one you mean with --column {field}=HEADER."
         : $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
 
+    internal static string DuplicateOfMappedColumn(string field, string mapped) =>
+        $"This column also maps to {field}, but your mapping names '{mapped}' for it, so that one was read and this one was not.";
+
     internal static string UnitAssumed(string unit, string example) =>
         $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";
 
