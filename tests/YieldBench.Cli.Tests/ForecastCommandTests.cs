@@ -322,6 +322,25 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         Assert.All(output.Split('\n'), l => Assert.True(l.TrimEnd('\r').Length <= 100, l));
     }
 
+    [Fact]
+    public void A_history_of_lots_without_logs_is_told_to_add_the_logs()
+    {
+        // Given the demo's 2025 lots table alone as the history (no log file) and the demo's running harvest
+        using var folder = new Scratch();
+        string demo = Path.Combine(AppContext.BaseDirectory, "demo-data");
+
+        // When forecast
+        var (exit, output, error) = Cli.Run(folder.Root, "forecast", Path.Combine(demo, "history", "tallowmere-2025-lots.csv"), "--running", Path.Combine(demo, "running"), "--out", "out", "--quiet");
+
+        // Then it stops with the reason (no past log) and what to add, not a count of fitted curves
+        Assert.Equal(1, exit);
+        string flat = Cli.Flat(error);
+        Assert.Contains("forecast: the forecast cannot be made: The history holds no fermentation log that belongs to one of its finished lots", flat, StringComparison.Ordinal);
+        Assert.Contains("Add the past seasons' logs", flat, StringComparison.Ordinal);
+        Assert.DoesNotContain("Parameter", flat, StringComparison.Ordinal);
+        Assert.DoesNotContain("Lot 26-", Cli.Flat(output), StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData("the lots still fermenting are missing", "forecast", "demo-data-copy")]
     [InlineData("the history is missing", "forecast", "--running", "demo-data-copy")]

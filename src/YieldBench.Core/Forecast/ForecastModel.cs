@@ -227,7 +227,11 @@ public sealed partial class ForecastModel
         var fitted = past.Where(p => p.FitOf(form) is not null).Select(p => new Fitted(p, p.FitOf(form)!)).ToArray();
         if (fitted.Length < 3)
         {
-            throw new ArgumentException($"The forecast needs at least 3 past lots whose logs can be fitted; {fitted.Length} could be.", nameof(past));
+            throw new ArgumentException(
+                past.Count == 0
+                    ? "The history holds no fermentation log that belongs to one of its finished lots, and the forecast learns how each strain ferments from past logs. Add the past seasons' logs (sugar readings by lot id and time, as review reads them) to the history."
+                    : $"The forecast needs at least 3 past lots whose logs can be fitted with a fermentation curve; {fitted.Length} of the {past.Count} past lot(s) with a log could be (too few readings, or sugar that does not fall). The Kinetics sheet of a review of the history says why each log was not fitted.",
+                nameof(past));
         }
 
         double dry = settings.Kinetics.DryBrix;
