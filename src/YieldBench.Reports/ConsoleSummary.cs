@@ -55,7 +55,9 @@ public static class ConsoleSummary
         {
             string values = string.Join(", ", strains.Ranking.Select(s => $"{s.Strain} {F(s.Adjusted?.Factor ?? s.RawMedian, "0.000")}"));
             Say(strains.Ranking.Count == 1
-                ? $"One strain only: {values} % v/v per °Brix; there is no other strain to compare it with."
+                ? strains.LeftOut.Count == 0
+                    ? $"One strain only: {values} % v/v per °Brix; there is no other strain to compare it with."
+                    : $"One strain with enough lots to compare: {values} % v/v per °Brix; there is no other strain to compare it with."
                 : strains.Adjusted
                 ? $"Strains, best first, adjusted to the same starting sugar (% v/v per °Brix): {values}."
                 : $"Strains, best first, by raw median (the adjusted comparison could not be fitted): {values}.");
@@ -63,6 +65,11 @@ public static class ConsoleSummary
             {
                 Say(sentence, 2);
             }
+        }
+
+        if (strains.LeftOutSentence is { } leftOut)
+        {
+            Say(strains.Ranking.Count == 0 ? "No strain had enough lots to compare: " + leftOut : leftOut, 2);
         }
 
         var lots = o.Lots;

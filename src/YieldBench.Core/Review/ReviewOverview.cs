@@ -129,7 +129,7 @@ public sealed record StrainAdvice(string Strain, string Candidate, double Mae, i
                 inputs.Issues.Count,
                 inputs.Seasons,
                 inputs.Logs.Count),
-            Strains = new StrainsAtAGlance(c.Adjusted.Count > 0, c.ReferenceBrix, c.Measure, figures.Ranking, c.Sentences) { Plain = Plain(figures.Ranking, c) },
+            Strains = new StrainsAtAGlance(c.Adjusted.Count > 0, c.ReferenceBrix, c.Measure, figures.Ranking, c.Sentences) { Plain = Plain(figures.Ranking, c), LeftOut = c.LeftOut, MinLots = c.MinLots },
             HouseFactor = house,
             NoRecommendation = house is null ? h.Explanation : [],
             Lots = lots,
@@ -216,6 +216,22 @@ public sealed record StrainsAtAGlance(bool Adjusted, double ReferenceBrix, strin
 {
     /// <summary>The ranking in plain words: the first strain against the last, then each against the next (empty when not adjusted).</summary>
     public IReadOnlyList<string> Plain { get; init; } = [];
+
+    /// <summary>Strains with too few lots to be compared (fewer than <see cref="MinLots"/>), with their lots; their lots are judged against all lots.</summary>
+    public IReadOnlyList<Strains.StrainLots> LeftOut { get; init; } = [];
+
+    /// <summary>The fewest lots a strain needs to be compared.</summary>
+    public int MinLots { get; init; }
+
+    /// <summary>
+    /// "YB-R31 (1 lot) is left out of the comparison: …", or null when every strain was compared. Words the review's
+    /// rule for the console, the workbook and the page.
+    /// </summary>
+    public string? LeftOutSentence => LeftOut.Count == 0
+        ? null
+        : string.Join(", ", LeftOut.Select(s => Invariant($"{s.Strain} ({s.Lots} lot{(s.Lots == 1 ? string.Empty : "s")})")))
+            + (LeftOut.Count == 1 ? " is" : " are")
+            + Invariant($" left out of the comparison: a strain needs at least {MinLots} lots to be compared, and until then its lots are judged against all lots.");
 }
 
 /// <summary>The lots to look at.</summary>

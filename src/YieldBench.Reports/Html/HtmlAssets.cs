@@ -138,7 +138,7 @@ th[aria-sort="descending"] button.sort::after { content: " \25BC"; }
       row.hidden = !hit;
       if (hit) { count += 1; }
     });
-    shown.textContent = count + ' of ' + rows.length + ' lots shown';
+    shown.textContent = count + ' of ' + rows.length + (rows.length === 1 ? ' lot shown' : ' lots shown');
   }
   input.addEventListener('input', filter);
   filter();

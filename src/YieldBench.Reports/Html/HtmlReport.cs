@@ -68,7 +68,7 @@ public static class HtmlReport
         var i = review.Overview.Inputs;
         page.Append("<header class=\"masthead\">\n");
         page.Append($"<h1>{Escape(review.Overview.Title)}</h1>\n");
-        page.Append($"<p class=\"facts\">{Count(i.LotsUsed)} lots from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")}{seasons} · {Count(i.Logs)} fermentation logs · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
+        page.Append($"<p class=\"facts\">{Count(i.LotsUsed, "lot")} from {Count(i.Files, "file")}{seasons} · {(i.Logs == 0 ? "no fermentation log" : Count(i.Logs, "fermentation log"))} · {Escape(review.HouseFactor.Regime.Name)} label rules</p>\n");
         page.Append("<nav aria-label=\"Sections of this page\"><ol>");
         foreach (var (id, heading) in Sections)
         {
@@ -123,7 +123,7 @@ public static class HtmlReport
             page.Append($"<td>{Range(c.Estimate.Low80, c.Estimate.High80)}</td>");
             page.Append($"<td>{Range(c.Estimate.Low95, c.Estimate.High95)}</td>");
             page.Append(c.ScoredAlone
-                ? $"<td>{Number(c.HeldOutMae, "0.00")} <span class=\"unit\">({Count(c.Lots)} lots)</span></td>"
+                ? $"<td>{Number(c.HeldOutMae, "0.00")} <span class=\"unit\">({Count(c.Lots, "lot")})</span></td>"
                 : $"<td class=\"text\"><span class=\"unit\">not scored alone; ranges from {Escape(c.RangesFrom)}</span></td>");
             page.Append($"<td class=\"text\">{Escape(c.Candidate)}{Formula(c)}</td></tr>\n");
         }
@@ -197,6 +197,7 @@ public static class HtmlReport
         if (s.Ranking.Count == 0)
         {
             page.Append("<p>No strain had enough lots to compare.</p>\n");
+            LeftOutStrains(page, s);
             Close(page);
             return;
         }
@@ -210,14 +211,25 @@ public static class HtmlReport
             ? $"{r.Strain} {Number(a.Factor, "0.0000")} (95 % interval {Number(a.FactorInterval.Low, "0.0000")} to {Number(a.FactorInterval.High, "0.0000")})"
             : $"{r.Strain} {Number(r.RawMedian, "0.0000")}");
         string description = (s.Ranking.Count == 1
-            ? "One strain only, so there is nothing to compare; its raw median alcohol per degree of sugar: "
+            ? s.LeftOut.Count == 0
+                ? "One strain only, so there is nothing to compare; its raw median alcohol per degree of sugar: "
+                : "One strain has enough lots to be compared, so there is nothing to compare it with; its raw median alcohol per degree of sugar: "
             : s.Adjusted
             ? $"Alcohol made per degree of sugar by each strain, compared at the same starting sugar of {Number(s.ReferenceBrix, "0.0")} °Brix, highest first: "
             : "Raw median alcohol per degree of sugar by strain (the comparison at the same sugar could not be fitted), highest first: ")
             + string.Join("; ", points) + ".";
         page.Append("<figure>\n");
         page.Append(HtmlCharts.StrainFactors(s, "strain-chart", description));
-        page.Append($"\n<figcaption>{Escape(description)} Where two bars do not overlap, the strains differ by more than the noise.</figcaption>\n</figure>\n");
+        // The chart's own description lists every strain; the visible caption does so only while the list reads as a
+        // sentence, and otherwise points to the table below, which holds the same values.
+        string caption = s.Ranking.Count <= CaptionListsUpTo
+            ? description
+            : (s.Adjusted
+                ? $"Alcohol made per degree of sugar by each of the {Count(s.Ranking.Count)} strains, compared at the same starting sugar of {Number(s.ReferenceBrix, "0.0")} °Brix, highest first"
+                : $"Raw median alcohol per degree of sugar of each of the {Count(s.Ranking.Count)} strains, highest first")
+              + "; the table below gives each value.";
+        page.Append($"\n<figcaption>{Escape(caption)}{(s.Ranking.Count > 1 ? " Where two bars do not overlap, the strains differ by more than the noise." : string.Empty)}</figcaption>\n</figure>\n");
+        LeftOutStrains(page, s);
 
         page.Append("<div class=\"scroll\"><table class=\"numbers\">\n<caption>The strains ranked</caption>\n<thead><tr><th scope=\"col\">Rank</th><th scope=\"col\" class=\"text\">Strain</th><th scope=\"col\">Lots</th>");
         if (s.Adjusted)
@@ -244,6 +256,17 @@ public static class HtmlReport
         Close(page);
     }
 
+    /// <summary>The most strains the chart's visible caption lists by name and value.</summary>
+    internal const int CaptionListsUpTo = 6;
+
+    private static void LeftOutStrains(StringBuilder page, Core.Review.StrainsAtAGlance s)
+    {
+        if (s.LeftOutSentence is { } sentence)
+        {
+            page.Append($"<p class=\"note\">{Escape(sentence)}</p>\n");
+        }
+    }
+
     private static void Lots(StringBuilder page, ReviewResult review)
     {
         var o = review.Overview;
@@ -256,7 +279,7 @@ public static class HtmlReport
         }
 
         var counts = string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{Count(c.Lots)} {ReviewTexts.Severity(c.Severity)}"));
-        page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count)} lots to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every flag.</p>\n");
+        page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count, "lot")} to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every flag.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"lots\" id=\"lots-table\" data-sortable=\"true\">\n<caption>Lots to look at</caption>\n<thead><tr>");
         page.Append("<th scope=\"col\">Lot</th><th scope=\"col\">Strain</th><th scope=\"col\">Severity</th><th scope=\"col\">What was seen</th><th scope=\"col\">Most likely explanation</th><th scope=\"col\">Follow-up</th></tr></thead>\n<tbody>\n");
         foreach (var lot in o.FlaggedLots)
@@ -303,7 +326,7 @@ public static class HtmlReport
             return;
         }
 
-        page.Append($"<p class=\"lead\">From {Count(k.LotsWithLog)} lots with a fermentation log. A ferment counts as troubled when it went sluggish or stuck, or was not dry when its log ended.</p>\n");
+        page.Append($"<p class=\"lead\">From {Count(k.LotsWithLog, "lot")} with a fermentation log. A ferment counts as troubled when it went sluggish or stuck, or was not dry when its log ended.</p>\n");
         var unit = review.Settings.TemperatureUnit;
         page.Append($"<div class=\"scroll\"><table class=\"numbers\">\n<caption>Ferments by strain: median, with the middle half of lots in brackets</caption>\n<thead><tr><th scope=\"col\">Strain</th><th scope=\"col\">Logged lots</th><th scope=\"col\">Days to dry</th><th scope=\"col\">Peak temperature <span class=\"unit\">{unit.Symbol()}</span></th><th scope=\"col\">Troubled ferments</th></tr></thead>\n<tbody>\n");
         foreach (var f in o.Ferments)
@@ -334,9 +357,11 @@ public static class HtmlReport
         var o = review.Overview;
         var i = o.Inputs;
         Open(page, "inputs");
-        page.Append($"<p class=\"lead\">{Count(i.LotsUsed)} lots used from {Count(i.Files)} file{(i.Files == 1 ? string.Empty : "s")}, with {Count(i.Logs)} fermentation logs; {Count(i.RowsLeftOut)} row{(i.RowsLeftOut == 1 ? string.Empty : "s")} left out");
+        page.Append($"<p class=\"lead\">{Count(i.LotsUsed, "lot")} used from {Count(i.Files, "file")}, with {(i.Logs == 0 ? "no fermentation log" : Count(i.Logs, "fermentation log"))}; {(i.RowsLeftOut == 0 ? "no row" : Count(i.RowsLeftOut, "row"))} left out");
         page.Append(i.FileProblems > 0 ? $" and {Count(i.FileProblems)} file or sheet problem{(i.FileProblems == 1 ? string.Empty : "s")}" : string.Empty);
-        page.Append($". Every intake issue ({Count(i.Issues)} in all) is listed with its fix in data/intake-issues.csv.</p>\n");
+        page.Append(i.Issues == 0
+            ? ". Intake reported no issue.</p>\n"
+            : $". Every intake issue ({Count(i.Issues)} in all) is listed with its fix in data/intake-issues.csv.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"files\">\n<caption>Files read, with their SHA-256 checksums</caption>\n<thead><tr><th scope=\"col\">File</th><th scope=\"col\" class=\"num\">Bytes</th><th scope=\"col\">SHA-256</th></tr></thead>\n<tbody>\n");
         foreach (var f in review.Inputs.Files)
         {
@@ -355,7 +380,7 @@ public static class HtmlReport
             page.Append("</tbody></table></div>\n");
             if (o.LeftOutReasons.Count > 8)
             {
-                page.Append($"<p class=\"note\">{Count(o.LeftOutReasons.Count - 8)} more reasons are in data/intake-issues.csv.</p>\n");
+                page.Append($"<p class=\"note\">{(o.LeftOutReasons.Count == 9 ? "1 more reason is" : Count(o.LeftOutReasons.Count - 8) + " more reasons are")} in data/intake-issues.csv.</p>\n");
             }
         }
 

@@ -68,6 +68,8 @@ internal static class Comparison
             AdjustedDifferences = adjusted.Differences,
             Sentences = sentences,
             RankingsDisagree = disagree,
+            LeftOut = byStrain.Where(g => g.Count() < settings.MinLotsForStrainReference).Select(g => new StrainLots(g.Key, g.Count())).ToArray(),
+            MinLots = settings.MinLotsForStrainReference,
         };
     }
 

@@ -190,7 +190,18 @@ public sealed record StrainComparison
 
     /// <summary>True when ranking by raw medians and by adjusted conversion put a different strain first.</summary>
     public required bool RankingsDisagree { get; init; }
+
+    /// <summary>Strains with lots but fewer than <see cref="MinLots"/> of them, left out of the comparison (their lots are judged against all lots), ordinal order.</summary>
+    public IReadOnlyList<StrainLots> LeftOut { get; init; } = [];
+
+    /// <summary>The fewest lots a strain needs to be compared (<see cref="StrainReviewSettings.MinLotsForStrainReference"/>).</summary>
+    public int MinLots { get; init; }
 }
+
+/// <summary>A strain and how many lots it has.</summary>
+/// <param name="Strain">Strain code.</param>
+/// <param name="Lots">Lots.</param>
+public sealed record StrainLots(string Strain, int Lots);
 
 /// <summary>Hodges–Lehmann shift of the factor between two strains.</summary>
 /// <param name="First">First strain.</param>

@@ -1,0 +1,88 @@
+using System.Text.RegularExpressions;
+using YieldBench.Core.Review;
+using YieldBench.Reports.Html;
+using YieldBench.Reports.Output;
+using YieldBench.Reports.Tests.Fixtures;
+
+namespace YieldBench.Reports.Tests.Html;
+
+/// <summary>report.html and the console at the sizes wineries have: a small cellar and one with many strains.</summary>
+public sealed partial class CellarSizeTests
+{
+    private static readonly Lazy<ReviewResult> Small = new(Cellars.Small);
+    private static readonly Lazy<ReviewResult> Large = new(() => Cellars.Large(strains: 20, lotsPerSeason: 6, seasons: 2));
+
+    [Fact]
+    public void A_small_cellar_s_page_counts_in_the_singular_and_says_no_log_and_no_issue()
+    {
+        // Given one season of ten lots with no logs and no intake issue
+        string page = HtmlReport.Render(Small.Value);
+
+        // Then no count of one is followed by a plural noun, and what is absent is said in words
+        Assert.DoesNotMatch(OneWithPlural(), page);
+        Assert.Contains("10 lots from 1 file in season 2025 · no fermentation log ·", page, StringComparison.Ordinal);
+        Assert.Contains("with no fermentation log; no row left out. Intake reported no issue.", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("0 in all", page, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_strain_with_too_few_lots_is_named_as_left_out_and_the_one_strain_compared_is_not_called_the_only_one()
+    {
+        // Given nine lots of SM-A and a single lot of SM-B
+        var review = Small.Value;
+        Assert.Single(review.Overview.Strains.Ranking);
+
+        // When the page and the console summary are written
+        string page = HtmlReport.Render(review);
+        string console = string.Join(" ", ConsoleSummary.Lines(review, new ReportOutput("out", [], [])));
+
+        // Then both say SM-B is left out and why, neither says there is one strain only, and the page does not talk
+        // about bars that overlap when there is one bar
+        const string leftOut = "SM-B (1 lot) is left out of the comparison: a strain needs at least 5 lots to be compared";
+        Assert.Contains(leftOut, page, StringComparison.Ordinal);
+        Assert.Contains(leftOut, console, StringComparison.Ordinal);
+        Assert.DoesNotContain("One strain only", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("One strain only", console, StringComparison.Ordinal);
+        Assert.Contains("One strain has enough lots to be compared", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("Where two bars do not overlap", page, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void With_twenty_strains_the_chart_caption_points_to_the_table_instead_of_listing_every_interval()
+    {
+        // Given a cellar of twenty strains
+        var review = Large.Value;
+        Assert.Equal(20, review.Overview.Strains.Ranking.Count);
+
+        // When the page is written
+        string page = HtmlReport.Render(review);
+        string caption = Regex.Match(page, "<section[^>]*id=\"strains\".*?<figcaption>(.*?)</figcaption>", RegexOptions.Singleline).Groups[1].Value;
+
+        // Then the visible caption is a sentence, not twenty values with their intervals; the table has every strain
+        Assert.Contains("each of the 20 strains", caption, StringComparison.Ordinal);
+        Assert.Contains("the table below gives each value", caption, StringComparison.Ordinal);
+        Assert.DoesNotContain("95 % interval", caption, StringComparison.Ordinal);
+        Assert.True(caption.Length < 400, $"caption of {caption.Length} characters");
+        foreach (var strain in review.Overview.Strains.Ranking)
+        {
+            Assert.Contains($"<th scope=\"row\">{strain.Strain}</th>", page, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void With_three_strains_the_chart_caption_still_lists_each_strain_s_value()
+    {
+        // Given the sample review's three strains
+        string page = HtmlReport.Render(SampleReview.Build());
+        string caption = Regex.Match(page, "<section[^>]*id=\"strains\".*?<figcaption>(.*?)</figcaption>", RegexOptions.Singleline).Groups[1].Value;
+
+        // Then the caption names each with its value
+        foreach (string strain in new[] { "ST-A", "ST-B", "ST-C" })
+        {
+            Assert.Contains(strain + " 0.", caption, StringComparison.Ordinal);
+        }
+    }
+
+    [GeneratedRegex(@"(?<![\d.,])1 (lots|files|rows|fermentation logs|reasons)\b")]
+    private static partial Regex OneWithPlural();
+}
