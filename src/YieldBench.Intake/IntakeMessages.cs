@@ -204,6 +204,9 @@ public static class IntakeMessages
         ? $"This column of potential alcohol maps to {field}, as does the sugar reading '{first}', which was read instead (a potential alcohol is mostly worked out from the reading). Map the one you mean with --column {field}=HEADER."
         : $"This column maps to {field}, as does the earlier column '{first}'; only the earlier one was read. Rename one of them, or map the one you mean with --column {field}=HEADER.";
 
+    internal static string DuplicateOfMappedColumn(string field, string mapped) =>
+        $"This column also maps to {field}, but your mapping names '{mapped}' for it, so that one was read and this one was not.";
+
     internal static string UnitAssumed(string unit, string example) =>
         $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";
 
@@ -346,6 +349,11 @@ public static class IntakeMessages
     internal const string WeekdayWithoutDate = ": it names a day of the week but no date, and a weekday does not say which week";
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
+
+    internal static string DateOrderFromSpan(bool dayFirst, int dates, int span, int otherSpan, string example) =>
+        $"No date of the column has a part above 12 to say which is the day, so its {dates} dates such as '{example}' read both ways. "
+        + $"They were read {(dayFirst ? "day first (day/month)" : "month first (month/day)")}: so they fall within {span} days, as one season's dates do, "
+        + $"while {(dayFirst ? "month first" : "day first")} would spread them over {otherSpan} days. If they are {(dayFirst ? "month first" : "day first")}, write them as year-month-day and check again.";
 
     internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>
         $"{field} could be {dayFirst} (day first) or {monthFirst} (month first), and no other date in the column settles the order. Write it as year-month-day.";

@@ -190,6 +190,9 @@ public static class IssueCodes
     /// <summary><c>ambiguous-date</c>.</summary>
     public const string AmbiguousDate = "ambiguous-date";
 
+    /// <summary><c>date-order-from-span</c>.</summary>
+    public const string DateOrderFromSpan = "date-order-from-span";
+
     /// <summary><c>not-a-time</c>.</summary>
     public const string NotATime = "not-a-time";
 

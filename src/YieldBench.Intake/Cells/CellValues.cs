@@ -198,9 +198,34 @@ internal static partial class CellValues
         double.TryParse(s, NumberStyles.AllowLeadingSign | NumberStyles.AllowDecimalPoint, Inv, out value) && double.IsFinite(value);
 
     /// <summary>Day/month order settled by the column's text dates (a first part above 12 means day first).</summary>
-    public static DateOrder ColumnDateOrder(IEnumerable<object?> cells)
+    public static DateOrder ColumnDateOrder(IEnumerable<object?> cells) => ColumnDateOrder(cells, out _);
+
+    /// <summary>Fewest distinct dates that can settle a column's day/month order by how closely they gather.</summary>
+    public const int SpanRuleMinDates = 3;
+
+    /// <summary>Longest span, in days, of one season's dates in the order the gathering rule settles on.</summary>
+    public const int SpanRuleMaxDays = 120;
+
+    /// <summary>How many times wider the other order must spread the same dates for the gathering rule to settle.</summary>
+    public const int SpanRuleRatio = 4;
+
+    /// <summary>
+    /// Day/month order settled by the column's text dates: a first part above 12 anywhere means day first, a second
+    /// part above 12 month first. When no date settles it that way, by how the dates gather (<paramref name="bySpan"/>
+    /// then says so): a season's inoculations, or a ferment's readings, fall within weeks, and swapping day and month
+    /// scatters the same dates over months (5/9, 12/9, 5/10 are 5 Sep to 5 Oct, or 9 May to 10 Dec). The order is
+    /// taken when at least <see cref="SpanRuleMinDates"/> distinct dates read in it span at most
+    /// <see cref="SpanRuleMaxDays"/> days within each year written and the other order spreads them at least
+    /// <see cref="SpanRuleRatio"/> times as wide; otherwise the column stays unsettled and each date that reads both
+    /// ways is ambiguous.
+    /// </summary>
+    public static DateOrder ColumnDateOrder(IEnumerable<object?> cells, out (int Dates, int Span, int OtherSpan, string Example)? bySpan)
     {
+        bySpan = null;
+        string? example = null;
         bool dayFirst = false, monthFirst = false;
+        var ambiguous = new HashSet<(string Year, int A, int B)>();
+        var same = new HashSet<(string Year, int A, int B)>();
         foreach (var c in cells)
         {
             if (c is string s && !StartsWithThreeDigits(s.Trim()) && (SlashDate().Match(s.Trim()) is { Success: true } m || (m = NumericDayMonth().Match(s.Trim())).Success))
@@ -213,16 +238,82 @@ internal static partial class CellValues
                 int a = int.Parse(m.Groups["a"].Value, Inv), b = int.Parse(m.Groups["b"].Value, Inv);
                 dayFirst |= a > 12 && b <= 12;
                 monthFirst |= b > 12 && a <= 12;
+                if (a is >= 1 and <= 12 && b is >= 1 and <= 12)
+                {
+                    // 9/9 reads the same both ways: it counts in the span, not among the dates that read both ways.
+                    (a == b ? same : ambiguous).Add((m.Groups["y"].Value, a, b));
+                    example ??= a == b ? null : s.Trim();
+                }
             }
         }
 
-        return (dayFirst, monthFirst) switch
+        var order = (dayFirst, monthFirst) switch
         {
             (true, true) => DateOrder.Mixed,
             (true, false) => DateOrder.DayFirst,
             (false, true) => DateOrder.MonthFirst,
             _ => DateOrder.Unknown,
         };
+        if (order != DateOrder.Unknown || ambiguous.Count < SpanRuleMinDates)
+        {
+            return order;
+        }
+
+        int asDayFirst = GatheredSpan(ambiguous.Concat(same).Select(d => (d.Year, Month: d.B, Day: d.A)));
+        int asMonthFirst = GatheredSpan(ambiguous.Concat(same).Select(d => (d.Year, Month: d.A, Day: d.B)));
+        if (asDayFirst <= SpanRuleMaxDays && asMonthFirst >= SpanRuleRatio * Math.Max(asDayFirst, 1))
+        {
+            bySpan = (ambiguous.Count, asDayFirst, asMonthFirst, example!);
+            return DateOrder.DayFirst;
+        }
+
+        if (asMonthFirst <= SpanRuleMaxDays && asDayFirst >= SpanRuleRatio * Math.Max(asMonthFirst, 1))
+        {
+            bySpan = (ambiguous.Count, asMonthFirst, asDayFirst, example!);
+            return DateOrder.MonthFirst;
+        }
+
+        return order;
+    }
+
+    /// <summary>
+    /// The widest span, in days, of the dates of any one year written (dates without a year form one group, spanned
+    /// on the calendar's circle, so a ferment across the new year is weeks, not a year); far beyond any season when a
+    /// day and month is no date in this reading.
+    /// </summary>
+    private static int GatheredSpan(IEnumerable<(string Year, int Month, int Day)> dates)
+    {
+        int widest = 0;
+        foreach (var year in dates.GroupBy(d => d.Year))
+        {
+            var days = new List<int>();
+            foreach (var (_, month, day) in year)
+            {
+                if (!ValidDayMonth(month, day))
+                {
+                    return int.MaxValue / 8;
+                }
+
+                days.Add(new DateTime(2000, month, day, 0, 0, 0, DateTimeKind.Unspecified).DayOfYear);
+            }
+
+            days.Sort();
+            int span = days[^1] - days[0];
+            if (year.Key.Length == 0)
+            {
+                int largestGap = 366 - span;
+                for (int i = 1; i < days.Count; i++)
+                {
+                    largestGap = Math.Max(largestGap, days[i] - days[i - 1]);
+                }
+
+                span = 366 - largestGap;
+            }
+
+            widest = Math.Max(widest, span);
+        }
+
+        return widest;
     }
 
     /// <summary>

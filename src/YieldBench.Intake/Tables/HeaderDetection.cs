@@ -77,7 +77,6 @@ internal static class HeaderDetection
         }
 
         int headerWidth = Math.Max(sheet.Rows[headerRow].Length, headerRow > 0 ? sheet.Rows[headerRow - 1].Length : 0);
-        var mapped = new HashSet<int>(); // columns bound by an explicit mapping
         for (int c = 0; c < headerWidth; c++)
         {
             if (HeaderAt(sheet, headerRow, c) is not var (cellText, fromAbove))
@@ -91,8 +90,11 @@ internal static class HeaderDetection
             // Two header rows: a group label above ("Must" over Brix and pH, "Wine" over Alc, RS and Brix) says which
             // reading a header is. The label and the header together win when they name a field ("Wine Brix" is the
             // final sugar; "Must Brix" the starting sugar); otherwise the header alone is read, as before.
+            // A header the user mapped by its own text (--column, --mapping) keeps that field: the group label does
+            // not turn it into another one.
             if (!fromAbove && GroupLabel(sheet, headerRow, c) is { } group
-                && Match(run, group + " " + text, kind, out var groupRule) is { } grouped)
+                && Match(run, group + " " + text, kind, out var groupRule) is { } grouped
+                && (rule is null || groupRule is not null))
             {
                 (field, rule, text) = (grouped, groupRule, group + " " + text);
             }
@@ -110,7 +112,6 @@ internal static class HeaderDetection
             if (rule is not null)
             {
                 rule.Used = true;
-                mapped.Add(c);
             }
 
             var unit = rule is { Unit: not ColumnUnit.None } ? rule.Unit : HeaderText.UnitFromHeader(text, field.Kind);
@@ -120,10 +121,19 @@ internal static class HeaderDetection
                 unit = ColumnUnit.GramsPer100Millilitre;
             }
 
-            var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None);
+            var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None) { Mapped = rule is not null };
             if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
             {
-                if (first.Unit == ColumnUnit.PotentialAlcohol && unit != ColumnUnit.PotentialAlcohol && !mapped.Contains(first.Index))
+                if (bound.Mapped && !first.Mapped)
+                {
+                    // The user named this column for the field (as the duplicate-column message advises): it is read,
+                    // and the earlier column that only a synonym matched is the repeat.
+                    columns[columns.IndexOf(first)] = bound;
+                    duplicates.Add((first.Index, first.Header, bound));
+                    continue;
+                }
+
+                if (first.Unit == ColumnUnit.PotentialAlcohol && unit != ColumnUnit.PotentialAlcohol && !first.Mapped)
                 {
                     // A potential alcohol beside a sugar reading is mostly worked out from it by the sheet's own rule:
                     // the reading is read, the potential alcohol named as the repeat.
@@ -132,7 +142,7 @@ internal static class HeaderDetection
                     continue;
                 }
 
-                if (field.Name == "temp_c" && IsCapHeader(first.Header) && !IsCapHeader(text) && !mapped.Contains(first.Index))
+                if (field.Name == "temp_c" && IsCapHeader(first.Header) && !IsCapHeader(text) && !first.Mapped)
                 {
                     // Cap and must temperature side by side: the must's is read, whichever comes first (the heat
                     // balance and the temperature figures are of the whole must; a cap runs warmer).
@@ -284,7 +294,7 @@ internal static class HeaderDetection
             if (unit != ColumnUnit.None || (c.Field.Kind == FieldKind.Plain && c.Field.Unit.Length > 0 && UnitSettling.PlainUnitIn(withUnit, c.Field.Unit)))
             {
                 // A plain field whose units-row unit is its own (g/L under RS, mg/L under YAN) keeps its unit, now stated.
-                columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder };
+                columns[i] = new BoundColumn(c.Index, c.Field, c.Header, unit, true) { DateOrder = c.DateOrder, Mapped = c.Mapped };
             }
         }
 

@@ -20,6 +20,9 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
 
     public DateOrder DateOrder { get; set; }
 
+    /// <summary>True when an explicit mapping (<c>--column</c>, <c>--mapping</c>) bound the column to its field.</summary>
+    public bool Mapped { get; init; }
+
     /// <summary>The first sheet row whose date was a day and month with no year, read in its row's season, and that date.</summary>
     public (int Row, string Text, DateTime Read)? YearFromSeasonAt { get; set; }
 

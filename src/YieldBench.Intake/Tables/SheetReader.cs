@@ -50,6 +50,7 @@ internal static class SheetReader
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn,
                 first.Field.Name == "temp_c" && HeaderDetection.IsCapHeader(header) && !HeaderDetection.IsCapHeader(first.Header)
                     ? IntakeMessages.CapTemperatureNotRead(first.Header)
+                    : first.Mapped ? IntakeMessages.DuplicateOfMappedColumn(first.Field.Name, first.Header)
                     : IntakeMessages.DuplicateColumn(first.Field.Name, first.Header,
                         potential: first.Unit != ColumnUnit.PotentialAlcohol && HeaderText.UnitFromHeader(header, first.Field.Kind) == ColumnUnit.PotentialAlcohol));
         }

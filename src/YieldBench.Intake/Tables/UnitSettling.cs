@@ -35,9 +35,20 @@ internal static class UnitSettling
                     ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, null, IssueCodes.UnitAssumed, IntakeMessages.UnitAssumed(c.Field.Unit, c.Field.TemplateHeader));
                     break;
                 case FieldKind.Date or FieldKind.DateTime:
-                    c.DateOrder = CellValues.ColumnDateOrder(ctx.Values(c));
+                    c.DateOrder = CellValues.ColumnDateOrder(ctx.Values(c), out var bySpan);
+                    WarnDateOrder(ctx, c, bySpan);
                     break;
             }
+        }
+    }
+
+    /// <summary>Says once for the column that its day/month order was settled by how its dates gather, when it was.</summary>
+    internal static void WarnDateOrder(SheetContext ctx, BoundColumn c, (int Dates, int Span, int OtherSpan, string Example)? bySpan)
+    {
+        if (bySpan is { } s)
+        {
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, c.Header, s.Example, IssueCodes.DateOrderFromSpan,
+                IntakeMessages.DateOrderFromSpan(c.DateOrder == DateOrder.DayFirst, s.Dates, s.Span, s.OtherSpan, s.Example));
         }
     }
 

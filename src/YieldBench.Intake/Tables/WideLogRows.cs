@@ -52,7 +52,8 @@ internal static class WideLogRows
         var ctx = new SheetContext(run, file, sheet, TableKind.Log, columns, headerRow + 1, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth);
         foreach (var c in timeColumns)
         {
-            c.DateOrder = CellValues.ColumnDateOrder(ctx.Values(c));
+            c.DateOrder = CellValues.ColumnDateOrder(ctx.Values(c), out var bySpan);
+            UnitSettling.WarnDateOrder(ctx, c, bySpan);
         }
 
         SettleUnits(ctx, lots.Select(l => l.Sugar).OfType<BoundColumn>().Where(c => !c.UnitStated).ToList(), sugar: true);

@@ -1,0 +1,77 @@
+using YieldBench.Core.Lots;
+using YieldBench.Intake;
+
+namespace YieldBench.Intake.Tests;
+
+/// <summary>Lots workbooks kept by hand over years, and the exports cellars make of them (an invented winery, Quernby Ridge).</summary>
+public sealed class CellarBookTests
+{
+    [Theory]
+    [InlineData("Lot,Yeast,Season,Harvest Brix,Crush Brix,Alc\n")]
+    [InlineData(",,,Must,Must,Lab\nLot,Yeast,Season,Harvest Brix,Crush Brix,Alc\n")]
+    public void A_column_the_user_maps_is_read_before_an_earlier_column_a_synonym_matches(string header)
+    {
+        // Given two starting-sugar columns (a field estimate before picking, and the reading at crush), perhaps under a
+        // group label, and the mapping the duplicate-column message advises: --column starting_sugar="Crush Brix"
+        using var folder = new TestFolder();
+        var lots = folder.Text("cellar-2024.csv", header + "24-CH-01,QR-A4,2024,22.0,24.0,14.1\n");
+
+        // When read
+        var set = folder.Read(new IntakeOptions { ColumnMappings = ["starting_sugar=Crush Brix"] }, lots);
+
+        // Then the mapped column is read (24.0, not 22.0), and the other is named as not read because of the mapping
+        Assert.Equal(24.0, Assert.Single(set.Lots).StartingSugar.Brix, 1e-9);
+        var dup = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+        Assert.EndsWith("Harvest Brix", dup.Column, StringComparison.Ordinal);
+        Assert.Equal("This column also maps to starting_sugar, but your mapping names 'Crush Brix' for it, so that one was read and this one was not.", dup.Message);
+    }
+
+    [Fact]
+    public void A_column_of_dates_that_read_both_ways_is_read_in_the_order_that_gathers_them_within_the_season()
+    {
+        // Given a French export (semicolons, decimal commas) whose inoculation dates all have day and month of 12 or less:
+        // day first they are 5 Sep to 5 Oct 2025 (30 days), month first 9 May to 9 Dec (214 days)
+        using var folder = new TestFolder();
+        var lots = folder.Text("export-2025.csv",
+            "Lot;Levure;Millésime;Moût (°Bx);Alcool (% vol);Date levurage\r\n"
+            + "25-MU-01;QR-A4;2025;21,2;12,4;05/09/2025\r\n25-MU-02;QR-A4;2025;20,9;12,1;06/09/2025\r\n"
+            + "25-PG-01;WX-17;2025;23,4;13,6;10/09/2025\r\n25-GE-01;WX-17;2025;24,0;13,9;12/09/2025\r\n"
+            + "25-PN-01;QR-B9;2025;23,8;13,4;05/10/2025\r\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then every date is read day first, said once for the column, and no date is left empty as ambiguous
+        Assert.Equal(new DateTime(2025, 10, 5), set.Lots.Single(l => l.LotId == "25-PN-01").InoculationDate);
+        Assert.Equal(new DateTime(2025, 9, 6), set.Lots.Single(l => l.LotId == "25-MU-02").InoculationDate);
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.AmbiguousDate);
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.DateOrderFromSpan);
+        Assert.Equal("Date levurage", said.Column);
+        Assert.Equal(IssueSeverity.Warning, said.Severity);
+        Assert.Equal("No date of the column has a part above 12 to say which is the day, so its 5 dates such as '05/09/2025' read both ways. "
+            + "They were read day first (day/month): so they fall within 30 days, as one season's dates do, while month first would spread them over 214 days. "
+            + "If they are month first, write them as year-month-day and check again.", said.Message);
+    }
+
+    [Fact]
+    public void A_log_dated_month_first_with_no_day_above_12_is_read_month_first_and_two_dates_alone_stay_ambiguous()
+    {
+        // Given a lot and its log from a cellar writing month/day (9/5 to 9/9: five days; day first they would be 9 May to 9 Sep)
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Yeast,Season,Brix,Alc\nT4,QR-B9,2025,25.1,14.7\nT5,QR-B9,2025,24.0,14.0\n");
+        var log = folder.Text("log.csv", "Lot,Date,Time,Brix\nT4,9/5/2025,08:00,25.0\nT4,9/6/2025,08:00,22.1\nT4,9/7/2025,08:00,16.0\nT4,9/8/2025,08:00,8.2\nT4,9/9/2025,08:00,1.0\n");
+        var two = folder.Text("log-t5.csv", "Lot,Date,Time,Brix\nT5,9/5/2025,08:00,24.0\nT5,9/6/2025,08:00,21.0\n");
+
+        // When read
+        var set = folder.Read(lots, log, two);
+
+        // Then T4's readings run from 5 to 9 September, said once
+        var t4 = set.Logs.Single(l => l.LotId == "T4").Readings;
+        Assert.Equal([5, 6, 7, 8, 9], t4.Select(r => r.Timestamp.Day));
+        Assert.All(t4, r => Assert.Equal(9, r.Timestamp.Month));
+        Assert.Contains("They were read month first (month/day): so they fall within 4 days", Assert.Single(set.Issues, i => i.Code == IssueCodes.DateOrderFromSpan && i.File == log).Message, StringComparison.Ordinal);
+
+        // and two dates alone do not settle the order: each is still ambiguous, never guessed
+        Assert.Equal(2, set.Issues.Count(i => i.Code == IssueCodes.AmbiguousDate && i.File == two));
+    }
+}
