@@ -38,4 +38,20 @@ public static class ChartPalette
 
     /// <summary>The series colour for the i-th series (wraps around).</summary>
     public static Color ForIndex(int index) => Series[((index % Series.Count) + Series.Count) % Series.Count];
+
+    /// <summary>
+    /// Marker shapes of the per-lot points, one per round of the colours: the first seven series are circles, the next
+    /// seven triangles, the next seven diamonds, so a cellar of up to 21 strains gives each its own colour and shape
+    /// pair (colour alone repeats from the eighth strain on).
+    /// </summary>
+    public static IReadOnlyList<MarkerShape> Shapes { get; } = [MarkerShape.FilledCircle, MarkerShape.FilledTriangleUp, MarkerShape.FilledDiamond];
+
+    /// <summary>Line patterns of per-series lines, one per round of the colours (solid, dashed, dotted), for the same reason as <see cref="Shapes"/>.</summary>
+    public static IReadOnlyList<LinePattern> Patterns { get; } = [LinePattern.Solid, LinePattern.Dashed, LinePattern.Dotted];
+
+    /// <summary>The marker shape of the i-th series: a circle for the first seven, then the next shape each round.</summary>
+    public static MarkerShape ShapeForIndex(int index) => Shapes[(Math.Max(0, index) / Series.Count) % Shapes.Count];
+
+    /// <summary>The line pattern of the i-th series: solid for the first seven, then the next pattern each round.</summary>
+    public static LinePattern PatternForIndex(int index) => Patterns[(Math.Max(0, index) / Series.Count) % Patterns.Count];
 }

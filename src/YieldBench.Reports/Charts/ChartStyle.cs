@@ -62,12 +62,17 @@ public static class ChartStyle
     /// A second, regular-weight line under the title: what the chart shows when that is not obvious, e.g. that a
     /// sample of the lots is drawn. Returns the panel so a test can read its text.
     /// </summary>
-    public static ScottPlot.Panels.TitlePanel Subtitle(Plot plot, string text)
+    /// <param name="plot">The chart.</param>
+    /// <param name="text">The line.</param>
+    /// <param name="overFigure">Centre the line over the whole image rather than the plot area: for a plot area narrowed by wide labels.</param>
+    public static ScottPlot.Panels.TitlePanel Subtitle(Plot plot, string text, bool overFigure = false)
     {
         ArgumentNullException.ThrowIfNull(plot);
         ArgumentNullException.ThrowIfNull(text);
-        var panel = new ScottPlot.Panels.TitlePanel();
-        panel.Label.Text = text;
+
+        // Beside a legend placed right of the plot area the plot area is narrow: a long line is broken in two.
+        var panel = new ScottPlot.Panels.TitlePanel { FullFigureCenter = overFigure };
+        panel.Label.Text = plot.Axes.GetPanels().Any(p => p is ScottPlot.Panels.LegendPanel) ? TwoLinesIfLong(text) : text;
         panel.Label.FontName = ReportFonts.FamilyName;
         panel.Label.FontSize = SubtitleSize;
         panel.Label.Bold = false;
@@ -89,12 +94,95 @@ public static class ChartStyle
         return cloud;
     }
 
-    /// <summary>Shows the legend in the upper-left corner (where alcohol-vs-sugar charts have empty space).</summary>
-    public static void ShowLegend(Plot plot, Alignment where = Alignment.UpperLeft)
+    /// <summary>The most legend entries drawn inside the plot area; a longer legend (a cellar of many strains) would cover the data.</summary>
+    public const int LegendEntriesInside = 10;
+
+    /// <summary>
+    /// Shows the legend in the <paramref name="where"/> corner of the plot area (where alcohol-vs-sugar charts have
+    /// empty space) while it has at most <see cref="LegendEntriesInside"/> entries and <paramref name="crowded"/> is
+    /// false; otherwise beside the plot area, on the right, where it covers nothing.
+    /// </summary>
+    /// <returns>True when the legend was placed beside the plot area.</returns>
+    public static bool ShowLegend(Plot plot, Alignment where = Alignment.UpperLeft, bool crowded = false)
     {
         ArgumentNullException.ThrowIfNull(plot);
         plot.Legend.FontName = ReportFonts.FamilyName;
         plot.Legend.FontSize = TickSize;
+        if (crowded || plot.GetPlottables().Sum(p => p.LegendItems.Count()) > LegendEntriesInside)
+        {
+            plot.ShowLegend(Edge.Right);
+
+            // The plot area is now narrower than the image: a long subtitle, centred over it, would run off the image's
+            // left edge, so it is broken onto two lines.
+            foreach (var subtitle in plot.Axes.GetPanels().OfType<ScottPlot.Panels.TitlePanel>())
+            {
+                subtitle.Label.Text = TwoLinesIfLong(subtitle.Label.Text);
+            }
+
+            return true;
+        }
+
         plot.ShowLegend(where);
+        return false;
     }
+
+    /// <summary>The longest subtitle kept on one line over a plot area narrowed by a legend beside it, characters (about 900 px of DejaVu Sans at the subtitle size).</summary>
+    public const int SubtitleBesideLegend = 95;
+
+    /// <summary>
+    /// <paramref name="text"/> on one line when it has at most <see cref="SubtitleBesideLegend"/> characters; otherwise
+    /// broken at the clause break (";", else ",", else a space) nearest its middle.
+    /// </summary>
+    public static string TwoLinesIfLong(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        if (text.Length <= SubtitleBesideLegend || text.Contains('\n', StringComparison.Ordinal))
+        {
+            return text;
+        }
+
+        foreach (string mark in new[] { "; ", ", ", " " })
+        {
+            int best = -1;
+            for (int i = text.IndexOf(mark, StringComparison.Ordinal); i >= 0; i = text.IndexOf(mark, i + 1, StringComparison.Ordinal))
+            {
+                if (best < 0 || Math.Abs(i - (text.Length / 2)) < Math.Abs(best - (text.Length / 2)))
+                {
+                    best = i;
+                }
+            }
+
+            if (best > 0)
+            {
+                return text[..(best + mark.Length - 1)] + "\n" + text[(best + mark.Length)..];
+            }
+        }
+
+        return text;
+    }
+
+    /// <summary>The most category labels (strains) along the bottom axis that are given one row each.</summary>
+    public const int CategoriesOnOneRow = 10;
+
+    /// <summary>
+    /// Labels of categories (strains) placed at 0, 1, 2, … along the bottom axis. Up to
+    /// <see cref="CategoriesOnOneRow"/> they sit side by side; with more, neighbours alternate between two rows (the
+    /// second row's labels start that many lines lower), so that twenty strain codes do not run into each other.
+    /// </summary>
+    public static ScottPlot.TickGenerators.NumericManual CategoryTicks(IReadOnlyList<string> labels)
+    {
+        ArgumentNullException.ThrowIfNull(labels);
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        int lines = labels.Count == 0 ? 1 : labels.Max(l => l.Split('\n').Length);
+        for (int i = 0; i < labels.Count; i++)
+        {
+            string drop = labels.Count > CategoriesOnOneRow && i % 2 == 1 ? new string('\n', lines) : string.Empty;
+            ticks.AddMajor(i, drop + labels[i]);
+        }
+
+        return ticks;
+    }
+
+    /// <summary>"9 lots", "1 lot".</summary>
+    public static string Lots(int n) => n.ToString(System.Globalization.CultureInfo.InvariantCulture) + (n == 1 ? " lot" : " lots");
 }

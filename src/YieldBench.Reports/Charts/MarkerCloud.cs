@@ -23,7 +23,7 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
     /// </summary>
     /// <param name="x">Horizontal coordinates.</param>
     /// <param name="y">Vertical coordinates (same length).</param>
-    /// <param name="shape"><see cref="MarkerShape.FilledCircle"/>, <see cref="MarkerShape.OpenCircle"/> or <see cref="MarkerShape.FilledSquare"/>.</param>
+    /// <param name="shape"><see cref="MarkerShape.FilledCircle"/>, <see cref="MarkerShape.OpenCircle"/>, <see cref="MarkerShape.FilledSquare"/>, <see cref="MarkerShape.FilledTriangleUp"/> or <see cref="MarkerShape.FilledDiamond"/>.</param>
     /// <param name="size">Marker diameter (side for squares), px.</param>
     /// <param name="color">Marker colour, alpha included.</param>
     /// <param name="lineWidth">Ring width of open circles, px.</param>
@@ -36,7 +36,7 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
             throw new ArgumentException($"{x.Count} x values but {y.Count} y values.", nameof(y));
         }
 
-        if (shape is not (MarkerShape.FilledCircle or MarkerShape.OpenCircle or MarkerShape.FilledSquare))
+        if (shape is not (MarkerShape.FilledCircle or MarkerShape.OpenCircle or MarkerShape.FilledSquare or MarkerShape.FilledTriangleUp or MarkerShape.FilledDiamond))
         {
             throw new ArgumentException($"Marker shape {shape} is not drawn by a marker cloud.", nameof(shape));
         }
@@ -104,7 +104,8 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
 
         // The marker is centred on the sprite's middle pixel corner, so a stamp at a whole-pixel offset puts its centre
         // exactly on the point's rounded pixel coordinate.
-        int half = (int)Math.Ceiling((Size / 2f) + LineWidth) + 1;
+        float reach = Shape is MarkerShape.FilledTriangleUp or MarkerShape.FilledDiamond ? Size * 0.6f : Size / 2f;
+        int half = (int)Math.Ceiling(reach + LineWidth) + 1;
         int side = 2 * half;
         using var sprite = Sprite(side, half);
 
@@ -189,6 +190,32 @@ public sealed class MarkerCloud : IPlottable, IHasLegendText
             case MarkerShape.FilledSquare:
                 paint.Style = SKPaintStyle.Fill;
                 surface.Canvas.DrawRect(half - r, half - r, Size, Size, paint);
+                break;
+            case MarkerShape.FilledTriangleUp:
+            case MarkerShape.FilledDiamond:
+                // Drawn a little larger than the circle of the same size, so that the three shapes look alike in weight.
+                paint.Style = SKPaintStyle.Fill;
+                using (var path = new SKPath())
+                {
+                    float e = r * 1.2f;
+                    if (Shape == MarkerShape.FilledTriangleUp)
+                    {
+                        path.MoveTo(half, half - e);
+                        path.LineTo(half + (e * 0.866f), half + (e * 0.5f));
+                        path.LineTo(half - (e * 0.866f), half + (e * 0.5f));
+                    }
+                    else
+                    {
+                        path.MoveTo(half, half - e);
+                        path.LineTo(half + e, half);
+                        path.LineTo(half, half + e);
+                        path.LineTo(half - e, half);
+                    }
+
+                    path.Close();
+                    surface.Canvas.DrawPath(path, paint);
+                }
+
                 break;
             default:
                 paint.Style = SKPaintStyle.Fill;

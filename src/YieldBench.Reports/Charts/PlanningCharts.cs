@@ -64,7 +64,7 @@ public static class PlanningCharts
                 continue;
             }
 
-            var m = ChartStyle.AddMarkers(plot, mine.Select(p => p.PredictedAbv).ToArray(), mine.Select(p => p.ActualAbv).ToArray(), MarkerShape.FilledCircle, 9, ChartPalette.ForIndex(i).WithAlpha(0.85));
+            var m = ChartStyle.AddMarkers(plot, mine.Select(p => p.PredictedAbv).ToArray(), mine.Select(p => p.ActualAbv).ToArray(), ChartPalette.ShapeForIndex(i), 9, ChartPalette.ForIndex(i).WithAlpha(0.85));
             m.LegendText = $"{strains[i]} ({mine.Length})";
         }
 
@@ -113,7 +113,7 @@ public static class PlanningCharts
 
             var line = plot.Add.ScatterLine(line80.Select(i => c.Targets[i]).ToArray(), line80.Select(i => c.Confident80[i]).ToArray(), color);
             line.LineWidth = pooled ? 2 : 3.5f;
-            line.LinePattern = pooled ? LinePattern.Dashed : LinePattern.Solid;
+            line.LinePattern = pooled ? LinePattern.Dashed : ChartPalette.PatternForIndex(Math.Max(index, 0));
             line.LegendText = pooled ? "all lots (80 %)" : $"{c.Strain} (80 %)";
         }
 

@@ -76,7 +76,11 @@ public static class ReviewCharts
         }
 
         charts.Add(PlannedChart.Of(() => FactorByStrain(review), Path.Combine(folder, Files.FactorByStrain), "Conversion factor by strain", comparison, onOverview: false));
-        charts.Add(PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain", comparison, onOverview: false));
+        if (review.Figures.Seasons.Count > 1)
+        {
+            // With one season there is no season to set against another: the chart would repeat factor-by-strain.
+            charts.Add(PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain", comparison, onOverview: false));
+        }
         if (review.Figures.FactorByStrainAndVessel.Count > 0)
         {
             charts.Add(PlannedChart.Of(() => StrainCharts.ByVessel(review), Path.Combine(folder, Files.StrainByVessel), "Conversion factor by strain and vessel", comparison, onOverview: false));
@@ -152,7 +156,7 @@ public static class ReviewCharts
                 plot,
                 members.Select(m => m.Conversion.EffectiveStartingBrix).ToArray(),
                 members.Select(m => m.Lot.FinalAlcohol.PercentVolume).ToArray(),
-                MarkerShape.FilledCircle,
+                ChartPalette.ShapeForIndex(i),
                 9,
                 color);
             points.LegendText = $"{strains[i]} ({members.Length})";
@@ -161,6 +165,7 @@ public static class ReviewCharts
                 double lo = members.Min(m => m.Conversion.EffectiveStartingBrix), hi = members.Max(m => m.Conversion.EffectiveStartingBrix);
                 var fit = plot.Add.ScatterLine(new[] { lo, hi }, new[] { sl.At(lo), sl.At(hi) }, color);
                 fit.LineWidth = 2;
+                fit.LinePattern = ChartPalette.PatternForIndex(i);
             }
         }
 
@@ -175,13 +180,13 @@ public static class ReviewCharts
         ArgumentNullException.ThrowIfNull(review);
         var plot = ChartStyle.NewPlot("Conversion factor by strain", "Strain", "Alcohol per °Brix (% v/v per °Brix)");
         var strains = review.Figures.StrainOrder;
-        var ticks = new ScottPlot.TickGenerators.NumericManual();
         var points = new List<(LotReview Lot, double X)>();
         var byStrain = ByStrain(review);
+        var labels = new List<string>();
         for (int i = 0; i < strains.Count; i++)
         {
             var members = byStrain[strains[i]].Where(l => double.IsFinite(l.Conversion.AbvPerBrix)).ToArray();
-            ticks.AddMajor(i, $"{strains[i]}\n{members.Length} lots");
+            labels.Add($"{strains[i]}\n{ChartStyle.Lots(members.Length)}");
             if (members.Length == 0 || review.Figures.FactorByStrain[i] is not { } g)
             {
                 continue;
@@ -218,7 +223,7 @@ public static class ReviewCharts
         }
 
         MarkFlagged(plot, points.Select(p => p.Lot).ToArray(), l => at[l], l => l.Conversion.AbvPerBrix);
-        plot.Axes.Bottom.TickGenerator = ticks;
+        plot.Axes.Bottom.TickGenerator = ChartStyle.CategoryTicks(labels);
         plot.Axes.Bottom.MajorTickStyle.Length = 0;
         plot.Axes.SetLimitsX(-0.7, strains.Count - 0.2);
         return plot;
@@ -235,7 +240,7 @@ public static class ReviewCharts
         for (int i = 0; i < strains.Count; i++)
         {
             var color = ChartPalette.ForIndex(i);
-            double offset = (i - ((strains.Count - 1) / 2.0)) * 0.08;
+            double offset = (i - ((strains.Count - 1) / 2.0)) * SeasonStep(strains.Count);
             var members = byStrain[strains[i]].Where(l => double.IsFinite(l.Conversion.AbvPerBrix)).ToArray();
             ChartStyle.AddMarkers(
                 plot, members.Select(m => m.Lot.Season + offset).ToArray(), members.Select(m => m.Conversion.AbvPerBrix).ToArray(), MarkerShape.OpenCircle, 6, color.WithAlpha(0.6));
@@ -258,6 +263,13 @@ public static class ReviewCharts
         ChartStyle.ShowLegend(plot, Alignment.UpperRight);
         return plot;
     }
+
+    /// <summary>
+    /// The sideways step between strains within a season on the by-season chart: 0.08 of a season, narrowed when there
+    /// are so many strains that they would otherwise spread into the neighbouring seasons (all strains stay within
+    /// ±0.35 of their season).
+    /// </summary>
+    internal static double SeasonStep(int strains) => strains <= 1 ? 0.08 : Math.Min(0.08, 0.7 / (strains - 1));
 
     /// <summary>Each candidate's mean absolute error on the primary backtest, ±1 standard error, with the one-SE limit.</summary>
     public static Plot BacktestError(ReviewResult review)

@@ -37,19 +37,24 @@ public static class StrainCharts
         string level = adjusted[0].Adjusted!.FactorInterval.IsDefined
             ? string.Create(Inv, $"{adjusted[0].Adjusted!.FactorInterval.Level * 100:0} % interval")
             : "interval";
+        // Many strains leave each a row too low for a label above its dot and a two-line name: the name and lots go on
+        // one line and the value beside the bar's right end.
+        bool dense = adjusted.Length > ChartStyle.CategoriesOnOneRow;
         ChartStyle.Subtitle(
             plot,
-            $"Dot: the strain's factor adjusted to the same starting sugar{(c.AdjustedForVessel ? " and vessel mix" : string.Empty)}; bar: its {level}; ring: the raw median of its lots (not adjusted)");
+            $"Dot: the strain's factor adjusted to the same starting sugar{(c.AdjustedForVessel ? " and vessel mix" : string.Empty)}; bar: its {level}; ring: the raw median of its lots (not adjusted)",
+            overFigure: dense);
         var colours = review.Figures.StrainOrder.Select((s, i) => (s, i)).ToDictionary(x => x.s, x => ChartPalette.ForIndex(x.i), StringComparer.Ordinal);
         var ticks = new ScottPlot.TickGenerators.NumericManual();
         double lo = double.PositiveInfinity, hi = double.NegativeInfinity;
+        var labels = new List<(string Text, double X, double Y)>();
         for (int i = 0; i < adjusted.Length; i++)
         {
             var r = adjusted[i];
             var a = r.Adjusted!;
             double y = adjusted.Length - 1 - i;
             var color = colours.GetValueOrDefault(r.Strain, ChartPalette.Reference);
-            ticks.AddMajor(y, $"{r.Strain}\n{r.Lots} lots");
+            ticks.AddMajor(y, dense ? $"{r.Strain} · {ChartStyle.Lots(r.Lots)}" : $"{r.Strain}\n{ChartStyle.Lots(r.Lots)}");
             if (a.FactorInterval.IsDefined)
             {
                 var err = plot.Add.ErrorBar(new[] { a.Factor }, new[] { y }, new[] { 0.0 });
@@ -74,16 +79,26 @@ public static class StrainCharts
 
             lo = Math.Min(lo, a.Factor);
             hi = Math.Max(hi, a.Factor);
-            var label = plot.Add.Text(string.Create(Inv, $"{a.Factor:0.000} → {a.PredictedAbv:0.00} % v/v"), a.Factor, y + 0.32);
+            double right = Math.Max(a.Factor, Math.Max(a.FactorInterval.IsDefined ? a.FactorInterval.High : a.Factor, double.IsFinite(r.RawMedian) ? r.RawMedian : a.Factor));
+            labels.Add((string.Create(Inv, $"{a.Factor:0.000} → {a.PredictedAbv:0.00} % v/v"), dense ? right : a.Factor, dense ? y : y + 0.32));
+        }
+
+        double pad = Math.Max(0.002, (hi - lo) * 0.12);
+
+        // Beside the bars, the labels need about a third of the width again on the right (a label is about 200 px of
+        // the plot's 1,400).
+        double labelRoom = dense ? Math.Max(0.004, (hi - lo) * 0.3) : 0;
+        foreach (var (text, x, y) in labels)
+        {
+            var label = plot.Add.Text(dense ? "  " + text : text, x, y);
             label.LabelFontName = ReportFonts.FamilyName;
             label.LabelFontSize = ChartStyle.TickSize;
-            label.LabelAlignment = Alignment.LowerCenter;
+            label.LabelAlignment = dense ? Alignment.MiddleLeft : Alignment.LowerCenter;
         }
 
         plot.Axes.Left.TickGenerator = ticks;
         plot.Axes.Left.MajorTickStyle.Length = 0;
-        double pad = Math.Max(0.002, (hi - lo) * 0.12);
-        plot.Axes.SetLimitsX(lo - pad, hi + pad);
+        plot.Axes.SetLimitsX(lo - pad, hi + pad + labelRoom);
         plot.Axes.SetLimitsY(-0.7, adjusted.Length - 0.3);
         return plot;
     }
@@ -106,12 +121,7 @@ public static class StrainCharts
         }
 
         ChartStyle.Subtitle(plot, "Square: the median of the group's lots; bar: from the lower to the upper quartile; number: lots in the group");
-        var ticks = new ScottPlot.TickGenerators.NumericManual();
-        for (int i = 0; i < strains.Count; i++)
-        {
-            ticks.AddMajor(i, strains[i]);
-        }
-
+        var ticks = ChartStyle.CategoryTicks(strains);
         double width = 0.7;
         for (int v = 0; v < vessels.Length; v++)
         {
@@ -156,7 +166,7 @@ public static class StrainCharts
         var lim = plot.Axes.GetLimits();
         double span = lim.Top - lim.Bottom;
         plot.Axes.SetLimitsY(lim.Bottom - (span * 0.08), lim.Top + (span * 0.05));
-        ChartStyle.ShowLegend(plot, Alignment.UpperRight);
+        ChartStyle.ShowLegend(plot, Alignment.UpperRight, crowded: strains.Count > ChartStyle.CategoriesOnOneRow);
         return plot;
     }
 
@@ -231,7 +241,7 @@ public static class StrainCharts
         Plot plot, ReviewResult review, Func<StrainFerments, Core.Kinetics.MetricSummary> metric, Func<string, double[]> values, Func<double, double> shown)
     {
         var ferments = review.Overview.Ferments;
-        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        var labels = new List<string>();
         var colours = review.Figures.StrainOrder.Select((s, i) => (s, i)).ToDictionary(x => x.s, x => ChartPalette.ForIndex(x.i), StringComparer.Ordinal);
         for (int i = 0; i < ferments.Count; i++)
         {
@@ -239,7 +249,7 @@ public static class StrainCharts
             var m = metric(f);
             var color = colours.GetValueOrDefault(f.Strain, ChartPalette.Reference);
             var mine = values(f.Strain);
-            ticks.AddMajor(i, $"{f.Strain}\n{mine.Length} lots");
+            labels.Add($"{f.Strain}\n{ChartStyle.Lots(mine.Length)}");
             if (m.N > 0 && double.IsFinite(m.Median))
             {
                 var box = new Box { Position = i - 0.12, BoxMin = shown(m.Q1), BoxMax = shown(m.Q3), BoxMiddle = shown(m.Median), WhiskerMin = shown(m.Q1), WhiskerMax = shown(m.Q3), Width = 0.4 };
@@ -254,7 +264,7 @@ public static class StrainCharts
             ChartStyle.AddMarkers(plot, xs, mine, MarkerShape.FilledCircle, 8, color.WithAlpha(0.8));
         }
 
-        plot.Axes.Bottom.TickGenerator = ticks;
+        plot.Axes.Bottom.TickGenerator = ChartStyle.CategoryTicks(labels);
         plot.Axes.Bottom.MajorTickStyle.Length = 0;
         plot.Axes.AutoScale();
         plot.Axes.SetLimitsX(-0.6, ferments.Count - 0.4);

@@ -349,6 +349,7 @@ public static partial class KineticsCharts
                 halo.LineWidth = 8;
                 var median = plot.Add.ScatterLine(days, c.Median.ToArray(), ChartPalette.ForIndex(si));
                 median.LineWidth = 4;
+                median.LinePattern = ChartPalette.PatternForIndex(si);
                 median.LegendText = $"{strains[si]}: median, quartiles ({lotsText})";
             }
             else
@@ -404,6 +405,7 @@ public static partial class KineticsCharts
 
             var median = plot.Add.Scatter(c.Brix.ToArray(), c.Median.ToArray(), color);
             median.LineWidth = 4;
+            median.LinePattern = ChartPalette.PatternForIndex(si);
             median.MarkerSize = c.Brix.Count >= 2 ? 0 : 12;
             median.LegendText = string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{strains[si]} ({c.Lots:N0} lots)");
         }
