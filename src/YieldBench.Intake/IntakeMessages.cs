@@ -350,6 +350,9 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string GroupHeading(string text, string field) =>
+        $"The row holds only '{text}', the {field} of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own {field} cell is.";
+
     internal static string DateOrderFromSpan(bool dayFirst, int dates, int span, int otherSpan, string example) =>
         $"No date of the column has a part above 12 to say which is the day, so its {dates} dates such as '{example}' read both ways. "
         + $"They were read {(dayFirst ? "day first (day/month)" : "month first (month/day)")}: so they fall within {span} days, as one season's dates do, "

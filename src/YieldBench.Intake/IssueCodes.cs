@@ -187,6 +187,9 @@ public static class IssueCodes
     /// <summary><c>time-zone-not-applied</c>.</summary>
     public const string TimeZoneNotApplied = "time-zone-not-applied";
 
+    /// <summary><c>group-heading</c>.</summary>
+    public const string GroupHeading = "group-heading";
+
     /// <summary><c>ambiguous-date</c>.</summary>
     public const string AmbiguousDate = "ambiguous-date";
 

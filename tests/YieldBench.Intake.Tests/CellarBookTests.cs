@@ -74,4 +74,33 @@ public sealed class CellarBookTests
         // and two dates alone do not settle the order: each is still ambiguous, never guessed
         Assert.Equal(2, set.Issues.Count(i => i.Code == IssueCodes.AmbiguousDate && i.File == two));
     }
+
+    [Fact]
+    public void Variety_headings_between_groups_and_a_total_of_a_column_are_structure_not_lots_left_out()
+    {
+        // Given a cellar book grouped by variety: a heading row over each group (one word, two words), a spacer row,
+        // and at the foot a total and an average of a column ("Total volume", "Average Brix")
+        using var folder = new TestFolder();
+        var lots = folder.Text("cellar-2024.csv",
+            "Lot,Variety,Yeast,Season,Volume (L),Brix,Alc\n"
+            + "Chardonnay,,,,,,\n24-CH-01,Chardonnay,QR-A4,2024,2400,23.4,13.6\n24-CH-02,Chardonnay,QR-A4,2024,2350,24.1,13.5\n,,,,,,\n"
+            + "Pinot noir,,,,,,\n24-PN-01,Pinot Noir,QR-B9,2024,3100,25.2,14.6\n,,,,,,\n"
+            + "Total volume,,,,7850,,\nAverage Brix,,,,,24.2,\n"
+            + "24-XX-09,,,,,,\nnote: tank 4 cooled overnight,,,,,,\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then the three lots are used; the two headings and the two foot rows are counted with the summary rows;
+        // a lone lot id and a note are still reported (left out), as before
+        Assert.Equal(["24-CH-01", "24-CH-02", "24-PN-01"], set.Lots.Select(l => l.LotId));
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((11, 3, 2, 2, 4), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped, account.SummaryRowsSkipped));
+        var headings = set.Issues.Where(i => i.Code == IssueCodes.GroupHeading).ToList();
+        Assert.Equal([(2, "Chardonnay"), (6, "Pinot noir")], headings.Select(i => (i.Row!.Value, i.Value!)));
+        Assert.Equal("The row holds only 'Pinot noir', the variety of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own variety cell is.", headings[1].Message);
+        Assert.Equal([9, 10], set.Issues.Where(i => i.Code == IssueCodes.SummaryRowSkipped).Select(i => i.Row!.Value));
+        Assert.Equal([11], set.Issues.Where(i => i.Code == IssueCodes.MissingValue).Select(i => i.Row!.Value).Distinct());
+        Assert.Equal([12], set.Issues.Where(i => i.Code == IssueCodes.NoteRowSkipped).Select(i => i.Row!.Value));
+    }
 }

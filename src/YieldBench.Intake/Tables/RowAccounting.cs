@@ -57,6 +57,14 @@ internal static class RowAccounting
                 continue;
             }
 
+            if (plan.NotesAreRows && GroupHeading(ctx, r) is var (group, field))
+            {
+                // "Chardonnay" over the Chardonnay lots, a spacer row before the next variety: structure, not data.
+                summary++;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, group, IssueCodes.GroupHeading, IntakeMessages.GroupHeading(group, field));
+                continue;
+            }
+
             if (plan.NotesAreRows && NoteText(row) is { } note)
             {
                 reported++;
@@ -157,6 +165,43 @@ internal static class RowAccounting
         return year is { } found && seasonWord ? (text, found) : null;
     }
 
+    /// <summary>Fields whose values a cellar groups its lots by, with a heading row over each group.</summary>
+    private static readonly string[] GroupFields = ["variety", "colour", "block", "vessel", "strain"];
+
+    /// <summary>Rows below a possible group heading searched for a lot of its group.</summary>
+    private const int GroupSearchRows = 1000;
+
+    /// <summary>
+    /// A row whose only content is one text (of any number of words) that is the variety, colour, block, vessel or
+    /// strain of a lot below it ("Chardonnay" over the Chardonnay lots), as its text and that field; null otherwise.
+    /// </summary>
+    private static (string Text, string Field)? GroupHeading(SheetContext ctx, int r)
+    {
+        if (NoteText(ctx.Sheet.Rows[r], minWords: 1) is not { } text)
+        {
+            return null;
+        }
+
+        string key = HeaderText.Normalise(text);
+        foreach (var name in GroupFields)
+        {
+            if (ctx.Column(name) is not { } c)
+            {
+                continue;
+            }
+
+            for (int below = r + 1; below <= Math.Min(ctx.LastRow, r + GroupSearchRows); below++)
+            {
+                if (ctx.Sheet.Cell(below, c.Index) is string v && v.Length > 0 && HeaderText.Normalise(v) == key)
+                {
+                    return (text, name);
+                }
+            }
+        }
+
+        return null;
+    }
+
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>
     private static string? NoteText(object?[] row, int minWords = 2)
     {
@@ -203,6 +248,17 @@ internal static class RowAccounting
         return null;
     }
 
+    /// <summary>
+    /// True when the words after a summary word name a field or a header of the table ("Total volume", "Average Brix"):
+    /// the row sums up that column.
+    /// </summary>
+    private static bool NamesAColumn(SheetContext ctx, string rest) =>
+        ColumnRules.Find(rest, ctx.Kind) is not null || ctx.Columns.Any(c => HeaderText.Normalise(c.Header) == rest);
+
+    /// <summary>True when the table has no strain column or the row's strain is empty (a lot names its strain: "Mean-Lot, QX-7").</summary>
+    private static bool NoStrain(SheetContext ctx, object?[] row) =>
+        ctx.Column("strain") is not { } c || c.Index >= row.Length || CellValues.IsBlank(row[c.Index]);
+
     private static bool IsSummaryRow(SheetContext ctx, object?[] row, out string? label)
     {
         label = null;
@@ -232,7 +288,8 @@ internal static class RowAccounting
         foreach (var w in SummaryWords)
         {
             // "<word> <follower> ...": the word, a space, then a follower as the next whole word.
-            if (n.StartsWith(w + " ", StringComparison.Ordinal) && SummaryFollowers.Contains(n[(w.Length + 1)..].Split(' ')[0]))
+            if (n.StartsWith(w + " ", StringComparison.Ordinal)
+                && (SummaryFollowers.Contains(n[(w.Length + 1)..].Split(' ')[0]) || (NamesAColumn(ctx, n[(w.Length + 1)..]) && NoStrain(ctx, row))))
             {
                 label = s.Trim();
                 return true;
