@@ -108,7 +108,7 @@ public static class ChartStyle
         ArgumentNullException.ThrowIfNull(plot);
         plot.Legend.FontName = ReportFonts.FamilyName;
         plot.Legend.FontSize = TickSize;
-        if (crowded || plot.GetPlottables().Sum(p => p.LegendItems.Count()) > LegendEntriesInside)
+        if (crowded || plot.GetPlottables().SelectMany(p => p.LegendItems).Count(i => !string.IsNullOrEmpty(i.LabelText)) > LegendEntriesInside)
         {
             plot.ShowLegend(Edge.Right);
 

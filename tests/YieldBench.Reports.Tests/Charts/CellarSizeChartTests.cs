@@ -39,6 +39,17 @@ public sealed class CellarSizeChartTests
     }
 
     [Fact]
+    public void A_chart_of_many_bars_but_one_legend_entry_keeps_its_legend_inside()
+    {
+        // Given the backtest chart: nine bars and error bars, one named line
+        var plot = ReviewCharts.BacktestError(SampleReview.Build());
+
+        // Then only named entries count, and its one entry stays in the plot's corner
+        Assert.True(plot.Legend.IsVisible);
+        Assert.DoesNotContain(plot.Axes.GetPanels(), p => p is ScottPlot.Panels.LegendPanel);
+    }
+
+    [Fact]
     public void Twenty_strains_on_the_season_chart_stay_within_their_own_season()
     {
         // Given a cellar of twenty strains over two seasons
