@@ -10,7 +10,8 @@ namespace YieldBench.Cli.Tests;
 /// in python from the methods text, with scipy 1.10.1's <c>curve_fit</c> for the Zwietering fits:
 /// tests/YieldBench.Core.Tests/Fixtures/kinetics-audit.py (its header gives the commands), on the demo's 135 logs and
 /// on an invented cellar's 78 (Brackenfold Cellars, made by brackenfold-cellar.py beside it: SG logs, an hourly probe
-/// log, two readings at one time, a lot with no inoculation time, a red past 40 °C). The recorded values are
+/// log, two readings at one time, a lot with no inoculation time, a red past 40 °C, a stuck white, a red that stalls
+/// and then finishes, a white that idles above 5 °Brix). The recorded values are
 /// kinetics-audit/demo.csv and kinetics-audit/brackenfold.csv.
 /// </summary>
 public class KineticsAuditTests
@@ -35,7 +36,7 @@ public class KineticsAuditTests
         var review = KineticsAnalysis.Run(lots, set.Logs, KineticsSettings.Default);
 
         // Then every lot with a log is recomputed, and each measure agrees. Times to 1e-4 h, rates to 1e-6 °Brix/day and
-        // temperatures to 1e-6 °C (python prints six decimals); the one-third time of a lot with a recorded addition to
+        // temperatures to 1e-6 °C (python prints ten digits); the one-third time of a lot with a recorded addition to
         // 0.2 h, since python starts it from lots.csv's effective °Brix at two decimals (0.005 °Brix at the slowest demo
         // rate, 0.05 °Brix/h, is 0.07 h). The fits: scipy's least-squares optimum to 1e-5 relative (both solvers stop
         // near, not at, it), and the RMSE to 1e-6 °Brix.
@@ -73,6 +74,22 @@ public class KineticsAuditTests
             Check("logistic_mu_brix_per_h", k.Logistic.Fit?.MaxRateBrixPerHour, 1e-5, relative: true);
             Check("logistic_lambda_h", k.Logistic.Fit?.LagHours, 1e-5, relative: true);
             Check("logistic_rmse_brix", k.Logistic.Fit?.Rmse, 1e-6);
+
+            // The sluggish window, and the stall as stuck or as stalled-then-finished (its hours from time zero, its rate)
+            double? H(DateTime? at) => at is { } a ? (a - k.Origin).TotalHours : null;
+            Check("sluggish_from_h", H(k.Sluggish?.Start), 1e-4);
+            Check("sluggish_to_h", H(k.Sluggish?.End), 1e-4);
+            Check("sluggish_rate", k.Sluggish?.MeanRateBrixPerDay, 1e-6);
+            var stall = k.Stuck ?? k.StalledThenFinished;
+            if (e["stuck"] != (k.Stuck is not null ? "true" : "false") || e["stalled_then_finished"] != (k.StalledThenFinished is not null ? "true" : "false"))
+            {
+                problems.Add($"{k.LotKey}: python stuck {e["stuck"]}, stalled then finished {e["stalled_then_finished"]}; tool {k.Stuck is not null}, {k.StalledThenFinished is not null}");
+            }
+            else if (stall is not null)
+            {
+                Check("stall_from_h", H(stall.Start), 1e-4);
+                Check("stall_to_h", H(stall.End), 1e-4);
+            }
         }
 
         // And each strain's median and type-7 quartiles of maximum rate, lag, days to dry and peak temperature are numpy's

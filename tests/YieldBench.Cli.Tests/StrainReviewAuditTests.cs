@@ -7,8 +7,8 @@ using YieldBench.Intake;
 namespace YieldBench.Cli.Tests;
 
 /// <summary>
-/// The review's robust group summaries and strain comparison (docs/methods.md Part 2, sections 2, 3 and 6) against a
-/// recomputation in R 4.2.2 with robustbase 0.95-0 from the methods text: tests/YieldBench.Core.Tests/Fixtures/
+/// The review's robust group summaries and strain comparison, raw and adjusted (docs/methods.md Part 2, sections 2, 3, 5
+/// and 6) against a recomputation in R 4.2.2 with robustbase 0.95-0 and MASS 7.3-58.2 from the methods text: tests/YieldBench.Core.Tests/Fixtures/
 /// strain-review-audit.R, given each lot's values as the review computes them (strain-review-values.run.cs writes
 /// them to 17 digits; the commands are in both files' headers), on the demo and on the invented Brackenfold cellar.
 /// The recorded inputs and outputs are in Fixtures/strain-review-audit.
@@ -100,6 +100,31 @@ public class StrainReviewAuditTests
             Check(key + " high", expected[("pair", "", key, "factor", "high")], p.Interval.High, 1e-12);
             Check(key + " p", expected[("pair", "", key, "factor", "p")], p.P, 1e-9);
             Check(key + " Holm", expected[("pair", "", key, "factor", "holm")], p.HolmP, 1e-9);
+        }
+
+        // And the adjusted comparison is MASS rlm's (7.3-58.2; Huber k 1.345, as adjusted-comparison.R): the lots used, the
+        // reference sugar, whether vessel is in it, each strain's predicted alcohol, factor and interval at the reference
+        // sugar and vessel mix, and every pair's difference with its interval, to 1e-9 relative (both stop their iterations
+        // by the same rule; MASS's own convergence tolerance is 1e-4)
+        Assert.Equal(expected[("adjusted", "", "", "factor", "lots")], c.ReferenceLots);
+        Assert.Equal(expected[("adjusted", "", "", "factor", "with_vessel")] == 1, c.AdjustedForVessel);
+        Check("reference °Brix", expected[("adjusted", "", "", "factor", "reference_brix")], c.ReferenceBrix, 1e-15);
+        Assert.Equal(c.Strains.Count, c.Adjusted.Count);
+        foreach (var a in c.Adjusted)
+        {
+            Check(a.Strain + " predicted", expected[("adjusted", "", a.Strain, "factor", "predicted")], a.PredictedAbv, 1e-9);
+            Check(a.Strain + " factor", expected[("adjusted", "", a.Strain, "factor", "factor")], a.Factor, 1e-9);
+            Check(a.Strain + " factor low", expected[("adjusted", "", a.Strain, "factor", "low")], a.FactorInterval.Low, 1e-9);
+            Check(a.Strain + " factor high", expected[("adjusted", "", a.Strain, "factor", "high")], a.FactorInterval.High, 1e-9);
+        }
+
+        Assert.Equal(expected.Keys.Count(k => k.Item1 == "difference") / 3, c.AdjustedDifferences.Count);
+        foreach (var a in c.AdjustedDifferences)
+        {
+            string key = a.First + " - " + a.Second;
+            Check(key + " difference", expected[("difference", "", key, "abv", "estimate")], a.AbvDifference, 1e-9);
+            Check(key + " low", expected[("difference", "", key, "abv", "low")], a.Interval.Low, 1e-9);
+            Check(key + " high", expected[("difference", "", key, "abv", "high")], a.Interval.High, 1e-9);
         }
 
         Assert.True(problems.Count == 0, string.Join(Environment.NewLine, problems));

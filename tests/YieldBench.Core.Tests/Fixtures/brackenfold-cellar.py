@@ -1,8 +1,9 @@
 # An invented cellar for the kinetics audit (kinetics-audit.py): Brackenfold Cellars (invented; no real winery, yeast
 # or data), strains BF-A3, BF-K9 (reds), BF-M4, BF-S6 (whites), seasons 2019-2021, 78 lots, each with a log. Logs follow
 # the modified Gompertz course (Zwietering et al. 1990) with reading noise; in them: a red that passes 40 °C, a
-# stretch that stalls near 3.5 °Brix before the lab finds the wine dry, two readings at one time, an hourly probe log,
-# a white whose temperature sits at the 20 °C line, a lot without an inoculation time, and a season logged in SG.
+# white stuck near 3.5 °Brix (28.4 g/L residual sugar), a red that stalls four days at 10 °Brix and then finishes, a
+# white that idles 60 h at 8 °Brix, two readings at one time, an hourly probe log, a white whose temperature sits at the
+# 20 °C line, a lot without an inoculation time, and a season logged in SG.
 # Writes its four CSV files into kinetics-audit/brackenfold-input beside this script:
 #   /usr/bin/python3 brackenfold-cellar.py        (Debian 12 python 3.11.2; the standard library only)
 import csv, math, random, datetime as dt, os
@@ -19,6 +20,8 @@ for season in (2019, 2020, 2021):
             lot = "BF%d-%02d" % (season % 100, n)
             b0 = round(rng.gauss(24.5 if colour == "red" else 21.5, 1.2), 1)
             rs = round(rng.uniform(0.6, 3.0), 1)
+            if season == 2020 and strain == "BF-M4" and k == 2: rs = 28.4                  # the stalled lot is stuck
+            pause = {(2021, "BF-K9", 3): (10.0, 100.0), (2021, "BF-S6", 1): (8.0, 60.0)}.get((season, strain, k))  # (°Brix, h)
             abv = round(f * b0 + rng.gauss(0, 0.1), 2)
             inoc = dt.datetime(season, 9, 3 + n % 25, 9 + k % 8, 5 * k % 60)
             inoc_written = "" if (season == 2020 and k == 3) else inoc.strftime("%Y-%m-%d %H:%M")
@@ -29,8 +32,13 @@ for season in (2019, 2020, 2021):
             probe = season == 2019 and strain == "BF-K9" and k == 1                      # hourly probe log
 
             t = rng.uniform(2, 8); rows = []
+            t_pause = None
+            if pause:  # the sugar holds near pause[0] °Brix for pause[1] hours, then the course goes on where it left off
+                t_pause = next(h / 10 for h in range(20000) if b0 - gomp(A, m, lam, h / 10) <= pause[0])
             while True:
-                c = gomp(A, m, lam, t)
+                if t_pause is None or t < t_pause: c = gomp(A, m, lam, t)
+                elif t < t_pause + pause[1]: c = gomp(A, m, lam, t_pause) + 0.1 * (t - t_pause) / 24
+                else: c = gomp(A, m, lam, t - pause[1]) + 0.1 * pause[1] / 24
                 if season == 2020 and strain == "BF-M4" and k == 2 and c > b0 - 3.5:  # a stall at 3.5 °Brix
                     c = min(c, b0 - 3.5 + 0.02 * (t / 24))
                 brix = b0 - c

@@ -1,8 +1,8 @@
 # Recomputes the review's per-lot fermentation kinetics from docs/methods.md Part 4 (the text, not the tool's code): lag,
 # one-third depletion, time to dryness, duration, maximum rate (between readings, or the local linear fit of a dense log),
 # peak temperature, hours above the caution and danger lines, the highest temperature reachable without cooling, and the
-# Zwietering et al. (1990) modified Gompertz and logistic fits by scipy.optimize.curve_fit (MINPACK Levenberg-Marquardt);
-# then per strain the median and type-7 quartiles of maximum rate, lag, days to dry and peak temperature.
+# Zwietering et al. (1990) modified Gompertz and logistic fits by scipy.optimize.curve_fit (MINPACK Levenberg-Marquardt),
+# the sluggish window and the stall (stuck, or stalled then finished); then per strain the median and type-7 quartiles of maximum rate, lag, days to dry and peak temperature.
 # Produced with Debian 12 python 3.11.2, numpy 1.24.2, scipy 1.10.1, openpyxl 3.0.9
 # (apt-get install -y python3-scipy python3-openpyxl), from the repository root:
 #   dotnet run -c Release --project src/YieldBench.Cli -- review --out /tmp/k/demo
@@ -148,10 +148,38 @@ for lot_id, rows in logs.items():
         for i in range(len(t)):
             w = [k for k in range(len(t)) if abs(t[k] - t[i]) <= 6]
             if len(w) >= 3:
-                rates.append(-np.polyfit([t[k] for k in w], [y[k] for k in w], 1)[0] * 24)
-        max_rate = max(rates)
+                rates.append((-np.polyfit([t[k] for k in w], [y[k] for k in w], 1)[0] * 24, t[i]))
+        max_rate, max_rate_at = max(rates, key=lambda r: r[0])  # the first of equal maxima
     else:
-        max_rate = max((y[i - 1] - y[i]) / (t[i] - t[i - 1]) for i in range(1, len(t))) * 24
+        chords = [((y[i - 1] - y[i]) / (t[i] - t[i - 1]) * 24, (t[i - 1] + t[i]) / 2) for i in range(1, len(t))]
+        max_rate, max_rate_at = max(chords, key=lambda r: r[0])
+    # Sluggish and stuck: windows [t - D, t] ending at a reading, starting at or after the lag's end and the time of the
+    # maximum rate; the first whose mean rate is below the limit while the sugar in it (and at its start) stays above
+    # the level
+    def brix_at(h):
+        return float(np.interp(h, t, y))
+    judge_from = max([t[0], max_rate_at] + ([lag] if lag is not None else []))
+    def first_window(D, rate_limit, above):
+        for i in range(len(t)):
+            a = t[i] - D
+            if a < judge_from - 1e-9: continue
+            b0 = brix_at(a); rate = (b0 - y[i]) / D * 24
+            inside = [y[k] for k in range(len(t)) if a <= t[k] <= t[i]]
+            if rate < rate_limit and b0 > above and all(v > above for v in inside):
+                return (a, t[i], rate)
+        return None
+    white = L["colour"] in ("white", "rose")
+    sluggish = first_window(48, 0.25 if white else 0.5, 5.0)
+    stall = first_window(72, 0.25, 0.0)
+    lab_rs = float(L["residual_sugar_gl"]) if L["residual_sugar_gl"] else None
+    dry_after = stall is not None and dry is not None and dry > stall[1]
+    finished = dry_after or (lab_rs is not None and lab_rs <= 4)
+    stuck = stall is not None and not finished
+    restart = None
+    if stall is not None and finished:
+        r = [(brix_at(t[i] - 72) - y[i]) / 72 * 24 for i in range(len(t)) if t[i] - 72 >= stall[1] - 1e-9]
+        restart = max(r) if r else None
+    stalled_then_finished = restart is not None and restart >= 1.0
     red = L["colour"] not in ("white", "rose")
     caution, danger = (35, 40) if red else (20, 25)
     peak = max(c for _, c in tem) if tem else None
@@ -179,6 +207,8 @@ for lot_id, rows in logs.items():
     out.append(dict(season=L["season"], lot_id=lot_id, strain=L["strain"], start_brix=start, start_from=start_from, lag_h=lag, one_third_h=one_third,
                     days_to_dry=None if dry is None else dry / 24, duration_h=t[-1], max_rate_brix_per_day=max_rate,
                     median_spacing_h=spacing, peak_temp_c=peak, time_above_caution_h=above(caution), time_above_danger_h=above(danger), potential_peak_temp_c=potential,
+                    sluggish_from_h=sluggish and sluggish[0], sluggish_to_h=sluggish and sluggish[1], sluggish_rate=sluggish and sluggish[2],
+                    stall_from_h=stall and stall[0], stall_to_h=stall and stall[1], stuck=str(stuck).lower(), stalled_then_finished=str(stalled_then_finished).lower(),
                     gompertz_a_brix=g and g[0], gompertz_mu_brix_per_h=g and g[1], gompertz_lambda_h=g and g[2], gompertz_rmse_brix=g and g[3],
                     logistic_a_brix=lg and lg[0], logistic_mu_brix_per_h=lg and lg[1], logistic_lambda_h=lg and lg[2], logistic_rmse_brix=lg and lg[3]))
 

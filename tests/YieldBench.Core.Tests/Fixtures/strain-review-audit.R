@@ -12,7 +12,7 @@ suppressMessages(library(robustbase))
 args <- commandArgs(trailingOnly = TRUE)
 d <- read.csv(args[1], stringsAsFactors = FALSE, check.names = FALSE, encoding = "UTF-8")
 out <- function(...) cat(paste(..., sep = ","), "\n", sep = "")
-num <- function(v) formatC(v, digits = 15, format = "g")
+num <- function(v) trimws(formatC(v, digits = 15, format = "g"))
 K <- 1.482602218505602                  # 1 / qnorm(3/4), the MAD's normal consistency factor
 # Qn from its definition (Rousseeuw & Croux 1993): the k-th smallest |xi - xj|, i < j, k = choose(n %/% 2 + 1, 2), times
 # 2.21914 and robustbase's small-sample factor. robustbase 0.95-0's Qn() returns that order statistic rounded to single
@@ -67,4 +67,36 @@ for (k in seq_along(pairs)) {
   out("pair", "", key, "factor", "shift", num(as.numeric(r[3]))); out("pair", "", key, "factor", "low", num(as.numeric(r[4])))
   out("pair", "", key, "factor", "high", num(as.numeric(r[5]))); out("pair", "", key, "factor", "p", num(as.numeric(r[6])))
   out("pair", "", key, "factor", "holm", num(holm[k]))
+}
+# The adjusted comparison (Part 2 §6; MASS rlm defaults, Huber k 1.345, as adjusted-comparison.R): the compared strains'
+# dry lots whose factor is within 0.50-0.68 and not above the Gay-Lussac yield; final alcohol on (effective °Brix - their
+# median), strain and, when every vessel type has at least 5 of them, vessel (first level in ordinal order the
+# baseline) unless it is confounded with strain; each strain at the median sugar and the lots' vessel mix, divided by the median; Student-t 95 % intervals
+# from summary(fit) (stddev^2 * cov.unscaled); every pair's difference at the same sugar and vessel mix.
+suppressMessages(library(MASS))
+dry <- is.na(d$residual_sugar_gl) | d$residual_sugar_gl <= 4
+u <- d[ok & dry & d$strain %in% strains & f >= 0.50 & f <= 0.68 & !(d$gay_lussac_efficiency > 1), ]
+ref <- median(u$effective_brix)
+u$strain <- factor(u$strain, levels = strains)
+vessels <- sort(unique(u$vessel), method = "radix")
+withVessel <- length(vessels) > 1 && !("(not recorded)" %in% vessels) && all(table(u$vessel) >= 5)
+u$vessel <- factor(u$vessel, levels = vessels)
+if (withVessel) {  # a vessel confounded with strain (each strain in its own vessels) cannot be told apart: left out
+  X <- model.matrix(~ I(effective_brix - ref) + strain + vessel, data = u)
+  withVessel <- qr(X)$rank == ncol(X)
+}
+fit <- if (withVessel) rlm(final_abv ~ I(effective_brix - ref) + strain + vessel, data = u) else rlm(final_abv ~ I(effective_brix - ref) + strain, data = u)
+s <- summary(fit); V <- s$stddev^2 * s$cov.unscaled; b <- coef(fit); n <- nrow(u); np <- length(b); q <- qt(0.975, n - np)
+share <- if (withVessel) sapply(vessels[-1], function(v) mean(u$vessel == v)) else c()
+out("adjusted", "", "", "factor", "reference_brix", num(ref)); out("adjusted", "", "", "factor", "lots", n)
+out("adjusted", "", "", "factor", "with_vessel", as.integer(withVessel))
+row <- function(i) { l <- c(1, 0, rep(0, length(strains) - 1), share); if (i > 1) l[1 + i] <- 1; l }
+for (i in seq_along(strains)) {
+  l <- row(i); e <- sum(l * b); se <- sqrt(drop(t(l) %*% V %*% l))
+  out("adjusted", "", strains[i], "factor", "predicted", num(e)); out("adjusted", "", strains[i], "factor", "factor", num(e / ref))
+  out("adjusted", "", strains[i], "factor", "low", num((e - q * se) / ref)); out("adjusted", "", strains[i], "factor", "high", num((e + q * se) / ref))
+}
+for (i in seq_along(strains)) for (j in seq_along(strains)) if (i < j) {
+  l <- row(i) - row(j); e <- sum(l * b); se <- sqrt(drop(t(l) %*% V %*% l)); key <- paste(strains[i], "-", strains[j])
+  out("difference", "", key, "abv", "estimate", num(e)); out("difference", "", key, "abv", "low", num(e - q * se)); out("difference", "", key, "abv", "high", num(e + q * se))
 }

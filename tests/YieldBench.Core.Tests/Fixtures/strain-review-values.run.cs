@@ -12,11 +12,11 @@ using YieldBench.Intake;
 var inv = CultureInfo.InvariantCulture;
 string root = Path.GetFullPath(args[0]);
 var set = IntakeReader.Read(args.Skip(1).Select(a => Path.Combine(root, a)).ToArray(), new IntakeOptions { WorkingDirectory = root });
-Console.WriteLine("season,lot_id,strain,vessel,variety,residual_sugar_gl,effective_brix,abv_per_brix,abv_per_brix_fermented,sugar_gl_per_abv,gay_lussac_efficiency");
+Console.WriteLine("season,lot_id,strain,vessel,variety,residual_sugar_gl,effective_brix,abv_per_brix,abv_per_brix_fermented,sugar_gl_per_abv,gay_lussac_efficiency,final_abv");
 foreach (var c in set.Lots.Select(l => ConversionFactors.For(l, SugarModel.Default)))
 {
     Console.WriteLine(string.Join(",", c.Lot.Season.ToString(inv), c.Lot.LotId, c.Lot.Strain, Q(c.Lot.Vessel), Q(c.Lot.Variety),
-        c.Lot.ResidualSugarGl is { } rs ? R(rs) : "NA", R(c.EffectiveStartingBrix), R(c.AbvPerBrix), R(c.AbvPerBrixFermented), R(c.SugarGlPerAbv), R(c.GayLussacEfficiency)));
+        c.Lot.ResidualSugarGl is { } rs ? R(rs) : "NA", R(c.EffectiveStartingBrix), R(c.AbvPerBrix), R(c.AbvPerBrixFermented), R(c.SugarGlPerAbv), R(c.GayLussacEfficiency), R(c.Lot.FinalAlcohol.PercentVolume)));
 }
 
 string R(double v) => double.IsFinite(v) ? v.ToString("R", inv) : "NA";
