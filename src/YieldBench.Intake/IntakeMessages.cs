@@ -207,6 +207,9 @@ public static class IntakeMessages
     internal static string DuplicateOfMappedColumn(string field, string mapped) =>
         $"This column also maps to {field}, but your mapping names '{mapped}' for it, so that one was read and this one was not.";
 
+    internal static string HiddenDuplicateColumn(string field, string shown) =>
+        $"This column is hidden in the workbook, and the column '{shown}' the sheet shows maps to {field} too, so that one was read and this one was not. To read this one, unhide it and map it with --column {field}=HEADER.";
+
     internal static string UnitAssumed(string unit, string example) =>
         $"The header gives no unit; values were read as {unit}. State the unit in the header, e.g. '{example}'.";
 

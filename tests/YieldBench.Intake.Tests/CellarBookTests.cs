@@ -1,3 +1,6 @@
+using System.IO.Compression;
+using System.Text;
+using ClosedXML.Excel;
 using YieldBench.Core.Lots;
 using YieldBench.Intake;
 
@@ -102,5 +105,64 @@ public sealed class CellarBookTests
         Assert.Equal([9, 10], set.Issues.Where(i => i.Code == IssueCodes.SummaryRowSkipped).Select(i => i.Row!.Value));
         Assert.Equal([11], set.Issues.Where(i => i.Code == IssueCodes.MissingValue).Select(i => i.Row!.Value).Distinct());
         Assert.Equal([12], set.Issues.Where(i => i.Code == IssueCodes.NoteRowSkipped).Select(i => i.Row!.Value));
+    }
+
+    [Fact]
+    public void A_visible_column_is_read_before_a_hidden_one_for_the_same_field_in_an_xlsx()
+    {
+        // Given a cellar book whose hidden column D keeps the field estimate before picking (22.0) beside the reading at
+        // crush (24.0) the sheet shows
+        using var folder = new TestFolder();
+        using (var wb = new XLWorkbook())
+        {
+            var ws = wb.AddWorksheet("Cellar 2024");
+            Workbooks.Fill(ws, ["Lot", "Yeast", "Season", "Harvest Brix", "Crush Brix", "Alc"], ["24-CH-01", "QR-A4", 2024, 22.0, 24.0, 14.1]);
+            ws.Column(4).Hide();
+            wb.SaveAs(folder.PathOf("cellar.xlsx"));
+        }
+
+        // When read
+        var set = folder.Read("cellar.xlsx");
+
+        // Then the shown reading is the starting sugar, and the hidden column is named as not read, with why
+        Assert.Equal(24.0, Assert.Single(set.Lots).StartingSugar.Brix, 1e-9);
+        var dup = Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn);
+        Assert.Equal("Harvest Brix", dup.Column);
+        Assert.Equal("This column is hidden in the workbook, and the column 'Crush Brix' the sheet shows maps to starting_sugar too, so that one was read and this one was not. To read this one, unhide it and map it with --column starting_sugar=HEADER.", dup.Message);
+    }
+
+    [Fact]
+    public void A_visible_column_is_read_before_a_hidden_one_in_an_ods_and_a_hidden_column_alone_is_still_read()
+    {
+        // Given an .ods (as LibreOffice saves it) whose first starting-sugar column is collapsed, and whose only
+        // alcohol column is collapsed too
+        using var folder = new TestFolder();
+        string Cell(object v) => v is string t ? $"<table:table-cell office:value-type=\"string\"><text:p>{t}</text:p></table:table-cell>"
+            : $"<table:table-cell office:value-type=\"float\" office:value=\"{Convert.ToString(v, System.Globalization.CultureInfo.InvariantCulture)}\"/>";
+        string Row(params object[] cells) => "<table:table-row>" + string.Concat(cells.Select(Cell)) + "</table:table-row>";
+        string content = "<?xml version=\"1.0\" encoding=\"UTF-8\"?><office:document-content xmlns:office=\"urn:oasis:names:tc:opendocument:xmlns:office:1.0\" xmlns:table=\"urn:oasis:names:tc:opendocument:xmlns:table:1.0\" xmlns:text=\"urn:oasis:names:tc:opendocument:xmlns:text:1.0\"><office:body><office:spreadsheet><table:table table:name=\"Cellar 2024\">"
+            + "<table:table-column table:number-columns-repeated=\"3\"/><table:table-column table:visibility=\"collapse\"/><table:table-column/><table:table-column table:visibility=\"collapse\"/>"
+            + Row("Lot", "Yeast", "Season", "Harvest Brix", "Crush Brix", "Alc") + Row("24-CH-01", "QR-A4", 2024, 22.0, 24.0, 14.1)
+            + "</table:table></office:spreadsheet></office:body></office:document-content>";
+        using (var zip = new ZipArchive(File.Create(folder.PathOf("cellar.ods")), ZipArchiveMode.Create))
+        {
+            using (var w = new StreamWriter(zip.CreateEntry("mimetype", CompressionLevel.NoCompression).Open(), new UTF8Encoding(false)))
+            {
+                w.Write("application/vnd.oasis.opendocument.spreadsheet");
+            }
+
+            using (var w = new StreamWriter(zip.CreateEntry("content.xml").Open(), new UTF8Encoding(false)))
+            {
+                w.Write(content);
+            }
+        }
+
+        // When read
+        var set = folder.Read("cellar.ods");
+
+        // Then the shown starting sugar is read, and the hidden alcohol column, the only one, is read as before
+        var lot = Assert.Single(set.Lots);
+        Assert.Equal((24.0, 14.1), (lot.StartingSugar.Brix, lot.FinalAlcohol.PercentVolume));
+        Assert.Equal("Harvest Brix", Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn).Column);
     }
 }

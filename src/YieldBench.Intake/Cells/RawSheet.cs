@@ -47,6 +47,9 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
     /// <summary>True when the workbook hides the sheet (hidden or very hidden); such a sheet is not read.</summary>
     public bool Hidden { get; init; }
 
+    /// <summary>Columns (0-based) the workbook hides: a visible column for the same field is read before them.</summary>
+    public HashSet<int> HiddenColumns { get; } = [];
+
     /// <summary>The blocks of merged cells the workbook declares (read as seen by <see cref="MergedCells"/>).</summary>
     public List<CellSpan> Merged { get; } = [];
 

@@ -78,13 +78,15 @@ internal static class OdsSource
                 bool hidden = xr.GetAttribute("style-name", TableNs) is { } style && hiddenStyles.Contains(style);
                 (List<object?[]> rows, bool tooMany) = ([], false);
                 var spans = new List<CellSpan>();
+                var hiddenColumns = new HashSet<int>();
                 if (!xr.IsEmptyElement)
                 {
                     using var table = xr.ReadSubtree();
-                    (rows, tooMany) = ReadTable(table, options.MaxRows, spans);
+                        (rows, tooMany) = ReadTable(table, options.MaxRows, spans, hiddenColumns);
                 }
 
                 var sheet = new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, Hidden = hidden };
+                sheet.HiddenColumns.UnionWith(hiddenColumns);
                 sheet.Merged.AddRange(spans);
                 sheets.Add(sheet);
             }
@@ -97,16 +99,33 @@ internal static class OdsSource
     /// The rows of one <c>table:table</c>, with empty repeats written out only where content follows; the blocks of
     /// merged cells (a cell spanning rows or columns) are added to <paramref name="spans"/>.
     /// </summary>
-    private static (List<object?[]> Rows, bool TooMany) ReadTable(XmlReader xr, int maxRows, List<CellSpan> spans)
+    private static (List<object?[]> Rows, bool TooMany) ReadTable(XmlReader xr, int maxRows, List<CellSpan> spans, HashSet<int> hiddenColumns)
     {
         var rowSpans = new List<(int Column, int Rows, int Columns)>();
         var rows = new List<object?[]>();
         long pendingBlank = 0;
+        long declaredColumns = 0;
         xr.Read();
         while (xr.Read())
         {
             if (xr.NodeType != XmlNodeType.Element || xr.NamespaceURI != TableNs)
             {
+                continue;
+            }
+
+            if (xr.LocalName == "table-column")
+            {
+                // Columns hidden in the sheet (table:visibility="collapse"), up to the widest sheet's width.
+                long repeatColumns = Repeat(xr.GetAttribute("number-columns-repeated", TableNs));
+                if (xr.GetAttribute("visibility", TableNs) is "collapse" or "filter")
+                {
+                    for (long i = declaredColumns; i < declaredColumns + Math.Min(repeatColumns, MaxColumns - declaredColumns); i++)
+                    {
+                        hiddenColumns.Add((int)i);
+                    }
+                }
+
+                declaredColumns += Math.Min(repeatColumns, MaxColumns - declaredColumns);
                 continue;
             }
 

@@ -55,6 +55,7 @@ internal static class WorkbookSource
         }
 
         Dictionary<string, List<(int Row, int Col, object Cell)>> unreadCells = [];
+        Dictionary<string, HashSet<int>> hiddenColumns = [];
         if (isZip)
         {
             if (!CheckZip(file, fullPath, ext, options, sink, "xl/workbook.xml", "xl/workbook.bin"))
@@ -62,7 +63,7 @@ internal static class WorkbookSource
                 return SourceFiles.Refused;
             }
 
-            unreadCells = FindUnreadCells(fullPath, out string? damage);
+            unreadCells = FindUnreadCells(fullPath, hiddenColumns, out string? damage);
             if (damage is not null)
             {
                 // The spreadsheet reader stops quietly at damaged XML; a half-read sheet must not pass as whole.
@@ -146,6 +147,21 @@ internal static class WorkbookSource
 
                 bool hidden = !string.Equals(reader.VisibleState, "visible", StringComparison.OrdinalIgnoreCase) && !string.IsNullOrEmpty(reader.VisibleState);
                 var sheet = new RawSheet(name, rows, decimalComma: false) { TooManyRows = tooMany, TooManyCells = tooLarge, Hidden = hidden };
+                for (int i = 0; i < width; i++)
+                {
+                    // The reader gives a hidden column (or one of no width, hidden by dragging) a width of 0.
+                    if (reader.GetColumnWidth(i) <= 0)
+                    {
+                        sheet.HiddenColumns.Add(i);
+                    }
+                }
+
+                if (hiddenColumns.TryGetValue(reader.Name ?? "", out var hiddenHere))
+                {
+                    // .xlsx: the reader takes only hidden="1" for hidden; LibreOffice writes hidden="true".
+                    sheet.HiddenColumns.UnionWith(hiddenHere);
+                }
+
                 foreach (var range in reader.MergeCells ?? [])
                 {
                     sheet.Merged.Add(new CellSpan(range.FromRow, range.FromColumn, range.ToRow, range.ToColumn));
@@ -236,9 +252,10 @@ internal static class WorkbookSource
     /// <summary>
     /// Cells the spreadsheet reader shows as empty although they are not, in each worksheet of an .xlsx, by sheet name:
     /// formula errors (cells of type "e", as <see cref="ErrorCell"/>) and formulas with no stored result (an
-    /// <c>f</c> element without a <c>v</c>, as <see cref="FormulaCell"/>). This pass lets us report them instead.
+    /// <c>f</c> element without a <c>v</c>, as <see cref="FormulaCell"/>). This pass lets us report them instead. It
+    /// also collects each sheet's hidden columns (0-based) into <paramref name="hidden"/>.
     /// </summary>
-    private static Dictionary<string, List<(int Row, int Col, object Cell)>> FindUnreadCells(string fullPath, out string? damage)
+    private static Dictionary<string, List<(int Row, int Col, object Cell)>> FindUnreadCells(string fullPath, Dictionary<string, HashSet<int>> hidden, out string? damage)
     {
         var result = new Dictionary<string, List<(int, int, object)>>(StringComparer.Ordinal);
         damage = null;
@@ -290,7 +307,7 @@ internal static class WorkbookSource
                 if (zip.GetEntry(path) is { } entry)
                 {
                     using var es = entry.Open();
-                    ScanCells(es, name, result);
+                    ScanCells(es, name, result, hidden);
                 }
             }
         }
@@ -306,8 +323,8 @@ internal static class WorkbookSource
         return result;
     }
 
-    /// <summary>Streams one worksheet's XML, adding its error cells and formulas without a stored result.</summary>
-    private static void ScanCells(Stream sheetXml, string sheet, Dictionary<string, List<(int, int, object)>> result)
+    /// <summary>Streams one worksheet's XML, adding its error cells and formulas without a stored result, and its hidden columns.</summary>
+    private static void ScanCells(Stream sheetXml, string sheet, Dictionary<string, List<(int, int, object)>> result, Dictionary<string, HashSet<int>> hidden)
     {
         using var xr = XmlReader.Create(sheetXml, SafeXml);
         string? reference = null;
@@ -317,7 +334,22 @@ internal static class WorkbookSource
         while (advanced || xr.Read())
         {
             advanced = false;
-            if (xr.NodeType == XmlNodeType.Element && xr.LocalName == "c")
+            if (xr.NodeType == XmlNodeType.Element && xr.LocalName == "col" && xr.GetAttribute("hidden") is "1" or "true"
+                && int.TryParse(xr.GetAttribute("min"), NumberStyles.None, CultureInfo.InvariantCulture, out int min)
+                && int.TryParse(xr.GetAttribute("max"), NumberStyles.None, CultureInfo.InvariantCulture, out int max))
+            {
+                // <col min="6" max="6" hidden="true"/>: 1-based, up to the widest sheet's width.
+                if (!hidden.TryGetValue(sheet, out var set))
+                {
+                    hidden[sheet] = set = [];
+                }
+
+                for (int i = Math.Max(min, 1); i <= Math.Min(max, MaxColumns); i++)
+                {
+                    set.Add(i - 1);
+                }
+            }
+            else if (xr.NodeType == XmlNodeType.Element && xr.LocalName == "c")
             {
                 reference = xr.GetAttribute("r");
                 error = xr.GetAttribute("t") == "e";

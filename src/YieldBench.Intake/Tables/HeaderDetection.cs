@@ -124,8 +124,11 @@ internal static class HeaderDetection
             var bound = new BoundColumn(c, field, text, unit, unit != ColumnUnit.None) { Mapped = rule is not null };
             if (columns.FirstOrDefault(b => b.Field.Name == field.Name) is { } first)
             {
-                if (bound.Mapped && !first.Mapped)
+                if ((bound.Mapped && !first.Mapped)
+                    || (bound.Mapped == first.Mapped && sheet.HiddenColumns.Contains(first.Index) && !sheet.HiddenColumns.Contains(c)))
                 {
+                    // Or: the earlier column is hidden in the workbook (an old estimate kept out of sight) and this
+                    // one is what the sheet shows.
                     // The user named this column for the field (as the duplicate-column message advises): it is read,
                     // and the earlier column that only a synonym matched is the repeat.
                     columns[columns.IndexOf(first)] = bound;

@@ -45,12 +45,13 @@ internal static class SheetReader
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.ColumnNotUsed, IntakeMessages.ColumnNotUsed());
         }
 
-        foreach (var (_, header, first) in duplicates)
+        foreach (var (column, header, first) in duplicates)
         {
             sink.Warning(file, sheetName, headerRow + 1, header, null, IssueCodes.DuplicateColumn,
                 first.Field.Name == "temp_c" && HeaderDetection.IsCapHeader(header) && !HeaderDetection.IsCapHeader(first.Header)
                     ? IntakeMessages.CapTemperatureNotRead(first.Header)
                     : first.Mapped ? IntakeMessages.DuplicateOfMappedColumn(first.Field.Name, first.Header)
+                    : sheet.HiddenColumns.Contains(column) && !sheet.HiddenColumns.Contains(first.Index) ? IntakeMessages.HiddenDuplicateColumn(first.Field.Name, first.Header)
                     : IntakeMessages.DuplicateColumn(first.Field.Name, first.Header,
                         potential: first.Unit != ColumnUnit.PotentialAlcohol && HeaderText.UnitFromHeader(header, first.Field.Kind) == ColumnUnit.PotentialAlcohol));
         }
