@@ -187,6 +187,29 @@ internal static partial class FieldParsers
     internal static bool NumberCell(RowState st, BoundColumn c, out double value)
     {
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (cell is string noted && NumberWithNote().Match(noted) is { Success: true } m && !c.ParsedAt(st.Row - st.Ctx.FirstData, out _))
+        {
+            // "24.1 (retest)": a number with a note in brackets that holds no digit. The number is what was measured;
+            // the note is named, so nothing is dropped unseen. "24.1 (23.8)" or "24.1 (retest 14/9)" stay no number.
+            if (!NumberCellOf(st, c, m.Groups["num"].Value, out value))
+            {
+                return false;
+            }
+
+            st.Ctx.Run.Sink.Warning(st.Ctx.File, st.Ctx.SheetName, st.SheetRow, c.Header, noted, IssueCodes.NoteInCell,
+                IntakeMessages.NoteInCell(Label(c.Field), m.Groups["num"].Value.Trim(), m.Groups["note"].Value.Trim()));
+            return true;
+        }
+
+        return NumberCellOf(st, c, cell, out value);
+    }
+
+    /// <summary>A number (perhaps with a unit) followed by a note in round or square brackets with a letter and no digit.</summary>
+    [System.Text.RegularExpressions.GeneratedRegex(@"^\s*(?<num>[^()\[\]]*[0-9][^()\[\]]*?)\s*[(\[](?<note>[^0-9()\[\]]*\p{L}[^0-9()\[\]]*)[)\]]\s*$")]
+    private static partial System.Text.RegularExpressions.Regex NumberWithNote();
+
+    private static bool NumberCellOf(RowState st, BoundColumn c, object? cell, out double value)
+    {
         string? alternative = null;
         var problem = c.ParsedAt(st.Row - st.Ctx.FirstData, out value)
             ? CellProblem.None
