@@ -179,10 +179,10 @@ public sealed partial class ReviewCommandTests(DemoReviewFixture demo) : IClassF
         var overview = Sheet("Overview");
         var followUp = Sheet("Follow-up");
 
-        // When the lots each counts are read: the console's number, the Overview's "N lot(s), one line each" and its
+        // When the lots each counts are read: the console's number, the Overview's "N lots, one line each" and its
         // one line per lot, the Follow-up sheet's rows up to its first blank row (strain notes follow it)
         int consoleCount = int.Parse(console.Groups[1].Value, CultureInfo.InvariantCulture);
-        var overviewCount = overview.SelectMany(r => r).Select(c => System.Text.RegularExpressions.Regex.Match(c, @"^(\d+) lot\(s\), one line each")).Single(m => m.Success);
+        var overviewCount = overview.SelectMany(r => r).Select(c => System.Text.RegularExpressions.Regex.Match(c, @"^(\d+) lots?, one line each")).Single(m => m.Success);
         int overviewLines = overview.Count(r => r.Length > 0 && System.Text.RegularExpressions.Regex.IsMatch(r[0], @"^\d{4}/\S+ \S+ \((likely error|check|note)\):"));
         int header = Array.FindIndex(followUp, r => r.Contains("Lot"));
         var sheetLots = followUp.Skip(header + 1).TakeWhile(r => r.Any(c => c.Length > 0)).ToArray();

@@ -94,7 +94,7 @@ public static class LotFindings
             Codes = codes,
             Flags = codes.Select(ReviewTexts.FlagName).ToArray(),
             Seen = Seen(lot, symptoms, explanations, kinetics, unit),
-            Explanation = lead is null ? SymptomExplanation(low) : Explain(lead, lot),
+            Explanation = lead is null ? SymptomExplanation(low, symptoms.FirstOrDefault()?.ReferenceGroup.Contains("(pooled", StringComparison.Ordinal) == true) : Explain(lead, lot),
             Otherwise = second is null ? null : Explain(second, lot),
             FollowUp = lead is null ? SymptomFollowUp(low) : Act(lead, lot),
         };
@@ -205,9 +205,16 @@ public static class LotFindings
         _ => Sentence(f.FollowUp),
     };
 
-    private static string SymptomExplanation(bool low) => low
-        ? "Less alcohol than the strain's other lots from this sugar: most often a starting-sugar sample taken before the skins gave up their sugar, or alcohol lost from a hot open ferment."
-        : "More alcohol than the strain's other lots from this sugar: most often a starting-sugar sample that read low, or sugar that was not recorded.";
+    // A strain with too few lots is judged against all lots ("all lots (pooled)", "all finished lots (pooled line)"): the
+    // sentence then names those, not "the strain's other lots".
+    private static string SymptomExplanation(bool low, bool pooled)
+    {
+        string others = pooled ? "the cellar's lots" : "the strain's other lots";
+        string why = pooled ? " (the strain has too few lots to be judged against its own)" : string.Empty;
+        return low
+            ? $"Less alcohol than {others} from this sugar{why}: most often a starting-sugar sample taken before the skins gave up their sugar, or alcohol lost from a hot open ferment."
+            : $"More alcohol than {others} from this sugar{why}: most often a starting-sugar sample that read low, or sugar that was not recorded.";
+    }
 
     private static string SymptomFollowUp(bool low) => low
         ? "Re-check the starting-sugar sampling; if it was sound, look for unrecorded water and re-run the alcohol analysis."

@@ -23,7 +23,7 @@ public static partial class ReviewTables
             new("low_95", "95 % of lots: low (% v/v)", CellKind.Number, c => c.Estimate.Low95, "0.00"),
             new("high_95", "95 % of lots: high (% v/v)", CellKind.Number, c => c.Estimate.High95, "0.00"),
             new("held_out_error_abv", $"Error on held-out {ReportTexts.HeldOut(review.HouseFactor.PrimaryScheme)} (% v/v)", CellKind.Number, c => c.HeldOutMae, "0.00"),
-            new("lots", "Held-out lots scored", CellKind.Integer, c => c.Lots),
+            new("lots", "Held-out lots scored", CellKind.Integer, c => c.ScoredAlone ? c.Lots : null),
             new("ranges_from", "Ranges from", CellKind.Text, c => c.RangesFrom),
             new("candidate", "How the factor is worked out", CellKind.Text, c => c.Candidate),
         ];

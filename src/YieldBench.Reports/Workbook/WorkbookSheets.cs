@@ -55,7 +55,7 @@ internal static class WorkbookSheets
             string tolerance = o.HouseFactor is { } h
                 ? string.Create(CultureInfo.InvariantCulture, $" Held out {h.Scheme}, {h.ShareWithinTolerance * 100:0} % of lots came within the {h.Regime} tolerance of the prediction.")
                 : string.Empty;
-            plan.Text(string.Create(CultureInfo.InvariantCulture, $"Each factor's prediction and ranges are shown at {f.ReferenceBrix:0.0} °Brix, the median starting sugar of the lots compared; a range is where 80 % or 95 % of lots came out, by the error on seasons held out.{tolerance}"))
+            plan.Text(string.Create(CultureInfo.InvariantCulture, $"Each factor's prediction and ranges are shown at {f.ReferenceBrix:0.0} °Brix, the median starting sugar of the lots compared; a range is where 80 % or 95 % of lots came out, by the error on {ReportTexts.HeldOut(review.HouseFactor.PrimaryScheme)} held out.{tolerance}"))
                 .Table(ReviewTables.Factors(review));
         }
         else
@@ -64,11 +64,23 @@ internal static class WorkbookSheets
         }
 
         plan.Gap().Heading("Strains compared from the same starting sugar").Texts(o.Strains.Plain);
+        if (o.Strains.Ranking.Count == 1)
+        {
+            plan.Text(o.Strains.LeftOut.Count == 0
+                ? "One strain only, so there is nothing to compare it with."
+                : "One strain has enough lots to be compared, so there is nothing to compare it with.");
+        }
+
         plan.TableOrNone(ReviewTables.StrainsCompared(review), "Fewer than two strains have enough lots to compare.");
+        if (o.Strains.LeftOutSentence is { } leftOut)
+        {
+            plan.Text(leftOut);
+        }
+
         plan.Gap().Heading("Lots to look at")
             .Text(o.Lots.Flagged == 0
                 ? "None: no lot was flagged by the strain review or the kinetics."
-                : $"{o.Lots.Flagged} lot(s), one line each ({string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{ReviewTexts.Severity(c.Severity)} {c.Lots}"))}); what was seen and the other possibilities are on the Follow-up sheet.");
+                : $"{o.Lots.Flagged} lot{(o.Lots.Flagged == 1 ? string.Empty : "s")}, one line each ({string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{ReviewTexts.Severity(c.Severity)} {c.Lots}"))}); what was seen and the other possibilities are on the Follow-up sheet.");
         // One line per lot, as a paragraph: the lot, how sure, the likely explanation and what to do.
         foreach (var lot in review.Findings)
         {

@@ -83,6 +83,29 @@ public sealed partial class CellarSizeTests
         }
     }
 
+    [Fact]
+    public void A_lot_of_a_strain_too_small_to_be_its_own_reference_is_not_compared_with_the_strain_s_other_lots()
+    {
+        // Given nine lots of SM-A at 0.59 % v/v per °Brix and the single lot of SM-B at 0.63, well above them
+        var lots = Enumerable.Range(0, 10).Select(i => new Core.Lots.Lot
+        {
+            LotId = $"S{i + 1:00}",
+            Season = 2025,
+            Strain = i < 9 ? "SM-A" : "SM-B",
+            StartingSugar = Core.Units.SugarReading.FromBrix(22.0 + (0.35 * i)),
+            FinalAlcohol = Core.Units.AlcoholContent.FromPercentVolume(Math.Round((i < 9 ? 0.59 + (0.002 * ((i % 3) - 1)) : 0.63) * (22.0 + (0.35 * i)), 2)),
+            ResidualSugarGl = 1.5,
+        }).ToList();
+        var review = ReviewRunner.Run(new Core.Lots.SeasonSet { Lots = lots }, new ReviewSettings(), "9.9.9-test");
+
+        // When its finding is read
+        var finding = Assert.Single(review.Findings, f => f.Strain == "SM-B");
+
+        // Then it is set against the cellar's lots, as the review judged it, not against a strain that has no other lot
+        Assert.StartsWith("More alcohol than the cellar's lots from this sugar (the strain has too few lots to be judged against its own):", finding.Explanation, StringComparison.Ordinal);
+        Assert.DoesNotContain("the strain's other lots", HtmlReport.Render(review), StringComparison.Ordinal);
+    }
+
     [GeneratedRegex(@"(?<![\d.,])1 (lots|files|rows|fermentation logs|reasons)\b")]
     private static partial Regex OneWithPlural();
 }

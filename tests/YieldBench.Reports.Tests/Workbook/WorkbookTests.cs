@@ -288,7 +288,7 @@ public sealed class WorkbookTests(WorkbookFixture fixture) : IClassFixture<Workb
         int flagged = review.Lots.Count(l => review.Strains.Flags.Any(f => f.LotKey == l.Lot.Key));
         Assert.True(flagged >= 2);
         var texts = overview.Rows.Cast<DataRow>().Select(r => r[0]).OfType<string>().ToArray();
-        Assert.Contains(texts, t => t.StartsWith($"{flagged} lot(s), one line each", StringComparison.Ordinal));
+        Assert.Contains(texts, t => t.StartsWith($"{flagged} lots, one line each", StringComparison.Ordinal));
         Assert.Equal(flagged, review.Findings.Count);
         Assert.All(review.Findings, f => Assert.Contains(texts, t => t.StartsWith($"{f.Key} {f.Strain} (", StringComparison.Ordinal)));
         Assert.Equal("2024, 2025", pairs["Seasons"]);
