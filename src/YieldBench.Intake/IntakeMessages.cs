@@ -353,6 +353,9 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string NoteInCell(string field, string number, string note) =>
+        $"{field} holds a number with a note in brackets: {number} was read as the value and the note '{note}' was not. If the note changes the number (a value to replace), type the number meant; keep notes in a notes column.";
+
     internal static string GroupHeading(string text, string field) =>
         $"The row holds only '{text}', the {field} of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own {field} cell is.";
 

@@ -165,4 +165,27 @@ public sealed class CellarBookTests
         Assert.Equal((24.0, 14.1), (lot.StartingSugar.Brix, lot.FinalAlcohol.PercentVolume));
         Assert.Equal("Harvest Brix", Assert.Single(set.Issues, i => i.Code == IssueCodes.DuplicateColumn).Column);
     }
+
+    [Fact]
+    public void A_number_with_a_note_in_brackets_is_read_and_the_note_named_but_a_second_number_is_never_chosen()
+    {
+        // Given a hand-kept book: "24.1 (retest)", "13.5 % vol [lab]" and "24.6 (23.8)" (which of the two?)
+        using var folder = new TestFolder();
+        var lots = folder.Text("cellar-2024.csv",
+            "Lot,Yeast,Season,Brix,Alc\n24-CH-02,QR-A4,2024,24.1 (retest),13.9\n24-CH-03,QR-A4,2024,22.8,13.5 % vol [lab]\n24-PN-03,QR-B9,2024,24.6 (23.8),14.4\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then the first two lots are used with their numbers, each note named in a warning at its cell
+        Assert.Equal(24.1, set.Lots.Single(l => l.LotId == "24-CH-02").StartingSugar.Brix, 1e-9);
+        Assert.Equal(13.5, set.Lots.Single(l => l.LotId == "24-CH-03").FinalAlcohol.PercentVolume, 1e-9);
+        var notes = set.Issues.Where(i => i.Code == IssueCodes.NoteInCell).ToList();
+        Assert.Equal([(2, "Brix", "24.1 (retest)"), (3, "Alc", "13.5 % vol [lab]")], notes.Select(i => (i.Row!.Value, i.Column!, i.Value!)));
+        Assert.Equal("starting_sugar holds a number with a note in brackets: 24.1 was read as the value and the note 'retest' was not. If the note changes the number (a value to replace), type the number meant; keep notes in a notes column.", notes[0].Message);
+
+        // and a note holding a number is no note: that lot is left out as before, never read as 24.6 or 23.8
+        Assert.DoesNotContain(set.Lots, l => l.LotId == "24-PN-03");
+        Assert.Contains(set.Issues, i => i.Code == IssueCodes.NotANumber && i.Row == 4 && i.Severity == IssueSeverity.Error);
+    }
 }

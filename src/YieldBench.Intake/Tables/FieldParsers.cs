@@ -187,6 +187,67 @@ internal static partial class FieldParsers
     internal static bool NumberCell(RowState st, BoundColumn c, out double value)
     {
         object? cell = st.Ctx.Sheet.Cell(st.Row, c.Index);
+        if (cell is string noted && NumberWithNote(noted) is var (number, note) && !c.ParsedAt(st.Row - st.Ctx.FirstData, out _))
+        {
+            // "24.1 (retest)": a number with a note in brackets that holds no digit. The number is what was measured;
+            // the note is named, so nothing is dropped unseen. "24.1 (23.8)" or "24.1 (retest 14/9)" stay no number.
+            if (!NumberCellOf(st, c, number, out value))
+            {
+                return false;
+            }
+
+            st.Ctx.Run.Sink.Warning(st.Ctx.File, st.Ctx.SheetName, st.SheetRow, c.Header, noted, IssueCodes.NoteInCell,
+                IntakeMessages.NoteInCell(Label(c.Field), number, note));
+            return true;
+        }
+
+        return NumberCellOf(st, c, cell, out value);
+    }
+
+    /// <summary>Longest cell text taken for a number with a note.</summary>
+    private const int NoteCellMaxLength = 200;
+
+    /// <summary>
+    /// A number (perhaps with a unit) followed by a note in round or square brackets holding a letter and no digit, as
+    /// the number's text and the note's (both trimmed); null for any other text. One pass, no backtracking.
+    /// </summary>
+    internal static (string Number, string Note)? NumberWithNote(string text)
+    {
+        var t = text.AsSpan().Trim();
+        if (t.Length is < 4 or > NoteCellMaxLength || t[^1] is not (')' or ']'))
+        {
+            return null;
+        }
+
+        int open = t.LastIndexOf(t[^1] == ')' ? '(' : '[');
+        if (open <= 0)
+        {
+            return null;
+        }
+
+        var number = t[..open].Trim();
+        var note = t[(open + 1)..^1].Trim();
+        bool noteHasLetter = false;
+        foreach (char ch in note)
+        {
+            if (char.IsAsciiDigit(ch) || ch is '(' or ')' or '[' or ']')
+            {
+                return null;
+            }
+
+            noteHasLetter |= char.IsLetter(ch);
+        }
+
+        if (!noteHasLetter || number.IndexOfAny("()[]") >= 0 || !number.ContainsAny("0123456789"))
+        {
+            return null;
+        }
+
+        return (number.ToString(), note.ToString());
+    }
+
+    private static bool NumberCellOf(RowState st, BoundColumn c, object? cell, out double value)
+    {
         string? alternative = null;
         var problem = c.ParsedAt(st.Row - st.Ctx.FirstData, out value)
             ? CellProblem.None
