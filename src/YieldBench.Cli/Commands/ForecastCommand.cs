@@ -269,10 +269,7 @@ internal static class ForecastCommand
         lines.AddRange(ForecastSentences.Backtest(report.Backtest, unit));
         lines.Add(string.Empty);
         lines.AddRange(ForecastSentences.Basis(report, unit));
-        foreach (var note in report.Notes)
-        {
-            lines.Add(note.Message);
-        }
+        lines.AddRange(ForecastSentences.Notes(report.Notes));
 
         lines.Add(string.Empty);
         string shown = Path.GetRelativePath(workingDirectory, written.Folder);

@@ -152,6 +152,40 @@ public static class ForecastSentences
         return lines;
     }
 
+    /// <summary>Notes of one kind printed one per lot; past this many, the kind is said once and the other lots named.</summary>
+    public const int NotesOnePerLot = 5;
+
+    /// <summary>Lots named after a kind's first note before the rest are counted.</summary>
+    public const int NotesLotsNamed = 20;
+
+    /// <summary>
+    /// The forecast's notes for reading: each kind (code) in the order it first occurs, one line per note while it has
+    /// at most <see cref="NotesOnePerLot"/>; a kind with more (a cellar of 300 running lots with no must volume
+    /// recorded) gives its first note and names the other lots (the first <see cref="NotesLotsNamed"/>, then a count)
+    /// instead of repeating the sentence 300 times.
+    /// </summary>
+    public static IReadOnlyList<string> Notes(IReadOnlyList<ForecastNote> notes)
+    {
+        ArgumentNullException.ThrowIfNull(notes);
+        var lines = new List<string>();
+        foreach (var kind in notes.GroupBy(n => n.Code, StringComparer.Ordinal))
+        {
+            var all = kind.ToArray();
+            if (all.Length <= NotesOnePerLot)
+            {
+                lines.AddRange(all.Select(n => n.Message));
+                continue;
+            }
+
+            var others = all.Skip(1).Select(n => n.LotId ?? "?").ToArray();
+            string named = string.Join(", ", others.Take(NotesLotsNamed));
+            string more = others.Length > NotesLotsNamed ? string.Create(Inv, $" and {others.Length - NotesLotsNamed} more") : string.Empty;
+            lines.Add(all[0].Message + string.Create(Inv, $" Likewise for {others.Length} more lots: {named}{more}."));
+        }
+
+        return lines;
+    }
+
     /// <summary>A few lines of the backtest: the model against the two baselines at each cut, per target.</summary>
     public static IReadOnlyList<string> Backtest(BacktestResult backtest, TemperatureUnit unit = TemperatureUnit.Celsius)
     {

@@ -131,7 +131,7 @@ public static class ForecastWorkbook
                 .Texts(ForecastSentences.Cautions)
                 .Gap()
                 .Heading("What the forecast rests on")
-                .Texts(ForecastSentences.Basis(report, unit).Concat(report.Notes.Select(n => n.Message))),
+                .Texts(ForecastSentences.Basis(report, unit).Concat(ForecastSentences.Notes(report.Notes))),
             new SheetPlan("Intake issues").Table(ReviewTables.IntakeIssues(issues), freeze: true),
         ];
         return WorkbookWriter.Build(sheets, "YieldBench in-season forecast");
