@@ -106,6 +106,21 @@ public sealed partial class CellarSizeTests
         Assert.DoesNotContain("the strain's other lots", HtmlReport.Render(review), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_cellar_of_a_thousand_lots_over_five_seasons_reads_its_counts_with_a_thousands_separator_and_its_seasons_as_a_span()
+    {
+        // Given 1,000 lots: two strains, 100 lots each in each of five seasons (2023–2027)
+        var review = Cellars.Large(strains: 2, lotsPerSeason: 100, seasons: 5);
+
+        // When the page is written
+        string page = HtmlReport.Render(review);
+
+        // Then the masthead says "1,000 lots" and the span of seasons, not a run of five years; the seed stays a plain number
+        Assert.Contains("<p class=\"facts\">1,000 lots from 1 file in 5 seasons, 2023–2027 · no fermentation log ·", page, StringComparison.Ordinal);
+        Assert.Contains("1,000 lots used from 1 file", page, StringComparison.Ordinal);
+        Assert.Contains("with seed 20261.", page, StringComparison.Ordinal);
+    }
+
     [GeneratedRegex(@"(?<![\d.,])1 (lots|files|rows|fermentation logs|reasons)\b")]
     private static partial Regex OneWithPlural();
 }
