@@ -353,6 +353,10 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string LogLaidAcross(int row, int dates, List<string> readings) =>
+        $"The sheet is a fermentation log laid across: its {dates} dates run along row {row} and each reading has a row of its own ({string.Join(", ", readings.Take(4))}{(readings.Count > 4 ? ", …" : "")}), so none of its readings was read. "
+        + "YieldBench reads a log with a row per reading: copy the block and paste it transposed (Paste Special, Transpose) so that the date and each reading head a column, then check again.";
+
     internal static string NoteInCell(string field, string number, string note) =>
         $"{field} holds a number with a note in brackets: {number} was read as the value and the note '{note}' was not. If the note changes the number (a value to replace), type the number meant; keep notes in a notes column.";
 

@@ -283,6 +283,7 @@ public static class IntakeReader
         }
 
         var notTables = new List<RawSheet>();
+        var acrossSheets = new List<RawSheet>();
         bool anyTable = false;
         foreach (var sheet in raw.Sheets)
         {
@@ -304,6 +305,9 @@ public static class IntakeReader
                 case SheetReader.Outcome.Read:
                     anyTable = true;
                     break;
+                case SheetReader.Outcome.NoTable when SheetReader.LaidAcross(sheet) is not null:
+                    acrossSheets.Add(sheet);
+                    break;
                 case SheetReader.Outcome.NoTable:
                     notTables.Add(sheet);
                     break;
@@ -313,7 +317,7 @@ public static class IntakeReader
             }
         }
 
-        if (!anyTable)
+        if (!anyTable && acrossSheets.Count == 0)
         {
             if (step.InFolder && Path.GetExtension(full).Equals(".txt", StringComparison.OrdinalIgnoreCase))
             {
@@ -335,6 +339,15 @@ public static class IntakeReader
 
         foreach (var sheet in notTables)
         {
+            run.Accounts.Add(new SourceAccount(file, sheet.Name, "not read", 0, 0, 0, 0, 0, 0));
+        }
+
+        foreach (var sheet in acrossSheets)
+        {
+            // A ferment sheet laid across (dates along a row, a row per measure): its readings are not read, which is
+            // an error whose fix says how to turn it, not a sheet passed over with a warning.
+            var (row, column, dates, readings) = SheetReader.LaidAcross(sheet)!.Value;
+            sink.Error(file, sheet.Name, row + 1, CellValues.Text(sheet.Cell(row, column)), null, IssueCodes.LogLaidAcross, IntakeMessages.LogLaidAcross(row + 1, dates, readings));
             run.Accounts.Add(new SourceAccount(file, sheet.Name, "not read", 0, 0, 0, 0, 0, 0));
         }
     }

@@ -187,6 +187,9 @@ public static class IssueCodes
     /// <summary><c>time-zone-not-applied</c>.</summary>
     public const string TimeZoneNotApplied = "time-zone-not-applied";
 
+    /// <summary><c>log-laid-across</c>.</summary>
+    public const string LogLaidAcross = "log-laid-across";
+
     /// <summary><c>note-in-cell</c>.</summary>
     public const string NoteInCell = "note-in-cell";
 

@@ -188,4 +188,40 @@ public sealed class CellarBookTests
         Assert.DoesNotContain(set.Lots, l => l.LotId == "24-PN-03");
         Assert.Contains(set.Issues, i => i.Code == IssueCodes.NotANumber && i.Row == 4 && i.Severity == IssueSeverity.Error);
     }
+
+    [Fact]
+    public void A_ferment_sheet_laid_across_is_an_error_saying_how_to_turn_it_not_a_sheet_passed_over_or_dates_read_as_lots()
+    {
+        // Given a workbook with a lots sheet and a tank's ferment sheet laid across (a title, then Date, Time, SG and
+        // cap and juice temperatures each on a row, a column per day), and the same kind of sheet saved as a CSV
+        using var folder = new TestFolder();
+        using (var wb = new XLWorkbook())
+        {
+            Workbooks.Fill(wb.AddWorksheet("Lots"), ["Lot", "Yeast", "Season", "Start Brix", "Alc"], ["T4", "QR-B9", 2025, 25.1, 14.7]);
+            Workbooks.Fill(wb.AddWorksheet("T4"),
+                ["Tank 4 ferment sheet"],
+                ["Date", new DateTime(2025, 9, 20), new DateTime(2025, 9, 21), new DateTime(2025, 9, 22)],
+                ["Time", "7am", "7am", "8am"],
+                ["SG", 1105, 1101, 1088],
+                ["Cap temp °F", 64, 70, 80],
+                ["Juice temp °F", 62, 66, 74]);
+            wb.SaveAs(folder.PathOf("cellar.xlsx"));
+        }
+
+        var csv = folder.Text("T7.csv", "Date;20/09/2025;21/09/2025;22/09/2025;23/09/2025\r\nSG;1105;1101;1088;1070\r\nTemp °F;64;70;80;88\r\n");
+
+        // When read
+        var set = folder.Read("cellar.xlsx", csv);
+
+        // Then each laid-across sheet is one error at its row of dates naming the readings and the fix (so check
+        // exits 1), no sheet-skipped advice to map headers, and no date taken for a lot
+        var across = set.Issues.Where(i => i.Code == IssueCodes.LogLaidAcross).ToList();
+        Assert.Equal([("cellar.xlsx", "T4", 2), ("T7.csv", null, 1)], across.Select(i => (i.File, i.Sheet, i.Row!.Value)));
+        Assert.All(across, i => Assert.Equal((IssueSeverity.Error, "Date"), (i.Severity, i.Column)));
+        Assert.Equal("The sheet is a fermentation log laid across: its 3 dates run along row 2 and each reading has a row of its own (SG, Cap temp °F, Juice temp °F), so none of its readings was read. "
+            + "YieldBench reads a log with a row per reading: copy the block and paste it transposed (Paste Special, Transpose) so that the date and each reading head a column, then check again.", across[0].Message);
+        Assert.DoesNotContain(set.Issues, i => i.Code is IssueCodes.SheetSkipped or IssueCodes.OneColumnPerLot or IssueCodes.NoTableFound);
+        Assert.Empty(set.Logs);
+        Assert.Equal("T4", Assert.Single(set.Lots).LotId);
+    }
 }

@@ -36,8 +36,9 @@ internal static class SheetReader
 
         if (!HeaderDetection.Find(run, sheet, lastRow, out int headerRow, out var kind, out var columns, out var unmatched, out var duplicates))
         {
-            // Not an ordinary table: perhaps a log with one column per lot.
-            return WideLogRows.TryRead(run, file, fullPath, sheet, lastRow) ? Outcome.Read : Outcome.NoTable;
+            // Not an ordinary table: perhaps a log with one column per lot — unless it is a log laid across, whose
+            // dates along the top would be taken for lots (IntakeReader reports it).
+            return LaidAcross(sheet) is null && WideLogRows.TryRead(run, file, fullPath, sheet, lastRow) ? Outcome.Read : Outcome.NoTable;
         }
 
         foreach (var (_, header) in unmatched)
@@ -104,6 +105,58 @@ internal static class SheetReader
         }
 
         return Outcome.Read;
+    }
+
+    /// <summary>
+    /// A ferment sheet laid across — one of the first three columns labels a row of dates (Date, Day) and rows of
+    /// readings (SG, Brix, Temp) — as the row of the dates (0-based), that column, how many dates it holds and the
+    /// readings' labels; null for any other sheet. Such a sheet has no header row (its labels run down a column).
+    /// </summary>
+    internal static (int Row, int Column, int Dates, List<string> Readings)? LaidAcross(RawSheet sheet)
+    {
+        int lastRow = Math.Min(sheet.Rows.Count, HeaderDetection.SearchRows) - 1;
+        for (int c = 0; c < 3; c++)
+        {
+            int dateRow = -1;
+            var readings = new List<string>();
+            for (int r = 0; r <= lastRow; r++)
+            {
+                if (sheet.Cell(r, c) is not string label || label.Trim().Length == 0 || ColumnRules.Find(label, TableKind.Log) is not { } field)
+                {
+                    continue;
+                }
+
+                if (field.Name is "date" or "timestamp" && dateRow < 0)
+                {
+                    dateRow = r;
+                }
+                else if (field.Name is "sugar" or "temp_c")
+                {
+                    readings.Add(label.Trim());
+                }
+            }
+
+            if (dateRow < 0 || readings.Count == 0)
+            {
+                continue;
+            }
+
+            int dates = 0;
+            for (int i = c + 1; i < sheet.Rows[dateRow].Length; i++)
+            {
+                var cell = sheet.Rows[dateRow][i];
+                dates += CellValues.Date(cell, DateOrder.Unknown, out _, out _, out _) is CellProblem.None or CellProblem.AmbiguousDate
+                    || (cell is double d && d is >= 0 and <= 400 && d == Math.Floor(d))
+                    || (cell is string t && CellValues.DayMonth(t.Trim(), DateOrder.Unknown, out _, out _, out _, out _, out _) != CellProblem.NotADate) ? 1 : 0;
+            }
+
+            if (dates >= 2)
+            {
+                return (dateRow, c, dates, readings);
+            }
+        }
+
+        return null;
     }
 
     /// <summary>Says once for each SG column that held gravity written both ways (1090 among 1.088s) how it was read.</summary>
