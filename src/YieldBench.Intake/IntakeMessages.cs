@@ -353,6 +353,11 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string LabResultsApart(IReadOnlyList<string> results) =>
+        $"The sheet holds the lab's results ({string.Join(", ", results)}) but no strain or starting sugar: lab results kept apart from the lots, so none of its rows could be used."
+        + " YieldBench does not join two sheets by lot id: ids are often written differently on each (21CH3 and 21-CH-03), and a join by a guess could give one lot another's alcohol. "
+        + "Copy these columns into the lots table beside each lot, checking each lot id, then check again.";
+
     internal static string LogLaidAcross(int row, int dates, List<string> readings) =>
         $"The sheet is a fermentation log laid across: its {dates} dates run along row {row} and each reading has a row of its own ({string.Join(", ", readings.Take(4))}{(readings.Count > 4 ? ", …" : "")}), so none of its readings was read. "
         + "YieldBench reads a log with a row per reading: copy the block and paste it transposed (Paste Special, Transpose) so that the date and each reading head a column, then check again.";

@@ -224,4 +224,31 @@ public sealed class CellarBookTests
         Assert.Empty(set.Logs);
         Assert.Equal("T4", Assert.Single(set.Lots).LotId);
     }
+
+    [Fact]
+    public void Lab_results_kept_on_a_sheet_of_their_own_are_one_error_saying_why_they_are_not_joined_by_a_guess()
+    {
+        // Given a cellar sheet without final alcohol and the lab's sheet of results under its own ids (21CH1 for 21-CH-01)
+        using var folder = new TestFolder();
+        using (var wb = new XLWorkbook())
+        {
+            Workbooks.Fill(wb.AddWorksheet("Cellar"), ["Lot", "Yeast", "Vintage", "Crush Brix"], ["21-CH-01", "QR-A4", 2021, 23.4], ["21-PN-03", "QR-B9", 2021, 25.2]);
+            Workbooks.Fill(wb.AddWorksheet("Lab results"), ["Sample ID", "Alc % vol", "RS g/L", "pH"], ["21CH1", 13.6, 1.2, 3.3], ["21PN3", 14.6, 2.1, 3.6]);
+            wb.SaveAs(folder.PathOf("cellar.xlsx"));
+        }
+
+        // When read
+        var set = folder.Read("cellar.xlsx");
+
+        // Then the lab sheet gives one error naming its results and why nothing is joined (before: three missing-column
+        // errors asking for a strain, a starting sugar and more), its rows are left out, and no lot is made of a guess
+        var lab = set.Issues.Where(i => i.Sheet == "Lab results" && i.Severity == IssueSeverity.Error).ToList();
+        var apart = Assert.Single(lab);
+        Assert.Equal((IssueCodes.LabResultsApart, "21CH1"), (apart.Code, apart.Value));
+        Assert.Equal("The sheet holds the lab's results (final_abv, residual_sugar_gl, ph) but no strain or starting sugar: lab results kept apart from the lots, so none of its rows could be used. "
+            + "YieldBench does not join two sheets by lot id: ids are often written differently on each (21CH3 and 21-CH-03), and a join by a guess could give one lot another's alcohol. "
+            + "Copy these columns into the lots table beside each lot, checking each lot id, then check again.", apart.Message);
+        Assert.Equal(2, set.Accounts.Single(a => a.Sheet == "Lab results").RowsReported);
+        Assert.Empty(set.Lots);
+    }
 }

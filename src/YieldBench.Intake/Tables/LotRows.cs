@@ -19,7 +19,18 @@ internal static class LotRows
             RunningLotRows.ReportFinalColumns(ctx);
         }
 
-        foreach (var m in missing)
+        bool labApart = !running && missing.Contains("strain") && missing.Contains("starting_sugar") && ctx.Column("final_abv") is not null;
+        if (labApart)
+        {
+            // The lab's results on a sheet of their own (Sample, Alc, RS, pH): one error saying so, not one for each
+            // column of the lots it lacks. Joining it to the lots by lot id is not guessed at (ids are often written
+            // differently on the two: 21CH1 and 21-CH-01).
+            string? firstId = ctx.LotColumn is { } idColumn ? ctx.Values(idColumn).Select(CellValues.Text).FirstOrDefault(t => t.Length > 0) : null;
+            var results = ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
+            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, firstId, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(results));
+        }
+
+        foreach (var m in labApart ? [] : missing)
         {
             var f = Fields.Lot(m);
             string message = IntakeMessages.MissingColumn(m, [f.TemplateHeader, .. f.Synonyms.Take(2)]);
