@@ -59,6 +59,7 @@ public class KineticsAuditTests
             Assert.Equal(e["strain"], k.Lot.Strain);
             Check("lag_h", k.LagHours, 1e-4);
             Check("one_third_h", k.OneThirdHours, e["start_from"] == "record" ? 1e-4 : 0.2);
+            Check("one_third_first_reading_h", k.OneThirdFirstReadingHours, 1e-4);
             Check("days_to_dry", k.DaysToDry, 1e-5);
             Check("duration_h", k.DurationHours, 1e-4);
             Check("max_rate_brix_per_day", k.MaxRateBrixPerDay, 1e-6);
@@ -67,6 +68,7 @@ public class KineticsAuditTests
             Check("time_above_caution_h", k.HoursAboveCaution, 1e-4);
             Check("time_above_danger_h", k.HoursAboveDanger, 1e-4);
             Check("potential_peak_temp_c", k.PotentialPeak?.PotentialTemperatureC, 1e-5);
+            Check("heat_removed_k", k.HeatRemovedK, 1e-5);
             Check("gompertz_a_brix", k.Gompertz.Fit?.AsymptoteBrix, 1e-5, relative: true);
             Check("gompertz_mu_brix_per_h", k.Gompertz.Fit?.MaxRateBrixPerHour, 1e-5, relative: true);
             Check("gompertz_lambda_h", k.Gompertz.Fit?.LagHours, 1e-5, relative: true);
@@ -103,6 +105,16 @@ public class KineticsAuditTests
                 {
                     problems.Add($"{s.Strain} {name}: python n {x.N} median {x.Median} quartiles {x.Q1}-{x.Q3}; tool n {m.N} median {m.Median} quartiles {m.Q1}-{m.Q3}");
                 }
+            }
+        }
+
+        // And each strain's count of sluggish and of stuck lots is the count of python's
+        foreach (var s in review.Strains)
+        {
+            var mine = rows.Where(r => r["strain"] == s.Strain).ToList();
+            if (s.Lots != mine.Count || s.SluggishLots != mine.Count(r => r["sluggish_from_h"] != "") || s.StuckLots != mine.Count(r => r["stuck"] == "true"))
+            {
+                problems.Add($"{s.Strain}: python {mine.Count} lots, {mine.Count(r => r["sluggish_from_h"] != "")} sluggish, {mine.Count(r => r["stuck"] == "true")} stuck; tool {s.Lots}, {s.SluggishLots}, {s.StuckLots}");
             }
         }
 
