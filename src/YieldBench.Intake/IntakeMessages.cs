@@ -374,6 +374,9 @@ public static class IntakeMessages
     internal static string DuplicateLabResult(string lotId, string first) =>
         $"A second lab result for '{lotId}' in the same season; the first ({first}) was kept and this row left out. If this is a retest that replaces the first, delete or mark the older row.";
 
+    internal static string TimeMissing(int count, int firstRow, TimeSpan usual) =>
+        $"{count} reading(s) of the log have a date but no time (the first at row {firstRow}); each was read at {usual:hh\\:mm}, the time its other readings were most often taken, not at midnight. Rates and hours between readings lean on it: write the hour of each reading.";
+
     internal static string LogLaidAcross(int row, int dates, List<string> readings) =>
         $"The sheet is a fermentation log laid across: its {dates} dates run along row {row} and each reading has a row of its own ({string.Join(", ", readings.Take(4))}{(readings.Count > 4 ? ", …" : "")}), so none of its readings was read. "
         + "YieldBench reads a log with a row per reading: copy the block and paste it transposed (Paste Special, Transpose) so that the date and each reading head a column, then check again.";

@@ -156,7 +156,11 @@ public sealed record StrainAdvice(string Strain, string Candidate, double Mae, i
         return $"Review of {files}{span}";
     }
 
-    /// <summary>The ranking in plain words: the first strain against the last, then each strain against the next.</summary>
+    /// <summary>
+    /// The ranking in plain words: the first strain against the last, then each strain against the next. Where three
+    /// or more strains in a row are each the same as the next within the noise, one sentence names them together (20
+    /// strains gave 19 sentences, most of them "the same within the noise").
+    /// </summary>
     private static IReadOnlyList<string> Plain(IReadOnlyList<RankedStrain> ranking, StrainComparison c)
     {
         if (ranking.Count < 2 || c.Adjusted.Count == 0)
@@ -164,26 +168,68 @@ public sealed record StrainAdvice(string Strain, string Candidate, double Mae, i
             return [];
         }
 
-        string? Say(string a, string b) =>
-            c.AdjustedDifferences.FirstOrDefault(x => (x.First == a && x.Second == b) || (x.First == b && x.Second == a)) is { } d
-                ? Comparison.DifferenceSentence(d)
-                : null;
+        AdjustedDifference? Between(string a, string b) =>
+            c.AdjustedDifferences.FirstOrDefault(x => (x.First == a && x.Second == b) || (x.First == b && x.Second == a));
 
         var lines = new List<string>();
-        if (Say(ranking[0].Strain, ranking[^1].Strain) is { } ends)
+        if (Between(ranking[0].Strain, ranking[^1].Strain) is { } ends)
         {
-            lines.Add(ends);
+            lines.Add(Comparison.DifferenceSentence(ends));
+        }
+
+        var run = new List<AdjustedDifference>();
+        void CloseRun()
+        {
+            if (run.Count == 1)
+            {
+                lines.Add(Comparison.DifferenceSentence(run[0]));
+            }
+            else if (run.Count > 1)
+            {
+                // The run's strains in ranking order: each pair's first strain, then the last pair's other one.
+                int start = IndexOf(ranking, run[0].First, run[0].Second);
+                var names = ranking.Skip(start).Take(run.Count + 1).Select(r => r.Strain).ToArray();
+                var sizes = run.Select(d => Math.Abs(d.AbvDifference)).ToArray();
+                lines.Add(Invariant($"{string.Join(", ", names[..^1])} and {names[^1]} make the same alcohol from the same sugar within the noise, each against the next (differences of {Math.Round(sizes.Max(), 2):0.00} % v/v or less)."));
+            }
+
+            run.Clear();
         }
 
         for (int i = 0; ranking.Count > 2 && i + 1 < ranking.Count; i++)
         {
-            if (Say(ranking[i].Strain, ranking[i + 1].Strain) is { } next)
+            if (Between(ranking[i].Strain, ranking[i + 1].Strain) is not { } d)
             {
-                lines.Add(next);
+                CloseRun();
+                continue;
+            }
+
+            if (d.Interval.Contains(0))
+            {
+                run.Add(d);
+                continue;
+            }
+
+            CloseRun();
+            lines.Add(Comparison.DifferenceSentence(d));
+        }
+
+        CloseRun();
+        return lines;
+    }
+
+    // The position in the ranking of the earlier of two strains.
+    private static int IndexOf(IReadOnlyList<RankedStrain> ranking, string a, string b)
+    {
+        for (int i = 0; i < ranking.Count; i++)
+        {
+            if (ranking[i].Strain == a || ranking[i].Strain == b)
+            {
+                return i;
             }
         }
 
-        return lines;
+        return 0;
     }
 
     /// <summary>

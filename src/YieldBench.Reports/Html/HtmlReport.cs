@@ -39,6 +39,8 @@ public static class HtmlReport
         {
             0 => string.Empty,
             1 => $" in season {Count(o.Inputs.Seasons[0])}",
+            // A run of consecutive seasons longer than three reads as its span ("in 10 seasons, 2016–2025").
+            var n when n > 3 && o.Inputs.Seasons[^1] - o.Inputs.Seasons[0] == n - 1 => $" in {Count(n)} seasons, {Count(o.Inputs.Seasons[0])}–{Count(o.Inputs.Seasons[^1])}",
             _ => $" in seasons {string.Join(", ", o.Inputs.Seasons.Select(Count))}",
         };
         page.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
@@ -241,7 +243,7 @@ public static class HtmlReport
         for (int i = 0; i < s.Ranking.Count; i++)
         {
             var r = s.Ranking[i];
-            page.Append($"<tr><td>{Count(i + 1)}</td><th scope=\"row\">{Escape(r.Strain)}</th><td>{Count(r.Lots)}</td>");
+            page.Append($"<tr><td>{Count(i + 1)}</td><th scope=\"row\">{Escape(r.Strain)}</th><td>{Quantity(r.Lots)}</td>");
             if (s.Adjusted)
             {
                 page.Append(r.Adjusted is { } a
@@ -278,7 +280,7 @@ public static class HtmlReport
             return;
         }
 
-        var counts = string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{Count(c.Lots)} {ReviewTexts.Severity(c.Severity)}"));
+        var counts = string.Join(", ", o.Lots.ByWorstSeverity.Where(c => c.Lots > 0).Select(c => $"{Quantity(c.Lots)} {ReviewTexts.Severity(c.Severity)}"));
         page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count, "lot")} to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every flag.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"lots\" id=\"lots-table\" data-sortable=\"true\">\n<caption>Lots to look at</caption>\n<thead><tr>");
         page.Append("<th scope=\"col\">Lot</th><th scope=\"col\">Strain</th><th scope=\"col\">Severity</th><th scope=\"col\">What was seen</th><th scope=\"col\">Most likely explanation</th><th scope=\"col\">Follow-up</th></tr></thead>\n<tbody>\n");
@@ -331,9 +333,9 @@ public static class HtmlReport
         page.Append($"<div class=\"scroll\"><table class=\"numbers\">\n<caption>Ferments by strain: median, with the middle half of lots in brackets</caption>\n<thead><tr><th scope=\"col\">Strain</th><th scope=\"col\">Logged lots</th><th scope=\"col\">Days to dry</th><th scope=\"col\">Peak temperature <span class=\"unit\">{unit.Symbol()}</span></th><th scope=\"col\">Troubled ferments</th></tr></thead>\n<tbody>\n");
         foreach (var f in o.Ferments)
         {
-            page.Append($"<tr><th scope=\"row\">{Escape(f.Strain)}</th><td>{Count(f.Lots)}</td>");
+            page.Append($"<tr><th scope=\"row\">{Escape(f.Strain)}</th><td>{Quantity(f.Lots)}</td>");
             page.Append($"<td>{Summary(f.DaysToDry, "0.0")}</td><td>{Summary(InUnit(f.PeakTemperatureC, unit), "0.0")}</td>");
-            page.Append($"<td>{Count(f.Troubled)} <span class=\"unit\">({Percent(f.TroubledShare)})</span></td></tr>\n");
+            page.Append($"<td>{Quantity(f.Troubled)} <span class=\"unit\">({Percent(f.TroubledShare)})</span></td></tr>\n");
         }
 
         page.Append("</tbody></table></div>\n");
@@ -361,7 +363,7 @@ public static class HtmlReport
         page.Append(i.FileProblems > 0 ? $" and {Count(i.FileProblems)} file or sheet problem{(i.FileProblems == 1 ? string.Empty : "s")}" : string.Empty);
         page.Append(i.Issues == 0
             ? ". Intake reported no issue.</p>\n"
-            : $". Every intake issue ({Count(i.Issues)} in all) is listed with its fix in data/intake-issues.csv.</p>\n");
+            : $". Every intake issue ({Quantity(i.Issues)} in all) is listed with its fix in data/intake-issues.csv.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"files\">\n<caption>Files read, with their SHA-256 checksums</caption>\n<thead><tr><th scope=\"col\">File</th><th scope=\"col\" class=\"num\">Bytes</th><th scope=\"col\">SHA-256</th></tr></thead>\n<tbody>\n");
         foreach (var f in review.Inputs.Files)
         {
@@ -374,7 +376,7 @@ public static class HtmlReport
             page.Append("<div class=\"scroll\"><table>\n<caption>Rows left out, by reason</caption>\n<thead><tr><th scope=\"col\">Reason</th><th scope=\"col\" class=\"num\">Rows</th><th scope=\"col\">For example</th></tr></thead>\n<tbody>\n");
             foreach (var r in o.LeftOutReasons.Take(8))
             {
-                page.Append($"<tr><th scope=\"row\"><code>{Escape(r.Code)}</code></th><td class=\"num\">{Count(r.Rows)}</td><td>{Escape(r.Example)}</td></tr>\n");
+                page.Append($"<tr><th scope=\"row\"><code>{Escape(r.Code)}</code></th><td class=\"num\">{Quantity(r.Rows)}</td><td>{Escape(r.Example)}</td></tr>\n");
             }
 
             page.Append("</tbody></table></div>\n");

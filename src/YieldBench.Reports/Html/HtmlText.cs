@@ -57,9 +57,12 @@ internal static class HtmlText
     /// <summary>An integer, invariant.</summary>
     public static string Count(int value) => value.ToString(CultureInfo.InvariantCulture);
 
-    /// <summary>A count with its noun, singular for one ("1 lot", "12 lots"); <paramref name="plural"/> when the plural is not the noun plus "s".</summary>
+    /// <summary>A quantity (lots, rows, logs), with a thousands separator: "10,000". Not for years, ranks or seeds.</summary>
+    public static string Quantity(int value) => value.ToString("N0", CultureInfo.InvariantCulture);
+
+    /// <summary>A quantity with its noun, singular for one ("1 lot", "10,000 lots"); <paramref name="plural"/> when the plural is not the noun plus "s".</summary>
     public static string Count(int value, string noun, string? plural = null) =>
-        Count(value) + " " + (value == 1 ? noun : plural ?? noun + "s");
+        Quantity(value) + " " + (value == 1 ? noun : plural ?? noun + "s");
 
     /// <summary>A coordinate in a chart (two decimals, invariant, plain minus for SVG).</summary>
     public static string Coordinate(double value) => value.ToString("0.##", CultureInfo.InvariantCulture);

@@ -44,7 +44,7 @@ internal static class Cellars
             {
                 for (int k = 0; k < lotsPerSeason; k++)
                 {
-                    double brix = 21.5 + (0.4 * k) + (0.05 * s);
+                    double brix = 21.5 + (0.4 * (k % 10)) + (0.05 * s);
                     lots.Add(new Lot
                     {
                         LotId = $"L{lots.Count + 1:0000}",

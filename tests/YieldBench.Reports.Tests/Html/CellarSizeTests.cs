@@ -106,6 +106,39 @@ public sealed partial class CellarSizeTests
         Assert.DoesNotContain("the strain's other lots", HtmlReport.Render(review), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void A_cellar_of_a_thousand_lots_over_five_seasons_reads_its_counts_with_a_thousands_separator_and_its_seasons_as_a_span()
+    {
+        // Given 1,000 lots: two strains, 100 lots each in each of five seasons (2023–2027)
+        var review = Cellars.Large(strains: 2, lotsPerSeason: 100, seasons: 5);
+
+        // When the page is written
+        string page = HtmlReport.Render(review);
+
+        // Then the masthead says "1,000 lots" and the span of seasons, not a run of five years; the seed stays a plain number
+        Assert.Contains("<p class=\"facts\">1,000 lots from 1 file in 5 seasons, 2023–2027 · no fermentation log ·", page, StringComparison.Ordinal);
+        Assert.Contains("1,000 lots used from 1 file", page, StringComparison.Ordinal);
+        Assert.Contains("with seed 20261.", page, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Twenty_strains_in_a_row_that_are_the_same_within_the_noise_are_said_in_one_sentence_not_one_per_pair()
+    {
+        // Given twenty strains whose neighbours in the ranking differ by less than the noise
+        var strains = Large.Value.Overview.Strains;
+
+        // When the ranking is said in plain words (the console and the workbook's Overview)
+        var plain = strains.Plain;
+
+        // Then a run of strains the same within the noise is one sentence naming them all, and every strain is still
+        // named: far fewer sentences than the nineteen neighbour pairs
+        var runs = plain.Where(l => l.Contains("each against the next", StringComparison.Ordinal)).ToArray();
+        Assert.NotEmpty(runs);
+        Assert.True(plain.Count < 10, string.Join("\n", plain));
+        Assert.All(strains.Ranking, r => Assert.Contains(plain, l => l.Contains(r.Strain + " ", StringComparison.Ordinal) || l.Contains(r.Strain + ",", StringComparison.Ordinal) || l.Contains(r.Strain + ".", StringComparison.Ordinal)));
+        Assert.Matches(@"^LG-\d\d(, LG-\d\d)+ and LG-\d\d make the same alcohol from the same sugar within the noise, each against the next \(differences of \d\.\d\d % v/v or less\)\.$", runs[0]);
+    }
+
     [GeneratedRegex(@"(?<![\d.,])1 (lots|files|rows|fermentation logs|reasons)\b")]
     private static partial Regex OneWithPlural();
 }
