@@ -49,6 +49,7 @@ public sealed class SmallCellarWorkbookTests
         // Then without logs the heat caution stands but says there was no log;
         // with logs it points to the sheet as before
         Assert.Contains(heat, texts);
+        Assert.Contains(heat, WorkbookTests.ReadSheet(bytes, "Methods and cautions").Rows.Cast<DataRow>().Select(r => r[0]).OfType<string>());
         Assert.Contains("This review read no fermentation log", heat, StringComparison.Ordinal);
         Assert.DoesNotContain(noLogs.Overview.Cautions, c => c.Contains("the kinetics sheet shows", StringComparison.Ordinal));
         Assert.Contains(withLogs.Overview.Cautions, c => c.Contains("ferments; the kinetics sheet shows how far without cooling.", StringComparison.Ordinal));
