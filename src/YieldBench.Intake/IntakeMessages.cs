@@ -353,6 +353,9 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string TimeMissing(int count, int firstRow, TimeSpan usual) =>
+        $"{count} reading(s) of the log have a date but no time (the first at row {firstRow}); each was read at {usual:hh\\:mm}, the time its other readings were most often taken, not at midnight. Rates and hours between readings lean on it: write the hour of each reading.";
+
     internal static string LabResultsApart(IReadOnlyList<string> results) =>
         $"The sheet holds the lab's results ({string.Join(", ", results)}) but no strain or starting sugar: lab results kept apart from the lots, so none of its rows could be used."
         + " YieldBench does not join two sheets by lot id: ids are often written differently on each (21CH3 and 21-CH-03), and a join by a guess could give one lot another's alcohol. "

@@ -187,6 +187,9 @@ public static class IssueCodes
     /// <summary><c>time-zone-not-applied</c>.</summary>
     public const string TimeZoneNotApplied = "time-zone-not-applied";
 
+    /// <summary><c>time-missing</c>.</summary>
+    public const string TimeMissing = "time-missing";
+
     /// <summary><c>lab-results-apart</c>.</summary>
     public const string LabResultsApart = "lab-results-apart";
 

@@ -251,4 +251,26 @@ public sealed class CellarBookTests
         Assert.Equal(2, set.Accounts.Single(a => a.Sheet == "Lab results").RowsReported);
         Assert.Empty(set.Lots);
     }
+
+    [Fact]
+    public void A_log_reading_with_a_date_and_no_time_stands_at_the_usual_reading_hour_said_once()
+    {
+        // Given a lot and its log read at 7am most days, once at 5pm, and on two days with the time left empty
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Yeast,Season,Brix,Alc\nT5,WX-17,2025,23.2,13.5\n");
+        var log = folder.Text("T5.csv", "Date,Time,Brix,Temp\n2025-09-22,7am,23.1,12.8\n2025-09-23,7am,22.6,13.5\n2025-09-24,5pm,19.0,15.6\n"
+            + "2025-09-25,,16.1,16.7\n2025-09-26,7am,12.4,17.2\n2025-09-27,,8.0,17.8\n");
+
+        // When read
+        var set = folder.Read(lots, log);
+
+        // Then the two readings stand at 07:00 (before: midnight, 7 hours early), said once at the first of them
+        var readings = Assert.Single(set.Logs).Readings;
+        Assert.Equal(new DateTime(2025, 9, 25, 7, 0, 0), readings[3].Timestamp);
+        Assert.Equal(new DateTime(2025, 9, 27, 7, 0, 0), readings[5].Timestamp);
+        Assert.Equal(new DateTime(2025, 9, 24, 17, 0, 0), readings[2].Timestamp);
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.TimeMissing);
+        Assert.Equal((5, "Time", IssueSeverity.Warning), (said.Row!.Value, said.Column!, said.Severity));
+        Assert.Equal("2 reading(s) of the log have a date but no time (the first at row 5); each was read at 07:00, the time its other readings were most often taken, not at midnight. Rates and hours between readings lean on it: write the hour of each reading.", said.Message);
+    }
 }

@@ -180,6 +180,14 @@ internal static class LogRows
                 // A time that is no time (reported): the row has no time to stand at, not midnight.
                 when = null;
             }
+            else if (when is { TimeOfDay.Ticks: 0 } day && ctx.Column("time") is { } timeCol && UsualTime(ctx, timeCol) is { } usual)
+            {
+                // A date with its time left empty, in a log that writes the hour of its other readings: the reading
+                // stands at the cellar's usual reading hour (the column's most common time), not at midnight; said
+                // once for the column.
+                when = day + usual;
+                timeCol.NoTimeAt = (timeCol.NoTimeAt?.Row ?? r + 1, (timeCol.NoTimeAt?.Count ?? 0) + 1);
+            }
         }
 
         if (when is null && !st.Bad && (tsCol ?? dateCol) is { } c)
@@ -221,12 +229,41 @@ internal static class LogRows
         return null;
     }
 
-    /// <summary>Says once for the table's time column that times written only "AM" or "PM" were read at assumed hours.</summary>
+    /// <summary>Says once for the table's time column that times written only "AM" or "PM" were read at assumed hours, and that empty times were read at the usual hour.</summary>
     internal static void ReportHalfDays(SheetContext ctx)
     {
         if (ctx.Column("time") is { HalfDayAt: { } first } timeCol)
         {
             ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, first.Row, timeCol.Header, first.Text, IssueCodes.HalfDayTime, IntakeMessages.HalfDayTime(timeCol.HalfDays, CellValues.MorningCheck, CellValues.EveningCheck));
         }
+
+        if (ctx.Column("time") is { NoTimeAt: { } empty, UsualTime: { } usual } column)
+        {
+            ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, empty.Row, column.Header, null, IssueCodes.TimeMissing, IntakeMessages.TimeMissing(empty.Count, empty.Row, usual));
+        }
+    }
+
+    /// <summary>
+    /// The time column's most common time of day among its cells that hold one (the earliest on a tie), worked out
+    /// once; null when none does. Times noted only as AM or PM do not count.
+    /// </summary>
+    private static TimeSpan? UsualTime(SheetContext ctx, BoundColumn timeCol)
+    {
+        if (!timeCol.UsualTimeKnown)
+        {
+            var counts = new Dictionary<TimeSpan, int>();
+            foreach (var cell in ctx.Values(timeCol))
+            {
+                if (CellValues.TimeOfDay(cell, out var tod) == CellProblem.None)
+                {
+                    counts[tod] = counts.GetValueOrDefault(tod) + 1;
+                }
+            }
+
+            timeCol.UsualTime = counts.Count == 0 ? null : counts.OrderByDescending(kv => kv.Value).ThenBy(kv => kv.Key).First().Key;
+            timeCol.UsualTimeKnown = true;
+        }
+
+        return timeCol.UsualTime;
     }
 }

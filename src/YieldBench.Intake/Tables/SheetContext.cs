@@ -41,6 +41,15 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
     /// <summary>How many times of the column named only the half of the day.</summary>
     public int HalfDays { get; set; }
 
+    /// <summary>The first sheet row of a log whose time cell was empty beside a date with no time, and how many such rows.</summary>
+    public (int Row, int Count)? NoTimeAt { get; set; }
+
+    /// <summary>The time column's most common time of day (the cellar's usual reading hour), once worked out; null when it holds none.</summary>
+    public TimeSpan? UsualTime { get; set; }
+
+    /// <summary>True once <see cref="UsualTime"/> has been worked out.</summary>
+    public bool UsualTimeKnown { get; set; }
+
     /// <summary>The first sheet row whose date text carried a time zone (Z, +02:00), which was not applied.</summary>
     public int? ZoneSeenAt { get; set; }
 
