@@ -353,13 +353,29 @@ public static class IntakeMessages
 
     internal const string DateWithoutYear = ": it has a day and month but no year";
 
+    internal static string LabResultsApart(IReadOnlyList<string> results, bool byLotId) =>
+        byLotId
+            ? $"The sheet holds the lab's results ({string.Join(", ", results)}) by lot id but no strain or starting sugar, and no lots sheet read lacks a final alcohol column for them to complete, so none of its rows could be used. "
+              + "Lab results on a sheet of their own are joined to a lots sheet that has no final alcohol column, by the lot id written exactly alike; or copy these columns into the lots table beside each lot, then check again."
+            : $"The sheet holds the lab's results ({string.Join(", ", results)}) but no lot id column, strain or starting sugar, so none of its rows could be used. "
+              + "If a column names the lot (a sample or lab number written as the lot id), map it with --column lot_id=HEADER: lab results on a sheet of their own are joined to a lots sheet that has no final alcohol column, by the lot id written exactly alike.";
+
+    internal static string LabResultsJoined(string labSheets) =>
+        $"The sheet has no final alcohol column: each lot's final alcohol (and residual sugar, pH or TA where its own row has none) is taken from the lab results on {labSheets}, joined by the lot id written exactly alike (and the season where the lab sheet gives one). Ids written differently are not joined; each is reported.";
+
+    internal static string NoLabResult(string lotId, int season, string labSheets, string? alike) =>
+        $"Lot '{lotId}' (season {season.ToString(Inv)}) has no final alcohol: its sheet has no final alcohol column and no lab result on {labSheets} bears its id, so the lot was left out."
+        + (alike is null ? " Add its result to the lab sheet under the same id." : $" The lab sheet has '{alike}', perhaps the same lot written differently; YieldBench joins only ids written alike (a guess could give one lot another's alcohol): write the id the same way on both sheets.");
+
+    internal static string LabResultWithoutLot(string lotId, int? season, string? alike) =>
+        $"The lab result for '{lotId}' ({(season is { } s ? "season " + s.ToString(Inv) : "no season given")}) matches no lot read, so it was not used."
+        + (alike is null ? " Check the id, or add the lot to the lots sheet." : $" A lot '{alike}' was read, perhaps the same lot written differently; YieldBench joins only ids written alike: write the id the same way on both sheets.");
+
+    internal static string DuplicateLabResult(string lotId, string first) =>
+        $"A second lab result for '{lotId}' in the same season; the first ({first}) was kept and this row left out. If this is a retest that replaces the first, delete or mark the older row.";
+
     internal static string TimeMissing(int count, int firstRow, TimeSpan usual) =>
         $"{count} reading(s) of the log have a date but no time (the first at row {firstRow}); each was read at {usual:hh\\:mm}, the time its other readings were most often taken, not at midnight. Rates and hours between readings lean on it: write the hour of each reading.";
-
-    internal static string LabResultsApart(IReadOnlyList<string> results) =>
-        $"The sheet holds the lab's results ({string.Join(", ", results)}) but no strain or starting sugar: lab results kept apart from the lots, so none of its rows could be used."
-        + " YieldBench does not join two sheets by lot id: ids are often written differently on each (21CH3 and 21-CH-03), and a join by a guess could give one lot another's alcohol. "
-        + "Copy these columns into the lots table beside each lot, checking each lot id, then check again.";
 
     internal static string LogLaidAcross(int row, int dates, List<string> readings) =>
         $"The sheet is a fermentation log laid across: its {dates} dates run along row {row} and each reading has a row of its own ({string.Join(", ", readings.Take(4))}{(readings.Count > 4 ? ", …" : "")}), so none of its readings was read. "

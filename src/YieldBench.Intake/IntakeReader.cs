@@ -55,6 +55,7 @@ public static class IntakeReader
             ReadFile(run, step, Readable(full) ? Load(display, full, options) : null, files);
         }
 
+        LotRows.ReadAwaiting(run);
         ColumnRules.ReportUnused(rules, sink);
         Spellings.Unify(run.Lots, sink);
         var logs = LogJoin.Join(run);

@@ -87,7 +87,7 @@ public static class IntakeReport
 
         string used = a.ReadingsInRows is { } held
             ? $"{N(a.LogReadingsUsed)} rows used ({N(held)} readings)"
-            : a.LogReadingsUsed > 0 || a.Kind.StartsWith("log", StringComparison.Ordinal) ? $"{N(a.LogReadingsUsed)} readings used" : $"{N(a.LotsUsed)} lots used";
+            : a.LogReadingsUsed > 0 || a.Kind.StartsWith("log", StringComparison.Ordinal) ? $"{N(a.LogReadingsUsed)} readings used" : a.Kind == LabJoin.AccountKind ? $"{N(a.LotsUsed)} results used" : $"{N(a.LotsUsed)} lots used";
         return $"{sheet}{a.Kind}: {N(a.RowsRead)} rows read = {used}, {N(a.RowsReported)} left out, {N(a.BlankRowsSkipped)} blank, " +
             $"{N(a.SummaryRowsSkipped)} summary or heading{(a.Balances ? "" : " — DOES NOT BALANCE")}.";
     }

@@ -193,6 +193,18 @@ public static class IssueCodes
     /// <summary><c>lab-results-apart</c>.</summary>
     public const string LabResultsApart = "lab-results-apart";
 
+    /// <summary><c>lab-results-joined</c>.</summary>
+    public const string LabResultsJoined = "lab-results-joined";
+
+    /// <summary><c>no-lab-result</c>.</summary>
+    public const string NoLabResult = "no-lab-result";
+
+    /// <summary><c>lab-result-without-lot</c>.</summary>
+    public const string LabResultWithoutLot = "lab-result-without-lot";
+
+    /// <summary><c>duplicate-lab-result</c>.</summary>
+    public const string DuplicateLabResult = "duplicate-lab-result";
+
     /// <summary><c>log-laid-across</c>.</summary>
     public const string LogLaidAcross = "log-laid-across";
 

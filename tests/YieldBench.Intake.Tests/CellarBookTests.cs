@@ -226,7 +226,7 @@ public sealed class CellarBookTests
     }
 
     [Fact]
-    public void Lab_results_kept_on_a_sheet_of_their_own_are_one_error_saying_why_they_are_not_joined_by_a_guess()
+    public void Lab_results_under_ids_written_differently_are_not_joined_by_a_guess()
     {
         // Given a cellar sheet without final alcohol and the lab's sheet of results under its own ids (21CH1 for 21-CH-01)
         using var folder = new TestFolder();
@@ -240,14 +240,14 @@ public sealed class CellarBookTests
         // When read
         var set = folder.Read("cellar.xlsx");
 
-        // Then the lab sheet gives one error naming its results and why nothing is joined (before: three missing-column
-        // errors asking for a strain, a starting sugar and more), its rows are left out, and no lot is made of a guess
+        // Then no lot is made of a guess (before: three missing-column errors asked the lab sheet for a lot column, a
+        // strain and a starting sugar): each lab row is an error naming the lot it looks like, and so is each lot
         var lab = set.Issues.Where(i => i.Sheet == "Lab results" && i.Severity == IssueSeverity.Error).ToList();
-        var apart = Assert.Single(lab);
-        Assert.Equal((IssueCodes.LabResultsApart, "21CH1"), (apart.Code, apart.Value));
-        Assert.Equal("The sheet holds the lab's results (final_abv, residual_sugar_gl, ph) but no strain or starting sugar: lab results kept apart from the lots, so none of its rows could be used. "
-            + "YieldBench does not join two sheets by lot id: ids are often written differently on each (21CH3 and 21-CH-03), and a join by a guess could give one lot another's alcohol. "
-            + "Copy these columns into the lots table beside each lot, checking each lot id, then check again.", apart.Message);
+        Assert.Equal([(IssueCodes.LabResultWithoutLot, "21CH1"), (IssueCodes.LabResultWithoutLot, "21PN3")], lab.Select(i => (i.Code, i.Value)));
+        Assert.Equal("The lab result for '21CH1' (no season given) matches no lot read, so it was not used. "
+            + "A lot '21-CH-01' was read, perhaps the same lot written differently; YieldBench joins only ids written alike: write the id the same way on both sheets.", lab[0].Message);
+        Assert.Equal(2, set.Issues.Count(i => i.Sheet == "Cellar" && i.Code == IssueCodes.NoLabResult));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.MissingColumn);
         Assert.Equal(2, set.Accounts.Single(a => a.Sheet == "Lab results").RowsReported);
         Assert.Empty(set.Lots);
     }

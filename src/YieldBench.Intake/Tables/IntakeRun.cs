@@ -29,5 +29,18 @@ internal sealed class IntakeRun(IntakeOptions options, List<MappingRule> rules, 
 
     public List<SourceAccount> Accounts { get; } = [];
 
+    /// <summary>Lots sheets lacking only the final alcohol column, read last against <see cref="LabResults"/>.</summary>
+    public List<SheetContext> AwaitingResults { get; } = [];
+
+    /// <summary>Sheets of lab results kept apart from the lots (final alcohol by lot id, no strain or sugar).</summary>
+    public List<SheetContext> LabSheets { get; } = [];
+
+    /// <summary>The results read from <see cref="LabSheets"/>, in reading order.</summary>
+    public List<LabResult> LabResults { get; } = [];
+
+    /// <summary>Lot ids of rows that found no lab result (named as look-alikes of the results left over).</summary>
+    public List<string> LotIdsWithoutResult { get; } = [];
+
+
     public List<HeaderMapping> Mappings { get; } = [];
 }

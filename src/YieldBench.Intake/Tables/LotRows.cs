@@ -20,17 +20,64 @@ internal static class LotRows
         }
 
         bool labApart = !running && missing.Contains("strain") && missing.Contains("starting_sugar") && ctx.Column("final_abv") is not null;
-        if (labApart)
+        if (labApart && ctx.LotColumn is not null)
         {
-            // The lab's results on a sheet of their own (Sample, Alc, RS, pH): one error saying so, not one for each
-            // column of the lots it lacks. Joining it to the lots by lot id is not guessed at (ids are often written
-            // differently on the two: 21CH1 and 21-CH-01).
-            string? firstId = ctx.LotColumn is { } idColumn ? ctx.Values(idColumn).Select(CellValues.Text).FirstOrDefault(t => t.Length > 0) : null;
-            var results = ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
-            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, firstId, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(results));
+            // The lab's results on a sheet of their own (Sample, Alc, RS, pH): read, and joined at the end to the lots
+            // sheets that lack a final alcohol column, by the lot id written exactly alike (LabJoin).
+            LabJoin.ReadResults(ctx);
+            return;
         }
 
-        foreach (var m in labApart ? [] : missing)
+        if (!running && missing is ["final_abv"])
+        {
+            // Every column of a lot but the final alcohol: it may be in a lab sheet read later. Read at the end.
+            ctx.Run.AwaitingResults.Add(ctx);
+            return;
+        }
+
+        if (labApart)
+        {
+            // Results with no lot id: nothing to join by. One error, not one for each column of the lots it lacks.
+            var results = ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
+            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(results, byLotId: false));
+        }
+
+        ReportMissing(ctx, labApart ? [] : missing);
+        ReadRows(ctx, missing.Count == 0);
+    }
+
+    /// <summary>
+    /// After every input was read: the lots sheets lacking only a final alcohol column, read with the lab results kept
+    /// apart (or, with none, reported as missing the column), then the lab results no lot took.
+    /// </summary>
+    public static void ReadAwaiting(IntakeRun run)
+    {
+        bool join = run.LabResults.Count > 0;
+        foreach (var ctx in run.AwaitingResults)
+        {
+            if (join)
+            {
+                string labSheets = string.Join(", ", run.LabSheets.Select(s => s.SheetName is null ? s.File : $"{s.File}, sheet \"{s.SheetName}\"").Distinct(StringComparer.Ordinal));
+                run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsJoined, IntakeMessages.LabResultsJoined(labSheets));
+            }
+            else
+            {
+                ReportMissing(ctx, ["final_abv"]);
+            }
+
+            ReadRows(ctx, usable: join);
+        }
+
+        if (run.LabSheets.Count > 0)
+        {
+            LabJoin.ReportUnused(run, joined: run.AwaitingResults.Count > 0);
+        }
+    }
+
+    private static void ReportMissing(SheetContext ctx, List<string> missing)
+    {
+        var sink = ctx.Run.Sink;
+        foreach (var m in missing)
         {
             var f = Fields.Lot(m);
             string message = IntakeMessages.MissingColumn(m, [f.TemplateHeader, .. f.Synonyms.Take(2)]);
@@ -54,9 +101,13 @@ internal static class LotRows
 
             sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, message);
         }
+    }
 
+    private static void ReadRows(SheetContext ctx, bool usable)
+    {
+        bool running = ctx.Run.Options.RunningLots;
         var rowState = new RowState(ctx);
-        var plan = new RowAccounting.Plan(running ? "running lots" : "lots", Readings: false, NotesAreRows: true, Usable: missing.Count == 0);
+        var plan = new RowAccounting.Plan(running ? "running lots" : "lots", Readings: false, NotesAreRows: true, Usable: usable);
         RowAccounting.Read(ctx, plan, r => running ? RunningLotRows.Add(ctx, rowState, r) : Add(ctx, rowState, r));
     }
 
@@ -138,7 +189,9 @@ internal static class LotRows
         int? season = SeasonField(st);
         var startScale = ColumnUnits.Scale(ctx.Column("starting_sugar")?.Unit ?? ColumnUnit.Brix);
         SugarReading? start = SugarField(st, ctx.Column("starting_sugar"), out double startRecorded);
-        double? abv = NumberField(st, "final_abv");
+        // A lots sheet with no final alcohol column takes it from the lab results kept apart (LabJoin).
+        var lab = ctx.Column("final_abv") is null && lotId is not null && season is not null ? LabJoin.Find(st, lotId, season.Value) : null;
+        double? abv = lab?.FinalAbv ?? NumberField(st, "final_abv");
         var lot = st.Bad || lotId is null || strain is null || start is null || abv is null || season is null
             ? null
             : new Lot
@@ -155,11 +208,11 @@ internal static class LotRows
                 Block = TextField(st, "block"),
                 Colour = ColourField(st),
                 Additions = new Additions(NumberField(st, "must_volume_l"), NumberField(st, "water_added_l"), NumberField(st, "sugar_added_kg")),
-                ResidualSugarGl = NumberField(st, "residual_sugar_gl"),
-                FinalSugar = SugarField(st, "final_sugar"),
+                ResidualSugarGl = NumberField(st, "residual_sugar_gl") ?? lab?.ResidualSugarGl,
+                FinalSugar = SugarField(st, "final_sugar") ?? lab?.FinalSugar,
                 YanMgL = NumberField(st, "yan_mgl"),
-                Ph = NumberField(st, "ph"),
-                TaGl = NumberField(st, "ta_gl"),
+                Ph = NumberField(st, "ph") ?? lab?.Ph,
+                TaGl = NumberField(st, "ta_gl") ?? lab?.TaGl,
                 MeanFermentationTempC = NumberField(st, "mean_temp_c"),
                 PeakFermentationTempC = NumberField(st, "peak_temp_c"),
                 InoculationDate = InoculationField(st, season),
