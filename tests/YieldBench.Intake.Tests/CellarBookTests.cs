@@ -273,4 +273,28 @@ public sealed class CellarBookTests
         Assert.Equal((5, "Time", IssueSeverity.Warning), (said.Row!.Value, said.Column!, said.Severity));
         Assert.Equal("2 reading(s) of the log have a date but no time (the first at row 5); each was read at 07:00, the time its other readings were most often taken, not at midnight. Rates and hours between readings lean on it: write the hour of each reading.", said.Message);
     }
+
+    [Fact]
+    public void Gravity_written_both_ways_in_a_column_with_no_unit_is_read_as_gravity_on_a_board_and_in_a_long_log()
+    {
+        // Given a French tank board ("T9 densité": the tank, then the word for density) and a long log headed only
+        // "Reading", each with specific gravity mostly in thousandths and once as SG (1.066), as two people type a sheet
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Season,Brix,Alc\nT9,QR-B9,2026,25.8,14.9\nT12,QR-A4,2026,24.0,14.0\n");
+        var board = folder.Text("suivi.csv", "Date;Heure;T9 densité;T9 °C\n2026-10-03;08:00;1108;18\n2026-10-04;08:00;1094;19\n2026-10-05;08:00;1.080;21\n2026-10-06;08:00;1066;22\n");
+        var log = folder.Text("log.csv", "Lot,Date,Time,Reading\nT12,2026-10-03,08:00,1100\nT12,2026-10-04,08:00,1.090\nT12,2026-10-05,08:00,1075\n");
+
+        // When read
+        var set = folder.Read(lots, board, log);
+
+        // Then T9's board column is its sugar in SG (before: lot 'T9 densité', every value read as g/L and refused as
+        // out of range), and each value of the other form is read as the gravity it is, said once per column
+        var t9 = set.Logs.Single(l => l.LotId == "T9").Readings;
+        Assert.Equal([1.108, 1.094, 1.080, 1.066], t9.Select(r => Math.Round(r.Sugar!.Value.SpecificGravity, 9)));
+        Assert.Equal([18.0, 19.0, 21.0, 22.0], t9.Select(r => r.TemperatureC!.Value));
+        var t12 = set.Logs.Single(l => l.LotId == "T12").Readings;
+        Assert.Equal([1.100, 1.090, 1.075], t12.Select(r => Math.Round(r.Sugar!.Value.SpecificGravity, 9)));
+        Assert.Equal(["1.080", "1.090"], set.Issues.Where(i => i.Code == IssueCodes.UnitDiffersInColumn).Select(i => i.Value!));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+    }
 }

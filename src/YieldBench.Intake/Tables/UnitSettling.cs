@@ -109,7 +109,7 @@ internal static class UnitSettling
         switch (c.Field.Kind)
         {
             case FieldKind.Sugar:
-                c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(low, high);
+                c.Unit = c.Field.Name == "starting_sugar" ? StartingSugarUnit(median) : ReadingSugarUnit(sorted);
                 var fitting = Array.FindAll(sorted, v => ValueLooksLike(c.Field, v, c.Unit));
                 var (bandLow, bandHigh) = fitting.Length > 0 ? (fitting[0], fitting[^1]) : (low, high);
                 bool maybeBaume = c.Field.Name == "starting_sugar" && c.Unit == ColumnUnit.Brix && median is >= 8 and <= 16;
@@ -190,6 +190,23 @@ internal static class UnitSettling
     };
 
     /// <summary>Scale of a reading column (logs, final sugar) that runs down to dryness: all values 0.95–1.3 mean SG, all 950–1300 SG × 1000.</summary>
+    /// <summary>
+    /// The scale of a reading column's sorted values: as <see cref="ReadingSugarUnit(double, double)"/>, except that
+    /// values all of which are specific gravity written one way or the other (1108 beside 1.066, two people typing one
+    /// sheet) are the gravity written as most of them are; each value of the other form is then read as the gravity it
+    /// is (no other scale reaches either band) and said once for the column.
+    /// </summary>
+    internal static ColumnUnit ReadingSugarUnit(double[] sorted)
+    {
+        int plain = sorted.Count(v => v is >= 0.95 and < 1.3), thousandths = sorted.Count(v => v is >= 950 and < 1300);
+        if (plain > 0 && thousandths > 0 && plain + thousandths == sorted.Length)
+        {
+            return thousandths >= plain ? ColumnUnit.GravityThousandths : ColumnUnit.SpecificGravity;
+        }
+
+        return ReadingSugarUnit(sorted[0], sorted[^1]);
+    }
+
     internal static ColumnUnit ReadingSugarUnit(double low, double high) => (low, high) switch
     {
         ( >= 0.95, < 1.3) => ColumnUnit.SpecificGravity,

@@ -15,7 +15,7 @@ internal static class WideLogRows
     /// <summary>Share of a lot column's filled cells below the header that must be numbers (at least half: a word such as "racked" in a few cells is reported where it stands).</summary>
     private const double NumericShare = 0.5;
 
-    private static readonly HashSet<string> ScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "kmw", "babo", "be", "baume", "bau", "density", "gravity", "sugar"];
+    private static readonly HashSet<string> ScaleWords = ["bx", "brix", "sg", "oe", "oechsle", "kmw", "babo", "be", "baume", "bau", "density", "gravity", "sugar", "densite", "densidad", "densita", "dichte", "mostgewicht"];
 
     private static readonly HashSet<string> TemperatureWords = ["temp", "temperature", "degc", "degf", "celsius", "fahrenheit"];
 
@@ -290,7 +290,7 @@ internal static class WideLogRows
         }
 
         double low = values[0], high = values[^1], median = values[values.Count / 2];
-        var unit = sugar ? UnitSettling.ReadingSugarUnit(low, high) : UnitSettling.TemperatureUnitOf(median);
+        var unit = sugar ? UnitSettling.ReadingSugarUnit([.. values]) : UnitSettling.TemperatureUnitOf(median);
         columns.ForEach(c => c.Unit = unit);
         string example = $"{columns[0].Header} ({ColumnUnits.Label(unit)})";
         ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, columns[0].Header, null, IssueCodes.UnitFromValues,
