@@ -134,7 +134,7 @@ public sealed record StrainAdvice(string Strain, string Candidate, double Mae, i
             NoRecommendation = house is null ? h.Explanation : [],
             Lots = lots,
             Kinetics = kinetics,
-            Cautions = ReviewTexts.Cautions,
+            Cautions = kineticsReview is null ? ReviewTexts.CautionsWithoutLogs : ReviewTexts.Cautions,
             Factors = OverviewDetails.Factors(h, OverviewDetails.ReferenceBrix(c.ReferenceBrix, lotReviews.Select(l => l.Conversion.EffectiveStartingBrix)), figures.StrainOrder, Name),
             Planning = OverviewDetails.Planning(h, settings, figures.StrainOrder),
             StrainHeadline = OverviewDetails.StrainHeadline(c, figures.Ranking),

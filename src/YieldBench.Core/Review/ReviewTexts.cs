@@ -11,9 +11,22 @@ public static class ReviewTexts
     public static IReadOnlyList<string> Cautions { get; } =
     [
         .. HouseFactorTexts.PlannerCautions,
-        "Fermentation heat: a must can warm far beyond its current temperature as its remaining sugar ferments; the kinetics sheet shows how far without cooling. Follow the cellar's cooling practice and local codes.",
+        HeatCaution + "; the kinetics sheet shows how far without cooling. Follow the cellar's cooling practice and local codes.",
         "Flags mark lots worth a second look, not errors proven: confirm with the cellar records and the lab before changing anything.",
     ];
+
+    /// <summary>
+    /// <see cref="Cautions"/> for a review that read no fermentation log: the heat caution stands, but there is no
+    /// kinetics sheet to point to; it points to the logs that would show it instead.
+    /// </summary>
+    public static IReadOnlyList<string> CautionsWithoutLogs { get; } =
+    [
+        .. Cautions.Select(c => c.StartsWith(HeatCaution, StringComparison.Ordinal)
+            ? HeatCaution + ". This review read no fermentation log; with the cellar's logs the kinetics sheet would show how far without cooling. Follow the cellar's cooling practice and local codes."
+            : c),
+    ];
+
+    private const string HeatCaution = "Fermentation heat: a must can warm far beyond its current temperature as its remaining sugar ferments";
 
     /// <summary>Plain name of a severity, as data/flags.csv writes it.</summary>
     public static string Severity(FlagSeverity severity) => severity switch

@@ -239,7 +239,7 @@ internal static class WorkbookSheets
             .Title("Methods and cautions")
             .Text("YieldBench " + review.ToolVersion)
             .Heading("Cautions")
-            .Texts(ReviewTexts.Cautions)
+            .Texts(review.Overview.Cautions)
             .Gap()
             .Heading("Formulas and their sources")
             .Table(MethodsTable.Formulas(review))

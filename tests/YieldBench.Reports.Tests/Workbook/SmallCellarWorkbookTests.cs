@@ -33,4 +33,25 @@ public sealed class SmallCellarWorkbookTests
         Assert.Equal(2, factorRows.Length);
         Assert.All(factorRows, r => Assert.True(r[lotsColumn] is DBNull, $"{r[0]}: held-out lots {r[lotsColumn]}"));
     }
+
+    [Fact]
+    public void A_cellar_with_no_logs_is_not_pointed_to_a_kinetics_sheet_it_does_not_have()
+    {
+        // Given a review that read no fermentation log, and one that did
+        var noLogs = Cellars.Small();
+        var withLogs = SampleReview.WithLogs();
+
+        // When the workbooks are built and the cautions read
+        byte[] bytes = WorkbookWriter.Build(noLogs, [], includePictures: false);
+        var texts = WorkbookTests.ReadSheet(bytes, "Overview").Rows.Cast<DataRow>().Select(r => r[0]).OfType<string>().ToArray();
+        string heat = Assert.Single(noLogs.Overview.Cautions, c => c.StartsWith("Fermentation heat", StringComparison.Ordinal));
+
+        // Then without logs the heat caution stands but says there was no log;
+        // with logs it points to the sheet as before
+        Assert.Contains(heat, texts);
+        Assert.Contains(heat, WorkbookTests.ReadSheet(bytes, "Methods and cautions").Rows.Cast<DataRow>().Select(r => r[0]).OfType<string>());
+        Assert.Contains("This review read no fermentation log", heat, StringComparison.Ordinal);
+        Assert.DoesNotContain(noLogs.Overview.Cautions, c => c.Contains("the kinetics sheet shows", StringComparison.Ordinal));
+        Assert.Contains(withLogs.Overview.Cautions, c => c.Contains("ferments; the kinetics sheet shows how far without cooling.", StringComparison.Ordinal));
+    }
 }
