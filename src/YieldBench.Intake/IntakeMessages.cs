@@ -93,7 +93,7 @@ public static class IntakeMessages
         $"No header row naming lot or log columns was found (searched the first {rowsSearched.ToString(Inv)} rows of every sheet). Add a header row such as the one in 'yieldbench template', or map your headers with --column FIELD=HEADER.";
 
     internal static string SpellingUnified(string field, string kept, int keptLots, IReadOnlyList<(string Text, int Lots)> others) =>
-        $"{field} {string.Join(", ", others.Select(o => $"'{o.Text}' ({o.Lots.ToString(Inv)} lot{(o.Lots == 1 ? "" : "s")})"))} {(others.Count == 1 ? "differs" : "differ")} from '{kept}' ({keptLots.ToString(Inv)} lot{(keptLots == 1 ? "" : "s")}) only in case, spaces or punctuation, so {(others.Count == 1 ? "it was" : "they were")} read as '{kept}'. If they are different, give them codes that differ in letters or digits.";
+        $"{field} {string.Join(", ", others.Select(o => $"'{o.Text}' ({o.Lots.ToString(Inv)} lot{(o.Lots == 1 ? "" : "s")})"))} {(others.Count == 1 ? "differs" : "differ")} from '{kept}' ({keptLots.ToString(Inv)} lot{(keptLots == 1 ? "" : "s")}) only in case, spaces or punctuation, so {(others.Count == 1 ? "it was" : "they were")} read as '{kept}'. If they are different, give them {(field == "strain" ? "codes" : "names")} that differ in letters or digits.";
 
     internal static string UnitsRowRead() =>
         "The row under the header holds only units; they were read as the columns' units, and the row is not a lot.";

@@ -3,7 +3,7 @@ using YieldBench.Core.Lots;
 namespace YieldBench.Intake;
 
 /// <summary>
-/// How strain codes and vessel types are spelt in every output: settled once, here. Spellings that differ only in
+/// How strain codes, vessel types, varieties and blocks are spelt in every output: settled once, here. Spellings that differ only in
 /// case, spaces or punctuation ("RC-11", "rc-11", "RC 11") are one; each group takes its most used spelling (the first
 /// read on a tie), so a typing habit never splits one strain into several and every file names it the same way.
 /// </summary>
@@ -54,12 +54,19 @@ public static class Spellings
     }
 
     /// <summary>
-    /// Gives every lot's strain and vessel the most used spelling of its group, with one <c>spelling-unified</c>
+    /// Gives every lot's strain, vessel, variety and block the most used spelling of its group, with one <c>spelling-unified</c>
     /// warning per group that had more than one spelling.
     /// </summary>
     internal static void Unify(List<Lot> lots, IssueSink sink)
     {
-        foreach (var (field, get) in new (string, Func<Lot, string?>)[] { ("strain", l => l.Strain), ("vessel", l => l.Vessel) })
+        var fields = new (string, Func<Lot, string?>, Func<Lot, string, Lot>)[]
+        {
+            ("strain", l => l.Strain, (l, v) => l with { Strain = v }),
+            ("vessel", l => l.Vessel, (l, v) => l with { Vessel = v }),
+            ("variety", l => l.Variety, (l, v) => l with { Variety = v }),
+            ("block", l => l.Block, (l, v) => l with { Block = v }),
+        };
+        foreach (var (field, get, set) in fields)
         {
             // Each distinct spelling once, in order of first use, with its count and the first lot that uses it.
             var spellings = new Dictionary<string, (int Count, int First)>(StringComparer.Ordinal);
@@ -119,7 +126,7 @@ public static class Spellings
                 var lot = lots[i];
                 if (get(lot) is { } v && replace.TryGetValue(v, out var kept))
                 {
-                    lots[i] = field == "strain" ? lot with { Strain = kept } : lot with { Vessel = kept };
+                    lots[i] = set(lot, kept);
                 }
             }
 

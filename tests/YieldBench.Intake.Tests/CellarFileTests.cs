@@ -418,6 +418,26 @@ public class CellarFileTests
     }
 
     [Fact]
+    public void Varieties_and_blocks_typed_in_other_cases_or_punctuation_are_one_group_with_a_warning()
+    {
+        // Given one variety typed three ways and a block typed two ways (the review groups lots by both)
+        using var folder = new TestFolder();
+        string name = folder.Text("lots 2022.csv",
+            "Lot,Strain,Variety,Block,Brix,ABV\n" +
+            "C-1,RC-11,Pinot Noir,B1,24,14.1\nC-2,RC-11,pinot noir,b1,23,13.6\nC-3,RC-11,Pinot Noir,B1,25,14.8\nC-4,RC-11,Pinot-Noir,B2,24.5,14.4\n");
+
+        // When it is read
+        var set = folder.Read(name);
+
+        // Then each takes its most used spelling, named once per group
+        Assert.Equal(["Pinot Noir", "Pinot Noir", "Pinot Noir", "Pinot Noir"], set.Lots.Select(l => l.Variety));
+        Assert.Equal(["B1", "B1", "B1", "B2"], set.Lots.Select(l => l.Block));
+        var issues = set.Issues.Where(i => i.Code == "spelling-unified").ToList();
+        Assert.Equal(["variety", "block"], issues.Select(i => i.Column));
+        Assert.Equal("variety 'pinot noir' (1 lot), 'Pinot-Noir' (1 lot) differ from 'Pinot Noir' (2 lots) only in case, spaces or punctuation, so they were read as 'Pinot Noir'. If they are different, give them names that differ in letters or digits.", issues[0].Message);
+    }
+
+    [Fact]
     public void An_alcohol_typed_as_a_fraction_is_refused_with_a_hint_of_the_percentage()
     {
         // Given 14.1 % typed as 0.141 in a plain (not percent-formatted) cell

@@ -45,7 +45,7 @@ public class OivMustTableTests
     [Fact]
     public void The_embedded_table_holds_201_rows_of_0_1_Brix_and_the_nine_published_rows()
     {
-        // Given the embedded sugar column (transcribed from the Arrêté du 14 septembre 2011, Annexe IV)
+        // Given the embedded sugar column (copied from the Arrêté du 14 septembre 2011, Annexe IV)
         var column = OivMustTable.SugarColumn;
 
         // Then it runs 10.0–30.0 °Brix in 0.1 steps, and its rows at the nine published °Brix are the printed sugars
@@ -80,7 +80,7 @@ public class OivMustTableTests
     [InlineData(16.3, 150.5)]
     public void Sugar_at_any_row_is_the_tabled_value(double brix, double tabledGl)
     {
-        // Given a row of the full table that is not among the nine printed in full (values as transcribed)
+        // Given a row of the full table that is not among the nine printed in full (values as copied)
         // When the sugar model is asked for that °Brix
         // Then it is the tabled value exactly
         Assert.Equal(tabledGl, OivMustTable.SugarGramsPerLitre(brix), 1e-9);
