@@ -297,4 +297,23 @@ public sealed class CellarBookTests
         Assert.Equal(["1.080", "1.090"], set.Issues.Where(i => i.Code == IssueCodes.UnitDiffersInColumn).Select(i => i.Value!));
         Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
     }
+
+    [Theory]
+    [InlineData("Couleur", "rouge", "blanc")]
+    [InlineData("Farbe", "rot", "weiss")]
+    [InlineData("Colore", "rosso", "bianco")]
+    public void A_colour_column_headed_in_french_german_or_italian_is_read(string header, string red, string white)
+    {
+        // Given a European lots table whose colour column is headed in the cellar's language (its values were read
+        // already; the header was a column no field reads)
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", $"Lot;Levure;Millésime;Moût (°Bx);Alcool (% vol);{header}\nA1;QR-B9;2026;25,8;14,9;{red}\nA2;QR-A4;2026;22,0;12,9;{white}\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then each lot has its colour, and no column is left unread
+        Assert.Equal([WineColour.Red, WineColour.White], set.Lots.Select(l => l.Colour));
+        Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
+    }
 }

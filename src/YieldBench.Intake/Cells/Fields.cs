@@ -133,7 +133,7 @@ internal static class Fields
             new("strain", TableKind.Lots, FieldKind.Text, true, "", null, null, "Strain", "Yeast strain code as the cellar records it.", "QX-7",
                 ["yeast", "strain", "culture", "yeast strain", "strain code", "yeast code", "yeast used", "yeast culture", "inoculum", "starter", "levure", "levures", "hefe", "hefestamm", "yeast name", "strain name", "yeast type", "levadura", "lievito", "lieviti", "ceppo"]),
             new("colour", TableKind.Lots, FieldKind.Colour, false, "", null, null, "Colour", "Wine colour: red, white or rosé (sets temperature defaults).", "red",
-                ["colour", "color", "style", "type", "wine type", "wine colour", "wine color", "wine style", "colour style"]),
+                ["colour", "color", "style", "type", "wine type", "wine colour", "wine color", "wine style", "colour style", "couleur", "farbe", "colore"]),
             new("vessel", TableKind.Lots, FieldKind.Text, false, "", null, null, "Vessel", "Vessel type (tank, barrel, bin, concrete…).", "tank",
                 ["vessel", "vessel type", "tank", "tank type", "fermenter", "fermentor", "fermenter type", "fermentation vessel", "ferment vessel", "container", "vessel kind", "vessel material", "cuve", "tank nr", "tank no", "tank vessel", "vessel tank", "tank or vessel", "vessel or tank", "behalter", "gebinde", "fass", "deposito", "vasca", "cuba", "tina", "serbatoio"]),
             new("vessel_capacity_l", TableKind.Lots, FieldKind.Volume, false, "L", 0, null, "Vessel capacity (L)", "Capacity of the vessel.", "5000",
