@@ -1,5 +1,6 @@
 using System.Globalization;
 using YieldBench.Core.Conversion;
+using YieldBench.Core.Forecast;
 using YieldBench.Core.Kinetics;
 using YieldBench.Intake;
 
@@ -58,6 +59,7 @@ public class KineticsAuditTests
             Assert.Equal(e["strain"], k.Lot.Strain);
             Check("lag_h", k.LagHours, 1e-4);
             Check("one_third_h", k.OneThirdHours, e["start_from"] == "record" ? 1e-4 : 0.2);
+            Check("one_third_first_reading_h", k.OneThirdFirstReadingHours, 1e-4);
             Check("days_to_dry", k.DaysToDry, 1e-5);
             Check("duration_h", k.DurationHours, 1e-4);
             Check("max_rate_brix_per_day", k.MaxRateBrixPerDay, 1e-6);
@@ -66,6 +68,7 @@ public class KineticsAuditTests
             Check("time_above_caution_h", k.HoursAboveCaution, 1e-4);
             Check("time_above_danger_h", k.HoursAboveDanger, 1e-4);
             Check("potential_peak_temp_c", k.PotentialPeak?.PotentialTemperatureC, 1e-5);
+            Check("heat_removed_k", k.HeatRemovedK, 1e-5);
             Check("gompertz_a_brix", k.Gompertz.Fit?.AsymptoteBrix, 1e-5, relative: true);
             Check("gompertz_mu_brix_per_h", k.Gompertz.Fit?.MaxRateBrixPerHour, 1e-5, relative: true);
             Check("gompertz_lambda_h", k.Gompertz.Fit?.LagHours, 1e-5, relative: true);
@@ -105,7 +108,72 @@ public class KineticsAuditTests
             }
         }
 
+        // And each strain's count of sluggish and of stuck lots is the count of python's
+        foreach (var s in review.Strains)
+        {
+            var mine = rows.Where(r => r["strain"] == s.Strain).ToList();
+            if (s.Lots != mine.Count || s.SluggishLots != mine.Count(r => r["sluggish_from_h"] != "") || s.StuckLots != mine.Count(r => r["stuck"] == "true"))
+            {
+                problems.Add($"{s.Strain}: python {mine.Count} lots, {mine.Count(r => r["sluggish_from_h"] != "")} sluggish, {mine.Count(r => r["stuck"] == "true")} stuck; tool {s.Lots}, {s.SluggishLots}, {s.StuckLots}");
+            }
+        }
+
         Assert.Equal(strains.Count, review.Strains.Count * 4);
+        Assert.True(problems.Count == 0, string.Join(Environment.NewLine, problems));
+    }
+
+    public static TheoryData<string, string[]> Courses => new()
+    {
+        { "demo-courses.csv", ["demo-data/history"] },
+        { "brackenfold-courses.csv", ["tests/YieldBench.Core.Tests/Fixtures/kinetics-audit/brackenfold-input"] },
+    };
+
+    [Theory]
+    [MemberData(nameof(Courses))]
+    public void The_forecasts_fit_of_every_past_log_is_scipys_least_squares_optimum(string expectedFile, string[] inputs)
+    {
+        // Given a cellar's past lots and logs, and for each log and sigmoid the four-parameter least-squares fit that
+        // forecast-course-audit.py found with scipy's curve_fit (docs/methods.md Part 5, "The sugar course")
+        string root = Root();
+        var set = IntakeReader.Read(inputs.Select(i => Path.Combine(root, i)).ToArray(), new IntakeOptions { WorkingDirectory = root });
+        var lines = File.ReadAllLines(Path.Combine(root, "tests", "YieldBench.Core.Tests", "Fixtures", "kinetics-audit", expectedFile));
+        var header = lines[0].Split(',');
+        var rows = lines.Skip(1).Select(l => header.Zip(l.Split(',')).ToDictionary(p => p.First, p => p.Second)).ToList();
+
+        // When the forecast fits each past log by variable projection (grid, then Nelder–Mead)
+        var courses = LotCourses.FromHistory(set.Lots, set.Logs);
+
+        // Then the same logs are fitted or refused, on the same readings, and each fit is scipy's optimum: the sum of
+        // squares to 1e-8 relative (they differ by at most 5e-10 on both cellars), the must and the settling point to
+        // 1e-4 °Brix, κ to 1e-5 relative and the lag to 1e-3 h
+        Assert.Equal(rows.Count, courses.Count * 2);
+        var problems = new List<string>();
+        foreach (var e in rows)
+        {
+            var course = courses.Single(c => c.Season == int.Parse(e["season"], CultureInfo.InvariantCulture) && c.LotId == e["lot_id"]);
+            var model = e["model"] == "gompertz" ? SigmoidModel.Gompertz : SigmoidModel.Logistic;
+            var fit = CourseFit.Fit(model, course.SugarHours, course.SugarBrix);
+            string at = $"{course.Season}/{course.LotId} {e["model"]}";
+            if (e["start_brix"] == "" || fit is null)
+            {
+                if (e["start_brix"] == "" != fit is null)
+                {
+                    problems.Add($"{at}: python {(e["start_brix"] == "" ? "no fit" : "a fit")}, tool {(fit is null ? "no fit" : "a fit")}");
+                }
+
+                continue;
+            }
+
+            double ss = D(e["sum_of_squares"]);
+            if (fit.Points != int.Parse(e["points"], CultureInfo.InvariantCulture) || Math.Abs(fit.SumOfSquares - ss) > 1e-8 * ss
+                || Math.Abs(fit.StartBrix - D(e["start_brix"])) > 1e-4 || Math.Abs(fit.FinalBrix - D(e["final_brix"])) > 1e-4
+                || Math.Abs(fit.Kappa - D(e["kappa_per_h"])) > 1e-5 * D(e["kappa_per_h"]) || Math.Abs(fit.LagHours - D(e["lag_h"])) > 1e-3)
+            {
+                problems.Add($"{at}: python S0 {e["start_brix"]} F {e["final_brix"]} κ {e["kappa_per_h"]} λ {e["lag_h"]} SS {e["sum_of_squares"]} n {e["points"]}; " +
+                    $"tool {fit.StartBrix:R} {fit.FinalBrix:R} {fit.Kappa:R} {fit.LagHours:R} {fit.SumOfSquares:R} {fit.Points}");
+            }
+        }
+
         Assert.True(problems.Count == 0, string.Join(Environment.NewLine, problems));
     }
 

@@ -2,7 +2,7 @@
 # one-third depletion, time to dryness, duration, maximum rate (between readings, or the local linear fit of a dense log),
 # peak temperature, hours above the caution and danger lines, the highest temperature reachable without cooling, and the
 # Zwietering et al. (1990) modified Gompertz and logistic fits by scipy.optimize.curve_fit (MINPACK Levenberg-Marquardt),
-# the sluggish window and the stall (stuck, or stalled then finished); then per strain the median and type-7 quartiles of maximum rate, lag, days to dry and peak temperature.
+# the sluggish window and the stall (stuck, or stalled then finished), the heat removed; then per strain the median and type-7 quartiles of maximum rate, lag, days to dry and peak temperature.
 # Produced with Debian 12 python 3.11.2, numpy 1.24.2, scipy 1.10.1, openpyxl 3.0.9
 # (apt-get install -y python3-scipy python3-openpyxl), from the repository root:
 #   dotnet run -c Release --project src/YieldBench.Cli -- review --out /tmp/k/demo
@@ -140,6 +140,7 @@ for lot_id, rows in logs.items():
     else:
         start, start_from = (float(L["starting_brix"]), "lots.csv") if L["starting_brix"] else (y[0], "log")
     one_third = first_crossing(t, y, start * 2 / 3)
+    one_third_first = first_crossing(t, y, y[0] * 2 / 3)  # the same from the log's first reading (kept beside it)
     dry = first_crossing(t, y, 0.0)
     gaps = np.diff([ts.timestamp() for ts, _ in sug]) / 3600
     spacing = float(np.median(gaps))
@@ -204,9 +205,9 @@ for lot_id, rows in logs.items():
         if potential is None or p > potential: potential = p
     consumed = [y[0] - b for b in y]
     g = fit(gompertz, t, consumed); lg = fit(logistic, t, consumed)
-    out.append(dict(season=L["season"], lot_id=lot_id, strain=L["strain"], start_brix=start, start_from=start_from, lag_h=lag, one_third_h=one_third,
+    out.append(dict(season=L["season"], lot_id=lot_id, strain=L["strain"], start_brix=start, start_from=start_from, lag_h=lag, one_third_h=one_third, one_third_first_reading_h=one_third_first,
                     days_to_dry=None if dry is None else dry / 24, duration_h=t[-1], max_rate_brix_per_day=max_rate,
-                    median_spacing_h=spacing, peak_temp_c=peak, time_above_caution_h=above(caution), time_above_danger_h=above(danger), potential_peak_temp_c=potential,
+                    median_spacing_h=spacing, peak_temp_c=peak, time_above_caution_h=above(caution), time_above_danger_h=above(danger), potential_peak_temp_c=potential, heat_removed_k=None if potential is None or peak is None else potential - peak,
                     sluggish_from_h=sluggish and sluggish[0], sluggish_to_h=sluggish and sluggish[1], sluggish_rate=sluggish and sluggish[2],
                     stall_from_h=stall and stall[0], stall_to_h=stall and stall[1], stuck=str(stuck).lower(), stalled_then_finished=str(stalled_then_finished).lower(),
                     gompertz_a_brix=g and g[0], gompertz_mu_brix_per_h=g and g[1], gompertz_lambda_h=g and g[2], gompertz_rmse_brix=g and g[3],
