@@ -430,6 +430,9 @@ public static class IntakeMessages
     internal static string LeadingZeroTwin(string lotId, string logId) =>
         $" Lot '{lotId}' differs only in leading zeros: a spreadsheet drops them from an id typed as a number. If it is the same lot, write the id the same way in both files (as text, e.g. '{lotId}, to keep the zero).";
 
+    internal static string LotInTank(string lotId, string tank) =>
+        $" The lots table names '{tank}' as the tank (vessel) of lot '{lotId}'. If this is that lot's log, write the lot id '{lotId}' in the log in place of the tank; a log is not joined by its tank, which holds other lots in other seasons.";
+
     internal static string LotsWithoutLog(int count, int season, IReadOnlyList<string> examples) =>
         $"{count.ToString(Inv)} lot(s) of season {season.ToString(Inv)} have no fermentation log: {string.Join(", ", examples)}{(count > examples.Count ? $" and {(count - examples.Count).ToString(Inv)} more" : "")}. Kinetics is shown only for lots with a log.";
 

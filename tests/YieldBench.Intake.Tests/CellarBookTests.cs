@@ -316,4 +316,22 @@ public sealed class CellarBookTests
         Assert.Equal([WineColour.Red, WineColour.White], set.Lots.Select(l => l.Colour));
         Assert.DoesNotContain(set.Issues, i => i.Code == IssueCodes.ColumnNotUsed);
     }
+
+    [Fact]
+    public void A_board_headed_by_tanks_beside_lots_named_by_id_names_the_lot_in_that_tank_without_joining_it()
+    {
+        // Given lots named by id with their tank as the vessel, and a tank board headed by the tanks
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2026.csv", "Lot,Yeast,Season,Tank,Brix,Alc\n26-SY-01,QR-B9,2026,T9,25.8,14.9\n26-SY-02,QR-B9,2026,T10,26.0,15.0\n");
+        var board = folder.Text("board-2026.csv", "Date,Time,T9,T10\n2026-10-03,08:00,25.6,25.9\n2026-10-04,08:00,22.0,23.1\n");
+
+        // When read
+        var set = folder.Read(lots, board);
+
+        // Then each tank's log is still a log of no lot (no join by a guess), and its warning names the lot in that tank
+        Assert.DoesNotContain(set.Lots, l => set.Logs.Any(g => g.LotId == l.LotId));
+        var t9 = Assert.Single(set.Issues, i => i.Code == IssueCodes.LogWithoutLot && i.Value == "T9");
+        Assert.Equal("The fermentation log of lot 'T9' (season 2026) matches no lot read. Check the lot id, or add the lot to the lots sheet. "
+            + "The lots table names 'T9' as the tank (vessel) of lot '26-SY-01'. If this is that lot's log, write the lot id '26-SY-01' in the log in place of the tank; a log is not joined by its tank, which holds other lots in other seasons.", t9.Message);
+    }
 }

@@ -91,9 +91,17 @@ internal static partial class LogJoin
                 // meant is the cellar's to say; the message names the lot that differs only so.
                 string? zeroTwin = recorded.Where(l => log.Season is null || l.Season == log.Season)
                     .Select(l => l.LotId).FirstOrDefault(id => SameButLeadingZeros(id, log.LotId));
+                // A board headed by tanks (T9) beside a lots table that names lots by id and records the tank as the
+                // vessel: the message names the lot that was in that tank; the log is not joined by it (a tank holds
+                // many lots over the years, and perhaps two in one season).
+                string? inTank = zeroTwin is not null ? null
+                    : run.Lots.Select(l => (l.LotId, l.Season, l.Vessel)).Concat(run.RunningLots.Select(l => (l.LotId, l.Season, l.Vessel)))
+                        .Where(l => (log.Season is null || l.Season == log.Season) && l.Vessel is { } v && string.Equals(v.Trim(), log.LotId.Trim(), StringComparison.OrdinalIgnoreCase))
+                        .Select(l => l.LotId).FirstOrDefault();
                 run.Sink.Warning(first.File, first.Sheet, null, null, log.LotId, IssueCodes.LogWithoutLot,
                     IntakeMessages.LogWithoutLot(log.LotId, log.Season is { } s ? "season " + s.ToString(System.Globalization.CultureInfo.InvariantCulture) : "no season")
-                    + (zeroTwin is null ? "" : IntakeMessages.LeadingZeroTwin(zeroTwin, log.LotId)));
+                    + (zeroTwin is null ? "" : IntakeMessages.LeadingZeroTwin(zeroTwin, log.LotId))
+                    + (inTank is null ? "" : IntakeMessages.LotInTank(inTank, log.LotId)));
                 continue;
             }
 
