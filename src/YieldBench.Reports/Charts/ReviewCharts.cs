@@ -81,7 +81,8 @@ public static class ReviewCharts
             // With one season there is no season to set against another: the chart would repeat factor-by-strain.
             charts.Add(PlannedChart.Of(() => FactorBySeason(review), Path.Combine(folder, Files.FactorBySeason), "Conversion factor by season, per strain", comparison, onOverview: false));
         }
-        if (review.Figures.FactorByStrainAndVessel.Count > 0)
+        // With one kind of vessel the chart would repeat factor-by-strain: it is drawn for two kinds or more.
+        if (review.Figures.FactorByStrainAndVessel.Select(StrainCharts.Vessel).Distinct(StringComparer.Ordinal).Skip(1).Any())
         {
             charts.Add(PlannedChart.Of(() => StrainCharts.ByVessel(review), Path.Combine(folder, Files.StrainByVessel), "Conversion factor by strain and vessel", comparison, onOverview: false));
         }

@@ -271,7 +271,7 @@ public static class StrainCharts
         return ferments;
     }
 
-    private static string Vessel(Core.Review.Strains.GroupSummary g)
+    internal static string Vessel(Core.Review.Strains.GroupSummary g)
     {
         // The cross-tab's label is "strain × vessel".
         string label = g.Group;

@@ -50,6 +50,16 @@ public sealed class CellarSizeChartTests
     }
 
     [Fact]
+    public void Two_vessel_types_get_the_by_vessel_chart()
+    {
+        // Given the twenty-strain cellar in tanks and barrels
+        var planned = ReviewCharts.Plan(Twenty.Value, "charts").Select(c => Path.GetFileName(c.File.Path));
+
+        // Then the strain-by-vessel chart is drawn
+        Assert.Contains(ReviewCharts.Files.StrainByVessel, planned);
+    }
+
+    [Fact]
     public void Twenty_strains_on_the_season_chart_stay_within_their_own_season()
     {
         // Given a cellar of twenty strains over two seasons
@@ -78,18 +88,19 @@ public sealed class CellarSizeChartTests
     }
 
     [Fact]
-    public void A_strain_of_one_lot_is_labelled_1_lot_and_a_cellar_of_one_season_gets_no_by_season_chart()
+    public void A_strain_of_one_lot_is_labelled_1_lot_and_a_cellar_of_one_season_and_one_vessel_type_gets_no_by_season_or_by_vessel_chart()
     {
-        // Given a small cellar: one season, a strain of nine lots and one of a single lot
+        // Given a small cellar: one season, stainless tanks only, a strain of nine lots and one of a single lot
         var review = Small.Value;
 
         // When its charts are planned and the factor-by-strain chart is drawn
         var planned = ReviewCharts.Plan(review, "charts").Select(c => Path.GetFileName(c.File.Path)).ToArray();
         var ticks = BottomTicks(ReviewCharts.FactorByStrain(review));
 
-        // Then the single lot reads "1 lot", and there is no by-season chart of one season
+        // Then the single lot reads "1 lot", and there is no by-season chart of one season nor by-vessel chart of one vessel type
         Assert.Equal(["SM-A\n9 lots", "SM-B\n1 lot"], ticks.Select(t => t.Label));
         Assert.DoesNotContain(ReviewCharts.Files.FactorBySeason, planned);
+        Assert.DoesNotContain(ReviewCharts.Files.StrainByVessel, planned);
         Assert.Contains(ReviewCharts.Files.FactorByStrain, planned);
     }
 
