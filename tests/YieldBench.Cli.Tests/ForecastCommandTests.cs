@@ -323,6 +323,35 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void A_lot_whose_log_stopped_days_before_the_others_is_told_so_and_its_past_times_are_not_planned_for()
+    {
+        // Given two running lots of one strain: 26-301 last read on 2 Sep, 26-302 read up to 21 Sep
+        using var folder = new Scratch();
+        folder.Write("r/lots-2026.csv", "Lot,Yeast,Start Brix,Inoculated,Colour\n26-301,YB-R12,24.6,2026-09-01 08:00,red\n26-302,YB-R12,24.2,2026-09-20 08:00,red\n");
+        folder.Write("r/log-2026.csv", "Lot,Timestamp,Brix,Temp °C\n26-301,2026-09-01 17:30,24.0,19.8\n26-301,2026-09-02 07:30,22.6,22.9\n26-301,2026-09-02 17:30,20.9,24.9\n"
+            + "26-302,2026-09-20 17:30,23.9,19.5\n26-302,2026-09-21 07:30,22.8,22.0\n26-302,2026-09-21 17:30,21.0,24.5\n");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When forecast
+        var (exit, output, _) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");
+
+        // Then the old lot's paragraph says how old its log is, that its one-third (3 Sep) is expected to be behind it and
+        // asks for a reading now; the current lot is planned for as before
+        Assert.Equal(0, exit);
+        string flat = Cli.Flat(output);
+        int old = flat.IndexOf("Lot 26-301 (YB-R12)", StringComparison.Ordinal), current = flat.IndexOf("Lot 26-302 (YB-R12)", StringComparison.Ordinal);
+        Assert.True(old >= 0 && current > old, flat);
+        string stale = flat[old..current], fresh = flat[current..];
+        Assert.Contains("Thu 3 Sep", stale, StringComparison.Ordinal);
+        Assert.Contains("by the forecast it has happened already: take a reading", stale, StringComparison.Ordinal);
+        Assert.Contains("Its last reading was Wed 2 Sep 17:30, 19 day(s) before the latest reading of the running lots (Mon 21 Sep 17:30)", stale, StringComparison.Ordinal);
+        Assert.Contains("next reading: now", stale, StringComparison.Ordinal);
+        Assert.DoesNotContain("plan the nutrient addition", stale, StringComparison.Ordinal);
+        Assert.Contains("plan the nutrient addition for the Tue evening check", fresh, StringComparison.Ordinal);
+        Assert.DoesNotContain("last reading was", fresh, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void A_history_of_lots_without_logs_is_told_to_add_the_logs()
     {
         // Given the demo's 2025 lots table alone as the history (no log file) and the demo's running harvest

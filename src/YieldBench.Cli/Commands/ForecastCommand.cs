@@ -262,7 +262,7 @@ internal static class ForecastCommand
         lines.Add($"Forecast for {report.Lots.Count} running lot(s) of {string.Join(", ", seasons)}{stand}:");
         foreach (var lot in report.Lots)
         {
-            lines.AddRange(ForecastSentences.Lot(lot, unit));
+            lines.AddRange(ForecastSentences.Lot(lot, unit, report.Now));
         }
 
         lines.Add(string.Empty);

@@ -23,6 +23,9 @@ public static class ForecastSentences
     /// <summary>A clock time as the cellar reads it: "Thu 17 Sep 14:00".</summary>
     public static string When(DateTime t) => ToMinute(t).ToString("ddd d MMM HH:mm", Inv);
 
+    /// <summary>Hours a lot's last reading may lie before the latest reading of all running lots before it is said to be old.</summary>
+    public const double StaleAfterHours = 24;
+
     /// <summary>The time rounded to the nearest minute (forecast times carry fractions of a second).</summary>
     public static DateTime ToMinute(DateTime t) => new DateTime(t.Ticks - (t.Ticks % TimeSpan.TicksPerMinute), t.Kind).AddMinutes(t.Ticks % TimeSpan.TicksPerMinute >= TimeSpan.TicksPerMinute / 2 ? 1 : 0);
 
@@ -31,13 +34,23 @@ public static class ForecastSentences
         ToMinute(low).Date == ToMinute(high).Date ? $"{ToMinute(low).ToString("HH:mm", Inv)}–{ToMinute(high).ToString("HH:mm", Inv)}" : $"{When(low)} – {When(high)}";
 
     /// <summary>The lot's paragraph: one-third, dryness, heat, risk, next reading, basis; temperatures in <paramref name="unit"/>.</summary>
-    public static IReadOnlyList<string> Lot(LotForecast f, TemperatureUnit unit = TemperatureUnit.Celsius)
+    /// <remarks>
+    /// <paramref name="now"/> is where the readings of all running lots stand; a lot whose own last reading is more than
+    /// a day older is said to be so, and what its forecast puts before <paramref name="now"/> is said to be expected to
+    /// have happened already (to be checked with a reading), not planned for.
+    /// </remarks>
+    public static IReadOnlyList<string> Lot(LotForecast f, TemperatureUnit unit = TemperatureUnit.Celsius, DateTime? now = null)
     {
         ArgumentNullException.ThrowIfNull(f);
         var c = f.Course;
         var lines = new List<string>();
         string vessel = c.Vessel is null ? string.Empty : $", {c.Vessel}";
         string head = $"Lot {c.LotId} ({c.Strain}{vessel})";
+        double lastHours = Math.Max(c.SugarHours.Length > 0 ? c.SugarHours[^1] : double.NegativeInfinity, c.TempHours.Length > 0 ? c.TempHours[^1] : double.NegativeInfinity);
+        DateTime? last = double.IsFinite(lastHours) ? c.At(lastHours) : null;
+        bool stale = now is { } n && last is { } l && (n - l).TotalHours > StaleAfterHours;
+        bool Past(double hours) => stale && c.At(hours) < now!.Value;
+        const string ByNow = " — by the forecast it has happened already: take a reading to see where the lot stands";
         if (f.OneThirdHours is not { } third)
         {
             lines.Add($"{head}: one-third at {N(f.OneThirdBrix)} °Brix could not be forecast.");
@@ -51,7 +64,9 @@ public static class ForecastSentences
             var at = c.At(third.Median);
             string high = double.IsFinite(third.High) ? Span(c.At(third.Low), c.At(third.High)) : $"{When(c.At(third.Low))} or later";
             string check = at.Hour < 12 ? "morning" : "evening";
-            lines.Add($"{head}: one-third at {N(f.OneThirdBrix)} °Brix expected {When(at)} (80 %: {high}) — plan the nutrient addition for the {at.ToString("ddd", Inv)} {check} check.");
+            lines.Add(Past(third.Median)
+                ? $"{head}: one-third at {N(f.OneThirdBrix)} °Brix expected {When(at)} (80 %: {high}){ByNow}."
+                : $"{head}: one-third at {N(f.OneThirdBrix)} °Brix expected {When(at)} (80 %: {high}) — plan the nutrient addition for the {at.ToString("ddd", Inv)} {check} check.");
         }
         else
         {
@@ -70,7 +85,7 @@ public static class ForecastSentences
             string span = !double.IsFinite(dry.High) ? $"{c.At(dry.Low).ToString("d MMM", Inv)} or later"
                 : close ? Span(c.At(dry.Low), c.At(dry.High))
                 : $"{c.At(dry.Low).ToString("d MMM", Inv)}–{c.At(dry.High).ToString("d MMM", Inv)}";
-            parts.Add($"dry expected {(close ? When(c.At(dry.Median)) : c.At(dry.Median).ToString("ddd d MMM", Inv))} (80 %: {span})");
+            parts.Add($"dry expected {(close ? When(c.At(dry.Median)) : c.At(dry.Median).ToString("ddd d MMM", Inv))} (80 %: {span}){(Past(dry.Median) ? ", already past if the forecast holds" : string.Empty)}");
         }
         else
         {
@@ -89,11 +104,17 @@ public static class ForecastSentences
             parts.Add($"peak {unit.Show(peak.Median)} (80 %: {N(unit.FromCelsius(peak.Low))}–{N(unit.FromCelsius(peak.High))}){warn}");
         }
 
+        if (stale)
+        {
+            // A log that stopped (readings not entered, or the lot forgotten): say so before the forecast is read as news.
+            lines.Insert(1, $"  Its last reading was {When(last!.Value)}, {N((now!.Value - last.Value).TotalDays, "0")} day(s) before the latest reading of the running lots ({When(now.Value)}): the forecast runs from that reading.");
+        }
+
         lines.Add("  " + Capital(string.Join("; ", parts)) + ".");
         var heat = new List<string>();
         if (f.ReachableC is { } reach && !f.DryReached)
         {
-            heat.Add($"with no cooling from now it could reach {unit.Show(reach)}");
+            heat.Add($"with no cooling from {(stale ? "its last reading" : "now")} it could reach {unit.Show(reach)}");
         }
 
         if (f.CoolingKw is { } kw && !f.DryReached)
@@ -110,6 +131,7 @@ public static class ForecastSentences
             : f.StuckRisk >= 0.2 ? " — watch it closely" : string.Empty;
         string next = f.DryReached
             ? "next: confirm it with a lab residual-sugar analysis before treating it as finished (a hydrometer reads alcohol as well as sugar)"
+            : stale ? "next reading: now, before acting on any time above"
             : $"next reading: {When(c.At(f.NextReadingHours))} would narrow the {f.NextReadingFor} forecast most";
         string basis = f.OwnStrainPrior
             ? $"basis: {f.StrainLots} past lot(s) of {c.Strain}, {f.ReadingsUsed} reading(s) so far"

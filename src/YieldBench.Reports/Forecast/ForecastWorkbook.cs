@@ -21,11 +21,11 @@ public static class ForecastWorkbook
     public static ReportTable Lots(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         ArgumentNullException.ThrowIfNull(report);
-        return Lots(report.Lots, unit);
+        return Lots(report.Lots, unit, report.Now);
     }
 
     /// <summary>The one-row-per-lot table of <paramref name="lots"/>.</summary>
-    internal static ReportTable Lots(IReadOnlyList<LotForecast> lots, TemperatureUnit unit = TemperatureUnit.Celsius)
+    internal static ReportTable Lots(IReadOnlyList<LotForecast> lots, TemperatureUnit unit = TemperatureUnit.Celsius, DateTime? now = null)
     {
         static object? At(LotForecast f, double? hours) => hours is { } h && double.IsFinite(h) ? f.Course.At(h) : null;
         static double Num(double? v) => v is { } x && double.IsFinite(x) ? x : double.NaN;
@@ -56,7 +56,7 @@ public static class ForecastWorkbook
             new("stuck_risk", "Chance of a sluggish or stuck end", CellKind.Share, f => f.StuckRisk),
             new("next_reading_at", "Next reading most worth taking", CellKind.DateTime, f => At(f, f.NextReadingHours)),
             new("basis", "Basis", CellKind.Text, f => f.OwnStrainPrior ? $"{f.StrainLots} past lots of the strain" : "pooled prior (strain not in the history)"),
-            new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f, unit).Select(s => s.Trim()))),
+            new("summary", "In words", CellKind.Text, f => string.Join(" ", ForecastSentences.Lot(f, unit, now).Select(s => s.Trim()))),
         ];
         return ReportTable.Of(columns, lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
     }
