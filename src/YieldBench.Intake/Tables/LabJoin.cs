@@ -98,7 +98,7 @@ internal static class LabJoin
         {
             foreach (var ctx in run.LabSheets)
             {
-                var results = ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
+                var results = ResultFields(ctx);
                 string? firstId = run.LabResults.FirstOrDefault(l => l.Source.File == ctx.File && l.Source.Sheet == ctx.SheetName)?.LotId;
                 run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, firstId, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(results, byLotId: true));
             }
@@ -118,6 +118,10 @@ internal static class LabJoin
             run.Accounts[i] = run.Accounts[i] with { LotsUsed = run.Accounts[i].LotsUsed - 1, RowsReported = run.Accounts[i].RowsReported + 1 };
         }
     }
+
+    /// <summary>The fields a lab sheet holds besides the lot id and season (named in the lab-results-apart error).</summary>
+    internal static List<string> ResultFields(SheetContext ctx) =>
+        ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
 
     /// <summary>The first id among <paramref name="ids"/> written differently but alike (same letters and numbers).</summary>
     internal static string? LookAlike(string id, IEnumerable<string> ids)
@@ -152,7 +156,8 @@ internal static class LabJoin
         return sb.ToString();
     }
 
-    private static string SheetNames(IEnumerable<SheetContext> sheets) =>
+    /// <summary>The lab sheets named for a message: "file, sheet \"name\"" (or the file alone for a CSV), each once.</summary>
+    internal static string SheetNames(IEnumerable<SheetContext> sheets) =>
         string.Join(", ", sheets.Select(s => s.SheetName is null ? s.File : $"{s.File}, sheet \"{s.SheetName}\"").Distinct(StringComparer.Ordinal));
 
     internal static string Year(int? season) => season is { } s ? s.ToString(CultureInfo.InvariantCulture) : "no season";

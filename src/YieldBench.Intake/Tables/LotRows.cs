@@ -38,8 +38,7 @@ internal static class LotRows
         if (labApart)
         {
             // Results with no lot id: nothing to join by. One error, not one for each column of the lots it lacks.
-            var results = ctx.Columns.Where(c => c.Field.Name is not ("lot_id" or "season")).Select(c => c.Field.Name).Distinct().ToList();
-            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(results, byLotId: false));
+            sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsApart, IntakeMessages.LabResultsApart(LabJoin.ResultFields(ctx), byLotId: false));
         }
 
         ReportMissing(ctx, labApart ? [] : missing);
@@ -57,8 +56,7 @@ internal static class LotRows
         {
             if (join)
             {
-                string labSheets = string.Join(", ", run.LabSheets.Select(s => s.SheetName is null ? s.File : $"{s.File}, sheet \"{s.SheetName}\"").Distinct(StringComparer.Ordinal));
-                run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsJoined, IntakeMessages.LabResultsJoined(labSheets));
+                run.Sink.Warning(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.LabResultsJoined, IntakeMessages.LabResultsJoined(LabJoin.SheetNames(run.LabSheets)));
             }
             else
             {
