@@ -112,7 +112,7 @@ internal static partial class CellValues
     [GeneratedRegex(@"^([°º]?\s*(?:sg|bx|brix|be|baum[eé]|oe|oechsle))\s*[:=]?\s*([-+\u2212]?[0-9][0-9.,]*)$", RegexOptions.CultureInvariant | RegexOptions.IgnoreCase)]
     private static partial Regex ScaleThenNumber();
 
-    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0 ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0\u2009\u2007\u202F ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
     private static partial Regex NumberThenUnit();
 
     private static CellProblem ParseNumberText(string s, bool decimalComma, out double value, out string? alternative)
@@ -136,7 +136,8 @@ internal static partial class CellValues
     {
         value = double.NaN;
         alternative = null;
-        string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal);
+        string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal)
+            .Replace("\u2009", "", StringComparison.Ordinal).Replace("\u2007", "", StringComparison.Ordinal);
         if (t.Length == 0 || NoValueMarks.Contains(t))
         {
             // "-", "n/a", "NA": the sheet's way of writing that nothing was measured, which is an empty cell.
