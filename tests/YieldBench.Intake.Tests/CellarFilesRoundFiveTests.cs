@@ -172,4 +172,28 @@ public class CellarFilesRoundFiveTests
         Assert.Contains("lies below 3, not at it", Assert.Single(set.Issues, i => i.Value == "< 3").Message, StringComparison.Ordinal);
         Assert.Empty(set.Lots);
     }
+
+    [Fact]
+    public void Dates_with_month_names_in_french_german_spanish_and_italian_are_read()
+    {
+        // Given a French semicolon file of lots inoculated "12 sept. 2025", "3 octobre 2025", "1er oct. 2025",
+        // "5. März 2025", "5 de octubre de 2025" and "7 settembre 2025 14:30", and a log dated "13-sept.", "14 sept",
+        // "15 septembre", "16. Sept." and "17 okt." with no year
+        using var folder = new TestFolder();
+        var lots = folder.Text("cave-2025.csv", "Lot;Levure;Brix;TAV;Levurage\n25-F1;QX-14;24,1;14,0;12 sept. 2025\n25-F2;QX-14;23,5;13,6;3 octobre 2025\n"
+            + "25-F3;QX-22;22,0;12,8;1er oct. 2025\n25-F4;QX-22;22,4;13,0;5. März 2025\n25-F5;QX-22;22,4;13,0;5 de octubre de 2025\n25-F6;QX-22;22,4;13,0;7 settembre 2025 14:30\n");
+        var log = folder.Text("journal.csv", "Lot;Date;Densité;Temp\n25-F1;13-sept.;1098;18\n25-F1;14 sept;1085;22\n25-F1;15 septembre;1060;25\n25-F1;16. Sept.;1040;24\n25-F1;17 okt.;1030;22\n");
+
+        // When read
+        var set = folder.Read(lots, log);
+
+        // Then every date is read (before, each foreign month name was not-a-date: the inoculation left empty, the
+        // log's reading left out)
+        Assert.Equal(
+            [new DateTime(2025, 9, 12), new DateTime(2025, 10, 3), new DateTime(2025, 10, 1), new DateTime(2025, 3, 5), new DateTime(2025, 10, 5), new DateTime(2025, 9, 7, 14, 30, 0)],
+            set.Lots.OrderBy(l => l.LotId, StringComparer.Ordinal).Select(l => l.InoculationDate!.Value));
+        Assert.Equal([13, 14, 15, 16, 17], Assert.Single(set.Logs).Readings.Select(r => r.Timestamp.Day));
+        Assert.Equal(10, set.Logs[0].Readings[^1].Timestamp.Month);
+        Assert.DoesNotContain(set.Issues, i => i.Code is IssueCodes.NotADate || i.Severity == IssueSeverity.Error);
+    }
 }
