@@ -384,6 +384,24 @@ public static class IntakeMessages
     internal static string NoteInCell(string field, string number, string note) =>
         $"{field} holds a number with a note in brackets: {number} was read as the value and the note '{note}' was not. If the note changes the number (a value to replace), type the number meant; keep notes in a notes column.";
 
+    internal static string LogBlocks(IReadOnlyList<(int Row, string Lot, bool AboveHeader)> headings, IReadOnlyList<int> headerRepeats, string? sheetLot)
+    {
+        static string Rows(IReadOnlyList<int> rows) =>
+            string.Join(", ", rows.Take(6).Select(r => r.ToString(System.Globalization.CultureInfo.InvariantCulture))) + (rows.Count > 6 ? $" and {rows.Count - 6} more" : "");
+        string repeats = headerRepeats.Count == 0 ? "" : $"The header typed again (row{(headerRepeats.Count == 1 ? "" : "s")} {Rows(headerRepeats)}) was passed over as structure. ";
+        if (headings.Count == 0)
+        {
+            return $"The header is typed again at row{(headerRepeats.Count == 1 ? "" : "s")} {Rows(headerRepeats)} (a sheet pasted in blocks or printed in pages); those rows were passed over as structure and counted with the summary rows.";
+        }
+
+        string named = string.Join(", ", headings.Take(6).Select(h => $"'{h.Lot}' (row {h.Row}{(h.AboveHeader ? ", above the header" : "")})")) + (headings.Count > 6 ? $" and {headings.Count - 6} more" : "");
+        return $"The log has no lot column and holds its readings in blocks, each under a row naming its lot: {named}. "
+            + "Each reading was read as the lot of the heading above it"
+            + (sheetLot is not null ? $" (the readings above the first heading as '{sheetLot}', the sheet's name)" : "")
+            + ", and the headings were counted with the summary rows. " + repeats
+            + "If a heading names a tank rather than the lot, write the lot's id in it; or add a Lot column.";
+    }
+
     internal static string GroupHeading(string text, string field) =>
         $"The row holds only '{text}', the {field} of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own {field} cell is.";
 

@@ -211,6 +211,9 @@ public static class IssueCodes
     /// <summary><c>note-in-cell</c>.</summary>
     public const string NoteInCell = "note-in-cell";
 
+    /// <summary><c>log-blocks</c>.</summary>
+    public const string LogBlocks = "log-blocks";
+
     /// <summary><c>group-heading</c>.</summary>
     public const string GroupHeading = "group-heading";
 

@@ -352,6 +352,67 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void The_demo_console_opens_with_each_lots_next_step_the_lots_that_cannot_wait_first()
+    {
+        // Given the demo forecast's console (the fixture): 26-006 heads for 41 °C, 26-005 for a stuck end
+        string[] lines = demo.Out.Split('\n').Select(l => l.TrimEnd('\r')).ToArray();
+        int actNow = Array.IndexOf(lines, "Act now (2 lot(s)):");
+        int full = Array.IndexOf(lines, "Each lot in full:");
+
+        // Then the to-do list comes before the lots in full: the overheating lot first, then the stuck one, then by day
+        Assert.True(actNow > 0 && full > actNow, demo.Out);
+        Assert.StartsWith("  26-006 YB-R31 cool now: peak 41.4 °C expected, over the 40 °C danger threshold", lines[actNow + 1], StringComparison.Ordinal);
+        Assert.StartsWith("  26-005 YB-R12 stuck risk 100 %: check nitrogen and temperature, plan a restart", lines[actNow + 3], StringComparison.Ordinal);
+        Assert.Equal("Tomorrow, Sat 19 Sep (1 lot(s)):", lines[actNow + 5]);
+        Assert.Equal("  26-009  YB-R44  10:38  nutrient at one-third, 16.3 °Brix (80 % 08:27–13:03); read 22:00", lines[actNow + 6]);
+        Assert.Equal("Later (7 lot(s)):", lines[actNow + 7]);
+        Assert.Equal(10, lines[actNow..full].Count(l => l.StartsWith("  26-0", StringComparison.Ordinal)));
+    }
+
+    [Fact]
+    public void A_large_cellar_gets_one_line_a_lot_and_the_full_forecasts_in_the_files()
+    {
+        // Given 40 running lots (more than the 12 printed in full), inoculated an hour apart, each read three times up to
+        // the same evening round
+        using var folder = new Scratch();
+        var lots = new StringBuilder("Lot,Yeast,Start Brix,Inoculated,Colour,Must volume (L)\n");
+        var log = new StringBuilder("Lot,Timestamp,Brix,Temp °C\n");
+        var end = new DateTime(2026, 9, 17, 18, 0, 0);
+        for (int i = 1; i <= 40; i++)
+        {
+            string id = $"26-4{i:00}";
+            var inoculated = new DateTime(2026, 9, 14, 8, 0, 0).AddHours(i);
+            lots.Append(CultureInfo.InvariantCulture, $"{id},YB-R12,24.5,{inoculated:yyyy-MM-dd HH:mm},red,4000\n");
+            for (int k = 2; k >= 0; k--)
+            {
+                var at = end.AddHours(-10 * k);
+                double hours = (at - inoculated).TotalHours;
+                log.Append(CultureInfo.InvariantCulture, $"{id},{at:yyyy-MM-dd HH:mm},{24.4 - (0.1 * Math.Max(0, hours - 12)):0.0},{18 + (0.12 * hours):0.0}\n");
+            }
+        }
+
+        folder.Write("r/lots-2026.csv", lots.ToString());
+        folder.Write("r/log-2026.csv", log.ToString());
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When forecast
+        var (exit, output, _) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");
+
+        // Then each lot is one line of the to-do list (no paragraph per lot), the console stays short, the lots in full
+        // are pointed to in the files, which hold all 40, and the cautions are kept
+        Assert.Equal(0, exit);
+        string[] lines = output.Split('\n').Select(l => l.TrimEnd('\r')).ToArray();
+        Assert.Equal(40, lines.Count(l => l.StartsWith("  26-4", StringComparison.Ordinal)));
+        Assert.DoesNotContain("Lot 26-401 (", output, StringComparison.Ordinal);
+        Assert.True(lines.Length < 100, $"{lines.Length} lines:\n{output}");
+        Assert.Contains("more than 12 lots, so not printed here): out/forecast.xlsx, sheet \"Forecast\", and out/forecast.json.", Cli.Flat(output), StringComparison.Ordinal);
+        Assert.Contains("carbon dioxide", Cli.Flat(output), StringComparison.Ordinal);
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder.Root, "out", "forecast.json")));
+        Assert.Equal(40, json.RootElement.GetProperty("lots").GetArrayLength());
+        Assert.All(lines, l => Assert.True(l.Length <= 100, l));
+    }
+
+    [Fact]
     public void A_history_of_lots_without_logs_is_told_to_add_the_logs()
     {
         // Given the demo's 2025 lots table alone as the history (no log file) and the demo's running harvest

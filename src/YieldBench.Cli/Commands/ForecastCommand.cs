@@ -253,16 +253,30 @@ internal static class ForecastCommand
         }
     }
 
-    /// <summary>The console's lines: the lots in plain words, the backtest in short, the basis, the files, the cautions.</summary>
+    /// <summary>
+    /// The console's lines: the to-do list (one line a lot, what cannot wait first, then today, tomorrow and later;
+    /// <see cref="ForecastActions"/>), each lot in plain words when the cellar has at most
+    /// <see cref="ForecastActions.DetailUpTo"/> running lots (else where they are), the backtest in short, the basis,
+    /// the files, the cautions.
+    /// </summary>
     internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, ReportOutput written, string workingDirectory, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         var lines = new List<string>();
-        var seasons = report.Lots.Select(l => l.Course.Season).Distinct().Order().ToArray();
-        string stand = report.Now is { } t ? $" (readings stand at {ForecastSentences.When(t)})" : string.Empty;
-        lines.Add($"Forecast for {report.Lots.Count} running lot(s) of {string.Join(", ", seasons)}{stand}:");
-        foreach (var lot in report.Lots)
+        string shown = Path.GetRelativePath(workingDirectory, written.Folder);
+        string detail = $"{Path.Combine(shown, ForecastWorkbook.FileName)}, sheet \"Forecast\", and {Path.Combine(shown, ForecastJson.FileName)}";
+        lines.AddRange(ForecastActions.Lines(report, detail, unit));
+        lines.Add(string.Empty);
+        if (report.Lots.Count <= ForecastActions.DetailUpTo)
         {
-            lines.AddRange(ForecastSentences.Lot(lot, unit, report.Now));
+            lines.Add("Each lot in full:");
+            foreach (var lot in report.Lots)
+            {
+                lines.AddRange(ForecastSentences.Lot(lot, unit, report.Now));
+            }
+        }
+        else
+        {
+            lines.Add($"Each lot in full (one-third, dryness, peak and reachable heat, cooling power, stuck risk, basis; more than {ForecastActions.DetailUpTo} lots, so not printed here): {detail}.");
         }
 
         lines.Add(string.Empty);
@@ -272,7 +286,6 @@ internal static class ForecastCommand
         lines.AddRange(ForecastSentences.Notes(report.Notes));
 
         lines.Add(string.Empty);
-        string shown = Path.GetRelativePath(workingDirectory, written.Folder);
         int charts = written.Files.Count(w => w.EndsWith(".png", StringComparison.Ordinal));
         lines.Add($"Wrote {Path.Combine(shown, ForecastJson.FileName)}, {Path.Combine(shown, ForecastWorkbook.FileName)} and {charts} chart(s) in {Path.Combine(shown, ForecastOutput.ChartsFolder)}.");
         lines.Add("Cautions:");

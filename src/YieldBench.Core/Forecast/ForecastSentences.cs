@@ -26,6 +26,18 @@ public static class ForecastSentences
     /// <summary>Hours a lot's last reading may lie before the latest reading of all running lots before it is said to be old.</summary>
     public const double StaleAfterHours = 24;
 
+    /// <summary>When the lot's last reading (sugar or temperature) was taken, or null when it has none.</summary>
+    public static DateTime? LastReading(LotCourse c)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        double lastHours = Math.Max(c.SugarHours.Length > 0 ? c.SugarHours[^1] : double.NegativeInfinity, c.TempHours.Length > 0 ? c.TempHours[^1] : double.NegativeInfinity);
+        return double.IsFinite(lastHours) ? c.At(lastHours) : null;
+    }
+
+    /// <summary>True when the lot's last reading lies more than <see cref="StaleAfterHours"/> before <paramref name="now"/> (its log stopped).</summary>
+    public static bool IsStale(LotCourse c, DateTime? now) =>
+        now is { } n && LastReading(c) is { } l && (n - l).TotalHours > StaleAfterHours;
+
     /// <summary>The time rounded to the nearest minute (forecast times carry fractions of a second).</summary>
     public static DateTime ToMinute(DateTime t) => new DateTime(t.Ticks - (t.Ticks % TimeSpan.TicksPerMinute), t.Kind).AddMinutes(t.Ticks % TimeSpan.TicksPerMinute >= TimeSpan.TicksPerMinute / 2 ? 1 : 0);
 
@@ -46,9 +58,8 @@ public static class ForecastSentences
         var lines = new List<string>();
         string vessel = c.Vessel is null ? string.Empty : $", {c.Vessel}";
         string head = $"Lot {c.LotId} ({c.Strain}{vessel})";
-        double lastHours = Math.Max(c.SugarHours.Length > 0 ? c.SugarHours[^1] : double.NegativeInfinity, c.TempHours.Length > 0 ? c.TempHours[^1] : double.NegativeInfinity);
-        DateTime? last = double.IsFinite(lastHours) ? c.At(lastHours) : null;
-        bool stale = now is { } n && last is { } l && (n - l).TotalHours > StaleAfterHours;
+        DateTime? last = LastReading(c);
+        bool stale = IsStale(c, now);
         bool Past(double hours) => stale && c.At(hours) < now!.Value;
         const string ByNow = " — by the forecast it has happened already: take a reading to see where the lot stands";
         if (f.OneThirdHours is not { } third)

@@ -16,6 +16,10 @@ internal static class LogRows
             ctx.Run.Sink.Error(ctx.File, ctx.SheetName, ctx.FirstData, null, null, IssueCodes.MissingColumn, IntakeMessages.MissingTimeColumn());
         }
 
+        // A sheet without a lot column may hold several lots' readings in blocks, each under a heading naming its lot.
+        var blocks = lotCol is null ? LogBlocks.Find(ctx) : null;
+        ctx.StructureRows = blocks?.Structure;
+
         // A "Day" column of day numbers (0, 1, 2…) counts days from inoculation: each reading is kept at that many days
         // after DayZero, and the join places it from its lot's inoculation date (LogJoin). Said once for the column.
         double lastDay = double.NaN;
@@ -28,8 +32,31 @@ internal static class LogRows
 
         // A sheet without a lot column is the log of the lot it is named after (a CSV: its file name).
         string? sheetLot = lotCol is null ? (ctx.SheetName ?? fileStem).Trim() : null;
+        if (blocks is not null)
+        {
+            ReportBlocks(ctx, blocks, sheetLot!);
+        }
+
         var rowState = new RowState(ctx);
-        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime), r => Add(ctx, rowState, r, sheetLot, dayNumbers));
+        RowAccounting.Read(ctx, new RowAccounting.Plan("log", Readings: true, NotesAreRows: false, Usable: !noTime),
+            r => Add(ctx, rowState, r, blocks?.LotAt(r) ?? sheetLot, dayNumbers));
+    }
+
+    /// <summary>Says once for the sheet how its blocks were read: the lot each heading names, and the header rows passed over.</summary>
+    private static void ReportBlocks(SheetContext ctx, LogBlocks blocks, string sheetLot)
+    {
+        var named = new List<(int Row, string Lot, bool AboveHeader)>();
+        if (blocks.AboveHeader is { } above)
+        {
+            named.Add((above.Row + 1, above.Lot, true));
+        }
+
+        named.AddRange(blocks.Headings.Select(h => (h.Row + 1, h.Lot, false)));
+        int firstRow = named.Count > 0 ? named[0].Row : blocks.HeaderRepeats[0] + 1;
+        string? firstText = named.Count > 0 ? named[0].Lot : null;
+        bool sheetLotUsed = blocks.AboveHeader is null && (blocks.Headings.Count == 0 || blocks.Headings[0].Row > ctx.FirstData);
+        ctx.Run.Sink.Warning(ctx.File, ctx.SheetName, firstRow, null, firstText, IssueCodes.LogBlocks,
+            IntakeMessages.LogBlocks(named, blocks.HeaderRepeats.Select(r => r + 1).ToList(), sheetLotUsed ? sheetLot : null));
     }
 
     /// <summary>
@@ -73,9 +100,10 @@ internal static class LogRows
     {
         last = double.NaN;
         int count = 0;
-        foreach (var cell in ctx.Values(c))
+        for (int r = ctx.FirstData; r <= ctx.LastRow; r++)
         {
-            if (CellValues.IsBlank(cell))
+            var cell = ctx.Sheet.Cell(r, c.Index);
+            if (CellValues.IsBlank(cell) || ctx.StructureRows?.Contains(r) == true)
             {
                 continue;
             }

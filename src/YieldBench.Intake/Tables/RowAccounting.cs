@@ -40,6 +40,13 @@ internal static class RowAccounting
                 continue;
             }
 
+            if (ctx.StructureRows?.Contains(r) == true)
+            {
+                // A log's block heading or a repeat of its header (LogBlocks): said once for the sheet.
+                summary++;
+                continue;
+            }
+
             if (IsSummaryRow(ctx, row, out var label))
             {
                 summary++;

@@ -89,6 +89,15 @@ internal sealed record SheetContext(
     /// <summary>Headers of the table that matched no field, for hints in the messages of missing columns.</summary>
     public IReadOnlyList<string> Unmatched { get; init; } = [];
 
+    /// <summary>The sheet row index (0-based) of the header.</summary>
+    public int HeaderRow { get; init; }
+
+    /// <summary>
+    /// Data rows that are structure, not data, of a log kept in blocks (a heading naming the lot below it, a repeat of
+    /// the header): counted with the summary rows. Null when the table has none.
+    /// </summary>
+    public HashSet<int>? StructureRows { get; set; }
+
     /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
     public int? HeadingSeason { get; set; }
 

@@ -69,6 +69,7 @@ internal static class SheetReader
         var ctx = new SheetContext(run, file, sheet, kind, columns, firstData, lastRow, SeasonNames.FromName(sheetName) ?? SeasonNames.FromName(fileStem) ?? run.Options.Season, headerWidth)
         {
             Unmatched = unmatched.Select(u => u.Header).ToList(),
+            HeaderRow = headerRow,
         };
         if (kind == TableKind.Lots)
         {
