@@ -309,6 +309,15 @@ public static class IntakeMessages
     internal static string ReadingDateImplausible(string log, string date, string basis) =>
         $"The reading of {log} is dated {date}, more than a year from {basis}; it was left out (a ferment would seem to last for years). Check the date (a year typed wrong, or a date cell read as its serial number).";
 
+    internal static string LogOutOfSeason(string log, int readings, string span, string basis, int? fromOption, int? fittingSeason)
+    {
+        string why = fromOption is { } option
+            ? $" Its season came from --season {option.ToString(Inv)}, which is given to every file that names no season of its own: leave --season off when the files hold several seasons (a log then takes its season from its lot), or give the log a season column."
+            : " Check the log's season (column, sheet or file name) and the dates (a year typed wrong, or date cells read as serial numbers).";
+        string fits = fittingSeason is { } f ? $" Lot {log[(log.IndexOf('/') + 1)..]} of season {f.ToString(Inv)} was read, and these dates fit it." : "";
+        return $"All {readings.ToString("N0", Inv)} readings of {log} are dated {span}, more than a year from {basis}; the log was left out.{why}{fits}";
+    }
+
     internal static string LogTooShort(string log, int readings) => readings == 1
         ? $"The log of {log} holds one reading, so no rate, lag or time to dryness can be measured; the kinetics review leaves it out. Add the other readings, or leave the log out."
         : $"The log of {log} holds {readings.ToString(Inv)} readings all at one time, so no rate, lag or time to dryness can be measured; the kinetics review leaves it out. Check the dates and times.";

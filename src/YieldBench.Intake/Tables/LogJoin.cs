@@ -434,12 +434,19 @@ internal static partial class LogJoin
             string basis = seasons.Length > 0
                 ? "season " + string.Join(" or ", seasons.Order().Select(y => y.ToString(CultureInfo.InvariantCulture)))
                 : "the log's middle reading of " + middle.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
-            var good = new List<LogReading>();
+            var good = log.Readings.Where(r => Plausible(r.Timestamp)).ToList();
+            if (good.Count == 0 && log.Readings.Count > 1)
+            {
+                // Every reading is out: one error for the log (a season given wrongly, e.g. by --season to a file of
+                // several seasons' logs), not one per reading.
+                ReportLogOutOfSeason(run, log, seasons, basis, recorded);
+                continue;
+            }
+
             foreach (var reading in log.Readings)
             {
                 if (Plausible(reading.Timestamp))
                 {
-                    good.Add(reading);
                     continue;
                 }
 
@@ -456,6 +463,22 @@ internal static partial class LogJoin
         }
 
         return kept;
+    }
+
+    private static void ReportLogOutOfSeason(IntakeRun run, FermentationLog log, int[] seasons, string basis, List<(string LotId, int Season, SourceRef? Source)> recorded)
+    {
+        var times = log.Readings.Select(r => r.Timestamp).Order().ToList();
+        string span = times[0].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) + " to " + times[^1].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        int? fitting = recorded.Where(l => l.LotId == log.LotId && !seasons.Contains(l.Season) && Math.Abs(l.Season - times[0].Year) <= 1)
+            .Select(l => (int?)l.Season).FirstOrDefault();
+        bool fromOption = run.Options.Season is { } option && seasons is [var only] && only == option && log.Season == option;
+        var first = log.Readings.MinBy(r => r.Timestamp)!.Source!;
+        run.Sink.Error(first.File, first.Sheet, first.Row, null, span, IssueCodes.ReadingDateImplausible,
+            IntakeMessages.LogOutOfSeason(log.Name, log.Readings.Count, span, basis, fromOption ? run.Options.Season : null, fitting));
+        foreach (var reading in log.Readings)
+        {
+            MoveToReported(run, reading.Source!);
+        }
     }
 
     /// <summary>
