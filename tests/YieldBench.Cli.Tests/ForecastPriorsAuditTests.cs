@@ -8,7 +8,8 @@ namespace YieldBench.Cli.Tests;
 /// The forecast's rate and lag priors (docs/methods.md Part 5, "Priors from the history" and "Seasons") against a
 /// recomputation in python from the methods text: tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit.py (its
 /// header gives the commands), from the per-lot Zwietering fits that scipy made in forecast-course-audit.py
-/// (kinetics-audit/*-courses.csv), on the demo history and the invented Corrowind Vineyard. Recorded values:
+/// (kinetics-audit/*-courses.csv, forecast-priors-audit/corrowind-courses.csv), on the demo history and the invented
+/// Corrowind Vineyard and Brackenfold Cellars (no YAN recorded; one vessel type per colour). Recorded values:
 /// forecast-priors-audit/*.csv.
 /// </summary>
 public class ForecastPriorsAuditTests
@@ -17,6 +18,7 @@ public class ForecastPriorsAuditTests
     {
         { "demo.csv", "demo-data/history" },
         { "corrowind.csv", "tests/YieldBench.Core.Tests/Fixtures/corrowind-input" },
+        { "brackenfold.csv", "tests/YieldBench.Core.Tests/Fixtures/kinetics-audit/brackenfold-input" },
     };
 
     [Theory]
@@ -45,9 +47,15 @@ public class ForecastPriorsAuditTests
             }
         }
 
-        Check("rate_temperature_slope", expected["rate_temperature_slope"][0], model.RateTemperatureSlope, 1e-4);
-        Check("rate_nitrogen_slope", expected["rate_nitrogen_slope"][0], model.RateNitrogenSlope, 1e-4);
-        Check("rate_outlier_share", expected["rate_outlier_share"][0], model.RateOutlierShare, 1e-12);
+        // (the slopes only where the columns are independent: Brackenfold has one vessel type per colour, so its usual
+        // vessel peak is fixed by the strain columns and only the predictions below are determined)
+        if (expected.TryGetValue("rate_temperature_slope", out var slope))
+        {
+            Check("rate_temperature_slope", slope[0], model.RateTemperatureSlope, 1e-4);
+            Check("rate_nitrogen_slope", expected["rate_nitrogen_slope"][0], model.RateNitrogenSlope, 1e-4);
+        }
+
+        Check("rate_outlier_share", expected["rate_outlier_share"][0], model.RateOutlierShare, 1e-9);
         void CheckCov(string what, (double Vmm, double Vml, double Vll) tool)
         {
             var e = expected[what];

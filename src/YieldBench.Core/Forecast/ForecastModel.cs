@@ -369,7 +369,11 @@ public sealed partial class ForecastModel
                 }
             }
 
-            int dof = Math.Max(1, idx.Length - p0 - 2 - seasons.Length);
+            // Degrees of freedom: the kept lots less what the regression learns, its rank (a covariate that does not
+            // vary, YAN when it is not used, or a vessel peak the strain columns already fix, learns nothing), and one
+            // shift per season.
+            int rank = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfRowArrays(idx.Select(i => rows[i])).Rank();
+            int dof = Math.Max(1, idx.Length - rank - seasons.Length);
             double trim = pass == 0 ? 1.0 : 0.9535;
             within = (sMm / dof / trim, sMl / dof / trim, sLl / dof / trim);
 

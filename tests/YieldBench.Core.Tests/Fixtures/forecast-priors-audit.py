@@ -7,7 +7,7 @@
 # the usual peak of the lot's vessel type and colour (the median highest logged temperature of the history's fitted
 # lots there) and log YAN (used when 80 % of the fitted lots record it; a lot without one at the history's mean), both
 # covariates centred. Residuals less each season's mean residual (its shift; the lag's too), the lag's divided by the
-# predicted lag (at least 4 h); the 2 x 2 scatter over kept lots with n - columns - seasons degrees of freedom, and per
+# predicted lag (at least 4 h); the 2 x 2 scatter over kept lots with n - rank - seasons degrees of freedom, and per
 # colour (10 or more kept lots) with the colour's share of them; lots beyond 9.21 in Mahalanobis distance (each against
 # its colour's scatter) set aside and the fit made again, twice, the later scatters divided by 0.9535. The share set
 # aside (k + 1)/(n + 2); the season spread sqrt(var(shifts) - mean(scatter / kept lots of the season)), at least 0.10.
@@ -24,6 +24,11 @@
 #   /usr/bin/python3 tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit.py OUT/cw/data/lots.csv \
 #       tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit/corrowind-courses.csv tests/YieldBench.Core.Tests/Fixtures/corrowind-input/corrowind-logs.csv \
 #       tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit/corrowind.out.csv
+#   dotnet run -c Release --project src/YieldBench.Cli -- review tests/YieldBench.Core.Tests/Fixtures/kinetics-audit/brackenfold-input --out OUT/bf
+#   /usr/bin/python3 tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit.py OUT/bf/data/lots.csv \
+#       tests/YieldBench.Core.Tests/Fixtures/kinetics-audit/brackenfold-courses.csv \
+#       tests/YieldBench.Core.Tests/Fixtures/kinetics-audit/brackenfold-input/brackenfold-logs-*.csv \
+#       tests/YieldBench.Core.Tests/Fixtures/forecast-priors-audit/brackenfold.out.csv
 # (each .out.csv then renamed to .csv).
 import csv, datetime as dt, math, os, re, sys
 import numpy as np
@@ -126,7 +131,10 @@ for pas in range(3):
     lshift = {s: el[keep & (season == s)].mean() for s in seasons}
     scale = np.maximum(X @ bl, 4.0)
     A = em - np.array([shift[s] for s in season]); B = (el - np.array([lshift[s] for s in season])) / scale
-    dof = keep.sum() - p - len(seasons)
+    # degrees of freedom: the kept lots less what the regression learns (its rank: a covariate that does not vary, or
+    # that the strain columns already fix, learns nothing) and one shift per season
+    rank = np.linalg.matrix_rank(X[keep])
+    dof = keep.sum() - rank - len(seasons)
     trim = 1.0 if pas == 0 else 0.9535
     def cov(m, d): return np.array([[A[m] @ A[m], A[m] @ B[m]], [A[m] @ B[m], B[m] @ B[m]]]) / d / trim
     within = cov(keep, dof)
@@ -144,10 +152,11 @@ between = sh.var(ddof=1) if len(seasons) > 1 else 0
 noise = np.mean([within[0, 0] / (keep & (season == s)).sum() for s in seasons])
 spread = max(0.10, math.sqrt(max(0, between - noise)))
 out = csv.writer(open(sys.argv[-1], "w", newline="", encoding="utf-8") if sys.argv[-1].endswith(".out.csv") else sys.stdout, lineterminator="\n")
-print("lots %d, columns %s, yan %s, kept %d" % (n, cols, use_yan, keep.sum()), file=sys.stderr)
+print("lots %d, columns %s, yan %s, kept %d, rank %d of %d" % (n, cols, use_yan, keep.sum(), rank, p), file=sys.stderr)
 out.writerow(["quantity", "a", "b", "c"])
-out.writerow(["rate_temperature_slope", "%.10g" % bm[len(cols)], "", ""])
-out.writerow(["rate_nitrogen_slope", "%.10g" % (bm[len(cols) + 1] if use_yan else 0), "", ""])
+if rank == p:  # the slopes are only determined when the columns are independent
+    out.writerow(["rate_temperature_slope", "%.10g" % bm[len(cols)], "", ""])
+    out.writerow(["rate_nitrogen_slope", "%.10g" % (bm[len(cols) + 1] if use_yan else 0), "", ""])
 out.writerow(["rate_outlier_share", "%.10g" % ((n - keep.sum() + 1) / (n + 2)), "", ""])
 out.writerow(["within", "%.10g" % within[0, 0], "%.10g" % within[0, 1], "%.10g" % within[1, 1]])
 for b, V in sorted(byc.items()): out.writerow(["within_" + b, "%.10g" % V[0, 0], "%.10g" % V[0, 1], "%.10g" % V[1, 1]])
