@@ -411,6 +411,18 @@ public static class IntakeMessages
             + "If a heading names a tank rather than the lot, write the lot's id in it; or add a Lot column.";
     }
 
+    internal static string BoundNotValue(string field, string text, bool above, string limit) =>
+        $"{field} is written as a bound ('{text}'): the value lies {(above ? "above" : "below")} {limit}, not at it, so it is no measurement to compute with. "
+        + (above ? "Enter the lab's number (a value beyond its range is measured again after dilution)." : "Enter the lab's number.");
+
+    internal static string CellUnitsConverted(int count, string first, int row, double inField, string fieldUnit) =>
+        $"{count} value(s) of the column, whose header gives no unit, are written with a unit of their own (the first, '{first}' at row {row}, = {Num(Math.Round(inField, 2))} {fieldUnit}); "
+        + $"each was converted from the unit it states to {fieldUnit}. Values written without a unit were read in {fieldUnit}. State the unit in the header, or write every value in one unit.";
+
+    internal static string CommaThousands(int count, string first, int row, double value) =>
+        $"{count} value(s) of the column are written with a comma before groups of three digits (the first, '{first}' at row {row}). The file separates its fields with commas and writes its decimals with a point, "
+        + $"as spreadsheets set up for the US or UK export, so each such comma was read as a thousands separator ('{first}' = {Num(value)}). If one is a decimal comma, write the value with a point.";
+
     internal static string GroupHeading(string text, string field) =>
         $"The row holds only '{text}', the {field} of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own {field} cell is.";
 

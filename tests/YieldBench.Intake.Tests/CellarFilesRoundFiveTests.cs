@@ -94,4 +94,106 @@ public class CellarFilesRoundFiveTests
         var account = Assert.Single(set.Accounts, a => a.File == log);
         Assert.Equal((4, 3, 0, 1), (account.RowsRead, account.LogReadingsUsed, account.RowsReported, account.SummaryRowsSkipped));
     }
+
+    [Fact]
+    public void A_us_cellar_book_in_gallons_pounds_and_kilolitres_with_thousands_separators_is_read_in_litres_and_kilograms()
+    {
+        // Given a comma-separated export of a US cellar book: must volume headed "Must vol (gal)" (its "vol" is a unit
+        // word, so only "Must" was left and the column was not read), "Must (L)" on a second sheet's shape, water in
+        // gallons, sugar headed "Sugar (lb)", a tank size without unit whose cells say "1,500 gal", "5 kL", "50 hL" or
+        // nothing, a "Capacity (kL)" column, and volumes written "1,250", "10 000" and with a thin space
+        using var folder = new TestFolder();
+        var lots = folder.Text("quillon-2025.csv",
+            "Lot,Vintage,Yeast,Tank size,Must vol (gal),Water (gal),Sugar (lb),Brix at crush,Alc %,RS g/L\n"
+            + "25-QR-01,2025,QX-14,\"1,500 gal\",\"1,250\",0,0,24.6,14.1,0.4\n"
+            + "25-QR-02,2025,QX-14,5 kL,\"1,100\",40,0,25.8,14.3,trace\n"
+            + "25-QR-03,2025,QX-22,50 hL,\"10 000\",0,220,20.4,13.0,0.6\n"
+            + "25-QR-04,2025,QX-22,2000,1\u2009400,0,0,22.1,12.9,0.8\n");
+        var other = folder.Text("quillon-2024.csv", "Lot,Vintage,Yeast,Must (L),Capacity (kL),Brix,Alc\n24-QR-01,2024,QX-14,4200,5,24.0,14.0\n");
+
+        // When read
+        var set = folder.Read(lots, other);
+
+        // Then every volume is in litres (US gallon 3.785411784 L exactly, NIST Handbook 44 App. C) and the sugar in kg
+        // (lb 0.45359237 kg exactly); "trace" residual sugar is below the lab's limit, as "ND" is
+        var byId = set.Lots.ToDictionary(l => l.LotId);
+        Assert.Equal(4731.76473, Math.Round(byId["25-QR-01"].Additions.MustVolumeL!.Value, 5)); // 1250 × 3.785411784
+        Assert.Equal(151.41647, Math.Round(byId["25-QR-02"].Additions.WaterAddedL!.Value, 5)); // 40 × 3.785411784
+        Assert.Equal(37854.11784, Math.Round(byId["25-QR-03"].Additions.MustVolumeL!.Value, 5));
+        Assert.Equal(99.79032, Math.Round(byId["25-QR-03"].Additions.SugarAddedKg!.Value, 5)); // 220 × 0.45359237
+        Assert.Equal(5299.57650, Math.Round(byId["25-QR-04"].Additions.MustVolumeL!.Value, 5));
+        Assert.Equal([5678.117676, 5000, 5000, 2000], new[] { "25-QR-01", "25-QR-02", "25-QR-03", "25-QR-04" }.Select(id => Math.Round(byId[id].VesselCapacityL!.Value, 6)));
+        Assert.Null(byId["25-QR-02"].ResidualSugarGl);
+        Assert.Equal((4200.0, 5000.0), (byId["24-QR-01"].Additions.MustVolumeL, byId["24-QR-01"].VesselCapacityL));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error || i.Code == IssueCodes.ColumnNotUsed || i.Code == IssueCodes.AdditionsWithoutVolume);
+
+        // and the two judgements are said once for their column, naming the first value
+        var units = Assert.Single(set.Issues, i => i.Code == IssueCodes.UnitInCellDiffers);
+        Assert.Equal((IssueSeverity.Warning, 2, "Tank size", "1,500 gal"), (units.Severity, units.Row, units.Column, units.Value));
+        Assert.Equal("3 value(s) of the column, whose header gives no unit, are written with a unit of their own (the first, '1,500 gal' at row 2, = 5678.12 L); each was converted from the unit it states to L. "
+            + "Values written without a unit were read in L. State the unit in the header, or write every value in one unit.", units.Message);
+        var grouped = set.Issues.Where(i => i.Code == IssueCodes.AmbiguousNumber).ToList();
+        Assert.Equal(["Must vol (gal)", "Tank size"], grouped.Select(i => i.Column).Order());
+        Assert.All(grouped, i => Assert.Equal(IssueSeverity.Warning, i.Severity));
+        Assert.StartsWith("2 value(s) of the column are written with a comma before groups of three digits (the first, '1,250' at row 2).",
+            Assert.Single(grouped, i => i.Column == "Must vol (gal)").Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_comma_before_three_digits_stays_ambiguous_where_the_file_writes_decimal_commas_or_no_decimals()
+    {
+        // Given a comma-separated file whose decimals are written with a comma ("24,6" quoted), and one with no
+        // decimal at all, each with a must volume "1,250"
+        using var folder = new TestFolder();
+        var commas = folder.Text("a-2025.csv", "Lot,Yeast,Must volume (L),Brix,Alc\n25-A,QX-14,\"1,250\",\"24,6\",14\n");
+        var plain = folder.Text("b-2025.csv", "Lot,Yeast,Must volume (L),Brix,Alc\n25-B,QX-14,\"1,250\",24,14\n");
+
+        // When read
+        var set = folder.Read(commas, plain);
+
+        // Then neither is guessed: each is ambiguous-number at its cell, as before
+        Assert.Equal(2, set.Issues.Count(i => i.Code == IssueCodes.AmbiguousNumber && i.Value == "1,250" && i.Row == 2));
+    }
+
+    [Fact]
+    public void A_lab_value_written_as_a_bound_says_it_is_no_measurement()
+    {
+        // Given a final alcohol written ">15" (beyond the lab's range) and one "< 3"
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc\n25-A,QX-14,27.2,>15\n25-B,QX-14,24.0,< 3\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then both rows are left out with a message that names the bound and what to enter
+        var above = Assert.Single(set.Issues, i => i.Value == ">15");
+        Assert.Equal((IssueSeverity.Error, IssueCodes.NotANumber), (above.Severity, above.Code));
+        Assert.Equal("final_abv is written as a bound ('>15'): the value lies above 15, not at it, so it is no measurement to compute with. Enter the lab's number (a value beyond its range is measured again after dilution).", above.Message);
+        Assert.Contains("lies below 3, not at it", Assert.Single(set.Issues, i => i.Value == "< 3").Message, StringComparison.Ordinal);
+        Assert.Empty(set.Lots);
+    }
+
+    [Fact]
+    public void Dates_with_month_names_in_french_german_spanish_and_italian_are_read()
+    {
+        // Given a French semicolon file of lots inoculated "12 sept. 2025", "3 octobre 2025", "1er oct. 2025",
+        // "5. März 2025", "5 de octubre de 2025" and "7 settembre 2025 14:30", and a log dated "13-sept.", "14 sept",
+        // "15 septembre", "16. Sept." and "17 okt." with no year
+        using var folder = new TestFolder();
+        var lots = folder.Text("cave-2025.csv", "Lot;Levure;Brix;TAV;Levurage\n25-F1;QX-14;24,1;14,0;12 sept. 2025\n25-F2;QX-14;23,5;13,6;3 octobre 2025\n"
+            + "25-F3;QX-22;22,0;12,8;1er oct. 2025\n25-F4;QX-22;22,4;13,0;5. März 2025\n25-F5;QX-22;22,4;13,0;5 de octubre de 2025\n25-F6;QX-22;22,4;13,0;7 settembre 2025 14:30\n");
+        var log = folder.Text("journal.csv", "Lot;Date;Densité;Temp\n25-F1;13-sept.;1098;18\n25-F1;14 sept;1085;22\n25-F1;15 septembre;1060;25\n25-F1;16. Sept.;1040;24\n25-F1;17 okt.;1030;22\n");
+
+        // When read
+        var set = folder.Read(lots, log);
+
+        // Then every date is read (before, each foreign month name was not-a-date: the inoculation left empty, the
+        // log's reading left out)
+        Assert.Equal(
+            [new DateTime(2025, 9, 12), new DateTime(2025, 10, 3), new DateTime(2025, 10, 1), new DateTime(2025, 3, 5), new DateTime(2025, 10, 5), new DateTime(2025, 9, 7, 14, 30, 0)],
+            set.Lots.OrderBy(l => l.LotId, StringComparer.Ordinal).Select(l => l.InoculationDate!.Value));
+        Assert.Equal([13, 14, 15, 16, 17], Assert.Single(set.Logs).Readings.Select(r => r.Timestamp.Day));
+        Assert.Equal(10, set.Logs[0].Readings[^1].Timestamp.Month);
+        Assert.DoesNotContain(set.Issues, i => i.Code is IssueCodes.NotADate || i.Severity == IssueSeverity.Error);
+    }
 }

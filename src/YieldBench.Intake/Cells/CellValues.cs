@@ -112,7 +112,7 @@ internal static partial class CellValues
     [GeneratedRegex(@"^([°º]?\s*(?:sg|bx|brix|be|baum[eé]|oe|oechsle))\s*[:=]?\s*([-+\u2212]?[0-9][0-9.,]*)$", RegexOptions.CultureInvariant | RegexOptions.IgnoreCase)]
     private static partial Regex ScaleThenNumber();
 
-    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0 ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^([-+\u2212]?[0-9][0-9.,\u00A0\u2009\u2007\u202F ]*?)\s*([°º%]?\s*[A-Za-zé][A-Za-zé/ .%]*|°\s*[A-Za-z]+|%\s*[A-Za-z/ ]+)$", RegexOptions.CultureInvariant)]
     private static partial Regex NumberThenUnit();
 
     private static CellProblem ParseNumberText(string s, bool decimalComma, out double value, out string? alternative)
@@ -136,7 +136,8 @@ internal static partial class CellValues
     {
         value = double.NaN;
         alternative = null;
-        string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal);
+        string t = s.Trim().Replace('\u2212', '-').Replace("\u00A0", "", StringComparison.Ordinal).Replace("\u202F", "", StringComparison.Ordinal)
+            .Replace("\u2009", "", StringComparison.Ordinal).Replace("\u2007", "", StringComparison.Ordinal);
         if (t.Length == 0 || NoValueMarks.Contains(t))
         {
             // "-", "n/a", "NA": the sheet's way of writing that nothing was measured, which is an empty cell.
@@ -419,7 +420,19 @@ internal static partial class CellValues
             return CellProblem.NotADate;
         }
 
-        return DateTime.TryParseExact(s, MonthNameFormats, Inv, DateTimeStyles.AllowWhiteSpaces, out value) ? CellProblem.None : CellProblem.NotADate;
+        if (DateTime.TryParseExact(s, MonthNameFormats, Inv, DateTimeStyles.AllowWhiteSpaces, out value))
+        {
+            return CellProblem.None;
+        }
+
+        // "3 octobre 2025", "5. März 2025", "5 de octubre de 2025", "1er oct. 2025": a day, a month named in French,
+        // German, Spanish or Italian (or English), a year.
+        if (NamedDate().Match(s) is { Success: true } named && MonthNumber(named.Groups["mon"].Value) is > 0 and var month)
+        {
+            return MakeDate(named.Groups["y"].Value, month.ToString(Inv), named.Groups["d"].Value, named, out value) ? CellProblem.None : CellProblem.NotADate;
+        }
+
+        return CellProblem.NotADate;
     }
 
     /// <summary>
@@ -494,27 +507,50 @@ internal static partial class CellValues
     /// <summary>True when <paramref name="day"/> exists in <paramref name="month"/> of some year (29 February included).</summary>
     private static bool ValidDayMonth(int month, int day) => month is >= 1 and <= 12 && day >= 1 && day <= DateTime.DaysInMonth(2024, month);
 
-    private static int MonthNumber(string name) => name.ToLowerInvariant() switch
-    {
-        "jan" or "january" => 1,
-        "feb" or "february" => 2,
-        "mar" or "march" => 3,
-        "apr" or "april" => 4,
-        "may" => 5,
-        "jun" or "june" => 6,
-        "jul" or "july" => 7,
-        "aug" or "august" => 8,
-        "sep" or "sept" or "september" => 9,
-        "oct" or "october" => 10,
-        "nov" or "november" => 11,
-        "dec" or "december" => 12,
-        _ => 0,
-    };
+    /// <summary>
+    /// The month a name or abbreviation gives (1–12), in English, French, German, Spanish or Italian, accents folded
+    /// and case ignored ("Sept", "octobre", "März", "Okt", "dic", "settembre"); 0 for any other word.
+    /// </summary>
+    private static int MonthNumber(string name) => MonthNames.GetValueOrDefault(HeaderText.Normalise(name.TrimEnd('.')));
 
-    [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th)?[\s-]*(?<mon>[A-Za-z]{3,9})\.?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
+    private static readonly Dictionary<string, int> MonthNames = BuildMonthNames();
+
+    private static Dictionary<string, int> BuildMonthNames()
+    {
+        string[][] names =
+        [
+            ["jan", "january", "janvier", "janv", "januar", "janner", "jaenner", "enero", "ene", "gennaio", "gen"],
+            ["feb", "february", "fevrier", "fevr", "fev", "februar", "febrero", "febbraio"],
+            ["mar", "march", "mars", "marz", "maerz", "mrz", "marzo"],
+            ["apr", "april", "avril", "avr", "abril", "abr", "aprile"],
+            ["may", "mai", "mayo", "maggio", "mag"],
+            ["jun", "june", "juin", "juni", "junio", "giugno", "giu"],
+            ["jul", "july", "juillet", "juil", "juli", "julio", "luglio", "lug"],
+            ["aug", "august", "aout", "agosto", "ago"],
+            ["sep", "sept", "september", "septembre", "septiembre", "setiembre", "settembre", "set"],
+            ["oct", "october", "octobre", "oktober", "okt", "octubre", "ottobre", "ott"],
+            ["nov", "november", "novembre", "noviembre"],
+            ["dec", "december", "decembre", "dezember", "dez", "diciembre", "dic", "dicembre"],
+        ];
+        var map = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (int m = 0; m < names.Length; m++)
+        {
+            foreach (var n in names[m])
+            {
+                map.Add(n, m + 1);
+            }
+        }
+
+        return map;
+    }
+
+    [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th|er|º|°)?\.?\s*(?:de\s+|-)?(?<mon>\p{L}{3,10})\.?\s*(?:de\s+|del\s+|-)?(?<y>[0-9]{4})(?:,?\s+(?<h>[0-9]{1,2})[:.h](?<min>[0-9]{2}))?$", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
+    private static partial Regex NamedDate();
+
+    [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th|er)?\.?[\s-]*(?:de\s+)?(?<mon>\p{L}{3,10})\.?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
     private static partial Regex NamedDayMonth();
 
-    [GeneratedRegex(@"^(?<mon>[A-Za-z]{3,9})\.?[\s-]*(?<d>[0-9]{1,2})(?:st|nd|rd|th)?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
+    [GeneratedRegex(@"^(?<mon>\p{L}{3,10})\.?[\s-]*(?<d>[0-9]{1,2})(?:st|nd|rd|th)?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
     private static partial Regex MonthNameDay();
 
     [GeneratedRegex(@"^(?<a>[0-9]{1,2})(?<sep>[/.-])(?<b>[0-9]{1,2})\.?(?:[ T](?<h>[0-9]{1,2}):(?<min>[0-9]{2}))?$")]

@@ -67,9 +67,37 @@ internal static class ColumnRules
             return field;
         }
 
+        if (kind == TableKind.Lots && QuantityWithUnit(key, header) is { } quantity)
+        {
+            return quantity;
+        }
+
         int last = key.LastIndexOf(' ');
         return last > 0 && TrailingScaleWords.Contains(key[(last + 1)..]) && index.TryGetValue(key[..last], out field) && field.Kind == FieldKind.Sugar
             ? field
+            : null;
+    }
+
+    /// <summary>
+    /// A lots table's must or sugar named by a bare word with a unit of volume or mass, which says what is meant: "Must
+    /// (gal)", "Must vol (gal)" (whose "vol" is dropped as a unit word), "Juice (L)" are the must volume; "Sugar (lb)",
+    /// "Sucrose kg" the sugar added (a bare "Sugar" stays too vague). A header naming a sugar scale or g/L ("Must g/L")
+    /// is none of these.
+    /// </summary>
+    private static FieldDef? QuantityWithUnit(string key, string header)
+    {
+        if (HeaderText.UnitFromHeader(header, FieldKind.Sugar) != ColumnUnit.None)
+        {
+            return null;
+        }
+
+        if (key is "must" or "juice" or "must juice" or "juice must" && HeaderText.UnitFromHeader(header, FieldKind.Volume) != ColumnUnit.None)
+        {
+            return Fields.Lots.First(f => f.Name == "must_volume_l");
+        }
+
+        return key is "sugar" or "cane sugar" or "beet sugar" && HeaderText.UnitFromHeader(header, FieldKind.Mass) is ColumnUnit.Kilogram or ColumnUnit.Pound
+            ? Fields.Lots.First(f => f.Name == "sugar_added_kg")
             : null;
     }
 
@@ -102,6 +130,7 @@ internal static class ColumnRules
                 string stem = f.Name[..^2];
                 a.TryAdd(stem + "_hl", (f.Name, ColumnUnit.Hectolitre));
                 a.TryAdd(stem + "_gal", (f.Name, ColumnUnit.UsGallon));
+                a.TryAdd(stem + "_kl", (f.Name, ColumnUnit.Kilolitre));
             }
             else if (f.Kind == FieldKind.Mass && f.Name.EndsWith("_kg", StringComparison.Ordinal))
             {

@@ -17,6 +17,9 @@ internal enum ColumnUnit
     Fahrenheit,
     Litre,
     Hectolitre,
+
+    /// <summary>Kilolitre (1000 L), as large tanks are sized ("5 kL").</summary>
+    Kilolitre,
     UsGallon,
     Kilogram,
     Gram,
@@ -54,6 +57,7 @@ internal static class ColumnUnits
         ColumnUnit.Fahrenheit => "°F",
         ColumnUnit.Litre => "L",
         ColumnUnit.Hectolitre => "hL",
+        ColumnUnit.Kilolitre => "kL",
         ColumnUnit.UsGallon => "US gal",
         ColumnUnit.Kilogram => "kg",
         ColumnUnit.Gram => "g",
@@ -80,6 +84,7 @@ internal static class ColumnUnits
         ColumnUnit.AlcoholGramsPerLitre => value / (10.0 * AlcoholContent.EthanolDensity20C),
         ColumnUnit.Fahrenheit => (value - 32.0) * 5.0 / 9.0,
         ColumnUnit.Hectolitre => value * 100.0,
+        ColumnUnit.Kilolitre => value * 1000.0,
         ColumnUnit.UsGallon => value * LitresPerUsGallon,
         ColumnUnit.Gram => value / 1000.0,
         ColumnUnit.Pound => value * KilogramsPerPound,

@@ -9,7 +9,7 @@ internal static partial class HeaderText
     // Words that only carry a unit; they are dropped before a header is matched against field synonyms.
     private static readonly HashSet<string> UnitWords =
     [
-        "pct", "percent", "v", "vol", "l", "hl", "gal", "gals", "gallon", "gallons", "kg", "kgs", "lb", "lbs", "g", "mg",
+        "pct", "percent", "v", "vol", "l", "hl", "kl", "kilolitre", "kilolitres", "kiloliter", "kiloliters", "gal", "gals", "gallon", "gallons", "kg", "kgs", "lb", "lbs", "g", "mg",
         "n", "gl", "mgl", "c", "f", "deg", "degc", "degf", "celsius", "fahrenheit", "in", "litre", "litres", "liter",
         "liters", "lt", "ltr", "hectolitre", "hectolitres", "hectoliter", "hectoliters", "kilogram", "kilograms", "grams",
         "pounds", "w", "ml", "per", "units", "unit", "u s", "us",
@@ -142,6 +142,11 @@ internal static partial class HeaderText
 
                 return Has("c") || Has("degc") || Has("celsius") || degreeLetter('c') ? ColumnUnit.Celsius : ColumnUnit.None;
             case FieldKind.Volume:
+                if (Has("kl") || Has("kilolitre") || Has("kilolitres") || Has("kiloliter") || Has("kiloliters"))
+                {
+                    return ColumnUnit.Kilolitre;
+                }
+
                 if (Has("hl") || Has("hectolitre") || Has("hectolitres") || Has("hectoliter") || Has("hectoliters"))
                 {
                     return ColumnUnit.Hectolitre;

@@ -44,6 +44,12 @@ internal sealed class RawSheet(string? name, List<object?[]> rows, bool decimalC
     /// </summary>
     public bool DotGroupingUnsettled { get; init; }
 
+    /// <summary>
+    /// True when a text file's fields are separated by commas and its numbers are written with a decimal point ("24.6")
+    /// and never with a decimal comma: a comma before groups of three digits ("1,250", quoted) then groups thousands.
+    /// </summary>
+    public bool CommaGroupsThousands { get; init; }
+
     /// <summary>True when the workbook hides the sheet (hidden or very hidden); such a sheet is not read.</summary>
     public bool Hidden { get; init; }
 

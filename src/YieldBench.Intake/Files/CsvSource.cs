@@ -113,7 +113,10 @@ internal static partial class CsvSource
 
         bool decimalComma = delimiter != ',' && rows.Take(500).Any(r => r.Any(c => c is string s && DecimalCommaNumber().IsMatch(s)));
         bool dotUnsettled = delimiter != ',' && !decimalComma && !rows.Take(500).Any(r => r.Any(c => c is string s && DecimalPointNumber().IsMatch(s)));
-        var sheet = new RawSheet(null, rows, decimalComma) { TooManyRows = tooMany, IsText = true, DotGroupingUnsettled = dotUnsettled };
+        // A comma file (as US and UK spreadsheets export) with decimal points and no decimal comma: "1,250" is 1250.
+        bool commaThousands = delimiter == ',' && rows.Take(500).Any(r => r.Any(c => c is string s && DecimalPointNumber().IsMatch(s)))
+            && !rows.Take(500).Any(r => r.Any(c => c is string s && DecimalCommaOtherThanThousands().IsMatch(s)));
+        var sheet = new RawSheet(null, rows, decimalComma) { TooManyRows = tooMany, IsText = true, DotGroupingUnsettled = dotUnsettled, CommaGroupsThousands = commaThousands };
         foreach (var (k, v) in badRows)
         {
             sheet.BadRows[k] = v;
@@ -298,6 +301,10 @@ internal static partial class CsvSource
 
     [GeneratedRegex(@"^\s*[-+]?[0-9]+,[0-9]+\s*$")]
     private static partial Regex DecimalCommaNumber();
+
+    /// <summary>A number with a decimal comma and other than three decimals ("24,3", "0,99"): the comma cannot group thousands.</summary>
+    [GeneratedRegex(@"^\s*[-+]?[0-9]*,([0-9]{1,2}|[0-9]{4,})\s*$")]
+    private static partial Regex DecimalCommaOtherThanThousands();
 
     /// <summary>A number with a decimal point and other than three decimals ("24.3", "0.99", "1.0950"): the dot is a decimal point.</summary>
     [GeneratedRegex(@"^\s*[-+]?[0-9]*\.([0-9]{1,2}|[0-9]{4,})\s*$")]

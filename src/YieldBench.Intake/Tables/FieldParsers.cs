@@ -259,15 +259,36 @@ internal static partial class FieldParsers
             alternative = dotted.Trim().Replace(".", "", StringComparison.Ordinal) + " or " + dotted.Trim();
         }
 
+        if (problem == CellProblem.AmbiguousNumber && CommaThousands(st, c, cell, alternative!, ref value))
+        {
+            problem = CellProblem.None;
+        }
+
         string label = Label(c.Field);
         if (problem == CellProblem.NotANumber && cell is string text && CellValues.SplitUnit(text) is var (number, unitText))
         {
             // "24.5 Bx", "1.4 g/L": the unit written in the cell is accepted only when it is the column's own unit.
             var inner = CellValues.Number(number, st.Ctx.Sheet.DecimalComma, out value, out alternative);
+            if (inner == CellProblem.AmbiguousNumber && CommaThousands(st, c, cell, alternative!, ref value))
+            {
+                inner = CellProblem.None;
+            }
+
             if (inner == CellProblem.None)
             {
                 if (CellUnitAgrees(c, unitText))
                 {
+                    return true;
+                }
+
+                if (!c.UnitStated && c.Field.Kind is FieldKind.Volume or FieldKind.Mass && NamedUnit(unitText) is { } own && KindOf(own) == c.Field.Kind)
+                {
+                    // "5 kL", "50 hL", "2000 gal" in a column whose header gives no unit: the cell says its unit,
+                    // which is no guess; converted to the column's unit and said once for the column (SheetReader).
+                    double inField = ColumnUnits.ToFieldUnit(value, own);
+                    value = inField / ColumnUnits.ToFieldUnit(1.0, c.Unit);
+                    c.CellUnitAt ??= (st.SheetRow, text.Trim(), inField);
+                    c.CellUnits++;
                     return true;
                 }
 
@@ -344,13 +365,21 @@ internal static partial class FieldParsers
                     : IntakeMessages.AmbiguousDotNumberUnsettled(label, parts[0], parts[1]), c.Field.Critical);
                 return false;
             default:
+                if (cell is string bound && Bound(bound, st.Ctx.Sheet.DecimalComma) is var (above, limitShown))
+                {
+                    // ">15", "< 3": the lab's value lies beyond its range, which is no measurement to compute with.
+                    st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.BoundNotValue(label, bound.Trim(), above, limitShown), c.Field.Critical);
+                    return false;
+                }
+
                 st.Problem(c, cell, IssueCodes.NotANumber, IntakeMessages.NotANumber(label, double.TryParse(c.Field.Example, System.Globalization.NumberStyles.Float, Inv, out _) ? c.Field.Example : "24.3"), c.Field.Critical);
                 return false;
         }
     }
 
     private static readonly HashSet<string> NotDetectedWords =
-        ["nd", "n d", "bdl", "lod", "loq", "not detected", "below detection", "below detection limit", "dry", "sec", "seco", "secco", "trocken"];
+        ["nd", "n d", "bdl", "lod", "loq", "not detected", "below detection", "below detection limit", "dry", "sec", "seco", "secco", "trocken",
+            "trace", "traces", "tr", "spur", "spuren", "traza", "trazas", "traccia", "tracce"];
 
     /// <summary>
     /// True for a residual sugar the lab gave only as below its limit: "&lt;1", "&lt; 0,5 g/L", "ND", "n.d.", "BDL",
@@ -378,28 +407,60 @@ internal static partial class FieldParsers
         return NotDetectedWords.Contains(HeaderText.Normalise(t));
     }
 
+    /// <summary>
+    /// In a file whose fields are separated by commas and whose decimals are written with a point, "1,250" (a comma
+    /// before groups of three digits) groups thousands: the thousands reading is taken, tallied for the column.
+    /// </summary>
+    private static bool CommaThousands(RowState st, BoundColumn c, object? cell, string alternative, ref double value)
+    {
+        if (!st.Ctx.Sheet.CommaGroupsThousands || cell is not string s || !s.Contains(',', StringComparison.Ordinal)
+            || !double.TryParse(alternative.Split(" or ")[0], NumberStyles.Float, Inv, out double thousands))
+        {
+            return false;
+        }
+
+        value = thousands;
+        c.ThousandsAt ??= (st.SheetRow, s.Trim(), thousands);
+        c.Thousands++;
+        return true;
+    }
+
+    /// <summary>The kind of quantity a volume or mass unit measures; None for other units.</summary>
+    private static FieldKind? KindOf(ColumnUnit unit) => unit switch
+    {
+        ColumnUnit.Litre or ColumnUnit.Hectolitre or ColumnUnit.Kilolitre or ColumnUnit.UsGallon => FieldKind.Volume,
+        ColumnUnit.Kilogram or ColumnUnit.Pound or ColumnUnit.Gram => FieldKind.Mass,
+        _ => null,
+    };
+
+    /// <summary>The unit a unit text written in a cell names ("kL", "gal", "lbs", "°Bx"), or null.</summary>
+    private static ColumnUnit? NamedUnit(string unitText)
+    {
+        string u = unitText.ToLowerInvariant().Replace("°", "", StringComparison.Ordinal).Replace("º", "", StringComparison.Ordinal)
+            .Replace(" ", "", StringComparison.Ordinal).Replace("é", "e", StringComparison.Ordinal).TrimEnd('.');
+        return u == "g" ? ColumnUnit.Gram : NamedScaleOrUnit(u);
+    }
+
+    /// <summary>A value written as a bound (">15", "≥ 16.5", "< 3"): whether it is a lower bound, and the limit's text; null otherwise.</summary>
+    private static (bool Above, string Limit)? Bound(string text, bool decimalComma)
+    {
+        string t = text.Trim();
+        if (t.Length < 2 || t[0] is not ('>' or '<' or '\u2265' or '\u2264'))
+        {
+            return null;
+        }
+
+        string rest = t[1..].TrimStart('=').Trim();
+        string number = CellValues.SplitUnit(rest) is var (n, _) ? n : rest;
+        return CellValues.Number(number, decimalComma, out _, out _) == CellProblem.None ? (t[0] is '>' or '\u2265', rest) : null;
+    }
+
     /// <summary>True when a unit written after a number in a cell names the unit the column is read in.</summary>
     internal static bool CellUnitAgrees(BoundColumn c, string unitText)
     {
         string u = unitText.ToLowerInvariant().Replace("°", "", StringComparison.Ordinal).Replace("º", "", StringComparison.Ordinal)
             .Replace(" ", "", StringComparison.Ordinal).Replace("é", "e", StringComparison.Ordinal).TrimEnd('.');
-        ColumnUnit? named = u switch
-        {
-            "bx" or "brix" => ColumnUnit.Brix,
-            "sg" => ColumnUnit.SpecificGravity,
-            "oe" or "oechsle" => ColumnUnit.Oechsle,
-            "kmw" or "babo" => ColumnUnit.Kmw,
-            "be" or "baume" => ColumnUnit.Baume,
-            "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
-            "c" => ColumnUnit.Celsius,
-            "f" => ColumnUnit.Fahrenheit,
-            "l" or "lt" or "ltr" or "litres" or "liters" => ColumnUnit.Litre,
-            "hl" => ColumnUnit.Hectolitre,
-            "gal" or "gals" or "gallons" => ColumnUnit.UsGallon,
-            "kg" => ColumnUnit.Kilogram,
-            "lb" or "lbs" => ColumnUnit.Pound,
-            _ => null,
-        };
+        ColumnUnit? named = NamedScaleOrUnit(u);
         bool gramsPerLitre = u is "g/l" or "gl" or "gpl";
         if (unitText.Trim() is "°" or "º")
         {
@@ -419,6 +480,26 @@ internal static partial class FieldParsers
             _ => named is not null && named == c.Unit,
         };
     }
+
+    /// <summary>The scale or unit a cell's unit text names once folded ("bx", "gal", "kl"), or null.</summary>
+    private static ColumnUnit? NamedScaleOrUnit(string u) => u switch
+    {
+        "bx" or "brix" => ColumnUnit.Brix,
+        "sg" => ColumnUnit.SpecificGravity,
+        "oe" or "oechsle" => ColumnUnit.Oechsle,
+        "kmw" or "babo" => ColumnUnit.Kmw,
+        "be" or "baume" => ColumnUnit.Baume,
+        "%" or "%v/v" or "%vol" or "vol" or "vol%" or "%abv" or "abv" or "%alc" or "v/v" => ColumnUnit.PercentVolume,
+        "c" => ColumnUnit.Celsius,
+        "f" => ColumnUnit.Fahrenheit,
+        "l" or "lt" or "ltr" or "litres" or "liters" => ColumnUnit.Litre,
+        "hl" => ColumnUnit.Hectolitre,
+        "kl" => ColumnUnit.Kilolitre,
+        "gal" or "gals" or "gallons" => ColumnUnit.UsGallon,
+        "kg" => ColumnUnit.Kilogram,
+        "lb" or "lbs" => ColumnUnit.Pound,
+        _ => null,
+    };
 
     internal static string Shown(double raw, ColumnUnit unit) =>
         ColumnUnits.Label(unit) is { Length: > 0 } u ? $"{IntakeMessages.Num(raw)} {u}" : IntakeMessages.Num(raw);

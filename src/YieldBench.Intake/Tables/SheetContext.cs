@@ -29,6 +29,18 @@ internal sealed class BoundColumn(int index, FieldDef field, string header, Colu
     /// <summary>The first sheet row of an SG column whose value was written the other way (1090 among 1.088s), its text and the SG read.</summary>
     public (int Row, string Text, double Sg)? OtherGravityFormAt { get; set; }
 
+    /// <summary>The first sheet row whose value was written with a unit of its own in a column whose header gives none ("5 kL"), its text and the value in the field's unit.</summary>
+    public (int Row, string Text, double InField)? CellUnitAt { get; set; }
+
+    /// <summary>How many values of the column were written with a unit of their own and converted.</summary>
+    public int CellUnits { get; set; }
+
+    /// <summary>The first sheet row whose value had a comma grouping thousands ("1,250" in a comma-separated file), its text and the number read.</summary>
+    public (int Row, string Text, double Value)? ThousandsAt { get; set; }
+
+    /// <summary>How many values of the column had a comma grouping thousands.</summary>
+    public int Thousands { get; set; }
+
     /// <summary>How many values of an SG column were written the other way.</summary>
     public int OtherGravityForms { get; set; }
 

@@ -94,6 +94,19 @@ internal static class SheetReader
         }
 
         GravityBothWays(sink, file, sheetName, columns);
+        foreach (var c in columns)
+        {
+            if (c.CellUnitAt is var (unitRow, unitText, inField))
+            {
+                sink.Warning(file, sheetName, unitRow, c.Header, unitText, IssueCodes.UnitInCellDiffers, IntakeMessages.CellUnitsConverted(c.CellUnits, unitText, unitRow, inField, c.Field.Unit));
+            }
+
+            if (c.ThousandsAt is var (groupRow, groupText, number))
+            {
+                sink.Warning(file, sheetName, groupRow, c.Header, groupText, IssueCodes.AmbiguousNumber, IntakeMessages.CommaThousands(c.Thousands, groupText, groupRow, number));
+            }
+        }
+
         foreach (var c in columns.Where(c => c.YearFromSeasonAt is not null))
         {
             var (row, text, read) = c.YearFromSeasonAt!.Value;
