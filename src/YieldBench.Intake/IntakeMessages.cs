@@ -423,6 +423,10 @@ public static class IntakeMessages
         $"{count} value(s) of the column are written with a comma before groups of three digits (the first, '{first}' at row {row}). The file separates its fields with commas and writes its decimals with a point, "
         + $"as spreadsheets set up for the US or UK export, so each such comma was read as a thousands separator ('{first}' = {Num(value)}). If one is a decimal comma, write the value with a point.";
 
+    internal static string VarietyHeading(string text) =>
+        $"The row holds only '{text}' over lots, and the table has no variety column: it was read as a heading naming the variety of the lots below it, up to the next such heading, and counted with the summary rows. "
+        + "If it names something else (a block, a grower), add a column for it.";
+
     internal static string GroupHeading(string text, string field) =>
         $"The row holds only '{text}', the {field} of lots below it: it was read as a heading over a group of lots, not as a lot, and counted with the summary rows. Nothing of it is used; each lot's own {field} cell is.";
 

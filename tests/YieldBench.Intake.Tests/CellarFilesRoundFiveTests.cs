@@ -196,4 +196,28 @@ public class CellarFilesRoundFiveTests
         Assert.Equal(10, set.Logs[0].Readings[^1].Timestamp.Month);
         Assert.DoesNotContain(set.Issues, i => i.Code is IssueCodes.NotADate || i.Severity == IssueSeverity.Error);
     }
+
+    [Fact]
+    public void A_variety_heading_over_its_lots_in_a_table_with_no_variety_column_names_their_variety()
+    {
+        // Given a lots table with no variety column, its lots grouped under rows "Syrah" and, after a blank row,
+        // "Pinot noir"; and a note typed under a lot
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Yeast,Brix,Alc\nSyrah,,,\n25-SY-01,QX-14,25.1,14.5\n25-SY-02,QX-31,24.8,14.2\n\nPinot noir,,,\n25-PN-01,QX-22,23.0,13.3\ntopped up weekly,,,\n25-PN-02,QX-22,23.4,13.6\n");
+
+        // When read
+        var set = folder.Read(lots);
+
+        // Then the headings name the variety of the lots below them (before, each was a lot with three missing-value
+        // errors), the note stays a note row, and every row balances
+        Assert.Equal(["Syrah", "Syrah", "Pinot noir", "Pinot noir"], set.Lots.Select(l => l.Variety));
+        var headings = set.Issues.Where(i => i.Code == IssueCodes.GroupHeading).ToList();
+        Assert.Equal([(2, "Syrah"), (6, "Pinot noir")], headings.Select(i => (i.Row!.Value, i.Value!)));
+        Assert.Equal("The row holds only 'Syrah' over lots, and the table has no variety column: it was read as a heading naming the variety of the lots below it, up to the next such heading, and counted with the summary rows. "
+            + "If it names something else (a block, a grower), add a column for it.", headings[0].Message);
+        Assert.Single(set.Issues, i => i.Code == IssueCodes.NoteRowSkipped && i.Row == 8);
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var account = Assert.Single(set.Accounts);
+        Assert.Equal((8, 4, 1, 1, 2), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped, account.SummaryRowsSkipped));
+    }
 }

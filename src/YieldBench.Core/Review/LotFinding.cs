@@ -92,7 +92,7 @@ public static class LotFindings
             Strain = lot.Lot.Strain,
             Severity = all.Max(f => f.Severity),
             Codes = codes,
-            Flags = codes.Select(ReviewTexts.FlagName).ToArray(),
+            Flags = codes.Select(code => ReviewTexts.FlagName(all.First(f => f.Code == code))).ToArray(),
             Seen = Seen(lot, symptoms, explanations, kinetics, unit),
             Explanation = lead is null ? SymptomExplanation(low, symptoms.FirstOrDefault()?.ReferenceGroup.Contains("(pooled", StringComparison.Ordinal) == true) : Explain(lead, lot),
             Otherwise = second is null ? null : Explain(second, lot),
@@ -114,7 +114,7 @@ public static class LotFindings
         double abv = lot.Lot.FinalAlcohol.PercentVolume;
         if (symptoms.FirstOrDefault(f => f.Code == FlagCodes.OffStrainLine) is { } line)
         {
-            parts.Add(Invariant($"made {abv:0.00} % v/v from {lot.EffectiveStartingBrix:0.0} °Brix, {Math.Abs(abv - line.ReferenceMedian):0.00} % v/v {(abv < line.ReferenceMedian ? "less" : "more")} than {(line.ReferenceGroup.StartsWith("strain ", StringComparison.Ordinal) ? "its strain's line" : "the line of all finished lots")} gives ({line.ReferenceMedian:0.00} % v/v)"));
+            parts.Add(Invariant($"made {abv:0.00} % v/v from {lot.EffectiveStartingBrix:0.0} °Brix, {Math.Abs(abv - line.ReferenceMedian):0.00} % v/v {(abv < line.ReferenceMedian ? "less" : "more")} than {(line.AgainstAllLots ? "the line of all finished lots" : "its strain's line")} gives ({line.ReferenceMedian:0.00} % v/v)"));
         }
         else if (symptoms.FirstOrDefault() is { } s)
         {
@@ -180,7 +180,7 @@ public static class LotFindings
     {
         FlagCodes.AboveTheoreticalYield => "Sugar that was not recorded (chaptalization or blending), or a starting sugar or alcohol reading that is wrong: the recorded sugar cannot make this much alcohol.",
         FlagCodes.PossibleUnrecordedWater => Invariant($"An unrecorded water addition (add-back) of {f.Suggestion} would explain the low alcohol."),
-        FlagCodes.PossibleTransposedDigits => Invariant($"A starting sugar written with two digits swapped: {f.Recorded} was recorded; {f.Suggestion} would put the lot on its strain's line."),
+        FlagCodes.PossibleTransposedDigits => Invariant($"A starting sugar written with two digits swapped: {f.Recorded} was recorded; {f.Suggestion} would put the lot on {(f.AgainstAllLots ? "the line of all finished lots" : "its strain's line")}."),
         FlagCodes.ImplausibleFactor => "A wrong starting sugar or alcohol reading: no complete fermentation of grape must gives this alcohol per °Brix.",
         FlagCodes.PossibleStrainMixUp => Invariant($"The wrong strain in the records: the lot converts like {f.Suggestion}."),
         FlagCodes.NotDry => "The lot has not finished: its factor uses the sugar actually fermented.",

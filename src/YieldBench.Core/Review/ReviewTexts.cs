@@ -74,6 +74,30 @@ public static class ReviewTexts
         _ => code,
     };
 
+    /// <summary>
+    /// A flag in plain words, saying what the lot was really compared with: a lot whose strain had too few lots for a
+    /// reference of its own was judged against all lots, and its strain-relative flag says so ("alcohol off the line of
+    /// all finished lots for its sugar", not "... off its strain's line ..."). Other flags read as <see cref="FlagName(string)"/>.
+    /// </summary>
+    public static string FlagName(LotFlag flag)
+    {
+        ArgumentNullException.ThrowIfNull(flag);
+        if (!flag.AgainstAllLots)
+        {
+            return FlagName(flag.Code);
+        }
+
+        return flag.Code switch
+        {
+            FlagCodes.HighFactor => "high factor against all lots (its strain has too few)",
+            FlagCodes.LowFactor => "low factor against all lots (its strain has too few)",
+            FlagCodes.OutsideTukeyFence => "factor outside the usual range of all lots (its strain has too few)",
+            FlagCodes.FarOutsideTukeyFence => "factor far outside the usual range of all lots (its strain has too few)",
+            FlagCodes.OffStrainLine => "alcohol off the line of all finished lots for its sugar (its strain has too few)",
+            _ => FlagName(flag.Code),
+        };
+    }
+
     /// <summary>A p-value as reports print it: four decimals, or "&lt; 0.0001" below that (never "0.0000").</summary>
     public static string P(double p) =>
         double.IsNaN(p) ? "n/a" : p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", System.Globalization.CultureInfo.InvariantCulture);

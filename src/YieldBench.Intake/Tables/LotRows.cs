@@ -202,7 +202,7 @@ internal static class LotRows
                 FinalAlcohol = AlcoholContent.FromPercentVolume(abv.Value),
                 Vessel = TextField(st, "vessel"),
                 VesselCapacityL = NumberField(st, "vessel_capacity_l"),
-                Variety = TextField(st, "variety"),
+                Variety = TextField(st, "variety") ?? st.Ctx.HeadingVariety,
                 Block = TextField(st, "block"),
                 Colour = ColourField(st),
                 Additions = new Additions(NumberField(st, "must_volume_l"), NumberField(st, "water_added_l"), NumberField(st, "sugar_added_kg")),

@@ -72,6 +72,16 @@ internal static class RowAccounting
                 continue;
             }
 
+            if (plan.NotesAreRows && VarietyHeading(ctx, r) is { } variety)
+            {
+                // "Syrah" over its lots in a table with no variety column: the variety of the lots below it, up to the
+                // next such heading; structure, not data.
+                summary++;
+                ctx.HeadingVariety = variety;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, null, variety, IssueCodes.GroupHeading, IntakeMessages.VarietyHeading(variety));
+                continue;
+            }
+
             if (plan.NotesAreRows && NoteText(row) is { } note)
             {
                 reported++;
@@ -207,6 +217,37 @@ internal static class RowAccounting
         }
 
         return null;
+    }
+
+    /// <summary>Most words of a heading naming a variety ("Cabernet Sauvignon", "Pinot noir", "Grenache Noir Vieilles").</summary>
+    private const int MaxVarietyHeadingWords = 3;
+
+    /// <summary>
+    /// In a lots table with no variety column, a row whose only content is a name — at most three words, no digit —
+    /// standing at the top of the data or after a blank row, with a lot right under it (blank rows aside), as a cellar
+    /// book heads each variety's lots ("Syrah", then its lots): the name; null otherwise. A note between lots follows
+    /// a lot, not a blank row.
+    /// </summary>
+    private static string? VarietyHeading(SheetContext ctx, int r)
+    {
+        if (ctx.Column("variety") is not null || ctx.LotColumn is not { } lotCol || NoteText(ctx.Sheet.Rows[r], minWords: 1) is not { } text
+            || text.Any(char.IsDigit) || text.Split(' ', StringSplitOptions.RemoveEmptyEntries).Length > MaxVarietyHeadingWords
+            || (r > ctx.FirstData && !AllBlank(ctx.Sheet.Rows[r - 1])))
+        {
+            return null;
+        }
+
+        int next = r + 1;
+        while (next <= ctx.LastRow && AllBlank(ctx.Sheet.Rows[next]))
+        {
+            next++;
+        }
+
+        // The row below is a lot: its lot cell and at least one other cell are filled.
+        return next <= ctx.LastRow && !CellValues.IsBlank(ctx.Sheet.Cell(next, lotCol.Index))
+            && ctx.Sheet.Rows[next].Count(c => !CellValues.IsBlank(c)) >= 2
+            ? TextSettling.Settle(text, multiline: false, out _)
+            : null;
     }
 
     /// <summary>A row whose only content is one text of several words (a note between lots), or null.</summary>

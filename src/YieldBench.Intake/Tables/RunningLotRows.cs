@@ -49,7 +49,7 @@ internal static class RunningLotRows
             StartingSugarScale = ColumnUnits.Scale(startScale),
             Vessel = TextField(st, "vessel"),
             VesselCapacityL = capacity,
-            Variety = TextField(st, "variety"),
+            Variety = TextField(st, "variety") ?? st.Ctx.HeadingVariety,
             Colour = colour,
             Additions = additions,
             YanMgL = yan,

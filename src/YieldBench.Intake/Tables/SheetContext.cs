@@ -110,6 +110,9 @@ internal sealed record SheetContext(
     /// </summary>
     public HashSet<int>? StructureRows { get; set; }
 
+    /// <summary>The variety named by the last heading row read over a group of lots in a table with no variety column ("Syrah").</summary>
+    public string? HeadingVariety { get; set; }
+
     /// <summary>The season named by the last season heading row read ("Vintage 2023"), for the lots below it.</summary>
     public int? HeadingSeason { get; set; }
 

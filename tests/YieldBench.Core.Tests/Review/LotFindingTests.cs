@@ -21,7 +21,7 @@ public sealed class LotFindingTests
         },
         SugarModel.Default);
 
-    private static LotFlag Flag(string code, FlagSeverity severity, double value = 0.548, double reference = 0.612, string? suggestion = null, string? recorded = null) => new()
+    private static LotFlag Flag(string code, FlagSeverity severity, double value = 0.548, double reference = 0.612, string? suggestion = null, string? recorded = null, string group = "strain XR-31") => new()
     {
         LotKey = Lot.Lot.Key,
         LotId = Lot.Lot.LotId,
@@ -31,7 +31,7 @@ public sealed class LotFindingTests
         Severity = severity,
         Measure = "abv_per_brix",
         Value = value,
-        ReferenceGroup = "strain XR-31",
+        ReferenceGroup = group,
         ReferenceMedian = reference,
         ReferenceScale = 0.01,
         Reason = code,
@@ -39,6 +39,37 @@ public sealed class LotFindingTests
         Suggestion = suggestion,
         Recorded = recorded,
     };
+
+    [Fact]
+    public void A_lot_judged_against_all_lots_is_not_said_to_be_off_its_strains_line()
+    {
+        // Given a lot of a strain with too few lots, judged against the pooled line and the pooled factors, with a
+        // transposition that would put it on the pooled line
+        const string line = "all finished lots (pooled line)";
+        var flags = new[]
+        {
+            Flag(FlagCodes.OffStrainLine, FlagSeverity.Check, value: 14.96, reference: 16.82, group: line),
+            Flag(FlagCodes.LowFactor, FlagSeverity.Check, group: "all lots (pooled)"),
+            Flag(FlagCodes.PossibleTransposedDigits, FlagSeverity.LikelyError, suggestion: "23.7 °Brix", recorded: "32.7 °Brix", group: line),
+        };
+
+        // When merged
+        var finding = LotFindings.Of(Lot, flags, [])!;
+
+        // Then its flags and its words name what it was compared with: all lots, never its strain
+        Assert.Equal(
+        [
+            "starting sugar may have two digits swapped",
+            "alcohol off the line of all finished lots for its sugar (its strain has too few)",
+            "low factor against all lots (its strain has too few)",
+        ], finding.Flags);
+        Assert.Equal("Made 14.96 % v/v from 27.3 °Brix, 1.86 % v/v less than the line of all finished lots gives (16.82 % v/v).", finding.Seen);
+        Assert.Equal("A starting sugar written with two digits swapped: 32.7 °Brix was recorded; 23.7 °Brix would put the lot on the line of all finished lots.", finding.Explanation);
+        Assert.DoesNotContain("strain", string.Join(" ", finding.Flags.Skip(1).Select(f => f.Replace("its strain has too few", string.Empty, StringComparison.Ordinal))), StringComparison.Ordinal);
+
+        // And the same flags judged against the strain keep the strain's words
+        Assert.Equal("alcohol off its strain's line for its sugar", ReviewTexts.FlagName(Flag(FlagCodes.OffStrainLine, FlagSeverity.Check)));
+    }
 
     [Fact]
     public void Unrecorded_water_leads_and_a_transposition_is_named_only_as_less_likely()

@@ -281,6 +281,12 @@ public sealed record LotFlag
     /// <summary>What it was judged against, e.g. "strain Y-17", "all lots (pooled)".</summary>
     public required string ReferenceGroup { get; init; }
 
+    /// <summary>
+    /// True when the lot was judged against all lots (the pooled reference or the pooled line) because its strain had
+    /// too few lots for a reference of its own.
+    /// </summary>
+    public bool AgainstAllLots => ReferenceGroup.Contains("(pooled", StringComparison.Ordinal);
+
     /// <summary>Median (or line value, or threshold) of the reference.</summary>
     public required double ReferenceMedian { get; init; }
 
