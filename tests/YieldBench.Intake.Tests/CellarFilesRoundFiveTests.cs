@@ -220,4 +220,44 @@ public class CellarFilesRoundFiveTests
         var account = Assert.Single(set.Accounts);
         Assert.Equal((8, 4, 1, 1, 2), (account.RowsRead, account.LotsUsed, account.RowsReported, account.BlankRowsSkipped, account.SummaryRowsSkipped));
     }
+
+    [Fact]
+    public void Formula_errors_in_a_legacy_xls_are_error_cells_as_in_xlsx_not_empty_values()
+    {
+        // Given the committed Excel 97–2003 workbook (Corpus/README.md says how it was made): on its second sheet, lot
+        // 25-X1's residual sugar is #DIV/0! and 25-X2's pH #N/A
+        using var folder = new TestFolder();
+        File.Copy(Path.Combine(AppContext.BaseDirectory, "Corpus", "formula-errors-2025.xls"), folder.PathOf("formula-errors-2025.xls"));
+
+        // When it is read
+        var set = folder.Read("formula-errors-2025.xls");
+
+        // Then the residual sugar error leaves 25-X1 out (before, it was read as empty: 0 g/L, a dry wine) and the pH
+        // error is a warning leaving only the pH empty, each named with its sheet, row, column and error text
+        Assert.Equal(["25-X2", "25-X3"], set.Lots.Select(l => l.LotId));
+        var errors = set.Issues.Where(i => i.Code == IssueCodes.ErrorCell).ToList();
+        Assert.Equal([("Lots 2025", 2, "RS (g/L)", "#DIV/0!", IssueSeverity.Error), ("Lots 2025", 3, "pH", "#N/A", IssueSeverity.Warning)],
+            errors.Select(i => (i.Sheet!, i.Row!.Value, i.Column!, i.Value!, i.Severity)));
+        Assert.Null(set.Lots[0].Ph);
+        Assert.Equal(3.4, set.Lots[1].Ph);
+    }
+
+    [Fact]
+    public void A_compound_file_that_cannot_be_followed_gives_no_error_cells_and_no_exception()
+    {
+        // Given the compound-file header alone, one with a sector size no file uses, and a workbook whose FAT points
+        // past its end
+        byte[] header = new byte[512];
+        WorkbookSource.CompoundFileMagic.CopyTo(header, 0);
+        byte[] oddSectors = (byte[])header.Clone();
+        oddSectors[0x1E] = 10;
+        byte[] valid = File.ReadAllBytes(Path.Combine(AppContext.BaseDirectory, "Corpus", "formula-errors-2025.xls"));
+        byte[] cut = valid[..1024];
+
+        // When the workbook stream is looked for, then nothing is found and nothing throws
+        Assert.Null(XlsErrorCells.WorkbookStream(oddSectors));
+        Assert.Null(XlsErrorCells.WorkbookStream(header));
+        Assert.Null(XlsErrorCells.WorkbookStream(cut));
+        Assert.NotNull(XlsErrorCells.WorkbookStream(valid));
+    }
 }

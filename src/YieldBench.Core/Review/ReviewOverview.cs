@@ -81,6 +81,35 @@ public sealed record StrainAdvice(string Strain, string Candidate, double Mae, i
     /// <summary>The lots to look at, one entry each: most serious first, then by lot key.</summary>
     public IReadOnlyList<LotReview> FlaggedLots { get; init; } = [];
 
+    /// <summary>
+    /// The most lots to look at the printed meeting page lists (the first of <see cref="FlaggedLots"/>, most serious
+    /// first): about four printed pages of the table; the rest are counted and pointed to (<see cref="NotPrintedSentence"/>).
+    /// A cellar of 10,000 lots has about 190 lots to look at, which printed in full took some 30 pages.
+    /// </summary>
+    public const int PrintedLotsUpTo = 25;
+
+    /// <summary>How many of <see cref="FlaggedLots"/> the printed page lists.</summary>
+    public int PrintedLots => Math.Min(FlaggedLots.Count, PrintedLotsUpTo);
+
+    /// <summary>
+    /// What the printed page says of the lots it leaves out, counted by their worst severity and pointed to; null when
+    /// it lists them all.
+    /// </summary>
+    public string? NotPrintedSentence
+    {
+        get
+        {
+            if (FlaggedLots.Count <= PrintedLots)
+            {
+                return null;
+            }
+
+            var rest = FlaggedLots.Skip(PrintedLots).GroupBy(l => l.WorstSeverity ?? FlagSeverity.Note).OrderByDescending(g => g.Key)
+                .Select(g => Invariant($"{g.Count():N0} {ReviewTexts.Severity(g.Key)}"));
+            return Invariant($"Printed here: the {PrintedLots} most serious of the {FlaggedLots.Count:N0} lots to look at. The other {FlaggedLots.Count - PrintedLots:N0} ({string.Join(", ", rest)}) are on this page on screen, in the Follow-up sheet of report.xlsx and in data/follow-up.csv.");
+        }
+    }
+
     /// <summary>Builds the overview from the rest of the review (pure).</summary>
     internal static ReviewOverview Build(
         SeasonSet inputs, HouseFactor.HouseFactorSettings settings, StrainReview strains, HouseFactor.HouseFactorReview h, Kinetics.KineticsReview? kineticsReview, IReadOnlyList<LotReview> lotReviews, ReviewFigures figures)

@@ -71,6 +71,12 @@ internal static class WorkbookSource
                 return SourceFiles.Refused;
             }
         }
+        else if (isCompound)
+        {
+            // An Excel 97–2003 workbook: the reader gives its formula errors as empty cells; a pass over its records
+            // finds them, so an #DIV/0! residual sugar is not read as dry.
+            unreadCells = XlsErrorCells.Find(fullPath);
+        }
 
         var sheets = new List<RawSheet>();
         try

@@ -71,13 +71,15 @@ button.sort { font: inherit; font-weight: inherit; color: inherit; background: n
 button.sort::after { content: " \2195"; color: {{Muted}}; }
 th[aria-sort="ascending"] button.sort::after { content: " \25B2"; }
 th[aria-sort="descending"] button.sort::after { content: " \25BC"; }
+.print-only { display: none; }
 @page { margin: 13mm 12mm; }
 @media print {
+  tr.unprinted { display: none; }
+  .print-only { display: block; font-weight: 700; }
   html { font-size: 9.5pt; }
   .masthead, main, footer { max-width: none; padding-left: 0; padding-right: 0; }
   nav, .filter { display: none; }
   section { border-bottom: 0; }
-  section#strains, section#lots, section#ferments, section#inputs { break-before: page; padding-top: 0; }
   section#methods, section#cautions { break-inside: avoid; }
   figure, svg, tr, caption, .lead { break-inside: avoid; }
   h2, h3, caption { break-after: avoid; }
@@ -85,6 +87,7 @@ th[aria-sort="descending"] button.sort::after { content: " \25BC"; }
   .scroll { overflow: visible; }
   a { color: {{Ink}}; text-decoration: none; }
   svg.chart { max-width: 100%; }
+  section#strains svg.chart { max-height: 120mm; width: auto; margin: 0 auto; }
   table.lots { font-size: 0.86rem; table-layout: fixed; }
   table.lots th, table.lots td { padding: 3px 5px; }
   table.lots td { min-width: 0; }

@@ -284,11 +284,13 @@ public static class HtmlReport
         page.Append($"<p class=\"lead\">{Count(o.FlaggedLots.Count, "lot")} to look at ({Escape(counts)}), one row each, most serious first. The Follow-up sheet of report.xlsx and data/flags.csv hold every flag.</p>\n");
         page.Append("<div class=\"scroll\"><table class=\"lots\" id=\"lots-table\" data-sortable=\"true\">\n<caption>Lots to look at</caption>\n<thead><tr>");
         page.Append("<th scope=\"col\">Lot</th><th scope=\"col\">Strain</th><th scope=\"col\">Severity</th><th scope=\"col\">What was seen</th><th scope=\"col\">Most likely explanation</th><th scope=\"col\">Follow-up</th></tr></thead>\n<tbody>\n");
-        foreach (var lot in o.FlaggedLots)
+        for (int i = 0; i < o.FlaggedLots.Count; i++)
         {
-            // The review's one line for the lot: what was seen, the most likely explanation, one follow-up.
+            // The review's one line for the lot: what was seen, the most likely explanation, one follow-up. Past the
+            // overview's printed count a row shows on screen only (the print style hides it; a sentence counts them).
+            var lot = o.FlaggedLots[i];
             var f = lot.Finding!;
-            page.Append($"<tr><th scope=\"row\" data-key=\"{Escape(f.Key.ToString())}\">{Escape(f.Key.ToString())}</th>");
+            page.Append($"<tr{(i >= o.PrintedLots ? " class=\"unprinted\"" : string.Empty)}><th scope=\"row\" data-key=\"{Escape(f.Key.ToString())}\">{Escape(f.Key.ToString())}</th>");
             page.Append($"<td>{Escape(f.Strain)}</td>");
             page.Append($"<td data-key=\"{Count((int)f.Severity)}\"><span class=\"severity {SeverityClass(f.Severity)}\">{Escape(ReviewTexts.Severity(f.Severity))}</span></td>");
             page.Append($"<td>{Escape(f.Seen)}<span class=\"aside\">Flags: {Escape(string.Join(", ", f.Flags))}</span></td>");
@@ -307,6 +309,11 @@ public static class HtmlReport
         }
 
         page.Append("</tbody></table></div>\n");
+        if (o.NotPrintedSentence is { } notPrinted)
+        {
+            page.Append($"<p class=\"print-only\">{Escape(notPrinted)}</p>\n");
+        }
+
         Close(page);
     }
 

@@ -139,6 +139,48 @@ public sealed partial class CellarSizeTests
         Assert.Matches(@"^LG-\d\d(, LG-\d\d)+ and LG-\d\d make the same alcohol from the same sugar within the noise, each against the next \(differences of \d\.\d\d % v/v or less\)\.$", runs[0]);
     }
 
+    [Fact]
+    public void A_cellar_with_many_lots_to_look_at_prints_the_most_serious_and_counts_the_rest()
+    {
+        // Given 240 lots of which every fourth was left with 15 g/L of sugar (60 lots to look at, more than the 25 printed)
+        var lots = Enumerable.Range(0, 240).Select(i => new Core.Lots.Lot
+        {
+            LotId = $"M{i + 1:000}",
+            Season = 2023 + (i % 3),
+            Strain = $"MN-{(i % 4) + 1}",
+            StartingSugar = Core.Units.SugarReading.FromBrix(22 + (0.1 * (i % 30))),
+            FinalAlcohol = Core.Units.AlcoholContent.FromPercentVolume(Math.Round(0.59 * (22 + (0.1 * (i % 30))), 2)),
+            ResidualSugarGl = i % 4 == 3 ? 15 : 1.5,
+            Source = new Core.Lots.SourceRef("lots.csv", null, i + 2),
+        }).ToList();
+        var review = ReviewRunner.Run(new Core.Lots.SeasonSet { Lots = lots, Files = [new Core.Lots.InputFile("lots.csv", new string('e', 64), 9000)] }, new ReviewSettings(), "9.9.9-test");
+        var flagged = review.Overview.FlaggedLots;
+        Assert.True(flagged.Count > ReviewOverview.PrintedLotsUpTo, $"{flagged.Count} lots to look at");
+
+        // When the page is written
+        string page = HtmlReport.Render(review);
+        string table = Regex.Match(page, "<table class=\"lots\".*?</table>", RegexOptions.Singleline).Value;
+        var rows = Regex.Matches(table, "<tr(?: class=\"unprinted\")?><th scope=\"row\"").Select(m => m.Value.Contains("unprinted", StringComparison.Ordinal)).ToArray();
+
+        // Then the screen table holds every lot, the first 25 (most serious) print and the rest are hidden in print and
+        // counted in a sentence that shows only in print and points to the workbook and the data file
+        Assert.Equal(flagged.Count, rows.Length);
+        Assert.Equal(25, rows.Count(u => !u));
+        Assert.All(rows.Take(25), u => Assert.False(u));
+        Assert.Contains(".print-only { display: none; }", page, StringComparison.Ordinal);
+        Assert.Contains("tr.unprinted { display: none; }", page, StringComparison.Ordinal);
+        Assert.Contains($"<p class=\"print-only\">Printed here: the 25 most serious of the {flagged.Count} lots to look at. The other {flagged.Count - 25} (", page, StringComparison.Ordinal);
+        Assert.Contains(") are on this page on screen, in the Follow-up sheet of report.xlsx and in data/follow-up.csv.</p>", page, StringComparison.Ordinal);
+
+        // And no section is forced onto a new page (a short section left most of a page empty), while charts and rows
+        // are kept whole
+        Assert.DoesNotContain("break-before: page", page, StringComparison.Ordinal);
+        Assert.Contains("figure, svg, tr, caption, .lead { break-inside: avoid; }", page, StringComparison.Ordinal);
+
+        // And a cellar with few lots to look at prints them all, with no such sentence
+        Assert.DoesNotContain("print-only\">", HtmlReport.Render(Small.Value), StringComparison.Ordinal);
+    }
+
     [GeneratedRegex(@"(?<![\d.,])1 (lots|files|rows|fermentation logs|reasons)\b")]
     private static partial Regex OneWithPlural();
 }
