@@ -411,6 +411,12 @@ public static class IntakeMessages
             + "If a heading names a tank rather than the lot, write the lot's id in it; or add a Lot column.";
     }
 
+    internal static string AdditionsApart(string lotHeader, string whatHeader, string amountHeader, List<string> lots, List<string> others) =>
+        $"The sheet keeps additions apart from the lots, a row per addition ({lotHeader}, {whatHeader}, {amountHeader}); YieldBench reads a lot's water and sugar additions from columns of the lots table "
+        + "('Water added (L)', 'Sugar added (kg)', with the must volume before them), so none of its rows was read and the lots are reviewed on their measured sugar. "
+        + (lots.Count > 0 ? $"Write each lot's total in those columns: {string.Join("; ", lots)}. " : "No water or sugar with a unit (120 L, 25 kg) was found in it. ")
+        + (others.Count > 0 ? $"Other additions ({string.Join(", ", others)}) do not enter the review." : "");
+
     internal static string BoundNotValue(string field, string text, bool above, string limit) =>
         $"{field} is written as a bound ('{text}'): the value lies {(above ? "above" : "below")} {limit}, not at it, so it is no measurement to compute with. "
         + (above ? "Enter the lab's number (a value beyond its range is measured again after dilution)." : "Enter the lab's number.");

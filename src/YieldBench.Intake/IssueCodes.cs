@@ -211,6 +211,9 @@ public static class IssueCodes
     /// <summary><c>note-in-cell</c>.</summary>
     public const string NoteInCell = "note-in-cell";
 
+    /// <summary><c>additions-apart</c>.</summary>
+    public const string AdditionsApart = "additions-apart";
+
     /// <summary><c>log-blocks</c>.</summary>
     public const string LogBlocks = "log-blocks";
 

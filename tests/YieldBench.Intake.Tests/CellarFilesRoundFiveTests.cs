@@ -260,4 +260,30 @@ public class CellarFilesRoundFiveTests
         Assert.Null(XlsErrorCells.WorkbookStream(cut));
         Assert.NotNull(XlsErrorCells.WorkbookStream(valid));
     }
+
+    [Fact]
+    public void Additions_kept_on_a_sheet_of_their_own_are_one_error_naming_each_lots_water_and_sugar()
+    {
+        // Given a lots file and an additions file, a row per addition: water in litres and gallons, sucrose in kg and
+        // pounds, and a nutrient
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", "Lot,Vintage,Yeast,Must volume (L),Brix,Alc\n25-A1,2025,QX-14,4000,26.5,14.6\n25-A2,2025,QX-14,3000,20.5,12.9\n");
+        var additions = folder.Text("additions-2025.csv",
+            "Date,Lot,Addition,Amount\n2025-10-03,25-A1,water,120 L\n2025-10-03,25-A1,Water,10 gal\n2025-10-03,25-A2,sucrose,25 kg\n2025-10-04,25-A2,Sucrose,11 lb\n2025-10-04,25-A2,DAP,30 g/hL\n");
+
+        // When read
+        var set = folder.Read(lots, additions);
+
+        // Then the additions sheet is one error (before: three missing-column errors, one saying the lots might still
+        // be fermenting) naming each lot's total — 120 L + 10 US gal = 157.9 L; 25 kg + 11 lb = 29.99 kg — and the
+        // additions that do not enter the review; its rows are left out and the lots are read as before
+        var said = Assert.Single(set.Issues, i => i.File == additions && i.Severity == IssueSeverity.Error);
+        Assert.Equal((IssueCodes.AdditionsApart, 1, "Addition"), (said.Code, said.Row, said.Column));
+        Assert.Equal("The sheet keeps additions apart from the lots, a row per addition (Lot, Addition, Amount); YieldBench reads a lot's water and sugar additions from columns of the lots table "
+            + "('Water added (L)', 'Sugar added (kg)', with the must volume before them), so none of its rows was read and the lots are reviewed on their measured sugar. "
+            + "Write each lot's total in those columns: 25-A1: water 157.9 L; 25-A2: sugar 29.99 kg. Other additions (DAP) do not enter the review.", said.Message);
+        Assert.Equal(2, set.Lots.Count);
+        var account = Assert.Single(set.Accounts, a => a.File == additions);
+        Assert.Equal((5, 0, 5), (account.RowsRead, account.LotsUsed, account.RowsReported));
+    }
 }

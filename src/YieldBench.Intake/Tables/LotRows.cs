@@ -19,6 +19,15 @@ internal static class LotRows
             RunningLotRows.ReportFinalColumns(ctx);
         }
 
+        if (missing.Contains("strain") && missing.Contains("starting_sugar") && ctx.Column("final_abv") is null && ctx.LotColumn is not null
+            && AdditionsApart.Columns(ctx) is var (what, amount))
+        {
+            // Additions kept apart, a row per addition (date, lot, what, amount): one error saying what to write where.
+            AdditionsApart.Report(ctx, what, amount);
+            ReadRows(ctx, usable: false);
+            return;
+        }
+
         bool labApart = !running && missing.Contains("strain") && missing.Contains("starting_sugar") && ctx.Column("final_abv") is not null;
         if (labApart && ctx.LotColumn is not null)
         {
