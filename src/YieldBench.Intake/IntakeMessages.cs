@@ -421,9 +421,9 @@ public static class IntakeMessages
         $"{field} is written as a bound ('{text}'): the value lies {(above ? "above" : "below")} {limit}, not at it, so it is no measurement to compute with. "
         + (above ? "Enter the lab's number (a value beyond its range is measured again after dilution)." : "Enter the lab's number.");
 
-    internal static string CellUnitsConverted(int count, string first, int row, double inField, string fieldUnit) =>
+    internal static string CellUnitsConverted(int count, string first, int row, double inField, string fieldUnit, string columnUnit) =>
         $"{count} value(s) of the column, whose header gives no unit, are written with a unit of their own (the first, '{first}' at row {row}, = {Num(Math.Round(inField, 2))} {fieldUnit}); "
-        + $"each was converted from the unit it states to {fieldUnit}. Values written without a unit were read in {fieldUnit}. State the unit in the header, or write every value in one unit.";
+        + $"each was converted from the unit it states to {fieldUnit}. Values written without a unit were read in {columnUnit}. State the unit in the header, or write every value in one unit.";
 
     internal static string CommaThousands(int count, string first, int row, double value) =>
         $"{count} value(s) of the column are written with a comma before groups of three digits (the first, '{first}' at row {row}). The file separates its fields with commas and writes its decimals with a point, "

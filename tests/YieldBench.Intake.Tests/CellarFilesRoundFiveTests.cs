@@ -286,4 +286,28 @@ public class CellarFilesRoundFiveTests
         var account = Assert.Single(set.Accounts, a => a.File == additions);
         Assert.Equal((5, 0, 5), (account.RowsRead, account.LotsUsed, account.RowsReported));
     }
+
+    [Fact]
+    public void Temperatures_written_with_their_unit_under_a_header_without_one_are_converted()
+    {
+        // Given a log headed "Temp" whose cells say their scale ("62°F", "75 F"), and one of plain °F numbers beside a
+        // reading written "18°C"
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", Lots);
+        var f = folder.Text("25-QR-01.csv", "When,Brix,Temp\n5-Oct 08:00,24.6,62°F\n6-Oct 08:00,22.0,75 F\n");
+        var mixed = folder.Text("25-QR-02.csv", "When,Brix,Temp\n6-Oct 08:00,25.8,60\n7-Oct 08:00,24.0,66\n8-Oct 08:00,20.1,18°C\n");
+
+        // When read
+        var set = folder.Read(lots, f, mixed);
+
+        // Then each reading keeps its temperature, converted from the unit its cell states, (62 − 32) × 5/9 = 16.67 °C
+        // (before, every such reading was refused as unit-in-cell-differs), and the plain numbers are read as °F
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal([16.666667, 23.888889], logs["25-QR-01"].Readings.Select(r => Math.Round(r.TemperatureC!.Value, 6)));
+        Assert.Equal([15.555556, 18.888889, 18.0], logs["25-QR-02"].Readings.Select(r => Math.Round(r.TemperatureC!.Value, 6)));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var said = Assert.Single(set.Issues, i => i.File == mixed && i.Code == IssueCodes.UnitInCellDiffers);
+        Assert.Contains("(the first, '18°C' at row 4, = 18 °C)", said.Message, StringComparison.Ordinal);
+        Assert.Contains("Values written without a unit were read in °F.", said.Message, StringComparison.Ordinal);
+    }
 }

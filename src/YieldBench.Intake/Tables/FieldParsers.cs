@@ -281,12 +281,12 @@ internal static partial class FieldParsers
                     return true;
                 }
 
-                if (!c.UnitStated && c.Field.Kind is FieldKind.Volume or FieldKind.Mass && NamedUnit(unitText) is { } own && KindOf(own) == c.Field.Kind)
+                if (!c.UnitStated && c.Field.Kind is FieldKind.Volume or FieldKind.Mass or FieldKind.Temperature && NamedUnit(unitText) is { } own && KindOf(own) == c.Field.Kind)
                 {
-                    // "5 kL", "50 hL", "2000 gal" in a column whose header gives no unit: the cell says its unit,
-                    // which is no guess; converted to the column's unit and said once for the column (SheetReader).
+                    // "5 kL", "50 hL", "2000 gal", "62°F" in a column whose header gives no unit: the cell says its
+                    // unit, which is no guess; converted to the column's unit and said once for the column (SheetReader).
                     double inField = ColumnUnits.ToFieldUnit(value, own);
-                    value = inField / ColumnUnits.ToFieldUnit(1.0, c.Unit);
+                    value = c.Unit == ColumnUnit.Fahrenheit ? (inField * 9.0 / 5.0) + 32.0 : inField / ColumnUnits.ToFieldUnit(1.0, c.Unit);
                     c.CellUnitAt ??= (st.SheetRow, text.Trim(), inField);
                     c.CellUnits++;
                     return true;
@@ -430,6 +430,7 @@ internal static partial class FieldParsers
     {
         ColumnUnit.Litre or ColumnUnit.Hectolitre or ColumnUnit.Kilolitre or ColumnUnit.UsGallon => FieldKind.Volume,
         ColumnUnit.Kilogram or ColumnUnit.Pound or ColumnUnit.Gram => FieldKind.Mass,
+        ColumnUnit.Celsius or ColumnUnit.Fahrenheit => FieldKind.Temperature,
         _ => null,
     };
 

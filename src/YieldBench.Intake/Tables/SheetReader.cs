@@ -98,7 +98,7 @@ internal static class SheetReader
         {
             if (c.CellUnitAt is var (unitRow, unitText, inField))
             {
-                sink.Warning(file, sheetName, unitRow, c.Header, unitText, IssueCodes.UnitInCellDiffers, IntakeMessages.CellUnitsConverted(c.CellUnits, unitText, unitRow, inField, c.Field.Unit));
+                sink.Warning(file, sheetName, unitRow, c.Header, unitText, IssueCodes.UnitInCellDiffers, IntakeMessages.CellUnitsConverted(c.CellUnits, unitText, unitRow, inField, c.Field.Unit, ColumnUnits.Label(c.Unit) is { Length: > 0 } u ? u : c.Field.Unit));
             }
 
             if (c.ThousandsAt is var (groupRow, groupText, number))
