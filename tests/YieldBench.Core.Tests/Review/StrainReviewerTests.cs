@@ -169,6 +169,31 @@ public class StrainReviewerTests
     }
 
     [Fact]
+    public void Eight_strains_are_compared_in_a_few_counted_sentences_not_one_per_pair()
+    {
+        // Given eight strains over three seasons, SX-08 converting far less than the other seven
+        var factors = Enumerable.Range(1, 8).ToDictionary(i => $"SX-{i:00}", i => i == 8 ? 0.540 : 0.590 + (0.001 * i));
+        var lots = HouseFactor.SyntheticLots.Seasons(17, factors, seasons: 3, lotsPerStrainPerSeason: 12, noiseSd: 0.10);
+
+        // When the strains are compared
+        var c = StrainReviewer.Run(lots, new StrainReviewSettings(), 3).Comparison;
+
+        // Then the 28 pairs are one counted sentence for the raw shifts and one for the adjusted differences, naming the
+        // pairs beyond the noise (the largest first: one with SX-08) and pointing to the tables; no sentence per pair
+        Assert.Equal(28, c.Pairs.Count);
+        Assert.True(c.Sentences.Count <= 6, string.Join("\n", c.Sentences));
+        Assert.DoesNotContain(c.Sentences, x => x.StartsWith("SX-01 − SX-02:", StringComparison.Ordinal));
+        string raw = Assert.Single(c.Sentences, x => x.StartsWith("Raw shifts of the 28 pairs of strains: ", StringComparison.Ordinal));
+        int beyond = c.Pairs.Count(p => p.HolmP < 0.05 && !p.Interval.Contains(0));
+        Assert.True(beyond >= 7, raw);
+        Assert.Matches($@": {beyond} larger than the noise \(SX-0\d − SX-08 \+0\.\d{{4}}; ", raw);
+        Assert.EndsWith($"; the other {28 - beyond} within the noise after Holm's adjustment; every pair is in the table of pairwise Hodges–Lehmann shifts.", raw, StringComparison.Ordinal);
+        string adjusted = Assert.Single(c.Sentences, x => x.StartsWith("Alcohol from the same starting sugar, 28 pairs of strains: ", StringComparison.Ordinal));
+        Assert.Contains("more than SX-08", adjusted, StringComparison.Ordinal);
+        Assert.EndsWith("every pair, with its interval, is in the table of adjusted differences.", adjusted, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Group_summaries_cover_every_grouping_and_measure_with_bootstrap_intervals()
     {
         // Given the cellar

@@ -229,12 +229,21 @@ internal static class Comparison
             sentences.Add(Invariant($"Kruskal–Wallis rank test across {strains.Length} strains ({kw.N} lots): H = {kw.H:0.00}, {kw.DegreesOfFreedom} degrees of freedom, p {PText(kw.P)}; {verdict}."));
         }
 
-        foreach (var p in pairs)
+        // A few pairs are said one by one; past that (21 strains have 210 pairs, some 20 printed pages of sentences the
+        // pair tables below already hold) the pairs larger than the noise are named and the rest counted.
+        bool onePerPair = pairs.Length <= PairsSaidOneByOne;
+        foreach (var p in onePerPair ? pairs : [])
         {
             string verdict = p.HolmP < Alpha && !p.Interval.Contains(0)
                 ? "larger than the noise"
                 : "within the noise";
             sentences.Add(Invariant($"{p.First} − {p.Second}: raw shift {p.Shift:+0.0000;-0.0000;0.0000} % v/v per °Brix ({level} % interval {p.Interval.Low:0.0000} to {p.Interval.High:0.0000}; Holm-adjusted p {PText(p.HolmP)}) — {verdict}."));
+        }
+
+        if (!onePerPair)
+        {
+            var beyond = pairs.Where(p => p.HolmP < Alpha && !p.Interval.Contains(0)).OrderByDescending(p => Math.Abs(p.Shift)).ToArray();
+            sentences.Add(Invariant($"Raw shifts of the {pairs.Length} pairs of strains: {Counted(beyond.Select(p => Invariant($"{p.First} − {p.Second} {p.Shift:+0.0000;-0.0000;0.0000}")).ToArray(), pairs.Length, "within the noise after Holm's adjustment")}; every pair is in the table of pairwise Hodges–Lehmann shifts."));
         }
 
         if (adjusted.Strains.Count == 0)
@@ -244,10 +253,37 @@ internal static class Comparison
 
         var parts = adjusted.Strains.Select(a => Invariant($"{a.Strain} {a.Factor:0.0000} ({a.FactorInterval.Low:0.0000}–{a.FactorInterval.High:0.0000})"));
         sentences.Add(Invariant($"Adjusted to {adjusted.ReferenceBrix:0.0} °Brix (the median starting sugar of the {adjusted.ReferenceLots} finished lots kept in the comparison){(adjusted.WithVessel ? " and the cellar's vessel mix" : string.Empty)}, the factors are: {string.Join("; ", parts)}."));
-        foreach (var d in adjusted.Differences)
+        if (adjusted.Differences.Count <= PairsSaidOneByOne)
         {
-            sentences.Add(DifferenceSentence(d));
+            foreach (var d in adjusted.Differences)
+            {
+                sentences.Add(DifferenceSentence(d));
+            }
+
+            return;
         }
+
+        var apart = adjusted.Differences.Where(d => !d.Interval.Contains(0)).OrderByDescending(d => Math.Abs(d.AbvDifference)).ToArray();
+        string Words(AdjustedDifference d) => Invariant($"{(d.AbvDifference > 0 ? d.First : d.Second)} makes {Math.Abs(d.AbvDifference):0.00} % v/v more than {(d.AbvDifference > 0 ? d.Second : d.First)}");
+        sentences.Add(Invariant($"Alcohol from the same starting sugar, {adjusted.Differences.Count} pairs of strains: {Counted(apart.Select(Words).ToArray(), adjusted.Differences.Count, "the same within the noise")}; every pair, with its interval, is in the table of adjusted differences."));
+    }
+
+    /// <summary>Pairs of strains said one sentence each up to this many (five strains); past it, counted with the notable ones named.</summary>
+    internal const int PairsSaidOneByOne = 10;
+
+    /// <summary>Pairs named in a counted sentence before the rest are only counted.</summary>
+    private const int PairsNamed = 8;
+
+    /// <summary>"3 larger than the noise (A, B, C); the other 187 within the noise", naming at most <see cref="PairsNamed"/>.</summary>
+    private static string Counted(string[] notable, int all, string rest)
+    {
+        if (notable.Length == 0)
+        {
+            return Invariant($"all {all} {rest}");
+        }
+
+        string named = string.Join("; ", notable.Take(PairsNamed)) + (notable.Length > PairsNamed ? Invariant($"; and {notable.Length - PairsNamed} more") : string.Empty);
+        return Invariant($"{notable.Length} larger than the noise ({named}); the other {all - notable.Length} {rest}");
     }
 
     // "= 0.0123" or "< 0.0001": a p-value is never printed as 0.0000.
