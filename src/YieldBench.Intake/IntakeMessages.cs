@@ -411,6 +411,9 @@ public static class IntakeMessages
             + "If a heading names a tank rather than the lot, write the lot's id in it; or add a Lot column.";
     }
 
+    internal static string LotIdInName(string name, string lotId) =>
+        $"The log named '{name}' matches no lot by its whole name, but holds the id of lot '{lotId}' as a word: it was read as that lot's log. If it is not, name the log by its lot's id alone.";
+
     internal static string AdditionsApart(string lotHeader, string whatHeader, string amountHeader, List<string> lots, List<string> others) =>
         $"The sheet keeps additions apart from the lots, a row per addition ({lotHeader}, {whatHeader}, {amountHeader}); YieldBench reads a lot's water and sugar additions from columns of the lots table "
         + "('Water added (L)', 'Sugar added (kg)', with the must volume before them), so none of its rows was read and the lots are reviewed on their measured sugar. "

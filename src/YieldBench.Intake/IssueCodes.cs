@@ -214,6 +214,9 @@ public static class IssueCodes
     /// <summary><c>additions-apart</c>.</summary>
     public const string AdditionsApart = "additions-apart";
 
+    /// <summary><c>lot-id-in-name</c>.</summary>
+    public const string LotIdInName = "lot-id-in-name";
+
     /// <summary><c>log-blocks</c>.</summary>
     public const string LogBlocks = "log-blocks";
 

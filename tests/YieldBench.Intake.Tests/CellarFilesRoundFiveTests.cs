@@ -310,4 +310,27 @@ public class CellarFilesRoundFiveTests
         Assert.Contains("(the first, '18°C' at row 4, = 18 °C)", said.Message, StringComparison.Ordinal);
         Assert.Contains("Values written without a unit were read in °F.", said.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void A_log_named_with_its_tank_and_lot_id_is_that_lots_log_and_a_bare_number_names_no_lot()
+    {
+        // Given lots 25-QR-01 … 25-QR-03 and lot "4", a stacked log whose first heading is "Tank T1 - 25-QR-01", a
+        // sheet-like log file named "Tank 4", and a heading naming two lots
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", Lots + "4,2025,QX-22,22.0,2025-10-06,12.8\n");
+        var log = folder.Text("stacked.csv", "Tank T1 - 25-QR-01\nDate,Time,Brix\n2025-10-05,08:00,24.6\n2025-10-06,08:00,22.0\n\n"
+            + "25-QR-02 or 25-QR-03\nDate,Time,Brix\n2025-10-06,08:00,25.8\n2025-10-07,08:00,24.0\n");
+        var tank = folder.Text("Tank 4.csv", "Date,Time,Brix\n2025-10-07,08:00,22.0\n2025-10-08,08:00,21.0\n");
+
+        // When read
+        var set = folder.Read(lots, log, tank);
+
+        // Then the first block is 25-QR-01's log, said once (before, it was a log-without-lot); a heading holding two
+        // lot ids and a name whose only number is "4" are joined to no lot
+        Assert.Equal(2, Assert.Single(set.Logs, l => l.LotId == "25-QR-01").Readings.Count);
+        var said = Assert.Single(set.Issues, i => i.Code == IssueCodes.LotIdInName);
+        Assert.Equal((IssueSeverity.Warning, "Tank T1 - 25-QR-01", 3), (said.Severity, said.Value, said.Row));
+        Assert.Equal("The log named 'Tank T1 - 25-QR-01' matches no lot by its whole name, but holds the id of lot '25-QR-01' as a word: it was read as that lot's log. If it is not, name the log by its lot's id alone.", said.Message);
+        Assert.Equal(["25-QR-02 or 25-QR-03", "Tank 4"], set.Issues.Where(i => i.Code == IssueCodes.LogWithoutLot).Select(i => i.Value).Order(StringComparer.Ordinal));
+    }
 }

@@ -22,6 +22,7 @@ internal static partial class LogJoin
         string? lastId = null;
         int? lastSeason = null;
         List<LogReading>? lastList = null;
+        var namedByWord = new HashSet<string>(StringComparer.Ordinal);
         foreach (var (rawId, season, reading) in run.Readings)
         {
             // A log's readings mostly follow one another: the same lot and season as the reading before is its list.
@@ -36,6 +37,16 @@ internal static partial class LogJoin
             if (!knownIds.Contains(rawId) && LotWordPrefix().Match(rawId) is { Success: true } m && knownIds.Contains(rawId[m.Length..]))
             {
                 lotId = rawId[m.Length..];
+            }
+            else if (!knownIds.Contains(rawId) && LotIdAsWord(rawId, knownIds) is { } word)
+            {
+                // A log named "Tank T1 - 25-QR-01" (a block heading, a sheet name): the one lot id it holds as a word
+                // names the lot; said once for the name.
+                lotId = word;
+                if (namedByWord.Add(rawId) && reading.Source is { } at)
+                {
+                    run.Sink.Warning(at.File, at.Sheet, at.Row, null, rawId, IssueCodes.LotIdInName, IntakeMessages.LotIdInName(rawId, word));
+                }
             }
 
             if (!index.TryGetValue((lotId, season), out var list))
@@ -511,4 +522,29 @@ internal static partial class LogJoin
 
     [System.Text.RegularExpressions.GeneratedRegex(@"^(lot|batch)\s*(#|no\.?|nr\.?|number)?\s*[:#\-]?\s*", System.Text.RegularExpressions.RegexOptions.IgnoreCase | System.Text.RegularExpressions.RegexOptions.CultureInvariant)]
     private static partial System.Text.RegularExpressions.Regex LotWordPrefix();
+
+    /// <summary>
+    /// The one lot id that <paramref name="name"/> holds as a word ("25-QR-01" in "Tank T1 - 25-QR-01"), when exactly
+    /// one does; null otherwise. Only ids of at least three characters holding a digit count, so that "4" in "Tank 4" or
+    /// a word such as "Syrah" never names a lot.
+    /// </summary>
+    internal static string? LotIdAsWord(string name, HashSet<string> knownIds)
+    {
+        string? found = null;
+        foreach (var raw in name.Split([' ', '\t'], StringSplitOptions.RemoveEmptyEntries))
+        {
+            string word = raw.Trim(':', ',', ';', '(', ')', '[', ']', '.');
+            if (word.Length >= 3 && word.Any(char.IsAsciiDigit) && knownIds.Contains(word))
+            {
+                if (found is not null && found != word)
+                {
+                    return null;
+                }
+
+                found = word;
+            }
+        }
+
+        return found;
+    }
 }
