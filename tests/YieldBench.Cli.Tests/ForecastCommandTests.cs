@@ -84,14 +84,16 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         // Given the demo forecast run again with --fahrenheit
         var (exit, output, error) = Cli.Run(demo.Root, "forecast", "--out", "fahrenheit", "--fahrenheit");
 
-        // Then it succeeds; the console gives every temperature in °F (lot 26-001's peak is the json's °C × 9/5 + 32),
+        // Then it succeeds; the console gives every temperature in °F (lot 26-006's peak is the json's °C × 9/5 + 32),
         // and forecast.json is byte for byte the °C run's (its keys end in _c)
         Assert.Equal((0, string.Empty), (exit, error));
         string flat = Cli.Flat(output);
         Assert.DoesNotContain("°C", flat, StringComparison.Ordinal);
-        double peakC = demo.Lot("26-001").GetProperty("peak_temp_c").GetProperty("value").GetDouble();
-        string peakF = ((peakC * 9 / 5) + 32).ToString("0.0", CultureInfo.InvariantCulture);
-        Assert.Matches($@"Lot 26-001 \(.*?peak {Regex.Escape(peakF)} °F \(80 %", flat);
+        double peakC = demo.Lot("26-006").GetProperty("peak_temp_c").GetProperty("value").GetDouble();
+        // (the json keeps 0.1 °C, the console converts the unrounded value: they agree to 0.1 °F)
+        var peakF = Regex.Match(flat, @"Lot 26-006 \(.*?peak (\d+\.\d) °F \(80 %");
+        Assert.True(peakF.Success, flat);
+        Assert.InRange(double.Parse(peakF.Groups[1].Value, CultureInfo.InvariantCulture), (peakC * 9 / 5) + 32 - 0.1, (peakC * 9 / 5) + 32 + 0.1);
         Assert.Equal(File.ReadAllBytes(Path.Combine(demo.First, "forecast.json")), File.ReadAllBytes(Path.Combine(demo.Root, "fahrenheit", "forecast.json")));
     }
 
@@ -349,6 +351,34 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         Assert.DoesNotContain("plan the nutrient addition", stale, StringComparison.Ordinal);
         Assert.Contains("plan the nutrient addition for the Tue evening check", fresh, StringComparison.Ordinal);
         Assert.DoesNotContain("last reading was", fresh, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_lot_past_its_peak_is_told_its_peak_is_behind_it_and_is_not_asked_to_cool_for_it()
+    {
+        // Given two running reds of one strain: 26-101 near dry, warmest (41.0 °C, over the 40 °C danger line) at the
+        // Sun 07:30 reading and cooler since; 26-102 three readings in and warming
+        using var folder = new Scratch();
+        folder.Write("r/lots-2026.csv", "Lot,Yeast,Start Brix,Inoculated,Colour,Vessel,Volume L\n26-101,YB-R12,24.6,2026-09-10 10:00,red,Stainless tank,4200\n26-102,YB-R12,24.0,2026-09-13 10:00,red,Stainless tank,4200\n");
+        folder.Write("r/log-2026.csv", "Lot,Timestamp,Brix,Temp °C\n"
+            + "26-101,2026-09-10 17:30,24.3,19.0\n26-101,2026-09-11 07:30,23.0,24.5\n26-101,2026-09-11 17:30,20.9,30.5\n26-101,2026-09-12 07:30,17.2,36.0\n"
+            + "26-101,2026-09-12 17:30,13.5,39.5\n26-101,2026-09-13 07:30,9.0,41.0\n26-101,2026-09-13 17:30,5.6,37.5\n26-101,2026-09-14 07:30,3.0,33.0\n26-101,2026-09-14 17:30,1.5,30.5\n"
+            + "26-102,2026-09-13 17:30,23.7,19.0\n26-102,2026-09-14 07:30,22.6,21.0\n26-102,2026-09-14 17:30,20.5,23.5\n");
+        string history = Path.Combine(AppContext.BaseDirectory, "demo-data", "history");
+
+        // When forecast
+        var (exit, output, _) = Cli.Run(folder.Root, "forecast", history, "--running", "r", "--out", "out");
+
+        // Then the lot past its peak is told where its peak was, without a forecast peak interval; nothing asks to cool it
+        // now; the warming lot keeps its forecast peak
+        Assert.Equal(0, exit);
+        string flat = Cli.Flat(output);
+        int past = flat.IndexOf("Lot 26-101 (YB-R12", StringComparison.Ordinal), warming = flat.IndexOf("Lot 26-102 (YB-R12", StringComparison.Ordinal);
+        Assert.True(past >= 0 && warming > past, flat);
+        Assert.Contains("its peak, 41.0 °C at the Sun 13 Sep 07:30 reading, looks behind it (the readings since are cooler)", flat[past..warming], StringComparison.Ordinal);
+        Assert.DoesNotContain("cool it now", flat[past..warming], StringComparison.Ordinal);
+        Assert.DoesNotContain("cool now", flat[..flat.IndexOf("Each lot in full", StringComparison.Ordinal)], StringComparison.Ordinal);
+        Assert.Matches(@"peak \d+\.\d °C \(80 %: [\d.]+–[\d.]+\)", flat[warming..]);
     }
 
     [Fact]

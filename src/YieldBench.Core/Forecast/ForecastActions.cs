@@ -74,7 +74,7 @@ public static class ForecastActions
         var watch = new List<string>();
         var last = ForecastSentences.LastReading(c);
         bool stale = ForecastSentences.IsStale(c, now);
-        if (!f.DryReached && f.PeakC is { } peak)
+        if (!f.DryReached && f.PeakPassedHours is null && f.PeakC is { } peak)
         {
             if (peak.Median > f.DangerC)
             {
@@ -170,7 +170,7 @@ public static class ForecastActions
 
     /// <summary>Order of the urgent lots: a peak past danger, then a likely stuck end, then a stopped log.</summary>
     private static double Severity(LotForecast f, DateTime? now) =>
-        (!f.DryReached && f.PeakC is { } p && p.Median > f.DangerC ? 4 : 0)
+        (!f.DryReached && f.PeakPassedHours is null && f.PeakC is { } p && p.Median > f.DangerC ? 4 : 0)
         + (!f.DryReached && f.StuckRisk >= StuckActNow ? 2 : 0)
         + (ForecastSentences.IsStale(f.Course, now) ? 1 : 0);
 

@@ -52,6 +52,12 @@ public sealed record LotForecast
     /// <summary>Highest logged temperature to come, °C (at least the highest so far), or null without temperatures or a temperature model.</summary>
     public required ForecastValue? PeakC { get; init; }
 
+    /// <summary>
+    /// Hours (from the origin) of the warmest reading when the peak is behind the lot: the forecast puts nothing warmer to
+    /// come and a later reading is already cooler. Null while the peak is ahead (or at the last reading), or without temperatures.
+    /// </summary>
+    public double? PeakPassedHours { get; init; }
+
     /// <summary>Temperature reachable with no heat removed from the last reading on, °C, or null without a temperature.</summary>
     public required double? ReachableC { get; init; }
 

@@ -107,6 +107,10 @@ public static class ForecastSentences
         {
             parts.Add($"its warmest reading {unit.Show(warmest.Median)}");
         }
+        else if (f.PeakC is { } top && f.PeakPassedHours is { } peakedAt)
+        {
+            parts.Add($"its peak, {unit.Show(top.Median)} at the {When(c.At(peakedAt))} reading, looks behind it (the readings since are cooler)");
+        }
         else if (f.PeakC is { } peak)
         {
             string warn = peak.Median > f.DangerC ? $", above the {unit.Show(f.DangerC, "0")} danger threshold — cool it now"

@@ -111,11 +111,20 @@ internal static class PosteriorSummary
 
         // The peak is never below the warmest reading so far, nor above what the must could reach with no heat removed
         // at all (a history whose temperatures say little about heat can otherwise put an interval's end past physics).
+        double? peakPassedAt = null;
         if (peakValue is { } pv && c.TempC.Length > 0)
         {
             double floor = c.TempC.Max();
             double ceiling = reachable is { } r ? Math.Max(r, floor) : double.PositiveInfinity;
             peakValue = new ForecastValue(Math.Clamp(pv.Median, floor, ceiling), Math.Clamp(pv.Low, floor, ceiling), Math.Clamp(pv.High, floor, ceiling));
+
+            // The peak is behind the lot when the forecast puts nothing warmer to come (its median is the warmest reading)
+            // and a later reading is already cooler.
+            int warmest = Array.IndexOf(c.TempC, floor);
+            if (peakValue.Value.Median <= floor + PeakPassedToleranceC && c.TempC[^1] < floor - PeakPassedToleranceC)
+            {
+                peakPassedAt = c.TempHours[warmest];
+            }
         }
 
         double? kw = c.VolumeL is { } v && s0 > f ? HeatBalance.HeatPowerKw(rate, s0, f, v, settings.Kinetics) : null;
@@ -138,6 +147,7 @@ internal static class PosteriorSummary
             DryReached = dryReached,
             DryBrix = dry,
             PeakC = peakValue,
+            PeakPassedHours = peakPassedAt,
             ReachableC = reachable,
             CoolingKw = kw,
             SettlesAtBrix = f,
@@ -155,6 +165,9 @@ internal static class PosteriorSummary
     }
 
     private static readonly ForecastCurve Empty = new([], [], [], [], [], [], [], []);
+
+    /// <summary>How close to the warmest reading a forecast peak's median counts as that reading, °C (a logged temperature's last digit).</summary>
+    private const double PeakPassedToleranceC = 0.05;
 
     /// <summary>
     /// Adds the time the readings will show the curve reaching <paramref name="level"/> at this node: the delta-method
