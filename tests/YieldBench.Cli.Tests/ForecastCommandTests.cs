@@ -382,6 +382,26 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void An_output_folder_outside_the_working_folder_is_named_whole_not_by_a_climb_up_from_it()
+    {
+        // Given the working folder and an output folder beside it (not below it)
+        using var folder = new Scratch();
+        using var elsewhere = new Scratch();
+        Directory.CreateDirectory(folder.Root);
+
+        // When the demo is forecast into it
+        var (exit, output, _) = Cli.Run(folder.Root, "forecast", "--out", elsewhere.Root);
+
+        // Then the console names the files by the folder as given, not as ../yb-fc-…; below the working folder it stays short
+        Assert.Equal(0, exit);
+        string flat = Cli.Flat(output);
+        Assert.Contains($"Wrote {Path.Combine(elsewhere.Root, "forecast.json")}, ", flat, StringComparison.Ordinal);
+        Assert.DoesNotContain("..", flat[flat.IndexOf("Wrote ", StringComparison.Ordinal)..], StringComparison.Ordinal);
+        var (_, below, _) = Cli.Run(folder.Root, "forecast", "--out", "out");
+        Assert.Contains($"Wrote {Path.Combine("out", "forecast.json")}, ", Cli.Flat(below), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void The_demo_console_opens_with_each_lots_next_step_the_lots_that_cannot_wait_first()
     {
         // Given the demo forecast's console (the fixture): 26-006 heads for 41 °C, 26-005 for a stuck end

@@ -262,7 +262,9 @@ internal static class ForecastCommand
     internal static IReadOnlyList<string> ConsoleLines(ForecastReport report, ReportOutput written, string workingDirectory, TemperatureUnit unit = TemperatureUnit.Celsius)
     {
         var lines = new List<string>();
-        string shown = Path.GetRelativePath(workingDirectory, written.Folder);
+        // The folder as the user would type it: relative below the working folder, whole elsewhere (not ../../../tmp/x).
+        string relative = Path.GetRelativePath(workingDirectory, written.Folder);
+        string shown = relative == ".." || relative.StartsWith(".." + Path.DirectorySeparatorChar, StringComparison.Ordinal) || Path.IsPathRooted(relative) ? written.Folder : relative;
         string detail = $"{Path.Combine(shown, ForecastWorkbook.FileName)}, sheet \"Forecast\", and {Path.Combine(shown, ForecastJson.FileName)}";
         lines.AddRange(ForecastActions.Lines(report, detail, unit));
         lines.Add(string.Empty);
