@@ -120,9 +120,18 @@ public static class StrainCharts
             return plot;
         }
 
-        ChartStyle.Subtitle(plot, "Square: the median of the group's lots; bar: from the lower to the upper quartile; number: lots in the group");
+        // Beside its bar's end a count collides with its neighbours' once the bars are packed (20 strains × 5 vessel
+        // types: 100 bars): then the counts go in a band under the bars, one row per vessel type in its colour, where
+        // neighbours in a row are a whole strain apart.
+        bool banded = strains.Count * vessels.Length > CountsBesideBarsUpTo;
+        ChartStyle.Subtitle(plot, banded
+            ? "Square: the median of the group's lots; bar: from the lower to the upper quartile; numbers under the bars: lots in the group, a row per vessel"
+            : "Square: the median of the group's lots; bar: from the lower to the upper quartile; number: lots in the group");
         var ticks = ChartStyle.CategoryTicks(strains);
         double width = 0.7;
+        double low = groups.Select(g => double.IsFinite(g.Q1) ? g.Q1 : g.Median).Where(double.IsFinite).DefaultIfEmpty(0).Min();
+        double high = groups.Select(g => double.IsFinite(g.Q3) ? g.Q3 : g.Median).Where(double.IsFinite).DefaultIfEmpty(1).Max();
+        double rowHeight = Math.Max(high - low, 1e-6) * 0.045;
         for (int v = 0; v < vessels.Length; v++)
         {
             // Vessels keep their own colours, after the strain colours' first few so they do not read as strains.
@@ -148,10 +157,12 @@ public static class StrainCharts
                     err.Color = color;
                 }
 
-                var n = plot.Add.Text(g.N.ToString(Inv), x, double.IsFinite(g.Q1) ? g.Q1 : g.Median);
+                var n = banded
+                    ? plot.Add.Text(g.N.ToString(Inv), x, low - (rowHeight * (v + 1)))
+                    : plot.Add.Text(g.N.ToString(Inv), x, double.IsFinite(g.Q1) ? g.Q1 : g.Median);
                 n.LabelFontName = ReportFonts.FamilyName;
                 n.LabelFontSize = ChartStyle.TickSize * 0.8f;
-                n.LabelAlignment = Alignment.UpperCenter;
+                n.LabelAlignment = banded ? Alignment.MiddleCenter : Alignment.UpperCenter;
                 n.LabelFontColor = color;
             }
 
@@ -165,10 +176,13 @@ public static class StrainCharts
         plot.Axes.SetLimitsX(-0.6, strains.Count - 0.4);
         var lim = plot.Axes.GetLimits();
         double span = lim.Top - lim.Bottom;
-        plot.Axes.SetLimitsY(lim.Bottom - (span * 0.08), lim.Top + (span * 0.05));
+        plot.Axes.SetLimitsY(banded ? low - (rowHeight * (vessels.Length + 0.8)) : lim.Bottom - (span * 0.08), lim.Top + (span * 0.05));
         ChartStyle.ShowLegend(plot, Alignment.UpperRight, crowded: strains.Count > ChartStyle.CategoriesOnOneRow);
         return plot;
     }
+
+    /// <summary>Strain and vessel bars up to which each count is written under its own bar; past it, in a band of rows.</summary>
+    internal const int CountsBesideBarsUpTo = 30;
 
     /// <summary>
     /// Days to dry by strain: each strain's quartile box with its median, and every lot that reached dry as a dot;

@@ -105,6 +105,54 @@ public sealed class CellarSizeChartTests
     }
 
     [Fact]
+    public void Twenty_strains_in_five_vessel_types_get_lot_counts_that_do_not_overlap()
+    {
+        // Given twenty strains, each in five vessel types (100 bars)
+        var lots = new List<Core.Lots.Lot>();
+        string[] vessels = ["Barrel", "Concrete egg", "Open-top bin", "Puncheon", "Stainless tank"];
+        for (int i = 0; i < 600; i++)
+        {
+            double brix = 21.5 + (0.3 * (i % 13));
+            lots.Add(new Core.Lots.Lot
+            {
+                LotId = $"V{i + 1:000}",
+                Season = 2023 + (i % 3),
+                Strain = $"LG-{(i % 20) + 1:00}",
+                Vessel = vessels[i / 20 % 5],
+                StartingSugar = Core.Units.SugarReading.FromBrix(brix),
+                FinalAlcohol = Core.Units.AlcoholContent.FromPercentVolume(Math.Round((0.58 + (0.0005 * (i % 7))) * brix, 2)),
+                ResidualSugarGl = 1.5,
+                Source = new Core.Lots.SourceRef("lots.csv", null, i + 2),
+            });
+        }
+
+        var review = Core.Review.ReviewRunner.Run(new Core.Lots.SeasonSet { Lots = lots, Files = [new Core.Lots.InputFile("lots.csv", new string('f', 64), 9000)] }, new Core.Review.ReviewSettings(), "9.9.9-test");
+
+        // When the strain-by-vessel chart is drawn
+        var plot = StrainCharts.ByVessel(review);
+        ChartImage.RenderPng(plot);
+        var labels = plot.GetPlottables().OfType<ScottPlot.Plottables.Text>().ToArray();
+
+        // Then there is a count for each of the 100 groups and no two counts' boxes (the digits at the label's font
+        // size, about 0.62 em wide each and 1.2 em tall) overlap on the picture
+        Assert.Equal(100, labels.Length);
+        var boxes = labels.Select(l =>
+        {
+            var at = plot.GetPixel(l.Location);
+            double w = l.LabelText.Length * l.LabelFontSize * 0.62, h = l.LabelFontSize * 1.2;
+            return (Left: at.X - (w / 2), Right: at.X + (w / 2), Top: at.Y - (h / 2), Bottom: at.Y + (h / 2), l.LabelText);
+        }).ToArray();
+        for (int a = 0; a < boxes.Length; a++)
+        {
+            for (int b = a + 1; b < boxes.Length; b++)
+            {
+                bool overlap = boxes[a].Left < boxes[b].Right && boxes[b].Left < boxes[a].Right && boxes[a].Top < boxes[b].Bottom && boxes[b].Top < boxes[a].Bottom;
+                Assert.False(overlap, $"{boxes[a]} overlaps {boxes[b]}");
+            }
+        }
+    }
+
+    [Fact]
     public void Twenty_strains_compared_put_each_value_beside_its_bar_on_the_strain_s_own_row()
     {
         // Given the adjusted comparison of twenty strains
