@@ -369,7 +369,11 @@ public sealed partial class ForecastModel
                 }
             }
 
-            int dof = Math.Max(1, idx.Length - p0 - 2 - seasons.Length);
+            // Degrees of freedom: the kept lots less what the regression learns, its rank (a covariate that does not
+            // vary, YAN when it is not used, or a vessel peak the strain columns already fix, learns nothing), and one
+            // shift per season.
+            int rank = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfRowArrays(idx.Select(i => rows[i])).Rank();
+            int dof = Math.Max(1, idx.Length - rank - seasons.Length);
             double trim = pass == 0 ? 1.0 : 0.9535;
             within = (sMm / dof / trim, sMl / dof / trim, sLl / dof / trim);
 
@@ -443,13 +447,15 @@ public sealed partial class ForecastModel
         var firstDelay = delays.Length > 0 ? (Descriptive.Median(delays), delays.Length > 1 ? Descriptive.StandardDeviation(delays) : 6.0) : (6.0, 6.0);
 
         var temp = TrainTemperature(fitted, Group, Bucket, settings);
+        // What the strain's past lots did, as logged: every past lot with a log, its course fitted or not (a log the
+        // sigmoid does not fit, a stall that then finished, is still a past lot and may be the strain's slowest).
         var medians = new Dictionary<string, StrainMedians>(StringComparer.Ordinal);
-        foreach (var g in fitted.GroupBy(p => Key(p.Course.Strain)))
+        foreach (var g in past.GroupBy(p => Key(p.Course.Strain)))
         {
             medians[g.Key] = Medians(g.ToArray());
         }
 
-        var pooledMedians = Medians(fitted);
+        var pooledMedians = Medians(past);
 
         return new ForecastModel
         {
@@ -517,7 +523,12 @@ public sealed partial class ForecastModel
         public double? DryHours => Lot.DryHours;
     }
 
-    private static StrainMedians Medians(IReadOnlyList<Fitted> lots)
+    /// <summary>
+    /// The strain's medians as logged. Hours from inoculation count the lots with an inoculation time (a lot without
+    /// one counts from its first reading, which is not the same clock), or every lot when none has one; hours from the
+    /// first reading and the peak count every lot.
+    /// </summary>
+    private static StrainMedians Medians(IReadOnlyList<PastLot> lots)
     {
         double Med(IEnumerable<double?> v)
         {
@@ -525,10 +536,16 @@ public sealed partial class ForecastModel
             return a.Length == 0 ? double.NaN : Descriptive.Median(a);
         }
 
-        var dryTimes = lots.Where(p => p.DryHours is not null).Select(p => p.DryHours!.Value).ToArray();
+        var clocked = lots.Where(p => p.Course.FromInoculation).ToArray();
+        if (clocked.Length == 0)
+        {
+            clocked = lots.ToArray();
+        }
+
+        var dryTimes = clocked.Where(p => p.DryHours is not null).Select(p => p.DryHours!.Value).ToArray();
         return new StrainMedians(
-            Med(lots.Select(p => p.OneThirdHours)),
-            Med(lots.Select(p => p.DryHours)),
+            Med(clocked.Select(p => p.OneThirdHours)),
+            Med(clocked.Select(p => p.DryHours)),
             Med(lots.Select(p => p.PeakC)),
             Med(lots.Select(p => p.OneThirdHours - p.Course.SugarHours[0])),
             Med(lots.Select(p => p.DryHours - p.Course.SugarHours[0])),
