@@ -370,6 +370,33 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
     }
 
     [Fact]
+    public void The_forecast_workbook_gives_each_lot_its_next_step_as_the_console_does()
+    {
+        // Given the demo forecast's workbook, sheet "Forecast" (read with ExcelDataReader, independent of the writer)
+        System.Text.Encoding.RegisterProvider(System.Text.CodePagesEncodingProvider.Instance);
+        using var stream = File.OpenRead(Path.Combine(demo.First, "forecast.xlsx"));
+        using var reader = ExcelDataReader.ExcelReaderFactory.CreateReader(stream);
+        var rows = new List<string[]>();
+        while (reader.Read())
+        {
+            rows.Add(Enumerable.Range(0, reader.FieldCount).Select(i => Convert.ToString(reader.GetValue(i), CultureInfo.InvariantCulture) ?? string.Empty).ToArray());
+        }
+
+        // Then each lot's row says when its next step falls and what it is, the overheating and the stuck lot first
+        int header = rows.FindIndex(r => r.Contains("Next step falls"));
+        Assert.True(header >= 0, "no header");
+        int lot = Array.IndexOf(rows[header], "Lot"), day = Array.IndexOf(rows[header], "Next step falls"), step = Array.IndexOf(rows[header], "Next step (what cannot wait first)");
+        string[] Of(string id) => rows.Single(r => r[lot] == id);
+        Assert.Equal("act now", Of("26-006")[day]);
+        Assert.StartsWith("cool now: peak 41.4 °C expected, over the 40 °C danger threshold; nutrient at one-third, 17.8 °Brix", Of("26-006")[step], StringComparison.Ordinal);
+        Assert.Equal("act now", Of("26-005")[day]);
+        Assert.StartsWith("stuck risk 100 %: check nitrogen and temperature, plan a restart; dry not expected", Of("26-005")[step], StringComparison.Ordinal);
+        Assert.Equal("tomorrow", Of("26-009")[day]);
+        Assert.Equal("nutrient at one-third, 16.3 °Brix (80 % 08:27–13:03)", Of("26-009")[step]);
+        Assert.Equal("later", Of("26-001")[day]);
+    }
+
+    [Fact]
     public void A_large_cellar_gets_one_line_a_lot_and_the_full_forecasts_in_the_files()
     {
         // Given 40 running lots (more than the 12 printed in full), inoculated an hour apart, each read three times up to

@@ -37,6 +37,9 @@ public static class ForecastWorkbook
             new("lot_id", "Lot", CellKind.Text, f => f.Course.LotId),
             new("strain", "Strain", CellKind.Text, f => f.Course.Strain),
             new("vessel", "Vessel", CellKind.Text, f => f.Course.Vessel),
+            new("next_step_day", "Next step falls", CellKind.Text, f => DayWords(ForecastActions.Of(f, now, unit).Day)),
+            new("next_step", "Next step (what cannot wait first)", CellKind.Text, f => StepWords(ForecastActions.Of(f, now, unit))),
+            new("next_step_at", "Next step due", CellKind.DateTime, f => ForecastActions.Of(f, now, unit).Due),
             new("readings_used", "Readings used", CellKind.Integer, f => f.ReadingsUsed),
             new("one_third_brix", "One-third level (°Brix)", CellKind.Number, f => f.OneThirdBrix, "0.0"),
             new("one_third_at", "One-third expected", CellKind.DateTime, f => At(f, f.OneThirdHours?.Median)),
@@ -60,6 +63,21 @@ public static class ForecastWorkbook
         ];
         return ReportTable.Of(columns, lots, f => f.StuckRisk >= 0.2 || (f.PeakC is { } p && p.High > f.DangerC));
     }
+
+    /// <summary>The to-do list's day in words, as the console's groups are headed.</summary>
+    private static string DayWords(ActionDay day) => day switch
+    {
+        ActionDay.Now => "act now",
+        ActionDay.Today => "today",
+        ActionDay.Tomorrow => "tomorrow",
+        _ => "later",
+    };
+
+    /// <summary>The lot's line of the to-do list without its time: what cannot wait, the step with its range, what to watch.</summary>
+    private static string StepWords(LotAction a) =>
+        string.Join("; ", a.Urgent
+            .Append(a.Step + (a.Range is { } r ? $" (80 % {r})" : string.Empty) + a.Then)
+            .Concat(a.Watch.Select(w => "watch " + w)));
 
     /// <summary>The backtest table, with the per-season coverage.</summary>
     public static ReportTable Backtest(ForecastReport report, TemperatureUnit unit = TemperatureUnit.Celsius)
