@@ -441,7 +441,7 @@ public static class IntakeMessages
 
     internal static string DateOrderFromSpan(bool dayFirst, int dates, int span, int otherSpan, string example) =>
         $"No date of the column has a part above 12 to say which is the day, so its {dates} dates such as '{example}' read both ways. "
-        + $"They were read {(dayFirst ? "day first (day/month)" : "month first (month/day)")}: so they fall within {span} days, as one season's dates do, "
+        + $"They were read {(dayFirst ? "day first (day/month)" : "month first (month/day)")}: so they fall within {span} day{(span == 1 ? "" : "s")}, as one season's dates do, "
         + $"while {(dayFirst ? "month first" : "day first")} would spread them over {otherSpan} days. If they are {(dayFirst ? "month first" : "day first")}, write them as year-month-day and check again.";
 
     internal static string AmbiguousDate(string field, string dayFirst, string monthFirst) =>

@@ -333,4 +333,30 @@ public class CellarFilesRoundFiveTests
         Assert.Equal("The log named 'Tank T1 - 25-QR-01' matches no lot by its whole name, but holds the id of lot '25-QR-01' as a word: it was read as that lot's log. If it is not, name the log by its lot's id alone.", said.Message);
         Assert.Equal(["25-QR-02 or 25-QR-03", "Tank 4"], set.Issues.Where(i => i.Code == IssueCodes.LogWithoutLot).Select(i => i.Value).Order(StringComparer.Ordinal));
     }
+
+    [Fact]
+    public void Us_timestamps_on_a_twelve_hour_clock_are_read_and_settle_the_columns_day_month_order()
+    {
+        // Given a log exported from a US spreadsheet: "10/5/2025 8:00 AM", "5:00 PM", "12:30 AM", "12:15 PM", "Oct 6,
+        // 2025 8:00 AM" and two-digit years on a 24-hour clock, every slash date reading both ways
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", Lots);
+        var log = folder.Text("log.csv", "Lot,Timestamp,Brix\n25-QR-01,10/5/2025 8:00 AM,24.6\n25-QR-01,10/5/2025 5:00 PM,23.9\n25-QR-01,10/6/2025 12:30 AM,23.0\n"
+            + "25-QR-01,10/6/2025 12:15 p.m.,22.0\n25-QR-02,\"Oct 6, 2025 8:00 AM\",25.8\n25-QR-03,10/7/25 08:00,22.1\n25-QR-03,10/8/25 08:00,21.5\n");
+
+        // When read
+        var set = folder.Read(lots, log);
+
+        // Then every reading is kept at its hour (before, each AM/PM time was not-a-date and the rest ambiguous), the
+        // slash dates read month first because that gathers them within days (said once for the column)
+        var logs = set.Logs.ToDictionary(l => l.LotId);
+        Assert.Equal([new DateTime(2025, 10, 5, 8, 0, 0), new DateTime(2025, 10, 5, 17, 0, 0), new DateTime(2025, 10, 6, 0, 30, 0), new DateTime(2025, 10, 6, 12, 15, 0)],
+            logs["25-QR-01"].Readings.Select(r => r.Timestamp));
+        Assert.Equal(new DateTime(2025, 10, 6, 8, 0, 0), Assert.Single(logs["25-QR-02"].Readings).Timestamp);
+        Assert.Equal([new DateTime(2025, 10, 7, 8, 0, 0), new DateTime(2025, 10, 8, 8, 0, 0)], logs["25-QR-03"].Readings.Select(r => r.Timestamp));
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        var order = Assert.Single(set.Issues, i => i.Code == IssueCodes.DateOrderFromSpan && i.File == log);
+        Assert.Equal("10/5/2025 8:00 AM", order.Value);
+        Assert.Contains("They were read month first (month/day): so they fall within 1 day, as one season's dates do", order.Message, StringComparison.Ordinal);
+    }
 }

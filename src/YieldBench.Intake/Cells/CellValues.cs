@@ -39,7 +39,7 @@ internal static partial class CellValues
     private static readonly string[] MonthNameFormats =
     [
         "d MMM yyyy", "d MMMM yyyy", "d-MMM-yyyy", "d-MMM-yy", "dd-MMM-yy", "MMM d yyyy", "MMM d, yyyy", "MMMM d, yyyy",
-        "MMMM d yyyy", "d MMM yyyy HH:mm", "d-MMM-yyyy HH:mm", "MMM d, yyyy HH:mm",
+        "MMMM d yyyy", "d MMM yyyy H:mm", "d-MMM-yyyy H:mm", "MMM d, yyyy H:mm", "MMMM d, yyyy H:mm", "MMM d yyyy H:mm",
     ];
 
     public static bool IsBlank(object? v) => v is null || (v is string s && string.IsNullOrWhiteSpace(s));
@@ -229,7 +229,7 @@ internal static partial class CellValues
         var same = new HashSet<(string Year, int A, int B)>();
         foreach (var c in cells)
         {
-            if (c is string s && !StartsWithThreeDigits(s.Trim()) && (SlashDate().Match(s.Trim()) is { Success: true } m || (m = NumericDayMonth().Match(s.Trim())).Success))
+            if (c is string raw && WithoutTwelveHourMark(raw.Trim()) is var s && !StartsWithThreeDigits(s) && (SlashDate().Match(s) is { Success: true } m || (m = NumericDayMonth().Match(s)).Success))
             {
                 if (m.Groups["sep"].Value == ".")
                 {
@@ -243,7 +243,7 @@ internal static partial class CellValues
                 {
                     // 9/9 reads the same both ways: it counts in the span, not among the dates that read both ways.
                     (a == b ? same : ambiguous).Add((m.Groups["y"].Value, a, b));
-                    example ??= a == b ? null : s.Trim();
+                    example ??= a == b ? null : raw.Trim();
                 }
             }
         }
@@ -368,6 +368,26 @@ internal static partial class CellValues
     {
         value = default;
         dayFirst = monthFirst = null;
+        if (s.Length > 4 && s[^1] is 'M' or 'm' or '.' && TwelveHourClock().Match(s) is { Success: true } twelve)
+        {
+            // "10/5/2025 8:00 AM", "Oct 6, 2025 5:30 p.m.": a date and a 12-hour clock time, as US spreadsheets export
+            // date-times; 12 AM is midnight, 12 PM noon.
+            var inner = ParseDateTextGeneral(twelve.Groups["rest"].Value, order, out value, out dayFirst, out monthFirst);
+            if (inner != CellProblem.None)
+            {
+                return inner;
+            }
+
+            int hour = value.Hour;
+            if (hour is 0 or > 12)
+            {
+                return CellProblem.NotADate;
+            }
+
+            bool pm = twelve.Groups["half"].Value is "p" or "P";
+            value = value.AddHours(pm ? (hour == 12 ? 0 : 12) : (hour == 12 ? -12 : 0));
+            return CellProblem.None;
+        }
         if (SerialText().IsMatch(s) && double.TryParse(s.Replace(',', '.'), NumberStyles.Float, CultureInfo.InvariantCulture, out double serial)
             && serial is >= MinSerialDate and <= MaxSerialDate)
         {
@@ -546,6 +566,13 @@ internal static partial class CellValues
 
     [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th|er|º|°)?\.?\s*(?:de\s+|-)?(?<mon>\p{L}{3,10})\.?\s*(?:de\s+|del\s+|-)?(?<y>[0-9]{4})(?:,?\s+(?<h>[0-9]{1,2})[:.h](?<min>[0-9]{2}))?$", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex NamedDate();
+
+    /// <summary>The text without a 12-hour clock's AM or PM ("10/5/2025 8:00 AM" → "10/5/2025 8:00"); other text as it is.</summary>
+    private static string WithoutTwelveHourMark(string s) =>
+        s.Length > 4 && s[^1] is 'M' or 'm' or '.' && TwelveHourClock().Match(s) is { Success: true } m ? m.Groups["rest"].Value : s;
+
+    [GeneratedRegex(@"^(?<rest>.*[0-9][\sT][0-9]{1,2}[:.][0-9]{2}(?::[0-9]{2})?)\s*(?<half>[AaPp])\.?\s?[Mm]\.?$", RegexOptions.CultureInvariant)]
+    private static partial Regex TwelveHourClock();
 
     [GeneratedRegex(@"^(?<d>[0-9]{1,2})(?:st|nd|rd|th|er)?\.?[\s-]*(?:de\s+)?(?<mon>\p{L}{3,10})\.?(?:,?\s+(?<h>[0-9]{1,2})[:.](?<min>[0-9]{2}))?$")]
     private static partial Regex NamedDayMonth();
