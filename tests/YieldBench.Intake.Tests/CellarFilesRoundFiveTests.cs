@@ -359,4 +359,24 @@ public class CellarFilesRoundFiveTests
         Assert.Equal("10/5/2025 8:00 AM", order.Value);
         Assert.Contains("They were read month first (month/day): so they fall within 1 day, as one season's dates do", order.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void A_block_heading_with_a_dash_between_its_words_is_still_a_heading()
+    {
+        // Given a stacked log whose second heading is "25-QR-02 – Pinot Noir" (four words and a dash)
+        using var folder = new TestFolder();
+        var lots = folder.Text("lots-2025.csv", Lots);
+        var log = folder.Text("stacked.csv", "25-QR-01\nDate,Time,Brix\n2025-10-05,08:00,24.6\n2025-10-06,08:00,22.0\n\n"
+            + "25-QR-02 \u2013 Pinot Noir\nDate,Time,Brix\n2025-10-06,08:00,25.8\n2025-10-07,08:00,24.0\n");
+
+        // When read
+        var set = folder.Read(lots, log);
+
+        // Then it heads its block (before, a dash counted as a fifth word: the heading and the repeated header were
+        // not-a-date errors and the readings were taken for 25-QR-01's), and names lot 25-QR-02 as a word
+        Assert.Equal(2, Assert.Single(set.Logs, l => l.LotId == "25-QR-02").Readings.Count);
+        Assert.Equal(2, Assert.Single(set.Logs, l => l.LotId == "25-QR-01").Readings.Count);
+        Assert.DoesNotContain(set.Issues, i => i.Severity == IssueSeverity.Error);
+        Assert.Single(set.Issues, i => i.Code == IssueCodes.LotIdInName && i.Value == "25-QR-02 \u2013 Pinot Noir");
+    }
 }

@@ -163,7 +163,8 @@ internal sealed class LogBlocks
         }
 
         string t = TextSettling.Settle(only, multiline: false, out _).Trim().TrimEnd(':').Trim();
-        if (t.Length is 0 or > MaxHeadingLength || t.Split(' ', StringSplitOptions.RemoveEmptyEntries).Length > MaxHeadingWords
+        // Words hold a letter or a digit: a dash between them ("Tank T2 – Pinot Noir") is no word.
+        if (t.Length is 0 or > MaxHeadingLength || t.Split(' ', StringSplitOptions.RemoveEmptyEntries).Count(w => w.Any(char.IsLetterOrDigit)) > MaxHeadingWords
             || CellValues.IsNoValueMark(t)
             || CellValues.Number(t, decimalComma, out _, out _) != CellProblem.NotANumber
             || CellValues.Date(t, DateOrder.Unknown, out _, out _, out _) is CellProblem.None or CellProblem.AmbiguousDate
