@@ -101,6 +101,9 @@ public static class IntakeMessages
     internal static string NoteRowSkipped() =>
         "The row holds only a note, not a lot; it was left out. Move notes to a notes column to keep them with their lot.";
 
+    internal static string LogNoteRow() =>
+        "The row holds a note and no reading, so it was left out. A reading needs its date (or time) and a sugar or temperature value; keep notes in a notes column (not read).";
+
     internal static string NoteInReading(string field, bool rowLeftOut) => rowLeftOut
         ? $"The {field} cell holds a note, not a reading, and the row has no other reading; it was left out. A note belongs in a notes column (not read); a reading needs its number (a dry wine's hydrometer reading, such as -1.5 °Brix or 0.994 SG, is read as it is)."
         : $"The {field} cell holds a note, not a reading; it was left empty and the row's other reading was used. A note belongs in a notes column (not read).";

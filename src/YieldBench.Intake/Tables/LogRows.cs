@@ -130,6 +130,26 @@ internal static class LogRows
         var tempCol = ctx.Column("temp_c");
         var seasonCol = ctx.Column("season");
         var st = rowState.Start(r);
+        // A note typed in a reading's cell ("pumped over", "stuck?", "dry"): no reading, and no error of its own.
+        var (sugarNote, tempNote) = (NoteIn(ctx, r, sugarCol), NoteIn(ctx, r, tempCol));
+        if (NoReadingIn(ctx, r, sugarCol, sugarNote) && NoReadingIn(ctx, r, tempCol, tempNote))
+        {
+            // A row of words and no reading ("pumped over" alone, "DAP 20 g/hL" where the date goes, or a note in a
+            // reading's cell): the cellar's note, said as one; not a reading without a date or without a value.
+            if ((sugarNote ?? tempNote) is { } readingNote)
+            {
+                var noteCol = sugarNote is not null ? sugarCol! : tempCol!;
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, noteCol.Header, readingNote, IssueCodes.NoteRowSkipped, IntakeMessages.NoteInReading(noteCol.Field.Name, true));
+                return false;
+            }
+
+            if (RowNote(ctx, r, dayNumbers) is var (column, text))
+            {
+                sink.Warning(ctx.File, ctx.SheetName, r + 1, column.Header, text, IssueCodes.NoteRowSkipped, IntakeMessages.LogNoteRow());
+                return false;
+            }
+        }
+
         string? lotId = sheetLot ?? TextField(st, lotCol);
         if (lotId is null && lotCol is not null && !st.Bad)
         {
@@ -138,8 +158,6 @@ internal static class LogRows
 
         int? season = SeasonField(st, seasonCol);
         var when = dayNumbers ? DayCount(ctx, st, r) : When(ctx, st, r);
-        // A note typed in a reading's cell ("pumped over", "stuck?", "dry"): no reading, and no error of its own.
-        var (sugarNote, tempNote) = (NoteIn(ctx, r, sugarCol), NoteIn(ctx, r, tempCol));
         SugarReading? sugar = sugarCol is null || sugarNote is not null ? null : SugarField(st, sugarCol);
         double? temp = tempCol is null || tempNote is not null ? null : NumberField(st, tempCol);
         if ((sugarNote ?? tempNote) is { } note && !st.Bad)
@@ -166,6 +184,50 @@ internal static class LogRows
 
         run.Readings.Add((lotId, season, new LogReading(when.Value, sugar, temp, ctx.Place, r + 1)));
         return true;
+    }
+
+    /// <summary>True when row <paramref name="r"/> has no value in reading column <paramref name="c"/>: none, blank, or a note.</summary>
+    private static bool NoReadingIn(SheetContext ctx, int r, BoundColumn? c, string? note) =>
+        c is null || note is not null || CellValues.IsBlank(ctx.Sheet.Cell(r, c.Index));
+
+    /// <summary>
+    /// The note of a row with no reading: words (two or more, with letters) in its lot, date or timestamp cell, where
+    /// the date cell holds no date. Null when the row is dated (a reading left empty is reported as such) or holds no words.
+    /// </summary>
+    private static (BoundColumn Column, string Text)? RowNote(SheetContext ctx, int r, bool dayNumbers)
+    {
+        var dateCol = ctx.Column("timestamp") ?? ctx.Column("date");
+        if (dateCol is not null && !CellValues.IsBlank(ctx.Sheet.Cell(r, dateCol.Index)) && (dayNumbers || IsDate(ctx, r, dateCol)))
+        {
+            return null;
+        }
+
+        foreach (var c in new[] { dateCol, ctx.Column("lot_id") })
+        {
+            if (c is not null && ctx.Sheet.Cell(r, c.Index) is string s && s.Trim().Split(' ', StringSplitOptions.RemoveEmptyEntries).Length >= 2 && s.Count(char.IsLetter) >= 2)
+            {
+                return (c, s.Trim());
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>True when the date cell of row <paramref name="r"/> reads as a date, with or without its year.</summary>
+    private static bool IsDate(SheetContext ctx, int r, BoundColumn c)
+    {
+        object? cell = ctx.Sheet.Cell(r, c.Index);
+        if (cell is string text && CellValues.WithoutZone(text) is { } local)
+        {
+            cell = local;
+        }
+
+        if (CellValues.Date(cell, c.DateOrder, out _, out _, out _) is CellProblem.None or CellProblem.AmbiguousDate)
+        {
+            return true;
+        }
+
+        return cell is string t && CellValues.DayMonth(t.Trim(), c.DateOrder, out _, out _, out _, out _, out _) is CellProblem.None or CellProblem.AmbiguousDate;
     }
 
     /// <summary>
