@@ -377,6 +377,8 @@ public sealed partial class ForecastCommandTests(DemoForecastFixture demo) : ICl
         Assert.True(past >= 0 && warming > past, flat);
         Assert.Contains("its peak, 41.0 °C at the Sun 13 Sep 07:30 reading, looks behind it (the readings since are cooler)", flat[past..warming], StringComparison.Ordinal);
         Assert.DoesNotContain("cool it now", flat[past..warming], StringComparison.Ordinal);
+        Assert.Matches(@"at its peak rate \([\d.]+ °Brix/day\) it made about [\d.]+ kW of heat; past its peak it makes less", flat[past..warming]);
+        Assert.Contains("what cooling must remove to hold it steady", flat[warming..], StringComparison.Ordinal);
         Assert.DoesNotContain("cool now", flat[..flat.IndexOf("Each lot in full", StringComparison.Ordinal)], StringComparison.Ordinal);
         Assert.Matches(@"peak \d+\.\d °C \(80 %: [\d.]+–[\d.]+\)", flat[warming..]);
     }

@@ -134,7 +134,10 @@ public static class ForecastSentences
 
         if (f.CoolingKw is { } kw && !f.DryReached)
         {
-            heat.Add($"at the forecast peak rate ({N(f.PeakRateBrixPerDay)} °Brix/day) it makes {N(kw, kw < 1 ? "0.00" : kw < 10 ? "0.0" : "0")} kW of heat, what cooling must remove to hold it steady");
+            string power = N(kw, kw < 1 ? "0.00" : kw < 10 ? "0.0" : "0");
+            heat.Add(f.PeakPassedHours is null
+                ? $"at the forecast peak rate ({N(f.PeakRateBrixPerDay)} °Brix/day) it makes {power} kW of heat, what cooling must remove to hold it steady"
+                : $"at its peak rate ({N(f.PeakRateBrixPerDay)} °Brix/day) it made about {power} kW of heat; past its peak it makes less");
         }
 
         if (heat.Count > 0)
