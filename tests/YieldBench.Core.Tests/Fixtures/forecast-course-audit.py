@@ -14,48 +14,10 @@
 import csv, datetime as dt, math, os, sys
 import numpy as np
 from scipy.optimize import brentq, curve_fit
+from audit_logs import read_logs, read_lots
 
-def brix_from_sg(s):  # the NBS-fitted cubic, docs/methods.md Part 1 §1
-    return ((182.4601 * s - 775.6821) * s + 1262.7794) * s - 669.5622
-
-def read_rows(path):
-    if path.endswith(".csv"):
-        with open(path, encoding="utf-8-sig") as f:
-            text = f.read()
-        rows = list(csv.reader(text.splitlines(), delimiter=";" if ";" in text.splitlines()[0] else ","))
-        return [("csv", rows)]
-    import openpyxl
-    wb = openpyxl.load_workbook(path, read_only=True, data_only=True)
-    return [(ws.title, [list(r) for r in ws.iter_rows(values_only=True)]) for ws in wb.worksheets]
-
-def num(v):
-    if v is None or v == "": return None
-    return float(str(v).replace(",", ".")) if isinstance(v, str) else float(v)
-
-def when(d, t):
-    if isinstance(d, str): d = dt.datetime.fromisoformat(d)
-    if t is None or t == "": return d
-    if isinstance(t, str): t = dt.time.fromisoformat(t)
-    return dt.datetime.combine(d.date(), t)
-
-logs = {}  # lot id -> list of (timestamp, brix or None, temp or None)
-for path in sys.argv[2:]:
-    for title, rows in read_rows(path):
-        head = [str(h or "").strip() for h in rows[0]]
-        sugar_col = next(i for i, h in enumerate(head) if h in ("Brix", "SG"))
-        is_sg = head[sugar_col] == "SG"
-        temp_col = next(i for i, h in enumerate(head) if h.startswith("Temp"))
-        for r in rows[1:]:
-            if all(v is None or v == "" for v in r): continue
-            if head[0] == "Timestamp":
-                lot, ts = title, (r[0] if isinstance(r[0], dt.datetime) else dt.datetime.fromisoformat(r[0]))
-            else:
-                lot, ts = str(r[0]), when(r[1], r[2])
-            s = num(r[sugar_col]); t = num(r[temp_col])
-            if s is not None and is_sg: s = brix_from_sg(s)
-            logs.setdefault(lot, []).append((ts, s, t))
-
-lots = {r["lot_id"]: r for r in csv.DictReader(open(sys.argv[1], encoding="utf-8"))}
+logs = read_logs(sys.argv[2:])  # lot id -> list of (timestamp, brix or None, temp or None)
+lots = read_lots(sys.argv[1])
 
 def hours(a, b): return (b - a).total_seconds() / 3600.0
 

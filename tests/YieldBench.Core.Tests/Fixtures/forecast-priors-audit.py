@@ -32,45 +32,17 @@
 # (each .out.csv then renamed to .csv).
 import csv, datetime as dt, math, os, re, sys
 import numpy as np
-
-def brix_from_sg(s):
-    return ((182.4601 * s - 775.6821) * s + 1262.7794) * s - 669.5622
-
-def read_rows(path):
-    if path.endswith(".csv"):
-        with open(path, encoding="utf-8-sig") as f:
-            text = f.read()
-        return [("csv", list(csv.reader(text.splitlines(), delimiter=";" if ";" in text.splitlines()[0] else ",")))]
-    import openpyxl
-    wb = openpyxl.load_workbook(path, read_only=True, data_only=True)
-    return [(ws.title, [list(r) for r in ws.iter_rows(values_only=True)]) for ws in wb.worksheets]
-
-def num(v):
-    if v is None or v == "": return None
-    return float(str(v).replace(",", ".")) if isinstance(v, str) else float(v)
-
-def when(d, t):
-    if isinstance(d, str): d = dt.datetime.fromisoformat(d)
-    if t is None or t == "": return d
-    if isinstance(t, str): t = dt.time.fromisoformat(t)
-    return dt.datetime.combine(d.date(), t)
+from audit_logs import num, read_logs, read_lots
 
 lots_path, courses_path, log_paths = sys.argv[1], sys.argv[2], [a for a in sys.argv[3:] if not a.endswith(".out.csv")]
 peaks = {}  # highest logged temperature per lot
-for path in log_paths:
-    for title, rows in read_rows(path):
-        head = [str(h or "").strip() for h in rows[0]]
-        temp_col = next(i for i, h in enumerate(head) if h.startswith("Temp"))
-        for r in rows[1:]:
-            if all(v is None or v == "" for v in r): continue
-            lot = title if head[0] == "Timestamp" else str(r[0])
-            t = num(r[temp_col])
-            # readings of one time are averaged before the highest is taken
-            ts = r[0] if head[0] == "Timestamp" else when(r[1], r[2])
-            peaks.setdefault(lot, {}).setdefault(ts, []).append(t)
+for lot, readings in read_logs(log_paths).items():
+    for ts, _, t in readings:
+        # readings of one time are averaged before the highest is taken
+        peaks.setdefault(lot, {}).setdefault(ts, []).append(t)
 peak = {lot: max(np.mean([v for v in vs if v is not None]) for vs in d.values() if any(v is not None for v in vs)) for lot, d in peaks.items()}
 
-lots = {r["lot_id"]: r for r in csv.DictReader(open(lots_path, encoding="utf-8"))}
+lots = read_lots(lots_path)
 fits = {}
 for r in csv.DictReader(open(courses_path, encoding="utf-8")):
     if r["kappa_per_h"]:
